@@ -1,0 +1,28 @@
+import { defineConfig } from "vitest/config";
+import path from "node:path";
+
+const alias = { "@": import.meta.dirname, "server-only": path.join(import.meta.dirname, "tests/support/server-only-stub.ts") };
+
+export default defineConfig({
+  resolve: { alias },
+  test: {
+    projects: [
+      {
+        resolve: { alias },
+        test: { name: "unit", include: ["tests/unit/**/*.test.ts"], environment: "node" },
+      },
+      {
+        resolve: { alias },
+        test: {
+          name: "integration",
+          include: ["tests/integration/**/*.test.ts"],
+          environment: "node",
+          globalSetup: ["tests/integration/global-setup.ts"],
+          fileParallelism: false,
+          testTimeout: 60_000,
+          hookTimeout: 120_000,
+        },
+      },
+    ],
+  },
+});
