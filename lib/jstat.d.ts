@@ -11,6 +11,12 @@ declare module "jstat" {
     binomial: { cdf(k: number, n: number, p: number): number; pdf(k: number, n: number, p: number): number };
     studentt: Distribution;
     chisquare: Distribution;
+    /** Regularised incomplete beta function I_x(a, b). */
+    ibeta(x: number, a: number, b: number): number;
+    /** Regularised lower incomplete gamma function P(a, x). */
+    lowRegGamma(a: number, x: number): number;
+    /** Natural log of the gamma function. */
+    gammaln(x: number): number;
   };
   export default jStat;
 }

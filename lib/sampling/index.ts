@@ -1,0 +1,18 @@
+/**
+ * Sondage sampling engine — public surface (contract: SAMPLING-ENGINE.md). Pure TypeScript, no I/O.
+ */
+export { createRng, type Rng } from "./rng";
+export { selectRandom } from "./select-random";
+export { selectSystematic } from "./select-systematic";
+export { selectPps, type PpsHit, type PpsSelection } from "./select-pps";
+export { selectStratifiedRandom } from "./select-stratified";
+export { attributeSampleSize } from "./sizes/attribute-sample-size";
+export { musSampleSize, EXPANSION_FACTORS } from "./sizes/mus-sample-size";
+export { variablesSampleSize } from "./sizes/variables-sample-size";
+export { neymanAllocation, stratifiedSampleSize, type PlanningStratum } from "./sizes/stratified-sample-size";
+export { evaluateVariables } from "./evaluate-variables";
+export { evaluateStratified, type StratumInput } from "./evaluate-stratified";
+export { poissonFactor } from "./poisson-factor";
+export { evaluateMus, type BoundSide, type MusEvaluation } from "./evaluate-mus";
+export { evaluateAttributes } from "./evaluate-attributes";
+export type { SampledItem, Estimator, StratifiedEstimator, Sides, FactorMode, VariablesEvaluation } from "./types";
