@@ -1,0 +1,62 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { getDb } from "@/db/knex";
+import { requireEngagementPage } from "@/lib/auth/page-guards";
+import { listMembersByEngagementId } from "@/lib/data/members";
+import { ROLE_LABELS } from "@/lib/auth/roles";
+import { PageHeader } from "@/components/ui/page-header";
+import { Card, EmptyState } from "@/components/ui/card";
+import { Badge } from "@/components/ui/badge";
+import { Amount } from "@/components/ui/amount";
+import { STATUS_LABELS, statusTone } from "@/components/engagements/status";
+
+export const metadata: Metadata = { title: "Engagement" };
+
+export default async function EngagementPage({ params }: { params: Promise<{ engagementId: string }> }) {
+  const { engagementId } = await params;
+  const { engagement, role } = await requireEngagementPage(engagementId);
+  const members = await listMembersByEngagementId(getDb(), { engagementId: engagement.id });
+  const facts: [string, React.ReactNode][] = [
+    ["Client", engagement.clientName],
+    ["Period end", <span key="p" className="figures">{engagement.periodEnd}</span>],
+    ["Currency", engagement.currency],
+    ["Overall materiality", <Amount key="o" value={engagement.overallMateriality} />],
+    ["Performance materiality", <Amount key="pm" value={engagement.performanceMateriality} />],
+    ["Your role", ROLE_LABELS[role]],
+  ];
+  return (
+    <>
+      <PageHeader eyebrow={engagement.clientName} title={engagement.name} actions={<Badge tone={statusTone(engagement.status)}>{STATUS_LABELS[engagement.status]}</Badge>}>
+        Period ended <span className="figures">{engagement.periodEnd}</span>
+      </PageHeader>
+      <div className="grid gap-6 lg:grid-cols-3">
+        <Card title="Engagement" className="lg:col-span-2">
+          <dl className="grid gap-x-8 gap-y-3 sm:grid-cols-2">
+            {facts.map(([label, value]) => (
+              <div key={label} className="flex items-baseline justify-between gap-4 border-b border-ink-line/60 pb-2">
+                <dt className="text-sm text-ink-soft">{label}</dt>
+                <dd className="text-right text-sm font-medium">{value}</dd>
+              </div>
+            ))}
+          </dl>
+        </Card>
+        <Card title="Team" action={<Link href={`/engagements/${engagement.id}/team`} className="text-sm font-medium text-ledger-600 hover:underline">Manage</Link>}>
+          <ul className="space-y-2">
+            {members.map((m) => (
+              <li key={m.userId} className="flex items-center justify-between text-sm">
+                <span>{m.name}</span>
+                <span className="text-xs uppercase tracking-wider text-ink-faint">{ROLE_LABELS[m.role]}</span>
+              </li>
+            ))}
+          </ul>
+        </Card>
+        <Card title="Populations" className="lg:col-span-3">
+          <EmptyState title="No population loaded yet">Ledger populations to sample from will be listed here once loaded.</EmptyState>
+        </Card>
+        <Card title="Samples" className="lg:col-span-3">
+          <EmptyState title="No samples yet">Samples drawn from this engagement&rsquo;s populations will be listed here.</EmptyState>
+        </Card>
+      </div>
+    </>
+  );
+}

@@ -1,0 +1,24 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { getDb } from "@/db/knex";
+import { requireEngagementPage } from "@/lib/auth/page-guards";
+import { listMembersByEngagementId } from "@/lib/data/members";
+import { PageHeader } from "@/components/ui/page-header";
+import { Card } from "@/components/ui/card";
+import { TeamManager } from "@/components/engagements/team-manager";
+
+export const metadata: Metadata = { title: "Team" };
+
+export default async function TeamPage({ params }: { params: Promise<{ engagementId: string }> }) {
+  const { engagementId } = await params;
+  const { engagement, role, user } = await requireEngagementPage(engagementId);
+  const members = await listMembersByEngagementId(getDb(), { engagementId: engagement.id });
+  return (
+    <>
+      <PageHeader eyebrow={engagement.clientName} title="Team">
+        <Link href={`/engagements/${engagement.id}`} className="hover:underline">{engagement.name}</Link> · managers and partners change the team; no one can give a role above their own.
+      </PageHeader>
+      <Card><TeamManager engagementId={engagement.id} myRole={role} myUserId={user.id} initialMembers={members} /></Card>
+    </>
+  );
+}

@@ -1,0 +1,16 @@
+import { requirePageUser } from "@/lib/auth/page-guards";
+import { TopBar } from "@/components/shell/top-bar";
+import { JudgementNote } from "@/components/shell/judgement-note";
+
+export default async function WorkspaceLayout({ children }: { children: React.ReactNode }) {
+  const user = await requirePageUser();
+  return (
+    <div className="flex min-h-screen flex-col">
+      <TopBar user={user} />
+      <main className="mx-auto w-full max-w-6xl flex-1 px-6 py-8">{children}</main>
+      <footer className="border-t border-ink-line">
+        <div className="mx-auto max-w-6xl px-6 py-4"><JudgementNote /></div>
+      </footer>
+    </div>
+  );
+}

@@ -1,0 +1,52 @@
+"use client";
+import { useState } from "react";
+import { useRouter } from "next/navigation";
+import { useForm } from "react-hook-form";
+import { zodResolver } from "@hookform/resolvers/zod";
+import type { z } from "zod";
+import { CreateUserSchema } from "@/lib/validation/user";
+import { GRADES } from "@/lib/auth/roles";
+import { Field, Input, Select } from "@/components/ui/field";
+import { Button } from "@/components/ui/button";
+import { Alert } from "@/components/ui/alert";
+import { api, ApiError } from "@/components/ui/api";
+
+type FormIn = z.input<typeof CreateUserSchema>;
+
+export function CreateUserForm() {
+  const router = useRouter();
+  const [failure, setFailure] = useState<string | null>(null);
+  const { register, handleSubmit, setError, formState: { errors, isSubmitting } } = useForm<FormIn, unknown, z.output<typeof CreateUserSchema>>({
+    resolver: zodResolver(CreateUserSchema), defaultValues: { grade: "staff", firmRole: "member" },
+  });
+  const onSubmit = handleSubmit(async (values) => {
+    setFailure(null);
+    try {
+      await api("/api/users", { body: values });
+      router.push("/admin/users");
+      router.refresh();
+    } catch (err) {
+      if (err instanceof ApiError && err.fields) for (const [f, m] of Object.entries(err.fields)) setError(f as keyof FormIn, { message: m[0] });
+      setFailure((err as Error).message);
+    }
+  });
+  return (
+    <form onSubmit={onSubmit} noValidate className="grid max-w-2xl gap-x-6 gap-y-1 sm:grid-cols-2">
+      {failure && <div className="sm:col-span-2"><Alert>{failure}</Alert></div>}
+      <Field label="Name" error={errors.name?.message}>{({ id, describedBy, invalid }) => <Input id={id} aria-describedby={describedBy} aria-invalid={invalid} {...register("name")} />}</Field>
+      <Field label="E-mail" error={errors.email?.message}>{({ id, describedBy, invalid }) => <Input id={id} type="email" aria-describedby={describedBy} aria-invalid={invalid} {...register("email")} />}</Field>
+      <Field label="Grade" error={errors.grade?.message} hint="Client staff can only view engagements they are added to">
+        {({ id, describedBy }) => <Select id={id} aria-describedby={describedBy} {...register("grade")}>{GRADES.map((g) => <option key={g} value={g} className="capitalize">{g}</option>)}</Select>}
+      </Field>
+      <Field label="Firm role" error={errors.firmRole?.message}>
+        {({ id }) => <Select id={id} {...register("firmRole")}><option value="member">Member</option><option value="admin">Administrator</option></Select>}
+      </Field>
+      <div className="sm:col-span-2">
+        <Field label="First password" error={errors.password?.message} hint="At least 12 characters; give it to the person directly">
+          {({ id, describedBy, invalid }) => <Input id={id} type="text" autoComplete="off" aria-describedby={describedBy} aria-invalid={invalid} {...register("password")} />}
+        </Field>
+      </div>
+      <div className="sm:col-span-2"><Button type="submit" disabled={isSubmitting}>Create user</Button></div>
+    </form>
+  );
+}

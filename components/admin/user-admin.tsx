@@ -1,0 +1,64 @@
+"use client";
+import { useState } from "react";
+import type { ColumnDef } from "@tanstack/react-table";
+import type { UserRecord } from "@/lib/data/users";
+import { DataTable } from "@/components/ui/data-table";
+import { EmptyState } from "@/components/ui/card";
+import { Badge } from "@/components/ui/badge";
+import { Button } from "@/components/ui/button";
+import { Alert } from "@/components/ui/alert";
+import { api } from "@/components/ui/api";
+
+export function UserAdmin({ initialUsers, myUserId }: { initialUsers: UserRecord[]; myUserId: number }) {
+  const [users, setUsers] = useState(initialUsers);
+  const [message, setMessage] = useState<{ tone: "error" | "success"; text: string } | null>(null);
+
+  async function setActive(user: UserRecord, active: boolean) {
+    setMessage(null);
+    try {
+      const { user: updated } = await api<{ user: UserRecord }>(`/api/users/${user.id}`, { method: "PATCH", body: { active } });
+      setUsers((list) => list.map((u) => (u.id === updated.id ? updated : u)));
+      setMessage({ tone: "success", text: `${user.name} is ${active ? "active again" : "deactivated and can no longer sign in"}.` });
+    } catch (err) {
+      setMessage({ tone: "error", text: (err as Error).message });
+    }
+  }
+
+  async function resetPassword(user: UserRecord) {
+    const password = window.prompt(`New password for ${user.name} (at least 12 characters):`);
+    if (!password) return;
+    setMessage(null);
+    try {
+      await api(`/api/users/${user.id}/password`, { body: { password } });
+      setMessage({ tone: "success", text: `Password for ${user.name} was reset. Give it to them in person or by phone.` });
+    } catch (err) {
+      setMessage({ tone: "error", text: (err as Error).message });
+    }
+  }
+
+  const columns: ColumnDef<UserRecord, unknown>[] = [
+    { accessorKey: "name", header: "Name", cell: ({ row }) => <span className="font-medium">{row.original.name}</span> },
+    { accessorKey: "email", header: "E-mail" },
+    { accessorKey: "grade", header: "Grade", cell: ({ getValue }) => <span className="capitalize">{String(getValue())}</span> },
+    { accessorKey: "firmRole", header: "Firm role", cell: ({ getValue }) => (getValue() === "admin" ? <Badge tone="blue">Admin</Badge> : "Member") },
+    { accessorKey: "active", header: "Status", cell: ({ getValue }) => (getValue() ? <Badge tone="green">Active</Badge> : <Badge tone="red">Deactivated</Badge>) },
+    {
+      id: "actions", header: "", enableSorting: false,
+      cell: ({ row }) => row.original.id === myUserId ? null : (
+        <div className="flex justify-end gap-1">
+          <Button variant="ghost" onClick={() => resetPassword(row.original)}>Reset password</Button>
+          {row.original.active
+            ? <Button variant="ghost" onClick={() => setActive(row.original, false)}>Deactivate</Button>
+            : <Button variant="ghost" onClick={() => setActive(row.original, true)}>Reactivate</Button>}
+        </div>
+      ),
+    },
+  ];
+
+  return (
+    <div className="space-y-4">
+      {message && <Alert tone={message.tone}>{message.text}</Alert>}
+      <DataTable data={users} columns={columns} label="People" filterPlaceholder="Filter by name, e-mail, grade…" empty={<EmptyState title="No people yet" />} />
+    </div>
+  );
+}

@@ -1,0 +1,25 @@
+import Link from "next/link";
+import { Logo } from "./logo";
+import { SignOutButton } from "./sign-out-button";
+import type { UserRecord } from "@/lib/data/users";
+
+export function TopBar({ user }: { user: UserRecord }) {
+  return (
+    <header className="border-b border-ink-line bg-paper-raised/90 backdrop-blur">
+      <div className="mx-auto flex h-14 max-w-6xl items-center gap-6 px-6">
+        <Link href="/engagements" aria-label="Sondage home"><Logo /></Link>
+        <nav aria-label="Main" className="flex gap-1 text-sm">
+          <Link href="/engagements" className="rounded-md px-2.5 py-1.5 text-ink-soft hover:bg-paper-sunk hover:text-ink">Engagements</Link>
+          {user.firmRole === "admin" && <Link href="/admin/users" className="rounded-md px-2.5 py-1.5 text-ink-soft hover:bg-paper-sunk hover:text-ink">People</Link>}
+        </nav>
+        <div className="ml-auto flex items-center gap-3">
+          <div className="text-right leading-tight">
+            <p className="text-sm font-medium" data-testid="signed-in-as">{user.name}</p>
+            <p className="text-xs capitalize text-ink-faint">{user.grade}{user.firmRole === "admin" ? " · firm admin" : ""}</p>
+          </div>
+          <SignOutButton />
+        </div>
+      </div>
+    </header>
+  );
+}

@@ -1,0 +1,69 @@
+"use client";
+import { useState } from "react";
+import {
+  flexRender, getCoreRowModel, getFilteredRowModel, getSortedRowModel, useReactTable,
+  type ColumnDef, type SortingState,
+} from "@tanstack/react-table";
+
+interface DataTableProps<T> {
+  data: T[];
+  columns: ColumnDef<T, unknown>[];
+  filterPlaceholder?: string;
+  empty: React.ReactNode;
+  label: string;
+}
+
+/** A client-side table with sortable headers and a text filter over every column. */
+export function DataTable<T>({ data, columns, filterPlaceholder = "Filter…", empty, label }: DataTableProps<T>) {
+  const [sorting, setSorting] = useState<SortingState>([]);
+  const [filter, setFilter] = useState("");
+  const table = useReactTable({
+    data, columns, state: { sorting, globalFilter: filter },
+    onSortingChange: setSorting, onGlobalFilterChange: setFilter,
+    getCoreRowModel: getCoreRowModel(), getSortedRowModel: getSortedRowModel(), getFilteredRowModel: getFilteredRowModel(),
+  });
+  const rows = table.getRowModel().rows;
+  return (
+    <div className="space-y-3">
+      <input
+        type="search" value={filter} onChange={(e) => setFilter(e.target.value)} placeholder={filterPlaceholder} aria-label={`Filter ${label}`}
+        className="w-full max-w-xs rounded-md border border-ink-line bg-paper-raised px-3 py-1.5 text-sm focus:border-ledger-500 focus:outline-none"
+      />
+      <div className="overflow-x-auto rounded-card border border-ink-line bg-paper-raised">
+        <table className="w-full text-sm" aria-label={label}>
+          <thead className="bg-paper-sunk/60 text-left text-xs uppercase tracking-wider text-ink-soft">
+            {table.getHeaderGroups().map((group) => (
+              <tr key={group.id}>
+                {group.headers.map((header) => {
+                  const sorted = header.column.getIsSorted();
+                  const align = (header.column.columnDef.meta as { align?: string } | undefined)?.align === "right" ? "text-right" : "";
+                  return (
+                    <th key={header.id} scope="col" className={`px-4 py-2.5 font-semibold ${align}`} aria-sort={sorted ? (sorted === "asc" ? "ascending" : "descending") : undefined}>
+                      {header.column.getCanSort() ? (
+                        <button type="button" onClick={header.column.getToggleSortingHandler()} className="inline-flex items-center gap-1 uppercase hover:text-ink">
+                          {flexRender(header.column.columnDef.header, header.getContext())}
+                          <span aria-hidden className="text-ink-faint">{sorted === "asc" ? "▲" : sorted === "desc" ? "▼" : "↕"}</span>
+                        </button>
+                      ) : flexRender(header.column.columnDef.header, header.getContext())}
+                    </th>
+                  );
+                })}
+              </tr>
+            ))}
+          </thead>
+          <tbody>
+            {rows.map((row) => (
+              <tr key={row.id} className="border-t border-ink-line/70 hover:bg-paper">
+                {row.getVisibleCells().map((cell) => {
+                  const align = (cell.column.columnDef.meta as { align?: string } | undefined)?.align === "right" ? "text-right" : "";
+                  return <td key={cell.id} className={`px-4 py-2.5 ${align}`}>{flexRender(cell.column.columnDef.cell, cell.getContext())}</td>;
+                })}
+              </tr>
+            ))}
+          </tbody>
+        </table>
+        {rows.length === 0 && <div className="p-6">{data.length === 0 ? empty : <p className="text-center text-sm text-ink-soft">Nothing matches “{filter}”.</p>}</div>}
+      </div>
+    </div>
+  );
+}

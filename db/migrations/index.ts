@@ -1,0 +1,19 @@
+import type { Knex } from "knex";
+import * as m0001 from "./20261202_0001_firms_users";
+import * as m0002 from "./20261202_0002_engagements";
+import * as m0003 from "./20261202_0003_audit_log";
+
+type Migration = { up(knex: Knex): Promise<void>; down(knex: Knex): Promise<void> };
+
+/** Every migration, in order. Add a new file here too: the list is static so it bundles and runs anywhere. */
+const migrations: Record<string, Migration> = {
+  "20261202_0001_firms_users": m0001,
+  "20261202_0002_engagements": m0002,
+  "20261202_0003_audit_log": m0003,
+};
+
+export const migrationSource: Knex.MigrationSource<string> = {
+  getMigrations: async () => Object.keys(migrations),
+  getMigrationName: (name) => name,
+  getMigration: async (name) => migrations[name],
+};

@@ -1,0 +1,29 @@
+import { AppError, forbidden, notFound, unauthorised } from "@/lib/errors";
+import { hasAtLeastRole, type EngagementRole } from "./roles";
+
+export interface AccessFacts {
+  userId: number | null;
+  userActive: boolean;
+  membershipRole: EngagementRole | null;
+}
+
+/**
+ * The one decision behind every engagement route: 401 without an active session, 404 when the
+ * user is not on the engagement (so its existence is never revealed), 403 below the least role.
+ */
+export function decideEngagementAccess(facts: AccessFacts, leastRole: EngagementRole): EngagementRole {
+  if (facts.userId === null || !facts.userActive) throw unauthorised();
+  if (facts.membershipRole === null) throw notFound("No such engagement");
+  if (!hasAtLeastRole(facts.membershipRole, leastRole)) {
+    throw forbidden(`This needs the ${leastRole} role or above on the engagement; you are ${facts.membershipRole}.`);
+  }
+  return facts.membershipRole;
+}
+
+export function parseIdParam(value: string | undefined, name: string): number {
+  const id = Number(value);
+  if (!value || !/^\d{1,10}$/.test(value) || !Number.isSafeInteger(id) || id <= 0) {
+    throw new AppError(404, "not_found", `No such ${name}`);
+  }
+  return id;
+}

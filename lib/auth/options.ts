@@ -1,0 +1,38 @@
+import "server-only";
+import type { NextAuthOptions } from "next-auth";
+import CredentialsProvider from "next-auth/providers/credentials";
+import { getDb } from "@/db/knex";
+import { verifyCredentials } from "./verify-credentials";
+
+export const SESSION_MAX_AGE_SECONDS = 8 * 60 * 60; // one working day
+
+function clientIp(headers: Record<string, unknown> | undefined): string {
+  const forwarded = headers?.["x-forwarded-for"];
+  const first = typeof forwarded === "string" ? forwarded.split(",")[0]?.trim() : undefined;
+  return first || String(headers?.["x-real-ip"] ?? "unknown");
+}
+
+export const authOptions: NextAuthOptions = {
+  session: { strategy: "jwt", maxAge: SESSION_MAX_AGE_SECONDS },
+  pages: { signIn: "/sign-in" },
+  providers: [
+    CredentialsProvider({
+      name: "Sondage account",
+      credentials: { email: { label: "E-mail", type: "email" }, password: { label: "Password", type: "password" } },
+      async authorize(credentials, req) {
+        const user = await verifyCredentials(getDb(), credentials, clientIp(req?.headers));
+        return { id: String(user.id), name: user.name, email: user.email };
+      },
+    }),
+  ],
+  callbacks: {
+    async jwt({ token, user }) {
+      if (user) token.uid = Number(user.id);
+      return token;
+    },
+    async session({ session, token }) {
+      if (session.user) (session.user as { id?: number }).id = token.uid as number;
+      return session;
+    },
+  },
+};

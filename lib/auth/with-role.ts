@@ -1,0 +1,79 @@
+import "server-only";
+import type { z } from "zod";
+import { getDb, type Knex } from "@/db/knex";
+import { getUserById, type UserRecord } from "@/lib/data/users";
+import { getMembershipRole } from "@/lib/data/members";
+import { errorToResponse, forbidden, unauthorised, validationError } from "@/lib/errors";
+import { decideEngagementAccess, parseIdParam } from "./access";
+import { readInput } from "./read-input";
+import { getSessionUserId } from "./session-user";
+import type { EngagementRole } from "./roles";
+
+type RouteParams = { params: Promise<Record<string, string>> };
+type Handler<S extends z.ZodType, C> = (input: z.output<S>, ctx: C) => Promise<Response | unknown>;
+
+export interface UserContext { db: Knex; user: UserRecord; req: Request; params: Record<string, string> }
+export interface EngagementContext extends UserContext { engagementId: number; role: EngagementRole }
+
+function answer(result: unknown): Response {
+  if (result instanceof Response) return result;
+  return result === undefined ? new Response(null, { status: 204 }) : Response.json(result);
+}
+
+async function parseWith<S extends z.ZodType>(schema: S, req: Request): Promise<z.output<S>> {
+  const parsed = schema.safeParse(await readInput(req));
+  if (!parsed.success) throw validationError(parsed.error);
+  return parsed.data;
+}
+
+async function loadActiveUser(db: Knex): Promise<UserRecord> {
+  const userId = await getSessionUserId();
+  const user = userId === null ? null : await getUserById(db, { userId });
+  if (!user || !user.active) throw unauthorised();
+  return user;
+}
+
+/** Any signed-in, active user. */
+export function withUser<S extends z.ZodType>(schema: S, handler: Handler<S, UserContext>) {
+  return async (req: Request, route: RouteParams): Promise<Response> => {
+    try {
+      const db = getDb();
+      const params = await route.params;
+      const user = await loadActiveUser(db);
+      const input = await parseWith(schema, req);
+      return answer(await handler(input, { db, user, req, params }));
+    } catch (err) {
+      return errorToResponse(err);
+    }
+  };
+}
+
+/** A signed-in firm administrator. */
+export function withFirmAdmin<S extends z.ZodType>(schema: S, handler: Handler<S, UserContext>) {
+  return withUser(schema, async (input, ctx) => {
+    if (ctx.user.firmRole !== "admin") throw forbidden("Only firm administrators manage users.");
+    return handler(input, ctx);
+  });
+}
+
+/**
+ * Every engagement route goes through here: session (401) → membership (404) → role (403) →
+ * input (400 naming the field) → handler. The engagement id comes from the `engagementId` segment.
+ */
+export function withEngagementRole<S extends z.ZodType>(schema: S, leastRole: EngagementRole, handler: Handler<S, EngagementContext>) {
+  return async (req: Request, route: RouteParams): Promise<Response> => {
+    try {
+      const db = getDb();
+      const params = await route.params;
+      const userId = await getSessionUserId();
+      if (userId === null) throw unauthorised();
+      const engagementId = parseIdParam(params.engagementId, "engagement");
+      const [user, membershipRole] = await Promise.all([getUserById(db, { userId }), getMembershipRole(db, { engagementId, userId })]);
+      const role = decideEngagementAccess({ userId, userActive: Boolean(user?.active), membershipRole }, leastRole);
+      const input = await parseWith(schema, req);
+      return answer(await handler(input, { db, user: user!, req, params, engagementId, role }));
+    } catch (err) {
+      return errorToResponse(err);
+    }
+  };
+}

@@ -1,0 +1,60 @@
+import "server-only";
+import type { Knex } from "knex";
+
+export interface AuditEntry {
+  actorUserId: number | null;
+  engagementId?: number | null;
+  entity: string;
+  entityId: string | number;
+  action: string;
+  before?: unknown;
+  after?: unknown;
+}
+
+/** Records one change in audit_log; call it with the transaction that makes the change. */
+export async function recordAudit(trx: Knex | Knex.Transaction, entry: AuditEntry): Promise<void> {
+  await trx("audit_log").insert({
+    actor_user_id: entry.actorUserId,
+    engagement_id: entry.engagementId ?? null,
+    entity: entry.entity,
+    entity_id: String(entry.entityId),
+    action: entry.action,
+    before_json: entry.before === undefined ? null : JSON.stringify(entry.before),
+    after_json: entry.after === undefined ? null : JSON.stringify(entry.after),
+  });
+}
+
+export interface AuditRow {
+  id: number;
+  at: string;
+  actorName: string | null;
+  entity: string;
+  entityId: string;
+  action: string;
+  before: unknown;
+  after: unknown;
+}
+
+export async function listAuditByEngagementId(db: Knex, { engagementId, limit = 200 }: { engagementId: number; limit?: number }): Promise<AuditRow[]> {
+  const rows = await db("audit_log as a")
+    .leftJoin("users as u", "u.id", "a.actor_user_id")
+    .where("a.engagement_id", engagementId)
+    .orderBy("a.id", "desc")
+    .limit(limit)
+    .select("a.id", "a.at", "u.name as actorName", "a.entity", "a.entity_id as entityId", "a.action", "a.before_json", "a.after_json");
+  return rows.map((r) => ({
+    id: Number(r.id),
+    at: new Date(r.at).toISOString(),
+    actorName: r.actorName,
+    entity: r.entity,
+    entityId: r.entityId,
+    action: r.action,
+    before: parseJson(r.before_json),
+    after: parseJson(r.after_json),
+  }));
+}
+
+function parseJson(value: unknown): unknown {
+  if (value === null || value === undefined) return null;
+  return typeof value === "string" ? JSON.parse(value) : value;
+}

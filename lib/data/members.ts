@@ -1,0 +1,81 @@
+import "server-only";
+import type { Knex } from "knex";
+import { hasAtLeastRole, type EngagementRole } from "@/lib/auth/roles";
+import { recordAudit } from "./audit-log";
+import { AppError, forbidden, notFound } from "@/lib/errors";
+
+export interface MemberRecord {
+  userId: number;
+  name: string;
+  email: string;
+  grade: string;
+  active: boolean;
+  role: EngagementRole;
+  addedAt: string;
+}
+
+export async function getMembershipRole(db: Knex, { engagementId, userId }: { engagementId: number; userId: number }): Promise<EngagementRole | null> {
+  const row = await db("engagement_members").where({ engagement_id: engagementId, user_id: userId }).first("role");
+  return row ? (row.role as EngagementRole) : null;
+}
+
+export async function listMembersByEngagementId(db: Knex, { engagementId }: { engagementId: number }): Promise<MemberRecord[]> {
+  const rows = await db("engagement_members as m")
+    .join("users as u", "u.id", "m.user_id")
+    .where("m.engagement_id", engagementId)
+    .orderByRaw("field(m.role, 'partner','manager','senior','staff','viewer'), u.name")
+    .select("u.id as userId", "u.name", "u.email", "u.grade", "u.active", "m.role", "m.added_at as addedAt");
+  return rows.map((r) => ({ ...r, userId: Number(r.userId), active: Boolean(r.active), addedAt: new Date(r.addedAt).toISOString() }));
+}
+
+interface MemberChange { engagementId: number; actorId: number; actorRole: EngagementRole; userId: number }
+
+function assertMayGrant(actorRole: EngagementRole, role: EngagementRole) {
+  if (!hasAtLeastRole(actorRole, role)) throw forbidden(`A ${actorRole} cannot give the ${role} role`);
+}
+
+/** Keeps at least one manager or partner on every engagement, so someone can always review and lock. */
+async function assertReviewerRemains(trx: Knex.Transaction, engagementId: number, exceptUserId: number) {
+  const row = await trx("engagement_members")
+    .where({ engagement_id: engagementId }).whereIn("role", ["manager", "partner"]).whereNot({ user_id: exceptUserId })
+    .count({ n: "*" }).first();
+  if (Number(row?.n ?? 0) === 0) throw new AppError(409, "last_reviewer", "An engagement needs at least one manager or partner");
+}
+
+export async function addMember(db: Knex, { engagementId, actorId, actorRole, userId, role, firmId }: MemberChange & { role: EngagementRole; firmId: number }) {
+  assertMayGrant(actorRole, role);
+  return db.transaction(async (trx) => {
+    const user = await trx("users").where({ id: userId, firm_id: firmId, active: true }).first("id", "grade");
+    if (!user) throw new AppError(400, "invalid_input", "userId: no active user with that id in your firm", { userId: ["No active user with that id in your firm"] });
+    if (user.grade === "client" && role !== "viewer") throw new AppError(400, "invalid_input", "role: client staff can only be viewers", { role: ["Client staff can only be viewers"] });
+    const existing = await trx("engagement_members").where({ engagement_id: engagementId, user_id: userId }).first("role");
+    if (existing) throw new AppError(409, "already_member", "That person is already on the team");
+    await trx("engagement_members").insert({ engagement_id: engagementId, user_id: userId, role });
+    await recordAudit(trx, { actorUserId: actorId, engagementId, entity: "engagement_member", entityId: `${engagementId}:${userId}`, action: "add", after: { userId, role } });
+  });
+}
+
+export async function changeMemberRole(db: Knex, { engagementId, actorId, actorRole, userId, role }: MemberChange & { role: EngagementRole }) {
+  assertMayGrant(actorRole, role);
+  return db.transaction(async (trx) => {
+    const existing = await trx("engagement_members as m").join("users as u", "u.id", "m.user_id")
+      .where({ "m.engagement_id": engagementId, "m.user_id": userId }).forUpdate().first("m.role", "u.grade");
+    if (!existing) throw notFound("That person is not on the team");
+    assertMayGrant(actorRole, existing.role);
+    if (existing.grade === "client" && role !== "viewer") throw new AppError(400, "invalid_input", "role: client staff can only be viewers", { role: ["Client staff can only be viewers"] });
+    if (!hasAtLeastRole(role, "manager")) await assertReviewerRemains(trx, engagementId, userId);
+    await trx("engagement_members").where({ engagement_id: engagementId, user_id: userId }).update({ role });
+    await recordAudit(trx, { actorUserId: actorId, engagementId, entity: "engagement_member", entityId: `${engagementId}:${userId}`, action: "change-role", before: { role: existing.role }, after: { role } });
+  });
+}
+
+export async function removeMember(db: Knex, { engagementId, actorId, actorRole, userId }: MemberChange) {
+  return db.transaction(async (trx) => {
+    const existing = await trx("engagement_members").where({ engagement_id: engagementId, user_id: userId }).forUpdate().first("role");
+    if (!existing) throw notFound("That person is not on the team");
+    assertMayGrant(actorRole, existing.role);
+    await assertReviewerRemains(trx, engagementId, userId);
+    await trx("engagement_members").where({ engagement_id: engagementId, user_id: userId }).delete();
+    await recordAudit(trx, { actorUserId: actorId, engagementId, entity: "engagement_member", entityId: `${engagementId}:${userId}`, action: "remove", before: { userId, role: existing.role } });
+  });
+}

@@ -1,0 +1,95 @@
+import "server-only";
+import bcrypt from "bcryptjs";
+import type { Knex } from "knex";
+import type { FirmRole, Grade } from "@/lib/auth/roles";
+import type { CreateUser, UpdateUser } from "@/lib/validation/user";
+import { recordAudit } from "./audit-log";
+import { AppError, notFound } from "@/lib/errors";
+
+export interface UserRecord {
+  id: number;
+  firmId: number;
+  email: string;
+  name: string;
+  firmRole: FirmRole;
+  grade: Grade;
+  active: boolean;
+  createdAt: string;
+}
+
+const columns = ["id", "firm_id", "email", "name", "firm_role", "grade", "active", "created_at"];
+
+function toUser(r: Record<string, unknown>): UserRecord {
+  return {
+    id: Number(r.id),
+    firmId: Number(r.firm_id),
+    email: String(r.email),
+    name: String(r.name),
+    firmRole: r.firm_role as FirmRole,
+    grade: r.grade as Grade,
+    active: Boolean(r.active),
+    createdAt: new Date(r.created_at as string).toISOString(),
+  };
+}
+
+export const BCRYPT_COST = 10;
+
+export async function getUserById(db: Knex, { userId }: { userId: number }): Promise<UserRecord | null> {
+  const row = await db("users").where({ id: userId }).first(columns);
+  return row ? toUser(row) : null;
+}
+
+/** The user and their hash, for sign-in only. */
+export async function getUserCredentialsByEmail(db: Knex, { email }: { email: string }) {
+  const row = await db("users").where({ email: email.toLowerCase() }).first([...columns, "password_hash"]);
+  return row ? { user: toUser(row), passwordHash: String(row.password_hash) } : null;
+}
+
+export async function listUsersByFirmId(db: Knex, { firmId, activeOnly = false }: { firmId: number; activeOnly?: boolean }) {
+  const q = db("users").where({ firm_id: firmId }).orderBy("name");
+  if (activeOnly) q.andWhere({ active: true });
+  return (await q.select(columns)).map(toUser);
+}
+
+export async function createUser(db: Knex, { firmId, actorId, input }: { firmId: number; actorId: number; input: CreateUser }) {
+  const passwordHash = await bcrypt.hash(input.password, BCRYPT_COST);
+  return db.transaction(async (trx) => {
+    const taken = await trx("users").where({ email: input.email }).first("id");
+    if (taken) throw new AppError(409, "email_taken", `A user with e-mail ${input.email} already exists`, { email: ["Already in use"] });
+    const [id] = await trx("users").insert({
+      firm_id: firmId, email: input.email, name: input.name, grade: input.grade, firm_role: input.firmRole, password_hash: passwordHash,
+    });
+    const after = { email: input.email, name: input.name, grade: input.grade, firmRole: input.firmRole, active: true };
+    await recordAudit(trx, { actorUserId: actorId, entity: "user", entityId: id, action: "create", after });
+    return (await getUserById(trx, { userId: id }))!;
+  });
+}
+
+export async function updateUser(db: Knex, { firmId, actorId, userId, input }: { firmId: number; actorId: number; userId: number; input: UpdateUser }) {
+  return db.transaction(async (trx) => {
+    const before = await trx("users").where({ id: userId, firm_id: firmId }).forUpdate().first(columns);
+    if (!before) throw notFound("No such user");
+    if (userId === actorId && (input.active === false || input.firmRole === "member"))
+      throw new AppError(409, "self_lockout", "You cannot deactivate yourself or remove your own admin role");
+    const patch: Record<string, unknown> = { updated_at: trx.fn.now(3) };
+    if (input.active !== undefined) patch.active = input.active;
+    if (input.grade) patch.grade = input.grade;
+    if (input.firmRole) patch.firm_role = input.firmRole;
+    if (input.name) patch.name = input.name;
+    await trx("users").where({ id: userId }).update(patch);
+    const after = (await getUserById(trx, { userId }))!;
+    const { createdAt: _c, ...beforeView } = toUser(before);
+    const { createdAt: _d, ...afterView } = after;
+    await recordAudit(trx, { actorUserId: actorId, entity: "user", entityId: userId, action: "update", before: beforeView, after: afterView });
+    return after;
+  });
+}
+
+export async function resetUserPassword(db: Knex, { firmId, actorId, userId, password }: { firmId: number; actorId: number; userId: number; password: string }) {
+  const passwordHash = await bcrypt.hash(password, BCRYPT_COST);
+  await db.transaction(async (trx) => {
+    const updated = await trx("users").where({ id: userId, firm_id: firmId }).update({ password_hash: passwordHash, updated_at: trx.fn.now(3) });
+    if (!updated) throw notFound("No such user");
+    await recordAudit(trx, { actorUserId: actorId, entity: "user", entityId: userId, action: "reset-password" });
+  });
+}

@@ -1,0 +1,42 @@
+import { z } from "zod";
+
+/** An error the API answers with: its status, a stable code, a message for people, and field errors. */
+export class AppError extends Error {
+  constructor(
+    readonly status: number,
+    readonly code: string,
+    message: string,
+    readonly fields?: Record<string, string[]>,
+  ) {
+    super(message);
+    this.name = "AppError";
+  }
+
+  toResponse(): Response {
+    return Response.json({ error: { code: this.code, message: this.message, fields: this.fields } }, { status: this.status });
+  }
+}
+
+export const unauthorised = () => new AppError(401, "unauthorised", "Sign in to continue.");
+export const notFound = (what = "Not found") => new AppError(404, "not_found", what);
+export const forbidden = (message = "Your role does not allow this.") => new AppError(403, "forbidden", message);
+export const conflict = (message: string) => new AppError(409, "conflict", message);
+
+/** A zod failure as a 400 that names each failing field, e.g. "periodEnd: Invalid date". */
+export function validationError(error: z.ZodError): AppError {
+  const fields: Record<string, string[]> = {};
+  for (const issue of error.issues) {
+    const key = issue.path.length ? issue.path.join(".") : "(body)";
+    (fields[key] ??= []).push(issue.message);
+  }
+  const summary = Object.entries(fields).map(([field, messages]) => `${field}: ${messages[0]}`).join("; ");
+  return new AppError(400, "invalid_input", `Invalid input — ${summary}`, fields);
+}
+
+/** Turns anything thrown in a handler into a Response; unexpected errors are logged, never echoed. */
+export function errorToResponse(err: unknown): Response {
+  if (err instanceof AppError) return err.toResponse();
+  if (err instanceof z.ZodError) return validationError(err).toResponse();
+  console.error("[sondage] unexpected error", err);
+  return new AppError(500, "internal", "Something went wrong on our side; the error has been logged.").toResponse();
+}
