@@ -16,3 +16,4 @@ export { poissonFactor } from "./poisson-factor";
 export { evaluateMus, type BoundSide, type MusEvaluation } from "./evaluate-mus";
 export { evaluateAttributes } from "./evaluate-attributes";
 export type { SampledItem, Estimator, StratifiedEstimator, Sides, FactorMode, VariablesEvaluation } from "./types";
+export { simulateEstimators, type EstimatorPerformance, type HistogramBin } from "./simulate";

@@ -39,9 +39,12 @@ export function estimateTotal(estimator: CoreEstimator, m: PairedMoments, N: num
       return { estimate: R * bookCents, variance: scale * varE, ratioBias: biasR * bookCents };
     }
     case "regression": {
-      // b = s_xy / s_x² = 1 + s_xd / s_x²; Σe² = (n − 1)(s_d² − s_xd² / s_x²).
-      const b = 1 + m.covXD / m.varX;
-      const residual = Math.max(0, ((n - 1) * (m.varD - (m.covXD * m.covXD) / m.varX)) / (n - 2));
+      // b = s_xy / s_x² = 1 + s_xd / s_x²; Σe² = (n − 1)(s_d² − s_xd² / s_x²). With constant sampled
+      // book values (possible only inside a simulation; evaluateVariables rejects it) b falls back to 1.
+      const slopeDefined = m.varX > 0;
+      const b = slopeDefined ? 1 + m.covXD / m.varX : 1;
+      const explained = slopeDefined ? (m.covXD * m.covXD) / m.varX : 0;
+      const residual = Math.max(0, ((n - 1) * (m.varD - explained)) / (n - 2));
       return { estimate: N * (m.meanY + b * (bookCents / N - m.meanX)), variance: scale * residual, ratioBias: 0 };
     }
   }
