@@ -26,3 +26,10 @@ export function cellText(cell: RawCell): string {
   if (typeof cell === "number") return numberToPlainDecimal(cell) ?? String(cell);
   return dateToIsoDate(cell) ?? "";
 }
+
+export function isBlankSourceRow(cells: readonly RawCell[]): boolean {
+  for (const cell of cells) {
+    if (cell !== null && (typeof cell !== "string" || cell.trim() !== "")) return false;
+  }
+  return true;
+}

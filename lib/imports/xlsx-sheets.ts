@@ -9,21 +9,28 @@ export async function hasWorkbookPart(filePath: string): Promise<boolean> {
   return entries !== null && entries.some((entry) => entry.name === WORKBOOK_PART);
 }
 
+export interface WorkbookInfo {
+  sheets: string[];
+  /** The workbook counts dates from 1904 (workbookPr date1904, ECMA-376 Part 1, §18.2.28). */
+  date1904: boolean;
+}
+
 /**
  * Sheet names in tab order, read from xl/workbook.xml's <sheets> list (ECMA-376 Part 1, §18.2.19
  * sheet) without streaming the worksheets themselves.
  */
-export async function listWorkbookSheets(filePath: string): Promise<string[]> {
+export async function readWorkbookInfo(filePath: string): Promise<WorkbookInfo> {
   const entries = await listZipEntries(filePath);
   const part = entries?.find((entry) => entry.name === WORKBOOK_PART);
-  if (!part) return [];
+  if (!part) return { sheets: [], date1904: false };
   const xml = (await readZipEntry(filePath, part)).toString("utf8");
+  const date1904 = /<(?:\w+:)?workbookPr\b[^>]*\bdate1904\s*=\s*["'](1|true)["']/.test(xml);
   const names: string[] = [];
   for (const tag of xml.matchAll(/<(?:\w+:)?sheet\b[^>]*>/g)) {
     const name = /\bname\s*=\s*("([^"]*)"|'([^']*)')/.exec(tag[0]);
     if (name) names.push(decodeXmlText(name[2] ?? name[3] ?? ""));
   }
-  return names;
+  return { sheets: names, date1904 };
 }
 
 function decodeXmlText(text: string): string {
