@@ -1,0 +1,80 @@
+import { expect, test } from "@playwright/test";
+import { DEMO, SignInPage, type DemoRole } from "./pages/sign-in-page";
+
+// Which demo engagements each demo person is on (the invented scenario in db/seeds/demo-scenario.ts).
+const VISIBLE: Record<DemoRole, string[]> = {
+  admin: [],
+  partner: ["Tessaly Outdoor Supply Inc.", "Bramblecote Water Authority"],
+  manager: ["Tessaly Outdoor Supply Inc.", "Bramblecote Water Authority"],
+  senior: ["Tessaly Outdoor Supply Inc."],
+  senior2: ["Bramblecote Water Authority"],
+  staff: ["Tessaly Outdoor Supply Inc."],
+  client: ["Tessaly Outdoor Supply Inc."],
+};
+const ALL_CLIENTS = ["Tessaly Outdoor Supply Inc.", "Bramblecote Water Authority"];
+
+test("a signed-out visitor is sent to sign-in", async ({ page }) => {
+  await page.goto("/engagements");
+  await expect(page).toHaveURL(/\/sign-in\?callbackUrl=%2Fengagements/);
+  await expect(page.getByRole("heading", { name: "Sign in to your firm’s workspace" })).toBeVisible();
+  await page.screenshot({ path: test.info().outputPath("sign-in.png"), fullPage: true });
+});
+
+test("a wrong password is refused with a clear message", async ({ page }) => {
+  await new SignInPage(page).signIn("staff", "not-the-password");
+  await expect(page.getByRole("alert").filter({ hasText: "do not match" })).toBeVisible();
+});
+
+for (const role of Object.keys(VISIBLE) as DemoRole[]) {
+  test(`${role} sees only their own engagements`, async ({ page }) => {
+    const signIn = new SignInPage(page);
+    await signIn.signInAndWait(role);
+    await expect(page.getByRole("heading", { name: "Engagements" })).toBeVisible();
+    await expect(page.getByRole("table", { name: "Engagements" })).toBeVisible();
+    if (VISIBLE[role].length === 0) await expect(page.getByText("You are not on any engagement yet")).toBeVisible();
+    for (const client of ALL_CLIENTS) {
+      const link = page.getByRole("link", { name: new RegExp(client) });
+      if (VISIBLE[role].includes(client)) await expect(link).toBeVisible();
+      else await expect(link).toHaveCount(0);
+    }
+    await page.screenshot({ path: test.info().outputPath(`engagements-${role}.png`), fullPage: true });
+    await signIn.signOut();
+  });
+}
+
+test("a manager creates an engagement and lands on its overview", async ({ page }) => {
+  await new SignInPage(page).signInAndWait("manager");
+  await page.getByRole("link", { name: "New engagement" }).click();
+  await page.getByLabel("Client").fill("Kestrel Ridge Cooperative");
+  await page.getByLabel("Engagement name").fill("Year-end audit FY2026");
+  await page.getByLabel("Period end").fill("2026-12-31");
+  await page.getByLabel("Overall materiality").fill("250000");
+  await page.getByLabel("Performance materiality").fill("300000");
+  await page.getByRole("button", { name: "Create engagement" }).click();
+  await expect(page.getByText("Performance materiality cannot exceed overall materiality")).toBeVisible();
+  await page.screenshot({ path: test.info().outputPath("create-engagement-error.png"), fullPage: true });
+  await page.getByLabel("Performance materiality").fill("187500");
+  await page.getByRole("button", { name: "Create engagement" }).click();
+  await expect(page.getByRole("heading", { name: "Year-end audit FY2026" })).toBeVisible();
+  await expect(page.getByText("187,500.00")).toBeVisible();
+  await page.screenshot({ path: test.info().outputPath("engagement-overview.png"), fullPage: true });
+  await page.getByRole("link", { name: "Manage" }).click();
+  await expect(page.getByRole("table", { name: "Team" }).getByText(DEMO.manager.name)).toBeVisible();
+  await page.screenshot({ path: test.info().outputPath("team.png"), fullPage: true });
+});
+
+test("staff cannot create an engagement", async ({ page }) => {
+  await new SignInPage(page).signInAndWait("staff");
+  await expect(page.getByRole("link", { name: "New engagement" })).toHaveCount(0);
+  await page.goto("/engagements/new");
+  await expect(page.getByText("Only managers and partners can create engagements.")).toBeVisible();
+  await expect(page.getByRole("button", { name: "Create engagement" })).toHaveCount(0);
+  await page.screenshot({ path: test.info().outputPath("staff-cannot-create.png"), fullPage: true });
+});
+
+test("the firm admin sees the people list", async ({ page }) => {
+  await new SignInPage(page).signInAndWait("admin");
+  await page.getByRole("link", { name: "People" }).click();
+  await expect(page.getByRole("table", { name: "People" }).getByText(DEMO.staff.email)).toBeVisible();
+  await page.screenshot({ path: test.info().outputPath("people.png"), fullPage: true });
+});
