@@ -13,7 +13,12 @@ export const ENGAGEMENT_STATUSES = ["planning", "fieldwork", "completion", "arch
 const isoDate = z
   .string()
   .regex(/^\d{4}-\d{2}-\d{2}$/, "Use the date form YYYY-MM-DD")
-  .refine((v) => !Number.isNaN(Date.parse(`${v}T00:00:00Z`)) && new Date(`${v}T00:00:00Z`).toISOString().startsWith(v), "Not a real date");
+  .refine((v) => !/^\d{4}-\d{2}-\d{2}$/.test(v) || isRealDate(v), "Not a real date");
+
+function isRealDate(v: string): boolean {
+  const d = new Date(`${v}T00:00:00Z`);
+  return !Number.isNaN(d.getTime()) && d.toISOString().startsWith(v);
+}
 
 const engagementFields = {
   clientName: z.string().trim().min(2, "Client name needs at least 2 characters").max(200),

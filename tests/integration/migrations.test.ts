@@ -1,0 +1,31 @@
+import { afterAll, describe, expect, it } from "vitest";
+import knex from "knex";
+import { buildKnexConfig } from "@/db/knex-config";
+import { recreateDatabase } from "@/db/recreate-database";
+
+const NAME = "sondage_migrations";
+let db: ReturnType<typeof knex> | undefined;
+
+afterAll(async () => {
+  await db?.destroy();
+});
+
+async function tables(conn: ReturnType<typeof knex>): Promise<string[]> {
+  const [rows] = await conn.raw("SHOW TABLES");
+  return (rows as Record<string, string>[]).map((r) => Object.values(r)[0]).filter((t) => !t.startsWith("knex_")).sort();
+}
+
+describe("migrations", () => {
+  it("go up, all the way down, and up again on an empty database", async () => {
+    await recreateDatabase(NAME);
+    db = knex(buildKnexConfig({ ...process.env, DB_NAME: NAME }));
+    await db.migrate.latest();
+    expect(await tables(db)).toEqual(["audit_log", "engagement_members", "engagements", "firms", "sign_in_attempts", "users"]);
+    await db.migrate.rollback(undefined, true);
+    expect(await tables(db)).toEqual([]);
+    await db.migrate.latest();
+    expect(await tables(db)).toContain("engagements");
+    const [cols] = await db.raw("SHOW COLUMNS FROM engagements WHERE Field = 'overall_materiality'");
+    expect(cols[0].Type).toBe("decimal(18,2)");
+  });
+});

@@ -1,0 +1,9 @@
+// The integration tests stand in for next-auth's cookie session: everything after it (user lookup,
+// membership, role, validation, the handler, the database) is the real code.
+let currentUserId: number | null = null;
+
+export const sessionModule = { getSessionUserId: async () => currentUserId };
+
+export function actAs(userId: number | null) {
+  currentUserId = userId;
+}
