@@ -24,6 +24,12 @@ const BODY: Record<NumberFormat, RegExp> = {
   "comma-decimal": /^(\d+|\d{1,3}(?:\.\d{3})+)?(?:,(\d*))?$/,
 };
 
+// Fast path for the common "-1234.56" (at most 16 integer digits, 2 decimals), same result as the full parse.
+const PLAIN: Record<NumberFormat, RegExp> = {
+  "dot-decimal": /^(-?)(\d{1,16})(?:\.(\d{1,2}))?$/,
+  "comma-decimal": /^(-?)(\d{1,16})(?:,(\d{1,2}))?$/,
+};
+
 export interface AmountParts {
   negative: boolean;
   body: string;
@@ -69,6 +75,11 @@ export function splitAmount(raw: string): AmountParts | null {
  * @example parseAmountToCents("(1.234,56 €)", "comma-decimal") // { ok: true, cents: -123456n }
  */
 export function parseAmountToCents(raw: string, format: NumberFormat): AmountResult {
+  const plain = PLAIN[format].exec(raw);
+  if (plain) {
+    const magnitude = BigInt(plain[2] + (plain[3] ?? "").padEnd(2, "0"));
+    return { ok: true, cents: plain[1] ? -magnitude : magnitude };
+  }
   if (raw.trim() === "") return { ok: false, kind: "blank", detail: "is blank" };
   const parts = splitAmount(raw);
   const match = parts ? BODY[format].exec(parts.body) : null;

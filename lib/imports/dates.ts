@@ -34,6 +34,7 @@ function isoFromUtc(ms: number): string {
   return new Date(ms).toISOString().slice(0, 10);
 }
 
+const PLAIN_ISO = /^\d{4}-\d{2}-\d{2}$/;
 const ISO = /^(\d{4})-(\d{1,2})-(\d{1,2})(?:[T ][\d:.]+(?:Z|[+-]\d{2}:?\d{2})?)?$/;
 const YEAR_FIRST = /^(\d{4})[/.](\d{1,2})[/.](\d{1,2})$/;
 const YEAR_LAST = /^(\d{1,2})[/.-](\d{1,2})[/.-](\d{4})(?: [\d:.]+)?$/;
@@ -44,6 +45,9 @@ const YEAR_LAST = /^(\d{1,2})[/.-](\d{1,2})[/.-](\d{4})(?: [\d:.]+)?$/;
  * @returns ISO date, or null when the text is not a real calendar date.
  */
 export function parseDateText(text: string, order: DateOrder): string | null {
+  if (PLAIN_ISO.test(text)) {
+    return isoIfValid(Number(text.slice(0, 4)), Number(text.slice(5, 7)), Number(text.slice(8, 10))) === null ? null : text;
+  }
   const s = text.trim();
   let m = ISO.exec(s) ?? YEAR_FIRST.exec(s);
   if (m) return isoIfValid(Number(m[1]), Number(m[2]), Number(m[3]));
@@ -55,10 +59,16 @@ export function parseDateText(text: string, order: DateOrder): string | null {
     : isoIfValid(Number(m[3]), first, second);
 }
 
+const DAYS_IN_MONTH = [31, 28, 31, 30, 31, 30, 31, 31, 30, 31, 30, 31];
+
+/** Gregorian rule: every 4th year, except centuries not divisible by 400. */
+function isLeapYear(year: number): boolean {
+  return year % 4 === 0 && (year % 100 !== 0 || year % 400 === 0);
+}
+
 function isoIfValid(year: number, month: number, day: number): string | null {
   if (year < 1000 || month < 1 || month > 12 || day < 1) return null;
-  const daysInMonth = new Date(Date.UTC(year, month, 0)).getUTCDate();
-  if (day > daysInMonth) return null;
+  if (day > (month === 2 ? (isLeapYear(year) ? 29 : 28) : DAYS_IN_MONTH[month - 1])) return null;
   return `${year}-${String(month).padStart(2, "0")}-${String(day).padStart(2, "0")}`;
 }
 

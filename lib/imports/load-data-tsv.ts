@@ -17,11 +17,12 @@ export const LOAD_DATA_FORMAT_CLAUSE =
 export const LOAD_DATA_NULL = "\\N";
 
 const SPECIAL = /[\\\t\n\r\0]/g;
+const HAS_SPECIAL = /[\\\t\n\r\0]/;
 const ESCAPES: Record<string, string> = { "\\": "\\\\", "\t": "\\t", "\n": "\\n", "\r": "\\r", "\0": "\\0" };
 
 export function escapeLoadDataField(value: string | null): string {
   if (value === null) return LOAD_DATA_NULL;
-  return value.replace(SPECIAL, (ch) => ESCAPES[ch]);
+  return HAS_SPECIAL.test(value) ? value.replace(SPECIAL, (ch) => ESCAPES[ch]) : value;
 }
 
 const UNESCAPES: Record<string, string> = { "0": "\0", b: "\b", n: "\n", r: "\r", t: "\t", Z: "\x1a" };

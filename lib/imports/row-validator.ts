@@ -68,26 +68,34 @@ function quote(value: string): string {
   return `"${value.length > 60 ? `${value.slice(0, 57)}...` : value}"`;
 }
 
+function addProblem(problems: RowProblem[], row: SourceRow, m: CompiledMapping, column: number | null, reason: string): void {
+  problems.push({ row: row.rowNumber, column: column === null ? null : m.headers[column], reason });
+}
+
 /** Checks one data row; problems go to `problems`, and the row is returned only when it has none. */
 export function validateRow(row: SourceRow, m: CompiledMapping, problems: RowProblem[]): ValidatedRow | null {
   const before = problems.length;
-  const problem = (column: number | null, reason: string) =>
-    problems.push({ row: row.rowNumber, column: column === null ? null : m.headers[column], reason });
   const { cells } = row;
   if (m.fieldCount !== null && cells.length !== m.fieldCount) {
-    problem(null, `Row has ${cells.length} field${cells.length === 1 ? "" : "s"}; the header row has ${m.fieldCount}`);
+    addProblem(problems, row, m, null, `Row has ${cells.length} field${cells.length === 1 ? "" : "s"}; the header row has ${m.fieldCount}`);
     return null;
   }
   for (let i = m.headers.length; i < cells.length; i += 1) {
     const text = cellText(cells[i] ?? null);
-    if (text.trim() !== "") problem(null, `Value ${quote(text)} is in column ${columnLetter(i)}, which has no header`);
+    if (text.trim() !== "") addProblem(problems, row, m, null, `Value ${quote(text)} is in column ${columnLetter(i)}, which has no header`);
   }
   const itemRef = cellText(cells[m.itemRef] ?? null).trim();
-  if (itemRef === "") problem(m.itemRef, "Item reference is blank");
-  else if (itemRef.length > MAX_ITEM_REF_LENGTH) problem(m.itemRef, `Item reference is longer than ${MAX_ITEM_REF_LENGTH} characters`);
-  const cents = bookValueCents(cells[m.bookValue] ?? null, m.numberFormat, (reason) => problem(m.bookValue, reason));
-  const date = m.date === null ? null : readDate(cells[m.date] ?? null, m, (reason) => problem(m.date, reason));
-  if (problems.length > before || cents === null) return null;
+  if (itemRef === "") addProblem(problems, row, m, m.itemRef, "Item reference is blank");
+  else if (itemRef.length > MAX_ITEM_REF_LENGTH) addProblem(problems, row, m, m.itemRef, `Item reference is longer than ${MAX_ITEM_REF_LENGTH} characters`);
+  const cents = bookValueCents(cells[m.bookValue] ?? null, m.numberFormat);
+  if (typeof cents === "string") addProblem(problems, row, m, m.bookValue, cents);
+  let date: string | null = null;
+  if (m.date !== null) {
+    const cell = cells[m.date] ?? null;
+    date = readDate(cell, m);
+    if (date === "") addProblem(problems, row, m, m.date, badDateReason(cell, m));
+  }
+  if (problems.length > before || typeof cents === "string") return null;
   const descriptionText = m.description === null ? "" : cellText(cells[m.description] ?? null);
   let extra: Record<string, string> | null = null;
   if (m.extras.length > 0) {
@@ -100,27 +108,26 @@ export function validateRow(row: SourceRow, m: CompiledMapping, problems: RowPro
   return { rowNumber: row.rowNumber, itemRef, description: descriptionText.trim() === "" ? null : descriptionText, bookValueCents: cents, date, extra };
 }
 
-function bookValueCents(cell: RawCell, format: NumberFormat, fail: (reason: string) => void): bigint | null {
-  if (cell instanceof Date) {
-    fail(`Book value ${quote(dateToIsoDate(cell) ?? "")} is a date, not a number`);
-    return null;
-  }
+/** Cents, or the reason the cell is not an acceptable book value. */
+function bookValueCents(cell: RawCell, format: NumberFormat): bigint | string {
+  if (cell instanceof Date) return `Book value ${quote(dateToIsoDate(cell) ?? "")} is a date, not a number`;
   const text = typeof cell === "number" ? (numberToPlainDecimal(cell) ?? "") : (cell ?? "");
   const result = parseAmountToCents(text, typeof cell === "number" ? "dot-decimal" : format);
   if (result.ok) return result.cents;
-  fail(result.kind === "blank" ? "Book value is blank" : `Book value ${quote(text)} ${result.detail}`);
-  return null;
+  return result.kind === "blank" ? "Book value is blank" : `Book value ${quote(text)} ${result.detail}`;
 }
 
-function readDate(cell: RawCell, m: CompiledMapping, fail: (reason: string) => void): string | null {
+/** ISO date, null for a blank cell, "" for a cell that is not a date. */
+function readDate(cell: RawCell, m: CompiledMapping): string | null {
   if (cell === null || (typeof cell === "string" && cell.trim() === "")) return null;
   const iso =
     cell instanceof Date ? dateToIsoDate(cell)
     : typeof cell === "number" ? excelSerialToIsoDate(cell, m.date1904)
     : parseDateText(cell, m.dateOrder);
-  if (iso === null) {
-    const order = m.dateOrder === "day-first" ? "DD/MM/YYYY" : "MM/DD/YYYY";
-    fail(`Date ${quote(cellText(cell))} is not a valid date (expected YYYY-MM-DD or ${order})`);
-  }
-  return iso;
+  return iso ?? "";
+}
+
+function badDateReason(cell: RawCell, m: CompiledMapping): string {
+  const order = m.dateOrder === "day-first" ? "DD/MM/YYYY" : "MM/DD/YYYY";
+  return `Date ${quote(cellText(cell))} is not a valid date (expected YYYY-MM-DD or ${order})`;
 }
