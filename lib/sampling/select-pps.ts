@@ -27,6 +27,9 @@ export interface PpsSelection {
   randomStart: number;
 }
 
+/** Guard against an interval so small that the selection would exhaust memory. */
+export const MAX_SELECTION_POINTS = 1_000_000;
+
 /**
  * Systematic monetary-unit selection with a random start, in integer cents, in one pass.
  *
@@ -39,7 +42,8 @@ export interface PpsSelection {
  * @param o.bookValues book values in currency units, at most 2 decimals.
  * @param o.interval sampling interval in currency units, at least 0.01.
  * @throws {TypeError} when bookValues is not an array or a value is not a number.
- * @throws {RangeError} naming `bookValues[i]` or `interval` when a value is invalid.
+ * @throws {RangeError} naming `bookValues[i]` or `interval` when a value is invalid, when the
+ *   frame total exceeds the exact range in cents, or when it would give more than 1,000,000 points.
  * @example
  * selectPps({ bookValues: [100, 0, 250.5, -20, 80], interval: 100, seed: 5489 })
  * // → { hits: [{ index: 0, hitPoints: [81.48] }, { index: 2, hitPoints: [181.48, 281.48] },
@@ -58,6 +62,7 @@ export function selectPps(o: { bookValues: number[]; interval: number; seed: num
   const excluded: number[] = [];
   let cumulative = 0;
   let point = startCents;
+  let pointCount = 0;
   for (let i = 0; i < bookValues.length; i++) {
     const cents = toCents(`bookValues[${i}]`, bookValues[i]);
     if (cents <= 0) {
@@ -65,15 +70,17 @@ export function selectPps(o: { bookValues: number[]; interval: number; seed: num
       continue;
     }
     cumulative += cents;
-    if (point > cumulative) continue;
     if (!Number.isSafeInteger(cumulative)) throw new RangeError("bookValues total exceeds the exact range in cents");
+    if (point > cumulative) continue;
     const hitPoints: number[] = [];
     while (point <= cumulative) {
       hitPoints.push(point / 100);
       point += intervalCents;
+      if (++pointCount > MAX_SELECTION_POINTS) {
+        throw new RangeError(`interval (${o.interval}) is too small for this population: more than ${MAX_SELECTION_POINTS} selection points`);
+      }
     }
     hits.push({ index: i, hitPoints });
   }
-  if (!Number.isSafeInteger(cumulative)) throw new RangeError("bookValues total exceeds the exact range in cents");
   return { hits, excluded, frameTotal: cumulative / 100, intervalUsed: intervalCents / 100, randomStart: startCents / 100 };
 }
