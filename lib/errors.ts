@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { ImportError } from "@/lib/imports/import-error";
 
 /** An error the API answers with: its status, a stable code, a message for people, and field errors. */
 export class AppError extends Error {
@@ -37,6 +38,7 @@ export function validationError(error: z.ZodError): AppError {
 export function errorToResponse(err: unknown): Response {
   if (err instanceof AppError) return err.toResponse();
   if (err instanceof z.ZodError) return validationError(err).toResponse();
+  if (err instanceof ImportError) return new AppError(err.status, err.reason, err.message).toResponse();
   console.error("[sondage] unexpected error", err);
   return new AppError(500, "internal", "Something went wrong on our side; the error has been logged.").toResponse();
 }

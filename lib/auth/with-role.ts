@@ -63,17 +63,36 @@ export function withFirmAdmin<S extends z.ZodType>(schema: S, handler: Handler<S
 export function withEngagementRole<S extends z.ZodType>(schema: S, leastRole: EngagementRole, handler: Handler<S, EngagementContext>) {
   return async (req: Request, route: RouteParams): Promise<Response> => {
     try {
-      const db = getDb();
-      const params = await route.params;
-      const userId = await getSessionUserId();
-      if (userId === null) throw unauthorised();
-      const engagementId = parseIdParam(params.engagementId, "engagement");
-      const [user, membershipRole] = await Promise.all([getUserById(db, { userId }), getMembershipRole(db, { engagementId, userId })]);
-      const role = decideEngagementAccess({ userId, userActive: Boolean(user?.active), membershipRole }, leastRole);
+      const ctx = await authoriseEngagement(req, route, leastRole);
       const input = await parseWith(schema, req);
-      return answer(await handler(input, { db, user: user!, req, params, engagementId, role }));
+      return answer(await handler(input, ctx));
     } catch (err) {
       return errorToResponse(err);
     }
   };
+}
+
+/** The same checks for handlers that read the request body themselves (file uploads); the query string is validated. */
+export function withEngagementRoleStreaming<S extends z.ZodType>(querySchema: S, leastRole: EngagementRole, handler: Handler<S, EngagementContext>) {
+  return async (req: Request, route: RouteParams): Promise<Response> => {
+    try {
+      const ctx = await authoriseEngagement(req, route, leastRole);
+      const parsed = querySchema.safeParse(Object.fromEntries(new URL(req.url).searchParams));
+      if (!parsed.success) throw validationError(parsed.error);
+      return answer(await handler(parsed.data, ctx));
+    } catch (err) {
+      return errorToResponse(err);
+    }
+  };
+}
+
+async function authoriseEngagement(req: Request, route: RouteParams, leastRole: EngagementRole): Promise<EngagementContext> {
+  const db = getDb();
+  const params = await route.params;
+  const userId = await getSessionUserId();
+  if (userId === null) throw unauthorised();
+  const engagementId = parseIdParam(params.engagementId, "engagement");
+  const [user, membershipRole] = await Promise.all([getUserById(db, { userId }), getMembershipRole(db, { engagementId, userId })]);
+  const role = decideEngagementAccess({ userId, userActive: Boolean(user?.active), membershipRole }, leastRole);
+  return { db, user: user!, req, params, engagementId, role };
 }

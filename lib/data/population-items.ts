@@ -1,0 +1,79 @@
+import "server-only";
+import type { Knex } from "knex";
+import type { ItemsQuery } from "@/lib/validation/population";
+
+export interface PopulationItem {
+  rowNumber: number;
+  itemRef: string;
+  description: string | null;
+  bookValue: string;
+  itemDate: string | null;
+  extra: Record<string, string> | null;
+}
+
+const toItem = (r: Record<string, unknown>): PopulationItem => ({
+  rowNumber: Number(r.row_number), itemRef: String(r.item_ref), description: (r.description as string | null) ?? null,
+  bookValue: String(r.book_value), itemDate: (r.item_date as string | null) ?? null,
+  extra: r.extra === null ? null : ((typeof r.extra === "string" ? JSON.parse(r.extra) : r.extra) as Record<string, string>),
+});
+
+const SORT_COLUMNS = { row: "row_number", ref: "item_ref", book: "book_value" } as const;
+
+/** One page of a population's items, sorted and optionally searched (reference or description). */
+export async function listItemsByPopulationId(db: Knex, { populationId, query }: { populationId: number; query: ItemsQuery }) {
+  const base = db("population_items").where({ population_id: populationId });
+  if (query.q) {
+    const like = `%${query.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+    base.andWhere((w) => w.where("item_ref", "like", like).orWhere("description", "like", like));
+  }
+  const [countRow, rows] = await Promise.all([
+    base.clone().count({ n: "*" }).first(),
+    base.clone().orderBy(SORT_COLUMNS[query.sort], query.dir).orderBy("row_number", query.dir)
+      .limit(query.pageSize).offset((query.page - 1) * query.pageSize).select("row_number", "item_ref", "description", "book_value", "item_date", "extra"),
+  ]);
+  return { items: rows.map(toItem), total: Number(countRow?.n ?? 0), page: query.page, pageSize: query.pageSize };
+}
+
+export interface PopulationProfile {
+  largest: PopulationItem[];
+  duplicates: { itemRef: string; count: number; total: string }[];
+  duplicateRefCount: number;
+  strata: { label: string; from: string | null; to: string | null; count: number; total: string }[];
+  threshold: { amount: string; count: number; total: string } | null;
+}
+
+/** Book-value bands on a log scale: a band per power of ten, with zeros and negatives on their own. */
+function bandLabel(exponent: number): { label: string; from: string; to: string } {
+  const from = 10 ** exponent;
+  const to = 10 ** (exponent + 1);
+  const fmt = (v: number) => (v < 1 ? v.toFixed(2) : v.toLocaleString("en-US"));
+  return { label: `${fmt(from)} – ${fmt(to)}`, from: from.toFixed(2), to: to.toFixed(2) };
+}
+
+export async function getPopulationProfile(db: Knex, { populationId, threshold }: { populationId: number; threshold?: string }): Promise<PopulationProfile> {
+  const items = () => db("population_items").where({ population_id: populationId });
+  const [largest, duplicates, duplicateCount, bands, signs, above] = await Promise.all([
+    items().orderBy("book_value", "desc").limit(10).select("*"),
+    items().groupBy("item_ref").havingRaw("count(*) > 1").orderByRaw("count(*) desc, item_ref").limit(50)
+      .select("item_ref").count({ n: "*" }).sum({ total: "book_value" }),
+    db.from(items().groupBy("item_ref").havingRaw("count(*) > 1").select("item_ref").as("d")).count({ n: "*" }).first(),
+    items().where("book_value", ">", 0).groupByRaw("floor(log10(book_value))").orderByRaw("floor(log10(book_value))")
+      .select(db.raw("floor(log10(book_value)) as e")).count({ n: "*" }).sum({ total: "book_value" }),
+    items().where("book_value", "<=", 0).groupByRaw("sign(book_value)").select(db.raw("sign(book_value) as s")).count({ n: "*" }).sum({ total: "book_value" }),
+    threshold ? items().where("book_value", ">=", threshold).count({ n: "*" }).sum({ total: "book_value" }).first() : Promise.resolve(null),
+  ]);
+  const strata: PopulationProfile["strata"] = [];
+  for (const s of signs as Record<string, unknown>[]) {
+    strata.push(Number(s.s) < 0
+      ? { label: "Negative (credits)", from: null, to: "0.00", count: Number(s.n), total: String(s.total) }
+      : { label: "Zero", from: "0.00", to: "0.00", count: Number(s.n), total: "0.00" });
+  }
+  for (const b of bands as Record<string, unknown>[]) strata.push({ ...bandLabel(Number(b.e)), count: Number(b.n), total: String(b.total) });
+  return {
+    largest: largest.map(toItem),
+    duplicates: (duplicates as Record<string, unknown>[]).map((d) => ({ itemRef: String(d.item_ref), count: Number(d.n), total: String(d.total) })),
+    duplicateRefCount: Number((duplicateCount as { n?: unknown } | undefined)?.n ?? 0),
+    strata,
+    threshold: threshold && above ? { amount: threshold, count: Number(above.n), total: String(above.total ?? "0.00") } : null,
+  };
+}

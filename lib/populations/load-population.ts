@@ -1,0 +1,113 @@
+import "server-only";
+import type { Knex } from "knex";
+import { getBulkLoadDb, withLoadStream } from "@/db/knex-bulk-load";
+import { recordAudit } from "@/lib/data/audit-log";
+import { finishUpload, type UploadRecord } from "@/lib/data/population-uploads";
+import { ImportError, LOAD_DATA_COLUMNS, LOAD_DATA_FORMAT_CLAUSE, PopulationImport, formatCents, type PopulationSummary } from "@/lib/imports";
+import { putObjectFromFile } from "@/lib/storage/objects";
+import { AppError, conflict } from "@/lib/errors";
+import type { LoadPopulation } from "@/lib/validation/population";
+import { removeTempFile } from "./upload-files";
+
+export type LoadProgress =
+  | { phase: "checking"; rowsRead: number; bytesRead: number; totalBytes: number }
+  | { phase: "storing-file" }
+  | { phase: "committing" };
+
+export type LoadOutcome =
+  | { ok: true; populationId: number; rowCount: number; total: string }
+  | { ok: false; problemCount: number; problems: PopulationSummary["problems"]; problemsTruncated: boolean };
+
+class RejectedRows extends Error {
+  constructor(readonly summary: PopulationSummary) {
+    super("rows with problems");
+  }
+}
+
+const CONTENT_TYPES = { csv: "text/csv", xlsx: "application/vnd.openxmlformats-officedocument.spreadsheetml.sheet" } as const;
+
+/**
+ * Parses, validates and loads an inspected upload in ONE transaction: the population row and
+ * every item go in through LOAD DATA LOCAL fed by the validating stream, and the transaction
+ * commits only when no row had a problem, the server raised no warning, the row count agrees and
+ * the original file is safely in object storage. Anything else rolls back: nothing partial is ever
+ * visible, and an abandoned load is rolled back by the server when the connection drops.
+ * The caller has claimed the upload (claimUploadForLoading).
+ */
+export async function loadPopulation(db: Knex, args: { upload: UploadRecord; actorId: number; input: LoadPopulation; onProgress: (p: LoadProgress) => void }): Promise<LoadOutcome> {
+  const { upload, actorId, input, onProgress } = args;
+  const run = new PopulationImport(upload.tempPath, upload.inspection, input.mapping, {
+    onProgress: (rowsRead, bytesRead, totalBytes) => onProgress({ phase: "checking", rowsRead, bytesRead, totalBytes }),
+  });
+  try {
+    const populationId = await getBulkLoadDb().transaction((trx) => loadInTransaction(trx, { upload, actorId, input, run, onProgress }));
+    await finishUpload(db, { uploadId: upload.id, status: "loaded" });
+    await removeTempFile(upload.tempPath);
+    const t = run.summary().totals;
+    return { ok: true, populationId, rowCount: t.rowCount, total: formatCents(t.totalCents) };
+  } catch (err) {
+    if (err instanceof RejectedRows) {
+      const s = err.summary;
+      await finishUpload(db, { uploadId: upload.id, status: "rejected", problems: s.problems, problemCount: s.problemCount });
+      return { ok: false, problemCount: s.problemCount, problems: s.problems, problemsTruncated: s.problemsTruncated };
+    }
+    await finishUpload(db, { uploadId: upload.id, status: "rejected" });
+    throw err;
+  }
+}
+
+async function loadInTransaction(trx: Knex.Transaction, a: { upload: UploadRecord; actorId: number; input: LoadPopulation; run: PopulationImport; onProgress: (p: LoadProgress) => void }) {
+  const { upload, actorId, input, run } = a;
+  const objectKey = `engagements/${upload.engagementId}/populations/${upload.sha256}-${upload.id}.${upload.inspection.kind}`;
+  const [populationId] = await trx("populations").insert({
+    engagement_id: upload.engagementId, upload_id: upload.id, name: input.name, source_file_name: upload.fileName,
+    source_size_bytes: upload.sizeBytes, source_sha256: upload.sha256, source_object_key: objectKey,
+    mapping_json: JSON.stringify(input.mapping), created_by: actorId, supersedes_id: input.supersedesId ?? null,
+  });
+
+  let streamError: unknown = null;
+  const stream = () => {
+    const s = run.toLoadDataStream();
+    s.on("error", (e) => (streamError = e));
+    return s;
+  };
+  const sql = `LOAD DATA LOCAL INFILE 'upload' INTO TABLE population_items ${LOAD_DATA_FORMAT_CLAUSE} (${LOAD_DATA_COLUMNS.map((c) => `\`${c}\``).join(", ")}) SET population_id = ?`;
+  let loaded: { affectedRows: number; warningStatus: number };
+  try {
+    [loaded] = await withLoadStream(stream, () => trx.raw(sql, [populationId]));
+  } catch (err) {
+    throw streamError ?? err;
+  }
+  if (streamError) throw streamError;
+  const summary = run.summary();
+  if (summary.problemCount > 0) throw new RejectedRows(summary);
+  if (loaded.warningStatus > 0) {
+    const [warnings] = await trx.raw("SHOW WARNINGS LIMIT 5");
+    console.error("[sondage] LOAD DATA warnings", warnings);
+    throw new AppError(422, "load_warnings", "The database reported problems storing some rows; nothing was stored. The error has been logged.");
+  }
+  const t = summary.totals;
+  if (loaded.affectedRows !== t.rowCount) throw new AppError(500, "load_mismatch", `Loaded ${loaded.affectedRows} rows but validated ${t.rowCount}; nothing was stored.`);
+
+  await trx("populations").where({ id: populationId }).update({
+    row_count: t.rowCount, total: formatCents(t.totalCents), positive_count: t.positive.count, positive_total: formatCents(t.positive.totalCents),
+    zero_count: t.zero.count, negative_count: t.negative.count, negative_total: formatCents(t.negative.totalCents), status: "unreconciled",
+  });
+  if (input.supersedesId) await supersede(trx, { engagementId: upload.engagementId, oldId: input.supersedesId, newId: populationId, actorId });
+  await recordAudit(trx, {
+    actorUserId: actorId, engagementId: upload.engagementId, entity: "population", entityId: populationId, action: "load",
+    after: { name: input.name, fileName: upload.fileName, sha256: upload.sha256, rowCount: t.rowCount, total: formatCents(t.totalCents), mapping: input.mapping },
+  });
+  a.onProgress({ phase: "storing-file" });
+  await putObjectFromFile({ key: objectKey, path: upload.tempPath, contentType: CONTENT_TYPES[upload.inspection.kind], size: upload.sizeBytes });
+  a.onProgress({ phase: "committing" });
+  return populationId as number;
+}
+
+async function supersede(trx: Knex.Transaction, { engagementId, oldId, newId, actorId }: { engagementId: number; oldId: number; newId: number; actorId: number }) {
+  const updated = await trx("populations").where({ id: oldId, engagement_id: engagementId }).whereIn("status", ["unreconciled", "reconciled"]).update({ status: "superseded" });
+  if (!updated) throw conflict("The population to replace does not exist on this engagement or is already superseded.");
+  await recordAudit(trx, { actorUserId: actorId, engagementId, entity: "population", entityId: oldId, action: "supersede", after: { supersededBy: newId } });
+}
+
+export { ImportError };

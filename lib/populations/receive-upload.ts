@@ -1,0 +1,40 @@
+import "server-only";
+import type { Knex } from "knex";
+import { inspectUpload, type UploadInspection } from "@/lib/imports";
+import { createUpload, getUploadById, updateUploadInspection } from "@/lib/data/population-uploads";
+import { conflict } from "@/lib/errors";
+import { receiveToTempFile, removeTempFile } from "./upload-files";
+
+export interface UploadView { id: number; fileName: string; sizeBytes: number; sha256: string; inspection: UploadInspection }
+
+async function assertNoLoadRunning(db: Knex, userId: number) {
+  const running = await db("population_uploads").where({ uploaded_by: userId, status: "loading" })
+    .andWhere("created_at", ">", new Date(Date.now() - 30 * 60_000)).first("file_name");
+  if (running) throw conflict(`You already have a ledger loading (${running.file_name}). Wait for it to finish before uploading another.`);
+}
+
+/** Receives a ledger file to a private temporary file, inspects its head, and records the upload. */
+export async function receiveUpload(db: Knex, a: { engagementId: number; actorId: number; fileName: string; body: ReadableStream<Uint8Array> | null; declaredLength: number | null }): Promise<UploadView> {
+  await assertNoLoadRunning(db, a.actorId);
+  const file = await receiveToTempFile(a.body, a.declaredLength);
+  let inspection: UploadInspection;
+  try {
+    inspection = await inspectUpload(file.tempPath);
+  } catch (err) {
+    await removeTempFile(file.tempPath);
+    throw err;
+  }
+  const id = await createUpload(db, { engagementId: a.engagementId, actorId: a.actorId, fileName: a.fileName, sizeBytes: file.size, sha256: file.sha256, tempPath: file.tempPath, inspection });
+  return { id, fileName: a.fileName, sizeBytes: file.size, sha256: file.sha256, inspection };
+}
+
+/** Inspects another sheet of an uploaded workbook (the mapping must be made on the sheet that loads). */
+export async function reinspectUpload(db: Knex, { engagementId, uploadId, sheet }: { engagementId: number; uploadId: number; sheet?: string }): Promise<UploadView> {
+  const upload = await getUploadById(db, { engagementId, uploadId });
+  let inspection = upload.inspection;
+  if (sheet && sheet !== upload.inspection.sheet && upload.status === "inspected") {
+    inspection = await inspectUpload(upload.tempPath, { sheet });
+    await updateUploadInspection(db, { uploadId, inspection });
+  }
+  return { id: upload.id, fileName: upload.fileName, sizeBytes: upload.sizeBytes, sha256: upload.sha256, inspection };
+}

@@ -1,0 +1,51 @@
+import "server-only";
+import { createHash, randomUUID } from "node:crypto";
+import fs from "node:fs";
+import path from "node:path";
+import { Readable, Transform } from "node:stream";
+import { pipeline } from "node:stream/promises";
+import { AppError } from "@/lib/errors";
+import { MAX_UPLOAD_BYTES } from "@/lib/imports";
+
+export function uploadDirectory(): string {
+  return process.env.UPLOAD_DIR ?? path.join(process.cwd(), ".data", "uploads");
+}
+
+const megabytes = (bytes: number) => `${Math.round(bytes / 1024 / 1024)} MB`;
+
+export function tooLarge(maxBytes: number): AppError {
+  return new AppError(413, "file_too_large", `The file is larger than the ${megabytes(maxBytes)} limit for a population file. Split the ledger or remove columns you do not need.`);
+}
+
+/**
+ * Streams a request body to a private temporary file, hashing it (SHA-256 of the bytes as received)
+ * and stopping as soon as it passes the size limit. Never holds the file in memory.
+ */
+export async function receiveToTempFile(body: ReadableStream<Uint8Array> | null, declaredLength: number | null, maxBytes = MAX_UPLOAD_BYTES) {
+  if (declaredLength !== null && declaredLength > maxBytes) throw tooLarge(maxBytes);
+  if (!body) throw new AppError(400, "empty_file", "file: the upload was empty");
+  const dir = uploadDirectory();
+  await fs.promises.mkdir(dir, { recursive: true, mode: 0o700 });
+  const tempPath = path.join(dir, `${randomUUID()}.upload`);
+  const hash = createHash("sha256");
+  let size = 0;
+  const meter = new Transform({
+    transform(chunk: Buffer, _enc, done) {
+      size += chunk.length;
+      if (size > maxBytes) return done(tooLarge(maxBytes));
+      hash.update(chunk);
+      done(null, chunk);
+    },
+  });
+  try {
+    await pipeline(Readable.fromWeb(body as import("node:stream/web").ReadableStream<Uint8Array>), meter, fs.createWriteStream(tempPath, { mode: 0o600 }));
+  } catch (err) {
+    await fs.promises.rm(tempPath, { force: true });
+    throw err;
+  }
+  return { tempPath, size, sha256: hash.digest("hex") };
+}
+
+export async function removeTempFile(tempPath: string) {
+  await fs.promises.rm(tempPath, { force: true });
+}

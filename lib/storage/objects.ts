@@ -1,0 +1,42 @@
+import "server-only";
+import fs from "node:fs";
+import type { Readable } from "node:stream";
+import { CreateBucketCommand, GetObjectCommand, HeadBucketCommand, PutObjectCommand } from "@aws-sdk/client-s3";
+import { getStorage } from "./s3-client";
+
+let bucketReady: Promise<void> | null = null;
+
+function ensureBucket(): Promise<void> {
+  bucketReady ??= (async () => {
+    const { client, bucket } = getStorage();
+    try {
+      await client.send(new HeadBucketCommand({ Bucket: bucket }));
+    } catch {
+      await client.send(new CreateBucketCommand({ Bucket: bucket }));
+    }
+  })().catch((err) => {
+    bucketReady = null;
+    throw err;
+  });
+  return bucketReady;
+}
+
+/** Stores a file from disk under `key`, streaming (never read whole into memory). */
+export async function putObjectFromFile({ key, path, contentType, size }: { key: string; path: string; contentType: string; size: number }) {
+  await ensureBucket();
+  const { client, bucket } = getStorage();
+  await client.send(new PutObjectCommand({ Bucket: bucket, Key: key, Body: fs.createReadStream(path), ContentType: contentType, ContentLength: size }));
+}
+
+export async function putObjectBytes({ key, bytes, contentType }: { key: string; bytes: Uint8Array; contentType: string }) {
+  await ensureBucket();
+  const { client, bucket } = getStorage();
+  await client.send(new PutObjectCommand({ Bucket: bucket, Key: key, Body: bytes, ContentType: contentType, ContentLength: bytes.byteLength }));
+}
+
+/** The object's bytes as a Node stream with its length and type. */
+export async function getObjectStream({ key }: { key: string }): Promise<{ body: Readable; length?: number; contentType?: string }> {
+  const { client, bucket } = getStorage();
+  const out = await client.send(new GetObjectCommand({ Bucket: bucket, Key: key }));
+  return { body: out.Body as Readable, length: out.ContentLength, contentType: out.ContentType };
+}
