@@ -3,7 +3,7 @@
  * Leslie, Teitlebaum & Anderson, Dollar-Unit Sampling (1979) and the AICPA Audit Guide
  * "Audit Sampling" describe the method (from memory); the exact variant is Sondage's contract.
  */
-import { toCents } from "./money";
+import { toCents, toCentsFast } from "./money";
 import { createRng } from "./rng";
 import { requireArray, requireObject, requirePositive, requireSeed } from "./validate";
 
@@ -26,6 +26,8 @@ export interface PpsSelection {
   /** The random start r, in currency units (r cents / 100). */
   randomStart: number;
 }
+
+const bookValueField = (i: number) => `bookValues[${i}]`;
 
 /** Guard against an interval so small that the selection would exhaust memory. */
 export const MAX_SELECTION_POINTS = 1_000_000;
@@ -64,7 +66,7 @@ export function selectPps(o: { bookValues: number[]; interval: number; seed: num
   let point = startCents;
   let pointCount = 0;
   for (let i = 0; i < bookValues.length; i++) {
-    const cents = toCents(`bookValues[${i}]`, bookValues[i]);
+    const cents = toCentsFast(bookValues[i], bookValueField, i);
     if (cents <= 0) {
       excluded.push(i);
       continue;
