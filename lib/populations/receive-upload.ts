@@ -1,6 +1,7 @@
 import "server-only";
 import type { Knex } from "knex";
-import { inspectUpload, type UploadInspection } from "@/lib/imports";
+import { ImportError, inspectUpload, type UploadInspection } from "@/lib/imports";
+import { hasWorkbookPart, readWorkbookInfo } from "@/lib/imports/xlsx-sheets";
 import { createUpload, getUploadById, updateUploadInspection } from "@/lib/data/population-uploads";
 import { conflict } from "@/lib/errors";
 import { receiveToTempFile, removeTempFile } from "./upload-files";
@@ -19,13 +20,34 @@ export async function receiveUpload(db: Knex, a: { engagementId: number; actorId
   const file = await receiveToTempFile(a.body, a.declaredLength);
   let inspection: UploadInspection;
   try {
-    inspection = await inspectUpload(file.tempPath);
+    inspection = await inspectFirstUsableSheet(file.tempPath);
   } catch (err) {
     await removeTempFile(file.tempPath);
     throw err;
   }
   const id = await createUpload(db, { engagementId: a.engagementId, actorId: a.actorId, fileName: a.fileName, sizeBytes: file.size, sha256: file.sha256, tempPath: file.tempPath, inspection });
   return { id, fileName: a.fileName, sizeBytes: file.size, sha256: file.sha256, inspection };
+}
+
+/**
+ * Inspects the file; for a workbook whose first sheet is not a ledger (a cover or notes sheet),
+ * the first sheet that is one, so the auditor can still pick the sheet on the mapping screen.
+ */
+async function inspectFirstUsableSheet(path: string): Promise<UploadInspection> {
+  try {
+    return await inspectUpload(path);
+  } catch (err) {
+    if (!(err instanceof ImportError) || !(await hasWorkbookPart(path))) throw err;
+    const { sheets } = await readWorkbookInfo(path);
+    for (const sheet of sheets.slice(1)) {
+      try {
+        return await inspectUpload(path, { sheet });
+      } catch (next) {
+        if (!(next instanceof ImportError)) throw next;
+      }
+    }
+    throw err;
+  }
 }
 
 /** Inspects another sheet of an uploaded workbook (the mapping must be made on the sheet that loads). */

@@ -1,4 +1,5 @@
 import { loadLocalEnv } from "@/db/load-env";
+import { TEST_ENV } from "./test-env";
 
 loadLocalEnv();
-process.env.DB_NAME = "sondage_test";
+Object.assign(process.env, TEST_ENV);
