@@ -17,7 +17,7 @@ function buildRequest(method: string, { body, rawBody, file, headers = {}, query
   for (const [k, v] of Object.entries(query ?? {})) url.searchParams.set(k, v);
   const init: RequestInit & { duplex?: string } = { method, headers: { ...headers } };
   if (file !== undefined) {
-    init.body = file;
+    init.body = file as Uint8Array<ArrayBuffer>;
     init.headers = { "content-type": "application/octet-stream", "content-length": String(file.byteLength), ...headers };
   } else if (rawBody !== undefined || body !== undefined) {
     init.body = rawBody ?? JSON.stringify(body);
