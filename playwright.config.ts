@@ -1,20 +1,25 @@
 import { defineConfig } from "@playwright/test";
 
-const PORT = Number(process.env.E2E_PORT ?? 3100);
+// E2E_SLOT lets several e2e runs share the machine; CI and `npm test` use slot 0.
+const SLOT = Number(process.env.E2E_SLOT ?? 0);
+const PORT = 3100 + SLOT;
+export const E2E_DB_NAME = SLOT === 0 ? "sondage_e2e" : `sondage_e2e${SLOT}`;
 const baseURL = `http://127.0.0.1:${PORT}`;
 
 // The e2e server's own fakes of hosted services, on ports apart from `npm start`'s.
 const E2E_SERVICES = {
-  S3_ENDPOINT: "http://127.0.0.1:4589",
+  S3_ENDPOINT: `http://127.0.0.1:${4589 + SLOT * 10}`,
   S3_BUCKET: "sondage-e2e",
-  SMTP_PORT: "2545",
-  MAIL_INBOX_PORT: "2595",
-  UPLOAD_DIR: ".data/uploads-e2e",
+  SMTP_HOST: "127.0.0.1",
+  SMTP_PORT: String(2545 + SLOT * 10),
+  MAIL_INBOX_PORT: String(2595 + SLOT * 10),
+  UPLOAD_DIR: `.data/uploads-${E2E_DB_NAME}`,
 };
 
 export default defineConfig({
   testDir: "tests/e2e",
-  outputDir: "test-results/e2e",
+  globalSetup: "./tests/e2e/global-setup.ts",
+  outputDir: SLOT === 0 ? "test-results/e2e" : `test-results/e2e${SLOT}`,
   fullyParallel: false,
   workers: 1,
   forbidOnly: !!process.env.CI,
@@ -37,14 +42,14 @@ export default defineConfig({
       url: `${E2E_SERVICES.S3_ENDPOINT}/`,
       reuseExistingServer: false,
       timeout: 30_000,
-      env: { ...E2E_SERVICES, FAKES_DATA: "fakes-e2e" },
+      env: { ...E2E_SERVICES, FAKES_DATA: `fakes-${E2E_DB_NAME}` },
     },
     {
       command: `node node_modules/next/dist/bin/next start -H 127.0.0.1 -p ${PORT}`,
       url: `${baseURL}/sign-in`,
       reuseExistingServer: false,
       timeout: 60_000,
-      env: { ...E2E_SERVICES, DB_NAME: "sondage_e2e", NEXTAUTH_URL: baseURL, NEXT_TELEMETRY_DISABLED: "1" },
+      env: { ...E2E_SERVICES, DB_NAME: E2E_DB_NAME, NEXTAUTH_URL: baseURL, NEXT_TELEMETRY_DISABLED: "1" },
     },
   ],
 });

@@ -19,8 +19,6 @@ echo "== build"
 bash "$HERE/build-app.sh"
 
 echo "== e2e tests (database sondage_e2e, Debian chromium)"
-DB_NAME=sondage_e2e npx tsx db/migrate.ts recreate
-DB_NAME=sondage_e2e npx tsx db/seed.ts
 npx playwright test
 
 echo "npm test: everything passed in $(( $(date +%s) - started )) s"

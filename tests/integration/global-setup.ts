@@ -21,7 +21,7 @@ export default async function setup() {
   } finally {
     await db.destroy();
   }
-  const s3Dir = path.join(import.meta.dirname, "../../.data/s3-integration");
+  const s3Dir = path.join(import.meta.dirname, `../../.data/s3-${TEST_ENV.DB_NAME}`);
   fs.rmSync(s3Dir, { recursive: true, force: true });
   const s3 = await startS3Fake({ port: Number(new URL(TEST_ENV.S3_ENDPOINT).port), directory: s3Dir });
   return async () => {

@@ -1,11 +1,19 @@
 import path from "node:path";
 
+// INTEGRATION_SLOT lets several integration runs share the machine (each with its own database,
+// storage fake port and upload folder); CI and `npm test` use slot 0.
+const slot = Number(process.env.INTEGRATION_SLOT ?? 0);
+const suffix = slot === 0 ? "" : String(slot);
+
 /** Where integration tests point the app's services: their own database, storage fake and upload folder. */
 export const TEST_ENV = {
-  DB_NAME: "sondage_test",
-  S3_ENDPOINT: "http://127.0.0.1:4579",
+  DB_NAME: `sondage_test${suffix}`,
+  S3_ENDPOINT: `http://127.0.0.1:${4579 + slot * 10}`,
   S3_BUCKET: "sondage-integration",
   S3_ACCESS_KEY_ID: "S3RVER",
   S3_SECRET_ACCESS_KEY: "S3RVER",
-  UPLOAD_DIR: path.join(import.meta.dirname, "../../.data/uploads-integration"),
+  SMTP_HOST: "127.0.0.1",
+  SMTP_PORT: String(2535 + slot * 10),
+  MAIL_INBOX_PORT: String(2585 + slot * 10),
+  UPLOAD_DIR: path.join(import.meta.dirname, `../../.data/uploads-integration${suffix}`),
 };
