@@ -1,0 +1,34 @@
+// Every e-mail Sondage sends, by name: each is a pure function from typed data to { subject, text, html }.
+import { engagementInvitation, type EngagementInvitationData } from "./engagement-invitation";
+import { reviewNoteAnswered, type ReviewNoteAnsweredData } from "./review-note-answered";
+import { reviewNoteCleared, type ReviewNoteClearedData } from "./review-note-cleared";
+import { reviewNoteRaised, type ReviewNoteRaisedData } from "./review-note-raised";
+import { sampleLocked, type SampleLockedData } from "./sample-locked";
+import { sampleReadyForReview, type SampleReadyForReviewData } from "./sample-ready-for-review";
+import type { RenderedEmail } from "./types";
+
+export interface EmailTemplateData {
+  "engagement-invitation": EngagementInvitationData;
+  "sample-ready-for-review": SampleReadyForReviewData;
+  "review-note-raised": ReviewNoteRaisedData;
+  "review-note-answered": ReviewNoteAnsweredData;
+  "review-note-cleared": ReviewNoteClearedData;
+  "sample-locked": SampleLockedData;
+}
+
+export type EmailTemplateName = keyof EmailTemplateData;
+
+export const EMAIL_TEMPLATES: { [K in EmailTemplateName]: (data: EmailTemplateData[K]) => RenderedEmail } = {
+  "engagement-invitation": engagementInvitation,
+  "sample-ready-for-review": sampleReadyForReview,
+  "review-note-raised": reviewNoteRaised,
+  "review-note-answered": reviewNoteAnswered,
+  "review-note-cleared": reviewNoteCleared,
+  "sample-locked": sampleLocked,
+};
+
+export function renderEmailTemplate<K extends EmailTemplateName>(name: K, data: EmailTemplateData[K]): RenderedEmail {
+  return EMAIL_TEMPLATES[name](data);
+}
+
+export type { RenderedEmail, Person, EngagementRef, SampleRef, SampleEventData } from "./types";
