@@ -3,6 +3,7 @@ import * as m0001 from "./20261202_0001_firms_users";
 import * as m0002 from "./20261202_0002_engagements";
 import * as m0003 from "./20261202_0003_audit_log";
 import * as m0004 from "./20261202_0004_populations";
+import * as m0005 from "./20261202_0005_samples";
 
 type Migration = { up(knex: Knex): Promise<void>; down(knex: Knex): Promise<void> };
 
@@ -12,6 +13,7 @@ const migrations: Record<string, Migration> = {
   "20261202_0002_engagements": m0002,
   "20261202_0003_audit_log": m0003,
   "20261202_0004_populations": m0004,
+  "20261202_0005_samples": m0005,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

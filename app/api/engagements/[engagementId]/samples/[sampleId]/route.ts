@@ -1,0 +1,17 @@
+import { z } from "zod";
+import { withEngagementRole } from "@/lib/auth/with-role";
+import { updateSamplePlan } from "@/lib/data/samples";
+import { loadSampleView, planFor } from "@/lib/samples/context";
+import { sampleOf } from "@/lib/samples/route-helpers";
+import { PlanSampleSchema } from "@/lib/validation/sample";
+
+export const GET = withEngagementRole(z.object({}), "viewer", async (_input, ctx) => {
+  const sample = await sampleOf(ctx);
+  return loadSampleView(ctx.db, { engagementId: ctx.engagementId, sampleId: sample.id });
+});
+
+export const PATCH = withEngagementRole(PlanSampleSchema, "senior", async (input, ctx) => {
+  const sample = await sampleOf(ctx);
+  const { plan } = await planFor(ctx.db, { engagementId: ctx.engagementId, input });
+  return { sample: await updateSamplePlan(ctx.db, { engagementId: ctx.engagementId, sampleId: sample.id, actorId: ctx.user.id, input, plan }) };
+});

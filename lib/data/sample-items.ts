@@ -1,0 +1,108 @@
+import "server-only";
+import type { Knex } from "knex";
+import type { SaveResult } from "@/lib/validation/sample";
+import { recordAudit } from "./audit-log";
+import { AppError, notFound } from "@/lib/errors";
+import { centsToDecimal, decimalToCents } from "@/lib/money";
+
+export interface SampleItemRecord {
+  id: number;
+  selectionOrder: number;
+  populationRowNumber: number;
+  itemRef: string;
+  description: string | null;
+  bookValue: string;
+  hitPoints: number[] | null;
+  topStratum: boolean;
+  stratum: number | null;
+  origin: "selection" | "extension" | "replacement";
+  replacesItemId: number | null;
+  status: "not-started" | "done" | "not-auditable" | "void";
+  auditedValue: string | null;
+  /** Book minus audited (overstatement positive); an unauditable item counts as fully misstated. */
+  misstatement: string | null;
+  cause: string | null;
+  causeNote: string | null;
+  deviation: boolean | null;
+  deviationNature: string | null;
+  comment: string | null;
+  voidReason: string | null;
+  evidenceCount: number;
+  version: number;
+  updatedAt: string | null;
+  updatedByName: string | null;
+}
+
+export function misstatementOf(status: string, book: string, audited: string | null): string | null {
+  if (status === "not-auditable") return book;
+  if (status !== "done" || audited === null) return null;
+  return centsToDecimal(decimalToCents(book) - decimalToCents(audited));
+}
+
+function toItem(r: Record<string, unknown>): SampleItemRecord {
+  const points = r.hit_points === null ? null : ((typeof r.hit_points === "string" ? JSON.parse(r.hit_points) : r.hit_points) as number[]);
+  const audited = r.audited_value === null ? null : String(r.audited_value);
+  return {
+    id: Number(r.id), selectionOrder: Number(r.selection_order), populationRowNumber: Number(r.population_row_number), itemRef: String(r.item_ref),
+    description: (r.description as string | null) ?? null, bookValue: String(r.book_value), hitPoints: points, topStratum: Boolean(r.top_stratum),
+    stratum: r.stratum === null ? null : Number(r.stratum), origin: r.origin as SampleItemRecord["origin"], replacesItemId: r.replaces_item_id === null ? null : Number(r.replaces_item_id),
+    status: r.status as SampleItemRecord["status"], auditedValue: audited, misstatement: misstatementOf(String(r.status), String(r.book_value), audited),
+    cause: (r.cause as string | null) ?? null, causeNote: (r.cause_note as string | null) ?? null,
+    deviation: r.deviation === null ? null : Boolean(r.deviation), deviationNature: (r.deviation_nature as string | null) ?? null,
+    comment: (r.comment as string | null) ?? null, voidReason: (r.void_reason as string | null) ?? null,
+    evidenceCount: Number(r.evidence_count ?? 0), version: Number(r.version),
+    updatedAt: r.updated_at ? new Date(r.updated_at as string).toISOString() : null, updatedByName: (r.updated_by_name as string | null) ?? null,
+  };
+}
+
+function itemQuery(db: Knex, drawId: number) {
+  const q = db("sample_items as i").leftJoin("users as u", "u.id", "i.updated_by").where("i.draw_id", drawId).select("i.*", "u.name as updated_by_name");
+  return q;
+}
+
+export async function listItemsByDrawId(db: Knex, { drawId, page = 1, pageSize = 100000, status = "all", q }: { drawId: number; page?: number; pageSize?: number; status?: string; q?: string }) {
+  const base = db("sample_items as i").where("i.draw_id", drawId);
+  if (status !== "all") base.andWhere("i.status", status);
+  if (q) base.andWhere((w) => w.where("i.item_ref", "like", `%${q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`).orWhere("i.description", "like", `%${q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`));
+  const [count, rows] = await Promise.all([
+    base.clone().count({ n: "*" }).first(),
+    base.clone().leftJoin("users as u", "u.id", "i.updated_by").orderBy("i.selection_order").orderBy("i.id")
+      .limit(pageSize).offset((page - 1) * pageSize).select("i.*", "u.name as updated_by_name"),
+  ]);
+  return { items: rows.map(toItem), total: Number(count?.n ?? 0), page, pageSize };
+}
+
+export async function getItemById(db: Knex, { drawId, itemId }: { drawId: number; itemId: number }) {
+  const row = await itemQuery(db, drawId).andWhere("i.id", itemId).first();
+  if (!row) throw notFound("No such item in this sample");
+  return toItem(row);
+}
+
+/**
+ * Saves an item's result if nobody changed it since the caller read it (optimistic concurrency):
+ * a stale version gets 409 naming who changed it and when, and nothing is overwritten.
+ */
+export async function saveItemResult(db: Knex, { engagementId, sampleId, drawId, itemId, actorId, input }: { engagementId: number; sampleId: number; drawId: number; itemId: number; actorId: number; input: SaveResult }) {
+  return db.transaction(async (trx) => {
+    const before = await itemQuery(trx, drawId).andWhere("i.id", itemId).forUpdate().first();
+    if (!before) throw notFound("No such item in this sample");
+    if (before.status === "void") throw new AppError(409, "void_item", "This item was voided and replaced; record the result on its replacement.");
+    if (Number(before.version) !== input.version) {
+      const when = before.updated_at ? new Date(before.updated_at).toISOString().replace("T", " ").slice(0, 16) + " UTC" : "recently";
+      throw new AppError(409, "stale", `${before.updated_by_name ?? "Someone"} changed this item at ${when} after you opened it. Reload to see their change; yours was not saved.`, undefined);
+    }
+    const patch = {
+      status: input.status,
+      audited_value: input.status === "not-auditable" ? null : input.auditedValue ?? null,
+      cause: input.cause ?? null, cause_note: input.causeNote ?? null, deviation: input.deviation ?? null,
+      deviation_nature: input.deviationNature ?? null, comment: input.comment ?? null,
+      version: input.version + 1, updated_by: actorId, updated_at: trx.fn.now(3),
+    };
+    await trx("sample_items").where({ id: itemId }).update(patch);
+    const after = await getItemById(trx, { drawId, itemId });
+    const view = (i: Record<string, unknown>) => ({ status: i.status, auditedValue: i.audited_value ?? i.auditedValue ?? null, cause: i.cause ?? null, deviation: i.deviation ?? null, comment: i.comment ?? null });
+    await recordAudit(trx, { actorUserId: actorId, engagementId, entity: "sample_item", entityId: itemId, action: "record-result", before: view(before), after: view(after as unknown as Record<string, unknown>) });
+    await trx("samples").where({ id: sampleId }).update({ updated_at: trx.fn.now(3) });
+    return after;
+  });
+}

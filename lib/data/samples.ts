@@ -1,0 +1,123 @@
+import "server-only";
+import type { Knex } from "knex";
+import type { PlanSample, SampleParams } from "@/lib/validation/sample";
+import type { SamplePlan } from "@/lib/samples/plan";
+import type { SelectionInputs } from "@/lib/samples/select";
+import { recordAudit } from "./audit-log";
+import { conflict, notFound } from "@/lib/errors";
+
+export interface SampleRecord {
+  id: number;
+  engagementId: number;
+  populationId: number;
+  name: string;
+  objective: string;
+  assertion: string;
+  direction: PlanSample["direction"];
+  method: SampleParams["method"];
+  estimator: string | null;
+  params: SampleParams;
+  plan: SamplePlan;
+  computedSize: number;
+  chosenSize: number;
+  sizeReason: string | null;
+  status: "planned" | "drawn";
+  planVersion: number;
+  createdAt: string;
+  createdByName: string;
+}
+
+export interface DrawRecord {
+  id: number;
+  version: number;
+  seed: number;
+  seedSource: "generated" | "entered";
+  algorithm: string;
+  algorithmVersion: string;
+  populationSha256: string;
+  inputs: SelectionInputs;
+  selectionSha256: string;
+  drawnAt: string;
+  drawnByName: string;
+  current: boolean;
+  reperformedAt: string | null;
+  reperformMatches: boolean | null;
+}
+
+const json = <T>(v: unknown): T => (typeof v === "string" ? JSON.parse(v) : v) as T;
+const iso = (v: unknown) => (v ? new Date(v as string).toISOString() : null);
+
+function toSample(r: Record<string, unknown>): SampleRecord {
+  return {
+    id: Number(r.id), engagementId: Number(r.engagement_id), populationId: Number(r.population_id), name: String(r.name),
+    objective: String(r.objective), assertion: String(r.assertion), direction: r.direction as SampleRecord["direction"],
+    method: r.method as SampleRecord["method"], estimator: (r.estimator as string | null) ?? null,
+    params: json<SampleParams>(r.params_json), plan: json<SamplePlan>(r.plan_json),
+    computedSize: Number(r.computed_size), chosenSize: Number(r.chosen_size), sizeReason: (r.size_reason as string | null) ?? null,
+    status: r.status as SampleRecord["status"], planVersion: Number(r.plan_version), createdAt: iso(r.created_at)!, createdByName: String(r.created_by_name ?? ""),
+  };
+}
+
+function toDraw(r: Record<string, unknown>): DrawRecord {
+  return {
+    id: Number(r.id), version: Number(r.version), seed: Number(r.seed), seedSource: r.seed_source as DrawRecord["seedSource"],
+    algorithm: String(r.algorithm), algorithmVersion: String(r.algorithm_version), populationSha256: String(r.population_sha256),
+    inputs: json<SelectionInputs>(r.inputs_json), selectionSha256: String(r.selection_sha256), drawnAt: iso(r.drawn_at)!,
+    drawnByName: String(r.drawn_by_name ?? ""), current: Boolean(r.current), reperformedAt: iso(r.reperformed_at),
+    reperformMatches: r.reperform_matches === null ? null : Boolean(r.reperform_matches),
+  };
+}
+
+const sampleQuery = (db: Knex) => db("samples as s").join("users as u", "u.id", "s.created_by").select("s.*", "u.name as created_by_name");
+
+export async function listSamplesByEngagementId(db: Knex, { engagementId }: { engagementId: number }) {
+  return (await sampleQuery(db).where("s.engagement_id", engagementId).orderBy("s.id", "desc")).map(toSample);
+}
+
+export async function getSampleById(db: Knex, { engagementId, sampleId }: { engagementId: number; sampleId: number }) {
+  const row = await sampleQuery(db).where({ "s.id": sampleId, "s.engagement_id": engagementId }).first();
+  if (!row) throw notFound("No such sample");
+  return toSample(row);
+}
+
+export async function createSample(db: Knex, { engagementId, actorId, input, plan }: { engagementId: number; actorId: number; input: PlanSample; plan: SamplePlan }) {
+  return db.transaction(async (trx) => {
+    const [id] = await trx("samples").insert({
+      engagement_id: engagementId, population_id: input.populationId, name: input.name, objective: input.objective, assertion: input.assertion,
+      direction: input.direction, method: input.params.method, estimator: input.params.estimator ?? null,
+      params_json: JSON.stringify(input.params), plan_json: JSON.stringify(plan), computed_size: plan.computedSize, chosen_size: plan.chosenSize,
+      size_reason: input.params.sizeReason ?? null, created_by: actorId,
+    });
+    await recordAudit(trx, { actorUserId: actorId, engagementId, entity: "sample", entityId: id, action: "plan", after: { ...input, computedSize: plan.computedSize, chosenSize: plan.chosenSize } });
+    return getSampleById(trx, { engagementId, sampleId: id });
+  });
+}
+
+/** Changes the plan of a sample not yet drawn; a drawn sample keeps its plan (draw again to change it). */
+export async function updateSamplePlan(db: Knex, { engagementId, sampleId, actorId, input, plan }: { engagementId: number; sampleId: number; actorId: number; input: PlanSample; plan: SamplePlan }) {
+  return db.transaction(async (trx) => {
+    const before = await trx("samples").where({ id: sampleId, engagement_id: engagementId }).forUpdate().first();
+    if (!before) throw notFound("No such sample");
+    if (before.status !== "planned") throw conflict("The sample has been drawn; its plan is final. Plan a new sample instead.");
+    await trx("samples").where({ id: sampleId }).update({
+      name: input.name, objective: input.objective, assertion: input.assertion, direction: input.direction, method: input.params.method,
+      estimator: input.params.estimator ?? null, params_json: JSON.stringify(input.params), plan_json: JSON.stringify(plan),
+      computed_size: plan.computedSize, chosen_size: plan.chosenSize, size_reason: input.params.sizeReason ?? null,
+      plan_version: before.plan_version + 1, updated_at: trx.fn.now(3),
+    });
+    await recordAudit(trx, { actorUserId: actorId, engagementId, entity: "sample", entityId: sampleId, action: "replan",
+      before: { params: json(before.params_json), chosenSize: before.chosen_size }, after: { params: input.params, chosenSize: plan.chosenSize } });
+    return getSampleById(trx, { engagementId, sampleId });
+  });
+}
+
+const drawQuery = (db: Knex) => db("sample_draws as d").join("users as u", "u.id", "d.drawn_by").select("d.*", "u.name as drawn_by_name");
+
+export async function listDrawsBySampleId(db: Knex, { sampleId }: { sampleId: number }) {
+  return (await drawQuery(db).where("d.sample_id", sampleId).orderBy("d.version", "desc")).map(toDraw);
+}
+
+export async function getCurrentDraw(db: Knex, { sampleId }: { sampleId: number }): Promise<DrawRecord | null> {
+  const row = await drawQuery(db).where({ "d.sample_id": sampleId, "d.current": true }).first();
+  return row ? toDraw(row) : null;
+}

@@ -1,0 +1,36 @@
+import "server-only";
+import type { Knex } from "knex";
+import { getEngagementById } from "@/lib/data/engagements";
+import { getPopulationById } from "@/lib/data/populations";
+import { getCurrentDraw, getSampleById, listDrawsBySampleId } from "@/lib/data/samples";
+import { listItemsByDrawId } from "@/lib/data/sample-items";
+import { notFound } from "@/lib/errors";
+import type { PreviewPlan } from "@/lib/validation/sample";
+import { loadFrame } from "./population-frame";
+import { computePlan } from "./plan";
+import { evaluateSample } from "./evaluate";
+
+/** The plan for a population and parameters, with the engagement's performance materiality as the default TM. */
+export async function planFor(db: Knex, { engagementId, input }: { engagementId: number; input: PreviewPlan }) {
+  const [engagement, population] = await Promise.all([getEngagementById(db, { engagementId }), getPopulationById(db, { engagementId, populationId: input.populationId })]);
+  if (!engagement) throw notFound("No such engagement");
+  const frame = await loadFrame(db, { populationId: population.id });
+  return { plan: computePlan(frame, input.params, engagement.performanceMateriality), population, engagement };
+}
+
+export async function loadSampleView(db: Knex, { engagementId, sampleId }: { engagementId: number; sampleId: number }) {
+  const sample = await getSampleById(db, { engagementId, sampleId });
+  const [population, draws, engagement] = await Promise.all([
+    getPopulationById(db, { engagementId, populationId: sample.populationId }),
+    listDrawsBySampleId(db, { sampleId }),
+    getEngagementById(db, { engagementId }),
+  ]);
+  return { sample, population, draws, currentDraw: draws.find((d) => d.current) ?? null, engagement: engagement! };
+}
+
+export async function evaluationFor(db: Knex, { engagementId, sampleId }: { engagementId: number; sampleId: number }) {
+  const { sample, population, engagement } = await loadSampleView(db, { engagementId, sampleId });
+  const draw = await getCurrentDraw(db, { sampleId });
+  const items = draw ? (await listItemsByDrawId(db, { drawId: draw.id })).items : [];
+  return evaluateSample(sample, population, items, engagement.performanceMateriality);
+}

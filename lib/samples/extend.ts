@@ -1,0 +1,57 @@
+import "server-only";
+import type { Knex } from "knex";
+import { recordAudit } from "@/lib/data/audit-log";
+import { getCurrentDraw, type SampleRecord } from "@/lib/data/samples";
+import { conflict, notFound } from "@/lib/errors";
+import { loadFrame } from "./population-frame";
+import { computeSelection, type SelectionInputs } from "./select";
+import { insertSelectedItems } from "./draw";
+
+const NOT_EXTENDABLE = "Monetary-unit and systematic selections are not extended or replaced item by item in Sondage: plan a further sample, or record the item as could not be audited (treated as fully misstated).";
+
+/** Adds items to a drawn random or attribute sample by continuing down the same random-number ranking. */
+export async function extendSample(db: Knex, { sample, actorId, additional, reason }: { sample: SampleRecord; actorId: number; additional: number; reason: string }) {
+  if (sample.method !== "random" && sample.method !== "attribute") throw conflict(NOT_EXTENDABLE);
+  const draw = await getCurrentDraw(db, { sampleId: sample.id });
+  if (!draw) throw conflict("Draw the sample before extending it.");
+  const frame = await loadFrame(db, { populationId: sample.populationId });
+  const from = draw.inputs.ranks!;
+  if (from + additional > frame.bookValues.length) throw conflict(`Only ${frame.bookValues.length - from} items are left to add.`);
+  const inputs: SelectionInputs = { ...draw.inputs, ranks: from + additional };
+  const added = computeSelection(frame, inputs, draw.seed).slice(from);
+  await db.transaction(async (trx) => {
+    await trx("sample_draws").where({ id: draw.id }).update({ inputs_json: JSON.stringify(inputs) });
+    await insertSelectedItems(trx, { sampleId: sample.id, drawId: draw.id, populationId: sample.populationId, frame, items: added, origin: "extension" });
+    await recordAudit(trx, { actorUserId: actorId, engagementId: sample.engagementId, entity: "sample", entityId: sample.id, action: "extend", before: { ranks: from }, after: { ranks: from + additional, reason, streamPosition: from } });
+  });
+  return { added: added.length, streamPosition: from };
+}
+
+/** Voids an unusable item (with the reason) and selects its replacement from the same random stream. */
+export async function replaceItem(db: Knex, { sample, actorId, itemId, reason }: { sample: SampleRecord; actorId: number; itemId: number; reason: string }) {
+  if (sample.method !== "random" && sample.method !== "attribute" && sample.method !== "stratified") throw conflict(NOT_EXTENDABLE);
+  const draw = await getCurrentDraw(db, { sampleId: sample.id });
+  if (!draw) throw conflict("Draw the sample first.");
+  const item = await db("sample_items").where({ id: itemId, sample_id: sample.id, draw_id: draw.id }).first();
+  if (!item) throw notFound("No such item in the current draw");
+  if (item.status === "void") throw conflict("That item is already void.");
+  if (item.status === "done") throw conflict("That item has a result; clear it before replacing the item.");
+  const frame = await loadFrame(db, { populationId: sample.populationId });
+  const inputs: SelectionInputs = { ...draw.inputs };
+  if (sample.method === "stratified") {
+    const h = Number(item.stratum) - 1;
+    inputs.stratumRanks = draw.inputs.stratumRanks!.map((n, i) => (i === h ? n + 1 : n));
+  } else inputs.ranks = draw.inputs.ranks! + 1;
+  const before = new Set((await db("sample_items").where({ draw_id: draw.id }).pluck("population_row_number")) as number[]);
+  const replacement = computeSelection(frame, inputs, draw.seed).find((it) => !before.has(frame.rowNumbers[it.position]));
+  if (!replacement) throw conflict("No item is left to replace it with.");
+  const maxOrder = Number((await db("sample_items").where({ draw_id: draw.id }).max({ m: "selection_order" }).first())?.m ?? 0);
+  const order = sample.method === "stratified" ? maxOrder + 1 : replacement.order;
+  await db.transaction(async (trx) => {
+    await trx("sample_items").where({ id: itemId }).update({ status: "void", void_reason: reason, version: item.version + 1, updated_by: actorId, updated_at: trx.fn.now(3) });
+    await trx("sample_draws").where({ id: draw.id }).update({ inputs_json: JSON.stringify(inputs) });
+    await insertSelectedItems(trx, { sampleId: sample.id, drawId: draw.id, populationId: sample.populationId, frame, items: [{ ...replacement, order }], origin: "replacement", replacesItemId: itemId });
+    await recordAudit(trx, { actorUserId: actorId, engagementId: sample.engagementId, entity: "sample_item", entityId: itemId, action: "void-and-replace", before: { status: item.status }, after: { status: "void", reason, replacementRow: frame.rowNumbers[replacement.position] } });
+  });
+  return { replacementRow: frame.rowNumbers[replacement.position] };
+}

@@ -1,0 +1,55 @@
+import "server-only";
+import type { Knex } from "knex";
+import { recordAudit } from "@/lib/data/audit-log";
+import { getCurrentDraw, type SampleRecord } from "@/lib/data/samples";
+import { conflict } from "@/lib/errors";
+import { loadFrame } from "./population-frame";
+import { computeSelection, selectionFingerprint } from "./select";
+import { sha256 } from "./draw";
+
+export interface ReperformResult {
+  matches: boolean;
+  checkedAt: string;
+  storedItems: number;
+  recomputedItems: number;
+  recomputedSha256: string;
+  differences: string[];
+}
+
+/** Recomputes the current draw from its stored seed and inputs and compares it item by item. */
+export async function reperformDraw(db: Knex, { sample, actorId }: { sample: SampleRecord; actorId: number }): Promise<ReperformResult> {
+  const draw = await getCurrentDraw(db, { sampleId: sample.id });
+  if (!draw) throw conflict("The sample has not been drawn yet.");
+  const frame = await loadFrame(db, { populationId: sample.populationId });
+  const recomputed = computeSelection(frame, draw.inputs, draw.seed);
+  const stored: { population_row_number: number; selection_order: number; hit_points: unknown; stratum: number | null }[] =
+    await db("sample_items").where({ draw_id: draw.id }).orderBy("selection_order").select("population_row_number", "selection_order", "hit_points", "stratum");
+
+  const key = (row: number, stratum: number | null, order: number, points: number[] | null) =>
+    `${stratum ?? "-"}|${row}|${sample.method === "stratified" ? "" : order}|${(points ?? []).map((p) => p.toFixed(2)).join(";")}`;
+  const want = new Set(recomputed.map((it) => key(frame.rowNumbers[it.position], it.stratum, it.order, it.hitPoints)));
+  const have = new Set(stored.map((s) => key(s.population_row_number, s.stratum, s.selection_order, parsePoints(s.hit_points))));
+  const differences = [
+    ...[...have].filter((k) => !want.has(k)).map((k) => `stored but not recomputed: ${describe(k)}`),
+    ...[...want].filter((k) => !have.has(k)).map((k) => `recomputed but not stored: ${describe(k)}`),
+  ];
+  const result: ReperformResult = {
+    matches: differences.length === 0, checkedAt: new Date().toISOString(), storedItems: stored.length, recomputedItems: recomputed.length,
+    recomputedSha256: sha256(selectionFingerprint(frame, recomputed)), differences: differences.slice(0, 20),
+  };
+  await db.transaction(async (trx) => {
+    await trx("sample_draws").where({ id: draw.id }).update({ reperformed_at: new Date(result.checkedAt), reperform_matches: result.matches });
+    await recordAudit(trx, { actorUserId: actorId, engagementId: sample.engagementId, entity: "sample", entityId: sample.id, action: "reperform", after: { version: draw.version, matches: result.matches, differences: differences.length } });
+  });
+  return result;
+}
+
+function parsePoints(v: unknown): number[] | null {
+  if (v === null || v === undefined) return null;
+  return (typeof v === "string" ? JSON.parse(v) : v) as number[];
+}
+
+function describe(k: string): string {
+  const [stratum, row, order] = k.split("|");
+  return `row ${row}${order ? ` (selection ${order})` : ""}${stratum !== "-" ? ` in stratum ${stratum}` : ""}`;
+}

@@ -1,0 +1,112 @@
+import { z } from "zod";
+import { moneyInput } from "./engagement";
+
+export const SAMPLE_METHODS = ["mus", "random", "systematic", "stratified", "attribute"] as const;
+export type SampleMethod = (typeof SAMPLE_METHODS)[number];
+export const VARIABLES_ESTIMATORS = ["mean-per-unit", "difference", "ratio", "regression"] as const;
+export const STRATIFIED_ESTIMATORS = ["mean-per-unit", "difference", "separate-ratio", "combined-ratio"] as const;
+export const DIRECTIONS = ["overstatement", "understatement", "both"] as const;
+
+export const METHOD_LABELS: Record<SampleMethod, string> = {
+  mus: "Monetary-unit (PPS), Stringer bound",
+  random: "Simple random, classical variables",
+  systematic: "Systematic with random start, classical variables",
+  stratified: "Stratified random, classical variables",
+  attribute: "Attribute sampling (test of controls)",
+};
+
+const fraction = (label: string, min: number, max: number) =>
+  z.coerce.number({ error: `${label} must be a number` }).min(min, `${label} must be at least ${min * 100}%`).max(max, `${label} must be at most ${max * 100}%`);
+
+/** Upper bounds of book-value bands for stratified samples, ascending; the last band is open. */
+const strataBounds = z.array(moneyInput).min(1, "Give at least one band boundary").max(9, "At most 10 strata")
+  .refine((b) => b.every((v, i) => i === 0 || Number(v) > Number(b[i - 1])), "Band boundaries must increase");
+
+export const SampleParamsSchema = z.object({
+  method: z.enum(SAMPLE_METHODS, "Choose a sampling method"),
+  estimator: z.enum([...VARIABLES_ESTIMATORS, "separate-ratio", "combined-ratio"]).optional(),
+  confidence: fraction("Confidence", 0.5, 0.995).default(0.95),
+  tolerableMisstatement: moneyInput.optional(),
+  expectedMisstatement: moneyInput.default("0.00"),
+  riskOfIncorrectRejection: fraction("Risk of incorrect rejection", 0.01, 0.5).default(0.1),
+  tolerableRate: fraction("Tolerable deviation rate", 0.005, 0.5).optional(),
+  expectedRate: fraction("Expected deviation rate", 0, 0.5).default(0),
+  topStratumThreshold: moneyInput.optional(),
+  factorMode: z.enum(["exact", "table"]).default("exact"),
+  strataBounds: strataBounds.optional(),
+  sampleSize: z.coerce.number().int("Whole items only").positive().optional(),
+  sizeReason: z.string().trim().max(2000).optional().transform((v) => (v ? v : undefined)),
+}).superRefine((p, ctx) => {
+  const need = (field: keyof typeof p, message: string) => {
+    if (p[field] === undefined) ctx.addIssue({ code: "custom", path: [field], message });
+  };
+  if (p.method === "attribute") {
+    need("tolerableRate", "Give the tolerable deviation rate");
+    if (p.tolerableRate !== undefined && p.expectedRate >= p.tolerableRate) ctx.addIssue({ code: "custom", path: ["expectedRate"], message: "The expected deviation rate must be below the tolerable rate" });
+    return;
+  }
+  if (p.method === "random" || p.method === "systematic") {
+    if (!p.estimator || !(VARIABLES_ESTIMATORS as readonly string[]).includes(p.estimator)) ctx.addIssue({ code: "custom", path: ["estimator"], message: "Choose mean-per-unit, difference, ratio or regression" });
+  }
+  if (p.method === "stratified") {
+    if (!p.estimator || !(STRATIFIED_ESTIMATORS as readonly string[]).includes(p.estimator)) ctx.addIssue({ code: "custom", path: ["estimator"], message: "Choose mean-per-unit, difference, separate ratio or combined ratio" });
+    need("strataBounds", "Give the book-value band boundaries");
+  }
+});
+export type SampleParamsInput = z.input<typeof SampleParamsSchema>;
+export type SampleParams = z.output<typeof SampleParamsSchema>;
+
+export const PlanSampleSchema = z.object({
+  populationId: z.coerce.number().int().positive("Choose a population"),
+  name: z.string().trim().min(2, "Name the sample").max(200),
+  objective: z.string().trim().min(5, "State the objective of the test").max(4000),
+  assertion: z.string().trim().min(2, "Name the assertion (e.g. existence, valuation)").max(200),
+  direction: z.enum(DIRECTIONS, "Choose overstatement, understatement or both"),
+  params: SampleParamsSchema,
+});
+export type PlanSampleInput = z.input<typeof PlanSampleSchema>;
+export type PlanSample = z.output<typeof PlanSampleSchema>;
+
+export const PreviewPlanSchema = z.object({ populationId: PlanSampleSchema.shape.populationId, params: SampleParamsSchema });
+export type PreviewPlan = z.output<typeof PreviewPlanSchema>;
+
+export const DrawSchema = z.object({
+  seed: z.coerce.number().int("The seed is a whole number").min(0).max(4294967295, "The seed is at most 4294967295").optional(),
+});
+
+export const ExtendSchema = z.object({ additional: z.coerce.number().int().min(1).max(10_000), reason: z.string().trim().min(3, "Say why the sample is extended").max(2000) });
+
+export const ReplaceItemSchema = z.object({ reason: z.string().trim().min(3, "Say why the item cannot be used (e.g. voided document)").max(2000) });
+
+export const ITEM_STATUSES = ["not-started", "done", "not-auditable"] as const;
+export const MISSTATEMENT_CAUSES = ["cut-off", "pricing", "calculation", "classification", "existence", "duplicate", "omission", "other"] as const;
+export const CAUSE_LABELS: Record<(typeof MISSTATEMENT_CAUSES)[number], string> = {
+  "cut-off": "Cut-off", pricing: "Pricing or rate", calculation: "Arithmetic", classification: "Classification",
+  existence: "Does not exist", duplicate: "Recorded twice", omission: "Omitted amount", other: "Other (describe)",
+};
+
+const signedMoney = z.union([z.string(), z.number()]).transform((v) => String(v).trim().replace(/[\s,]/g, ""))
+  .refine((v) => /^-?\d{1,16}(\.\d{1,2})?$/.test(v), "Enter an amount such as 1250.00 (at most 2 decimals)")
+  .transform((v) => (v.includes(".") ? v : `${v}.00`));
+
+export const SaveResultSchema = z.object({
+  version: z.coerce.number().int().positive(),
+  status: z.enum(ITEM_STATUSES),
+  auditedValue: signedMoney.nullable().optional(),
+  cause: z.enum(MISSTATEMENT_CAUSES).nullable().optional(),
+  causeNote: z.string().trim().max(2000).nullable().optional(),
+  deviation: z.boolean().nullable().optional(),
+  deviationNature: z.string().trim().max(2000).nullable().optional(),
+  comment: z.string().trim().max(4000).nullable().optional(),
+}).superRefine((r, ctx) => {
+  if (r.status === "done" && r.auditedValue == null && r.deviation == null) ctx.addIssue({ code: "custom", path: ["auditedValue"], message: "Enter the audited value (or the deviation result) before marking the item done" });
+  if (r.cause === "other" && !r.causeNote) ctx.addIssue({ code: "custom", path: ["causeNote"], message: "Describe the cause" });
+});
+export type SaveResult = z.output<typeof SaveResultSchema>;
+
+export const SampleItemsQuerySchema = z.object({
+  page: z.coerce.number().int().min(1).default(1),
+  pageSize: z.coerce.number().int().min(10).max(500).default(50),
+  status: z.enum(["all", ...ITEM_STATUSES, "void"]).default("all"),
+  q: z.string().trim().max(100).optional(),
+});
