@@ -58,8 +58,7 @@ function htmlBlock(block: Block): string {
 
 function renderText(c: EmailContent, url: string): string {
   const parts = [
-    "SONDAGE",
-    "=======",
+    "SONDAGE\n=======",
     c.greeting,
     ...c.blocks.map(textBlock),
     `${c.action.label}:\n${url}`,

@@ -21,7 +21,7 @@ export function reviewNoteRaised(d: ReviewNoteRaisedData): RenderedEmail {
         ["Sample", d.sample.name],
         ["Raised", formatWhen(d.at)],
       ] },
-      { kind: "paragraph", text: "Answer the note in Sondage; the sample cannot be locked while it stays open." },
+      { kind: "paragraph", text: "Answer the note in Sondage so the reviewer can clear it." },
     ],
     action: { label: "Answer the note", url: d.sampleUrl },
     judgementCaution: true,

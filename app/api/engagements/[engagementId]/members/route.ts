@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { withEngagementRole } from "@/lib/auth/with-role";
 import { addMember, listMembersByEngagementId } from "@/lib/data/members";
+import { notifyEngagementInvitation } from "@/lib/mail/notify-invitation";
 import { AddMemberSchema } from "@/lib/validation/engagement";
 
 export const GET = withEngagementRole(z.object({}), "viewer", async (_input, { db, engagementId }) => ({
@@ -9,5 +10,7 @@ export const GET = withEngagementRole(z.object({}), "viewer", async (_input, { d
 
 export const POST = withEngagementRole(AddMemberSchema, "manager", async (input, { db, engagementId, user, role }) => {
   await addMember(db, { engagementId, actorId: user.id, actorRole: role, userId: input.userId, role: input.role, firmId: user.firmId });
+  // After the commit; a mail failure is logged and never fails the addition.
+  await notifyEngagementInvitation(db, { engagementId, userId: input.userId, role: input.role, invitedBy: { name: user.name } });
   return Response.json({ members: await listMembersByEngagementId(db, { engagementId }) }, { status: 201 });
 });

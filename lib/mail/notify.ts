@@ -1,0 +1,77 @@
+import "server-only";
+import type { EmailTemplateData, EmailTemplateName, SampleEventData } from "@/templates/email";
+import { sampleUrl } from "./links";
+import { sendMail, type MailResult, type Recipient } from "./send";
+
+/** What the samples and review code hands over once its transaction has committed. */
+export interface SampleNotice {
+  recipients: Recipient[];
+  /** Who acted; given an e-mail, they get no message about their own action. */
+  actor: { name: string; email?: string };
+  engagement: { id: number; clientName: string; name: string };
+  sample: { id: number; name: string };
+  /** Defaults to now. */
+  at?: Date | string;
+  /** Defaults to the sample's page, /engagements/<id>/samples/<sampleId>. */
+  sampleUrl?: string;
+}
+
+export interface ReviewNoteNotice extends SampleNotice { note: { text: string } }
+export interface ReviewNoteAnsweredNotice extends ReviewNoteNotice { answer: { text: string } }
+
+type SampleTemplate = Exclude<EmailTemplateName, "engagement-invitation">;
+
+/** Each recipient once, never the actor. */
+function audience(notice: SampleNotice): Recipient[] {
+  const seen = new Set<string>(notice.actor.email ? [notice.actor.email.toLowerCase()] : []);
+  return notice.recipients.filter((r) => {
+    const key = r.email.toLowerCase();
+    if (seen.has(key)) return false;
+    seen.add(key);
+    return true;
+  });
+}
+
+function refuse(template: SampleTemplate, notice: SampleNotice, reason: string): MailResult[] {
+  console.error(`mail: ${template} not sent — ${reason}`);
+  return audience(notice).map((r) => ({ sent: false, to: r.email, reason }));
+}
+
+async function notifyEach<K extends SampleTemplate>(template: K, notice: SampleNotice, dataFor: (event: SampleEventData) => EmailTemplateData[K]): Promise<MailResult[]> {
+  let link: string;
+  try {
+    link = notice.sampleUrl ?? sampleUrl(notice.engagement.id, notice.sample.id);
+  } catch (err) {
+    return refuse(template, notice, err instanceof Error ? err.message : String(err));
+  }
+  const event: Omit<SampleEventData, "recipient"> = {
+    actor: { name: notice.actor.name },
+    engagement: { clientName: notice.engagement.clientName, name: notice.engagement.name },
+    sample: { name: notice.sample.name },
+    sampleUrl: link,
+    at: notice.at ?? new Date(),
+  };
+  return Promise.all(audience(notice).map((to) =>
+    sendMail({ to, template, data: dataFor({ ...event, recipient: { name: to.name } }) })));
+}
+
+/** The preparer sent a sample for review: tell its reviewers. */
+export function notifySampleReadyForReview(notice: SampleNotice): Promise<MailResult[]> {
+  return notifyEach("sample-ready-for-review", notice, (event) => event);
+}
+
+/** A review note was raised, answered (with the answer's text) or cleared. */
+export function notifyReviewNote(kind: "raised" | "cleared", notice: ReviewNoteNotice): Promise<MailResult[]>;
+export function notifyReviewNote(kind: "answered", notice: ReviewNoteAnsweredNotice): Promise<MailResult[]>;
+export function notifyReviewNote(kind: "raised" | "answered" | "cleared", notice: ReviewNoteNotice | ReviewNoteAnsweredNotice): Promise<MailResult[]> {
+  if (kind === "answered") {
+    if (!("answer" in notice)) return Promise.resolve(refuse("review-note-answered", notice, "answer: an answered review note needs the answer's text"));
+    return notifyEach("review-note-answered", notice, (event) => ({ ...event, note: notice.note, answer: notice.answer }));
+  }
+  return notifyEach(`review-note-${kind}`, notice, (event) => ({ ...event, note: notice.note }));
+}
+
+/** A manager or partner locked a sample: tell its team. */
+export function notifySampleLocked(notice: SampleNotice): Promise<MailResult[]> {
+  return notifyEach("sample-locked", notice, (event) => event);
+}
