@@ -1,0 +1,72 @@
+import type { Metadata } from "next";
+import { notFound } from "next/navigation";
+import { getDb } from "@/db/knex";
+import { requireEngagementPage } from "@/lib/auth/page-guards";
+import { hasAtLeastRole } from "@/lib/auth/roles";
+import { AppError } from "@/lib/errors";
+import { getPopulationById, listPopulationsByEngagementId } from "@/lib/data/populations";
+import { getPopulationProfile } from "@/lib/data/population-items";
+import { Card } from "@/components/ui/card";
+import { Amount } from "@/components/ui/amount";
+import { PopulationHeader } from "@/components/populations/population-header";
+import { ReconciliationPanel } from "@/components/populations/reconciliation-panel";
+import { SummaryCards } from "@/components/populations/summary-cards";
+import { StrataChart } from "@/components/populations/strata-chart";
+import { DuplicateRefs, LargestItems } from "@/components/populations/profile-tables";
+import { ThresholdTool } from "@/components/populations/threshold-tool";
+import { ItemsGrid } from "@/components/populations/items-grid";
+
+export const metadata: Metadata = { title: "Population" };
+
+async function loadPopulation(engagementId: number, populationIdParam: string) {
+  const populationId = Number(populationIdParam);
+  if (!Number.isSafeInteger(populationId) || populationId <= 0) notFound();
+  const db = getDb();
+  try {
+    const [population, profile, all] = await Promise.all([
+      getPopulationById(db, { engagementId, populationId }),
+      getPopulationProfile(db, { populationId }),
+      listPopulationsByEngagementId(db, { engagementId }),
+    ]);
+    return { population, profile, all };
+  } catch (err) {
+    if (err instanceof AppError && err.status === 404) notFound();
+    throw err;
+  }
+}
+
+export default async function PopulationPage({ params }: { params: Promise<{ engagementId: string; populationId: string }> }) {
+  const { engagementId, populationId } = await params;
+  const { engagement, role } = await requireEngagementPage(engagementId);
+  const { population, profile, all } = await loadPopulation(engagement.id, populationId);
+  const replacedBy = all.find((p) => p.supersedesId === population.id) ?? null;
+  const replaces = population.supersedesId === null ? null : all.find((p) => p.id === population.supersedesId) ?? null;
+  const api = `/api/engagements/${engagement.id}/populations/${population.id}`;
+  return (
+    <>
+      <PopulationHeader population={population} engagement={engagement} replacedBy={replacedBy} replaces={replaces} />
+      <div className="space-y-6">
+        <div className="grid gap-6 lg:grid-cols-5">
+          <Card title="Reconciliation to the ledger" className="lg:col-span-3">
+            <ReconciliationPanel engagementId={engagement.id} initial={population} currency={engagement.currency} mayReconcile={hasAtLeastRole(role, "senior")} />
+          </Card>
+          <Card title="Items at or above an amount" className="lg:col-span-2">
+            <ThresholdTool url={`${api}/profile`} populationCount={population.rowCount} positiveTotal={population.positive.total} currency={engagement.currency} suggestion={engagement.performanceMateriality} />
+            <p className="mt-3 text-xs text-ink-soft">Useful for sizing a top stratum: items at or above the cut-off are usually tested in full. Performance materiality on this engagement: <Amount value={engagement.performanceMateriality} currency={engagement.currency} />.</p>
+          </Card>
+        </div>
+        <SummaryCards population={population} currency={engagement.currency} />
+        <Card title="Book-value strata">
+          {profile.strata.length > 0 ? <StrataChart strata={profile.strata} /> : <p className="text-sm text-ink-soft">No items.</p>}
+        </Card>
+        <div className="grid gap-6 lg:grid-cols-2">
+          <Card title="Largest items"><LargestItems items={profile.largest} currency={engagement.currency} /></Card>
+          <Card title="Duplicate item references"><DuplicateRefs duplicates={profile.duplicates} duplicateRefCount={profile.duplicateRefCount} /></Card>
+        </div>
+        <Card title="Items">
+          <ItemsGrid url={`${api}/items`} extraColumns={population.mapping.extraColumns ?? []} hasDescription={Boolean(population.mapping.descriptionColumn)} hasDate={Boolean(population.mapping.dateColumn)} />
+        </Card>
+      </div>
+    </>
+  );
+}

@@ -1,0 +1,121 @@
+"use client";
+import { useState } from "react";
+import { useRouter } from "next/navigation";
+import { useForm } from "react-hook-form";
+import { zodResolver } from "@hookform/resolvers/zod";
+import type { z } from "zod";
+import { ReconcileSchema } from "@/lib/validation/population";
+import type { PopulationRecord } from "@/lib/data/populations";
+import { centsToDecimal, decimalToCents } from "@/lib/money";
+import { Field, Input } from "@/components/ui/field";
+import { Button } from "@/components/ui/button";
+import { Alert } from "@/components/ui/alert";
+import { Amount } from "@/components/ui/amount";
+import { api, ApiError } from "@/components/ui/api";
+import { formatCount } from "./labels";
+
+type FormIn = z.input<typeof ReconcileSchema>;
+type FormOut = z.output<typeof ReconcileSchema>;
+
+/** Parses what the auditor typed as the form will; null while it is not yet an amount. */
+function typedCents(text: unknown): bigint | null {
+  const parsed = ReconcileSchema.shape.controlTotal.safeParse(text ?? "");
+  return parsed.success ? decimalToCents(parsed.data) : null;
+}
+
+interface Props { engagementId: number; initial: PopulationRecord; currency: string; mayReconcile: boolean }
+
+/** Loaded figures against the ledger's control figures, the difference, and the explanation that lets it proceed. */
+export function ReconciliationPanel({ engagementId, initial, currency, mayReconcile }: Props) {
+  const router = useRouter();
+  const [p, setP] = useState(initial);
+  const [failure, setFailure] = useState<string | null>(null);
+  const { register, handleSubmit, watch, setError, formState: { errors, isSubmitting } } = useForm<FormIn, unknown, FormOut>({
+    resolver: zodResolver(ReconcileSchema),
+    defaultValues: { controlTotal: p.controlTotal ?? "", controlCount: p.controlCount ?? "", explanation: p.reconciliationExplanation ?? "" },
+  });
+  const loadedCents = decimalToCents(p.total);
+  const typedTotal = typedCents(watch("controlTotal"));
+  const countText = String(watch("controlCount") ?? "").trim();
+  const typedCount = /^\d+$/.test(countText) ? Number(countText) : null;
+  const diffTotal = typedTotal === null ? null : typedTotal - loadedCents;
+  const diffCount = typedCount === null ? null : typedCount - p.rowCount;
+  const differs = (diffTotal !== null && diffTotal !== 0n) || (diffCount !== null && diffCount !== 0);
+
+  const onSubmit = handleSubmit(async (values) => {
+    setFailure(null);
+    try {
+      const { population } = await api<{ population: PopulationRecord }>(`/api/engagements/${engagementId}/populations/${p.id}/reconciliation`, { body: values });
+      setP(population);
+      router.refresh();
+    } catch (err) {
+      if (err instanceof ApiError && err.fields) for (const [f, m] of Object.entries(err.fields)) setError(f as keyof FormIn, { message: m[0] });
+      setFailure(err instanceof Error ? err.message : "Could not record the reconciliation");
+    }
+  });
+
+  const editable = mayReconcile && p.status !== "superseded";
+  return (
+    <div className="space-y-4">
+      <StatusNote population={p} />
+      <table className="w-full text-sm" aria-label="Reconciliation">
+        <thead className="text-left text-xs uppercase tracking-wider text-ink-soft">
+          <tr><th scope="col" className="py-1.5" /><th scope="col" className="py-1.5 text-right">Loaded</th><th scope="col" className="py-1.5 text-right">Ledger (control)</th><th scope="col" className="py-1.5 text-right">Difference</th></tr>
+        </thead>
+        <tbody>
+          <tr className="border-t border-ink-line/70">
+            <th scope="row" className="py-2 text-left font-medium">Total</th>
+            <td className="py-2 text-right"><Amount value={p.total} /></td>
+            <td className="py-2 text-right">{typedTotal !== null ? <Amount value={centsToDecimal(typedTotal)} /> : <span className="text-ink-faint">—</span>}</td>
+            <td className={`py-2 text-right ${diffTotal ? "font-semibold text-brick-700" : ""}`} data-testid="difference-total">{diffTotal !== null ? <Amount value={centsToDecimal(diffTotal)} /> : "—"}</td>
+          </tr>
+          <tr className="border-t border-ink-line/70">
+            <th scope="row" className="py-2 text-left font-medium">Items</th>
+            <td className="figures py-2 text-right">{formatCount(p.rowCount)}</td>
+            <td className="figures py-2 text-right">{typedCount !== null ? formatCount(typedCount) : <span className="text-ink-faint">—</span>}</td>
+            <td className={`figures py-2 text-right ${diffCount ? "font-semibold text-brick-700" : ""}`} data-testid="difference-count">{diffCount !== null ? formatCount(diffCount) : "—"}</td>
+          </tr>
+        </tbody>
+      </table>
+      {editable ? (
+        <form onSubmit={onSubmit} noValidate className="space-y-1 border-t border-ink-line pt-4">
+          {failure && <div className="mb-3"><Alert>{failure}</Alert></div>}
+          <div className="grid gap-x-4 sm:grid-cols-2">
+            <Field label={`Control total (${currency})`} error={errors.controlTotal?.message} hint="From the trial balance or the ledger's closing balance">
+              {({ id, describedBy, invalid }) => <Input id={id} aria-describedby={describedBy} aria-invalid={invalid} inputMode="decimal" className="figures text-right" {...register("controlTotal")} />}
+            </Field>
+            <Field label="Control count" error={errors.controlCount?.message} hint="Number of items in the ledger">
+              {({ id, describedBy, invalid }) => <Input id={id} aria-describedby={describedBy} aria-invalid={invalid} inputMode="numeric" className="figures text-right" {...register("controlCount")} />}
+            </Field>
+          </div>
+          {differs && (
+            <Field label="Explanation of the difference" error={errors.explanation?.message} hint="The auditor can record an explanation (kept in the audit log) to proceed; otherwise correct the file and load it again.">
+              {({ id, describedBy, invalid }) => <textarea id={id} aria-describedby={describedBy} aria-invalid={invalid} rows={3} className="w-full rounded-md border border-ink-line bg-paper-raised px-3 py-2 text-sm focus:border-ledger-500 focus:outline-none focus:ring-2 focus:ring-ledger-100" {...register("explanation")} />}
+            </Field>
+          )}
+          <Button type="submit" disabled={isSubmitting}>{isSubmitting ? "Recording…" : "Record the reconciliation"}</Button>
+        </form>
+      ) : (
+        !mayReconcile && p.status !== "superseded" && <p className="text-sm text-ink-soft">A senior, manager or partner on the engagement records the reconciliation.</p>
+      )}
+    </div>
+  );
+}
+
+function StatusNote({ population: p }: { population: PopulationRecord }) {
+  if (p.status === "superseded") return <Alert tone="info">This population was superseded by a corrected file. It is kept for the record and cannot be sampled.</Alert>;
+  if (p.status === "reconciled") {
+    return (
+      <Alert tone="success">
+        <p className="font-semibold">Reconciled{p.reconciledByName ? ` by ${p.reconciledByName}` : ""}{p.reconciledAt ? ` on ${p.reconciledAt.slice(0, 10)}` : ""}.</p>
+        {p.reconciliationExplanation && <p className="mt-1">Difference explained: “{p.reconciliationExplanation}”</p>}
+      </Alert>
+    );
+  }
+  return (
+    <div role="status" className="rounded-md border border-amber-100 bg-amber-50 px-3 py-2 text-sm text-amber-700">
+      <p className="font-semibold">Unreconciled: this population cannot be sampled yet.</p>
+      <p className="mt-1">{p.difference ? "The control figures recorded differ from what was loaded. Correct the file and load it again, or explain the difference." : "Enter the control total and count from the trial balance or ledger."}</p>
+    </div>
+  );
+}
