@@ -29,7 +29,7 @@ export async function up(knex: Knex): Promise<void> {
     t.integer("version").unsigned().notNullable();
     t.bigInteger("seed").unsigned().notNullable();
     t.enu("seed_source", ["generated", "entered"]).notNullable();
-    t.string("algorithm", 60).notNullable();
+    t.string("algorithm", 120).notNullable();
     t.string("algorithm_version", 20).notNullable();
     t.specificType("population_sha256", "CHAR(64)").notNullable();
     t.json("inputs_json").notNullable(); // everything the selection used: sizes, interval, strata

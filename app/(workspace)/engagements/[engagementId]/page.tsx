@@ -3,7 +3,9 @@ import Link from "next/link";
 import { getDb } from "@/db/knex";
 import { requireEngagementPage } from "@/lib/auth/page-guards";
 import { listMembersByEngagementId } from "@/lib/data/members";
-import { ROLE_LABELS } from "@/lib/auth/roles";
+import { hasAtLeastRole, ROLE_LABELS } from "@/lib/auth/roles";
+import { listPopulationsByEngagementId } from "@/lib/data/populations";
+import { PopulationList } from "@/components/populations/population-list";
 import { PageHeader } from "@/components/ui/page-header";
 import { Card, EmptyState } from "@/components/ui/card";
 import { Badge } from "@/components/ui/badge";
@@ -15,7 +17,10 @@ export const metadata: Metadata = { title: "Engagement" };
 export default async function EngagementPage({ params }: { params: Promise<{ engagementId: string }> }) {
   const { engagementId } = await params;
   const { engagement, role } = await requireEngagementPage(engagementId);
-  const members = await listMembersByEngagementId(getDb(), { engagementId: engagement.id });
+  const [members, populations] = await Promise.all([
+    listMembersByEngagementId(getDb(), { engagementId: engagement.id }),
+    listPopulationsByEngagementId(getDb(), { engagementId: engagement.id }),
+  ]);
   const facts: [string, React.ReactNode][] = [
     ["Client", engagement.clientName],
     ["Period end", <span key="p" className="figures">{engagement.periodEnd}</span>],
@@ -50,8 +55,11 @@ export default async function EngagementPage({ params }: { params: Promise<{ eng
             ))}
           </ul>
         </Card>
-        <Card title="Populations" className="lg:col-span-3">
-          <EmptyState title="No population loaded yet">Ledger populations to sample from will be listed here once loaded.</EmptyState>
+        <Card
+          title="Populations" className="lg:col-span-3"
+          action={hasAtLeastRole(role, "senior") && <Link href={`/engagements/${engagement.id}/populations/new`} className="text-sm font-medium text-ledger-600 hover:underline">Load a ledger</Link>}
+        >
+          <PopulationList engagementId={engagement.id} populations={populations} currency={engagement.currency} mayLoad={hasAtLeastRole(role, "senior")} />
         </Card>
         <Card title="Samples" className="lg:col-span-3">
           <EmptyState title="No samples yet">Samples drawn from this engagement&rsquo;s populations will be listed here.</EmptyState>
