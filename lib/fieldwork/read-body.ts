@@ -1,0 +1,30 @@
+import "server-only";
+import { AppError } from "@/lib/errors";
+
+export const megabytes = (bytes: number) => `${Math.round(bytes / 1024 / 1024)} MB`;
+
+/**
+ * The raw request body as bytes, refused with 413 (naming the limit) as soon as it passes
+ * `maxBytes`, whether the client declared its length or not. Bounded, so it is held in memory.
+ */
+export async function readBodyBytes(req: Request, { maxBytes, what }: { maxBytes: number; what: string }): Promise<Buffer> {
+  const tooLarge = () => new AppError(413, "file_too_large", `The file is larger than the ${megabytes(maxBytes)} limit for ${what}.`);
+  const declared = req.headers.get("content-length");
+  if (declared !== null && Number(declared) > maxBytes) throw tooLarge();
+  if (!req.body) throw new AppError(400, "empty_file", "file: the upload was empty");
+  const chunks: Uint8Array[] = [];
+  let size = 0;
+  const reader = req.body.getReader();
+  for (;;) {
+    const { done, value } = await reader.read();
+    if (done) break;
+    size += value.byteLength;
+    if (size > maxBytes) {
+      await reader.cancel();
+      throw tooLarge();
+    }
+    chunks.push(value);
+  }
+  if (size === 0) throw new AppError(400, "empty_file", "file: the upload was empty");
+  return Buffer.concat(chunks, size);
+}

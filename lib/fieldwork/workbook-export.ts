@@ -1,0 +1,86 @@
+import "server-only";
+import ExcelJS from "exceljs";
+import type { Knex } from "knex";
+import { listItemsByDrawId, type SampleItemRecord } from "@/lib/data/sample-items";
+import { conflict } from "@/lib/errors";
+import { loadSampleView } from "@/lib/samples/context";
+import { JUDGEMENT_CAUTION } from "@/lib/samples/evaluate";
+import { CAUSE_LABELS, MISSTATEMENT_CAUSES } from "@/lib/validation/sample";
+import { safeCellText } from "./cell-text";
+import { writeCoverSheet } from "./workbook-cover";
+import {
+  columnsFor, ITEMS_SHEET, resultFingerprint, STATUS_LABELS, workbookKindFor,
+  type ColumnKey, type RowResult, type WorkbookKind,
+} from "./workbook-layout";
+
+const MONEY_FORMAT = "#,##0.00;-#,##0.00";
+const listOf = (values: string[]) => [`"${values.join(",")}"`];
+const text = (v: string | null) => (v ? safeCellText(v) : null);
+
+export function resultOfItem(item: SampleItemRecord): RowResult {
+  return {
+    status: item.status === "void" ? "not-started" : item.status,
+    auditedValue: item.auditedValue, cause: (item.cause as RowResult["cause"]) ?? null, causeNote: item.causeNote || null,
+    deviation: item.deviation, deviationNature: item.deviationNature || null, comment: item.comment || null,
+  };
+}
+
+function cellValues(kind: WorkbookKind, item: SampleItemRecord, letter: (k: ColumnKey) => string, row: number): Partial<Record<ColumnKey, ExcelJS.CellValue>> {
+  const r = resultOfItem(item);
+  const misstatementFormula = kind === "deviations" ? "" : `IF(${letter("status")}${row}="${STATUS_LABELS["not-auditable"]}",${letter("bookValue")}${row},IF(${letter("auditedValue")}${row}="","",${letter("bookValue")}${row}-${letter("auditedValue")}${row}))`;
+  return {
+    order: item.selectionOrder, itemRef: safeCellText(item.itemRef), description: text(item.description), bookValue: Number(item.bookValue),
+    auditedValue: r.auditedValue === null ? null : Number(r.auditedValue), status: STATUS_LABELS[r.status],
+    cause: r.cause ? CAUSE_LABELS[r.cause] : null, causeNote: text(r.causeNote), comment: text(r.comment),
+    deviation: r.deviation === null ? null : r.deviation ? "Yes" : "No", deviationNature: text(r.deviationNature),
+    misstatement: kind === "deviations" ? null : { formula: misstatementFormula, result: item.misstatement === null ? "" : Number(item.misstatement) } as ExcelJS.CellFormulaValue,
+    itemId: item.id, version: item.version, exported: resultFingerprint(kind, r),
+  };
+}
+
+const VALIDATIONS: Partial<Record<ColumnKey, ExcelJS.DataValidation>> = {
+  status: { type: "list", allowBlank: true, formulae: listOf(Object.values(STATUS_LABELS)), showErrorMessage: true, errorTitle: "Status", error: "Choose Not started, Done or Not auditable." },
+  cause: { type: "list", allowBlank: true, formulae: listOf(MISSTATEMENT_CAUSES.map((c) => CAUSE_LABELS[c])), showErrorMessage: true, errorTitle: "Cause", error: "Choose a cause from the list." },
+  deviation: { type: "list", allowBlank: true, formulae: listOf(["Yes", "No"]), showErrorMessage: true, errorTitle: "Deviation", error: "Answer Yes or No." },
+};
+
+async function writeItemsSheet(wb: ExcelJS.Workbook, kind: WorkbookKind, items: SampleItemRecord[]) {
+  const ws = wb.addWorksheet(ITEMS_SHEET, { views: [{ state: "frozen", ySplit: 1 }] });
+  const columns = columnsFor(kind);
+  ws.columns = columns.map((c) => ({ key: c.key, header: c.header, width: c.width, hidden: c.hidden ?? false }));
+  ws.getRow(1).font = { bold: true };
+  const letter = (k: ColumnKey) => ws.getColumn(k).letter;
+  items.forEach((item, i) => {
+    const rowNumber = i + 2;
+    const row = ws.addRow(cellValues(kind, item, letter, rowNumber));
+    for (const c of columns) {
+      const cell = row.getCell(c.key);
+      if (c.key === "bookValue" || c.key === "auditedValue" || c.key === "misstatement") cell.numFmt = MONEY_FORMAT;
+      if (c.fill) {
+        cell.protection = { locked: false };
+        cell.fill = { type: "pattern", pattern: "solid", fgColor: { argb: "FFFFF8DC" } };
+      }
+      const validation = VALIDATIONS[c.key];
+      if (validation) cell.dataValidation = validation;
+    }
+  });
+  // No password: the protection stops accidental edits of book values and formulas; the import
+  // re-checks every row on the server, so nothing relies on the sheet staying protected.
+  await ws.protect("", { selectLockedCells: true, selectUnlockedCells: true, formatColumns: false, formatRows: true, insertRows: false, deleteRows: false, sort: false, autoFilter: false });
+}
+
+/** The fieldwork workbook of a drawn sample: a cover sheet and the Items sheet to fill. */
+export async function buildFieldworkWorkbook(db: Knex, { engagementId, sampleId, exportedBy }: { engagementId: number; sampleId: number; exportedBy: string }) {
+  const view = await loadSampleView(db, { engagementId, sampleId });
+  if (!view.currentDraw) throw conflict("The sample has not been drawn yet; draw it before exporting the fieldwork workbook.");
+  const items = (await listItemsByDrawId(db, { drawId: view.currentDraw.id })).items.filter((i) => i.status !== "void");
+  const kind = workbookKindFor(view.sample.method);
+  const wb = new ExcelJS.Workbook();
+  wb.creator = "Sondage";
+  wb.created = new Date();
+  await writeCoverSheet(wb, { ...view, draw: view.currentDraw, kind, itemCount: items.length, exportedBy, caution: JUDGEMENT_CAUTION });
+  await writeItemsSheet(wb, kind, items);
+  const bytes = Buffer.from(await wb.xlsx.writeBuffer());
+  const slug = view.sample.name.toLowerCase().replace(/[^a-z0-9]+/g, "-").replace(/^-|-$/g, "").slice(0, 40) || "sample";
+  return { bytes, fileName: `fieldwork-${slug}-${sampleId}.xlsx` };
+}
