@@ -99,7 +99,7 @@ describe("the fieldwork workbook export", () => {
     const cols = columnsOf(ws);
     expect(Object.keys(cols)).toEqual(["Order", "Item reference", "Description", "Book value", "Audited value", "Status", "Cause", "Cause detail", "Comment", "Misstatement (book − audited)", "Item id", "Version", "Exported values"]);
     expect(ws.rowCount).toBe(9);
-    expect(ws.sheetProtection).toMatchObject({ sheet: true });
+    expect((ws as unknown as { sheetProtection: unknown }).sheetProtection).toMatchObject({ sheet: true }); // not in the typings
     for (const hidden of ["Item id", "Version", "Exported values"]) expect(ws.getColumn(cols[hidden]).hidden).toBe(true);
     const fill = new Set(["Audited value", "Status", "Cause", "Cause detail", "Comment"]);
     const row = ws.getRow(2);
