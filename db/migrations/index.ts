@@ -4,6 +4,8 @@ import * as m0002 from "./20261202_0002_engagements";
 import * as m0003 from "./20261202_0003_audit_log";
 import * as m0004 from "./20261202_0004_populations";
 import * as m0005 from "./20261202_0005_samples";
+import * as m0006 from "./20261202_0006_item_evidence";
+import * as m0007 from "./20261202_0007_review";
 
 type Migration = { up(knex: Knex): Promise<void>; down(knex: Knex): Promise<void> };
 
@@ -14,6 +16,8 @@ const migrations: Record<string, Migration> = {
   "20261202_0003_audit_log": m0003,
   "20261202_0004_populations": m0004,
   "20261202_0005_samples": m0005,
+  "20261202_0006_item_evidence": m0006,
+  "20261202_0007_review": m0007,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

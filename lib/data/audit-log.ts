@@ -4,6 +4,8 @@ import type { Knex } from "knex";
 export interface AuditEntry {
   actorUserId: number | null;
   engagementId?: number | null;
+  /** Set for every change to a sample, its items, evidence or notes: the sample's audit trail. */
+  sampleId?: number | null;
   entity: string;
   entityId: string | number;
   action: string;
@@ -16,6 +18,7 @@ export async function recordAudit(trx: Knex | Knex.Transaction, entry: AuditEntr
   await trx("audit_log").insert({
     actor_user_id: entry.actorUserId,
     engagement_id: entry.engagementId ?? null,
+    sample_id: entry.sampleId ?? null,
     entity: entry.entity,
     entity_id: String(entry.entityId),
     action: entry.action,

@@ -2,6 +2,7 @@ import "server-only";
 import type { Knex } from "knex";
 import type { SaveResult } from "@/lib/validation/sample";
 import { recordAudit } from "./audit-log";
+import { beginSampleWrite } from "@/lib/samples/guard";
 import { AppError, notFound } from "@/lib/errors";
 import { centsToDecimal, decimalToCents } from "@/lib/money";
 
@@ -84,6 +85,7 @@ export async function getItemById(db: Knex, { drawId, itemId }: { drawId: number
  */
 export async function saveItemResult(db: Knex, { engagementId, sampleId, drawId, itemId, actorId, input }: { engagementId: number; sampleId: number; drawId: number; itemId: number; actorId: number; input: SaveResult }) {
   return db.transaction(async (trx) => {
+    const signOffsCleared = await beginSampleWrite(trx, { sampleId, actorId, what: "an item's result" });
     const before = await itemQuery(trx, drawId).andWhere("i.id", itemId).forUpdate().first();
     if (!before) throw notFound("No such item in this sample");
     if (before.status === "void") throw new AppError(409, "void_item", "This item was voided and replaced; record the result on its replacement.");
@@ -101,8 +103,8 @@ export async function saveItemResult(db: Knex, { engagementId, sampleId, drawId,
     await trx("sample_items").where({ id: itemId }).update(patch);
     const after = await getItemById(trx, { drawId, itemId });
     const view = (i: Record<string, unknown>) => ({ status: i.status, auditedValue: i.audited_value ?? i.auditedValue ?? null, cause: i.cause ?? null, deviation: i.deviation ?? null, comment: i.comment ?? null });
-    await recordAudit(trx, { actorUserId: actorId, engagementId, entity: "sample_item", entityId: itemId, action: "record-result", before: view(before), after: view(after as unknown as Record<string, unknown>) });
+    await recordAudit(trx, { actorUserId: actorId, engagementId, sampleId, entity: "sample_item", entityId: itemId, action: "record-result", before: view(before), after: view(after as unknown as Record<string, unknown>) });
     await trx("samples").where({ id: sampleId }).update({ updated_at: trx.fn.now(3) });
-    return after;
+    return { item: after, signOffsCleared };
   });
 }

@@ -4,6 +4,7 @@ import type { PlanSample, SampleParams } from "@/lib/validation/sample";
 import type { SamplePlan } from "@/lib/samples/plan";
 import type { SelectionInputs } from "@/lib/samples/select";
 import { recordAudit } from "./audit-log";
+import { beginSampleWrite } from "@/lib/samples/guard";
 import { conflict, notFound } from "@/lib/errors";
 
 export interface SampleRecord {
@@ -88,7 +89,7 @@ export async function createSample(db: Knex, { engagementId, actorId, input, pla
       params_json: JSON.stringify(input.params), plan_json: JSON.stringify(plan), computed_size: plan.computedSize, chosen_size: plan.chosenSize,
       size_reason: input.params.sizeReason ?? null, created_by: actorId,
     });
-    await recordAudit(trx, { actorUserId: actorId, engagementId, entity: "sample", entityId: id, action: "plan", after: { ...input, computedSize: plan.computedSize, chosenSize: plan.chosenSize } });
+    await recordAudit(trx, { actorUserId: actorId, engagementId, sampleId: id, entity: "sample", entityId: id, action: "plan", after: { ...input, computedSize: plan.computedSize, chosenSize: plan.chosenSize } });
     return getSampleById(trx, { engagementId, sampleId: id });
   });
 }
@@ -99,13 +100,14 @@ export async function updateSamplePlan(db: Knex, { engagementId, sampleId, actor
     const before = await trx("samples").where({ id: sampleId, engagement_id: engagementId }).forUpdate().first();
     if (!before) throw notFound("No such sample");
     if (before.status !== "planned") throw conflict("The sample has been drawn; its plan is final. Plan a new sample instead.");
+    await beginSampleWrite(trx, { sampleId, actorId, what: "the plan" });
     await trx("samples").where({ id: sampleId }).update({
       name: input.name, objective: input.objective, assertion: input.assertion, direction: input.direction, method: input.params.method,
       estimator: input.params.estimator ?? null, params_json: JSON.stringify(input.params), plan_json: JSON.stringify(plan),
       computed_size: plan.computedSize, chosen_size: plan.chosenSize, size_reason: input.params.sizeReason ?? null,
       plan_version: before.plan_version + 1, updated_at: trx.fn.now(3),
     });
-    await recordAudit(trx, { actorUserId: actorId, engagementId, entity: "sample", entityId: sampleId, action: "replan",
+    await recordAudit(trx, { actorUserId: actorId, engagementId, sampleId, entity: "sample", entityId: sampleId, action: "replan",
       before: { params: json(before.params_json), chosenSize: before.chosen_size }, after: { params: input.params, chosenSize: plan.chosenSize } });
     return getSampleById(trx, { engagementId, sampleId });
   });

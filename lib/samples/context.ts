@@ -9,6 +9,7 @@ import type { PreviewPlan } from "@/lib/validation/sample";
 import { loadFrame } from "./population-frame";
 import { computePlan } from "./plan";
 import { evaluateSample } from "./evaluate";
+import { getReviewState } from "@/lib/review/review-state";
 
 /** The plan for a population and parameters, with the engagement's performance materiality as the default TM. */
 export async function planFor(db: Knex, { engagementId, input }: { engagementId: number; input: PreviewPlan }) {
@@ -20,12 +21,13 @@ export async function planFor(db: Knex, { engagementId, input }: { engagementId:
 
 export async function loadSampleView(db: Knex, { engagementId, sampleId }: { engagementId: number; sampleId: number }) {
   const sample = await getSampleById(db, { engagementId, sampleId });
-  const [population, draws, engagement] = await Promise.all([
+  const [population, draws, engagement, review] = await Promise.all([
     getPopulationById(db, { engagementId, populationId: sample.populationId }),
     listDrawsBySampleId(db, { sampleId }),
     getEngagementById(db, { engagementId }),
+    getReviewState(db, { sampleId }),
   ]);
-  return { sample, population, draws, currentDraw: draws.find((d) => d.current) ?? null, engagement: engagement! };
+  return { sample, population, draws, currentDraw: draws.find((d) => d.current) ?? null, engagement: engagement!, review };
 }
 
 export async function evaluationFor(db: Knex, { engagementId, sampleId }: { engagementId: number; sampleId: number }) {

@@ -5,6 +5,7 @@ import { recordAudit } from "@/lib/data/audit-log";
 import { getPopulationById } from "@/lib/data/populations";
 import type { DrawRecord, SampleRecord } from "@/lib/data/samples";
 import { AppError, conflict } from "@/lib/errors";
+import { beginSampleWrite } from "./guard";
 import { loadFrame, type Frame } from "./population-frame";
 import { ALGORITHM_VERSION, algorithmName, computeSelection, selectionFingerprint, type SelectedItem, type SelectionInputs } from "./select";
 
@@ -63,7 +64,8 @@ export async function drawSample(db: Knex, { sample, actorId, seed: enteredSeed 
     throw err;
   }
   return db.transaction(async (trx) => {
-    const locked = await trx("samples").where({ id: sample.id }).forUpdate().first("status");
+    await beginSampleWrite(trx, { sampleId: sample.id, actorId, what: "a new draw" });
+    const locked = await trx("samples").where({ id: sample.id }).first("status");
     const previous = await trx("sample_draws").where({ sample_id: sample.id }).max({ v: "version" }).first();
     const version = Number(previous?.v ?? 0) + 1;
     await trx("sample_draws").where({ sample_id: sample.id }).update({ current: false });
@@ -75,7 +77,7 @@ export async function drawSample(db: Knex, { sample, actorId, seed: enteredSeed 
     await insertSelectedItems(trx, { sampleId: sample.id, drawId, populationId: population.id, frame, items });
     await trx("samples").where({ id: sample.id }).update({ status: "drawn", updated_at: trx.fn.now(3) });
     await recordAudit(trx, {
-      actorUserId: actorId, engagementId: sample.engagementId, entity: "sample", entityId: sample.id, action: version === 1 ? "draw" : "redraw",
+      actorUserId: actorId, engagementId: sample.engagementId, sampleId: sample.id, entity: "sample", entityId: sample.id, action: version === 1 ? "draw" : "redraw",
       before: locked?.status === "drawn" ? { version: version - 1 } : undefined,
       after: { version, seed, seedSource: enteredSeed === undefined ? "generated" : "entered", items: items.length, algorithm: algorithmName(sample.method) },
     });

@@ -6,6 +6,7 @@ import { conflict, notFound } from "@/lib/errors";
 import { loadFrame } from "./population-frame";
 import { computeSelection, type SelectionInputs } from "./select";
 import { insertSelectedItems } from "./draw";
+import { beginSampleWrite } from "./guard";
 
 const NOT_EXTENDABLE = "Monetary-unit and systematic selections are not extended or replaced item by item in Sondage: plan a further sample, or record the item as could not be audited (treated as fully misstated).";
 
@@ -20,9 +21,10 @@ export async function extendSample(db: Knex, { sample, actorId, additional, reas
   const inputs: SelectionInputs = { ...draw.inputs, ranks: from + additional };
   const added = computeSelection(frame, inputs, draw.seed).slice(from);
   await db.transaction(async (trx) => {
+    await beginSampleWrite(trx, { sampleId: sample.id, actorId, what: "an extension" });
     await trx("sample_draws").where({ id: draw.id }).update({ inputs_json: JSON.stringify(inputs) });
     await insertSelectedItems(trx, { sampleId: sample.id, drawId: draw.id, populationId: sample.populationId, frame, items: added, origin: "extension" });
-    await recordAudit(trx, { actorUserId: actorId, engagementId: sample.engagementId, entity: "sample", entityId: sample.id, action: "extend", before: { ranks: from }, after: { ranks: from + additional, reason, streamPosition: from } });
+    await recordAudit(trx, { actorUserId: actorId, engagementId: sample.engagementId, sampleId: sample.id, entity: "sample", entityId: sample.id, action: "extend", before: { ranks: from }, after: { ranks: from + additional, reason, streamPosition: from } });
   });
   return { added: added.length, streamPosition: from };
 }
@@ -48,10 +50,11 @@ export async function replaceItem(db: Knex, { sample, actorId, itemId, reason }:
   const maxOrder = Number((await db("sample_items").where({ draw_id: draw.id }).max({ m: "selection_order" }).first())?.m ?? 0);
   const order = sample.method === "stratified" ? maxOrder + 1 : replacement.order;
   await db.transaction(async (trx) => {
+    await beginSampleWrite(trx, { sampleId: sample.id, actorId, what: "a replaced item" });
     await trx("sample_items").where({ id: itemId }).update({ status: "void", void_reason: reason, version: item.version + 1, updated_by: actorId, updated_at: trx.fn.now(3) });
     await trx("sample_draws").where({ id: draw.id }).update({ inputs_json: JSON.stringify(inputs) });
     await insertSelectedItems(trx, { sampleId: sample.id, drawId: draw.id, populationId: sample.populationId, frame, items: [{ ...replacement, order }], origin: "replacement", replacesItemId: itemId });
-    await recordAudit(trx, { actorUserId: actorId, engagementId: sample.engagementId, entity: "sample_item", entityId: itemId, action: "void-and-replace", before: { status: item.status }, after: { status: "void", reason, replacementRow: frame.rowNumbers[replacement.position] } });
+    await recordAudit(trx, { actorUserId: actorId, engagementId: sample.engagementId, sampleId: sample.id, entity: "sample_item", entityId: itemId, action: "void-and-replace", before: { status: item.status }, after: { status: "void", reason, replacementRow: frame.rowNumbers[replacement.position] } });
   });
   return { replacementRow: frame.rowNumbers[replacement.position] };
 }

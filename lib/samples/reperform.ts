@@ -6,6 +6,7 @@ import { conflict } from "@/lib/errors";
 import { loadFrame } from "./population-frame";
 import { computeSelection, selectionFingerprint } from "./select";
 import { sha256 } from "./draw";
+import { assertSampleUnlocked } from "./guard";
 
 export interface ReperformResult {
   matches: boolean;
@@ -38,8 +39,9 @@ export async function reperformDraw(db: Knex, { sample, actorId }: { sample: Sam
     recomputedSha256: sha256(selectionFingerprint(frame, recomputed)), differences: differences.slice(0, 20),
   };
   await db.transaction(async (trx) => {
+    await assertSampleUnlocked(trx, sample.id);
     await trx("sample_draws").where({ id: draw.id }).update({ reperformed_at: new Date(result.checkedAt), reperform_matches: result.matches });
-    await recordAudit(trx, { actorUserId: actorId, engagementId: sample.engagementId, entity: "sample", entityId: sample.id, action: "reperform", after: { version: draw.version, matches: result.matches, differences: differences.length } });
+    await recordAudit(trx, { actorUserId: actorId, engagementId: sample.engagementId, sampleId: sample.id, entity: "sample", entityId: sample.id, action: "reperform", after: { version: draw.version, matches: result.matches, differences: differences.length } });
   });
   return result;
 }

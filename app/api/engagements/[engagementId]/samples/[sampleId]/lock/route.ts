@@ -1,0 +1,20 @@
+import { z } from "zod";
+import { withEngagementRole } from "@/lib/auth/with-role";
+import { lockSample } from "@/lib/review/lock";
+import { notifyLocked } from "@/lib/review/notifications";
+import { getReviewState } from "@/lib/review/review-state";
+import { sampleOf } from "@/lib/samples/route-helpers";
+import { assembleWorkpaper } from "@/lib/workpaper/assemble";
+import { renderWorkpaper } from "@/templates/workpaper/render-workpaper";
+
+export const maxDuration = 120;
+
+export const POST = withEngagementRole(z.object({}), "manager", async (_input, ctx) => {
+  const sample = await sampleOf(ctx);
+  const locked = await lockSample(ctx.db, {
+    sample, actorId: ctx.user.id, role: ctx.role,
+    render: async (lock) => renderWorkpaper(await assembleWorkpaper(ctx.db, { engagementId: ctx.engagementId, sampleId: sample.id, draft: false, lock: { lockedByName: ctx.user.name, role: lock.role, lockedAt: lock.lockedAt, reference: lock.reference } })),
+  });
+  await notifyLocked(ctx.db, { sample, actor: ctx.user });
+  return { locked, review: await getReviewState(ctx.db, { sampleId: sample.id }) };
+});

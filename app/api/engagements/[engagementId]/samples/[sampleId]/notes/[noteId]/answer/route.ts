@@ -1,0 +1,15 @@
+import { withEngagementRole } from "@/lib/auth/with-role";
+import { parseIdParam } from "@/lib/auth/access";
+import { answerNote, listNotesBySampleId } from "@/lib/review/notes";
+import { notifyNote } from "@/lib/review/notifications";
+import { sampleOf } from "@/lib/samples/route-helpers";
+import { AnswerNoteSchema } from "@/lib/validation/review";
+
+/** The preparer (staff and above) answers a note. */
+export const POST = withEngagementRole(AnswerNoteSchema, "staff", async ({ answer }, ctx) => {
+  const sample = await sampleOf(ctx);
+  const noteId = parseIdParam(ctx.params.noteId, "review note");
+  await answerNote(ctx.db, { sample, actorId: ctx.user.id, noteId, answer });
+  await notifyNote(ctx.db, { sample, noteId, kind: "answered", actor: ctx.user });
+  return { notes: await listNotesBySampleId(ctx.db, { sampleId: sample.id }) };
+});

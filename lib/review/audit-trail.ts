@@ -1,0 +1,31 @@
+import "server-only";
+import type { Knex } from "knex";
+import type { AuditQuery } from "@/lib/validation/review";
+
+export interface AuditTrailEntry { id: number; at: string; actorId: number | null; actorName: string | null; entity: string; entityId: string; action: string; before: unknown; after: unknown }
+
+const KINDS: Record<Exclude<AuditQuery["kind"], "all">, { entities?: string[]; actions?: string[] }> = {
+  plan: { actions: ["plan", "replan"] },
+  selection: { actions: ["draw", "redraw", "reperform", "extend", "void-and-replace"] },
+  results: { entities: ["sample_item"], actions: ["record-result", "import-results"] },
+  evidence: { entities: ["item_evidence"] },
+  review: { actions: ["preparer-sign-off", "reviewer-sign-off", "sign-offs-cleared", "raise", "answer", "clear"] },
+  lock: { actions: ["lock", "unlock"] },
+};
+
+const parse = (v: unknown) => (v === null || v === undefined ? null : typeof v === "string" ? JSON.parse(v) : v);
+
+/** Every recorded change to a sample (who, when, what, before → after), newest first, filterable. */
+export async function listSampleAuditTrail(db: Knex, { sampleId, query }: { sampleId: number; query: AuditQuery }): Promise<AuditTrailEntry[]> {
+  const q = db("audit_log as a").leftJoin("users as u", "u.id", "a.actor_user_id").where("a.sample_id", sampleId).orderBy("a.id", "desc").limit(2000)
+    .select("a.id", "a.at", "a.actor_user_id", "u.name", "a.entity", "a.entity_id", "a.action", "a.before_json", "a.after_json");
+  if (query.userId) q.andWhere("a.actor_user_id", query.userId);
+  if (query.kind !== "all") {
+    const k = KINDS[query.kind];
+    q.andWhere((w) => {
+      if (k.entities) w.orWhereIn("a.entity", k.entities);
+      if (k.actions) w.orWhereIn("a.action", k.actions);
+    });
+  }
+  return (await q).map((r) => ({ id: Number(r.id), at: new Date(r.at).toISOString(), actorId: r.actor_user_id, actorName: r.name ?? null, entity: r.entity, entityId: r.entity_id, action: r.action, before: parse(r.before_json), after: parse(r.after_json) }));
+}

@@ -1,0 +1,53 @@
+import "server-only";
+import { createHash } from "node:crypto";
+import type { Knex } from "knex";
+import { recordAudit } from "@/lib/data/audit-log";
+import type { SampleRecord } from "@/lib/data/samples";
+import { AppError, conflict } from "@/lib/errors";
+import { putObjectBytes } from "@/lib/storage/objects";
+import { lockedError } from "@/lib/samples/guard";
+import type { EngagementRole } from "@/lib/auth/roles";
+
+export type RenderFinalWorkpaper = (lockInfo: { lockedById: number; role: EngagementRole; lockedAt: Date; reference: string }) => Promise<Buffer>;
+
+export const workpaperReferenceFor = (sample: SampleRecord) => `WP-${sample.engagementId}-S${String(sample.id).padStart(3, "0")}`;
+
+/**
+ * Locks a reviewer-signed sample: the final workpaper is rendered ONCE, stored in object storage
+ * with its SHA-256, and from then on every write to the sample answers 409 and downloads serve
+ * exactly those bytes (AS 1215 / ISA 230: documentation assembled and not changed afterwards).
+ */
+export async function lockSample(db: Knex, { sample, actorId, role, render }: { sample: SampleRecord; actorId: number; role: EngagementRole; render: RenderFinalWorkpaper }) {
+  const row = await db("samples").where({ id: sample.id }).first("locked_at", "reviewer_signed_at");
+  if (row.locked_at) throw lockedError();
+  if (!row.reviewer_signed_at) throw conflict("A manager or partner must sign off as reviewer before the sample is locked.");
+  const lockedAt = new Date();
+  const reference = workpaperReferenceFor(sample);
+  const pdf = await render({ lockedById: actorId, role, lockedAt, reference });
+  const sha256 = createHash("sha256").update(pdf).digest("hex");
+  const key = `engagements/${sample.engagementId}/samples/${sample.id}/workpaper-${lockedAt.getTime()}-${sha256.slice(0, 12)}.pdf`;
+  await putObjectBytes({ key, bytes: pdf, contentType: "application/pdf" });
+  await db.transaction(async (trx) => {
+    const current = await trx("samples").where({ id: sample.id }).forUpdate().first("locked_at", "reviewer_signed_at");
+    if (current.locked_at) throw lockedError();
+    if (!current.reviewer_signed_at) throw conflict("The reviewer sign-off was cleared while the workpaper was being rendered; sign off again.");
+    await trx("samples").where({ id: sample.id }).update({ locked_by: actorId, locked_at: lockedAt, workpaper_object_key: key, workpaper_sha256: sha256, workpaper_size_bytes: pdf.length, workpaper_reference: reference });
+    await recordAudit(trx, { actorUserId: actorId, engagementId: sample.engagementId, sampleId: sample.id, entity: "sample", entityId: sample.id, action: "lock", after: { role, workpaperSha256: sha256, bytes: pdf.length, reference } });
+  });
+  return { sha256, bytes: pdf.length, reference };
+}
+
+/** Unlocks a locked sample: partners only, with a reason; the stored workpaper stays on record in the log. */
+export async function unlockSample(db: Knex, { sample, actorId, role, reason }: { sample: SampleRecord; actorId: number; role: EngagementRole; reason: string }) {
+  if (role !== "partner") throw new AppError(403, "forbidden", "Only a partner can unlock a locked sample.");
+  await db.transaction(async (trx) => {
+    const row = await trx("samples").where({ id: sample.id }).forUpdate().first("locked_at", "workpaper_sha256", "workpaper_object_key");
+    if (!row.locked_at) throw conflict("The sample is not locked.");
+    await trx("samples").where({ id: sample.id }).update({
+      locked_by: null, locked_at: null, workpaper_object_key: null, workpaper_sha256: null, workpaper_size_bytes: null,
+      reviewer_signed_by: null, reviewer_signed_role: null, reviewer_signed_at: null,
+    });
+    await recordAudit(trx, { actorUserId: actorId, engagementId: sample.engagementId, sampleId: sample.id, entity: "sample", entityId: sample.id, action: "unlock",
+      before: { lockedAt: row.locked_at, workpaperSha256: row.workpaper_sha256, workpaperObjectKey: row.workpaper_object_key }, after: { reason, reviewerSignOff: "cleared" } });
+  });
+}

@@ -1,0 +1,129 @@
+import "server-only";
+import type { Knex } from "knex";
+import { getCurrentDraw } from "@/lib/data/samples";
+import { listItemsByDrawId, type SampleItemRecord } from "@/lib/data/sample-items";
+import { listNotesBySampleId } from "@/lib/review/notes";
+import { getReviewState } from "@/lib/review/review-state";
+import { listSampleAuditTrail } from "@/lib/review/audit-trail";
+import { evaluateSample } from "@/lib/samples/evaluate";
+import { loadSampleView } from "@/lib/samples/context";
+import { recipeForSample } from "@/lib/samples/recipe-for-sample";
+import { workpaperReferenceFor } from "@/lib/review/lock";
+import { buildAttributesEvaluation, buildMusEvaluation, buildStratifiedEvaluation, buildVariablesEvaluation, money } from "@/templates/workpaper/build-evaluation";
+import type { EvaluationBlock, PlanBlock, WorkpaperData, WorkpaperItem } from "@/templates/workpaper/workpaper-data";
+import type { Estimator, StratifiedEstimator } from "@/lib/sampling";
+import { METHOD_LABELS } from "@/lib/validation/sample";
+import { AppError } from "@/lib/errors";
+
+const evaluatedOf = (items: SampleItemRecord[]) => items.filter((i) => i.status === "done" || i.status === "not-auditable")
+  .map((i) => ({ reference: i.itemRef, bookValue: i.bookValue, auditedValue: i.status === "not-auditable" ? "0.00" : i.auditedValue ?? i.bookValue, topStratum: i.topStratum, stratum: i.stratum }));
+
+const pct = (v: number) => `${(v * 100).toFixed(2).replace(/\.00$/, "")}%`;
+
+/** Everything the workpaper prints, from the database, with the evaluation computed by the engine. */
+export async function assembleWorkpaper(db: Knex, { engagementId, sampleId, draft, lock }: { engagementId: number; sampleId: number; draft: boolean; lock?: { lockedByName: string; role: string; lockedAt: Date; reference: string } }): Promise<WorkpaperData> {
+  const view = await loadSampleView(db, { engagementId, sampleId });
+  const { sample, population, engagement, currentDraw } = view;
+  const [firm, items, notes, review, trail, recipe] = await Promise.all([
+    db("firms").where({ id: engagement.firmId }).first("name"),
+    currentDraw ? listItemsByDrawId(db, { drawId: currentDraw.id }).then((r) => r.items) : Promise.resolve([]),
+    listNotesBySampleId(db, { sampleId }),
+    getReviewState(db, { sampleId }),
+    listSampleAuditTrail(db, { sampleId, query: { kind: "all" } }),
+    currentDraw ? recipeForSample(db, { sample }) : Promise.resolve(""),
+  ]);
+  const evaluation = evaluateSample(sample, population, items, engagement.performanceMateriality);
+  const tolerable = money(Number(sample.params.tolerableMisstatement ?? engagement.performanceMateriality));
+  const active = items.filter((i) => i.status !== "void");
+  const done = evaluatedOf(active);
+  const plan = sample.plan;
+  return {
+    draft, workpaperReference: lock?.reference ?? workpaperReferenceFor(sample), firmName: firm?.name ?? "", clientName: engagement.clientName,
+    engagementName: engagement.name, periodEnd: engagement.periodEnd, currency: engagement.currency, generatedAt: new Date().toISOString(), sampleName: sample.name,
+    objective: { objective: sample.objective, assertion: sample.assertion, direction: sample.direction, misstatementDefinition: "Misstatement = book value − audited value (overstatement positive); an item that could not be audited counts as fully misstated." },
+    population: {
+      name: population.name, sourceFile: population.sourceFileName, sha256: population.sourceSha256, uploadedBy: population.createdByName, uploadedAt: population.createdAt,
+      itemCount: population.rowCount, total: population.total,
+      reconciliation: {
+        controlTotal: population.controlTotal, controlSource: population.controlCount === null ? null : `ledger / trial balance: ${population.controlCount} items`,
+        difference: population.difference?.total ?? null,
+        status: population.controlTotal === null ? "no-control-total" : population.difference && population.difference.total === "0.00" && population.difference.count === 0 ? "agreed" : population.status === "reconciled" ? "explained" : "unreconciled",
+        explanation: population.reconciliationExplanation,
+      },
+      excluded: plan.excluded ? { ...plan.excluded, treatment: "Not selectable by monetary-unit sampling; tested separately as their own populations." } : null,
+      frameCount: plan.frameSize, frameTotal: plan.frameTotal,
+    },
+    plan: planBlock(sample, tolerable),
+    selection: {
+      seed: currentDraw?.seed ?? 0, seedSource: currentDraw?.seedSource ?? "generated", algorithm: currentDraw?.algorithm ?? "not drawn", algorithmVersion: currentDraw?.algorithmVersion ?? "",
+      drawVersion: currentDraw?.version ?? 0, drawnBy: currentDraw?.drawnByName ?? "", drawnAt: currentDraw?.drawnAt ?? new Date(0).toISOString(),
+      populationSha256: currentDraw?.populationSha256 ?? population.sourceSha256, selectionSha256: currentDraw?.selectionSha256 ?? "", randomStart: null,
+      reperform: { result: currentDraw?.reperformMatches === null || !currentDraw ? "not-checked" : currentDraw.reperformMatches ? "matches" : "differs", checkedAt: currentDraw?.reperformedAt ?? null, checkedBy: null, detail: null },
+      recipe: recipe.split("\n"),
+    },
+    items: items.map(toWorkpaperItem),
+    evaluation: evaluationOrExplain(() => evaluationBlock(sample, population, active, done, tolerable)),
+    conclusion: { text: evaluation.conclusion, supported: evaluation.supported, concludedBy: review.reviewer?.name ?? null, concludedAt: review.reviewer?.at ?? null },
+    reviewNotes: notes.map((n, i) => ({ number: i + 1, text: n.itemRef ? `[${n.itemRef}] ${n.text}` : n.text, raisedBy: n.raisedBy, raisedAt: n.raisedAt, answers: n.answer ? [{ text: n.answer, by: n.answeredBy ?? "", at: n.answeredAt ?? "" }] : [], clearedBy: n.clearedBy, clearedAt: n.clearedAt })),
+    signOffs: { preparer: review.preparer, reviewer: review.reviewer },
+    lock: lock ? { lockedBy: lock.lockedByName, role: lock.role, lockedAt: lock.lockedAt.toISOString() } : null,
+    auditTrail: trail.slice().reverse().map((e) => ({ at: e.at, who: e.actorName ?? "system", action: e.action, subject: `${e.entity} ${e.entityId}`, before: e.before === null ? null : JSON.stringify(e.before), after: e.after === null ? null : JSON.stringify(e.after) })),
+  };
+}
+
+function evaluationOrExplain(build: () => EvaluationBlock): EvaluationBlock {
+  try {
+    return build();
+  } catch (err) {
+    if (err instanceof RangeError) throw new AppError(409, "not_evaluable", `The workpaper cannot be rendered yet: ${err.message}. Record more results first.`);
+    throw err;
+  }
+}
+
+function toWorkpaperItem(i: SampleItemRecord): WorkpaperItem {
+  return {
+    selectionOrder: i.selectionOrder, reference: i.itemRef, description: i.description, rowNumber: i.populationRowNumber, stratum: i.stratum, topStratum: i.topStratum,
+    hitPoints: (i.hitPoints ?? []).map((p) => money(p)), origin: i.origin, bookValue: i.bookValue, auditedValue: i.auditedValue, misstatement: i.misstatement,
+    status: i.status, cause: i.cause ? (i.causeNote ? `${i.cause}: ${i.causeNote}` : i.cause) : null, comment: i.voidReason ? `Void: ${i.voidReason}${i.comment ? ` — ${i.comment}` : ""}` : i.comment,
+    deviation: i.deviation, deviationNature: i.deviationNature,
+  };
+}
+
+function planBlock(sample: Awaited<ReturnType<typeof loadSampleView>>["sample"], tolerable: string): PlanBlock {
+  const p = sample.params, plan = sample.plan;
+  const parameters: PlanBlock["parameters"] = [
+    { label: "Method", kind: "text", value: METHOD_LABELS[sample.method] },
+    { label: "Confidence", kind: "rate", value: pct(p.confidence) },
+  ];
+  if (sample.method === "attribute") {
+    parameters.push({ label: "Tolerable deviation rate", kind: "rate", value: pct(p.tolerableRate ?? 0) }, { label: "Expected deviation rate", kind: "rate", value: pct(p.expectedRate) });
+  } else {
+    parameters.push({ label: "Tolerable misstatement", kind: "money", value: tolerable }, { label: "Expected misstatement", kind: "money", value: p.expectedMisstatement });
+    if (sample.method !== "mus") parameters.push({ label: "Risk of incorrect rejection", kind: "rate", value: pct(p.riskOfIncorrectRejection) });
+    else parameters.push({ label: "Factors", kind: "text", value: p.factorMode === "table" ? "table (rounded up to 2 decimals)" : "exact (gamma quantile)" });
+  }
+  return {
+    method: sample.method, estimator: (p.estimator ?? null) as Estimator | StratifiedEstimator | null, parameters, computedSize: plan.computedSize, chosenSize: plan.chosenSize, sizeReason: sample.sizeReason,
+    formula: { text: plan.formula, inputs: Object.entries(plan.inputs).map(([symbol, value]) => ({ symbol, meaning: symbol, kind: typeof value === "number" ? "factor" : "text", value: String(value) })), substituted: null, source: plan.formula.match(/\(([^()]*)\)\s*$/)?.[1] ?? "" },
+    interval: plan.interval !== undefined ? money(plan.interval) : null, topStratumThreshold: plan.topStratumThreshold !== undefined ? money(plan.topStratumThreshold) : null,
+    topStratum: plan.topStratum ?? null, strata: plan.strata?.map((s) => ({ number: s.number, label: s.label, populationSize: s.populationSize, bookValue: s.bookValue, sampleSize: s.allocation })) ?? null,
+    allowedDeviations: plan.allowedDeviations ?? null, warnings: plan.warnings,
+  };
+}
+
+type View = Awaited<ReturnType<typeof loadSampleView>>;
+
+function evaluationBlock(sample: View["sample"], population: View["population"], active: SampleItemRecord[], done: ReturnType<typeof evaluatedOf>, tolerable: string): EvaluationBlock {
+  const p = sample.params;
+  const sides = sample.direction === "overstatement" ? "lower" : sample.direction === "understatement" ? "upper" : "two";
+  if (sample.method === "mus") return buildMusEvaluation({ interval: sample.plan.interval!, confidence: p.confidence, factorMode: p.factorMode, tolerableMisstatement: tolerable, items: done });
+  if (sample.method === "attribute") {
+    const finished = active.filter((i) => i.status === "done" || i.status === "not-auditable");
+    return buildAttributesEvaluation({ confidence: p.confidence, tolerableRate: p.tolerableRate ?? 0, expectedRate: p.expectedRate, sampleSize: Math.max(finished.length, 1), allowedDeviations: sample.plan.allowedDeviations ?? 0, deviations: finished.filter((i) => i.deviation || i.status === "not-auditable").length });
+  }
+  if (sample.method === "stratified") {
+    return buildStratifiedEvaluation({ estimator: p.estimator as StratifiedEstimator, confidence: p.confidence, sides, tolerableMisstatement: tolerable,
+      strata: sample.plan.strata!.map((s) => ({ label: s.label, populationSize: s.populationSize, populationBookValue: s.bookValue, items: done.filter((i) => i.stratum === s.number) })) });
+  }
+  return buildVariablesEvaluation({ estimator: p.estimator as Estimator, confidence: p.confidence, sides, tolerableMisstatement: tolerable, populationSize: population.rowCount, populationBookValue: population.total, items: done });
+}
