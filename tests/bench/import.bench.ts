@@ -100,8 +100,10 @@ async function importThroughRoutes(a: { session: HttpSession; engagementId: numb
 const passFail = (ok: boolean) => (ok ? "PASS" : "FAIL");
 
 function report(results: RunResult[], rows: number, fileMb: number): boolean {
-  const line = (label: string, r: RunResult) => {
-    const ratio = r.e2eS / r.rawS;
+  // Each run's ratio pairs ours with the raw load timed just before it (the machine's load drifts),
+  // so the summary ratio is the median of the runs' ratios, not a ratio of medians.
+  const ratios = results.map((r) => r.e2eS / r.rawS);
+  const line = (label: string, r: RunResult, ratio: number) => {
     return [
       label, rows.toLocaleString("en-US"), fileMb.toFixed(1), r.uploadS.toFixed(2), r.previewS.toFixed(3), r.loadS.toFixed(2), r.checkedS.toFixed(2), r.e2eS.toFixed(2),
       Math.round(rows / r.e2eS).toLocaleString("en-US"), Math.round(rows / r.rawS).toLocaleString("en-US"), ratio.toFixed(2), r.peakRssMb.toFixed(0), r.peakHwmMb.toFixed(0),
@@ -114,12 +116,13 @@ function report(results: RunResult[], rows: number, fileMb: number): boolean {
     rawS: med("rawS"), peakRssMb: Math.max(...results.map((r) => r.peakRssMb)), peakHwmMb: Math.max(...results.map((r) => r.peakHwmMb)), idleRssMb: med("idleRssMb"),
   };
   const head = ["run", "rows", "file MB", "upload s", "preview s", "load s", "(parse+LOAD DATA s)", "end-to-end s", "rows/s ours", "rows/s raw", "ours/raw", "peak RSS MB", "VmHWM MB", "ratio RSS preview"];
-  const table = results.map((r, i) => line(String(i + 1), r));
-  if (results.length > 1) table.push(line(`median of ${results.length}`, medianRun));
+  const medianRatio = median(ratios);
+  const table = results.map((r, i) => line(String(i + 1), r, ratios[i]));
+  if (results.length > 1) table.push(line(`median of ${results.length}`, medianRun, medianRatio));
   console.log(formatTable(head, table));
-  console.log(`goals: ours/raw ≤ ${GOALS.ratio} (end-to-end: upload + preview + load + totals, against the raw LOAD DATA statement), peak RSS ≤ ${GOALS.rssMb} MB (sum of VmRSS over the next start process tree, sampled every 50 ms; the median row shows the largest), preview < ${GOALS.previewS} s (upload answer minus transfer end).`);
+  console.log(`goals: ours/raw ≤ ${GOALS.ratio} (end to end: upload + preview + load + totals, against the raw LOAD DATA statement of the same run; median row: median of the runs' ratios), peak RSS ≤ ${GOALS.rssMb} MB (sum of VmRSS over the next start process tree, sampled every 50 ms; the median row shows the largest), preview < ${GOALS.previewS} s (upload answer minus transfer end).`);
   console.log(`server RSS before each import: ${results.map((r) => r.idleRssMb.toFixed(0)).join(", ")} MB; raw LOAD DATA s: ${results.map((r) => r.rawS.toFixed(2)).join(", ")}`);
-  return medianRun.e2eS / medianRun.rawS <= GOALS.ratio && medianRun.peakRssMb <= GOALS.rssMb && medianRun.previewS < GOALS.previewS;
+  return medianRatio <= GOALS.ratio && medianRun.peakRssMb <= GOALS.rssMb && medianRun.previewS < GOALS.previewS;
 }
 
 async function main(): Promise<void> {
