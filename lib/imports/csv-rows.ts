@@ -13,7 +13,9 @@ export interface CsvDialect {
   newline: Newline;
 }
 
-const READ_CHUNK = 256 * 1024;
+// Small batches keep little alive at each young-generation GC: on a 1M-row file 64 KB reads cut
+// GC time by about three quarters against 256 KB (tests/bench/import.bench.ts; measured in-process).
+const READ_CHUNK = 64 * 1024;
 const MAX_RECORD_CHARS = 1024 * 1024;
 
 /**

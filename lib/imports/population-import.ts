@@ -14,7 +14,7 @@ import { readXlsxRows } from "./xlsx-rows";
 
 export interface PopulationImportOptions {
   limits?: Partial<ImportLimits>;
-  /** Called once per batch (about every 256 KB of CSV or 2,000 XLSX rows). */
+  /** Called once per batch (about every 64 KB of CSV or 2,000 XLSX rows). */
   onProgress?: (rowsRead: number, bytesRead: number, totalBytes: number) => void;
 }
 
