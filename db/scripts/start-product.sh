@@ -16,6 +16,11 @@ if [ -f lib/fakes/run-fakes.ts ]; then
 fi
 trap '[ -n "$FAKES_PID" ] && kill "$FAKES_PID" 2>/dev/null || true' EXIT INT TERM
 
+PORT="${PORT:-3000}"
+# Once the server answers, load the demo ledger and a first sample through the app's own API (once).
+( node -e 'const u=process.argv[1];(async()=>{for(let i=0;i<240;i++){try{if((await fetch(u)).ok)return}catch{}await new Promise(r=>setTimeout(r,500))}})()' "http://127.0.0.1:$PORT/sign-in"
+  npx tsx db/seeds/demo-fieldwork.ts "http://127.0.0.1:$PORT" ) &
+
 echo
 echo "Sondage is starting on http://127.0.0.1:3000 — sign in as manager@marrow-quill.example / sondage-demo-2026 (README lists every demo account)."
-NEXT_TELEMETRY_DISABLED=1 node node_modules/next/dist/bin/next start -H 127.0.0.1 -p "${PORT:-3000}"
+NEXT_TELEMETRY_DISABLED=1 node node_modules/next/dist/bin/next start -H 127.0.0.1 -p "$PORT"

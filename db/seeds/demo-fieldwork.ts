@@ -1,0 +1,62 @@
+// Usage: tsx db/seeds/demo-fieldwork.ts <baseUrl> — loads the invented demo ledger into the Tessaly
+// engagement through the running app's own API (as the demo senior and staff would), reconciles it,
+// plans and draws a monetary-unit sample and records a first few results. Skips if already done.
+import os from "node:os";
+import path from "node:path";
+import fs from "node:fs";
+import { generateLedgerCsv } from "../../tests/bench/generate-ledger";
+import { HttpSession } from "../../tests/bench/support/http-session";
+import { DEMO_PASSWORD } from "./demo-scenario";
+
+const SENIOR = "senior@marrow-quill.example";
+const STAFF = "staff@marrow-quill.example";
+
+async function readLoadStream(res: Response) {
+  const lines = (await res.text()).split("\n").filter(Boolean).map((l) => JSON.parse(l));
+  return lines.at(-1);
+}
+
+async function main(baseUrl: string) {
+  const senior = new HttpSession(baseUrl);
+  await senior.signIn(SENIOR, DEMO_PASSWORD);
+  const { engagements } = await senior.json<{ engagements: { id: number; clientName: string }[] }>("/api/engagements");
+  const tessaly = engagements.find((e) => e.clientName.startsWith("Tessaly"));
+  if (!tessaly) throw new Error("demo engagement missing: run the seed first");
+  const base = `/api/engagements/${tessaly.id}`;
+  const { populations } = await senior.json<{ populations: unknown[] }>(`${base}/populations`);
+  if (populations.length > 0) return console.log("demo fieldwork: already present, left alone");
+
+  const file = path.join(os.tmpdir(), "tessaly-receivables-2026-09-30.csv");
+  await generateLedgerCsv(file, 2400, 20260930);
+  const up = await senior.uploadFile<{ upload: { id: number } }>(`${base}/populations/uploads?fileName=tessaly-receivables-2026-09-30.csv`, file);
+  if (up.status !== 201) throw new Error(`upload answered ${up.status}`);
+  const loaded = await readLoadStream(await senior.fetch(`${base}/populations/uploads/${up.body.upload.id}/load`, {
+    method: "POST", headers: { "content-type": "application/json" },
+    body: JSON.stringify({ name: "Trade receivables at 30 Sep 2026", mapping: { itemRefColumn: "Invoice", bookValueColumn: "Amount", descriptionColumn: "Customer", dateColumn: "Due", extraColumns: ["Posted"] } }),
+  }));
+  if (loaded.type !== "loaded") throw new Error(`load: ${JSON.stringify(loaded)}`);
+  fs.rmSync(file, { force: true });
+  await senior.json(`${base}/populations/${loaded.populationId}/reconciliation`, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify({ controlTotal: loaded.total, controlCount: loaded.rowCount }) });
+
+  const { sample } = await senior.json<{ sample: { id: number } }>(`${base}/samples`, {
+    method: "POST", headers: { "content-type": "application/json" },
+    body: JSON.stringify({ populationId: loaded.populationId, name: "Receivables existence — positive confirmations", objective: "Confirm that recorded trade receivables exist and are owed to the company at the period end.", assertion: "Existence", direction: "overstatement", params: { method: "mus", confidence: 0.95, tolerableMisstatement: "60000", expectedMisstatement: "8000", factorMode: "exact" } }),
+  });
+  await senior.json(`${base}/samples/${sample.id}/draw`, { method: "POST", headers: { "content-type": "application/json" }, body: "{}" });
+
+  const staff = new HttpSession(baseUrl);
+  await staff.signIn(STAFF, DEMO_PASSWORD);
+  const { items } = await staff.json<{ items: { id: number; version: number; bookValue: string }[] }>(`${base}/samples/${sample.id}/items?pageSize=40`);
+  for (const [i, it] of items.slice(0, 24).entries()) {
+    const body = i === 5 ? { status: "done", auditedValue: (Number(it.bookValue) * 0.8).toFixed(2), cause: "pricing", comment: "Customer confirmed a lower amount; credit note issued after year end" }
+      : i === 11 ? { status: "not-auditable", comment: "No reply to confirmation; no alternative evidence obtained" }
+      : { status: "done", auditedValue: it.bookValue, comment: "Agreed to confirmation" };
+    await staff.json(`${base}/samples/${sample.id}/items/${it.id}`, { method: "PATCH", headers: { "content-type": "application/json" }, body: JSON.stringify({ version: it.version, ...body }) });
+  }
+  console.log(`demo fieldwork: ${loaded.rowCount} ledger lines loaded, sample ${sample.id} drawn, 24 results recorded`);
+}
+
+main(process.argv[2] ?? "http://127.0.0.1:3000").catch((err: unknown) => {
+  console.error("demo fieldwork:", err instanceof Error ? err.message : err);
+  process.exit(1);
+});
