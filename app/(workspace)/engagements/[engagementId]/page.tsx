@@ -6,8 +6,10 @@ import { listMembersByEngagementId } from "@/lib/data/members";
 import { hasAtLeastRole, ROLE_LABELS } from "@/lib/auth/roles";
 import { listPopulationsByEngagementId } from "@/lib/data/populations";
 import { PopulationList } from "@/components/populations/population-list";
+import { listSamplesByEngagementId } from "@/lib/data/samples";
+import { SampleList } from "@/components/samples/sample-list";
 import { PageHeader } from "@/components/ui/page-header";
-import { Card, EmptyState } from "@/components/ui/card";
+import { Card } from "@/components/ui/card";
 import { Badge } from "@/components/ui/badge";
 import { Amount } from "@/components/ui/amount";
 import { STATUS_LABELS, statusTone } from "@/components/engagements/status";
@@ -17,9 +19,10 @@ export const metadata: Metadata = { title: "Engagement" };
 export default async function EngagementPage({ params }: { params: Promise<{ engagementId: string }> }) {
   const { engagementId } = await params;
   const { engagement, role } = await requireEngagementPage(engagementId);
-  const [members, populations] = await Promise.all([
+  const [members, populations, samples] = await Promise.all([
     listMembersByEngagementId(getDb(), { engagementId: engagement.id }),
     listPopulationsByEngagementId(getDb(), { engagementId: engagement.id }),
+    listSamplesByEngagementId(getDb(), { engagementId: engagement.id }),
   ]);
   const facts: [string, React.ReactNode][] = [
     ["Client", engagement.clientName],
@@ -61,8 +64,11 @@ export default async function EngagementPage({ params }: { params: Promise<{ eng
         >
           <PopulationList engagementId={engagement.id} populations={populations} currency={engagement.currency} mayLoad={hasAtLeastRole(role, "senior")} />
         </Card>
-        <Card title="Samples" className="lg:col-span-3">
-          <EmptyState title="No samples yet">Samples drawn from this engagement&rsquo;s populations will be listed here.</EmptyState>
+        <Card
+          title="Samples" className="lg:col-span-3"
+          action={hasAtLeastRole(role, "senior") && <Link href={`/engagements/${engagement.id}/samples/new`} className="text-sm font-medium text-ledger-600 hover:underline">Plan a sample</Link>}
+        >
+          <SampleList engagementId={engagement.id} samples={samples} mayPlan={hasAtLeastRole(role, "senior")} />
         </Card>
       </div>
     </>

@@ -1,0 +1,51 @@
+import type { SampleRecord } from "@/lib/data/samples";
+import type { SampleItemRecord } from "@/lib/data/sample-items";
+import { METHOD_LABELS, type SampleMethod } from "@/lib/validation/sample";
+
+export { METHOD_LABELS };
+
+/** Short names for lists, where the full method label is too long. */
+export const METHOD_SHORT: Record<SampleMethod, string> = {
+  mus: "Monetary-unit (PPS)", random: "Simple random", systematic: "Systematic", stratified: "Stratified random", attribute: "Attribute",
+};
+
+export const ESTIMATOR_LABELS: Record<string, string> = {
+  "mean-per-unit": "Mean-per-unit", difference: "Difference", ratio: "Ratio", regression: "Regression",
+  "separate-ratio": "Separate ratio", "combined-ratio": "Combined ratio",
+};
+
+export const DIRECTION_LABELS: Record<SampleRecord["direction"], string> = {
+  overstatement: "Overstatement", understatement: "Understatement", both: "Both directions",
+};
+
+export const SAMPLE_STATUS_LABELS: Record<SampleRecord["status"], string> = { planned: "Planned, not drawn", drawn: "Drawn" };
+
+export const ITEM_STATUS_LABELS: Record<SampleItemRecord["status"], string> = {
+  "not-started": "Not started", done: "Done", "not-auditable": "Could not be audited", void: "Void (replaced)",
+};
+
+/** Methods whose items may be replaced one by one, and those that may be extended (lib/samples/extend.ts). */
+export const REPLACEABLE: SampleMethod[] = ["random", "attribute", "stratified"];
+export const EXTENDABLE: SampleMethod[] = ["random", "attribute"];
+
+/** 0.95 → "95%"; 0.0125 → "1.25%". */
+export function formatPercent(fraction: number, digits?: number): string {
+  const pct = fraction * 100;
+  const d = digits ?? (Number.isInteger(Number(pct.toFixed(6))) ? 0 : 2);
+  return `${pct.toFixed(d)}%`;
+}
+
+/** "95" → 0.95, exact to 12 significant figures (no 0.07 * 100 = 7.000000000000001 surprises); null when not a number. */
+export function percentToFraction(text: unknown): number | null {
+  const s = String(text ?? "").trim().replace(/%$/, "").trim();
+  if (s === "" || !/^-?\d*\.?\d+$/.test(s)) return null;
+  return Number((Number(s) / 100).toPrecision(12));
+}
+
+export function fractionToPercent(fraction: number | undefined): string {
+  return fraction === undefined ? "" : String(Number((fraction * 100).toPrecision(12)));
+}
+
+export const formatCount = (n: number) => n.toLocaleString("en-US");
+export const formatFactor = (n: number) => n.toFixed(4);
+export const formatNumber = (n: number, digits = 2) => n.toLocaleString("en-US", { minimumFractionDigits: digits, maximumFractionDigits: digits });

@@ -1,0 +1,114 @@
+"use client";
+import { useState } from "react";
+import Link from "next/link";
+import { useRouter } from "next/navigation";
+import { useForm, type FieldPath, type Resolver } from "react-hook-form";
+import { zodResolver } from "@hookform/resolvers/zod";
+import { DIRECTIONS, PlanSampleSchema, SAMPLE_METHODS } from "@/lib/validation/sample";
+import type { SampleRecord } from "@/lib/data/samples";
+import { Field, Input, Select } from "@/components/ui/field";
+import { Button } from "@/components/ui/button";
+import { Alert } from "@/components/ui/alert";
+import { Card } from "@/components/ui/card";
+import { api, ApiError } from "@/components/ui/api";
+import { DIRECTION_LABELS, METHOD_LABELS } from "./labels";
+import { PlanParameters } from "./plan-parameters";
+import { PopulationPicker } from "./population-picker";
+import { SizePanel } from "./size-panel";
+import { SizeChoice } from "./size-choice";
+import { usePlanPreview } from "./use-plan-preview";
+import { defaultPlanValues, formFieldOf, suggestedBounds, toRequest, type PlanFormIn, type PlanFormOut, type PopulationChoice } from "./plan-values";
+
+const textarea = "w-full rounded-md border border-ink-line bg-paper-raised px-3 py-2 text-sm focus:border-ledger-500 focus:outline-none focus:ring-2 focus:ring-ledger-100 aria-[invalid=true]:border-brick-500";
+const schemaResolver = zodResolver(PlanSampleSchema);
+const resolver: Resolver<PlanFormIn, unknown, PlanFormOut> = (values, context, options) => schemaResolver(toRequest(values), context, options);
+const ASSERTIONS = ["Existence", "Occurrence", "Valuation and allocation", "Accuracy", "Completeness", "Cut-off", "Rights and obligations"];
+
+interface Props {
+  engagementId: number; currency: string; performanceMateriality: string; populations: PopulationChoice[];
+  /** When editing a plan not yet drawn. */
+  editing?: { sampleId: number; values: PlanFormIn };
+  initialPopulationId?: number;
+}
+
+/** Plans a sample: what is tested, the method and its parameters, with the size computed live by the server. */
+export function PlanForm({ engagementId, currency, performanceMateriality, populations, editing, initialPopulationId }: Props) {
+  const router = useRouter();
+  const [failure, setFailure] = useState<string | null>(null);
+  const form = useForm<PlanFormIn, unknown, PlanFormOut>({ resolver, defaultValues: editing?.values ?? defaultPlanValues(performanceMateriality, initialPopulationId) });
+  const { register, handleSubmit, watch, setValue, setError, formState: { errors, isSubmitting } } = form;
+  const values = watch();
+  const preview = usePlanPreview(engagementId, toRequest(values));
+  const population = populations.find((p) => p.id === Number(values.populationId));
+
+  const onMethod = (method: string) => {
+    const estimator = String(values.params.estimator ?? "");
+    if (method === "stratified") {
+      if (!values.params.strataBounds?.length) setValue("params.strataBounds", suggestedBounds(population));
+      if (estimator === "ratio" || estimator === "regression") setValue("params.estimator", undefined);
+    } else if (estimator === "separate-ratio" || estimator === "combined-ratio") setValue("params.estimator", undefined);
+  };
+
+  const onSubmit = handleSubmit(async (body) => {
+    setFailure(null);
+    try {
+      const path = editing ? `/api/engagements/${engagementId}/samples/${editing.sampleId}` : `/api/engagements/${engagementId}/samples`;
+      const { sample } = await api<{ sample: SampleRecord }>(path, { method: editing ? "PATCH" : "POST", body });
+      router.push(`/engagements/${engagementId}/samples/${sample.id}`);
+      router.refresh();
+    } catch (err) {
+      if (err instanceof ApiError && err.fields) for (const [k, m] of Object.entries(err.fields)) setError(formFieldOf(k) as FieldPath<PlanFormIn>, { message: m[0] });
+      setFailure(err instanceof Error ? err.message : "The plan could not be saved");
+    }
+  });
+
+  const method = values.params.method;
+  return (
+    <form onSubmit={onSubmit} noValidate className="grid items-start gap-6 lg:grid-cols-5">
+      <div className="space-y-6 lg:col-span-3">
+        {failure && <Alert>{failure}</Alert>}
+        <Card title="What is tested">
+          <PopulationPicker form={form} populations={populations} engagementId={engagementId} currency={currency} />
+          <Field label="Sample name" error={errors.name?.message} hint="e.g. Trade receivables — existence at year end">
+            {({ id, describedBy, invalid }) => <Input id={id} aria-describedby={describedBy} aria-invalid={invalid} {...register("name")} />}
+          </Field>
+          <Field label="Objective of the test" error={errors.objective?.message}>
+            {({ id, describedBy, invalid }) => <textarea id={id} aria-describedby={describedBy} aria-invalid={invalid} rows={3} className={textarea} {...register("objective")} />}
+          </Field>
+          <div className="grid gap-x-4 sm:grid-cols-2">
+            <Field label="Assertion" error={errors.assertion?.message}>
+              {({ id, describedBy, invalid }) => <><Input id={id} aria-describedby={describedBy} aria-invalid={invalid} list="assertion-suggestions" {...register("assertion")} /><datalist id="assertion-suggestions">{ASSERTIONS.map((a) => <option key={a} value={a} />)}</datalist></>}
+            </Field>
+            {method !== "attribute" && (
+              <Field label="Misstatement tested for" error={errors.direction?.message}>
+                {({ id, describedBy, invalid }) => <Select id={id} aria-describedby={describedBy} aria-invalid={invalid} {...register("direction")}>{DIRECTIONS.map((d) => <option key={d} value={d}>{DIRECTION_LABELS[d]}</option>)}</Select>}
+              </Field>
+            )}
+          </div>
+        </Card>
+        <Card title="Method and parameters">
+          <Field label="Sampling method" error={errors.params?.method?.message}>
+            {({ id, describedBy, invalid }) => (
+              <Select id={id} aria-describedby={describedBy} aria-invalid={invalid} {...register("params.method", { onChange: (e) => onMethod(e.target.value) })}>
+                {SAMPLE_METHODS.map((m) => <option key={m} value={m}>{METHOD_LABELS[m]}</option>)}
+              </Select>
+            )}
+          </Field>
+          <PlanParameters form={form} plan={preview.plan} currency={currency} performanceMateriality={performanceMateriality} />
+        </Card>
+        <Card title="Size to draw">
+          <SizeChoice form={form} plan={preview.plan} />
+        </Card>
+        <div className="flex items-center gap-3">
+          <Button type="submit" disabled={isSubmitting}>{isSubmitting ? "Saving…" : editing ? "Save the changed plan" : "Save the plan"}</Button>
+          <Link href={editing ? `/engagements/${engagementId}/samples/${editing.sampleId}` : `/engagements/${engagementId}`} className="text-sm text-ink-soft hover:underline">Cancel</Link>
+        </div>
+      </div>
+      <div className="lg:sticky lg:top-6 lg:col-span-2">
+        <Card title="Sample size, live">
+          <SizePanel plan={preview.plan} problem={preview.problem} busy={preview.busy} currency={currency} />
+        </Card>
+      </div>
+    </form>
+  );
+}

@@ -1,0 +1,91 @@
+"use client";
+import type { UseFormReturn } from "react-hook-form";
+import { STRATIFIED_ESTIMATORS, VARIABLES_ESTIMATORS } from "@/lib/validation/sample";
+import type { SamplePlan } from "@/lib/samples/plan";
+import { Field, Input, Select } from "@/components/ui/field";
+import { Amount } from "@/components/ui/amount";
+import { ESTIMATOR_LABELS } from "./labels";
+import { PercentInput } from "./percent-input";
+import { StrataBoundsEditor } from "./strata-bounds-editor";
+import type { PlanFormIn, PlanFormOut } from "./plan-values";
+
+interface Props { form: UseFormReturn<PlanFormIn, unknown, PlanFormOut>; plan: SamplePlan | null; currency: string; performanceMateriality: string }
+
+const money = "figures text-right";
+
+/** The parameters the chosen method needs, with the firm's usual defaults filled in. */
+export function PlanParameters({ form, plan, currency, performanceMateriality }: Props) {
+  const { register, watch, setValue, formState: { errors } } = form;
+  const method = watch("params.method");
+  const e = errors.params;
+  const classical = method === "random" || method === "systematic" || method === "stratified";
+  const estimators = method === "stratified" ? STRATIFIED_ESTIMATORS : VARIABLES_ESTIMATORS;
+  const bounds = (watch("params.strataBounds") ?? []).map(String);
+
+  return (
+    <div className="grid gap-x-4 sm:grid-cols-2">
+      {classical && (
+        <Field label="Estimator" error={e?.estimator?.message} hint={method === "stratified" ? "Separate ratio suits strata with many misstatements each; combined ratio otherwise" : "Difference and ratio need misstatements in the sample to be reliable"}>
+          {({ id, describedBy, invalid }) => (
+            <Select id={id} aria-describedby={describedBy} aria-invalid={invalid} {...register("params.estimator")}>
+              <option value="">Choose…</option>
+              {estimators.map((k) => <option key={k} value={k}>{ESTIMATOR_LABELS[k]}</option>)}
+            </Select>
+          )}
+        </Field>
+      )}
+      <Field label="Confidence" error={e?.confidence?.message} hint={method === "attribute" ? "1 − risk of overreliance on the control" : "1 − risk of incorrect acceptance"}>
+        {({ id, describedBy, invalid }) => <PercentInput id={id} aria-describedby={describedBy} aria-invalid={invalid} {...register("params.confidence")} />}
+      </Field>
+      {method === "attribute" ? (
+        <>
+          <Field label="Tolerable deviation rate" error={e?.tolerableRate?.message}>
+            {({ id, describedBy, invalid }) => <PercentInput id={id} aria-describedby={describedBy} aria-invalid={invalid} {...register("params.tolerableRate")} />}
+          </Field>
+          <Field label="Expected deviation rate" error={e?.expectedRate?.message}>
+            {({ id, describedBy, invalid }) => <PercentInput id={id} aria-describedby={describedBy} aria-invalid={invalid} {...register("params.expectedRate")} />}
+          </Field>
+        </>
+      ) : (
+        <>
+          <Field label={`Tolerable misstatement (${currency})`} error={e?.tolerableMisstatement?.message} hint={`Performance materiality on this engagement: ${Number(performanceMateriality).toLocaleString("en-US")}`}>
+            {({ id, describedBy, invalid }) => <Input id={id} aria-describedby={describedBy} aria-invalid={invalid} inputMode="decimal" className={money} {...register("params.tolerableMisstatement")} />}
+          </Field>
+          <Field label={`Expected misstatement (${currency})`} error={e?.expectedMisstatement?.message}>
+            {({ id, describedBy, invalid }) => <Input id={id} aria-describedby={describedBy} aria-invalid={invalid} inputMode="decimal" className={money} {...register("params.expectedMisstatement")} />}
+          </Field>
+        </>
+      )}
+      {classical && (
+        <Field label="Risk of incorrect rejection" error={e?.riskOfIncorrectRejection?.message} hint="Two-sided; sets how wide the planned allowance is">
+          {({ id, describedBy, invalid }) => <PercentInput id={id} aria-describedby={describedBy} aria-invalid={invalid} {...register("params.riskOfIncorrectRejection")} />}
+        </Field>
+      )}
+      {method === "mus" && (
+        <>
+          <Field label={`Top-stratum threshold (${currency})`} error={e?.topStratumThreshold?.message}
+            hint={plan?.interval !== undefined ? `Blank: the sampling interval, ${plan.interval.toLocaleString("en-US")}. Items at or above it are all tested.` : "Blank: the sampling interval. Items at or above it are all tested."}>
+            {({ id, describedBy, invalid }) => <Input id={id} aria-describedby={describedBy} aria-invalid={invalid} inputMode="decimal" className={money} placeholder={plan?.interval !== undefined ? String(plan.interval) : ""} {...register("params.topStratumThreshold")} />}
+          </Field>
+          <Field label="Poisson factors" error={e?.factorMode?.message} hint="Exact gamma quantiles, or rounded up to 2 decimals as printed tables show them">
+            {({ id, describedBy, invalid }) => (
+              <Select id={id} aria-describedby={describedBy} aria-invalid={invalid} {...register("params.factorMode")}>
+                <option value="exact">Exact</option>
+                <option value="table">Table (2 decimals)</option>
+              </Select>
+            )}
+          </Field>
+        </>
+      )}
+      {method === "stratified" && (
+        <div className="sm:col-span-2">
+          <StrataBoundsEditor value={bounds} currency={currency} error={(e?.strataBounds as { message?: string } | undefined)?.message}
+            onChange={(b) => setValue("params.strataBounds", b, { shouldDirty: true, shouldValidate: form.formState.isSubmitted })} />
+        </div>
+      )}
+      {plan?.topStratum && method === "mus" && plan.topStratum.count > 0 && (
+        <p className="text-xs text-ink-soft sm:col-span-2">The top stratum holds {plan.topStratum.count} items worth <Amount value={plan.topStratum.total} currency={currency} />; each is examined in full and its misstatement is taken at its actual amount.</p>
+      )}
+    </div>
+  );
+}

@@ -1,0 +1,49 @@
+import Link from "next/link";
+import type { SampleRecord } from "@/lib/data/samples";
+import { Amount } from "@/components/ui/amount";
+import { SizePanel } from "./size-panel";
+import { DIRECTION_LABELS, ESTIMATOR_LABELS, formatPercent, METHOD_LABELS } from "./labels";
+
+/** The plan as recorded: what is tested, the parameters, the size and how it was computed. */
+export function PlanSummary({ sample, currency, performanceMateriality, editHref }: { sample: SampleRecord; currency: string; performanceMateriality: string; editHref: string | null }) {
+  const p = sample.params;
+  const facts: [string, React.ReactNode][] = [
+    ["Objective", sample.objective],
+    ["Assertion", sample.assertion],
+    ["Method", METHOD_LABELS[sample.method]],
+  ];
+  if (sample.method !== "attribute") facts.push(["Misstatement tested for", DIRECTION_LABELS[sample.direction]]);
+  if (p.estimator) facts.push(["Estimator", ESTIMATOR_LABELS[p.estimator] ?? p.estimator]);
+  facts.push(["Confidence", formatPercent(p.confidence)]);
+  if (sample.method === "attribute") {
+    facts.push(["Tolerable deviation rate", formatPercent(p.tolerableRate ?? 0)], ["Expected deviation rate", formatPercent(p.expectedRate)]);
+  } else {
+    facts.push(
+      ["Tolerable misstatement", <><Amount key="tm" value={p.tolerableMisstatement ?? performanceMateriality} />{!p.tolerableMisstatement && <span key="d" className="ml-1 text-xs text-ink-faint">(performance materiality)</span>}</>],
+      ["Expected misstatement", <Amount key="em" value={p.expectedMisstatement} />],
+    );
+  }
+  if (["random", "systematic", "stratified"].includes(sample.method)) facts.push(["Risk of incorrect rejection", formatPercent(p.riskOfIncorrectRejection)]);
+  if (sample.method === "mus") facts.push(["Poisson factors", p.factorMode === "exact" ? "Exact" : "Table (2 decimals)"]);
+  facts.push(["Size", <span key="sz" className="figures">{sample.chosenSize}{sample.chosenSize !== sample.computedSize && ` (computed ${sample.computedSize})`}</span>]);
+  if (sample.sizeReason) facts.push(["Reason for the size", sample.sizeReason]);
+  facts.push(["Planned", `${sample.createdAt.slice(0, 10)} by ${sample.createdByName} · plan version ${sample.planVersion}`]);
+  return (
+    <div className="grid gap-6 lg:grid-cols-5">
+      <div className="lg:col-span-3">
+        <dl className="divide-y divide-ink-line/60 text-sm">
+          {facts.map(([label, value]) => (
+            <div key={label} className="grid grid-cols-3 gap-3 py-2">
+              <dt className="text-ink-soft">{label}</dt>
+              <dd className="col-span-2">{value}</dd>
+            </div>
+          ))}
+        </dl>
+        {editHref && <Link href={editHref} className="mt-3 inline-block text-sm font-medium text-ledger-600 hover:underline">Change the plan (possible until the draw)</Link>}
+      </div>
+      <div className="lg:col-span-2">
+        <SizePanel plan={sample.plan} problem={null} busy={false} currency={currency} />
+      </div>
+    </div>
+  );
+}

@@ -1,0 +1,117 @@
+"use client";
+import { ITEM_STATUSES, MISSTATEMENT_CAUSES, CAUSE_LABELS } from "@/lib/validation/sample";
+import { Amount } from "@/components/ui/amount";
+import { Badge } from "@/components/ui/badge";
+import { ITEM_STATUS_LABELS } from "./labels";
+import { liveMisstatement } from "./result-values";
+import { useRowEditor } from "./result-row";
+
+const compact = "w-full rounded border border-ink-line bg-paper-raised px-2 py-1 text-sm focus:border-ledger-500 focus:outline-none focus:ring-2 focus:ring-ledger-100 aria-[invalid=true]:border-brick-500 disabled:bg-paper-sunk/60 disabled:text-ink-faint";
+
+function FieldError({ message, id }: { message?: string; id: string }) {
+  return message ? <p id={id} className="mt-1 text-xs text-brick-700" aria-live="polite">{message}</p> : null;
+}
+
+export function ReferenceCell() {
+  const { item } = useRowEditor();
+  return (
+    <div className="min-w-32">
+      <span className="font-medium">{item.itemRef}</span>
+      {item.description && <span className="block max-w-48 truncate text-xs text-ink-faint" title={item.description}>{item.description}</span>}
+      <span className="mt-0.5 flex flex-wrap gap-1">
+        {item.topStratum && <Badge tone="blue">top stratum</Badge>}
+        {item.stratum !== null && <Badge>stratum {item.stratum}</Badge>}
+        {item.origin !== "selection" && <Badge tone="amber">{item.origin === "extension" ? "added" : "replacement"}</Badge>}
+        {item.hitPoints && item.hitPoints.length > 1 && <Badge>{item.hitPoints.length} hits</Badge>}
+      </span>
+      {item.status === "void" && <span className="block text-xs">Void: {item.voidReason}</span>}
+    </div>
+  );
+}
+
+export function AuditedValueCell() {
+  const { item, form, formId, editable } = useRowEditor();
+  const { register, watch, setValue, formState: { errors } } = form;
+  const status = watch("status");
+  const errId = `${formId}-audited-error`;
+  return (
+    <div className="w-32">
+      <input form={formId} aria-label={`Audited value of ${item.itemRef}`} inputMode="decimal" className={`${compact} figures text-right`}
+        disabled={!editable || status === "not-auditable"} aria-invalid={Boolean(errors.auditedValue)} aria-describedby={errors.auditedValue ? errId : undefined}
+        {...register("auditedValue", { onChange: (e) => { if (e.target.value.trim() !== "" && watch("status") === "not-started") setValue("status", "done", { shouldDirty: true }); } })} />
+      <FieldError id={errId} message={errors.auditedValue?.message} />
+    </div>
+  );
+}
+
+export function MisstatementCell() {
+  const { item, form } = useRowEditor();
+  const status = form.watch("status");
+  const audited = form.watch("auditedValue");
+  const m = item.status === "void" ? null : liveMisstatement(item.bookValue, { status, auditedValue: audited });
+  if (m === null) return <span className="text-ink-faint">—</span>;
+  const zero = m === "0.00";
+  return <span className={zero ? "text-ink-soft" : "font-semibold text-brick-700"} data-testid="row-misstatement"><Amount value={m} /></span>;
+}
+
+export function StatusCell() {
+  const { item, form, formId, editable } = useRowEditor();
+  if (item.status === "void") return <span>{ITEM_STATUS_LABELS.void}</span>;
+  return (
+    <div>
+      <select form={formId} aria-label={`Status of ${item.itemRef}`} className={`${compact} min-w-36`} disabled={!editable} {...form.register("status")}>
+        {ITEM_STATUSES.map((s) => <option key={s} value={s}>{ITEM_STATUS_LABELS[s]}</option>)}
+      </select>
+      {item.updatedByName && <span className="mt-0.5 block text-xs text-ink-faint">saved by {item.updatedByName}</span>}
+    </div>
+  );
+}
+
+export function CauseCell() {
+  const { item, form, formId, editable } = useRowEditor();
+  const { register, watch, formState: { errors } } = form;
+  const cause = watch("cause");
+  const errId = `${formId}-cause-error`;
+  return (
+    <div className="w-40 space-y-1">
+      <select form={formId} aria-label={`Cause of misstatement in ${item.itemRef}`} className={compact} disabled={!editable} {...register("cause")}>
+        <option value="">—</option>
+        {MISSTATEMENT_CAUSES.map((c) => <option key={c} value={c}>{CAUSE_LABELS[c]}</option>)}
+      </select>
+      {(cause || watch("causeNote")) && (
+        <input form={formId} aria-label={`Cause details for ${item.itemRef}`} placeholder={cause === "other" ? "Describe the cause" : "Details (optional)"} className={compact}
+          disabled={!editable} aria-invalid={Boolean(errors.causeNote)} aria-describedby={errors.causeNote ? errId : undefined} {...register("causeNote")} />
+      )}
+      <FieldError id={errId} message={errors.causeNote?.message} />
+    </div>
+  );
+}
+
+export function DeviationCell() {
+  const { item, form, formId, editable } = useRowEditor();
+  const { register, watch, setValue, formState: { errors } } = form;
+  const deviation = watch("deviation");
+  const errId = `${formId}-deviation-error`;
+  return (
+    <div className="w-56 space-y-1">
+      <select form={formId} aria-label={`Deviation found in ${item.itemRef}`} className={compact} disabled={!editable}
+        {...register("deviation", { onChange: (e) => { if (e.target.value !== "" && watch("status") === "not-started") setValue("status", "done", { shouldDirty: true }); } })}>
+        <option value="">—</option>
+        <option value="no">No deviation</option>
+        <option value="yes">Deviation</option>
+      </select>
+      {deviation === "yes" && <input form={formId} aria-label={`Nature of the deviation in ${item.itemRef}`} placeholder="Nature of the deviation" className={compact} disabled={!editable} {...register("deviationNature")} />}
+      <FieldError id={errId} message={errors.deviation?.message ?? errors.auditedValue?.message} />
+    </div>
+  );
+}
+
+export function CommentCell() {
+  const { item, form, formId, editable } = useRowEditor();
+  return <input form={formId} aria-label={`Comment on ${item.itemRef}`} className={`${compact} min-w-40`} disabled={!editable} {...form.register("comment")} />;
+}
+
+export function EvidenceCell() {
+  const { item } = useRowEditor();
+  return <span className={`figures ${item.evidenceCount === 0 ? "text-ink-faint" : ""}`} title="Evidence files attached to this item">{item.evidenceCount}</span>;
+}

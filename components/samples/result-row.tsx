@@ -1,0 +1,95 @@
+"use client";
+import { createContext, useContext, useEffect, useState } from "react";
+import { useForm, type FieldPath, type Resolver, type UseFormReturn } from "react-hook-form";
+import { zodResolver } from "@hookform/resolvers/zod";
+import type { SampleItemRecord } from "@/lib/data/sample-items";
+import { SaveResultSchema, type SaveResult } from "@/lib/validation/sample";
+import { api, ApiError } from "@/components/ui/api";
+import { Button } from "@/components/ui/button";
+import { formatAmount } from "@/components/ui/amount";
+import { rowValuesOf, saveBodyOf, type RowValues } from "./result-values";
+
+export interface RowEditor {
+  item: SampleItemRecord;
+  form: UseFormReturn<RowValues, unknown, SaveResult>;
+  formId: string;
+  editable: boolean;
+  attribute: boolean;
+  saved: boolean;
+}
+
+const RowContext = createContext<RowEditor | null>(null);
+
+export function useRowEditor(): RowEditor {
+  const ctx = useContext(RowContext);
+  if (!ctx) throw new Error("useRowEditor outside a result row");
+  return ctx;
+}
+
+const schemaResolver = zodResolver(SaveResultSchema);
+
+interface Props {
+  item: SampleItemRecord; url: string; editable: boolean; attribute: boolean; columnCount: number;
+  onSaved: (item: SampleItemRecord) => void; onReload: () => void; children: React.ReactNode;
+}
+
+/**
+ * One sample item as an inline form: the row's inputs point at a form in its last cell. A save
+ * sends the version the row was read at; if someone saved the item since, the server refuses
+ * (409) and the row says who, keeps the auditor's entry on screen, and offers to reload.
+ */
+export function ResultRow({ item, url, editable, attribute, columnCount, onSaved, onReload, children }: Props) {
+  const [conflictMessage, setConflictMessage] = useState<string | null>(null);
+  const [failure, setFailure] = useState<string | null>(null);
+  const [saved, setSaved] = useState(false);
+  const resolver: Resolver<RowValues, unknown, SaveResult> = (values, context, options) =>
+    schemaResolver(saveBodyOf(values, item.version, attribute), context, options as never) as never;
+  const form = useForm<RowValues, unknown, SaveResult>({ resolver, defaultValues: rowValuesOf(item) });
+  const { reset, handleSubmit, setError, getValues } = form;
+
+  // eslint-disable-next-line react-hooks/exhaustive-deps -- reset only when the stored item changes, not on every refetch
+  useEffect(() => { reset(rowValuesOf(item)); setConflictMessage(null); }, [item.id, item.version, reset]);
+
+  const submit = handleSubmit(async (body) => {
+    setFailure(null); setSaved(false);
+    try {
+      const { item: after } = await api<{ item: SampleItemRecord }>(`${url}/${item.id}`, { method: "PATCH", body });
+      setSaved(true);
+      onSaved(after);
+    } catch (err) {
+      if (err instanceof ApiError && err.status === 409) { setConflictMessage(err.message); return; }
+      if (err instanceof ApiError && err.fields) for (const [k, m] of Object.entries(err.fields)) setError(k as FieldPath<RowValues>, { message: m[0] });
+      setFailure(err instanceof Error ? err.message : "The result could not be saved");
+    }
+  });
+
+  const mine = getValues();
+  const attempted = attribute ? `deviation ${mine.deviation || "—"}` : mine.status === "not-auditable" ? "could not be audited" : `audited ${mine.auditedValue ? formatAmount(mine.auditedValue) : "—"}`;
+  const void_ = item.status === "void";
+  return (
+    <RowContext.Provider value={{ item, form, formId: `result-${item.id}`, editable: editable && !void_, attribute, saved }}>
+      <tr className={`border-t border-ink-line/70 align-top ${void_ ? "bg-paper-sunk/40 text-ink-faint" : "hover:bg-paper"}`} data-testid={`item-row-${item.itemRef}`}>
+        {children}
+        <td className="px-3 py-2 text-right">
+          {!void_ && editable && (
+            <form id={`result-${item.id}`} onSubmit={submit} noValidate>
+              <Button type="submit" variant={form.formState.isDirty ? "primary" : "secondary"} className="px-2.5 py-1 text-xs" disabled={form.formState.isSubmitting} aria-label={`Save ${item.itemRef}`}>
+                {form.formState.isSubmitting ? "Saving…" : "Save"}
+              </Button>
+            </form>
+          )}
+        </td>
+      </tr>
+      {(conflictMessage || failure) && (
+        <tr>
+          <td colSpan={columnCount + 1} className="px-3 pb-3">
+            <div role="alert" className="flex flex-wrap items-center justify-between gap-3 rounded-md border border-brick-100 bg-brick-50 px-3 py-2 text-sm text-brick-700" data-testid="row-conflict">
+              <span>{conflictMessage ?? failure}{conflictMessage && <span className="block text-xs">Your unsaved entry for {item.itemRef}: {attempted}.</span>}</span>
+              {conflictMessage && <Button type="button" variant="secondary" className="px-2.5 py-1 text-xs" onClick={() => { setConflictMessage(null); onReload(); }}>Reload the item</Button>}
+            </div>
+          </td>
+        </tr>
+      )}
+    </RowContext.Provider>
+  );
+}

@@ -1,0 +1,96 @@
+"use client";
+import { useCallback, useEffect, useState } from "react";
+import { useRouter } from "next/navigation";
+import { Card } from "@/components/ui/card";
+import { Alert } from "@/components/ui/alert";
+import { api } from "@/components/ui/api";
+import type { SampleEvaluation, SampleView } from "./types";
+import { SampleTabs } from "./sample-tabs";
+import { DrawForm } from "./draw-form";
+import { DrawFacts, DrawHistory } from "./draw-facts";
+import { ReperformPanel } from "./reperform-panel";
+import { ExtendForm } from "./extend-form";
+import { FieldworkGrid } from "./fieldwork-grid";
+import { ProgressStrip } from "./progress-strip";
+import { EvaluationPanel } from "./evaluation-panel";
+import { EXTENDABLE, REPLACEABLE } from "./labels";
+
+interface Props {
+  engagementId: number; initialView: SampleView; initialEvaluation: SampleEvaluation;
+  may: { record: boolean; draw: boolean }; planSummary: React.ReactNode;
+}
+
+/** The sample's three rooms: its plan, its draw, and the results with the live evaluation. */
+export function SampleWorkspace({ engagementId, initialView, initialEvaluation, may, planSummary }: Props) {
+  const router = useRouter();
+  const [view, setView] = useState(initialView);
+  const [tab, setTab] = useState(initialView.currentDraw ? "results" : "draw");
+  const [evaluation, setEvaluation] = useState(initialEvaluation);
+  const [evaluating, setEvaluating] = useState(false);
+  const [evalFailure, setEvalFailure] = useState<string | null>(null);
+  const [changes, setChanges] = useState(0);
+  const [gridKey, setGridKey] = useState(0);
+  const { sample, currentDraw, draws, population } = view;
+  const base = `/api/engagements/${engagementId}/samples/${sample.id}`;
+
+  useEffect(() => {
+    if (changes === 0) return;
+    let live = true;
+    setEvaluating(true);
+    api<{ evaluation: SampleEvaluation }>(`${base}/evaluation`).then(
+      (r) => { if (live) { setEvaluation(r.evaluation); setEvalFailure(null); setEvaluating(false); } },
+      (e: Error) => { if (live) { setEvalFailure(e.message); setEvaluating(false); } },
+    );
+    return () => { live = false; };
+  }, [base, changes]);
+
+  const changed = useCallback(() => setChanges((n) => n + 1), []);
+  const refreshView = useCallback(async () => { setView(await api<SampleView>(base)); }, [base]);
+  const onDrawn = (next: SampleView) => { setView(next); setGridKey((k) => k + 1); changed(); setTab("results"); router.refresh(); };
+  const attribute = sample.method === "attribute";
+
+  const tabs = [
+    { id: "plan", label: "Plan" },
+    { id: "draw", label: "Draw", badge: currentDraw ? <span className="figures text-xs text-ink-faint">v{currentDraw.version}</span> : undefined },
+    { id: "results", label: "Results and evaluation", badge: currentDraw ? <span className="figures text-xs text-ink-faint">{evaluation.progress.done + evaluation.progress.notAuditable}/{evaluation.progress.total}</span> : undefined },
+  ];
+  return (
+    <>
+      <SampleTabs tabs={tabs} current={tab} onChange={setTab} />
+      <div role="tabpanel" id="panel-plan" hidden={tab !== "plan"}><Card>{planSummary}</Card></div>
+      <div role="tabpanel" id="panel-draw" hidden={tab !== "draw"} className="space-y-6">
+        <div className="grid gap-6 lg:grid-cols-2">
+          <Card title={currentDraw ? `Current draw — version ${currentDraw.version}` : "Not drawn yet"}>
+            {currentDraw ? <DrawFacts draw={currentDraw} itemCount={evaluation.progress.total + evaluation.progress.void} /> : <p className="text-sm text-ink-soft">The server draws the sample from the population as loaded, with a recorded seed, so anyone can redo it.</p>}
+          </Card>
+          <Card title={currentDraw ? "Re-perform or draw again" : "Draw the sample"}>
+            <div className="space-y-5">
+              {currentDraw && <ReperformPanel engagementId={engagementId} sampleId={sample.id} onChecked={refreshView} />}
+              {may.draw ? <DrawForm engagementId={engagementId} sampleId={sample.id} currentVersion={currentDraw?.version ?? null} populationReady={population.status === "reconciled"} onDrawn={onDrawn} />
+                : !currentDraw && <Alert tone="info">A senior, manager or partner on the engagement draws the sample.</Alert>}
+            </div>
+          </Card>
+        </div>
+        {draws.length > 0 && <Card title="Draw history"><DrawHistory draws={draws} /></Card>}
+        {currentDraw && may.draw && EXTENDABLE.includes(sample.method) && (
+          <Card title="Extend the sample"><ExtendForm engagementId={engagementId} sampleId={sample.id} onExtended={() => { setGridKey((k) => k + 1); changed(); }} /></Card>
+        )}
+      </div>
+      <div role="tabpanel" id="panel-results" hidden={tab !== "results"} className="space-y-6">
+        {!currentDraw ? <Alert tone="info">Draw the sample first; its items will be listed here for results.</Alert> : (
+          <>
+            <Card title="Progress"><ProgressStrip progress={evaluation.progress} attribute={attribute} /></Card>
+            <Card title="Items and results">
+              <FieldworkGrid engagementId={engagementId} sampleId={sample.id} method={sample.method} drawVersion={currentDraw.version}
+                mayRecord={may.record} mayReplace={may.draw && REPLACEABLE.includes(sample.method)} refreshKey={gridKey} onSaved={changed} />
+            </Card>
+            <Card title="Evaluation">
+              {evalFailure && <div className="mb-3"><Alert>{evalFailure}</Alert></div>}
+              <EvaluationPanel evaluation={evaluation} direction={sample.direction} bookValue={population.total} loading={evaluating} />
+            </Card>
+          </>
+        )}
+      </div>
+    </>
+  );
+}
