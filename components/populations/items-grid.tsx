@@ -32,7 +32,7 @@ interface Page { items: PopulationItem[]; total: number }
 export function ItemsGrid({ url, extraColumns, hasDescription, hasDate }: Props) {
   const columns = useMemo(() => buildColumns(extraColumns, hasDescription, hasDate), [extraColumns, hasDescription, hasDate]);
   const [sorting, setSorting] = useState<SortingState>([]);
-  const [pagination, setPagination] = useState<PaginationState>({ pageIndex: 0, pageSize: 50 });
+  const [pagination, setPagination] = useState<PaginationState>({ pageIndex: 0, pageSize: 25 });
   const [search, setSearch] = useState("");
   const [query, setQuery] = useState("");
   const [page, setPage] = useState<Page | null>(null);

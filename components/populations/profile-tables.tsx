@@ -16,7 +16,7 @@ export function LargestItems({ items, currency }: { items: PopulationProfile["la
         {items.map((i) => (
           <tr key={i.rowNumber} className="border-t border-ink-line/60">
             <td className={`${td} figures text-right text-ink-faint`}>{i.rowNumber}</td>
-            <td className={`${td} font-medium`}>{i.itemRef}</td>
+            <td className={`${td} whitespace-nowrap font-medium`}>{i.itemRef}</td>
             <td className={`${td} max-w-48 truncate text-ink-soft`} title={i.description ?? undefined}>{i.description}</td>
             <td className={`${td} text-right`}><Amount value={i.bookValue} /></td>
           </tr>

@@ -93,7 +93,7 @@ export function ReconciliationPanel({ engagementId, initial, currency, mayReconc
               {({ id, describedBy, invalid }) => <textarea id={id} aria-describedby={describedBy} aria-invalid={invalid} rows={3} className="w-full rounded-md border border-ink-line bg-paper-raised px-3 py-2 text-sm focus:border-ledger-500 focus:outline-none focus:ring-2 focus:ring-ledger-100" {...register("explanation")} />}
             </Field>
           )}
-          <Button type="submit" disabled={isSubmitting}>{isSubmitting ? "Recording…" : "Record the reconciliation"}</Button>
+          <Button type="submit" disabled={isSubmitting}>{isSubmitting ? "Recording…" : p.controlTotal === null ? "Record the reconciliation" : "Record again"}</Button>
         </form>
       ) : (
         !mayReconcile && p.status !== "superseded" && <p className="text-sm text-ink-soft">A senior, manager or partner on the engagement records the reconciliation.</p>

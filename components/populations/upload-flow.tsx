@@ -90,6 +90,7 @@ export function UploadFlow({ engagementId, currency, replaceable }: Props) {
         <div className="space-y-5">
           <FileFacts upload={upload} />
           {stage.kind === "mapping" && stage.message && <Alert>{stage.message}</Alert>}
+          {stage.kind === "loading" && <div data-testid="load-progress" className="rounded-card border border-ink-line bg-paper p-4"><LoadProgress progress={stage.progress} totalBytes={upload.sizeBytes} /></div>}
           {inspection.kind === "xlsx" && inspection.sheets && inspection.sheets.length > 1 && (
             <div className="max-w-xs">
               <Field label="Sheet" hint="The rows are read from this sheet only">
@@ -102,7 +103,6 @@ export function UploadFlow({ engagementId, currency, replaceable }: Props) {
             </div>
           )}
           <MappingForm key={`${upload.id}-${inspection.sheet ?? ""}`} upload={upload} replaceable={replaceable} disabled={stage.kind === "loading" || sheetBusy} onSubmit={(values) => load(upload, values)} />
-          {stage.kind === "loading" && <div className="rounded-card border border-ink-line bg-paper p-4"><LoadProgress progress={stage.progress} totalBytes={upload.sizeBytes} /></div>}
         </div>
       );
     }
@@ -140,10 +140,12 @@ export function UploadFlow({ engagementId, currency, replaceable }: Props) {
 
 const ENCODING_LABELS = { "utf-8": "UTF-8", "utf-8-bom": "UTF-8 with BOM", "windows-1252": "Windows-1252" } as const;
 
+const DELIMITER_NAMES = { ",": "comma", ";": "semicolon", "\t": "tab", "|": "pipe" } as const;
+
 function FileFacts({ upload }: { upload: UploadView }) {
   const i = upload.inspection;
   const facts = [
-    i.kind === "xlsx" ? "Excel workbook" : `CSV, ${ENCODING_LABELS[i.encoding ?? "utf-8"]}, ${i.delimiter === "\t" ? "tab" : `“${i.delimiter ?? ","}”`}-separated`,
+    i.kind === "xlsx" ? "Excel workbook" : `CSV, ${ENCODING_LABELS[i.encoding ?? "utf-8"]}, ${DELIMITER_NAMES[i.delimiter ?? ","]}-separated`,
     formatBytes(upload.sizeBytes),
     `${formatCount(i.headers.length)} columns`,
   ];

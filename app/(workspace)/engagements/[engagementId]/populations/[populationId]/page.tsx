@@ -46,7 +46,7 @@ export default async function PopulationPage({ params }: { params: Promise<{ eng
     <>
       <PopulationHeader population={population} engagement={engagement} replacedBy={replacedBy} replaces={replaces} />
       <div className="space-y-6">
-        <div className="grid gap-6 lg:grid-cols-5">
+        <div className="grid items-start gap-6 lg:grid-cols-5">
           <Card title="Reconciliation to the ledger" className="lg:col-span-3">
             <ReconciliationPanel engagementId={engagement.id} initial={population} currency={engagement.currency} mayReconcile={hasAtLeastRole(role, "senior")} />
           </Card>
