@@ -56,8 +56,11 @@ function toItem(r: Record<string, unknown>): SampleItemRecord {
   };
 }
 
+/** Files attached to the item and not deleted (item_evidence). */
+const evidenceCount = (db: Knex) => db.raw("(select count(*) from item_evidence e where e.sample_item_id = i.id and e.deleted_at is null) as evidence_count");
+
 function itemQuery(db: Knex, drawId: number) {
-  const q = db("sample_items as i").leftJoin("users as u", "u.id", "i.updated_by").where("i.draw_id", drawId).select("i.*", "u.name as updated_by_name");
+  const q = db("sample_items as i").leftJoin("users as u", "u.id", "i.updated_by").where("i.draw_id", drawId).select("i.*", "u.name as updated_by_name", evidenceCount(db));
   return q;
 }
 
@@ -68,7 +71,7 @@ export async function listItemsByDrawId(db: Knex, { drawId, page = 1, pageSize =
   const [count, rows] = await Promise.all([
     base.clone().count({ n: "*" }).first(),
     base.clone().leftJoin("users as u", "u.id", "i.updated_by").orderBy("i.selection_order").orderBy("i.id")
-      .limit(pageSize).offset((page - 1) * pageSize).select("i.*", "u.name as updated_by_name"),
+      .limit(pageSize).offset((page - 1) * pageSize).select("i.*", "u.name as updated_by_name", evidenceCount(db)),
   ]);
   return { items: rows.map(toItem), total: Number(count?.n ?? 0), page, pageSize };
 }
