@@ -1,4 +1,5 @@
 import path from "node:path";
+import { cpuSeconds } from "./cpu-time";
 import { run } from "./processes";
 
 export interface MariaDbClient {
@@ -32,9 +33,9 @@ const SCRATCH_TABLE = `
 /**
  * The raw baseline: the mariadb client's LOAD DATA LOCAL INFILE of the same CSV into a fresh
  * scratch table, storing the same fields our import stores (ref, description, date, amount, and
- * the other two columns as JSON). Returns seconds for the LOAD DATA statement alone and its row count.
+ * the other two columns as JSON). Returns seconds (and the server's CPU seconds) for the LOAD DATA statement alone, and its row count.
  */
-export async function rawLoad(c: MariaDbClient, csvPath: string, lineEnding: "\n" | "\r\n"): Promise<{ seconds: number; rows: number; warnings: string }> {
+export async function rawLoad(c: MariaDbClient, csvPath: string, lineEnding: "\n" | "\r\n", dbPid: number): Promise<{ seconds: number; dbCpuS: number; rows: number; warnings: string }> {
   await mariadb(c, SCRATCH_TABLE);
   const file = path.resolve(csvPath).replace(/\\/g, "\\\\").replace(/'/g, "\\'");
   const lines = lineEnding === "\r\n" ? "\\r\\n" : "\\n";
@@ -43,10 +44,12 @@ export async function rawLoad(c: MariaDbClient, csvPath: string, lineEnding: "\n
     `FIELDS TERMINATED BY ',' OPTIONALLY ENCLOSED BY '"' ESCAPED BY '' LINES TERMINATED BY '${lines}' IGNORE 1 LINES ` +
     `(item_ref, description, item_date, @due, book_value, @currency) ` +
     `SET population_id = 1, \`row_number\` = (@n := @n + 1), extra = JSON_OBJECT('Due', @due, 'Currency', @currency); SHOW WARNINGS LIMIT 5;`;
+  const cpu0 = cpuSeconds(dbPid);
   const start = performance.now();
   const warnings = await mariadb(c, sql, ["--local-infile=1"]);
   const seconds = (performance.now() - start) / 1000;
+  const dbCpuS = cpuSeconds(dbPid) - cpu0;
   const rows = Number((await mariadb(c, "SELECT COUNT(*) FROM bench_scratch")).trim());
   await mariadb(c, "DROP TABLE bench_scratch");
-  return { seconds, rows, warnings: warnings.trim() };
+  return { seconds, dbCpuS, rows, warnings: warnings.trim() };
 }
