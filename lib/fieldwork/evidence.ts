@@ -7,6 +7,7 @@ import { getCurrentDraw } from "@/lib/data/samples";
 import { getItemById } from "@/lib/data/sample-items";
 import { AppError, notFound } from "@/lib/errors";
 import { putObjectBytes } from "@/lib/storage/objects";
+import { beginSampleWrite } from "@/lib/samples/guard";
 import { assertMayDeleteEvidence } from "./evidence-access";
 import { sniffEvidence } from "./evidence-sniff";
 
@@ -65,39 +66,41 @@ const auditView = (e: EvidenceRecord) => ({ sampleItemId: e.sampleItemId, fileNa
 /**
  * Write 1 of 2 on evidence — adds a file to an item. Its type is decided by its content (415 when
  * not an accepted kind); the bytes go to object storage, then the row and its audit entry in one
- * transaction. The sample-lock check belongs at the top of this function's transaction.
+ * transaction. A locked sample refuses it (409) and a signed-off one loses its sign-offs (beginSampleWrite).
  */
 export async function addItemEvidence(db: Knex, a: { engagementId: number; sampleId: number; itemId: number; actorId: number; fileName: string; bytes: Buffer }): Promise<EvidenceRecord> {
   const sniff = sniffEvidence(a.bytes, a.fileName);
   if (!sniff.ok) throw new AppError(415, "unsupported_evidence_type", sniff.reason);
   const sha256 = createHash("sha256").update(a.bytes).digest("hex");
   const objectKey = `engagements/${a.engagementId}/samples/${a.sampleId}/items/${a.itemId}/evidence/${sha256}-${randomUUID()}`;
-  await putObjectBytes({ key: objectKey, bytes: a.bytes, contentType: sniff.contentType });
   return db.transaction(async (trx) => {
+    await beginSampleWrite(trx, { sampleId: a.sampleId, actorId: a.actorId, what: "evidence added" });
     await getItemOfSample(trx, { sampleId: a.sampleId, itemId: a.itemId });
+    await putObjectBytes({ key: objectKey, bytes: a.bytes, contentType: sniff.contentType });
     const [id] = await trx("item_evidence").insert({
       sample_item_id: a.itemId, file_name: a.fileName, content_type: sniff.contentType, size_bytes: a.bytes.length, sha256, object_key: objectKey, uploaded_by: a.actorId,
     });
     const [row] = await evidenceQuery(trx).where("e.id", id);
     const evidence = toEvidence(row);
-    await recordAudit(trx, { actorUserId: a.actorId, engagementId: a.engagementId, entity: "item_evidence", entityId: id, action: "upload", after: { ...auditView(evidence), kind: sniff.label } });
+    await recordAudit(trx, { actorUserId: a.actorId, engagementId: a.engagementId, sampleId: a.sampleId, entity: "item_evidence", entityId: id, action: "upload", after: { ...auditView(evidence), kind: sniff.label } });
     return evidence;
   });
 }
 
 /**
  * Write 2 of 2 on evidence — removes a file from an item. Soft: the row and the stored object stay
- * for the audit trail, marked deleted by whom and when. The sample-lock check belongs here too.
+ * for the audit trail, marked deleted by whom and when. Locked samples refuse it, as above.
  */
 export async function deleteItemEvidence(db: Knex, a: { engagementId: number; sampleId: number; itemId: number; evidenceId: number; actorId: number; role: EngagementRole }): Promise<void> {
   await db.transaction(async (trx) => {
+    await beginSampleWrite(trx, { sampleId: a.sampleId, actorId: a.actorId, what: "evidence removed" });
     await getItemOfSample(trx, { sampleId: a.sampleId, itemId: a.itemId });
     const row = await trx("item_evidence").where({ id: a.evidenceId, sample_item_id: a.itemId }).whereNull("deleted_at").forUpdate().first();
     if (!row) throw notFound("No such evidence file");
     assertMayDeleteEvidence(a.role, a.actorId, Number(row.uploaded_by));
     await trx("item_evidence").where({ id: a.evidenceId }).update({ deleted_at: trx.fn.now(3), deleted_by: a.actorId });
     const before = { sampleItemId: a.itemId, fileName: row.file_name, contentType: row.content_type, sizeBytes: Number(row.size_bytes), sha256: row.sha256 };
-    await recordAudit(trx, { actorUserId: a.actorId, engagementId: a.engagementId, entity: "item_evidence", entityId: a.evidenceId, action: "delete", before, after: { deleted: true } });
+    await recordAudit(trx, { actorUserId: a.actorId, engagementId: a.engagementId, sampleId: a.sampleId, entity: "item_evidence", entityId: a.evidenceId, action: "delete", before, after: { deleted: true } });
   });
 }
 

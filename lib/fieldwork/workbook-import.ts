@@ -5,6 +5,7 @@ import { recordAudit } from "@/lib/data/audit-log";
 import { getCurrentDraw, getSampleById } from "@/lib/data/samples";
 import { listItemsByDrawId, saveItemResult, type SampleItemRecord } from "@/lib/data/sample-items";
 import { conflict } from "@/lib/errors";
+import { assertSampleUnlocked } from "@/lib/samples/guard";
 import { resultOfItem } from "./workbook-export";
 import { workbookKindFor } from "./workbook-layout";
 import { WorkbookProblemsError } from "./workbook-problems";
@@ -34,6 +35,7 @@ export async function importFieldworkWorkbook(db: Knex, a: { engagementId: numbe
   const sheet = await readItemsSheet(a.bytes, kind);
   if (sheet.rows.length === 0) throw new WorkbookProblemsError([{ row: null, column: null, reason: "The Items sheet has no rows below its header." }]);
   return db.transaction(async (trx) => {
+    await assertSampleUnlocked(trx, sample.id); // each saved row then clears any sign-off, as on screen
     await trx("sample_items").where({ draw_id: draw.id }).forUpdate().select("id");
     const items = (await listItemsByDrawId(trx, { drawId: draw.id })).items;
     const plan = planWorkbookImport(kind, sheet, items.map(factsOf));
@@ -44,7 +46,7 @@ export async function importFieldworkWorkbook(db: Knex, a: { engagementId: numbe
       saved.push(item);
     }
     await recordAudit(trx, {
-      actorUserId: a.actorId, engagementId: a.engagementId, entity: "sample", entityId: sample.id, action: "import-workbook",
+      actorUserId: a.actorId, engagementId: a.engagementId, sampleId: sample.id, entity: "sample", entityId: sample.id, action: "import-workbook",
       after: { sha256: createHash("sha256").update(a.bytes).digest("hex"), sizeBytes: a.bytes.length, rows: sheet.rows.length, changed: plan.changes.length, unchanged: plan.unchanged, drawVersion: draw.version },
     });
     return { rows: sheet.rows.length, changed: plan.changes.length, unchanged: plan.unchanged, items: saved };

@@ -238,6 +238,10 @@ describe("the fieldwork workbook import", () => {
     const wb = await exportWorkbook(sampleId);
     expect((await importWorkbook(sampleId, wb, viewer)).status).toBe(403);
     expect((await importWorkbook(sampleId, wb, outsider)).status).toBe(404);
+    await getDb()("samples").where({ id: sampleId }).update({ locked_at: getDb().fn.now(3) }); // the lock itself is tested with the review routes
+    const locked = await importWorkbook(sampleId, wb);
+    await getDb()("samples").where({ id: sampleId }).update({ locked_at: null });
+    expect([locked.status, locked.json.error.code]).toEqual([409, "locked"]);
     const csv = await call(workbook.POST, "POST", { as: staff, params: params(sampleId), file: new TextEncoder().encode("Item reference,Audited value\nINV-01,5\n"), query: { fileName: "filled.xlsx" } });
     expect(csv.status).toBe(415);
     expect(csv.json.error.message).toMatch(/not an Excel workbook/);
