@@ -184,3 +184,32 @@ test("staff see the populations but cannot load one", async ({ page }) => {
   await expect(page.getByLabel("Ledger file")).toHaveCount(0);
   await shot(page, "12-staff-refused.png");
 });
+
+test("a workbook is read from the chosen sheet", async ({ page }) => {
+  const ExcelJS = (await import("exceljs")).default;
+  const wb = new ExcelJS.Workbook();
+  wb.addWorksheet("Notes").addRow(["Prepared by the client for the FY2026 audit"]);
+  const ws = wb.addWorksheet("Payables");
+  ws.addRow(["Document", "Supplier", "Balance"]);
+  ws.addRow(["PI-2001", "Harrow Mills", 1520.4]);
+  ws.addRow(["PI-2002", "Quillon Freight", 860]);
+  ws.addRow(["PI-2003", "Ostrander Paper", { formula: "200+45.5", result: 245.5 }]);
+  const file = test.info().outputPath("tessaly-payables.xlsx");
+  await wb.xlsx.writeFile(file);
+
+  await new SignInPage(page).signInAndWait("senior");
+  await openTessaly(page);
+  const loader = new LoadLedgerPage(page);
+  await loader.openFromEngagement();
+  await loader.chooseFile(file);
+  await expect(page.getByLabel("Sheet")).toHaveValue("Payables"); // the notes sheet is skipped
+  await page.getByLabel("Sheet").selectOption("Notes");
+  await expect(page.getByRole("main").getByRole("alert")).toContainText("Row 1 has only one column");
+  await page.getByLabel("Sheet").selectOption("Payables");
+  await expect(page.getByRole("table", { name: "File preview" })).toContainText("PI-2003");
+  await loader.mapColumns({ itemRef: "Document", bookValue: "Balance", description: "Supplier", name: "Trade payables at 30 Sep 2026" });
+  await shot(page, "13-workbook-mapping.png");
+  await loader.load();
+  await expect(page.getByText("Loaded 3 items, total")).toBeVisible();
+  await expect(page.getByRole("status").filter({ hasText: "Loaded" })).toContainText("2,625.90");
+});
