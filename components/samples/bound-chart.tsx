@@ -1,6 +1,11 @@
 interface ChartRow { label: string; projected: number; upper: number }
 
-interface Props { rows: ChartRow[]; tolerable: number; tolerableLabel: string; format: (n: number) => string; title: string }
+interface Props {
+  rows: ChartRow[]; tolerable: number; tolerableLabel: string; format: (n: number) => string; title: string;
+  /** Highest value the axis may reach (1 for rates). */
+  cap?: number;
+  legend?: { projected: string; upper: string };
+}
 
 const W = 640, LEFT = 132, RIGHT = 24, ROW = 46, TOP = 30;
 
@@ -8,8 +13,8 @@ const W = 640, LEFT = 132, RIGHT = 24, ROW = 46, TOP = 30;
  * Each direction as a bar: solid to the projected (most likely) figure, lighter on to the upper
  * bound, against a marked line at the tolerable figure. Outside the line means not supported.
  */
-export function BoundChart({ rows, tolerable, tolerableLabel, format, title }: Props) {
-  const max = Math.max(tolerable, ...rows.map((r) => r.upper), ...rows.map((r) => r.projected), 1) * 1.12;
+export function BoundChart({ rows, tolerable, tolerableLabel, format, title, cap = Infinity, legend = { projected: "projected", upper: "allowance to the upper bound" } }: Props) {
+  const max = Math.min(cap, Math.max(tolerable, ...rows.map((r) => r.upper), ...rows.map((r) => r.projected), 1e-9) * 1.12);
   const x = (v: number) => LEFT + (Math.max(0, v) / max) * (W - LEFT - RIGHT);
   const height = TOP + rows.length * ROW + 22;
   const ticks = [0, 0.25, 0.5, 0.75, 1].map((f) => f * max);
@@ -46,8 +51,8 @@ export function BoundChart({ rows, tolerable, tolerableLabel, format, title }: P
         <text x={x(tolerable)} y={TOP - 18} textAnchor={x(tolerable) > W - 140 ? "end" : "middle"} fontSize="11" fontWeight="600" className="fill-amber-700">{tolerableLabel} {format(tolerable)}</text>
       </svg>
       <figcaption className="flex flex-wrap gap-4 text-xs text-ink-soft">
-        <span className="inline-flex items-center gap-1.5"><span aria-hidden className="inline-block h-3 w-4 rounded-sm bg-ledger-600" /> projected</span>
-        <span className="inline-flex items-center gap-1.5"><span aria-hidden className="inline-block h-3 w-4 rounded-sm border border-ledger-500 bg-ledger-100" /> allowance to the upper bound</span>
+        <span className="inline-flex items-center gap-1.5"><span aria-hidden className="inline-block h-3 w-4 rounded-sm bg-ledger-600" /> {legend.projected}</span>
+        <span className="inline-flex items-center gap-1.5"><span aria-hidden className="inline-block h-3 w-4 rounded-sm border border-ledger-500 bg-ledger-100" /> {legend.upper}</span>
         <span className="inline-flex items-center gap-1.5"><span aria-hidden className="inline-block h-3 w-0.5 bg-amber-500" /> {tolerableLabel.toLowerCase()}</span>
       </figcaption>
     </figure>

@@ -14,7 +14,7 @@ const shortAmount = (n: number) => (Math.abs(n) >= 1e6 ? `${(n / 1e6).toFixed(2)
 function Chart({ e, direction }: { e: SampleEvaluation; direction: SampleRecord["direction"] }) {
   const ev = e.evaluation!;
   if (ev.kind === "attribute") {
-    return <BoundChart title="Deviation rate" rows={[{ label: "Deviation rate", projected: ev.sampleRate, upper: ev.upperLimit }]} tolerable={ev.tolerableRate} tolerableLabel="Tolerable rate" format={(n) => formatPercent(n, 1)} />;
+    return <BoundChart title="Deviation rate" rows={[{ label: "Deviation rate", projected: ev.sampleRate, upper: ev.upperLimit }]} tolerable={ev.tolerableRate} tolerableLabel="Tolerable rate" format={(n) => formatPercent(n, 1)} cap={1} legend={{ projected: "sample deviation rate", upper: "to the upper deviation limit" }} />;
   }
   const tm = Number(e.tolerableMisstatement);
   const rows = ev.kind === "mus"

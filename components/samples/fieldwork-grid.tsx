@@ -16,8 +16,7 @@ const right = { align: "right" };
 
 function buildColumns(attribute: boolean, replace: ((item: SampleItemRecord) => void) | null): Col[] {
   const cols: Col[] = [
-    { id: "order", header: "#", meta: right, cell: ({ row }) => <span className="figures text-ink-faint">{row.original.selectionOrder}</span> },
-    { id: "ref", header: "Item", cell: () => <ReferenceCell /> },
+    { id: "ref", header: "Item", meta: { sticky: true }, cell: () => <ReferenceCell /> },
     { id: "book", header: "Book value", meta: right, cell: ({ row }) => <Amount value={row.original.bookValue} /> },
   ];
   if (attribute) cols.push({ id: "status", header: "Status", cell: () => <StatusCell /> }, { id: "deviation", header: "Deviation", cell: () => <DeviationCell /> });
@@ -82,7 +81,10 @@ export function FieldworkGrid({ engagementId, sampleId, method, drawVersion, may
     data: page?.items ?? [], columns, state: { pagination }, manualPagination: true, rowCount: total,
     onPaginationChange: setPagination, getCoreRowModel: getCoreRowModel(), getRowId: (it) => String(it.id),
   });
-  const align = (meta: unknown) => ((meta as { align?: string } | undefined)?.align === "right" ? "text-right" : "");
+  const align = (meta: unknown) => {
+    const m = meta as { align?: string; sticky?: boolean } | undefined;
+    return `${m?.align === "right" ? "text-right" : ""} ${m?.sticky ? "sticky left-0 z-10 bg-inherit" : ""}`;
+  };
   const first = total === 0 ? 0 : pagination.pageIndex * pagination.pageSize + 1;
   const last = Math.min(total, (pagination.pageIndex + 1) * pagination.pageSize);
 
@@ -101,20 +103,20 @@ export function FieldworkGrid({ engagementId, sampleId, method, drawVersion, may
       </div>
       {!mayRecord && <p className="text-sm text-ink-soft">Viewers see the results; staff and above on the engagement record them.</p>}
       {error && <p role="alert" className="text-sm text-brick-700">{error}</p>}
-      <div className="overflow-x-auto rounded-card border border-ink-line bg-paper-raised">
+      <div className="relative overflow-x-auto rounded-card border border-ink-line bg-paper-raised">
         <table className="w-full text-sm" aria-label="Sample items">
-          <thead className="bg-paper-sunk/60 text-left text-xs uppercase tracking-wider text-ink-soft">
+          <thead className="bg-paper-sunk text-left text-xs uppercase tracking-wider text-ink-soft">
             {table.getHeaderGroups().map((g) => (
               <tr key={g.id}>
-                {g.headers.map((h) => <th key={h.id} scope="col" className={`px-3 py-2.5 font-semibold ${align(h.column.columnDef.meta)}`}>{flexRender(h.column.columnDef.header, h.getContext())}</th>)}
-                <th scope="col" className="px-3 py-2.5"><span className="sr-only">Save</span></th>
+                {g.headers.map((h) => <th key={h.id} scope="col" className={`px-1.5 py-2.5 font-semibold ${align(h.column.columnDef.meta)}`}>{flexRender(h.column.columnDef.header, h.getContext())}</th>)}
+                <th scope="col" className="px-1.5 py-2.5"><span className="sr-only">Save</span></th>
               </tr>
             ))}
           </thead>
           <tbody>
             {table.getRowModel().rows.map((row) => (
               <ResultRow key={row.id} item={row.original} url={url} editable={mayRecord} attribute={attribute} columnCount={columns.length} onSaved={saved} onReload={reload}>
-                {row.getVisibleCells().map((cell) => <td key={cell.id} className={`px-3 py-2 ${align(cell.column.columnDef.meta)}`}>{flexRender(cell.column.columnDef.cell, cell.getContext())}</td>)}
+                {row.getVisibleCells().map((cell) => <td key={cell.id} className={`px-1.5 py-2 ${align(cell.column.columnDef.meta)}`}>{flexRender(cell.column.columnDef.cell, cell.getContext())}</td>)}
               </ResultRow>
             ))}
           </tbody>

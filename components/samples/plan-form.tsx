@@ -1,5 +1,5 @@
 "use client";
-import { useState } from "react";
+import { useEffect, useRef, useState } from "react";
 import Link from "next/link";
 import { useRouter } from "next/navigation";
 import { useForm, type FieldPath, type Resolver } from "react-hook-form";
@@ -40,6 +40,15 @@ export function PlanForm({ engagementId, currency, performanceMateriality, popul
   const values = watch();
   const preview = usePlanPreview(engagementId, toRequest(values));
   const population = populations.find((p) => p.id === Number(values.populationId));
+  const { clearErrors } = form;
+  const previewErrors = useRef<string[]>([]);
+
+  // The server's field messages for the parameters being typed show under their fields, and go when fixed.
+  useEffect(() => {
+    for (const f of previewErrors.current) clearErrors(f as FieldPath<PlanFormIn>);
+    previewErrors.current = Object.keys(preview.fields ?? {}).map(formFieldOf);
+    for (const [k, m] of Object.entries(preview.fields ?? {})) setError(formFieldOf(k) as FieldPath<PlanFormIn>, { type: "server", message: m[0] });
+  }, [preview.fields, clearErrors, setError]);
 
   const onMethod = (method: string) => {
     const estimator = String(values.params.estimator ?? "");

@@ -6,7 +6,7 @@ import { ITEM_STATUS_LABELS } from "./labels";
 import { liveMisstatement } from "./result-values";
 import { useRowEditor } from "./result-row";
 
-const compact = "w-full rounded border border-ink-line bg-paper-raised px-2 py-1 text-sm focus:border-ledger-500 focus:outline-none focus:ring-2 focus:ring-ledger-100 aria-[invalid=true]:border-brick-500 disabled:bg-paper-sunk/60 disabled:text-ink-faint";
+const compact = "rounded border border-ink-line bg-paper-raised px-2 py-1 text-sm focus:border-ledger-500 focus:outline-none focus:ring-2 focus:ring-ledger-100 aria-[invalid=true]:border-brick-500 disabled:bg-paper-sunk/60 disabled:text-ink-faint";
 
 function FieldError({ message, id }: { message?: string; id: string }) {
   return message ? <p id={id} className="mt-1 text-xs text-brick-700" aria-live="polite">{message}</p> : null;
@@ -15,9 +15,9 @@ function FieldError({ message, id }: { message?: string; id: string }) {
 export function ReferenceCell() {
   const { item } = useRowEditor();
   return (
-    <div className="min-w-32">
-      <span className="font-medium">{item.itemRef}</span>
-      {item.description && <span className="block max-w-48 truncate text-xs text-ink-faint" title={item.description}>{item.description}</span>}
+    <div className="w-32">
+      <span className="font-medium"><span className="figures mr-1.5 text-xs font-normal text-ink-faint">{item.selectionOrder}</span>{item.itemRef}</span>
+      {item.description && <span className="block max-w-32 truncate text-xs text-ink-faint" title={item.description}>{item.description}</span>}
       <span className="mt-0.5 flex flex-wrap gap-1">
         {item.topStratum && <Badge tone="blue">top stratum</Badge>}
         {item.stratum !== null && <Badge>stratum {item.stratum}</Badge>}
@@ -35,8 +35,8 @@ export function AuditedValueCell() {
   const status = watch("status");
   const errId = `${formId}-audited-error`;
   return (
-    <div className="w-32">
-      <input form={formId} aria-label={`Audited value of ${item.itemRef}`} inputMode="decimal" className={`${compact} figures text-right`}
+    <div className="w-28">
+      <input form={formId} aria-label={`Audited value of ${item.itemRef}`} inputMode="decimal" className={`${compact} figures w-full text-right`}
         disabled={!editable || status === "not-auditable"} aria-invalid={Boolean(errors.auditedValue)} aria-describedby={errors.auditedValue ? errId : undefined}
         {...register("auditedValue", { onChange: (e) => { if (e.target.value.trim() !== "" && watch("status") === "not-started") setValue("status", "done", { shouldDirty: true }); } })} />
       <FieldError id={errId} message={errors.auditedValue?.message} />
@@ -59,7 +59,7 @@ export function StatusCell() {
   if (item.status === "void") return <span>{ITEM_STATUS_LABELS.void}</span>;
   return (
     <div>
-      <select form={formId} aria-label={`Status of ${item.itemRef}`} className={`${compact} min-w-36`} disabled={!editable} {...form.register("status")}>
+      <select form={formId} aria-label={`Status of ${item.itemRef}`} className={`${compact} w-40 text-[13px]`} disabled={!editable} {...form.register("status")}>
         {ITEM_STATUSES.map((s) => <option key={s} value={s}>{ITEM_STATUS_LABELS[s]}</option>)}
       </select>
       {item.updatedByName && <span className="mt-0.5 block text-xs text-ink-faint">saved by {item.updatedByName}</span>}
@@ -73,13 +73,13 @@ export function CauseCell() {
   const cause = watch("cause");
   const errId = `${formId}-cause-error`;
   return (
-    <div className="w-40 space-y-1">
-      <select form={formId} aria-label={`Cause of misstatement in ${item.itemRef}`} className={compact} disabled={!editable} {...register("cause")}>
+    <div className="w-32 space-y-1">
+      <select form={formId} aria-label={`Cause of misstatement in ${item.itemRef}`} className={`${compact} w-full`} disabled={!editable} {...register("cause")}>
         <option value="">—</option>
         {MISSTATEMENT_CAUSES.map((c) => <option key={c} value={c}>{CAUSE_LABELS[c]}</option>)}
       </select>
       {(cause || watch("causeNote")) && (
-        <input form={formId} aria-label={`Cause details for ${item.itemRef}`} placeholder={cause === "other" ? "Describe the cause" : "Details (optional)"} className={compact}
+        <input form={formId} aria-label={`Cause details for ${item.itemRef}`} placeholder={cause === "other" ? "Describe the cause" : "Details (optional)"} className={`${compact} w-full`}
           disabled={!editable} aria-invalid={Boolean(errors.causeNote)} aria-describedby={errors.causeNote ? errId : undefined} {...register("causeNote")} />
       )}
       <FieldError id={errId} message={errors.causeNote?.message} />
@@ -93,14 +93,14 @@ export function DeviationCell() {
   const deviation = watch("deviation");
   const errId = `${formId}-deviation-error`;
   return (
-    <div className="w-56 space-y-1">
-      <select form={formId} aria-label={`Deviation found in ${item.itemRef}`} className={compact} disabled={!editable}
+    <div className="w-60 space-y-1">
+      <select form={formId} aria-label={`Deviation found in ${item.itemRef}`} className={`${compact} w-full`} disabled={!editable}
         {...register("deviation", { onChange: (e) => { if (e.target.value !== "" && watch("status") === "not-started") setValue("status", "done", { shouldDirty: true }); } })}>
         <option value="">—</option>
         <option value="no">No deviation</option>
         <option value="yes">Deviation</option>
       </select>
-      {deviation === "yes" && <input form={formId} aria-label={`Nature of the deviation in ${item.itemRef}`} placeholder="Nature of the deviation" className={compact} disabled={!editable} {...register("deviationNature")} />}
+      {deviation === "yes" && <input form={formId} aria-label={`Nature of the deviation in ${item.itemRef}`} placeholder="Nature of the deviation" className={`${compact} w-full`} disabled={!editable} {...register("deviationNature")} />}
       <FieldError id={errId} message={errors.deviation?.message ?? errors.auditedValue?.message} />
     </div>
   );
@@ -108,7 +108,7 @@ export function DeviationCell() {
 
 export function CommentCell() {
   const { item, form, formId, editable } = useRowEditor();
-  return <input form={formId} aria-label={`Comment on ${item.itemRef}`} className={`${compact} min-w-40`} disabled={!editable} {...form.register("comment")} />;
+  return <input form={formId} aria-label={`Comment on ${item.itemRef}`} className={`${compact} w-32`} disabled={!editable} {...form.register("comment")} />;
 }
 
 export function EvidenceCell() {

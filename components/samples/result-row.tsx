@@ -68,9 +68,9 @@ export function ResultRow({ item, url, editable, attribute, columnCount, onSaved
   const void_ = item.status === "void";
   return (
     <RowContext.Provider value={{ item, form, formId: `result-${item.id}`, editable: editable && !void_, attribute, saved }}>
-      <tr className={`border-t border-ink-line/70 align-top ${void_ ? "bg-paper-sunk/40 text-ink-faint" : "hover:bg-paper"}`} data-testid={`item-row-${item.itemRef}`}>
+      <tr className={`border-t border-ink-line/70 align-top ${void_ ? "bg-paper-sunk text-ink-faint" : "bg-paper-raised hover:bg-paper"}`} data-testid={`item-row-${item.itemRef}`}>
         {children}
-        <td className="px-3 py-2 text-right">
+        <td className="px-1.5 py-2 text-right">
           {!void_ && editable && (
             <form id={`result-${item.id}`} onSubmit={submit} noValidate>
               <Button type="submit" variant={form.formState.isDirty ? "primary" : "secondary"} className="px-2.5 py-1 text-xs" disabled={form.formState.isSubmitting} aria-label={`Save ${item.itemRef}`}>
@@ -82,8 +82,8 @@ export function ResultRow({ item, url, editable, attribute, columnCount, onSaved
       </tr>
       {(conflictMessage || failure) && (
         <tr>
-          <td colSpan={columnCount + 1} className="px-3 pb-3">
-            <div role="alert" className="flex flex-wrap items-center justify-between gap-3 rounded-md border border-brick-100 bg-brick-50 px-3 py-2 text-sm text-brick-700" data-testid="row-conflict">
+          <td colSpan={columnCount + 1} className="px-2 pb-3">
+            <div role="alert" className="sticky left-2 flex max-w-4xl flex-wrap items-center justify-between gap-3 rounded-md border border-brick-100 bg-brick-50 px-3 py-2 text-sm text-brick-700" data-testid="row-conflict">
               <span>{conflictMessage ?? failure}{conflictMessage && <span className="block text-xs">Your unsaved entry for {item.itemRef}: {attempted}.</span>}</span>
               {conflictMessage && <Button type="button" variant="secondary" className="px-2.5 py-1 text-xs" onClick={() => { setConflictMessage(null); onReload(); }}>Reload the item</Button>}
             </div>

@@ -26,6 +26,7 @@ export function SizePanel({ plan, problem, busy, currency }: { plan: SamplePlan 
         !problem && <p className="text-sm text-ink-soft">Choose a population and a method to see the sample size.</p>
       ) : (
         <div className={`space-y-4 transition-opacity ${busy || problem ? "opacity-60" : ""}`}>
+          {problem && <p className="text-xs text-ink-soft">The figures below are from the last complete inputs.</p>}
           <div className="flex items-end justify-between gap-4">
             <div>
               <p className="text-xs font-semibold uppercase tracking-wider text-ink-soft">Items to select</p>
