@@ -59,7 +59,7 @@ export function StatusCell() {
   if (item.status === "void") return <span>{ITEM_STATUS_LABELS.void}</span>;
   return (
     <div>
-      <select form={formId} aria-label={`Status of ${item.itemRef}`} className={`${compact} w-40 text-[13px]`} disabled={!editable} {...form.register("status")}>
+      <select form={formId} aria-label={`Status of ${item.itemRef}`} className={`${compact} w-[10.5rem] text-[13px]`} disabled={!editable} {...form.register("status")}>
         {ITEM_STATUSES.map((s) => <option key={s} value={s}>{ITEM_STATUS_LABELS[s]}</option>)}
       </select>
       {item.updatedByName && <span className="mt-0.5 block text-xs text-ink-faint">saved by {item.updatedByName}</span>}
@@ -108,7 +108,7 @@ export function DeviationCell() {
 
 export function CommentCell() {
   const { item, form, formId, editable } = useRowEditor();
-  return <input form={formId} aria-label={`Comment on ${item.itemRef}`} className={`${compact} w-32`} disabled={!editable} {...form.register("comment")} />;
+  return <input form={formId} aria-label={`Comment on ${item.itemRef}`} className={`${compact} w-28`} disabled={!editable} {...form.register("comment")} />;
 }
 
 export function EvidenceCell() {
