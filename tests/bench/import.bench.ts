@@ -11,7 +11,7 @@
  * Goals: end to end ≤ 1.5× the raw load, peak server RSS ≤ 600 MB, preview < 2 s after the upload.
  * BENCH_NODE_FLAGS="--max-semi-space-size=64" passes flags to the server's node.
  */
-import { mkdirSync, mkdtempSync, rmSync, statSync } from "node:fs";
+import { mkdirSync, mkdtempSync, rmSync, statSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import { loadLocalEnv } from "../../db/load-env";
@@ -170,6 +170,7 @@ async function main(): Promise<void> {
     log(`database ${BENCH.database} recreated and seeded (${((performance.now() - t) / 1000).toFixed(1)} s)`);
     await buildIfNeeded(log);
     const serverLog = path.join(outDir, "import-server.log");
+    writeFileSync(serverLog, "");
     app = await startApp(serverLog, nodeFlags);
     log(`app on ${APP_URL} (pid ${app.server.pid}${nodeFlags.length ? `, node ${nodeFlags.join(" ")}` : ""}), storage fake on :${BENCH.s3Port}; server log ${path.relative(ROOT, serverLog)}`);
 

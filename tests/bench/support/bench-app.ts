@@ -1,4 +1,5 @@
 import { existsSync, readFileSync, readdirSync, statSync, writeFileSync } from "node:fs";
+import net from "node:net";
 import path from "node:path";
 import { ROOT, run, startService, stopService, waitForHttp, type Service } from "./processes";
 
@@ -6,7 +7,8 @@ export { ROOT };
 export const BENCH = {
   database: "sondage_bench",
   appPort: 3200,
-  s3Port: 4699,
+  // Not 4699: the e2e storage fake of E2E_SLOT=1 listens there (playwright.config.ts: 4689 + 10·slot).
+  s3Port: Number(process.env.BENCH_S3_PORT ?? 4694),
   distDir: ".next-bench",
   uploadDir: ".data/uploads-bench",
   fakesData: "fakes-bench",
@@ -83,8 +85,19 @@ export interface RunningApp {
   stop(): Promise<void>;
 }
 
+/** Refuses to start when a port is taken: a readiness check would otherwise talk to someone else's server. */
+async function assertPortFree(port: number, what: string): Promise<void> {
+  await new Promise<void>((resolve, reject) => {
+    const probe = net.createServer();
+    probe.once("error", () => reject(new Error(`port ${port} (${what}) is already in use on 127.0.0.1; stop what holds it or set BENCH_S3_PORT`)));
+    probe.listen(port, "127.0.0.1", () => probe.close(() => resolve()));
+  });
+}
+
 /** Starts the storage fake and `next start` (node directly, so its pid is the server's). */
 export async function startApp(logPath: string, nodeFlags: string[]): Promise<RunningApp> {
+  await assertPortFree(BENCH.s3Port, "storage fake");
+  await assertPortFree(BENCH.appPort, "app");
   const env = benchEnv();
   const fakes = startService("storage fake", path.join(ROOT, "node_modules/.bin/tsx"), ["lib/fakes/run-fakes.ts"], env, logPath);
   const server = startService("next start", process.execPath, [...nodeFlags, "node_modules/next/dist/bin/next", "start", "-H", "127.0.0.1", "-p", String(BENCH.appPort)], env, logPath);
