@@ -8,29 +8,46 @@ import { PlanSummary } from "@/components/samples/plan-summary";
 import { SampleWorkspace } from "@/components/samples/sample-workspace";
 import { METHOD_SHORT, SAMPLE_STATUS_LABELS } from "@/components/samples/labels";
 import { loadSamplePage } from "./load-sample";
+import { getDb } from "@/db/knex";
+import { listNotesBySampleId } from "@/lib/review/notes";
+import { listItemsByDrawId } from "@/lib/data/sample-items";
+import { Alert } from "@/components/ui/alert";
+import { ReviewPanel } from "@/components/review/review-panel";
+import { FieldworkFiles } from "@/components/review/fieldwork-files";
 
 export const metadata: Metadata = { title: "Sample" };
 
 export default async function SamplePage({ params }: { params: Promise<{ engagementId: string; sampleId: string }> }) {
   const { engagementId, sampleId } = await params;
-  const { engagement, role } = await requireEngagementPage(engagementId);
+  const { engagement, role, user } = await requireEngagementPage(engagementId);
   const { view, evaluation } = await loadSamplePage(engagement.id, sampleId);
   const { sample, population } = view;
-  const senior = hasAtLeastRole(role, "senior");
+  const locked = Boolean(view.review.lock);
+  const senior = hasAtLeastRole(role, "senior") && !locked;
+  const db = getDb();
+  const [notes, items] = await Promise.all([
+    listNotesBySampleId(db, { sampleId: sample.id }),
+    view.currentDraw ? listItemsByDrawId(db, { drawId: view.currentDraw.id }).then((r) => r.items.filter((i) => i.status !== "void").map((i) => ({ id: i.id, itemRef: i.itemRef }))) : Promise.resolve([]),
+  ]);
   const editHref = senior && sample.status === "planned" ? `/engagements/${engagement.id}/samples/${sample.id}/edit` : null;
   return (
     <>
       <PageHeader eyebrow={engagement.clientName} title={sample.name}
-        actions={<Badge tone={sample.status === "drawn" ? "green" : "blue"}>{SAMPLE_STATUS_LABELS[sample.status]}</Badge>}>
+        actions={locked ? <Badge tone="green">Locked — final</Badge> : <Badge tone={sample.status === "drawn" ? "green" : "blue"}>{SAMPLE_STATUS_LABELS[sample.status]}</Badge>}>
         <Link href={`/engagements/${engagement.id}`} className="hover:underline">{engagement.name}</Link>
         {" · "}{METHOD_SHORT[sample.method]}
         {" · from "}<Link href={`/engagements/${engagement.id}/populations/${population.id}`} className="hover:underline">{population.name}</Link>
       </PageHeader>
       <SampleWorkspace
         key={sample.id} engagementId={engagement.id} initialView={view} initialEvaluation={evaluation}
-        may={{ record: hasAtLeastRole(role, "staff"), draw: senior }}
+        may={{ record: hasAtLeastRole(role, "staff") && !locked, draw: senior }}
         planSummary={<PlanSummary sample={sample} currency={engagement.currency} performanceMateriality={engagement.performanceMateriality} editHref={editHref} />}
       />
+      {locked && <div className="mt-6"><Alert tone="info">This sample is locked. Its workpaper is final and every part of it is read-only; a partner can unlock it with a reason.</Alert></div>}
+      <div className="mt-6 grid gap-6 lg:grid-cols-2">
+        <ReviewPanel engagementId={engagement.id} sampleId={sample.id} role={role} review={view.review} notes={notes} drawn={Boolean(view.currentDraw)} />
+        {view.currentDraw && <FieldworkFiles engagementId={engagement.id} sampleId={sample.id} items={items} mayWrite={!locked && (hasAtLeastRole(role, "staff") || user.grade === "client")} />}
+      </div>
     </>
   );
 }
