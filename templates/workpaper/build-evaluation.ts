@@ -1,0 +1,163 @@
+/**
+ * Builds the workpaper's evaluation blocks from sample items by calling the engine, so the printed
+ * tables are the engine's own results (rounded to cents only for printing). Shared by the fixtures
+ * and by the server code that assembles a real workpaper.
+ */
+import { centsToDecimal, decimalToCents } from "@/lib/money";
+import {
+  evaluateAttributes, evaluateMus, evaluateStratified, evaluateVariables, poissonFactor,
+  type Estimator, type FactorMode, type Sides, type StratifiedEstimator, type VariablesEvaluation,
+} from "@/lib/sampling";
+import type {
+  AttributesEvaluationBlock, Money, MusEvaluationBlock, StratifiedEvaluationBlock, StringerRow, StringerSide,
+  VariablesEvaluationBlock, VariablesResultFigures,
+} from "./workpaper-data";
+
+export interface EvaluatedItem { reference: string; bookValue: Money; auditedValue: Money; topStratum?: boolean }
+
+/** A number in currency units, rounded to cents, as a decimal string. */
+export function money(value: number): Money {
+  return centsToDecimal(BigInt(Math.round(value * 100)));
+}
+
+const toNumber = (m: Money) => Number(decimalToCents(m)) / 100;
+const sumMoney = (values: Money[]) => centsToDecimal(values.reduce((acc, v) => acc + decimalToCents(v), 0n));
+const pair = (i: EvaluatedItem) => ({ bookValue: toNumber(i.bookValue), auditedValue: toNumber(i.auditedValue) });
+
+export const MUS_REFERENCES = [
+  "Stringer bound as presented in the AICPA Audit Guide \"Audit Sampling\" and in Leslie, Teitlebaum & Anderson, Dollar-Unit Sampling (1979): basic precision RF(0)·J, projection Σ t_k·J ranked by tainting, incremental allowance Σ (RF(k) − RF(k−1) − 1)·t_k·J.",
+  "Reliability factors RF(k): upper confidence limit of a Poisson mean after k events, the gamma(k + 1) quantile at the confidence; \"table\" mode rounds it up to 2 decimals as the published factor tables.",
+  "Top-stratum items (book value at or above the interval) are examined in full and enter the projection at their actual misstatement, with no allowance.",
+];
+
+function stringerSide(
+  taintings: { item: EvaluatedItem; t: number }[], engineSide: ReturnType<typeof evaluateMus>["overstatement"],
+  interval: number, factors: number[],
+): StringerSide {
+  const ranked = [...taintings].sort((a, b) => b.t - a.t);
+  ranked.forEach((r, i) => {
+    if (Math.abs(r.t - engineSide.taintings[i]) > 1e-12) throw new Error("tainting ranking differs from the engine's");
+  });
+  const rows: StringerRow[] = ranked.map((r, i) => ({
+    rank: i + 1,
+    reference: r.item.reference,
+    bookValue: r.item.bookValue,
+    auditedValue: r.item.auditedValue,
+    tainting: r.t,
+    factor: factors[i + 1],
+    factorIncrement: factors[i + 1] - factors[i],
+    projected: money(r.t * interval),
+    incrementalAllowance: money((factors[i + 1] - factors[i] - 1) * r.t * interval),
+  }));
+  return {
+    basicPrecisionFactor: factors[0],
+    basicPrecision: money(engineSide.basicPrecision),
+    rows,
+    projectedFromSample: money(engineSide.projected - engineSide.topStratumMisstatement),
+    topStratumMisstatement: money(engineSide.topStratumMisstatement),
+    projected: money(engineSide.projected),
+    incrementalAllowance: money(engineSide.incrementalAllowance),
+    upperLimit: money(engineSide.upperLimit),
+  };
+}
+
+/** Monetary-unit evaluation: `items` are the audited hits (top-stratum items flagged). */
+export function buildMusEvaluation(o: {
+  interval: number; confidence: number; factorMode: FactorMode; tolerableMisstatement: Money; items: EvaluatedItem[];
+}): MusEvaluationBlock {
+  const sampleItems = o.items.filter((i) => !i.topStratum);
+  const topItems = o.items.filter((i) => i.topStratum);
+  const result = evaluateMus({ interval: o.interval, confidence: o.confidence, sample: sampleItems.map(pair), topStratum: topItems.map(pair), factors: o.factorMode });
+  const withT = sampleItems.map((item) => {
+    const book = decimalToCents(item.bookValue);
+    return { item, t: Number(book - decimalToCents(item.auditedValue)) / Number(book) };
+  });
+  const over = withT.filter((x) => x.t > 0);
+  const under = withT.filter((x) => x.t < 0).map((x) => ({ item: x.item, t: -x.t }));
+  const factors = Array.from({ length: Math.max(over.length, under.length) + 1 }, (_, k) => poissonFactor(k, o.confidence, o.factorMode));
+  return {
+    method: "mus",
+    confidence: o.confidence,
+    interval: money(o.interval),
+    factorMode: result.factorMode,
+    tolerableMisstatement: o.tolerableMisstatement,
+    sampleItems: sampleItems.length,
+    topStratum: { count: topItems.length, bookValue: sumMoney(topItems.map((i) => i.bookValue)), auditedValue: sumMoney(topItems.map((i) => i.auditedValue)) },
+    overstatement: stringerSide(over, result.overstatement, o.interval, factors),
+    understatement: stringerSide(under, result.understatement, o.interval, factors),
+    mostLikelyMisstatement: money(result.mostLikelyMisstatement),
+    netUpperLimits: { overstatement: money(result.netUpperLimits.overstatement), understatement: money(result.netUpperLimits.understatement) },
+    warnings: result.warnings,
+    formulaReferences: MUS_REFERENCES,
+  };
+}
+
+export const VARIABLES_REFERENCES = [
+  "W. G. Cochran, Sampling Techniques, 3rd ed. (1977): mean per unit ch. 2; difference and ratio estimators ch. 6 (ratio variance eq. 6.9); regression estimator ch. 7; stratified estimators ch. 5 and §§6.10–6.11; all with the finite population correction (1 − f), f = n/N.",
+  "Allowance for sampling risk A = z·SE with z the standard normal quantile: two-sided at (1 + c)/2, one-sided at c.",
+];
+
+function figures(r: VariablesEvaluation): VariablesResultFigures {
+  return {
+    estimatedAuditedValue: money(r.estimatedAuditedValue),
+    projectedMisstatement: money(r.projectedMisstatement),
+    standardError: money(r.standardError),
+    allowance: money(r.allowance),
+    lowerBound: Number.isFinite(r.lowerBound) ? money(r.lowerBound) : null,
+    upperBound: Number.isFinite(r.upperBound) ? money(r.upperBound) : null,
+    misstatementsInSample: r.misstatementsInSample,
+    z: r.zValue,
+  };
+}
+
+export function buildVariablesEvaluation(o: {
+  estimator: Estimator; confidence: number; sides: Sides; tolerableMisstatement: Money;
+  populationSize: number; populationBookValue: Money; items: EvaluatedItem[];
+}): VariablesEvaluationBlock {
+  const r = evaluateVariables({ estimator: o.estimator, populationSize: o.populationSize, populationBookValue: toNumber(o.populationBookValue), sample: o.items.map(pair), confidence: o.confidence, sides: o.sides });
+  return {
+    method: "variables", estimator: o.estimator, confidence: o.confidence, sides: o.sides, tolerableMisstatement: o.tolerableMisstatement,
+    populationSize: o.populationSize, populationBookValue: o.populationBookValue, sampleSize: o.items.length,
+    sampleBookValue: sumMoney(o.items.map((i) => i.bookValue)), sampleAuditedValue: sumMoney(o.items.map((i) => i.auditedValue)),
+    ...figures(r), warnings: r.warnings, formulaReferences: VARIABLES_REFERENCES,
+  };
+}
+
+export function buildStratifiedEvaluation(o: {
+  estimator: StratifiedEstimator; confidence: number; sides: Sides; tolerableMisstatement: Money;
+  strata: { label: string; populationSize: number; populationBookValue: Money; items: EvaluatedItem[] }[];
+}): StratifiedEvaluationBlock {
+  const r = evaluateStratified({
+    estimator: o.estimator, confidence: o.confidence, sides: o.sides,
+    strata: o.strata.map((st) => ({ populationSize: st.populationSize, populationBookValue: toNumber(st.populationBookValue), sample: st.items.map(pair) })),
+  });
+  return {
+    method: "stratified", estimator: o.estimator, confidence: o.confidence, sides: o.sides, tolerableMisstatement: o.tolerableMisstatement,
+    populationSize: o.strata.reduce((n, st) => n + st.populationSize, 0),
+    populationBookValue: sumMoney(o.strata.map((st) => st.populationBookValue)),
+    strata: o.strata.map((st, h) => ({
+      number: h + 1, label: st.label, populationSize: st.populationSize, populationBookValue: st.populationBookValue,
+      sampleSize: st.items.length, sampleBookValue: sumMoney(st.items.map((i) => i.bookValue)), sampleAuditedValue: sumMoney(st.items.map((i) => i.auditedValue)),
+      misstatementsInSample: st.items.filter((i) => decimalToCents(i.bookValue) !== decimalToCents(i.auditedValue)).length,
+      estimatedAuditedValue: money(r.strata[h].estimatedAuditedValue), standardError: money(r.strata[h].standardError),
+    })),
+    ...figures(r), warnings: r.warnings, formulaReferences: VARIABLES_REFERENCES,
+  };
+}
+
+export const ATTRIBUTES_REFERENCES = [
+  "Upper deviation limit: one-sided Clopper–Pearson bound, C. J. Clopper & E. S. Pearson, Biometrika 26 (1934), the beta(k + 1, n − k) quantile at the confidence.",
+  "Sample size: smallest n with BinomialCDF(⌈EDR·n⌉; n, TDR) ≤ 1 − confidence, which reproduces the AICPA Audit Guide \"Audit Sampling\" attribute tables.",
+];
+
+export function buildAttributesEvaluation(o: {
+  confidence: number; tolerableRate: number; expectedRate: number; sampleSize: number; allowedDeviations: number;
+  deviations: number; limitMode?: "exact" | "table";
+}): AttributesEvaluationBlock {
+  const r = evaluateAttributes({ sampleSize: o.sampleSize, deviations: o.deviations, confidence: o.confidence, mode: o.limitMode });
+  return {
+    method: "attributes", confidence: o.confidence, tolerableRate: o.tolerableRate, expectedRate: o.expectedRate,
+    sampleSize: o.sampleSize, allowedDeviations: o.allowedDeviations, deviations: o.deviations,
+    sampleRate: r.sampleRate, upperDeviationLimit: r.upperLimit, limitMode: r.mode, warnings: [], formulaReferences: ATTRIBUTES_REFERENCES,
+  };
+}

@@ -1,0 +1,112 @@
+/** Section 6 for classical variables samples, plain and stratified. */
+import { Text, View } from "@react-pdf/renderer";
+import { absMoney, compareMoney, relation, subtractMoney } from "./compare";
+import { formatFactor, formatMoney, formatRate } from "./format";
+import { estimatorName } from "./plan-section";
+import { Callout, Facts, SubHead, Table, type TableRow } from "./primitives";
+import { s } from "./styles";
+import type { StratifiedEvaluationBlock, VariablesEvaluationBlock, VariablesResultFigures } from "./workpaper-data";
+
+const ESTIMATE_FORMULA: Record<string, string> = {
+  "mean-per-unit": "Ŷ = N · ȳ",
+  difference: "Ŷ = X + N · d̄,  d = y − x",
+  ratio: "Ŷ = X · Σy / Σx",
+  regression: "Ŷ = N (ȳ + b (X̄ − x̄))",
+  "separate-ratio": "Ŷ = Σ_h X_h · ȳ_h / x̄_h",
+  "combined-ratio": "Ŷ = X · Σ N_h ȳ_h / Σ N_h x̄_h",
+};
+
+const VARIANCE_FORMULA: Record<string, string> = {
+  "mean-per-unit": "v = N²(1−f) s²_y / n",
+  difference: "v = N²(1−f) s²_d / n",
+  ratio: "v = N²(1−f)/n · Σ(y − R x)²/(n−1)",
+  regression: "v = N²(1−f)/n · Σ((y−ȳ) − b(x−x̄))²/(n−2)",
+  "separate-ratio": "v = Σ_h v_h (ratio, per stratum)",
+  "combined-ratio": "v = Σ_h N_h²(1−f_h)/n_h · s²(y − R_c x)_h",
+};
+
+const SIDES = { two: "Two-sided", upper: "One-sided, upper bound", lower: "One-sided, lower bound" } as const;
+
+function figureRows(e: VariablesResultFigures, estimator: string, bookValue: string): TableRow[] {
+  const bound = (v: string | null) => (v === null ? "not bounded" : formatMoney(v));
+  return [
+    { cells: ["Estimated audited value", ESTIMATE_FORMULA[estimator], formatMoney(e.estimatedAuditedValue)] },
+    { cells: ["Projected misstatement", "X − Ŷ", formatMoney(e.projectedMisstatement)] },
+    { cells: ["Standard error", `√v,  ${VARIANCE_FORMULA[estimator]}`, formatMoney(e.standardError)] },
+    { cells: ["Normal quantile z", "", formatFactor(e.z)] },
+    { cells: ["Allowance for sampling risk", "A = z · √v", formatMoney(e.allowance)] },
+    { cells: ["Lower bound on the audited value", "Ŷ − A", bound(e.lowerBound)] },
+    { cells: ["Upper bound on the audited value", "Ŷ + A", bound(e.upperBound)] },
+    { total: true, cells: ["Recorded book value", "X", formatMoney(bookValue)] },
+  ];
+}
+
+/** The widest misstatement the bounds allow: X − lower (overstatement side) or upper − X. */
+function Against({ e, bookValue, tolerable }: { e: VariablesResultFigures; bookValue: string; tolerable: string }) {
+  const ends = [e.lowerBound, e.upperBound].filter((v): v is string => v !== null).map((v) => absMoney(subtractMoney(bookValue, v)));
+  const widest = ends.reduce((a, b) => (compareMoney(a, b) >= 0 ? a : b), "0.00");
+  const inside = (e.lowerBound === null || compareMoney(e.lowerBound, bookValue) <= 0) && (e.upperBound === null || compareMoney(bookValue, e.upperBound) <= 0);
+  return (
+    <Callout>
+      {`The recorded book value ${inside ? "lies within" : "lies outside"} the bounds. The largest misstatement consistent with the bounds is ${formatMoney(widest)}, ${relation(widest, tolerable)} tolerable misstatement ${formatMoney(tolerable)}.`}
+    </Callout>
+  );
+}
+
+const FIGURE_COLUMNS = [{ label: "Measure", flex: 1 }, { label: "Formula", width: 200 }, { label: "Amount", width: 100, align: "right" as const }];
+
+export function VariablesEvaluation({ e, currency }: { e: VariablesEvaluationBlock; currency: string }) {
+  return (
+    <View>
+      <Facts
+        facts={[
+          { label: "Estimator", value: estimatorName(e.estimator) },
+          { label: "Confidence", value: `${formatRate(e.confidence, 0)}, ${SIDES[e.sides].toLowerCase()}` },
+          { label: "Population", value: `N = ${e.populationSize.toLocaleString("en-US")} items, X = ${currency} ${formatMoney(e.populationBookValue)}` },
+          { label: "Sample", value: `n = ${e.sampleSize}, book ${formatMoney(e.sampleBookValue)}, audited ${formatMoney(e.sampleAuditedValue)}` },
+          { label: "Items with a misstatement", value: String(e.misstatementsInSample) },
+        ]}
+      />
+      <SubHead>{`Evaluation (${currency})`}</SubHead>
+      <Table repeatHeader={false} columns={FIGURE_COLUMNS} rows={figureRows(e, e.estimator, e.populationBookValue)} />
+      <Against e={e} bookValue={e.populationBookValue} tolerable={e.tolerableMisstatement} />
+    </View>
+  );
+}
+
+export function StratifiedEvaluation({ e, currency }: { e: StratifiedEvaluationBlock; currency: string }) {
+  return (
+    <View>
+      <Facts
+        facts={[
+          { label: "Estimator", value: `${estimatorName(e.estimator)} (stratified)` },
+          { label: "Confidence", value: `${formatRate(e.confidence, 0)}, ${SIDES[e.sides].toLowerCase()}` },
+          { label: "Population", value: `N = ${e.populationSize.toLocaleString("en-US")} items, X = ${currency} ${formatMoney(e.populationBookValue)}` },
+          { label: "Items with a misstatement", value: String(e.misstatementsInSample) },
+        ]}
+      />
+      <SubHead>{`Strata (${currency})`}</SubHead>
+      <Table
+        columns={[
+          { label: "h", width: 16, align: "right" },
+          { label: "Band", flex: 1 },
+          { label: "N_h", width: 34, align: "right" },
+          { label: "X_h", width: 66, align: "right" },
+          { label: "n_h", width: 26, align: "right" },
+          { label: "Sample book", width: 60, align: "right" },
+          { label: "Sample audited", width: 60, align: "right" },
+          { label: "Miss.", width: 26, align: "right" },
+          { label: "Ŷ_h", width: 66, align: "right" },
+          { label: "SE_h", width: 54, align: "right" },
+        ]}
+        rows={e.strata.map((st) => ({
+          cells: [String(st.number), st.label, st.populationSize.toLocaleString("en-US"), formatMoney(st.populationBookValue), String(st.sampleSize), formatMoney(st.sampleBookValue), formatMoney(st.sampleAuditedValue), String(st.misstatementsInSample), formatMoney(st.estimatedAuditedValue), formatMoney(st.standardError)],
+        }))}
+      />
+      <Text style={[s.small, s.faint, { marginTop: 2 }]}>Standard errors combine as √(Σ SE_h²): the strata are sampled independently.</Text>
+      <SubHead>{`Evaluation (${currency})`}</SubHead>
+      <Table repeatHeader={false} columns={FIGURE_COLUMNS} rows={figureRows(e, e.estimator, e.populationBookValue)} />
+      <Against e={e} bookValue={e.populationBookValue} tolerable={e.tolerableMisstatement} />
+    </View>
+  );
+}

@@ -1,0 +1,65 @@
+/** What every page carries: the running header, the footer with the caution and page x of y, and the draft watermark. */
+import { Text, View } from "@react-pdf/renderer";
+import { formatDate } from "./format";
+import { colours, PAGE_MARGIN_X, s } from "./styles";
+import type { WorkpaperData } from "./workpaper-data";
+
+export const CAUTION =
+  "These results support, and do not replace, the auditor's professional judgement, the applicable standards (AU-C 530, ISA 530, AS 2315) and the firm's methodology.";
+
+/** A4 is 841.89 pt tall: the footer sits 20 pt above the bottom edge. */
+const FOOTER_TOP = 841.89 - 20 - 30;
+
+export const DRAFT_MARK = "DRAFT — NOT SIGNED OFF";
+
+export function RunningHeader({ data }: { data: WorkpaperData }) {
+  return (
+    <View fixed style={{ position: "absolute", top: 24, left: PAGE_MARGIN_X, right: PAGE_MARGIN_X }}>
+      <View style={{ flexDirection: "row", alignItems: "flex-end" }}>
+        <View style={{ flex: 1 }}>
+          <Text style={[s.bold, { fontSize: 9 }]}>{data.firmName}</Text>
+          <Text style={[s.soft, s.small]}>
+            {data.clientName} · {data.engagementName} · period ended {formatDate(data.periodEnd)}
+          </Text>
+        </View>
+        <View style={{ alignItems: "flex-end" }}>
+          <Text style={[s.faint, { fontSize: 6.5, letterSpacing: 0.6 }]}>WORKPAPER</Text>
+          <Text style={[s.bold, { fontSize: 10, color: colours.ledger }]}>{data.workpaperReference}</Text>
+        </View>
+      </View>
+      <View style={{ height: 1.6, backgroundColor: colours.ledger, marginTop: 5 }} />
+      {data.draft && (
+        <View style={{ flexDirection: "row", backgroundColor: colours.draftTint, paddingVertical: 2, paddingHorizontal: 6, marginTop: 2 }}>
+          <Text style={{ fontSize: 7, fontWeight: "bold", color: colours.draft, letterSpacing: 0.8 }}>{DRAFT_MARK}</Text>
+          <Text style={{ fontSize: 7, color: colours.draft, marginLeft: 8 }}>Preview before lock — not for reliance</Text>
+        </View>
+      )}
+    </View>
+  );
+}
+
+export function Footer({ data }: { data: WorkpaperData }) {
+  return (
+    // Positioned from the top with a fixed height: an auto-height bottom-anchored fixed view drifts on long documents (react-pdf #3416).
+    <View fixed style={{ position: "absolute", top: FOOTER_TOP, height: 30, left: PAGE_MARGIN_X, right: PAGE_MARGIN_X }}>
+      <View style={{ height: 0.5, backgroundColor: colours.hairline, marginBottom: 4 }} />
+      <View style={{ flexDirection: "row" }}>
+        <Text style={[s.faint, { flex: 1, fontSize: 6.5, paddingRight: 16 }]}>{CAUTION}</Text>
+        <View style={{ alignItems: "flex-end", width: 120 }}>
+          <Text style={{ fontSize: 7.5 }} render={({ pageNumber, totalPages }) => `Page ${pageNumber} of ${totalPages}`} />
+          <Text style={[s.faint, { fontSize: 6.5 }]}>{`Workpaper ${data.workpaperReference}${data.draft ? " · draft" : ""}`}</Text>
+        </View>
+      </View>
+    </View>
+  );
+}
+
+export function DraftWatermark() {
+  return (
+    <View fixed style={{ position: "absolute", top: 390, left: -120, right: -120, alignItems: "center" }}>
+      <Text style={{ width: 800, textAlign: "center", fontSize: 46, fontWeight: "bold", color: colours.draft, opacity: 0.09, transform: "rotate(-38deg)", letterSpacing: 2 }}>
+        {DRAFT_MARK}
+      </Text>
+    </View>
+  );
+}
