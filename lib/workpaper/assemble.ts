@@ -12,13 +12,24 @@ import { workpaperReferenceFor } from "@/lib/review/lock";
 import { buildAttributesEvaluation, buildMusEvaluation, buildStratifiedEvaluation, buildVariablesEvaluation, money } from "@/templates/workpaper/build-evaluation";
 import type { EvaluationBlock, PlanBlock, WorkpaperData, WorkpaperItem } from "@/templates/workpaper/workpaper-data";
 import type { Estimator, StratifiedEstimator } from "@/lib/sampling";
-import { METHOD_LABELS } from "@/lib/validation/sample";
 import { AppError } from "@/lib/errors";
 
 const evaluatedOf = (items: SampleItemRecord[]) => items.filter((i) => i.status === "done" || i.status === "not-auditable")
   .map((i) => ({ reference: i.itemRef, bookValue: i.bookValue, auditedValue: i.status === "not-auditable" ? "0.00" : i.auditedValue ?? i.bookValue, topStratum: i.topStratum, stratum: i.stratum }));
 
-const pct = (v: number) => `${(v * 100).toFixed(2).replace(/\.00$/, "")}%`;
+/** Rates go to the renderer as fractions ("0.95"); it formats them. */
+const pct = (v: number) => String(v);
+
+const SYMBOLS: Record<string, { meaning: string; kind: "money" | "rate" | "count" | "factor" }> = {
+  BV: { meaning: "Book value of the sampling frame", kind: "money" }, TM: { meaning: "Tolerable misstatement", kind: "money" },
+  EM: { meaning: "Expected misstatement", kind: "money" }, confidence: { meaning: "Confidence (1 − risk of incorrect acceptance)", kind: "rate" },
+  RF: { meaning: "Reliability factor for no misstatement", kind: "factor" }, EF: { meaning: "Expansion factor for expected misstatement", kind: "factor" },
+  N: { meaning: "Items in the population", kind: "count" }, S: { meaning: "Estimated standard deviation of book values", kind: "money" },
+  A: { meaning: "Planned allowance for sampling risk", kind: "money" }, "n′": { meaning: "Size before the finite population correction", kind: "factor" },
+  "risk of incorrect acceptance": { meaning: "β, one-sided", kind: "rate" }, "risk of incorrect rejection": { meaning: "α, two-sided", kind: "rate" },
+  TDR: { meaning: "Tolerable deviation rate", kind: "rate" }, EDR: { meaning: "Expected deviation rate", kind: "rate" },
+  "allowed deviations": { meaning: "Deviations the size allows", kind: "count" }, strata: { meaning: "Number of strata", kind: "count" },
+};
 
 /** Everything the workpaper prints, from the database, with the evaluation computed by the engine. */
 export async function assembleWorkpaper(db: Knex, { engagementId, sampleId, draft, lock }: { engagementId: number; sampleId: number; draft: boolean; lock?: { lockedByName: string; role: string; lockedAt: Date; reference: string } }): Promise<WorkpaperData> {
@@ -91,10 +102,7 @@ function toWorkpaperItem(i: SampleItemRecord): WorkpaperItem {
 
 function planBlock(sample: Awaited<ReturnType<typeof loadSampleView>>["sample"], tolerable: string): PlanBlock {
   const p = sample.params, plan = sample.plan;
-  const parameters: PlanBlock["parameters"] = [
-    { label: "Method", kind: "text", value: METHOD_LABELS[sample.method] },
-    { label: "Confidence", kind: "rate", value: pct(p.confidence) },
-  ];
+  const parameters: PlanBlock["parameters"] = [{ label: "Confidence", kind: "rate", value: pct(p.confidence) }];
   if (sample.method === "attribute") {
     parameters.push({ label: "Tolerable deviation rate", kind: "rate", value: pct(p.tolerableRate ?? 0) }, { label: "Expected deviation rate", kind: "rate", value: pct(p.expectedRate) });
   } else {
@@ -104,7 +112,7 @@ function planBlock(sample: Awaited<ReturnType<typeof loadSampleView>>["sample"],
   }
   return {
     method: sample.method, estimator: (p.estimator ?? null) as Estimator | StratifiedEstimator | null, parameters, computedSize: plan.computedSize, chosenSize: plan.chosenSize, sizeReason: sample.sizeReason,
-    formula: { text: plan.formula, inputs: Object.entries(plan.inputs).map(([symbol, value]) => ({ symbol, meaning: symbol, kind: typeof value === "number" ? "factor" : "text", value: String(value) })), substituted: null, source: plan.formula.match(/\(([^()]*)\)\s*$/)?.[1] ?? "" },
+    formula: { text: plan.formula, inputs: Object.entries(plan.inputs).map(([symbol, value]) => ({ symbol, meaning: SYMBOLS[symbol]?.meaning ?? symbol, kind: SYMBOLS[symbol]?.kind ?? "text", value: String(value) })), substituted: null, source: plan.formula.match(/\(([^()]*)\)\s*$/)?.[1] ?? "" },
     interval: plan.interval !== undefined ? money(plan.interval) : null, topStratumThreshold: plan.topStratumThreshold !== undefined ? money(plan.topStratumThreshold) : null,
     topStratum: plan.topStratum ?? null, strata: plan.strata?.map((s) => ({ number: s.number, label: s.label, populationSize: s.populationSize, bookValue: s.bookValue, sampleSize: s.allocation })) ?? null,
     allowedDeviations: plan.allowedDeviations ?? null, warnings: plan.warnings,

@@ -1,0 +1,38 @@
+import { expect, type Page } from "@playwright/test";
+
+/** The review panel of a sample: sign-offs, notes, lock. */
+export class ReviewPanelPage {
+  constructor(readonly page: Page) {}
+
+  panel() {
+    return this.page.getByRole("region", { name: "Review notes" });
+  }
+
+  async signOff(as: "preparer" | "reviewer") {
+    await this.page.getByRole("button", { name: `Sign off as ${as}` }).click();
+    await expect(this.page.getByText(as === "preparer" ? /Signed off as preparer/ : /Signed off as reviewer/)).toBeVisible();
+  }
+
+  async raiseNote(text: string) {
+    await this.page.getByRole("textbox", { name: "New review note" }).fill(text);
+    await this.page.getByRole("button", { name: "Raise note" }).click();
+    await expect(this.page.getByTestId("review-note-1")).toContainText(text);
+  }
+
+  async answerNote(n: number, answer: string) {
+    await this.page.getByRole("textbox", { name: `Answer to note ${n}` }).fill(answer);
+    await this.page.getByTestId(`review-note-${n}`).getByRole("button", { name: "Answer" }).click();
+    await expect(this.page.getByTestId(`review-note-${n}`)).toContainText("Answered");
+  }
+
+  async clearNote(n: number) {
+    await this.page.getByTestId(`review-note-${n}`).getByRole("button", { name: "Clear" }).click();
+    await expect(this.page.getByTestId(`review-note-${n}`)).toContainText("Cleared");
+  }
+
+  async lock() {
+    await this.page.getByRole("button", { name: "Lock sample" }).click();
+    await expect(this.page.getByTestId("workpaper-sha256")).toBeVisible({ timeout: 30_000 });
+    return (await this.page.getByTestId("workpaper-sha256").textContent())!.trim();
+  }
+}
