@@ -41,7 +41,7 @@ export function MappingForm({ upload, replaceable, disabled, onSubmit }: Props) 
     // A column given a role above can no longer be an extra one.
     const kept = extras.filter((c) => !mapped.includes(c));
     if (kept.length !== extras.length) setValue("mapping.extraColumns", kept);
-  }, [mappedKey]); // eslint-disable-line react-hooks/exhaustive-deps
+  }, [mappedKey]); // only when the mapped set changes (this render holds the current extras)
 
   const roles: Record<string, "ref" | "book" | "desc" | "date" | "extra" | undefined> = {};
   for (const c of extras) roles[c] = "extra";

@@ -14,6 +14,7 @@ import { MappingForm, type MappingValues, type ReplaceablePopulation } from "./m
 import { runLoad, type LoadEvent } from "./read-load-stream";
 import { uploadLedgerFile, type UploadView } from "./upload-file";
 import { formatBytes, formatCount } from "./labels";
+import { FileFacts, InView } from "./file-facts";
 
 type Stage =
   | { kind: "pick"; refusal?: string }
@@ -90,7 +91,7 @@ export function UploadFlow({ engagementId, currency, replaceable }: Props) {
         <div className="space-y-5">
           <FileFacts upload={upload} />
           {stage.kind === "mapping" && stage.message && <Alert>{stage.message}</Alert>}
-          {stage.kind === "loading" && <div data-testid="load-progress" className="rounded-card border border-ink-line bg-paper p-4"><LoadProgress progress={stage.progress} totalBytes={upload.sizeBytes} /></div>}
+          {stage.kind === "loading" && <InView><div data-testid="load-progress" className="rounded-card border border-ink-line bg-paper p-4"><LoadProgress progress={stage.progress} totalBytes={upload.sizeBytes} /></div></InView>}
           {inspection.kind === "xlsx" && inspection.sheets && inspection.sheets.length > 1 && (
             <div className="max-w-xs">
               <Field label="Sheet" hint="The rows are read from this sheet only">
@@ -136,24 +137,4 @@ export function UploadFlow({ engagementId, currency, replaceable }: Props) {
         </div>
       );
   }
-}
-
-const ENCODING_LABELS = { "utf-8": "UTF-8", "utf-8-bom": "UTF-8 with BOM", "windows-1252": "Windows-1252" } as const;
-
-const DELIMITER_NAMES = { ",": "comma", ";": "semicolon", "\t": "tab", "|": "pipe" } as const;
-
-function FileFacts({ upload }: { upload: UploadView }) {
-  const i = upload.inspection;
-  const facts = [
-    i.kind === "xlsx" ? "Excel workbook" : `CSV, ${ENCODING_LABELS[i.encoding ?? "utf-8"]}, ${DELIMITER_NAMES[i.delimiter ?? ","]}-separated`,
-    formatBytes(upload.sizeBytes),
-    `${formatCount(i.headers.length)} columns`,
-  ];
-  return (
-    <div className="flex flex-wrap items-baseline gap-x-4 gap-y-1 rounded-md bg-paper-sunk/60 px-3 py-2 text-sm">
-      <span className="font-medium text-ink">{upload.fileName}</span>
-      <span className="text-ink-soft">{facts.join(" · ")}</span>
-      <span className="figures truncate text-xs text-ink-faint" title={upload.sha256}>SHA-256 {upload.sha256.slice(0, 16)}…</span>
-    </div>
-  );
 }
