@@ -23,4 +23,5 @@ PORT="${PORT:-3000}"
 
 echo
 echo "Sondage is starting on http://127.0.0.1:3000 — sign in as manager@marrow-quill.example / sondage-demo-2026 (README lists every demo account)."
-NEXT_TELEMETRY_DISABLED=1 node node_modules/next/dist/bin/next start -H 127.0.0.1 -p "$PORT"
+# A larger young generation cuts garbage collection in the ledger parser (measured in npm run bench).
+NEXT_TELEMETRY_DISABLED=1 node --max-semi-space-size=64 node_modules/next/dist/bin/next start -H 127.0.0.1 -p "$PORT"
