@@ -11,7 +11,7 @@ export function AuditTrailAppendix({ data }: { data: WorkpaperData }) {
       <Text style={[s.soft, { marginBottom: 4 }]}>Every change to the sample, in time order, as recorded by Sondage.</Text>
       <Table
         columns={[
-          { label: "When (UTC)", width: 64 },
+          { label: "When (UTC)", width: 78 },
           { label: "Who", width: 72 },
           { label: "What", flex: 1.2 },
           { label: "Before", flex: 1 },

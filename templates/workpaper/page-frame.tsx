@@ -1,5 +1,6 @@
 /** What every page carries: the running header, the footer with the caution and page x of y, and the draft watermark. */
-import { Text, View } from "@react-pdf/renderer";
+import { Path, Svg, Text, View } from "@react-pdf/renderer";
+import { WATERMARK_SHAPE } from "./draft-watermark-shape";
 import { formatDate } from "./format";
 import { colours, PAGE_MARGIN_X, s } from "./styles";
 import type { WorkpaperData } from "./workpaper-data";
@@ -54,12 +55,17 @@ export function Footer({ data }: { data: WorkpaperData }) {
   );
 }
 
+/** The diagonal draft mark, drawn as a vector shape (see generate-watermark-shape.mjs) at low opacity. */
 export function DraftWatermark() {
+  const width = 600;
+  const height = (width * WATERMARK_SHAPE.height) / WATERMARK_SHAPE.width;
   return (
-    <View fixed style={{ position: "absolute", top: 390, left: -120, right: -120, alignItems: "center" }}>
-      <Text style={{ width: 800, textAlign: "center", fontSize: 46, fontWeight: "bold", color: colours.draft, opacity: 0.09, transform: "rotate(-38deg)", letterSpacing: 2 }}>
-        {DRAFT_MARK}
-      </Text>
+    <View fixed style={{ position: "absolute", top: 400, left: 0, right: 0, height, alignItems: "center" }}>
+      <View style={{ width, height, transform: "rotate(-36deg)" }}>
+        <Svg width={width} height={height} viewBox={`0 0 ${WATERMARK_SHAPE.width} ${WATERMARK_SHAPE.height}`}>
+          <Path d={WATERMARK_SHAPE.d} fill={colours.draft} fillOpacity={0.08} />
+        </Svg>
+      </View>
     </View>
   );
 }

@@ -41,7 +41,7 @@ function sum(values: (string | null)[]): string {
   return centsToDecimal(values.reduce<bigint>((acc, v) => (v === null ? acc : acc + decimalToCents(v)), 0n));
 }
 
-function monetaryTable(data: WorkpaperData, live: WorkpaperItem[]): { columns: Column[]; rows: TableRow[] } {
+function monetaryTable(data: WorkpaperData, items: WorkpaperItem[], live: WorkpaperItem[] | null): { columns: Column[]; rows: TableRow[] } {
   const stratified = data.plan.method === "stratified";
   const columns: Column[] = [
     { label: "#", width: 22, align: "right" },
@@ -53,7 +53,7 @@ function monetaryTable(data: WorkpaperData, live: WorkpaperItem[]): { columns: C
     { label: "Status", width: 46 },
     { label: "Cause and comment", flex: 1.3 },
   ];
-  const rows: TableRow[] = data.items.map((item) => ({
+  const rows: TableRow[] = items.map((item) => ({
     muted: item.status === "void",
     cells: [
       String(item.selectionOrder),
@@ -66,6 +66,7 @@ function monetaryTable(data: WorkpaperData, live: WorkpaperItem[]): { columns: C
       <NoteCell key="n" parts={[item.cause, item.comment]} />,
     ],
   }));
+  if (!live) return { columns, rows };
   const audited = live.filter((i) => i.status === "done");
   rows.push({
     total: true,
@@ -83,7 +84,7 @@ function monetaryTable(data: WorkpaperData, live: WorkpaperItem[]): { columns: C
   return { columns, rows };
 }
 
-function attributeTable(data: WorkpaperData, live: WorkpaperItem[]): { columns: Column[]; rows: TableRow[] } {
+function attributeTable(data: WorkpaperData, items: WorkpaperItem[], live: WorkpaperItem[] | null): { columns: Column[]; rows: TableRow[] } {
   const columns: Column[] = [
     { label: "#", width: 22, align: "right" },
     { label: "Reference and description", flex: 1.3 },
@@ -92,7 +93,7 @@ function attributeTable(data: WorkpaperData, live: WorkpaperItem[]): { columns: 
     { label: "Status", width: 50 },
     { label: "Nature of deviation and comment", flex: 1.6 },
   ];
-  const rows: TableRow[] = data.items.map((item) => ({
+  const rows: TableRow[] = items.map((item) => ({
     muted: item.status === "void",
     cells: [
       String(item.selectionOrder),
@@ -103,23 +104,35 @@ function attributeTable(data: WorkpaperData, live: WorkpaperItem[]): { columns: 
       <NoteCell key="n" parts={[item.deviationNature, item.cause, item.comment]} />,
     ],
   }));
+  if (!live) return { columns, rows };
   const deviations = live.filter((i) => i.deviation === true).length;
   rows.push({ total: true, cells: ["", `Total — ${live.length} items`, formatMoney(sum(live.map((i) => i.bookValue))), `${deviations}`, "", ""] });
   return { columns, rows };
 }
 
-export function ResultsSection({ data }: { data: WorkpaperData }) {
+/**
+ * Section 5. `items` is one page-sized run of the sample (see results-pages.ts): the first run
+ * carries the heading, the last the totals; the others continue the table under its header row.
+ */
+export function ResultsSection({ data, items, first, last }: { data: WorkpaperData; items: WorkpaperItem[]; first: boolean; last: boolean }) {
   const live = data.items.filter((i) => i.status !== "void");
-  const { columns, rows } = data.plan.method === "attribute" ? attributeTable(data, live) : monetaryTable(data, live);
+  const build = data.plan.method === "attribute" ? attributeTable : monetaryTable;
+  const { columns, rows } = build(data, items, last ? live : null);
   const open = live.filter((i) => i.status === "not-started").length;
+  const table = <Table columns={columns} rows={rows} />;
+  if (!first) return <View>{table}{last && open > 0 && <NotAudited open={open} />}</View>;
   return (
     <Section number="5" title="Results">
       <Text style={[s.soft, { marginBottom: 4 }]}>
         Misstatement is book value less audited value: overstatement positive, understatement negative.
         {data.plan.method === "mus" ? " Hit points are the cumulative monetary positions that selected each item." : ""}
       </Text>
-      <Table columns={columns} rows={rows} />
-      {open > 0 && <Text style={{ color: colours.warn, marginTop: 4 }}>{open} item{open === 1 ? " is" : "s are"} not yet audited.</Text>}
+      {table}
+      {last && open > 0 && <NotAudited open={open} />}
     </Section>
   );
+}
+
+function NotAudited({ open }: { open: number }) {
+  return <Text style={{ color: colours.warn, marginTop: 4 }}>{open} item{open === 1 ? " is" : "s are"} not yet audited.</Text>;
 }

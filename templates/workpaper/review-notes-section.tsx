@@ -20,7 +20,7 @@ function Note({ note }: { note: ReviewNote }) {
           </View>
         ))}
       </View>
-      <View style={{ width: 120, alignItems: "flex-end" }}>
+      <View style={{ width: 150, alignItems: "flex-end" }}>
         <Text style={[s.bold, { color: cleared ? colours.ledger : colours.warn }]}>{cleared ? "Cleared" : "Open"}</Text>
         {cleared && <Text style={[s.faint, s.small, s.right]}>{`${note.clearedBy ?? ""}, ${formatTime(note.clearedAt)}`}</Text>}
       </View>

@@ -8,6 +8,7 @@ import { ObjectiveSection } from "./objective-section";
 import { DraftWatermark, Footer, RunningHeader } from "./page-frame";
 import { PlanSection } from "./plan-section";
 import { PopulationSection } from "./population-section";
+import { paginateItems } from "./results-pages";
 import { ResultsSection } from "./results-section";
 import { ReviewNotesSection } from "./review-notes-section";
 import { SelectionSection } from "./selection-section";
@@ -33,6 +34,7 @@ function Sheet({ data, children }: { data: WorkpaperData; children: ReactNode })
 }
 
 export function WorkpaperDocument({ data }: { data: WorkpaperData }) {
+  const runs = paginateItems(data.items);
   return (
     <Document
       title={`${data.workpaperReference} — ${data.sampleName}${data.draft ? " (draft)" : ""}`}
@@ -49,9 +51,11 @@ export function WorkpaperDocument({ data }: { data: WorkpaperData }) {
         <PlanSection data={data} />
         <SelectionSection data={data} />
       </Sheet>
-      <Sheet data={data}>
-        <ResultsSection data={data} />
-      </Sheet>
+      {runs.map((items, i) => (
+        <Sheet key={`results-${i}`} data={data}>
+          <ResultsSection data={data} items={items} first={i === 0} last={i === runs.length - 1} />
+        </Sheet>
+      ))}
       <Sheet data={data}>
         <EvaluationSection data={data} />
         <ConclusionSection data={data} />

@@ -48,3 +48,24 @@ export function previewPngs(file: string, name: string): string[] {
 export function squash(text: string): string {
   return text.replace(/[ \t]+/g, " ");
 }
+
+/**
+ * Pixels of the watermark's faint red (r above g, g ≈ b) in the middle band of a page, read from
+ * a 30 dpi PPM rendering; the draft banner at the top is outside the band.
+ */
+export function watermarkPixels(file: string, page: number): number {
+  const ppm = execFileSync("pdftoppm", ["-r", "30", "-f", String(page), "-l", String(page), file], { maxBuffer: 1 << 26 });
+  const header = /^P6\s+(\d+)\s+(\d+)\s+255\s/.exec(ppm.subarray(0, 40).toString("latin1"));
+  if (!header) throw new Error("pdftoppm did not return a P6 image");
+  const [width, height] = [Number(header[1]), Number(header[2])];
+  const start = header[0].length;
+  let count = 0;
+  for (let y = Math.floor(height * 0.3); y < Math.floor(height * 0.8); y++) {
+    for (let x = 0; x < width; x++) {
+      const i = start + (y * width + x) * 3;
+      const [r, g, b] = [ppm[i], ppm[i + 1], ppm[i + 2]];
+      if (r - g >= 5 && Math.abs(g - b) <= 2) count++;
+    }
+  }
+  return count;
+}
