@@ -100,7 +100,7 @@ function attributeTable(data: WorkpaperData, items: WorkpaperItem[], live: Workp
       <ReferenceCell key="r" item={item} showHits={false} />,
       formatMoney(item.bookValue),
       item.deviation === null ? "—" : item.deviation ? "Yes" : "No",
-      STATUS[item.status],
+      item.status === "done" ? "Tested" : STATUS[item.status],
       <NoteCell key="n" parts={[item.deviationNature, item.cause, item.comment]} />,
     ],
   }));
