@@ -1,7 +1,7 @@
 /**
  * Mersenne Twister MT19937 — Matsumoto & Nishimura, "Mersenne Twister: a 623-dimensionally
  * equidistributed uniform pseudo-random number generator", ACM TOMACS 8(1), 1998, pp. 3–30.
- * A transcription of their reference C code (mt19937ar.c, 2002 revision): `init_genrand` seeding,
+ * A port of their reference C code (mt19937ar.c, 2002 revision): `init_genrand` seeding,
  * `genrand_int32` and `genrand_res53`. The constants (624, 397, 0x9908b0df, the tempering masks,
  * 1812433253) are theirs. numpy's legacy `RandomState(seed).random_sample()` is this exact stream.
  */

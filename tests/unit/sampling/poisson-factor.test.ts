@@ -48,7 +48,7 @@ describe("poissonFactor", () => {
 
   it("table mode at 63% and 50% confidence: 0.994252 → 1.00, k = 2 → 3.25; 0.693147 → 0.70", () => {
     // Same AICPA-sourced exhibit: 37% risk k = 0 → 1.00 and 50% risk k = 0 → 0.70. At 37%, k = 2 the
-    // exhibit prints 3.35, a transcription error: a second textbook table prints 3.25, and the exact
+    // exhibit prints 3.35, a copying error: a second textbook table prints 3.25, and the exact
     // value is 3.247885 (scipy gamma.ppf(0.63, 3)).
     expect(poissonFactor(0, 0.63)).toBeCloseTo(0.994252, 6);
     expect(poissonFactor(0, 0.63, "table")).toBe(1);
