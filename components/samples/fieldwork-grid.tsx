@@ -101,7 +101,7 @@ export function FieldworkGrid({ engagementId, sampleId, method, drawVersion, may
         </label>
         <p className="figures ml-auto text-sm text-ink-soft" aria-live="polite">{page ? (total === 0 ? "No items" : `${formatCount(first)}–${formatCount(last)} of ${formatCount(total)}`) : "Loading…"}</p>
       </div>
-      {!mayRecord && <p className="text-sm text-ink-soft">Viewers see the results; staff and above on the engagement record them.</p>}
+      {!mayRecord && <p className="text-sm text-ink-soft">Results are read-only here: the sample is locked, or your role is viewer (staff and above record results).</p>}
       {error && <p role="alert" className="text-sm text-brick-700">{error}</p>}
       <div className="relative overflow-x-auto rounded-card border border-ink-line bg-paper-raised">
         <table className="w-full text-sm" aria-label="Sample items">
