@@ -10,7 +10,8 @@ import { detectNumberFormat } from "./number-format";
 import { sniffFile, type TextEncoding } from "./sniff-file";
 import { cellText } from "./source-row";
 import { readWorkbookInfo } from "./xlsx-sheets";
-import { readXlsxRows } from "./xlsx-rows";
+import { readXlsxHeadRows } from "./xlsx-fast-rows";
+import { XLSX_BATCH_ROWS, readXlsxRows } from "./xlsx-rows";
 
 /** What the column-mapping screen needs; plain JSON, so it can be stored between requests. */
 export interface UploadInspection {
@@ -66,6 +67,8 @@ async function inspectWorkbook(filePath: string, size: number, wanted: string | 
   if (sheet === undefined || !sheets.includes(sheet)) {
     throw new ImportError("sheet-not-found", `The workbook has no sheet named "${wanted ?? ""}". Its sheets are: ${sheets.join(", ")}.`);
   }
+  const fast = await readHeadRowsFast(filePath, sheet);
+  if (fast) return { kind: "xlsx", size, sheets, sheet, date1904, ...describeRows(fast, fast.length < SAMPLE_ROWS, false) };
   const rows: TextRow[] = [];
   let complete = true;
   for await (const batch of readXlsxRows(filePath, sheet)) {
@@ -76,6 +79,19 @@ async function inspectWorkbook(filePath: string, size: number, wanted: string | 
     }
   }
   return { kind: "xlsx", size, sheets, sheet, date1904, ...describeRows(rows, complete, false) };
+}
+
+/**
+ * The rows the exceljs path would sample (its first batch of XLSX_BATCH_ROWS rows), read by the
+ * fast head reader; null when that reader meets anything it does not understand.
+ */
+export async function readHeadRowsFast(filePath: string, sheet: string): Promise<TextRow[] | null> {
+  try {
+    const rows = await readXlsxHeadRows(filePath, sheet, XLSX_BATCH_ROWS);
+    return rows.map((row) => ({ rowNumber: row.rowNumber, cells: row.cells.map(cellText) }));
+  } catch {
+    return null;
+  }
 }
 
 function describeRows(rows: TextRow[], complete: boolean, isCsv: boolean) {

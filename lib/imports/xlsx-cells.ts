@@ -15,7 +15,7 @@ export function normalizeCell(cell: Cell, date1904: boolean): RawCell {
   return normalizeValue(cell.value, cell.numFmt, date1904);
 }
 
-function normalizeValue(value: CellValue, numFmt: string | undefined, date1904: boolean): RawCell {
+export function normalizeValue(value: CellValue, numFmt: string | undefined, date1904: boolean): RawCell {
   if (value === null || value === undefined) return null;
   if (typeof value === "string" || value instanceof Date) return value;
   if (typeof value === "number") return numberCell(value, numFmt, date1904);

@@ -5,7 +5,8 @@ import { ImportError } from "./import-error";
 import type { RawCell, SourceBatch } from "./source-row";
 import { normalizeCell } from "./xlsx-cells";
 
-const BATCH_ROWS = 2000;
+/** Rows in each batch; inspection samples the first batch. */
+export const XLSX_BATCH_ROWS = 2000;
 
 interface ReaderInternals {
   properties?: { model?: { date1904?: boolean } };
@@ -44,7 +45,7 @@ export async function* readXlsxRows(filePath: string, sheetName: string): AsyncG
           cells[column - 1] = normalizeCell(cell, date1904);
         });
         rows.push({ rowNumber: row.number, cells });
-        if (rows.length >= BATCH_ROWS) {
+        if (rows.length >= XLSX_BATCH_ROWS) {
           yield { rows, quoteProblems: [], bytesRead };
           rows = [];
         }
