@@ -42,6 +42,7 @@ export function ResultRow({ item, url, editable, attribute, columnCount, onSaved
   const [conflictMessage, setConflictMessage] = useState<string | null>(null);
   const [failure, setFailure] = useState<string | null>(null);
   const [saved, setSaved] = useState(false);
+  const [signOffsCleared, setSignOffsCleared] = useState(false);
   const resolver: Resolver<RowValues, unknown, SaveResult> = (values, context, options) =>
     schemaResolver(saveBodyOf(values, item.version, attribute), context, options as never) as never;
   const form = useForm<RowValues, unknown, SaveResult>({ resolver, defaultValues: rowValuesOf(item) });
@@ -53,8 +54,9 @@ export function ResultRow({ item, url, editable, attribute, columnCount, onSaved
   const submit = handleSubmit(async (body) => {
     setFailure(null); setSaved(false);
     try {
-      const { item: after } = await api<{ item: SampleItemRecord }>(`${url}/${item.id}`, { method: "PATCH", body });
+      const { item: after, signOffsCleared: cleared } = await api<{ item: SampleItemRecord; signOffsCleared?: boolean }>(`${url}/${item.id}`, { method: "PATCH", body });
       setSaved(true);
+      setSignOffsCleared(Boolean(cleared));
       onSaved(after);
     } catch (err) {
       if (err instanceof ApiError && err.status === 409) { setConflictMessage(err.message); return; }
@@ -80,6 +82,15 @@ export function ResultRow({ item, url, editable, attribute, columnCount, onSaved
           )}
         </td>
       </tr>
+      {signOffsCleared && (
+        <tr>
+          <td colSpan={columnCount + 1} className="px-2 pb-3">
+            <div role="status" className="sticky left-2 max-w-4xl rounded-md border border-amber-100 bg-amber-50 px-3 py-2 text-sm text-amber-700" data-testid="sign-offs-cleared">
+              Saved. The sample had been signed off, so its sign-offs were cleared: the preparer and reviewer sign off again on what is there now.
+            </div>
+          </td>
+        </tr>
+      )}
       {(conflictMessage || failure) && (
         <tr>
           <td colSpan={columnCount + 1} className="px-2 pb-3">
