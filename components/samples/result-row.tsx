@@ -1,4 +1,5 @@
 "use client";
+import { useRouter } from "next/navigation";
 import { createContext, useContext, useEffect, useState } from "react";
 import { useForm, type FieldPath, type Resolver, type UseFormReturn } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
@@ -43,6 +44,7 @@ export function ResultRow({ item, url, editable, attribute, columnCount, onSaved
   const [failure, setFailure] = useState<string | null>(null);
   const [saved, setSaved] = useState(false);
   const [signOffsCleared, setSignOffsCleared] = useState(false);
+  const router = useRouter();
   const resolver: Resolver<RowValues, unknown, SaveResult> = (values, context, options) =>
     schemaResolver(saveBodyOf(values, item.version, attribute), context, options as never) as never;
   const form = useForm<RowValues, unknown, SaveResult>({ resolver, defaultValues: rowValuesOf(item) });
@@ -57,6 +59,7 @@ export function ResultRow({ item, url, editable, attribute, columnCount, onSaved
       const { item: after, signOffsCleared: cleared } = await api<{ item: SampleItemRecord; signOffsCleared?: boolean }>(`${url}/${item.id}`, { method: "PATCH", body });
       setSaved(true);
       setSignOffsCleared(Boolean(cleared));
+      if (cleared) router.refresh(); // the review panel is server-rendered: show the cleared sign-offs
       onSaved(after);
     } catch (err) {
       if (err instanceof ApiError && err.status === 409) { setConflictMessage(err.message); return; }

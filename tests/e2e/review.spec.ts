@@ -55,6 +55,19 @@ test("the whole job: results, preparer sign-off, a review note answered and clea
   await review.signOff("preparer");
   await shot(page, "2-senior-signed-off");
 
+  // A change after the sign-off clears it, and the screen says so; the senior signs off again.
+  await as(page, "staff");
+  await page.goto(url);
+  await sample.open("Results and evaluation");
+  await sample.record(misstated.itemRef, { comment: "Price list applied wrongly; contract checked" });
+  await expect(page.getByTestId("sign-offs-cleared")).toBeVisible();
+  await expect(page.getByRole("button", { name: "Sign off as preparer" })).toBeVisible(); // staff may sign again
+  await expect(page.getByText("not signed").first()).toBeVisible();
+  await shot(page, "2b-change-clears-sign-off");
+  await as(page, "senior");
+  await page.goto(url);
+  await review.signOff("preparer");
+
   // The manager raises a note; the reviewer sign-off waits until it is cleared.
   await as(page, "manager");
   await page.goto(url);
@@ -100,6 +113,6 @@ test("the whole job: results, preparer sign-off, a review note answered and clea
   expect((await write.json()).error.code).toBe("locked");
   await as(page, "staff");
   await page.goto(url);
-  await expect(page.getByText("This sample is locked.")).toBeVisible();
+  await expect(page.getByRole("status").filter({ hasText: "This sample is locked." })).toBeVisible();
   await shot(page, "6-staff-sees-locked");
 });
