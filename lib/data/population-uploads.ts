@@ -54,11 +54,16 @@ export async function updateUploadInspection(db: Knex, { uploadId, inspection }:
   await db("population_uploads").where({ id: uploadId }).update({ inspection_json: JSON.stringify(inspection) });
 }
 
+/** 409 while the same person has a load running: one load per person at a time. */
+export async function assertNoLoadRunning(db: Knex, { userId }: { userId: number }) {
+  const staleBefore = new Date(Date.now() - LOAD_STALE_MINUTES * 60_000);
+  const running = await db("population_uploads").where({ uploaded_by: userId, status: "loading" }).andWhere("created_at", ">", staleBefore).first("file_name");
+  if (running) throw conflict(`You already have a ledger loading (${running.file_name}). Wait for it to finish before uploading or loading another.`);
+}
+
 /** Refuses a second load while the same person has one running (409), then claims this upload. */
 export async function claimUploadForLoading(db: Knex, { uploadId, userId }: { uploadId: number; userId: number }) {
-  const staleBefore = new Date(Date.now() - LOAD_STALE_MINUTES * 60_000);
-  const running = await db("population_uploads").where({ uploaded_by: userId, status: "loading" }).andWhere("created_at", ">", staleBefore).first("id", "file_name");
-  if (running) throw conflict(`You already have a ledger loading (${running.file_name}). Wait for it to finish, then load the next one.`);
+  await assertNoLoadRunning(db, { userId });
   const claimed = await db("population_uploads").where({ id: uploadId }).whereIn("status", ["inspected"]).update({ status: "loading" });
   if (!claimed) throw conflict("This upload has already been loaded or rejected; upload the file again.");
 }

@@ -2,21 +2,14 @@ import "server-only";
 import type { Knex } from "knex";
 import { ImportError, inspectUpload, type UploadInspection } from "@/lib/imports";
 import { hasWorkbookPart, readWorkbookInfo } from "@/lib/imports/xlsx-sheets";
-import { createUpload, getUploadById, updateUploadInspection } from "@/lib/data/population-uploads";
-import { conflict } from "@/lib/errors";
+import { assertNoLoadRunning, createUpload, getUploadById, updateUploadInspection } from "@/lib/data/population-uploads";
 import { receiveToTempFile, removeTempFile } from "./upload-files";
 
 export interface UploadView { id: number; fileName: string; sizeBytes: number; sha256: string; inspection: UploadInspection }
 
-async function assertNoLoadRunning(db: Knex, userId: number) {
-  const running = await db("population_uploads").where({ uploaded_by: userId, status: "loading" })
-    .andWhere("created_at", ">", new Date(Date.now() - 30 * 60_000)).first("file_name");
-  if (running) throw conflict(`You already have a ledger loading (${running.file_name}). Wait for it to finish before uploading another.`);
-}
-
 /** Receives a ledger file to a private temporary file, inspects its head, and records the upload. */
 export async function receiveUpload(db: Knex, a: { engagementId: number; actorId: number; fileName: string; body: ReadableStream<Uint8Array> | null; declaredLength: number | null }): Promise<UploadView> {
-  await assertNoLoadRunning(db, a.actorId);
+  await assertNoLoadRunning(db, { userId: a.actorId });
   const file = await receiveToTempFile(a.body, a.declaredLength);
   let inspection: UploadInspection;
   try {

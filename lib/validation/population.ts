@@ -2,12 +2,18 @@ import { z } from "zod";
 import { populationMappingSchema } from "./population-mapping";
 import { moneyInput } from "./engagement";
 
-/** A money amount that may be negative (ledger control totals can be credits). */
-export const signedMoneyInput = z
-  .union([z.string(), z.number()])
-  .transform((v) => String(v).trim().replace(/[\s,]/g, ""))
-  .refine((v) => /^-?\d{1,17}(\.\d{1,2})?$/.test(v), "Enter an amount such as 1250000.00 or -3200.50 (at most 2 decimals)")
-  .transform((v) => (v.includes(".") ? v : `${v}.00`));
+/** A money amount that may be negative (ledger control totals can be credits; DECIMAL(20,2)). */
+export const signedMoneyInput = signedMoney(17);
+
+/** A signed decimal amount typed by a person, kept as a 2-decimal string, with at most `wholeDigits` before the point. */
+export function signedMoney(wholeDigits: number) {
+  const pattern = new RegExp(`^-?\\d{1,${wholeDigits}}(\\.\\d{1,2})?$`);
+  return z
+    .union([z.string(), z.number()])
+    .transform((v) => String(v).trim().replace(/[\s,]/g, ""))
+    .refine((v) => pattern.test(v), "Enter an amount such as 1250.00 or -3200.50 (at most 2 decimals)")
+    .transform((v) => (v.includes(".") ? v : `${v}.00`));
+}
 
 export const UploadQuerySchema = z.object({
   fileName: z.string().trim().min(1, "fileName: name the file").max(255, "fileName: at most 255 characters"),

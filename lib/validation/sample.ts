@@ -1,5 +1,6 @@
 import { z } from "zod";
 import { moneyInput } from "./engagement";
+import { signedMoney } from "./population";
 
 export const SAMPLE_METHODS = ["mus", "random", "systematic", "stratified", "attribute"] as const;
 export type SampleMethod = (typeof SAMPLE_METHODS)[number];
@@ -85,14 +86,11 @@ export const CAUSE_LABELS: Record<(typeof MISSTATEMENT_CAUSES)[number], string> 
   existence: "Does not exist", duplicate: "Recorded twice", omission: "Omitted amount", other: "Other (describe)",
 };
 
-const signedMoney = z.union([z.string(), z.number()]).transform((v) => String(v).trim().replace(/[\s,]/g, ""))
-  .refine((v) => /^-?\d{1,16}(\.\d{1,2})?$/.test(v), "Enter an amount such as 1250.00 (at most 2 decimals)")
-  .transform((v) => (v.includes(".") ? v : `${v}.00`));
 
 export const SaveResultSchema = z.object({
   version: z.coerce.number().int().positive(),
   status: z.enum(ITEM_STATUSES),
-  auditedValue: signedMoney.nullable().optional(),
+  auditedValue: signedMoney(16).nullable().optional(), // DECIMAL(18,2)
   cause: z.enum(MISSTATEMENT_CAUSES).nullable().optional(),
   causeNote: z.string().trim().max(2000).nullable().optional(),
   deviation: z.boolean().nullable().optional(),
