@@ -1,6 +1,7 @@
 import "server-only";
 import type { Knex } from "knex";
 import type { ItemsQuery } from "@/lib/validation/population";
+import { containsPattern } from "./like";
 
 export interface PopulationItem {
   rowNumber: number;
@@ -23,7 +24,7 @@ const SORT_COLUMNS = { row: "row_number", ref: "item_ref", book: "book_value" } 
 export async function listItemsByPopulationId(db: Knex, { populationId, query }: { populationId: number; query: ItemsQuery }) {
   const base = db("population_items").where({ population_id: populationId });
   if (query.q) {
-    const like = `%${query.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+    const like = containsPattern(query.q);
     base.andWhere((w) => w.where("item_ref", "like", like).orWhere("description", "like", like));
   }
   const [countRow, rows] = await Promise.all([

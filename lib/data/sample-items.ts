@@ -2,6 +2,7 @@ import "server-only";
 import type { Knex } from "knex";
 import type { SaveResult } from "@/lib/validation/sample";
 import { recordAudit } from "./audit-log";
+import { containsPattern } from "./like";
 import { beginSampleWrite } from "@/lib/samples/guard";
 import { AppError, notFound } from "@/lib/errors";
 import { centsToDecimal, decimalToCents } from "@/lib/money";
@@ -67,7 +68,7 @@ function itemQuery(db: Knex, drawId: number) {
 export async function listItemsByDrawId(db: Knex, { drawId, page = 1, pageSize = 100000, status = "all", q }: { drawId: number; page?: number; pageSize?: number; status?: string; q?: string }) {
   const base = db("sample_items as i").where("i.draw_id", drawId);
   if (status !== "all") base.andWhere("i.status", status);
-  if (q) base.andWhere((w) => w.where("i.item_ref", "like", `%${q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`).orWhere("i.description", "like", `%${q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`));
+  if (q) base.andWhere((w) => w.where("i.item_ref", "like", containsPattern(q)).orWhere("i.description", "like", containsPattern(q)));
   const [count, rows] = await Promise.all([
     base.clone().count({ n: "*" }).first(),
     base.clone().leftJoin("users as u", "u.id", "i.updated_by").orderBy("i.selection_order").orderBy("i.id")
@@ -105,8 +106,8 @@ export async function saveItemResult(db: Knex, { engagementId, sampleId, drawId,
     };
     await trx("sample_items").where({ id: itemId }).update(patch);
     const after = await getItemById(trx, { drawId, itemId });
-    const view = (i: Record<string, unknown>) => ({ status: i.status, auditedValue: i.audited_value ?? i.auditedValue ?? null, cause: i.cause ?? null, deviation: i.deviation ?? null, comment: i.comment ?? null });
-    await recordAudit(trx, { actorUserId: actorId, engagementId, sampleId, entity: "sample_item", entityId: itemId, action: "record-result", before: view(before), after: view(after as unknown as Record<string, unknown>) });
+    const view = (i: SampleItemRecord) => ({ status: i.status, auditedValue: i.auditedValue, cause: i.cause, deviation: i.deviation, comment: i.comment });
+    await recordAudit(trx, { actorUserId: actorId, engagementId, sampleId, entity: "sample_item", entityId: itemId, action: "record-result", before: view(toItem(before)), after: view(after) });
     await trx("samples").where({ id: sampleId }).update({ updated_at: trx.fn.now(3) });
     return { item: after, signOffsCleared };
   });

@@ -2,7 +2,7 @@ import "server-only";
 import type { Knex } from "knex";
 import { getEngagementById } from "@/lib/data/engagements";
 import { getPopulationById } from "@/lib/data/populations";
-import { getCurrentDraw, getSampleById, listDrawsBySampleId } from "@/lib/data/samples";
+import { getSampleById, listDrawsBySampleId } from "@/lib/data/samples";
 import { listItemsByDrawId } from "@/lib/data/sample-items";
 import { notFound } from "@/lib/errors";
 import type { PreviewPlan } from "@/lib/validation/sample";
@@ -30,9 +30,15 @@ export async function loadSampleView(db: Knex, { engagementId, sampleId }: { eng
   return { sample, population, draws, currentDraw: draws.find((d) => d.current) ?? null, engagement: engagement!, review };
 }
 
+export type SampleView = Awaited<ReturnType<typeof loadSampleView>>;
+
+/** The view, every item of its current draw, and the evaluation of those items — one read of each. */
+export async function loadSampleWithEvaluation(db: Knex, { engagementId, sampleId }: { engagementId: number; sampleId: number }) {
+  const view = await loadSampleView(db, { engagementId, sampleId });
+  const items = view.currentDraw ? (await listItemsByDrawId(db, { drawId: view.currentDraw.id })).items : [];
+  return { view, items, evaluation: evaluateSample(view.sample, view.population, items, view.engagement.performanceMateriality) };
+}
+
 export async function evaluationFor(db: Knex, { engagementId, sampleId }: { engagementId: number; sampleId: number }) {
-  const { sample, population, engagement } = await loadSampleView(db, { engagementId, sampleId });
-  const draw = await getCurrentDraw(db, { sampleId });
-  const items = draw ? (await listItemsByDrawId(db, { drawId: draw.id })).items : [];
-  return evaluateSample(sample, population, items, engagement.performanceMateriality);
+  return (await loadSampleWithEvaluation(db, { engagementId, sampleId })).evaluation;
 }

@@ -34,7 +34,8 @@ export interface SampleEvaluation {
 
 const evaluated = (it: SampleItemRecord) => it.status === "done" || it.status === "not-auditable";
 const toSampled = (it: SampleItemRecord): SampledItem => ({ bookValue: Number(it.bookValue), auditedValue: it.status === "not-auditable" ? 0 : Number(it.auditedValue) });
-const sidesFor = (direction: SampleRecord["direction"]): Sides => (direction === "overstatement" ? "lower" : direction === "understatement" ? "upper" : "two");
+/** Overstatement is tested with a lower bound on audited value, understatement with an upper one. */
+export const sidesFor = (direction: SampleRecord["direction"]): Sides => (direction === "overstatement" ? "lower" : direction === "understatement" ? "upper" : "two");
 const fmt = (v: number) => v.toLocaleString("en-US", { minimumFractionDigits: 2, maximumFractionDigits: 2 });
 
 export function progressOf(items: SampleItemRecord[]): Progress {

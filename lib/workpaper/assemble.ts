@@ -1,12 +1,10 @@
 import "server-only";
 import type { Knex } from "knex";
-import { getCurrentDraw } from "@/lib/data/samples";
-import { listItemsByDrawId, type SampleItemRecord } from "@/lib/data/sample-items";
+import type { SampleItemRecord } from "@/lib/data/sample-items";
 import { listNotesBySampleId } from "@/lib/review/notes";
-import { getReviewState } from "@/lib/review/review-state";
 import { listSampleAuditTrail } from "@/lib/review/audit-trail";
-import { evaluateSample } from "@/lib/samples/evaluate";
-import { loadSampleView } from "@/lib/samples/context";
+import { sidesFor } from "@/lib/samples/evaluate";
+import { loadSampleWithEvaluation, type SampleView } from "@/lib/samples/context";
 import { recipeForSample } from "@/lib/samples/recipe-for-sample";
 import { workpaperReferenceFor } from "@/lib/review/lock";
 import { buildAttributesEvaluation, buildMusEvaluation, buildStratifiedEvaluation, buildVariablesEvaluation, money } from "@/templates/workpaper/build-evaluation";
@@ -33,17 +31,14 @@ const SYMBOLS: Record<string, { meaning: string; kind: "money" | "rate" | "count
 
 /** Everything the workpaper prints, from the database, with the evaluation computed by the engine. */
 export async function assembleWorkpaper(db: Knex, { engagementId, sampleId, draft, lock }: { engagementId: number; sampleId: number; draft: boolean; lock?: { lockedByName: string; role: string; lockedAt: Date; reference: string } }): Promise<WorkpaperData> {
-  const view = await loadSampleView(db, { engagementId, sampleId });
-  const { sample, population, engagement, currentDraw } = view;
-  const [firm, items, notes, review, trail, recipe] = await Promise.all([
+  const { view, items, evaluation } = await loadSampleWithEvaluation(db, { engagementId, sampleId });
+  const { sample, population, engagement, currentDraw, review } = view;
+  const [firm, notes, trail, recipe] = await Promise.all([
     db("firms").where({ id: engagement.firmId }).first("name"),
-    currentDraw ? listItemsByDrawId(db, { drawId: currentDraw.id }).then((r) => r.items) : Promise.resolve([]),
     listNotesBySampleId(db, { sampleId }),
-    getReviewState(db, { sampleId }),
     listSampleAuditTrail(db, { sampleId, query: { kind: "all" } }),
     currentDraw ? recipeForSample(db, { sample }) : Promise.resolve(""),
   ]);
-  const evaluation = evaluateSample(sample, population, items, engagement.performanceMateriality);
   const tolerable = money(Number(sample.params.tolerableMisstatement ?? engagement.performanceMateriality));
   const active = items.filter((i) => i.status !== "void");
   const done = evaluatedOf(active);
@@ -100,7 +95,7 @@ function toWorkpaperItem(i: SampleItemRecord): WorkpaperItem {
   };
 }
 
-function planBlock(sample: Awaited<ReturnType<typeof loadSampleView>>["sample"], tolerable: string): PlanBlock {
+function planBlock(sample: SampleView["sample"], tolerable: string): PlanBlock {
   const p = sample.params, plan = sample.plan;
   const parameters: PlanBlock["parameters"] = [{ label: "Confidence", kind: "rate", value: pct(p.confidence) }];
   if (sample.method === "attribute") {
@@ -119,11 +114,11 @@ function planBlock(sample: Awaited<ReturnType<typeof loadSampleView>>["sample"],
   };
 }
 
-type View = Awaited<ReturnType<typeof loadSampleView>>;
+type View = SampleView;
 
 function evaluationBlock(sample: View["sample"], population: View["population"], active: SampleItemRecord[], done: ReturnType<typeof evaluatedOf>, tolerable: string): EvaluationBlock {
   const p = sample.params;
-  const sides = sample.direction === "overstatement" ? "lower" : sample.direction === "understatement" ? "upper" : "two";
+  const sides = sidesFor(sample.direction);
   if (sample.method === "mus") return buildMusEvaluation({ interval: sample.plan.interval!, confidence: p.confidence, factorMode: p.factorMode, tolerableMisstatement: tolerable, items: done });
   if (sample.method === "attribute") {
     const finished = active.filter((i) => i.status === "done" || i.status === "not-auditable");

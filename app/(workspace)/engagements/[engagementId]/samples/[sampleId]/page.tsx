@@ -10,7 +10,6 @@ import { METHOD_SHORT, SAMPLE_STATUS_LABELS } from "@/components/samples/labels"
 import { loadSamplePage } from "./load-sample";
 import { getDb } from "@/db/knex";
 import { listNotesBySampleId } from "@/lib/review/notes";
-import { listItemsByDrawId } from "@/lib/data/sample-items";
 import { Alert } from "@/components/ui/alert";
 import { ReviewPanel } from "@/components/review/review-panel";
 import { FieldworkFiles } from "@/components/review/fieldwork-files";
@@ -20,15 +19,12 @@ export const metadata: Metadata = { title: "Sample" };
 export default async function SamplePage({ params }: { params: Promise<{ engagementId: string; sampleId: string }> }) {
   const { engagementId, sampleId } = await params;
   const { engagement, role, user } = await requireEngagementPage(engagementId);
-  const { view, evaluation } = await loadSamplePage(engagement.id, sampleId);
+  const { view, evaluation, items: drawnItems } = await loadSamplePage(engagement.id, sampleId);
   const { sample, population } = view;
   const locked = Boolean(view.review.lock);
   const senior = hasAtLeastRole(role, "senior") && !locked;
-  const db = getDb();
-  const [notes, items] = await Promise.all([
-    listNotesBySampleId(db, { sampleId: sample.id }),
-    view.currentDraw ? listItemsByDrawId(db, { drawId: view.currentDraw.id }).then((r) => r.items.filter((i) => i.status !== "void").map((i) => ({ id: i.id, itemRef: i.itemRef }))) : Promise.resolve([]),
-  ]);
+  const notes = await listNotesBySampleId(getDb(), { sampleId: sample.id });
+  const items = drawnItems.filter((i) => i.status !== "void").map((i) => ({ id: i.id, itemRef: i.itemRef }));
   const editHref = senior && sample.status === "planned" ? `/engagements/${engagement.id}/samples/${sample.id}/edit` : null;
   return (
     <>
