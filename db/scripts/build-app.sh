@@ -3,7 +3,7 @@
 set -euo pipefail
 ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/../.." && pwd)"
 cd "$ROOT"
-stamp=.next/BUILD_ID
+stamp="${NEXT_DIST_DIR:-.next}/BUILD_ID"
 if [ -f "$stamp" ] && [ -z "$(find app components lib db templates public proxy.ts next.config.mjs tailwind.config.ts package-lock.json -newer "$stamp" -type f 2>/dev/null | head -1)" ]; then
   echo "build: up to date"
 else
