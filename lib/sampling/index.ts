@@ -17,3 +17,6 @@ export { evaluateMus, type BoundSide, type MusEvaluation } from "./evaluate-mus"
 export { evaluateAttributes } from "./evaluate-attributes";
 export type { SampledItem, Estimator, StratifiedEstimator, Sides, FactorMode, VariablesEvaluation } from "./types";
 export { simulateEstimators, type EstimatorPerformance, type HistogramBin } from "./simulate";
+export { simulateStringer, type StringerPerformance } from "./simulate-stringer";
+export { assumeAuditedValues, observedTaintings, TAINTING_PATTERNS, type MisstatementScenario, type TaintingPattern } from "./scenario";
+export { recommendEstimator, ADVISED_ESTIMATOR_LABELS, FEW_DIFFERENCES, type AdvisedEstimator, type AdvisorCell, type Recommendation, type Verdict } from "./advise";

@@ -4,9 +4,9 @@
  */
 import type { PairedMoments } from "./descriptive";
 import { toCents } from "./money";
-import { normalQuantile } from "./quantiles";
 import { createRng, type Rng } from "./rng";
-import { ESTIMATORS, type Estimator, type SampledItem } from "./types";
+import { ESTIMATORS, SIDES, type Estimator, type SampledItem, type Sides } from "./types";
+import { zFor } from "./evaluate-variables";
 import { estimateTotal } from "./variables-core";
 import { requireArray, requireInteger, requireObject, requireOneOf, requireOpenFraction, requireSeed } from "./validate";
 
@@ -19,13 +19,15 @@ export interface EstimatorPerformance {
   standardDeviation: number;
   /** sqrt(bias² + standardDeviation²). */
   rmse: number;
-  /** Share of trials whose two-sided bound contains the true audited total. */
+  /** Share of trials whose bound (two-sided, or the one side asked for) holds the true audited total. */
   coverage: number;
   meanAllowance: number;
   histogram: HistogramBin[];
 }
 
 export const HISTOGRAM_BINS = 20;
+/** How often (in trials) `onProgress` is told how far a run has gone. */
+export const PROGRESS_EVERY = 500;
 
 /**
  * Draws n distinct indices by partial Fisher–Yates on a persistent permutation (Knuth, TAOCP
@@ -42,7 +44,7 @@ export function drawSimpleRandomSample(rng: Rng, permutation: Int32Array, sample
   }
 }
 
-function histogram(values: Float64Array): HistogramBin[] {
+export function histogram(values: Float64Array): HistogramBin[] {
   let min = Infinity;
   let max = -Infinity;
   for (const v of values) { if (v < min) min = v; if (v > max) max = v; }
@@ -72,7 +74,8 @@ function parsePopulation(value: unknown, needPositiveBook: boolean): { x: Float6
  *
  * One `createRng(seed)` stream for the whole run; each trial draws a sample with
  * `drawSimpleRandomSample` and evaluates every requested estimator with the same formulas as
- * `evaluateVariables` (Cochran 1977; two-sided normal bound at `confidence`). Sample moments are
+ * `evaluateVariables` (Cochran 1977; normal bound at `confidence`, two-sided unless `sides` says
+ * "lower" — the bound for overstatement — or "upper"). Sample moments are
  * accumulated in one pass on values shifted by the known population means, which keeps them well
  * conditioned; nothing is allocated per trial beyond the estimator results.
  *
@@ -87,6 +90,7 @@ function parsePopulation(value: unknown, needPositiveBook: boolean): { x: Float6
  */
 export function simulateEstimators<E extends Estimator>(o: {
   population: SampledItem[]; sampleSize: number; trials: number; seed: number; confidence: number; estimators: E[];
+  sides?: Sides; onProgress?: (trialsDone: number) => void;
 }): Record<E, EstimatorPerformance> {
   requireObject("options", o);
   const estimators = requireArray<E>("estimators", o.estimators);
@@ -100,7 +104,8 @@ export function simulateEstimators<E extends Estimator>(o: {
   const sampleSize = requireInteger("sampleSize", o.sampleSize, estimators.includes("regression" as E) ? 3 : 2, N);
   const trials = requireInteger("trials", o.trials, 1, 1_000_000);
   const rng = createRng(requireSeed("seed", o.seed));
-  const z = normalQuantile((1 + requireOpenFraction("confidence", o.confidence)) / 2);
+  const sides = o.sides === undefined ? "two" : requireOneOf("sides", o.sides, SIDES);
+  const z = zFor(requireOpenFraction("confidence", o.confidence), sides);
 
   let bookCents = 0;
   let truthCents = 0;
@@ -141,8 +146,10 @@ export function simulateEstimators<E extends Estimator>(o: {
       const allowance = z * Math.sqrt(r.variance);
       estimates[e][t] = r.estimate;
       allowanceSum[e] += allowance;
-      if (Math.abs(r.estimate - truthCents) <= allowance) covered[e]++;
+      const error = r.estimate - truthCents;
+      if ((sides !== "lower" || error <= allowance) && (sides !== "upper" || -error <= allowance) && (sides !== "two" || Math.abs(error) <= allowance)) covered[e]++;
     }
+    if (o.onProgress && (t + 1) % PROGRESS_EVERY === 0) o.onProgress(t + 1);
   }
   const result = {} as Record<E, EstimatorPerformance>;
   estimators.forEach((name, e) => {
