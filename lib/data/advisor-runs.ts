@@ -1,0 +1,116 @@
+import "server-only";
+import type { Knex } from "knex";
+import { recordAudit } from "./audit-log";
+import { beginSampleWrite } from "@/lib/samples/guard";
+import { conflict, notFound } from "@/lib/errors";
+import type { AdvisorResult } from "@/lib/advisor/compute";
+import type { MisstatementScenario, Sides } from "@/lib/sampling";
+
+/** What a run was asked to do, stored as given (the scenario resolved to the engine's terms). */
+export interface AdvisorRequest {
+  scenario: MisstatementScenario;
+  /** How the scenario was chosen on screen (a pattern, or an earlier sample by id and name). */
+  scenarioSource: { kind: "pattern" } | { kind: "previous-sample"; sampleId: number; sampleName: string; results: number };
+  sampleSizes: number[];
+  trials: number;
+  seed: number;
+  seedSource: "generated" | "entered";
+  confidence: number;
+  sides: Sides;
+  method: string;
+  plannedSize: number;
+}
+
+export interface AdvisorRunRecord {
+  id: number;
+  sampleId: number;
+  populationId: number;
+  planVersion: number;
+  status: "running" | "done" | "cancelled" | "failed";
+  request: AdvisorRequest;
+  result: AdvisorResult | null;
+  error: string | null;
+  durationMs: number | null;
+  createdAt: string;
+  createdByName: string;
+  finishedAt: string | null;
+}
+
+const json = <T>(v: unknown): T | null => (v === null || v === undefined ? null : ((typeof v === "string" ? JSON.parse(v) : v) as T));
+const iso = (v: unknown) => (v ? new Date(v as string).toISOString() : null);
+
+function toRun(r: Record<string, unknown>): AdvisorRunRecord {
+  return {
+    id: Number(r.id), sampleId: Number(r.sample_id), populationId: Number(r.population_id), planVersion: Number(r.plan_version),
+    status: r.status as AdvisorRunRecord["status"], request: json<AdvisorRequest>(r.request_json)!, result: json<AdvisorResult>(r.result_json),
+    error: (r.error as string | null) ?? null, durationMs: r.duration_ms === null ? null : Number(r.duration_ms),
+    createdAt: iso(r.created_at)!, createdByName: String(r.created_by_name ?? ""), finishedAt: iso(r.finished_at),
+  };
+}
+
+const runQuery = (db: Knex) => db("advisor_runs as a").join("users as u", "u.id", "a.created_by").select("a.*", "u.name as created_by_name");
+
+export async function getAdvisorRunById(db: Knex, { sampleId, runId }: { sampleId: number; runId: number }): Promise<AdvisorRunRecord> {
+  const row = await runQuery(db).where({ "a.id": runId, "a.sample_id": sampleId }).first();
+  if (!row) throw notFound("No such advisor run");
+  return toRun(row);
+}
+
+/** Runs of a sample, newest first, without their results (the list stays small). */
+export async function listAdvisorRunsBySampleId(db: Knex, { sampleId }: { sampleId: number }) {
+  const rows = await db("advisor_runs as a").join("users as u", "u.id", "a.created_by").where("a.sample_id", sampleId).orderBy("a.id", "desc").limit(50)
+    .select("a.id", "a.sample_id", "a.population_id", "a.plan_version", "a.status", "a.request_json", "a.error", "a.duration_ms", "a.created_at", "a.finished_at", "u.name as created_by_name");
+  return rows.map((r: Record<string, unknown>) => toRun({ ...r, result_json: null }));
+}
+
+export async function findDoneAdvisorRunByKey(db: Knex, { sampleId, cacheKey }: { sampleId: number; cacheKey: string }) {
+  const row = await runQuery(db).where({ "a.sample_id": sampleId, "a.cache_key": cacheKey, "a.status": "done" }).orderBy("a.id", "desc").first();
+  return row ? toRun(row) : null;
+}
+
+export async function createAdvisorRun(db: Knex, o: { engagementId: number; sampleId: number; populationId: number; planVersion: number; cacheKey: string; request: AdvisorRequest; actorId: number }) {
+  return db.transaction(async (trx) => {
+    const [id] = await trx("advisor_runs").insert({
+      engagement_id: o.engagementId, sample_id: o.sampleId, population_id: o.populationId, plan_version: o.planVersion, cache_key: o.cacheKey,
+      request_json: JSON.stringify(o.request), created_by: o.actorId,
+    });
+    await recordAudit(trx, { actorUserId: o.actorId, engagementId: o.engagementId, sampleId: o.sampleId, entity: "advisor_run", entityId: id, action: "start", after: o.request });
+    return Number(id);
+  });
+}
+
+export async function finishAdvisorRun(db: Knex, o: { engagementId: number; sampleId: number; runId: number; actorId: number; status: "done" | "cancelled" | "failed"; result?: AdvisorResult; error?: string; durationMs: number }) {
+  await db.transaction(async (trx) => {
+    await trx("advisor_runs").where({ id: o.runId, status: "running" }).update({
+      status: o.status, result_json: o.result ? JSON.stringify(o.result) : null, error: o.error ?? null, duration_ms: o.durationMs, finished_at: trx.fn.now(3),
+    });
+    await recordAudit(trx, { actorUserId: o.actorId, engagementId: o.engagementId, sampleId: o.sampleId, entity: "advisor_run", entityId: o.runId, action: o.status,
+      after: { durationMs: o.durationMs, recommended: o.result?.recommendation.recommended ?? null, error: o.error ?? null } });
+  });
+}
+
+/** A row left "running" by a server that stopped: marked failed so nobody waits on it. */
+export async function markAdvisorRunInterrupted(db: Knex, { runId }: { runId: number }) {
+  await db("advisor_runs").where({ id: runId, status: "running" }).update({ status: "failed", error: "Interrupted: the server stopped before the run finished.", finished_at: db.fn.now(3) });
+}
+
+/** Makes a finished run the plan's stated rationale for the method; the plan must not be drawn yet. */
+export async function adoptAdvisorRun(db: Knex, { engagementId, sampleId, runId, actorId }: { engagementId: number; sampleId: number; runId: number; actorId: number }) {
+  return db.transaction(async (trx) => {
+    const sample = await trx("samples").where({ id: sampleId, engagement_id: engagementId }).forUpdate().first("status", "advisor_run_id");
+    if (!sample) throw notFound("No such sample");
+    if (sample.status !== "planned") throw conflict("The sample has been drawn; the rationale for its method is final.");
+    const run = await trx("advisor_runs").where({ id: runId, sample_id: sampleId }).first("status");
+    if (!run) throw notFound("No such advisor run");
+    if (run.status !== "done") throw conflict("Only a finished advisor run can be the rationale for the method.");
+    await beginSampleWrite(trx, { sampleId, actorId, what: "the method's rationale" });
+    await trx("samples").where({ id: sampleId }).update({ advisor_run_id: runId });
+    await recordAudit(trx, { actorUserId: actorId, engagementId, sampleId, entity: "sample", entityId: sampleId, action: "adopt-advisor-run", before: { advisorRunId: sample.advisor_run_id }, after: { advisorRunId: runId } });
+  });
+}
+
+export async function getAdoptedAdvisorRun(db: Knex, { sampleId }: { sampleId: number }): Promise<AdvisorRunRecord | null> {
+  const row = await db("samples").where({ id: sampleId }).first("advisor_run_id");
+  if (!row?.advisor_run_id) return null;
+  return getAdvisorRunById(db, { sampleId, runId: Number(row.advisor_run_id) });
+}

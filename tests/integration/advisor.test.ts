@@ -1,0 +1,127 @@
+import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+import { getDb } from "@/db/knex";
+import { createRng } from "@/lib/sampling";
+import { call, callEvents, callRaw } from "./support/call";
+import { auditCount, makeEngagement, makeFirm, makeUser } from "./support/factory";
+import { uploadAndLoad } from "./support/populations";
+import { drawSample, planSample } from "./support/samples";
+import * as reconcile from "@/app/api/engagements/[engagementId]/populations/[populationId]/reconciliation/route";
+import * as advisor from "@/app/api/engagements/[engagementId]/samples/[sampleId]/advisor/route";
+import * as advisorRun from "@/app/api/engagements/[engagementId]/samples/[sampleId]/advisor/[runId]/route";
+import * as adopt from "@/app/api/engagements/[engagementId]/samples/[sampleId]/advisor/[runId]/adopt/route";
+
+vi.mock("@/lib/auth/session-user", async () => (await import("./support/session")).sessionModule);
+
+let senior: number, staff: number, outsider: number, engagement: number, populationId: number, ratioSample: number, musSample: number;
+const N = 3000;
+
+beforeAll(async () => {
+  const firm = await makeFirm();
+  [senior, staff, outsider] = await Promise.all([makeUser(firm, "senior"), makeUser(firm, "staff"), makeUser(firm, "senior")]);
+  const manager = await makeUser(firm, "manager");
+  engagement = await makeEngagement(firm, manager, [[manager, "manager"], [senior, "senior"], [staff, "staff"]]);
+  await makeEngagement(firm, manager, [[manager, "manager"], [outsider, "senior"]]);
+  const rng = createRng(31);
+  const lines = Array.from({ length: N }, (_, i) => `L${String(i + 1).padStart(5, "0")},${(5 + 4000 * rng.nextDouble() ** 2).toFixed(2)}`);
+  const { loaded } = await uploadAndLoad(senior, engagement, "ledger.csv", `ref,amount\n${lines.join("\n")}\n`, { itemRefColumn: "ref", bookValueColumn: "amount" });
+  populationId = loaded!.last.populationId;
+  await call(reconcile.POST, "POST", { as: senior, params: { engagementId: String(engagement), populationId: String(populationId) }, body: { controlTotal: loaded!.last.total, controlCount: loaded!.last.rowCount } });
+  ratioSample = (await planSample(senior, engagement, { populationId, params: { method: "random", estimator: "ratio", confidence: 0.95, tolerableMisstatement: "200000", sampleSize: 60, sizeReason: "advisor test" } })).json.sample.id;
+  musSample = (await planSample(senior, engagement, { populationId, params: { method: "mus", confidence: 0.95, tolerableMisstatement: "200000" } })).json.sample.id;
+});
+
+afterAll(async () => {
+  await getDb().destroy();
+});
+
+const at = (sampleId: number, extra: Record<string, string> = {}) => ({ engagementId: String(engagement), sampleId: String(sampleId), ...extra });
+const scenario = { kind: "pattern", misstatedPercent: 10, tainting: "mostly-small", overstatementPercent: 90 };
+
+describe("estimator advisor API", () => {
+  it("starts a run, streams progress, and returns every estimator at every size with a recommendation", async () => {
+    const r = await callEvents(advisor.POST, "POST", { as: senior, params: at(ratioSample), body: { scenario, sampleSizes: [30, 60], trials: 3000, seed: 7 } });
+    expect(r.status).toBe(200);
+    expect(r.events[0]).toMatchObject({ type: "started", total: 6000 });
+    expect(r.events.some((e) => e.type === "progress")).toBe(true);
+    expect(r.last).toMatchObject({ type: "result", cached: false });
+    const run = r.last.run;
+    expect(run.status).toBe("done");
+    expect(run.request).toMatchObject({ seed: 7, seedSource: "entered", sampleSizes: [30, 60], confidence: 0.95, sides: "lower", plannedSize: 60 });
+    expect(run.result.cells.map((c: { estimator: string; sampleSize: number }) => `${c.estimator}@${c.sampleSize}`).sort())
+      .toEqual(["difference@30", "difference@60", "mean-per-unit@30", "mean-per-unit@60", "ratio@30", "ratio@60", "regression@30", "regression@60"]);
+    for (const c of run.result.cells) expect(c.performance.histogram.reduce((s: number, b: { count: number }) => s + b.count, 0)).toBe(3000);
+    expect(run.result.recommendation.sampleSize).toBe(60);
+    expect(run.result.recommendation.verdicts).toHaveLength(4);
+    expect(run.result.truth.items).toBe(N);
+    expect(await auditCount({ entity: "advisor_run", action: "done" })).toBeGreaterThanOrEqual(1);
+  });
+
+  it("answers the same population, scenario, sizes, trials and seed from the cache with the same figures", async () => {
+    const body = { scenario, sampleSizes: [60, 30], trials: 3000, seed: 7 };
+    const again = await callEvents(advisor.POST, "POST", { as: senior, params: at(ratioSample), body });
+    expect(again.events).toHaveLength(1);
+    expect(again.last).toMatchObject({ type: "result", cached: true });
+    const fresh = await callEvents(advisor.POST, "POST", { as: senior, params: at(ratioSample), body: { ...body, trials: 3001 } });
+    expect(fresh.last.cached).toBe(false);
+    const a = again.last.run.result.cells.find((c: { estimator: string; sampleSize: number }) => c.estimator === "ratio" && c.sampleSize === 30);
+    const b = fresh.last.run.result.cells.find((c: { estimator: string; sampleSize: number }) => c.estimator === "ratio" && c.sampleSize === 30);
+    expect(b.performance.bias).not.toBe(a.performance.bias);
+  });
+
+  it("adds the Stringer bound for a monetary-unit plan", async () => {
+    const r = await callEvents(advisor.POST, "POST", { as: senior, params: at(musSample), body: { scenario, sampleSizes: [50], trials: 1000, seed: 3 } });
+    const cells = r.last.run.result.cells;
+    expect(cells.map((c: { estimator: string }) => c.estimator)).toContain("stringer");
+    expect(cells.find((c: { estimator: string }) => c.estimator === "stringer").interval).toBeGreaterThan(0);
+  });
+
+  it("can be cancelled while it runs", async () => {
+    const res = await callRaw(advisor.POST, "POST", { as: senior, params: at(ratioSample), body: { scenario, sampleSizes: [1000, 2000, 2500], trials: 50000 } });
+    const reader = res.body!.getReader();
+    const decoder = new TextDecoder();
+    let text = "";
+    while (!text.includes("\n")) text += decoder.decode((await reader.read()).value, { stream: true });
+    const started = JSON.parse(text.split("\n")[0]);
+    expect(started.type).toBe("started");
+    const cancel = await callRaw(advisorRun.DELETE, "DELETE", { as: senior, params: at(ratioSample, { runId: String(started.runId) }) });
+    expect(cancel.status).toBe(204);
+    for (let chunk = await reader.read(); !chunk.done; chunk = await reader.read()) text += decoder.decode(chunk.value, { stream: true });
+    expect(JSON.parse(text.trim().split("\n").at(-1)!)).toEqual({ type: "cancelled", runId: started.runId });
+    const stored = await call(advisorRun.GET, "GET", { as: senior, params: at(ratioSample, { runId: String(started.runId) }) });
+    expect(stored.json.run.status).toBe("cancelled");
+    expect((await callRaw(advisorRun.DELETE, "DELETE", { as: senior, params: at(ratioSample, { runId: String(started.runId) }) })).status).toBe(409);
+  });
+
+  it("404 for another engagement's user, 403 below senior, 400 naming the field", async () => {
+    expect((await call(advisor.POST, "POST", { as: outsider, params: at(ratioSample), body: { scenario, sampleSizes: [30] } })).status).toBe(404);
+    expect((await call(advisor.GET, "GET", { as: outsider, params: at(ratioSample) })).status).toBe(404);
+    expect((await call(advisor.POST, "POST", { as: staff, params: at(ratioSample), body: { scenario, sampleSizes: [30] } })).status).toBe(403);
+    const big = await call(advisor.POST, "POST", { as: senior, params: at(ratioSample), body: { scenario, sampleSizes: [N + 1] } });
+    expect(big.status).toBe(400);
+    expect(big.json.error.fields.sampleSizes[0]).toMatch(/more than the population's 3000 items/);
+    const share = await call(advisor.POST, "POST", { as: senior, params: at(ratioSample), body: { scenario: { ...scenario, misstatedPercent: 150 }, sampleSizes: [30] } });
+    expect(share.status).toBe(400);
+    expect(share.json.error.fields["scenario.misstatedPercent"][0]).toMatch(/at most 100%/);
+    const noResults = await call(advisor.POST, "POST", { as: senior, params: at(ratioSample), body: { scenario: { kind: "previous-sample", sampleId: musSample }, sampleSizes: [30] } });
+    expect(noResults.status).toBe(409);
+    expect(noResults.json.error.message).toMatch(/no recorded audited values/);
+  });
+
+  it("adopts a finished run as the plan's rationale, and refuses new runs once the sample is drawn", async () => {
+    const list = await call(advisor.GET, "GET", { as: staff, params: at(ratioSample) });
+    expect(list.json.canRun).toBe(true);
+    const done = list.json.runs.find((r: { status: string }) => r.status === "done");
+    const cancelled = list.json.runs.find((r: { status: string }) => r.status === "cancelled");
+    expect((await call(adopt.POST, "POST", { as: senior, params: at(ratioSample, { runId: String(cancelled.id) }), body: {} })).status).toBe(409);
+    expect((await call(adopt.POST, "POST", { as: staff, params: at(ratioSample, { runId: String(done.id) }), body: {} })).status).toBe(403);
+    const ok = await call(adopt.POST, "POST", { as: senior, params: at(ratioSample, { runId: String(done.id) }), body: {} });
+    expect(ok.status).toBe(200);
+    expect(ok.json.adopted.id).toBe(done.id);
+    expect(ok.json.adopted.result.recommendation).toBeTruthy();
+    expect(await auditCount({ entity: "sample", action: "adopt-advisor-run" })).toBe(1);
+    expect((await drawSample(senior, engagement, ratioSample, 11)).status).toBe(201);
+    const after = await call(advisor.POST, "POST", { as: senior, params: at(ratioSample), body: { scenario, sampleSizes: [30] } });
+    expect(after.status).toBe(409);
+    expect((await call(advisor.GET, "GET", { as: staff, params: at(ratioSample) })).json.canRun).toBe(false);
+  });
+});
