@@ -24,7 +24,8 @@ export function cancelAdvisorRun(runId: number): boolean {
 
 // Unbundled (tests, scripts) the worker source is TypeScript, so a small bootstrap loads it through
 // tsx. In the built app the bundler rewrites the URL to the compiled worker chunk.
-const fromSource = import.meta.url.endsWith(".ts");
+// (import.meta.url still names runner.ts inside the bundle, so Next's own runtime flag tells them apart.)
+const fromSource = !process.env.NEXT_RUNTIME;
 
 function spawnWorker(job: AdvisorJob): Worker {
   if (fromSource) {

@@ -12,8 +12,8 @@ import { sidesFor } from "@/lib/samples/evaluate";
 import type { AdvisorRun } from "@/lib/validation/advisor";
 import { AdvisorCancelled, AdvisorInputError, cancelAdvisorRun, runInWorker } from "./runner";
 import { jobUnits, type AdvisorJob } from "./compute";
+import { ADVISED_METHODS } from "./methods";
 
-export const ADVISED_METHODS: readonly SampleRecord["method"][] = ["random", "systematic", "mus"];
 
 /** 409 unless the advisor applies: a plan not yet drawn, with a classical or monetary-unit method. */
 export function assertAdvisable(sample: SampleRecord) {

@@ -2,7 +2,7 @@ import "server-only";
 import type { Knex } from "knex";
 import { getAdoptedAdvisorRun, type AdvisorRunRecord } from "@/lib/data/advisor-runs";
 import { listSamplesByEngagementId, type SampleRecord } from "@/lib/data/samples";
-import { ADVISED_METHODS } from "./start-run";
+import { ADVISED_METHODS } from "./methods";
 
 /** What the advisor panel needs: whether it applies, earlier runs, the adopted one, and samples to borrow misstatements from. */
 export async function loadAdvisorState(db: Knex, sample: SampleRecord, runs: AdvisorRunRecord[]) {

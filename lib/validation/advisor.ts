@@ -24,15 +24,16 @@ export const AdvisorScenarioSchema = z.discriminatedUnion("kind", [
   }),
 ], "Choose how the misstatements are assumed");
 
-const sizes = z.array(z.coerce.number({ error: "Each sample size must be a number" }).int("Sample sizes are whole items").min(3, "Each sample size must be at least 3").max(20_000, "Each sample size must be at most 20,000"))
+/** Sample sizes as a list, or as typed in a form ("30, 60, 120"). */
+const sizes = z.preprocess((v) => (typeof v === "string" ? v.split(/[\s,;]+/).filter(Boolean) : v), z.array(z.coerce.number({ error: "Each sample size must be a number" }).int("Sample sizes are whole items").min(3, "Each sample size must be at least 3").max(20_000, "Each sample size must be at most 20,000"))
   .min(1, "Give at least one sample size").max(6, "At most 6 sample sizes")
-  .refine((s) => new Set(s).size === s.length, "Give each sample size once");
+  .refine((s) => new Set(s).size === s.length, "Give each sample size once"));
 
 export const AdvisorRunSchema = z.object({
   scenario: AdvisorScenarioSchema,
   sampleSizes: sizes,
   trials: z.coerce.number({ error: "Trials must be a number" }).int("Trials are whole numbers").min(200, "At least 200 trials").max(50_000, "At most 50,000 trials").default(10_000),
-  seed: z.coerce.number().int("The seed is a whole number").min(0).max(4294967295, "The seed is at most 4294967295").optional(),
+  seed: z.preprocess((v) => (v === "" || v === null ? undefined : v), z.coerce.number({ error: "The seed is a whole number" }).int("The seed is a whole number").min(0, "The seed is at least 0").max(4294967295, "The seed is at most 4294967295").optional()),
 });
 export type AdvisorRunInput = z.input<typeof AdvisorRunSchema>;
 export type AdvisorRun = z.output<typeof AdvisorRunSchema>;

@@ -4,6 +4,8 @@ import type { SampleItemRecord } from "@/lib/data/sample-items";
 import { listNotesBySampleId } from "@/lib/review/notes";
 import { listSampleAuditTrail } from "@/lib/review/audit-trail";
 import { sidesFor } from "@/lib/samples/evaluate";
+import { getAdoptedAdvisorRun } from "@/lib/data/advisor-runs";
+import { methodRationaleBlock } from "@/lib/advisor/describe";
 import { loadSampleWithEvaluation, type SampleView } from "@/lib/samples/context";
 import { recipeForSample } from "@/lib/samples/recipe-for-sample";
 import { workpaperReferenceFor } from "@/lib/review/lock";
@@ -33,11 +35,12 @@ const SYMBOLS: Record<string, { meaning: string; kind: "money" | "rate" | "count
 export async function assembleWorkpaper(db: Knex, { engagementId, sampleId, draft, lock }: { engagementId: number; sampleId: number; draft: boolean; lock?: { lockedByName: string; role: string; lockedAt: Date; reference: string } }): Promise<WorkpaperData> {
   const { view, items, evaluation } = await loadSampleWithEvaluation(db, { engagementId, sampleId });
   const { sample, population, engagement, currentDraw, review } = view;
-  const [firm, notes, trail, recipe] = await Promise.all([
+  const [firm, notes, trail, recipe, adoptedRun] = await Promise.all([
     db("firms").where({ id: engagement.firmId }).first("name"),
     listNotesBySampleId(db, { sampleId }),
     listSampleAuditTrail(db, { sampleId, query: { kind: "all" } }),
     currentDraw ? recipeForSample(db, { sample }) : Promise.resolve(""),
+    getAdoptedAdvisorRun(db, { sampleId }),
   ]);
   const tolerable = money(Number(sample.params.tolerableMisstatement ?? engagement.performanceMateriality));
   const active = items.filter((i) => i.status !== "void");
@@ -60,6 +63,7 @@ export async function assembleWorkpaper(db: Knex, { engagementId, sampleId, draf
       frameCount: plan.frameSize, frameTotal: plan.frameTotal,
     },
     plan: planBlock(sample, tolerable),
+    methodRationale: adoptedRun?.result ? methodRationaleBlock(adoptedRun, sample.planVersion) : null,
     selection: {
       seed: currentDraw?.seed ?? 0, seedSource: currentDraw?.seedSource ?? "generated", algorithm: currentDraw?.algorithm ?? "not drawn", algorithmVersion: currentDraw?.algorithmVersion ?? "",
       drawVersion: currentDraw?.version ?? 0, drawnBy: currentDraw?.drawnByName ?? "", drawnAt: currentDraw?.drawnAt ?? new Date(0).toISOString(),

@@ -4,6 +4,7 @@ import { formatByKind, formatMoney } from "./format";
 import { Callout, Facts, Section, SubHead, Table } from "./primitives";
 import { s } from "./styles";
 import { methodTitle } from "./title-block";
+import { MethodRationale } from "./method-rationale-section";
 import type { PlanBlock, WorkpaperData } from "./workpaper-data";
 
 const ESTIMATORS: Record<string, string> = {
@@ -89,6 +90,7 @@ export function PlanSection({ data }: { data: WorkpaperData }) {
       )}
       <StrataPlan plan={plan} currency={c} />
       {plan.warnings.map((w, i) => <Callout key={i} tone="warning">{w}</Callout>)}
+      <MethodRationale data={data} />
     </Section>
   );
 }

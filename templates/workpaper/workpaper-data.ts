@@ -12,6 +12,9 @@
  * - Optional facts are `null`, never omitted, so a missing value is visible in review.
  */
 import type { Estimator, FactorMode, Sides, StratifiedEstimator } from "@/lib/sampling";
+import type { MethodRationaleBlock } from "@/lib/advisor/describe";
+
+export type { MethodRationaleBlock };
 
 export type Money = string;
 export type IsoTime = string;
@@ -35,6 +38,8 @@ export interface WorkpaperData {
   objective: ObjectiveBlock;
   population: PopulationBlock;
   plan: PlanBlock;
+  /** The estimator advisor run kept with the plan as the rationale for the method, if any. */
+  methodRationale: MethodRationaleBlock | null;
   selection: SelectionBlock;
   items: WorkpaperItem[];
   evaluation: EvaluationBlock;

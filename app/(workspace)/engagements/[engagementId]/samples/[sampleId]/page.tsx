@@ -13,6 +13,10 @@ import { listNotesBySampleId } from "@/lib/review/notes";
 import { Alert } from "@/components/ui/alert";
 import { ReviewPanel } from "@/components/review/review-panel";
 import { FieldworkFiles } from "@/components/review/fieldwork-files";
+import { AdvisorPanel } from "@/components/advisor/advisor-panel";
+import { loadAdvisorState } from "@/lib/advisor/state";
+import { ADVISED_METHODS } from "@/lib/advisor/methods";
+import { listAdvisorRunsBySampleId } from "@/lib/data/advisor-runs";
 
 export const metadata: Metadata = { title: "Sample" };
 
@@ -23,7 +27,11 @@ export default async function SamplePage({ params }: { params: Promise<{ engagem
   const { sample, population } = view;
   const locked = Boolean(view.review.lock);
   const senior = hasAtLeastRole(role, "senior") && !locked;
-  const notes = await listNotesBySampleId(getDb(), { sampleId: sample.id });
+  const advised = ADVISED_METHODS.includes(sample.method);
+  const [notes, advisor] = await Promise.all([
+    listNotesBySampleId(getDb(), { sampleId: sample.id }),
+    advised ? listAdvisorRunsBySampleId(getDb(), { sampleId: sample.id }).then((runs) => loadAdvisorState(getDb(), sample, runs)) : null,
+  ]);
   const items = drawnItems.filter((i) => i.status !== "void").map((i) => ({ id: i.id, itemRef: i.itemRef }));
   const editHref = senior && sample.status === "planned" ? `/engagements/${engagement.id}/samples/${sample.id}/edit` : null;
   return (
@@ -39,6 +47,12 @@ export default async function SamplePage({ params }: { params: Promise<{ engagem
         may={{ record: hasAtLeastRole(role, "staff") && !locked, draw: senior }}
         planSummary={<PlanSummary sample={sample} currency={engagement.currency} performanceMateriality={engagement.performanceMateriality} editHref={editHref} />}
       />
+      {advisor && (sample.status === "planned" || advisor.adopted) && (
+        <div className="mt-6">
+          <AdvisorPanel engagementId={engagement.id} sampleId={sample.id} initial={advisor} mayRun={senior} currency={engagement.currency}
+            plannedSize={sample.chosenSize} populationItems={population.rowCount} />
+        </div>
+      )}
       {locked && <div className="mt-6"><Alert tone="info">This sample is locked. Its workpaper is final and every part of it is read-only; a partner can unlock it with a reason.</Alert></div>}
       <div className="mt-6 grid gap-6 lg:grid-cols-2">
         <ReviewPanel engagementId={engagement.id} sampleId={sample.id} role={role} review={view.review} notes={notes} drawn={Boolean(view.currentDraw)} />

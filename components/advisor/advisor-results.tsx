@@ -1,0 +1,88 @@
+import type { AdvisedEstimator } from "@/lib/sampling";
+import { ADVISED_ESTIMATOR_LABELS } from "@/lib/sampling/advise";
+import type { AdvisorRunRecord } from "@/lib/data/advisor-runs";
+import { boundInWords, scenarioInWords } from "@/lib/advisor/describe";
+import { formatAmount } from "@/components/ui/amount";
+import { Badge } from "@/components/ui/badge";
+import { ESTIMATOR_COLOURS, EstimateHistogram, SizeChart, compactFigure } from "./advisor-charts";
+
+const pct = (v: number) => `${(v * 100).toFixed(1)}%`;
+
+/** A finished run: the recommendation, the figures at every size, histograms and the size charts. */
+export function AdvisorResults({ run, currency }: { run: AdvisorRunRecord; currency: string }) {
+  const result = run.result!;
+  const rec = result.recommendation;
+  const sizes = run.request.sampleSizes;
+  const estimators = [...new Set(result.cells.map((c) => c.estimator))] as AdvisedEstimator[];
+  const atSize = result.cells.filter((c) => c.sampleSize === rec.sampleSize);
+  const from = Math.min(...atSize.flatMap((c) => c.performance.histogram.map((b) => b.from)), result.truth.auditedTotal);
+  const to = Math.max(...atSize.flatMap((c) => c.performance.histogram.map((b) => b.to)), result.truth.auditedTotal);
+  const series = (pick: (c: (typeof result.cells)[number]) => number) =>
+    estimators.map((estimator) => ({ estimator, points: result.cells.filter((c) => c.estimator === estimator).map((c) => ({ sampleSize: c.sampleSize, value: pick(c) })) }));
+
+  return (
+    <div className="space-y-5">
+      <section aria-label="Recommendation" className={`rounded-md border px-4 py-3 ${rec.recommended ? "border-ledger-500/40 bg-ledger-50" : "border-amber-500/40 bg-amber-50"}`}>
+        <p className="font-medium text-ink">{rec.recommended ? `Recommended: ${ADVISED_ESTIMATOR_LABELS[rec.recommended]}` : "No estimator meets the confidence"}</p>
+        <p className="mt-1 text-sm text-ink-soft">{rec.summary}</p>
+        <ul className="mt-2 space-y-1 text-sm text-ink">
+          {rec.verdicts.map((v) => <li key={v.estimator} className="flex gap-2"><span aria-hidden>{v.verdict === "recommended" ? "✓" : "·"}</span><span>{v.reason}</span></li>)}
+        </ul>
+      </section>
+
+      <dl className="grid gap-x-6 gap-y-1 text-sm sm:grid-cols-2">
+        <div className="flex gap-2"><dt className="text-ink-soft">Assumed misstatements</dt><dd className="text-ink">{scenarioInWords(run.request)}</dd></div>
+        <div className="flex gap-2"><dt className="text-ink-soft">True audited total under it</dt><dd className="figures text-ink">{currency} {formatAmount(result.truth.auditedTotal)} (misstatement {formatAmount(result.truth.misstatement)}, {result.truth.misstatedItems.toLocaleString("en-US")} items)</dd></div>
+        <div className="flex gap-2"><dt className="text-ink-soft">Trials, seed</dt><dd className="figures text-ink">{run.request.trials.toLocaleString("en-US")} per size · seed {run.request.seed} ({run.request.seedSource})</dd></div>
+        <div className="flex gap-2"><dt className="text-ink-soft">Bound tested</dt><dd className="text-ink">{boundInWords(run.request)}</dd></div>
+      </dl>
+
+      <div className="overflow-x-auto">
+        <table className="w-full text-sm">
+          <caption className="sr-only">Estimator performance by sample size</caption>
+          <thead className="text-left text-xs uppercase tracking-wider text-ink-soft">
+            <tr><th className="py-1.5 pr-3">n</th><th className="pr-3">Estimator</th><th className="pr-3 text-right">Bias</th><th className="pr-3 text-right">Std deviation</th><th className="pr-3 text-right">RMSE</th><th className="pr-3 text-right">Coverage</th><th className="text-right">Mean allowance</th></tr>
+          </thead>
+          <tbody>
+            {sizes.flatMap((n) => result.cells.filter((c) => c.sampleSize === n).map((c, i) => {
+              const best = n === rec.sampleSize && c.estimator === rec.recommended;
+              const short = c.performance.coverage < rec.coverageFloor;
+              return (
+                <tr key={`${n}-${c.estimator}`} className={`border-t border-ink-line ${best ? "bg-ledger-50" : ""}`}>
+                  <td className="figures py-1.5 pr-3 text-ink-soft">{i === 0 ? n : ""}</td>
+                  <td className="pr-3 text-ink">{ADVISED_ESTIMATOR_LABELS[c.estimator]} {best && <Badge tone="green">recommended</Badge>}</td>
+                  <td className="figures pr-3 text-right">{formatAmount(c.performance.bias)}</td>
+                  <td className="figures pr-3 text-right">{formatAmount(c.performance.standardDeviation)}</td>
+                  <td className="figures pr-3 text-right font-medium">{formatAmount(c.performance.rmse)}</td>
+                  <td className={`figures pr-3 text-right ${short ? "text-brick-700" : ""}`}>{pct(c.performance.coverage)}</td>
+                  <td className="figures text-right">{formatAmount(c.performance.meanAllowance)}</td>
+                </tr>
+              );
+            }))}
+          </tbody>
+        </table>
+        <p className="mt-1 text-xs text-ink-faint">Coverage: share of trials whose bound held the true audited total. Below {pct(rec.coverageFloor)} (the confidence less two Monte Carlo standard errors) counts as short.</p>
+      </div>
+
+      <div>
+        <h3 className="mb-2 text-sm font-medium text-ink">Estimates of the audited total at n = {rec.sampleSize}, {run.request.trials.toLocaleString("en-US")} trials each</h3>
+        <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-3">
+          {atSize.map((c) => <EstimateHistogram key={c.estimator} estimator={c.estimator} bins={c.performance.histogram} truth={result.truth.auditedTotal} from={from} to={to} />)}
+        </div>
+      </div>
+
+      {sizes.length > 1 && (
+        <div className="grid gap-3 md:grid-cols-2">
+          <SizeChart title="RMSE against sample size" series={series((c) => c.performance.rmse)} format={compactFigure} yMin={0} />
+          <SizeChart title="Coverage against sample size" series={series((c) => c.performance.coverage)} format={(v) => `${(v * 100).toFixed(0)}%`} reference={{ value: run.request.confidence, label: `confidence ${pct(run.request.confidence)}` }} />
+        </div>
+      )}
+      {sizes.length > 1 && (
+        <p className="flex flex-wrap gap-3 text-xs text-ink-soft">
+          {estimators.map((e) => <span key={e} className="inline-flex items-center gap-1.5"><span aria-hidden className="inline-block h-2.5 w-2.5 rounded-sm" style={{ background: ESTIMATOR_COLOURS[e] }} />{ADVISED_ESTIMATOR_LABELS[e]}</span>)}
+        </p>
+      )}
+      {result.notes.map((n) => <p key={n} className="text-xs text-ink-soft">{n}</p>)}
+    </div>
+  );
+}
