@@ -44,7 +44,7 @@ export interface SeriesPoint { sampleSize: number; value: number }
 export function SizeChart({ title, series, format, reference, yMin }: {
   title: string; series: { estimator: AdvisedEstimator; points: SeriesPoint[] }[]; format: (v: number) => string; reference?: { value: number; label: string }; yMin?: number;
 }) {
-  const W = 340, H = 190, L = 52, R = 12, T = 14, B = 28;
+  const W = 340, H = 190, L = 52, R = 26, T = 14, B = 28;
   const sizes = [...new Set(series.flatMap((s) => s.points.map((p) => p.sampleSize)))].sort((a, b) => a - b);
   const values = series.flatMap((s) => s.points.map((p) => p.value)).concat(reference ? [reference.value] : []);
   const lo = yMin ?? Math.min(0, ...values);

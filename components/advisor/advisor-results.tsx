@@ -65,7 +65,7 @@ export function AdvisorResults({ run, currency }: { run: AdvisorRunRecord; curre
       </div>
 
       <div>
-        <h3 className="mb-2 text-sm font-medium text-ink">Estimates of the audited total at n = {rec.sampleSize}, {run.request.trials.toLocaleString("en-US")} trials each</h3>
+        <h3 className="mb-2 text-sm font-medium text-ink">Estimates of the audited total at n = {rec.sampleSize}, {run.request.trials.toLocaleString("en-US")} trials each, on one scale</h3>
         <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-3">
           {atSize.map((c) => <EstimateHistogram key={c.estimator} estimator={c.estimator} bins={c.performance.histogram} truth={result.truth.auditedTotal} from={from} to={to} />)}
         </div>

@@ -1,5 +1,5 @@
 /**
- * `npm run bench`: the engine benchmark, then the import benchmark, each in its own process so one
+ * `npm run bench`: the engine, estimator-advisor and import benchmarks, each in its own process so one
  * cannot skew the other's memory or timings. Exits non-zero when either fails (an error, a
  * mismatch or a missed goal); both run regardless, so every figure is printed.
  */
@@ -7,7 +7,7 @@ import { spawn } from "node:child_process";
 import path from "node:path";
 
 const ROOT = path.resolve(import.meta.dirname, "../..");
-const BENCHES = ["tests/bench/engine.bench.ts", "tests/bench/import.bench.ts"];
+const BENCHES = ["tests/bench/engine.bench.ts", "tests/bench/advisor.bench.ts", "tests/bench/import.bench.ts"];
 
 function runBench(file: string): Promise<number> {
   return new Promise((resolve) => {
