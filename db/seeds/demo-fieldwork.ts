@@ -53,7 +53,13 @@ async function main(baseUrl: string) {
       : { status: "done", auditedValue: it.bookValue, comment: "Agreed to confirmation" };
     await staff.json(`${base}/samples/${sample.id}/items/${it.id}`, { method: "PATCH", headers: { "content-type": "application/json" }, body: JSON.stringify({ version: it.version, ...body }) });
   }
-  console.log(`demo fieldwork: ${loaded.rowCount} ledger lines loaded, sample ${sample.id} drawn, 24 results recorded`);
+  // A classical plan left undrawn, so the estimator advisor can be tried on the demo ledger (it can
+  // also borrow the misstatements found in the confirmation sample above).
+  const { sample: valuation } = await senior.json<{ sample: { id: number } }>(`${base}/samples`, {
+    method: "POST", headers: { "content-type": "application/json" },
+    body: JSON.stringify({ populationId: loaded.populationId, name: "Receivables valuation — classical estimate", objective: "Estimate the audited value of trade receivables to test their valuation at the period end.", assertion: "Valuation", direction: "overstatement", params: { method: "random", estimator: "difference", confidence: 0.95, tolerableMisstatement: "60000", sampleSize: 120, sizeReason: "Planned size to be confirmed with the estimator advisor before drawing" } }),
+  });
+  console.log(`demo fieldwork: ${loaded.rowCount} ledger lines loaded, sample ${sample.id} drawn, 24 results recorded; sample ${valuation.id} planned for the advisor`);
 }
 
 main(process.argv[2] ?? "http://127.0.0.1:3000").catch((err: unknown) => {

@@ -13,6 +13,10 @@ const cancelled = new Set<number>();
 
 export const isAdvisorRunning = (runId: number) => running.has(runId);
 
+/** Workers one server process runs at once; more would only slow every run and the other requests. */
+export const MAX_CONCURRENT_RUNS = 2;
+export const advisorRunsInProgress = () => running.size;
+
 /** Stops a run in progress; false when this process is not running it. */
 export function cancelAdvisorRun(runId: number): boolean {
   const worker = running.get(runId);

@@ -10,7 +10,7 @@ import { AppError, conflict } from "@/lib/errors";
 import { loadFrame } from "@/lib/samples/population-frame";
 import { sidesFor } from "@/lib/samples/evaluate";
 import type { AdvisorRun } from "@/lib/validation/advisor";
-import { AdvisorCancelled, AdvisorInputError, cancelAdvisorRun, runInWorker } from "./runner";
+import { AdvisorCancelled, AdvisorInputError, MAX_CONCURRENT_RUNS, advisorRunsInProgress, cancelAdvisorRun, runInWorker } from "./runner";
 import { jobUnits, type AdvisorJob } from "./compute";
 import { ADVISED_METHODS } from "./methods";
 
@@ -71,6 +71,9 @@ export async function startAdvisorRun(ctx: EngagementContext, sample: SampleReco
   const cached = await findDoneAdvisorRunByKey(db, { sampleId: sample.id, cacheKey });
   if (cached) return new Response(line({ type: "result", run: cached, cached: true }), { headers });
 
+  if (advisorRunsInProgress() >= MAX_CONCURRENT_RUNS) {
+    throw new AppError(503, "busy", `The advisor is already running ${MAX_CONCURRENT_RUNS} simulations on this server; try again when one has finished.`);
+  }
   const runId = await createAdvisorRun(db, { engagementId: ctx.engagementId, sampleId: sample.id, populationId: sample.populationId, planVersion: sample.planVersion, cacheKey, request, actorId: ctx.user.id });
   const job: AdvisorJob = {
     bookValues: frame.bookValues, scenario: request.scenario, sampleSizes: request.sampleSizes, trials: request.trials, seed: request.seed,

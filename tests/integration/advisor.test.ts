@@ -92,6 +92,23 @@ describe("estimator advisor API", () => {
     expect((await callRaw(advisorRun.DELETE, "DELETE", { as: senior, params: at(ratioSample, { runId: String(started.runId) }) })).status).toBe(409);
   });
 
+  it("runs at most two simulations at once per server, answering 503 with the reason", async () => {
+    const long = { scenario, sampleSizes: [1000, 2000, 2500], trials: 50000 };
+    const starts = await Promise.all([0, 1].map(async () => {
+      const res = await callRaw(advisor.POST, "POST", { as: senior, params: at(ratioSample), body: long });
+      const reader = res.body!.getReader();
+      const first = new TextDecoder().decode((await reader.read()).value);
+      return { reader, runId: JSON.parse(first.split("\n")[0]).runId as number };
+    }));
+    const third = await call(advisor.POST, "POST", { as: senior, params: at(ratioSample), body: long });
+    expect(third.status).toBe(503);
+    expect(third.json.error.message).toMatch(/already running 2 simulations/);
+    for (const s of starts) {
+      expect((await callRaw(advisorRun.DELETE, "DELETE", { as: senior, params: at(ratioSample, { runId: String(s.runId) }) })).status).toBe(204);
+      while (!(await s.reader.read()).done);
+    }
+  });
+
   it("404 for another engagement's user, 403 below senior, 400 naming the field", async () => {
     expect((await call(advisor.POST, "POST", { as: outsider, params: at(ratioSample), body: { scenario, sampleSizes: [30] } })).status).toBe(404);
     expect((await call(advisor.GET, "GET", { as: outsider, params: at(ratioSample) })).status).toBe(404);
