@@ -4,7 +4,7 @@ import { createRng } from "@/lib/sampling";
 import { call, callEvents, callRaw } from "./support/call";
 import { auditCount, makeEngagement, makeFirm, makeUser } from "./support/factory";
 import { uploadAndLoad } from "./support/populations";
-import { drawSample, planSample } from "./support/samples";
+import { drawSample, listSampleItems, planSample, saveResult } from "./support/samples";
 import * as reconcile from "@/app/api/engagements/[engagementId]/populations/[populationId]/reconciliation/route";
 import * as advisor from "@/app/api/engagements/[engagementId]/samples/[sampleId]/advisor/route";
 import * as advisorRun from "@/app/api/engagements/[engagementId]/samples/[sampleId]/advisor/[runId]/route";
@@ -140,5 +140,22 @@ describe("estimator advisor API", () => {
     const after = await call(advisor.POST, "POST", { as: senior, params: at(ratioSample), body: { scenario, sampleSizes: [30] } });
     expect(after.status).toBe(409);
     expect((await call(advisor.GET, "GET", { as: staff, params: at(ratioSample) })).json.canRun).toBe(false);
+  });
+
+  it("borrows the misstatements found in an earlier sample", async () => {
+    const items = await listSampleItems(senior, engagement, ratioSample);
+    const [a, b, c] = items;
+    await saveResult(staff, engagement, ratioSample, a.id, { version: a.version, status: "done", auditedValue: a.bookValue });
+    await saveResult(staff, engagement, ratioSample, b.id, { version: b.version, status: "done", auditedValue: (Number(b.bookValue) / 2).toFixed(2), cause: "pricing" });
+    await saveResult(staff, engagement, ratioSample, c.id, { version: c.version, status: "done", auditedValue: c.bookValue });
+    const r = await callEvents(advisor.POST, "POST", { as: senior, params: at(musSample), body: { scenario: { kind: "previous-sample", sampleId: ratioSample }, sampleSizes: [40], trials: 500, seed: 5 } });
+    expect(r.last.type).toBe("result");
+    const request = r.last.run.request;
+    expect(request.scenarioSource).toMatchObject({ kind: "previous-sample", sampleId: ratioSample, results: 3 });
+    expect(request.scenario.misstatedShare).toBeCloseTo(1 / 3, 12);
+    expect(request.scenario.taintings).toHaveLength(1);
+    expect(request.scenario.taintings[0]).toBeCloseTo(0.5, 2);
+    const misstated = r.last.run.result.truth.misstatedItems / N;
+    expect(Math.abs(misstated - 1 / 3)).toBeLessThan(4 * Math.sqrt((1 / 3) * (2 / 3) / N)); // binomial, 4 SE (common practice)
   });
 });
