@@ -33,7 +33,9 @@ async function resolveScenario(db: Knex, ctx: EngagementContext, input: AdvisorR
   const previous = await getSampleById(db, { engagementId: ctx.engagementId, sampleId: s.sampleId });
   const draw = await getCurrentDraw(db, { sampleId: previous.id });
   const items = draw ? (await listItemsByDrawId(db, { drawId: draw.id })).items : [];
-  const results = items.filter((it) => it.status === "done" && it.auditedValue !== null).map((it) => ({ bookValue: Number(it.bookValue), auditedValue: Number(it.auditedValue) }));
+  // As in the evaluation, an item that could not be audited counts as wholly misstated (audited 0).
+  const results = items.filter((it) => (it.status === "done" && it.auditedValue !== null) || it.status === "not-auditable")
+    .map((it) => ({ bookValue: Number(it.bookValue), auditedValue: it.status === "not-auditable" ? 0 : Number(it.auditedValue) }));
   if (results.length === 0) throw conflict(`"${previous.name}" has no recorded audited values to take misstatements from.`);
   const observed = observedTaintings(results);
   const scenario: MisstatementScenario = { kind: "observed", misstatedShare: observed.misstatedShare, taintings: observed.taintings };

@@ -147,15 +147,17 @@ describe("estimator advisor API", () => {
     const [a, b, c] = items;
     await saveResult(staff, engagement, ratioSample, a.id, { version: a.version, status: "done", auditedValue: a.bookValue });
     await saveResult(staff, engagement, ratioSample, b.id, { version: b.version, status: "done", auditedValue: (Number(b.bookValue) / 2).toFixed(2), cause: "pricing" });
-    await saveResult(staff, engagement, ratioSample, c.id, { version: c.version, status: "done", auditedValue: c.bookValue });
+    await saveResult(staff, engagement, ratioSample, c.id, { version: c.version, status: "not-auditable", comment: "no evidence" });
     const r = await callEvents(advisor.POST, "POST", { as: senior, params: at(musSample), body: { scenario: { kind: "previous-sample", sampleId: ratioSample }, sampleSizes: [40], trials: 500, seed: 5 } });
     expect(r.last.type).toBe("result");
     const request = r.last.run.request;
     expect(request.scenarioSource).toMatchObject({ kind: "previous-sample", sampleId: ratioSample, results: 3 });
-    expect(request.scenario.misstatedShare).toBeCloseTo(1 / 3, 12);
-    expect(request.scenario.taintings).toHaveLength(1);
+    // The unauditable item counts as wholly misstated, as in the evaluation.
+    expect(request.scenario.misstatedShare).toBeCloseTo(2 / 3, 12);
+    expect(request.scenario.taintings).toHaveLength(2);
     expect(request.scenario.taintings[0]).toBeCloseTo(0.5, 2);
+    expect(request.scenario.taintings[1]).toBe(1);
     const misstated = r.last.run.result.truth.misstatedItems / N;
-    expect(Math.abs(misstated - 1 / 3)).toBeLessThan(4 * Math.sqrt((1 / 3) * (2 / 3) / N)); // binomial, 4 SE (common practice)
+    expect(Math.abs(misstated - 2 / 3)).toBeLessThan(4 * Math.sqrt((2 / 3) * (1 / 3) / N)); // binomial, 4 SE (common practice)
   });
 });
