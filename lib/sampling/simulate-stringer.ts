@@ -4,7 +4,7 @@
  */
 import { poissonFactors } from "./poisson-factor";
 import { createRng } from "./rng";
-import { histogram, PROGRESS_EVERY, type EstimatorPerformance } from "./simulate";
+import { PROGRESS_EVERY, summariseTrials, type EstimatorPerformance } from "./simulate";
 import { SIDES, type FactorMode, FACTOR_MODES, type SampledItem, type Sides } from "./types";
 import { toCentsFast } from "./money";
 import { requireArray, requireInteger, requireObject, requireOneOf, requireOpenFraction, requireSeed } from "./validate";
@@ -154,16 +154,8 @@ export function simulateStringer(o: {
     if (o.onProgress && (t + 1) % PROGRESS_EVERY === 0) o.onProgress(t + 1);
   }
 
-  let sum = 0;
-  for (const v of estimates) sum += v;
-  const meanEstimate = sum / trials;
-  let squares = 0;
-  for (const v of estimates) squares += (v - meanEstimate) * (v - meanEstimate);
-  const bias = (meanEstimate - truthCents) / 100;
-  const standardDeviation = Math.sqrt(squares / trials) / 100;
   return {
-    meanEstimate: meanEstimate / 100, bias, standardDeviation, rmse: Math.sqrt(bias * bias + standardDeviation * standardDeviation),
-    coverage: covered / trials, meanAllowance: allowanceSum / trials / 100, histogram: histogram(estimates),
+    ...summariseTrials(estimates, truthCents, covered, allowanceSum),
     interval: J / 100, topStratumItems,
   };
 }

@@ -55,6 +55,22 @@ export function histogram(values: Float64Array): HistogramBin[] {
   return counts.map((count, b) => ({ from: (min + b * width) / 100, to: (b === bins - 1 ? max : min + (b + 1) * width) / 100, count }));
 }
 
+/** Bias, spread, RMSE, coverage, mean allowance and histogram of one estimator's trial estimates (all in cents). */
+export function summariseTrials(estimates: Float64Array, truthCents: number, coveredTrials: number, allowanceSumCents: number): EstimatorPerformance {
+  const trials = estimates.length;
+  let sum = 0;
+  for (const v of estimates) sum += v;
+  const meanEstimate = sum / trials;
+  let squares = 0;
+  for (const v of estimates) squares += (v - meanEstimate) * (v - meanEstimate);
+  const bias = (meanEstimate - truthCents) / 100;
+  const standardDeviation = Math.sqrt(squares / trials) / 100;
+  return {
+    meanEstimate: meanEstimate / 100, bias, standardDeviation, rmse: Math.sqrt(bias * bias + standardDeviation * standardDeviation),
+    coverage: coveredTrials / trials, meanAllowance: allowanceSumCents / trials / 100, histogram: histogram(estimates),
+  };
+}
+
 function parsePopulation(value: unknown, needPositiveBook: boolean): { x: Float64Array; y: Float64Array } {
   const population = requireArray<SampledItem>("population", value);
   if (population.length < 2) throw new RangeError(`population must hold at least 2 items (got ${population.length})`);
@@ -153,18 +169,7 @@ export function simulateEstimators<E extends Estimator>(o: {
   }
   const result = {} as Record<E, EstimatorPerformance>;
   estimators.forEach((name, e) => {
-    const values = estimates[e];
-    let sum = 0;
-    for (const v of values) sum += v;
-    const meanEstimate = sum / trials;
-    let squares = 0;
-    for (const v of values) squares += (v - meanEstimate) * (v - meanEstimate);
-    const bias = (meanEstimate - truthCents) / 100;
-    const standardDeviation = Math.sqrt(squares / trials) / 100;
-    result[name] = {
-      meanEstimate: meanEstimate / 100, bias, standardDeviation, rmse: Math.sqrt(bias * bias + standardDeviation * standardDeviation),
-      coverage: covered[e] / trials, meanAllowance: allowanceSum[e] / trials / 100, histogram: histogram(values),
-    };
+    result[name] = summariseTrials(estimates[e], truthCents, covered[e], allowanceSum[e]);
   });
   return result;
 }
