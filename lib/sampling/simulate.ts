@@ -44,7 +44,7 @@ export function drawSimpleRandomSample(rng: Rng, permutation: Int32Array, sample
   }
 }
 
-export function histogram(values: Float64Array): HistogramBin[] {
+function histogram(values: Float64Array): HistogramBin[] {
   let min = Infinity;
   let max = -Infinity;
   for (const v of values) { if (v < min) min = v; if (v > max) max = v; }
