@@ -170,7 +170,7 @@ export function AdvisorPanel({ engagementId, sampleId, initial, mayRun, currency
               <Field label="Trials per size" error={errors.trials?.message}>
                 {({ id, describedBy, invalid }) => <Input id={id} aria-describedby={describedBy} aria-invalid={invalid} inputMode="numeric" className="figures text-right" {...register("trials")} />}
               </Field>
-              <Field label="Seed (optional)" error={errors.seed?.message} hint="Leave empty for a fresh random seed; it is stored with the run.">
+              <Field label="Simulation seed (optional)" error={errors.seed?.message} hint="Leave empty for a fresh random seed; it is stored with the run.">
                 {({ id, describedBy, invalid }) => <Input id={id} aria-describedby={describedBy} aria-invalid={invalid} inputMode="numeric" className="figures text-right" {...register("seed")} />}
               </Field>
             </div>

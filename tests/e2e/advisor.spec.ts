@@ -28,7 +28,7 @@ test("a senior runs the estimator advisor on the demo ledger, reads the recommen
   await advisor.field("Items misstated (%)").fill("8");
   await advisor.field("Size of each misstatement").selectOption("mostly-small");
   await advisor.field("Trials per size").fill("20000");
-  await advisor.field("Seed (optional)").fill("2026");
+  await advisor.field("Simulation seed (optional)").fill("2026");
   await advisor.run();
   await expect(advisor.progress()).toBeVisible();
   await expect(advisor.recommendation()).toBeVisible({ timeout: 90_000 });
