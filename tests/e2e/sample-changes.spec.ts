@@ -37,6 +37,8 @@ test("a senior edits a plan before the draw, then extends the drawn sample and r
   await test.step("drawn, then extended by five items down the same random ranking", async () => {
     await s.open("Draw");
     await s.draw("123");
+    await expect(s.tab("Results and evaluation")).toHaveAttribute("aria-selected", "true");
+    await s.open("Draw");
     await expect(page.getByRole("heading", { name: "Extend the sample" })).toBeVisible();
     await page.getByLabel("Items to add").fill("5");
     await page.getByLabel("Why the sample is extended").fill("Spread wider than planned");

@@ -52,7 +52,7 @@ export class SamplePage {
   }
 
   async draw(seed?: string) {
-    if (seed !== undefined) await this.page.getByLabel("Seed (optional)").fill(seed);
+    if (seed !== undefined) await this.page.getByLabel("Seed (optional)", { exact: true }).fill(seed);
     await this.page.getByRole("button", { name: "Draw the sample" }).click();
   }
 
