@@ -1,9 +1,9 @@
-import { requirePageUser } from "@/lib/auth/page-guards";
+import { requireWorkspaceUser } from "@/lib/auth/page-guards";
 import { TopBar } from "@/components/shell/top-bar";
 import { JudgementNote } from "@/components/shell/judgement-note";
 
 export default async function WorkspaceLayout({ children }: { children: React.ReactNode }) {
-  const user = await requirePageUser();
+  const user = await requireWorkspaceUser();
   return (
     <div className="flex min-h-screen flex-col">
       <TopBar user={user} />

@@ -33,7 +33,8 @@ export function TeamManager({ engagementId, myRole, myUserId, initialMembers }: 
     }
   }
 
-  const outside = people.filter((p) => !members.some((m) => m.userId === p.id));
+  // Client staff are invited as client contacts from a sample's client requests, never onto the team.
+  const outside = people.filter((p) => p.grade !== "client" && !members.some((m) => m.userId === p.id));
   const chosen = outside.find((p) => String(p.id) === candidate);
 
   return (
@@ -69,7 +70,8 @@ export function TeamManager({ engagementId, myRole, myUserId, initialMembers }: 
         <form className="flex flex-wrap items-end gap-3 border-t border-ink-line pt-4" onSubmit={(e) => {
           e.preventDefault();
           if (!chosen) return;
-          const role = defaultRoleForGrade(chosen.grade);
+          const suggested = defaultRoleForGrade(chosen.grade);
+          const role: EngagementRole = suggested === "client" ? "viewer" : suggested;
           void run(() => api(base, { body: { userId: chosen.id, role: hasAtLeastRole(myRole, role) ? role : "staff" } }), `${chosen.name} joined the team.`);
           setCandidate("");
         }}>

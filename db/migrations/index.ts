@@ -7,6 +7,7 @@ import * as m0005 from "./20261202_0005_samples";
 import * as m0006 from "./20261202_0006_item_evidence";
 import * as m0007 from "./20261202_0007_review";
 import * as m0008 from "./20261202_0008_advisor_runs";
+import * as m0009 from "./20261202_0009_client_requests";
 
 type Migration = { up(knex: Knex): Promise<void>; down(knex: Knex): Promise<void> };
 
@@ -20,6 +21,7 @@ const migrations: Record<string, Migration> = {
   "20261202_0006_item_evidence": m0006,
   "20261202_0007_review": m0007,
   "20261202_0008_advisor_runs": m0008,
+  "20261202_0009_client_requests": m0009,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

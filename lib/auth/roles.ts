@@ -2,6 +2,13 @@
 export const ENGAGEMENT_ROLES = ["viewer", "staff", "senior", "manager", "partner"] as const;
 export type EngagementRole = (typeof ENGAGEMENT_ROLES)[number];
 
+/**
+ * The client's own staff: members of one engagement who see only the request lists addressed to
+ * them. Deliberately outside ENGAGEMENT_ROLES, so no rank comparison can ever let them in.
+ */
+export const CLIENT_ROLE = "client" as const;
+export type MembershipRole = EngagementRole | typeof CLIENT_ROLE;
+
 /** Firm grades: an auditor's position, which sets what they may create before they join an engagement. */
 export const GRADES = ["staff", "senior", "manager", "partner", "client"] as const;
 export type Grade = (typeof GRADES)[number];
@@ -23,9 +30,9 @@ export function gradeMayCreateEngagement(grade: Grade): boolean {
   return grade === "manager" || grade === "partner";
 }
 
-/** The engagement role a grade gets by default when added to a team. */
-export function defaultRoleForGrade(grade: Grade): EngagementRole {
-  return grade === "client" ? "viewer" : grade;
+/** The membership a grade gets by default when added to an engagement: client staff become client contacts. */
+export function defaultRoleForGrade(grade: Grade): MembershipRole {
+  return grade === "client" ? CLIENT_ROLE : grade;
 }
 
 export const ROLE_LABELS: Record<EngagementRole, string> = {

@@ -40,14 +40,15 @@ function toEngagement<T extends Record<string, unknown>>(r: T): EngagementRecord
   } as unknown as EngagementRecord & Omit<T, keyof EngagementRecord>;
 }
 
-/** The engagements the user is a member of, with their role on each. */
+/** The engagements the user is on the audit team of, with their role on each (never a client contact's). */
 export async function listEngagementsByUserId(db: Knex, { userId }: { userId: number }): Promise<EngagementForUser[]> {
   const rows = await db("engagements as e")
     .join("engagement_members as m", "m.engagement_id", "e.id")
     .where("m.user_id", userId)
+    .whereNot("m.role", "client")
     .orderBy("e.period_end", "desc")
     .select({ ...columns, myRole: "m.role" })
-    .select(db.raw("(select count(*) from engagement_members t where t.engagement_id = e.id) as teamSize"));
+    .select(db.raw("(select count(*) from engagement_members t where t.engagement_id = e.id and t.role <> 'client') as teamSize"));
   return rows.map((r) => ({ ...toEngagement(r), myRole: r.myRole, teamSize: Number(r.teamSize) }));
 }
 

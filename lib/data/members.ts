@@ -1,6 +1,6 @@
 import "server-only";
 import type { Knex } from "knex";
-import { hasAtLeastRole, type EngagementRole } from "@/lib/auth/roles";
+import { CLIENT_ROLE, hasAtLeastRole, type EngagementRole, type MembershipRole } from "@/lib/auth/roles";
 import { recordAudit } from "./audit-log";
 import { AppError, forbidden, notFound } from "@/lib/errors";
 
@@ -14,15 +14,17 @@ export interface MemberRecord {
   addedAt: string;
 }
 
-export async function getMembershipRole(db: Knex, { engagementId, userId }: { engagementId: number; userId: number }): Promise<EngagementRole | null> {
+export async function getMembershipRole(db: Knex, { engagementId, userId }: { engagementId: number; userId: number }): Promise<MembershipRole | null> {
   const row = await db("engagement_members").where({ engagement_id: engagementId, user_id: userId }).first("role");
-  return row ? (row.role as EngagementRole) : null;
+  return row ? (row.role as MembershipRole) : null;
 }
 
+/** The audit team; client contacts are listed apart (lib/requests/contacts.ts). */
 export async function listMembersByEngagementId(db: Knex, { engagementId }: { engagementId: number }): Promise<MemberRecord[]> {
   const rows = await db("engagement_members as m")
     .join("users as u", "u.id", "m.user_id")
     .where("m.engagement_id", engagementId)
+    .whereNot("m.role", CLIENT_ROLE)
     .orderByRaw("field(m.role, 'partner','manager','senior','staff','viewer'), u.name")
     .select("u.id as userId", "u.name", "u.email", "u.grade", "u.active", "m.role", "m.added_at as addedAt");
   return rows.map((r) => ({ ...r, userId: Number(r.userId), active: Boolean(r.active), addedAt: new Date(r.addedAt).toISOString() }));
@@ -30,9 +32,14 @@ export async function listMembersByEngagementId(db: Knex, { engagementId }: { en
 
 interface MemberChange { engagementId: number; actorId: number; actorRole: EngagementRole; userId: number }
 
-function assertMayGrant(actorRole: EngagementRole, role: EngagementRole) {
+function assertMayGrant(actorRole: EngagementRole, role: MembershipRole) {
+  if (role === CLIENT_ROLE) throw clientOnTeam();
   if (!hasAtLeastRole(actorRole, role)) throw forbidden(`A ${actorRole} cannot give the ${role} role`);
 }
+
+const clientOnTeam = () => new AppError(400, "invalid_input",
+  "userId: client staff are not part of the audit team; invite them as a client contact from a sample's client requests",
+  { userId: ["Client staff join as client contacts, from a sample's client requests"] });
 
 /** Keeps at least one manager or partner on every engagement, so someone can always review and lock. */
 async function assertReviewerRemains(trx: Knex.Transaction, engagementId: number, exceptUserId: number) {
@@ -47,7 +54,7 @@ export async function addMember(db: Knex, { engagementId, actorId, actorRole, us
   return db.transaction(async (trx) => {
     const user = await trx("users").where({ id: userId, firm_id: firmId, active: true }).first("id", "grade");
     if (!user) throw new AppError(400, "invalid_input", "userId: no active user with that id in your firm", { userId: ["No active user with that id in your firm"] });
-    if (user.grade === "client" && role !== "viewer") throw new AppError(400, "invalid_input", "role: client staff can only be viewers", { role: ["Client staff can only be viewers"] });
+    if (user.grade === "client") throw clientOnTeam();
     const existing = await trx("engagement_members").where({ engagement_id: engagementId, user_id: userId }).first("role");
     if (existing) throw new AppError(409, "already_member", "That person is already on the team");
     await trx("engagement_members").insert({ engagement_id: engagementId, user_id: userId, role });
@@ -62,7 +69,7 @@ export async function changeMemberRole(db: Knex, { engagementId, actorId, actorR
       .where({ "m.engagement_id": engagementId, "m.user_id": userId }).forUpdate().first("m.role", "u.grade");
     if (!existing) throw notFound("That person is not on the team");
     assertMayGrant(actorRole, existing.role);
-    if (existing.grade === "client" && role !== "viewer") throw new AppError(400, "invalid_input", "role: client staff can only be viewers", { role: ["Client staff can only be viewers"] });
+    if (existing.role === CLIENT_ROLE || existing.grade === "client") throw clientOnTeam();
     if (!hasAtLeastRole(role, "manager")) await assertReviewerRemains(trx, engagementId, userId);
     await trx("engagement_members").where({ engagement_id: engagementId, user_id: userId }).update({ role });
     await recordAudit(trx, { actorUserId: actorId, engagementId, entity: "engagement_member", entityId: `${engagementId}:${userId}`, action: "change-role", before: { role: existing.role }, after: { role } });
@@ -73,7 +80,7 @@ export async function removeMember(db: Knex, { engagementId, actorId, actorRole,
   return db.transaction(async (trx) => {
     const existing = await trx("engagement_members").where({ engagement_id: engagementId, user_id: userId }).forUpdate().first("role");
     if (!existing) throw notFound("That person is not on the team");
-    assertMayGrant(actorRole, existing.role);
+    if (existing.role !== CLIENT_ROLE) assertMayGrant(actorRole, existing.role);
     await assertReviewerRemains(trx, engagementId, userId);
     await trx("engagement_members").where({ engagement_id: engagementId, user_id: userId }).delete();
     await recordAudit(trx, { actorUserId: actorId, engagementId, entity: "engagement_member", entityId: `${engagementId}:${userId}`, action: "remove", before: { userId, role: existing.role } });

@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { requirePageUser } from "@/lib/auth/page-guards";
+import { requireWorkspaceUser } from "@/lib/auth/page-guards";
 import { gradeMayCreateEngagement } from "@/lib/auth/roles";
 import { PageHeader } from "@/components/ui/page-header";
 import { buttonClass } from "@/components/ui/button";
@@ -9,7 +9,7 @@ import { EngagementList } from "@/components/engagements/engagement-list";
 export const metadata: Metadata = { title: "Engagements" };
 
 export default async function EngagementsPage() {
-  const user = await requirePageUser();
+  const user = await requireWorkspaceUser();
   return (
     <>
       <PageHeader

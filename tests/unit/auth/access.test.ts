@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { decideEngagementAccess, parseIdParam } from "@/lib/auth/access";
-import { ENGAGEMENT_ROLES, hasAtLeastRole, type EngagementRole } from "@/lib/auth/roles";
+import { CLIENT_ROLE, defaultRoleForGrade, ENGAGEMENT_ROLES, hasAtLeastRole, type EngagementRole } from "@/lib/auth/roles";
 import { AppError } from "@/lib/errors";
 
 function statusOf(fn: () => unknown): number | "allowed" {
@@ -32,6 +32,18 @@ describe("decideEngagementAccess", () => {
 
   it("answers 401 for a deactivated user even with a live session", () => {
     expect(statusOf(() => decideEngagementAccess({ userId: 7, userActive: false, membershipRole: "partner" }, "viewer"))).toBe(401);
+  });
+
+  it("answers 404 — never 403, never access — to a client contact on every auditor route, even a viewer's", () => {
+    for (const least of ENGAGEMENT_ROLES) {
+      expect(statusOf(() => decideEngagementAccess({ userId: 7, userActive: true, membershipRole: "client" }, least))).toBe(404);
+    }
+  });
+
+  it("keeps the client role outside the auditor ranks and maps client staff to it", () => {
+    expect((ENGAGEMENT_ROLES as readonly string[]).includes(CLIENT_ROLE)).toBe(false);
+    expect(defaultRoleForGrade("client")).toBe("client");
+    expect(defaultRoleForGrade("senior")).toBe("senior");
   });
 
   it("answers 404, not 403, to a user who is not on the engagement", () => {

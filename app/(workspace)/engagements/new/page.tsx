@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import { requirePageUser } from "@/lib/auth/page-guards";
+import { requireWorkspaceUser } from "@/lib/auth/page-guards";
 import { gradeMayCreateEngagement } from "@/lib/auth/roles";
 import { PageHeader } from "@/components/ui/page-header";
 import { Alert } from "@/components/ui/alert";
@@ -9,7 +9,7 @@ import { EngagementForm } from "@/components/engagements/engagement-form";
 export const metadata: Metadata = { title: "New engagement" };
 
 export default async function NewEngagementPage() {
-  const user = await requirePageUser();
+  const user = await requireWorkspaceUser();
   return (
     <>
       <PageHeader eyebrow="Engagements" title="New engagement">
