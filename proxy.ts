@@ -12,5 +12,5 @@ export async function proxy(req: NextRequest) {
 }
 
 export const config = {
-  matcher: ["/((?!api|_next/static|_next/image|sign-in|favicon.ico|icon.svg|.*\\.(?:woff2?|ttf|png|svg)$).*)"],
+  matcher: ["/((?!api|_next/static|_next/image|sign-in|invitation|favicon.ico|icon.svg|.*\\.(?:woff2?|ttf|png|svg)$).*)"],
 };

@@ -30,6 +30,8 @@ export interface SampleItemRecord {
   comment: string | null;
   voidReason: string | null;
   evidenceCount: number;
+  /** The item's status on the newest client request list that asks for it, or null when none does. */
+  requestStatus: "requested" | "provided" | "accepted" | "needs-more" | null;
   version: number;
   updatedAt: string | null;
   updatedByName: string | null;
@@ -52,7 +54,7 @@ function toItem(r: Record<string, unknown>): SampleItemRecord {
     cause: (r.cause as string | null) ?? null, causeNote: (r.cause_note as string | null) ?? null,
     deviation: r.deviation === null ? null : Boolean(r.deviation), deviationNature: (r.deviation_nature as string | null) ?? null,
     comment: (r.comment as string | null) ?? null, voidReason: (r.void_reason as string | null) ?? null,
-    evidenceCount: Number(r.evidence_count ?? 0), version: Number(r.version),
+    evidenceCount: Number(r.evidence_count ?? 0), requestStatus: (r.request_status as SampleItemRecord["requestStatus"]) ?? null, version: Number(r.version),
     updatedAt: r.updated_at ? new Date(r.updated_at as string).toISOString() : null, updatedByName: (r.updated_by_name as string | null) ?? null,
   };
 }
@@ -60,8 +62,11 @@ function toItem(r: Record<string, unknown>): SampleItemRecord {
 /** Files attached to the item and not deleted (item_evidence). */
 const evidenceCount = (db: Knex) => db.raw("(select count(*) from item_evidence e where e.sample_item_id = i.id and e.deleted_at is null) as evidence_count");
 
+/** The newest request on the item (request_items). */
+const requestStatus = (db: Knex) => db.raw("(select r.status from request_items r where r.sample_item_id = i.id order by r.id desc limit 1) as request_status");
+
 function itemQuery(db: Knex, drawId: number) {
-  const q = db("sample_items as i").leftJoin("users as u", "u.id", "i.updated_by").where("i.draw_id", drawId).select("i.*", "u.name as updated_by_name", evidenceCount(db));
+  const q = db("sample_items as i").leftJoin("users as u", "u.id", "i.updated_by").where("i.draw_id", drawId).select("i.*", "u.name as updated_by_name", evidenceCount(db), requestStatus(db));
   return q;
 }
 
@@ -72,7 +77,7 @@ export async function listItemsByDrawId(db: Knex, { drawId, page = 1, pageSize =
   const [count, rows] = await Promise.all([
     base.clone().count({ n: "*" }).first(),
     base.clone().leftJoin("users as u", "u.id", "i.updated_by").orderBy("i.selection_order").orderBy("i.id")
-      .limit(pageSize).offset((page - 1) * pageSize).select("i.*", "u.name as updated_by_name", evidenceCount(db)),
+      .limit(pageSize).offset((page - 1) * pageSize).select("i.*", "u.name as updated_by_name", evidenceCount(db), requestStatus(db)),
   ]);
   return { items: rows.map(toItem), total: Number(count?.n ?? 0), page, pageSize };
 }

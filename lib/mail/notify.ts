@@ -19,7 +19,7 @@ export interface SampleNotice {
 export interface ReviewNoteNotice extends SampleNotice { note: { text: string } }
 export interface ReviewNoteAnsweredNotice extends ReviewNoteNotice { answer: { text: string } }
 
-type SampleTemplate = Exclude<EmailTemplateName, "engagement-invitation">;
+type SampleTemplate = Exclude<EmailTemplateName, "engagement-invitation" | "client-invitation" | "request-list-sent" | "request-file-returned" | "request-reminders">;
 
 /** Each recipient once, never the actor. */
 function audience(notice: SampleNotice): Recipient[] {

@@ -6,6 +6,7 @@ import type { SampleRecord } from "@/lib/data/samples";
 import { AppError, conflict } from "@/lib/errors";
 import { putObjectBytes } from "@/lib/storage/objects";
 import { lockedError } from "@/lib/samples/guard";
+import { CLOSED_BY_LOCK, closeRequestListsOfSample } from "@/lib/requests/lists";
 import type { EngagementRole } from "@/lib/auth/roles";
 
 export type RenderFinalWorkpaper = (lockInfo: { lockedById: number; role: EngagementRole; lockedAt: Date; reference: string }) => Promise<Buffer>;
@@ -32,7 +33,8 @@ export async function lockSample(db: Knex, { sample, actorId, role, render }: { 
     if (current.locked_at) throw lockedError();
     if (!current.reviewer_signed_at) throw conflict("The reviewer sign-off was cleared while the workpaper was being rendered; sign off again.");
     await trx("samples").where({ id: sample.id }).update({ locked_by: actorId, locked_at: lockedAt, workpaper_object_key: key, workpaper_sha256: sha256, workpaper_size_bytes: pdf.length, workpaper_reference: reference });
-    await recordAudit(trx, { actorUserId: actorId, engagementId: sample.engagementId, sampleId: sample.id, entity: "sample", entityId: sample.id, action: "lock", after: { role, workpaperSha256: sha256, bytes: pdf.length, reference } });
+    await recordAudit(trx, { actorUserId: actorId, engagementId: sample.engagementId, sampleId: sample.id, entity: "sample", entityId: sample.id, action: "lock", after: { role, workpaperSha256: sha256, bytes: pdf.length, reference } });    // The workpaper is final, so the client is asked for nothing more on this sample.
+    await closeRequestListsOfSample(trx, { sampleId: sample.id, engagementId: sample.engagementId, actorId, reason: CLOSED_BY_LOCK });
   });
   return { sha256, bytes: pdf.length, reference };
 }

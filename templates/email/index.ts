@@ -5,6 +5,7 @@ import { reviewNoteCleared, type ReviewNoteClearedData } from "./review-note-cle
 import { reviewNoteRaised, type ReviewNoteRaisedData } from "./review-note-raised";
 import { sampleLocked, type SampleLockedData } from "./sample-locked";
 import { sampleReadyForReview, type SampleReadyForReviewData } from "./sample-ready-for-review";
+import { clientInvitation, requestFileReturned, requestListSent, requestReminders, type ClientInvitationData, type RequestFileReturnedData, type RequestListSentData, type RequestRemindersData } from "./client-requests";
 import type { RenderedEmail } from "./types";
 
 export interface EmailTemplateData {
@@ -14,6 +15,10 @@ export interface EmailTemplateData {
   "review-note-answered": ReviewNoteAnsweredData;
   "review-note-cleared": ReviewNoteClearedData;
   "sample-locked": SampleLockedData;
+  "client-invitation": ClientInvitationData;
+  "request-list-sent": RequestListSentData;
+  "request-file-returned": RequestFileReturnedData;
+  "request-reminders": RequestRemindersData;
 }
 
 export type EmailTemplateName = keyof EmailTemplateData;
@@ -25,6 +30,10 @@ export const EMAIL_TEMPLATES: { [K in EmailTemplateName]: (data: EmailTemplateDa
   "review-note-answered": reviewNoteAnswered,
   "review-note-cleared": reviewNoteCleared,
   "sample-locked": sampleLocked,
+  "client-invitation": clientInvitation,
+  "request-list-sent": requestListSent,
+  "request-file-returned": requestFileReturned,
+  "request-reminders": requestReminders,
 };
 
 export function renderEmailTemplate<K extends EmailTemplateName>(name: K, data: EmailTemplateData[K]): RenderedEmail {

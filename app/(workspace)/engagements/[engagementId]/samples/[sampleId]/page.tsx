@@ -56,7 +56,7 @@ export default async function SamplePage({ params }: { params: Promise<{ engagem
       {locked && <div className="mt-6"><Alert tone="info">This sample is locked. Its workpaper is final and every part of it is read-only; a partner can unlock it with a reason.</Alert></div>}
       <div className="mt-6 grid gap-6 lg:grid-cols-2">
         <ReviewPanel engagementId={engagement.id} sampleId={sample.id} role={role} review={view.review} notes={notes} drawn={Boolean(view.currentDraw)} />
-        {view.currentDraw && <FieldworkFiles engagementId={engagement.id} sampleId={sample.id} items={items} mayWrite={!locked && (hasAtLeastRole(role, "staff") || user.grade === "client")} />}
+        {view.currentDraw && <FieldworkFiles engagementId={engagement.id} sampleId={sample.id} items={items} mayWrite={!locked && hasAtLeastRole(role, "staff")} />}
       </div>
     </>
   );

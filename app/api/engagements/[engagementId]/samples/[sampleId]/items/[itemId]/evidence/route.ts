@@ -12,9 +12,9 @@ export const GET = withEngagementRole(EvidenceListQuerySchema, "viewer", async (
   return { evidence: (await listEvidenceByItemId(ctx.db, { itemId: item.id, includeDeleted })).map(publicEvidence) };
 });
 
-/** The raw file is the request body with `?fileName=`; staff and above, or the client's own staff. */
+/** The raw file is the request body with `?fileName=`; staff and above (client contacts supply files through request lists). */
 export const POST = withEngagementRoleStreaming(EvidenceUploadQuerySchema, "viewer", async ({ fileName }, ctx) => {
-  assertMayWriteEvidence(ctx.role, ctx.user.grade);
+  assertMayWriteEvidence(ctx.role);
   const sample = await sampleOf(ctx);
   const item = await getItemOfSample(ctx.db, { sampleId: sample.id, itemId: parseIdParam(ctx.params.itemId, "item") });
   const bytes = await readBodyBytes(ctx.req, { maxBytes: MAX_EVIDENCE_BYTES, what: "an evidence file" });

@@ -1,0 +1,21 @@
+import { z } from "zod";
+import { withEngagementRole } from "@/lib/auth/with-role";
+import { notifyRequestListSent } from "@/lib/mail/notify-requests";
+import { createRequestList, getRequestListRow, listRequestListsBySampleId } from "@/lib/requests/lists";
+import { sampleOf } from "@/lib/samples/route-helpers";
+import { CreateRequestListSchema } from "@/lib/validation/requests";
+
+export const GET = withEngagementRole(z.object({}), "viewer", async (_input, ctx) => {
+  const sample = await sampleOf(ctx);
+  return { requestLists: await listRequestListsBySampleId(ctx.db, { sampleId: sample.id }) };
+});
+
+/** A senior or above sends the client contact a request list from the drawn sample; the contact is e-mailed a link. */
+export const POST = withEngagementRole(CreateRequestListSchema, "senior", async (input, ctx) => {
+  const sample = await sampleOf(ctx);
+  const listId = await createRequestList(ctx.db, { sample, actorId: ctx.user.id, input });
+  const list = await getRequestListRow(ctx.db, { engagementId: ctx.engagementId, sampleId: sample.id, listId });
+  const itemCount = Number((await ctx.db("request_items").where({ request_list_id: listId }).count({ n: "*" }).first())?.n ?? 0);
+  const mail = await notifyRequestListSent(ctx.db, { list, itemCount });
+  return Response.json({ requestList: { ...list, itemCount }, mailSent: mail.sent }, { status: 201 });
+});

@@ -1,0 +1,52 @@
+import "server-only";
+import type { Knex } from "knex";
+import { getEngagementById } from "@/lib/data/engagements";
+import { INVITATION_DAYS } from "@/lib/requests/invitations";
+import type { RequestListRow } from "@/lib/requests/lists";
+import { appUrl, clientRequestUrl, invitationUrl } from "./links";
+import { sendMail, type MailResult } from "./send";
+
+// Every notice here is sent after its write has committed and never throws (sendMail logs and reports).
+
+async function engagementRef(db: Knex, engagementId: number) {
+  const e = await getEngagementById(db, { engagementId });
+  if (!e) throw new Error(`engagement ${engagementId} not found`);
+  return { clientName: e.clientName, name: e.name };
+}
+
+async function safely(what: string, send: () => Promise<MailResult>): Promise<MailResult> {
+  try {
+    return await send();
+  } catch (err) {
+    const reason = err instanceof Error ? err.message : String(err);
+    console.error(`mail: ${what} not sent — ${reason}`);
+    return { sent: false, to: what, reason };
+  }
+}
+
+/** A new client contact gets the one-time link to choose a password; an existing one, the sign-in page. */
+export function notifyClientInvitation(db: Knex, a: { engagementId: number; contact: { name: string; email: string }; token: string | null; invitedBy: { name: string }; firmId: number }) {
+  return safely(`client-invitation to ${a.contact.email}`, async () => {
+    const [engagement, firm] = await Promise.all([engagementRef(db, a.engagementId), db("firms").where({ id: a.firmId }).first("name")]);
+    return sendMail({ to: a.contact, template: "client-invitation", data: {
+      recipient: { name: a.contact.name }, invitedBy: a.invitedBy, firmName: String(firm?.name ?? "Your auditors"), engagement,
+      actionUrl: a.token ? invitationUrl(a.token) : appUrl("/sign-in"), needsPassword: Boolean(a.token), expiresInDays: INVITATION_DAYS,
+    } });
+  });
+}
+
+export function notifyRequestListSent(db: Knex, a: { list: RequestListRow; itemCount: number }) {
+  return safely(`request-list-sent to ${a.list.contactEmail}`, async () => sendMail({
+    to: { name: a.list.contactName, email: a.list.contactEmail }, template: "request-list-sent",
+    data: { recipient: { name: a.list.contactName }, sentBy: { name: a.list.createdByName }, engagement: await engagementRef(db, a.list.engagementId), title: a.list.title,
+      itemCount: a.itemCount, dueDate: a.list.dueDate, message: a.list.message, listUrl: clientRequestUrl(a.list.id) },
+  }));
+}
+
+export function notifyRequestFileReturned(db: Knex, a: { list: RequestListRow; returnedBy: { name: string }; itemRef: string; fileName: string; reason: string }) {
+  return safely(`request-file-returned to ${a.list.contactEmail}`, async () => sendMail({
+    to: { name: a.list.contactName, email: a.list.contactEmail }, template: "request-file-returned",
+    data: { recipient: { name: a.list.contactName }, returnedBy: a.returnedBy, engagement: await engagementRef(db, a.list.engagementId), title: a.list.title,
+      itemRef: a.itemRef, fileName: a.fileName, reason: a.reason, listUrl: clientRequestUrl(a.list.id) },
+  }));
+}
