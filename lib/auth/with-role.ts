@@ -48,12 +48,30 @@ export function withUser<S extends z.ZodType>(schema: S, handler: Handler<S, Use
   };
 }
 
+/** A signed-in user who passes `check` (403 otherwise) before the input is read, so a refused caller learns nothing from validation. */
+function withCheckedUser<S extends z.ZodType>(check: (user: UserRecord) => void, schema: S, handler: Handler<S, UserContext>) {
+  return async (req: Request, route: RouteParams): Promise<Response> => {
+    try {
+      const db = getDb();
+      const params = await route.params;
+      const user = await loadActiveUser(db);
+      check(user);
+      const input = await parseWith(schema, req);
+      return answer(await handler(input, { db, user, req, params }));
+    } catch (err) {
+      return errorToResponse(err);
+    }
+  };
+}
+
 /** A signed-in firm administrator. */
 export function withFirmAdmin<S extends z.ZodType>(schema: S, handler: Handler<S, UserContext>) {
-  return withUser(schema, async (input, ctx) => {
-    if (ctx.user.firmRole !== "admin") throw forbidden("Only firm administrators manage users.");
-    return handler(input, ctx);
-  });
+  return withCheckedUser((user) => { if (user.firmRole !== "admin") throw forbidden("Only firm administrators manage users."); }, schema, handler);
+}
+
+/** A signed-in member of the audit firm: client staff (grade client) are refused with 403. */
+export function withAuditor<S extends z.ZodType>(schema: S, handler: Handler<S, UserContext>) {
+  return withCheckedUser((user) => { if (user.grade === "client") throw forbidden("Client contacts see only their own request lists."); }, schema, handler);
 }
 
 /**

@@ -17,7 +17,7 @@ beforeAll(async () => {
   const firm = await makeFirm();
   [senior, staff, viewer, client, outsider] = await Promise.all([makeUser(firm, "senior"), makeUser(firm, "staff"), makeUser(firm, "staff"), makeUser(firm, "client"), makeUser(firm, "senior")]);
   const manager = await makeUser(firm, "manager");
-  engagement = await makeEngagement(firm, manager, [[manager, "manager"], [senior, "senior"], [staff, "staff"], [viewer, "viewer"], [client, "viewer"]]);
+  engagement = await makeEngagement(firm, manager, [[manager, "manager"], [senior, "senior"], [staff, "staff"], [viewer, "viewer"], [client, "client"]]);
   await makeEngagement(firm, manager, [[manager, "manager"], [outsider, "senior"]]);
   const { populationId } = await loadCanonicalPopulation(senior, engagement);
   const plan = await planSample(senior, engagement, { populationId, params: { method: "random", estimator: "difference", tolerableMisstatement: "5000", sampleSize: 6, sizeReason: "test" } });
@@ -87,7 +87,7 @@ describe("evidence files", () => {
     const xlsx = new Uint8Array(await wb.xlsx.writeBuffer());
     expect((await upload(staff, "confirmations.bin", xlsx)).json.evidence.contentType).toBe("application/vnd.openxmlformats-officedocument.spreadsheetml.sheet");
     const eml = ascii("From: Carla <carla@client.example>\r\nTo: audit@firm.example\r\nDate: Tue, 1 Dec 2026 10:00:00 +0000\r\nSubject: Confirmation\r\n\r\nWe confirm the balance.\r\n");
-    expect((await upload(client, "reply.eml", eml)).json.evidence.contentType).toBe("message/rfc822");
+    expect((await upload(staff, "reply.eml", eml)).json.evidence.contentType).toBe("message/rfc822");
   });
 
   it("refuses a file over the 25 MB limit with 413 naming it", async () => {
@@ -96,11 +96,14 @@ describe("evidence files", () => {
     expect(res.json.error.message).toMatch(/25 MB limit/);
   });
 
-  it("lets staff and the client's contact upload, other viewers only read, and hides everything from another engagement", async () => {
+  it("lets staff upload, viewers only read, and hides everything from another engagement and from client contacts (404)", async () => {
     expect((await upload(staff, "a.txt", ascii("tick marks\n"))).status).toBe(201);
-    const clientUp = await upload(client, "remittance.csv", ascii("ref,amount\nINV001,1250.00\n"));
+    const clientUp = await upload(staff, "remittance.csv", ascii("ref,amount\nINV001,1250.00\n"));
     expect(clientUp.status).toBe(201);
     expect(clientUp.json.evidence.contentType).toBe("text/csv; charset=utf-8");
+    // Client contacts supply files through request lists (client-requests.test.ts), never here.
+    expect((await upload(client, "remittance.csv", ascii("ref,amount\nINV001,1250.00\n"))).status).toBe(404);
+    expect((await list(client)).status).toBe(404);
     const refused = await upload(viewer, "b.txt", ascii("no\n"));
     expect(refused.status).toBe(403);
     expect((await list(viewer)).status).toBe(200);
@@ -112,12 +115,12 @@ describe("evidence files", () => {
     expect((await callRaw(evidenceOne.GET, "GET", { as: staff, params: routeParams(otherItemId, someId) })).status).toBe(404);
   });
 
-  it("deletes softly: gone from the list and downloads, kept with who deleted it; clients remove only their own files", async () => {
-    const mine = (await upload(client, "note.txt", ascii("client note\n"))).json.evidence;
+  it("deletes softly: gone from the list and downloads, kept with who deleted it; viewers and client contacts cannot delete", async () => {
+    const mine = (await upload(senior, "note.txt", ascii("senior note\n"))).json.evidence;
     const staffs = (await upload(staff, "work.txt", ascii("auditor note\n"))).json.evidence;
-    expect((await call(evidenceOne.DELETE, "DELETE", { as: client, params: routeParams(itemId, staffs.id) })).status).toBe(403);
+    expect((await call(evidenceOne.DELETE, "DELETE", { as: client, params: routeParams(itemId, staffs.id) })).status).toBe(404);
     expect((await call(evidenceOne.DELETE, "DELETE", { as: viewer, params: routeParams(itemId, mine.id) })).status).toBe(403);
-    expect((await call(evidenceOne.DELETE, "DELETE", { as: client, params: routeParams(itemId, mine.id) })).status).toBe(204);
+    expect((await call(evidenceOne.DELETE, "DELETE", { as: staff, params: routeParams(itemId, mine.id) })).status).toBe(204);
     expect((await call(evidenceOne.DELETE, "DELETE", { as: staff, params: routeParams(itemId, staffs.id) })).status).toBe(204);
     expect((await call(evidenceOne.DELETE, "DELETE", { as: staff, params: routeParams(itemId, staffs.id) })).status).toBe(404);
     const ids = (await list(staff)).json.evidence.map((e: { id: number }) => e.id);
@@ -127,7 +130,7 @@ describe("evidence files", () => {
     expect((await callRaw(evidenceOne.GET, "GET", { as: staff, params: routeParams(itemId, mine.id) })).status).toBe(404);
     expect(await auditCount({ entity: "item_evidence", entity_id: String(mine.id), action: "delete" })).toBe(1);
     const row = await getDb()("item_evidence").where({ id: mine.id }).first();
-    expect(row.deleted_by).toBe(client);
+    expect(row.deleted_by).toBe(staff);
   });
 
   it("refuses uploads and deletions on a locked sample with 409", async () => {

@@ -28,7 +28,7 @@ const LEDGER = [
 
 beforeAll(async () => {
   const firm = await makeFirm();
-  [senior, staff, viewer, outsider] = await Promise.all([makeUser(firm, "senior"), makeUser(firm, "staff"), makeUser(firm, "client"), makeUser(firm, "senior")]);
+  [senior, staff, viewer, outsider] = await Promise.all([makeUser(firm, "senior"), makeUser(firm, "staff"), makeUser(firm, "staff"), makeUser(firm, "senior")]);
   const manager = await makeUser(firm, "manager");
   engagement = await makeEngagement(firm, manager, [[manager, "manager"], [senior, "senior"], [staff, "staff"], [viewer, "viewer"]]);
   await makeEngagement(firm, manager, [[manager, "manager"], [outsider, "senior"]]);

@@ -1,10 +1,10 @@
 import { z } from "zod";
-import { withFirmAdmin, withUser } from "@/lib/auth/with-role";
+import { withAuditor, withFirmAdmin } from "@/lib/auth/with-role";
 import { createUser, listUsersByFirmId } from "@/lib/data/users";
 import { CreateUserSchema } from "@/lib/validation/user";
 
-/** Everyone signed in may list the firm's active people (to build a team); admins see everyone. */
-export const GET = withUser(z.object({}), async (_input, { db, user }) => {
+/** Everyone in the audit firm may list its active people (to build a team); admins see everyone; client contacts get 403. */
+export const GET = withAuditor(z.object({}), async (_input, { db, user }) => {
   const users = await listUsersByFirmId(db, { firmId: user.firmId, activeOnly: user.firmRole !== "admin" });
   return { users };
 });

@@ -1,6 +1,6 @@
 import bcrypt from "bcryptjs";
 import { getDb } from "@/db/knex";
-import type { EngagementRole, Grade } from "@/lib/auth/roles";
+import type { Grade, MembershipRole } from "@/lib/auth/roles";
 
 import { randomUUID } from "node:crypto";
 
@@ -22,7 +22,7 @@ export async function makeUser(firmId: number, grade: Grade, opts: { admin?: boo
   return id as number;
 }
 
-export async function makeEngagement(firmId: number, createdBy: number, team: [number, EngagementRole][]) {
+export async function makeEngagement(firmId: number, createdBy: number, team: [number, MembershipRole][]) {
   const db = getDb();
   const [id] = await db("engagements").insert({
     firm_id: firmId, client_name: `Client ${++counter}`, name: "Audit", period_end: "2026-12-31", currency: "USD",
