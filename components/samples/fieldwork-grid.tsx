@@ -9,6 +9,7 @@ import { api } from "@/components/ui/api";
 import { ResultRow } from "./result-row";
 import { AuditedValueCell, CauseCell, CommentCell, DeviationCell, EvidenceCell, MisstatementCell, ReferenceCell, StatusCell } from "./result-cells";
 import { ReplaceDialog } from "./replace-dialog";
+import { RequestStatusBadge } from "@/components/requests/status-badge";
 import { formatCount, ITEM_STATUS_LABELS } from "./labels";
 
 type Col = ColumnDef<SampleItemRecord>;
@@ -26,7 +27,11 @@ function buildColumns(attribute: boolean, replace: ((item: SampleItemRecord) => 
     { id: "status", header: "Status", cell: () => <StatusCell /> },
     { id: "cause", header: "Cause", cell: () => <CauseCell /> },
   );
-  cols.push({ id: "comment", header: "Comment", cell: () => <CommentCell /> }, { id: "evidence", header: "Evidence", meta: right, cell: () => <EvidenceCell /> });
+  cols.push(
+    { id: "comment", header: "Comment", cell: () => <CommentCell /> },
+    { id: "evidence", header: "Evidence", meta: right, cell: () => <EvidenceCell /> },
+    { id: "request", header: "Client request", cell: ({ row }) => (row.original.requestStatus ? <RequestStatusBadge status={row.original.requestStatus} /> : <span className="text-xs text-ink-faint">—</span>) },
+  );
   if (replace) cols.push({
     id: "replace", header: "", cell: ({ row }) => (row.original.status === "not-started" || row.original.status === "not-auditable")
       ? <Button type="button" variant="ghost" className="px-2 py-1 text-xs" onClick={() => replace(row.original)}>Replace…</Button> : null,

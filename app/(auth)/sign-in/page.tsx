@@ -27,7 +27,8 @@ export default async function SignInPage({ searchParams }: { searchParams: Promi
         <div className="w-full max-w-sm">
           <Logo className="mb-8" />
           <h2 className="text-xl font-semibold">Sign in to your firm&rsquo;s workspace</h2>
-          <p className="mb-6 mt-1 text-sm text-ink-soft">Use the account your firm administrator created for you.</p>
+          <p className="mb-6 mt-1 text-sm text-ink-soft">Use the account your firm administrator created for you, or the password you chose from your invitation.</p>
+          {params.welcome === "1" && <p role="status" className="mb-4 rounded-md border border-ledger-100 bg-ledger-50 px-3 py-2 text-sm text-ledger-700">Your password is saved. Sign in with it now.</p>}
           <SignInForm callbackUrl={safeCallback(params.callbackUrl)} />
           <JudgementNote className="mt-10" />
         </div>

@@ -17,6 +17,8 @@ import { AdvisorPanel } from "@/components/advisor/advisor-panel";
 import { loadAdvisorState } from "@/lib/advisor/state";
 import { ADVISED_METHODS } from "@/lib/advisor/methods";
 import { listAdvisorRunsBySampleId } from "@/lib/data/advisor-runs";
+import { RequestListsCard } from "@/components/requests/request-lists-card";
+import { listRequestListsBySampleId } from "@/lib/requests/lists";
 
 export const metadata: Metadata = { title: "Sample" };
 
@@ -28,9 +30,10 @@ export default async function SamplePage({ params }: { params: Promise<{ engagem
   const locked = Boolean(view.review.lock);
   const senior = hasAtLeastRole(role, "senior") && !locked;
   const advised = ADVISED_METHODS.includes(sample.method);
-  const [notes, advisor] = await Promise.all([
+  const [notes, advisor, requestLists] = await Promise.all([
     listNotesBySampleId(getDb(), { sampleId: sample.id }),
     advised ? listAdvisorRunsBySampleId(getDb(), { sampleId: sample.id }).then((runs) => loadAdvisorState(getDb(), sample, runs)) : null,
+    listRequestListsBySampleId(getDb(), { sampleId: sample.id }),
   ]);
   const items = drawnItems.filter((i) => i.status !== "void").map((i) => ({ id: i.id, itemRef: i.itemRef }));
   const editHref = senior && sample.status === "planned" ? `/engagements/${engagement.id}/samples/${sample.id}/edit` : null;
@@ -56,6 +59,7 @@ export default async function SamplePage({ params }: { params: Promise<{ engagem
       {locked && <div className="mt-6"><Alert tone="info">This sample is locked. Its workpaper is final and every part of it is read-only; a partner can unlock it with a reason.</Alert></div>}
       <div className="mt-6 grid gap-6 lg:grid-cols-2">
         <ReviewPanel engagementId={engagement.id} sampleId={sample.id} role={role} review={view.review} notes={notes} drawn={Boolean(view.currentDraw)} />
+        {view.currentDraw && <RequestListsCard base={`/engagements/${engagement.id}/samples/${sample.id}`} lists={requestLists} mayCreate={senior} />}
         {view.currentDraw && <FieldworkFiles engagementId={engagement.id} sampleId={sample.id} items={items} mayWrite={!locked && hasAtLeastRole(role, "staff")} />}
       </div>
     </>
