@@ -10,6 +10,7 @@ import { DEMO_PASSWORD } from "./demo-scenario";
 
 const SENIOR = "senior@marrow-quill.example";
 const STAFF = "staff@marrow-quill.example";
+const CLIENT = "carla.mendes@tessaly-outdoor.example";
 
 async function readLoadStream(res: Response) {
   const lines = (await res.text()).split("\n").filter(Boolean).map((l) => JSON.parse(l));
@@ -59,7 +60,19 @@ async function main(baseUrl: string) {
     method: "POST", headers: { "content-type": "application/json" },
     body: JSON.stringify({ populationId: loaded.populationId, name: "Receivables valuation — classical estimate", objective: "Estimate the audited value of trade receivables to test their valuation at the period end.", assertion: "Valuation", direction: "overstatement", params: { method: "random", estimator: "difference", confidence: 0.95, tolerableMisstatement: "60000", sampleSize: 120, sizeReason: "Planned size to be confirmed with the estimator advisor before drawing" } }),
   });
-  console.log(`demo fieldwork: ${loaded.rowCount} ledger lines loaded, sample ${sample.id} drawn, 24 results recorded; sample ${valuation.id} planned for the advisor`);
+  // A request list to the client contact for the first eight selections still without a result.
+  const { contacts } = await senior.json<{ contacts: { userId: number; email: string }[] }>(`${base}/client-contacts`);
+  const carla = contacts.find((c) => c.email === CLIENT);
+  if (carla) {
+    const due = new Date(Date.now() + 10 * 86400_000).toISOString().slice(0, 10);
+    await senior.json(`${base}/samples/${sample.id}/requests`, {
+      method: "POST", headers: { "content-type": "application/json" },
+      body: JSON.stringify({ title: "Receivables confirmations — supporting documents", contactUserId: carla.userId, dueDate: due, items: items.length > 24 ? items.slice(24, 32).map((it) => it.id) : "all",
+        needs: ["invoice", "remittance", "delivery-note"], needsNote: "For each invoice, the signed delivery note and the remittance of any payment received after 30 September.",
+        message: "Hello Carla, these are the invoices we selected for testing. Thank you for sending the documents by the due date." }),
+    });
+  }
+  console.log(`demo fieldwork: ${loaded.rowCount} ledger lines loaded, sample ${sample.id} drawn, 24 results recorded${carla ? ", a request list sent to the client contact" : ""}; sample ${valuation.id} planned for the advisor`);
 }
 
 main(process.argv[2] ?? "http://127.0.0.1:3000").catch((err: unknown) => {

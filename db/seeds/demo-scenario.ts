@@ -1,5 +1,5 @@
 // An invented scenario for the demo only: the firm, clients, people and figures are made up.
-import type { EngagementRole, FirmRole, Grade } from "../../lib/auth/roles";
+import type { FirmRole, Grade, MembershipRole } from "../../lib/auth/roles";
 
 export const DEMO_PASSWORD = "sondage-demo-2026";
 
@@ -20,14 +20,14 @@ export const DEMO_USERS: DemoUser[] = [
 export interface DemoEngagement {
   key: string; clientName: string; name: string; periodEnd: string; currency: string;
   overallMateriality: string; performanceMateriality: string; status: "planning" | "fieldwork";
-  team: Partial<Record<string, EngagementRole>>;
+  team: Partial<Record<string, MembershipRole>>;
 }
 
 export const DEMO_ENGAGEMENTS: DemoEngagement[] = [
   {
     key: "tessaly", clientName: "Tessaly Outdoor Supply Inc.", name: "Financial statement audit FY2026", periodEnd: "2026-09-30",
     currency: "USD", overallMateriality: "1200000.00", performanceMateriality: "900000.00", status: "fieldwork",
-    team: { partner: "partner", manager: "manager", senior: "senior", staff: "staff", client: "viewer" },
+    team: { partner: "partner", manager: "manager", senior: "senior", staff: "staff", client: "client" }, // Carla is the client contact: she sees only the request lists sent to her
   },
   {
     key: "bramblecote", clientName: "Bramblecote Water Authority", name: "Statutory audit FY2026", periodEnd: "2026-06-30",
