@@ -8,7 +8,8 @@ async function main() {
   loadLocalEnv();
   const [{ getDb }, { runRequestReminders }, { closeMailer }] = await Promise.all([import("../../db/knex"), import("./reminders"), import("../mail/transport")]);
   const today = process.argv[2];
-  if (today !== undefined && !/^\d{4}-\d{2}-\d{2}$/.test(today)) throw new Error(`the day must be YYYY-MM-DD, not "${today}"`);
+  const real = (d: string) => /^\d{4}-\d{2}-\d{2}$/.test(d) && !Number.isNaN(Date.parse(`${d}T00:00:00Z`)) && new Date(`${d}T00:00:00Z`).toISOString().startsWith(d);
+  if (today !== undefined && !real(today)) throw new Error(`the day must be a real date written YYYY-MM-DD, not "${today}"`);
   const db = getDb();
   try {
     const { lists, messages } = await runRequestReminders(db, today ? { today } : {});
