@@ -8,7 +8,7 @@ const KINDS: Record<Exclude<AuditQuery["kind"], "all">, { entities?: string[]; a
   plan: { actions: ["plan", "replan"] },
   selection: { actions: ["draw", "redraw", "reperform", "extend", "void-and-replace"] },
   results: { entities: ["sample_item"], actions: ["record-result", "import-results"] },
-  evidence: { entities: ["item_evidence"] },
+  evidence: { entities: ["item_evidence", "request_list", "request_item", "request_file"] }, // client requests are part of gathering evidence
   review: { actions: ["preparer-sign-off", "reviewer-sign-off", "sign-offs-cleared", "raise", "answer", "clear"] },
   lock: { actions: ["lock", "unlock"] },
 };
