@@ -99,7 +99,8 @@ describe("attributeSampleSize reproduces the ceil-convention tables", () => {
     it("a negative expectedRate", () => expect(() => attributeSampleSize({ tolerableRate: 0.05, expectedRate: -0.01, confidence: 0.95 })).toThrow(/expectedRate/));
     it("tolerableRate 0", () => expect(() => attributeSampleSize({ tolerableRate: 0, expectedRate: 0, confidence: 0.95 })).toThrow(/tolerableRate must be strictly between 0 and 1/));
     it("confidence 1", () => expect(() => attributeSampleSize({ tolerableRate: 0.05, expectedRate: 0, confidence: 1 })).toThrow(/confidence/));
-    it("a size beyond the search limit", () =>
+    // The search walks every size to the limit (about 3 s alone): a generous harness timeout, not a speed check.
+    it("a size beyond the search limit", { timeout: 30_000 }, () =>
       expect(() => attributeSampleSize({ tolerableRate: 0.02, expectedRate: 0.0199, confidence: 0.95 })).toThrow(/no attribute sample size up to 100000/));
     it("a non-numeric rate", () => expect(() => attributeSampleSize({ tolerableRate: "5%" as unknown as number, expectedRate: 0, confidence: 0.95 })).toThrow(TypeError));
   });
