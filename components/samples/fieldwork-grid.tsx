@@ -18,8 +18,7 @@ const right = { align: "right" };
 function buildColumns(attribute: boolean, replace: ((item: SampleItemRecord) => void) | null): Col[] {
   const cols: Col[] = [
     { id: "ref", header: "Item", meta: { sticky: true }, cell: () => <ReferenceCell /> },
-    // min-width: amounts must never be squeezed under the sticky Item column.
-    { id: "book", header: "Book value", meta: right, cell: ({ row }) => <span className="inline-block min-w-[6.5rem]"><Amount value={row.original.bookValue} /></span> },
+    { id: "book", header: "Book value", meta: right, cell: ({ row }) => <Amount value={row.original.bookValue} /> },
   ];
   if (attribute) cols.push({ id: "status", header: "Status", cell: () => <StatusCell /> }, { id: "deviation", header: "Deviation", cell: () => <DeviationCell /> });
   else cols.push(

@@ -1,6 +1,6 @@
 import { expect, test, type Page } from "@playwright/test";
 import { SignInPage } from "./pages/sign-in-page";
-import { PlanSamplePage, SamplePage } from "./pages/samples-pages";
+import { SamplePage } from "./pages/samples-pages";
 import { engagementIdByClient, loadReconciledLedger } from "./pages/samples-population";
 
 const shot = (page: Page, name: string) => page.screenshot({ path: test.info().outputPath(name), fullPage: true });
@@ -20,10 +20,11 @@ test("a senior edits a plan before the draw, then extends the drawn sample and r
 
   await test.step("the plan is edited before the draw", async () => {
     await page.goto(`/engagements/${engagementId}/samples/${sample.id}/edit`);
-    const plan = new PlanSamplePage(page);
-    await plan.field("Sample name").fill("Valuation — revised plan");
-    await plan.field("Items to select").fill("25");
-    const reason = plan.field("Reason for a size below the computed one");
+    // By role, not by label: Next can keep a hidden copy of the form in the DOM while it hydrates.
+    const field = (name: string) => page.getByRole("textbox", { name, exact: true });
+    await field("Sample name").fill("Valuation — revised plan");
+    await field("Items to select").fill("25");
+    const reason = field("Reason for a size below the computed one");
     if (await reason.isVisible()) await reason.fill("Revised after discussing the expected spread with the manager");
     await shot(page, "01-plan-edit.png");
     await page.getByRole("button", { name: "Save the changed plan" }).click();
