@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import { headers } from "next/headers";
 import "@fontsource-variable/inter";
 import "@fontsource/ibm-plex-mono/400.css";
 import "@fontsource/ibm-plex-mono/500.css";
@@ -10,7 +11,10 @@ export const metadata: Metadata = {
   description: "Statistical audit sampling: reproducible selections, recorded results, projected misstatement.",
 };
 
-export default function RootLayout({ children }: { children: React.ReactNode }) {
+// Reading the request headers renders every page per request, which is what lets Next put the
+// proxy's CSP nonce on its scripts.
+export default async function RootLayout({ children }: { children: React.ReactNode }) {
+  await headers();
   return (
     <html lang="en">
       <body>

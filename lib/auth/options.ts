@@ -6,6 +6,9 @@ import { verifyCredentials } from "./verify-credentials";
 
 export const SESSION_MAX_AGE_SECONDS = 8 * 60 * 60; // one working day
 
+// next start fills X-Forwarded-For from the socket only when the request has none, so the
+// per-address limit trusts what the deployment's reverse proxy writes there; the per-account
+// limit holds whatever a caller sends.
 function clientIp(headers: Record<string, unknown> | undefined): string {
   const forwarded = headers?.["x-forwarded-for"];
   const first = typeof forwarded === "string" ? forwarded.split(",")[0]?.trim() : undefined;
@@ -14,6 +17,8 @@ function clientIp(headers: Record<string, unknown> | undefined): string {
 
 export const authOptions: NextAuthOptions = {
   session: { strategy: "jwt", maxAge: SESSION_MAX_AGE_SECONDS },
+  // Session cookies are always httpOnly and SameSite=Lax, and Secure (__Secure- prefixed) when served over https.
+  useSecureCookies: (process.env.NEXTAUTH_URL ?? "").startsWith("https://"),
   pages: { signIn: "/sign-in" },
   providers: [
     CredentialsProvider({

@@ -1,13 +1,58 @@
 import "server-only";
 import { AppError } from "@/lib/errors";
 
-/** The request's input: the query string for GET/DELETE, the JSON body otherwise (400 when malformed). */
+/** The largest JSON body any route takes (the biggest real one, a sample plan, is a few kB). */
+export const MAX_JSON_BODY_BYTES = 256 * 1024;
+/** Deeper JSON than any schema of ours describes is refused before it reaches zod. */
+export const MAX_JSON_DEPTH = 32;
+
+const tooLarge = () => new AppError(413, "body_too_large", `body: the request body is over ${MAX_JSON_BODY_BYTES / 1024} kB`, { body: ["Too large"] });
+
+async function readCappedText(req: Request): Promise<string> {
+  const declared = Number(req.headers.get("content-length") ?? "0");
+  if (declared > MAX_JSON_BODY_BYTES) throw tooLarge();
+  if (!req.body) return "";
+  const reader = req.body.getReader();
+  const chunks: Uint8Array[] = [];
+  let size = 0;
+  for (;;) {
+    const { done, value } = await reader.read();
+    if (done) break;
+    size += value.byteLength;
+    if (size > MAX_JSON_BODY_BYTES) {
+      await reader.cancel();
+      throw tooLarge();
+    }
+    chunks.push(value);
+  }
+  return new TextDecoder("utf-8", { fatal: false }).decode(Buffer.concat(chunks));
+}
+
+/** Nesting depth of a JSON text, counted on the brackets outside strings (no recursion). */
+export function jsonDepth(text: string): number {
+  let depth = 0, max = 0, inString = false;
+  for (let i = 0; i < text.length; i++) {
+    const c = text[i];
+    if (inString) {
+      if (c === "\\") i++;
+      else if (c === '"') inString = false;
+    } else if (c === '"') inString = true;
+    else if (c === "{" || c === "[") max = Math.max(max, ++depth);
+    else if (c === "}" || c === "]") depth--;
+  }
+  return max;
+}
+
+/** The request's input: the query string for GET/DELETE, the JSON body otherwise (400 when malformed, 413 when too large). */
 export async function readInput(req: Request): Promise<unknown> {
   if (req.method === "GET" || req.method === "HEAD" || req.method === "DELETE") {
     return Object.fromEntries(new URL(req.url).searchParams);
   }
-  const text = await req.text();
+  const text = await readCappedText(req);
   if (text.trim() === "") return {};
+  if (jsonDepth(text) > MAX_JSON_DEPTH) {
+    throw new AppError(400, "too_deep", `body: JSON nested deeper than ${MAX_JSON_DEPTH} levels`, { body: ["Nested too deeply"] });
+  }
   try {
     return JSON.parse(text);
   } catch {

@@ -6,6 +6,7 @@ import { errorToResponse, notFound, unauthorised, validationError } from "@/lib/
 import { getRequestListRowForContact, type RequestListRow } from "@/lib/requests/lists";
 import { parseIdParam } from "./access";
 import { readInput } from "./read-input";
+import { assertSameSite } from "./with-role";
 import { getSessionUserId } from "./session-user";
 
 type RouteParams = { params: Promise<Record<string, string>> };
@@ -19,7 +20,8 @@ function answer(result: unknown): Response {
   return result === undefined ? new Response(null, { status: 204 }) : Response.json(result);
 }
 
-async function clientUser(db: Knex): Promise<UserRecord> {
+async function clientUser(db: Knex, req: Request): Promise<UserRecord> {
+  assertSameSite(req);
   const userId = await getSessionUserId();
   const user = userId === null ? null : await getUserById(db, { userId });
   if (!user || !user.active) throw unauthorised();
@@ -34,7 +36,7 @@ async function clientUser(db: Knex): Promise<UserRecord> {
 async function authoriseList(req: Request, route: RouteParams): Promise<ClientRequestContext> {
   const db = getDb();
   const params = await route.params;
-  const user = await clientUser(db);
+  const user = await clientUser(db, req);
   const list = await getRequestListRowForContact(db, { listId: parseIdParam(params.listId, "request list"), contactUserId: user.id });
   if (!list) throw notFound("No such request list");
   return { db, user, req, params, list };
@@ -73,7 +75,7 @@ export function withClientUser<S extends z.ZodType>(schema: S, handler: Handler<
     try {
       const db = getDb();
       const params = await route.params;
-      const user = await clientUser(db);
+      const user = await clientUser(db, req);
       const parsed = schema.safeParse(await readInput(req));
       if (!parsed.success) throw validationError(parsed.error);
       return answer(await handler(parsed.data, { db, user, req, params }));

@@ -3,7 +3,8 @@ import type { z } from "zod";
 import { getDb, type Knex } from "@/db/knex";
 import { getUserById, type UserRecord } from "@/lib/data/users";
 import { getMembershipRole } from "@/lib/data/members";
-import { errorToResponse, forbidden, unauthorised, validationError } from "@/lib/errors";
+import { AppError, errorToResponse, forbidden, unauthorised, validationError } from "@/lib/errors";
+import { isCrossSiteWrite } from "@/lib/security/headers";
 import { decideEngagementAccess, parseIdParam } from "./access";
 import { readInput } from "./read-input";
 import { getSessionUserId } from "./session-user";
@@ -26,6 +27,14 @@ async function parseWith<S extends z.ZodType>(schema: S, req: Request): Promise<
   return parsed.data;
 }
 
+/** Writes sent from another site's page are refused before anything else (403 cross_site). */
+export function assertSameSite(req: Request): void {
+  const url = new URL(req.url);
+  if (isCrossSiteWrite({ method: req.method, headers: req.headers, host: req.headers.get("host") ?? url.host })) {
+    throw new AppError(403, "cross_site", "Requests from another site are refused.");
+  }
+}
+
 async function loadActiveUser(db: Knex): Promise<UserRecord> {
   const userId = await getSessionUserId();
   const user = userId === null ? null : await getUserById(db, { userId });
@@ -37,6 +46,7 @@ async function loadActiveUser(db: Knex): Promise<UserRecord> {
 export function withUser<S extends z.ZodType>(schema: S, handler: Handler<S, UserContext>) {
   return async (req: Request, route: RouteParams): Promise<Response> => {
     try {
+      assertSameSite(req);
       const db = getDb();
       const params = await route.params;
       const user = await loadActiveUser(db);
@@ -52,6 +62,7 @@ export function withUser<S extends z.ZodType>(schema: S, handler: Handler<S, Use
 function withCheckedUser<S extends z.ZodType>(check: (user: UserRecord) => void, schema: S, handler: Handler<S, UserContext>) {
   return async (req: Request, route: RouteParams): Promise<Response> => {
     try {
+      assertSameSite(req);
       const db = getDb();
       const params = await route.params;
       const user = await loadActiveUser(db);
@@ -105,6 +116,7 @@ export function withEngagementRoleStreaming<S extends z.ZodType>(querySchema: S,
 }
 
 async function authoriseEngagement(req: Request, route: RouteParams, leastRole: EngagementRole): Promise<EngagementContext> {
+  assertSameSite(req);
   const db = getDb();
   const params = await route.params;
   const userId = await getSessionUserId();

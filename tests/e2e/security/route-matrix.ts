@@ -1,0 +1,110 @@
+// The authorisation matrix: every route handler and server action × every kind of caller → the
+// status the running app must answer. security-matrix.spec.ts walks all of it over HTTP with real
+// sign-ins, and fails when a route exists without a row here (or a row names no route).
+//
+// How a cell is probed: GETs are sent as they are (reads); every other method carries a body the
+// route's schema refuses (a JSON array, or a query string over its limits), so a caller who passes
+// the session, membership and role checks gets 400 and nothing is written. Child ids that a
+// DELETE would act on point at nothing, so an allowed caller gets 404 from the child lookup.
+import type { EngagementRole } from "../../../lib/auth/roles";
+
+export const ACTORS = ["signedOut", "viewer", "staff", "senior", "manager", "partner", "admin", "otherEngagement", "otherFirm"] as const;
+export type Actor = (typeof ACTORS)[number];
+export type Expected = Record<Actor, number>;
+
+/** What a cell sends: a path with [params] filled from the fixtures, an optional query and body. */
+export interface Probe { path?: string; query?: string; body?: string; contentType?: string }
+/** A body the schema accepts, for the cross-engagement and cross-firm checks (which must 404 before any work). */
+export type ValidBody = (ids: Record<string, number>) => unknown;
+
+export interface MatrixRow { route: string; expect: Expected; probe?: Probe; validBody?: ValidBody }
+
+const REFUSED_BODY = "[]";
+const LONG_NAME = "x".repeat(300); // over every fileName limit (255)
+
+/** An engagement route: 401 signed out, 404 for everyone not on the engagement, 403 below `least`. */
+function onEngagement(least: EngagementRole, allowed: number): Expected {
+  const rank = ["viewer", "staff", "senior", "manager", "partner"];
+  const member = (role: EngagementRole) => (rank.indexOf(role) >= rank.indexOf(least) ? allowed : 403);
+  return {
+    signedOut: 401, viewer: member("viewer"), staff: member("staff"), senior: member("senior"), manager: member("manager"),
+    partner: member("partner"), admin: 404, otherEngagement: 404, otherFirm: 404,
+  };
+}
+/** Any signed-in user. */
+const signedIn = (allowed: number): Expected => ({ signedOut: 401, viewer: allowed, staff: allowed, senior: allowed, manager: allowed, partner: allowed, admin: allowed, otherEngagement: allowed, otherFirm: allowed });
+/** Firm administrators (of their own firm: the other firm's caller is its admin). */
+const firmAdmin = (allowed: number): Expected => ({ signedOut: 401, viewer: 403, staff: 403, senior: 403, manager: 403, partner: 403, admin: allowed, otherEngagement: 403, otherFirm: allowed });
+const everyone = (status: number): Expected => ({ ...signedIn(status), signedOut: status });
+
+const E = "/api/engagements/[engagementId]";
+const S = `${E}/samples/[sampleId]`;
+const mapping = { itemRefColumn: "Invoice", bookValueColumn: "Amount", descriptionColumn: "Customer", dateColumn: "Due" };
+const musParams = { method: "mus", confidence: 0.95, tolerableMisstatement: "60000", expectedMisstatement: "8000", factorMode: "exact" };
+
+export const ROUTE_MATRIX: MatrixRow[] = [
+  { route: "GET /api/me", expect: signedIn(200) },
+  { route: "GET /api/engagements", expect: signedIn(200) },
+  // Creating an engagement needs the manager or partner grade (the other firm's caller is a partner).
+  { route: "POST /api/engagements", expect: { ...signedIn(403), manager: 400, partner: 400, otherFirm: 400 } },
+  { route: "GET /api/users", expect: signedIn(200) },
+  { route: "POST /api/users", expect: firmAdmin(400) },
+  { route: "PATCH /api/users/[userId]", expect: firmAdmin(400) },
+  { route: "POST /api/users/[userId]/password", expect: firmAdmin(400) },
+
+  { route: `GET ${E}`, expect: onEngagement("viewer", 200) },
+  { route: `PATCH ${E}`, expect: onEngagement("manager", 400) },
+  { route: `GET ${E}/members`, expect: onEngagement("viewer", 200) },
+  { route: `POST ${E}/members`, expect: onEngagement("manager", 400) },
+  { route: `PATCH ${E}/members/[userId]`, expect: onEngagement("manager", 400) },
+  { route: `DELETE ${E}/members/[userId]`, expect: onEngagement("manager", 404), probe: { path: `${E}/members/2147483000` } },
+
+  { route: `GET ${E}/populations`, expect: onEngagement("viewer", 200) },
+  { route: `GET ${E}/populations/[populationId]`, expect: onEngagement("viewer", 200) },
+  { route: `GET ${E}/populations/[populationId]/items`, expect: onEngagement("viewer", 200) },
+  { route: `GET ${E}/populations/[populationId]/original`, expect: onEngagement("viewer", 200) },
+  { route: `GET ${E}/populations/[populationId]/profile`, expect: onEngagement("viewer", 200) },
+  { route: `POST ${E}/populations/[populationId]/reconciliation`, expect: onEngagement("senior", 400), validBody: () => ({ controlTotal: "1.00", controlCount: 1 }) },
+  { route: `POST ${E}/populations/uploads`, expect: onEngagement("senior", 400), probe: { query: `fileName=${LONG_NAME}`, body: "a,b\n1,2\n", contentType: "text/csv" } },
+  { route: `GET ${E}/populations/uploads/[uploadId]`, expect: onEngagement("senior", 200) },
+  { route: `POST ${E}/populations/uploads/[uploadId]/load`, expect: onEngagement("senior", 400), validBody: () => ({ name: "Cross-engagement probe", mapping }) },
+  { route: `GET ${E}/populations/uploads/[uploadId]/problems`, expect: onEngagement("senior", 200) },
+
+  { route: `GET ${E}/samples`, expect: onEngagement("viewer", 200) },
+  { route: `POST ${E}/samples`, expect: onEngagement("senior", 400) },
+  { route: `POST ${E}/samples/plan-preview`, expect: onEngagement("staff", 400) },
+  { route: `GET ${S}`, expect: onEngagement("viewer", 200) },
+  { route: `PATCH ${S}`, expect: onEngagement("senior", 400), validBody: (ids) => ({ populationId: ids.populationId, name: "Probe", objective: "Cross-engagement probe", assertion: "Existence", direction: "overstatement", params: musParams }) },
+  { route: `GET ${S}/audit`, expect: onEngagement("staff", 200) },
+  { route: `POST ${S}/draw`, expect: onEngagement("senior", 400), validBody: () => ({}) },
+  { route: `GET ${S}/evaluation`, expect: onEngagement("viewer", 200) },
+  { route: `POST ${S}/extend`, expect: onEngagement("senior", 400), validBody: () => ({ additional: 1, reason: "Cross-engagement probe" }) },
+  { route: `GET ${S}/items`, expect: onEngagement("viewer", 200) },
+  { route: `PATCH ${S}/items/[itemId]`, expect: onEngagement("staff", 400), validBody: (ids) => ({ version: ids.itemVersion, status: "done", auditedValue: "1.00" }) },
+  { route: `GET ${S}/items/[itemId]/evidence`, expect: onEngagement("viewer", 200) },
+  { route: `POST ${S}/items/[itemId]/evidence`, expect: onEngagement("viewer", 400), probe: { query: `fileName=${LONG_NAME}`, body: "probe", contentType: "text/plain" } },
+  { route: `GET ${S}/items/[itemId]/evidence/[evidenceId]`, expect: onEngagement("viewer", 200) },
+  { route: `DELETE ${S}/items/[itemId]/evidence/[evidenceId]`, expect: onEngagement("viewer", 404), probe: { path: `${S}/items/[itemId]/evidence/2147483000` } },
+  { route: `POST ${S}/items/[itemId]/replace`, expect: onEngagement("senior", 400), validBody: () => ({ reason: "Cross-engagement probe" }) },
+  { route: `POST ${S}/lock`, expect: onEngagement("manager", 400), validBody: () => ({}) },
+  { route: `GET ${S}/notes`, expect: onEngagement("viewer", 200) },
+  { route: `POST ${S}/notes`, expect: onEngagement("manager", 400), validBody: () => ({ text: "Cross-engagement probe" }) },
+  { route: `POST ${S}/notes/[noteId]/answer`, expect: onEngagement("staff", 400), validBody: () => ({ answer: "Cross-engagement probe" }) },
+  { route: `POST ${S}/notes/[noteId]/clear`, expect: onEngagement("manager", 400), validBody: () => ({}) },
+  { route: `GET ${S}/recipe`, expect: onEngagement("viewer", 200) },
+  { route: `POST ${S}/reperform`, expect: onEngagement("staff", 400), validBody: () => ({}) },
+  { route: `POST ${S}/sign-off`, expect: onEngagement("staff", 400), validBody: () => ({ as: "preparer" }) },
+  { route: `POST ${S}/unlock`, expect: onEngagement("partner", 400), validBody: () => ({ reason: "Cross-engagement probe, must not apply" }) },
+  { route: `GET ${S}/workbook`, expect: onEngagement("viewer", 200) },
+  { route: `POST ${S}/workbook`, expect: onEngagement("staff", 400), probe: { query: `fileName=${LONG_NAME}`, body: "probe", contentType: "application/octet-stream" } },
+  { route: `GET ${S}/workpaper`, expect: onEngagement("viewer", 200) },
+
+  // next-auth's own endpoints are public by design; the probe reads the provider list / posts a sign-out without its CSRF token.
+  { route: "GET /api/auth/[...nextauth]", expect: everyone(200), probe: { path: "/api/auth/providers" } },
+  { route: "POST /api/auth/[...nextauth]", expect: everyone(302), probe: { path: "/api/auth/signout", body: "", contentType: "application/x-www-form-urlencoded" } },
+];
+
+/** Server actions ("use server"): none today. Add one row per action, keyed "action <file>#<export>". */
+export const ACTION_MATRIX: { action: string; expect: Expected }[] = [];
+
+export const REFUSED = REFUSED_BODY;
