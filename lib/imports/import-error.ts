@@ -13,6 +13,7 @@ export type ImportErrorReason =
   | "sheet-not-found"
   | "no-header-row"
   | "duplicate-header"
+  | "too-many-columns"
   | "invalid-mapping"
   | "unreadable-file";
 
@@ -28,6 +29,7 @@ const STATUS_BY_REASON: Record<ImportErrorReason, 400 | 413 | 422> = {
   "sheet-not-found": 400,
   "no-header-row": 422,
   "duplicate-header": 422,
+  "too-many-columns": 422,
   "invalid-mapping": 400,
   "unreadable-file": 422,
 };

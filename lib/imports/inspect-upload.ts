@@ -5,11 +5,13 @@ import { readCsvHead } from "./csv-rows";
 import { detectDateOrder, type DateOrder } from "./dates";
 import { findHeaderRow, isBlankRow, type TextRow } from "./header-row";
 import { ImportError } from "./import-error";
-import { PREVIEW_BYTES, PREVIEW_ROWS, resolveLimits, type ImportLimits } from "./limits";
+import { MAX_COLUMNS, PREVIEW_BYTES, PREVIEW_ROWS, resolveLimits, type ImportLimits } from "./limits";
 import { detectNumberFormat } from "./number-format";
 import { sniffFile, type TextEncoding } from "./sniff-file";
 import { cellText } from "./source-row";
 import { readWorkbookInfo } from "./xlsx-sheets";
+import { listZipEntries } from "./zip-directory";
+import { assertEntriesWithinLimits, assertZipInflationWithinLimits } from "./zip-limits";
 import { readXlsxHeadRows } from "./xlsx-fast-rows";
 import { XLSX_BATCH_ROWS, readXlsxRows } from "./xlsx-rows";
 
@@ -46,7 +48,12 @@ export async function inspectUpload(
   options: { sheet?: string; limits?: Partial<ImportLimits> } = {},
 ): Promise<UploadInspection> {
   const sniff = await sniffFile(filePath, resolveLimits(options.limits));
-  if (sniff.kind === "xlsx") return inspectWorkbook(filePath, sniff.size, options.sheet);
+  if (sniff.kind === "xlsx") {
+    const entries = (await listZipEntries(filePath)) ?? [];
+    assertEntriesWithinLimits(entries);
+    if (!options.sheet) await assertZipInflationWithinLimits(filePath, entries); // once, at upload; a re-inspection of another sheet skips it
+    return inspectWorkbook(filePath, sniff.size, options.sheet);
+  }
   const { text, truncated } = await readCsvHead(filePath, sniff.encoding, PREVIEW_BYTES);
   const newline = detectNewline(text);
   const delimiter = detectDelimiter(text, newline, truncated);
@@ -89,13 +96,17 @@ export async function readHeadRowsFast(filePath: string, sheet: string): Promise
   try {
     const rows = await readXlsxHeadRows(filePath, sheet, XLSX_BATCH_ROWS);
     return rows.map((row) => ({ rowNumber: row.rowNumber, cells: row.cells.map(cellText) }));
-  } catch {
+  } catch (err) {
+    if (err instanceof ImportError) throw err; // a refusal (e.g. a zip bomb), not an unknown construct
     return null;
   }
 }
 
 function describeRows(rows: TextRow[], complete: boolean, isCsv: boolean) {
   const header = findHeaderRow(rows);
+  if (header.headers.length > MAX_COLUMNS) {
+    throw new ImportError("too-many-columns", `Row ${header.headerRow} has ${header.headers.length.toLocaleString("en-US")} columns; a ledger may have at most ${MAX_COLUMNS}. Remove the columns you do not need and upload again.`);
+  }
   const data = rows.filter((row) => row.rowNumber > header.headerRow && !isBlankRow(row.cells));
   if (data.length === 0 && complete) {
     throw new ImportError("header-only", `The file has a header row (row ${header.headerRow}) but no data rows.`);

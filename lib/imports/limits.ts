@@ -4,6 +4,8 @@ import "server-only";
 export const MAX_UPLOAD_BYTES = 200 * 1024 * 1024;
 /** Most data rows (header excluded) accepted in one population. */
 export const MAX_DATA_ROWS = 1_000_000;
+/** Most columns a ledger may have (a real one has a few dozen; the mapping screen lists them all). */
+export const MAX_COLUMNS = 500;
 /** Bytes examined to tell the file kind and encoding. */
 export const SNIFF_BYTES = 64 * 1024;
 /** Bytes read for the column-mapping preview of a CSV. */

@@ -1,12 +1,10 @@
 import "server-only";
+import { safeCellText } from "@/lib/fieldwork/cell-text";
 import type { RowProblem } from "./row-validator";
 
-// A cell starting with = + - @ (or tab/CR) is run as a formula when the list is opened in a
-// spreadsheet; prefixing a quote keeps it text (OWASP, "CSV Injection").
-const FORMULA_START = /^[=+\-@\t\r]/;
-
 function csvField(value: string): string {
-  const safe = FORMULA_START.test(value) ? `'${value}` : value;
+  // The one formula guard of every export (OWASP "CSV Injection"): lib/fieldwork/cell-text.ts.
+  const safe = safeCellText(value);
   // RFC 4180 §2 rules 6–7: quote fields holding commas, quotes or line breaks; double inner quotes.
   return /[",\r\n]/.test(safe) ? `"${safe.replace(/"/g, '""')}"` : safe;
 }

@@ -1,6 +1,7 @@
 import "server-only";
 import { open, type FileHandle } from "node:fs/promises";
 import { inflateRawSync } from "node:zlib";
+import { ImportError } from "./import-error";
 
 // Layout of a zip archive per PKWARE APPNOTE.TXT 6.3: end of central directory record (4.3.16),
 // central directory file headers (4.3.12), local file headers (4.3.7).
@@ -76,7 +77,15 @@ export async function readZipEntry(filePath: string, entry: ZipEntry, maxBytes =
     const dataStart = entry.localHeaderOffset + 30 + header.readUInt16LE(26) + header.readUInt16LE(28);
     const data = await readAt(handle, dataStart, entry.compressedSize);
     if (entry.method === 0) return data;
-    if (entry.method === 8) return inflateRawSync(data, { maxOutputLength: maxBytes });
+    if (entry.method === 8) {
+      try {
+        return inflateRawSync(data, { maxOutputLength: maxBytes });
+      } catch (err) {
+        // The declared size lied: the part inflates past what we read in full.
+        if ((err as { code?: string }).code === "ERR_BUFFER_TOO_LARGE") throw new ImportError("file-too-large", `The workbook part ${entry.name} expands to more than ${maxBytes / 1024 / 1024} MB; it is refused as a likely zip bomb.`);
+        throw err;
+      }
+    }
     throw new RangeError(`zip entry ${entry.name} uses unsupported compression method ${entry.method}`);
   } finally {
     await handle.close();

@@ -5,11 +5,12 @@ import { StringDecoder } from "node:string_decoder";
 import { createInflateRaw } from "node:zlib";
 import type { ZipEntry } from "./zip-directory";
 import { UnsupportedXlsxError } from "./xml-tokens";
+import { assertInflationWithinLimits } from "./zip-limits";
 
 const LOCAL_SIGNATURE = 0x04034b50; // PKWARE APPNOTE.TXT 6.3, 4.3.7 local file header
 const ZIP64_MARK = 0xffffffff;
 
-async function dataStart(filePath: string, entry: ZipEntry): Promise<number> {
+export async function dataStart(filePath: string, entry: ZipEntry): Promise<number> {
   const handle = await open(filePath, "r");
   try {
     const header = Buffer.alloc(30);
@@ -37,8 +38,12 @@ export async function* streamZipEntryText(filePath: string, entry: ZipEntry): As
   const source = entry.method === 8 ? file.pipe(createInflateRaw({ chunkSize: 64 * 1024 })) : file;
   const decoder = new StringDecoder("utf8");
   let first = true;
+  let inflated = 0;
   try {
     for await (const chunk of source as AsyncIterable<Buffer>) {
+      // The declared size can lie: count what really comes out of the inflater.
+      inflated += chunk.length;
+      assertInflationWithinLimits(entry.name, inflated, entry.compressedSize);
       let text = decoder.write(chunk);
       if (first) {
         text = text.replace(/^\uFEFF/, "");

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { uploadFileName } from "./file-name";
 import { populationMappingSchema } from "./population-mapping";
 import { moneyInput } from "./engagement";
 
@@ -15,9 +16,7 @@ export function signedMoney(wholeDigits: number) {
     .transform((v) => (v.includes(".") ? v : `${v}.00`));
 }
 
-export const UploadQuerySchema = z.object({
-  fileName: z.string().trim().min(1, "fileName: name the file").max(255, "fileName: at most 255 characters"),
-});
+export const UploadQuerySchema = z.object({ fileName: uploadFileName });
 
 export const InspectQuerySchema = z.object({ sheet: z.string().trim().min(1).max(31).optional() });
 

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { uploadFileName } from "@/lib/validation/file-name";
 import { withEngagementRole, withEngagementRoleStreaming } from "@/lib/auth/with-role";
 import { buildFieldworkWorkbook } from "@/lib/fieldwork/workbook-export";
 import { importFieldworkWorkbook, MAX_WORKBOOK_BYTES } from "@/lib/fieldwork/workbook-import";
@@ -17,7 +18,7 @@ export const GET = withEngagementRole(z.object({}), "viewer", async (_input, ctx
 });
 
 /** A filled workbook as the raw request body (not multipart): all rows applied in one transaction, or none (422 listing problems). */
-export const POST = withEngagementRoleStreaming(z.object({ fileName: z.string().max(255).optional() }), "staff", async (_query, ctx) => {
+export const POST = withEngagementRoleStreaming(z.object({ fileName: uploadFileName.optional() }), "staff", async (_query, ctx) => {
   const sample = await sampleOf(ctx);
   const bytes = await readBodyBytes(ctx.req, { maxBytes: MAX_WORKBOOK_BYTES, what: "a fieldwork workbook" });
   return importFieldworkWorkbook(ctx.db, { engagementId: ctx.engagementId, sampleId: sample.id, actorId: ctx.user.id, bytes });
