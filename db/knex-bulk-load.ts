@@ -21,6 +21,8 @@ export function getBulkLoadDb(): Knex {
       // mysql2 reads infileStreamFactory from its connection options; knex's types do not list it.
       connection: { ...(config.connection as object), flags: "+LOCAL_FILES", infileStreamFactory: () => (currentStream ?? refuse)() } as unknown as Knex.MySql2ConnectionConfig,
       pool: { min: 0, max: 1 },
+      // Loads queue for the one connection: wait as long as a load may run (maxDuration 600 s).
+      acquireConnectionTimeout: 600_000,
     });
   }
   return globalForBulk.sondageBulkDb;

@@ -21,6 +21,8 @@ export function buildKnexConfig(env: NodeJS.ProcessEnv = process.env): Knex.Conf
       bigNumberStrings: true,
     },
     pool: { min: 0, max: 10 },
+    // When the server is down, a request waits this long for a connection, then answers 503 (lib/errors.ts).
+    acquireConnectionTimeout: 5_000,
     migrations: { migrationSource, tableName: "knex_migrations" },
   };
 }

@@ -34,9 +34,31 @@ export function validationError(error: z.ZodError): AppError {
   return new AppError(400, "invalid_input", `Invalid input — ${summary}`, fields);
 }
 
+// mysql2 / knex codes meaning the database server cannot be reached or went away mid-request.
+const DATABASE_DOWN_CODES = new Set(["ECONNREFUSED", "ECONNRESET", "EPIPE", "ETIMEDOUT", "PROTOCOL_CONNECTION_LOST", "ER_SERVER_SHUTDOWN", "ER_CON_COUNT_ERROR", "ER_SERVER_GONE_ERROR", "CR_SERVER_LOST", "CR_CONNECTION_ERROR"]);
+
+/** True when an error says the database is unreachable (not that a query was wrong). */
+export function isDatabaseUnavailable(err: unknown): boolean {
+  for (let e: unknown = err, depth = 0; e && depth < 4; depth++) {
+    const code = (e as { code?: unknown }).code;
+    if (typeof code === "string" && DATABASE_DOWN_CODES.has(code)) return true;
+    const message = e instanceof Error ? e.message : "";
+    if (/Knex: Timeout acquiring a connection|Connection lost: The server closed the connection|Can't add new command when connection is in closed state/.test(message)) return true;
+    e = (e as { cause?: unknown }).cause;
+  }
+  return false;
+}
+
+export const databaseUnavailable = () =>
+  new AppError(503, "database_unavailable", "The database is not answering just now, so nothing was saved. Try again in a minute; if it goes on, tell your firm's administrator.");
+
 /** Turns anything thrown in a handler into a Response; unexpected errors are logged, never echoed. */
 export function errorToResponse(err: unknown): Response {
   if (err instanceof AppError) return err.toResponse();
+  if (isDatabaseUnavailable(err)) {
+    console.error("[sondage] database unavailable", (err as { code?: string }).code ?? (err as Error).message);
+    return new Response(databaseUnavailable().toResponse().body, { status: 503, headers: { "content-type": "application/json", "retry-after": "30" } });
+  }
   if (err instanceof z.ZodError) return validationError(err).toResponse();
   if (err instanceof ImportError) return new AppError(err.status, err.reason, err.message).toResponse();
   console.error("[sondage] unexpected error", err);

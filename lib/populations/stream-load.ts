@@ -2,7 +2,7 @@ import "server-only";
 import type { Knex } from "knex";
 import { claimUploadForLoading, type UploadRecord } from "@/lib/data/population-uploads";
 import type { LoadPopulation } from "@/lib/validation/population";
-import { AppError } from "@/lib/errors";
+import { AppError, isDatabaseUnavailable } from "@/lib/errors";
 import { ImportError } from "@/lib/imports";
 import { loadPopulation, type LoadProgress } from "./load-population";
 
@@ -42,7 +42,10 @@ export async function streamPopulationLoad(db: Knex, args: { upload: UploadRecor
         else send({ type: "rejected", problemCount: outcome.problemCount, problems: outcome.problems.slice(0, PROBLEMS_ON_SCREEN), problemsTruncated: outcome.problemCount > PROBLEMS_ON_SCREEN });
       } catch (err) {
         if (err instanceof ImportError || err instanceof AppError) send({ type: "error", status: err.status, message: err.message });
-        else {
+        else if (isDatabaseUnavailable(err)) {
+          console.error("[sondage] population load: database unavailable", (err as { code?: string }).code ?? err);
+          send({ type: "error", status: 503, message: "The database stopped answering during the load. Nothing was stored (the load is one transaction); load the file again once it is back." });
+        } else {
           console.error("[sondage] population load failed", err);
           send({ type: "error", status: 500, message: "The load failed on our side and nothing was stored. The error has been logged." });
         }
