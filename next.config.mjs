@@ -16,7 +16,11 @@ const nextConfig = {
   typedRoutes: false,
   // Every answer, pages and API alike; the page CSP is set per request in proxy.ts (it needs a nonce).
   async headers() {
-    return [{ source: "/:path*", headers: COMMON_SECURITY_HEADERS }];
+    return [
+      { source: "/:path*", headers: COMMON_SECURITY_HEADERS },
+      // API answers are data, never documents: nothing to run, nothing to frame.
+      { source: "/api/:path*", headers: [{ key: "Content-Security-Policy", value: "default-src 'none'; frame-ancestors 'none'; sandbox" }] },
+    ];
   },
   experimental: { serverActions: { bodySizeLimit: "2mb" } },
 };

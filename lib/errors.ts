@@ -55,6 +55,10 @@ export const databaseUnavailable = () =>
 /** Turns anything thrown in a handler into a Response; unexpected errors are logged, never echoed. */
 export function errorToResponse(err: unknown): Response {
   if (err instanceof AppError) return err.toResponse();
+  const code = (err as { code?: unknown } | null)?.code;
+  if (code === "ER_LOCK_DEADLOCK" || code === "ER_LOCK_WAIT_TIMEOUT") {
+    return new AppError(409, "busy", "Someone else was saving a change to the same record at the same moment; nothing of yours was saved. Try again.").toResponse();
+  }
   if (isDatabaseUnavailable(err)) {
     console.error("[sondage] database unavailable", (err as { code?: string }).code ?? (err as Error).message);
     return new Response(databaseUnavailable().toResponse().body, { status: 503, headers: { "content-type": "application/json", "retry-after": "30" } });

@@ -3,7 +3,7 @@ import type { Knex } from "knex";
 import type { SaveResult } from "@/lib/validation/sample";
 import { recordAudit } from "./audit-log";
 import { containsPattern } from "./like";
-import { beginSampleWrite } from "@/lib/samples/guard";
+import { beginResultWrite } from "@/lib/samples/guard";
 import { AppError, notFound } from "@/lib/errors";
 import { centsToDecimal, decimalToCents } from "@/lib/money";
 
@@ -94,7 +94,7 @@ export async function getItemById(db: Knex, { drawId, itemId }: { drawId: number
  */
 export async function saveItemResult(db: Knex, { engagementId, sampleId, drawId, itemId, actorId, input }: { engagementId: number; sampleId: number; drawId: number; itemId: number; actorId: number; input: SaveResult }) {
   return db.transaction(async (trx) => {
-    const signOffsCleared = await beginSampleWrite(trx, { sampleId, actorId, what: "an item's result" });
+    const signOffsCleared = await beginResultWrite(trx, { sampleId, actorId, what: "an item's result" });
     const before = await itemQuery(trx, drawId).andWhere("i.id", itemId).forUpdate().first();
     if (!before) throw notFound("No such item in this sample");
     if (before.status === "void") throw new AppError(409, "void_item", "This item was voided and replaced; record the result on its replacement.");
@@ -113,7 +113,7 @@ export async function saveItemResult(db: Knex, { engagementId, sampleId, drawId,
     const after = await getItemById(trx, { drawId, itemId });
     const view = (i: SampleItemRecord) => ({ status: i.status, auditedValue: i.auditedValue, cause: i.cause, deviation: i.deviation, comment: i.comment });
     await recordAudit(trx, { actorUserId: actorId, engagementId, sampleId, entity: "sample_item", entityId: itemId, action: "record-result", before: view(toItem(before)), after: view(after) });
-    await trx("samples").where({ id: sampleId }).update({ updated_at: trx.fn.now(3) });
+    // samples.updated_at is not touched here: that would take the sample row exclusively and queue every save behind every other.
     return { item: after, signOffsCleared };
   });
 }

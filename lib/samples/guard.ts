@@ -37,3 +37,22 @@ export async function beginSampleWrite(trx: Knex.Transaction, { sampleId, actorI
   });
   return true;
 }
+
+/**
+ * beginSampleWrite for a result save, the one write many people make at once on one sample: while
+ * nothing is signed off it takes a SHARED lock on the sample row, so saves on different items run
+ * side by side, while lock, unlock and sign-off (which take the row exclusively) still wait for
+ * every save in flight and are seen by every save after them. Signed off: the exclusive path,
+ * which clears the sign-offs.
+ */
+export async function beginResultWrite(trx: Knex.Transaction, a: { sampleId: number; actorId: number; what: string }): Promise<boolean> {
+  const peek = await trx("samples").where({ id: a.sampleId }).first("locked_at", "preparer_signed_at", "reviewer_signed_at");
+  if (!peek) throw notFound("No such sample");
+  if (peek.locked_at) throw lockedError();
+  if (peek.preparer_signed_at || peek.reviewer_signed_at) return beginSampleWrite(trx, a);
+  const row = await trx("samples").where({ id: a.sampleId }).forShare().first("locked_at", "preparer_signed_at", "reviewer_signed_at");
+  if (row.locked_at) throw lockedError();
+  // Signed between the peek and the shared lock (rare): upgrade; InnoDB resolves a clash of two such upgrades as a deadlock (answered 409).
+  if (row.preparer_signed_at || row.reviewer_signed_at) return beginSampleWrite(trx, a);
+  return false;
+}

@@ -1,6 +1,6 @@
 // The page Content-Security-Policy (built per request around a nonce, as Next's own CSP guide
-// describes) and the cross-site write check; proxy.ts applies both. The headers every answer
-// carries (nosniff, referrer policy, X-Frame-Options) are in next.config.mjs.
+// describes), applied by proxy.ts, and the cross-site write check of every API route
+// (lib/auth/with-role.ts). The headers every answer carries are in next.config.mjs.
 
 /**
  * Scripts run only with this request's nonce ('strict-dynamic' lets Next's own chunks load theirs);
@@ -20,9 +20,6 @@ export function pageContentSecurityPolicy(nonce: string, { dev = false } = {}): 
     "frame-ancestors 'none'",
   ].join("; ");
 }
-
-/** API answers are data, never documents: nothing to run, nothing to frame. */
-export const API_CONTENT_SECURITY_POLICY = "default-src 'none'; frame-ancestors 'none'; sandbox";
 
 /**
  * A state-changing request from another site: its Origin (or, failing that, Sec-Fetch-Site) names a

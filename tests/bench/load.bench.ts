@@ -110,6 +110,34 @@ async function sampleItems(session: HttpSession, base: string, sampleId: number)
   return items;
 }
 
+/** One credentials sign-in try; the error text next-auth passes back in the redirect, or "ok". */
+async function trySignIn(email: string, password: string, headers: Record<string, string> = {}): Promise<{ ok: boolean; error: string; ms: number }> {
+  const s = new HttpSession(APP);
+  const { csrfToken } = await s.json<{ csrfToken: string }>("/api/auth/csrf");
+  const started = performance.now();
+  const res = await s.fetch("/api/auth/callback/credentials", { method: "POST", headers: { "content-type": "application/x-www-form-urlencoded", ...headers }, body: new URLSearchParams({ csrfToken, email, password, json: "true" }).toString() });
+  const ms = performance.now() - started;
+  const location = res.headers.get("location") ?? (await res.text());
+  const error = decodeURIComponent(/error=([^&"]+)/.exec(location)?.[1] ?? "").replace(/\+/g, " ");
+  return { ok: !error, error, ms };
+}
+
+async function measureSignInThrottle(emails: string[]) {
+  const target = emails.at(-1)!;
+  const tries = [];
+  for (let i = 0; i < 7; i++) tries.push(await trySignIn(target, "wrong-password-" + i));
+  const right = await trySignIn(target, PASSWORD);
+  const firstBlocked = tries.findIndex((t) => /Too many/.test(t.error)) + 1;
+  report(`sign-in throttle, one account: failures answered "${tries[0].error}" in ${tries[0].ms.toFixed(0)} ms each (bcrypt); try ${firstBlocked} was refused: "${tries[firstBlocked - 1]?.error}"; the right password then: ${right.ok ? "accepted (NOT throttled)" : `refused ("${right.error}")`}`);
+  // The per-address limit (20 in 15 min) keys on X-Forwarded-For: from one address it holds; a caller who sets the header freely gets a fresh bucket each time.
+  const sameAddress = [];
+  for (let i = 0; i < 21; i++) sameAddress.push(await trySignIn(`nobody${i}@nowhere.example`, "x", { "x-forwarded-for": "198.51.100.7" }));
+  const ipBlocked = sameAddress.findIndex((t) => /network address/.test(t.error)) + 1;
+  const spoofed = [];
+  for (let i = 0; i < 21; i++) spoofed.push(await trySignIn(`ghost${i}@nowhere.example`, "x", { "x-forwarded-for": `203.0.113.${i}` }));
+  report(`sign-in throttle, one address: try ${ipBlocked || "none"} of 21 refused for the address; with a new X-Forwarded-For per try: ${spoofed.filter((t) => /network address/.test(t.error)).length} of 21 refused (the per-address limit needs a proxy that overwrites the header; the per-account limit holds regardless)`);
+}
+
 async function main() {
   mkdirSync(path.dirname(LOG), { recursive: true });
   writeFileSync(LOG, "");
@@ -144,6 +172,9 @@ async function main() {
       sessions.push(s);
     }
     log(`${sessions.length} staff signed in`);
+
+    // 0. Sign-in throttling, measured.
+    await measureSignInThrottle(emails);
 
     // 1. Saves on one sample.
     const smallPopulation = await loadPopulation(senior, base, 5_000, "load-ledger-5k");

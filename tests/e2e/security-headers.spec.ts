@@ -1,4 +1,8 @@
 import { expect, test } from "@playwright/test";
+import { createHash } from "node:crypto";
+import { rmSync, writeFileSync } from "node:fs";
+import os from "node:os";
+import path from "node:path";
 import { encode } from "next-auth/jwt";
 import { HttpSession } from "../bench/support/http-session";
 import { DEMO, DEMO_PASSWORD, SignInPage } from "./pages/sign-in-page";
@@ -114,4 +118,25 @@ test("a deactivated user's open session stops working at the next request", asyn
   const page = await leaver.fetch("/engagements");
   expect(page.status).toBe(307);
   expect(page.headers.get("location")).toContain("/sign-in");
+});
+
+test("a ledger upload larger than 10 MB arrives whole (no proxy buffers API bodies)", async ({ baseURL }) => {
+  const senior = new HttpSession(baseURL!);
+  await senior.signIn(DEMO.senior.email, DEMO_PASSWORD);
+  const { engagements } = await senior.json<{ engagements: { id: number; clientName: string }[] }>("/api/engagements");
+  const tessaly = engagements.find((e) => e.clientName.startsWith("Tessaly"))!;
+  const lines = ["Invoice,Amount"];
+  for (let i = 1; lines.length <= 600_000; i++) lines.push(`BIG-${String(i).padStart(8, "0")},${(i % 9973) + 0.25}`);
+  const body = Buffer.from(lines.join("\n") + "\n");
+  expect(body.length).toBeGreaterThan(12 * 1024 * 1024);
+  const file = path.join(os.tmpdir(), `big-upload-${process.pid}.csv`);
+  writeFileSync(file, body);
+  try {
+    const up = await senior.uploadFile<{ upload: { sizeBytes: number; sha256: string } }>(`/api/engagements/${tessaly.id}/populations/uploads?fileName=big.csv`, file);
+    expect(up.status).toBe(201);
+    expect(up.body.upload.sizeBytes).toBe(body.length);
+    expect(up.body.upload.sha256).toBe(createHash("sha256").update(body).digest("hex"));
+  } finally {
+    rmSync(file, { force: true });
+  }
 });

@@ -1,3 +1,4 @@
+import { execFile } from "node:child_process";
 import { existsSync, mkdirSync, rmSync } from "node:fs";
 import path from "node:path";
 import { ROOT, run, startService, type Service } from "./processes";
@@ -18,13 +19,10 @@ export class PrivateMariaDb {
     return run("mariadb", ["--no-defaults", `--socket=${this.socket}`, "-uroot", ...args], process.env, input);
   }
 
-  async ping(): Promise<boolean> {
-    try {
-      await run("mariadb-admin", ["--no-defaults", `--socket=${this.socket}`, "-uroot", "ping"]);
-      return true;
-    } catch {
-      return false;
-    }
+  ping(): Promise<boolean> {
+    return new Promise((resolve) => {
+      execFile("mariadb-admin", ["--no-defaults", `--socket=${this.socket}`, "-uroot", "ping"], (err) => resolve(!err));
+    });
   }
 
   async start(): Promise<void> {
@@ -68,7 +66,7 @@ export class PrivateMariaDb {
 
   async stop(): Promise<void> {
     if (!this.service) return;
-    await run("mariadb-admin", ["--no-defaults", `--socket=${this.socket}`, "-uroot", "shutdown"]).catch(() => this.kill());
+    await new Promise<void>((resolve) => execFile("mariadb-admin", ["--no-defaults", `--socket=${this.socket}`, "-uroot", "shutdown"], () => resolve()));
     await this.service?.exited;
     this.service = null;
   }
