@@ -34,16 +34,19 @@ export function validationError(error: z.ZodError): AppError {
   return new AppError(400, "invalid_input", `Invalid input — ${summary}`, fields);
 }
 
-// mysql2 / knex codes meaning the database server cannot be reached or went away mid-request.
-const DATABASE_DOWN_CODES = new Set(["ECONNREFUSED", "ECONNRESET", "EPIPE", "ETIMEDOUT", "PROTOCOL_CONNECTION_LOST", "ER_SERVER_SHUTDOWN", "ER_CON_COUNT_ERROR", "ER_SERVER_GONE_ERROR", "CR_SERVER_LOST", "CR_CONNECTION_ERROR"]);
+// mysql2 codes meaning the database server cannot be reached or went away mid-request. Socket
+// codes count only on mysql2's own fatal errors (an S3 or SMTP socket reset is not the database).
+const DATABASE_DOWN_CODES = new Set(["PROTOCOL_CONNECTION_LOST", "ER_SERVER_SHUTDOWN", "ER_CON_COUNT_ERROR", "ER_SERVER_GONE_ERROR", "CR_SERVER_LOST", "CR_CONNECTION_ERROR"]);
+const SOCKET_CODES = new Set(["ECONNREFUSED", "ECONNRESET", "EPIPE", "ETIMEDOUT", "EHOSTUNREACH"]);
 
 /** True when an error says the database is unreachable (not that a query was wrong). */
 export function isDatabaseUnavailable(err: unknown): boolean {
   for (let e: unknown = err, depth = 0; e && depth < 4; depth++) {
-    const code = (e as { code?: unknown }).code;
-    if (typeof code === "string" && DATABASE_DOWN_CODES.has(code)) return true;
+    const { code, fatal, name } = e as { code?: unknown; fatal?: unknown; name?: unknown };
+    if (typeof code === "string" && (DATABASE_DOWN_CODES.has(code) || (fatal === true && SOCKET_CODES.has(code)))) return true;
+    if (name === "KnexTimeoutError") return true; // no connection could be had from the pool in time
     const message = e instanceof Error ? e.message : "";
-    if (/Knex: Timeout acquiring a connection|Connection lost: The server closed the connection|Can't add new command when connection is in closed state/.test(message)) return true;
+    if (/Connection lost: The server closed the connection|Can't add new command when connection is in closed state/.test(message)) return true;
     e = (e as { cause?: unknown }).cause;
   }
   return false;

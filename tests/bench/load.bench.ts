@@ -84,11 +84,15 @@ async function loadFile(senior: HttpSession, base: string, rows: number, name: s
   return { uploadId: up.body.upload.id, file };
 }
 
-async function loadPopulation(senior: HttpSession, base: string, rows: number, name: string): Promise<number> {
+async function loadPopulation(senior: HttpSession, base: string, rows: number, name: string, attempt = 1): Promise<number> {
   const { uploadId } = await loadFile(senior, base, rows, name);
   const { done } = startLoad(senior, base, uploadId, name);
   const result = await done;
-  if (result.last?.type !== "loaded") throw new Error(`load of ${rows} rows: ${JSON.stringify(result)}`);
+  if (result.last?.type !== "loaded") {
+    if (attempt >= 2) throw new Error(`load of ${rows} rows: ${JSON.stringify(result)}`);
+    report(`NOTE: the load of ${rows.toLocaleString("en-US")} rows failed once (${JSON.stringify(result.last ?? result.error)}); loading it again`);
+    return loadPopulation(senior, base, rows, name, attempt + 1);
+  }
   const populationId = result.last.populationId!;
   const pop = await senior.json<{ population: { total: string; rowCount: number } }>(`${base}/populations/${populationId}`);
   await senior.json(`${base}/populations/${populationId}/reconciliation`, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify({ controlTotal: pop.population.total, controlCount: pop.population.rowCount }) });
