@@ -76,6 +76,12 @@ export const ROUTE_MATRIX: MatrixRow[] = [
   { route: `GET ${S}`, expect: onEngagement("viewer", 200) },
   { route: `PATCH ${S}`, expect: onEngagement("senior", 400), validBody: (ids) => ({ populationId: ids.populationId, name: "Probe", objective: "Cross-engagement probe", assertion: "Existence", direction: "overstatement", params: musParams }) },
   { route: `GET ${S}/audit`, expect: onEngagement("staff", 200) },
+  // Estimator advisor (issue 7). The fixtures hold no advisor run: run ids point at nothing, so allowed callers get the run's 404.
+  { route: `GET ${S}/advisor`, expect: onEngagement("viewer", 200) },
+  { route: `POST ${S}/advisor`, expect: onEngagement("senior", 400), validBody: () => ({ scenario: { kind: "pattern", misstatedPercent: 5, tainting: "spread", overstatementPercent: 100 }, sampleSizes: [30], trials: 200, seed: 1 }) },
+  { route: `GET ${S}/advisor/[runId]`, expect: onEngagement("viewer", 404), probe: { path: `${S}/advisor/2147483000` } },
+  { route: `DELETE ${S}/advisor/[runId]`, expect: onEngagement("senior", 404), probe: { path: `${S}/advisor/2147483000` } },
+  { route: `POST ${S}/advisor/[runId]/adopt`, expect: onEngagement("senior", 400), probe: { path: `${S}/advisor/2147483000/adopt` } },
   { route: `POST ${S}/draw`, expect: onEngagement("senior", 400), validBody: () => ({}) },
   { route: `GET ${S}/evaluation`, expect: onEngagement("viewer", 200) },
   { route: `POST ${S}/extend`, expect: onEngagement("senior", 400), validBody: () => ({ additional: 1, reason: "Cross-engagement probe" }) },
