@@ -20,19 +20,31 @@ const toItem = (r: Record<string, unknown>): PopulationItem => ({
 
 const SORT_COLUMNS = { row: "row_number", ref: "item_ref", book: "book_value" } as const;
 
-/** One page of a population's items, sorted and optionally searched (reference or description). */
+/**
+ * One page of a population's items, sorted and optionally searched (reference or description).
+ * Unsearched, the total is the population's stored row count (no COUNT over a million rows), and
+ * the page is found as a deferred join: the OFFSET walks only the (population_id, sort column)
+ * index, whose entries carry the primary key, and the full rows are read for the page kept.
+ */
 export async function listItemsByPopulationId(db: Knex, { populationId, query }: { populationId: number; query: ItemsQuery }) {
   const base = db("population_items").where({ population_id: populationId });
   if (query.q) {
     const like = containsPattern(query.q);
     base.andWhere((w) => w.where("item_ref", "like", like).orWhere("description", "like", like));
   }
-  const [countRow, rows] = await Promise.all([
-    base.clone().count({ n: "*" }).first(),
-    base.clone().orderBy(SORT_COLUMNS[query.sort], query.dir).orderBy("row_number", query.dir)
-      .limit(query.pageSize).offset((query.page - 1) * query.pageSize).select("row_number", "item_ref", "description", "book_value", "item_date", "extra"),
+  const sort = SORT_COLUMNS[query.sort];
+  const keys = base.clone().orderBy(sort, query.dir).orderBy("row_number", query.dir)
+    .limit(query.pageSize).offset((query.page - 1) * query.pageSize).select("row_number");
+  const total = query.q
+    ? base.clone().count({ n: "*" }).first().then((r) => Number(r?.n ?? 0))
+    : db("populations").where({ id: populationId }).first("row_count").then((r) => Number(r?.row_count ?? 0));
+  const [count, rows] = await Promise.all([
+    total,
+    db.from(keys.as("k")).join("population_items as i", (j) => j.on("i.row_number", "k.row_number").andOnVal("i.population_id", populationId))
+      .orderBy(`i.${sort}`, query.dir).orderBy("i.row_number", query.dir)
+      .select("i.row_number", "i.item_ref", "i.description", "i.book_value", "i.item_date", "i.extra"),
   ]);
-  return { items: rows.map(toItem), total: Number(countRow?.n ?? 0), page: query.page, pageSize: query.pageSize };
+  return { items: rows.map(toItem), total: count, page: query.page, pageSize: query.pageSize };
 }
 
 export interface PopulationProfile {
