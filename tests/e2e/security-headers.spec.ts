@@ -126,7 +126,7 @@ test("a ledger upload larger than 10 MB arrives whole (no proxy buffers API bodi
   const { engagements } = await senior.json<{ engagements: { id: number; clientName: string }[] }>("/api/engagements");
   const tessaly = engagements.find((e) => e.clientName.startsWith("Tessaly"))!;
   const lines = ["Invoice,Amount"];
-  for (let i = 1; lines.length <= 600_000; i++) lines.push(`BIG-${String(i).padStart(8, "0")},${(i % 9973) + 0.25}`);
+  for (let i = 1; lines.length <= 700_000; i++) lines.push(`BIG-${String(i).padStart(8, "0")},${(i % 9973) + 0.25}`);
   const body = Buffer.from(lines.join("\n") + "\n");
   expect(body.length).toBeGreaterThan(12 * 1024 * 1024);
   const file = path.join(os.tmpdir(), `big-upload-${process.pid}.csv`);
