@@ -13,6 +13,8 @@ import { DEMO, DEMO_PASSWORD } from "../pages/sign-in-page";
 import type { Actor } from "./route-matrix";
 
 export const OTHER_FIRM = { email: "partner@larkspur-audit.example", name: "Ines Okafor" };
+/** An auditor who is a viewer on the matrix engagement (the demo's only viewer became a client contact in issue 9). */
+export const MATRIX_VIEWER = { email: "viewer@marrow-quill.example", name: "Rowan Ebbe" };
 
 export interface MatrixFixtures {
   sessions: Record<Actor, HttpSession>;
@@ -30,6 +32,27 @@ export function e2eDatabase() {
   Object.assign(process.env, saved);
   const slot = Number(process.env.E2E_SLOT ?? 0);
   return knex(buildKnexConfig({ ...process.env, DB_NAME: slot === 0 ? "sondage_e2e" : `sondage_e2e${slot}` }));
+}
+
+async function addMatrixViewer(): Promise<void> {
+  const db = e2eDatabase();
+  try {
+    if (await db("users").where({ email: MATRIX_VIEWER.email }).first("id")) return;
+    const firm = await db("users").where({ email: DEMO.admin.email }).first("firm_id");
+    await db("users").insert({ firm_id: firm.firm_id, email: MATRIX_VIEWER.email, name: MATRIX_VIEWER.name, grade: "staff", firm_role: "member", password_hash: await bcrypt.hash(DEMO_PASSWORD, 10) });
+  } finally {
+    await db.destroy();
+  }
+}
+
+/** The client contact joins the matrix engagement with the client role, as an invitation accepted would leave it. */
+async function addClientContact(engagementId: number, userId: number): Promise<void> {
+  const db = e2eDatabase();
+  try {
+    await db("engagement_members").insert({ engagement_id: engagementId, user_id: userId, role: "client" });
+  } finally {
+    await db.destroy();
+  }
 }
 
 async function addOtherFirm(): Promise<number> {
@@ -77,10 +100,11 @@ async function loadPopulation(senior: HttpSession, base: string, file: string): 
 
 export async function buildMatrixFixtures(baseUrl: string): Promise<MatrixFixtures> {
   const otherFirmEngagementId = await addOtherFirm();
-  const [viewer, staff, senior, manager, partner, admin, otherEngagement, otherFirm] = await Promise.all([
-    DEMO.client.email, DEMO.staff.email, DEMO.senior.email, DEMO.manager.email, DEMO.partner.email, DEMO.admin.email, DEMO.senior2.email, OTHER_FIRM.email,
+  await addMatrixViewer();
+  const [viewer, staff, senior, manager, partner, admin, otherEngagement, otherFirm, client] = await Promise.all([
+    MATRIX_VIEWER.email, DEMO.staff.email, DEMO.senior.email, DEMO.manager.email, DEMO.partner.email, DEMO.admin.email, DEMO.senior2.email, OTHER_FIRM.email, DEMO.client.email,
   ].map((email) => session(baseUrl, email)));
-  const sessions: Record<Actor, HttpSession> = { signedOut: new HttpSession(baseUrl), viewer, staff, senior, manager, partner, admin, otherEngagement, otherFirm };
+  const sessions: Record<Actor, HttpSession> = { signedOut: new HttpSession(baseUrl), viewer, staff, senior, manager, partner, admin, otherEngagement, otherFirm, client };
 
   const { users } = await admin.json<{ users: { id: number; email: string }[] }>("/api/users");
   const userIds = Object.fromEntries(users.map((u) => [u.email, u.id]));
@@ -89,10 +113,11 @@ export async function buildMatrixFixtures(baseUrl: string): Promise<MatrixFixtur
     overallMateriality: "500000", performanceMateriality: "375000",
   });
   const base = `/api/engagements/${engagement.id}`;
-  for (const [who, role] of [[DEMO.manager.email, "manager"], [DEMO.senior.email, "senior"], [DEMO.staff.email, "staff"], [DEMO.client.email, "viewer"]] as const) {
+  for (const [who, role] of [[DEMO.manager.email, "manager"], [DEMO.senior.email, "senior"], [DEMO.staff.email, "staff"], [MATRIX_VIEWER.email, "viewer"]] as const) {
     await post(partner, `${base}/members`, { userId: userIds[who], role });
   }
 
+  await addClientContact(engagement.id, userIds[DEMO.client.email]);
   const file = path.join(os.tmpdir(), `matrix-ledger-${process.pid}.csv`);
   await generateLedgerCsv(file, 300, 20261231);
   const population = await loadPopulation(senior, base, file).finally(() => rmSync(file, { force: true }));
@@ -116,7 +141,7 @@ export async function buildMatrixFixtures(baseUrl: string): Promise<MatrixFixtur
     ids: {
       engagementId: engagement.id, populationId: population.populationId, uploadId: population.uploadId, sampleId: sample.id,
       itemId: items[0].id, itemVersion: items[0].version, evidenceId: evidence.body.evidence.id, noteId: (note.note ?? note.notes?.at(-1))?.id,
-      userId: userIds[DEMO.staff.email],
+      userId: userIds[DEMO.staff.email], clientUserId: userIds[DEMO.client.email],
     },
   };
 }

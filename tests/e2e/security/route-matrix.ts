@@ -8,7 +8,8 @@
 // DELETE would act on point at nothing, so an allowed caller gets 404 from the child lookup.
 import type { EngagementRole } from "../../../lib/auth/roles";
 
-export const ACTORS = ["signedOut", "viewer", "staff", "senior", "manager", "partner", "admin", "otherEngagement", "otherFirm"] as const;
+// "client" is the client's own contact (grade client, membership role client on the engagement, issue 9).
+export const ACTORS = ["signedOut", "viewer", "staff", "senior", "manager", "partner", "admin", "otherEngagement", "otherFirm", "client"] as const;
 export type Actor = (typeof ACTORS)[number];
 export type Expected = Record<Actor, number>;
 
@@ -22,22 +23,25 @@ export interface MatrixRow { route: string; expect: Expected; probe?: Probe; val
 const REFUSED_BODY = "[]";
 const LONG_NAME = "x".repeat(300); // over every fileName limit (255)
 
-/** An engagement route: 401 signed out, 404 for everyone not on the engagement, 403 below `least`. */
+/** An auditor's engagement route: 401 signed out, 404 for everyone not on the engagement and for the client contact (outside the auditor ranks), 403 below `least`. */
 function onEngagement(least: EngagementRole, allowed: number): Expected {
   const rank = ["viewer", "staff", "senior", "manager", "partner"];
   const member = (role: EngagementRole) => (rank.indexOf(role) >= rank.indexOf(least) ? allowed : 403);
   return {
     signedOut: 401, viewer: member("viewer"), staff: member("staff"), senior: member("senior"), manager: member("manager"),
-    partner: member("partner"), admin: 404, otherEngagement: 404, otherFirm: 404,
+    partner: member("partner"), admin: 404, otherEngagement: 404, otherFirm: 404, client: 404,
   };
 }
 /** Any signed-in user. */
-const signedIn = (allowed: number): Expected => ({ signedOut: 401, viewer: allowed, staff: allowed, senior: allowed, manager: allowed, partner: allowed, admin: allowed, otherEngagement: allowed, otherFirm: allowed });
+const signedIn = (allowed: number): Expected => ({ signedOut: 401, viewer: allowed, staff: allowed, senior: allowed, manager: allowed, partner: allowed, admin: allowed, otherEngagement: allowed, otherFirm: allowed, client: allowed });
+/** Members of the audit firm (withAuditor): the client contact is refused. */
+const auditors = (allowed: number): Expected => ({ ...signedIn(allowed), client: 403 });
 /** Firm administrators (of their own firm: the other firm's caller is its admin). */
-const firmAdmin = (allowed: number): Expected => ({ signedOut: 401, viewer: 403, staff: 403, senior: 403, manager: 403, partner: 403, admin: allowed, otherEngagement: 403, otherFirm: allowed });
+const firmAdmin = (allowed: number): Expected => ({ signedOut: 401, viewer: 403, staff: 403, senior: 403, manager: 403, partner: 403, admin: allowed, otherEngagement: 403, otherFirm: allowed, client: 403 });
 const everyone = (status: number): Expected => ({ ...signedIn(status), signedOut: status });
 
 const E = "/api/engagements/[engagementId]";
+const REQUEST_NEED = "invoice";
 const S = `${E}/samples/[sampleId]`;
 const mapping = { itemRefColumn: "Invoice", bookValueColumn: "Amount", descriptionColumn: "Customer", dateColumn: "Due" };
 const musParams = { method: "mus", confidence: 0.95, tolerableMisstatement: "60000", expectedMisstatement: "8000", factorMode: "exact" };
@@ -47,10 +51,20 @@ export const ROUTE_MATRIX: MatrixRow[] = [
   { route: "GET /api/engagements", expect: signedIn(200) },
   // Creating an engagement needs the manager or partner grade (the other firm's caller is a partner).
   { route: "POST /api/engagements", expect: { ...signedIn(403), manager: 400, partner: 400, otherFirm: 400 } },
-  { route: "GET /api/users", expect: signedIn(200) },
+  { route: "GET /api/users", expect: auditors(200) },
   { route: "POST /api/users", expect: firmAdmin(400) },
   { route: "PATCH /api/users/[userId]", expect: firmAdmin(400) },
   { route: "POST /api/users/[userId]/password", expect: firmAdmin(400) },
+
+  // The client's side (issue 9): a client contact's own request lists; nothing here exists for the probe's list id.
+  // Everyone signed in may ask for "my request lists" (an auditor has none); a list id not addressed to the caller is 404 to all.
+  { route: "GET /api/requests", expect: signedIn(200) },
+  { route: "GET /api/requests/[listId]", expect: signedIn(404), probe: { path: "/api/requests/2147483000" } },
+  { route: "GET /api/requests/[listId]/files/[fileId]", expect: signedIn(404), probe: { path: "/api/requests/2147483000/files/2147483000" } },
+  { route: "PATCH /api/requests/[listId]/items/[requestItemId]", expect: signedIn(404), probe: { path: "/api/requests/2147483000/items/2147483000" } },
+  { route: "POST /api/requests/[listId]/items/[requestItemId]/files", expect: signedIn(404), probe: { path: "/api/requests/2147483000/items/2147483000/files", query: "fileName=probe.txt", body: "probe", contentType: "text/plain" } },
+  // Public by design (the invitation token is the credential): a refused body is 400 for everyone.
+  { route: "POST /api/invitations/[token]", expect: everyone(400), probe: { path: "/api/invitations/not-a-real-invitation-token" } },
 
   { route: `GET ${E}`, expect: onEngagement("viewer", 200) },
   { route: `PATCH ${E}`, expect: onEngagement("manager", 400) },
@@ -76,6 +90,15 @@ export const ROUTE_MATRIX: MatrixRow[] = [
   { route: `GET ${S}`, expect: onEngagement("viewer", 200) },
   { route: `PATCH ${S}`, expect: onEngagement("senior", 400), validBody: (ids) => ({ populationId: ids.populationId, name: "Probe", objective: "Cross-engagement probe", assertion: "Existence", direction: "overstatement", params: musParams }) },
   { route: `GET ${S}/audit`, expect: onEngagement("staff", 200) },
+  // Client request lists, the team's side (issue 9). No list exists in the fixtures: list ids point at nothing.
+  { route: `GET ${E}/client-contacts`, expect: onEngagement("viewer", 200) },
+  { route: `POST ${E}/client-contacts`, expect: onEngagement("senior", 400) },
+  { route: `GET ${S}/requests`, expect: onEngagement("viewer", 200) },
+  { route: `POST ${S}/requests`, expect: onEngagement("senior", 400), validBody: (ids) => ({ title: "Cross-engagement probe", contactUserId: ids.clientUserId, dueDate: "2026-12-31", items: "all", needs: [REQUEST_NEED] }) },
+  { route: `GET ${S}/requests/[listId]`, expect: onEngagement("viewer", 404), probe: { path: `${S}/requests/2147483000` } },
+  { route: `GET ${S}/requests/[listId]/files/[fileId]`, expect: onEngagement("viewer", 404), probe: { path: `${S}/requests/2147483000/files/2147483000` } },
+  { route: `POST ${S}/requests/[listId]/files/[fileId]/accept`, expect: onEngagement("staff", 400), probe: { path: `${S}/requests/2147483000/files/2147483000/accept` } },
+  { route: `POST ${S}/requests/[listId]/files/[fileId]/return`, expect: onEngagement("staff", 400), probe: { path: `${S}/requests/2147483000/files/2147483000/return` } },
   // Estimator advisor (issue 7). The fixtures hold no advisor run: run ids point at nothing, so allowed callers get the run's 404.
   { route: `GET ${S}/advisor`, expect: onEngagement("viewer", 200) },
   { route: `POST ${S}/advisor`, expect: onEngagement("senior", 400), validBody: () => ({ scenario: { kind: "pattern", misstatedPercent: 5, tainting: "spread", overstatementPercent: 100 }, sampleSizes: [30], trials: 200, seed: 1 }) },
@@ -90,7 +113,8 @@ export const ROUTE_MATRIX: MatrixRow[] = [
   { route: `GET ${S}/items/[itemId]/evidence`, expect: onEngagement("viewer", 200) },
   { route: `POST ${S}/items/[itemId]/evidence`, expect: onEngagement("viewer", 400), probe: { query: `fileName=${LONG_NAME}`, body: "probe", contentType: "text/plain" } },
   { route: `GET ${S}/items/[itemId]/evidence/[evidenceId]`, expect: onEngagement("viewer", 200) },
-  { route: `DELETE ${S}/items/[itemId]/evidence/[evidenceId]`, expect: onEngagement("viewer", 404), probe: { path: `${S}/items/[itemId]/evidence/2147483000` } },
+  // Only staff and above remove evidence (a client contact only their own uploads, on the client side).
+  { route: `DELETE ${S}/items/[itemId]/evidence/[evidenceId]`, expect: onEngagement("staff", 404), probe: { path: `${S}/items/[itemId]/evidence/2147483000` } },
   { route: `POST ${S}/items/[itemId]/replace`, expect: onEngagement("senior", 400), validBody: () => ({ reason: "Cross-engagement probe" }) },
   { route: `POST ${S}/lock`, expect: onEngagement("manager", 400), validBody: () => ({}) },
   { route: `GET ${S}/notes`, expect: onEngagement("viewer", 200) },
