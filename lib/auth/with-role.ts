@@ -42,22 +42,6 @@ async function loadActiveUser(db: Knex): Promise<UserRecord> {
   return user;
 }
 
-/** Any signed-in, active user. */
-export function withUser<S extends z.ZodType>(schema: S, handler: Handler<S, UserContext>) {
-  return async (req: Request, route: RouteParams): Promise<Response> => {
-    try {
-      assertSameSite(req);
-      const db = getDb();
-      const params = await route.params;
-      const user = await loadActiveUser(db);
-      const input = await parseWith(schema, req);
-      return answer(await handler(input, { db, user, req, params }));
-    } catch (err) {
-      return errorToResponse(err);
-    }
-  };
-}
-
 /** A signed-in user who passes `check` (403 otherwise) before the input is read, so a refused caller learns nothing from validation. */
 function withCheckedUser<S extends z.ZodType>(check: (user: UserRecord) => void, schema: S, handler: Handler<S, UserContext>) {
   return async (req: Request, route: RouteParams): Promise<Response> => {
@@ -73,6 +57,11 @@ function withCheckedUser<S extends z.ZodType>(check: (user: UserRecord) => void,
       return errorToResponse(err);
     }
   };
+}
+
+/** Any signed-in, active user. */
+export function withUser<S extends z.ZodType>(schema: S, handler: Handler<S, UserContext>) {
+  return withCheckedUser(() => {}, schema, handler);
 }
 
 /** A signed-in firm administrator. */
