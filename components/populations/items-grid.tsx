@@ -8,6 +8,7 @@ import type { PopulationItem } from "@/lib/data/population-items";
 import { Amount } from "@/components/ui/amount";
 import { Button } from "@/components/ui/button";
 import { api } from "@/components/ui/api";
+import { SortableHead, alignOf } from "@/components/ui/data-table";
 import { formatCount } from "./labels";
 
 /** Column ids the server sorts by (ItemsQuerySchema `sort`). */
@@ -69,7 +70,6 @@ export function ItemsGrid({ url, extraColumns, hasDescription, hasDate }: Props)
   });
   const first = total === 0 ? 0 : pagination.pageIndex * pagination.pageSize + 1;
   const last = Math.min(total, (pagination.pageIndex + 1) * pagination.pageSize);
-  const align = (meta: unknown) => ((meta as { align?: string } | undefined)?.align === "right" ? "text-right" : "");
 
   return (
     <div className="space-y-3">
@@ -85,30 +85,12 @@ export function ItemsGrid({ url, extraColumns, hasDescription, hasDate }: Props)
       {error && <p role="alert" className="text-sm text-brick-700">{error}</p>}
       <div className={`overflow-x-auto rounded-card border border-ink-line bg-paper-raised transition-opacity ${busy ? "opacity-60" : ""}`} aria-busy={busy}>
         <table className="w-full text-sm" aria-label="Population items">
-          <thead className="bg-paper-sunk/60 text-left text-xs uppercase tracking-wider text-ink-soft">
-            {table.getHeaderGroups().map((group) => (
-              <tr key={group.id}>
-                {group.headers.map((header) => {
-                  const sorted = header.column.getIsSorted();
-                  return (
-                    <th key={header.id} scope="col" className={`px-4 py-2.5 font-semibold ${align(header.column.columnDef.meta)}`} aria-sort={sorted ? (sorted === "asc" ? "ascending" : "descending") : undefined}>
-                      {header.column.getCanSort() ? (
-                        <button type="button" onClick={header.column.getToggleSortingHandler()} className="inline-flex items-center gap-1 uppercase hover:text-ink">
-                          {flexRender(header.column.columnDef.header, header.getContext())}
-                          <span aria-hidden className="text-ink-faint">{sorted === "asc" ? "▲" : sorted === "desc" ? "▼" : "↕"}</span>
-                        </button>
-                      ) : flexRender(header.column.columnDef.header, header.getContext())}
-                    </th>
-                  );
-                })}
-              </tr>
-            ))}
-          </thead>
+          <SortableHead table={table} />
           <tbody>
             {table.getRowModel().rows.map((row) => (
               <tr key={row.id} className="border-t border-ink-line/70 hover:bg-paper">
                 {row.getVisibleCells().map((cell) => (
-                  <td key={cell.id} className={`px-4 py-2 ${align(cell.column.columnDef.meta)}`}>{flexRender(cell.column.columnDef.cell, cell.getContext())}</td>
+                  <td key={cell.id} className={`px-4 py-2 ${alignOf(cell.column.columnDef.meta)}`}>{flexRender(cell.column.columnDef.cell, cell.getContext())}</td>
                 ))}
               </tr>
             ))}

@@ -2,7 +2,7 @@
 import { useState } from "react";
 import {
   flexRender, getCoreRowModel, getFilteredRowModel, getSortedRowModel, useReactTable,
-  type ColumnDef, type SortingState,
+  type ColumnDef, type SortingState, type Table,
 } from "@tanstack/react-table";
 
 interface DataTableProps<T> {
@@ -31,33 +31,13 @@ export function DataTable<T>({ data, columns, filterPlaceholder = "Filter…", e
       />
       <div className="overflow-x-auto rounded-card border border-ink-line bg-paper-raised">
         <table className="w-full text-sm" aria-label={label}>
-          <thead className="bg-paper-sunk/60 text-left text-xs uppercase tracking-wider text-ink-soft">
-            {table.getHeaderGroups().map((group) => (
-              <tr key={group.id}>
-                {group.headers.map((header) => {
-                  const sorted = header.column.getIsSorted();
-                  const align = (header.column.columnDef.meta as { align?: string } | undefined)?.align === "right" ? "text-right" : "";
-                  return (
-                    <th key={header.id} scope="col" className={`px-4 py-2.5 font-semibold ${align}`} aria-sort={sorted ? (sorted === "asc" ? "ascending" : "descending") : undefined}>
-                      {header.column.getCanSort() ? (
-                        <button type="button" onClick={header.column.getToggleSortingHandler()} className="inline-flex items-center gap-1 uppercase hover:text-ink">
-                          {flexRender(header.column.columnDef.header, header.getContext())}
-                          <span aria-hidden className="text-ink-faint">{sorted === "asc" ? "▲" : sorted === "desc" ? "▼" : "↕"}</span>
-                        </button>
-                      ) : flexRender(header.column.columnDef.header, header.getContext())}
-                    </th>
-                  );
-                })}
-              </tr>
-            ))}
-          </thead>
+          <SortableHead table={table} />
           <tbody>
             {rows.map((row) => (
               <tr key={row.id} className="border-t border-ink-line/70 hover:bg-paper">
-                {row.getVisibleCells().map((cell) => {
-                  const align = (cell.column.columnDef.meta as { align?: string } | undefined)?.align === "right" ? "text-right" : "";
-                  return <td key={cell.id} className={`px-4 py-2.5 ${align}`}>{flexRender(cell.column.columnDef.cell, cell.getContext())}</td>;
-                })}
+                {row.getVisibleCells().map((cell) => (
+                  <td key={cell.id} className={`px-4 py-2.5 ${alignOf(cell.column.columnDef.meta)}`}>{flexRender(cell.column.columnDef.cell, cell.getContext())}</td>
+                ))}
               </tr>
             ))}
           </tbody>
@@ -65,5 +45,32 @@ export function DataTable<T>({ data, columns, filterPlaceholder = "Filter…", e
         {rows.length === 0 && <div className="p-6">{data.length === 0 ? empty : <p className="text-center text-sm text-ink-soft">Nothing matches “{filter}”.</p>}</div>}
       </div>
     </div>
+  );
+}
+
+export const alignOf = (meta: unknown) => ((meta as { align?: string } | undefined)?.align === "right" ? "text-right" : "");
+
+/** Header rows whose sortable columns toggle on click and announce their order (aria-sort). */
+export function SortableHead<T>({ table }: { table: Table<T> }) {
+  return (
+    <thead className="bg-paper-sunk/60 text-left text-xs uppercase tracking-wider text-ink-soft">
+      {table.getHeaderGroups().map((group) => (
+        <tr key={group.id}>
+          {group.headers.map((header) => {
+            const sorted = header.column.getIsSorted();
+            return (
+              <th key={header.id} scope="col" className={`px-4 py-2.5 font-semibold ${alignOf(header.column.columnDef.meta)}`} aria-sort={sorted ? (sorted === "asc" ? "ascending" : "descending") : undefined}>
+                {header.column.getCanSort() ? (
+                  <button type="button" onClick={header.column.getToggleSortingHandler()} className="inline-flex items-center gap-1 uppercase hover:text-ink">
+                    {flexRender(header.column.columnDef.header, header.getContext())}
+                    <span aria-hidden className="text-ink-faint">{sorted === "asc" ? "▲" : sorted === "desc" ? "▼" : "↕"}</span>
+                  </button>
+                ) : flexRender(header.column.columnDef.header, header.getContext())}
+              </th>
+            );
+          })}
+        </tr>
+      ))}
+    </thead>
   );
 }
