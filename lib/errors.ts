@@ -71,3 +71,8 @@ export function errorToResponse(err: unknown): Response {
   console.error("[sondage] unexpected error", err);
   return new AppError(500, "internal", "Something went wrong on our side; the error has been logged.").toResponse();
 }
+
+/** Bad input in one field: a 400 whose message and `fields` both name it. */
+export function fieldError(field: string, message: string): AppError {
+  return new AppError(400, "invalid_input", `${field}: ${message}`, { [field]: [message] });
+}

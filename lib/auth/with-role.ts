@@ -66,7 +66,7 @@ export function withUser<S extends z.ZodType>(schema: S, handler: Handler<S, Use
 
 /** A signed-in firm administrator. */
 export function withFirmAdmin<S extends z.ZodType>(schema: S, handler: Handler<S, UserContext>) {
-  return withCheckedUser((user) => { if (user.firmRole !== "admin") throw forbidden("Only firm administrators manage users."); }, schema, handler);
+  return withCheckedUser((user) => { if (user.firmRole !== "admin") throw forbidden("Only firm administrators may do this."); }, schema, handler);
 }
 
 /** A signed-in member of the audit firm: client staff (grade client) are refused with 403. */

@@ -6,6 +6,8 @@ import type { SelectionInputs } from "@/lib/samples/select";
 import { recordAudit } from "./audit-log";
 import { beginSampleWrite } from "@/lib/samples/guard";
 import { conflict, notFound } from "@/lib/errors";
+import { withMethodologyDefaults, type MethodologySettings } from "@/lib/validation/methodology";
+import { getMethodologyByFirmId, type MethodologyVersion } from "./firm-methodology";
 
 export interface SampleRecord {
   id: number;
@@ -24,6 +26,10 @@ export interface SampleRecord {
   sizeReason: string | null;
   status: "planned" | "drawn";
   planVersion: number;
+  /** The firm's methodology settings in force when the plan was last saved (defaults for older plans). */
+  methodology: MethodologySettings;
+  /** The firm's settings version stamped on the plan: 0 = shipped defaults, null = planned before settings existed. */
+  methodologyVersion: number | null;
   createdAt: string;
   createdByName: string;
 }
@@ -55,7 +61,9 @@ function toSample(r: Record<string, unknown>): SampleRecord {
     method: r.method as SampleRecord["method"], estimator: (r.estimator as string | null) ?? null,
     params: json<SampleParams>(r.params_json), plan: json<SamplePlan>(r.plan_json),
     computedSize: Number(r.computed_size), chosenSize: Number(r.chosen_size), sizeReason: (r.size_reason as string | null) ?? null,
-    status: r.status as SampleRecord["status"], planVersion: Number(r.plan_version), createdAt: iso(r.created_at)!, createdByName: String(r.created_by_name ?? ""),
+    status: r.status as SampleRecord["status"], planVersion: Number(r.plan_version),
+    methodology: withMethodologyDefaults(r.methodology_json ? json<unknown>(r.methodology_json) : null),
+    methodologyVersion: r.methodology_version === null || r.methodology_version === undefined ? null : Number(r.methodology_version), createdAt: iso(r.created_at)!, createdByName: String(r.created_by_name ?? ""),
   };
 }
 
@@ -81,9 +89,20 @@ export async function getSampleById(db: Knex, { engagementId, sampleId }: { enga
   return toSample(row);
 }
 
-export async function createSample(db: Knex, { engagementId, actorId, input, plan }: { engagementId: number; actorId: number; input: PlanSample; plan: SamplePlan }) {
+/** The settings a plan saved now is stamped with: those given (the ones the size was computed under), else the firm's current ones. */
+async function methodologyStamp(trx: Knex.Transaction, engagementId: number, given?: MethodologyVersion) {
+  let m = given;
+  if (!m) {
+    const engagement = await trx("engagements").where({ id: engagementId }).first("firm_id");
+    m = await getMethodologyByFirmId(trx, { firmId: Number(engagement.firm_id) });
+  }
+  return { methodology_json: JSON.stringify(m.settings), methodology_version: m.version };
+}
+
+export async function createSample(db: Knex, { engagementId, actorId, input, plan, methodology }: { engagementId: number; actorId: number; input: PlanSample; plan: SamplePlan; methodology?: MethodologyVersion }) {
   return db.transaction(async (trx) => {
     const [id] = await trx("samples").insert({
+      ...(await methodologyStamp(trx, engagementId, methodology)),
       engagement_id: engagementId, population_id: input.populationId, name: input.name, objective: input.objective, assertion: input.assertion,
       direction: input.direction, method: input.params.method, estimator: input.params.estimator ?? null,
       params_json: JSON.stringify(input.params), plan_json: JSON.stringify(plan), computed_size: plan.computedSize, chosen_size: plan.chosenSize,
@@ -95,7 +114,7 @@ export async function createSample(db: Knex, { engagementId, actorId, input, pla
 }
 
 /** Changes the plan of a sample not yet drawn; a drawn sample keeps its plan (draw again to change it). */
-export async function updateSamplePlan(db: Knex, { engagementId, sampleId, actorId, input, plan }: { engagementId: number; sampleId: number; actorId: number; input: PlanSample; plan: SamplePlan }) {
+export async function updateSamplePlan(db: Knex, { engagementId, sampleId, actorId, input, plan, methodology }: { engagementId: number; sampleId: number; actorId: number; input: PlanSample; plan: SamplePlan; methodology?: MethodologyVersion }) {
   return db.transaction(async (trx) => {
     const before = await trx("samples").where({ id: sampleId, engagement_id: engagementId }).forUpdate().first();
     if (!before) throw notFound("No such sample");
@@ -105,7 +124,7 @@ export async function updateSamplePlan(db: Knex, { engagementId, sampleId, actor
       name: input.name, objective: input.objective, assertion: input.assertion, direction: input.direction, method: input.params.method,
       estimator: input.params.estimator ?? null, params_json: JSON.stringify(input.params), plan_json: JSON.stringify(plan),
       computed_size: plan.computedSize, chosen_size: plan.chosenSize, size_reason: input.params.sizeReason ?? null,
-      plan_version: before.plan_version + 1, updated_at: trx.fn.now(3),
+      plan_version: before.plan_version + 1, updated_at: trx.fn.now(3), ...(await methodologyStamp(trx, engagementId, methodology)),
     });
     await recordAudit(trx, { actorUserId: actorId, engagementId, sampleId, entity: "sample", entityId: sampleId, action: "replan",
       before: { params: json(before.params_json), chosenSize: before.chosen_size }, after: { params: input.params, chosenSize: plan.chosenSize } });

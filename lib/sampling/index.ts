@@ -15,6 +15,7 @@ export { evaluateStratified, type StratumInput } from "./evaluate-stratified";
 export { poissonFactor } from "./poisson-factor";
 export { evaluateMus, type BoundSide, type MusEvaluation } from "./evaluate-mus";
 export { evaluateAttributes } from "./evaluate-attributes";
+export { EngineInputError } from "./errors";
 export type { SampledItem, Estimator, StratifiedEstimator, Sides, FactorMode, VariablesEvaluation } from "./types";
 export { simulateEstimators, type EstimatorPerformance, type HistogramBin } from "./simulate";
 export { simulateStringer, type StringerPerformance } from "./simulate-stringer";

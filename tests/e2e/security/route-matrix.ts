@@ -53,6 +53,8 @@ export const ROUTE_MATRIX: MatrixRow[] = [
   { route: "POST /api/engagements", expect: { ...signedIn(403), manager: 400, partner: 400, otherFirm: 400 } },
   { route: "GET /api/users", expect: auditors(200) },
   { route: "POST /api/users", expect: firmAdmin(400) },
+  { route: "GET /api/firm/methodology", expect: firmAdmin(200) },
+  { route: "PUT /api/firm/methodology", expect: firmAdmin(400) },
   { route: "PATCH /api/users/[userId]", expect: firmAdmin(400) },
   { route: "POST /api/users/[userId]/password", expect: firmAdmin(400) },
 
