@@ -9,7 +9,8 @@ export default defineConfig({
     projects: [
       {
         resolve: { alias },
-        test: { name: "unit", include: ["tests/unit/**/*.test.ts"], environment: "node" },
+        // A harness limit, not a speed check: property tests and simulations run long on a loaded 2-core machine.
+        test: { name: "unit", include: ["tests/unit/**/*.test.ts"], environment: "node", testTimeout: 30_000 },
       },
       {
         resolve: { alias },
