@@ -10,7 +10,7 @@ import { Field, Input, Select } from "@/components/ui/field";
 import { Button } from "@/components/ui/button";
 import { Alert } from "@/components/ui/alert";
 import { Badge } from "@/components/ui/badge";
-import { api } from "@/components/ui/api";
+import { api, readErrorAnswer } from "@/components/ui/api";
 import { AdvisorResults } from "./advisor-results";
 
 const CAUTION = "The advisor's figures come from assumed misstatements, not from evidence: they support, and do not replace, the auditor's professional judgement, the applicable standards (AU-C 530, ISA 530, AS 2315) and the firm's methodology.";
@@ -62,8 +62,8 @@ export function AdvisorPanel({ engagementId, sampleId, initial, mayRun, currency
     try {
       const res = await fetch(base, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify(body), signal: controller.signal });
       if (!res.ok || !res.body) {
-        const data = await res.json().catch(() => ({}));
-        throw new Error(data?.error?.message ?? `The advisor could not start (${res.status})`);
+        const data = await readErrorAnswer(res);
+        throw new Error(data.error?.message ?? `The advisor could not start (${res.status})`);
       }
       const reader = res.body.pipeThrough(new TextDecoderStream()).getReader();
       let buffer = "";
@@ -183,7 +183,7 @@ export function AdvisorPanel({ engagementId, sampleId, initial, mayRun, currency
                 <div role="progressbar" aria-label="Advisor progress" aria-valuemin={0} aria-valuemax={100} aria-valuenow={percent} className="h-2 overflow-hidden rounded-full bg-paper-sunk">
                   <div className="h-full bg-ledger-600 transition-[width]" style={{ width: `${percent}%` }} />
                 </div>
-                <p className="mt-1 text-xs text-ink-soft figures">{percent}% · {progress!.done.toLocaleString("en-US")} of {progress!.total.toLocaleString("en-US")} trials</p>
+                <p className="mt-1 text-xs text-ink-soft figures">{percent}% · {progress.done.toLocaleString("en-US")} of {progress.total.toLocaleString("en-US")} trials</p>
               </div>
             )}
           </form>

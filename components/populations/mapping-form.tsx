@@ -34,14 +34,17 @@ export function MappingForm({ upload, replaceable, disabled, onSubmit }: Props) 
   });
   const mapping = watch("mapping");
   const mapped = [mapping.itemRefColumn, mapping.bookValueColumn, mapping.descriptionColumn, mapping.dateColumn].filter(Boolean) as string[];
-  const extras = mapping.extraColumns ?? [];
+  const extraColumns = mapping.extraColumns;
+  const extras = extraColumns ?? [];
   const mappedKey = mapped.join("\u0000");
 
   useEffect(() => {
     // A column given a role above can no longer be an extra one.
-    const kept = extras.filter((c) => !mapped.includes(c));
-    if (kept.length !== extras.length) setValue("mapping.extraColumns", kept);
-  }, [mappedKey]); // only when the mapped set changes (this render holds the current extras)
+    const roleColumns = mappedKey ? mappedKey.split("\u0000") : [];
+    const current = extraColumns ?? [];
+    const kept = current.filter((c) => !roleColumns.includes(c));
+    if (kept.length !== current.length) setValue("mapping.extraColumns", kept);
+  }, [mappedKey, extraColumns, setValue]);
 
   const roles: Record<string, "ref" | "book" | "desc" | "date" | "extra" | undefined> = {};
   for (const c of extras) roles[c] = "extra";

@@ -1,4 +1,5 @@
 import type { LoadEvent } from "@/lib/populations/stream-load";
+import { readErrorAnswer } from "@/components/ui/api";
 
 export type { LoadEvent };
 
@@ -9,8 +10,8 @@ export type { LoadEvent };
 export async function runLoad(url: string, body: unknown, onEvent: (event: LoadEvent) => void): Promise<LoadEvent> {
   const res = await fetch(url, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify(body) });
   if (!res.ok || !res.body) {
-    const data = await res.json().catch(() => ({}));
-    const event: LoadEvent = { type: "error", status: res.status, message: data?.error?.message ?? `The load was refused (${res.status}).` };
+    const data = await readErrorAnswer(res);
+    const event: LoadEvent = { type: "error", status: res.status, message: data.error?.message ?? `The load was refused (${res.status}).` };
     onEvent(event);
     return event;
   }

@@ -13,6 +13,7 @@ import { Alert } from "@/components/ui/alert";
 import { Amount } from "@/components/ui/amount";
 import { api, ApiError } from "@/components/ui/api";
 import { formatCount } from "./labels";
+import { textOf } from "@/lib/format/text";
 
 type FormIn = z.input<typeof ReconcileSchema>;
 type FormOut = z.output<typeof ReconcileSchema>;
@@ -36,7 +37,7 @@ export function ReconciliationPanel({ engagementId, initial, currency, mayReconc
   });
   const loadedCents = decimalToCents(p.total);
   const typedTotal = typedCents(watch("controlTotal"));
-  const countText = String(watch("controlCount") ?? "").trim();
+  const countText = textOf(watch("controlCount")).trim();
   const typedCount = /^\d+$/.test(countText) ? Number(countText) : null;
   const diffTotal = typedTotal === null ? null : typedTotal - loadedCents;
   const diffCount = typedCount === null ? null : typedCount - p.rowCount;

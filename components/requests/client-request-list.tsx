@@ -5,7 +5,7 @@ import { Alert } from "@/components/ui/alert";
 import { Amount } from "@/components/ui/amount";
 import { Button } from "@/components/ui/button";
 import { PageHeader } from "@/components/ui/page-header";
-import { api } from "@/components/ui/api";
+import { api, readErrorAnswer } from "@/components/ui/api";
 import { RequestStatusBadge } from "./status-badge";
 import { FILE_STATUS_LABELS, formatBytes, formatDay, needsText } from "./labels";
 
@@ -14,8 +14,8 @@ type Item = ClientListView["items"][number];
 async function uploadOne(url: string, file: File) {
   const res = await fetch(`${url}?fileName=${encodeURIComponent(file.name)}`, { method: "POST", body: file });
   if (res.ok) return null;
-  const data = await res.json().catch(() => ({}));
-  return `${file.name}: ${data?.error?.message ?? `upload failed (${res.status})`}`;
+  const data = await readErrorAnswer(res);
+  return `${file.name}: ${data.error?.message ?? `upload failed (${res.status})`}`;
 }
 
 /** The client's view of one request list: each item, what is needed, its status, its files, an upload and a note. */

@@ -28,7 +28,7 @@ export function RequestListForm({ engagementId, sampleId, items, contacts: initi
   const [failure, setFailure] = useState<string | null>(null);
   const resolver: Resolver<Values, unknown, CreateRequestList> = (values, ctx, opts) => {
     const { chosen, ...rest } = values;
-    return schemaResolver({ ...rest, items: allItems ? "all" : chosen.map(Number) }, ctx, opts as never) as never;
+    return schemaResolver({ ...rest, items: allItems ? "all" : chosen.map(Number) }, ctx, opts as never);
   };
   const { register, handleSubmit, setValue, setError, formState: { errors, isSubmitting } } = useForm<Values, unknown, CreateRequestList>({
     resolver, defaultValues: { title: "Supporting documents for selected items", contactUserId: contacts[0] ? String(contacts[0].userId) : "", dueDate: defaultDue, needs: ["invoice"], chosen: [], showBookValues: false, message: "", needsNote: "" },

@@ -4,7 +4,7 @@ import { useRouter } from "next/navigation";
 import { Alert } from "@/components/ui/alert";
 import { Button, buttonClass } from "@/components/ui/button";
 import { Card } from "@/components/ui/card";
-import { api } from "@/components/ui/api";
+import { api, readErrorAnswer } from "@/components/ui/api";
 
 interface ItemOption { id: number; itemRef: string }
 interface Evidence { id: number; fileName: string; contentType: string; sizeBytes: number; sha256: string; uploadedByName: string; uploadedAt: string }
@@ -12,11 +12,11 @@ interface Problem { row: number; column: string | null; cell?: string; reason: s
 
 interface Props { engagementId: number; sampleId: number; items: ItemOption[]; mayWrite: boolean }
 
-async function postFile(url: string, file: File) {
+async function postFile(url: string, file: File): Promise<void> {
   const res = await fetch(`${url}${url.includes("?") ? "&" : "?"}fileName=${encodeURIComponent(file.name)}`, { method: "POST", body: file });
-  const data = await res.json().catch(() => ({}));
-  if (!res.ok) throw Object.assign(new Error(data?.error?.message ?? `Upload failed (${res.status})`), { problems: data?.error?.problems as Problem[] | undefined });
-  return data;
+  if (res.ok) return;
+  const data = await readErrorAnswer(res);
+  throw Object.assign(new Error(data.error?.message ?? `Upload failed (${res.status})`), { problems: data.error?.problems as Problem[] | undefined });
 }
 
 /** The fieldwork workbook round trip and the evidence files of each item. */
@@ -63,10 +63,10 @@ export function FieldworkFiles({ engagementId, sampleId, items, mayWrite }: Prop
     }
   }
 
-  const picker = (label: string, accept: string, onFile: (f: File) => void) => (
+  const picker = (label: string, accept: string, onFile: (f: File) => Promise<void>) => (
     <label className={buttonClass("secondary", "cursor-pointer")}>
       {label}
-      <input type="file" accept={accept} className="sr-only" onChange={(e) => { const f = e.target.files?.[0]; e.target.value = ""; if (f) onFile(f); }} />
+      <input type="file" accept={accept} className="sr-only" onChange={(e) => { const f = e.target.files?.[0]; e.target.value = ""; if (f) void onFile(f); }} />
     </label>
   );
 

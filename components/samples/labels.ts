@@ -1,6 +1,7 @@
 import type { SampleRecord } from "@/lib/data/samples";
 import type { SampleItemRecord } from "@/lib/data/sample-items";
 import { METHOD_LABELS, type SampleMethod } from "@/lib/validation/sample";
+import { textOf } from "@/lib/format/text";
 
 export { METHOD_LABELS };
 
@@ -37,7 +38,7 @@ export function formatPercent(fraction: number, digits?: number): string {
 
 /** "95" → 0.95, exact to 12 significant figures (no 0.07 * 100 = 7.000000000000001 surprises); null when not a number. */
 export function percentToFraction(text: unknown): number | null {
-  const s = String(text ?? "").trim().replace(/%$/, "").trim();
+  const s = textOf(text).trim().replace(/%$/, "").trim();
   if (s === "" || !/^-?\d*\.?\d+$/.test(s)) return null;
   return Number((Number(s) / 100).toPrecision(12));
 }

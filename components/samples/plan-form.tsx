@@ -98,7 +98,7 @@ export function PlanForm({ engagementId, currency, performanceMateriality, popul
         <Card title="Method and parameters">
           <Field label="Sampling method" error={errors.params?.method?.message}>
             {({ id, describedBy, invalid }) => (
-              <Select id={id} aria-describedby={describedBy} aria-invalid={invalid} {...register("params.method", { onChange: (e) => onMethod(e.target.value) })}>
+              <Select id={id} aria-describedby={describedBy} aria-invalid={invalid} {...register("params.method", { onChange: (e: React.ChangeEvent<HTMLSelectElement>) => onMethod(e.target.value) })}>
                 {SAMPLE_METHODS.map((m) => <option key={m} value={m}>{METHOD_LABELS[m]}</option>)}
               </Select>
             )}

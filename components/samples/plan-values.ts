@@ -1,6 +1,7 @@
 import type { z } from "zod";
 import type { PlanSampleSchema } from "@/lib/validation/sample";
 import { fractionToPercent, percentToFraction } from "./labels";
+import { textOf } from "@/lib/format/text";
 
 export type PlanFormIn = z.input<typeof PlanSampleSchema>;
 export type PlanFormOut = z.output<typeof PlanSampleSchema>;
@@ -43,7 +44,7 @@ export function defaultPlanValues(performanceMateriality: string, populationId?:
   };
 }
 
-const blank = (v: unknown) => v === undefined || v === null || String(v).trim() === "";
+const blank = (v: unknown) => textOf(v).trim() === "";
 
 /**
  * The form's values as the API expects them: percents to fractions, blanks dropped, and only the

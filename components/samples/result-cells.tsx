@@ -38,7 +38,7 @@ export function AuditedValueCell() {
     <div className="w-28">
       <input form={formId} aria-label={`Audited value of ${item.itemRef}`} inputMode="decimal" className={`${compact} figures w-full text-right`}
         disabled={!editable || status === "not-auditable"} aria-invalid={Boolean(errors.auditedValue)} aria-describedby={errors.auditedValue ? errId : undefined}
-        {...register("auditedValue", { onChange: (e) => { if (e.target.value.trim() !== "" && watch("status") === "not-started") setValue("status", "done", { shouldDirty: true }); } })} />
+        {...register("auditedValue", { onChange: (e: React.ChangeEvent<HTMLInputElement>) => { if (e.target.value.trim() !== "" && watch("status") === "not-started") setValue("status", "done", { shouldDirty: true }); } })} />
       <FieldError id={errId} message={errors.auditedValue?.message} />
     </div>
   );
@@ -95,7 +95,7 @@ export function DeviationCell() {
   return (
     <div className="w-60 space-y-1">
       <select form={formId} aria-label={`Deviation found in ${item.itemRef}`} className={`${compact} w-full`} disabled={!editable}
-        {...register("deviation", { onChange: (e) => { if (e.target.value !== "" && watch("status") === "not-started") setValue("status", "done", { shouldDirty: true }); } })}>
+        {...register("deviation", { onChange: (e: React.ChangeEvent<HTMLSelectElement>) => { if (e.target.value !== "" && watch("status") === "not-started") setValue("status", "done", { shouldDirty: true }); } })}>
         <option value="">—</option>
         <option value="no">No deviation</option>
         <option value="yes">Deviation</option>

@@ -1,6 +1,6 @@
 "use client";
 import { useRouter } from "next/navigation";
-import { createContext, useContext, useEffect, useState } from "react";
+import { createContext, useContext, useEffect, useRef, useState } from "react";
 import { useForm, type FieldPath, type Resolver, type UseFormReturn } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import type { SampleItemRecord } from "@/lib/data/sample-items";
@@ -40,18 +40,27 @@ interface Props {
  * (409) and the row says who, keeps the auditor's entry on screen, and offers to reload.
  */
 export function ResultRow({ item, url, editable, attribute, columnCount, onSaved, onReload, children }: Props) {
-  const [conflictMessage, setConflictMessage] = useState<string | null>(null);
+  const storedKey = `${item.id}:${item.version}`;
+  // A conflict belongs to the stored version it was met at: once the item is reloaded, it is gone.
+  const [conflict, setConflict] = useState<{ at: string; message: string } | null>(null);
+  const conflictMessage = conflict?.at === storedKey ? conflict.message : null;
+  const setConflictMessage = (message: string | null) => setConflict(message === null ? null : { at: storedKey, message });
   const [failure, setFailure] = useState<string | null>(null);
   const [saved, setSaved] = useState(false);
   const [signOffsCleared, setSignOffsCleared] = useState(false);
   const router = useRouter();
   const resolver: Resolver<RowValues, unknown, SaveResult> = (values, context, options) =>
-    schemaResolver(saveBodyOf(values, item.version, attribute), context, options as never) as never;
+    schemaResolver(saveBodyOf(values, item.version, attribute), context, options as never);
   const form = useForm<RowValues, unknown, SaveResult>({ resolver, defaultValues: rowValuesOf(item) });
   const { reset, handleSubmit, setError, getValues } = form;
 
-  // eslint-disable-next-line react-hooks/exhaustive-deps -- reset only when the stored item changes, not on every refetch
-  useEffect(() => { reset(rowValuesOf(item)); setConflictMessage(null); }, [item.id, item.version, reset]);
+  // Reset the entry only when the stored item changes, not on every refetch of the same version.
+  const shownKey = useRef(storedKey);
+  useEffect(() => {
+    if (shownKey.current === storedKey) return;
+    shownKey.current = storedKey;
+    reset(rowValuesOf(item));
+  }, [storedKey, item, reset]);
 
   const submit = handleSubmit(async (body) => {
     setFailure(null); setSaved(false);

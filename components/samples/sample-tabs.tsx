@@ -7,11 +7,13 @@ export interface TabDef { id: string; label: string; badge?: React.ReactNode }
 export function SampleTabs({ tabs, current, onChange }: { tabs: TabDef[]; current: string; onChange: (id: string) => void }) {
   const base = useId();
   const refs = useRef<(HTMLButtonElement | null)[]>([]);
+  const arrived = useRef(false);
   useEffect(() => {
+    if (arrived.current) return; // the hash is read once, on arrival
+    arrived.current = true;
     const fromHash = window.location.hash.slice(1);
     if (fromHash && fromHash !== current && tabs.some((t) => t.id === fromHash)) onChange(fromHash);
-    // eslint-disable-next-line react-hooks/exhaustive-deps -- read the hash once, on arrival
-  }, []);
+  }, [current, tabs, onChange]);
   const choose = (id: string) => {
     onChange(id);
     window.history.replaceState(null, "", `#${id}`);

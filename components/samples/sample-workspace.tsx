@@ -36,7 +36,6 @@ export function SampleWorkspace({ engagementId, initialView, initialEvaluation, 
   useEffect(() => {
     if (changes === 0) return;
     let live = true;
-    setEvaluating(true);
     api<{ evaluation: SampleEvaluation }>(`${base}/evaluation`).then(
       (r) => { if (live) { setEvaluation(r.evaluation); setEvalFailure(null); setEvaluating(false); } },
       (e: Error) => { if (live) { setEvalFailure(e.message); setEvaluating(false); } },
@@ -44,7 +43,7 @@ export function SampleWorkspace({ engagementId, initialView, initialEvaluation, 
     return () => { live = false; };
   }, [base, changes]);
 
-  const changed = useCallback(() => setChanges((n) => n + 1), []);
+  const changed = useCallback(() => { setChanges((n) => n + 1); setEvaluating(true); }, []);
   const refreshView = useCallback(async () => { setView(await api<SampleView>(base)); }, [base]);
   const onDrawn = (next: SampleView) => { setView(next); setGridKey((k) => k + 1); changed(); setTab("results"); router.refresh(); };
   const attribute = sample.method === "attribute";

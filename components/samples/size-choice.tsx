@@ -3,11 +3,12 @@ import type { UseFormReturn } from "react-hook-form";
 import type { SamplePlan } from "@/lib/samples/plan";
 import { Field, Input } from "@/components/ui/field";
 import type { PlanFormIn, PlanFormOut } from "./plan-values";
+import { textOf } from "@/lib/format/text";
 
 /** The size actually drawn: blank for the computed size, larger at will, smaller only with a recorded reason. */
 export function SizeChoice({ form, plan }: { form: UseFormReturn<PlanFormIn, unknown, PlanFormOut>; plan: SamplePlan | null }) {
   const { register, watch, formState: { errors } } = form;
-  const typed = Number(String(watch("params.sampleSize") ?? "").trim() || NaN);
+  const typed = Number(textOf(watch("params.sampleSize")).trim() || NaN);
   const below = plan !== null && Number.isInteger(typed) && typed < plan.computedSize;
   return (
     <div className="grid gap-x-4 sm:grid-cols-2">

@@ -1,5 +1,5 @@
 "use client";
-import { useEffect, useState } from "react";
+import { useEffect, useMemo, useState } from "react";
 import type { SamplePlan } from "@/lib/samples/plan";
 import { PreviewPlanSchema } from "@/lib/validation/sample";
 import { api, ApiError } from "@/components/ui/api";
@@ -18,31 +18,33 @@ export interface PreviewState {
  * inputs shown are the ones the draw will use. Incomplete input is checked here first and not sent.
  */
 export function usePlanPreview(engagementId: number, request: PlanFormIn, delayMs = 350): PreviewState {
-  const [state, setState] = useState<PreviewState>({ plan: null, problem: null, fields: null, busy: false });
   const key = JSON.stringify({ populationId: request.populationId, params: request.params });
+  // The last answer from the server, and the request (key) it answers: while they differ, it is busy.
+  const [answer, setAnswer] = useState<{ key: string | null; plan: SamplePlan | null; problem: string | null; fields: Record<string, string[]> | null }>(
+    { key: null, plan: null, problem: null, fields: null },
+  );
+  const parsed = useMemo(() => PreviewPlanSchema.safeParse(JSON.parse(key)), [key]);
 
   useEffect(() => {
+    if (!parsed.success) return;
     const body = JSON.parse(key) as { populationId: unknown; params: unknown };
-    const parsed = PreviewPlanSchema.safeParse(body);
-    if (!parsed.success) {
-      const issue = parsed.error.issues[0];
-      setState((s) => ({ ...s, problem: issue ? issue.message : "Complete the plan", fields: null, busy: false }));
-      return;
-    }
     let live = true;
-    setState((s) => ({ ...s, busy: true }));
     const timer = setTimeout(() => {
       api<{ plan: SamplePlan }>(`/api/engagements/${engagementId}/samples/plan-preview`, { body }).then(
-        ({ plan }) => { if (live) setState({ plan, problem: null, fields: null, busy: false }); },
+        ({ plan }) => { if (live) setAnswer({ key, plan, problem: null, fields: null }); },
         (err: unknown) => {
           if (!live) return;
           const fields = err instanceof ApiError ? err.fields ?? null : null;
-          setState((s) => ({ plan: s.plan, problem: err instanceof Error ? err.message : "The size could not be computed", fields, busy: false }));
+          setAnswer((s) => ({ key, plan: s.plan, problem: err instanceof Error ? err.message : "The size could not be computed", fields }));
         },
       );
     }, delayMs);
     return () => { live = false; clearTimeout(timer); };
-  }, [engagementId, key, delayMs]);
+  }, [engagementId, key, parsed, delayMs]);
 
-  return state;
+  if (!parsed.success) {
+    const issue = parsed.error.issues[0];
+    return { plan: answer.plan, problem: issue ? issue.message : "Complete the plan", fields: null, busy: false };
+  }
+  return { plan: answer.plan, problem: answer.problem, fields: answer.fields, busy: answer.key !== key };
 }

@@ -27,7 +27,7 @@ const migrations: Record<string, Migration> = {
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {
-  getMigrations: async () => Object.keys(migrations),
+  getMigrations: () => Promise.resolve(Object.keys(migrations)),
   getMigrationName: (name) => name,
-  getMigration: async (name) => migrations[name],
+  getMigration: (name) => Promise.resolve(migrations[name]),
 };

@@ -9,6 +9,15 @@ bash "$HERE/system-packages.sh"
 bash "$HERE/db-server.sh"
 cd "$SONDAGE_ROOT"
 
+echo "== lint (eslint)"
+npm run lint
+
+echo "== format (prettier --check)"
+npm run format:check
+
+echo "== types (tsc --noEmit, the whole project including tests/)"
+npm run typecheck
+
 echo "== unit tests"
 npx vitest run --project unit
 

@@ -4,7 +4,7 @@
  */
 import {
   assumeAuditedValues, recommendEstimator, simulateEstimators, simulateStringer,
-  type AdvisedEstimator, type AdvisorCell, type Estimator, type FactorMode, type MisstatementScenario, type Recommendation, type SampledItem, type Sides,
+  type AdvisorCell, type Estimator, type FactorMode, type MisstatementScenario, type Recommendation, type SampledItem, type Sides,
 } from "@/lib/sampling";
 
 export interface AdvisorJob {
@@ -76,7 +76,7 @@ export function runAdvisorJob(job: AdvisorJob, onProgress: (done: number, total:
         onProgress: (d) => onProgress(base + d, total),
       });
       base += job.trials;
-      cells.push({ estimator: "stringer" as AdvisedEstimator, sampleSize, performance, interval });
+      cells.push({ estimator: "stringer", sampleSize, performance, interval });
     }
   });
   onProgress(total, total);

@@ -12,7 +12,8 @@ export const SESSION_MAX_AGE_SECONDS = 8 * 60 * 60; // one working day
 function clientIp(headers: Record<string, unknown> | undefined): string {
   const forwarded = headers?.["x-forwarded-for"];
   const first = typeof forwarded === "string" ? forwarded.split(",")[0]?.trim() : undefined;
-  return first || String(headers?.["x-real-ip"] ?? "unknown");
+  const realIp = headers?.["x-real-ip"];
+  return first || (typeof realIp === "string" ? realIp : "unknown");
 }
 
 export const authOptions: NextAuthOptions = {
@@ -31,11 +32,11 @@ export const authOptions: NextAuthOptions = {
     }),
   ],
   callbacks: {
-    async jwt({ token, user }) {
+    jwt({ token, user }) {
       if (user) token.uid = Number(user.id);
       return token;
     },
-    async session({ session, token }) {
+    session({ session, token }) {
       if (session.user) (session.user as { id?: number }).id = token.uid as number;
       return session;
     },

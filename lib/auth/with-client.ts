@@ -10,7 +10,7 @@ import { assertSameSite } from "./with-role";
 import { getSessionUserId } from "./session-user";
 
 type RouteParams = { params: Promise<Record<string, string>> };
-type Handler<S extends z.ZodType, C> = (input: z.output<S>, ctx: C) => Promise<Response | unknown>;
+type Handler<S extends z.ZodType, C> = (input: z.output<S>, ctx: C) => Promise<unknown>;
 
 export interface ClientContext { db: Knex; user: UserRecord; req: Request; params: Record<string, string> }
 export interface ClientRequestContext extends ClientContext { list: RequestListRow }

@@ -11,7 +11,7 @@ import { getSessionUserId } from "./session-user";
 import type { EngagementRole } from "./roles";
 
 type RouteParams = { params: Promise<Record<string, string>> };
-type Handler<S extends z.ZodType, C> = (input: z.output<S>, ctx: C) => Promise<Response | unknown>;
+type Handler<S extends z.ZodType, C> = (input: z.output<S>, ctx: C) => Promise<unknown>;
 
 export interface UserContext { db: Knex; user: UserRecord; req: Request; params: Record<string, string> }
 export interface EngagementContext extends UserContext { engagementId: number; role: EngagementRole }

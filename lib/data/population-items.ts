@@ -30,7 +30,7 @@ export async function listItemsByPopulationId(db: Knex, { populationId, query }:
   const base = db("population_items").where({ population_id: populationId });
   if (query.q) {
     const like = containsPattern(query.q);
-    base.andWhere((w) => w.where("item_ref", "like", like).orWhere("description", "like", like));
+    base.andWhere((w) => { w.where("item_ref", "like", like).orWhere("description", "like", like); });
   }
   const sort = SORT_COLUMNS[query.sort];
   const keys = base.clone().orderBy(sort, query.dir).orderBy("row_number", query.dir)

@@ -40,7 +40,7 @@ export async function createUpload(db: Knex, u: { engagementId: number; actorId:
       temp_path: u.tempPath, inspection_json: JSON.stringify(u.inspection),
     });
     await recordAudit(trx, { actorUserId: u.actorId, engagementId: u.engagementId, entity: "population_upload", entityId: id, action: "receive", after: { fileName: u.fileName, sizeBytes: u.sizeBytes, sha256: u.sha256, kind: u.inspection.kind } });
-    return id as number;
+    return id;
   });
 }
 

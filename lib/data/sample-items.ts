@@ -73,7 +73,7 @@ function itemQuery(db: Knex, drawId: number) {
 export async function listItemsByDrawId(db: Knex, { drawId, page = 1, pageSize = 100000, status = "all", q }: { drawId: number; page?: number; pageSize?: number; status?: string; q?: string }) {
   const base = db("sample_items as i").where("i.draw_id", drawId);
   if (status !== "all") base.andWhere("i.status", status);
-  if (q) base.andWhere((w) => w.where("i.item_ref", "like", containsPattern(q)).orWhere("i.description", "like", containsPattern(q)));
+  if (q) base.andWhere((w) => { w.where("i.item_ref", "like", containsPattern(q)).orWhere("i.description", "like", containsPattern(q)); });
   const [count, rows] = await Promise.all([
     base.clone().count({ n: "*" }).first(),
     base.clone().leftJoin("users as u", "u.id", "i.updated_by").orderBy("i.selection_order").orderBy("i.id")

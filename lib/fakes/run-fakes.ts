@@ -22,8 +22,8 @@ async function main() {
     await Promise.all([s3.close(), mail.close()]);
     process.exit(0);
   };
-  process.on("SIGTERM", stop);
-  process.on("SIGINT", stop);
+  process.on("SIGTERM", () => void stop());
+  process.on("SIGINT", () => void stop());
 }
 
 main().catch((err: unknown) => {

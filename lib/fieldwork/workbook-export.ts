@@ -33,7 +33,7 @@ function cellValues(kind: WorkbookKind, item: SampleItemRecord, letter: (k: Colu
     auditedValue: r.auditedValue === null ? null : Number(r.auditedValue), status: STATUS_LABELS[r.status],
     cause: r.cause ? CAUSE_LABELS[r.cause] : null, causeNote: text(r.causeNote), comment: text(r.comment),
     deviation: r.deviation === null ? null : r.deviation ? "Yes" : "No", deviationNature: text(r.deviationNature),
-    misstatement: kind === "deviations" ? null : { formula: misstatementFormula, result: item.misstatement === null ? "" : Number(item.misstatement) } as ExcelJS.CellFormulaValue,
+    misstatement: kind === "deviations" ? null : { formula: misstatementFormula, result: item.misstatement === null ? "" : Number(item.misstatement) },
     itemId: item.id, version: item.version, exported: resultFingerprint(kind, r),
   };
 }

@@ -24,7 +24,7 @@ export function normalizeValue(value: CellValue, numFmt: string | undefined, dat
   if ("error" in value) return value.error;
   if ("formula" in value || "sharedFormula" in value) {
     const formula = "formula" in value && value.formula ? value.formula : "sharedFormula" in value ? value.sharedFormula : "";
-    return formulaResult(value.result as ResultValue, formula ?? "", numFmt, date1904);
+    return formulaResult(value.result, formula ?? "", numFmt, date1904);
   }
   if ("text" in value) {
     const text: unknown = value.text;

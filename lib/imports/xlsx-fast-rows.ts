@@ -35,7 +35,7 @@ function columnNumber(ref: string | undefined): number {
 function cellValue(c: OpenCell, format: string | undefined, date1904: boolean): Pending | undefined {
   if (c.formula !== undefined) {
     const result = c.value === undefined ? undefined : c.type === "str" ? exceljsXmlDecode(c.value) : parseFloat(c.value);
-    return { formula: c.formula, result } as CellValue;
+    return { formula: c.formula, result };
   }
   if (c.value === undefined) return undefined;
   if (c.type === "s") return { sharedIndex: parseInt(c.value, 10) };
@@ -124,7 +124,7 @@ function toSourceRow(pending: PendingRow, strings: SharedString[], date1904: boo
   const cells: RawCell[] = [];
   for (const { column, value, format } of pending.cells) {
     const resolved = value && typeof value === "object" && "sharedIndex" in value ? (strings[value.sharedIndex] ?? null) : value;
-    const normalized = normalizeValue(resolved as CellValue, format, date1904);
+    const normalized = normalizeValue(resolved, format, date1904);
     if (normalized === null) continue;
     while (cells.length < column - 1) cells.push(null);
     cells[column - 1] = normalized;

@@ -65,20 +65,21 @@ async function loadInTransaction(trx: Knex.Transaction, a: { upload: UploadRecor
     mapping_json: JSON.stringify(input.mapping), created_by: actorId, supersedes_id: input.supersedesId ?? null,
   });
 
-  let streamError: unknown = null;
-  const stream = () => {
+  const stream: { error?: Error } = {}; // the stream's own error says what was wrong with the file
+  const openStream = () => {
     const s = run.toLoadDataStream();
-    s.on("error", (e) => (streamError = e));
+    s.on("error", (e) => (stream.error = e));
     return s;
   };
   const sql = `LOAD DATA LOCAL INFILE 'upload' INTO TABLE population_items ${LOAD_DATA_FORMAT_CLAUSE} (${LOAD_DATA_COLUMNS.map((c) => `\`${c}\``).join(", ")}) SET population_id = ?`;
   let loaded: { affectedRows: number; warningStatus: number };
   try {
-    [loaded] = await withLoadStream(stream, () => trx.raw(sql, [populationId]));
+    [loaded] = await withLoadStream(openStream, () => trx.raw(sql, [populationId]));
   } catch (err) {
-    throw streamError ?? err;
+    if (stream.error) throw stream.error;
+    throw err;
   }
-  if (streamError) throw streamError;
+  if (stream.error) throw stream.error;
   const summary = run.summary();
   if (summary.problemCount > 0) throw new RejectedRows(summary);
   if (loaded.warningStatus > 0) {
@@ -101,7 +102,7 @@ async function loadInTransaction(trx: Knex.Transaction, a: { upload: UploadRecor
   a.onProgress({ phase: "storing-file" });
   await putObjectFromFile({ key: objectKey, path: upload.tempPath, contentType: CONTENT_TYPES[upload.inspection.kind], size: upload.sizeBytes });
   a.onProgress({ phase: "committing" });
-  return populationId as number;
+  return populationId;
 }
 
 async function supersede(trx: Knex.Transaction, { engagementId, oldId, newId, actorId }: { engagementId: number; oldId: number; newId: number; actorId: number }) {

@@ -38,7 +38,7 @@ export async function addClientFile(db: Knex, a: { list: RequestListRow; request
     await trx("request_items").where({ id: item.id }).update({ status, updated_at: trx.fn.now(3) });
     await recordAudit(trx, { actorUserId: a.actorId, ...audit(a.list), entity: "request_file", entityId: id, action: "client-upload",
       after: { requestListId: a.list.id, requestItemId: item.id, fileName: a.fileName, contentType: sniff.contentType, sizeBytes: a.bytes.length, sha256, kind: sniff.label, itemStatus: status } });
-    return { id: id as number, fileName: a.fileName, contentType: sniff.contentType, sizeBytes: a.bytes.length, sha256, itemStatus: status };
+    return { id: id, fileName: a.fileName, contentType: sniff.contentType, sizeBytes: a.bytes.length, sha256, itemStatus: status };
   });
 }
 

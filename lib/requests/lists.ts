@@ -90,7 +90,7 @@ export async function createRequestList(db: Knex, { sample, actorId, input }: { 
     await trx("request_items").insert(ordered.map((sampleItemId, i) => ({ request_list_id: listId, sample_item_id: sampleItemId, position: i + 1, needs_json: needs, needs_note: input.needsNote ?? null })));
     await recordAudit(trx, { actorUserId: actorId, engagementId: sample.engagementId, sampleId: sample.id, entity: "request_list", entityId: listId, action: "create",
       after: { title: input.title, contactUserId: input.contactUserId, dueDate: input.dueDate, showBookValues: input.showBookValues, items: ordered.length, needs: input.needs, needsNote: input.needsNote ?? null } });
-    return listId as number;
+    return listId;
   });
 }
 

@@ -18,7 +18,7 @@ async function findOverdue(db: Knex, today: string) {
   return db("request_lists as l").join("request_items as r", "r.request_list_id", "l.id").join("sample_items as i", "i.id", "r.sample_item_id")
     .join("users as c", "c.id", "l.contact_user_id").join("users as s", "s.id", "l.created_by").join("engagements as e", "e.id", "l.engagement_id")
     .where("l.status", "open").where("l.due_date", "<", today).whereIn("r.status", ["requested", "needs-more"])
-    .where((w) => w.whereNull("l.last_reminded_on").orWhere("l.last_reminded_on", "<", today)).where("c.active", true)
+    .where((w) => { w.whereNull("l.last_reminded_on").orWhere("l.last_reminded_on", "<", today); }).where("c.active", true)
     .orderBy("l.id").orderBy("r.position")
     .select("l.id", "l.engagement_id", "l.sample_id", "l.title", "l.due_date", "i.item_ref", "c.id as cid", "c.name as cname", "c.email as cemail",
       "s.id as sid", "s.name as sname", "s.email as semail", "s.active as sactive", "e.client_name", "e.name as ename");
@@ -38,7 +38,7 @@ async function claim(db: Knex, today: string): Promise<Claimed[]> {
     }
     const claimed: Claimed[] = [];
     for (const list of byList.values()) {
-      const won = await trx("request_lists").where({ id: list.id }).where((w) => w.whereNull("last_reminded_on").orWhere("last_reminded_on", "<", today)).update({ last_reminded_on: today });
+      const won = await trx("request_lists").where({ id: list.id }).where((w) => { w.whereNull("last_reminded_on").orWhere("last_reminded_on", "<", today); }).update({ last_reminded_on: today });
       if (!won) continue;
       claimed.push(list);
       await recordAudit(trx, { actorUserId: null, engagementId: list.engagementId, sampleId: list.sampleId, entity: "request_list", entityId: list.id, action: "overdue-reminder",

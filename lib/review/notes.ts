@@ -37,7 +37,7 @@ export async function raiseNote(db: Knex, { sample, actorId, text, itemId }: { s
     if (itemId !== undefined && !(await trx("sample_items").where({ id: itemId, sample_id: sample.id }).first("id"))) throw notFound("No such item in this sample");
     const [id] = await trx("review_notes").insert({ sample_id: sample.id, sample_item_id: itemId ?? null, text, raised_by: actorId });
     await recordAudit(trx, { actorUserId: actorId, engagementId: sample.engagementId, sampleId: sample.id, entity: "review_note", entityId: id, action: "raise", after: { text, itemId: itemId ?? null } });
-    return id as number;
+    return id;
   });
 }
 

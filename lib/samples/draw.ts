@@ -81,6 +81,6 @@ export async function drawSample(db: Knex, { sample, actorId, seed: enteredSeed 
       before: locked?.status === "drawn" ? { version: version - 1 } : undefined,
       after: { version, seed, seedSource: enteredSeed === undefined ? "generated" : "entered", items: items.length, algorithm: algorithmName(sample.method) },
     });
-    return drawId as number;
+    return drawId;
   });
 }

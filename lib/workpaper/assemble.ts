@@ -110,7 +110,7 @@ function planBlock(sample: SampleView["sample"], tolerable: string): PlanBlock {
     else parameters.push({ label: "Factors", kind: "text", value: p.factorMode === "table" ? "table (rounded up to 2 decimals)" : "exact (gamma quantile)" });
   }
   return {
-    method: sample.method, estimator: (p.estimator ?? null) as Estimator | StratifiedEstimator | null, parameters, computedSize: plan.computedSize, chosenSize: plan.chosenSize, sizeReason: sample.sizeReason,
+    method: sample.method, estimator: (p.estimator ?? null), parameters, computedSize: plan.computedSize, chosenSize: plan.chosenSize, sizeReason: sample.sizeReason,
     formula: { text: plan.formula, inputs: Object.entries(plan.inputs).map(([symbol, value]) => ({ symbol, meaning: SYMBOLS[symbol]?.meaning ?? symbol, kind: SYMBOLS[symbol]?.kind ?? "text", value: String(value) })), substituted: null, source: plan.formula.match(/\(([^()]*)\)\s*$/)?.[1] ?? "" },
     interval: plan.interval !== undefined ? money(plan.interval) : null, topStratumThreshold: plan.topStratumThreshold !== undefined ? money(plan.topStratumThreshold) : null,
     topStratum: plan.topStratum ?? null, strata: plan.strata?.map((s) => ({ number: s.number, label: s.label, populationSize: s.populationSize, bookValue: s.bookValue, sampleSize: s.allocation })) ?? null,

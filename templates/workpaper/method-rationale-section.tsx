@@ -13,7 +13,7 @@ export function MethodRationale({ data }: { data: WorkpaperData }) {
     <View>
       <SubHead>Rationale for the method: estimator advisor (run {r.runId})</SubHead>
       <Paragraph>
-        Before the sample was drawn, each estimator was simulated on this population's book values with audited values made up from assumed
+        Before the sample was drawn, each estimator was simulated on this population&rsquo;s book values with audited values made up from assumed
         misstatements. The figures describe the assumption, not evidence.
       </Paragraph>
       <Facts

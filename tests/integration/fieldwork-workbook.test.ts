@@ -65,7 +65,7 @@ async function exportWorkbook(sampleId: number, as = staff) {
 
 function columnsOf(ws: ExcelJS.Worksheet) {
   const cols: Record<string, number> = {};
-  ws.getRow(1).eachCell((cell, col) => { cols[String(cell.value)] = col; });
+  ws.getRow(1).eachCell((cell, col) => { cols[cell.text] = col; });
   return cols;
 }
 
@@ -191,7 +191,7 @@ describe("the fieldwork workbook import", () => {
     text.getCell(cols["Audited value"]).value = "about three thousand";
     text.getCell(cols.Status).value = "Done";
     const formula = rowOf(ws, "INV-04");
-    formula.getCell(cols["Audited value"]).value = { formula: "D5*0.9" } as ExcelJS.CellFormulaValue;
+    formula.getCell(cols["Audited value"]).value = { formula: "D5*0.9" };
     formula.getCell(cols.Comment).value = "=HYPERLINK(\"http://evil.example\")"; // text that looks like a formula: kept as text, no problem
     const status = rowOf(ws, "INV-05");
     status.getCell(cols.Status).value = "Finished";

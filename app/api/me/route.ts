@@ -1,4 +1,4 @@
 import { z } from "zod";
 import { withUser } from "@/lib/auth/with-role";
 
-export const GET = withUser(z.object({}), async (_input, { user }) => ({ user }));
+export const GET = withUser(z.object({}), (_input, { user }) => Promise.resolve({ user }));

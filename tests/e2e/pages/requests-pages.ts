@@ -12,7 +12,7 @@ export async function waitForMail(email: string, subject: RegExp, timeoutMs = 10
     const messages = (await (await fetch(INBOX)).json()) as Message[];
     const found = messages.find((m) => m.to.some((t) => t.toLowerCase() === email.toLowerCase()) && subject.test(m.subject));
     if (found) return found;
-    if (Date.now() > deadline) throw new Error(`no mail to ${email} matching ${subject}; inbox: ${messages.map((m) => `${m.to}: ${m.subject}`).join("; ")}`);
+    if (Date.now() > deadline) throw new Error(`no mail to ${email} matching ${subject}; inbox: ${messages.map((m) => `${m.to.join(", ")}: ${m.subject}`).join("; ")}`);
     await new Promise((r) => setTimeout(r, 200));
   }
 }

@@ -82,7 +82,7 @@ async function session(baseUrl: string, email: string): Promise<HttpSession> {
 }
 
 const JSON_HEADERS = { "content-type": "application/json" };
-const post = (s: HttpSession, url: string, body: unknown) => s.json<Record<string, any>>(url, { method: "POST", headers: JSON_HEADERS, body: JSON.stringify(body) });
+const post = <T = unknown>(s: HttpSession, url: string, body: unknown) => s.json<T>(url, { method: "POST", headers: JSON_HEADERS, body: JSON.stringify(body) });
 
 async function loadPopulation(senior: HttpSession, base: string, file: string): Promise<{ populationId: number; uploadId: number; pendingUploadId: number }> {
   const up = await senior.uploadFile<{ upload: { id: number } }>(`${base}/populations/uploads?fileName=matrix-ledger.csv`, file);
@@ -108,7 +108,7 @@ export async function buildMatrixFixtures(baseUrl: string): Promise<MatrixFixtur
 
   const { users } = await admin.json<{ users: { id: number; email: string }[] }>("/api/users");
   const userIds = Object.fromEntries(users.map((u) => [u.email, u.id]));
-  const { engagement } = await post(partner, "/api/engagements", {
+  const { engagement } = await post<{ engagement: { id: number } }>(partner, "/api/engagements", {
     clientName: "Matrix Probe Holdings", name: `Authorisation matrix ${Date.now()}`, periodEnd: "2026-12-31", currency: "USD",
     overallMateriality: "500000", performanceMateriality: "375000",
   });
@@ -121,7 +121,7 @@ export async function buildMatrixFixtures(baseUrl: string): Promise<MatrixFixtur
   const file = path.join(os.tmpdir(), `matrix-ledger-${process.pid}.csv`);
   await generateLedgerCsv(file, 300, 20261231);
   const population = await loadPopulation(senior, base, file).finally(() => rmSync(file, { force: true }));
-  const { sample } = await post(senior, `${base}/samples`, {
+  const { sample } = await post<{ sample: { id: number } }>(senior, `${base}/samples`, {
     populationId: population.populationId, name: "Matrix sample", objective: "Probe every route for every caller.", assertion: "Existence", direction: "overstatement",
     params: { method: "mus", confidence: 0.95, tolerableMisstatement: "60000", expectedMisstatement: "8000", factorMode: "exact" },
   });
@@ -132,7 +132,9 @@ export async function buildMatrixFixtures(baseUrl: string): Promise<MatrixFixtur
   const evidence = await staff.uploadFile<{ evidence: { id: number } }>(`${base}/samples/${sample.id}/items/${items[0].id}/evidence?fileName=reply.txt`, evidenceFile);
   rmSync(evidenceFile, { force: true });
   if (evidence.status !== 201) throw new Error(`evidence upload answered ${evidence.status}: ${JSON.stringify(evidence.body)}`);
-  const note = await post(manager, `${base}/samples/${sample.id}/notes`, { text: "Matrix probe note", itemId: items[0].id });
+  const note = await post<{ note?: { id: number }; notes?: { id: number }[] }>(manager, `${base}/samples/${sample.id}/notes`, { text: "Matrix probe note", itemId: items[0].id });
+  const noteId = (note.note ?? note.notes?.at(-1))?.id;
+  if (noteId === undefined) throw new Error(`note: ${JSON.stringify(note)}`);
 
   const { engagements } = await partner.json<{ engagements: { id: number; clientName: string }[] }>("/api/engagements");
   const bramblecote = engagements.find((e) => e.clientName.startsWith("Bramblecote"))!;
@@ -140,7 +142,7 @@ export async function buildMatrixFixtures(baseUrl: string): Promise<MatrixFixtur
     sessions, userIds, otherEngagementId: bramblecote.id, otherFirmEngagementId,
     ids: {
       engagementId: engagement.id, populationId: population.populationId, uploadId: population.uploadId, sampleId: sample.id,
-      itemId: items[0].id, itemVersion: items[0].version, evidenceId: evidence.body.evidence.id, noteId: (note.note ?? note.notes?.at(-1))?.id,
+      itemId: items[0].id, itemVersion: items[0].version, evidenceId: evidence.body.evidence.id, noteId,
       userId: userIds[DEMO.staff.email], clientUserId: userIds[DEMO.client.email],
     },
   };

@@ -19,7 +19,7 @@ export async function makeUser(firmId: number, grade: Grade, opts: { admin?: boo
     firm_id: firmId, email: `u${n}-${run}-${grade}@test.example`, name: `Person ${n} (${grade})`, grade,
     firm_role: opts.admin ? "admin" : "member", active: opts.active ?? true, password_hash: hash,
   });
-  return id as number;
+  return id;
 }
 
 export async function makeEngagement(firmId: number, createdBy: number, team: [number, MembershipRole][]) {
@@ -29,7 +29,7 @@ export async function makeEngagement(firmId: number, createdBy: number, team: [n
     overall_materiality: "100000.00", performance_materiality: "75000.00", created_by: createdBy,
   });
   for (const [userId, role] of team) await db("engagement_members").insert({ engagement_id: id, user_id: userId, role });
-  return id as number;
+  return id;
 }
 
 export async function auditCount(filter: Record<string, string | number> = {}) {

@@ -2,7 +2,7 @@
 // membership, role, validation, the handler, the database) is the real code.
 let currentUserId: number | null = null;
 
-export const sessionModule = { getSessionUserId: async () => currentUserId };
+export const sessionModule = { getSessionUserId: () => Promise.resolve(currentUserId) };
 
 export function actAs(userId: number | null) {
   currentUserId = userId;

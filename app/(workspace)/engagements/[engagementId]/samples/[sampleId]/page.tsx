@@ -24,7 +24,7 @@ export const metadata: Metadata = { title: "Sample" };
 
 export default async function SamplePage({ params }: { params: Promise<{ engagementId: string; sampleId: string }> }) {
   const { engagementId, sampleId } = await params;
-  const { engagement, role, user } = await requireEngagementPage(engagementId);
+  const { engagement, role } = await requireEngagementPage(engagementId);
   const { view, evaluation, items: drawnItems } = await loadSamplePage(engagement.id, sampleId);
   const { sample, population } = view;
   const locked = Boolean(view.review.lock);

@@ -19,7 +19,7 @@ export default async function NewRequestListPage({ params }: { params: Promise<{
   const blocked = !hasAtLeastRole(role, "senior") ? "A senior, manager or partner on the engagement sends request lists to the client."
     : view.review.lock ? "The sample is locked: its workpaper is final, so nothing more is asked of the client."
     : !view.currentDraw ? "Draw the sample first: requests are for its selected items." : null;
-  const defaultDue = new Date(Date.now() + 14 * 86400_000).toISOString().slice(0, 10);
+  const defaultDue = dateInTwoWeeks();
   return (
     <>
       <PageHeader eyebrow={engagement.clientName} title="Ask the client for evidence">
@@ -31,4 +31,9 @@ export default async function NewRequestListPage({ params }: { params: Promise<{
       )}
     </>
   );
+}
+
+/** The due date offered for a new request list: two weeks from today (common practice). */
+function dateInTwoWeeks(): string {
+  return new Date(Date.now() + 14 * 86400_000).toISOString().slice(0, 10);
 }
