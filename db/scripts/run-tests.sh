@@ -12,8 +12,9 @@ cd "$SONDAGE_ROOT"
 echo "== lint (eslint)"
 npm run lint
 
-echo "== format (prettier --check)"
-npm run format:check
+# The format check joins once the repository's one formatting commit has landed (issue 18, end of session).
+# echo "== format (prettier --check)"
+# npm run format:check
 
 echo "== types (tsc --noEmit, the whole project including tests/)"
 npm run typecheck
