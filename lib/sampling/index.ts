@@ -1,5 +1,5 @@
 /**
- * Sondage sampling engine — public surface (contract: SAMPLING-ENGINE.md). Pure TypeScript, no I/O.
+ * Sondage sampling engine — public surface (contract: lib/sampling/README.md). Pure TypeScript, no I/O.
  */
 export { createRng, type Rng } from "./rng";
 export { selectRandom } from "./select-random";

@@ -1,4 +1,4 @@
-/** Shared shapes of the engine's public surface (SAMPLING-ENGINE.md). */
+/** Shared shapes of the engine's public surface (lib/sampling/README.md). */
 
 /** One sampled item: book value and audited value in currency units (misstatement = book − audited). */
 export interface SampledItem {

@@ -61,7 +61,7 @@ describe("classical variables", () => {
     const A = 30000 * za / (za + zb);
     const n1 = (N * za * sampleSd(book.map((b) => b.value)) / A) ** 2;
     expect(plan.computedSize).toBe(Math.ceil(n1 / (1 + n1 / N)));
-    // Random-number sort: item i gets the (i+1)-th genrand_res53 double; the n smallest, ascending (SAMPLING-ENGINE §2).
+    // Random-number sort: item i gets the (i+1)-th genrand_res53 double; the n smallest, ascending (lib/sampling/README.md §2).
     const rng = createRng(5489);
     const u = book.map((b) => ({ ref: b.ref, u: rng.nextDouble() }));
     const expected = [...u].sort((a, b) => a.u - b.u).slice(0, plan.computedSize).map((x) => x.ref);

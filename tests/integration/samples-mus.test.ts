@@ -70,7 +70,7 @@ describe("monetary-unit sample: draw, re-perform, recipe", () => {
     expect(r.status).toBe(201);
     expect(r.json.currentDraw).toMatchObject({ version: 1, seed: 1206281, seedSource: "entered", populationSha256: CANONICAL_SHA256 });
     // numpy 1.24 RandomState(1206281).random_sample() = 0.6547467429185535 (MT19937 init_genrand + genrand_res53);
-    // selection rule: r = 1 + ⌊u·J⌋ cents, points r + jJ, item i hit when c(i−1) < p ≤ c(i) (SAMPLING-ENGINE contract).
+    // selection rule: r = 1 + ⌊u·J⌋ cents, points r + jJ, item i hit when c(i−1) < p ≤ c(i) (lib/sampling/README.md §2).
     const J = 474400n;
     const start = 1n + BigInt(Math.floor(0.6547467429185535 * 474400));
     const expected = new Map<string, number>();
@@ -156,7 +156,7 @@ describe("monetary-unit sample: fieldwork and the Stringer bound", () => {
     expect(ev.evaluation.result.overstatement.incrementalAllowance).toBeCloseTo(allowanceOver, 6);
     expect(ev.evaluation.result.overstatement.upperLimit).toBeCloseTo(basic + projectedOver + allowanceOver, 6);
     expect(ev.evaluation.result.understatement.upperLimit).toBeCloseTo(RF[0] * J + 0.05 * J + (RF[1] - RF[0] - 1) * 0.05 * J, 6);
-    // Net limits subtract the opposite direction's projection (SAMPLING-ENGINE contract, §4).
+    // Net limits subtract the opposite direction's projection (lib/sampling/README.md §4).
     expect(ev.evaluation.result.netUpperLimits.overstatement).toBeCloseTo(basic + projectedOver + allowanceOver - 0.05 * J, 6);
     expect(ev.evaluation.rows.overstatement.map((r: { factor: number }) => r.factor)).toEqual(RF.slice(1, over.length + 1));
     expect(ev.complete).toBe(true);
