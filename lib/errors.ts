@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { ImportError } from "@/lib/imports/import-error";
+import { EngineInputError } from "@/lib/sampling/errors";
 
 /** An error the API answers with: its status, a stable code, a message for people, and field errors. */
 export class AppError extends Error {
@@ -67,12 +67,26 @@ export function errorToResponse(err: unknown): Response {
     return new Response(databaseUnavailable().toResponse().body, { status: 503, headers: { "content-type": "application/json", "retry-after": "30" } });
   }
   if (err instanceof z.ZodError) return validationError(err).toResponse();
-  if (err instanceof ImportError) return new AppError(err.status, err.reason, err.message).toResponse();
+  if (err instanceof EngineInputError) return engineInputError(err).toResponse();
+  // Anything else, a TypeError or RangeError from our own code included, is a programming error.
   console.error("[sondage] unexpected error", err);
   return new AppError(500, "internal", "Something went wrong on our side; the error has been logged.").toResponse();
 }
 
-/** Bad input in one field: a 400 whose message and `fields` both name it. */
-export function fieldError(field: string, message: string): AppError {
-  return new AppError(400, "invalid_input", `${field}: ${message}`, { [field]: [message] });
+/**
+ * Bad input in one field: a 400 whose message ("field: message") and `fields` both name it.
+ * `fieldMessage` is the shorter text a form shows beside the field, when it differs from `message`.
+ */
+export function fieldError(field: string, message: string, fieldMessage = message): AppError {
+  return new AppError(400, "invalid_input", `${field}: ${message}`, { [field]: [fieldMessage] });
+}
+
+/**
+ * The engine's refusal of an input as a 400. The engine's message already starts with its field's
+ * name; `field` files it under the caller's name for that input (e.g. `params.confidence`), and
+ * `lead` says what could not be done.
+ */
+export function engineInputError(err: EngineInputError, o: { field?: string; lead?: string } = {}): AppError {
+  const message = o.lead ? `${o.lead}: ${err.message}` : err.message;
+  return new AppError(400, "invalid_input", message, { [o.field ?? err.field]: [err.message] });
 }

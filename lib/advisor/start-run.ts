@@ -6,7 +6,7 @@ import type { EngagementContext } from "@/lib/auth/with-role";
 import { getSampleById, getCurrentDraw, type SampleRecord } from "@/lib/data/samples";
 import { listItemsByDrawId } from "@/lib/data/sample-items";
 import { createAdvisorRun, findDoneAdvisorRunByKey, finishAdvisorRun, getAdvisorRunById, type AdvisorRequest } from "@/lib/data/advisor-runs";
-import { AppError, conflict } from "@/lib/errors";
+import { AppError, conflict, fieldError } from "@/lib/errors";
 import { loadFrame } from "@/lib/samples/population-frame";
 import { sidesFor } from "@/lib/samples/evaluate";
 import type { AdvisorRun } from "@/lib/validation/advisor";
@@ -29,7 +29,7 @@ async function resolveScenario(db: Knex, ctx: EngagementContext, input: AdvisorR
       scenarioSource: { kind: "pattern" },
     };
   }
-  if (s.sampleId === sample.id) throw new AppError(400, "invalid_input", "Invalid input — scenario.sampleId: choose an earlier sample, not this one", { "scenario.sampleId": ["Choose an earlier sample, not this one"] });
+  if (s.sampleId === sample.id) throw fieldError("scenario.sampleId", "choose an earlier sample, not this one", "Choose an earlier sample, not this one");
   const previous = await getSampleById(db, { engagementId: ctx.engagementId, sampleId: s.sampleId });
   const draw = await getCurrentDraw(db, { sampleId: previous.id });
   const items = draw ? (await listItemsByDrawId(db, { drawId: draw.id })).items : [];
@@ -59,7 +59,7 @@ export async function startAdvisorRun(ctx: EngagementContext, sample: SampleReco
   assertAdvisable(sample);
   const frame = await loadFrame(db, { populationId: sample.populationId });
   for (const n of input.sampleSizes) {
-    if (n > frame.bookValues.length) throw new AppError(400, "invalid_input", `Invalid input — sampleSizes: ${n} is more than the population's ${frame.bookValues.length} items`, { sampleSizes: [`${n} is more than the population's ${frame.bookValues.length} items`] });
+    if (n > frame.bookValues.length) throw fieldError("sampleSizes", `${n} is more than the population's ${frame.bookValues.length} items`);
   }
   const request: AdvisorRequest = {
     ...(await resolveScenario(db, ctx, input, sample)),

@@ -1,5 +1,6 @@
 /** Worker-thread entry: runs one advisor job and posts progress, then the result (or the error). */
 import { parentPort, workerData } from "node:worker_threads";
+import { EngineInputError } from "@/lib/sampling";
 import { runAdvisorJob, type AdvisorJob } from "./compute";
 
 const PROGRESS_INTERVAL_MS = 100;
@@ -13,5 +14,5 @@ try {
   });
   parentPort!.postMessage({ type: "result", result });
 } catch (err) {
-  parentPort!.postMessage({ type: "error", message: err instanceof Error ? err.message : String(err), range: err instanceof RangeError || err instanceof TypeError });
+  parentPort!.postMessage({ type: "error", message: err instanceof Error ? err.message : String(err), range: err instanceof EngineInputError });
 }

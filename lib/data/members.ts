@@ -2,7 +2,7 @@ import "server-only";
 import type { Knex } from "knex";
 import { CLIENT_ROLE, hasAtLeastRole, type EngagementRole, type MembershipRole } from "@/lib/auth/roles";
 import { recordAudit } from "./audit-log";
-import { AppError, forbidden, notFound } from "@/lib/errors";
+import { AppError, fieldError, forbidden, notFound } from "@/lib/errors";
 
 export interface MemberRecord {
   userId: number;
@@ -37,9 +37,9 @@ function assertMayGrant(actorRole: EngagementRole, role: MembershipRole) {
   if (!hasAtLeastRole(actorRole, role)) throw forbidden(`A ${actorRole} cannot give the ${role} role`);
 }
 
-const clientOnTeam = () => new AppError(400, "invalid_input",
-  "userId: client staff are not part of the audit team; invite them as a client contact from a sample's client requests",
-  { userId: ["Client staff join as client contacts, from a sample's client requests"] });
+const clientOnTeam = () => fieldError("userId",
+  "client staff are not part of the audit team; invite them as a client contact from a sample's client requests",
+  "Client staff join as client contacts, from a sample's client requests");
 
 /** Keeps at least one manager or partner on every engagement, so someone can always review and lock. */
 async function assertReviewerRemains(trx: Knex.Transaction, engagementId: number, exceptUserId: number) {
@@ -53,7 +53,7 @@ export async function addMember(db: Knex, { engagementId, actorId, actorRole, us
   assertMayGrant(actorRole, role);
   return db.transaction(async (trx) => {
     const user = await trx("users").where({ id: userId, firm_id: firmId, active: true }).first("id", "grade");
-    if (!user) throw new AppError(400, "invalid_input", "userId: no active user with that id in your firm", { userId: ["No active user with that id in your firm"] });
+    if (!user) throw fieldError("userId", "no active user with that id in your firm", "No active user with that id in your firm");
     if (user.grade === "client") throw clientOnTeam();
     const existing = await trx("engagement_members").where({ engagement_id: engagementId, user_id: userId }).first("role");
     if (existing) throw new AppError(409, "already_member", "That person is already on the team");

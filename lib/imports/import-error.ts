@@ -1,4 +1,5 @@
 import "server-only";
+import { AppError } from "@/lib/errors";
 
 /** Why a whole file was refused (row-level problems are reported as RowProblem instead). */
 export type ImportErrorReason =
@@ -34,20 +35,19 @@ const STATUS_BY_REASON: Record<ImportErrorReason, 400 | 413 | 422> = {
   "unreadable-file": 422,
 };
 
-/** A file refused as a whole; `message` is written for the person who uploaded it. */
-export class ImportError extends Error {
-  readonly reason: ImportErrorReason;
-  readonly status: 400 | 413 | 422;
+/**
+ * A file refused as a whole; `message` is written for the person who uploaded it. It answers like
+ * every other error, `{ error: { code, message } }`, with the reason as its code.
+ */
+export class ImportError extends AppError {
+  declare readonly status: 400 | 413 | 422;
 
-  constructor(reason: ImportErrorReason, message: string) {
-    super(message);
+  constructor(
+    readonly reason: ImportErrorReason,
+    message: string,
+  ) {
+    super(STATUS_BY_REASON[reason], reason, message);
     this.name = "ImportError";
-    this.reason = reason;
-    this.status = STATUS_BY_REASON[reason];
-  }
-
-  toResponse(): Response {
-    return Response.json({ error: { reason: this.reason, message: this.message } }, { status: this.status });
   }
 }
 

@@ -2,7 +2,7 @@ import "server-only";
 import type { Knex } from "knex";
 import { recordAudit } from "@/lib/data/audit-log";
 import { getCurrentDraw, type SampleRecord } from "@/lib/data/samples";
-import { AppError, conflict, notFound } from "@/lib/errors";
+import { AppError, conflict, fieldError, notFound } from "@/lib/errors";
 import { assertSampleUnlocked } from "@/lib/samples/guard";
 import type { CreateRequestList, RequestItemStatus, RequestNeed } from "@/lib/validation/requests";
 import { utcDay } from "./status";
@@ -69,18 +69,18 @@ export async function listRequestListsByContactId(db: Knex, { contactUserId }: {
  * Refused when the sample is locked (409), not drawn (409), or the contact or an item is not valid (400 naming it).
  */
 export async function createRequestList(db: Knex, { sample, actorId, input }: { sample: SampleRecord; actorId: number; input: CreateRequestList }) {
-  if (input.dueDate < utcDay()) throw new AppError(400, "invalid_input", "dueDate: the due date is in the past", { dueDate: ["The due date is in the past"] });
+  if (input.dueDate < utcDay()) throw fieldError("dueDate", "the due date is in the past", "The due date is in the past");
   return db.transaction(async (trx) => {
     await assertSampleUnlocked(trx, sample.id);
     const draw = await getCurrentDraw(trx, { sampleId: sample.id });
     if (!draw) throw conflict("Draw the sample before asking the client for evidence on its items.");
     const contact = await trx("engagement_members").where({ engagement_id: sample.engagementId, user_id: input.contactUserId, role: "client" }).first("user_id");
-    if (!contact) throw new AppError(400, "invalid_input", "contactUserId: that person is not a client contact of this engagement", { contactUserId: ["Not a client contact of this engagement: invite them first"] });
+    if (!contact) throw fieldError("contactUserId", "that person is not a client contact of this engagement", "Not a client contact of this engagement: invite them first");
     const drawn = await trx("sample_items").where({ draw_id: draw.id }).whereNot({ status: "void" }).orderBy("selection_order").orderBy("id").select("id");
     const drawnIds = drawn.map((r) => Number(r.id));
     const chosen = input.items === "all" ? drawnIds : [...new Set(input.items)];
     const stray = chosen.filter((id) => !drawnIds.includes(id));
-    if (stray.length) throw new AppError(400, "invalid_input", `items: item ${stray[0]} is not a live item of this sample's current draw`, { items: [`Item ${stray[0]} is not a live item of this sample`] });
+    if (stray.length) throw fieldError("items", `item ${stray[0]} is not a live item of this sample's current draw`, `Item ${stray[0]} is not a live item of this sample`);
     const ordered = drawnIds.filter((id) => chosen.includes(id));
     const [listId] = await trx("request_lists").insert({
       engagement_id: sample.engagementId, sample_id: sample.id, title: input.title, message: input.message ?? null, contact_user_id: input.contactUserId,

@@ -4,7 +4,8 @@ import type { Knex } from "knex";
 import { recordAudit } from "@/lib/data/audit-log";
 import { getPopulationById } from "@/lib/data/populations";
 import type { DrawRecord, SampleRecord } from "@/lib/data/samples";
-import { AppError, conflict } from "@/lib/errors";
+import { conflict, engineInputError } from "@/lib/errors";
+import { EngineInputError } from "@/lib/sampling";
 import { beginSampleWrite } from "./guard";
 import { loadFrame, type Frame } from "./population-frame";
 import { ALGORITHM_VERSION, algorithmName, computeSelection, selectionFingerprint, type SelectedItem, type SelectionInputs } from "./select";
@@ -60,7 +61,7 @@ export async function drawSample(db: Knex, { sample, actorId, seed: enteredSeed 
   try {
     items = computeSelection(frame, inputs, seed);
   } catch (err) {
-    if (err instanceof RangeError) throw new AppError(400, "invalid_input", `The selection could not be drawn: ${err.message}`);
+    if (err instanceof EngineInputError) throw engineInputError(err, { lead: "The selection could not be drawn" });
     throw err;
   }
   return db.transaction(async (trx) => {

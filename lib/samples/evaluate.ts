@@ -1,5 +1,5 @@
 import "server-only";
-import { evaluateAttributes, evaluateMus, evaluateStratified, evaluateVariables, type MusEvaluation, type SampledItem, type Sides, type VariablesEvaluation } from "@/lib/sampling";
+import { EngineInputError, evaluateAttributes, evaluateMus, evaluateStratified, evaluateVariables, type MusEvaluation, type SampledItem, type Sides, type VariablesEvaluation } from "@/lib/sampling";
 import type { SampleRecord } from "@/lib/data/samples";
 import type { SampleItemRecord } from "@/lib/data/sample-items";
 import type { PopulationRecord } from "@/lib/data/populations";
@@ -70,7 +70,7 @@ export function evaluateSample(sample: SampleRecord, population: PopulationRecor
     const provisional = base.complete ? "" : ` Provisional: ${progress.notStarted} of ${progress.total} items have no result yet.`;
     return { ...base, ...r, supported: base.complete ? r.supported : null, conclusion: r.conclusion + provisional };
   } catch (err) {
-    if (err instanceof RangeError) return { ...base, evaluation: null, projectedMisstatement: null, upperBound: null, supported: null, conclusion: `Not evaluable yet: ${err.message}`, warnings: [err.message] };
+    if (err instanceof EngineInputError) return { ...base, evaluation: null, projectedMisstatement: null, upperBound: null, supported: null, conclusion: `Not evaluable yet: ${err.message}`, warnings: [err.message] };
     throw err;
   }
 }

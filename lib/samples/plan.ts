@@ -4,7 +4,8 @@ import {
 } from "@/lib/sampling";
 import { standardDeviation } from "@/lib/sampling/descriptive";
 import { centsToDecimal } from "@/lib/money";
-import { AppError } from "@/lib/errors";
+import { engineInputError, fieldError } from "@/lib/errors";
+import { EngineInputError } from "@/lib/sampling";
 import type { SampleParams } from "@/lib/validation/sample";
 import type { Frame } from "./population-frame";
 import { stratifyFrame } from "./strata";
@@ -34,7 +35,7 @@ const money = (cents: bigint) => centsToDecimal(cents);
 export function computePlan(frame: Frame, params: SampleParams, performanceMateriality: string): SamplePlan {
   const tolerable = Number(params.tolerableMisstatement ?? performanceMateriality);
   const expected = Number(params.expectedMisstatement);
-  const plan = engineCall(() => {
+  const plan = engineCall(params, () => {
     switch (params.method) {
       case "mus": return planMus(frame, params, tolerable, expected);
       case "attribute": return planAttribute(frame, params);
@@ -43,20 +44,23 @@ export function computePlan(frame: Frame, params: SampleParams, performanceMater
     }
   });
   if (params.sampleSize !== undefined && params.sampleSize < plan.computedSize && !params.sizeReason) {
-    throw new AppError(400, "invalid_input", `sampleSize: ${params.sampleSize} is below the computed size ${plan.computedSize}; record the reason to use a smaller sample`, { sampleSize: [`Below the computed size ${plan.computedSize}: give a reason`] });
+    throw fieldError("sampleSize", `${params.sampleSize} is below the computed size ${plan.computedSize}; record the reason to use a smaller sample`, `Below the computed size ${plan.computedSize}: give a reason`);
   }
   if (params.sampleSize !== undefined && params.sampleSize > plan.frameSize) {
-    throw new AppError(400, "invalid_input", `sampleSize: at most ${plan.frameSize} items can be selected`, { sampleSize: [`At most ${plan.frameSize}`] });
+    throw fieldError("sampleSize", `at most ${plan.frameSize} items can be selected`, `At most ${plan.frameSize}`);
   }
   return plan;
 }
 
-/** Engine RangeErrors name the field; they become 400s the planner can read. */
-function engineCall<T>(fn: () => T): T {
+/**
+ * The engine's refusals name the field; they become 400s the planner can read, filed under the
+ * plan's own field when the engine's field is one of the parameters sent. Any other error is ours.
+ */
+function engineCall<T>(params: object, fn: () => T): T {
   try {
     return fn();
   } catch (err) {
-    if (err instanceof RangeError || err instanceof TypeError) throw new AppError(400, "invalid_input", err.message, { params: [err.message] });
+    if (err instanceof EngineInputError) throw engineInputError(err, { field: err.field in params ? `params.${err.field}` : "params" });
     throw err;
   }
 }
@@ -77,9 +81,9 @@ function planMus(frame: Frame, p: SampleParams, tolerable: number, expected: num
   const r = musSampleSize({ bookValue, tolerableMisstatement: tolerable, expectedMisstatement: expected, confidence: p.confidence });
   const chosenSize = p.sampleSize ?? r.sampleSize;
   const interval = chosenSize === r.sampleSize ? r.interval : Math.floor(bookValue / chosenSize);
-  if (interval < 1) throw new AppError(400, "invalid_input", "sampleSize: the sampling interval would be below one currency unit", { sampleSize: ["Too large for this population"] });
+  if (interval < 1) throw fieldError("sampleSize", "the sampling interval would be below one currency unit", "Too large for this population");
   const threshold = Number(p.topStratumThreshold ?? interval);
-  if (threshold > interval) throw new AppError(400, "invalid_input", `topStratumThreshold: must not exceed the sampling interval (${interval})`, { topStratumThreshold: [`At most the interval, ${interval}`] });
+  if (threshold > interval) throw fieldError("topStratumThreshold", `must not exceed the sampling interval (${interval})`, `At most the interval, ${interval}`);
   let topCount = 0, topCents = 0n;
   frame.bookValues.forEach((v, i) => { if (v >= threshold) { topCount++; topCents += frame.bookCents[i]; } });
   return {
@@ -108,7 +112,7 @@ function planVariables(frame: Frame, p: SampleParams, tolerable: number, expecte
 function planStratified(frame: Frame, p: SampleParams, tolerable: number, expected: number): SamplePlan {
   const strata = stratifyFrame(frame, (p.strataBounds ?? []).map(Number));
   const empty = strata.find((s) => s.members.length < 2);
-  if (empty) throw new AppError(400, "invalid_input", `strataBounds: stratum ${empty.number} (${empty.label}) has fewer than 2 items; move its boundaries`, { strataBounds: [`Stratum ${empty.number} has fewer than 2 items`] });
+  if (empty) throw fieldError("strataBounds", `stratum ${empty.number} (${empty.label}) has fewer than 2 items; move its boundaries`, `Stratum ${empty.number} has fewer than 2 items`);
   const planning = strata.map((s) => ({ populationSize: s.members.length, standardDeviation: standardDeviation(s.members.map((i) => frame.bookValues[i])) }));
   const whole = variablesSampleSize({ populationSize: frame.bookValues.length, estimatedStdDev: Math.max(standardDeviation(frame.bookValues), 0.01), tolerableMisstatement: tolerable, expectedMisstatement: expected, riskOfIncorrectAcceptance: 1 - p.confidence, riskOfIncorrectRejection: p.riskOfIncorrectRejection });
   const sized = stratifiedSampleSize({ strata: planning, plannedAllowance: whole.plannedAllowance, confidence: 1 - p.riskOfIncorrectRejection, sides: "two" });

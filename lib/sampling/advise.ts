@@ -4,6 +4,7 @@
  */
 import type { EstimatorPerformance } from "./simulate";
 import type { Estimator } from "./types";
+import { EngineInputError } from "./errors";
 
 export type AdvisedEstimator = Estimator | "stringer";
 export const ADVISED_ESTIMATOR_LABELS: Record<AdvisedEstimator, string> = {
@@ -53,8 +54,8 @@ export function recommendEstimator(o: {
   cells: AdvisorCell[]; confidence: number; trials: number; atSize?: number; misstatedShare?: number;
 }): Recommendation {
   const sizes = [...new Set(o.cells.map((c) => c.sampleSize))].sort((a, b) => a - b);
-  if (sizes.length === 0) throw new RangeError("cells must hold at least one result");
-  const sampleSize = o.atSize !== undefined && sizes.includes(o.atSize) ? o.atSize : sizes[sizes.length - 1];
+  if (sizes.length === 0) throw new EngineInputError("cells", "cells must hold at least one result");
+  const sampleSize = o.atSize !== undefined && sizes.includes(o.atSize) ? o.atSize : sizes[sizes.length - 1]!;
   const cells = o.cells.filter((c) => c.sampleSize === sampleSize);
   const coverageFloor = o.confidence - 2 * Math.sqrt((o.confidence * (1 - o.confidence)) / o.trials);
   const eligible = cells.filter((c) => c.performance.coverage >= coverageFloor);

@@ -4,6 +4,7 @@
  * The American Statistician 37(3), 1983, eq. 1.7): exact integer sums give the means, and the
  * second pass subtracts the (rounding-sized) sum of deviations. NIST StRD NumAcc data check it.
  */
+import { EngineInputError } from "./errors";
 
 /**
  * Arithmetic mean, summed with a second correction pass.
@@ -12,15 +13,15 @@
  */
 export function mean(values: ArrayLike<number>): number {
   const n = values.length;
-  if (n === 0) throw new RangeError("values must not be empty");
+  if (n === 0) throw new EngineInputError("values", "values must not be empty");
   let sum = 0;
   for (let i = 0; i < n; i++) {
-    if (!Number.isFinite(values[i])) throw new RangeError(`values[${i}] must be a finite number`);
-    sum += values[i];
+    if (!Number.isFinite(values[i])) throw new EngineInputError(`values[${i}]`, `values[${i}] must be a finite number`);
+    sum += values[i]!;
   }
   const first = sum / n;
   let correction = 0;
-  for (let i = 0; i < n; i++) correction += values[i] - first;
+  for (let i = 0; i < n; i++) correction += values[i]! - first;
   return first + correction / n;
 }
 
@@ -31,12 +32,12 @@ export function mean(values: ArrayLike<number>): number {
  */
 export function standardDeviation(values: ArrayLike<number>): number {
   const n = values.length;
-  if (n < 2) throw new RangeError("values must hold at least 2 numbers");
+  if (n < 2) throw new EngineInputError("values", "values must hold at least 2 numbers");
   const m = mean(values);
   let sumSquares = 0;
   let sumDeviations = 0;
   for (let i = 0; i < n; i++) {
-    const dev = values[i] - m;
+    const dev = values[i]! - m;
     sumSquares += dev * dev;
     sumDeviations += dev;
   }
@@ -69,21 +70,21 @@ export function pairedMoments(x: ArrayLike<number>, y: ArrayLike<number>): Paire
   let sumY = 0;
   let nonZero = 0;
   for (let i = 0; i < n; i++) {
-    sumX += x[i];
-    sumY += y[i];
+    sumX += x[i]!;
+    sumY += y[i]!;
     if (x[i] !== y[i]) nonZero++;
   }
   if (!Number.isSafeInteger(sumX) || !Number.isSafeInteger(sumY)) {
-    throw new RangeError("sample totals exceed the exact range in cents");
+    throw new EngineInputError("sample", "sample totals exceed the exact range in cents");
   }
   const meanX = sumX / n;
   const meanY = sumY / n;
   const meanD = (sumY - sumX) / n;
   let sxx = 0, syy = 0, sdd = 0, sxy = 0, sxd = 0;
   for (let i = 0; i < n; i++) {
-    const dx = x[i] - meanX;
-    const dy = y[i] - meanY;
-    const dd = y[i] - x[i] - meanD;
+    const dx = x[i]! - meanX;
+    const dy = y[i]! - meanY;
+    const dd = y[i]! - x[i]! - meanD;
     sxx += dx * dx;
     syy += dy * dy;
     sdd += dd * dd;

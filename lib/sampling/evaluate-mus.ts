@@ -6,6 +6,7 @@ import { poissonFactors } from "./poisson-factor";
 import { sampleToCents } from "./sample-input";
 import { FACTOR_MODES, type FactorMode, type SampledItem } from "./types";
 import { requireObject, requireOneOf, requireOpenFraction, requirePositive } from "./validate";
+import { EngineInputError } from "./errors";
 
 export interface BoundSide {
   /** RF(0) · J. */
@@ -38,9 +39,9 @@ function side(taintings: number[], topCents: number, interval: number, factors: 
   let incremental = 0;
   sorted.forEach((t, i) => {
     sumT += t;
-    incremental += (factors[i + 1] - factors[i] - 1) * t;
+    incremental += (factors[i + 1]! - factors[i]! - 1) * t;
   });
-  const basicPrecision = factors[0] * interval;
+  const basicPrecision = factors[0]! * interval;
   const projected = sumT * interval + topCents / 100;
   const incrementalAllowance = incremental * interval;
   return { basicPrecision, projected, incrementalAllowance, upperLimit: basicPrecision + projected + incrementalAllowance, taintings: sorted, topStratumMisstatement: topCents / 100 };
@@ -86,10 +87,10 @@ export function evaluateMus(o: {
   const over: number[] = [];
   const under: number[] = [];
   for (let i = 0; i < sample.book.length; i++) {
-    const book = sample.book[i];
-    if (book <= 0) throw new RangeError(`sample[${i}].bookValue must be greater than zero: PPS hits have positive book values`);
+    const book = sample.book[i]!;
+    if (book <= 0) throw new EngineInputError(`sample[${i}].bookValue`, `sample[${i}].bookValue must be greater than zero: PPS hits have positive book values`);
     if (book >= interval * 100) warnings.push(`sample[${i}] has a book value at or above the interval: it belongs in the top stratum.`);
-    const t = (book - sample.audited[i]) / book;
+    const t = (book - sample.audited[i]!) / book;
     if (t > 0) over.push(t);
     if (t < 0) under.push(-t);
     if (Math.abs(t) > 1) warnings.push(`sample[${i}] has a tainting of ${Math.abs(t).toFixed(4)} (above 1): kept uncapped, but the Stringer bound assumes taintings between 0 and 1.`);
@@ -97,7 +98,7 @@ export function evaluateMus(o: {
   let topOver = 0;
   let topUnder = 0;
   for (let i = 0; i < top.book.length; i++) {
-    const d = top.book[i] - top.audited[i];
+    const d = top.book[i]! - top.audited[i]!;
     if (d > 0) topOver += d;
     else topUnder -= d;
   }

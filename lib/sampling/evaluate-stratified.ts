@@ -8,6 +8,7 @@ import { sampleToCents } from "./sample-input";
 import { SIDES, STRATIFIED_ESTIMATORS, type SampledItem, type Sides, type StratifiedEstimator, type VariablesEvaluation } from "./types";
 import { estimateTotal } from "./variables-core";
 import { requireArray, requireInteger, requireObject, requireOneOf, requireOpenFraction } from "./validate";
+import { EngineInputError } from "./errors";
 
 export interface StratumInput {
   populationSize: number;
@@ -19,7 +20,7 @@ interface ParsedStratum { N: number; bookCents: number; m: PairedMoments }
 
 function parseStrata(value: unknown): ParsedStratum[] {
   const strata = requireArray<StratumInput>("strata", value);
-  if (strata.length === 0) throw new RangeError("strata must contain at least one stratum");
+  if (strata.length === 0) throw new EngineInputError("strata", "strata must contain at least one stratum");
   return strata.map((s, h) => {
     requireObject(`strata[${h}]`, s);
     const N = requireInteger(`strata[${h}].populationSize`, s.populationSize, 2, 2 ** 31 - 1);
@@ -37,7 +38,7 @@ function combinedRatio(strata: ParsedStratum[], totalBook: number): { estimate: 
     yst += N * m.meanY;
     xst += N * m.meanX;
   }
-  if (xst === 0) throw new RangeError("strata sample bookValue totals must not be zero for the combined ratio estimator");
+  if (xst === 0) throw new EngineInputError("strata", "strata sample bookValue totals must not be zero for the combined ratio estimator");
   const rc = yst / xst;
   const q = 1 - rc;
   const perStratum = strata.map(({ N, m, bookCents }) => {
@@ -76,7 +77,7 @@ export function evaluateStratified(o: {
   const confidence = requireOpenFraction("confidence", o.confidence);
   const sides = requireOneOf("sides", o.sides, SIDES);
   const totalBook = strata.reduce((sum, s) => sum + s.bookCents, 0);
-  if (!Number.isSafeInteger(totalBook)) throw new RangeError("strata populationBookValue total exceeds the exact range in cents");
+  if (!Number.isSafeInteger(totalBook)) throw new EngineInputError("strata", "strata populationBookValue total exceeds the exact range in cents");
 
   let pooled: { estimate: number; variance: number; perStratum: { estimate: number; variance: number }[] };
   if (estimator === "combined-ratio") {
@@ -84,7 +85,7 @@ export function evaluateStratified(o: {
   } else {
     const core = estimator === "separate-ratio" ? "ratio" : estimator;
     const perStratum = strata.map((s, h) => {
-      if (core === "ratio" && s.m.sumX === 0) throw new RangeError(`strata[${h}].sample bookValue total must not be zero for the ratio estimator`);
+      if (core === "ratio" && s.m.sumX === 0) throw new EngineInputError(`strata[${h}].sample`, `strata[${h}].sample bookValue total must not be zero for the ratio estimator`);
       return estimateTotal(core, s.m, s.N, s.bookCents);
     });
     const estimate = perStratum.reduce((sum, s) => sum + s.estimate, 0);

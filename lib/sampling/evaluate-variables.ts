@@ -8,6 +8,7 @@ import { sampleToCents } from "./sample-input";
 import { ESTIMATORS, SIDES, type Estimator, type SampledItem, type Sides, type VariablesEvaluation } from "./types";
 import { estimateTotal } from "./variables-core";
 import { requireInteger, requireObject, requireOneOf, requireOpenFraction } from "./validate";
+import { EngineInputError } from "./errors";
 
 /** Common practice: difference, ratio and regression estimators need about 20 misstatements. */
 export const MIN_MISSTATEMENTS = 20;
@@ -78,8 +79,8 @@ export function evaluateVariables(o: {
   const confidence = requireOpenFraction("confidence", o.confidence);
   const sides = requireOneOf("sides", o.sides, SIDES);
   const m = pairedMoments(book, audited);
-  if (estimator === "ratio" && m.sumX === 0) throw new RangeError("sample bookValue total must not be zero for the ratio estimator");
-  if (estimator === "regression" && !(m.varX > 0)) throw new RangeError("sample bookValue must vary for the regression estimator");
+  if (estimator === "ratio" && m.sumX === 0) throw new EngineInputError("sample", "sample bookValue total must not be zero for the ratio estimator");
+  if (estimator === "regression" && !(m.varX > 0)) throw new EngineInputError("sample", "sample bookValue must vary for the regression estimator");
 
   const core = estimateTotal(estimator, m, populationSize, bookCents);
   const z = zFor(confidence, sides);

@@ -3,6 +3,7 @@
  * summed inside as integer cents, so no total depends on the order of floating-point additions.
  */
 import { requireFiniteNumber } from "./validate";
+import { EngineInputError } from "./errors";
 
 /**
  * Converts an amount in currency units to integer cents (Math.round(x * 100)).
@@ -19,11 +20,11 @@ export function toCents(field: string, value: unknown): number {
   const scaled = v * 100;
   const cents = Math.round(scaled);
   if (!Number.isSafeInteger(cents)) {
-    throw new RangeError(`${field} is too large to hold exactly in cents (got ${v})`);
+    throw new EngineInputError(field, `${field} is too large to hold exactly in cents (got ${v})`);
   }
   const tolerance = Math.max(1e-6, Math.abs(scaled) * 4 * Number.EPSILON);
   if (Math.abs(scaled - cents) > tolerance) {
-    throw new RangeError(`${field} must have at most 2 decimals (got ${v})`);
+    throw new EngineInputError(field, `${field} must have at most 2 decimals (got ${v})`);
   }
   return cents;
 }
@@ -31,7 +32,7 @@ export function toCents(field: string, value: unknown): number {
 /** Adds two integer-cent amounts, checking that the total stays exact. */
 export function addCents(field: string, total: number, cents: number): number {
   const next = total + cents;
-  if (!Number.isSafeInteger(next)) throw new RangeError(`${field} total exceeds the exact range in cents`);
+  if (!Number.isSafeInteger(next)) throw new EngineInputError(field, `${field} total exceeds the exact range in cents`);
   return next;
 }
 

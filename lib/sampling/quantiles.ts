@@ -64,6 +64,6 @@ export function binomialCdf(k: number, n: number, p: number): number {
     if (logTerm > maxLog) maxLog = logTerm;
   }
   let sum = 0;
-  for (let j = 0; j <= k; j++) sum += Math.exp(logTerms[j] - maxLog);
+  for (let j = 0; j <= k; j++) sum += Math.exp(logTerms[j]! - maxLog);
   return Math.min(1, Math.exp(maxLog + Math.log(sum)));
 }

@@ -24,15 +24,15 @@ function twist(mt: Uint32Array): void {
   let k = 0;
   let y: number;
   for (; k < N - M; k++) {
-    y = (mt[k] & UPPER_MASK) | (mt[k + 1] & LOWER_MASK);
-    mt[k] = mt[k + M] ^ (y >>> 1) ^ (y & 1 ? MATRIX_A : 0);
+    y = (mt[k]! & UPPER_MASK) | (mt[k + 1]! & LOWER_MASK);
+    mt[k] = mt[k + M]! ^ (y >>> 1) ^ (y & 1 ? MATRIX_A : 0);
   }
   for (; k < N - 1; k++) {
-    y = (mt[k] & UPPER_MASK) | (mt[k + 1] & LOWER_MASK);
-    mt[k] = mt[k + (M - N)] ^ (y >>> 1) ^ (y & 1 ? MATRIX_A : 0);
+    y = (mt[k]! & UPPER_MASK) | (mt[k + 1]! & LOWER_MASK);
+    mt[k] = mt[k + (M - N)]! ^ (y >>> 1) ^ (y & 1 ? MATRIX_A : 0);
   }
-  y = (mt[N - 1] & UPPER_MASK) | (mt[0] & LOWER_MASK);
-  mt[N - 1] = mt[M - 1] ^ (y >>> 1) ^ (y & 1 ? MATRIX_A : 0);
+  y = (mt[N - 1]! & UPPER_MASK) | (mt[0]! & LOWER_MASK);
+  mt[N - 1] = mt[M - 1]! ^ (y >>> 1) ^ (y & 1 ? MATRIX_A : 0);
 }
 
 class MersenneTwister implements Rng {
@@ -43,7 +43,7 @@ class MersenneTwister implements Rng {
     const mt = this.mt;
     mt[0] = seed >>> 0;
     for (let i = 1; i < N; i++) {
-      const prev = mt[i - 1] ^ (mt[i - 1] >>> 30);
+      const prev = mt[i - 1]! ^ (mt[i - 1]! >>> 30);
       mt[i] = (Math.imul(1812433253, prev) + i) >>> 0;
     }
   }
@@ -53,7 +53,7 @@ class MersenneTwister implements Rng {
       twist(this.mt);
       this.index = 0;
     }
-    let y = this.mt[this.index++];
+    let y = this.mt[this.index++]!;
     y ^= y >>> 11;
     y ^= (y << 7) & 0x9d2c5680;
     y ^= (y << 15) & 0xefc60000;

@@ -5,6 +5,7 @@
 import { toCents } from "./money";
 import type { SampledItem } from "./types";
 import { requireArray, requireObject } from "./validate";
+import { EngineInputError } from "./errors";
 
 export interface CentsSample {
   book: Float64Array;
@@ -16,7 +17,7 @@ export function sampleToCents(field: string, value: unknown, minSize: number, ma
   const sample = requireArray<SampledItem>(field, value);
   if (sample.length < minSize || sample.length > maxSize) {
     const upper = Number.isFinite(maxSize) ? ` and at most ${maxSize}` : "";
-    throw new RangeError(`${field} must hold at least ${minSize}${upper} items (got ${sample.length})`);
+    throw new EngineInputError(field, `${field} must hold at least ${minSize}${upper} items (got ${sample.length})`);
   }
   const book = new Float64Array(sample.length);
   const audited = new Float64Array(sample.length);

@@ -5,6 +5,7 @@
 import { toCentsFast } from "./money";
 import { createRng } from "./rng";
 import { requireArray, requireObject, requireOneOf, requireSeed } from "./validate";
+import { EngineInputError } from "./errors";
 
 /** Shapes of tainting (misstatement as a share of book value) for the misstated items. */
 export const TAINTING_PATTERNS = ["mostly-small", "spread", "whole-amount"] as const;
@@ -28,7 +29,7 @@ export type MisstatementScenario =
 
 function requireShare(field: string, value: unknown): number {
   if (typeof value !== "number" || !Number.isFinite(value)) throw new TypeError(`${field} must be a finite number`);
-  if (value < 0 || value > 1) throw new RangeError(`${field} must be between 0 and 1 (got ${value})`);
+  if (value < 0 || value > 1) throw new EngineInputError(field, `${field} must be between 0 and 1 (got ${value})`);
   return value;
 }
 
@@ -81,10 +82,10 @@ export function assumeAuditedValues(o: { bookValues: number[]; scenario: Misstat
   } else {
     const taintings = requireArray<number>("scenario.taintings", (scenario as Extract<MisstatementScenario, { kind: "observed" }>).taintings);
     taintings.forEach((t, i) => {
-      if (typeof t !== "number" || !Number.isFinite(t)) throw new RangeError(`scenario.taintings[${i}] must be a finite number`);
+      if (typeof t !== "number" || !Number.isFinite(t)) throw new EngineInputError(`scenario.taintings[${i}]`, `scenario.taintings[${i}] must be a finite number`);
     });
-    if (share > 0 && taintings.length === 0) throw new RangeError("scenario.taintings must hold at least one tainting when misstatedShare is above 0");
-    draw = () => taintings[Math.floor(u() * taintings.length)];
+    if (share > 0 && taintings.length === 0) throw new EngineInputError("scenario.taintings", "scenario.taintings must hold at least one tainting when misstatedShare is above 0");
+    draw = () => taintings[Math.floor(u() * taintings.length)]!;
   }
 
   const audited = new Array<number>(bookValues.length);

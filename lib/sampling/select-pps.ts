@@ -6,6 +6,7 @@
 import { toCents, toCentsFast } from "./money";
 import { createRng } from "./rng";
 import { requireArray, requireObject, requirePositive, requireSeed } from "./validate";
+import { EngineInputError } from "./errors";
 
 export interface PpsHit {
   /** 0-based index in the population. */
@@ -56,7 +57,7 @@ export function selectPps(o: { bookValues: number[]; interval: number; seed: num
   requireObject("options", o);
   const bookValues = requireArray<number>("bookValues", o.bookValues);
   const intervalCents = toCents("interval", requirePositive("interval", o.interval));
-  if (intervalCents < 1) throw new RangeError(`interval must be at least 0.01 (got ${o.interval})`);
+  if (intervalCents < 1) throw new EngineInputError("interval", `interval must be at least 0.01 (got ${o.interval})`);
   const rng = createRng(requireSeed("seed", o.seed));
   const startCents = 1 + Math.floor(rng.nextDouble() * intervalCents);
 
@@ -72,14 +73,14 @@ export function selectPps(o: { bookValues: number[]; interval: number; seed: num
       continue;
     }
     cumulative += cents;
-    if (!Number.isSafeInteger(cumulative)) throw new RangeError("bookValues total exceeds the exact range in cents");
+    if (!Number.isSafeInteger(cumulative)) throw new EngineInputError("bookValues", "bookValues total exceeds the exact range in cents");
     if (point > cumulative) continue;
     const hitPoints: number[] = [];
     while (point <= cumulative) {
       hitPoints.push(point / 100);
       point += intervalCents;
       if (++pointCount > MAX_SELECTION_POINTS) {
-        throw new RangeError(`interval (${o.interval}) is too small for this population: more than ${MAX_SELECTION_POINTS} selection points`);
+        throw new EngineInputError("interval", `interval (${o.interval}) is too small for this population: more than ${MAX_SELECTION_POINTS} selection points`);
       }
     }
     hits.push({ index: i, hitPoints });

@@ -11,7 +11,7 @@ export const MAX_POPULATION_SIZE = 2 ** 31 - 1;
 
 // Max-heap on (u, index): the root is the largest of the n smallest seen so far.
 function isAbove(u: Float64Array, idx: Int32Array, a: number, b: number): boolean {
-  return u[a] > u[b] || (u[a] === u[b] && idx[a] > idx[b]);
+  return u[a]! > u[b]! || (u[a] === u[b] && idx[a]! > idx[b]!);
 }
 
 function siftDown(u: Float64Array, idx: Int32Array, size: number, start: number): void {
@@ -23,11 +23,11 @@ function siftDown(u: Float64Array, idx: Int32Array, size: number, start: number)
     const right = left + 1;
     if (right < size && isAbove(u, idx, right, left)) largest = right;
     if (!isAbove(u, idx, largest, parent)) return;
-    const tu = u[parent];
-    u[parent] = u[largest];
+    const tu = u[parent]!;
+    u[parent] = u[largest]!;
     u[largest] = tu;
-    const ti = idx[parent];
-    idx[parent] = idx[largest];
+    const ti = idx[parent]!;
+    idx[parent] = idx[largest]!;
     idx[largest] = ti;
     parent = largest;
   }
@@ -64,17 +64,17 @@ export function selectRandom(o: { populationSize: number; sampleSize: number; se
     idx[i] = i;
   }
   for (let i = (sampleSize >> 1) - 1; i >= 0; i--) siftDown(u, idx, sampleSize, i);
-  let threshold = u[0];
+  let threshold = u[0]!;
   for (let i = sampleSize; i < populationSize; i++) {
     const ui = rng.nextDouble();
     if (ui < threshold) {
       u[0] = ui;
       idx[0] = i;
       siftDown(u, idx, sampleSize, 0);
-      threshold = u[0];
+      threshold = u[0]!;
     }
   }
   const order = Array.from(idx.keys());
-  order.sort((a, b) => u[a] - u[b] || idx[a] - idx[b]);
-  return order.map((k) => idx[k]);
+  order.sort((a, b) => u[a]! - u[b]! || idx[a]! - idx[b]!);
+  return order.map((k) => idx[k]!);
 }

@@ -3,6 +3,7 @@
  */
 import { selectRandom } from "./select-random";
 import { requireArray, requireObject, requireSeed } from "./validate";
+import { EngineInputError } from "./errors";
 
 /**
  * Stratified random selection (SRS without replacement within each stratum; Cochran 1977 ch. 5).
@@ -24,13 +25,14 @@ export function selectStratifiedRandom(o: {
   requireObject("options", o);
   const strata = requireArray<{ populationSize: number; sampleSize: number }>("strata", o.strata);
   const seed = requireSeed("seed", o.seed);
-  if (strata.length === 0) throw new RangeError("strata must contain at least one stratum");
+  if (strata.length === 0) throw new EngineInputError("strata", "strata must contain at least one stratum");
   return strata.map((stratum, i) => {
     requireObject(`strata[${i}]`, stratum);
     const stratumSeed = (seed + i + 1) % 4294967296;
     try {
       return selectRandom({ populationSize: stratum.populationSize, sampleSize: stratum.sampleSize, seed: stratumSeed });
     } catch (error) {
+      if (error instanceof EngineInputError) throw new EngineInputError(`strata[${i}].${error.field}`, `strata[${i}].${error.message}`);
       if (error instanceof RangeError) throw new RangeError(`strata[${i}].${error.message}`);
       if (error instanceof TypeError) throw new TypeError(`strata[${i}].${error.message}`);
       throw error;

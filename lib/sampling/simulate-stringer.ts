@@ -8,6 +8,7 @@ import { PROGRESS_EVERY, summariseTrials, type EstimatorPerformance } from "./si
 import { SIDES, type FactorMode, FACTOR_MODES, type SampledItem, type Sides } from "./types";
 import { toCentsFast } from "./money";
 import { requireArray, requireInteger, requireObject, requireOneOf, requireOpenFraction, requireSeed } from "./validate";
+import { EngineInputError } from "./errors";
 
 export interface StringerPerformance extends EstimatorPerformance {
   /** The sampling interval used, in currency units: positive book total / sampleSize, to the cent. */
@@ -22,7 +23,7 @@ function findHit(cumulative: Float64Array, point: number, from: number): number 
   let hi = cumulative.length - 1;
   while (lo < hi) {
     const mid = (lo + hi) >>> 1;
-    if (cumulative[mid] < point) lo = mid + 1;
+    if (cumulative[mid]! < point) lo = mid + 1;
     else hi = mid;
   }
   return lo;
@@ -31,7 +32,7 @@ function findHit(cumulative: Float64Array, point: number, from: number): number 
 /** Σ t_k·(RF(k) − RF(k−1)) for taintings sorted largest first: projected + incremental allowance, per unit of interval. */
 function rankedSum(taintings: Float64Array, count: number, factors: number[]): number {
   let s = 0;
-  for (let k = 0; k < count; k++) s += taintings[k] * (factors[k + 1] - factors[k]);
+  for (let k = 0; k < count; k++) s += taintings[k]! * (factors[k + 1]! - factors[k]!);
   return s;
 }
 
@@ -67,7 +68,7 @@ export function simulateStringer(o: {
 }): StringerPerformance {
   requireObject("options", o);
   const population = requireArray<SampledItem>("population", o.population);
-  if (population.length < 2) throw new RangeError(`population must hold at least 2 items (got ${population.length})`);
+  if (population.length < 2) throw new EngineInputError("population", `population must hold at least 2 items (got ${population.length})`);
   const confidence = requireOpenFraction("confidence", o.confidence);
   const sides = o.sides === undefined ? "lower" : requireOneOf("sides", o.sides, SIDES);
   const factorMode = o.factors === undefined ? "exact" : requireOneOf("factors", o.factors, FACTOR_MODES);
@@ -85,15 +86,15 @@ export function simulateStringer(o: {
     const item = requireObject(`population[${i}]`, population[i]);
     x[i] = toCentsFast(item.bookValue, (j) => `population[${j}].bookValue`, i);
     y[i] = toCentsFast(item.auditedValue, (j) => `population[${j}].auditedValue`, i);
-    bookCents += x[i];
-    truthCents += y[i];
-    if (x[i] > 0) { frameIndex.push(i); frameCents += x[i]; frameMisstatement += x[i] - y[i]; }
+    bookCents += x[i]!;
+    truthCents += y[i]!;
+    if (x[i]! > 0) { frameIndex.push(i); frameCents += x[i]!; frameMisstatement += x[i]! - y[i]!; }
   }
-  if (!Number.isSafeInteger(bookCents) || !Number.isSafeInteger(truthCents) || !Number.isSafeInteger(frameCents)) throw new RangeError("population totals exceed the exact range in cents");
-  if (frameIndex.length === 0) throw new RangeError("population must hold at least one item with a positive book value for monetary-unit sampling");
+  if (!Number.isSafeInteger(bookCents) || !Number.isSafeInteger(truthCents) || !Number.isSafeInteger(frameCents)) throw new EngineInputError("population", "population totals exceed the exact range in cents");
+  if (frameIndex.length === 0) throw new EngineInputError("population", "population must hold at least one item with a positive book value for monetary-unit sampling");
   const sampleSize = requireInteger("sampleSize", o.sampleSize, 1, frameIndex.length);
   const J = Math.floor(frameCents / sampleSize);
-  if (J < 1) throw new RangeError(`sampleSize (${sampleSize}) gives an interval below one cent`);
+  if (J < 1) throw new EngineInputError("sampleSize", `sampleSize (${sampleSize}) gives an interval below one cent`);
   const outsideFrameMisstatement = bookCents - truthCents - frameMisstatement;
 
   const cumulative = new Float64Array(frameIndex.length);
@@ -104,13 +105,13 @@ export function simulateStringer(o: {
   let topUnder = 0;
   let topStratumItems = 0;
   frameIndex.forEach((i, f) => {
-    running += x[i];
+    running += x[i]!;
     cumulative[f] = running;
-    taint[f] = (x[i] - y[i]) / x[i];
-    if (x[i] >= J) {
+    taint[f] = (x[i]! - y[i]!) / x[i]!;
+    if (x[i]! >= J) {
       top[f] = 1;
       topStratumItems++;
-      const d = x[i] - y[i];
+      const d = x[i]! - y[i]!;
       if (d > 0) topOver += d; else topUnder -= d;
     }
   });
@@ -130,7 +131,7 @@ export function simulateStringer(o: {
     while (point <= frameCents) {
       const f = findHit(cumulative, point, from);
       if (!top[f]) {
-        const tk = taint[f];
+        const tk = taint[f]!;
         if (tk > 0) { over[nOver++] = tk; sumOver += tk; }
         else if (tk < 0) { under[nUnder++] = -tk; sumUnder -= tk; }
       }
@@ -142,8 +143,8 @@ export function simulateStringer(o: {
     const projectedOver = sumOver * J + topOver;
     const projectedUnder = sumUnder * J + topUnder;
     const mostLikely = projectedOver - projectedUnder;
-    const netOverLimit = factors[0] * J + rankedSum(over, nOver, factors) * J + topOver - projectedUnder;
-    const netUnderLimit = factors[0] * J + rankedSum(under, nUnder, factors) * J + topUnder - projectedOver;
+    const netOverLimit = factors[0]! * J + rankedSum(over, nOver, factors) * J + topOver - projectedUnder;
+    const netUnderLimit = factors[0]! * J + rankedSum(under, nUnder, factors) * J + topUnder - projectedOver;
     estimates[t] = bookCents - mostLikely - outsideFrameMisstatement;
     const overHolds = frameMisstatement <= netOverLimit;
     const underHolds = -frameMisstatement <= netUnderLimit;

@@ -9,6 +9,7 @@ import { ESTIMATORS, SIDES, type Estimator, type SampledItem, type Sides } from 
 import { zFor } from "./evaluate-variables";
 import { estimateTotal } from "./variables-core";
 import { requireArray, requireInteger, requireObject, requireOneOf, requireOpenFraction, requireSeed } from "./validate";
+import { EngineInputError } from "./errors";
 
 export interface HistogramBin { from: number; to: number; count: number }
 export interface EstimatorPerformance {
@@ -38,8 +39,8 @@ export function drawSimpleRandomSample(rng: Rng, permutation: Int32Array, sample
   const N = permutation.length;
   for (let j = 0; j < sampleSize; j++) {
     const r = j + Math.floor(rng.nextDouble() * (N - j));
-    const t = permutation[j];
-    permutation[j] = permutation[r];
+    const t = permutation[j]!;
+    permutation[j] = permutation[r]!;
     permutation[r] = t;
   }
 }
@@ -51,7 +52,7 @@ function histogram(values: Float64Array): HistogramBin[] {
   const bins = max > min ? HISTOGRAM_BINS : 1;
   const width = (max - min) / bins;
   const counts = new Array<number>(bins).fill(0);
-  for (const v of values) counts[bins === 1 ? 0 : Math.min(bins - 1, Math.floor((v - min) / width))]++;
+  for (const v of values) counts[bins === 1 ? 0 : Math.min(bins - 1, Math.floor((v - min) / width))]!++;
   return counts.map((count, b) => ({ from: (min + b * width) / 100, to: (b === bins - 1 ? max : min + (b + 1) * width) / 100, count }));
 }
 
@@ -73,14 +74,14 @@ export function summariseTrials(estimates: Float64Array, truthCents: number, cov
 
 function parsePopulation(value: unknown, needPositiveBook: boolean): { x: Float64Array; y: Float64Array } {
   const population = requireArray<SampledItem>("population", value);
-  if (population.length < 2) throw new RangeError(`population must hold at least 2 items (got ${population.length})`);
+  if (population.length < 2) throw new EngineInputError("population", `population must hold at least 2 items (got ${population.length})`);
   const x = new Float64Array(population.length);
   const y = new Float64Array(population.length);
   for (let i = 0; i < population.length; i++) {
     const item = requireObject(`population[${i}]`, population[i]);
     x[i] = toCents(`population[${i}].bookValue`, item.bookValue);
     y[i] = toCents(`population[${i}].auditedValue`, item.auditedValue);
-    if (needPositiveBook && x[i] <= 0) throw new RangeError(`population[${i}].bookValue must be greater than zero for the ratio estimator`);
+    if (needPositiveBook && x[i]! <= 0) throw new EngineInputError(`population[${i}].bookValue`, `population[${i}].bookValue must be greater than zero for the ratio estimator`);
   }
   return { x, y };
 }
@@ -110,10 +111,10 @@ export function simulateEstimators<E extends Estimator>(o: {
 }): Record<E, EstimatorPerformance> {
   requireObject("options", o);
   const estimators = requireArray<E>("estimators", o.estimators);
-  if (estimators.length === 0) throw new RangeError("estimators must name at least one estimator");
+  if (estimators.length === 0) throw new EngineInputError("estimators", "estimators must name at least one estimator");
   estimators.forEach((e, i) => {
     requireOneOf(`estimators[${i}]`, e, ESTIMATORS);
-    if (estimators.indexOf(e) !== i) throw new RangeError(`estimators[${i}] repeats "${e}"`);
+    if (estimators.indexOf(e) !== i) throw new EngineInputError(`estimators[${i}]`, `estimators[${i}] repeats "${e}"`);
   });
   const { x, y } = parsePopulation(o.population, estimators.includes("ratio" as E));
   const N = x.length;
@@ -125,13 +126,13 @@ export function simulateEstimators<E extends Estimator>(o: {
 
   let bookCents = 0;
   let truthCents = 0;
-  for (let i = 0; i < N; i++) { bookCents += x[i]; truthCents += y[i]; }
-  if (!Number.isSafeInteger(bookCents) || !Number.isSafeInteger(truthCents)) throw new RangeError("population totals exceed the exact range in cents");
+  for (let i = 0; i < N; i++) { bookCents += x[i]!; truthCents += y[i]!; }
+  if (!Number.isSafeInteger(bookCents) || !Number.isSafeInteger(truthCents)) throw new EngineInputError("population", "population totals exceed the exact range in cents");
   const xBar = bookCents / N;
   const dBar = (truthCents - bookCents) / N;
   const xs = new Float64Array(N);
   const ds = new Float64Array(N);
-  for (let i = 0; i < N; i++) { xs[i] = x[i] - xBar; ds[i] = y[i] - x[i] - dBar; }
+  for (let i = 0; i < N; i++) { xs[i] = x[i]! - xBar; ds[i] = y[i]! - x[i]! - dBar; }
 
   const permutation = Int32Array.from({ length: N }, (_, i) => i);
   const estimates = estimators.map(() => new Float64Array(trials));
@@ -143,8 +144,8 @@ export function simulateEstimators<E extends Estimator>(o: {
     drawSimpleRandomSample(rng, permutation, n);
     let sx = 0, sd = 0, sxx = 0, sdd = 0, sxd = 0;
     for (let j = 0; j < n; j++) {
-      const i = permutation[j];
-      const a = xs[i], b = ds[i];
+      const i = permutation[j]!;
+      const a = xs[i]!, b = ds[i]!;
       sx += a; sd += b; sxx += a * a; sdd += b * b; sxd += a * b;
     }
     m.meanX = xBar + sx / n;
@@ -158,18 +159,18 @@ export function simulateEstimators<E extends Estimator>(o: {
     m.covXY = m.varX + m.covXD;
     m.varY = Math.max(0, m.varX + m.varD + 2 * m.covXD);
     for (let e = 0; e < estimators.length; e++) {
-      const r = estimateTotal(estimators[e], m, N, bookCents);
+      const r = estimateTotal(estimators[e]!, m, N, bookCents);
       const allowance = z * Math.sqrt(r.variance);
-      estimates[e][t] = r.estimate;
-      allowanceSum[e] += allowance;
+      estimates[e]![t] = r.estimate;
+      allowanceSum[e]! += allowance;
       const error = r.estimate - truthCents;
-      if ((sides !== "lower" || error <= allowance) && (sides !== "upper" || -error <= allowance) && (sides !== "two" || Math.abs(error) <= allowance)) covered[e]++;
+      if ((sides !== "lower" || error <= allowance) && (sides !== "upper" || -error <= allowance) && (sides !== "two" || Math.abs(error) <= allowance)) covered[e]!++;
     }
     if (o.onProgress && (t + 1) % PROGRESS_EVERY === 0) o.onProgress(t + 1);
   }
   const result = {} as Record<E, EstimatorPerformance>;
   estimators.forEach((name, e) => {
-    result[name] = summariseTrials(estimates[e], truthCents, covered[e], allowanceSum[e]);
+    result[name] = summariseTrials(estimates[e]!, truthCents, covered[e]!, allowanceSum[e]!);
   });
   return result;
 }

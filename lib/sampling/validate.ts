@@ -1,8 +1,10 @@
 /**
  * Input validation shared by every engine function. One policy: a value of the wrong type throws a
- * `TypeError`, a value of the right type outside its allowed range throws a `RangeError`; both
- * messages start with the field's name so a caller can show it next to the offending input.
+ * `TypeError` (the caller's validation should have caught it: a programming error), a value of the
+ * right type outside its allowed range throws an `EngineInputError` (a `RangeError` carrying the
+ * field); both messages start with the field's name so a caller can show it next to the input.
  */
+import { EngineInputError } from "./errors";
 
 function describe(value: unknown): string {
   if (typeof value === "number") return String(value);
@@ -17,7 +19,7 @@ export function requireFiniteNumber(field: string, value: unknown): number {
   if (typeof value !== "number" || Number.isNaN(value)) {
     throw new TypeError(`${field} must be a number (got ${describe(value)})`);
   }
-  if (!Number.isFinite(value)) throw new RangeError(`${field} must be finite (got ${value})`);
+  if (!Number.isFinite(value)) throw new EngineInputError(field, `${field} must be finite (got ${value})`);
   return value;
 }
 
@@ -25,7 +27,7 @@ export function requireFiniteNumber(field: string, value: unknown): number {
 export function requireInteger(field: string, value: unknown, min: number, max: number): number {
   const v = requireFiniteNumber(field, value);
   if (!Number.isInteger(v) || v < min || v > max) {
-    throw new RangeError(`${field} must be an integer between ${min} and ${max} (got ${v})`);
+    throw new EngineInputError(field, `${field} must be an integer between ${min} and ${max} (got ${v})`);
   }
   return v;
 }
@@ -33,7 +35,7 @@ export function requireInteger(field: string, value: unknown, min: number, max: 
 /** Throws unless `value` is a number strictly between 0 and 1 (rates, confidences, risks). */
 export function requireOpenFraction(field: string, value: unknown): number {
   const v = requireFiniteNumber(field, value);
-  if (!(v > 0 && v < 1)) throw new RangeError(`${field} must be strictly between 0 and 1 (got ${v})`);
+  if (!(v > 0 && v < 1)) throw new EngineInputError(field, `${field} must be strictly between 0 and 1 (got ${v})`);
   return v;
 }
 
@@ -41,7 +43,7 @@ export function requireOpenFraction(field: string, value: unknown): number {
 export function requirePositive(field: string, value: unknown, allowZero = false): number {
   const v = requireFiniteNumber(field, value);
   if (allowZero ? v < 0 : v <= 0) {
-    throw new RangeError(`${field} must be ${allowZero ? "zero or greater" : "greater than zero"} (got ${v})`);
+    throw new EngineInputError(field, `${field} must be ${allowZero ? "zero or greater" : "greater than zero"} (got ${v})`);
   }
   return v;
 }
@@ -63,7 +65,7 @@ export function requireObject(field: string, value: unknown): Record<string, unk
 /** Throws a RangeError unless `value` is one of `options`. */
 export function requireOneOf<T extends string>(field: string, value: unknown, options: readonly T[]): T {
   if (typeof value !== "string" || !(options as readonly string[]).includes(value)) {
-    throw new RangeError(`${field} must be one of ${options.map((o) => `"${o}"`).join(", ")} (got ${describe(value)})`);
+    throw new EngineInputError(field, `${field} must be one of ${options.map((o) => `"${o}"`).join(", ")} (got ${describe(value)})`);
   }
   return value as T;
 }

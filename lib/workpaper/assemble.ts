@@ -13,6 +13,7 @@ import { buildAttributesEvaluation, buildMusEvaluation, buildStratifiedEvaluatio
 import type { EvaluationBlock, PlanBlock, WorkpaperData, WorkpaperItem } from "@/templates/workpaper/workpaper-data";
 import type { Estimator, StratifiedEstimator } from "@/lib/sampling";
 import { AppError } from "@/lib/errors";
+import { EngineInputError } from "@/lib/sampling";
 
 const evaluatedOf = (items: SampleItemRecord[]) => items.filter((i) => i.status === "done" || i.status === "not-auditable")
   .map((i) => ({ reference: i.itemRef, bookValue: i.bookValue, auditedValue: i.status === "not-auditable" ? "0.00" : i.auditedValue ?? i.bookValue, topStratum: i.topStratum, stratum: i.stratum }));
@@ -85,7 +86,7 @@ function evaluationOrExplain(build: () => EvaluationBlock): EvaluationBlock {
   try {
     return build();
   } catch (err) {
-    if (err instanceof RangeError) throw new AppError(409, "not_evaluable", `The workpaper cannot be rendered yet: ${err.message}. Record more results first.`);
+    if (err instanceof EngineInputError) throw new AppError(409, "not_evaluable", `The workpaper cannot be rendered yet: ${err.message}. Record more results first.`);
     throw err;
   }
 }

@@ -3,6 +3,7 @@
  */
 import { binomialCdf } from "../quantiles";
 import { requireFiniteNumber, requireObject, requireOpenFraction } from "../validate";
+import { EngineInputError } from "../errors";
 
 /** Search limit: sizes beyond this are not practical audit samples. */
 export const MAX_ATTRIBUTE_SAMPLE_SIZE = 100000;
@@ -37,8 +38,7 @@ export function attributeSampleSize(o: { tolerableRate: number; expectedRate: nu
   const expectedRate = requireFiniteNumber("expectedRate", o.expectedRate);
   const confidence = requireOpenFraction("confidence", o.confidence);
   if (expectedRate < 0 || expectedRate >= tolerableRate) {
-    throw new RangeError(
-      `expectedRate must be at least 0 and below tolerableRate (${tolerableRate}) (got ${expectedRate})`,
+    throw new EngineInputError("expectedRate", `expectedRate must be at least 0 and below tolerableRate (${tolerableRate}) (got ${expectedRate})`,
     );
   }
   const risk = 1 - confidence;
@@ -48,7 +48,6 @@ export function attributeSampleSize(o: { tolerableRate: number; expectedRate: nu
     if (k >= n) continue;
     if (binomialCdf(k, n, tolerableRate) <= risk) return { sampleSize: n, allowedDeviations: k };
   }
-  throw new RangeError(
-    `no attribute sample size up to ${MAX_ATTRIBUTE_SAMPLE_SIZE} meets tolerableRate ${tolerableRate} with expectedRate ${expectedRate}: raise tolerableRate or lower expectedRate`,
+  throw new EngineInputError("tolerableRate", `no attribute sample size up to ${MAX_ATTRIBUTE_SAMPLE_SIZE} meets tolerableRate ${tolerableRate} with expectedRate ${expectedRate}: raise tolerableRate or lower expectedRate`,
   );
 }

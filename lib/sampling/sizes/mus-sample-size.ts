@@ -3,6 +3,7 @@
  */
 import { poissonFactor } from "../poisson-factor";
 import { requireObject, requireOpenFraction, requirePositive } from "../validate";
+import { EngineInputError } from "../errors";
 
 /**
  * Expansion factors for expected misstatement by confidence (1 − risk of incorrect acceptance),
@@ -53,24 +54,22 @@ export function musSampleSize(o: {
   const expected = requirePositive("expectedMisstatement", o.expectedMisstatement, true);
   const confidence = requireOpenFraction("confidence", o.confidence);
   if (tolerable > bookValue) {
-    throw new RangeError(`tolerableMisstatement (${tolerable}) must not exceed bookValue (${bookValue})`);
+    throw new EngineInputError("tolerableMisstatement", `tolerableMisstatement (${tolerable}) must not exceed bookValue (${bookValue})`);
   }
   const tabled = expansionFactorFor(confidence);
   if (tabled === undefined && expected > 0) {
-    throw new RangeError(
-      `confidence ${confidence} has no tabled expansion factor; use one of ${EXPANSION_FACTORS.map((r) => r.confidence).join(", ")}`,
+    throw new EngineInputError("confidence", `confidence ${confidence} has no tabled expansion factor; use one of ${EXPANSION_FACTORS.map((r) => r.confidence).join(", ")}`,
     );
   }
   const expansionFactor = tabled ?? 1;
   const headroom = tolerable - expected * expansionFactor;
   if (!(headroom > 0)) {
-    throw new RangeError(
-      `tolerableMisstatement (${tolerable}) must exceed expectedMisstatement × expansion factor (${expected} × ${expansionFactor} = ${expected * expansionFactor})`,
+    throw new EngineInputError("tolerableMisstatement", `tolerableMisstatement (${tolerable}) must exceed expectedMisstatement × expansion factor (${expected} × ${expansionFactor} = ${expected * expansionFactor})`,
     );
   }
   const reliabilityFactor = poissonFactor(0, confidence, "exact");
   const sampleSize = Math.ceil((bookValue * reliabilityFactor) / headroom - 1e-9);
   const interval = Math.floor(bookValue / sampleSize + 1e-9);
-  if (interval < 1) throw new RangeError(`bookValue (${bookValue}) is too small for a sampling interval of at least 1`);
+  if (interval < 1) throw new EngineInputError("bookValue", `bookValue (${bookValue}) is too small for a sampling interval of at least 1`);
   return { sampleSize, interval, reliabilityFactor, expansionFactor };
 }

@@ -5,6 +5,7 @@
  */
 import { normalQuantile } from "../quantiles";
 import { requireArray, requireInteger, requireObject, requireOpenFraction, requirePositive } from "../validate";
+import { EngineInputError } from "../errors";
 
 export interface PlanningStratum {
   populationSize: number;
@@ -16,7 +17,7 @@ interface Parsed { N: number; S: number }
 
 function parse(value: unknown): Parsed[] {
   const strata = requireArray<PlanningStratum>("strata", value);
-  if (strata.length === 0) throw new RangeError("strata must contain at least one stratum");
+  if (strata.length === 0) throw new EngineInputError("strata", "strata must contain at least one stratum");
   return strata.map((s, h) => {
     requireObject(`strata[${h}]`, s);
     return {
@@ -32,17 +33,17 @@ function exactAllocation(strata: Parsed[], n: number): number[] {
   const full = new Set<number>();
   for (;;) {
     const free = strata.map((_, h) => h).filter((h) => !full.has(h));
-    const remaining = n - [...full].reduce((sum, h) => sum + strata[h].N, 0);
-    const weight = free.reduce((sum, h) => sum + strata[h].N * strata[h].S, 0);
-    const sizeOfFree = free.reduce((sum, h) => sum + strata[h].N, 0);
+    const remaining = n - [...full].reduce((sum, h) => sum + strata[h]!.N, 0);
+    const weight = free.reduce((sum, h) => sum + strata[h]!.N * strata[h]!.S, 0);
+    const sizeOfFree = free.reduce((sum, h) => sum + strata[h]!.N, 0);
     let capped = false;
     for (const h of free) {
-      const w = weight > 0 ? strata[h].N * strata[h].S / weight : strata[h].N / sizeOfFree;
+      const w = weight > 0 ? strata[h]!.N * strata[h]!.S / weight : strata[h]!.N / sizeOfFree;
       out[h] = remaining * w;
-      if (out[h] > strata[h].N) capped = true;
+      if (out[h] > strata[h]!.N) capped = true;
     }
     if (!capped) return out;
-    for (const h of free) if (out[h] > strata[h].N) { full.add(h); out[h] = strata[h].N; }
+    for (const h of free) if (out[h]! > strata[h]!.N) { full.add(h); out[h] = strata[h]!.N; }
   }
 }
 
@@ -50,14 +51,14 @@ function exactAllocation(strata: Parsed[], n: number): number[] {
 function roundAllocation(strata: Parsed[], exact: number[], n: number): number[] {
   const alloc = exact.map((x) => Math.floor(x + 1e-9));
   let left = n - alloc.reduce((a, b) => a + b, 0);
-  const order = exact.map((_, h) => h).sort((a, b) => (exact[b] - alloc[b]) - (exact[a] - alloc[a]) || a - b);
-  for (const h of order) if (left > 0 && alloc[h] < strata[h].N) { alloc[h]++; left--; }
+  const order = exact.map((_, h) => h).sort((a, b) => (exact[b]! - alloc[b]!) - (exact[a]! - alloc[a]!) || a - b);
+  for (const h of order) if (left > 0 && alloc[h]! < strata[h]!.N) { alloc[h]!++; left--; }
   for (let h = 0; h < strata.length; h++) {
-    while (alloc[h] < Math.min(2, strata[h].N)) {
-      const donor = alloc.map((_, j) => j).filter((j) => alloc[j] > Math.min(2, strata[j].N))
-        .sort((a, b) => (alloc[b] - exact[b]) - (alloc[a] - exact[a]) || alloc[b] - alloc[a])[0];
-      alloc[h]++;
-      alloc[donor]--;
+    while (alloc[h]! < Math.min(2, strata[h]!.N)) {
+      const donor = alloc.map((_, j) => j).filter((j) => alloc[j]! > Math.min(2, strata[j]!.N))
+        .sort((a, b) => (alloc[b]! - exact[b]!) - (alloc[a]! - exact[a]!) || alloc[b]! - alloc[a]!)[0];
+      alloc[h]!++;
+      if (donor !== undefined) alloc[donor]!--;
     }
   }
   return alloc;
@@ -65,7 +66,7 @@ function roundAllocation(strata: Parsed[], exact: number[], n: number): number[]
 
 function standardError(strata: Parsed[], sizes: number[]): number {
   let v = 0;
-  strata.forEach(({ N, S }, h) => { if (sizes[h] > 0) v += N * N * (1 - sizes[h] / N) * S * S / sizes[h]; });
+  strata.forEach(({ N, S }, h) => { if (sizes[h]! > 0) v += N * N * (1 - sizes[h]! / N) * S * S / sizes[h]!; });
   return Math.sqrt(v);
 }
 
@@ -118,7 +119,7 @@ export function stratifiedSampleSize(o: {
   const strata = parse(o.strata);
   const allowance = requirePositive("plannedAllowance", o.plannedAllowance);
   const confidence = requireOpenFraction("confidence", o.confidence);
-  if (o.sides !== undefined && o.sides !== "two" && o.sides !== "one") throw new RangeError(`sides must be "two" or "one" (got ${String(o.sides)})`);
+  if (o.sides !== undefined && o.sides !== "two" && o.sides !== "one") throw new EngineInputError("sides", `sides must be "two" or "one" (got ${String(o.sides)})`);
   const z = normalQuantile(o.sides === "one" ? confidence : (1 + confidence) / 2);
   const targetSe = allowance / z;
   const sumNS = strata.reduce((sum, s) => sum + s.N * s.S, 0);

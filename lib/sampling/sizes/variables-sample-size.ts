@@ -3,6 +3,7 @@
  */
 import { normalQuantile } from "../quantiles";
 import { requireFiniteNumber, requireInteger, requireObject, requireOpenFraction, requirePositive } from "../validate";
+import { EngineInputError } from "../errors";
 
 /**
  * Mean-per-unit sample size with planned allowance for sampling risk (AICPA Audit Guide
@@ -36,7 +37,7 @@ export function variablesSampleSize(o: {
   const tolerable = requirePositive("tolerableMisstatement", o.tolerableMisstatement);
   const expected = o.expectedMisstatement === undefined ? 0 : requireFiniteNumber("expectedMisstatement", o.expectedMisstatement);
   if (expected < 0 || expected >= tolerable) {
-    throw new RangeError(`expectedMisstatement must be at least 0 and below tolerableMisstatement (${tolerable}) (got ${expected})`);
+    throw new EngineInputError("expectedMisstatement", `expectedMisstatement must be at least 0 and below tolerableMisstatement (${tolerable}) (got ${expected})`);
   }
   const ria = requireOpenFraction("riskOfIncorrectAcceptance", o.riskOfIncorrectAcceptance);
   const rir = requireOpenFraction("riskOfIncorrectRejection", o.riskOfIncorrectRejection);

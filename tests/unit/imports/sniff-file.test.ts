@@ -71,10 +71,10 @@ describe("sniffFile", () => {
     expect(big.message).toBe("The file is 3.0 MB; the largest upload accepted is 2.0 MB.");
   });
 
-  it("answers with the status and reason through toResponse()", async () => {
+  it("answers with the status, and the reason as its code, through toResponse()", async () => {
     const error = await refusal(inspectUpload(write("blank-lines.csv", "\n,,\n\n")));
     const response = error.toResponse();
     expect(response.status).toBe(422);
-    expect(await response.json()).toEqual({ error: { reason: "empty-file", message: "The file has no rows with values." } });
+    expect(await response.json()).toEqual({ error: { code: "empty-file", message: "The file has no rows with values." } });
   });
 });
