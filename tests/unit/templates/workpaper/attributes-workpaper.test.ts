@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { attributesFixture } from "@/templates/workpaper/fixtures";
+import { attributesFixture } from "@/tests/support/workpaper";
 import type { AttributesEvaluationBlock } from "@/templates/workpaper/workpaper-data";
 import { expectCommonContent, expectDraftState } from "./expect-workpaper";
 import { previewPngs, renderAndRead, squash } from "./pdf-support";

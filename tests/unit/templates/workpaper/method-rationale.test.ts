@@ -3,7 +3,7 @@ import { createRng } from "@/lib/sampling";
 import { runAdvisorJob } from "@/lib/advisor/compute";
 import { methodRationaleBlock } from "@/lib/advisor/describe";
 import type { AdvisorRunRecord } from "@/lib/data/advisor-runs";
-import { variablesFixture } from "@/templates/workpaper/fixtures";
+import { variablesFixture } from "@/tests/support/workpaper";
 import { formatMoney } from "@/templates/workpaper/format";
 import { renderAndRead, squash } from "./pdf-support";
 

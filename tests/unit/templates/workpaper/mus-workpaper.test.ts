@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { evaluateMus } from "@/lib/sampling";
-import { musFixture } from "@/templates/workpaper/fixtures";
+import { musFixture } from "@/tests/support/workpaper";
 import { formatMoney } from "@/templates/workpaper/format";
 import type { MusEvaluationBlock } from "@/templates/workpaper/workpaper-data";
 import { expectCommonContent, expectDraftState } from "./expect-workpaper";

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { stratifiedFixture } from "@/templates/workpaper/fixtures";
+import { stratifiedFixture } from "@/tests/support/workpaper";
 import { formatMoney } from "@/templates/workpaper/format";
 import type { StratifiedEvaluationBlock } from "@/templates/workpaper/workpaper-data";
 import { expectCommonContent, expectDraftState } from "./expect-workpaper";

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { evaluateVariables } from "@/lib/sampling";
-import { variablesFixture } from "@/templates/workpaper/fixtures";
+import { variablesFixture } from "@/tests/support/workpaper";
 import { formatMoney } from "@/templates/workpaper/format";
 import type { VariablesEvaluationBlock } from "@/templates/workpaper/workpaper-data";
 import { expectCommonContent, expectDraftState } from "./expect-workpaper";
