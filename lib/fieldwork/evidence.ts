@@ -8,7 +8,7 @@ import { getItemById } from "@/lib/data/sample-items";
 import { AppError, notFound } from "@/lib/errors";
 import { putObjectBytes } from "@/lib/storage/objects";
 import { beginSampleWrite } from "@/lib/samples/guard";
-import { sniffEvidence } from "./evidence-sniff";
+import { sniffEvidence } from "@/lib/files/sniff-evidence";
 
 /** Largest evidence file accepted. */
 export const MAX_EVIDENCE_BYTES = 25 * 1024 * 1024;
@@ -68,7 +68,7 @@ const auditView = (e: EvidenceRecord) => ({ sampleItemId: e.sampleItemId, fileNa
  * transaction. A locked sample refuses it (409) and a signed-off one loses its sign-offs (beginSampleWrite).
  */
 export async function addItemEvidence(db: Knex, a: { engagementId: number; sampleId: number; itemId: number; actorId: number; fileName: string; bytes: Buffer }): Promise<EvidenceRecord> {
-  const sniff = sniffEvidence(a.bytes, a.fileName);
+  const sniff = await sniffEvidence(a.bytes, a.fileName);
   if (!sniff.ok) throw new AppError(415, "unsupported_evidence_type", sniff.reason);
   const sha256 = createHash("sha256").update(a.bytes).digest("hex");
   const objectKey = `engagements/${a.engagementId}/samples/${a.sampleId}/items/${a.itemId}/evidence/${sha256}-${randomUUID()}`;

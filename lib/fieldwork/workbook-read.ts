@@ -4,7 +4,7 @@ import { AppError } from "@/lib/errors";
 import { unescapeCellText } from "./cell-text";
 import { columnsFor, ITEMS_SHEET, type ColumnKey, type WorkbookKind } from "./workbook-layout";
 import { WorkbookProblemsError } from "./workbook-problems";
-import { zipEntryNames } from "./zip-names";
+import { zipEntryNames } from "@/lib/files/zip";
 
 export type SheetCell =
   | { kind: "empty" }
@@ -35,15 +35,15 @@ export function toSheetCell(value: ExcelJS.CellValue): SheetCell {
 }
 
 /** Refuses anything that is not an .xlsx by its content (zip magic and a workbook part), whatever its name. */
-export function assertXlsxContent(bytes: Uint8Array) {
-  const names = zipEntryNames(bytes);
+export async function assertXlsxContent(bytes: Uint8Array): Promise<void> {
+  const names = await zipEntryNames(bytes);
   if (!names) throw new AppError(415, "not_a_workbook", "The file is not an Excel workbook (.xlsx): its content is not a zip package. Import the workbook exported from Sondage.");
   if (!names.includes("xl/workbook.xml")) throw new AppError(415, "not_a_workbook", "The file is a zip archive but not an Excel workbook (.xlsx). Import the workbook exported from Sondage.");
 }
 
 /** Reads the Items sheet of a fieldwork workbook: its columns found by header, each non-empty row's cells. */
 export async function readItemsSheet(bytes: Buffer, kind: WorkbookKind): Promise<ItemsSheet> {
-  assertXlsxContent(bytes);
+  await assertXlsxContent(bytes);
   const wb = new ExcelJS.Workbook();
   try {
     await wb.xlsx.load(bytes as unknown as ArrayBuffer);

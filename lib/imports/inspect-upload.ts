@@ -10,7 +10,7 @@ import { detectNumberFormat } from "./number-format";
 import { sniffFile, type TextEncoding } from "./sniff-file";
 import { cellText } from "./source-row";
 import { readWorkbookInfo } from "./xlsx-sheets";
-import { listZipEntries } from "./zip-directory";
+import { listZipEntries } from "@/lib/files/zip";
 import { assertEntriesWithinLimits, assertZipInflationWithinLimits } from "./zip-limits";
 import { readXlsxHeadRows } from "./xlsx-fast-rows";
 import { XLSX_BATCH_ROWS, readXlsxRows } from "./xlsx-rows";

@@ -1,5 +1,6 @@
 import "server-only";
 import { open } from "node:fs/promises";
+import { magicFormat, startsWithBytes } from "@/lib/files/magic";
 import { ImportError } from "./import-error";
 import { SNIFF_BYTES, type ImportLimits } from "./limits";
 import { hasWorkbookPart } from "./xlsx-sheets";
@@ -7,8 +8,6 @@ import { hasWorkbookPart } from "./xlsx-sheets";
 export type TextEncoding = "utf-8" | "utf-8-bom" | "windows-1252";
 export type FileSniff = { kind: "xlsx"; size: number } | { kind: "csv"; encoding: TextEncoding; size: number };
 
-const ZIP_MAGIC = [0x50, 0x4b, 0x03, 0x04]; // "PK\x03\x04", PKWARE APPNOTE.TXT 4.3.7
-const OLE_MAGIC = [0xd0, 0xcf, 0x11, 0xe0, 0xa1, 0xb1, 0x1a, 0xe1]; // Excel 97-2003 .xls container
 // Bytes with no character in code page 1252 (unicode.org MAPPINGS/VENDORS/MICSFT/WINDOWS/CP1252.TXT:
 // 0x81, 0x8D, 0x8F, 0x90, 0x9D are UNDEFINED); a file holding them is neither UTF-8 nor Windows-1252.
 const UNDEFINED_IN_1252 = new Set([0x81, 0x8d, 0x8f, 0x90, 0x9d]);
@@ -16,10 +15,6 @@ const UNDEFINED_IN_1252 = new Set([0x81, 0x8d, 0x8f, 0x90, 0x9d]);
 export function formatMegabytes(bytes: number): string {
   const mb = bytes / (1024 * 1024);
   return `${mb >= 10 ? Math.round(mb) : mb.toFixed(1)} MB`;
-}
-
-function startsWith(bytes: Uint8Array, magic: number[]): boolean {
-  return magic.every((byte, i) => bytes[i] === byte);
 }
 
 /**
@@ -44,11 +39,12 @@ export async function sniffFile(filePath: string, limits: Pick<ImportLimits, "ma
   } finally {
     await handle.close();
   }
-  if (startsWith(head, ZIP_MAGIC)) {
+  const format = magicFormat(head);
+  if (format === "zip") {
     if (await hasWorkbookPart(filePath)) return { kind: "xlsx", size };
     throw new ImportError("not-a-workbook", "The file is a zip archive but not an Excel workbook (.xlsx). Upload an .xlsx or a CSV file.");
   }
-  if (startsWith(head, OLE_MAGIC)) {
+  if (format === "cfb") { // the Excel 97-2003 .xls container
     throw new ImportError("unsupported-format", "The file is in the old Excel 97-2003 (.xls) format. Save it as .xlsx or as CSV UTF-8 and upload again.");
   }
   return { kind: "csv", encoding: detectTextEncoding(head, size > head.length), size };
@@ -56,14 +52,14 @@ export async function sniffFile(filePath: string, limits: Pick<ImportLimits, "ma
 
 /** Encoding of a text file's first bytes; `truncated` when more of the file follows. */
 export function detectTextEncoding(head: Uint8Array, truncated: boolean): TextEncoding {
-  if (startsWith(head, [0xff, 0xfe]) || startsWith(head, [0xfe, 0xff])) {
+  if (startsWithBytes(head, [0xff, 0xfe]) || startsWithBytes(head, [0xfe, 0xff])) {
     throw new ImportError("unsupported-encoding", "The file is encoded as UTF-16 (or UTF-32), which is not supported. Save it as CSV UTF-8 and upload again.");
   }
-  if (startsWith(head, [0, 0, 0xfe, 0xff])) {
+  if (startsWithBytes(head, [0, 0, 0xfe, 0xff])) {
     throw new ImportError("unsupported-encoding", "The file is encoded as UTF-32, which is not supported. Save it as CSV UTF-8 and upload again.");
   }
   rejectBinary(head);
-  const hasBom = startsWith(head, [0xef, 0xbb, 0xbf]);
+  const hasBom = startsWithBytes(head, [0xef, 0xbb, 0xbf]);
   try {
     new TextDecoder("utf-8", { fatal: true }).decode(head, { stream: truncated });
     return hasBom ? "utf-8-bom" : "utf-8";

@@ -1,6 +1,5 @@
 import "server-only";
-import type { ZipEntry } from "./zip-directory";
-import { listZipEntries } from "./zip-directory";
+import { listZipEntries, type ZipEntry } from "@/lib/files/zip";
 import { streamZipEntryText } from "./zip-entry-stream";
 import { UnsupportedXlsxError, XmlTokenizer, type XmlToken } from "./xml-tokens";
 

@@ -1,5 +1,5 @@
 import "server-only";
-import type { ZipEntry } from "./zip-directory";
+import type { ZipEntry } from "@/lib/files/zip";
 import { xmlTokens } from "./xlsx-parts";
 import { UnsupportedXlsxError } from "./xml-tokens";
 

@@ -1,5 +1,6 @@
 import "server-only";
-import { listZipEntries, readZipEntry } from "./zip-directory";
+import { listZipEntries } from "@/lib/files/zip";
+import { readZipEntry } from "./zip-entry-stream";
 
 const WORKBOOK_PART = "xl/workbook.xml";
 

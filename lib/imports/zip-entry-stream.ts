@@ -1,60 +1,49 @@
 import "server-only";
-import { createReadStream } from "node:fs";
-import { open } from "node:fs/promises";
 import { StringDecoder } from "node:string_decoder";
-import { createInflateRaw } from "node:zlib";
-import type { ZipEntry } from "./zip-directory";
+import { zipEntryChunks, type ZipEntry } from "@/lib/files/zip";
+import { ImportError } from "./import-error";
 import { UnsupportedXlsxError } from "./xml-tokens";
 import { assertInflationWithinLimits } from "./zip-limits";
 
-const LOCAL_SIGNATURE = 0x04034b50; // PKWARE APPNOTE.TXT 6.3, 4.3.7 local file header
-const ZIP64_MARK = 0xffffffff;
-
-export async function dataStart(filePath: string, entry: ZipEntry): Promise<number> {
-  const handle = await open(filePath, "r");
-  try {
-    const header = Buffer.alloc(30);
-    const { bytesRead } = await handle.read(header, 0, 30, entry.localHeaderOffset);
-    if (bytesRead < 30 || header.readUInt32LE(0) !== LOCAL_SIGNATURE) throw new UnsupportedXlsxError(`${entry.name}: no local header`);
-    return entry.localHeaderOffset + 30 + header.readUInt16LE(26) + header.readUInt16LE(28);
-  } finally {
-    await handle.close();
-  }
-}
+const STORED = 0;
+const DEFLATED = 8; // PKWARE APPNOTE.TXT 4.4.5: the only methods a workbook uses
 
 /**
  * Streams one zip entry as UTF-8 text, inflating only as much as the caller reads: stop the
- * loop and the file stream and the inflater are released. Zip64 and methods other than stored
- * (0) and deflate (8) are refused as unsupported.
+ * loop and the archive is released. Methods other than stored and deflate are refused as
+ * unsupported; what the entry really inflates to is held to the caps (its declared size can lie).
  */
 export async function* streamZipEntryText(filePath: string, entry: ZipEntry): AsyncGenerator<string> {
-  if (entry.compressedSize === ZIP64_MARK || entry.size === ZIP64_MARK || entry.localHeaderOffset === ZIP64_MARK) {
-    throw new UnsupportedXlsxError(`${entry.name}: zip64`);
-  }
-  if (entry.method !== 0 && entry.method !== 8) throw new UnsupportedXlsxError(`${entry.name}: compression method ${entry.method}`);
-  const start = await dataStart(filePath, entry);
+  if (entry.method !== STORED && entry.method !== DEFLATED) throw new UnsupportedXlsxError(`${entry.name}: compression method ${entry.method}`);
   if (entry.compressedSize === 0) return;
-  const file = createReadStream(filePath, { start, end: start + entry.compressedSize - 1, highWaterMark: 64 * 1024 });
-  const source = entry.method === 8 ? file.pipe(createInflateRaw({ chunkSize: 64 * 1024 })) : file;
   const decoder = new StringDecoder("utf8");
   let first = true;
   let inflated = 0;
-  try {
-    for await (const chunk of source as AsyncIterable<Buffer>) {
-      // The declared size can lie: count what really comes out of the inflater.
-      inflated += chunk.length;
-      assertInflationWithinLimits(entry.name, inflated, entry.compressedSize);
-      let text = decoder.write(chunk);
-      if (first) {
-        text = text.replace(/^\uFEFF/, "");
-        first = false;
-      }
-      if (text) yield text;
+  for await (const chunk of zipEntryChunks(filePath, entry)) {
+    inflated += chunk.length;
+    assertInflationWithinLimits(entry.name, inflated, entry.compressedSize);
+    let text = decoder.write(chunk);
+    if (first) {
+      text = text.replace(/^\uFEFF/, "");
+      first = false;
     }
-    const tail = decoder.end();
-    if (tail) yield tail;
-  } finally {
-    file.destroy();
-    if (source !== file) source.destroy();
+    if (text) yield text;
   }
+  const tail = decoder.end();
+  if (tail) yield tail;
+}
+
+/** Reads one (small) stored or deflated entry in full; one that inflates past `maxBytes` is refused as a likely zip bomb. */
+export async function readZipEntry(filePath: string, entry: ZipEntry, maxBytes = 32 * 1024 * 1024): Promise<Buffer> {
+  if (entry.size > maxBytes) throw new RangeError(`zip entry ${entry.name} is larger than ${maxBytes} bytes`);
+  if (entry.method !== STORED && entry.method !== DEFLATED) throw new RangeError(`zip entry ${entry.name} uses unsupported compression method ${entry.method}`);
+  const chunks: Buffer[] = [];
+  let size = 0;
+  for await (const chunk of zipEntryChunks(filePath, entry)) {
+    size += chunk.length;
+    // The declared size lied: the part inflates past what we read in full.
+    if (size > maxBytes) throw new ImportError("file-too-large", `The workbook part ${entry.name} expands to more than ${maxBytes / 1024 / 1024} MB; it is refused as a likely zip bomb.`);
+    chunks.push(chunk);
+  }
+  return Buffer.concat(chunks, size);
 }

@@ -1,9 +1,6 @@
 import "server-only";
-import { createReadStream } from "node:fs";
-import { createInflateRaw } from "node:zlib";
+import { zipEntryChunks, type ZipEntry } from "@/lib/files/zip";
 import { ImportError } from "./import-error";
-import { dataStart } from "./zip-entry-stream";
-import type { ZipEntry } from "./zip-directory";
 
 /** No part of a workbook we read may inflate past 1 GiB (a 1,000,000-row ledger sheet is about 250 MB of XML). */
 export const MAX_INFLATED_PART_BYTES = 1024 * 1024 * 1024;
@@ -39,21 +36,15 @@ export function assertEntriesWithinLimits(entries: readonly ZipEntry[]): void {
 export async function assertZipInflationWithinLimits(filePath: string, entries: readonly ZipEntry[]): Promise<void> {
   for (const entry of entries) {
     if (entry.method !== 8 || entry.compressedSize === 0) continue;
-    const start = await dataStart(filePath, entry);
-    const file = createReadStream(filePath, { start, end: start + entry.compressedSize - 1, highWaterMark: 256 * 1024 });
-    const inflater = file.pipe(createInflateRaw({ chunkSize: 256 * 1024 }));
     let inflated = 0;
     try {
-      for await (const chunk of inflater as AsyncIterable<Buffer>) {
+      for await (const chunk of zipEntryChunks(filePath, entry)) {
         inflated += chunk.length;
         assertInflationWithinLimits(entry.name, inflated, entry.compressedSize);
       }
     } catch (err) {
       if (err instanceof ImportError) throw err;
       throw new ImportError("unreadable-file", `The workbook part ${entry.name} could not be read: ${err instanceof Error ? err.message : String(err)}`);
-    } finally {
-      file.destroy();
-      inflater.destroy();
     }
   }
 }

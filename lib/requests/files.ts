@@ -4,7 +4,7 @@ import type { Knex } from "knex";
 import { recordAudit } from "@/lib/data/audit-log";
 import { AppError, conflict } from "@/lib/errors";
 import { insertEvidenceRow } from "@/lib/fieldwork/evidence";
-import { sniffEvidence } from "@/lib/fieldwork/evidence-sniff";
+import { sniffEvidence } from "@/lib/files/sniff-evidence";
 import { assertSampleUnlocked, beginSampleWrite } from "@/lib/samples/guard";
 import { putObjectBytes } from "@/lib/storage/objects";
 import { closedListError, type RequestListRow } from "./lists";
@@ -23,7 +23,7 @@ async function assertListOpen(trx: Knex.Transaction, list: RequestListRow) {
  * refused), stored, and the item becomes "provided". A closed list or a locked sample answers 409.
  */
 export async function addClientFile(db: Knex, a: { list: RequestListRow; requestItemId: number; actorId: number; fileName: string; bytes: Buffer }) {
-  const sniff = sniffEvidence(a.bytes, a.fileName);
+  const sniff = await sniffEvidence(a.bytes, a.fileName);
   if (!sniff.ok) throw new AppError(415, "unsupported_evidence_type", sniff.reason);
   const sha256 = createHash("sha256").update(a.bytes).digest("hex");
   const key = `engagements/${a.list.engagementId}/samples/${a.list.sampleId}/requests/${a.list.id}/items/${a.requestItemId}/${sha256}-${randomUUID()}`;

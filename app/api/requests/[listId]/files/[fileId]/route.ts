@@ -1,7 +1,7 @@
 import { z } from "zod";
 import { withClientRequest } from "@/lib/auth/with-client";
 import { notFound } from "@/lib/errors";
-import { storedFileResponse } from "@/lib/fieldwork/download";
+import { storedFileResponse } from "@/lib/files/download";
 import { requestFileOf } from "@/lib/requests/route-helpers";
 
 /** A file of the client's own request list, exactly as they sent it. */

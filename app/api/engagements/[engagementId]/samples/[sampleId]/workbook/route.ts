@@ -3,7 +3,7 @@ import { uploadFileName } from "@/lib/validation/file-name";
 import { withEngagementRole, withEngagementRoleStreaming } from "@/lib/auth/with-role";
 import { buildFieldworkWorkbook } from "@/lib/fieldwork/workbook-export";
 import { importFieldworkWorkbook, MAX_WORKBOOK_BYTES } from "@/lib/fieldwork/workbook-import";
-import { readBodyBytes } from "@/lib/fieldwork/read-body";
+import { readBodyBytes } from "@/lib/files/read-body";
 import { sampleOf } from "@/lib/samples/route-helpers";
 
 const XLSX_TYPE = "application/vnd.openxmlformats-officedocument.spreadsheetml.sheet";

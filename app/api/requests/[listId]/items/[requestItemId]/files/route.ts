@@ -2,7 +2,7 @@ import { parseIdParam } from "@/lib/auth/access";
 import { withClientRequestStreaming } from "@/lib/auth/with-client";
 import { MAX_EVIDENCE_BYTES } from "@/lib/fieldwork/evidence";
 import { EvidenceUploadQuerySchema } from "@/lib/fieldwork/evidence-schemas";
-import { readBodyBytes } from "@/lib/fieldwork/read-body";
+import { readBodyBytes } from "@/lib/files/read-body";
 import { addClientFile } from "@/lib/requests/files";
 
 /** One file per call (the raw body, `?fileName=`), with the same types and size limit as evidence; the page sends several in turn. */

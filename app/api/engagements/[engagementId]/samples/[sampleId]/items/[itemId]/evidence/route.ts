@@ -3,7 +3,7 @@ import { parseIdParam } from "@/lib/auth/access";
 import { assertMayWriteEvidence } from "@/lib/fieldwork/evidence-access";
 import { addItemEvidence, getItemOfSample, listEvidenceByItemId, MAX_EVIDENCE_BYTES, publicEvidence } from "@/lib/fieldwork/evidence";
 import { EvidenceListQuerySchema, EvidenceUploadQuerySchema } from "@/lib/fieldwork/evidence-schemas";
-import { readBodyBytes } from "@/lib/fieldwork/read-body";
+import { readBodyBytes } from "@/lib/files/read-body";
 import { sampleOf } from "@/lib/samples/route-helpers";
 
 export const GET = withEngagementRole(EvidenceListQuerySchema, "viewer", async ({ includeDeleted }, ctx) => {

@@ -3,7 +3,7 @@ import { withEngagementRole } from "@/lib/auth/with-role";
 import { parseIdParam } from "@/lib/auth/access";
 import { assertMayWriteEvidence } from "@/lib/fieldwork/evidence-access";
 import { deleteItemEvidence, getEvidenceById, getItemOfSample } from "@/lib/fieldwork/evidence";
-import { storedFileResponse } from "@/lib/fieldwork/download";
+import { storedFileResponse } from "@/lib/files/download";
 import { sampleOf } from "@/lib/samples/route-helpers";
 
 /** The file exactly as uploaded, always as an attachment that the browser must not sniff. */

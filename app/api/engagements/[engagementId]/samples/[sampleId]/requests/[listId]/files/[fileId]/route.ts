@@ -1,7 +1,7 @@
 import { z } from "zod";
 import { withEngagementRole } from "@/lib/auth/with-role";
 import { notFound } from "@/lib/errors";
-import { storedFileResponse } from "@/lib/fieldwork/download";
+import { storedFileResponse } from "@/lib/files/download";
 import { listOf, requestFileOf } from "@/lib/requests/route-helpers";
 
 /** A file the client uploaded, exactly as stored. */

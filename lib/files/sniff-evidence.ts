@@ -1,6 +1,7 @@
 import "server-only";
-import { CFB_MAGIC, cfbEntryNames } from "./cfb-names";
-import { startsWithBytes, ZIP_MAGIC, zipEntryNames } from "./zip-names";
+import { cfbEntryNames } from "./cfb-names";
+import { knownRefusedFormat, magicFormat } from "./magic";
+import { zipEntryNames } from "./zip";
 
 export type EvidenceKind = "pdf" | "png" | "jpeg" | "gif" | "webp" | "tiff" | "xlsx" | "docx" | "xls" | "doc" | "msg" | "eml" | "csv" | "text";
 export type EvidenceSniff = { ok: true; kind: EvidenceKind; contentType: string; label: string } | { ok: false; reason: string };
@@ -24,39 +25,21 @@ const TYPES: Record<EvidenceKind, [string, string]> = {
   text: ["text/plain; charset=utf-8", "Plain text"],
 };
 
-const ascii = (s: string) => [...s].map((c) => c.charCodeAt(0));
 const accept = (kind: EvidenceKind): EvidenceSniff => ({ ok: true, kind, contentType: TYPES[kind][0], label: TYPES[kind][1] });
 const refuse = (why: string): EvidenceSniff => ({ ok: false, reason: `${why} Accepted evidence: ${ACCEPTED_EVIDENCE}.` });
-
-// Magic numbers, each from its format's own specification.
-const MAGIC: [EvidenceKind, number[][], number?][] = [
-  ["pdf", [ascii("%PDF-")]], //                                ISO 32000-1:2008 §7.5.2 "File Header"
-  ["png", [[0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]]], // PNG (W3C / ISO/IEC 15948) §5.2 "PNG signature"
-  ["jpeg", [[0xff, 0xd8, 0xff]]], //                           ISO/IEC 10918-1 Annex B: SOI marker FFD8, then a marker
-  ["gif", [ascii("GIF87a"), ascii("GIF89a")]], //              GIF89a specification §17 "Header"
-  ["tiff", [[0x49, 0x49, 0x2a, 0x00], [0x4d, 0x4d, 0x00, 0x2a]]], // TIFF 6.0 §2 "Image File Header" (II*\0, MM\0*)
-];
-
-// Recognised only to name them in the refusal.
-const KNOWN_REFUSED: [number[], string][] = [
-  [ascii("MZ"), "a Windows program"],
-  [[0x7f, 0x45, 0x4c, 0x46], "a Linux program"],
-  [[0x1f, 0x8b], "a gzip archive"],
-  [ascii("Rar!"), "a RAR archive"],
-  [[0x37, 0x7a, 0xbc, 0xaf, 0x27, 0x1c], "a 7-Zip archive"],
-];
 
 /**
  * What an evidence file is, from its bytes alone (the name only tells CSV from plain text, both
  * text): the accepted kinds with their content type, or the reason it is refused.
  */
-export function sniffEvidence(bytes: Uint8Array, fileName = ""): EvidenceSniff {
+export async function sniffEvidence(bytes: Uint8Array, fileName = ""): Promise<EvidenceSniff> {
   if (bytes.length === 0) return refuse("The file is empty.");
-  for (const [kind, magics] of MAGIC) if (magics.some((m) => startsWithBytes(bytes, m))) return accept(kind);
-  if (startsWithBytes(bytes, ascii("RIFF")) && startsWithBytes(bytes, ascii("WEBP"), 8)) return accept("webp"); // RFC 9649 §2.5 RIFF header
-  if (startsWithBytes(bytes, ZIP_MAGIC)) return sniffOfficeOpenXml(bytes);
-  if (startsWithBytes(bytes, CFB_MAGIC)) return sniffCompoundFile(bytes);
-  for (const [magic, what] of KNOWN_REFUSED) if (startsWithBytes(bytes, magic)) return refuse(`The file is ${what}, whatever its name.`);
+  const format = magicFormat(bytes);
+  if (format === "zip") return sniffOfficeOpenXml(bytes);
+  if (format === "cfb") return sniffCompoundFile(bytes);
+  if (format) return accept(format);
+  const refused = knownRefusedFormat(bytes);
+  if (refused) return refuse(`The file is ${refused}, whatever its name.`);
   // Header fields are US-ASCII (RFC 5322 §2.2); a message body may hold 8-bit text in any charset.
   if (looksLikeEmail(new TextDecoder("latin1").decode(bytes.subarray(0, 65536)))) return accept("eml");
   const text = decodeText(bytes);
@@ -66,8 +49,8 @@ export function sniffEvidence(bytes: Uint8Array, fileName = ""): EvidenceSniff {
 }
 
 /** ECMA-376 Part 2 (Open Packaging Conventions): a zip with [Content_Types].xml and the main part of its kind. */
-function sniffOfficeOpenXml(bytes: Uint8Array): EvidenceSniff {
-  const names = zipEntryNames(bytes);
+async function sniffOfficeOpenXml(bytes: Uint8Array): Promise<EvidenceSniff> {
+  const names = await zipEntryNames(bytes);
   if (!names) return refuse("The file starts like a zip archive but its directory cannot be read (truncated or damaged?).");
   const has = (n: string) => names.includes(n);
   if (!has("[Content_Types].xml")) return refuse("The file is a zip archive, not an Office document; upload the files inside it one by one.");

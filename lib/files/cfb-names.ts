@@ -1,8 +1,8 @@
 import "server-only";
+import { CFB_MAGIC } from "./magic";
 
 // [MS-CFB] Compound File Binary File Format: header signature (2.2), FAT and DIFAT sectors
 // (2.3, 2.5), directory entries of 128 bytes (2.6). The container of legacy .xls, .doc and .msg.
-export const CFB_MAGIC = [0xd0, 0xcf, 0x11, 0xe0, 0xa1, 0xb1, 0x1a, 0xe1];
 const ENDOFCHAIN = 0xfffffffe;
 const MAX_REGULAR_SECTOR = 0xfffffffa;
 const HEADER_DIFAT_ENTRIES = 109;
