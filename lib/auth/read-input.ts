@@ -1,5 +1,6 @@
 import "server-only";
 import { AppError } from "@/lib/errors";
+import { readCappedBody } from "@/lib/files/read-body";
 
 /** The largest JSON body any route takes (the biggest real one, a sample plan, is a few kB). */
 export const MAX_JSON_BODY_BYTES = 256 * 1024;
@@ -9,23 +10,8 @@ export const MAX_JSON_DEPTH = 32;
 const tooLarge = () => new AppError(413, "body_too_large", `body: the request body is over ${MAX_JSON_BODY_BYTES / 1024} kB`, { body: ["Too large"] });
 
 async function readCappedText(req: Request): Promise<string> {
-  const declared = Number(req.headers.get("content-length") ?? "0");
-  if (declared > MAX_JSON_BODY_BYTES) throw tooLarge();
-  if (!req.body) return "";
-  const reader = req.body.getReader();
-  const chunks: Uint8Array[] = [];
-  let size = 0;
-  for (;;) {
-    const { done, value } = await reader.read();
-    if (done) break;
-    size += value.byteLength;
-    if (size > MAX_JSON_BODY_BYTES) {
-      await reader.cancel();
-      throw tooLarge();
-    }
-    chunks.push(value);
-  }
-  return new TextDecoder("utf-8", { fatal: false }).decode(Buffer.concat(chunks));
+  const body = await readCappedBody(req, MAX_JSON_BODY_BYTES, tooLarge);
+  return body ? new TextDecoder("utf-8", { fatal: false }).decode(body) : "";
 }
 
 /** Nesting depth of a JSON text, counted on the brackets outside strings (no recursion). */
