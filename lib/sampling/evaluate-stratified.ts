@@ -2,13 +2,24 @@
  * Stratified classical variables evaluation: variances add across independent strata.
  */
 import { pairedMoments, type PairedMoments } from "./descriptive";
-import { boundsFrom, fewMisstatementsWarning, MIN_MISSTATEMENTS, zFor } from "./evaluate-variables";
+import { boundsFrom, distributionOption, fewMisstatementsWarning, MIN_MISSTATEMENTS, SMALL_SAMPLE, smallSampleWarning, zFor } from "./evaluate-variables";
 import { toCents } from "./money";
 import { sampleToCents } from "./sample-input";
-import { SIDES, STRATIFIED_ESTIMATORS, type SampledItem, type Sides, type StratifiedEstimator, type VariablesEvaluation } from "./types";
+import { SIDES, STRATIFIED_ESTIMATORS, type ClassicalDistribution, type SampledItem, type Sides, type StratifiedEstimator, type VariablesEvaluation } from "./types";
 import { estimateTotal } from "./variables-core";
 import { requireArray, requireInteger, requireObject, requireOneOf, requireOpenFraction } from "./validate";
 import { EngineInputError } from "./errors";
+
+/** Common practice: a stratum with fewer sampled items than this gets a warning. */
+export const SMALL_STRATUM = 10;
+
+/** Satterthwaite's effective degrees of freedom of a sum of independent variance estimates. */
+export function satterthwaite(parts: { variance: number; n: number }[]): number {
+  const total = parts.reduce((sum, p) => sum + p.variance, 0);
+  const denominator = parts.reduce((sum, p) => sum + (p.variance * p.variance) / (p.n - 1), 0);
+  if (!(denominator > 0)) return parts.reduce((sum, p) => sum + p.n - 1, 0);
+  return (total * total) / denominator;
+}
 
 export interface StratumInput {
   populationSize: number;
@@ -57,7 +68,11 @@ function combinedRatio(strata: ParsedStratum[], totalBook: number): { estimate: 
  * - separate-ratio: Y = Σ (ȳ_h / x̄_h) X_h; v = Σ of each stratum's ratio variance ("N form")
  * - combined-ratio: R_c = Σ N_h ȳ_h / Σ N_h x̄_h; Y = R_c X;
  *   v = Σ N_h² (1 − f_h) / n_h · s²(y − R_c x)_h
- * Bounds and z as in `evaluateVariables`. Every stratum needs n_h >= 2.
+ * Bounds and z as in `evaluateVariables`. Every stratum needs n_h >= 2. With distribution "t" the
+ * coefficient is Student's t with Satterthwaite's effective degrees of freedom
+ * ν = (Σ v_h)² / Σ (v_h² / (n_h − 1)), v_h the stratum's variance contribution (Satterthwaite,
+ * Biometrics Bulletin 2, 1946; Cochran 1977 §5.4, from memory for the section). Warns when n < 30
+ * or any stratum has n_h < 10, naming the stratum.
  *
  * @throws {TypeError} when a field has the wrong type.
  * @throws {RangeError} naming `strata[h].field` for an invalid stratum, or the option at fault.
@@ -70,12 +85,14 @@ export function evaluateStratified(o: {
   strata: StratumInput[];
   confidence: number;
   sides: Sides;
+  distribution?: ClassicalDistribution;
 }): VariablesEvaluation & { strata: { estimatedAuditedValue: number; standardError: number }[] } {
   requireObject("options", o);
   const estimator = requireOneOf("estimator", o.estimator, STRATIFIED_ESTIMATORS);
   const strata = parseStrata(o.strata);
   const confidence = requireOpenFraction("confidence", o.confidence);
   const sides = requireOneOf("sides", o.sides, SIDES);
+  const distribution = distributionOption(o.distribution);
   const totalBook = strata.reduce((sum, s) => sum + s.bookCents, 0);
   if (!Number.isSafeInteger(totalBook)) throw new EngineInputError("strata", "strata populationBookValue total exceeds the exact range in cents");
 
@@ -93,10 +110,16 @@ export function evaluateStratified(o: {
     pooled = { estimate, variance, perStratum };
   }
 
-  const z = zFor(confidence, sides);
+  const degreesOfFreedom = satterthwaite(pooled.perStratum.map((s, h) => ({ variance: s.variance, n: strata[h].m.n })));
+  const z = zFor(confidence, sides, distribution === "t" ? degreesOfFreedom : null);
   const result = boundsFrom(pooled.estimate, pooled.variance, totalBook, z, sides);
   const misstatements = strata.reduce((sum, s) => sum + s.m.nonZeroDifferences, 0);
   const warnings: string[] = [];
+  const n = strata.reduce((sum, s) => sum + s.m.n, 0);
+  if (n < SMALL_SAMPLE) warnings.push(smallSampleWarning(n, distribution));
+  strata.forEach((s, h) => {
+    if (s.m.n < SMALL_STRATUM) warnings.push(`Stratum ${h + 1} has only ${s.m.n} sampled items: below ${SMALL_STRATUM} per stratum the normal approximation is weak (common practice).`);
+  });
   if (estimator !== "mean-per-unit" && misstatements < MIN_MISSTATEMENTS) warnings.push(fewMisstatementsWarning(estimator, misstatements));
   const smallStrata = strata.flatMap((s, h) => (s.m.n < MIN_MISSTATEMENTS ? [h + 1] : []));
   if (estimator === "separate-ratio" && smallStrata.length > 0) {
@@ -107,6 +130,8 @@ export function evaluateStratified(o: {
     misstatementsInSample: misstatements,
     warnings,
     zValue: z,
+    distribution,
+    degreesOfFreedom,
     strata: pooled.perStratum.map((s) => ({ estimatedAuditedValue: s.estimate / 100, standardError: Math.sqrt(s.variance) / 100 })),
   };
 }

@@ -21,3 +21,9 @@ export { simulateEstimators, type EstimatorPerformance, type HistogramBin } from
 export { simulateStringer, type StringerPerformance } from "./simulate-stringer";
 export { assumeAuditedValues, observedTaintings, TAINTING_PATTERNS, type MisstatementScenario, type TaintingPattern } from "./scenario";
 export { recommendEstimator, ADVISED_ESTIMATOR_LABELS, FEW_DIFFERENCES, type AdvisedEstimator, type AdvisorCell, type Recommendation, type Verdict } from "./advise";
+export { classicalDecision, type ClassicalDecision } from "./classical-decision";
+export { twoStageAttributePlan, evaluateTwoStageAttributes, twoStageRisk, type TwoStageAttributePlan, type TwoStageEvaluation } from "./two-stage-attributes";
+export { satterthwaite, SMALL_STRATUM } from "./evaluate-stratified";
+export { SMALL_SAMPLE } from "./evaluate-variables";
+export { studentQuantile } from "./quantiles";
+export type { TestDirection, ClassicalDistribution } from "./types";

@@ -34,6 +34,17 @@ export interface VariablesEvaluation {
   upperBound: number;
   misstatementsInSample: number;
   warnings: string[];
-  /** The normal quantile used for the allowance. */
+  /** The reliability coefficient used for the allowance: the normal quantile, or Student's t. */
   zValue: number;
+  distribution: "z" | "t";
+  /** n − 1 (regression n − 2; stratified: Satterthwaite's effective degrees of freedom). */
+  degreesOfFreedom: number;
 }
+
+/** The direction(s) of misstatement a substantive test is designed to detect. */
+export type TestDirection = "overstatement" | "understatement" | "both";
+export const TEST_DIRECTIONS: readonly TestDirection[] = ["overstatement", "understatement", "both"];
+
+/** Reliability coefficient of classical variables bounds: normal "z" (default) or Student "t". */
+export type ClassicalDistribution = "z" | "t";
+export const CLASSICAL_DISTRIBUTIONS: readonly ClassicalDistribution[] = ["z", "t"];

@@ -9,7 +9,8 @@ import { EngineInputError } from "../errors";
  * Mean-per-unit sample size with planned allowance for sampling risk (AICPA Audit Guide
  * "Audit Sampling", classical variables; the presentation is from memory, the algebra exact).
  *
- * z_a = two-sided normal quantile for the risk of incorrect rejection (z at 1 − RIR/2),
+ * z_a = normal quantile for the risk of incorrect rejection: two-sided (z at 1 − RIR/2) when both
+ *   directions are tested (`sides` "two", the default), one-sided (z at 1 − RIR) for one direction,
  * z_b = one-sided quantile for the risk of incorrect acceptance (z at 1 − RIA);
  * A = (TM − EM) · z_a / (z_a + z_b); n' = (N · z_a · SD / A)²; n = ceil(n' / (1 + n'/N)).
  *
@@ -30,6 +31,7 @@ export function variablesSampleSize(o: {
   expectedMisstatement?: number;
   riskOfIncorrectAcceptance: number;
   riskOfIncorrectRejection: number;
+  sides?: "two" | "one";
 }): { sampleSize: number; uncorrectedSampleSize: number; uncorrectedSampleSizeExact: number; plannedAllowance: number } {
   requireObject("options", o);
   const populationSize = requireInteger("populationSize", o.populationSize, 1, 2 ** 31 - 1);
@@ -41,7 +43,8 @@ export function variablesSampleSize(o: {
   }
   const ria = requireOpenFraction("riskOfIncorrectAcceptance", o.riskOfIncorrectAcceptance);
   const rir = requireOpenFraction("riskOfIncorrectRejection", o.riskOfIncorrectRejection);
-  const zA = normalQuantile(1 - rir / 2);
+  if (o.sides !== undefined && o.sides !== "two" && o.sides !== "one") throw new RangeError(`sides must be "two" or "one" (got ${String(o.sides)})`);
+  const zA = normalQuantile(o.sides === "one" ? 1 - rir : 1 - rir / 2);
   const zB = normalQuantile(1 - ria);
   const plannedAllowance = ((tolerable - expected) * zA) / (zA + zB);
   const uncorrected = ((populationSize * zA * sd) / plannedAllowance) ** 2;
