@@ -1,27 +1,30 @@
-import type { MethodEvaluation } from "@/lib/samples/evaluate";
+import type { AttributesEvaluationBlock } from "@/lib/samples/evaluation-types";
 import { formatPercent } from "./labels";
 
-type Attribute = Extract<MethodEvaluation, { kind: "attribute" }>;
-
-/** Deviations against the tolerable rate, with the one-sided upper deviation limit. */
-export function AttributeResult({ a }: { a: Attribute }) {
+/** Deviations against the tolerable rate, with the one-sided upper deviation limit, as the view model gives them. */
+export function AttributeResult({ a }: { a: AttributesEvaluationBlock }) {
   const rows: [string, string, string?][] = [
     ["Items with a result", String(a.sampleSize)],
     ["Deviations (items that could not be audited count as deviations)", String(a.deviations), "deviations"],
+    ["Deviations allowed by the plan", String(a.allowedDeviations)],
     ["Sample deviation rate", formatPercent(a.sampleRate, 2), "sample-rate"],
-    ["Upper deviation limit (Clopper–Pearson, one-sided)", formatPercent(a.upperLimit, 2), "upper-deviation-limit"],
+    ["Allowance for sampling risk", formatPercent(a.allowanceForSamplingRisk, 2)],
+    [`Upper deviation limit (Clopper–Pearson, one-sided${a.limitMode === "table" ? ", rounded up to 0.1 point" : ""})`, formatPercent(a.upperDeviationLimit, 2), "upper-deviation-limit"],
     ["Tolerable deviation rate", formatPercent(a.tolerableRate, 2)],
   ];
   return (
-    <table className="w-full text-sm" aria-label="Attribute result">
-      <tbody>
-        {rows.map(([label, value, id]) => (
-          <tr key={label} className="border-t border-ink-line/60">
-            <th scope="row" className="py-1.5 pr-3 text-left font-normal text-ink-soft">{label}</th>
-            <td className="figures py-1.5 text-right font-medium" data-testid={id}>{value}</td>
-          </tr>
-        ))}
-      </tbody>
-    </table>
+    <div className="space-y-2">
+      <table className="w-full text-sm" aria-label="Attribute result">
+        <tbody>
+          {rows.map(([label, value, id]) => (
+            <tr key={label} className="border-t border-ink-line/60">
+              <th scope="row" className="py-1.5 pr-3 text-left font-normal text-ink-soft">{label}</th>
+              <td className="figures py-1.5 text-right font-medium" data-testid={id}>{value}</td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+      <p className="text-sm">{a.statement}</p>
+    </div>
   );
 }

@@ -85,7 +85,7 @@ export function SampleWorkspace({ engagementId, initialView, initialEvaluation, 
             </Card>
             <Card title="Evaluation">
               {evalFailure && <div className="mb-3"><Alert>{evalFailure}</Alert></div>}
-              <EvaluationPanel evaluation={evaluation} direction={sample.direction} bookValue={population.total} loading={evaluating} />
+              <EvaluationPanel evaluation={evaluation} direction={sample.direction} loading={evaluating} />
             </Card>
           </>
         )}

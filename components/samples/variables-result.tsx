@@ -1,38 +1,59 @@
-import type { MethodEvaluation } from "@/lib/samples/evaluate";
+import type { StratifiedEvaluationBlock, VariablesEvaluationBlock } from "@/lib/samples/evaluation-types";
 import { Amount } from "@/components/ui/amount";
-import { ESTIMATOR_LABELS } from "./labels";
+import { ESTIMATOR_LABELS, formatPercent } from "./labels";
 
-type Variables = Extract<MethodEvaluation, { kind: "variables" }>;
-const amt = (v: number | null) => (v === null || !Number.isFinite(v) ? <span className="text-ink-faint">—</span> : <Amount value={v.toFixed(2)} />);
-const SIDES = { two: "two-sided", upper: "one-sided, upper", lower: "one-sided, lower" } as const;
+const DIRECTIONS = { overstatement: "overstatement only", understatement: "understatement only", both: "both directions" } as const;
 
-/** The classical variables estimate with its standard error, allowance and bounds. */
-export function VariablesResult({ v, bookValue }: { v: Variables; bookValue: string }) {
-  const r = v.result;
+/** The classical variables estimate and the Audit Guide's decision rule, as the evaluation view model gives them. */
+export function VariablesResult({ v }: { v: VariablesEvaluationBlock | StratifiedEvaluationBlock }) {
+  const d = v.decision;
+  const coefficient = d.distribution === "t" ? `Student t_α, ${d.degreesOfFreedom?.toFixed(1)} df` : "Normal quantile z_α";
   const rows: [string, React.ReactNode, string?][] = [
-    ["Estimator", `${ESTIMATOR_LABELS[v.estimator] ?? v.estimator} (${SIDES[v.sides]})`],
-    ["Recorded book value", <Amount key="bv" value={bookValue} />],
-    ["Estimated audited value", amt(r.estimatedAuditedValue), "estimated-audited"],
-    ["Projected misstatement (book − estimate)", amt(r.projectedMisstatement), "projected-misstatement"],
-    ["Standard error", amt(r.standardError), "standard-error"],
-    ["Normal quantile z", <span key="z" className="figures">{r.zValue.toFixed(4)}</span>],
-    ["Allowance for sampling risk (z × SE)", amt(r.allowance), "allowance"],
-    ["Lower bound on the audited value", amt(r.lowerBound)],
-    ["Upper bound on the audited value", amt(r.upperBound)],
-    ["Bound on overstatement (book − lower bound)", amt(v.misstatementBounds.overstatement), "bound-over"],
-    ["Bound on understatement (upper bound − book)", amt(v.misstatementBounds.understatement), "bound-under"],
-    ["Items with a misstatement in the sample", <span key="m" className="figures">{r.misstatementsInSample}</span>],
+    ["Estimator", `${ESTIMATOR_LABELS[v.estimator] ?? v.estimator}${v.method === "stratified" ? " (stratified)" : ""}, ${DIRECTIONS[d.direction]}`],
+    ["Recorded book value (X)", <Amount key="bv" value={v.populationBookValue} />],
+    ["Tolerable misstatement (TM)", <Amount key="tm" value={v.tolerableMisstatement} />],
+    ["Estimated audited value (Ŷ)", <Amount key="y" value={v.estimatedAuditedValue} />, "estimated-audited"],
+    ["Projected misstatement (X − Ŷ)", <Amount key="pm" value={v.projectedMisstatement} />, "projected-misstatement"],
+    ["Standard error (SE)", <Amount key="se" value={v.standardError} />, "standard-error"],
+    [`${coefficient}, ${d.coefficientSides}-sided (risk of incorrect rejection ${formatPercent(d.riskOfIncorrectRejection)})`, <span key="z" className="figures">{d.coefficient.toFixed(4)}</span>],
+    ["Planned allowance (A)", <Amount key="a" value={d.plannedAllowance} />, "planned-allowance"],
+    ["Achieved allowance (A′ = z_α · SE)", <Amount key="a1" value={d.achievedAllowance} />, "achieved-allowance"],
+    ...(d.adjustedAllowance !== null ? [["Adjusted allowance (A″ = A′ + TM · (1 − A′/A))", <Amount key="a2" value={d.adjustedAllowance} />, "adjusted-allowance"] as [string, React.ReactNode, string]] : []),
+    ...(d.lowerLimit !== null ? [["Lower limit (Ŷ − allowance)", <Amount key="lo" value={d.lowerLimit} />, "lower-limit"] as [string, React.ReactNode, string]] : []),
+    ...(d.upperLimit !== null ? [["Upper limit (Ŷ + allowance)", <Amount key="hi" value={d.upperLimit} />, "upper-limit"] as [string, React.ReactNode, string]] : []),
+    ["Beyond the nearest limit", <Amount key="b" value={d.beyondLimit} />, "beyond-limit"],
+    ["Items with a misstatement in the sample", <span key="m" className="figures">{v.misstatementsInSample}</span>],
   ];
   return (
-    <table className="w-full text-sm" aria-label="Variables estimate">
-      <tbody>
-        {rows.map(([label, value, id]) => (
-          <tr key={label} className="border-t border-ink-line/60">
-            <th scope="row" className="py-1.5 pr-3 text-left font-normal text-ink-soft">{label}</th>
-            <td className="py-1.5 text-right font-medium" data-testid={id}>{value}</td>
-          </tr>
-        ))}
-      </tbody>
-    </table>
+    <div className="space-y-3">
+      <table className="w-full text-sm" aria-label="Variables estimate">
+        <tbody>
+          {rows.map(([label, value, id]) => (
+            <tr key={label} className="border-t border-ink-line/60">
+              <th scope="row" className="py-1.5 pr-3 text-left font-normal text-ink-soft">{label}</th>
+              <td className="py-1.5 text-right font-medium" data-testid={id}>{value}</td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+      {v.method === "stratified" && (
+        <table className="w-full text-sm" aria-label="Strata">
+          <thead className="text-left text-xs uppercase tracking-wider text-ink-soft">
+            <tr><th scope="col">h</th><th scope="col">Band</th><th scope="col" className="text-right">N_h</th><th scope="col" className="text-right">X_h</th><th scope="col" className="text-right">n_h</th><th scope="col" className="text-right">Sample book</th><th scope="col" className="text-right">Sample audited</th><th scope="col" className="text-right">Ŷ_h</th><th scope="col" className="text-right">SE_h</th></tr>
+          </thead>
+          <tbody className="figures">
+            {v.strata.map((st) => (
+              <tr key={st.number} className="border-t border-ink-line/60">
+                <td>{st.number}</td><td className="font-sans">{st.label}</td><td className="text-right">{st.populationSize}</td><td className="text-right"><Amount value={st.populationBookValue} /></td>
+                <td className="text-right">{st.sampleSize}</td><td className="text-right"><Amount value={st.sampleBookValue} /></td><td className="text-right"><Amount value={st.sampleAuditedValue} /></td>
+                <td className="text-right"><Amount value={st.estimatedAuditedValue} /></td><td className="text-right"><Amount value={st.standardError} /></td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      )}
+      {v.method === "variables" && <p className="text-xs text-ink-soft">Sample: n = {v.sampleSize}, book <Amount value={v.sampleBookValue} />, audited <Amount value={v.sampleAuditedValue} />.</p>}
+      <p className="text-sm" data-testid="decision-rule">{d.rule}</p>
+    </div>
   );
 }

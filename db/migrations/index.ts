@@ -9,6 +9,7 @@ import * as m0007 from "./20261202_0007_review";
 import * as m0008 from "./20261202_0008_advisor_runs";
 import * as m0009 from "./20261202_0009_client_requests";
 import * as m0010 from "./20261203_0010_firm_methodology";
+import * as m0011 from "./20261203_0011_auditor_conclusion";
 
 type Migration = { up(knex: Knex): Promise<void>; down(knex: Knex): Promise<void> };
 
@@ -24,6 +25,7 @@ const migrations: Record<string, Migration> = {
   "20261202_0008_advisor_runs": m0008,
   "20261202_0009_client_requests": m0009,
   "20261203_0010_firm_methodology": m0010,
+  "20261203_0011_auditor_conclusion": m0011,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

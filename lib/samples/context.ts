@@ -16,7 +16,7 @@ export async function planFor(db: Knex, { engagementId, input }: { engagementId:
   const [engagement, population] = await Promise.all([getEngagementById(db, { engagementId }), getPopulationById(db, { engagementId, populationId: input.populationId })]);
   if (!engagement) throw notFound("No such engagement");
   const frame = await loadFrame(db, { populationId: population.id });
-  return { plan: computePlan(frame, input.params, engagement.performanceMateriality), population, engagement };
+  return { plan: computePlan(frame, input.params, engagement.performanceMateriality, input.direction ?? "both"), population, engagement };
 }
 
 export async function loadSampleView(db: Knex, { engagementId, sampleId }: { engagementId: number; sampleId: number }) {

@@ -26,21 +26,26 @@ export interface SamplePlan {
   topStratum?: { count: number; total: string };
   strata?: PlannedStratum[];
   allowedDeviations?: number;
+  /** Classical variables plans: the sides of z_α the size used — "two" when both directions are
+   *  tested, "one" for one direction — stored so that evaluation uses the same (absent: "two"). */
+  sides?: "two" | "one";
   warnings: string[];
 }
+
+export type PlanDirection = "overstatement" | "understatement" | "both";
 
 const money = (cents: bigint) => centsToDecimal(cents);
 
 /** Sample size and its computation for a population, as the auditor sees it while planning. */
-export function computePlan(frame: Frame, params: SampleParams, performanceMateriality: string): SamplePlan {
+export function computePlan(frame: Frame, params: SampleParams, performanceMateriality: string, direction: PlanDirection = "both"): SamplePlan {
   const tolerable = Number(params.tolerableMisstatement ?? performanceMateriality);
   const expected = Number(params.expectedMisstatement);
   const plan = engineCall(params, () => {
     switch (params.method) {
       case "mus": return planMus(frame, params, tolerable, expected);
       case "attribute": return planAttribute(frame, params);
-      case "stratified": return planStratified(frame, params, tolerable, expected);
-      default: return planVariables(frame, params, tolerable, expected);
+      case "stratified": return planStratified(frame, params, tolerable, expected, direction === "both" ? "two" : "one");
+      default: return planVariables(frame, params, tolerable, expected, direction === "both" ? "two" : "one");
     }
   });
   if (params.sampleSize !== undefined && params.sampleSize < plan.computedSize && !params.sizeReason) {
@@ -96,32 +101,34 @@ function planMus(frame: Frame, p: SampleParams, tolerable: number, expected: num
   };
 }
 
-function planVariables(frame: Frame, p: SampleParams, tolerable: number, expected: number): SamplePlan {
+const ZA_WORDS = { two: "two-sided z_α (both directions tested)", one: "one-sided z_α (one direction tested)" } as const;
+
+function planVariables(frame: Frame, p: SampleParams, tolerable: number, expected: number, sides: "two" | "one"): SamplePlan {
   const N = frame.bookValues.length;
   const sd = standardDeviation(frame.bookValues);
-  const r = variablesSampleSize({ populationSize: N, estimatedStdDev: sd, tolerableMisstatement: tolerable, expectedMisstatement: expected, riskOfIncorrectAcceptance: 1 - p.confidence, riskOfIncorrectRejection: p.riskOfIncorrectRejection });
+  const r = variablesSampleSize({ populationSize: N, estimatedStdDev: sd, tolerableMisstatement: tolerable, expectedMisstatement: expected, riskOfIncorrectAcceptance: 1 - p.confidence, riskOfIncorrectRejection: p.riskOfIncorrectRejection, sides });
   return {
-    method: p.method, frameSize: N, frameTotal: money(frame.totalCents), excluded: null,
+    method: p.method, frameSize: N, sides, frameTotal: money(frame.totalCents), excluded: null,
     computedSize: r.sampleSize, chosenSize: p.sampleSize ?? r.sampleSize,
-    formula: "A = (TM − EM) × z_α / (z_α + z_β); n′ = (N × z_α × S / A)²; n = ⌈n′ / (1 + n′/N)⌉ (AICPA classical variables; Cochran 1977 §4.4 finite population correction)",
+    formula: `A = (TM − EM) × z_α / (z_α + z_β), ${ZA_WORDS[sides]}; n′ = (N × z_α × S / A)²; n = ⌈n′ / (1 + n′/N)⌉ (AICPA classical variables; Cochran 1977 §4.4 finite population correction)`,
     inputs: { N, S: Number(sd.toFixed(2)), TM: tolerable.toFixed(2), EM: expected.toFixed(2), "risk of incorrect acceptance": Number((1 - p.confidence).toFixed(4)), "risk of incorrect rejection": p.riskOfIncorrectRejection, A: Number(r.plannedAllowance.toFixed(2)), "n′": Number(r.uncorrectedSampleSizeExact.toFixed(4)) },
     warnings: ["S is estimated from the book values; the audited values' spread may differ."],
   };
 }
 
-function planStratified(frame: Frame, p: SampleParams, tolerable: number, expected: number): SamplePlan {
+function planStratified(frame: Frame, p: SampleParams, tolerable: number, expected: number, sides: "two" | "one"): SamplePlan {
   const strata = stratifyFrame(frame, (p.strataBounds ?? []).map(Number));
   const empty = strata.find((s) => s.members.length < 2);
   if (empty) throw fieldError("strataBounds", `stratum ${empty.number} (${empty.label}) has fewer than 2 items; move its boundaries`, `Stratum ${empty.number} has fewer than 2 items`);
   const planning = strata.map((s) => ({ populationSize: s.members.length, standardDeviation: standardDeviation(s.members.map((i) => frame.bookValues[i])) }));
-  const whole = variablesSampleSize({ populationSize: frame.bookValues.length, estimatedStdDev: Math.max(standardDeviation(frame.bookValues), 0.01), tolerableMisstatement: tolerable, expectedMisstatement: expected, riskOfIncorrectAcceptance: 1 - p.confidence, riskOfIncorrectRejection: p.riskOfIncorrectRejection });
-  const sized = stratifiedSampleSize({ strata: planning, plannedAllowance: whole.plannedAllowance, confidence: 1 - p.riskOfIncorrectRejection, sides: "two" });
+  const whole = variablesSampleSize({ populationSize: frame.bookValues.length, estimatedStdDev: Math.max(standardDeviation(frame.bookValues), 0.01), tolerableMisstatement: tolerable, expectedMisstatement: expected, riskOfIncorrectAcceptance: 1 - p.confidence, riskOfIncorrectRejection: p.riskOfIncorrectRejection, sides });
+  const sized = stratifiedSampleSize({ strata: planning, plannedAllowance: whole.plannedAllowance, confidence: 1 - p.riskOfIncorrectRejection, sides });
   const chosenSize = p.sampleSize ?? sized.sampleSize;
   const allocation = chosenSize === sized.sampleSize ? sized.allocation : neymanAllocation({ strata: planning, sampleSize: chosenSize }).allocation;
   return {
-    method: "stratified", frameSize: frame.bookValues.length, frameTotal: money(frame.totalCents), excluded: null,
+    method: "stratified", sides, frameSize: frame.bookValues.length, frameTotal: money(frame.totalCents), excluded: null,
     computedSize: sized.sampleSize, chosenSize,
-    formula: "Neyman allocation n_h = n × N_h S_h / Σ N_h S_h; n = (Σ N_h S_h)² / ((A / z)² + Σ N_h S_h²) (Cochran 1977, ch. 5, Neyman allocation, with the planned allowance A)",
+    formula: `Neyman allocation n_h = n × N_h S_h / Σ N_h S_h; n = (Σ N_h S_h)² / ((A / z_α)² + Σ N_h S_h²), ${ZA_WORDS[sides]} (Cochran 1977, ch. 5, Neyman allocation, with the planned allowance A)`,
     inputs: { strata: strata.length, A: Number(whole.plannedAllowance.toFixed(2)), TM: tolerable.toFixed(2), EM: expected.toFixed(2), "risk of incorrect rejection": p.riskOfIncorrectRejection },
     strata: strata.map((s, h) => ({ number: s.number, label: s.label, populationSize: s.members.length, bookValue: money(s.bookCents), standardDeviation: Number(planning[h].standardDeviation.toFixed(2)), allocation: allocation[h] })),
     warnings: ["Stratum standard deviations are estimated from the book values."],

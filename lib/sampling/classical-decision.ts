@@ -41,7 +41,8 @@ function coefficientFor(alpha: number, sides: "two" | "one", distribution: Class
  * evaluation; presentation from memory, algebra exact):
  * achieved allowance A′ = z_α · SE with z_α the coefficient for the planned risk of incorrect
  * rejection α — two-sided (1 − α/2) when both directions are tested, one-sided (1 − α) otherwise,
- * the same sides the plan was sized with. When A′ ≤ A (the planned allowance) the interval is
+ * the same sides the plan was sized with (`plannedSides` overrides the default for plans sized
+ * otherwise, so that evaluation never uses other sides than planning did). When A′ ≤ A (the planned allowance) the interval is
  * Ŷ ± A′; when A′ > A it is Ŷ ± A″ with the adjusted allowance A″ = A′ + TM · (1 − A′/A), which
  * keeps the risk of incorrect acceptance at the planned β (with EM = 0 it is the same as requiring
  * projected misstatement + z_β · SE ≤ TM). The book value is supported when it lies within the
@@ -65,6 +66,8 @@ export function classicalDecision(o: {
   plannedAllowance: number;
   riskOfIncorrectRejection: number;
   direction: TestDirection;
+  /** The z_α sides the plan was sized with (default: "two" for both directions, "one" otherwise). */
+  plannedSides?: "two" | "one";
   distribution?: ClassicalDistribution;
   degreesOfFreedom?: number;
 }): ClassicalDecision {
@@ -78,7 +81,7 @@ export function classicalDecision(o: {
   const direction = requireOneOf("direction", o.direction, TEST_DIRECTIONS);
   const distribution = o.distribution === undefined ? "z" : requireOneOf("distribution", o.distribution, CLASSICAL_DISTRIBUTIONS);
   const df = distribution === "t" ? requirePositive("degreesOfFreedom", o.degreesOfFreedom) : null;
-  const coefficientSides = direction === "both" ? "two" : "one";
+  const coefficientSides = o.plannedSides === undefined ? (direction === "both" ? "two" : "one") : requireOneOf("plannedSides", o.plannedSides, ["two", "one"] as const);
   const coefficient = coefficientFor(alpha, coefficientSides, distribution, df);
   const achieved = coefficient * se;
   const adjusted = achieved > planned ? achieved + tm * (1 - achieved / planned) : null;

@@ -33,6 +33,14 @@ export interface MusEvaluation {
   warnings: string[];
 }
 
+/**
+ * The lowest confidence a Stringer bound is evaluated at. Below 1 − 1/e ≈ 63.2 % the basic precision
+ * factor RF(0) = −ln(1 − c) falls below 1, and below about 53 % the increments RF(k) − RF(k−1) fall
+ * below 1, which makes the incremental allowance negative (gamma quantiles, checked with scipy).
+ */
+export const MUS_MIN_CONFIDENCE = 0.63;
+export const MUS_CONFIDENCE_MESSAGE = `confidence must be at least ${MUS_MIN_CONFIDENCE * 100}% for a monetary-unit sample: below it the reliability factor RF(0) drops under 1 and, lower still, the increments RF(k) − RF(k−1) drop under 1, so the Stringer bound's incremental allowance would turn negative`;
+
 function side(taintings: number[], topCents: number, interval: number, factors: number[]): BoundSide {
   const sorted = [...taintings].sort((a, b) => b - a);
   let sumT = 0;
@@ -62,7 +70,8 @@ function side(taintings: number[], topCents: number, interval: number, factors: 
  * @param o.sample distinct PPS-hit items with book value below the interval (book > 0).
  * @param o.topStratum items at or above the interval, examined 100%.
  * @throws {TypeError} when a field has the wrong type.
- * @throws {RangeError} naming the field: interval <= 0, confidence outside (0, 1), a sample book
+ * @throws {RangeError} naming the field: interval <= 0, confidence outside [0.63, 1) (see
+ *   MUS_MIN_CONFIDENCE), a sample book
  *   value <= 0, a value with more than 2 decimals, unknown factors mode.
  * @example
  * evaluateMus({ interval: 21920, confidence: 0.95, sample: [{ bookValue: 5480, auditedValue: 4384 }], factors: "table" })
@@ -79,6 +88,7 @@ export function evaluateMus(o: {
   const interval = requirePositive("interval", o.interval);
   toCents("interval", interval);
   const confidence = requireOpenFraction("confidence", o.confidence);
+  if (confidence < MUS_MIN_CONFIDENCE) throw new RangeError(`${MUS_CONFIDENCE_MESSAGE} (got ${confidence})`);
   const factorMode = o.factors === undefined ? "exact" : requireOneOf("factors", o.factors, FACTOR_MODES);
   const sample = sampleToCents("sample", o.sample, 0);
   const top = sampleToCents("topStratum", o.topStratum ?? [], 0);

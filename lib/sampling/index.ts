@@ -13,7 +13,7 @@ export { neymanAllocation, stratifiedSampleSize, type PlanningStratum } from "./
 export { evaluateVariables } from "./evaluate-variables";
 export { evaluateStratified, type StratumInput } from "./evaluate-stratified";
 export { poissonFactor } from "./poisson-factor";
-export { evaluateMus, type BoundSide, type MusEvaluation } from "./evaluate-mus";
+export { evaluateMus, MUS_MIN_CONFIDENCE, MUS_CONFIDENCE_MESSAGE, type BoundSide, type MusEvaluation } from "./evaluate-mus";
 export { evaluateAttributes } from "./evaluate-attributes";
 export { EngineInputError } from "./errors";
 export type { SampledItem, Estimator, StratifiedEstimator, Sides, FactorMode, VariablesEvaluation } from "./types";

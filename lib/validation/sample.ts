@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { moneyInput } from "./engagement";
 import { signedMoney } from "./population";
+import { MUS_MIN_CONFIDENCE } from "@/lib/sampling/evaluate-mus";
 
 export const SAMPLE_METHODS = ["mus", "random", "systematic", "stratified", "attribute"] as const;
 export type SampleMethod = (typeof SAMPLE_METHODS)[number];
@@ -41,6 +42,7 @@ export const SampleParamsSchema = z.object({
   const need = (field: keyof typeof p, message: string) => {
     if (p[field] === undefined) ctx.addIssue({ code: "custom", path: [field], message });
   };
+  if (p.method === "mus" && p.confidence < MUS_MIN_CONFIDENCE) ctx.addIssue({ code: "custom", path: ["confidence"], message: `At least ${MUS_MIN_CONFIDENCE * 100}% for a monetary-unit sample: below it the reliability factor RF(0) drops under 1 and the Stringer bound's incremental allowance can turn negative` });
   if (p.method === "attribute") {
     need("tolerableRate", "Give the tolerable deviation rate");
     if (p.tolerableRate !== undefined && p.expectedRate >= p.tolerableRate) ctx.addIssue({ code: "custom", path: ["expectedRate"], message: "The expected deviation rate must be below the tolerable rate" });
@@ -68,7 +70,8 @@ export const PlanSampleSchema = z.object({
 export type PlanSampleInput = z.input<typeof PlanSampleSchema>;
 export type PlanSample = z.output<typeof PlanSampleSchema>;
 
-export const PreviewPlanSchema = z.object({ populationId: PlanSampleSchema.shape.populationId, params: SampleParamsSchema });
+/** `direction` sizes a classical variables plan with a one-sided z_α when one direction is tested. */
+export const PreviewPlanSchema = z.object({ populationId: PlanSampleSchema.shape.populationId, direction: PlanSampleSchema.shape.direction.optional(), params: SampleParamsSchema });
 export type PreviewPlan = z.output<typeof PreviewPlanSchema>;
 
 export const DrawSchema = z.object({

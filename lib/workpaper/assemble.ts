@@ -3,20 +3,18 @@ import type { Knex } from "knex";
 import type { SampleItemRecord } from "@/lib/data/sample-items";
 import { listNotesBySampleId } from "@/lib/review/notes";
 import { listSampleAuditTrail } from "@/lib/review/audit-trail";
-import { sidesFor } from "@/lib/samples/evaluate";
 import { getAdoptedAdvisorRun } from "@/lib/data/advisor-runs";
 import { methodRationaleBlock } from "@/lib/advisor/describe";
 import { loadSampleWithEvaluation, type SampleView } from "@/lib/samples/context";
 import { recipeForSample } from "@/lib/samples/recipe-for-sample";
 import { workpaperReferenceFor } from "@/lib/review/lock";
-import { buildAttributesEvaluation, buildMusEvaluation, buildStratifiedEvaluation, buildVariablesEvaluation, money } from "@/templates/workpaper/build-evaluation";
-import type { EvaluationBlock, PlanBlock, WorkpaperData, WorkpaperItem } from "@/templates/workpaper/workpaper-data";
+import { money } from "@/lib/samples/evaluation-blocks";
+import type { SampleEvaluation } from "@/lib/samples/evaluate";
+import type { PlanBlock, WorkpaperData, WorkpaperItem } from "@/templates/workpaper/workpaper-data";
 import type { Estimator, StratifiedEstimator } from "@/lib/sampling";
 import { AppError } from "@/lib/errors";
-import { EngineInputError } from "@/lib/sampling";
-
-const evaluatedOf = (items: SampleItemRecord[]) => items.filter((i) => i.status === "done" || i.status === "not-auditable")
-  .map((i) => ({ reference: i.itemRef, bookValue: i.bookValue, auditedValue: i.status === "not-auditable" ? "0.00" : i.auditedValue ?? i.bookValue, topStratum: i.topStratum, stratum: i.stratum }));
+import { getAuditorConclusionBySampleId } from "@/lib/data/auditor-conclusions";
+import { RESPONSE_LABELS } from "@/lib/validation/conclusion";
 
 /** Rates go to the renderer as fractions ("0.95"); it formats them. */
 const pct = (v: number) => String(v);
@@ -36,16 +34,15 @@ const SYMBOLS: Record<string, { meaning: string; kind: "money" | "rate" | "count
 export async function assembleWorkpaper(db: Knex, { engagementId, sampleId, draft, lock }: { engagementId: number; sampleId: number; draft: boolean; lock?: { lockedByName: string; role: string; lockedAt: Date; reference: string } }): Promise<WorkpaperData> {
   const { view, items, evaluation } = await loadSampleWithEvaluation(db, { engagementId, sampleId });
   const { sample, population, engagement, currentDraw, review } = view;
-  const [firm, notes, trail, recipe, adoptedRun] = await Promise.all([
+  const [firm, notes, trail, recipe, adoptedRun, concluded] = await Promise.all([
     db("firms").where({ id: engagement.firmId }).first("name"),
     listNotesBySampleId(db, { sampleId }),
     listSampleAuditTrail(db, { sampleId, query: { kind: "all" } }),
     currentDraw ? recipeForSample(db, { sample }) : Promise.resolve(""),
     getAdoptedAdvisorRun(db, { sampleId }),
+    getAuditorConclusionBySampleId(db, { sampleId }),
   ]);
   const tolerable = money(Number(sample.params.tolerableMisstatement ?? engagement.performanceMateriality));
-  const active = items.filter((i) => i.status !== "void");
-  const done = evaluatedOf(active);
   const plan = sample.plan;
   return {
     draft, workpaperReference: lock?.reference ?? workpaperReferenceFor(sample), firmName: firm?.name ?? "", clientName: engagement.clientName,
@@ -73,8 +70,11 @@ export async function assembleWorkpaper(db: Knex, { engagementId, sampleId, draf
       recipe: recipe.split("\n"),
     },
     items: items.map(toWorkpaperItem),
-    evaluation: evaluationOrExplain(() => evaluationBlock(sample, population, active, done, tolerable)),
-    conclusion: { text: evaluation.conclusion, supported: evaluation.supported, concludedBy: review.reviewer?.name ?? null, concludedAt: review.reviewer?.at ?? null },
+    evaluation: evaluationOrExplain(evaluation),
+    conclusion: {
+      computed: evaluation.computed, notes: evaluation.notes,
+      auditor: concluded ? { conclusion: concluded.conclusion, responses: concluded.responses.map((r) => ({ kind: r.kind, label: RESPONSE_LABELS[r.kind], amount: r.amount, note: r.note })), writtenBy: concluded.writtenBy.name, role: concluded.writtenBy.role, writtenAt: concluded.writtenAt } : null,
+    },
     reviewNotes: notes.map((n, i) => ({ number: i + 1, text: n.itemRef ? `[${n.itemRef}] ${n.text}` : n.text, raisedBy: n.raisedBy, raisedAt: n.raisedAt, answers: n.answer ? [{ text: n.answer, by: n.answeredBy ?? "", at: n.answeredAt ?? "" }] : [], clearedBy: n.clearedBy, clearedAt: n.clearedAt })),
     signOffs: { preparer: review.preparer, reviewer: review.reviewer },
     lock: lock ? { lockedBy: lock.lockedByName, role: lock.role, lockedAt: lock.lockedAt.toISOString() } : null,
@@ -82,13 +82,10 @@ export async function assembleWorkpaper(db: Knex, { engagementId, sampleId, draf
   };
 }
 
-function evaluationOrExplain(build: () => EvaluationBlock): EvaluationBlock {
-  try {
-    return build();
-  } catch (err) {
-    if (err instanceof EngineInputError) throw new AppError(409, "not_evaluable", `The workpaper cannot be rendered yet: ${err.message}. Record more results first.`);
-    throw err;
-  }
+/** The view model's block, printed as it is; a sample with nothing to evaluate yet has no workpaper. */
+function evaluationOrExplain(evaluation: SampleEvaluation) {
+  if (evaluation.block) return evaluation.block;
+  throw new AppError(409, "not_evaluable", `The workpaper cannot be rendered yet: ${evaluation.computed.statement} Record more results first.`);
 }
 
 function toWorkpaperItem(i: SampleItemRecord): WorkpaperItem {
@@ -119,19 +116,3 @@ function planBlock(sample: SampleView["sample"], tolerable: string): PlanBlock {
   };
 }
 
-type View = SampleView;
-
-function evaluationBlock(sample: View["sample"], population: View["population"], active: SampleItemRecord[], done: ReturnType<typeof evaluatedOf>, tolerable: string): EvaluationBlock {
-  const p = sample.params;
-  const sides = sidesFor(sample.direction);
-  if (sample.method === "mus") return buildMusEvaluation({ interval: sample.plan.interval!, confidence: p.confidence, factorMode: p.factorMode, tolerableMisstatement: tolerable, items: done });
-  if (sample.method === "attribute") {
-    const finished = active.filter((i) => i.status === "done" || i.status === "not-auditable");
-    return buildAttributesEvaluation({ confidence: p.confidence, tolerableRate: p.tolerableRate ?? 0, expectedRate: p.expectedRate, sampleSize: Math.max(finished.length, 1), allowedDeviations: sample.plan.allowedDeviations ?? 0, deviations: finished.filter((i) => i.deviation || i.status === "not-auditable").length });
-  }
-  if (sample.method === "stratified") {
-    return buildStratifiedEvaluation({ estimator: p.estimator as StratifiedEstimator, confidence: p.confidence, sides, tolerableMisstatement: tolerable,
-      strata: sample.plan.strata!.map((s) => ({ label: s.label, populationSize: s.populationSize, populationBookValue: s.bookValue, items: done.filter((i) => i.stratum === s.number) })) });
-  }
-  return buildVariablesEvaluation({ estimator: p.estimator as Estimator, confidence: p.confidence, sides, tolerableMisstatement: tolerable, populationSize: population.rowCount, populationBookValue: population.total, items: done });
-}

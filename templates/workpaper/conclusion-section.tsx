@@ -1,23 +1,39 @@
-/** Section 7: the auditor's conclusion, with the caution that it rests on their judgement. */
+/**
+ * Section 7: the result as computed by Sondage (with its rule), apart from the auditor's own
+ * conclusion and response (who wrote them and when), and the caution that the result supports,
+ * not replaces, the auditor's judgement. Prints the view model as it is.
+ */
 import { Text, View } from "@react-pdf/renderer";
-import { formatTime } from "./format";
+import { formatMoney, formatTime } from "./format";
 import { CAUTION } from "./page-frame";
-import { Paragraph, Section } from "./primitives";
+import { Paragraph, Section, SubHead } from "./primitives";
 import { colours, s } from "./styles";
 import type { WorkpaperData } from "./workpaper-data";
 
+const VERDICT = { supported: "Supports the recorded amount", "not-supported": "Does not support the recorded amount", provisional: "Provisional", "no-results": "No results yet", "not-evaluable": "Not evaluable yet" } as const;
+
 export function ConclusionSection({ data }: { data: WorkpaperData }) {
   const c = data.conclusion;
-  const verdict =
-    c.supported === null ? "Not yet concluded" : c.supported ? "Supported by the evaluation" : "Not supported by the evaluation";
-  const tone = c.supported === null ? colours.faint : c.supported ? colours.ledger : colours.warn;
+  const tone = c.computed.supported === null ? colours.faint : c.computed.supported ? colours.ledger : colours.warn;
   return (
-    <Section number="7" title="Conclusion" keepTogether>
-      <View style={{ flexDirection: "row", marginBottom: 4 }}>
-        <Text style={[s.bold, { color: tone }]}>{verdict}</Text>
-        {c.concludedBy && <Text style={s.faint}>{`  ·  ${c.concludedBy}, ${formatTime(c.concludedAt)}`}</Text>}
-      </View>
-      <Paragraph>{c.text ?? "No conclusion has been recorded yet."}</Paragraph>
+    <Section number="7" title="Result and conclusion" keepTogether>
+      <SubHead>Computed by Sondage</SubHead>
+      <Text style={[s.bold, { color: tone, marginBottom: 2 }]}>{VERDICT[c.computed.status]}</Text>
+      <Paragraph>{c.computed.statement}</Paragraph>
+      {c.computed.rule !== "" && <Text style={[s.small, s.soft, { marginBottom: 3 }]}>{`Rule: ${c.computed.rule}`}</Text>}
+      {c.notes.map((n, i) => <Text key={i} style={[s.small, s.soft]}>{n}</Text>)}
+      <SubHead>{"Auditor's conclusion and response"}</SubHead>
+      {c.auditor ? (
+        <View>
+          <Text style={s.faint}>{`Written by ${c.auditor.writtenBy} (${c.auditor.role}), ${formatTime(c.auditor.writtenAt)}`}</Text>
+          <Paragraph>{c.auditor.conclusion}</Paragraph>
+          {c.auditor.responses.length === 0 ? <Text style={s.soft}>No response recorded (none called for by the computed result).</Text> : c.auditor.responses.map((r, i) => (
+            <Text key={i}>{`• ${r.label}${r.amount === null ? "" : `: ${data.currency} ${formatMoney(r.amount)}`}${r.note ? ` — ${r.note}` : ""}`}</Text>
+          ))}
+        </View>
+      ) : (
+        <Paragraph>{"No auditor's conclusion has been recorded yet."}</Paragraph>
+      )}
       <View style={{ borderWidth: 0.8, borderColor: colours.ledger, padding: 7, marginTop: 4 }}>
         <Text style={[s.bold, { color: colours.ledger, fontSize: 7.5, marginBottom: 2 }]}>CAUTION</Text>
         <Text>{CAUTION}</Text>

@@ -5,7 +5,6 @@ import { Callout, SubHead, Table } from "./primitives";
 import type { AttributesEvaluationBlock } from "./workpaper-data";
 
 export function AttributesEvaluation({ e }: { e: AttributesEvaluationBlock }) {
-  const below = e.upperDeviationLimit <= e.tolerableRate;
   const rate = (x: number) => formatRate(x, 2);
   return (
     <View>
@@ -21,13 +20,11 @@ export function AttributesEvaluation({ e }: { e: AttributesEvaluationBlock }) {
           { cells: ["Deviations allowed by the plan", "⌈EDR · n⌉", String(e.allowedDeviations)] },
           { cells: ["Deviations found", "k", String(e.deviations)] },
           { cells: ["Sample deviation rate", "k / n", rate(e.sampleRate)] },
-          { cells: ["Allowance for sampling risk", "UDL − k / n", rate(e.upperDeviationLimit - e.sampleRate)] },
+          { cells: ["Allowance for sampling risk", "UDL − k / n", rate(e.allowanceForSamplingRisk)] },
           { total: true, cells: ["Upper deviation limit", e.limitMode === "exact" ? "Beta⁻¹(c; k+1, n−k)" : "Beta⁻¹(c; k+1, n−k), rounded up to 0.1 point", rate(e.upperDeviationLimit)] },
         ]}
       />
-      <Callout tone={below ? "note" : "warning"}>
-        {`The upper deviation limit ${rate(e.upperDeviationLimit)} is ${below ? "at or below" : "above"} the tolerable deviation rate ${rate(e.tolerableRate)}${e.deviations > e.allowedDeviations ? `; more deviations were found (${e.deviations}) than the plan allowed (${e.allowedDeviations})` : ""}.`}
-      </Callout>
+      <Callout tone={e.supported ? "note" : "warning"}>{e.statement}</Callout>
     </View>
   );
 }

@@ -1,6 +1,5 @@
 /** Section 6 for monetary-unit samples: the Stringer bound, each direction on its own. */
 import { Text, View } from "@react-pdf/renderer";
-import { relation } from "./compare";
 import { formatFactor, formatMoney, formatRate } from "./format";
 import { Callout, Facts, SubHead, Table } from "./primitives";
 import { s } from "./styles";
@@ -43,6 +42,7 @@ export function MusEvaluation({ e, currency }: { e: MusEvaluationBlock; currency
       <Facts
         facts={[
           { label: "Confidence", value: formatRate(e.confidence, 0) },
+          { label: "Limits compared with TM", value: e.limits === "gross" ? "Gross: each direction's upper limit as it stands (firm setting)" : "Net: less the other direction's projected misstatement (firm setting)" },
           { label: `Sampling interval J (${currency})`, value: formatMoney(e.interval) },
           { label: "Reliability factors", value: e.factorMode === "exact" ? "Exact Poisson (gamma quantile)" : "Table (Poisson, rounded up to 2 decimals)" },
           { label: "Items below the interval", value: String(e.sampleItems) },
@@ -71,9 +71,8 @@ export function MusEvaluation({ e, currency }: { e: MusEvaluationBlock; currency
           ]}
         />
       </View>
-      <Callout>
-        {`Net upper limit of overstatement ${formatMoney(e.netUpperLimits.overstatement)} is ${relation(e.netUpperLimits.overstatement, e.tolerableMisstatement)} tolerable misstatement ${formatMoney(e.tolerableMisstatement)}; net upper limit of understatement ${formatMoney(e.netUpperLimits.understatement)} is ${relation(e.netUpperLimits.understatement, e.tolerableMisstatement)} it.`}
-      </Callout>
+      <Callout>{e.statement}</Callout>
+      {e.understatementCaution && <Callout tone="warning">{e.understatementCaution}</Callout>}
       <RankedTaintings title="Overstatement taintings, ranked" side={o} currency={currency} />
       <RankedTaintings title="Understatement taintings, ranked" side={u} currency={currency} />
     </View>

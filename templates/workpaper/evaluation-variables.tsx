@@ -1,6 +1,5 @@
 /** Section 6 for classical variables samples, plain and stratified. */
 import { Text, View } from "@react-pdf/renderer";
-import { absMoney, compareMoney, relation, subtractMoney } from "./compare";
 import { formatFactor, formatMoney, formatRate } from "./format";
 import { estimatorName } from "./plan-section";
 import { Callout, Facts, SubHead, Table, type TableRow } from "./primitives";
@@ -25,32 +24,29 @@ const VARIANCE_FORMULA: Record<string, string> = {
   "combined-ratio": "v = Σ_h N_h²(1−f_h)/n_h · s²(y − R_c x)_h",
 };
 
-const SIDES = { two: "Two-sided", upper: "One-sided, upper bound", lower: "One-sided, lower bound" } as const;
+const DIRECTION_WORDS = { overstatement: "overstatement only", understatement: "understatement only", both: "both directions" } as const;
 
 function figureRows(e: VariablesResultFigures, estimator: string, bookValue: string): TableRow[] {
-  const bound = (v: string | null) => (v === null ? "not bounded" : formatMoney(v));
-  return [
+  const d = e.decision;
+  const coef = d.distribution === "t" ? `Student t_α (${d.degreesOfFreedom?.toFixed(1)} df)` : "Normal quantile z_α";
+  const rows: TableRow[] = [
     { cells: ["Estimated audited value", ESTIMATE_FORMULA[estimator], formatMoney(e.estimatedAuditedValue)] },
     { cells: ["Projected misstatement", "X − Ŷ", formatMoney(e.projectedMisstatement)] },
     { cells: ["Standard error", `√v,  ${VARIANCE_FORMULA[estimator]}`, formatMoney(e.standardError)] },
-    { cells: ["Normal quantile z", "", formatFactor(e.z)] },
-    { cells: ["Allowance for sampling risk", "A = z · √v", formatMoney(e.allowance)] },
-    { cells: ["Lower bound on the audited value", "Ŷ − A", bound(e.lowerBound)] },
-    { cells: ["Upper bound on the audited value", "Ŷ + A", bound(e.upperBound)] },
-    { total: true, cells: ["Recorded book value", "X", formatMoney(bookValue)] },
+    { cells: [`${coef}, ${d.coefficientSides === "two" ? "two-sided" : "one-sided"}`, `risk of incorrect rejection ${formatRate(d.riskOfIncorrectRejection, 1)}`, formatFactor(d.coefficient)] },
+    { cells: ["Planned allowance A", "(TM − EM) · z_α / (z_α + z_β)", formatMoney(d.plannedAllowance)] },
+    { cells: ["Achieved allowance A′", "z_α · SE", formatMoney(d.achievedAllowance)] },
   ];
+  if (d.adjustedAllowance !== null) rows.push({ cells: ["Adjusted allowance A″ (A′ > A)", "A′ + TM · (1 − A′/A)", formatMoney(d.adjustedAllowance)] });
+  if (d.lowerLimit !== null) rows.push({ cells: ["Lower limit", "Ŷ − allowance", formatMoney(d.lowerLimit)] });
+  if (d.upperLimit !== null) rows.push({ cells: ["Upper limit", "Ŷ + allowance", formatMoney(d.upperLimit)] });
+  rows.push({ total: true, cells: ["Recorded book value", "X", formatMoney(bookValue)] });
+  rows.push({ cells: ["Beyond the nearest limit", d.beyond === null ? "within the interval" : d.beyond === "upper" ? "X − upper limit" : "lower limit − X", formatMoney(d.beyondLimit)] });
+  return rows;
 }
 
-/** The widest misstatement the bounds allow: X − lower (overstatement side) or upper − X. */
-function Against({ e, bookValue, tolerable }: { e: VariablesResultFigures; bookValue: string; tolerable: string }) {
-  const ends = [e.lowerBound, e.upperBound].filter((v): v is string => v !== null).map((v) => absMoney(subtractMoney(bookValue, v)));
-  const widest = ends.reduce((a, b) => (compareMoney(a, b) >= 0 ? a : b), "0.00");
-  const inside = (e.lowerBound === null || compareMoney(e.lowerBound, bookValue) <= 0) && (e.upperBound === null || compareMoney(bookValue, e.upperBound) <= 0);
-  return (
-    <Callout>
-      {`The recorded book value ${inside ? "lies within" : "lies outside"} the bounds. The largest misstatement consistent with the bounds is ${formatMoney(widest)}, ${relation(widest, tolerable)} tolerable misstatement ${formatMoney(tolerable)}.`}
-    </Callout>
-  );
+function Against({ e }: { e: VariablesResultFigures }) {
+  return <Callout>{e.decision.rule}</Callout>;
 }
 
 const FIGURE_COLUMNS = [{ label: "Measure", flex: 1 }, { label: "Formula", width: 200 }, { label: "Amount", width: 100, align: "right" as const }];
@@ -61,7 +57,7 @@ export function VariablesEvaluation({ e, currency }: { e: VariablesEvaluationBlo
       <Facts
         facts={[
           { label: "Estimator", value: estimatorName(e.estimator) },
-          { label: "Confidence", value: `${formatRate(e.confidence, 0)}, ${SIDES[e.sides].toLowerCase()}` },
+          { label: "Confidence", value: `${formatRate(e.confidence, 0)} (risk of incorrect acceptance ${formatRate(e.decision.riskOfIncorrectAcceptance, 0)}), ${DIRECTION_WORDS[e.decision.direction]}` },
           { label: "Population", value: `N = ${e.populationSize.toLocaleString("en-US")} items, X = ${currency} ${formatMoney(e.populationBookValue)}` },
           { label: "Sample", value: `n = ${e.sampleSize}, book ${formatMoney(e.sampleBookValue)}, audited ${formatMoney(e.sampleAuditedValue)}` },
           { label: "Items with a misstatement", value: String(e.misstatementsInSample) },
@@ -69,7 +65,7 @@ export function VariablesEvaluation({ e, currency }: { e: VariablesEvaluationBlo
       />
       <SubHead>{`Evaluation (${currency})`}</SubHead>
       <Table repeatHeader={false} columns={FIGURE_COLUMNS} rows={figureRows(e, e.estimator, e.populationBookValue)} />
-      <Against e={e} bookValue={e.populationBookValue} tolerable={e.tolerableMisstatement} />
+      <Against e={e} />
     </View>
   );
 }
@@ -80,7 +76,7 @@ export function StratifiedEvaluation({ e, currency }: { e: StratifiedEvaluationB
       <Facts
         facts={[
           { label: "Estimator", value: `${estimatorName(e.estimator)} (stratified)` },
-          { label: "Confidence", value: `${formatRate(e.confidence, 0)}, ${SIDES[e.sides].toLowerCase()}` },
+          { label: "Confidence", value: `${formatRate(e.confidence, 0)} (risk of incorrect acceptance ${formatRate(e.decision.riskOfIncorrectAcceptance, 0)}), ${DIRECTION_WORDS[e.decision.direction]}` },
           { label: "Population", value: `N = ${e.populationSize.toLocaleString("en-US")} items, X = ${currency} ${formatMoney(e.populationBookValue)}` },
           { label: "Items with a misstatement", value: String(e.misstatementsInSample) },
         ]}
@@ -106,7 +102,7 @@ export function StratifiedEvaluation({ e, currency }: { e: StratifiedEvaluationB
       <Text style={[s.small, s.faint, { marginTop: 2 }]}>Standard errors combine as √(Σ SE_h²): the strata are sampled independently.</Text>
       <SubHead>{`Evaluation (${currency})`}</SubHead>
       <Table repeatHeader={false} columns={FIGURE_COLUMNS} rows={figureRows(e, e.estimator, e.populationBookValue)} />
-      <Against e={e} bookValue={e.populationBookValue} tolerable={e.tolerableMisstatement} />
+      <Against e={e} />
     </View>
   );
 }

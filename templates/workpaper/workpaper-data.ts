@@ -11,12 +11,13 @@
  * - Dates without a time (period end): "YYYY-MM-DD".
  * - Optional facts are `null`, never omitted, so a missing value is visible in review.
  */
-import type { Estimator, FactorMode, Sides, StratifiedEstimator } from "@/lib/sampling";
+import type { Estimator, StratifiedEstimator } from "@/lib/sampling";
 import type { MethodRationaleBlock } from "@/lib/advisor/describe";
+import type { EvaluationBlock, Money, ComputedResult } from "@/lib/samples/evaluation-types";
 
 export type { MethodRationaleBlock };
+export type * from "@/lib/samples/evaluation-types";
 
-export type Money = string;
 export type IsoTime = string;
 
 export type SampleMethod = "mus" | "random" | "systematic" | "stratified" | "attribute";
@@ -193,138 +194,23 @@ export interface WorkpaperItem {
   deviationNature: string | null;
 }
 
-/** One ranked tainting in a Stringer bound. */
-export interface StringerRow {
-  rank: number;
-  reference: string;
-  bookValue: Money;
-  auditedValue: Money;
-  /** Tainting as a positive fraction (0.2 = 20%). */
-  tainting: number;
-  /** RF(k) at the bound's confidence. */
-  factor: number;
-  /** RF(k) − RF(k−1), the factor increment applied to this tainting. */
-  factorIncrement: number;
-  /** t_k · J. */
-  projected: Money;
-  /** (RF(k) − RF(k−1) − 1) · t_k · J. */
-  incrementalAllowance: Money;
-}
 
-export interface StringerSide {
-  /** RF(0) and RF(0) · J. */
-  basicPrecisionFactor: number;
-  basicPrecision: Money;
-  rows: StringerRow[];
-  /** Σ t_k · J over the rows (sample part of the projection). */
-  projectedFromSample: Money;
-  /** Top-stratum misstatement in this direction, at its actual amount. */
-  topStratumMisstatement: Money;
-  /** projectedFromSample + topStratumMisstatement. */
-  projected: Money;
-  incrementalAllowance: Money;
-  upperLimit: Money;
-}
-
-export interface MusEvaluationBlock {
-  method: "mus";
-  confidence: number;
-  interval: Money;
-  factorMode: FactorMode;
-  tolerableMisstatement: Money;
-  sampleItems: number;
-  topStratum: { count: number; bookValue: Money; auditedValue: Money };
-  overstatement: StringerSide;
-  understatement: StringerSide;
-  mostLikelyMisstatement: Money;
-  netUpperLimits: { overstatement: Money; understatement: Money };
-  warnings: string[];
-  formulaReferences: string[];
-}
-
-export interface VariablesResultFigures {
-  estimatedAuditedValue: Money;
-  projectedMisstatement: Money;
-  standardError: Money;
-  allowance: Money;
-  /** null when the side is not bounded (one-sided evaluation). */
-  lowerBound: Money | null;
-  upperBound: Money | null;
-  misstatementsInSample: number;
-  z: number;
-}
-
-export interface VariablesEvaluationBlock extends VariablesResultFigures {
-  method: "variables";
-  estimator: Estimator;
-  confidence: number;
-  sides: Sides;
-  tolerableMisstatement: Money;
-  populationSize: number;
-  populationBookValue: Money;
-  sampleSize: number;
-  sampleBookValue: Money;
-  sampleAuditedValue: Money;
-  warnings: string[];
-  formulaReferences: string[];
-}
-
-export interface StratumEvaluationRow {
-  number: number;
+export interface AuditorResponseLine {
+  kind: string;
+  /** The response in words ("Ask the client to adjust (amount)"). */
   label: string;
-  populationSize: number;
-  populationBookValue: Money;
-  sampleSize: number;
-  sampleBookValue: Money;
-  sampleAuditedValue: Money;
-  misstatementsInSample: number;
-  estimatedAuditedValue: Money;
-  standardError: Money;
+  /** Overstatement positive; null for responses without an amount. */
+  amount: Money | null;
+  note: string | null;
 }
 
-export interface StratifiedEvaluationBlock extends VariablesResultFigures {
-  method: "stratified";
-  estimator: StratifiedEstimator;
-  confidence: number;
-  sides: Sides;
-  tolerableMisstatement: Money;
-  populationSize: number;
-  populationBookValue: Money;
-  strata: StratumEvaluationRow[];
-  warnings: string[];
-  formulaReferences: string[];
-}
-
-export interface AttributesEvaluationBlock {
-  method: "attributes";
-  confidence: number;
-  tolerableRate: number;
-  expectedRate: number;
-  sampleSize: number;
-  allowedDeviations: number;
-  deviations: number;
-  sampleRate: number;
-  upperDeviationLimit: number;
-  /** "exact" Clopper–Pearson limit, or "table" (rounded up to 0.1 point as the published tables). */
-  limitMode: "exact" | "table";
-  warnings: string[];
-  formulaReferences: string[];
-}
-
-export type EvaluationBlock =
-  | MusEvaluationBlock
-  | VariablesEvaluationBlock
-  | StratifiedEvaluationBlock
-  | AttributesEvaluationBlock;
-
+/** The computed result (labelled as computed by Sondage, with its rule) apart from the auditor's own conclusion. */
 export interface ConclusionBlock {
-  /** The auditor's conclusion in their words; null while not yet written. */
-  text: string | null;
-  /** Whether the evaluation supports the conclusion that the population is not materially misstated
-   *  (or the control operated); null while not concluded. */
-  supported: boolean | null;
-  concludedBy: string | null;
-  concludedAt: IsoTime | null;
+  computed: ComputedResult;
+  /** How items that could not be audited were treated, and the method's cautions. */
+  notes: string[];
+  /** The auditor's conclusion and response in their words; null while not yet written. */
+  auditor: { conclusion: string; responses: AuditorResponseLine[]; writtenBy: string; role: string; writtenAt: IsoTime } | null;
 }
 
 export interface ReviewNote {

@@ -27,5 +27,8 @@ describe("migrations", () => {
     expect(await tables(db)).toContain("engagements");
     const [cols] = await db.raw("SHOW COLUMNS FROM engagements WHERE Field = 'overall_materiality'");
     expect(cols[0].Type).toBe("decimal(18,2)");
+    // 0011: the auditor's conclusion and response live beside the sample's sign-offs.
+    const [conclusionCols] = await db.raw("SHOW COLUMNS FROM samples WHERE Field LIKE 'auditor_%'");
+    expect((conclusionCols as { Field: string }[]).map((c) => c.Field).sort()).toEqual(["auditor_conclusion", "auditor_conclusion_at", "auditor_conclusion_by", "auditor_conclusion_role", "auditor_responses_json"]);
   });
 });

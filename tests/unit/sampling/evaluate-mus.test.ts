@@ -117,3 +117,11 @@ describe("evaluateMus (Stringer bound)", () => {
       expect(() => evaluateMus({ interval: 10, confidence: 0.95, sample: [], topStratum: [{ bookValue: 50 } as never] })).toThrow(/topStratum\[0\]\.auditedValue must be a number/));
   });
 });
+
+describe("evaluateMus below 63 % confidence (issue 13 §3)", () => {
+  it("refuses, naming confidence and saying why", () => {
+    // scipy.stats.gamma.ppf: at 0.62, RF(0) = 0.9676 < 1; at 0.50, RF(1) − RF(0) = 0.9852 < 1.
+    expect(() => evaluateMus({ interval: 1000, confidence: 0.62, sample: [] })).toThrow(/^confidence must be at least 63%.*RF\(0\) drops under 1/);
+    expect(() => evaluateMus({ interval: 1000, confidence: 0.63, sample: [] })).not.toThrow();
+  });
+});

@@ -12,7 +12,7 @@ export const SECTION_TITLES = [
   "4 Selection",
   "5 Results",
   "6 Evaluation",
-  "7 Conclusion",
+  "7 Result and conclusion",
   "8 Review notes",
   "9 Sign-offs",
   "A Appendix — audit trail",
@@ -42,8 +42,13 @@ export function expectCommonContent(pdf: RenderedPdf, data: WorkpaperData): void
   });
   // The caution in full, on the conclusion page as well as in every footer.
   expect(pdf.flat).toContain(CAUTION);
-  const conclusionPage = pdf.pages.find((p) => squash(p).includes("7 Conclusion"))!;
+  const conclusionPage = pdf.pages.find((p) => squash(p).includes("7 Result and conclusion"))!;
   expect(conclusionPage.replace(/\s+/g, " ")).toContain("CAUTION");
+  // Issue 13 §6: the computed result, labelled as Sondage's with its rule, apart from the auditor's conclusion (who, when).
+  expect(text).toContain("Computed by Sondage");
+  expect(squash(data.conclusion.computed.statement).length).toBeGreaterThan(0);
+  expect(text).toContain(squash(data.conclusion.computed.statement));
+  if (data.conclusion.auditor) expect(text).toContain(`Written by ${data.conclusion.auditor.writtenBy} (${data.conclusion.auditor.role})`);
 }
 
 export function expectDraftState(pdf: RenderedPdf, draft: boolean): void {

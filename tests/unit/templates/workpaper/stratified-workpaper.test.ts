@@ -25,6 +25,7 @@ describe("stratified workpaper", () => {
     expect(combined).toBeCloseTo(Number(e.standardError), 0);
     expect(text).toContain("Combined ratio (stratified)");
     expect(text).toContain(formatMoney(e.standardError));
-    expect(text).toContain("Not yet concluded");
+    expect(text).toContain("conclusion and response");
+    expect(text).toContain(formatMoney(e.decision.achievedAllowance));
   });
 });

@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { evaluateVariables } from "@/lib/sampling";
+import { normalQuantile } from "@/lib/sampling/quantiles";
 import { variablesFixture } from "@/tests/support/workpaper";
 import { formatMoney } from "@/templates/workpaper/format";
 import type { VariablesEvaluationBlock } from "@/templates/workpaper/workpaper-data";
@@ -21,13 +22,15 @@ describe("classical variables workpaper", () => {
       estimator: "difference", populationSize: e.populationSize, populationBookValue: Number(e.populationBookValue),
       sample: data.items.map((i) => ({ bookValue: Number(i.bookValue), auditedValue: Number(i.auditedValue) })), confidence: e.confidence, sides: e.sides,
     });
-    expect(Number(e.allowance)).toBeCloseTo(direct.allowance, 2);
+    expect(Number(e.standardError)).toBeCloseTo(direct.standardError, 2);
+    // AICPA Audit Guide decision rule: A′ = z_α·SE with z_α two-sided at 1 − RIR/2 (both directions tested).
+    expect(Number(e.decision.achievedAllowance)).toBeCloseTo(normalQuantile(1 - e.decision.riskOfIncorrectRejection / 2) * direct.standardError, 2);
     const text = squash(pdf.text);
-    for (const amount of [e.estimatedAuditedValue, e.projectedMisstatement, e.standardError, e.allowance, e.lowerBound!, e.upperBound!]) {
+    for (const amount of [e.estimatedAuditedValue, e.projectedMisstatement, e.standardError, e.decision.plannedAllowance, e.decision.achievedAllowance, e.decision.allowance, e.decision.lowerLimit!, e.decision.upperLimit!]) {
       expect(text).toContain(formatMoney(amount));
     }
     expect(text).toContain("Ŷ = X + N · d̄");
-    expect(text).toContain("A = z · √v");
+    expect(text).toContain("A′ z_α · SE");
     expect(pdf.flat).toContain("Cochran, Sampling Techniques, 3rd ed. (1977)");
     // Reconciliation difference and its explanation.
     expect(text).toContain("125.40");

@@ -1,17 +1,18 @@
 /**
- * Builds the workpaper's evaluation blocks from sample items by calling the engine, so the printed
- * tables are the engine's own results (rounded to cents only for printing). Shared by the fixtures
- * and by the server code that assembles a real workpaper.
+ * The evaluation view model's figures, built once from sample items by calling the engine (rounded
+ * to cents only here): the sample page, `GET …/evaluation` and the PDF workpaper print these blocks
+ * as they are. Pure (no I/O), so the workpaper fixtures and tests build them too.
  */
 import { centsToDecimal, decimalToCents } from "@/lib/money";
 import {
-  evaluateAttributes, evaluateMus, evaluateStratified, evaluateVariables, poissonFactor,
-  type Estimator, type FactorMode, type Sides, type StratifiedEstimator, type VariablesEvaluation,
+  classicalDecision, evaluateAttributes, evaluateMus, evaluateStratified, evaluateVariables, poissonFactor,
+  type ClassicalDistribution, type Estimator, type FactorMode, type Sides, type StratifiedEstimator, type TestDirection, type VariablesEvaluation,
 } from "@/lib/sampling";
 import type {
-  AttributesEvaluationBlock, Money, MusEvaluationBlock, StratifiedEvaluationBlock, StringerRow, StringerSide,
+  AttributesEvaluationBlock, ClassicalDecisionFigures, Money, MusEvaluationBlock, StratifiedEvaluationBlock, StringerRow, StringerSide,
   VariablesEvaluationBlock, VariablesResultFigures,
-} from "./workpaper-data";
+} from "./evaluation-types";
+import { describeClassicalRule, describeMusLimits, MUS_UNDERSTATEMENT_CAUTION } from "./evaluation-words";
 
 export interface EvaluatedItem { reference: string; bookValue: Money; auditedValue: Money; topStratum?: boolean }
 
@@ -26,7 +27,8 @@ const pair = (i: EvaluatedItem) => ({ bookValue: toNumber(i.bookValue), auditedV
 
 export const MUS_REFERENCES = [
   "Stringer bound as presented in the AICPA Audit Guide \"Audit Sampling\" and in Leslie, Teitlebaum & Anderson, Dollar-Unit Sampling (1979): basic precision RF(0)·J, projection Σ t_k·J ranked by tainting, incremental allowance Σ (RF(k) − RF(k−1) − 1)·t_k·J.",
-  "Reliability factors RF(k): upper confidence limit of a Poisson mean after k events, the gamma(k + 1) quantile at the confidence; \"table\" mode rounds it up to 2 decimals as the published factor tables.",
+  "Reliability factors RF(k): upper confidence limit of a Poisson mean after k events, the gamma(k + 1) quantile at the confidence; \"table\" mode rounds it up to 2 decimals as the published factor tables. Confidence below 63% is refused: RF(0) drops under 1 there, and lower still the increments RF(k) − RF(k−1) drop under 1.",
+  "Gross or net: the firm's methodology setting, stamped on the plan, says whether the upper limit of each direction is compared with TM as it stands (gross, the default) or after deducting the other direction's projected misstatement (net).",
   "Top-stratum items (book value at or above the interval) are examined in full and enter the projection at their actual misstatement, with no allowance.",
 ];
 
@@ -64,6 +66,7 @@ function stringerSide(
 /** Monetary-unit evaluation: `items` are the audited hits (top-stratum items flagged). */
 export function buildMusEvaluation(o: {
   interval: number; confidence: number; factorMode: FactorMode; tolerableMisstatement: Money; items: EvaluatedItem[];
+  direction: TestDirection; limits: "gross" | "net";
 }): MusEvaluationBlock {
   const sampleItems = o.items.filter((i) => !i.topStratum);
   const topItems = o.items.filter((i) => i.topStratum);
@@ -87,48 +90,85 @@ export function buildMusEvaluation(o: {
     understatement: stringerSide(under, result.understatement, o.interval, factors),
     mostLikelyMisstatement: money(result.mostLikelyMisstatement),
     netUpperLimits: { overstatement: money(result.netUpperLimits.overstatement), understatement: money(result.netUpperLimits.understatement) },
+    ...musDecision(result, o),
     warnings: result.warnings,
     formulaReferences: MUS_REFERENCES,
   };
 }
 
+function musDecision(result: ReturnType<typeof evaluateMus>, o: { direction: TestDirection; limits: "gross" | "net"; tolerableMisstatement: Money }) {
+  const limitOf = (d: "overstatement" | "understatement") => money(o.limits === "net" ? result.netUpperLimits[d] : result[d].upperLimit);
+  const tests = (d: "overstatement" | "understatement") => o.direction === "both" || o.direction === d;
+  const compared = {
+    overstatement: tests("overstatement") ? limitOf("overstatement") : null,
+    understatement: tests("understatement") ? limitOf("understatement") : null,
+  };
+  const tm = decimalToCents(o.tolerableMisstatement);
+  const supported = [compared.overstatement, compared.understatement].every((v) => v === null || decimalToCents(v) <= tm);
+  return {
+    direction: o.direction, limits: o.limits, compared, supported,
+    statement: describeMusLimits({ compared, limits: o.limits, tolerable: o.tolerableMisstatement, supported }),
+    understatementCaution: tests("understatement") ? MUS_UNDERSTATEMENT_CAUTION : null,
+  };
+}
+
 export const VARIABLES_REFERENCES = [
   "W. G. Cochran, Sampling Techniques, 3rd ed. (1977): mean per unit ch. 2; difference and ratio estimators ch. 6 (ratio variance eq. 6.9); regression estimator ch. 7; stratified estimators ch. 5 and §§6.10–6.11; all with the finite population correction (1 − f), f = n/N.",
-  "Allowance for sampling risk A = z·SE with z the standard normal quantile: two-sided at (1 + c)/2, one-sided at c.",
+  "Decision rule (AICPA Audit Guide \"Audit Sampling\", classical variables): achieved allowance A′ = z_α·SE with z_α for the planned risk of incorrect rejection, on the sides the plan was sized with; when A′ > A (planned), the adjusted allowance A″ = A′ + TM·(1 − A′/A). The recorded amount is supported when it lies within Ŷ ± the allowance on the side(s) tested.",
+  "Student t (when the firm chooses it): n − 1 degrees of freedom, regression n − 2, stratified Satterthwaite's effective degrees of freedom (Biometrics Bulletin 2, 1946).",
 ];
 
-function figures(r: VariablesEvaluation): VariablesResultFigures {
+/** What the classical decision needs from the plan: its direction, risks, planned allowance and z_α sides. */
+export interface ClassicalPlanInputs {
+  direction: TestDirection;
+  riskOfIncorrectRejection: number;
+  plannedAllowance: number;
+  plannedSides: "two" | "one";
+  distribution: ClassicalDistribution;
+}
+
+function figures(r: VariablesEvaluation, o: ClassicalPlanInputs & { confidence: number; tolerableMisstatement: Money; populationBookValue: Money }): VariablesResultFigures {
+  const d = classicalDecision({
+    bookValue: toNumber(o.populationBookValue), estimatedAuditedValue: r.estimatedAuditedValue, standardError: r.standardError,
+    tolerableMisstatement: toNumber(o.tolerableMisstatement), plannedAllowance: o.plannedAllowance, riskOfIncorrectRejection: o.riskOfIncorrectRejection,
+    direction: o.direction, plannedSides: o.plannedSides, distribution: o.distribution, degreesOfFreedom: r.degreesOfFreedom,
+  });
+  const decision: Omit<ClassicalDecisionFigures, "rule"> = {
+    direction: o.direction, riskOfIncorrectRejection: o.riskOfIncorrectRejection, riskOfIncorrectAcceptance: 1 - o.confidence,
+    distribution: d.distribution, degreesOfFreedom: d.degreesOfFreedom, coefficientSides: d.coefficientSides, coefficient: d.coefficient,
+    plannedAllowance: money(o.plannedAllowance), achievedAllowance: money(d.achievedAllowance),
+    adjustedAllowance: d.adjustedAllowance === null ? null : money(d.adjustedAllowance), allowance: money(d.allowance),
+    lowerLimit: Number.isFinite(d.lowerLimit) ? money(d.lowerLimit) : null, upperLimit: Number.isFinite(d.upperLimit) ? money(d.upperLimit) : null,
+    beyondLimit: money(d.beyondLimit), beyond: d.beyond, supported: d.supported,
+  };
   return {
     estimatedAuditedValue: money(r.estimatedAuditedValue),
     projectedMisstatement: money(r.projectedMisstatement),
     standardError: money(r.standardError),
-    allowance: money(r.allowance),
-    lowerBound: Number.isFinite(r.lowerBound) ? money(r.lowerBound) : null,
-    upperBound: Number.isFinite(r.upperBound) ? money(r.upperBound) : null,
     misstatementsInSample: r.misstatementsInSample,
-    z: r.zValue,
+    decision: { ...decision, rule: describeClassicalRule({ ...decision, estimatedAuditedValue: money(r.estimatedAuditedValue), standardError: money(r.standardError), bookValue: o.populationBookValue, tolerableMisstatement: o.tolerableMisstatement }) },
   };
 }
 
-export function buildVariablesEvaluation(o: {
+export function buildVariablesEvaluation(o: ClassicalPlanInputs & {
   estimator: Estimator; confidence: number; sides: Sides; tolerableMisstatement: Money;
   populationSize: number; populationBookValue: Money; items: EvaluatedItem[];
 }): VariablesEvaluationBlock {
-  const r = evaluateVariables({ estimator: o.estimator, populationSize: o.populationSize, populationBookValue: toNumber(o.populationBookValue), sample: o.items.map(pair), confidence: o.confidence, sides: o.sides });
+  const r = evaluateVariables({ estimator: o.estimator, populationSize: o.populationSize, populationBookValue: toNumber(o.populationBookValue), sample: o.items.map(pair), confidence: o.confidence, sides: o.sides, distribution: o.distribution });
   return {
     method: "variables", estimator: o.estimator, confidence: o.confidence, sides: o.sides, tolerableMisstatement: o.tolerableMisstatement,
     populationSize: o.populationSize, populationBookValue: o.populationBookValue, sampleSize: o.items.length,
     sampleBookValue: sumMoney(o.items.map((i) => i.bookValue)), sampleAuditedValue: sumMoney(o.items.map((i) => i.auditedValue)),
-    ...figures(r), warnings: r.warnings, formulaReferences: VARIABLES_REFERENCES,
+    ...figures(r, o), warnings: r.warnings, formulaReferences: VARIABLES_REFERENCES,
   };
 }
 
-export function buildStratifiedEvaluation(o: {
+export function buildStratifiedEvaluation(o: ClassicalPlanInputs & {
   estimator: StratifiedEstimator; confidence: number; sides: Sides; tolerableMisstatement: Money;
   strata: { label: string; populationSize: number; populationBookValue: Money; items: EvaluatedItem[] }[];
 }): StratifiedEvaluationBlock {
   const r = evaluateStratified({
-    estimator: o.estimator, confidence: o.confidence, sides: o.sides,
+    estimator: o.estimator, confidence: o.confidence, sides: o.sides, distribution: o.distribution,
     strata: o.strata.map((st) => ({ populationSize: st.populationSize, populationBookValue: toNumber(st.populationBookValue), sample: st.items.map(pair) })),
   });
   return {
@@ -141,7 +181,7 @@ export function buildStratifiedEvaluation(o: {
       misstatementsInSample: st.items.filter((i) => decimalToCents(i.bookValue) !== decimalToCents(i.auditedValue)).length,
       estimatedAuditedValue: money(r.strata[h].estimatedAuditedValue), standardError: money(r.strata[h].standardError),
     })),
-    ...figures(r), warnings: r.warnings, formulaReferences: VARIABLES_REFERENCES,
+    ...figures(r, { ...o, populationBookValue: sumMoney(o.strata.map((st) => st.populationBookValue)) }), warnings: r.warnings, formulaReferences: VARIABLES_REFERENCES,
   };
 }
 
@@ -155,9 +195,13 @@ export function buildAttributesEvaluation(o: {
   deviations: number; limitMode?: "exact" | "table";
 }): AttributesEvaluationBlock {
   const r = evaluateAttributes({ sampleSize: o.sampleSize, deviations: o.deviations, confidence: o.confidence, mode: o.limitMode });
+  const supported = r.upperLimit <= o.tolerableRate;
+  const pct = (v: number) => `${(v * 100).toFixed(2)}%`;
   return {
     method: "attributes", confidence: o.confidence, tolerableRate: o.tolerableRate, expectedRate: o.expectedRate,
     sampleSize: o.sampleSize, allowedDeviations: o.allowedDeviations, deviations: o.deviations,
-    sampleRate: r.sampleRate, upperDeviationLimit: r.upperLimit, limitMode: r.mode, warnings: [], formulaReferences: ATTRIBUTES_REFERENCES,
+    sampleRate: r.sampleRate, upperDeviationLimit: r.upperLimit, limitMode: r.mode, allowanceForSamplingRisk: r.upperLimit - r.sampleRate, supported,
+    statement: `${o.deviations} deviation${o.deviations === 1 ? "" : "s"} in ${o.sampleSize}: the upper deviation limit ${pct(r.upperLimit)} is ${supported ? "at or below" : "above"} the tolerable deviation rate ${pct(o.tolerableRate)}${o.deviations > o.allowedDeviations ? `; more deviations were found (${o.deviations}) than the plan allowed (${o.allowedDeviations})` : ""}.`,
+    warnings: [], formulaReferences: ATTRIBUTES_REFERENCES,
   };
 }

@@ -1,0 +1,191 @@
+/**
+ * The evaluation view model's figures: one block per method, built once in lib/samples from the
+ * engine's results and printed as they are by the sample page, `GET …/evaluation` and the PDF
+ * workpaper (templates compute nothing). Money is a decimal string with 2 places ("1234.56").
+ */
+import type { ClassicalDistribution, Estimator, FactorMode, Sides, StratifiedEstimator, TestDirection } from "@/lib/sampling";
+
+export type Money = string;
+
+/** One ranked tainting in a Stringer bound. */
+export interface StringerRow {
+  rank: number;
+  reference: string;
+  bookValue: Money;
+  auditedValue: Money;
+  /** Tainting as a positive fraction (0.2 = 20%). */
+  tainting: number;
+  /** RF(k) at the bound's confidence. */
+  factor: number;
+  /** RF(k) − RF(k−1), the factor increment (the incremental allowance uses it less 1). */
+  factorIncrement: number;
+  /** t_k · J. */
+  projected: Money;
+  /** (RF(k) − RF(k−1) − 1) · t_k · J. */
+  incrementalAllowance: Money;
+}
+
+export interface StringerSide {
+  /** RF(0) and RF(0) · J. */
+  basicPrecisionFactor: number;
+  basicPrecision: Money;
+  rows: StringerRow[];
+  /** Σ t_k · J over the rows (sample part of the projection). */
+  projectedFromSample: Money;
+  /** Top-stratum misstatement in this direction, at its actual amount. */
+  topStratumMisstatement: Money;
+  /** projectedFromSample + topStratumMisstatement. */
+  projected: Money;
+  incrementalAllowance: Money;
+  upperLimit: Money;
+}
+
+export interface MusEvaluationBlock {
+  method: "mus";
+  confidence: number;
+  interval: Money;
+  factorMode: FactorMode;
+  tolerableMisstatement: Money;
+  sampleItems: number;
+  topStratum: { count: number; bookValue: Money; auditedValue: Money };
+  overstatement: StringerSide;
+  understatement: StringerSide;
+  mostLikelyMisstatement: Money;
+  netUpperLimits: { overstatement: Money; understatement: Money };
+  /** The direction(s) the plan tests. */
+  direction: TestDirection;
+  /** The firm's convention stamped on the plan: compare gross upper limits with TM, or net ones. */
+  limits: "gross" | "net";
+  /** The limits compared with TM under that convention, for the directions tested (null: not tested). */
+  compared: { overstatement: Money | null; understatement: Money | null };
+  supported: boolean;
+  /** The comparison in words, with the convention named. */
+  statement: string;
+  /** Why an understatement test by monetary-unit sampling needs care; null when understatement is not tested. */
+  understatementCaution: string | null;
+  warnings: string[];
+  formulaReferences: string[];
+}
+
+/** The classical variables decision rule (lib/sampling classicalDecision) as printed. */
+export interface ClassicalDecisionFigures {
+  direction: TestDirection;
+  riskOfIncorrectRejection: number;
+  riskOfIncorrectAcceptance: number;
+  distribution: ClassicalDistribution;
+  /** Student t only: n − 1, regression n − 2, stratified Satterthwaite's. */
+  degreesOfFreedom: number | null;
+  /** The sides of z_α used at planning and therefore at evaluation. */
+  coefficientSides: "two" | "one";
+  /** z_α (or t_α). */
+  coefficient: number;
+  /** A, planned. */
+  plannedAllowance: Money;
+  /** A′ = z_α · SE. */
+  achievedAllowance: Money;
+  /** A″ = A′ + TM · (1 − A′/A), when A′ > A; otherwise null. */
+  adjustedAllowance: Money | null;
+  /** The allowance the interval uses (A′ or A″). */
+  allowance: Money;
+  /** Ŷ − allowance; null when understatement is not tested. */
+  lowerLimit: Money | null;
+  /** Ŷ + allowance; null when overstatement is not tested. */
+  upperLimit: Money | null;
+  /** How far BV lies beyond the nearest limit tested ("0.00" when within). */
+  beyondLimit: Money;
+  beyond: "upper" | "lower" | null;
+  supported: boolean;
+  /** The rule in words, with the figures substituted. */
+  rule: string;
+}
+
+export interface VariablesResultFigures {
+  estimatedAuditedValue: Money;
+  projectedMisstatement: Money;
+  standardError: Money;
+  misstatementsInSample: number;
+  decision: ClassicalDecisionFigures;
+}
+
+export interface VariablesEvaluationBlock extends VariablesResultFigures {
+  method: "variables";
+  estimator: Estimator;
+  confidence: number;
+  sides: Sides;
+  tolerableMisstatement: Money;
+  populationSize: number;
+  populationBookValue: Money;
+  sampleSize: number;
+  sampleBookValue: Money;
+  sampleAuditedValue: Money;
+  warnings: string[];
+  formulaReferences: string[];
+}
+
+export interface StratumEvaluationRow {
+  number: number;
+  label: string;
+  populationSize: number;
+  populationBookValue: Money;
+  sampleSize: number;
+  sampleBookValue: Money;
+  sampleAuditedValue: Money;
+  misstatementsInSample: number;
+  estimatedAuditedValue: Money;
+  standardError: Money;
+}
+
+export interface StratifiedEvaluationBlock extends VariablesResultFigures {
+  method: "stratified";
+  estimator: StratifiedEstimator;
+  confidence: number;
+  sides: Sides;
+  tolerableMisstatement: Money;
+  populationSize: number;
+  populationBookValue: Money;
+  strata: StratumEvaluationRow[];
+  warnings: string[];
+  formulaReferences: string[];
+}
+
+export interface AttributesEvaluationBlock {
+  method: "attributes";
+  confidence: number;
+  tolerableRate: number;
+  expectedRate: number;
+  sampleSize: number;
+  allowedDeviations: number;
+  deviations: number;
+  sampleRate: number;
+  upperDeviationLimit: number;
+  /** "exact" Clopper–Pearson limit, or "table" (rounded up to 0.1 point as the published tables). */
+  limitMode: "exact" | "table";
+  /** UDL − k/n. */
+  allowanceForSamplingRisk: number;
+  supported: boolean;
+  statement: string;
+  warnings: string[];
+  formulaReferences: string[];
+}
+
+export type EvaluationBlock =
+  | MusEvaluationBlock
+  | VariablesEvaluationBlock
+  | StratifiedEvaluationBlock
+  | AttributesEvaluationBlock;
+
+/** Where the computed result stands. */
+export type ComputedStatus = "no-results" | "provisional" | "supported" | "not-supported" | "not-evaluable";
+
+/** The result as computed by Sondage, kept apart from the auditor's own conclusion. */
+export interface ComputedResult {
+  status: ComputedStatus;
+  /** null until every item has a result. */
+  supported: boolean | null;
+  /** One sentence: provisional wording until every item has a result. */
+  statement: string;
+  /** The decision rule in words, so a reviewer can re-perform it. */
+  rule: string;
+  /** The computed result calls for a recorded response: not supported, or the limit close to tolerable. */
+  responseNeeded: boolean;
+}
