@@ -13,7 +13,7 @@ import { buildKnexConfig } from "@/db/knex-config";
 import { getObjectStream } from "@/lib/storage/objects";
 import { call } from "./support/call";
 import { makeEngagement, makeFirm, makeUser } from "./support/factory";
-import { drawSample, listSampleItems, loadCanonicalPopulation, planSample, saveResult } from "./support/samples";
+import { drawSample, listSampleItems, loadCanonicalPopulation, planSample, saveResult, concludeSample } from "./support/samples";
 import * as signOff from "@/app/api/engagements/[engagementId]/samples/[sampleId]/sign-off/route";
 import * as lock from "@/app/api/engagements/[engagementId]/samples/[sampleId]/lock/route";
 
@@ -34,6 +34,7 @@ beforeAll(async () => {
     await saveResult(staff, engagement, sampleId, it.id, { version: it.version, status: "done", auditedValue: it.bookValue });
   }
   const p = { engagementId: String(engagement), sampleId: String(sampleId) };
+  expect((await concludeSample(staff, engagement, sampleId)).status).toBe(200);
   expect((await call(signOff.POST, "POST", { as: staff, params: p, body: { as: "preparer" } })).status).toBe(200);
   expect((await call(signOff.POST, "POST", { as: manager, params: p, body: { as: "reviewer" } })).status).toBe(200);
   expect((await call(lock.POST, "POST", { as: manager, params: p })).status).toBe(200);

@@ -6,7 +6,7 @@ import { runRequestReminders } from "@/lib/requests/reminders";
 import { call, callRaw } from "./support/call";
 import { auditCount, makeEngagement, makeFirm, makeUser } from "./support/factory";
 import { addressedTo, clearInbox, readInbox, waitForMessage } from "./support/inbox";
-import { drawSample, listSampleItems, loadCanonicalPopulation, planSample, saveResult } from "./support/samples";
+import { drawSample, listSampleItems, loadCanonicalPopulation, planSample, saveResult, concludeSample } from "./support/samples";
 import * as contacts from "@/app/api/engagements/[engagementId]/client-contacts/route";
 import * as teamLists from "@/app/api/engagements/[engagementId]/samples/[sampleId]/requests/route";
 import * as teamList from "@/app/api/engagements/[engagementId]/samples/[sampleId]/requests/[listId]/route";
@@ -230,6 +230,7 @@ describe("request lists", () => {
     for (const it of await listSampleItems(staff, engagement, sampleId)) {
       if (it.status === "not-started") await saveResult(staff, engagement, sampleId, it.id, { version: it.version, status: "done", auditedValue: it.bookValue });
     }
+    expect((await concludeSample(staff, engagement, sampleId)).status).toBe(200);
     expect((await call(signOff.POST, "POST", { as: staff, params: sp(), body: { as: "preparer" } })).status).toBe(200);
     expect((await call(signOff.POST, "POST", { as: manager, params: sp(), body: { as: "reviewer" } })).status).toBe(200);
     expect((await call(lock.POST, "POST", { as: manager, params: sp() })).status).toBe(200);

@@ -265,7 +265,7 @@ describe("the fieldwork workbook import", () => {
     expect(res.status).toBe(200);
     expect(res.json.changed).toBe(8);
     const evaluation = await getEvaluation(staff, engagement, sampleId);
-    expect(evaluation.evaluation).toMatchObject({ kind: "attribute", sampleSize: 8, deviations: 1 });
+    expect(evaluation.block).toMatchObject({ method: "attributes", sampleSize: 8, deviations: 1 });
     const nature = await getDb()("sample_items").where({ sample_id: sampleId, deviation: true }).first();
     expect(nature.deviation_nature).toBe("Approval signature missing");
   });

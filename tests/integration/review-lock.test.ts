@@ -8,7 +8,7 @@ import { getDb } from "@/db/knex";
 import { call, callRaw } from "./support/call";
 import { makeEngagement, makeFirm, makeUser } from "./support/factory";
 import { addressedTo, waitForMessage } from "./support/inbox";
-import { drawSample, listSampleItems, loadCanonicalPopulation, planSample, saveResult } from "./support/samples";
+import { drawSample, listSampleItems, loadCanonicalPopulation, planSample, saveResult, concludeSample } from "./support/samples";
 import * as one from "@/app/api/engagements/[engagementId]/samples/[sampleId]/route";
 import * as draw from "@/app/api/engagements/[engagementId]/samples/[sampleId]/draw/route";
 import * as reperform from "@/app/api/engagements/[engagementId]/samples/[sampleId]/reperform/route";
@@ -58,8 +58,15 @@ describe("sign-offs", () => {
     expect(r.json.error.message).toMatch(/no result yet/);
   });
 
-  it("lets staff sign off as preparer, e-mails the reviewers, and refuses a manager as preparer", async () => {
+  it("needs the auditor's conclusion (and response where called for) before the preparer signs off", async () => {
     await recordEverything();
+    const r = await call(signOff.POST, "POST", { as: staff, params: p(), body: { as: "preparer" } });
+    expect(r.status).toBe(409);
+    expect(r.json.error.message).toMatch(/auditor's conclusion/);
+  });
+
+  it("lets staff sign off as preparer, e-mails the reviewers, and refuses a manager as preparer", async () => {
+    expect((await concludeSample(staff, engagement, sampleId)).status).toBe(200);
     expect((await call(signOff.POST, "POST", { as: manager, params: p(), body: { as: "preparer" } })).status).toBe(403);
     const r = await call(signOff.POST, "POST", { as: staff, params: p(), body: { as: "preparer" } });
     expect(r.status).toBe(200);
@@ -74,6 +81,9 @@ describe("sign-offs", () => {
     expect(r.json.signOffsCleared).toBe(true);
     const view = await call(one.GET, "GET", { as: staff, params: p() });
     expect(view.json.review.preparer).toBeNull();
+    // The auditor's conclusion went with them (issue 13 §6): the preparer records it again.
+    expect((await call(signOff.POST, "POST", { as: staff, params: p(), body: { as: "preparer" } })).status).toBe(409);
+    expect((await concludeSample(staff, engagement, sampleId)).status).toBe(200);
     expect((await call(signOff.POST, "POST", { as: staff, params: p(), body: { as: "preparer" } })).status).toBe(200);
   });
 });

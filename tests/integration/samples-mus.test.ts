@@ -149,18 +149,26 @@ describe("monetary-unit sample: fieldwork and the Stringer bound", () => {
     const basic = RF[0] * J;
     const projectedOver = over.reduce((s, t) => s + t * J, 0) + 500;
     const allowanceOver = over.reduce((s, t, k) => s + (RF[k + 1] - RF[k] - 1) * t * J, 0);
-    expect(ev.evaluation.kind).toBe("mus");
-    expect(ev.evaluation.factorMode).toBe("table");
-    expect(ev.evaluation.result.overstatement.basicPrecision).toBeCloseTo(basic, 6);
-    expect(ev.evaluation.result.overstatement.projected).toBeCloseTo(projectedOver, 6);
-    expect(ev.evaluation.result.overstatement.incrementalAllowance).toBeCloseTo(allowanceOver, 6);
-    expect(ev.evaluation.result.overstatement.upperLimit).toBeCloseTo(basic + projectedOver + allowanceOver, 6);
-    expect(ev.evaluation.result.understatement.upperLimit).toBeCloseTo(RF[0] * J + 0.05 * J + (RF[1] - RF[0] - 1) * 0.05 * J, 6);
+    const b = ev.block;
+    expect(b.method).toBe("mus");
+    expect(b.factorMode).toBe("table");
+    expect(Number(b.overstatement.basicPrecision)).toBeCloseTo(basic, 2);
+    expect(Number(b.overstatement.projected)).toBeCloseTo(projectedOver, 2);
+    expect(Number(b.overstatement.incrementalAllowance)).toBeCloseTo(allowanceOver, 2);
+    expect(Number(b.overstatement.upperLimit)).toBeCloseTo(basic + projectedOver + allowanceOver, 2);
+    expect(Number(b.understatement.upperLimit)).toBeCloseTo(RF[0] * J + 0.05 * J + (RF[1] - RF[0] - 1) * 0.05 * J, 2);
     // Net limits subtract the opposite direction's projection (lib/sampling/README.md §4).
-    expect(ev.evaluation.result.netUpperLimits.overstatement).toBeCloseTo(basic + projectedOver + allowanceOver - 0.05 * J, 6);
-    expect(ev.evaluation.rows.overstatement.map((r: { factor: number }) => r.factor)).toEqual(RF.slice(1, over.length + 1));
+    expect(Number(b.netUpperLimits.overstatement)).toBeCloseTo(basic + projectedOver + allowanceOver - 0.05 * J, 2);
+    expect(b.overstatement.rows.map((r: { factor: number }) => r.factor)).toEqual(RF.slice(1, over.length + 1));
+    // One meaning of the increment everywhere: RF(k) − RF(k−1).
+    expect(b.overstatement.rows.map((r: { factorIncrement: number }) => r.factorIncrement)).toEqual([RF[1] - RF[0], RF[2] - RF[1]].map((x) => expect.closeTo(x, 9)));
     expect(ev.complete).toBe(true);
-    expect(ev.supported).toBe(ev.upperBound <= 15000);
+    // Gross by default (issue 13 §3): the overstatement test compares the gross upper limit with TM.
+    expect(b.limits).toBe("gross");
+    expect(b.compared).toEqual({ overstatement: b.overstatement.upperLimit, understatement: null });
+    expect(ev.computed.supported).toBe(Number(b.overstatement.upperLimit) <= 15000);
+    expect(b.statement).toMatch(/gross upper limits/);
+    expect(ev.notes.join(" ")).toMatch(/could not be audited counts as fully misstated/);
     expect(ev.caution).toMatch(/AU-C 530, ISA 530, AS 2315/);
     expect(ev.progress).toMatchObject({ notAuditable: 1, notStarted: 0 });
   });
@@ -186,6 +194,6 @@ describe("monetary-unit sample: fieldwork and the Stringer bound", () => {
     const rf0 = gammaQuantile(0.95, 1, 1);
     const rf1 = gammaQuantile(0.95, 2, 1);
     expect(rf0).toBeCloseTo(2.995732, 6); // −ln(0.05)
-    expect(ev.evaluation.result.overstatement.upperLimit).toBeCloseTo(rf0 * 4744 + 0.1 * 4744 + (rf1 - rf0 - 1) * 0.1 * 4744, 4);
+    expect(Number(ev.block.overstatement.upperLimit)).toBeCloseTo(rf0 * 4744 + 0.1 * 4744 + (rf1 - rf0 - 1) * 0.1 * 4744, 2);
   });
 });

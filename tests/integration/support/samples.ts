@@ -6,6 +6,7 @@ import * as draw from "@/app/api/engagements/[engagementId]/samples/[sampleId]/d
 import * as items from "@/app/api/engagements/[engagementId]/samples/[sampleId]/items/route";
 import * as item from "@/app/api/engagements/[engagementId]/samples/[sampleId]/items/[itemId]/route";
 import * as evaluation from "@/app/api/engagements/[engagementId]/samples/[sampleId]/evaluation/route";
+import * as conclusion from "@/app/api/engagements/[engagementId]/samples/[sampleId]/conclusion/route";
 
 /**
  * The canonical 20-invoice population used in the methods reference's worked examples (302 bytes,
@@ -44,3 +45,7 @@ export const saveResult = (as: number, engagementId: number, sampleId: number, i
 export async function getEvaluation(as: number, engagementId: number, sampleId: number) {
   return (await call(evaluation.GET, "GET", { as, params: { engagementId: String(engagementId), sampleId: String(sampleId) } })).json.evaluation;
 }
+
+/** The preparer records the auditor's conclusion (with a response, valid whether or not one is called for). */
+export const concludeSample = (as: number, engagementId: number, sampleId: number, body: Record<string, unknown> = {}) =>
+  call(conclusion.PUT, "PUT", { as, params: { engagementId: String(engagementId), sampleId: String(sampleId) }, body: { conclusion: "Based on this sample and our judgement, the balance is not materially misstated.", responses: [{ kind: "alternative-procedures", note: "Subsequent receipts agreed" }], ...body } });
