@@ -1,5 +1,6 @@
 import type { SampleRecord } from "@/lib/data/samples";
 import type { ClassicalDistribution, FactorMode } from "@/lib/sampling";
+import { methodologyOfSample } from "./methodology";
 
 export interface EvaluationSettings {
   classicalDistribution: ClassicalDistribution;
@@ -7,7 +8,11 @@ export interface EvaluationSettings {
   factorMode: FactorMode;
 }
 
-/** The methodology settings stamped on the plan that evaluation reads (never the firm's current ones). */
+/**
+ * The settings evaluation reads: the firm methodology stamped on the plan (never the firm's current
+ * settings) for the t/z choice and the gross/net convention; the factor mode the plan itself chose.
+ */
 export function evaluationSettingsOf(sample: SampleRecord): EvaluationSettings {
-  return { classicalDistribution: "z", musLimits: "gross", factorMode: sample.params.factorMode };
+  const m = methodologyOfSample(sample);
+  return { classicalDistribution: m.classicalDistribution, musLimits: m.musLimits, factorMode: sample.params.factorMode };
 }
