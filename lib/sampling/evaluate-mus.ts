@@ -1,6 +1,7 @@
 /**
  * Monetary-unit sampling evaluation: the Stringer bound, overstatement and understatement apart.
  */
+import { EngineInputError } from "./errors";
 import { toCents } from "./money";
 import { poissonFactors } from "./poisson-factor";
 import { sampleToCents } from "./sample-input";
@@ -88,7 +89,7 @@ export function evaluateMus(o: {
   const interval = requirePositive("interval", o.interval);
   toCents("interval", interval);
   const confidence = requireOpenFraction("confidence", o.confidence);
-  if (confidence < MUS_MIN_CONFIDENCE) throw new RangeError(`${MUS_CONFIDENCE_MESSAGE} (got ${confidence})`);
+  if (confidence < MUS_MIN_CONFIDENCE) throw new EngineInputError("confidence", `${MUS_CONFIDENCE_MESSAGE} (got ${confidence})`);
   const factorMode = o.factors === undefined ? "exact" : requireOneOf("factors", o.factors, FACTOR_MODES);
   const sample = sampleToCents("sample", o.sample, 0);
   const top = sampleToCents("topStratum", o.topStratum ?? [], 0);

@@ -2,6 +2,7 @@
  * Planned two-stage attribute samples: stage 1 accepts on 0 deviations and rejects on 2 or more;
  * exactly 1 deviation opens stage 2, which accepts only with 0 further deviations.
  */
+import { EngineInputError } from "./errors";
 import { requireFiniteNumber, requireInteger, requireObject, requireOpenFraction } from "./validate";
 
 export interface TwoStageAttributePlan {
@@ -72,12 +73,12 @@ export function twoStageAttributePlan(o: { tolerableRate: number; expectedRate: 
   requireObject("options", o);
   const tolerableRate = requireOpenFraction("tolerableRate", o.tolerableRate);
   const expectedRate = requireFiniteNumber("expectedRate", o.expectedRate);
-  if (expectedRate < 0 || expectedRate >= tolerableRate) throw new RangeError(`expectedRate must be at least 0 and below tolerableRate (${tolerableRate}) (got ${expectedRate})`);
+  if (expectedRate < 0 || expectedRate >= tolerableRate) throw new EngineInputError("expectedRate", `expectedRate must be at least 0 and below tolerableRate (${tolerableRate}) (got ${expectedRate})`);
   const risk = 1 - requireOpenFraction("confidence", o.confidence);
   if (o.firstStageSize !== undefined) {
     const n1 = requireInteger("firstStageSize", o.firstStageSize, 1, MAX_FIRST_STAGE);
     const n2 = smallestSecondStage(n1, tolerableRate, risk);
-    if (n2 === null) throw new RangeError(`firstStageSize must exceed ${Math.ceil(Math.log(risk) / Math.log1p(-tolerableRate)) - 1}: with ${n1} items, stage 1 alone leaves a risk of overreliance above ${risk}`);
+    if (n2 === null) throw new EngineInputError("firstStageSize", `firstStageSize must exceed ${Math.ceil(Math.log(risk) / Math.log1p(-tolerableRate)) - 1}: with ${n1} items, stage 1 alone leaves a risk of overreliance above ${risk}`);
     return planOf(n1, n2, tolerableRate, expectedRate);
   }
   let best: TwoStageAttributePlan | null = null;
@@ -89,7 +90,7 @@ export function twoStageAttributePlan(o: { tolerableRate: number; expectedRate: 
     const [b0, b1] = noneAndOne(n1, tolerableRate);
     if (b0 + b1 <= risk) break; // a larger n₁ is a single-stage plan that accepts one deviation
   }
-  if (!best) throw new RangeError(`tolerableRate ${tolerableRate} needs a first stage above ${MAX_FIRST_STAGE} items`);
+  if (!best) throw new EngineInputError("tolerableRate", `tolerableRate ${tolerableRate} needs a first stage above ${MAX_FIRST_STAGE} items`);
   return best;
 }
 
@@ -112,7 +113,7 @@ export function evaluateTwoStageAttributes(o: { plan: TwoStageAttributePlan; fir
   const riskOfOverreliance = requireOpenFraction("plan.riskOfOverreliance", plan.riskOfOverreliance);
   const k1 = requireInteger("firstStageDeviations", o.firstStageDeviations, 0, n1);
   if (k1 !== 1) {
-    if (o.secondStageDeviations !== undefined) throw new RangeError(`secondStageDeviations must not be given: stage 1 ${k1 === 0 ? "accepted" : "rejected"} with ${k1} deviations`);
+    if (o.secondStageDeviations !== undefined) throw new EngineInputError("secondStageDeviations", `secondStageDeviations must not be given: stage 1 ${k1 === 0 ? "accepted" : "rejected"} with ${k1} deviations`);
     return { stage: 1, decision: k1 === 0 ? "accept" : "reject", riskOfOverreliance };
   }
   if (o.secondStageDeviations === undefined) return { stage: 1, decision: "continue", riskOfOverreliance };
