@@ -1,6 +1,6 @@
 import type { MusEvaluationBlock, StringerSide as Side } from "@/lib/samples/evaluation-types";
 import { Amount } from "@/components/ui/amount";
-import { formatFactor } from "./labels";
+import { formatFactor, formatPercent } from "./labels";
 
 type Direction = "overstatement" | "understatement";
 
@@ -35,7 +35,7 @@ function StringerSide({ side, direction, net }: { side: Side; direction: Directi
           <tr key={r.rank} className="border-t border-ink-line/60">
             <th scope="row" className="py-1.5 pr-2 text-left font-sans font-normal">Rank {r.rank} · {r.reference}</th>
             <td className="py-1.5 pr-2 text-right"><Amount value={r.bookValue} /> / <Amount value={r.auditedValue} /></td>
-            <td className="py-1.5 pr-2 text-right">{formatFactor(r.tainting)}</td>
+            <td className="py-1.5 pr-2 text-right">{formatPercent(r.tainting, 2)}</td>
             <td className="py-1.5 pr-2 text-right">{formatFactor(r.factor)}</td>
             <td className="py-1.5 pr-2 text-right">{formatFactor(r.factorIncrement)}</td>
             <td className="py-1.5 pr-2 text-right"><Amount value={r.projected} /></td>
