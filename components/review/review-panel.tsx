@@ -10,13 +10,15 @@ import { Badge } from "@/components/ui/badge";
 import { Button, buttonClass } from "@/components/ui/button";
 import { Card } from "@/components/ui/card";
 import { ReviewNotes } from "./review-notes";
+import { ConclusionForm } from "./conclusion-form";
+import type { ComputedResult } from "@/lib/samples/evaluation-types";
 
-interface Props { engagementId: number; sampleId: number; role: EngagementRole; review: ReviewState; notes: ReviewNote[]; drawn: boolean }
+interface Props { engagementId: number; sampleId: number; role: EngagementRole; review: ReviewState; notes: ReviewNote[]; drawn: boolean; computed: ComputedResult; complete: boolean }
 
 const when = (iso: string) => new Date(iso).toISOString().replace("T", " ").slice(0, 16) + " UTC";
 
 /** Sign-offs, lock and the workpaper: the panel where a sample becomes final. */
-export function ReviewPanel({ engagementId, sampleId, role, review, notes, drawn }: Props) {
+export function ReviewPanel({ engagementId, sampleId, role, review, notes, drawn, computed, complete }: Props) {
   const router = useRouter();
   const [message, setMessage] = useState<{ tone: "error" | "success"; text: string } | null>(null);
   const [busy, setBusy] = useState(false);
@@ -64,6 +66,7 @@ export function ReviewPanel({ engagementId, sampleId, role, review, notes, drawn
             </div>
           )}
         </div>
+        {drawn && <ConclusionForm key={review.conclusion?.writtenAt ?? "none"} base={base} computed={computed} complete={complete} conclusion={review.conclusion} mayWrite={isPreparer && !review.lock} />}
         <div className="flex flex-wrap gap-2">
           {!review.lock && isPreparer && <Button disabled={busy || !drawn} onClick={() => act("sign-off", { as: "preparer" }, "Signed off as preparer; the reviewers have been told.")}>Sign off as preparer</Button>}
           {!review.lock && isReviewer && <Button disabled={busy || !review.preparer} onClick={() => act("sign-off", { as: "reviewer" }, "Signed off as reviewer.")}>Sign off as reviewer</Button>}
@@ -72,7 +75,7 @@ export function ReviewPanel({ engagementId, sampleId, role, review, notes, drawn
           {drawn && <a className={buttonClass("secondary")} href={`${base}/workpaper`}>{review.lock ? "Download signed-off workpaper (PDF)" : "Download draft workpaper (PDF)"}</a>}
           <a className={buttonClass("ghost")} href={`/engagements/${engagementId}/samples/${sampleId}/trail`}>Audit trail</a>
         </div>
-        <p className="text-xs text-ink-faint">Any change to the plan, selection, results or evidence after a sign-off clears the sign-offs. A reviewer cannot sign off while a note is open.</p>
+        <p className="text-xs text-ink-faint">Any change to the plan, selection, results or evidence clears the sign-offs and the auditor's conclusion. The preparer signs off after recording the conclusion (and the response, where the computed result calls for one); the reviewer's sign-off covers them. A reviewer cannot sign off while a note is open.</p>
         <ReviewNotes engagementId={engagementId} sampleId={sampleId} role={role} notes={notes} locked={Boolean(review.lock)} onChanged={() => router.refresh()} />
       </div>
     </Card>

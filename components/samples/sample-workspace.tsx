@@ -80,6 +80,7 @@ export function SampleWorkspace({ engagementId, initialView, initialEvaluation, 
           <>
             <Card title="Progress"><ProgressStrip progress={evaluation.progress} attribute={attribute} /></Card>
             <Card title="Items and results">
+              <p className="mb-2 text-xs text-ink-soft" data-testid="unauditable-treatment">{evaluation.notes[0]}</p>
               <FieldworkGrid engagementId={engagementId} sampleId={sample.id} method={sample.method} drawVersion={currentDraw.version}
                 mayRecord={may.record} mayReplace={may.draw && REPLACEABLE.includes(sample.method)} refreshKey={gridKey} onSaved={changed} />
             </Card>

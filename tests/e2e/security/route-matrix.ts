@@ -108,6 +108,9 @@ export const ROUTE_MATRIX: MatrixRow[] = [
   { route: `DELETE ${S}/advisor/[runId]`, expect: onEngagement("senior", 404), probe: { path: `${S}/advisor/2147483000` } },
   { route: `POST ${S}/advisor/[runId]/adopt`, expect: onEngagement("senior", 400), probe: { path: `${S}/advisor/2147483000/adopt` } },
   { route: `POST ${S}/draw`, expect: onEngagement("senior", 400), validBody: () => ({}) },
+  // The auditor's conclusion and response (issue 13): read by any member, written by the preparer (staff/senior; checked inside).
+  { route: `GET ${S}/conclusion`, expect: onEngagement("viewer", 200) },
+  { route: `PUT ${S}/conclusion`, expect: onEngagement("staff", 400), validBody: () => ({ conclusion: "Cross-engagement probe, must not apply", responses: [] }) },
   { route: `GET ${S}/evaluation`, expect: onEngagement("viewer", 200) },
   { route: `POST ${S}/extend`, expect: onEngagement("senior", 400), validBody: () => ({ additional: 1, reason: "Cross-engagement probe" }) },
   { route: `GET ${S}/items`, expect: onEngagement("viewer", 200) },
