@@ -18,7 +18,8 @@ export interface PreviewState {
  * inputs shown are the ones the draw will use. Incomplete input is checked here first and not sent.
  */
 export function usePlanPreview(engagementId: number, request: PlanFormIn, delayMs = 350): PreviewState {
-  const key = JSON.stringify({ populationId: request.populationId, params: request.params });
+  // The direction decides the sides of z_α for classical variables sizes (issue 13): one-sided for one direction.
+  const key = JSON.stringify({ populationId: request.populationId, direction: request.direction, params: request.params });
   // The last answer from the server, and the request (key) it answers: while they differ, it is busy.
   const [answer, setAnswer] = useState<{ key: string | null; plan: SamplePlan | null; problem: string | null; fields: Record<string, string[]> | null }>(
     { key: null, plan: null, problem: null, fields: null },

@@ -9,6 +9,7 @@ import { EngineInputError } from "@/lib/sampling";
 import type { SampleParams } from "@/lib/validation/sample";
 import type { Frame } from "./population-frame";
 import { stratifyFrame } from "./strata";
+import { MUS_UNDERSTATEMENT_CAUTION } from "./evaluation-words";
 
 export interface PlannedStratum { number: number; label: string; populationSize: number; bookValue: string; standardDeviation: number; allocation: number }
 
@@ -42,7 +43,7 @@ export function computePlan(frame: Frame, params: SampleParams, performanceMater
   const expected = Number(params.expectedMisstatement);
   const plan = engineCall(params, () => {
     switch (params.method) {
-      case "mus": return planMus(frame, params, tolerable, expected);
+      case "mus": return planMus(frame, params, tolerable, expected, direction);
       case "attribute": return planAttribute(frame, params);
       case "stratified": return planStratified(frame, params, tolerable, expected, direction === "both" ? "two" : "one");
       default: return planVariables(frame, params, tolerable, expected, direction === "both" ? "two" : "one");
@@ -80,7 +81,7 @@ function signSummary(frame: Frame) {
   return { zeroCount, negativeCount, negativeCents, positiveCount, positiveCents };
 }
 
-function planMus(frame: Frame, p: SampleParams, tolerable: number, expected: number): SamplePlan {
+function planMus(frame: Frame, p: SampleParams, tolerable: number, expected: number, direction: PlanDirection): SamplePlan {
   const s = signSummary(frame);
   const bookValue = Number(money(s.positiveCents));
   const r = musSampleSize({ bookValue, tolerableMisstatement: tolerable, expectedMisstatement: expected, confidence: p.confidence });
@@ -97,7 +98,7 @@ function planMus(frame: Frame, p: SampleParams, tolerable: number, expected: num
     computedSize: r.sampleSize, chosenSize,
     formula: "n = ⌈BV × RF / (TM − EM × EF)⌉; sampling interval J = ⌊BV / n⌋ (AICPA Audit Guide “Audit Sampling”, monetary-unit sampling)",
     inputs: { BV: money(s.positiveCents), TM: tolerable.toFixed(2), EM: expected.toFixed(2), confidence: p.confidence, RF: Number(r.reliabilityFactor.toFixed(6)), EF: r.expansionFactor },
-    interval, topStratumThreshold: threshold, topStratum: { count: topCount, total: money(topCents) }, warnings: [],
+    interval, topStratumThreshold: threshold, topStratum: { count: topCount, total: money(topCents) }, warnings: direction === "overstatement" ? [] : [MUS_UNDERSTATEMENT_CAUTION],
   };
 }
 
