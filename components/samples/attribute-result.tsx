@@ -11,6 +11,11 @@ export function AttributeResult({ a }: { a: AttributesEvaluationBlock }) {
     ["Allowance for sampling risk", formatPercent(a.allowanceForSamplingRisk, 2)],
     [`Upper deviation limit (Clopper–Pearson, one-sided${a.limitMode === "table" ? ", rounded up to 0.1 point" : ""})`, formatPercent(a.upperDeviationLimit, 2), "upper-deviation-limit"],
     ["Tolerable deviation rate", formatPercent(a.tolerableRate, 2)],
+    ...(a.twoStage ? ([
+      ["Two-stage plan: stage 1 size n₁ · stage 2 size n₂", `${a.twoStage.firstStageSize} · ${a.twoStage.secondStageSize}`],
+      ["Planned risk of overreliance at the tolerable rate", formatPercent(a.twoStage.riskOfOverreliance, 2)],
+      ["Deviations in stage 1 · in stage 2", `${a.twoStage.firstStageDeviations} · ${a.twoStage.secondStageDeviations ?? "—"}`, "two-stage-deviations"],
+    ] as [string, string, string?][]) : []),
   ];
   return (
     <div className="space-y-2">

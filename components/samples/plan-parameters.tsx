@@ -45,6 +45,14 @@ export function PlanParameters({ form, plan, currency, performanceMateriality }:
           <Field label="Expected deviation rate" error={e?.expectedRate?.message}>
             {({ id, describedBy, invalid }) => <PercentInput id={id} aria-describedby={describedBy} aria-invalid={invalid} {...register("params.expectedRate")} />}
           </Field>
+          <Field label="Plan" error={e?.attributePlan?.message} hint="A fixed sample is never extended once results exist; a two-stage plan fixes its stage 2 now, drawn only after exactly one deviation">
+            {({ id, describedBy, invalid }) => (
+              <Select id={id} aria-describedby={describedBy} aria-invalid={invalid} {...register("params.attributePlan")}>
+                <option value="fixed">Fixed size</option>
+                <option value="two-stage">Two-stage (planned)</option>
+              </Select>
+            )}
+          </Field>
         </>
       ) : (
         <>
@@ -57,7 +65,7 @@ export function PlanParameters({ form, plan, currency, performanceMateriality }:
         </>
       )}
       {classical && (
-        <Field label="Risk of incorrect rejection" error={e?.riskOfIncorrectRejection?.message} hint="Two-sided; sets how wide the planned allowance is">
+        <Field label="Risk of incorrect rejection" error={e?.riskOfIncorrectRejection?.message} hint="Two-sided when both directions are tested, one-sided for one direction; sets how wide the planned allowance is">
           {({ id, describedBy, invalid }) => <PercentInput id={id} aria-describedby={describedBy} aria-invalid={invalid} {...register("params.riskOfIncorrectRejection")} />}
         </Field>
       )}

@@ -38,7 +38,7 @@ export function defaultPlanValues(performanceMateriality: string, populationId?:
     name: "", objective: "", assertion: "", direction: "overstatement",
     params: {
       method: "mus", estimator: undefined, confidence: "95", tolerableMisstatement: performanceMateriality, expectedMisstatement: "0.00",
-      riskOfIncorrectRejection: "10", tolerableRate: "5", expectedRate: "0", topStratumThreshold: "", factorMode: "exact",
+      riskOfIncorrectRejection: "10", tolerableRate: "5", expectedRate: "0", topStratumThreshold: "", factorMode: "exact", attributePlan: "fixed",
       strataBounds: undefined, sampleSize: "", sizeReason: "",
     },
   };
@@ -57,7 +57,7 @@ export function toRequest(values: PlanFormIn): PlanFormIn {
   const method = p.method;
   const keep: Record<string, string[]> = {
     mus: ["confidence", "tolerableMisstatement", "expectedMisstatement", "topStratumThreshold", "factorMode"],
-    attribute: ["confidence", "tolerableRate", "expectedRate"],
+    attribute: ["confidence", "tolerableRate", "expectedRate", "attributePlan"],
     stratified: ["estimator", "confidence", "tolerableMisstatement", "expectedMisstatement", "riskOfIncorrectRejection", "strataBounds"],
     random: ["estimator", "confidence", "tolerableMisstatement", "expectedMisstatement", "riskOfIncorrectRejection"],
     systematic: ["estimator", "confidence", "tolerableMisstatement", "expectedMisstatement", "riskOfIncorrectRejection"],

@@ -14,7 +14,7 @@ const pct = (v: number) => `${(v * 100).toFixed(2)}%`;
 function ruleOf(block: EvaluationBlock): string {
   switch (block.method) {
     case "mus": return `Stringer bound at ${pct(block.confidence)} confidence, ${block.factorMode} factors; ${block.statement}`;
-    case "attributes": return `One-sided Clopper–Pearson upper deviation limit at ${pct(block.confidence)} confidence compared with the tolerable deviation rate; ${block.statement}`;
+    case "attributes": return block.twoStage ? `Two-stage plan rule (accept on 0 deviations in stage 1, reject on 2 or more, 1 opens stage 2 accepted only on 0 more); ${block.statement}` : `One-sided Clopper–Pearson upper deviation limit at ${pct(block.confidence)} confidence compared with the tolerable deviation rate; ${block.statement}`;
     default: return block.decision.rule;
   }
 }
@@ -33,7 +33,7 @@ function soFar(block: EvaluationBlock): string {
 
 function isClose(block: EvaluationBlock): boolean {
   switch (block.method) {
-    case "attributes": return block.upperDeviationLimit >= (1 - CLOSE_TO_TOLERABLE_SHARE) * block.tolerableRate;
+    case "attributes": return block.twoStage ? false : block.upperDeviationLimit >= (1 - CLOSE_TO_TOLERABLE_SHARE) * block.tolerableRate;
     case "mus": {
       const tm = Number(decimalToCents(block.tolerableMisstatement));
       return [block.compared.overstatement, block.compared.understatement].some((v) => v !== null && Number(decimalToCents(v)) >= (1 - CLOSE_TO_TOLERABLE_SHARE) * tm);
@@ -53,6 +53,9 @@ export function computedResultOf(o: { block: EvaluationBlock | null; progress: {
   if (o.notEvaluable) return { status: "not-evaluable", supported: null, statement: `Not evaluable yet: ${o.notEvaluable}`, rule: "", responseNeeded: false };
   if (!o.block) return { status: "no-results", supported: null, statement: "No results recorded yet.", rule: "", responseNeeded: false };
   const rule = ruleOf(o.block);
+  if (o.complete && o.block.method === "attributes" && o.block.twoStage?.decision === "continue") {
+    return { status: "provisional", supported: null, statement: `Provisional, on ${withResult} of ${o.progress.total} items: ${o.block.statement}`, rule, responseNeeded: false };
+  }
   if (!o.complete) {
     return { status: "provisional", supported: null, statement: `Provisional, on ${withResult} of ${o.progress.total} items: ${soFar(o.block)}. No result is stated until every item has one.`, rule, responseNeeded: false };
   }

@@ -94,8 +94,13 @@ function blockFor(sample: SampleRecord, population: PopulationRecord, done: Samp
   const settings = evaluationSettingsOf(sample);
   const item = (it: SampleItemRecord): EvaluatedItem => ({ reference: it.itemRef, bookValue: it.bookValue, auditedValue: auditedForEvaluation(it, sample.direction), topStratum: it.topStratum });
   if (sample.method === "attribute") {
-    const deviations = done.filter((i) => i.deviation || i.status === "not-auditable").length;
-    return buildAttributesEvaluation({ confidence: p.confidence, tolerableRate: p.tolerableRate!, expectedRate: p.expectedRate, sampleSize: done.length, allowedDeviations: sample.plan.allowedDeviations ?? 0, deviations });
+    const deviates = (i: SampleItemRecord) => Boolean(i.deviation) || i.status === "not-auditable";
+    const deviations = done.filter(deviates).length;
+    const common = { confidence: p.confidence, tolerableRate: p.tolerableRate!, expectedRate: p.expectedRate, sampleSize: done.length, allowedDeviations: sample.plan.allowedDeviations ?? 0, deviations };
+    const plan = sample.plan.twoStage;
+    if (!plan) return buildAttributesEvaluation(common);
+    const stage2 = done.filter((i) => i.origin === "extension");
+    return buildAttributesEvaluation({ ...common, twoStage: { plan, firstStageDeviations: done.filter((i) => i.origin !== "extension" && deviates(i)).length, secondStageDeviations: stage2.length > 0 ? stage2.filter(deviates).length : undefined } });
   }
   if (sample.method === "mus") {
     return buildMusEvaluation({ interval: sample.plan.interval!, confidence: p.confidence, factorMode: settings.factorMode, tolerableMisstatement: tolerable!, items: done.map(item), direction: sample.direction, limits: settings.musLimits });

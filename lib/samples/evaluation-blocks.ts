@@ -5,7 +5,7 @@
  */
 import { centsToDecimal, decimalToCents } from "@/lib/money";
 import {
-  classicalDecision, evaluateAttributes, evaluateMus, evaluateStratified, evaluateVariables, poissonFactor,
+  classicalDecision, evaluateAttributes, evaluateTwoStageAttributes, type TwoStageAttributePlan, evaluateMus, evaluateStratified, evaluateVariables, poissonFactor,
   type ClassicalDistribution, type Estimator, type FactorMode, type Sides, type StratifiedEstimator, type TestDirection, type VariablesEvaluation,
 } from "@/lib/sampling";
 import type {
@@ -193,15 +193,44 @@ export const ATTRIBUTES_REFERENCES = [
 export function buildAttributesEvaluation(o: {
   confidence: number; tolerableRate: number; expectedRate: number; sampleSize: number; allowedDeviations: number;
   deviations: number; limitMode?: "exact" | "table";
+  twoStage?: { plan: TwoStageAttributePlan; firstStageDeviations: number; secondStageDeviations?: number };
 }): AttributesEvaluationBlock {
   const r = evaluateAttributes({ sampleSize: o.sampleSize, deviations: o.deviations, confidence: o.confidence, mode: o.limitMode });
-  const supported = r.upperLimit <= o.tolerableRate;
   const pct = (v: number) => `${(v * 100).toFixed(2)}%`;
+  if (o.twoStage) return { ...twoStageBlock(o, r, o.twoStage), formulaReferences: [TWO_STAGE_REFERENCE, ...ATTRIBUTES_REFERENCES] };
+  const supported = r.upperLimit <= o.tolerableRate;
   return {
     method: "attributes", confidence: o.confidence, tolerableRate: o.tolerableRate, expectedRate: o.expectedRate,
     sampleSize: o.sampleSize, allowedDeviations: o.allowedDeviations, deviations: o.deviations,
-    sampleRate: r.sampleRate, upperDeviationLimit: r.upperLimit, limitMode: r.mode, allowanceForSamplingRisk: r.upperLimit - r.sampleRate, supported,
+    sampleRate: r.sampleRate, upperDeviationLimit: r.upperLimit, limitMode: r.mode, allowanceForSamplingRisk: r.upperLimit - r.sampleRate, twoStage: null, supported,
     statement: `${o.deviations} deviation${o.deviations === 1 ? "" : "s"} in ${o.sampleSize}: the upper deviation limit ${pct(r.upperLimit)} is ${supported ? "at or below" : "above"} the tolerable deviation rate ${pct(o.tolerableRate)}${o.deviations > o.allowedDeviations ? `; more deviations were found (${o.deviations}) than the plan allowed (${o.allowedDeviations})` : ""}.`,
     warnings: [], formulaReferences: ATTRIBUTES_REFERENCES,
+  };
+}
+
+export const TWO_STAGE_REFERENCE = "Two-stage plan (planned sequential sampling, binomial at the tolerable rate): stage 1 accepts on 0 deviations and rejects on 2 or more; exactly 1 opens stage 2, accepted only with 0 further deviations; risk of overreliance = b(0; n₁) + b(1; n₁)·(1 − TDR)^n₂.";
+
+const TWO_STAGE_WORDS = {
+  accept: "the plan's rule supports reliance on the control",
+  reject: "the plan's rule does not support reliance on the control",
+  continue: "exactly one deviation in stage 1: draw stage 2",
+} as const;
+
+function twoStageBlock(
+  o: { confidence: number; tolerableRate: number; expectedRate: number; sampleSize: number; allowedDeviations: number; deviations: number },
+  r: ReturnType<typeof evaluateAttributes>,
+  t: { plan: TwoStageAttributePlan; firstStageDeviations: number; secondStageDeviations?: number },
+): Omit<AttributesEvaluationBlock, "formulaReferences"> {
+  const e = evaluateTwoStageAttributes(t);
+  const pct = (v: number) => `${(v * 100).toFixed(2)}%`;
+  const stage2 = t.secondStageDeviations === undefined ? "" : `, stage 2: ${t.secondStageDeviations} in ${t.plan.secondStageSize}`;
+  return {
+    method: "attributes", confidence: o.confidence, tolerableRate: o.tolerableRate, expectedRate: o.expectedRate,
+    sampleSize: o.sampleSize, allowedDeviations: o.allowedDeviations, deviations: o.deviations,
+    sampleRate: r.sampleRate, upperDeviationLimit: r.upperLimit, limitMode: r.mode, allowanceForSamplingRisk: r.upperLimit - r.sampleRate,
+    twoStage: { firstStageSize: t.plan.firstStageSize, secondStageSize: t.plan.secondStageSize, riskOfOverreliance: e.riskOfOverreliance, firstStageDeviations: t.firstStageDeviations, secondStageDeviations: t.secondStageDeviations ?? null, stage: e.stage, decision: e.decision },
+    supported: e.decision === "accept",
+    statement: `Two-stage plan (n₁ ${t.plan.firstStageSize}, n₂ ${t.plan.secondStageSize}, risk of overreliance ${pct(e.riskOfOverreliance)} at the tolerable rate ${pct(o.tolerableRate)}): stage 1: ${t.firstStageDeviations} deviation${t.firstStageDeviations === 1 ? "" : "s"} in ${t.plan.firstStageSize}${stage2}; ${TWO_STAGE_WORDS[e.decision]}${e.decision === "continue" ? ` of ${t.plan.secondStageSize} items, which must show no further deviation` : ""}.`,
+    warnings: [],
   };
 }

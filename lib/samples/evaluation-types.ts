@@ -162,6 +162,12 @@ export interface AttributesEvaluationBlock {
   limitMode: "exact" | "table";
   /** UDL − k/n. */
   allowanceForSamplingRisk: number;
+  /** A planned two-stage plan decides by its own rule (the deviation limit above is shown for information). */
+  twoStage: {
+    firstStageSize: number; secondStageSize: number; riskOfOverreliance: number;
+    firstStageDeviations: number; secondStageDeviations: number | null;
+    stage: 1 | 2; decision: "accept" | "reject" | "continue";
+  } | null;
   supported: boolean;
   statement: string;
   warnings: string[];

@@ -1,6 +1,6 @@
 import "server-only";
 import {
-  attributeSampleSize, musSampleSize, neymanAllocation, stratifiedSampleSize, variablesSampleSize,
+  attributeSampleSize, twoStageAttributePlan, musSampleSize, neymanAllocation, stratifiedSampleSize, variablesSampleSize,
 } from "@/lib/sampling";
 import { standardDeviation } from "@/lib/sampling/descriptive";
 import { centsToDecimal } from "@/lib/money";
@@ -27,6 +27,8 @@ export interface SamplePlan {
   topStratum?: { count: number; total: string };
   strata?: PlannedStratum[];
   allowedDeviations?: number;
+  /** Planned two-stage attribute plans: stage 1 of n₁ accepts on 0 deviations, rejects on 2+; exactly 1 opens stage 2 of n₂ (accept on 0 more). */
+  twoStage?: { firstStageSize: number; secondStageSize: number; riskOfOverreliance: number; expectedSampleSize: number };
   /** Classical variables plans: the sides of z_α the size used — "two" when both directions are
    *  tested, "one" for one direction — stored so that evaluation uses the same (absent: "two"). */
   sides?: "two" | "one";
@@ -136,7 +138,20 @@ function planStratified(frame: Frame, p: SampleParams, tolerable: number, expect
   };
 }
 
+function planTwoStage(frame: Frame, p: SampleParams): SamplePlan {
+  const computed = twoStageAttributePlan({ tolerableRate: p.tolerableRate!, expectedRate: p.expectedRate, confidence: p.confidence });
+  const plan = p.sampleSize === undefined ? computed : twoStageAttributePlan({ tolerableRate: p.tolerableRate!, expectedRate: p.expectedRate, confidence: p.confidence, firstStageSize: p.sampleSize });
+  return {
+    method: "attribute", frameSize: frame.bookValues.length, frameTotal: money(frame.totalCents), excluded: null,
+    computedSize: computed.firstStageSize, chosenSize: plan.firstStageSize, allowedDeviations: 0, twoStage: plan,
+    formula: "two-stage: risk of overreliance = b(0; n₁, TDR) + b(1; n₁, TDR) × (1 − TDR)^n₂ ≤ 1 − confidence; for each n₁ the smallest n₂, then the pair with the smallest expected size n₁ + b(1; n₁, EDR) × n₂ (binomial; planned sequential sampling)",
+    inputs: { TDR: p.tolerableRate!, EDR: p.expectedRate, confidence: p.confidence, "n₁": plan.firstStageSize, "n₂": plan.secondStageSize, "risk of overreliance": Number(plan.riskOfOverreliance.toFixed(6)), "expected size": Number(plan.expectedSampleSize.toFixed(2)) },
+    warnings: [`Stage 1: ${plan.firstStageSize} items. No deviation: rely on the control. Two or more: do not. Exactly one: draw stage 2 of ${plan.secondStageSize} more items, continuing the same random ranking; rely only if none of them deviates.`],
+  };
+}
+
 function planAttribute(frame: Frame, p: SampleParams): SamplePlan {
+  if (p.attributePlan === "two-stage") return planTwoStage(frame, p);
   const r = attributeSampleSize({ tolerableRate: p.tolerableRate!, expectedRate: p.expectedRate, confidence: p.confidence });
   return {
     method: "attribute", frameSize: frame.bookValues.length, frameTotal: money(frame.totalCents), excluded: null,

@@ -32,6 +32,8 @@ export const SampleParamsSchema = z.object({
   expectedMisstatement: moneyInput.default("0.00"),
   riskOfIncorrectRejection: fraction("Risk of incorrect rejection", 0.01, 0.5).default(0.1),
   tolerableRate: fraction("Tolerable deviation rate", 0.005, 0.5).optional(),
+  /** Attribute samples: a fixed size, or a planned two-stage plan (stage 2 only after exactly one deviation). */
+  attributePlan: z.enum(["fixed", "two-stage"], "Choose a fixed or a two-stage plan").default("fixed"),
   expectedRate: fraction("Expected deviation rate", 0, 0.5).default(0),
   topStratumThreshold: moneyInput.optional(),
   factorMode: z.enum(["exact", "table"]).default("exact"),

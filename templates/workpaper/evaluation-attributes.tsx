@@ -21,6 +21,11 @@ export function AttributesEvaluation({ e }: { e: AttributesEvaluationBlock }) {
           { cells: ["Deviations found", "k", String(e.deviations)] },
           { cells: ["Sample deviation rate", "k / n", rate(e.sampleRate)] },
           { cells: ["Allowance for sampling risk", "UDL − k / n", rate(e.allowanceForSamplingRisk)] },
+          ...(e.twoStage ? [
+            { cells: ["Two-stage plan: stage sizes", "n₁ · n₂", `${e.twoStage.firstStageSize} · ${e.twoStage.secondStageSize}`] },
+            { cells: ["Planned risk of overreliance", "b(0; n₁) + b(1; n₁)·(1 − TDR)^n₂", rate(e.twoStage.riskOfOverreliance)] },
+            { cells: ["Deviations in stage 1 · stage 2", "k₁ · k₂", `${e.twoStage.firstStageDeviations} · ${e.twoStage.secondStageDeviations ?? "—"}`] },
+          ] : []),
           { total: true, cells: ["Upper deviation limit", e.limitMode === "exact" ? "Beta⁻¹(c; k+1, n−k)" : "Beta⁻¹(c; k+1, n−k), rounded up to 0.1 point", rate(e.upperDeviationLimit)] },
         ]}
       />
