@@ -17,6 +17,8 @@ async function as(page: Page, role: DemoRole) {
   await new SignInPage(page).signInAndWait(role);
 }
 
+const CONCLUSION = "Receivables are not materially overstated; the pricing difference is carried to the summary.";
+
 test("the whole job: results, preparer sign-off, a review note answered and cleared, reviewer sign-off, lock and the PDF", async ({ page }) => {
   test.setTimeout(180_000);
   // Set-up through the API as the senior: a reconciled ledger and a drawn monetary-unit sample.
@@ -52,6 +54,10 @@ test("the whole job: results, preparer sign-off, a review note answered and clea
   await as(page, "senior");
   await page.goto(url);
   const review = new ReviewPanelPage(page);
+  // Issue 13 §6: no sign-off before the auditor's own conclusion and response are recorded.
+  await page.getByRole("button", { name: "Sign off as preparer" }).click();
+  await expect(page.getByText(/Record the auditor's conclusion/)).toBeVisible();
+  await review.conclude(CONCLUSION, [{ label: "Perform alternative procedures" }]);
   await review.signOff("preparer");
   await shot(page, "2-senior-signed-off");
 
@@ -66,6 +72,7 @@ test("the whole job: results, preparer sign-off, a review note answered and clea
   await shot(page, "2b-change-clears-sign-off");
   await as(page, "senior");
   await page.goto(url);
+  await review.conclude(CONCLUSION, [{ label: "Perform alternative procedures" }]);
   await review.signOff("preparer");
 
   // The manager raises a note; the reviewer sign-off waits until it is cleared.
@@ -99,10 +106,13 @@ test("the whole job: results, preparer sign-off, a review note answered and clea
   expect(fs.readdirSync(test.info().outputDir).filter((f) => f.startsWith("workpaper-page")).length).toBeGreaterThan(1);
   const text = execFileSync("pdftotext", ["-layout", pdfPath, "-"]).toString();
   const { evaluation } = await (await page.request.get(`${base}/evaluation`)).json();
-  const grouped = (v: number) => v.toLocaleString("en-US", { minimumFractionDigits: 2, maximumFractionDigits: 2 });
+  const grouped = (v: string) => Number(v).toLocaleString("en-US", { minimumFractionDigits: 2, maximumFractionDigits: 2 });
   expect(text).toContain("20261202");
   expect(text).toContain(misstated.itemRef);
-  expect(text).toContain(grouped(evaluation.evaluation.result.overstatement.upperLimit));
+  expect(text).toContain(grouped(evaluation.block.overstatement.upperLimit));
+  // The computed result, labelled as Sondage's, apart from the auditor's conclusion with its writer.
+  expect(text).toContain("Computed by Sondage");
+  expect(text.replace(/\s+/g, " ")).toContain(CONCLUSION);
   expect(text).toContain("Jonah Lindqvist");
   expect(text).toContain("Tomás Reyes");
   expect(text).not.toContain("DRAFT");

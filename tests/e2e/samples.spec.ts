@@ -102,19 +102,19 @@ test("a senior plans and draws a PPS sample; staff record results and the String
 
   await test.step("the evaluation panel shows the Stringer bound the API computes", async () => {
     const { evaluation } = await (await page.request.get(`${apiBase()}/evaluation`)).json();
-    const over = evaluation.evaluation.result.overstatement;
-    const J = evaluation.evaluation.interval;
+    const over = evaluation.block.overstatement;
+    const J = Number(evaluation.block.interval);
     const panel = sample.evaluation();
-    await expect(panel.getByTestId("upper-limit-overstatement")).toHaveText(shown(over.upperLimit.toFixed(2)));
-    await expect(panel.getByTestId("projected-overstatement")).toHaveText(shown(over.projected.toFixed(2)));
-    await expect(panel.getByTestId("basic-precision-overstatement")).toHaveText(shown(over.basicPrecision.toFixed(2)));
+    await expect(panel.getByTestId("upper-limit-overstatement")).toHaveText(shown(over.upperLimit));
+    await expect(panel.getByTestId("projected-overstatement")).toHaveText(shown(over.projected));
+    await expect(panel.getByTestId("basic-precision-overstatement")).toHaveText(shown(over.basicPrecision));
     // Zero-event Poisson upper limit at 95%: −ln(0.05) = 2.995732 (printed tables round it up to 3.00).
-    expect(over.basicPrecision).toBeCloseTo(2.995732 * J, 0);
+    expect(Number(over.basicPrecision)).toBeCloseTo(2.995732 * J, 0);
     // Two overstatements: the half-misstated item (tainting 0.5) and the unaudited one (tainting 1).
-    expect(over.taintings).toHaveLength(2);
-    expect(over.taintings[0]).toBe(1);
-    expect(over.taintings[1]).toBeCloseTo(0.5, 3);
-    await expect(panel.getByRole("table", { name: "Stringer bound — overstatement" }).getByRole("row", { name: /Rank 2/ })).toContainText(over.taintings[1].toFixed(4));
+    expect(over.rows).toHaveLength(2);
+    expect(over.rows[0].tainting).toBe(1);
+    expect(over.rows[1].tainting).toBeCloseTo(0.5, 3);
+    await expect(panel.getByRole("table", { name: "Stringer bound — overstatement" }).getByRole("row", { name: /Rank 2/ })).toContainText(`${(over.rows[1].tainting * 100).toFixed(2)}%`);
     await expect(panel.getByTestId("conclusion")).toContainText("Provisional");
     await expect(panel.getByTestId("judgement-caution")).toContainText("AU-C 530, ISA 530, AS 2315");
     await shotOf(panel, "07-evaluation-panel.png");

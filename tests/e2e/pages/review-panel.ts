@@ -8,6 +8,17 @@ export class ReviewPanelPage {
     return this.page.getByRole("region", { name: "Review notes" });
   }
 
+  /** The preparer records the auditor's conclusion (and responses, by their labels) in the review panel. */
+  async conclude(text: string, responses: { label: string; amount?: string }[] = []) {
+    await this.page.getByRole("textbox", { name: "Conclusion, in your words" }).fill(text);
+    for (const r of responses) {
+      await this.page.getByRole("checkbox", { name: r.label }).check();
+      if (r.amount !== undefined) await this.page.getByRole("textbox", { name: `Amount: ${r.label}` }).fill(r.amount);
+    }
+    await this.page.getByRole("button", { name: /(Record|Update) the conclusion/ }).click();
+    await expect(this.page.getByText(/Conclusion recorded/)).toBeVisible();
+  }
+
   async signOff(as: "preparer" | "reviewer") {
     await this.page.getByRole("button", { name: `Sign off as ${as}` }).click();
     await expect(this.page.getByText(as === "preparer" ? /Signed off as preparer/ : /Signed off as reviewer/)).toBeVisible();
