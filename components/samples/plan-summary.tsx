@@ -23,7 +23,12 @@ export function PlanSummary({ sample, currency, performanceMateriality, editHref
       ["Expected misstatement", <Amount key="em" value={p.expectedMisstatement} />],
     );
   }
-  if (["random", "systematic", "stratified"].includes(sample.method)) facts.push(["Risk of incorrect rejection", formatPercent(p.riskOfIncorrectRejection)]);
+  if (["random", "systematic", "stratified"].includes(sample.method)) {
+    facts.push(["Risk of incorrect rejection", `${formatPercent(p.riskOfIncorrectRejection)}, ${sample.plan.sides === "one" ? "one-sided z_α (one direction tested)" : "two-sided z_α"}`]);
+    facts.push(["Bounds", sample.methodology.classicalDistribution === "t" ? "Student t (firm methodology at planning)" : "Normal z (firm methodology at planning)"]);
+  }
+  if (sample.method === "mus") facts.push(["Limits compared with TM", sample.methodology.musLimits === "gross" ? "Gross (firm methodology at planning)" : "Net of the other direction's projected misstatement (firm methodology at planning)"]);
+  if (sample.plan.twoStage) facts.push(["Plan", `Two-stage: ${sample.plan.twoStage.firstStageSize} then, after exactly one deviation, ${sample.plan.twoStage.secondStageSize} more (risk of overreliance ${formatPercent(sample.plan.twoStage.riskOfOverreliance, 2)})`]);
   if (sample.method === "mus") facts.push(["Poisson factors", p.factorMode === "exact" ? "Exact" : "Table (2 decimals)"]);
   facts.push(["Size", <span key="sz" className="figures">{sample.chosenSize}{sample.chosenSize !== sample.computedSize && ` (computed ${sample.computedSize})`}</span>]);
   if (sample.sizeReason) facts.push(["Reason for the size", sample.sizeReason]);
