@@ -7,7 +7,6 @@ import { poissonFactors } from "./poisson-factor";
 import { sampleToCents } from "./sample-input";
 import { FACTOR_MODES, type FactorMode, type SampledItem } from "./types";
 import { requireObject, requireOneOf, requireOpenFraction, requirePositive } from "./validate";
-import { EngineInputError } from "./errors";
 
 export interface BoundSide {
   /** RF(0) · J. */
