@@ -76,10 +76,10 @@ export function ConclusionForm({ base, computed, complete, conclusion, mayWrite 
                   {RESPONSE_LABELS[k]}
                 </label>
                 {chosen[k] && WITH_AMOUNT.includes(k) && (
-                  <input aria-label={`Amount: ${RESPONSE_LABELS[k]}`} inputMode="decimal" className="w-36 rounded border border-ink-line px-2 py-1 text-right figures" value={chosen[k]!.amount}
+                  <input aria-label={`Amount: ${RESPONSE_LABELS[k]}`} inputMode="decimal" className="w-36 rounded border border-ink-line px-2 py-1 text-right figures" value={chosen[k].amount}
                     onChange={(e) => setChosen((c) => ({ ...c, [k]: { ...c[k]!, amount: e.target.value } }))} aria-invalid={Boolean(fieldError(`responses.${i}.amount`))} />
                 )}
-                {chosen[k] && <input aria-label={`Note: ${RESPONSE_LABELS[k]}`} placeholder="What was or will be done" className="min-w-48 flex-1 rounded border border-ink-line px-2 py-1" value={chosen[k]!.note}
+                {chosen[k] && <input aria-label={`Note: ${RESPONSE_LABELS[k]}`} placeholder="What was or will be done" className="min-w-48 flex-1 rounded border border-ink-line px-2 py-1" value={chosen[k].note}
                   onChange={(e) => setChosen((c) => ({ ...c, [k]: { ...c[k]!, note: e.target.value } }))} />}
               </div>
             ))}

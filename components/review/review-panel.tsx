@@ -75,7 +75,7 @@ export function ReviewPanel({ engagementId, sampleId, role, review, notes, drawn
           {drawn && <a className={buttonClass("secondary")} href={`${base}/workpaper`}>{review.lock ? "Download signed-off workpaper (PDF)" : "Download draft workpaper (PDF)"}</a>}
           <a className={buttonClass("ghost")} href={`/engagements/${engagementId}/samples/${sampleId}/trail`}>Audit trail</a>
         </div>
-        <p className="text-xs text-ink-faint">Any change to the plan, selection, results or evidence clears the sign-offs and the auditor's conclusion. The preparer signs off after recording the conclusion (and the response, where the computed result calls for one); the reviewer's sign-off covers them. A reviewer cannot sign off while a note is open.</p>
+        <p className="text-xs text-ink-faint">Any change to the plan, selection, results or evidence clears the sign-offs and the auditor&apos;s conclusion. The preparer signs off after recording the conclusion (and the response, where the computed result calls for one); the reviewer&apos;s sign-off covers them. A reviewer cannot sign off while a note is open.</p>
         <ReviewNotes engagementId={engagementId} sampleId={sampleId} role={role} notes={notes} locked={Boolean(review.lock)} onChanged={() => router.refresh()} />
       </div>
     </Card>

@@ -38,8 +38,8 @@ export async function getAuditorConclusionBySampleId(db: Knex, { sampleId }: { s
 
 /** Every sample of the engagement with a recorded conclusion, with its responses (amounts as decimal strings). */
 export async function listResponsesByEngagementId(db: Knex, { engagementId }: { engagementId: number }): Promise<SampleResponseRecord[]> {
-  const rows = (await base(db).where("s.engagement_id", engagementId).orderBy("s.id")
-    .select("s.id", "s.name", "s.method", "s.reviewer_signed_at", "s.auditor_conclusion", "s.auditor_responses_json", "s.auditor_conclusion_by", "s.auditor_conclusion_role", "s.auditor_conclusion_at", "w.name as writer_name")) as Record<string, unknown>[];
+  const rows = await base(db).where("s.engagement_id", engagementId).orderBy("s.id")
+    .select<Record<string, unknown>[]>("s.id", "s.name", "s.method", "s.reviewer_signed_at", "s.auditor_conclusion", "s.auditor_responses_json", "s.auditor_conclusion_by", "s.auditor_conclusion_role", "s.auditor_conclusion_at", "w.name as writer_name");
   return rows.map((r) => ({ ...toRecord(r), sampleName: String(r.name), method: String(r.method), reviewerSignedAt: r.reviewer_signed_at ? iso(r.reviewer_signed_at) : null }));
 }
 

@@ -14,7 +14,7 @@ export const UNPLANNED_ATTRIBUTE_EXTENSION = "An attribute sample of fixed size 
 
 /** Whether an attribute sample may grow now: a fixed plan only before any result; a two-stage plan only into its stage 2 after exactly one stage-1 deviation. */
 async function assertAttributeExtension(db: Knex, sample: SampleRecord, drawId: number, additional: number) {
-  const items = (await db("sample_items").where({ draw_id: drawId }).whereNot("status", "void").select("status", "deviation", "origin")) as { status: string; deviation: number | null; origin: string }[];
+  const items = await db("sample_items").where({ draw_id: drawId }).whereNot("status", "void").select<{ status: string; deviation: number | null; origin: string }[]>("status", "deviation", "origin");
   const twoStage = sample.plan.twoStage;
   if (!twoStage) {
     if (items.some((i) => i.status !== "not-started")) throw conflict(UNPLANNED_ATTRIBUTE_EXTENSION);

@@ -11,7 +11,6 @@ import { workpaperReferenceFor } from "@/lib/review/lock";
 import { money } from "@/lib/samples/evaluation-blocks";
 import type { SampleEvaluation } from "@/lib/samples/evaluate";
 import type { PlanBlock, WorkpaperData, WorkpaperItem } from "@/templates/workpaper/workpaper-data";
-import type { Estimator, StratifiedEstimator } from "@/lib/sampling";
 import { AppError } from "@/lib/errors";
 import { getAuditorConclusionBySampleId } from "@/lib/data/auditor-conclusions";
 import { RESPONSE_LABELS } from "@/lib/validation/conclusion";
