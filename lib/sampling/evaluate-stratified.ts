@@ -110,7 +110,7 @@ export function evaluateStratified(o: {
     pooled = { estimate, variance, perStratum };
   }
 
-  const degreesOfFreedom = satterthwaite(pooled.perStratum.map((s, h) => ({ variance: s.variance, n: strata[h].m.n })));
+  const degreesOfFreedom = satterthwaite(pooled.perStratum.map((s, h) => ({ variance: s.variance, n: strata[h]!.m.n })));
   const z = zFor(confidence, sides, distribution === "t" ? degreesOfFreedom : null);
   const result = boundsFrom(pooled.estimate, pooled.variance, totalBook, z, sides);
   const misstatements = strata.reduce((sum, s) => sum + s.m.nonZeroDifferences, 0);
