@@ -4,8 +4,10 @@ import "server-only";
  * Each evaluation kind has a reader; a new kind (nonstatistical samples, issue 15) adds its reader
  * to CONTRIBUTION_READERS and nothing else in lib/misstatements changes.
  */
+import type { Knex } from "knex";
 import type { SampleRecord } from "@/lib/data/samples";
 import type { MethodEvaluation, SampleEvaluation } from "@/lib/samples/evaluate";
+import { loadSampleWithEvaluation } from "@/lib/samples/context";
 import type { SampleContribution } from "./contribution";
 import { dec, floatToCents, cents } from "./money-cents";
 
@@ -58,4 +60,10 @@ export function contributionOf(sample: SampleRecord, populationName: string, eva
 /** The projection beyond the items examined: the sample's projected misstatement less what was found. */
 export function projectedBeyond(c: SampleContribution): string {
   return dec(cents(c.projectedTotal) - cents(c.factual));
+}
+
+/** Loads one sample and its evaluation (the same numbers as its own page) and reads its contribution. */
+export async function loadSampleContribution(db: Knex, { engagementId, sampleId, lockedAt }: { engagementId: number; sampleId: number; lockedAt: string | null }): Promise<SampleContribution> {
+  const { view, evaluation } = await loadSampleWithEvaluation(db, { engagementId, sampleId });
+  return contributionOf(view.sample, view.population.name, evaluation, lockedAt);
 }

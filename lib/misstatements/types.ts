@@ -76,3 +76,52 @@ export interface SummaryMateriality {
   approachingShare: number;
   currency: string;
 }
+
+export interface SummarySampleLine {
+  sampleId: number;
+  reference: string;
+  name: string;
+  link: string;
+  method: string;
+  state: "contributes" | "no-results" | "not-monetary";
+  reason: string | null;
+  locked: boolean;
+  frozen: boolean;
+}
+
+export interface SummaryEntryLine { id: number; version: number; reference: string; createdByName: string; createdAt: string; updatedAt: string | null }
+
+export interface SummaryNote {
+  id: number; text: string; status: "open" | "answered" | "cleared";
+  raisedBy: string; raisedAt: string; answer: string | null; answeredBy: string | null; answeredAt: string | null; clearedBy: string | null; clearedAt: string | null;
+}
+
+export interface SummarySignOff { name: string; role: string; at: string }
+
+export interface SummaryReview {
+  preparer: SummarySignOff | null;
+  reviewer: SummarySignOff | null;
+  /** Sign-offs given to rows that have changed since (a sample's results moved): shown as cleared. */
+  staleSignOffs: boolean;
+  lock: { name: string; at: string; workpaperSha256: string; workpaperBytes: number; reference: string } | null;
+  openNotes: number;
+  lockable: { ok: boolean; reasons: string[] };
+}
+
+export interface SummaryView {
+  engagement: { id: number; clientName: string; name: string; periodEnd: string; currency: string };
+  firmName: string;
+  workpaperReference: string;
+  generatedAt: string;
+  materiality: SummaryMateriality;
+  rows: SummaryRow[];
+  totals: SummaryTotals;
+  status: SummaryStatus;
+  samples: SummarySampleLine[];
+  entries: SummaryEntryLine[];
+  review: SummaryReview;
+  notes: SummaryNote[];
+  rowsSha256: string;
+  conventions: string[];
+  caution: string;
+}
