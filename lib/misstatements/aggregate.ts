@@ -75,6 +75,14 @@ const RESPONSES_APPROACHING = [
   "Prepare to communicate the uncorrected misstatements to those charged with governance, with their effect individually and in aggregate (ISA 450 ¶12–13).",
 ];
 
+/** 42500.5 → "42,500.50" for the status words (the figures themselves stay exact decimal strings). */
+const words = (c: bigint) => {
+  const d = dec(c);
+  const [whole, frac] = d.replace("-", "").split(".");
+  return `${d.startsWith("-") ? "−" : ""}${whole.replace(/\B(?=(\d{3})+(?!\d))/g, ",")}.${frac}`;
+};
+const wordsOf = (v: string) => words(cents(v));
+
 function formatShare(share: number) {
   return `${Math.round(share * 10000) / 100} %`;
 }
@@ -93,15 +101,15 @@ export function statusOf(totals: SummaryTotals, m: SummaryMateriality): SummaryS
     ? "With the conservative sum of the sampling allowances added, the uncorrected misstatement could exceed overall materiality: the risk that the financial statements are materially misstated may be unacceptably high."
     : null;
   if (measure > overall) {
-    return { ...base, level: "exceeds-overall", label: "Exceeds overall materiality", words: `Uncorrected misstatement of ${dec(measure)} exceeds overall materiality of ${m.overall}. Unless corrected, the misstatements are material to the financial statements.`, responses: [RESPONSES_APPROACHING[2], "Evaluate the effect on the auditor's report if management declines to correct them (ISA 450 ¶11; ISA 705).", RESPONSES_APPROACHING[3]], allowanceWarning };
+    return { ...base, level: "exceeds-overall", label: "Exceeds overall materiality", words: `Uncorrected misstatement of ${words(measure)} exceeds overall materiality of ${wordsOf(m.overall)}. Unless corrected, the misstatements are material to the financial statements.`, responses: [RESPONSES_APPROACHING[2], "Evaluate the effect on the auditor's report if management declines to correct them (ISA 450 ¶11; ISA 705).", RESPONSES_APPROACHING[3]], allowanceWarning };
   }
   if (measure > performance) {
-    return { ...base, level: "exceeds-performance", label: "Exceeds performance materiality", words: `Uncorrected misstatement of ${dec(measure)} exceeds performance materiality of ${m.performance} (overall materiality ${m.overall}).`, responses: RESPONSES_APPROACHING, allowanceWarning };
+    return { ...base, level: "exceeds-performance", label: "Exceeds performance materiality", words: `Uncorrected misstatement of ${words(measure)} exceeds performance materiality of ${wordsOf(m.performance)} (overall materiality ${wordsOf(m.overall)}).`, responses: RESPONSES_APPROACHING, allowanceWarning };
   }
   if (measure > threshold) {
-    return { ...base, level: "approaching", label: "Approaching materiality", words: `Uncorrected misstatement of ${dec(measure)} is above ${share} of performance materiality (${dec(threshold)}) and approaching it.`, responses: RESPONSES_APPROACHING, allowanceWarning };
+    return { ...base, level: "approaching", label: "Approaching materiality", words: `Uncorrected misstatement of ${words(measure)} is above ${share} of performance materiality (${words(threshold)}) and approaching it.`, responses: RESPONSES_APPROACHING, allowanceWarning };
   }
-  return { ...base, level: "well-within", label: "Well within materiality", words: `Uncorrected misstatement of ${dec(measure)} is at or below ${share} of performance materiality (${dec(threshold)}).`, responses: [], allowanceWarning };
+  return { ...base, level: "well-within", label: "Well within materiality", words: `Uncorrected misstatement of ${words(measure)} is at or below ${share} of performance materiality (${words(threshold)}).`, responses: [], allowanceWarning };
 }
 
 /** Rows classified, totals and status: what the view model carries. */

@@ -2,6 +2,7 @@
 import { Text, View } from "@react-pdf/renderer";
 import type { SummaryView } from "@/lib/misstatements/types";
 import { formatMoney } from "../workpaper/format";
+import { Section } from "../workpaper/primitives";
 import { colours, s } from "../workpaper/styles";
 
 const WIDTH = 330;
@@ -21,8 +22,7 @@ export function BuildUpBars({ view }: { view: SummaryView }) {
   const x = (v: number) => (Math.abs(v) / scale) * WIDTH;
   const line = (v: number, colour: string) => ({ position: "absolute" as const, left: 110 + x(v), top: 0, bottom: 0, width: 1, backgroundColor: colour });
   return (
-    <View style={{ marginTop: 8 }} wrap={false}>
-      <Text style={s.subHead}>Build-up against materiality</Text>
+    <Section number="4" title="Build-up against materiality" keepTogether>
       <View style={{ position: "relative" }}>
         {bars.map((b) => (
           <View key={b.label} style={{ flexDirection: "row", alignItems: "center", height: 13 }}>
@@ -35,6 +35,6 @@ export function BuildUpBars({ view }: { view: SummaryView }) {
         <View style={line(overall, colours.draft)} />
       </View>
       <Text style={[s.faint, s.small, { marginTop: 2 }]}>{`Lines: performance materiality ${formatMoney(view.materiality.performance)} (amber), overall materiality ${formatMoney(view.materiality.overall)} (red). Bars show absolute values; grey bars are net understatements.`}</Text>
-    </View>
+    </Section>
   );
 }

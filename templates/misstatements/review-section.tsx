@@ -24,7 +24,7 @@ export function ReviewSection({ view }: { view: SummaryView }) {
   const lock = view.review.lock;
   return (
     <View>
-      <Section number="6" title="Review notes">
+      <Section number="7" title="Review notes">
         {view.notes.length === 0 ? <Text style={s.soft}>No review notes were raised.</Text> : view.notes.map((n, i) => (
           <View key={n.id} style={{ flexDirection: "row", borderBottomWidth: 0.4, borderBottomColor: colours.hairline, paddingVertical: 4 }} wrap={false}>
             <Text style={[s.bold, { width: 22, color: colours.ledger }]}>{`R${i + 1}`}</Text>
@@ -37,7 +37,7 @@ export function ReviewSection({ view }: { view: SummaryView }) {
           </View>
         ))}
       </Section>
-      <Section number="7" title="Sign-offs">
+      <Section number="8" title="Sign-offs">
         <View style={{ flexDirection: "row" }} wrap={false}>
           <Box title="Prepared by" who={view.review.preparer} />
           <Box title="Reviewed by" who={view.review.reviewer} />

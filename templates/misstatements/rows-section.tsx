@@ -31,7 +31,7 @@ export function RowsSection({ view }: { view: SummaryView }) {
   const rows = view.rows;
   return (
     <View>
-      <Section number="4" title="Schedule of misstatements">
+      <Section number="5" title="Schedule of misstatements">
         {view.conventions.map((c, i) => <Paragraph key={i} style={s.soft}>{c}</Paragraph>)}
         {rows.length === 0 && <Text style={s.soft}>No misstatements have been recorded.</Text>}
         <Group title="Uncorrected, accumulated" rows={rows.filter((r) => r.accumulated)} />
@@ -39,7 +39,7 @@ export function RowsSection({ view }: { view: SummaryView }) {
         <Group title="Corrected by the client" rows={rows.filter((r) => r.corrected !== null)} />
         <Group title="Prior period, carried forward (current-year effect under each approach)" rows={rows.filter((r) => r.kind === "prior-period" && r.corrected === null)} />
       </Section>
-      <Section number="5" title="Samples feeding the summary">
+      <Section number="6" title="Samples feeding the summary">
         <Table columns={[{ label: "Ref", width: 34 }, { label: "Sample", flex: 1 }, { label: "Method", width: 60 }, { label: "State", width: 180 }]}
           rows={view.samples.map((x) => ({ cells: [x.reference, x.name, x.method, x.state === "contributes" ? (x.locked ? (x.frozen ? "Locked — row frozen at lock" : "Locked") : "Live — not locked") : x.reason ?? x.state] }))} />
       </Section>

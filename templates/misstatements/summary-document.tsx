@@ -68,10 +68,10 @@ export function SummaryDocument({ view, draft }: { view: SummaryView; draft: boo
             { label: "Larger total + allowances", value: money(t.upperEstimate) },
           ]} />
           <Callout>{t.allowance.note}</Callout>
-          <BuildUpBars view={view} />
         </Section>
       </Sheet>
       <Sheet frame={frame}>
+        <BuildUpBars view={view} />
         <RowsSection view={view} />
       </Sheet>
       <Sheet frame={frame}>
