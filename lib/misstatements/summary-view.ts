@@ -19,6 +19,7 @@ export const CONVENTIONS = [
   "Rows from samples are fed live from each sample's evaluation; a locked sample's row is the one frozen at its lock.",
   "Corrected misstatements are listed apart and not accumulated. The team's entries below the clearly trivial threshold are listed but not accumulated.",
   "Prior-period uncorrected misstatements enter two totals that are never mixed: the income-statement (rollover) approach adds their effect on this period's profit; the balance-sheet (iron curtain) approach adds their effect on the closing net assets.",
+  "Misstatements of opposite sign offset in the totals; the gross figure shows them without offsetting. Whether offsetting is appropriate is the auditor's judgement (AU-C 450 / ISA 450 application material; from memory).",
   "Status compares the larger of the two totals with performance materiality and overall materiality.",
 ];
 
