@@ -36,8 +36,9 @@ async function contributions(db: Knex, engagementId: number) {
   return out;
 }
 
+/** What a sign-off vouches for: the figures and their treatment (not whether a sample's row is frozen yet, which its lock changes). */
 export const rowsFingerprint = (v: Pick<SummaryView, "rows" | "totals" | "materiality">) =>
-  createHash("sha256").update(JSON.stringify({ rows: v.rows, totals: v.totals, materiality: v.materiality })).digest("hex");
+  createHash("sha256").update(JSON.stringify({ rows: v.rows.map(({ frozen: _frozen, ...r }) => r), totals: v.totals, materiality: v.materiality })).digest("hex");
 
 /** The summary as it stands now (live), whether or not it is locked. */
 export async function buildLiveSummary(db: Knex, { engagementId }: { engagementId: number }): Promise<SummaryView> {
