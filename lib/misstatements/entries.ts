@@ -2,7 +2,7 @@ import "server-only";
 import type { Knex } from "knex";
 import { recordAudit } from "@/lib/data/audit-log";
 import { getEntryById } from "@/lib/data/misstatements";
-import { AppError, notFound } from "@/lib/errors";
+import { AppError, fieldError, notFound } from "@/lib/errors";
 import type { Entry } from "@/lib/validation/misstatements";
 import type { z } from "zod";
 import type { SampleCorrectionSchema, SummarySettingsSchema } from "@/lib/validation/misstatements";
@@ -62,7 +62,7 @@ export async function saveSummarySettings(db: Knex, { engagementId, actorId, inp
 /** Marks (or unmarks, with `corrected: null`) one part of a sample's row as corrected by the client. */
 export async function saveSampleCorrection(db: Knex, { engagementId, actorId, input }: { engagementId: number; actorId: number; input: z.output<typeof SampleCorrectionSchema> }) {
   await db.transaction(async (trx) => {
-    if (!(await trx("samples").where({ id: input.sampleId, engagement_id: engagementId }).first("id"))) throw new AppError(400, "invalid_input", "sampleId: no such sample on this engagement", { sampleId: ["No such sample on this engagement"] });
+    if (!(await trx("samples").where({ id: input.sampleId, engagement_id: engagementId }).first("id"))) throw fieldError("sampleId", "no such sample on this engagement");
     await beginSummaryWrite(trx, { engagementId, actorId, what: `correction of sample ${input.sampleId}` });
     const before = await trx("misstatement_corrections").where({ sample_id: input.sampleId, part: input.part }).forUpdate().first();
     await trx("misstatement_corrections").where({ sample_id: input.sampleId, part: input.part }).delete();
