@@ -21,7 +21,7 @@ export type RowInput = Omit<SummaryRow, "clearlyTrivial" | "accumulated">;
 export const DEFAULT_APPROACHING_SHARE = 0.75; // common practice
 
 export const ALLOWANCE_NOTE =
-  "The allowances for sampling risk are added here as a conservative figure. Allowances do not add linearly: each is an upper-bound margin at its own sample's confidence, and their sum overstates the combined sampling risk of the samples taken together. No pooled bound is computed.";
+  "The allowances for sampling risk are added here as a conservative figure. Allowances do not add linearly: each is an upper-bound margin at its own sample's confidence, and their sum overstates the combined sampling risk of the samples taken together. No combined (pooled) bound is computed: Sondage applies no pooling method it can cite, so the conservative sum is shown alone.";
 
 export interface Aggregate { rows: SummaryRow[]; totals: SummaryTotals; status: SummaryStatus }
 
