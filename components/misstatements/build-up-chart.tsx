@@ -1,7 +1,7 @@
 import type { SummaryView } from "@/lib/misstatements/types";
 import { formatAmount } from "@/components/ui/amount";
 
-const W = 640, LABEL = 190, ROW = 26, PAD = 24;
+const W = 560, LABEL = 200, ROW = 28, PAD = 26;
 
 /** The build-up of uncorrected misstatement as bars against performance and overall materiality (an SVG with a text alternative). */
 export function BuildUpChart({ view }: { view: SummaryView }) {
@@ -28,16 +28,16 @@ export function BuildUpChart({ view }: { view: SummaryView }) {
           const v = Number(b.value), y = PAD + i * ROW;
           return (
             <g key={b.label}>
-              <text x={0} y={y + 15} className="fill-ink-soft text-[11px]">{b.label}</text>
+              <text x={0} y={y + 15} className="fill-ink-soft text-[13px]">{b.label}</text>
               <rect x={LABEL} y={y + 4} width={Math.max(x(v) - LABEL, 1)} height={14} rx={2} className={v < 0 ? "fill-slate-500" : i >= 3 ? "fill-ledger-700" : "fill-ledger-500"} />
-              <text x={x(v) + 6} y={y + 15} className="fill-ink text-[11px] tabular-nums">{formatAmount(b.value)}</text>
+              <text x={x(v) + 6} y={y + 15} className="fill-ink text-[13px] tabular-nums">{formatAmount(b.value)}</text>
             </g>
           );
         })}
         {[{ v: performance, label: "Performance", cls: "stroke-amber-500 fill-amber-700" }, { v: overall, label: "Overall", cls: "stroke-brick-500 fill-brick-700" }].map((l) => (
           <g key={l.label} className={l.cls}>
             <line x1={x(l.v)} x2={x(l.v)} y1={PAD - 6} y2={height - PAD + 6} strokeWidth={2} strokeDasharray="5 3" />
-            <text x={x(l.v) - 4} y={l.label === "Overall" ? height - 4 : 12} textAnchor="end" className="stroke-none text-[11px]">{l.label} {formatAmount(l.v)}</text>
+            <text x={x(l.v) - 4} y={l.label === "Overall" ? height - 4 : 12} textAnchor="end" className="stroke-none text-[13px]">{l.label} {formatAmount(l.v)}</text>
           </g>
         ))}
       </svg>
