@@ -75,6 +75,23 @@ describe("rows fed live from the sample's results", () => {
   });
 });
 
+describe("sign-offs and the live rows", () => {
+  it("shows a sign-off as no longer applying when a sample's results move the rows, and refuses the reviewer until the preparer signs again", async () => {
+    expect((await call(summarySignOff.POST, "POST", { as: senior, params: e(), body: { as: "preparer" } })).status).toBe(200);
+    expect((await getSummary()).json.summary.review).toMatchObject({ staleSignOffs: false, preparer: { role: "senior" } });
+    const inv = (await listSampleItems(staff, engagement, sampleId)).find((i) => i.itemRef === "INV011")!;
+    await saveResult(staff, engagement, sampleId, inv.id, { version: inv.version, status: "done", auditedValue: "3280.00", cause: "cut-off", comment: "Re-checked" });
+    expect((await getSummary()).json.summary.review).toMatchObject({ staleSignOffs: false }); // the figures did not move: the comment is not on the summary
+    const moved = (await listSampleItems(staff, engagement, sampleId)).find((i) => i.itemRef === "INV011")!;
+    await saveResult(staff, engagement, sampleId, moved.id, { version: moved.version, status: "done", auditedValue: "3300.00", cause: "cut-off" });
+    expect((await getSummary()).json.summary.review).toMatchObject({ staleSignOffs: true, preparer: null });
+    const r = await call(summarySignOff.POST, "POST", { as: manager, params: e(), body: { as: "reviewer" } });
+    expect(r.status).toBe(409);
+    expect(r.json.error.message).toMatch(/changed after the preparer signed off/);
+    await saveResult(staff, engagement, sampleId, moved.id, { version: moved.version + 1, status: "done", auditedValue: "3280.00", cause: "cut-off" });
+  });
+});
+
 describe("entries by the team", () => {
   it("lets staff add a judgemental misstatement and refuses a viewer", async () => {
     expect((await call(entries.POST, "POST", { as: viewer, params: e(), body: JUDGEMENT })).status).toBe(403);
