@@ -8,6 +8,7 @@ import { aggregate, type RowInput } from "./aggregate";
 import type { SampleContribution } from "./contribution";
 import { loadSampleContribution } from "./from-sample";
 import { listSummaryNotes } from "./notes";
+import { listSummaryTrail } from "./trail";
 import { entryReference, entryRow, sampleReference, sampleRows } from "./rows";
 import type { SummaryReview, SummarySampleLine, SummaryView } from "./types";
 
@@ -44,12 +45,13 @@ export const rowsFingerprint = (v: Pick<SummaryView, "rows" | "totals" | "materi
 export async function buildLiveSummary(db: Knex, { engagementId }: { engagementId: number }): Promise<SummaryView> {
   const engagement = await getEngagementById(db, { engagementId });
   if (!engagement) throw notFound("No such engagement");
-  const [firm, settings, entries, corrections, notes, feed] = await Promise.all([
+  const [firm, settings, entries, corrections, notes, trail, feed] = await Promise.all([
     db("firms").where({ id: engagement.firmId }).first("name"),
     getSummaryByEngagementId(db, { engagementId }),
     listEntriesByEngagementId(db, { engagementId }),
     listCorrectionsByEngagementId(db, { engagementId }),
     listSummaryNotes(db, { engagementId }),
+    listSummaryTrail(db, { engagementId }),
     contributions(db, engagementId),
   ]);
   const materiality = { overall: engagement.overallMateriality, performance: engagement.performanceMateriality, clearlyTrivial: settings.clearlyTrivial, approachingShare: settings.approachingShare, currency: engagement.currency };
@@ -71,7 +73,7 @@ export async function buildLiveSummary(db: Knex, { engagementId }: { engagementI
     engagement: { id: engagement.id, clientName: engagement.clientName, name: engagement.name, periodEnd: engagement.periodEnd, currency: engagement.currency },
     firmName: firm?.name ?? "", workpaperReference: summaryReferenceFor(engagementId), generatedAt: new Date().toISOString(), materiality, rows, totals, status, samples,
     entries: entries.map((e) => ({ id: e.id, version: e.version, reference: entryReference(e.id), createdByName: e.createdByName, createdAt: e.createdAt, updatedAt: e.updatedAt })),
-    review, notes, rowsSha256, conventions: CONVENTIONS, caution: SUMMARY_CAUTION,
+    review, notes, trail, rowsSha256, conventions: CONVENTIONS, caution: SUMMARY_CAUTION,
   };
 }
 

@@ -108,6 +108,8 @@ export interface SummaryReview {
   lockable: { ok: boolean; reasons: string[] };
 }
 
+export interface SummaryTrailEntry { at: string; who: string; action: string; subject: string; before: string | null; after: string | null }
+
 export interface SummaryView {
   engagement: { id: number; clientName: string; name: string; periodEnd: string; currency: string };
   firmName: string;
@@ -121,6 +123,8 @@ export interface SummaryView {
   entries: SummaryEntryLine[];
   review: SummaryReview;
   notes: SummaryNote[];
+  /** Every recorded change to the summary, oldest first (the workpaper's appendix). */
+  trail: SummaryTrailEntry[];
   rowsSha256: string;
   conventions: string[];
   caution: string;

@@ -2,8 +2,10 @@
 import { Text, View } from "@react-pdf/renderer";
 import type { SummaryView } from "@/lib/misstatements/types";
 import { formatTime } from "../workpaper/format";
-import { Section } from "../workpaper/primitives";
+import { Section, Table } from "../workpaper/primitives";
 import { colours, s } from "../workpaper/styles";
+
+const clip = (v: string) => (v.length > 240 ? `${v.slice(0, 240)}…` : v);
 
 function Box({ title, who }: { title: string; who: { name: string; role: string; at: string } | null }) {
   return (
@@ -47,6 +49,12 @@ export function ReviewSection({ view }: { view: SummaryView }) {
           </View>
         </View>
         {view.review.staleSignOffs && <Text style={[s.soft, { marginTop: 4 }]}>Earlier sign-offs were given to rows that have since changed; they no longer apply.</Text>}
+      </Section>
+      <Section number="9" title="Audit trail of the summary">
+        {view.trail.length === 0 ? <Text style={s.soft}>No changes recorded.</Text> : (
+          <Table columns={[{ label: "When", width: 78 }, { label: "Who", width: 80 }, { label: "Action", width: 70 }, { label: "Subject", width: 70 }, { label: "Change", flex: 1, mono: true }]}
+            rows={view.trail.map((t) => ({ cells: [formatTime(t.at), t.who, t.action, t.subject, `${t.before ? `${clip(t.before)} → ` : ""}${clip(t.after ?? "")}`] }))} />
+        )}
       </Section>
     </View>
   );

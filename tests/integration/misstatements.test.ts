@@ -101,6 +101,7 @@ describe("entries by the team", () => {
     expect(r.json.entry).toMatchObject({ kind: "judgemental", amount: "-4200.00", version: 1 });
     expect(rowOf(r.json, `e${r.json.entry.id}`)).toMatchObject({ amount: "-4200.00", accumulated: true });
     expect(await auditCount({ entity: "misstatement_entry" })).toBe(before + 1);
+    expect(r.json.summary.trail.at(-1)).toMatchObject({ action: "create", subject: `entry ${r.json.entry.id}` });
   });
 
   it("answers 400 naming the field and stores nothing", async () => {

@@ -24,7 +24,7 @@ function view(): SummaryView {
     engagement: { id: 7, clientName: "Tessaly Outdoor Supply Inc.", name: "Financial statement audit FY2026", periodEnd: "2026-09-30", currency: "USD" }, firmName: "Marrow & Quill Assurance LLP",
     workpaperReference: "WP-7-MIS", generatedAt: "2026-12-03T08:00:00.000Z", materiality: m, ...aggregate(rows, m),
     samples: [{ sampleId: 1, reference: "S001", name: "Receivables existence", link: "/engagements/7/samples/1", method: "mus", state: "contributes", reason: null, locked: false, frozen: false }],
-    entries: [], review: { preparer: null, reviewer: null, staleSignOffs: false, lock: null, openNotes: 0, lockable: { ok: false, reasons: [] } }, notes: [], rowsSha256: "",
+    entries: [], review: { preparer: null, reviewer: null, staleSignOffs: false, lock: null, openNotes: 0, lockable: { ok: false, reasons: [] } }, notes: [], trail: [{ at: "2026-12-03T07:59:00.000Z", who: "Jonah Lindqvist", action: "create", subject: "entry 2", before: null, after: "{\"amount\":\"12000.00\"}" }], rowsSha256: "",
     conventions: ["Amounts are exact to the cent."], caution: "These figures support, and do not replace, the auditor's professional judgement.",
   };
 }
@@ -44,6 +44,7 @@ describe("the summary of misstatements workpaper", () => {
     expect(flat).toContain("Well within materiality");
     expect(flat).toContain("DRAFT");
     expect(flat).toContain("WP-7-MIS");
+    expect(flat).toContain("Audit trail of the summary");
     expect(pageCount(file)).toBe(3);
     expect(previewPngs(file, "summary-of-misstatements").length).toBe(3);
   });

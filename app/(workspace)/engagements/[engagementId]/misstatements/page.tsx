@@ -15,6 +15,7 @@ import { RowsTable } from "@/components/misstatements/rows-table";
 import { EntryForm } from "@/components/misstatements/entry-form";
 import { SettingsForm } from "@/components/misstatements/settings-form";
 import { SummaryReview } from "@/components/misstatements/summary-review";
+import { TrailCard } from "@/components/misstatements/trail-card";
 
 export const metadata: Metadata = { title: "Summary of misstatements" };
 
@@ -56,6 +57,7 @@ export default async function MisstatementsPage({ params }: { params: Promise<{ 
         {mayEdit && <Card title="Add a misstatement found outside sampling"><EntryForm engagementId={engagement.id} /></Card>}
         {!locked && hasAtLeastRole(role, "manager") && <Card title="Thresholds"><SettingsForm engagementId={engagement.id} materiality={view.materiality} /></Card>}
         <SummaryReview view={view} role={role} />
+        <TrailCard view={view} />
       </div>
     </>
   );
