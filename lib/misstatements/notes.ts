@@ -21,7 +21,7 @@ export async function raiseSummaryNote(db: Knex, { engagementId, actorId, text }
     await assertSummaryUnlocked(trx, engagementId);
     const [id] = await trx("misstatement_notes").insert({ engagement_id: engagementId, text, raised_by: actorId });
     await recordAudit(trx, { actorUserId: actorId, engagementId, entity: "misstatement_note", entityId: id, action: "raise", after: { text } });
-    return id as number;
+    return id;
   });
 }
 

@@ -34,7 +34,7 @@ describe("what a sample carries to the summary (the adapter over the evaluation)
     const none = { ...musEvaluation(), evaluation: null, projectedMisstatement: null, progress: { ...musEvaluation().progress, done: 0 } };
     expect(contributionOf(sample, "R", none, null)).toMatchObject({ state: "no-results", reason: "No results recorded yet." });
     const controls = { ...musEvaluation(), evaluation: { kind: "attribute" as const, sampleSize: 60, deviations: 1, sampleRate: 1 / 60, upperLimit: 0.08, tolerableRate: 0.1 }, projectedMisstatement: null };
-    expect(contributionOf({ ...sample, method: "attribute" } as SampleRecord, "R", controls, null).state).toBe("not-monetary");
+    expect(contributionOf({ ...sample, method: "attribute" }, "R", controls, null).state).toBe("not-monetary");
   });
 
   it("takes a new kind of evaluation through one reader: a projection with no allowance says so on its row", () => {
