@@ -5,7 +5,7 @@ import type { Knex } from "knex";
 import { recordAudit } from "@/lib/data/audit-log";
 import { getEntryById } from "@/lib/data/misstatements";
 import { AppError, notFound } from "@/lib/errors";
-import { sniffEvidence } from "@/lib/fieldwork/evidence-sniff";
+import { sniffEvidence } from "@/lib/files/sniff-evidence";
 import { putObjectBytes } from "@/lib/storage/objects";
 import { beginSummaryWrite } from "./guard";
 
@@ -32,7 +32,7 @@ export async function getEntryEvidence(db: Knex, { entryId, evidenceId }: { entr
 }
 
 export async function addEntryEvidence(db: Knex, a: { engagementId: number; entryId: number; actorId: number; fileName: string; bytes: Buffer }) {
-  const sniff = sniffEvidence(a.bytes, a.fileName);
+  const sniff = await sniffEvidence(a.bytes, a.fileName);
   if (!sniff.ok) throw new AppError(415, "unsupported_evidence_type", sniff.reason);
   const sha256 = createHash("sha256").update(a.bytes).digest("hex");
   const objectKey = `engagements/${a.engagementId}/misstatements/${a.entryId}/evidence/${sha256}-${randomUUID()}`;

@@ -6,37 +6,29 @@ import "server-only";
  */
 import type { Knex } from "knex";
 import type { SampleRecord } from "@/lib/data/samples";
-import type { MethodEvaluation, SampleEvaluation } from "@/lib/samples/evaluate";
+import type { SampleEvaluation } from "@/lib/samples/evaluate";
+import type { EvaluationBlock } from "@/lib/samples/evaluation-types";
 import { loadSampleWithEvaluation } from "@/lib/samples/context";
 import type { SampleContribution } from "./contribution";
-import { dec, floatToCents, cents } from "./money-cents";
+import { cents, dec } from "./money-cents";
 
 type Part = Pick<SampleContribution, "allowance" | "allowanceNote" | "upperLimit" | "basis">;
-type Reader = (evaluation: MethodEvaluation, sample: SampleRecord, whole: SampleEvaluation) => Part | null;
-
-const fromFloat = (v: number) => dec(floatToCents(v));
+type Reader = (block: EvaluationBlock, sample: SampleRecord, whole: SampleEvaluation) => Part | null;
 
 export const CONTRIBUTION_READERS: Record<string, Reader> = {
-  // Stringer bound: allowance = basic precision + incremental allowance on the tested side.
-  mus: (e, sample) => {
-    if (e.kind !== "mus") return null;
-    const side = sample.direction === "understatement" ? e.result.understatement : e.result.overstatement;
-    const twoSided = sample.direction !== "overstatement" && sample.direction !== "understatement";
-    const other = twoSided ? e.result.understatement : null;
-    const allowance = Math.max(side.upperLimit - side.projected, other ? other.upperLimit - other.projected : 0);
-    return { allowance: fromFloat(allowance), allowanceNote: null, upperLimit: fromFloat(Math.max(side.upperLimit, other?.upperLimit ?? 0)), basis: "monetary-unit (Stringer bound)" };
+  // Stringer bound: allowance = upper limit − projected (basic precision + incremental allowance) on the tested side(s).
+  mus: (b) => {
+    if (b.method !== "mus") return null;
+    const sides = b.direction === "understatement" ? [b.understatement] : b.direction === "overstatement" ? [b.overstatement] : [b.overstatement, b.understatement];
+    const allowance = sides.map((x) => cents(x.upperLimit) - cents(x.projected)).reduce((a, c) => (c > a ? c : a));
+    const upper = sides.map((x) => cents(x.upperLimit)).reduce((a, c) => (c > a ? c : a));
+    return { allowance: dec(allowance), allowanceNote: null, upperLimit: dec(upper), basis: "monetary-unit (Stringer bound)" };
   },
-  // Classical estimators: the bound on the tested side less the projection in that direction.
-  variables: (e, _sample, whole) => {
-    if (e.kind !== "variables") return null;
-    const projected = whole.projectedMisstatement ?? 0;
-    const over = e.misstatementBounds.overstatement === null ? null : e.misstatementBounds.overstatement - projected;
-    const under = e.misstatementBounds.understatement === null ? null : e.misstatementBounds.understatement + projected;
-    const allowance = Math.max(over ?? 0, under ?? 0);
-    return { allowance: fromFloat(allowance), allowanceNote: null, upperLimit: whole.upperBound === null ? null : fromFloat(whole.upperBound), basis: `classical ${e.estimator}` };
-  },
+  // Classical estimators: the allowance the interval uses (A′, or A″ when adjusted): limit − projection.
+  variables: (b) => (b.method === "variables" ? { allowance: b.decision.allowance, allowanceNote: null, upperLimit: null, basis: `classical ${b.estimator}` } : null),
+  stratified: (b) => (b.method === "stratified" ? { allowance: b.decision.allowance, allowanceNote: null, upperLimit: null, basis: `stratified ${b.estimator}` } : null),
   // A test of controls has no monetary misstatement to carry.
-  attribute: () => null,
+  attributes: () => null,
 };
 
 /** What a sample contributes now, from its evaluation; `lockedAt` when the sample is locked. */
@@ -46,15 +38,15 @@ export function contributionOf(sample: SampleRecord, populationName: string, eva
     confidence: evaluation.confidence ?? null, complete: evaluation.complete, lockedAt,
     factual: "0.00", projectedTotal: "0.00", allowance: null, allowanceNote: null, upperLimit: null, basis: sample.method,
   };
-  if (!evaluation.evaluation) {
-    return { ...base, state: "no-results", reason: evaluation.progress.done + evaluation.progress.notAuditable === 0 ? "No results recorded yet." : evaluation.conclusion };
+  if (!evaluation.block) {
+    return { ...base, state: "no-results", reason: evaluation.progress.done + evaluation.progress.notAuditable === 0 ? "No results recorded yet." : evaluation.computed.statement };
   }
-  const reader = CONTRIBUTION_READERS[evaluation.evaluation.kind];
-  const part = reader ? reader(evaluation.evaluation, sample, evaluation) : null;
+  const reader = CONTRIBUTION_READERS[evaluation.block.method];
+  const part = reader ? reader(evaluation.block, sample, evaluation) : null;
   if (!part || evaluation.projectedMisstatement === null) {
     return { ...base, state: "not-monetary", reason: "A test of controls: it carries no monetary misstatement (its deviations inform the assessed risk)." };
   }
-  return { ...base, ...part, state: "contributes", reason: null, factual: evaluation.progress.misstatementTotal, projectedTotal: fromFloat(evaluation.projectedMisstatement) };
+  return { ...base, ...part, state: "contributes", reason: null, factual: evaluation.progress.misstatementTotal, projectedTotal: dec(cents(evaluation.projectedMisstatement)) };
 }
 
 /** The projection beyond the items examined: the sample's projected misstatement less what was found. */

@@ -5,7 +5,7 @@ import { getEntryById } from "@/lib/data/misstatements";
 import { assertMayWriteEvidence } from "@/lib/fieldwork/evidence-access";
 import { MAX_EVIDENCE_BYTES } from "@/lib/fieldwork/evidence";
 import { EvidenceUploadQuerySchema } from "@/lib/fieldwork/evidence-schemas";
-import { readBodyBytes } from "@/lib/fieldwork/read-body";
+import { readBodyBytes } from "@/lib/files/read-body";
 import { addEntryEvidence, listEntryEvidence, publicEntryEvidence } from "@/lib/misstatements/evidence";
 
 export const GET = withEngagementRole(z.object({}), "viewer", async (_input, ctx) => {

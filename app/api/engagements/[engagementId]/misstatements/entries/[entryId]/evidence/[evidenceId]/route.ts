@@ -3,7 +3,7 @@ import { parseIdParam } from "@/lib/auth/access";
 import { withEngagementRole } from "@/lib/auth/with-role";
 import { getEntryById } from "@/lib/data/misstatements";
 import { assertMayWriteEvidence } from "@/lib/fieldwork/evidence-access";
-import { storedFileResponse } from "@/lib/fieldwork/download";
+import { storedFileResponse } from "@/lib/files/download";
 import { deleteEntryEvidence, getEntryEvidence } from "@/lib/misstatements/evidence";
 
 export const GET = withEngagementRole(z.object({}), "viewer", async (_input, ctx) => {
