@@ -7,7 +7,7 @@ import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { getDb } from "@/db/knex";
 import { call, callRaw } from "./support/call";
 import { auditCount, makeEngagement, makeFirm, makeUser } from "./support/factory";
-import { drawSample, getEvaluation, listSampleItems, loadCanonicalPopulation, planSample, saveResult } from "./support/samples";
+import { concludeSample, drawSample, getEvaluation, listSampleItems, loadCanonicalPopulation, planSample, saveResult } from "./support/samples";
 import * as summary from "@/app/api/engagements/[engagementId]/misstatements/route";
 import * as entries from "@/app/api/engagements/[engagementId]/misstatements/entries/route";
 import * as entry from "@/app/api/engagements/[engagementId]/misstatements/entries/[entryId]/route";
@@ -190,6 +190,7 @@ describe("locking", () => {
 
   it("freezes a locked sample's row: later changes to its stored results do not move it", async () => {
     const sp = { engagementId: String(engagement), sampleId: String(sampleId) };
+    expect((await concludeSample(staff, engagement, sampleId)).status).toBe(200);
     expect((await call(sampleSignOff.POST, "POST", { as: staff, params: sp, body: { as: "preparer" } })).status).toBe(200);
     expect((await call(sampleSignOff.POST, "POST", { as: manager, params: sp, body: { as: "reviewer" } })).status).toBe(200);
     expect((await call(sampleLock.POST, "POST", { as: manager, params: sp })).status).toBe(200);
@@ -208,6 +209,7 @@ describe("locking", () => {
   it("signs off, locks with a stored PDF and its SHA-256, refuses writes, and unlocks for a partner with a reason", async () => {
     const sp = { engagementId: String(engagement), sampleId: String(sampleId) };
     await getDb()("sample_items").where({ sample_id: sampleId }).update({ audited_value: getDb().raw("book_value") });
+    expect((await concludeSample(staff, engagement, sampleId)).status).toBe(200);
     expect((await call(sampleSignOff.POST, "POST", { as: staff, params: sp, body: { as: "preparer" } })).status).toBe(200);
     expect((await call(sampleSignOff.POST, "POST", { as: manager, params: sp, body: { as: "reviewer" } })).status).toBe(200);
     expect((await call(sampleLock.POST, "POST", { as: manager, params: sp })).status).toBe(200);
