@@ -55,6 +55,7 @@ export default tseslint.config(
       "lib/fieldwork/evidence.ts",
       "lib/mail/**",
       "lib/workpaper/assemble.ts",
+      "lib/misstatements/{entries,evidence,guard,notes,review,summary-view,trail}.ts",
       "lib/populations/load-population.ts",
       "app/api/**",
       "db/**",

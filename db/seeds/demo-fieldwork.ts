@@ -11,6 +11,13 @@ import { DEMO_PASSWORD } from "./demo-scenario";
 const SENIOR = "senior@marrow-quill.example";
 const STAFF = "staff@marrow-quill.example";
 const CLIENT = "carla.mendes@tessaly-outdoor.example";
+const MANAGER = "manager@marrow-quill.example";
+
+// Invented for the demo. Positive amounts overstate the recorded figure (and here profit and net assets).
+const DEMO_ENTRIES = [
+  { kind: "factual", account: "Revenue / trade receivables", assertion: "Cut-off", description: "Two September invoices for goods delivered on 2 October recorded as September revenue (found in the cut-off test, not in a sample).", amount: "18450.00", incomeEffect: "18450.00", balanceEffect: "18450.00" },
+  { kind: "judgemental", account: "Allowance for doubtful receivables", assertion: "Valuation", description: "Management provides 2.0 % of balances over 90 days; our estimate from the last three years' write-offs is 3.1 %. Difference between the two point estimates.", amount: "41200.00", incomeEffect: "41200.00", balanceEffect: "41200.00" },
+];
 
 async function readLoadStream(res: Response) {
   const lines = (await res.text()).split("\n").filter(Boolean).map((l) => JSON.parse(l));
@@ -60,6 +67,15 @@ async function main(baseUrl: string) {
     method: "POST", headers: { "content-type": "application/json" },
     body: JSON.stringify({ populationId: loaded.populationId, name: "Receivables valuation — classical estimate", objective: "Estimate the audited value of trade receivables to test their valuation at the period end.", assertion: "Valuation", direction: "overstatement", params: { method: "random", estimator: "difference", confidence: 0.95, tolerableMisstatement: "60000", sampleSize: 120, sizeReason: "Planned size to be confirmed with the estimator advisor before drawing" } }),
   });
+  // The summary of misstatements (issue 16): both samples feed it (the drawn one with results, the
+  // classical plan once it has results); the manager sets a clearly trivial threshold and the team
+  // enters two misstatements found outside sampling.
+  const manager = new HttpSession(baseUrl);
+  await manager.signIn(MANAGER, DEMO_PASSWORD);
+  await manager.json(`${base}/misstatements/settings`, { method: "PUT", headers: { "content-type": "application/json" }, body: JSON.stringify({ clearlyTrivial: "12000.00", approachingShare: 0.75 }) });
+  for (const entry of DEMO_ENTRIES) {
+    await senior.json(`${base}/misstatements/entries`, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify(entry) });
+  }
   // A request list to the client contact for the first eight selections still without a result.
   const { contacts } = await senior.json<{ contacts: { userId: number; email: string }[] }>(`${base}/client-contacts`);
   const carla = contacts.find((c) => c.email === CLIENT);
@@ -72,7 +88,7 @@ async function main(baseUrl: string) {
         message: "Hello Carla, these are the invoices we selected for testing. Thank you for sending the documents by the due date." }),
     });
   }
-  console.log(`demo fieldwork: ${loaded.rowCount} ledger lines loaded, sample ${sample.id} drawn, 24 results recorded${carla ? ", a request list sent to the client contact" : ""}; sample ${valuation.id} planned for the advisor`);
+  console.log(`demo fieldwork: ${loaded.rowCount} ledger lines loaded, sample ${sample.id} drawn, 24 results recorded, 2 misstatements entered on the summary${carla ? ", a request list sent to the client contact" : ""}; sample ${valuation.id} planned for the advisor`);
 }
 
 main(process.argv[2] ?? "http://127.0.0.1:3000").catch((err: unknown) => {

@@ -8,6 +8,8 @@ import { putObjectBytes } from "@/lib/storage/objects";
 import { lockedError } from "@/lib/samples/guard";
 import { CLOSED_BY_LOCK, closeRequestListsOfSample } from "@/lib/requests/lists";
 import type { EngagementRole } from "@/lib/auth/roles";
+import { freezeSampleContribution, thawSampleContribution } from "@/lib/data/misstatements";
+import { loadSampleContribution } from "@/lib/misstatements/from-sample";
 
 export type RenderFinalWorkpaper = (lockInfo: { lockedById: number; role: EngagementRole; lockedAt: Date; reference: string }) => Promise<Buffer>;
 
@@ -28,6 +30,8 @@ export async function lockSample(db: Knex, { sample, actorId, role, render }: { 
   const sha256 = createHash("sha256").update(pdf).digest("hex");
   const key = `engagements/${sample.engagementId}/samples/${sample.id}/workpaper-${lockedAt.getTime()}-${sha256.slice(0, 12)}.pdf`;
   await putObjectBytes({ key, bytes: pdf, contentType: "application/pdf" });
+  // What the sample carries to the summary of misstatements, frozen as it stands at the lock.
+  const contribution = await loadSampleContribution(db, { engagementId: sample.engagementId, sampleId: sample.id, lockedAt: lockedAt.toISOString() });
   await db.transaction(async (trx) => {
     const current = await trx("samples").where({ id: sample.id }).forUpdate().first("locked_at", "reviewer_signed_at");
     if (current.locked_at) throw lockedError();
@@ -35,6 +39,7 @@ export async function lockSample(db: Knex, { sample, actorId, role, render }: { 
     await trx("samples").where({ id: sample.id }).update({ locked_by: actorId, locked_at: lockedAt, workpaper_object_key: key, workpaper_sha256: sha256, workpaper_size_bytes: pdf.length, workpaper_reference: reference });
     await recordAudit(trx, { actorUserId: actorId, engagementId: sample.engagementId, sampleId: sample.id, entity: "sample", entityId: sample.id, action: "lock", after: { role, workpaperSha256: sha256, bytes: pdf.length, reference } });    // The workpaper is final, so the client is asked for nothing more on this sample.
     await closeRequestListsOfSample(trx, { sampleId: sample.id, engagementId: sample.engagementId, actorId, reason: CLOSED_BY_LOCK });
+    await freezeSampleContribution(trx, { engagementId: sample.engagementId, contribution });
   });
   return { sha256, bytes: pdf.length, reference };
 }
@@ -49,6 +54,7 @@ export async function unlockSample(db: Knex, { sample, actorId, role, reason }: 
       locked_by: null, locked_at: null, workpaper_object_key: null, workpaper_sha256: null, workpaper_size_bytes: null,
       reviewer_signed_by: null, reviewer_signed_role: null, reviewer_signed_at: null,
     });
+    await thawSampleContribution(trx, { sampleId: sample.id });
     await recordAudit(trx, { actorUserId: actorId, engagementId: sample.engagementId, sampleId: sample.id, entity: "sample", entityId: sample.id, action: "unlock",
       before: { lockedAt: row.locked_at, workpaperSha256: row.workpaper_sha256, workpaperObjectKey: row.workpaper_object_key }, after: { reason, reviewerSignOff: "cleared" } });
   });

@@ -13,7 +13,10 @@ const FOOTER_TOP = 841.89 - 20 - 30;
 
 export const DRAFT_MARK = "DRAFT — NOT SIGNED OFF";
 
-export function RunningHeader({ data }: { data: WorkpaperData }) {
+/** What the frame prints: any workpaper (the sample's, the summary of misstatements) can supply it. */
+export type PageFrameData = Pick<WorkpaperData, "firmName" | "clientName" | "engagementName" | "periodEnd" | "workpaperReference" | "draft"> & { caution?: string };
+
+export function RunningHeader({ data }: { data: PageFrameData }) {
   return (
     <View fixed style={{ position: "absolute", top: 24, left: PAGE_MARGIN_X, right: PAGE_MARGIN_X }}>
       <View style={{ flexDirection: "row", alignItems: "flex-end" }}>
@@ -39,13 +42,13 @@ export function RunningHeader({ data }: { data: WorkpaperData }) {
   );
 }
 
-export function Footer({ data }: { data: WorkpaperData }) {
+export function Footer({ data }: { data: PageFrameData }) {
   return (
     // Positioned from the top with a fixed height: an auto-height bottom-anchored fixed view drifts on long documents (react-pdf #3416).
     <View fixed style={{ position: "absolute", top: FOOTER_TOP, height: 30, left: PAGE_MARGIN_X, right: PAGE_MARGIN_X }}>
       <View style={{ height: 0.5, backgroundColor: colours.hairline, marginBottom: 4 }} />
       <View style={{ flexDirection: "row" }}>
-        <Text style={[s.faint, { flex: 1, fontSize: 6.5, paddingRight: 16 }]}>{CAUTION}</Text>
+        <Text style={[s.faint, { flex: 1, fontSize: 6.5, paddingRight: 16 }]}>{data.caution ?? CAUTION}</Text>
         <View style={{ alignItems: "flex-end", width: 120 }}>
           <Text style={{ fontSize: 7.5 }} render={({ pageNumber, totalPages }) => `Page ${pageNumber} of ${totalPages}`} />
           <Text style={[s.faint, { fontSize: 6.5 }]}>{`Workpaper ${data.workpaperReference}${data.draft ? " · draft" : ""}`}</Text>

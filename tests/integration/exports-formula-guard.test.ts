@@ -13,6 +13,8 @@ import { drawSample, listSampleItems, planSample, saveResult } from "./support/s
 import * as reconcile from "@/app/api/engagements/[engagementId]/populations/[populationId]/reconciliation/route";
 import * as workbook from "@/app/api/engagements/[engagementId]/samples/[sampleId]/workbook/route";
 import * as problems from "@/app/api/engagements/[engagementId]/populations/uploads/[uploadId]/problems/route";
+import * as summaryEntries from "@/app/api/engagements/[engagementId]/misstatements/entries/route";
+import * as summaryWorkbook from "@/app/api/engagements/[engagementId]/misstatements/workbook/route";
 
 vi.mock("@/lib/auth/session-user", async () => (await import("./support/session")).sessionModule);
 
@@ -76,6 +78,29 @@ describe("the fieldwork workbook", () => {
     // (the population's and the exporter's names sit inside longer cover text, which starts with a letter).
     expect(guarded).toBeGreaterThanOrEqual(24 + 2);
     expect(textCells).toBeGreaterThan(guarded);
+  });
+});
+
+describe("the summary of misstatements workbook", () => {
+  it("writes hostile accounts, assertions and descriptions of the team's entries as inert text", async () => {
+    for (const h of HOSTILE) {
+      const r = await call(summaryEntries.POST, "POST", { as: staff, params: { engagementId: String(engagement) }, body: { kind: "factual", account: `${h} account`, assertion: `${h} as`, description: `${h} description`, amount: "10.00", incomeEffect: "10.00", balanceEffect: "10.00" } });
+      expect(r.status, JSON.stringify(r.json)).toBe(201);
+    }
+    const res = await callRaw(summaryWorkbook.GET, "GET", { as: staff, params: { engagementId: String(engagement) } });
+    expect(res.status).toBe(200);
+    const wb = new ExcelJS.Workbook();
+    await wb.xlsx.load(await res.arrayBuffer());
+    let guarded = 0;
+    for (const sheet of wb.worksheets) {
+      sheet.eachRow((row, r) => row.eachCell((cell, c) => {
+        expect(cell.type, `${sheet.name}!R${r}C${c}`).not.toBe(ExcelJS.ValueType.Formula);
+        if (typeof cell.value !== "string") return;
+        expect(cell.value, `${sheet.name}!R${r}C${c}`).not.toMatch(TRIGGER);
+        if (cell.value.startsWith("'") && TRIGGER.test(cell.value.slice(1))) guarded++;
+      }));
+    }
+    expect(guarded).toBeGreaterThanOrEqual(HOSTILE.length * 3); // account, assertion, description of each entry
   });
 });
 

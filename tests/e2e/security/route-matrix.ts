@@ -43,6 +43,7 @@ const everyone = (status: number): Expected => ({ ...signedIn(status), signedOut
 const E = "/api/engagements/[engagementId]";
 const REQUEST_NEED = "invoice";
 const S = `${E}/samples/[sampleId]`;
+const MS = `${E}/misstatements`;
 const mapping = { itemRefColumn: "Invoice", bookValueColumn: "Amount", descriptionColumn: "Customer", dateColumn: "Due" };
 const musParams = { method: "mus", confidence: 0.95, tolerableMisstatement: "60000", expectedMisstatement: "8000", factorMode: "exact" };
 
@@ -134,6 +135,28 @@ export const ROUTE_MATRIX: MatrixRow[] = [
   { route: `POST ${S}/workbook`, expect: onEngagement("staff", 400), probe: { query: `fileName=${LONG_NAME}`, body: "probe", contentType: "application/octet-stream" } },
   // The probe sample has no results: since issue 13 a workpaper needs an evaluation, so members get 409 not_evaluable (a known gap: no draft before the first result).
   { route: `GET ${S}/workpaper`, expect: onEngagement("viewer", 409) },
+
+  // The summary of misstatements (issue 16). The fixtures hold no entry: entry ids point at nothing, so allowed callers get the entry's 404.
+  { route: `GET ${MS}`, expect: onEngagement("viewer", 200) },
+  { route: `POST ${MS}/entries`, expect: onEngagement("staff", 400), validBody: () => ({ kind: "judgemental", account: "Probe", assertion: "Valuation", description: "Cross-engagement probe", amount: "1.00", incomeEffect: "1.00", balanceEffect: "1.00" }) },
+  { route: `PATCH ${MS}/entries/[entryId]`, expect: onEngagement("staff", 400), probe: { path: `${MS}/entries/2147483000` } },
+  { route: `DELETE ${MS}/entries/[entryId]`, expect: onEngagement("staff", 404), probe: { path: `${MS}/entries/2147483000` } },
+  { route: `GET ${MS}/entries/[entryId]/evidence`, expect: onEngagement("viewer", 404), probe: { path: `${MS}/entries/2147483000/evidence` } },
+  { route: `POST ${MS}/entries/[entryId]/evidence`, expect: onEngagement("viewer", 400), probe: { path: `${MS}/entries/2147483000/evidence`, query: `fileName=${LONG_NAME}`, body: "probe", contentType: "text/plain" } },
+  { route: `GET ${MS}/entries/[entryId]/evidence/[evidenceId]`, expect: onEngagement("viewer", 404), probe: { path: `${MS}/entries/2147483000/evidence/2147483000` } },
+  // Only staff and above remove an entry's evidence (viewers 403 before the lookup).
+  { route: `DELETE ${MS}/entries/[entryId]/evidence/[evidenceId]`, expect: onEngagement("staff", 404), probe: { path: `${MS}/entries/2147483000/evidence/2147483000` } },
+  { route: `PUT ${MS}/settings`, expect: onEngagement("manager", 400), validBody: () => ({ clearlyTrivial: "1000", approachingShare: 0.75 }) },
+  { route: `POST ${MS}/corrections`, expect: onEngagement("staff", 400), validBody: (ids) => ({ sampleId: ids.sampleId, part: "factual", corrected: null }) },
+  { route: `POST ${MS}/sign-off`, expect: onEngagement("staff", 400), validBody: () => ({ as: "preparer" }) },
+  { route: `GET ${MS}/notes`, expect: onEngagement("viewer", 200) },
+  { route: `POST ${MS}/notes`, expect: onEngagement("manager", 400), validBody: () => ({ text: "Cross-engagement probe" }) },
+  { route: `POST ${MS}/notes/[noteId]/answer`, expect: onEngagement("staff", 400), probe: { path: `${MS}/notes/2147483000/answer` } },
+  { route: `POST ${MS}/notes/[noteId]/clear`, expect: onEngagement("manager", 400), probe: { path: `${MS}/notes/2147483000/clear` } },
+  { route: `POST ${MS}/lock`, expect: onEngagement("manager", 400), validBody: () => ({}) },
+  { route: `POST ${MS}/unlock`, expect: onEngagement("partner", 400), validBody: () => ({ reason: "Cross-engagement probe, must not apply" }) },
+  { route: `GET ${MS}/workbook`, expect: onEngagement("viewer", 200) },
+  { route: `GET ${MS}/workpaper`, expect: onEngagement("viewer", 200) },
 
   // next-auth's own endpoints are public by design; the probe reads the provider list / posts a sign-out without its CSRF token.
   { route: "GET /api/auth/[...nextauth]", expect: everyone(200), probe: { path: "/api/auth/providers" } },

@@ -13,6 +13,7 @@ import { Card } from "@/components/ui/card";
 import { Badge } from "@/components/ui/badge";
 import { Amount } from "@/components/ui/amount";
 import { STATUS_LABELS, statusTone } from "@/components/engagements/status";
+import { EngagementTabs } from "@/components/engagements/engagement-tabs";
 
 export const metadata: Metadata = { title: "Engagement" };
 
@@ -37,6 +38,7 @@ export default async function EngagementPage({ params }: { params: Promise<{ eng
       <PageHeader eyebrow={engagement.clientName} title={engagement.name} actions={<Badge tone={statusTone(engagement.status)}>{STATUS_LABELS[engagement.status]}</Badge>}>
         Period ended <span className="figures">{engagement.periodEnd}</span>
       </PageHeader>
+      <EngagementTabs engagementId={engagement.id} current="overview" />
       <div className="grid gap-6 lg:grid-cols-3">
         <Card title="Engagement" className="lg:col-span-2">
           <dl className="grid gap-x-8 gap-y-3 sm:grid-cols-2">

@@ -6,6 +6,7 @@ import { listMembersByEngagementId } from "@/lib/data/members";
 import { PageHeader } from "@/components/ui/page-header";
 import { Card } from "@/components/ui/card";
 import { TeamManager } from "@/components/engagements/team-manager";
+import { EngagementTabs } from "@/components/engagements/engagement-tabs";
 
 export const metadata: Metadata = { title: "Team" };
 
@@ -18,6 +19,7 @@ export default async function TeamPage({ params }: { params: Promise<{ engagemen
       <PageHeader eyebrow={engagement.clientName} title="Team">
         <Link href={`/engagements/${engagement.id}`} className="hover:underline">{engagement.name}</Link> · managers and partners change the team; no one can give a role above their own.
       </PageHeader>
+      <EngagementTabs engagementId={engagement.id} current="team" />
       <Card><TeamManager engagementId={engagement.id} myRole={role} myUserId={user.id} initialMembers={members} /></Card>
     </>
   );

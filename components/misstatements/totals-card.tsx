@@ -1,0 +1,69 @@
+import type { SummaryView } from "@/lib/misstatements/types";
+import { Amount } from "@/components/ui/amount";
+import { Card } from "@/components/ui/card";
+
+function Line({ label, value, strong }: { label: string; value: string; strong?: boolean }) {
+  return (
+    <div className={`flex items-baseline justify-between gap-4 border-b border-ink-line/60 py-1.5 text-sm ${strong ? "font-semibold" : ""}`}>
+      <dt className={strong ? "" : "text-ink-soft"}>{label}</dt>
+      <dd className="text-right"><Amount value={value} /></dd>
+    </div>
+  );
+}
+
+/** Totals against overall and performance materiality, both prior-period approaches side by side, and the allowances. */
+export function TotalsCard({ view }: { view: SummaryView }) {
+  const { totals: t, materiality: m } = view;
+  const is = t.incomeStatementApproach, bs = t.balanceSheetApproach;
+  const both: [string, string, string, boolean?][] = [
+    ["Uncorrected, current year", t.uncorrected.currentYear, t.uncorrected.currentYear],
+    ["Prior-period effect", is.priorPeriod, bs.priorPeriod],
+    ["Total uncorrected", is.total, bs.total, true],
+    ["Margin to performance materiality", is.marginToPerformance, bs.marginToPerformance],
+    ["Margin to overall materiality", is.marginToOverall, bs.marginToOverall],
+  ];
+  return (
+    <Card title={`Totals (${m.currency})`}>
+      <div className="grid gap-6 lg:grid-cols-2">
+        <dl>
+          <Line label="Overall materiality" value={m.overall} />
+          <Line label="Performance materiality" value={m.performance} />
+          <Line label="Clearly trivial threshold" value={m.clearlyTrivial} />
+          <Line label="Uncorrected factual" value={t.uncorrected.factual} />
+          <Line label="Uncorrected judgemental" value={t.uncorrected.judgemental} />
+          <Line label="Uncorrected projected" value={t.uncorrected.projected} />
+          <Line label="Uncorrected, current year" value={t.uncorrected.currentYear} strong />
+          <Line label="Gross, without offsetting" value={t.uncorrected.gross} />
+          <Line label={`Corrected by the client (${t.corrected.count}, not accumulated)`} value={t.corrected.total} />
+          <Line label={`Clearly trivial (${t.clearlyTrivial.count}, listed only)`} value={t.clearlyTrivial.total} />
+        </dl>
+        <div className="space-y-4">
+          <table className="w-full text-sm">
+            <caption className="mb-2 text-left text-sm font-semibold">Prior-period misstatements: two approaches, never mixed</caption>
+            <thead>
+              <tr className="border-b border-ink-line text-xs uppercase tracking-wider text-ink-soft">
+                <th scope="col" className="py-1.5 text-left font-medium"><span className="sr-only">Figure</span></th>
+                <th scope="col" className="py-1.5 text-right font-medium">Income statement (rollover)</th>
+                <th scope="col" className="py-1.5 text-right font-medium">Balance sheet (iron curtain)</th>
+              </tr>
+            </thead>
+            <tbody>
+              {both.map(([label, a, b, strong]) => (
+                <tr key={label} className={`border-b border-ink-line/60 ${strong ? "font-semibold" : ""}`}>
+                  <th scope="row" className={`py-1.5 text-left ${strong ? "" : "font-normal text-ink-soft"}`}>{label}</th>
+                  <td className="py-1.5 text-right"><Amount value={a} /></td>
+                  <td className="py-1.5 text-right"><Amount value={b} /></td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+          <dl>
+            <Line label={`Sum of sampling allowances (${t.allowance.samples} sample${t.allowance.samples === 1 ? "" : "s"}, conservative)`} value={t.allowance.sum} />
+            <Line label="Larger total + allowances" value={t.upperEstimate} />
+          </dl>
+          <p className="text-xs text-ink-soft">{t.allowance.note}</p>
+        </div>
+      </div>
+    </Card>
+  );
+}

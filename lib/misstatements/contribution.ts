@@ -1,0 +1,25 @@
+/** What one sample carries to the summary of misstatements: plain data, stored as it is when the sample is locked. */
+export interface SampleContribution {
+  sampleId: number;
+  name: string;
+  account: string;
+  assertion: string;
+  direction: string;
+  method: string;
+  /** "contributes": it has monetary results; "no-results": nothing recorded yet; "not-monetary": a test of controls. */
+  state: "contributes" | "no-results" | "not-monetary";
+  reason: string | null;
+  /** Known misstatement in the items examined (Σ book − audited, exact). */
+  factual: string;
+  /** The sample's projected misstatement (what its evaluation says to carry), including the factual part. */
+  projectedTotal: string;
+  /** Upper misstatement limit − projected, on the tested side; null when the method gives no allowance. */
+  allowance: string | null;
+  allowanceNote: string | null;
+  upperLimit: string | null;
+  confidence: number | null;
+  /** "monetary-unit" etc.: the group a pooled bound would need; the summary only sums allowances. */
+  basis: string;
+  complete: boolean;
+  lockedAt: string | null;
+}
