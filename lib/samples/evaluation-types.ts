@@ -5,6 +5,8 @@
  */
 import type { ClassicalDistribution, Estimator, FactorMode, Sides, StratifiedEstimator, TestDirection } from "@/lib/sampling";
 
+export type { Estimator, StratifiedEstimator };
+
 export type Money = string;
 
 /** One ranked tainting in a Stringer bound. */

@@ -69,7 +69,7 @@ export async function assembleWorkpaper(db: Knex, { engagementId, sampleId, draf
       recipe: recipe.split("\n"),
     },
     items: items.map(toWorkpaperItem),
-    evaluation: evaluationOrExplain(evaluation),
+    evaluation: evaluationOrExplain(evaluation, draft),
     conclusion: {
       computed: evaluation.computed, notes: evaluation.notes,
       auditor: concluded ? { conclusion: concluded.conclusion, responses: concluded.responses.map((r) => ({ kind: r.kind, label: RESPONSE_LABELS[r.kind], amount: r.amount, note: r.note })), writtenBy: concluded.writtenBy.name, role: concluded.writtenBy.role, writtenAt: concluded.writtenAt } : null,
@@ -81,10 +81,11 @@ export async function assembleWorkpaper(db: Knex, { engagementId, sampleId, draf
   };
 }
 
-/** The view model's block, printed as it is; a sample with nothing to evaluate yet has no workpaper. */
-function evaluationOrExplain(evaluation: SampleEvaluation) {
+/** The view model's block, printed as it is; a draft may go out before the first result, a locked workpaper may not. */
+function evaluationOrExplain(evaluation: SampleEvaluation, draft: boolean) {
   if (evaluation.block) return evaluation.block;
-  throw new AppError(409, "not_evaluable", `The workpaper cannot be rendered yet: ${evaluation.computed.statement} Record more results first.`);
+  if (draft) return null;
+  throw new AppError(409, "not_evaluable", `The workpaper cannot be locked yet: ${evaluation.computed.statement} Record more results first.`);
 }
 
 function toWorkpaperItem(i: SampleItemRecord): WorkpaperItem {

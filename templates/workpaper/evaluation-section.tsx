@@ -18,6 +18,13 @@ function Body({ e, currency }: { e: EvaluationBlock; currency: string }) {
 
 export function EvaluationSection({ data }: { data: WorkpaperData }) {
   const e = data.evaluation;
+  if (!e) {
+    return (
+      <Section number="6" title="Evaluation">
+        <Callout tone="warning">{`Not evaluated yet: ${data.conclusion.computed.statement}`}</Callout>
+      </Section>
+    );
+  }
   return (
     <Section number="6" title="Evaluation">
       <Body e={e} currency={data.currency} />

@@ -11,9 +11,8 @@
  * - Dates without a time (period end): "YYYY-MM-DD".
  * - Optional facts are `null`, never omitted, so a missing value is visible in review.
  */
-import type { Estimator, StratifiedEstimator } from "@/lib/sampling";
 import type { MethodRationaleBlock } from "@/lib/advisor/describe";
-import type { EvaluationBlock, Money, ComputedResult } from "@/lib/samples/evaluation-types";
+import type { EvaluationBlock, Estimator, Money, ComputedResult, StratifiedEstimator } from "@/lib/samples/evaluation-types";
 
 export type { MethodRationaleBlock };
 export type * from "@/lib/samples/evaluation-types";
@@ -43,7 +42,8 @@ export interface WorkpaperData {
   methodRationale: MethodRationaleBlock | null;
   selection: SelectionBlock;
   items: WorkpaperItem[];
-  evaluation: EvaluationBlock;
+  /** Null while the sample has nothing to evaluate (a draft before the first result); the conclusion says why. */
+  evaluation: EvaluationBlock | null;
   conclusion: ConclusionBlock;
   reviewNotes: ReviewNote[];
   signOffs: { preparer: SignOff | null; reviewer: SignOff | null };

@@ -110,4 +110,19 @@ describe("one evaluation, printed three times", () => {
     expect(out.page).toContain(b.decision.rule);
     expect(out.pdf).toContain(squash(b.decision.rule));
   });
+
+  it("a draft before the first result: the workpaper prints the plan and says why there is no evaluation yet", async () => {
+    const r = await planSample(senior, engagement, { populationId, direction: "overstatement", params: { method: "mus", tolerableMisstatement: "15000" } });
+    const id = r.json.sample.id as number;
+    await drawSample(senior, engagement, id, 77);
+    const api = (await getEvaluation(staff, engagement, id)) as SampleEvaluation;
+    expect(api.block).toBeNull();
+    const res = await callRaw(workpaper.GET, "GET", { as: staff, params: { engagementId: String(engagement), sampleId: String(id) } });
+    expect(res.status).toBe(200);
+    const file = path.join(os.tmpdir(), `printouts-draft-${id}.pdf`);
+    fs.writeFileSync(file, Buffer.from(await res.arrayBuffer()));
+    const pdf = squash(execFileSync("pdftotext", [file, "-"]).toString());
+    expect(pdf).toContain("Not evaluated yet");
+    expect(pdf).toContain(squash(api.computed.statement));
+  });
 });
