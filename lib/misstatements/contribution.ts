@@ -22,4 +22,6 @@ export interface SampleContribution {
   basis: string;
   complete: boolean;
   lockedAt: string | null;
+  /** The auditor's response "conclude the amount is misstated" (issue 13), when recorded; absent on rows frozen before it existed. */
+  concluded?: { amount: string; by: string; at: string } | null;
 }

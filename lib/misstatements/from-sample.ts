@@ -9,6 +9,7 @@ import type { SampleRecord } from "@/lib/data/samples";
 import type { SampleEvaluation } from "@/lib/samples/evaluate";
 import type { EvaluationBlock } from "@/lib/samples/evaluation-types";
 import { loadSampleWithEvaluation } from "@/lib/samples/context";
+import { getAuditorConclusionBySampleId, type AuditorConclusionRecord } from "@/lib/data/auditor-conclusions";
 import type { SampleContribution } from "./contribution";
 import { cents, dec } from "./money-cents";
 
@@ -31,12 +32,18 @@ export const CONTRIBUTION_READERS: Record<string, Reader> = {
   attributes: () => null,
 };
 
-/** What a sample contributes now, from its evaluation; `lockedAt` when the sample is locked. */
-export function contributionOf(sample: SampleRecord, populationName: string, evaluation: SampleEvaluation, lockedAt: string | null): SampleContribution {
+/** The amount of the auditor's "conclude the amount is misstated" response, with who and when; null without one. */
+export function concludedMisstatementOf(conclusion: AuditorConclusionRecord | null): SampleContribution["concluded"] {
+  const response = conclusion?.responses.find((r) => r.kind === "conclude-misstated" && r.amount !== null);
+  return conclusion && response?.amount ? { amount: response.amount, by: conclusion.writtenBy.name, at: conclusion.writtenAt } : null;
+}
+
+/** What a sample contributes now, from its evaluation and the auditor's conclusion; `lockedAt` when the sample is locked. */
+export function contributionOf(sample: SampleRecord, populationName: string, evaluation: SampleEvaluation, lockedAt: string | null, concluded: SampleContribution["concluded"] = null): SampleContribution {
   const base = {
     sampleId: sample.id, name: sample.name, account: populationName, assertion: sample.assertion, direction: sample.direction, method: sample.method,
     confidence: evaluation.confidence ?? null, complete: evaluation.complete, lockedAt,
-    factual: "0.00", projectedTotal: "0.00", allowance: null, allowanceNote: null, upperLimit: null, basis: sample.method,
+    factual: "0.00", projectedTotal: "0.00", allowance: null, allowanceNote: null, upperLimit: null, basis: sample.method, concluded,
   };
   if (!evaluation.block) {
     return { ...base, state: "no-results", reason: evaluation.progress.done + evaluation.progress.notAuditable === 0 ? "No results recorded yet." : evaluation.computed.statement };
@@ -56,6 +63,6 @@ export function projectedBeyond(c: SampleContribution): string {
 
 /** Loads one sample and its evaluation (the same numbers as its own page) and reads its contribution. */
 export async function loadSampleContribution(db: Knex, { engagementId, sampleId, lockedAt }: { engagementId: number; sampleId: number; lockedAt: string | null }): Promise<SampleContribution> {
-  const { view, evaluation } = await loadSampleWithEvaluation(db, { engagementId, sampleId });
-  return contributionOf(view.sample, view.population.name, evaluation, lockedAt);
+  const [{ view, evaluation }, conclusion] = await Promise.all([loadSampleWithEvaluation(db, { engagementId, sampleId }), getAuditorConclusionBySampleId(db, { sampleId })]);
+  return contributionOf(view.sample, view.population.name, evaluation, lockedAt, concludedMisstatementOf(conclusion));
 }

@@ -39,7 +39,24 @@ export function sampleRows(c: SampleContribution, corrections: CorrectionInput[]
       amount: dec(cents(c.projectedTotal) - cents(c.factual)), allowance: c.allowance, allowanceNote: c.allowance === null ? c.allowanceNote ?? "No allowance for sampling risk: the method does not measure one." : c.allowanceNote,
       corrected: corrected("projected"),
     },
+    ...concludedRow(c, common, corrected("projected")),
   ];
+}
+
+/**
+ * The auditor's response "conclude the amount is misstated": what the auditor concluded beyond the
+ * sample's own projection is carried as a judgemental misstatement, so the sample's rows add up to
+ * the concluded amount. A client adjustment of the projection covers it too (same correction).
+ */
+function concludedRow(c: SampleContribution, common: Omit<RowInput, "key" | "kind" | "description" | "amount" | "allowance" | "allowanceNote" | "corrected">, corrected: RowInput["corrected"]): RowInput[] {
+  if (!c.concluded) return [];
+  const beyond = cents(c.concluded.amount) - cents(c.projectedTotal);
+  if (beyond === 0n) return [];
+  return [{
+    ...common, key: `s${c.sampleId}-concluded`, kind: "judgemental",
+    description: `The auditor concluded the amount is misstated by ${c.concluded.amount} (${c.concluded.by}); the sample projects ${c.projectedTotal}: the difference is carried here — ${c.name}.`,
+    amount: dec(beyond), allowance: null, allowanceNote: "The auditor's conclusion: no allowance is computed for it.", corrected,
+  }];
 }
 
 export function entryRow(e: EntryInput, engagementId: number): RowInput {

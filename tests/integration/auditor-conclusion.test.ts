@@ -7,6 +7,7 @@
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { getDb } from "@/db/knex";
 import { listResponsesByEngagementId } from "@/lib/data/auditor-conclusions";
+import { buildLiveSummary } from "@/lib/misstatements/summary-view";
 import { call } from "./support/call";
 import { auditCount, makeEngagement, makeFirm, makeUser } from "./support/factory";
 import { concludeSample, drawSample, getEvaluation, listSampleItems, loadCanonicalPopulation, planSample, saveResult } from "./support/samples";
@@ -86,6 +87,16 @@ describe("the auditor's conclusion and response", () => {
   it("is listed for the engagement's summary of misstatements", async () => {
     const list = await listResponsesByEngagementId(getDb(), { engagementId: engagement });
     expect(list).toEqual([expect.objectContaining({ sampleId, sampleName: "Test sample", method: "mus", reviewerSignedAt: null, responses: expect.arrayContaining([expect.objectContaining({ kind: "conclude-misstated", amount: "410.00" })]) })]);
+  });
+
+  it("carries the concluded amount into the summary of misstatements: the sample's rows add up to it", async () => {
+    const summary = await buildLiveSummary(getDb(), { engagementId: engagement });
+    const rows = summary.rows.filter((r) => r.sampleId === sampleId);
+    const concluded = rows.find((r) => r.key === `s${sampleId}-concluded`);
+    const cents = (a: string) => Math.round(Number(a) * 100);
+    const projected = rows.filter((r) => r.kind !== "judgemental").reduce((t, r) => t + cents(r.amount), 0);
+    expect(concluded).toMatchObject({ kind: "judgemental", amount: ((41000 - projected) / 100).toFixed(2) });
+    expect(rows.reduce((t, r) => t + cents(r.amount), 0)).toBe(41000); // the auditor's 410.00
   });
 
   it("lets the preparer and then the reviewer sign off, and goes with the sign-offs when a result changes", async () => {

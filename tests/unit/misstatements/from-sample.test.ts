@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { evaluateMus } from "@/lib/sampling";
-import { contributionOf, CONTRIBUTION_READERS } from "@/lib/misstatements/from-sample";
+import { concludedMisstatementOf, contributionOf, CONTRIBUTION_READERS } from "@/lib/misstatements/from-sample";
+import { aggregate } from "@/lib/misstatements/aggregate";
 import { sampleRows } from "@/lib/misstatements/rows";
 import type { SampleRecord } from "@/lib/data/samples";
 import type { SampleEvaluation } from "@/lib/samples/evaluate";
@@ -45,5 +46,20 @@ describe("what a sample carries to the summary (the adapter over the evaluation)
     const [, projected] = sampleRows(contributionOf(sample, "R", ev, null), [], 1, false);
     expect(projected).toMatchObject({ amount: "1404.00", allowance: null, allowanceNote: "Nonstatistical: no allowance for sampling risk is measured." });
     delete CONTRIBUTION_READERS["test-kind"];
+  });
+
+  it("carries the auditor's 'conclude the amount is misstated' beyond the projection as a judgemental row, so the sample's rows add up to it", () => {
+    const conclusion = {
+      sampleId: 3, conclusion: "The upper limit exceeds tolerable misstatement; we conclude receivables are overstated.",
+      responses: [{ kind: "extend" as const, amount: null, note: null }, { kind: "conclude-misstated" as const, amount: "9000.00", note: null }],
+      writtenBy: { id: 1, name: "Ines Senior", role: "senior" }, writtenAt: "2026-12-03T10:00:00.000Z",
+    };
+    const concluded = concludedMisstatementOf(conclusion);
+    expect(concludedMisstatementOf({ ...conclusion, responses: [] })).toBeNull();
+    const rows = sampleRows(contributionOf(sample, "R", musEvaluation(), null, concluded), [], 1, false);
+    expect(rows.map((r) => r.kind)).toEqual(["factual", "projected", "judgemental"]);
+    expect(rows[2]).toMatchObject({ amount: "4616.00", allowance: null }); // 9,000 concluded − 4,384 projected (the Stringer example's projection)
+    const { totals } = aggregate(rows, { overall: "50000.00", performance: "37500.00", clearlyTrivial: "500.00", approachingShare: 0.75, currency: "EUR" });
+    expect(totals.uncorrected.currentYear).toBe("9000.00"); // factual + projected beyond + concluded beyond = the concluded amount
   });
 });
