@@ -5,6 +5,7 @@ import { boundInWords, scenarioInWords } from "@/lib/advisor/describe";
 import { formatAmount } from "@/components/ui/amount";
 import { Badge } from "@/components/ui/badge";
 import { ESTIMATOR_COLOURS, EstimateHistogram, SizeChart, compactFigure } from "./advisor-charts";
+import { formatCount } from "@/lib/format/number";
 
 const pct = (v: number) => `${(v * 100).toFixed(1)}%`;
 
@@ -32,8 +33,8 @@ export function AdvisorResults({ run, currency }: { run: AdvisorRunRecord; curre
 
       <dl className="grid gap-x-6 gap-y-1 text-sm sm:grid-cols-2">
         <div className="flex gap-2"><dt className="text-ink-soft">Assumed misstatements</dt><dd className="text-ink">{scenarioInWords(run.request)}</dd></div>
-        <div className="flex gap-2"><dt className="text-ink-soft">True audited total under it</dt><dd className="figures text-ink">{currency} {formatAmount(result.truth.auditedTotal)} (misstatement {formatAmount(result.truth.misstatement)}, {result.truth.misstatedItems.toLocaleString("en-US")} items)</dd></div>
-        <div className="flex gap-2"><dt className="text-ink-soft">Trials, seed</dt><dd className="figures text-ink">{run.request.trials.toLocaleString("en-US")} per size · seed {run.request.seed} ({run.request.seedSource})</dd></div>
+        <div className="flex gap-2"><dt className="text-ink-soft">True audited total under it</dt><dd className="figures text-ink">{currency} {formatAmount(result.truth.auditedTotal)} (misstatement {formatAmount(result.truth.misstatement)}, {formatCount(result.truth.misstatedItems)} items)</dd></div>
+        <div className="flex gap-2"><dt className="text-ink-soft">Trials, seed</dt><dd className="figures text-ink">{formatCount(run.request.trials)} per size · seed {run.request.seed} ({run.request.seedSource})</dd></div>
         <div className="flex gap-2"><dt className="text-ink-soft">Bound tested</dt><dd className="text-ink">{boundInWords(run.request)}</dd></div>
       </dl>
 
@@ -65,7 +66,7 @@ export function AdvisorResults({ run, currency }: { run: AdvisorRunRecord; curre
       </div>
 
       <div>
-        <h3 className="mb-2 text-sm font-medium text-ink">Estimates of the audited total at n = {rec.sampleSize}, {run.request.trials.toLocaleString("en-US")} trials each, on one scale</h3>
+        <h3 className="mb-2 text-sm font-medium text-ink">Estimates of the audited total at n = {rec.sampleSize}, {formatCount(run.request.trials)} trials each, on one scale</h3>
         <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-3">
           {atSize.map((c) => <EstimateHistogram key={c.estimator} estimator={c.estimator} bins={c.performance.histogram} truth={result.truth.auditedTotal} from={from} to={to} />)}
         </div>

@@ -4,6 +4,7 @@ import { Badge } from "@/components/ui/badge";
 import { buttonClass } from "@/components/ui/button";
 import { CopyButton } from "./copy-button";
 import { formatBytes, POPULATION_STATUS_LABELS, populationStatusTone } from "./labels";
+import { formatCount } from "@/lib/format/number";
 
 interface Props { population: PopulationRecord; engagement: { id: number; name: string; clientName: string }; replacedBy: { id: number; name: string } | null; replaces: { id: number; name: string } | null }
 
@@ -26,7 +27,7 @@ export function PopulationHeader({ population: p, engagement, replacedBy, replac
       </div>
       <dl className="grid gap-x-8 gap-y-2 text-sm sm:grid-cols-[auto_1fr]">
         <dt className="text-ink-soft">Source file</dt>
-        <dd className="font-medium">{p.sourceFileName} <span className="font-normal text-ink-soft">· {formatBytes(p.sourceSizeBytes)} ({p.sourceSizeBytes.toLocaleString("en-US")} bytes)</span></dd>
+        <dd className="font-medium">{p.sourceFileName} <span className="font-normal text-ink-soft">· {formatBytes(p.sourceSizeBytes)} ({formatCount(p.sourceSizeBytes)} bytes)</span></dd>
         <dt className="text-ink-soft">SHA-256</dt>
         <dd className="flex min-w-0 items-center gap-2"><code className="figures break-all text-xs text-ink" data-testid="source-sha256">{p.sourceSha256}</code><CopyButton text={p.sourceSha256} label="Copy the SHA-256" /></dd>
         {replaces && (<><dt className="text-ink-soft">Replaces</dt><dd><Link className="text-ledger-600 hover:underline" href={`/engagements/${engagement.id}/populations/${replaces.id}`}>{replaces.name}</Link></dd></>)}

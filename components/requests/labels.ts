@@ -10,10 +10,5 @@ export const needsText = (needs: RequestNeed[]) => needs.filter((n) => n !== "ot
 
 export { REQUEST_STATUS_LABELS };
 
-export function formatDay(day: string): string {
-  return new Date(`${day}T00:00:00Z`).toLocaleDateString("en-GB", { day: "numeric", month: "short", year: "numeric", timeZone: "UTC" });
-}
-
-export function formatBytes(n: number): string {
-  return n < 1024 ? `${n} B` : n < 1024 * 1024 ? `${(n / 1024).toFixed(1)} KB` : `${(n / 1024 / 1024).toFixed(1)} MB`;
-}
+export { formatShortDate as formatDay } from "@/lib/format/date";
+export { formatBytes } from "@/lib/format/number";

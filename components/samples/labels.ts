@@ -3,6 +3,8 @@ import type { SampleItemRecord } from "@/lib/data/sample-items";
 import { METHOD_LABELS, type SampleMethod } from "@/lib/validation/sample";
 import { textOf } from "@/lib/format/text";
 
+export { formatCount, formatFactor, formatNumber, formatPercent } from "@/lib/format/number";
+
 export { METHOD_LABELS };
 
 /** Short names for lists, where the full method label is too long. */
@@ -29,13 +31,6 @@ export const ITEM_STATUS_LABELS: Record<SampleItemRecord["status"], string> = {
 export const REPLACEABLE: SampleMethod[] = ["random", "attribute", "stratified"];
 export const EXTENDABLE: SampleMethod[] = ["random", "attribute"];
 
-/** 0.95 → "95%"; 0.0125 → "1.25%". */
-export function formatPercent(fraction: number, digits?: number): string {
-  const pct = fraction * 100;
-  const d = digits ?? (Number.isInteger(Number(pct.toFixed(6))) ? 0 : 2);
-  return `${pct.toFixed(d)}%`;
-}
-
 /** "95" → 0.95, exact to 12 significant figures (no 0.07 * 100 = 7.000000000000001 surprises); null when not a number. */
 export function percentToFraction(text: unknown): number | null {
   const s = textOf(text).trim().replace(/%$/, "").trim();
@@ -47,6 +42,3 @@ export function fractionToPercent(fraction: number | undefined): string {
   return fraction === undefined ? "" : String(Number((fraction * 100).toPrecision(12)));
 }
 
-export const formatCount = (n: number) => n.toLocaleString("en-US");
-export const formatFactor = (n: number) => n.toFixed(4);
-export const formatNumber = (n: number, digits = 2) => n.toLocaleString("en-US", { minimumFractionDigits: digits, maximumFractionDigits: digits });

@@ -8,6 +8,7 @@ import { ESTIMATOR_LABELS } from "./labels";
 import { PercentInput } from "./percent-input";
 import { StrataBoundsEditor } from "./strata-bounds-editor";
 import type { PlanFormIn, PlanFormOut } from "./plan-values";
+import { formatMoney } from "@/lib/format/number";
 
 interface Props { form: UseFormReturn<PlanFormIn, unknown, PlanFormOut>; plan: SamplePlan | null; currency: string; performanceMateriality: string }
 
@@ -56,7 +57,7 @@ export function PlanParameters({ form, plan, currency, performanceMateriality }:
         </>
       ) : (
         <>
-          <Field label={`Tolerable misstatement (${currency})`} error={e?.tolerableMisstatement?.message} hint={`Performance materiality on this engagement: ${Number(performanceMateriality).toLocaleString("en-US")}`}>
+          <Field label={`Tolerable misstatement (${currency})`} error={e?.tolerableMisstatement?.message} hint={`Performance materiality on this engagement: ${formatMoney(performanceMateriality)}`}>
             {({ id, describedBy, invalid }) => <Input id={id} aria-describedby={describedBy} aria-invalid={invalid} inputMode="decimal" className={money} {...register("params.tolerableMisstatement")} />}
           </Field>
           <Field label={`Expected misstatement (${currency})`} error={e?.expectedMisstatement?.message}>
@@ -72,7 +73,7 @@ export function PlanParameters({ form, plan, currency, performanceMateriality }:
       {method === "mus" && (
         <>
           <Field label={`Top-stratum threshold (${currency})`} error={e?.topStratumThreshold?.message}
-            hint={plan?.interval !== undefined ? `Blank: the sampling interval, ${plan.interval.toLocaleString("en-US")}. Items at or above it are all tested.` : "Blank: the sampling interval. Items at or above it are all tested."}>
+            hint={plan?.interval !== undefined ? `Blank: the sampling interval, ${formatMoney(plan.interval)}. Items at or above it are all tested.` : "Blank: the sampling interval. Items at or above it are all tested."}>
             {({ id, describedBy, invalid }) => <Input id={id} aria-describedby={describedBy} aria-invalid={invalid} inputMode="decimal" className={money} placeholder={plan?.interval !== undefined ? String(plan.interval) : ""} {...register("params.topStratumThreshold")} />}
           </Field>
           <Field label="Poisson factors" error={e?.factorMode?.message} hint="Exact gamma quantiles, or rounded up to 2 decimals as printed tables show them">

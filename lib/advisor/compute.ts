@@ -6,6 +6,7 @@ import {
   assumeAuditedValues, recommendEstimator, simulateEstimators, simulateStringer,
   type AdvisorCell, type Estimator, type FactorMode, type MisstatementScenario, type Recommendation, type SampledItem, type Sides,
 } from "@/lib/sampling";
+import { formatCount } from "@/lib/format/number";
 
 export interface AdvisorJob {
   bookValues: number[];
@@ -56,7 +57,7 @@ export function runAdvisorJob(job: AdvisorJob, onProgress: (done: number, total:
   }
   const notes: string[] = [];
   const estimators = nonPositive > 0 ? VARIABLES.filter((e) => e !== "ratio") : VARIABLES;
-  if (nonPositive > 0) notes.push(`The ratio estimator was not simulated: ${nonPositive.toLocaleString("en-US")} items have a zero or negative book value.`);
+  if (nonPositive > 0) notes.push(`The ratio estimator was not simulated: ${formatCount(nonPositive)} items have a zero or negative book value.`);
   if (job.includeStringer) notes.push("The variables estimators are simulated under simple random selection; the Stringer bound under systematic PPS selection with the interval book total / n.");
 
   const total = jobUnits(job);

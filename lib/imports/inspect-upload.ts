@@ -14,6 +14,7 @@ import { listZipEntries } from "@/lib/files/zip";
 import { assertEntriesWithinLimits, assertZipInflationWithinLimits } from "./zip-limits";
 import { readXlsxHeadRows } from "./xlsx-fast-rows";
 import { XLSX_BATCH_ROWS, readXlsxRows } from "./xlsx-rows";
+import { formatCount } from "@/lib/format/number";
 
 /** What the column-mapping screen needs; plain JSON, so it can be stored between requests. */
 export interface UploadInspection {
@@ -105,7 +106,7 @@ export async function readHeadRowsFast(filePath: string, sheet: string): Promise
 function describeRows(rows: TextRow[], complete: boolean, isCsv: boolean) {
   const header = findHeaderRow(rows);
   if (header.headers.length > MAX_COLUMNS) {
-    throw new ImportError("too-many-columns", `Row ${header.headerRow} has ${header.headers.length.toLocaleString("en-US")} columns; a ledger may have at most ${MAX_COLUMNS}. Remove the columns you do not need and upload again.`);
+    throw new ImportError("too-many-columns", `Row ${header.headerRow} has ${formatCount(header.headers.length)} columns; a ledger may have at most ${MAX_COLUMNS}. Remove the columns you do not need and upload again.`);
   }
   const data = rows.filter((row) => row.rowNumber > header.headerRow && !isBlankRow(row.cells));
   if (data.length === 0 && complete) {

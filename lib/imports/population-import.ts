@@ -11,6 +11,7 @@ import { compileMapping, validateRow, type CompiledMapping, type RowProblem, typ
 import { sniffFile } from "./sniff-file";
 import { isBlankSourceRow, type SourceBatch } from "./source-row";
 import { readXlsxRows } from "./xlsx-rows";
+import { formatCount } from "@/lib/format/number";
 
 export interface PopulationImportOptions {
   limits?: Partial<ImportLimits>;
@@ -83,7 +84,7 @@ export class PopulationImport {
         if (isBlankSourceRow(row.cells)) continue;
         state.rowsRead += 1;
         if (state.rowsRead > limits.maxRows) {
-          throw new ImportError("too-many-rows", `The file has more than ${limits.maxRows.toLocaleString("en-US")} data rows, the most accepted in one population. Split it and import each part.`);
+          throw new ImportError("too-many-rows", `The file has more than ${formatCount(limits.maxRows)} data rows, the most accepted in one population. Split it and import each part.`);
         }
         const valid = quoted.has(row.rowNumber) ? null : validateRow(row, compiled, problems);
         if (valid) {

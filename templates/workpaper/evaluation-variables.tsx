@@ -5,6 +5,7 @@ import { estimatorName } from "./plan-section";
 import { Callout, Facts, SubHead, Table, type TableRow } from "./primitives";
 import { s } from "./styles";
 import type { StratifiedEvaluationBlock, VariablesEvaluationBlock, VariablesResultFigures } from "./workpaper-data";
+import { formatCount } from "@/lib/format/number";
 
 const ESTIMATE_FORMULA: Record<string, string> = {
   "mean-per-unit": "Ŷ = N · ȳ",
@@ -58,7 +59,7 @@ export function VariablesEvaluation({ e, currency }: { e: VariablesEvaluationBlo
         facts={[
           { label: "Estimator", value: estimatorName(e.estimator) },
           { label: "Confidence", value: `${formatRate(e.confidence, 0)} (risk of incorrect acceptance ${formatRate(e.decision.riskOfIncorrectAcceptance, 0)}), ${DIRECTION_WORDS[e.decision.direction]}` },
-          { label: "Population", value: `N = ${e.populationSize.toLocaleString("en-US")} items, X = ${currency} ${formatMoney(e.populationBookValue)}` },
+          { label: "Population", value: `N = ${formatCount(e.populationSize)} items, X = ${currency} ${formatMoney(e.populationBookValue)}` },
           { label: "Sample", value: `n = ${e.sampleSize}, book ${formatMoney(e.sampleBookValue)}, audited ${formatMoney(e.sampleAuditedValue)}` },
           { label: "Items with a misstatement", value: String(e.misstatementsInSample) },
         ]}
@@ -77,7 +78,7 @@ export function StratifiedEvaluation({ e, currency }: { e: StratifiedEvaluationB
         facts={[
           { label: "Estimator", value: `${estimatorName(e.estimator)} (stratified)` },
           { label: "Confidence", value: `${formatRate(e.confidence, 0)} (risk of incorrect acceptance ${formatRate(e.decision.riskOfIncorrectAcceptance, 0)}), ${DIRECTION_WORDS[e.decision.direction]}` },
-          { label: "Population", value: `N = ${e.populationSize.toLocaleString("en-US")} items, X = ${currency} ${formatMoney(e.populationBookValue)}` },
+          { label: "Population", value: `N = ${formatCount(e.populationSize)} items, X = ${currency} ${formatMoney(e.populationBookValue)}` },
           { label: "Items with a misstatement", value: String(e.misstatementsInSample) },
         ]}
       />
@@ -96,7 +97,7 @@ export function StratifiedEvaluation({ e, currency }: { e: StratifiedEvaluationB
           { label: "SE_h", width: 54, align: "right" },
         ]}
         rows={e.strata.map((st) => ({
-          cells: [String(st.number), st.label, st.populationSize.toLocaleString("en-US"), formatMoney(st.populationBookValue), String(st.sampleSize), formatMoney(st.sampleBookValue), formatMoney(st.sampleAuditedValue), String(st.misstatementsInSample), formatMoney(st.estimatedAuditedValue), formatMoney(st.standardError)],
+          cells: [String(st.number), st.label, formatCount(st.populationSize), formatMoney(st.populationBookValue), String(st.sampleSize), formatMoney(st.sampleBookValue), formatMoney(st.sampleAuditedValue), String(st.misstatementsInSample), formatMoney(st.estimatedAuditedValue), formatMoney(st.standardError)],
         }))}
       />
       <Text style={[s.small, s.faint, { marginTop: 2 }]}>Standard errors combine as √(Σ SE_h²): the strata are sampled independently.</Text>

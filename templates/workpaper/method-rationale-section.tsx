@@ -4,6 +4,7 @@ import { formatMoney, formatRate, formatTime } from "./format";
 import { Callout, Facts, Paragraph, SubHead, Table } from "./primitives";
 import { s } from "./styles";
 import type { WorkpaperData } from "./workpaper-data";
+import { formatCount } from "@/lib/format/number";
 
 export function MethodRationale({ data }: { data: WorkpaperData }) {
   const r = data.methodRationale;
@@ -20,7 +21,7 @@ export function MethodRationale({ data }: { data: WorkpaperData }) {
         facts={[
           { label: "Assumed misstatements", value: r.scenario },
           { label: `True audited total under it (${c})`, value: `${formatMoney(r.trueAuditedTotal)} (misstatement ${formatMoney(r.trueMisstatement)})` },
-          { label: "Trials and seed", value: `${r.trials.toLocaleString("en-US")} per sample size; seed ${r.seed} (${r.seedSource})`, mono: true },
+          { label: "Trials and seed", value: `${formatCount(r.trials)} per sample size; seed ${r.seed} (${r.seedSource})`, mono: true },
           { label: "Bound tested", value: r.bound },
           { label: "Run", value: `${formatTime(r.ranAt)} by ${r.ranBy}` },
           { label: "Recommended", value: r.recommended ? `${r.recommended} at n = ${r.atSize}` : `none at n = ${r.atSize}` },

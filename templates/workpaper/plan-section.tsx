@@ -6,6 +6,7 @@ import { s } from "./styles";
 import { methodTitle } from "./title-block";
 import { MethodRationale } from "./method-rationale-section";
 import type { PlanBlock, WorkpaperData } from "./workpaper-data";
+import { formatCount } from "@/lib/format/number";
 
 const ESTIMATORS: Record<string, string> = {
   "mean-per-unit": "Mean per unit",
@@ -52,7 +53,7 @@ function StrataPlan({ plan, currency }: { plan: PlanBlock; currency: string }) {
           { label: "Sample", width: 55, align: "right" },
         ]}
         rows={plan.strata.map((st) => ({
-          cells: [String(st.number), st.label, st.populationSize.toLocaleString("en-US"), formatMoney(st.bookValue), String(st.sampleSize)],
+          cells: [String(st.number), st.label, formatCount(st.populationSize), formatMoney(st.bookValue), String(st.sampleSize)],
         }))}
       />
     </View>
@@ -63,8 +64,8 @@ export function PlanSection({ data }: { data: WorkpaperData }) {
   const plan = data.plan;
   const c = data.currency;
   const sizeFacts = [
-    { label: "Computed sample size", value: plan.computedSize.toLocaleString("en-US") },
-    { label: "Chosen sample size", value: plan.chosenSize.toLocaleString("en-US") },
+    { label: "Computed sample size", value: formatCount(plan.computedSize) },
+    { label: "Chosen sample size", value: formatCount(plan.chosenSize) },
     ...(plan.allowedDeviations !== null ? [{ label: "Deviations allowed by the plan", value: String(plan.allowedDeviations) }] : []),
     ...(plan.interval !== null ? [{ label: `Sampling interval (${c})`, value: formatMoney(plan.interval) }] : []),
     ...(plan.topStratumThreshold !== null ? [{ label: `Top stratum from (${c})`, value: formatMoney(plan.topStratumThreshold) }] : []),

@@ -4,6 +4,7 @@ import { formatMoney, formatTime } from "./format";
 import { Callout, Facts, Section, SubHead } from "./primitives";
 import { s } from "./styles";
 import type { PopulationBlock, WorkpaperData } from "./workpaper-data";
+import { formatCount } from "@/lib/format/number";
 
 const RECONCILIATION = {
   agreed: "Agreed to the control total",
@@ -42,9 +43,9 @@ export function PopulationSection({ data }: { data: WorkpaperData }) {
           { label: "Source file", value: p.sourceFile },
           { label: "SHA-256 of the file", value: p.sha256, mono: true },
           { label: "Uploaded", value: `${p.uploadedBy}, ${formatTime(p.uploadedAt)}` },
-          { label: "Items", value: p.itemCount.toLocaleString("en-US") },
+          { label: "Items", value: formatCount(p.itemCount) },
           { label: `Book value (${c})`, value: formatMoney(p.total) },
-          { label: "Sampling frame", value: `${p.frameCount.toLocaleString("en-US")} items, ${c} ${formatMoney(p.frameTotal)}` },
+          { label: "Sampling frame", value: `${formatCount(p.frameCount)} items, ${c} ${formatMoney(p.frameTotal)}` },
         ]}
       />
       <Reconciliation p={p} currency={c} />
