@@ -11,6 +11,7 @@ import { Button } from "@/components/ui/button";
 import { Alert } from "@/components/ui/alert";
 import { Badge } from "@/components/ui/badge";
 import { api, readErrorAnswer } from "@/components/ui/api";
+import { readNdjson } from "@/components/ui/ndjson";
 import { AdvisorResults } from "./advisor-results";
 import { formatCount } from "@/lib/format/number";
 import { formatTime } from "@/lib/format/date";
@@ -56,7 +57,17 @@ export function AdvisorPanel({ engagementId, sampleId, initial, mayRun, currency
 
   const refreshRuns = async () => setState(await api<AdvisorState>(base));
 
-  const onSubmit = handleSubmit(async (body) => {
+  const onRunEvent = (event: RunEvent) => {
+    if (event.type === "started") setProgress({ runId: event.runId, done: 0, total: event.total });
+    else if (event.type === "progress") setProgress((p) => ({ runId: p?.runId ?? null, done: event.done, total: event.total }));
+    else if (event.type === "result") {
+      setShown(event.run);
+      setMessage(event.cached ? { tone: "info", text: "These inputs and seed were run before: the stored figures are shown." } : null);
+    } else if (event.type === "cancelled") setMessage({ tone: "info", text: "The run was cancelled." });
+    else if (event.type === "error") setMessage({ tone: "error", text: event.message });
+  };
+
+  const runAdvisor = async (body: Parameters<Parameters<typeof handleSubmit>[0]>[0]) => {
     setMessage(null);
     const controller = new AbortController();
     abort.current = controller;
@@ -67,25 +78,7 @@ export function AdvisorPanel({ engagementId, sampleId, initial, mayRun, currency
         const data = await readErrorAnswer(res);
         throw new Error(data.error?.message ?? `The advisor could not start (${res.status})`);
       }
-      const reader = res.body.pipeThrough(new TextDecoderStream()).getReader();
-      let buffer = "";
-      for (;;) {
-        const { value, done } = await reader.read();
-        if (done) break;
-        buffer += value;
-        const lines = buffer.split("\n");
-        buffer = lines.pop() ?? "";
-        for (const line of lines.filter(Boolean)) {
-          const event = JSON.parse(line) as RunEvent;
-          if (event.type === "started") setProgress({ runId: event.runId, done: 0, total: event.total });
-          else if (event.type === "progress") setProgress((p) => ({ runId: p?.runId ?? null, done: event.done, total: event.total }));
-          else if (event.type === "result") {
-            setShown(event.run);
-            setMessage(event.cached ? { tone: "info", text: "These inputs and seed were run before: the stored figures are shown." } : null);
-          } else if (event.type === "cancelled") setMessage({ tone: "info", text: "The run was cancelled." });
-          else if (event.type === "error") setMessage({ tone: "error", text: event.message });
-        }
-      }
+      await readNdjson<RunEvent>(res.body, onRunEvent);
     } catch (err) {
       if (!controller.signal.aborted) setMessage({ tone: "error", text: err instanceof Error ? err.message : "The advisor run failed" });
     } finally {
@@ -93,7 +86,7 @@ export function AdvisorPanel({ engagementId, sampleId, initial, mayRun, currency
       setProgress(null);
       void refreshRuns();
     }
-  });
+  };
 
   const cancel = async () => {
     const runId = progress?.runId;
@@ -134,7 +127,7 @@ export function AdvisorPanel({ engagementId, sampleId, initial, mayRun, currency
         </p>
         {state.unavailable && <Alert tone="info">{state.unavailable}</Alert>}
         {canRun && (
-          <form onSubmit={onSubmit} noValidate aria-label="Advisor inputs" className="space-y-2">
+          <form onSubmit={(e) => void handleSubmit(runAdvisor)(e)} noValidate aria-label="Advisor inputs" className="space-y-2">
             <fieldset className="flex flex-wrap gap-4 text-sm">
               <legend className="mb-1 text-sm font-medium text-ink">Assumed misstatements</legend>
               <label className="inline-flex items-center gap-2"><input type="radio" value="pattern" {...register("scenario.kind")} /> A pattern I describe</label>

@@ -1,5 +1,6 @@
 import type { LoadEvent } from "@/lib/populations/stream-load";
 import { readErrorAnswer } from "@/components/ui/api";
+import { readNdjson } from "@/components/ui/ndjson";
 
 export type { LoadEvent };
 
@@ -15,24 +16,7 @@ export async function runLoad(url: string, body: unknown, onEvent: (event: LoadE
     onEvent(event);
     return event;
   }
-  const reader = res.body.getReader();
-  const decoder = new TextDecoder();
-  let pending = "";
-  let last: LoadEvent | null = null;
-  const take = (line: string) => {
-    if (!line.trim()) return;
-    last = JSON.parse(line) as LoadEvent;
-    onEvent(last);
-  };
-  for (;;) {
-    const { done, value } = await reader.read();
-    if (done) break;
-    pending += decoder.decode(value, { stream: true });
-    const lines = pending.split("\n");
-    pending = lines.pop() ?? "";
-    lines.forEach(take);
-  }
-  take(pending + decoder.decode());
+  const last = await readNdjson<LoadEvent>(res.body, onEvent);
   if (last === null) {
     const event: LoadEvent = { type: "error", status: 0, message: "The connection closed before the load finished. Nothing was stored; try again." };
     onEvent(event);

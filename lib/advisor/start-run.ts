@@ -1,4 +1,5 @@
 import "server-only";
+import { ndjsonOf, ndjsonStream } from "@/lib/http/ndjson";
 import { createHash, randomInt } from "node:crypto";
 import type { Knex } from "knex";
 import { observedTaintings, type MisstatementScenario } from "@/lib/sampling";
@@ -45,7 +46,6 @@ async function resolveScenario(db: Knex, ctx: EngagementContext, input: AdvisorR
 const cacheKeyOf = (populationId: number, r: AdvisorRequest) =>
   createHash("sha256").update(JSON.stringify([populationId, r.method, r.confidence, r.sides, r.plannedSize, r.scenario, r.sampleSizes, r.trials, r.seed])).digest("hex");
 
-const line = (o: unknown) => new TextEncoder().encode(JSON.stringify(o) + "\n");
 
 /**
  * Starts an advisor run for a plan and answers with its progress as NDJSON lines:
@@ -68,10 +68,9 @@ export async function startAdvisorRun(ctx: EngagementContext, sample: SampleReco
     confidence: sample.params.confidence, sides: sidesFor(sample.direction), method: sample.method, plannedSize: sample.chosenSize,
   };
   const cacheKey = cacheKeyOf(sample.populationId, request);
-  const headers = { "content-type": "application/x-ndjson; charset=utf-8", "cache-control": "no-store" };
 
   const cached = await findDoneAdvisorRunByKey(db, { sampleId: sample.id, cacheKey });
-  if (cached) return new Response(line({ type: "result", run: cached, cached: true }), { headers });
+  if (cached) return ndjsonOf({ type: "result", run: cached, cached: true });
 
   if (advisorRunsInProgress() >= MAX_CONCURRENT_RUNS) {
     throw new AppError(503, "busy", `The advisor is already running ${MAX_CONCURRENT_RUNS} simulations on this server; try again when one has finished.`);
@@ -85,33 +84,24 @@ export async function startAdvisorRun(ctx: EngagementContext, sample: SampleReco
   const finish = (status: "done" | "cancelled" | "failed", extra: { result?: Awaited<ReturnType<typeof runInWorker>>; error?: string }) =>
     finishAdvisorRun(db, { engagementId: ctx.engagementId, sampleId: sample.id, runId, actorId: ctx.user.id, status, durationMs: Date.now() - started, ...extra });
 
-  let closed = false;
-  const body = new ReadableStream<Uint8Array>({
-    async start(controller) {
-      const send = (o: unknown) => { if (!closed) controller.enqueue(line(o)); };
-      send({ type: "started", runId, total: jobUnits(job) });
-      try {
-        const result = await runInWorker(runId, job, (done, total) => send({ type: "progress", done, total }));
-        await finish("done", { result });
-        send({ type: "result", run: await getAdvisorRunById(db, { sampleId: sample.id, runId }), cached: false });
-      } catch (err) {
-        if (err instanceof AdvisorCancelled) {
-          await finish("cancelled", {});
-          send({ type: "cancelled", runId });
-        } else {
-          const message = err instanceof AdvisorInputError ? err.message : "The advisor run failed on our side; the error has been logged.";
-          if (!(err instanceof AdvisorInputError)) console.error("[sondage] advisor run failed", err);
-          await finish("failed", { error: message });
-          send({ type: "error", message });
-        }
+  const response = ndjsonStream<object>(async (send) => {
+    send({ type: "started", runId, total: jobUnits(job) });
+    try {
+      const result = await runInWorker(runId, job, (done, total) => send({ type: "progress", done, total }));
+      await finish("done", { result });
+      send({ type: "result", run: await getAdvisorRunById(db, { sampleId: sample.id, runId }), cached: false });
+    } catch (err) {
+      if (err instanceof AdvisorCancelled) {
+        await finish("cancelled", {});
+        send({ type: "cancelled", runId });
+      } else {
+        const message = err instanceof AdvisorInputError ? err.message : "The advisor run failed on our side; the error has been logged.";
+        if (!(err instanceof AdvisorInputError)) console.error("[sondage] advisor run failed", err);
+        await finish("failed", { error: message });
+        send({ type: "error", message });
       }
-      if (!closed) { closed = true; controller.close(); }
-    },
-    cancel() {
-      closed = true;
-      cancelAdvisorRun(runId);
-    },
-  });
+    }
+  }, () => cancelAdvisorRun(runId));
   ctx.req.signal?.addEventListener("abort", () => cancelAdvisorRun(runId), { once: true });
-  return new Response(body, { headers });
+  return response;
 }
