@@ -1,4 +1,5 @@
 import "server-only";
+import { cache } from "react";
 import { notFound, redirect } from "next/navigation";
 import { getDb } from "@/db/knex";
 import { getUserById, type UserRecord } from "@/lib/data/users";
@@ -7,10 +8,22 @@ import { getEngagementById } from "@/lib/data/engagements";
 import { getSessionUserId } from "./session-user";
 import { CLIENT_ROLE, type EngagementRole } from "./roles";
 
+/** The session's user, read once per request however many layouts and pages ask (React cache). */
+const loadSessionUser = cache(async (): Promise<UserRecord | null> => {
+  const userId = await getSessionUserId();
+  return userId === null ? null : getUserById(getDb(), { userId });
+});
+
+/** The user's role on an engagement and the engagement, read once per request (React cache). */
+const loadEngagementAccess = cache(async (engagementId: number, userId: number) => {
+  const db = getDb();
+  const [role, engagement] = await Promise.all([getMembershipRole(db, { engagementId, userId }), getEngagementById(db, { engagementId })]);
+  return { role, engagement };
+});
+
 /** For server pages: the signed-in active user, or a redirect to sign-in. */
 export async function requirePageUser(): Promise<UserRecord> {
-  const userId = await getSessionUserId();
-  const user = userId === null ? null : await getUserById(getDb(), { userId });
+  const user = await loadSessionUser();
   if (!user || !user.active) redirect("/sign-in");
   return user;
 }
@@ -37,11 +50,7 @@ export async function requireEngagementPage(engagementIdParam: string): Promise<
   const user = await requirePageUser();
   const engagementId = Number(engagementIdParam);
   if (!Number.isSafeInteger(engagementId) || engagementId <= 0) notFound();
-  const db = getDb();
-  const [role, engagement] = await Promise.all([
-    getMembershipRole(db, { engagementId, userId: user.id }),
-    getEngagementById(db, { engagementId }),
-  ]);
+  const { role, engagement } = await loadEngagementAccess(engagementId, user.id);
   if (!role || role === CLIENT_ROLE || !engagement) notFound();
   return { user, role, engagement };
 }
