@@ -27,3 +27,5 @@ export { satterthwaite, SMALL_STRATUM } from "./evaluate-stratified";
 export { SMALL_SAMPLE } from "./evaluate-variables";
 export { studentQuantile } from "./quantiles";
 export type { TestDirection, ClassicalDistribution } from "./types";
+export { nonstatisticalSampleSize, EXPECTED_MISSTATEMENT_ADJUSTMENTS, type ExpectedMisstatementAdjustment, type NonstatisticalSize } from "./sizes/nonstatistical-sample-size";
+export { projectMisstatement, PROJECTION_METHODS, type ProjectionMethod, type ProjectedMisstatement } from "./project-misstatement";
