@@ -9,7 +9,7 @@ export { METHOD_LABELS };
 
 /** Short names for lists, where the full method label is too long. */
 export const METHOD_SHORT: Record<SampleMethod, string> = {
-  mus: "Monetary-unit (PPS)", random: "Simple random", systematic: "Systematic", stratified: "Stratified random", attribute: "Attribute",
+  mus: "Monetary-unit (PPS)", random: "Simple random", systematic: "Systematic", stratified: "Stratified random", attribute: "Attribute", nonstatistical: "Nonstatistical",
 };
 
 export const ESTIMATOR_LABELS: Record<string, string> = {

@@ -17,7 +17,15 @@ export interface SampleItemRecord {
   hitPoints: number[] | null;
   topStratum: boolean;
   stratum: number | null;
-  origin: "selection" | "extension" | "replacement";
+  origin: "selection" | "extension" | "replacement" | "key-item" | "haphazard";
+  /** Examined 100 % (threshold or chosen with a reason); evaluated at its actual misstatement. */
+  keyItem: boolean;
+  keyReason: string | null;
+  /** Haphazard picks: who picked the item and when. */
+  pickedByName: string | null;
+  pickedAt: string | null;
+  /** An anomalous misstatement: the justification, who marked it, and the manager's or partner's acceptance. */
+  anomaly: { justification: string; markedByName: string | null; markedAt: string | null; acceptedByName: string | null; acceptedAt: string | null } | null;
   replacesItemId: number | null;
   status: "not-started" | "done" | "not-auditable" | "void";
   auditedValue: string | null;
@@ -54,6 +62,12 @@ function toItem(r: Record<string, unknown>): SampleItemRecord {
     cause: (r.cause as string | null) ?? null, causeNote: (r.cause_note as string | null) ?? null,
     deviation: r.deviation === null ? null : Boolean(r.deviation), deviationNature: (r.deviation_nature as string | null) ?? null,
     comment: (r.comment as string | null) ?? null, voidReason: (r.void_reason as string | null) ?? null,
+    keyItem: Boolean(r.key_item), keyReason: (r.key_reason as string | null) ?? null,
+    pickedByName: (r.picked_by_name as string | null) ?? null, pickedAt: r.picked_at ? new Date(r.picked_at as string).toISOString() : null,
+    anomaly: r.anomaly_justification ? {
+      justification: String(r.anomaly_justification), markedByName: (r.anomaly_marked_by_name as string | null) ?? null, markedAt: r.anomaly_marked_at ? new Date(r.anomaly_marked_at as string).toISOString() : null,
+      acceptedByName: (r.anomaly_accepted_by_name as string | null) ?? null, acceptedAt: r.anomaly_accepted_at ? new Date(r.anomaly_accepted_at as string).toISOString() : null,
+    } : null,
     evidenceCount: Number(r.evidence_count ?? 0), requestStatus: (r.request_status as SampleItemRecord["requestStatus"]) ?? null, version: Number(r.version),
     updatedAt: r.updated_at ? new Date(r.updated_at as string).toISOString() : null, updatedByName: (r.updated_by_name as string | null) ?? null,
   };
@@ -62,11 +76,18 @@ function toItem(r: Record<string, unknown>): SampleItemRecord {
 /** Files attached to the item and not deleted (item_evidence). */
 const evidenceCount = (db: Knex) => db.raw("(select count(*) from item_evidence e where e.sample_item_id = i.id and e.deleted_at is null) as evidence_count");
 
+/** Names of the people behind a pick and an anomaly mark (users). */
+const peopleNames = (db: Knex) => [
+  db.raw("(select p.name from users p where p.id = i.picked_by) as picked_by_name"),
+  db.raw("(select m.name from users m where m.id = i.anomaly_marked_by) as anomaly_marked_by_name"),
+  db.raw("(select a.name from users a where a.id = i.anomaly_accepted_by) as anomaly_accepted_by_name"),
+];
+
 /** The newest request on the item (request_items). */
 const requestStatus = (db: Knex) => db.raw("(select r.status from request_items r where r.sample_item_id = i.id order by r.id desc limit 1) as request_status");
 
 function itemQuery(db: Knex, drawId: number) {
-  const q = db("sample_items as i").leftJoin("users as u", "u.id", "i.updated_by").where("i.draw_id", drawId).select("i.*", "u.name as updated_by_name", evidenceCount(db), requestStatus(db));
+  const q = db("sample_items as i").leftJoin("users as u", "u.id", "i.updated_by").where("i.draw_id", drawId).select("i.*", "u.name as updated_by_name", evidenceCount(db), requestStatus(db), ...peopleNames(db));
   return q;
 }
 
@@ -77,7 +98,7 @@ export async function listItemsByDrawId(db: Knex, { drawId, page = 1, pageSize =
   const [count, rows] = await Promise.all([
     base.clone().count({ n: "*" }).first(),
     base.clone().leftJoin("users as u", "u.id", "i.updated_by").orderBy("i.selection_order").orderBy("i.id")
-      .limit(pageSize).offset((page - 1) * pageSize).select("i.*", "u.name as updated_by_name", evidenceCount(db), requestStatus(db)),
+      .limit(pageSize).offset((page - 1) * pageSize).select("i.*", "u.name as updated_by_name", evidenceCount(db), requestStatus(db), ...peopleNames(db)),
   ]);
   return { items: rows.map(toItem), total: Number(count?.n ?? 0), page, pageSize };
 }

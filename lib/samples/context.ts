@@ -11,12 +11,17 @@ import { computePlan } from "./plan";
 import { evaluateSample } from "./evaluate";
 import { getReviewState } from "@/lib/review/review-state";
 
-/** The plan for a population and parameters, with the engagement's performance materiality as the default TM. */
-export async function planFor(db: Knex, { engagementId, input }: { engagementId: number; input: PreviewPlan }) {
+/**
+ * The plan for a population and parameters, with the engagement's performance materiality as the
+ * default TM. `params` is what to store: the confidence the risk assessment maps to replaces a typed one.
+ */
+export async function planFor<T extends PreviewPlan>(db: Knex, { engagementId, input }: { engagementId: number; input: T }) {
   const [engagement, population] = await Promise.all([getEngagementById(db, { engagementId }), getPopulationById(db, { engagementId, populationId: input.populationId })]);
   if (!engagement) throw notFound("No such engagement");
   const frame = await loadFrame(db, { populationId: population.id });
-  return { plan: computePlan(frame, input.params, engagement.performanceMateriality, input.direction ?? "both"), population, engagement };
+  const plan = computePlan(frame, input.params, engagement.performanceMateriality, input.direction ?? "both");
+  const normalised: T = { ...input, params: { ...input.params, confidence: plan.risk?.confidence ?? input.params.confidence } };
+  return { plan, population, engagement, input: normalised };
 }
 
 export async function loadSampleView(db: Knex, { engagementId, sampleId }: { engagementId: number; sampleId: number }) {

@@ -6,10 +6,14 @@ import { standardDeviation } from "@/lib/sampling/descriptive";
 import { centsToDecimal } from "@/lib/money";
 import { engineInputError, fieldError } from "@/lib/errors";
 import { EngineInputError } from "@/lib/sampling";
-import type { SampleParams } from "@/lib/validation/sample";
+import { KEY_ITEM_METHODS, type SampleParams } from "@/lib/validation/sample";
+import { DEFAULT_METHODOLOGY, type MethodologySettings } from "@/lib/validation/methodology";
 import type { Frame } from "./population-frame";
 import { stratifyFrame } from "./strata";
 import { MUS_UNDERSTATEMENT_CAUTION } from "./evaluation-words";
+import { remainderFrame, resolveKeyItems, type KeyItemsPlan } from "./key-items";
+import { riskSizing, type RiskSizing } from "./risk-sizing";
+import { planNonstatistical, type NonstatisticalPlanPart } from "./plan-nonstatistical";
 
 export interface PlannedStratum { number: number; label: string; populationSize: number; bookValue: string; standardDeviation: number; allocation: number }
 
@@ -33,24 +37,46 @@ export interface SamplePlan {
    *  tested, "one" for one direction — stored so that evaluation uses the same (absent: "two"). */
   sides?: "two" | "one";
   warnings: string[];
+  /** How the confidence (and assurance factor) were set: risks, table cell and version, or an override. */
+  risk?: RiskSizing;
+  /** Key items examined 100 %; the size and the draw are on the remainder. */
+  keyItems?: KeyItemsPlan | null;
+  nonstatistical?: NonstatisticalPlanPart;
 }
 
 export type PlanDirection = "overstatement" | "understatement" | "both";
 
+/** The firm methodology a plan is computed under (the version is printed on the workpaper). */
+export interface PlanMethodology { version: number; settings: MethodologySettings }
+
 const money = (cents: bigint) => centsToDecimal(cents);
 
 /** Sample size and its computation for a population, as the auditor sees it while planning. */
-export function computePlan(frame: Frame, params: SampleParams, performanceMateriality: string, direction: PlanDirection = "both"): SamplePlan {
-  const tolerable = Number(params.tolerableMisstatement ?? performanceMateriality);
-  const expected = Number(params.expectedMisstatement);
-  const plan = engineCall(params, () => {
+export function computePlan(frame: Frame, input: SampleParams, performanceMateriality: string, direction: PlanDirection = "both", methodology: PlanMethodology = { version: 0, settings: DEFAULT_METHODOLOGY }): SamplePlan {
+  const tolerable = Number(input.tolerableMisstatement ?? performanceMateriality);
+  const expected = Number(input.expectedMisstatement);
+  const risk = riskSizing(input, { version: methodology.version, assuranceFactors: methodology.settings.assuranceFactors });
+  const params: SampleParams = { ...input, confidence: risk.confidence };
+  const keyItems = KEY_ITEM_METHODS.includes(params.method) ? resolveKeyItems(frame, params) : null;
+  const sampled = keyItems ? remainderFrame(frame, keyItems.items.map((k) => k.rowNumber)).frame : frame;
+  const sides = direction === "both" ? "two" : "one";
+  const planned = engineCall(params, (): SamplePlan => {
     switch (params.method) {
       case "mus": return planMus(frame, params, tolerable, expected, direction);
       case "attribute": return planAttribute(frame, params);
-      case "stratified": return planStratified(frame, params, tolerable, expected, direction === "both" ? "two" : "one");
-      default: return planVariables(frame, params, tolerable, expected, direction === "both" ? "two" : "one");
+      case "stratified": return planStratified(sampled, params, tolerable, expected, sides);
+      case "nonstatistical": {
+        const r = planNonstatistical(frame, params, { tolerable, expected, risk, keyItems, settings: methodology.settings.nonstatistical });
+        return { method: "nonstatistical", frameSize: frame.bookValues.length, frameTotal: money(frame.totalCents), excluded: null, computedSize: r.computedSize, chosenSize: params.sampleSize ?? r.computedSize, formula: r.formula, inputs: r.inputs, nonstatistical: r.nonstatistical, warnings: r.warnings };
+      }
+      default: return planVariables(sampled, params, tolerable, expected, sides);
     }
   });
+  const plan: SamplePlan = { ...planned, risk, keyItems };
+  if (keyItems && params.method !== "nonstatistical") plan.warnings = [...plan.warnings, `The size is computed on the ${keyItems.remainder.count} items outside the ${keyItems.count} key items (book value ${keyItems.remainder.total}); key items are examined in full and evaluated at their actual misstatement.`];
+  if (keyItems && plan.chosenSize > keyItems.remainder.count) {
+    throw fieldError("sampleSize", `at most ${keyItems.remainder.count} items remain outside the key items`, `At most ${keyItems.remainder.count}`);
+  }
   if (params.sampleSize !== undefined && params.sampleSize < plan.computedSize && !params.sizeReason) {
     throw fieldError("sampleSize", `${params.sampleSize} is below the computed size ${plan.computedSize}; record the reason to use a smaller sample`, `Below the computed size ${plan.computedSize}: give a reason`);
   }

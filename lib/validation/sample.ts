@@ -3,7 +3,7 @@ import { moneyInput } from "./engagement";
 import { signedMoney } from "./population";
 import { MUS_MIN_CONFIDENCE } from "@/lib/sampling/evaluate-mus";
 
-export const SAMPLE_METHODS = ["mus", "random", "systematic", "stratified", "attribute"] as const;
+export const SAMPLE_METHODS = ["mus", "random", "systematic", "stratified", "attribute", "nonstatistical"] as const;
 export type SampleMethod = (typeof SAMPLE_METHODS)[number];
 export const VARIABLES_ESTIMATORS = ["mean-per-unit", "difference", "ratio", "regression"] as const;
 export const STRATIFIED_ESTIMATORS = ["mean-per-unit", "difference", "separate-ratio", "combined-ratio"] as const;
@@ -15,7 +15,23 @@ export const METHOD_LABELS: Record<SampleMethod, string> = {
   systematic: "Systematic with random start, classical variables",
   stratified: "Stratified random, classical variables",
   attribute: "Attribute sampling (test of controls)",
+  nonstatistical: "Nonstatistical, key items and a projected misstatement",
 };
+
+/** Methods whose plans may name key items examined 100 % (MUS has its top stratum instead). */
+export const KEY_ITEM_METHODS: readonly SampleMethod[] = ["nonstatistical", "random", "systematic", "stratified"];
+export const NONSTATISTICAL_SELECTIONS = ["random", "systematic", "haphazard", "block"] as const;
+export const PROJECTION_METHODS = ["ratio", "difference"] as const;
+export const SIZING_BASES = ["risk-assessment", "confidence-override"] as const;
+/** The assessed risk levels of the assurance-factor table (rows and columns), highest first. */
+export const ASSESSED_RISK_LEVELS = ["maximum", "slightly-below-maximum", "moderate", "low"] as const;
+
+export const BLOCK_SELECTION_REFUSED = "Block selection is not offered: a block of contiguous items is rarely representative, because items next to one another in a population tend to share characteristics that differ from items elsewhere, so a block cannot support a conclusion about the whole (ISA 530, Appendix 4(e)). Choose random, systematic or haphazard selection.";
+
+const keyItemChoice = z.object({
+  itemRef: z.string().trim().min(1, "Give the item reference").max(255),
+  reason: z.string().trim().min(3, "Say why this item is examined in full").max(2000),
+});
 
 const fraction = (label: string, min: number, max: number) =>
   z.coerce.number({ error: `${label} must be a number` }).min(min, `${label} must be at least ${min * 100}%`).max(max, `${label} must be at most ${max * 100}%`);
@@ -40,11 +56,40 @@ export const SampleParamsSchema = z.object({
   strataBounds: strataBounds.optional(),
   sampleSize: z.coerce.number().int("Whole items only").positive().optional(),
   sizeReason: z.string().trim().max(2000).optional().transform((v) => (v ? v : undefined)),
+  /** How the confidence (and, for nonstatistical plans, the assurance factor) is set; absent on plans made before issue 15. */
+  sizingBasis: z.enum(SIZING_BASES).optional(),
+  assessedRisk: z.enum(ASSESSED_RISK_LEVELS, "Choose the assessed risk of material misstatement").optional(),
+  otherProceduresRisk: z.enum(ASSESSED_RISK_LEVELS, "Choose the risk that other substantive procedures fail to detect").optional(),
+  confidenceReason: z.string().trim().max(2000).optional().transform((v) => (v ? v : undefined)),
+  keyItemThreshold: moneyInput.optional(),
+  keyItems: z.array(keyItemChoice).max(500, "At most 500 individually chosen key items").optional(),
+  selection: z.enum(NONSTATISTICAL_SELECTIONS, "Choose random, systematic or haphazard selection").optional(),
+  projection: z.enum(PROJECTION_METHODS, "Choose the ratio or the difference method").optional(),
 }).superRefine((p, ctx) => {
   const need = (field: keyof typeof p, message: string) => {
     if (p[field] === undefined) ctx.addIssue({ code: "custom", path: [field], message });
   };
   if (p.method === "mus" && p.confidence < MUS_MIN_CONFIDENCE) ctx.addIssue({ code: "custom", path: ["confidence"], message: `At least ${MUS_MIN_CONFIDENCE * 100}% for a monetary-unit sample: below it the reliability factor RF(0) drops under 1 and the Stringer bound's incremental allowance can turn negative` });
+  if (p.sizingBasis === "risk-assessment") {
+    need("assessedRisk", "Choose the assessed risk of material misstatement");
+    need("otherProceduresRisk", "Choose the risk that other substantive procedures fail to detect a material misstatement");
+  }
+  if (p.sizingBasis === "confidence-override" && !p.confidenceReason) ctx.addIssue({ code: "custom", path: ["confidenceReason"], message: "Say why the confidence is typed rather than taken from the risk assessment" });
+  if (!KEY_ITEM_METHODS.includes(p.method) && (p.keyItemThreshold !== undefined || (p.keyItems?.length ?? 0) > 0)) {
+    ctx.addIssue({ code: "custom", path: ["keyItems"], message: p.method === "mus" ? "Monetary-unit plans set a top-stratum threshold instead of key items" : "Key items apply to tests of details only" });
+  }
+  const refs = new Set<string>();
+  p.keyItems?.forEach((k, i) => {
+    if (refs.has(k.itemRef)) ctx.addIssue({ code: "custom", path: ["keyItems", i, "itemRef"], message: `${k.itemRef} is listed twice` });
+    refs.add(k.itemRef);
+  });
+  if (p.method === "nonstatistical") {
+    need("sizingBasis", "Size the sample from the risk assessment, or type a confidence with a reason");
+    need("projection", "Choose how the misstatement is projected: ratio or difference");
+    need("selection", "Choose how the items are selected");
+    if (p.selection === "block") ctx.addIssue({ code: "custom", path: ["selection"], message: BLOCK_SELECTION_REFUSED });
+    return;
+  }
   if (p.method === "attribute") {
     need("tolerableRate", "Give the tolerable deviation rate");
     if (p.tolerableRate !== undefined && p.expectedRate >= p.tolerableRate) ctx.addIssue({ code: "custom", path: ["expectedRate"], message: "The expected deviation rate must be below the tolerable rate" });
@@ -113,3 +158,5 @@ export const SampleItemsQuerySchema = z.object({
   status: z.enum(["all", ...ITEM_STATUSES, "void"]).default("all"),
   q: z.string().trim().max(100).optional(),
 });
+
+export const HaphazardPickSchema = z.object({ rowNumber: z.coerce.number({ error: "Give the item's row number" }).int("Give the item's row number").min(1, "Give the item's row number") });
