@@ -2,6 +2,7 @@ import "server-only";
 import type { Knex } from "knex";
 import { getEngagementById } from "@/lib/data/engagements";
 import { getPopulationById } from "@/lib/data/populations";
+import { getMethodologyByFirmId } from "@/lib/data/firm-methodology";
 import { getSampleById, listDrawsBySampleId } from "@/lib/data/samples";
 import { listItemsByDrawId } from "@/lib/data/sample-items";
 import { notFound } from "@/lib/errors";
@@ -18,10 +19,10 @@ import { getReviewState } from "@/lib/review/review-state";
 export async function planFor<T extends PreviewPlan>(db: Knex, { engagementId, input }: { engagementId: number; input: T }) {
   const [engagement, population] = await Promise.all([getEngagementById(db, { engagementId }), getPopulationById(db, { engagementId, populationId: input.populationId })]);
   if (!engagement) throw notFound("No such engagement");
-  const frame = await loadFrame(db, { populationId: population.id });
-  const plan = computePlan(frame, input.params, engagement.performanceMateriality, input.direction ?? "both");
+  const [frame, methodology] = await Promise.all([loadFrame(db, { populationId: population.id }), getMethodologyByFirmId(db, { firmId: engagement.firmId })]);
+  const plan = computePlan(frame, input.params, engagement.performanceMateriality, input.direction ?? "both", methodology);
   const normalised: T = { ...input, params: { ...input.params, confidence: plan.risk?.confidence ?? input.params.confidence } };
-  return { plan, population, engagement, input: normalised };
+  return { plan, population, engagement, input: normalised, methodology };
 }
 
 export async function loadSampleView(db: Knex, { engagementId, sampleId }: { engagementId: number; sampleId: number }) {

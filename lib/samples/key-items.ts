@@ -1,6 +1,6 @@
 import "server-only";
 import { centsToDecimal } from "@/lib/money";
-import { AppError } from "@/lib/errors";
+import { fieldError } from "@/lib/errors";
 import type { SampleParams } from "@/lib/validation/sample";
 import type { Frame } from "./population-frame";
 
@@ -16,7 +16,7 @@ export interface KeyItemsPlan {
   remainder: { count: number; total: string };
 }
 
-const fieldError = (field: string, message: string) => new AppError(400, "invalid_input", `${field}: ${message}`, { [field]: [message] });
+
 
 /**
  * The key items of a plan (one mechanism for nonstatistical and classical plans): every item at or

@@ -7,9 +7,7 @@ export type AssessedRisk = (typeof ASSESSED_RISK_LEVELS)[number];
 /** The part of the firm's methodology the risk-based sizing reads (rows: RMM; columns: other procedures). */
 export interface AssuranceTable { version: number; assuranceFactors: { factor: number; confidence: number }[][] }
 
-export const RISK_LABELS: Record<AssessedRisk, string> = {
-  maximum: "Maximum", "slightly-below-maximum": "Slightly below maximum", moderate: "Moderate", low: "Low",
-};
+export { RISK_LEVEL_LABELS as RISK_LABELS } from "@/lib/validation/methodology";
 
 /** How the plan's confidence and assurance factor were set, as the workpaper prints it. */
 export interface RiskSizing {

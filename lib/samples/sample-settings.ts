@@ -1,8 +1,9 @@
 import "server-only";
 import type { SampleRecord } from "@/lib/data/samples";
-import { DEFAULT_METHODOLOGY, type MethodologySettings } from "@/lib/validation/methodology";
+import type { MethodologySettings } from "@/lib/validation/methodology";
+import { methodologyOfSample } from "./methodology";
 
 /** The firm methodology a sample was planned under (stamped at plan save); defaults before that existed. */
-export function settingsOfSample(_sample: SampleRecord): MethodologySettings {
-  return DEFAULT_METHODOLOGY;
+export function settingsOfSample(sample: SampleRecord): MethodologySettings {
+  return methodologyOfSample(sample);
 }

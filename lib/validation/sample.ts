@@ -2,6 +2,7 @@ import { z } from "zod";
 import { moneyInput } from "./engagement";
 import { signedMoney } from "./population";
 import { MUS_MIN_CONFIDENCE } from "@/lib/sampling/evaluate-mus";
+import { RISK_LEVELS } from "./methodology";
 
 export const SAMPLE_METHODS = ["mus", "random", "systematic", "stratified", "attribute", "nonstatistical"] as const;
 export type SampleMethod = (typeof SAMPLE_METHODS)[number];
@@ -24,7 +25,7 @@ export const NONSTATISTICAL_SELECTIONS = ["random", "systematic", "haphazard", "
 export const PROJECTION_METHODS = ["ratio", "difference"] as const;
 export const SIZING_BASES = ["risk-assessment", "confidence-override"] as const;
 /** The assessed risk levels of the assurance-factor table (rows and columns), highest first. */
-export const ASSESSED_RISK_LEVELS = ["maximum", "slightly-below-maximum", "moderate", "low"] as const;
+export const ASSESSED_RISK_LEVELS = RISK_LEVELS;
 
 export const BLOCK_SELECTION_REFUSED = "Block selection is not offered: a block of contiguous items is rarely representative, because items next to one another in a population tend to share characteristics that differ from items elsewhere, so a block cannot support a conclusion about the whole (ISA 530, Appendix 4(e)). Choose random, systematic or haphazard selection.";
 

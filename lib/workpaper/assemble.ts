@@ -14,6 +14,7 @@ import type { PlanBlock, WorkpaperData, WorkpaperItem } from "@/templates/workpa
 import { AppError } from "@/lib/errors";
 import { getAuditorConclusionBySampleId } from "@/lib/data/auditor-conclusions";
 import { RESPONSE_LABELS } from "@/lib/validation/conclusion";
+import { anomalyRows, keyItemsBlock } from "./nonstatistical-blocks";
 
 /** Rates go to the renderer as fractions ("0.95"); it formats them. */
 const pct = (v: number) => String(v);
@@ -68,6 +69,10 @@ export async function assembleWorkpaper(db: Knex, { engagementId, sampleId, draf
       reperform: { result: currentDraw?.reperformMatches === null || !currentDraw ? "not-checked" : currentDraw.reperformMatches ? "matches" : "differs", checkedAt: currentDraw?.reperformedAt ?? null, checkedBy: null, detail: null },
       recipe: recipe.split("\n"),
     },
+    sizing: plan.risk ?? null,
+    keyItems: keyItemsBlock(plan, active),
+    picks: currentDraw?.seedSource === "haphazard" ? active.filter((i) => i.origin === "haphazard").map((i) => ({ reference: i.itemRef, rowNumber: i.populationRowNumber, bookValue: i.bookValue, pickedBy: i.pickedByName, pickedAt: i.pickedAt })) : null,
+    anomalies: anomalyRows(sample, active),
     items: items.map(toWorkpaperItem),
     evaluation: evaluationOrExplain(evaluation, draft),
     conclusion: {

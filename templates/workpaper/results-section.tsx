@@ -7,7 +7,7 @@ import { colours, s } from "./styles";
 import type { WorkpaperData, WorkpaperItem } from "./workpaper-data";
 
 const STATUS = { "not-started": "Not started", done: "Audited", "not-auditable": "Not auditable", void: "Void" } as const;
-const ORIGIN = { selection: "", extension: "extension", replacement: "replacement" } as const;
+const ORIGIN = { selection: "", extension: "extension", replacement: "replacement", "key-item": "key item (100 %)", haphazard: "haphazard pick" } as const;
 
 function ReferenceCell({ item, showHits }: { item: WorkpaperItem; showHits: boolean }) {
   const tags = [

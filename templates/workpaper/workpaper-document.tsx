@@ -12,6 +12,7 @@ import { paginateItems } from "./results-pages";
 import { ResultsSection } from "./results-section";
 import { ReviewNotesSection } from "./review-notes-section";
 import { SelectionSection } from "./selection-section";
+import { KeyItemsAndPicks } from "./key-items-section";
 import { SignOffsSection } from "./sign-offs-section";
 import { s } from "./styles";
 import { TitleBlock } from "./title-block";
@@ -50,6 +51,7 @@ export function WorkpaperDocument({ data }: { data: WorkpaperData }) {
         <PopulationSection data={data} />
         <PlanSection data={data} />
         <SelectionSection data={data} />
+        <KeyItemsAndPicks data={data} />
       </Sheet>
       {runs.map((items, i) => (
         <Sheet key={`results-${i}`} data={data}>
