@@ -17,6 +17,9 @@ import { PopulationPicker } from "./population-picker";
 import { SizePanel } from "./size-panel";
 import { SizeChoice } from "./size-choice";
 import { usePlanPreview } from "./use-plan-preview";
+import { RiskSizingFields } from "./risk-sizing-fields";
+import { KeyItemsEditor } from "./key-items-editor";
+import { KEY_ITEM_METHODS } from "@/lib/validation/sample";
 import { defaultPlanValues, formFieldOf, suggestedBounds, toRequest, type PlanFormIn, type PlanFormOut, type PopulationChoice } from "./plan-values";
 
 const textarea = "w-full rounded-md border border-ink-line bg-paper-raised px-3 py-2 text-sm focus:border-ledger-500 focus:outline-none focus:ring-2 focus:ring-ledger-100 aria-[invalid=true]:border-brick-500";
@@ -105,6 +108,14 @@ export function PlanForm({ engagementId, currency, performanceMateriality, popul
           </Field>
           <PlanParameters form={form} plan={preview.plan} currency={currency} performanceMateriality={performanceMateriality} />
         </Card>
+        <Card title="Risk assessment">
+          <RiskSizingFields form={form} plan={preview.plan} />
+        </Card>
+        {KEY_ITEM_METHODS.includes(method) && (
+          <Card title="Key items (examined 100 %)">
+            <KeyItemsEditor form={form} plan={preview.plan} currency={currency} />
+          </Card>
+        )}
         <Card title="Size to draw">
           <SizeChoice form={form} plan={preview.plan} />
         </Card>

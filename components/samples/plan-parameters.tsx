@@ -22,6 +22,7 @@ export function PlanParameters({ form, plan, currency, performanceMateriality }:
   const classical = method === "random" || method === "systematic" || method === "stratified";
   const estimators = method === "stratified" ? STRATIFIED_ESTIMATORS : VARIABLES_ESTIMATORS;
   const bounds = (watch("params.strataBounds") ?? []).map(String);
+  const selection = watch("params.selection");
 
   return (
     <div className="grid gap-x-4 sm:grid-cols-2">
@@ -35,9 +36,28 @@ export function PlanParameters({ form, plan, currency, performanceMateriality }:
           )}
         </Field>
       )}
-      <Field label="Confidence" error={e?.confidence?.message} hint={method === "attribute" ? "1 − risk of overreliance on the control" : "1 − risk of incorrect acceptance"}>
-        {({ id, describedBy, invalid }) => <PercentInput id={id} aria-describedby={describedBy} aria-invalid={invalid} {...register("params.confidence")} />}
-      </Field>
+      {method === "nonstatistical" && (
+        <>
+          <Field label="Selection of the rest" error={e?.selection?.message} hint={selection === "haphazard" ? "You pick the items on the population grid after the draw; each pick is recorded with who and when. It cannot be re-performed from a seed." : "Seeded, re-performable by anyone"}>
+            {({ id, describedBy, invalid }) => (
+              <Select id={id} aria-describedby={describedBy} aria-invalid={invalid} {...register("params.selection")}>
+                <option value="random">Random (seeded)</option>
+                <option value="systematic">Systematic with a random start</option>
+                <option value="haphazard">Haphazard (picked by the auditor)</option>
+                <option value="block">Block of contiguous items</option>
+              </Select>
+            )}
+          </Field>
+          <Field label="Projection of misstatement" error={e?.projection?.message} hint="Ratio: misstatement ÷ sampled book × remainder book. Difference: misstatement per item × remainder items.">
+            {({ id, describedBy, invalid }) => (
+              <Select id={id} aria-describedby={describedBy} aria-invalid={invalid} {...register("params.projection")}>
+                <option value="ratio">Ratio</option>
+                <option value="difference">Difference</option>
+              </Select>
+            )}
+          </Field>
+        </>
+      )}
       {method === "attribute" ? (
         <>
           <Field label="Tolerable deviation rate" error={e?.tolerableRate?.message}>

@@ -3,6 +3,7 @@ import type { SampleRecord } from "@/lib/data/samples";
 import { Amount } from "@/components/ui/amount";
 import { SizePanel } from "./size-panel";
 import { DIRECTION_LABELS, ESTIMATOR_LABELS, formatPercent, METHOD_LABELS } from "./labels";
+import { RISK_LEVEL_LABELS } from "@/lib/validation/methodology";
 
 /** The plan as recorded: what is tested, the parameters, the size and how it was computed. */
 export function PlanSummary({ sample, currency, performanceMateriality, editHref }: { sample: SampleRecord; currency: string; performanceMateriality: string; editHref: string | null }) {
@@ -14,7 +15,16 @@ export function PlanSummary({ sample, currency, performanceMateriality, editHref
   ];
   if (sample.method !== "attribute") facts.push(["Misstatement tested for", DIRECTION_LABELS[sample.direction]]);
   if (p.estimator) facts.push(["Estimator", ESTIMATOR_LABELS[p.estimator] ?? p.estimator]);
-  facts.push(["Confidence", formatPercent(p.confidence)]);
+  const risk = sample.plan.risk;
+  if (risk?.assessedRisk && risk.otherProceduresRisk) {
+    facts.push(["Assessed risks", `RMM ${RISK_LEVEL_LABELS[risk.assessedRisk]} · other procedures ${RISK_LEVEL_LABELS[risk.otherProceduresRisk]} → factor ${risk.tableFactor?.toFixed(2)} (firm methodology ${risk.tableVersion === 0 ? "defaults, version 0" : `version ${risk.tableVersion}`})`]);
+  }
+  facts.push(["Confidence", `${formatPercent(p.confidence, 2)}${risk?.basis === "confidence-override" ? " (typed override)" : risk?.basis === "risk-assessment" ? " (from the risk assessment)" : ""}`]);
+  if (risk?.overrideReason) facts.push(["Reason for the typed confidence", risk.overrideReason]);
+  const ns = sample.plan.nonstatistical;
+  if (ns) facts.push(["Assurance factor", ns.assuranceFactor.toFixed(2)], ["Selection", ns.selection === "haphazard" ? "Haphazard (picked by the auditor; not re-performable from a seed)" : ns.selection === "systematic" ? "Systematic with a random start" : "Random (seeded)"], ["Projection", ns.projection === "ratio" ? "Ratio method" : "Difference method"]);
+  const k = sample.plan.keyItems;
+  if (k) facts.push(["Key items", <span key="k"><span className="figures">{k.count}</span> items, <Amount value={k.total} />{k.threshold && <> (threshold <Amount value={k.threshold} />)</>}; sample drawn on the other <span className="figures">{k.remainder.count}</span></span>]);
   if (sample.method === "attribute") {
     facts.push(["Tolerable deviation rate", formatPercent(p.tolerableRate ?? 0)], ["Expected deviation rate", formatPercent(p.expectedRate)]);
   } else {

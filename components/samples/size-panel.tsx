@@ -9,10 +9,12 @@ const INPUT_NOTES: Record<string, string> = {
   RF: "reliability factor, zero misstatements", EF: "expansion factor for expected misstatement", N: "items in the population",
   S: "standard deviation of book values", A: "planned allowance for sampling risk", "n′": "size before the finite population correction",
   TDR: "tolerable deviation rate", EDR: "expected deviation rate",
+  "key items' BV": "book value of the key items, examined 100 %", "assurance factor": "from the firm's table for the two assessed risks (or −ln(1 − typed confidence))",
+  "n (exact)": "size before rounding up",
 };
 
 function InputValue({ name, value }: { name: string; value: string | number }) {
-  if (["BV", "TM", "EM", "A"].includes(name)) return <Amount value={typeof value === "number" ? value.toFixed(2) : value} />;
+  if (["BV", "TM", "EM", "A", "key items' BV"].includes(name)) return <Amount value={typeof value === "number" ? value.toFixed(2) : value} />;
   if (["TDR", "EDR", "confidence", "risk of incorrect acceptance", "risk of incorrect rejection"].includes(name) && typeof value === "number") return <span className="figures">{Number((value * 100).toPrecision(10))}%</span>;
   return <span className="figures">{typeof value === "number" ? value.toLocaleString("en-US", { maximumFractionDigits: 6 }) : value}</span>;
 }
