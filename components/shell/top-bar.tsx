@@ -11,6 +11,7 @@ export function TopBar({ user }: { user: UserRecord }) {
         <nav aria-label="Main" className="flex gap-1 text-sm">
           <Link href="/engagements" className="rounded-md px-2.5 py-1.5 text-ink-soft hover:bg-paper-sunk hover:text-ink">Engagements</Link>
           {user.firmRole === "admin" && <Link href="/admin/users" className="rounded-md px-2.5 py-1.5 text-ink-soft hover:bg-paper-sunk hover:text-ink">People</Link>}
+          {user.firmRole === "admin" && <Link href="/admin/methodology" className="rounded-md px-2.5 py-1.5 text-ink-soft hover:bg-paper-sunk hover:text-ink">Methodology</Link>}
         </nav>
         <div className="ml-auto flex items-center gap-3">
           <div className="text-right leading-tight">
