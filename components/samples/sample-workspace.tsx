@@ -14,6 +14,7 @@ import { FieldworkGrid } from "./fieldwork-grid";
 import { ProgressStrip } from "./progress-strip";
 import { EvaluationPanel } from "./evaluation-panel";
 import { EXTENDABLE, REPLACEABLE } from "./labels";
+import { HaphazardPicker } from "./haphazard-picker";
 
 interface Props {
   engagementId: number; initialView: SampleView; initialEvaluation: SampleEvaluation;
@@ -45,7 +46,7 @@ export function SampleWorkspace({ engagementId, initialView, initialEvaluation, 
 
   const changed = useCallback(() => { setChanges((n) => n + 1); setEvaluating(true); }, []);
   const refreshView = useCallback(async () => { setView(await api<SampleView>(base)); }, [base]);
-  const onDrawn = (next: SampleView) => { setView(next); setGridKey((k) => k + 1); changed(); setTab("results"); router.refresh(); };
+  const onDrawn = (next: SampleView) => { setView(next); setGridKey((k) => k + 1); changed(); setTab(next.currentDraw?.seedSource === "haphazard" ? "draw" : "results"); router.refresh(); };
   const attribute = sample.method === "attribute";
 
   const tabs = [
@@ -70,6 +71,12 @@ export function SampleWorkspace({ engagementId, initialView, initialEvaluation, 
             </div>
           </Card>
         </div>
+        {currentDraw?.seedSource === "haphazard" && (
+          <Card title="Pick the items (haphazard selection)">
+            <HaphazardPicker engagementId={engagementId} sampleId={sample.id} populationId={population.id} planned={sample.plan.chosenSize} mayPick={may.draw}
+              hasDescription={Boolean(population.mapping.descriptionColumn)} onChanged={() => { setGridKey((k) => k + 1); changed(); }} />
+          </Card>
+        )}
         {draws.length > 0 && <Card title="Draw history"><DrawHistory draws={draws} /></Card>}
         {currentDraw && may.draw && EXTENDABLE.includes(sample.method) && (
           <Card title="Extend the sample"><ExtendForm engagementId={engagementId} sampleId={sample.id} onExtended={() => { setGridKey((k) => k + 1); changed(); }} /></Card>
