@@ -4,6 +4,7 @@ import type { SaveResult } from "@/lib/validation/sample";
 import { recordAudit } from "./audit-log";
 import { containsPattern } from "./like";
 import { beginResultWrite } from "@/lib/samples/guard";
+import { ANOMALY_CLEARED } from "@/lib/samples/anomalies";
 import { AppError, notFound } from "@/lib/errors";
 import { centsToDecimal, decimalToCents } from "@/lib/money";
 
@@ -130,10 +131,14 @@ export async function saveItemResult(db: Knex, { engagementId, sampleId, drawId,
       deviation_nature: input.deviationNature ?? null, comment: input.comment ?? null,
       version: input.version + 1, updated_by: actorId, updated_at: trx.fn.now(3),
     };
-    await trx("sample_items").where({ id: itemId }).update(patch);
+    // A later change of the result clears an anomaly mark and its acceptance (they judged the earlier figures).
+    const amountText = (v: unknown) => (v === null || v === undefined ? "" : Number(v).toFixed(2));
+    const resultChanged = before.status !== input.status || amountText(before.audited_value) !== amountText(patch.audited_value);
+    const anomalyCleared = Boolean(before.anomaly_justification) && resultChanged;
+    await trx("sample_items").where({ id: itemId }).update(anomalyCleared ? { ...patch, ...ANOMALY_CLEARED } : patch);
     const after = await getItemById(trx, { drawId, itemId });
     const view = (i: SampleItemRecord) => ({ status: i.status, auditedValue: i.auditedValue, cause: i.cause, deviation: i.deviation, comment: i.comment });
-    await recordAudit(trx, { actorUserId: actorId, engagementId, sampleId, entity: "sample_item", entityId: itemId, action: "record-result", before: view(toItem(before)), after: view(after) });
+    await recordAudit(trx, { actorUserId: actorId, engagementId, sampleId, entity: "sample_item", entityId: itemId, action: "record-result", before: view(toItem(before)), after: anomalyCleared ? { ...view(after), anomalyCleared: true } : view(after) });
     // samples.updated_at is not touched here: that would take the sample row exclusively and queue every save behind every other.
     return { item: after, signOffsCleared };
   });

@@ -161,3 +161,7 @@ export const SampleItemsQuerySchema = z.object({
 });
 
 export const HaphazardPickSchema = z.object({ rowNumber: z.coerce.number({ error: "Give the item's row number" }).int("Give the item's row number").min(1, "Give the item's row number") });
+
+export const AnomalySchema = z.object({
+  justification: z.string().trim().min(20, "Justify the extremely rare circumstances in at least a sentence (20 characters)").max(4000),
+});
