@@ -8,8 +8,7 @@ import { methodologyOfSample } from "./methodology";
 
 async function itemOf(trx: Knex.Transaction, sample: SampleRecord, itemId: number) {
   const draw = await getCurrentDraw(trx, { sampleId: sample.id });
-  if (!draw) throw conflict("The sample has not been drawn yet.");
-  const item = await trx("sample_items").where({ id: itemId, draw_id: draw.id }).forUpdate().first();
+  const item = draw ? await trx("sample_items").where({ id: itemId, draw_id: draw.id }).forUpdate().first() : undefined;
   if (!item) throw notFound("No such item in this sample");
   return item;
 }

@@ -40,6 +40,7 @@ export async function addHaphazardPick(db: Knex, { sample, actorId, rowNumber }:
 
 /** Takes back a haphazard pick that has no result yet (the removal stays in the audit trail). */
 export async function removeHaphazardPick(db: Knex, { sample, actorId, itemId }: { sample: SampleRecord; actorId: number; itemId: number }) {
+  if (!(await db("sample_items").where({ id: itemId, sample_id: sample.id }).first("id"))) throw notFound("No such item in this sample");
   const draw = await haphazardDraw(db, sample);
   await db.transaction(async (trx) => {
     await beginSampleWrite(trx, { sampleId: sample.id, actorId, what: "a removed pick" });

@@ -122,6 +122,11 @@ export const ROUTE_MATRIX: MatrixRow[] = [
   // Only staff and above remove evidence (a client contact only their own uploads, on the client side).
   { route: `DELETE ${S}/items/[itemId]/evidence/[evidenceId]`, expect: onEngagement("staff", 404), probe: { path: `${S}/items/[itemId]/evidence/2147483000` } },
   { route: `POST ${S}/items/[itemId]/replace`, expect: onEngagement("senior", 400), validBody: () => ({ reason: "Cross-engagement probe" }) },
+  { route: `POST ${S}/items/[itemId]/anomaly`, expect: onEngagement("staff", 400), validBody: () => ({ justification: "Cross-engagement probe of an anomaly mark" }) },
+  { route: `DELETE ${S}/items/[itemId]/anomaly`, expect: onEngagement("staff", 404), probe: { path: `${S}/items/2147483000/anomaly` } },
+  { route: `POST ${S}/items/[itemId]/anomaly/acceptance`, expect: onEngagement("manager", 400), validBody: () => ({ confirm: true }) },
+  { route: `POST ${S}/picks`, expect: onEngagement("senior", 400), validBody: () => ({ rowNumber: 2 }) },
+  { route: `DELETE ${S}/picks/[itemId]`, expect: onEngagement("senior", 404), probe: { path: `${S}/picks/2147483000` } },
   { route: `POST ${S}/lock`, expect: onEngagement("manager", 400), validBody: () => ({}) },
   { route: `GET ${S}/notes`, expect: onEngagement("viewer", 200) },
   { route: `POST ${S}/notes`, expect: onEngagement("manager", 400), validBody: () => ({ text: "Cross-engagement probe" }) },
