@@ -21,7 +21,10 @@ export function ReferenceCell() {
       <span className="mt-0.5 flex flex-wrap gap-1">
         {item.topStratum && <Badge tone="blue">top stratum</Badge>}
         {item.stratum !== null && <Badge>stratum {item.stratum}</Badge>}
-        {item.origin !== "selection" && <Badge tone="amber">{item.origin === "extension" ? "added" : "replacement"}</Badge>}
+        {item.keyItem && <Badge tone="blue">key item</Badge>}
+        {item.origin === "haphazard" && <Badge>picked</Badge>}
+        {item.anomaly && <Badge tone="amber">{item.anomaly.acceptedAt ? "anomaly accepted" : "anomaly proposed"}</Badge>}
+        {(item.origin === "extension" || item.origin === "replacement") && <Badge tone="amber">{item.origin === "extension" ? "added" : "replacement"}</Badge>}
         {item.hitPoints && item.hitPoints.length > 1 && <Badge>{item.hitPoints.length} hits</Badge>}
       </span>
       {item.status === "void" && <span className="block text-xs">Void: {item.voidReason}</span>}

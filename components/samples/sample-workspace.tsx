@@ -15,14 +15,15 @@ import { ProgressStrip } from "./progress-strip";
 import { EvaluationPanel } from "./evaluation-panel";
 import { EXTENDABLE, REPLACEABLE } from "./labels";
 import { HaphazardPicker } from "./haphazard-picker";
+import { AnomalyPanel } from "./anomaly-panel";
 
 interface Props {
   engagementId: number; initialView: SampleView; initialEvaluation: SampleEvaluation;
-  may: { record: boolean; draw: boolean }; planSummary: React.ReactNode;
+  may: { record: boolean; draw: boolean; acceptAnomaly?: boolean }; anomaliesAllowed?: boolean; planSummary: React.ReactNode;
 }
 
 /** The sample's three rooms: its plan, its draw, and the results with the live evaluation. */
-export function SampleWorkspace({ engagementId, initialView, initialEvaluation, may, planSummary }: Props) {
+export function SampleWorkspace({ engagementId, initialView, initialEvaluation, may, anomaliesAllowed = true, planSummary }: Props) {
   const router = useRouter();
   const [view, setView] = useState(initialView);
   const [tab, setTab] = useState(initialView.currentDraw ? "results" : "draw");
@@ -91,6 +92,11 @@ export function SampleWorkspace({ engagementId, initialView, initialEvaluation, 
               <FieldworkGrid engagementId={engagementId} sampleId={sample.id} method={sample.method} drawVersion={currentDraw.version}
                 mayRecord={may.record} mayReplace={may.draw && REPLACEABLE.includes(sample.method)} refreshKey={gridKey} onSaved={changed} />
             </Card>
+            {sample.method !== "attribute" && evaluation.progress.misstatements > 0 && (
+              <Card title="Anomalous misstatements">
+                <AnomalyPanel base={base} method={sample.method} refreshKey={changes} mayMark={may.record} mayAccept={Boolean(may.acceptAnomaly)} allowed={anomaliesAllowed} onChanged={changed} />
+              </Card>
+            )}
             <Card title="Evaluation">
               {evalFailure && <div className="mb-3"><Alert>{evalFailure}</Alert></div>}
               <EvaluationPanel evaluation={evaluation} direction={sample.direction} loading={evaluating} />

@@ -47,7 +47,8 @@ export default async function SamplePage({ params }: { params: Promise<{ engagem
       </PageHeader>
       <SampleWorkspace
         key={sample.id} engagementId={engagement.id} initialView={view} initialEvaluation={evaluation}
-        may={{ record: hasAtLeastRole(role, "staff") && !locked, draw: senior }}
+        may={{ record: hasAtLeastRole(role, "staff") && !locked, draw: senior, acceptAnomaly: hasAtLeastRole(role, "manager") && !locked }}
+        anomaliesAllowed={sample.methodology.anomaliesAllowed}
         planSummary={<PlanSummary sample={sample} currency={engagement.currency} performanceMateriality={engagement.performanceMateriality} editHref={editHref} />}
       />
       {advisor && (sample.status === "planned" || advisor.adopted) && (
