@@ -38,6 +38,9 @@ test("a senior plans and draws a PPS sample; staff record results and the String
     await plan.openFromEngagement();
     await plan.describe({ populationId: population.id, name: SAMPLE_NAME, objective: "Confirm that recorded trade receivables exist at the period end.", assertion: "Existence", direction: "overstatement" });
     await expect(plan.field(/Tolerable misstatement/)).toHaveValue("900000.00"); // the engagement's performance materiality
+    // A typed confidence is an override of the risk assessment, with its reason (issue 15).
+    await plan.field("Confidence from").selectOption({ label: "A typed confidence (override, with a reason)" });
+    await plan.field("Reason for typing the confidence").fill("Group instructions fix 95 % for this component");
     await expect(plan.field("Confidence")).toHaveValue("95");
     await plan.field(/Tolerable misstatement/).fill(tolerable);
     await expect(plan.sizePanel().getByText("n = ⌈BV × RF / (TM − EM × EF)⌉", { exact: false })).toBeVisible();
