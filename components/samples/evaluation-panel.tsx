@@ -37,7 +37,7 @@ export function EvaluationPanel({ evaluation: e, direction, loading }: { evaluat
     <div className={`space-y-5 transition-opacity ${loading ? "opacity-60" : ""}`} aria-busy={loading} data-testid="evaluation-panel">
       <div className="flex flex-wrap items-center gap-2 text-sm">
         {e.complete ? <Badge tone="green">all items have a result</Badge> : <Badge tone="amber">provisional</Badge>}
-        <span className="text-ink-soft">Confidence {formatPercent(e.confidence)}{e.tolerableMisstatement !== null && <> · tolerable misstatement <span className="figures">{formatAmount(e.tolerableMisstatement)}</span></>}</span>
+        <span className="text-ink-soft">{ev?.kind === "nonstatistical" ? "Nonstatistical: no confidence level is claimed" : `Confidence ${formatPercent(e.confidence)}`}{e.tolerableMisstatement !== null && <> · tolerable misstatement <span className="figures">{formatAmount(e.tolerableMisstatement)}</span></>}</span>
       </div>
       <div aria-live="polite" data-testid="conclusion">
         <Alert tone={TONE[e.computed.status]}>

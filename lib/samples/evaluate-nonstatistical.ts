@@ -79,7 +79,7 @@ export function evaluateNonstatistical(sample: SampleRecord, done: SampleItemRec
   const conclusion = verdict === "supports"
     ? `The total projected misstatement of ${fmt(compared)} (${parts}) is well below tolerable misstatement ${fmt(tolerable)} — at or below ${wellBelowBasis} — so the sample supports the recorded amount. Carry ${fmt(total)} to the summary of misstatements.`
     : verdict === "approaches"
-      ? `The total projected misstatement of ${fmt(compared)} (${parts}) is above ${wellBelowBasis} and approaches tolerable misstatement ${fmt(tolerable)}: the risk that the actual misstatement exceeds tolerable misstatement may be unacceptably high. Consider the responses listed, and carry ${fmt(total)} to the summary of misstatements.`
+      ? `The total projected misstatement of ${fmt(compared)} (${parts}) is below tolerable misstatement ${fmt(tolerable)} but not well below it — it exceeds ${wellBelowBasis} — so the risk that the actual misstatement exceeds tolerable misstatement may be unacceptably high. Weigh the misstatements' nature and cause, consider the responses listed, and carry ${fmt(total)} to the summary of misstatements.`
       : `The total projected misstatement of ${fmt(compared)} (${parts}) reaches or exceeds tolerable misstatement ${fmt(tolerable)}: the sampling risk is unacceptably high and the sample does not support the recorded amount. Respond as listed, and carry ${fmt(total)} to the summary of misstatements.`;
   const warnings = [NO_BOUND];
   if (ns.selection === "haphazard") warnings.push("The items outside the key items were selected haphazardly: the selection cannot be re-performed from a seed, and its representativeness rests on the auditor's avoidance of bias (ISA 530, Appendix 4(d)).");

@@ -27,7 +27,7 @@ export function reproductionRecipe(ctx: RecipeContext, inputs: SelectionInputs):
     "",
     "   import numpy as np",
     "   # refs, cents: the item references and book values in cents, in file order",
-    `   rs = np.random.RandomState(${ctx.seed})   # MT19937, init_genrand(${ctx.seed})`,
+    ...(inputs.method === "nonstatistical" && inputs.selection === "haphazard" ? [] : [`   rs = np.random.RandomState(${ctx.seed})   # MT19937, init_genrand(${ctx.seed})`]),
   ];
   return [...head, ...keyItemSteps(inputs), ...methodSteps(inputs, ctx.seed), "", "Selection order is 1-based; row numbers are those of the file (header = row 1).", ""].join("\n");
 }

@@ -28,6 +28,9 @@ const SYMBOLS: Record<string, { meaning: string; kind: "money" | "rate" | "count
   "risk of incorrect acceptance": { meaning: "β, one-sided", kind: "rate" }, "risk of incorrect rejection": { meaning: "α, two-sided", kind: "rate" },
   TDR: { meaning: "Tolerable deviation rate", kind: "rate" }, EDR: { meaning: "Expected deviation rate", kind: "rate" },
   "allowed deviations": { meaning: "Deviations the size allows", kind: "count" }, strata: { meaning: "Number of strata", kind: "count" },
+  "key items' BV": { meaning: "Book value of the key items, examined 100 %", kind: "money" },
+  "assurance factor": { meaning: "Assurance factor for the two assessed risks (firm table), or −ln(1 − typed confidence)", kind: "factor" },
+  "n (exact)": { meaning: "Size before rounding up", kind: "factor" },
 };
 
 /** Everything the workpaper prints, from the database, with the evaluation computed by the engine. */

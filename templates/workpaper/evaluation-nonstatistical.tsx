@@ -33,7 +33,7 @@ export function NonstatisticalEvaluation({ e, currency }: { e: NonstatisticalEva
         {e.verdict === "supports"
           ? "The total projected misstatement is well below tolerable misstatement: the sample supports the recorded amount."
           : e.verdict === "approaches"
-            ? "The total projected misstatement approaches tolerable misstatement: the risk that actual misstatement exceeds it may be unacceptably high."
+            ? "The total projected misstatement is below tolerable misstatement but not well below it: the risk that actual misstatement exceeds tolerable misstatement may be unacceptably high."
             : "The total projected misstatement reaches or exceeds tolerable misstatement: the sampling risk is unacceptably high."}
       </Callout>
       <Text style={[s.small, s.soft]}>No statistical bound is claimed for a nonstatistical sample: sampling risk is weighed by the auditor's judgement (PCAOB AS 2315.26).</Text>

@@ -21,7 +21,7 @@ test("a senior plans a nonstatistical sample from the risk assessment, picks ite
   await as(page, "senior");
   const engagementId = await engagementIdByClient(page.request, "Tessaly Outdoor Supply Inc.");
   const population = await loadReconciledLedger(page.request, { engagementId, path: test.info().outputPath("ledger.csv"), rows: 240, seed: 1503, name: "Receivables for the cut-off test" });
-  const largest = (await (await page.request.get(`/api/engagements/${engagementId}/populations/${population.id}/items?sort=book&dir=desc&pageSize=5`)).json()).items as { itemRef: string; bookValue: string }[];
+  const largest = (await (await page.request.get(`/api/engagements/${engagementId}/populations/${population.id}/items?sort=book&dir=desc&pageSize=10`)).json()).items as { itemRef: string; bookValue: string }[];
   const tolerable = (Number(population.total) / 4).toFixed(2);
 
   // Plan on screen: the two risks map to a factor; block selection is refused with its reason.
@@ -44,6 +44,8 @@ test("a senior plans a nonstatistical sample from the risk assessment, picks ite
   await shot(page, "1-block-refused");
   await plan.field("Selection of the rest").selectOption({ label: "Haphazard (picked by the auditor)" });
   await expect(plan.sizePanel().getByText("n = ⌈(BV − key items' BV) ÷ TM × assurance factor⌉", { exact: false })).toBeVisible();
+  await expect(plan.sizePanel()).toContainText("Haphazard selection: the auditor picks");
+  await expect(plan.sizePanel()).not.toContainText("rarely representative");
   const size = Number(await plan.chosenSize().textContent());
   expect(size).toBeGreaterThan(3);
   await shot(page, "2-plan-from-risks");
