@@ -2,19 +2,44 @@ import type { NonstatisticalEvaluation } from "@/lib/samples/evaluate-nonstatist
 import { Amount } from "@/components/ui/amount";
 
 const amt = (v: number) => <Amount value={v.toFixed(2)} />;
-const METHOD = { ratio: "Ratio: misstatement ÷ sampled book value × remainder book value", difference: "Difference: misstatement per item × items in the remainder" } as const;
+const METHOD = {
+  ratio: "Ratio: misstatement ÷ sampled book value × remainder book value",
+  difference: "Difference: misstatement per item × items in the remainder",
+} as const;
 
 /** The nonstatistical projection: sample, remainder, key items, anomalies, the total against TM, and the usual responses. */
 export function NonstatisticalResult({ n }: { n: NonstatisticalEvaluation }) {
   const rows: [string, React.ReactNode, string?][] = [
     ["Projection method", METHOD[n.projection]],
-    ["Items in the sample (outside key items)", <span key="c" className="figures">{n.sample.count}</span>],
+    [
+      "Items in the sample (outside key items)",
+      <span key="c" className="figures">
+        {n.sample.count}
+      </span>,
+    ],
     ["Sampled book value", amt(n.sample.bookValue)],
     ["Misstatement found in the sample", amt(n.sample.misstatement)],
-    ["Remainder the sample represents", <span key="r"><span className="figures">{n.remainder.count.toLocaleString("en-US")}</span> items, {amt(n.remainder.bookValue)}</span>],
+    [
+      "Remainder the sample represents",
+      <span key="r">
+        <span className="figures">{n.remainder.count.toLocaleString("en-US")}</span> items, {amt(n.remainder.bookValue)}
+      </span>,
+    ],
     ["Projected misstatement of the remainder", amt(n.projectedMisstatement), "ns-projected"],
-    [`Key items at actual (${n.keyItems.evaluated} of ${n.keyItems.count} with a result)`, amt(n.keyItems.misstatement), "ns-key-items"],
-    ...(n.anomalies.count > 0 ? [[`Accepted anomalous misstatements at actual (${n.anomalies.count})`, amt(n.anomalies.misstatement), "ns-anomalies"] as [string, React.ReactNode, string]] : []),
+    [
+      `Key items at actual (${n.keyItems.evaluated} of ${n.keyItems.count} with a result)`,
+      amt(n.keyItems.misstatement),
+      "ns-key-items",
+    ],
+    ...(n.anomalies.count > 0
+      ? [
+          [
+            `Accepted anomalous misstatements at actual (${n.anomalies.count})`,
+            amt(n.anomalies.misstatement),
+            "ns-anomalies",
+          ] as [string, React.ReactNode, string],
+        ]
+      : []),
     ["Total projected misstatement", amt(n.totalProjected), "ns-total"],
     ["Tolerable misstatement", amt(n.tolerableMisstatement)],
     ["Expected misstatement used in planning", amt(n.expectedMisstatement)],
@@ -26,16 +51,27 @@ export function NonstatisticalResult({ n }: { n: NonstatisticalEvaluation }) {
         <tbody>
           {rows.map(([label, value, id]) => (
             <tr key={label} className="border-t border-ink-line/60">
-              <th scope="row" className="py-1.5 pr-3 text-left font-normal text-ink-soft">{label}</th>
-              <td className="py-1.5 text-right font-medium" data-testid={id}>{value}</td>
+              <th scope="row" className="py-1.5 pr-3 text-left font-normal text-ink-soft">
+                {label}
+              </th>
+              <td className="py-1.5 text-right font-medium" data-testid={id}>
+                {value}
+              </td>
             </tr>
           ))}
         </tbody>
       </table>
       {n.responses.length > 0 && (
-        <div className="rounded-md border border-amber-100 bg-amber-50 p-3 text-sm text-amber-800" data-testid="ns-responses">
+        <div
+          className="rounded-md border border-amber-100 bg-amber-50 p-3 text-sm text-amber-800"
+          data-testid="ns-responses"
+        >
           <p className="font-semibold">Usual responses</p>
-          <ul className="mt-1 list-disc pl-5">{n.responses.map((r) => <li key={r}>{r}</li>)}</ul>
+          <ul className="mt-1 list-disc pl-5">
+            {n.responses.map((r) => (
+              <li key={r}>{r}</li>
+            ))}
+          </ul>
         </div>
       )}
     </div>

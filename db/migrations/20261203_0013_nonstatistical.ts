@@ -10,7 +10,9 @@ const METHODS = "'mus','random','systematic','stratified','attribute'";
 export async function up(knex: Knex): Promise<void> {
   await knex.raw(`alter table samples modify method enum(${METHODS},'nonstatistical') not null`);
   await knex.raw("alter table sample_draws modify seed_source enum('generated','entered','haphazard') not null");
-  await knex.raw("alter table sample_items modify origin enum('selection','extension','replacement','key-item','haphazard') not null default 'selection'");
+  await knex.raw(
+    "alter table sample_items modify origin enum('selection','extension','replacement','key-item','haphazard') not null default 'selection'",
+  );
   await knex.schema.alterTable("sample_items", (t) => {
     t.boolean("key_item").notNullable().defaultTo(false);
     t.text("key_reason").nullable();
@@ -40,7 +42,9 @@ export async function down(knex: Knex): Promise<void> {
     t.dropColumn("anomaly_accepted_at");
   });
   await knex("sample_items").whereIn("origin", ["key-item", "haphazard"]).update({ origin: "selection" });
-  await knex.raw("alter table sample_items modify origin enum('selection','extension','replacement') not null default 'selection'");
+  await knex.raw(
+    "alter table sample_items modify origin enum('selection','extension','replacement') not null default 'selection'",
+  );
   await knex("sample_draws").where({ seed_source: "haphazard" }).update({ seed_source: "generated" });
   await knex.raw("alter table sample_draws modify seed_source enum('generated','entered') not null");
   await knex("samples").where({ method: "nonstatistical" }).delete();

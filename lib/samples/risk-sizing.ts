@@ -5,7 +5,10 @@ import { ASSESSED_RISK_LEVELS, type SampleParams } from "@/lib/validation/sample
 export type AssessedRisk = (typeof ASSESSED_RISK_LEVELS)[number];
 
 /** The part of the firm's methodology the risk-based sizing reads (rows: RMM; columns: other procedures). */
-export interface AssuranceTable { version: number; assuranceFactors: { factor: number; confidence: number }[][] }
+export interface AssuranceTable {
+  version: number;
+  assuranceFactors: { factor: number; confidence: number }[][];
+}
 
 export { RISK_LEVEL_LABELS as RISK_LABELS } from "@/lib/validation/methodology";
 
@@ -33,14 +36,40 @@ export const factorForConfidence = (confidence: number) => Number((-Math.log(1 -
  * their typed confidence).
  */
 export function riskSizing(params: SampleParams, table: AssuranceTable): RiskSizing {
-  const rmm = params.assessedRisk ?? null, other = params.otherProceduresRisk ?? null;
+  const rmm = params.assessedRisk ?? null,
+    other = params.otherProceduresRisk ?? null;
   let cell: { factor: number; confidence: number } | null = null;
   if (rmm && other) {
     cell = table.assuranceFactors[ASSESSED_RISK_LEVELS.indexOf(rmm)]?.[ASSESSED_RISK_LEVELS.indexOf(other)] ?? null;
-    if (!cell) throw new AppError(400, "invalid_input", "assessedRisk: the firm's assurance-factor table has no cell for these risks", { assessedRisk: ["No cell in the firm's table"] });
+    if (!cell)
+      throw new AppError(
+        400,
+        "invalid_input",
+        "assessedRisk: the firm's assurance-factor table has no cell for these risks",
+        { assessedRisk: ["No cell in the firm's table"] },
+      );
   }
-  const base = { assessedRisk: rmm, otherProceduresRisk: other, tableFactor: cell?.factor ?? null, tableConfidence: cell?.confidence ?? null, tableVersion: table.version };
-  if (params.sizingBasis === "risk-assessment" && cell) return { ...base, basis: "risk-assessment", factor: cell.factor, confidence: cell.confidence, overrideReason: null };
+  const base = {
+    assessedRisk: rmm,
+    otherProceduresRisk: other,
+    tableFactor: cell?.factor ?? null,
+    tableConfidence: cell?.confidence ?? null,
+    tableVersion: table.version,
+  };
+  if (params.sizingBasis === "risk-assessment" && cell)
+    return {
+      ...base,
+      basis: "risk-assessment",
+      factor: cell.factor,
+      confidence: cell.confidence,
+      overrideReason: null,
+    };
   const basis = params.sizingBasis === "confidence-override" ? "confidence-override" : "typed-confidence";
-  return { ...base, basis, factor: factorForConfidence(params.confidence), confidence: params.confidence, overrideReason: params.confidenceReason ?? null };
+  return {
+    ...base,
+    basis,
+    factor: factorForConfidence(params.confidence),
+    confidence: params.confidence,
+    overrideReason: params.confidenceReason ?? null,
+  };
 }

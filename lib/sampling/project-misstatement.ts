@@ -50,16 +50,27 @@ export function projectMisstatement(o: {
   const s = sampleToCents("sample", o.sample, 1);
   const key = sampleToCents("keyItems", o.keyItems ?? [], 0);
   const remainderCents = toCents("remainderBookValue", o.remainderBookValue);
-  const remainderCount = requireInteger("remainderItemCount", o.remainderItemCount, s.book.length, Number.MAX_SAFE_INTEGER);
-  let missCents = 0, bookCents = 0, keyCents = 0;
+  const remainderCount = requireInteger(
+    "remainderItemCount",
+    o.remainderItemCount,
+    s.book.length,
+    Number.MAX_SAFE_INTEGER,
+  );
+  let missCents = 0,
+    bookCents = 0,
+    keyCents = 0;
   for (let i = 0; i < s.book.length; i++) {
     missCents = addCents("sample misstatement", missCents, s.book[i] - s.audited[i]);
     bookCents = addCents("sample book value", bookCents, s.book[i]);
   }
-  for (let i = 0; i < key.book.length; i++) keyCents = addCents("keyItems misstatement", keyCents, key.book[i] - key.audited[i]);
+  for (let i = 0; i < key.book.length; i++)
+    keyCents = addCents("keyItems misstatement", keyCents, key.book[i] - key.audited[i]);
   let projectedCents: number, rate: number;
   if (method === "ratio") {
-    if (bookCents === 0) throw new RangeError("sample: the sampled book value is zero, so the ratio method cannot project; use the difference method");
+    if (bookCents === 0)
+      throw new RangeError(
+        "sample: the sampled book value is zero, so the ratio method cannot project; use the difference method",
+      );
     rate = missCents / bookCents;
     projectedCents = divideRounded(BigInt(missCents) * BigInt(remainderCents), BigInt(bookCents));
   } else {
@@ -78,8 +89,9 @@ export function projectMisstatement(o: {
 
 /** a ÷ b rounded half away from zero, as a safe integer (exact for any product of cents). */
 function divideRounded(a: bigint, b: bigint): number {
-  const negative = (a < 0n) !== (b < 0n);
-  const absA = a < 0n ? -a : a, absB = b < 0n ? -b : b;
+  const negative = a < 0n !== b < 0n;
+  const absA = a < 0n ? -a : a,
+    absB = b < 0n ? -b : b;
   const q = (2n * absA + absB) / (2n * absB);
   const result = Number(negative ? -q : q);
   if (!Number.isSafeInteger(result)) throw new RangeError("projectedMisstatement exceeds the exact range in cents");

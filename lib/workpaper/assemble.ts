@@ -46,6 +46,7 @@ export async function assembleWorkpaper(db: Knex, { engagementId, sampleId, draf
     getAuditorConclusionBySampleId(db, { sampleId }),
   ]);
   const tolerable = money(Number(sample.params.tolerableMisstatement ?? engagement.performanceMateriality));
+  const active = items.filter((i) => i.status !== "void");
   const plan = sample.plan;
   return {
     draft, workpaperReference: lock?.reference ?? workpaperReferenceFor(sample), firmName: firm?.name ?? "", clientName: engagement.clientName,

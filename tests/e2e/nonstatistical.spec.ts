@@ -7,7 +7,8 @@ import { PlanSamplePage, SamplePage } from "./pages/samples-pages";
 import { ReviewPanelPage } from "./pages/review-panel";
 import { engagementIdByClient, loadReconciledLedger } from "./pages/samples-population";
 
-const shot = (page: Page, name: string) => page.screenshot({ path: test.info().outputPath(`${name}.png`), fullPage: true });
+const shot = (page: Page, name: string) =>
+  page.screenshot({ path: test.info().outputPath(`${name}.png`), fullPage: true });
 const SAMPLE_NAME = "Receivables cut-off — e2e nonstatistical";
 
 async function as(page: Page, role: DemoRole) {
@@ -15,20 +16,40 @@ async function as(page: Page, role: DemoRole) {
   await new SignInPage(page).signInAndWait(role);
 }
 
-test("a senior plans a nonstatistical sample from the risk assessment, picks items haphazardly, keys results; a manager locks it and reads the PDF", async ({ page }) => {
+test("a senior plans a nonstatistical sample from the risk assessment, picks items haphazardly, keys results; a manager locks it and reads the PDF", async ({
+  page,
+}) => {
   test.setTimeout(300_000);
   await page.setViewportSize({ width: 1440, height: 1000 });
   await as(page, "senior");
   const engagementId = await engagementIdByClient(page.request, "Tessaly Outdoor Supply Inc.");
-  const population = await loadReconciledLedger(page.request, { engagementId, path: test.info().outputPath("ledger.csv"), rows: 240, seed: 1503, name: "Receivables for the cut-off test" });
-  const largest = (await (await page.request.get(`/api/engagements/${engagementId}/populations/${population.id}/items?sort=book&dir=desc&pageSize=10`)).json()).items as { itemRef: string; bookValue: string }[];
+  const population = await loadReconciledLedger(page.request, {
+    engagementId,
+    path: test.info().outputPath("ledger.csv"),
+    rows: 240,
+    seed: 1503,
+    name: "Receivables for the cut-off test",
+  });
+  const largest = (
+    await (
+      await page.request.get(
+        `/api/engagements/${engagementId}/populations/${population.id}/items?sort=book&dir=desc&pageSize=10`,
+      )
+    ).json()
+  ).items as { itemRef: string; bookValue: string }[];
   const tolerable = (Number(population.total) / 4).toFixed(2);
 
   // Plan on screen: the two risks map to a factor; block selection is refused with its reason.
   await page.goto(`/engagements/${engagementId}`);
   const plan = new PlanSamplePage(page);
   await plan.openFromEngagement();
-  await plan.describe({ populationId: population.id, name: SAMPLE_NAME, objective: "Test that recorded invoices relate to goods delivered before the period end.", assertion: "Cut-off", direction: "overstatement" });
+  await plan.describe({
+    populationId: population.id,
+    name: SAMPLE_NAME,
+    objective: "Test that recorded invoices relate to goods delivered before the period end.",
+    assertion: "Cut-off",
+    direction: "overstatement",
+  });
   await plan.method("Nonstatistical, key items and a projected misstatement");
   await plan.field("Assessed risk of material misstatement").selectOption({ label: "Maximum" });
   await plan.field("Risk other substantive procedures fail to detect").selectOption({ label: "Moderate" });
@@ -43,7 +64,9 @@ test("a senior plans a nonstatistical sample from the risk assessment, picks ite
   await expect(plan.sizePanel()).toContainText("rarely representative");
   await shot(page, "1-block-refused");
   await plan.field("Selection of the rest").selectOption({ label: "Haphazard (picked by the auditor)" });
-  await expect(plan.sizePanel().getByText("n = ⌈(BV − key items' BV) ÷ TM × assurance factor⌉", { exact: false })).toBeVisible();
+  await expect(
+    plan.sizePanel().getByText("n = ⌈(BV − key items' BV) ÷ TM × assurance factor⌉", { exact: false }),
+  ).toBeVisible();
   await expect(plan.sizePanel()).toContainText("Haphazard selection: the auditor picks");
   await expect(plan.sizePanel()).not.toContainText("rarely representative");
   const size = Number(await plan.chosenSize().textContent());
@@ -61,7 +84,10 @@ test("a senior plans a nonstatistical sample from the risk assessment, picks ite
   const picker = page.getByTestId("haphazard-picker");
   await expect(picker).toBeVisible();
   for (let n = 1; n <= size; n++) {
-    await picker.getByRole("button", { name: /^Pick / }).nth(n % 3).click();
+    await picker
+      .getByRole("button", { name: /^Pick / })
+      .nth(n % 3)
+      .click();
     await expect(page.getByTestId("picks-count")).toContainText(`${n} of ${size}`);
   }
   await expect(picker.getByRole("table", { name: "Haphazard picks" })).toContainText("Priya Nair");
@@ -71,10 +97,25 @@ test("a senior plans a nonstatistical sample from the risk assessment, picks ite
   await sample.open("Results and evaluation");
   const { items } = await (await page.request.get(`${base}/items?pageSize=500`)).json();
   const misstated = items.find((i: { keyItem: boolean; bookValue: string }) => !i.keyItem && Number(i.bookValue) > 100);
-  await sample.record(misstated.itemRef, { status: "Done", audited: (Number(misstated.bookValue) - 100).toFixed(2), cause: "Cut-off", comment: "Delivered after the period end" }, "Priya Nair");
+  await sample.record(
+    misstated.itemRef,
+    {
+      status: "Done",
+      audited: (Number(misstated.bookValue) - 100).toFixed(2),
+      cause: "Cut-off",
+      comment: "Delivered after the period end",
+    },
+    "Priya Nair",
+  );
   await expect(sample.evaluation()).toContainText("Total projected misstatement");
   for (const it of items.filter((i: { id: number }) => i.id !== misstated.id)) {
-    expect((await page.request.patch(`${base}/items/${it.id}`, { data: { version: it.version, status: "done", auditedValue: it.bookValue } })).status()).toBe(200);
+    expect(
+      (
+        await page.request.patch(`${base}/items/${it.id}`, {
+          data: { version: it.version, status: "done", auditedValue: it.bookValue },
+        })
+      ).status(),
+    ).toBe(200);
   }
   await page.reload();
   await sample.open("Results and evaluation");

@@ -49,16 +49,30 @@ export function nonstatisticalSampleSize(o: {
 }): NonstatisticalSize {
   requireObject("options", o);
   const book = BigInt(toCents("bookValue", requirePositive("bookValue", o.bookValue)));
-  const key = BigInt(toCents("keyItemsBookValue", requirePositive("keyItemsBookValue", o.keyItemsBookValue ?? 0, true)));
-  const tm = BigInt(toCents("tolerableMisstatement", requirePositive("tolerableMisstatement", o.tolerableMisstatement)));
-  const em = BigInt(toCents("expectedMisstatement", requirePositive("expectedMisstatement", o.expectedMisstatement ?? 0, true)));
+  const key = BigInt(
+    toCents("keyItemsBookValue", requirePositive("keyItemsBookValue", o.keyItemsBookValue ?? 0, true)),
+  );
+  const tm = BigInt(
+    toCents("tolerableMisstatement", requirePositive("tolerableMisstatement", o.tolerableMisstatement)),
+  );
+  const em = BigInt(
+    toCents("expectedMisstatement", requirePositive("expectedMisstatement", o.expectedMisstatement ?? 0, true)),
+  );
   const factor = requirePositive("assuranceFactor", o.assuranceFactor);
   if (factor > 10) throw new RangeError(`assuranceFactor must be at most 10 (got ${factor})`);
-  const adjustment = requireOneOf("expectedMisstatementAdjustment", o.expectedMisstatementAdjustment ?? "none", EXPECTED_MISSTATEMENT_ADJUSTMENTS);
+  const adjustment = requireOneOf(
+    "expectedMisstatementAdjustment",
+    o.expectedMisstatementAdjustment ?? "none",
+    EXPECTED_MISSTATEMENT_ADJUSTMENTS,
+  );
   const minimum = requireInteger("minimumSampleSize", o.minimumSampleSize ?? 0, 0, 100000);
-  if (key > book) throw new RangeError(`keyItemsBookValue must not exceed bookValue (${o.bookValue}); got ${o.keyItemsBookValue}`);
+  if (key > book)
+    throw new RangeError(`keyItemsBookValue must not exceed bookValue (${o.bookValue}); got ${o.keyItemsBookValue}`);
   const effective = adjustment === "subtract-from-tolerable" ? tm - em : tm;
-  if (effective <= 0n) throw new RangeError(`tolerableMisstatement must exceed expectedMisstatement (${o.expectedMisstatement}) when the firm subtracts it`);
+  if (effective <= 0n)
+    throw new RangeError(
+      `tolerableMisstatement must exceed expectedMisstatement (${o.expectedMisstatement}) when the firm subtracts it`,
+    );
   const remainder = book - key;
   const factorScaled = BigInt(Math.round(factor * Number(FACTOR_SCALE)));
   const numerator = remainder * factorScaled;
@@ -66,7 +80,10 @@ export function nonstatisticalSampleSize(o: {
   const ceil = remainder === 0n ? 0 : Number((numerator + denominator - 1n) / denominator);
   const raisedToMinimum = remainder > 0n && ceil < minimum;
   const warnings: string[] = [];
-  if (adjustment === "none" && em > 0n) warnings.push("Expected misstatement is above zero: the formula does not allow for it, so increase the size by judgement (or set the firm to subtract it from tolerable misstatement).");
+  if (adjustment === "none" && em > 0n)
+    warnings.push(
+      "Expected misstatement is above zero: the formula does not allow for it, so increase the size by judgement (or set the firm to subtract it from tolerable misstatement).",
+    );
   if (remainder === 0n) warnings.push("Every item is a key item: nothing is left to sample.");
   return {
     sampleSize: raisedToMinimum ? minimum : ceil,

@@ -6,6 +6,10 @@ import { sampleOf } from "@/lib/samples/route-helpers";
 
 /** Takes back a haphazard pick without a result. */
 export const DELETE = withEngagementRole(z.object({}), "senior", async (_input, ctx) => {
-  await removeHaphazardPick(ctx.db, { sample: await sampleOf(ctx), actorId: ctx.user.id, itemId: parseIdParam(ctx.params.itemId, "item") });
+  await removeHaphazardPick(ctx.db, {
+    sample: await sampleOf(ctx),
+    actorId: ctx.user.id,
+    itemId: parseIdParam(ctx.params.itemId, "item"),
+  });
   return { removed: true };
 });
