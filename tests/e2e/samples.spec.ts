@@ -41,7 +41,7 @@ test("a senior plans and draws a PPS sample; staff record results and the String
     // A typed confidence is an override of the risk assessment, with its reason (issue 15).
     await plan.field("Confidence from").selectOption({ label: "A typed confidence (override, with a reason)" });
     await plan.field("Reason for typing the confidence").fill("Group instructions fix 95 % for this component");
-    await expect(plan.field("Confidence")).toHaveValue("95");
+    await expect(page.getByLabel("Confidence", { exact: true })).toHaveValue("95");
     await plan.field(/Tolerable misstatement/).fill(tolerable);
     await expect(plan.sizePanel().getByText("n = ⌈BV × RF / (TM − EM × EF)⌉", { exact: false })).toBeVisible();
     await expect(plan.sizePanel().getByRole("table", { name: "Inputs to the size" }).getByText(shown(tolerable))).toBeVisible();
