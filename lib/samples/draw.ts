@@ -4,7 +4,7 @@ import type { Knex } from "knex";
 import { recordAudit } from "@/lib/data/audit-log";
 import { getPopulationById } from "@/lib/data/populations";
 import type { DrawRecord, SampleRecord } from "@/lib/data/samples";
-import { conflict, engineInputError } from "@/lib/errors";
+import { conflict, engineInputError, fieldError } from "@/lib/errors";
 import { EngineInputError } from "@/lib/sampling";
 import { beginSampleWrite } from "./guard";
 import { loadFrame, type Frame } from "./population-frame";
@@ -67,7 +67,7 @@ export async function drawSample(db: Knex, { sample, actorId, seed: enteredSeed 
   const frame = await loadFrame(db, { populationId: population.id });
   const inputs = selectionInputsFor(sample);
   const haphazard = isHaphazard(inputs);
-  if (haphazard && enteredSeed !== undefined) throw new AppError(400, "invalid_input", "seed: a haphazard selection has no seed; pick the items on the population grid after the draw", { seed: ["A haphazard selection has no seed"] });
+  if (haphazard && enteredSeed !== undefined) throw fieldError("seed", "a haphazard selection has no seed; pick the items on the population grid after the draw", "A haphazard selection has no seed");
   const seed = haphazard ? 0 : enteredSeed ?? randomInt(0, 2 ** 32);
   const seedSource = haphazard ? "haphazard" : enteredSeed === undefined ? "generated" : "entered";
   let items: SelectedItem[];

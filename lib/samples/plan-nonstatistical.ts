@@ -1,5 +1,5 @@
 import "server-only";
-import { nonstatisticalSampleSize } from "@/lib/sampling";
+import { EngineInputError, nonstatisticalSampleSize } from "@/lib/sampling";
 import { centsToDecimal } from "@/lib/money";
 import type { MethodologySettings } from "@/lib/validation/methodology";
 import type { SampleParams } from "@/lib/validation/sample";
@@ -45,7 +45,7 @@ export function planNonstatistical(
   const keyTotal = Number(a.keyItems?.total ?? "0");
   const bookValue = Number(centsToDecimal(frame.totalCents));
   if (!(bookValue > 0))
-    throw new RangeError("bookValue: the population's book value must be above zero for a nonstatistical size");
+    throw new EngineInputError("bookValue", "bookValue: the population's book value must be above zero for a nonstatistical size");
   const r = nonstatisticalSampleSize({
     bookValue,
     keyItemsBookValue: keyTotal,

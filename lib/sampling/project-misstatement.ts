@@ -1,6 +1,7 @@
 /**
  * Projection of the misstatement found in a nonstatistical sample to the untested remainder.
  */
+import { EngineInputError } from "./errors";
 import { addCents, fromCents, toCents } from "./money";
 import { sampleToCents } from "./sample-input";
 import type { SampledItem } from "./types";
@@ -32,7 +33,7 @@ export interface ProjectedMisstatement {
  * is book − audited (overstatement positive); sums are exact in cents.
  *
  * @throws {TypeError} when a field has the wrong type.
- * @throws {RangeError} when the sample is empty, the ratio method's sampled book value is zero, or a
+ * @throws {EngineInputError} when the sample is empty, the ratio method's sampled book value is zero, or a
  *   count or amount is out of range.
  * @example
  * projectMisstatement({ method: "difference", sample: fiftyItemsWith3000Over, remainderBookValue: 500000, remainderItemCount: 1000 })
@@ -68,7 +69,8 @@ export function projectMisstatement(o: {
   let projectedCents: number, rate: number;
   if (method === "ratio") {
     if (bookCents === 0)
-      throw new RangeError(
+      throw new EngineInputError(
+        "sample",
         "sample: the sampled book value is zero, so the ratio method cannot project; use the difference method",
       );
     rate = missCents / bookCents;
@@ -94,6 +96,6 @@ function divideRounded(a: bigint, b: bigint): number {
     absB = b < 0n ? -b : b;
   const q = (2n * absA + absB) / (2n * absB);
   const result = Number(negative ? -q : q);
-  if (!Number.isSafeInteger(result)) throw new RangeError("projectedMisstatement exceeds the exact range in cents");
+  if (!Number.isSafeInteger(result)) throw new EngineInputError("remainderBookValue", "projectedMisstatement exceeds the exact range in cents");
   return result;
 }

@@ -1,6 +1,7 @@
 /**
  * Nonstatistical sample size for a test of details from the assurance factor.
  */
+import { EngineInputError } from "../errors";
 import { toCents } from "../money";
 import { requireInteger, requireObject, requireOneOf, requirePositive } from "../validate";
 
@@ -33,7 +34,7 @@ const FACTOR_SCALE = 1_000_000n;
  * firm's `minimumSampleSize` raises a smaller size.
  *
  * @throws {TypeError} when a field is not a number.
- * @throws {RangeError} when a value is out of range, the key items exceed the book value, or TM − EM ≤ 0.
+ * @throws {EngineInputError} when a value is out of range, the key items exceed the book value, or TM − EM ≤ 0.
  * @example
  * nonstatisticalSampleSize({ bookValue: 1000000, keyItemsBookValue: 300000, tolerableMisstatement: 50000, assuranceFactor: 3 })
  * // → { sampleSize: 42, exactSize: 42, remainderBookValue: 700000, effectiveTolerable: 50000, raisedToMinimum: false, warnings: [] }
@@ -59,7 +60,7 @@ export function nonstatisticalSampleSize(o: {
     toCents("expectedMisstatement", requirePositive("expectedMisstatement", o.expectedMisstatement ?? 0, true)),
   );
   const factor = requirePositive("assuranceFactor", o.assuranceFactor);
-  if (factor > 10) throw new RangeError(`assuranceFactor must be at most 10 (got ${factor})`);
+  if (factor > 10) throw new EngineInputError("assuranceFactor", `assuranceFactor must be at most 10 (got ${factor})`);
   const adjustment = requireOneOf(
     "expectedMisstatementAdjustment",
     o.expectedMisstatementAdjustment ?? "none",
@@ -67,10 +68,11 @@ export function nonstatisticalSampleSize(o: {
   );
   const minimum = requireInteger("minimumSampleSize", o.minimumSampleSize ?? 0, 0, 100000);
   if (key > book)
-    throw new RangeError(`keyItemsBookValue must not exceed bookValue (${o.bookValue}); got ${o.keyItemsBookValue}`);
+    throw new EngineInputError("keyItemsBookValue", `keyItemsBookValue must not exceed bookValue (${o.bookValue}); got ${o.keyItemsBookValue}`);
   const effective = adjustment === "subtract-from-tolerable" ? tm - em : tm;
   if (effective <= 0n)
-    throw new RangeError(
+    throw new EngineInputError(
+      "tolerableMisstatement",
       `tolerableMisstatement must exceed expectedMisstatement (${o.expectedMisstatement}) when the firm subtracts it`,
     );
   const remainder = book - key;
