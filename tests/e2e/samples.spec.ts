@@ -166,6 +166,9 @@ test("a senior sees the Neyman allocation while editing strata, and an attribute
   const plan = new PlanSamplePage(page);
   await plan.describe({ populationId: population.id, name: "Receivables valuation — stratified", objective: "Estimate the audited value of receivables by book-value band.", assertion: "Valuation and allocation" });
   await plan.method("Stratified random, classical variables");
+  // Sized from the risk assessment (issue 15): the firm's table maps the two risks to the confidence.
+  await plan.field("Assessed risk of material misstatement").selectOption({ label: "Maximum" });
+  await plan.field("Risk other substantive procedures fail to detect").selectOption({ label: "Maximum" });
   await plan.field(/Tolerable misstatement/).fill("30000");
   await plan.field("Estimator").selectOption({ label: "Combined ratio" });
   const allocation = page.getByRole("table", { name: "Allocation by stratum" });
@@ -190,6 +193,9 @@ test("a senior sees the Neyman allocation while editing strata, and an attribute
   await shot(page, "s1-stratified-plan.png");
 
   await plan.method("Attribute sampling (test of controls)");
+  await plan.field("Confidence from").selectOption({ label: "A typed confidence (override, with a reason)" });
+  await plan.field("Reason for typing the confidence").fill("Control tests use the firm's 95 % reliance level");
+  await page.getByLabel("Confidence", { exact: true }).fill("95");
   await plan.field("Tolerable deviation rate").fill("5");
   await plan.field("Expected deviation rate").fill("0");
   // AICPA Audit Guide "Audit Sampling", Table A-1: 5% risk, 5% tolerable, 0% expected → 59 items, 0 deviations allowed.
