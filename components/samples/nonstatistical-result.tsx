@@ -1,33 +1,33 @@
-import type { NonstatisticalEvaluation } from "@/lib/samples/evaluate-nonstatistical";
+import type { NonstatisticalEvaluationBlock } from "@/lib/samples/evaluation-types";
 import { Amount } from "@/components/ui/amount";
 
-const amt = (v: number) => <Amount value={v.toFixed(2)} />;
+const amt = (v: string) => <Amount value={v} />;
 const METHOD = {
   ratio: "Ratio: misstatement ÷ sampled book value × remainder book value",
   difference: "Difference: misstatement per item × items in the remainder",
 } as const;
 
 /** The nonstatistical projection: sample, remainder, key items, anomalies, the total against TM, and the usual responses. */
-export function NonstatisticalResult({ n }: { n: NonstatisticalEvaluation }) {
+export function NonstatisticalResult({ n }: { n: NonstatisticalEvaluationBlock }) {
   const rows: [string, React.ReactNode, string?][] = [
     ["Projection method", METHOD[n.projection]],
     [
-      "Items in the sample (outside key items)",
+      "Items in the sample with a result (outside key items)",
       <span key="c" className="figures">
-        {n.sample.count}
+        {n.sampleCount}
       </span>,
     ],
-    ["Sampled book value", amt(n.sample.bookValue)],
-    ["Misstatement found in the sample", amt(n.sample.misstatement)],
+    ["Sampled book value", amt(n.sampleBookValue)],
+    ["Misstatement found in the sample", amt(n.sampleMisstatement)],
     [
       "Remainder the sample represents",
       <span key="r">
-        <span className="figures">{n.remainder.count.toLocaleString("en-US")}</span> items, {amt(n.remainder.bookValue)}
+        <span className="figures">{n.remainderCount.toLocaleString("en-US")}</span> items, {amt(n.remainderBookValue)}
       </span>,
     ],
     ["Projected misstatement of the remainder", amt(n.projectedMisstatement), "ns-projected"],
     [
-      `Key items at actual (${n.keyItems.evaluated} of ${n.keyItems.count} with a result)`,
+      `Key items at actual (${n.keyItems.evaluated} of ${n.keyItems.planned} with a result)`,
       amt(n.keyItems.misstatement),
       "ns-key-items",
     ],
@@ -41,6 +41,7 @@ export function NonstatisticalResult({ n }: { n: NonstatisticalEvaluation }) {
         ]
       : []),
     ["Total projected misstatement", amt(n.totalProjected), "ns-total"],
+    ...(n.comparedAmount !== n.totalProjected ? [[`Compared with tolerable misstatement (${n.direction})`, amt(n.comparedAmount)] as [string, React.ReactNode]] : []),
     ["Tolerable misstatement", amt(n.tolerableMisstatement)],
     ["Expected misstatement used in planning", amt(n.expectedMisstatement)],
     [`“Well below” tolerable misstatement means at most`, amt(n.wellBelowAmount)],
@@ -61,6 +62,7 @@ export function NonstatisticalResult({ n }: { n: NonstatisticalEvaluation }) {
           ))}
         </tbody>
       </table>
+      <p className="text-sm" data-testid="ns-statement">{n.statement}</p>
       {n.responses.length > 0 && (
         <div
           className="rounded-md border border-amber-100 bg-amber-50 p-3 text-sm text-amber-800"

@@ -13,6 +13,7 @@ import type {
   VariablesEvaluationBlock, VariablesResultFigures,
 } from "./evaluation-types";
 import { describeClassicalRule, describeMusLimits, MUS_UNDERSTATEMENT_CAUTION } from "./evaluation-words";
+import { addAtActual, type AtActualInput } from "./evaluation-at-actual";
 
 export interface EvaluatedItem { reference: string; bookValue: Money; auditedValue: Money; topStratum?: boolean }
 
@@ -150,38 +151,45 @@ function figures(r: VariablesEvaluation, o: ClassicalPlanInputs & { confidence: 
   };
 }
 
+/**
+ * `populationSize`/`populationBookValue` are the estimator's frame: with key items, the remainder
+ * outside them; `atActual` brings the key items and accepted anomalies back at their actual amounts.
+ */
 export function buildVariablesEvaluation(o: ClassicalPlanInputs & {
   estimator: Estimator; confidence: number; sides: Sides; tolerableMisstatement: Money;
-  populationSize: number; populationBookValue: Money; items: EvaluatedItem[];
+  populationSize: number; populationBookValue: Money; items: EvaluatedItem[]; atActual?: AtActualInput;
 }): VariablesEvaluationBlock {
-  const r = evaluateVariables({ estimator: o.estimator, populationSize: o.populationSize, populationBookValue: toNumber(o.populationBookValue), sample: o.items.map(pair), confidence: o.confidence, sides: o.sides, distribution: o.distribution });
+  const estimate = evaluateVariables({ estimator: o.estimator, populationSize: o.populationSize, populationBookValue: toNumber(o.populationBookValue), sample: o.items.map(pair), confidence: o.confidence, sides: o.sides, distribution: o.distribution });
+  const whole = addAtActual(estimate, { size: o.populationSize, bookValue: o.populationBookValue }, o.atActual);
   return {
     method: "variables", estimator: o.estimator, confidence: o.confidence, sides: o.sides, tolerableMisstatement: o.tolerableMisstatement,
-    populationSize: o.populationSize, populationBookValue: o.populationBookValue, sampleSize: o.items.length,
+    populationSize: whole.populationSize, populationBookValue: whole.populationBookValue, sampleSize: o.items.length,
     sampleBookValue: sumMoney(o.items.map((i) => i.bookValue)), sampleAuditedValue: sumMoney(o.items.map((i) => i.auditedValue)),
-    ...figures(r, o), warnings: r.warnings, formulaReferences: VARIABLES_REFERENCES,
+    ...figures(whole.result, { ...o, populationBookValue: whole.populationBookValue }), atActual: whole.figures, warnings: whole.result.warnings, formulaReferences: VARIABLES_REFERENCES,
   };
 }
 
 export function buildStratifiedEvaluation(o: ClassicalPlanInputs & {
   estimator: StratifiedEstimator; confidence: number; sides: Sides; tolerableMisstatement: Money;
-  strata: { label: string; populationSize: number; populationBookValue: Money; items: EvaluatedItem[] }[];
+  strata: { label: string; populationSize: number; populationBookValue: Money; items: EvaluatedItem[] }[]; atActual?: AtActualInput;
 }): StratifiedEvaluationBlock {
-  const r = evaluateStratified({
+  const estimate = evaluateStratified({
     estimator: o.estimator, confidence: o.confidence, sides: o.sides, distribution: o.distribution,
     strata: o.strata.map((st) => ({ populationSize: st.populationSize, populationBookValue: toNumber(st.populationBookValue), sample: st.items.map(pair) })),
   });
+  const remainder = { size: o.strata.reduce((n, st) => n + st.populationSize, 0), bookValue: sumMoney(o.strata.map((st) => st.populationBookValue)) };
+  const whole = addAtActual(estimate, remainder, o.atActual);
   return {
     method: "stratified", estimator: o.estimator, confidence: o.confidence, sides: o.sides, tolerableMisstatement: o.tolerableMisstatement,
-    populationSize: o.strata.reduce((n, st) => n + st.populationSize, 0),
-    populationBookValue: sumMoney(o.strata.map((st) => st.populationBookValue)),
+    populationSize: whole.populationSize,
+    populationBookValue: whole.populationBookValue,
     strata: o.strata.map((st, h) => ({
       number: h + 1, label: st.label, populationSize: st.populationSize, populationBookValue: st.populationBookValue,
       sampleSize: st.items.length, sampleBookValue: sumMoney(st.items.map((i) => i.bookValue)), sampleAuditedValue: sumMoney(st.items.map((i) => i.auditedValue)),
       misstatementsInSample: st.items.filter((i) => decimalToCents(i.bookValue) !== decimalToCents(i.auditedValue)).length,
-      estimatedAuditedValue: money(r.strata[h].estimatedAuditedValue), standardError: money(r.strata[h].standardError),
+      estimatedAuditedValue: money(estimate.strata[h].estimatedAuditedValue), standardError: money(estimate.strata[h].standardError),
     })),
-    ...figures(r, { ...o, populationBookValue: sumMoney(o.strata.map((st) => st.populationBookValue)) }), warnings: r.warnings, formulaReferences: VARIABLES_REFERENCES,
+    ...figures(whole.result, { ...o, populationBookValue: whole.populationBookValue }), atActual: whole.figures, warnings: whole.result.warnings, formulaReferences: VARIABLES_REFERENCES,
   };
 }
 

@@ -23,7 +23,7 @@ export function NonstatisticalEvaluation({ e, currency }: { e: NonstatisticalEva
           { label: "Value", width: 95, align: "right" },
         ]}
         rows={[
-          { cells: ["Items in the sample (outside key items)", "n", String(e.sampleCount)] },
+          { cells: ["Items in the sample with a result (outside key items)", "n", String(e.sampleCount)] },
           { cells: ["Sampled book value", "", m(e.sampleBookValue)] },
           { cells: ["Misstatement found in the sample", "book − audited", m(e.sampleMisstatement)] },
           {
@@ -34,36 +34,26 @@ export function NonstatisticalEvaluation({ e, currency }: { e: NonstatisticalEva
             ],
           },
           { cells: ["Projected misstatement of the remainder", METHOD[e.projection], m(e.projectedMisstatement)] },
-          { cells: [`Key items, at actual (${e.keyItemsCount})`, "examined 100 %", m(e.keyItemsMisstatement)] },
-          ...(e.anomaliesCount > 0
+          { cells: [`Key items, at actual (${e.keyItems.evaluated} of ${e.keyItems.planned} with a result)`, "examined 100 %", m(e.keyItems.misstatement)] },
+          ...(e.anomalies.count > 0
             ? [
                 {
                   cells: [
-                    `Accepted anomalous misstatements, at actual (${e.anomaliesCount})`,
+                    `Accepted anomalous misstatements, at actual (${e.anomalies.count})`,
                     "ISA 530 ¶13",
-                    m(e.anomaliesMisstatement),
+                    m(e.anomalies.misstatement),
                   ],
                 },
               ]
             : []),
           { total: true, cells: ["Total projected misstatement", "", m(e.totalProjected)] },
+          ...(e.comparedAmount !== e.totalProjected ? [{ cells: [`Compared with TM (${e.direction})`, "", m(e.comparedAmount)] }] : []),
           { cells: ["Tolerable misstatement", "TM", m(e.tolerableMisstatement)] },
           { cells: ["Expected misstatement used in planning", "EM", m(e.expectedMisstatement)] },
           { cells: ["“Well below” TM means at most", e.wellBelowBasis, m(e.wellBelowAmount)] },
         ]}
       />
-      <Callout tone={e.verdict === "supports" ? "note" : "warning"}>
-        {e.verdict === "supports"
-          ? "The total projected misstatement is well below tolerable misstatement: the sample supports the recorded amount."
-          : e.verdict === "approaches"
-            ? "The total projected misstatement is below tolerable misstatement but not well below it: the risk that actual misstatement exceeds tolerable misstatement may be unacceptably high."
-            : "The total projected misstatement reaches or exceeds tolerable misstatement: the sampling risk is unacceptably high."}
-      </Callout>
-      <Text style={[s.small, s.soft]}>
-        {
-          "No statistical bound is claimed for a nonstatistical sample: sampling risk is weighed by the auditor's judgement (PCAOB AS 2315.26)."
-        }
-      </Text>
+      <Callout tone={e.supported ? "note" : "warning"}>{e.statement}</Callout>
       {e.responses.length > 0 && (
         <View>
           <SubHead>Usual responses</SubHead>
