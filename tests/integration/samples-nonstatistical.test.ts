@@ -195,15 +195,17 @@ describe("nonstatistical samples", () => {
     const miss = Math.round(Number(misstated.bookValue) * 10) / 100;
     // Ratio method (AS 2315.26; AICPA Audit Guide): misstatement ÷ sampled book × remainder book (17,314.21), plus key items at actual (100.00).
     const projected = Math.round((miss / sampledBook) * 17314.21 * 100) / 100;
-    expect(e.evaluation.kind).toBe("nonstatistical");
-    expect(e.evaluation.projectedMisstatement).toBeCloseTo(projected, 2);
-    expect(e.evaluation.keyItems).toEqual({ count: 3, evaluated: 3, misstatement: 100 });
-    expect(e.projectedMisstatement).toBeCloseTo(projected + 100, 2);
-    expect(e.upperBound).toBeNull(); // no statistical bound is claimed
-    // EM was 0, so any misstatement is above the "well below" amount: the Guide's wording for a projection approaching TM.
-    expect(e.evaluation.verdict).toBe("approaches");
-    expect(e.conclusion).toMatch(/may be unacceptably high/);
-    expect(e.evaluation.responses.length).toBeGreaterThan(2);
+    const b = e.block;
+    expect(b.method).toBe("nonstatistical");
+    expect(Number(b.projectedMisstatement)).toBeCloseTo(projected, 2);
+    expect(b.keyItems).toEqual({ planned: 3, evaluated: 3, misstatement: "100.00" });
+    expect(Number(e.projectedMisstatement)).toBeCloseTo(projected + 100, 2);
+    expect(b).not.toHaveProperty("upperLimit"); // no statistical bound is claimed
+    // EM was 0, so any misstatement is above the "well below" amount: not well below TM, an unacceptably high risk (AS 2315.26).
+    expect(b.verdict).toBe("approaches");
+    expect(b.statement).toMatch(/not well below it/);
+    expect(e.computed).toMatchObject({ status: "not-supported", supported: false, responseNeeded: true });
+    expect(b.responses.length).toBeGreaterThan(2);
     expect(e.warnings.join(" ")).toMatch(/no statistical bound/i);
   });
 
@@ -276,8 +278,8 @@ describe("nonstatistical samples", () => {
       });
     }
     const e = await getEvaluation(staff, engagement, id);
-    expect(e.evaluation.projection).toBe("difference");
-    expect(e.evaluation.projectedMisstatement).toBe(170); // 80 ÷ 8 × 17
+    expect(e.block.projection).toBe("difference");
+    expect(e.block.projectedMisstatement).toBe("170.00"); // 80 ÷ 8 × 17
     expect(e.warnings.join(" ")).toMatch(/cannot be re-performed from a seed/);
 
     // Anomaly: a short justification is refused; staff cannot accept; a manager can; the evaluation then takes it at actual.
@@ -300,14 +302,14 @@ describe("nonstatistical samples", () => {
     expect((await call(acceptance.POST, "POST", { as: staff, params: aParams, body: { confirm: true } })).status).toBe(
       403,
     );
-    expect((await getEvaluation(staff, engagement, id)).evaluation.anomalies.count).toBe(0); // not yet accepted
+    expect((await getEvaluation(staff, engagement, id)).block.anomalies.count).toBe(0); // not yet accepted
     expect(
       (await call(acceptance.POST, "POST", { as: manager, params: aParams, body: { confirm: true } })).status,
     ).toBe(200);
     const withAnomaly = await getEvaluation(staff, engagement, id);
-    expect(withAnomaly.evaluation.projectedMisstatement).toBe(0);
-    expect(withAnomaly.evaluation.anomalies).toEqual({ count: 1, misstatement: 80 });
-    expect(withAnomaly.projectedMisstatement).toBe(80);
+    expect(withAnomaly.block.projectedMisstatement).toBe("0.00");
+    expect(withAnomaly.block.anomalies).toEqual({ count: 1, misstatement: "80.00" });
+    expect(withAnomaly.projectedMisstatement).toBe("80.00");
     expect(await auditCount({ action: "anomaly-accept", sample_id: id })).toBe(1);
 
     const pdf = await callRaw(workpaper.GET, "GET", { as: staff, params: sp(id) });
@@ -323,7 +325,7 @@ describe("nonstatistical samples", () => {
     expect(text).toContain("Credit note raised after the period end"); // the chosen key item's reason
     expect(text).toContain("Haphazard picks (8)");
     expect(text).toContain("Excluded from the projection; added at its actual amount");
-    expect(text).toContain("No statistical bound is claimed");
+    expect(text).toContain("A nonstatistical sample has no statistical bound");
 
     // A later change of the item's result clears the mark and its acceptance.
     const fresh = (await listSampleItems(staff, engagement, id)).find((i) => i.id === target.id)!;
@@ -337,8 +339,8 @@ describe("nonstatistical samples", () => {
       ).status,
     ).toBe(200);
     const cleared = await getEvaluation(staff, engagement, id);
-    expect(cleared.evaluation.anomalies.count).toBe(0);
-    expect(cleared.evaluation.projectedMisstatement).toBeCloseTo(106.25, 2); // 50 ÷ 8 × 17
+    expect(cleared.block.anomalies.count).toBe(0);
+    expect(cleared.block.projectedMisstatement).toBe("106.25"); // 50 ÷ 8 × 17
   });
 
   it("plans stamped with a firm setting that forbids anomalies refuse the mark; the firm's table change applies to new plans only", async () => {
@@ -418,8 +420,10 @@ describe("key items for classical plans (issue 14 §4)", () => {
     }
     const e = await getEvaluation(staff, engagement, id);
     // Difference estimator with no differences in the sample projects 0 on the remainder (Cochran 1977 §6.7); + 100.00 at actual.
-    expect(e.evaluation.result.projectedMisstatement).toBeCloseTo(100, 6);
-    expect(e.evaluation.result.estimatedAuditedValue).toBeCloseTo(37539.96 - 100, 2);
-    expect(e.warnings.join(" ")).toMatch(/Key items add 100.00/);
+    expect(e.block.projectedMisstatement).toBe("100.00");
+    expect(e.block.estimatedAuditedValue).toBe((37539.96 - 100).toFixed(2));
+    expect(e.block.populationBookValue).toBe("37539.96");
+    expect(e.block.atActual).toMatchObject({ remainderSize: 17, keyItems: { count: 3, misstatement: "100.00" }, anomalies: { count: 0 } });
+    expect(e.warnings.join(" ")).toMatch(/Key items and accepted anomalies add 100.00/);
   });
 });
