@@ -27,6 +27,7 @@ export const SIZING_BASES = ["risk-assessment", "confidence-override"] as const;
 /** The assessed risk levels of the assurance-factor table (rows and columns), highest first. */
 export const ASSESSED_RISK_LEVELS = RISK_LEVELS;
 
+/** ISA 530 Appendix 4 (sample selection methods, block selection): the paragraph reference is from memory, not checked against the printed standard. */
 export const BLOCK_SELECTION_REFUSED = "Block selection is not offered: a block of contiguous items is rarely representative, because items next to one another in a population tend to share characteristics that differ from items elsewhere, so a block cannot support a conclusion about the whole (ISA 530, Appendix 4(e)). Choose random, systematic or haphazard selection.";
 
 const keyItemChoice = z.object({
