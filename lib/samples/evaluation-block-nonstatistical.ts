@@ -17,7 +17,7 @@ export const NONSTATISTICAL_RESPONSES = [
 ];
 
 export const NONSTATISTICAL_REFERENCES = [
-  "PCAOB AS 2315.26: project the misstatement found in the sample to the items from which it was selected, add the misstatement of items examined 100 percent, and compare the total with tolerable misstatement; when it approaches or exceeds tolerable misstatement the risk of material misstatement is unacceptably high.",
+  "PCAOB AS 2315.26: project the misstatement found in the sample to the items from which it was selected, add the misstatement of items examined 100 percent, and compare the total with tolerable misstatement, considering sampling risk; when the total is close to tolerable misstatement, the risk that actual misstatement exceeds it may be unacceptably high.",
   "AICPA Audit Guide “Audit Sampling”, nonstatistical sampling: ratio projection (misstatement ÷ sampled book value × remainder book value) or difference projection (misstatement per item × items in the remainder); the total compared with tolerable and with the expected misstatement used in planning.",
   "ISA 530 ¶13 / AU-C 530.13: an anomalous misstatement, once the auditor has a high degree of certainty it is not representative, is excluded from the projection and considered at its actual amount.",
 ];
