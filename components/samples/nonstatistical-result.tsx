@@ -31,15 +31,7 @@ export function NonstatisticalResult({ n }: { n: NonstatisticalEvaluationBlock }
       amt(n.keyItems.misstatement),
       "ns-key-items",
     ],
-    ...(n.anomalies.count > 0
-      ? [
-          [
-            `Accepted anomalous misstatements at actual (${n.anomalies.count})`,
-            amt(n.anomalies.misstatement),
-            "ns-anomalies",
-          ] as [string, React.ReactNode, string],
-        ]
-      : []),
+    [`Accepted anomalous misstatements at actual (${n.anomalies.count})`, amt(n.anomalies.misstatement), "ns-anomalies"],
     ["Total projected misstatement", amt(n.totalProjected), "ns-total"],
     ...(n.comparedAmount !== n.totalProjected ? [[`Compared with tolerable misstatement (${n.direction})`, amt(n.comparedAmount)] as [string, React.ReactNode]] : []),
     ["Tolerable misstatement", amt(n.tolerableMisstatement)],

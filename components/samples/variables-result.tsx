@@ -9,10 +9,10 @@ function atActualRows(v: VariablesEvaluationBlock | StratifiedEvaluationBlock): 
   const a = v.atActual;
   if (!a) return [];
   return [
-    [`Remainder estimated from the sample (${a.remainderSize.toLocaleString("en-US")} items, book value)`, <Amount key="rb" value={a.remainderBookValue} />],
-    ["Remainder: estimated audited value · projected misstatement", <span key="re"><Amount value={a.remainderEstimatedAuditedValue} /> · <Amount value={a.remainderProjectedMisstatement} /></span>],
-    [`Key items at actual (${a.keyItems.count}): book value · misstatement`, <span key="ki"><Amount value={a.keyItems.bookValue} /> · <Amount value={a.keyItems.misstatement} /></span>, "key-items-actual"],
-    ...(a.anomalies.count > 0 ? [[`Accepted anomalies at actual (${a.anomalies.count})`, <Amount key="an" value={a.anomalies.misstatement} />, "anomalies-actual"] as [string, React.ReactNode, string]] : []),
+    [`Remainder estimated from the sample (${a.remainderSize.toLocaleString("en-US")} items): book value`, <Amount key="rb" value={a.remainderBookValue} />],
+    ["Remainder: estimated audited value (Ŷ_r) · projected misstatement", <span key="re"><Amount value={a.remainderEstimatedAuditedValue} /> · <Amount value={a.remainderProjectedMisstatement} /></span>],
+    [`Key items at actual (${a.keyItems.count}): book · audited · misstatement`, <span key="ki"><Amount value={a.keyItems.bookValue} /> · <Amount value={a.keyItems.auditedValue} /> · <Amount value={a.keyItems.misstatement} /></span>, "key-items-actual"],
+    [`Accepted anomalies at actual (${a.anomalies.count}): misstatement`, <Amount key="an" value={a.anomalies.misstatement} />, "anomalies-actual"],
   ];
 }
 

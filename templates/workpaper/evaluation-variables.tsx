@@ -34,8 +34,11 @@ function atActualRows(e: VariablesEvaluationBlock | StratifiedEvaluationBlock, e
   return [
     { cells: [`Remainder (${a.remainderSize.toLocaleString("en-US")} items outside the key items): book value`, "X_r", formatMoney(a.remainderBookValue)] },
     { cells: ["Remainder: estimated audited value", `Ŷ_r, ${ESTIMATE_FORMULA[estimator]} on the remainder`, formatMoney(a.remainderEstimatedAuditedValue)] },
-    { cells: [`Key items at actual (${a.keyItems.count}), audited value`, "examined 100 %", formatMoney(a.keyItems.auditedValue)] },
-    ...(a.anomalies.count > 0 ? [{ cells: [`Accepted anomalies at actual (${a.anomalies.count})`, "misstatement, ISA 530 ¶13", formatMoney(a.anomalies.misstatement)] }] : []),
+    { cells: ["Remainder: projected misstatement", "X_r − Ŷ_r", formatMoney(a.remainderProjectedMisstatement)] },
+    { cells: [`Key items at actual (${a.keyItems.count}): book value`, "examined 100 %", formatMoney(a.keyItems.bookValue)] },
+    { cells: ["Key items: audited value", "", formatMoney(a.keyItems.auditedValue)] },
+    { cells: ["Key items: misstatement", "book − audited", formatMoney(a.keyItems.misstatement)] },
+    { cells: [`Accepted anomalies at actual (${a.anomalies.count})`, "misstatement, ISA 530 ¶13", formatMoney(a.anomalies.misstatement)] },
   ];
 }
 
