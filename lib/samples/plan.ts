@@ -86,7 +86,7 @@ function signSummary(frame: Frame) {
 function planMus(frame: Frame, p: SampleParams, tolerable: number, expected: number, direction: PlanDirection): SamplePlan {
   const s = signSummary(frame);
   const bookValue = Number(money(s.positiveCents));
-  const r = musSampleSize({ bookValue, tolerableMisstatement: tolerable, expectedMisstatement: expected, confidence: p.confidence });
+  const r = musSampleSize({ bookValue, tolerableMisstatement: tolerable, expectedMisstatement: expected, confidence: p.confidence, method: "expansion-factor" });
   const chosenSize = p.sampleSize ?? r.sampleSize;
   const interval = chosenSize === r.sampleSize ? r.interval : Math.floor(bookValue / chosenSize);
   if (interval < 1) throw fieldError("sampleSize", "the sampling interval would be below one currency unit", "Too large for this population");
@@ -99,7 +99,7 @@ function planMus(frame: Frame, p: SampleParams, tolerable: number, expected: num
     excluded: { zeroCount: s.zeroCount, negativeCount: s.negativeCount, negativeTotal: money(s.negativeCents) },
     computedSize: r.sampleSize, chosenSize,
     formula: "n = ⌈BV × RF / (TM − EM × EF)⌉; sampling interval J = ⌊BV / n⌋ (AICPA Audit Guide “Audit Sampling”, monetary-unit sampling)",
-    inputs: { BV: money(s.positiveCents), TM: tolerable.toFixed(2), EM: expected.toFixed(2), confidence: p.confidence, RF: Number(r.reliabilityFactor.toFixed(6)), EF: r.expansionFactor },
+    inputs: { BV: money(s.positiveCents), TM: tolerable.toFixed(2), EM: expected.toFixed(2), confidence: p.confidence, RF: Number(r.reliabilityFactor.toFixed(6)), EF: r.expansionFactor ?? 1 },
     interval, topStratumThreshold: threshold, topStratum: { count: topCount, total: money(topCents) }, warnings: direction === "overstatement" ? [] : [MUS_UNDERSTATEMENT_CAUTION],
   };
 }
