@@ -8,15 +8,29 @@ import { notFound } from "@/lib/errors";
 import type { PreviewPlan } from "@/lib/validation/sample";
 import { loadFrame } from "./population-frame";
 import { computePlan } from "./plan";
+import { loadPriorSpread } from "./plan-spread";
+import { getMethodologyByFirmId } from "@/lib/data/firm-methodology";
+import type { Estimator } from "@/lib/sampling";
 import { evaluateSample } from "./evaluate";
 import { getReviewState } from "@/lib/review/review-state";
 
-/** The plan for a population and parameters, with the engagement's performance materiality as the default TM. */
+/**
+ * The plan for a population and parameters, with the engagement's performance materiality as the
+ * default TM, sized under the firm's current methodology — returned so that saving stamps the very
+ * settings the size was computed under (MUS size method and factor mode, the hypergeometric threshold,
+ * the control-frequency table).
+ */
 export async function planFor(db: Knex, { engagementId, input }: { engagementId: number; input: PreviewPlan }) {
   const [engagement, population] = await Promise.all([getEngagementById(db, { engagementId }), getPopulationById(db, { engagementId, populationId: input.populationId })]);
   if (!engagement) throw notFound("No such engagement");
-  const frame = await loadFrame(db, { populationId: population.id });
-  return { plan: computePlan(frame, input.params, engagement.performanceMateriality, input.direction ?? "both"), population, engagement };
+  const [frame, methodology] = await Promise.all([loadFrame(db, { populationId: population.id }), getMethodologyByFirmId(db, { firmId: engagement.firmId })]);
+  const params = input.params;
+  const classical = params.method === "random" || params.method === "systematic";
+  const priorSpread = classical && params.spreadBasis === "prior-sample" && params.spreadSampleId !== undefined
+    ? await loadPriorSpread(db, { engagementId, sampleId: params.spreadSampleId, estimator: (params.estimator ?? "mean-per-unit") as Estimator })
+    : undefined;
+  const plan = computePlan(frame, params, engagement.performanceMateriality, { methodology: methodology.settings, priorSpread, direction: input.direction ?? "both" });
+  return { plan, population, engagement, methodology };
 }
 
 export async function loadSampleView(db: Knex, { engagementId, sampleId }: { engagementId: number; sampleId: number }) {

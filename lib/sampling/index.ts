@@ -8,6 +8,8 @@ export { selectPps, type PpsHit, type PpsSelection } from "./select-pps";
 export { selectStratifiedRandom } from "./select-stratified";
 export { attributeSampleSize, type AttributeSampleSize } from "./sizes/attribute-sample-size";
 export { hypergeometricCdf } from "./hypergeometric";
+export { bookSignRisk, type BookSignRisk } from "./book-sign-risk";
+export { planningSpread, type PlanningSpread } from "./planning-spread";
 export { musSampleSize, EXPANSION_FACTORS, MUS_SIZE_METHODS, type MusSizeMethod, type MusSampleSize } from "./sizes/mus-sample-size";
 export { musConfidenceFactor } from "./sizes/mus-confidence-factor";
 export { variablesSampleSize } from "./sizes/variables-sample-size";

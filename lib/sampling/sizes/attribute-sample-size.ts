@@ -2,6 +2,7 @@
  * Attribute (tests of controls) sample size: binomial model, or hypergeometric for a stated population size.
  */
 import { smallestHypergeometricSize } from "../hypergeometric";
+import { EngineInputError } from "../errors";
 import { binomialCdf } from "../quantiles";
 import { requireFiniteNumber, requireInteger, requireObject, requireOpenFraction } from "../validate";
 import { EngineInputError } from "../errors";
@@ -65,7 +66,11 @@ export function attributeSampleSize(o: { tolerableRate: number; expectedRate: nu
     const found = smallestHypergeometricSize({ N, M, risk, allowed });
     if (found === null) {
       throw new EngineInputError(
+<<<<<<< HEAD
         "populationSize",
+=======
+        "tolerableRate",
+>>>>>>> 639178a (Planning follows the firm's methodology: MUS size method and factor mode, hypergeometric attribute plans under the firm's threshold, control-frequency plans printing the row used, an expected standard deviation per estimator with its basis (book values, an earlier sample's s_d/s_e, or an entered figure with a reason), zero/negative book-value warnings for ratio and regression plans)
         `populationSize (${N}) with tolerableRate ${tolerableRate} (${M} deviations assumed) has no sample size meeting confidence ${confidence} with expectedRate ${expectedRate}: raise tolerableRate or lower expectedRate`,
       );
     }

@@ -4,6 +4,7 @@
  */
 import { roundUpToCents } from "../poisson-factor";
 import { gammaQuantile } from "../quantiles";
+import { EngineInputError } from "../errors";
 import { FACTOR_MODES, type FactorMode } from "../types";
 import { requireFiniteNumber, requireObject, requireOneOf, requireOpenFraction } from "../validate";
 import { EngineInputError } from "../errors";

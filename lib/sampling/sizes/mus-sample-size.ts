@@ -2,6 +2,7 @@
  * Monetary-unit sample size: confidence factors (current Guide) or expansion factors (older Guide).
  */
 import { poissonFactor } from "../poisson-factor";
+import { EngineInputError } from "../errors";
 import { FACTOR_MODES, type FactorMode } from "../types";
 import { requireObject, requireOneOf, requireOpenFraction, requirePositive } from "../validate";
 import { musConfidenceFactor } from "./mus-confidence-factor";
@@ -123,7 +124,11 @@ function byExpansionFactor(confidence: number, expected: number, tolerable: numb
   const headroom = tolerable - expected * expansionFactor;
   if (!(headroom > 0)) {
     throw new EngineInputError(
+<<<<<<< HEAD
       "tolerableMisstatement",
+=======
+      "expectedMisstatement",
+>>>>>>> 639178a (Planning follows the firm's methodology: MUS size method and factor mode, hypergeometric attribute plans under the firm's threshold, control-frequency plans printing the row used, an expected standard deviation per estimator with its basis (book values, an earlier sample's s_d/s_e, or an entered figure with a reason), zero/negative book-value warnings for ratio and regression plans)
       `tolerableMisstatement (${tolerable}) must exceed expectedMisstatement × expansion factor (${expected} × ${expansionFactor} = ${expected * expansionFactor})`,
     );
   }
