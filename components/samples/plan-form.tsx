@@ -13,6 +13,7 @@ import { Card } from "@/components/ui/card";
 import { api, ApiError } from "@/components/ui/api";
 import { DIRECTION_LABELS, METHOD_LABELS } from "./labels";
 import { PlanParameters } from "./plan-parameters";
+import type { EarlierSample } from "./plan-spread-fields";
 import { PopulationPicker } from "./population-picker";
 import { SizePanel } from "./size-panel";
 import { SizeChoice } from "./size-choice";
@@ -29,10 +30,12 @@ interface Props {
   /** When editing a plan not yet drawn. */
   editing?: { sampleId: number; values: PlanFormIn };
   initialPopulationId?: number;
+  /** Drawn samples of this engagement with audited values, for a planning spread from their results. */
+  earlierSamples?: EarlierSample[];
 }
 
 /** Plans a sample: what is tested, the method and its parameters, with the size computed live by the server. */
-export function PlanForm({ engagementId, currency, performanceMateriality, populations, editing, initialPopulationId }: Props) {
+export function PlanForm({ engagementId, currency, performanceMateriality, populations, editing, initialPopulationId, earlierSamples }: Props) {
   const router = useRouter();
   const [failure, setFailure] = useState<string | null>(null);
   const form = useForm<PlanFormIn, unknown, PlanFormOut>({ resolver, defaultValues: editing?.values ?? defaultPlanValues(performanceMateriality, initialPopulationId) });
@@ -103,7 +106,7 @@ export function PlanForm({ engagementId, currency, performanceMateriality, popul
               </Select>
             )}
           </Field>
-          <PlanParameters form={form} plan={preview.plan} currency={currency} performanceMateriality={performanceMateriality} />
+          <PlanParameters form={form} plan={preview.plan} currency={currency} performanceMateriality={performanceMateriality} earlierSamples={earlierSamples} />
         </Card>
         <Card title="Size to draw">
           <SizeChoice form={form} plan={preview.plan} />

@@ -38,12 +38,13 @@ export function defaultPlanValues(performanceMateriality: string, populationId?:
     name: "", objective: "", assertion: "", direction: "overstatement",
     params: {
       method: "mus", estimator: undefined, confidence: "95", tolerableMisstatement: performanceMateriality, expectedMisstatement: "0.00",
-      riskOfIncorrectRejection: "10", tolerableRate: "5", expectedRate: "0", topStratumThreshold: "", factorMode: "exact", attributePlan: "fixed",
+      riskOfIncorrectRejection: "10", tolerableRate: "5", expectedRate: "0", topStratumThreshold: "", attributePlan: "fixed", attributeMode: "statistical",
       strataBounds: undefined, sampleSize: "", sizeReason: "",
     },
   };
 }
 
+const SPREAD_FIELDS = ["spreadBasis", "spreadSampleId", "expectedStdDev", "spreadReason"];
 const blank = (v: unknown) => textOf(v).trim() === "";
 
 /**
@@ -56,11 +57,11 @@ export function toRequest(values: PlanFormIn): PlanFormIn {
   for (const [k, v] of Object.entries(p)) if (blank(v)) delete p[k];
   const method = p.method;
   const keep: Record<string, string[]> = {
-    mus: ["confidence", "tolerableMisstatement", "expectedMisstatement", "topStratumThreshold", "factorMode"],
-    attribute: ["confidence", "tolerableRate", "expectedRate", "attributePlan"],
+    mus: ["confidence", "tolerableMisstatement", "expectedMisstatement", "topStratumThreshold"],
+    attribute: p.attributeMode === "control-frequency" ? ["attributeMode", "controlFrequency"] : ["confidence", "tolerableRate", "expectedRate", "attributePlan", "attributeMode"],
     stratified: ["estimator", "confidence", "tolerableMisstatement", "expectedMisstatement", "riskOfIncorrectRejection", "strataBounds"],
-    random: ["estimator", "confidence", "tolerableMisstatement", "expectedMisstatement", "riskOfIncorrectRejection"],
-    systematic: ["estimator", "confidence", "tolerableMisstatement", "expectedMisstatement", "riskOfIncorrectRejection"],
+    random: ["estimator", "confidence", "tolerableMisstatement", "expectedMisstatement", "riskOfIncorrectRejection", ...SPREAD_FIELDS],
+    systematic: ["estimator", "confidence", "tolerableMisstatement", "expectedMisstatement", "riskOfIncorrectRejection", ...SPREAD_FIELDS],
   };
   const allowed = new Set(["method", "sampleSize", "sizeReason", ...(keep[String(method)] ?? [])]);
   for (const k of Object.keys(p)) if (!allowed.has(k)) delete p[k];
@@ -77,6 +78,8 @@ export function fromStored(values: PlanFormOut): PlanFormIn {
       ...p, confidence: fractionToPercent(p.confidence), riskOfIncorrectRejection: fractionToPercent(p.riskOfIncorrectRejection),
       tolerableRate: fractionToPercent(p.tolerableRate), expectedRate: fractionToPercent(p.expectedRate),
       topStratumThreshold: p.topStratumThreshold ?? "", sampleSize: p.sampleSize ?? "", sizeReason: p.sizeReason ?? "",
+      attributeMode: p.attributeMode ?? "statistical", spreadBasis: p.spreadBasis ?? undefined, spreadSampleId: p.spreadSampleId ?? "",
+      expectedStdDev: p.expectedStdDev ?? "", spreadReason: p.spreadReason ?? "",
     },
   };
 }

@@ -3,13 +3,9 @@ import { attributeSampleSize } from "@/lib/sampling";
 import { centsToDecimal } from "@/lib/money";
 import { fieldError } from "@/lib/errors";
 import type { MethodologySettings } from "@/lib/validation/methodology";
-import type { SampleParams } from "@/lib/validation/sample";
+import { CONTROL_FREQUENCY_LABELS as FREQUENCY_LABELS, type SampleParams } from "@/lib/validation/sample";
 import type { Frame } from "./population-frame";
 import type { SamplePlan } from "./plan";
-
-export const FREQUENCY_LABELS: Record<MethodologySettings["controlFrequencies"][number]["frequency"], string> = {
-  annual: "Annual", quarterly: "Quarterly", monthly: "Monthly", weekly: "Weekly", daily: "Daily", "several-times-daily": "Several times a day",
-};
 
 /** An attribute plan: by the firm's control-frequency table, or statistically (hypergeometric below the firm's threshold). */
 export function planAttribute(frame: Frame, p: SampleParams, methodology: MethodologySettings): SamplePlan {

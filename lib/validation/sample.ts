@@ -14,6 +14,9 @@ export const SPREAD_BASES = ["book-values", "prior-sample", "entered"] as const;
 export type SpreadBasis = (typeof SPREAD_BASES)[number];
 /** Attribute plans: sized statistically, or from the firm's control-frequency table for manual controls. */
 export const ATTRIBUTE_MODES = ["statistical", "control-frequency"] as const;
+export const CONTROL_FREQUENCY_LABELS: Record<(typeof CONTROL_FREQUENCIES)[number], string> = {
+  annual: "Annual", quarterly: "Quarterly", monthly: "Monthly", weekly: "Weekly", daily: "Daily", "several-times-daily": "Several times a day",
+};
 
 export const METHOD_LABELS: Record<SampleMethod, string> = {
   mus: "Monetary-unit (PPS), Stringer bound",

@@ -27,7 +27,12 @@ const SYMBOLS: Record<string, { meaning: string; kind: "money" | "rate" | "count
   "risk of incorrect acceptance": { meaning: "β, one-sided", kind: "rate" }, "risk of incorrect rejection": { meaning: "α, two-sided", kind: "rate" },
   TDR: { meaning: "Tolerable deviation rate", kind: "rate" }, EDR: { meaning: "Expected deviation rate", kind: "rate" },
   "allowed deviations": { meaning: "Deviations the size allows", kind: "count" }, strata: { meaning: "Number of strata", kind: "count" },
+  R: { meaning: "Confidence factor for EM/TM (gamma root)", kind: "factor" }, "EM/TM": { meaning: "Expected over tolerable misstatement", kind: "factor" },
+  M: { meaning: "Deviations assumed in the population, ⌈TDR × N⌉", kind: "count" }, s_d: { meaning: "Planning standard deviation of the differences", kind: "money" },
+  s_e: { meaning: "Planning standard deviation of the residuals", kind: "money" }, "minimum sample size": { meaning: "Firm control-frequency table", kind: "count" },
+  "occurrences in the population": { meaning: "Items in the population", kind: "count" },
 };
+const SIZE_METHODS = { "confidence-factor": "Confidence factors (AICPA Guide, 2008 and later)", "expansion-factor": "Expansion factors (older Guide presentation, firm methodology)" } as const;
 
 /** Everything the workpaper prints, from the database, with the evaluation computed by the engine. */
 export async function assembleWorkpaper(db: Knex, { engagementId, sampleId, draft, lock }: { engagementId: number; sampleId: number; draft: boolean; lock?: { lockedByName: string; role: string; lockedAt: Date; reference: string } }): Promise<WorkpaperData> {
@@ -100,13 +105,19 @@ function toWorkpaperItem(i: SampleItemRecord): WorkpaperItem {
 function planBlock(sample: SampleView["sample"], tolerable: string): PlanBlock {
   const p = sample.params, plan = sample.plan;
   const parameters: PlanBlock["parameters"] = [{ label: "Confidence", kind: "rate", value: pct(p.confidence) }];
-  if (sample.method === "attribute") {
+  if (sample.method === "attribute" && plan.controlFrequencyRow) {
+    parameters.splice(0, parameters.length, { label: "Size set by", kind: "text", value: `Firm control-frequency table: ${plan.inputs.frequency} → ${plan.controlFrequencyRow.minimumSampleSize} items` });
+  } else if (sample.method === "attribute") {
     parameters.push({ label: "Tolerable deviation rate", kind: "rate", value: pct(p.tolerableRate ?? 0) }, { label: "Expected deviation rate", kind: "rate", value: pct(p.expectedRate) });
+    if (plan.model) parameters.push({ label: "Distribution", kind: "text", value: plan.model === "hypergeometric" ? `Hypergeometric (population of ${plan.frameSize} items)` : "Binomial" });
   } else {
     parameters.push({ label: "Tolerable misstatement", kind: "money", value: tolerable }, { label: "Expected misstatement", kind: "money", value: p.expectedMisstatement });
     if (sample.method !== "mus") parameters.push({ label: "Risk of incorrect rejection", kind: "rate", value: pct(p.riskOfIncorrectRejection) });
     else parameters.push({ label: "Factors", kind: "text", value: p.factorMode === "table" ? "table (rounded up to 2 decimals)" : "exact (gamma quantile)" });
+    if (plan.sizeMethod) parameters.push({ label: "Size method", kind: "text", value: SIZE_METHODS[plan.sizeMethod] });
+    if (plan.spread) parameters.push({ label: "Expected standard deviation", kind: "text", value: plan.spread.detail });
   }
+  for (const note of plan.notes ?? []) parameters.push({ label: "Note", kind: "text", value: note });
   return {
     method: sample.method, estimator: (p.estimator ?? null), parameters, computedSize: plan.computedSize, chosenSize: plan.chosenSize, sizeReason: sample.sizeReason,
     formula: { text: plan.formula, inputs: Object.entries(plan.inputs).map(([symbol, value]) => ({ symbol, meaning: SYMBOLS[symbol]?.meaning ?? symbol, kind: SYMBOLS[symbol]?.kind ?? "text", value: String(value) })), substituted: null, source: plan.formula.match(/\(([^()]*)\)\s*$/)?.[1] ?? "" },

@@ -66,11 +66,7 @@ export function attributeSampleSize(o: { tolerableRate: number; expectedRate: nu
     const found = smallestHypergeometricSize({ N, M, risk, allowed });
     if (found === null) {
       throw new EngineInputError(
-<<<<<<< HEAD
-        "populationSize",
-=======
         "tolerableRate",
->>>>>>> 639178a (Planning follows the firm's methodology: MUS size method and factor mode, hypergeometric attribute plans under the firm's threshold, control-frequency plans printing the row used, an expected standard deviation per estimator with its basis (book values, an earlier sample's s_d/s_e, or an entered figure with a reason), zero/negative book-value warnings for ratio and regression plans)
         `populationSize (${N}) with tolerableRate ${tolerableRate} (${M} deviations assumed) has no sample size meeting confidence ${confidence} with expectedRate ${expectedRate}: raise tolerableRate or lower expectedRate`,
       );
     }

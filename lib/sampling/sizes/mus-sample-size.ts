@@ -124,11 +124,7 @@ function byExpansionFactor(confidence: number, expected: number, tolerable: numb
   const headroom = tolerable - expected * expansionFactor;
   if (!(headroom > 0)) {
     throw new EngineInputError(
-<<<<<<< HEAD
       "tolerableMisstatement",
-=======
-      "expectedMisstatement",
->>>>>>> 639178a (Planning follows the firm's methodology: MUS size method and factor mode, hypergeometric attribute plans under the firm's threshold, control-frequency plans printing the row used, an expected standard deviation per estimator with its basis (book values, an earlier sample's s_d/s_e, or an entered figure with a reason), zero/negative book-value warnings for ratio and regression plans)
       `tolerableMisstatement (${tolerable}) must exceed expectedMisstatement × expansion factor (${expected} × ${expansionFactor} = ${expected * expansionFactor})`,
     );
   }
