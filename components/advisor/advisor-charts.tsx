@@ -3,6 +3,7 @@ import { ADVISED_ESTIMATOR_LABELS } from "@/lib/sampling/advise";
 
 export const ESTIMATOR_COLOURS: Record<AdvisedEstimator, string> = {
   "mean-per-unit": "#55606e", difference: "#24663f", ratio: "#c98a12", regression: "#6b4f9e", stringer: "#b5432a",
+  "hartley-ross": "#2f6f8f", "jackknife-ratio": "#8a6d1f", "beale-ratio": "#a0522d", "tin-ratio": "#4d7a6a",
 };
 
 const compact = (v: number) => {
@@ -11,8 +12,12 @@ const compact = (v: number) => {
   return v < 0 ? `−${s}` : s;
 };
 
-/** Distribution of one estimator's estimates over the trials, with the true audited total marked. */
-export function EstimateHistogram({ estimator, bins, truth, from, to }: { estimator: AdvisedEstimator; bins: HistogramBin[]; truth: number; from: number; to: number }) {
+/**
+ * Distribution of one estimator's estimates over the trials, with the true audited total marked; with
+ * `mean` (the zoomed view, on the estimator's own range) its mean estimate is marked too, so bias
+ * (the gap between the two lines) and spread (the width) can be seen apart.
+ */
+export function EstimateHistogram({ estimator, bins, truth, from, to, mean }: { estimator: AdvisedEstimator; bins: HistogramBin[]; truth: number; from: number; to: number; mean?: number }) {
   const W = 260, H = 120, PAD = 18;
   const max = Math.max(1, ...bins.map((b) => b.count));
   const span = to - from || 1;
@@ -30,7 +35,13 @@ export function EstimateHistogram({ estimator, bins, truth, from, to }: { estima
         })}
         <line x1={PAD} x2={W - PAD} y1={H - 18} y2={H - 18} stroke="#d9d4c7" />
         <line x1={x(truth)} x2={x(truth)} y1={8} y2={H - 18} stroke="#1f2328" strokeWidth={1.5} strokeDasharray="3 2" />
-        <text x={x(truth)} y={7} textAnchor="middle" fontSize="9" className="fill-ink">true {compact(truth)}</text>
+        <text x={x(truth)} y={7} textAnchor={mean !== undefined && mean < truth ? "start" : mean !== undefined ? "end" : "middle"} fontSize="9" className="fill-ink">true {compact(truth)}</text>
+        {mean !== undefined && (
+          <g>
+            <line x1={x(mean)} x2={x(mean)} y1={16} y2={H - 18} stroke={ESTIMATOR_COLOURS[estimator]} strokeWidth={1.5} />
+            <text x={x(mean)} y={24} textAnchor={mean < truth ? "end" : "start"} fontSize="9" fill={ESTIMATOR_COLOURS[estimator]}>mean {compact(mean)}</text>
+          </g>
+        )}
         <text x={PAD} y={H - 5} fontSize="9" className="fill-ink-faint" fontFamily="IBM Plex Mono, monospace">{compact(from)}</text>
         <text x={W - PAD} y={H - 5} textAnchor="end" fontSize="9" className="fill-ink-faint" fontFamily="IBM Plex Mono, monospace">{compact(to)}</text>
       </svg>

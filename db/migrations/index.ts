@@ -10,6 +10,7 @@ import * as m0008 from "./20261202_0008_advisor_runs";
 import * as m0009 from "./20261202_0009_client_requests";
 import * as m0010 from "./20261203_0010_firm_methodology";
 import * as m0011 from "./20261203_0011_auditor_conclusion";
+import * as m0012 from "./20261203_0012_advisor_rationale_reason";
 import * as m0014 from "./20261203_0014_misstatements";
 
 type Migration = { up(knex: Knex): Promise<void>; down(knex: Knex): Promise<void> };
@@ -27,6 +28,7 @@ const migrations: Record<string, Migration> = {
   "20261202_0009_client_requests": m0009,
   "20261203_0010_firm_methodology": m0010,
   "20261203_0011_auditor_conclusion": m0011,
+  "20261203_0012_advisor_rationale_reason": m0012,
   "20261203_0014_misstatements": m0014,
 };
 

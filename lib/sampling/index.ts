@@ -21,10 +21,11 @@ export { evaluateMus, MUS_MIN_CONFIDENCE, MUS_CONFIDENCE_MESSAGE, type BoundSide
 export { evaluateAttributes, type AttributeEvaluation } from "./evaluate-attributes";
 export { EngineInputError } from "./errors";
 export type { SampledItem, Estimator, StratifiedEstimator, Sides, FactorMode, VariablesEvaluation } from "./types";
-export { simulateEstimators, type EstimatorPerformance, type HistogramBin } from "./simulate";
+export { simulateEstimators, SIMULATED_ESTIMATORS, type EstimatorPerformance, type HistogramBin, type SimulatedEstimator } from "./simulate";
+export { correctedRatioEstimates, CORRECTED_RATIO_ESTIMATORS, type CorrectedRatioEstimator } from "./ratio-corrected";
 export { simulateStringer, type StringerPerformance } from "./simulate-stringer";
 export { assumeAuditedValues, observedTaintings, TAINTING_PATTERNS, type MisstatementScenario, type TaintingPattern } from "./scenario";
-export { recommendEstimator, ADVISED_ESTIMATOR_LABELS, FEW_DIFFERENCES, type AdvisedEstimator, type AdvisorCell, type Recommendation, type Verdict } from "./advise";
+export { recommendEstimator, ADVISED_ESTIMATOR_LABELS, FEW_DIFFERENCES, type AdvisedEstimator, type AdvisorCell, type Recommendation, type Verdict, isComparisonEstimator } from "./advise";
 export { classicalDecision, type ClassicalDecision } from "./classical-decision";
 export { twoStageAttributePlan, evaluateTwoStageAttributes, twoStageRisk, type TwoStageAttributePlan, type TwoStageEvaluation } from "./two-stage-attributes";
 export { satterthwaite, SMALL_STRATUM } from "./evaluate-stratified";

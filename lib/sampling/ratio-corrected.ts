@@ -10,6 +10,7 @@ import { toCents } from "./money";
 import type { SampledItem } from "./types";
 import { estimateTotal } from "./variables-core";
 import { requireArray, requireInteger, requireObject, requirePositive } from "./validate";
+import { EngineInputError } from "./errors";
 
 export type CorrectedRatioEstimator = "hartley-ross" | "jackknife-ratio" | "beale-ratio" | "tin-ratio";
 export const CORRECTED_RATIO_ESTIMATORS: readonly CorrectedRatioEstimator[] = ["hartley-ross", "jackknife-ratio", "beale-ratio", "tin-ratio"];
@@ -91,7 +92,7 @@ export function correctedRatioTotal(kind: CorrectedRatioEstimator, m: PairedMome
 export function correctedRatioEstimates(o: { sample: SampledItem[]; populationSize: number; populationBookValue: number }): Record<CorrectedRatioEstimator | "ratio", { estimate: number; standardError: number } | null> {
   requireObject("options", o);
   const sample = requireArray<SampledItem>("sample", o.sample);
-  if (sample.length < 2) throw new RangeError(`sample must hold at least 2 items (got ${sample.length})`);
+  if (sample.length < 2) throw new EngineInputError("sample", `sample must hold at least 2 items (got ${sample.length})`);
   const N = requireInteger("populationSize", o.populationSize, sample.length, 2 ** 31 - 1);
   const X = toCents("populationBookValue", requirePositive("populationBookValue", o.populationBookValue));
   const x = Float64Array.from(sample, (s, i) => toCents(`sample[${i}].bookValue`, s.bookValue));

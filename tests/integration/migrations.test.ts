@@ -30,5 +30,7 @@ describe("migrations", () => {
     // 0011: the auditor's conclusion and response live beside the sample's sign-offs.
     const [conclusionCols] = await db.raw("SHOW COLUMNS FROM samples WHERE Field LIKE 'auditor_%'");
     expect((conclusionCols as { Field: string }[]).map((c) => c.Field).sort()).toEqual(["auditor_conclusion", "auditor_conclusion_at", "auditor_conclusion_by", "auditor_conclusion_role", "auditor_responses_json"]);
+    const [reason] = await db.raw("SHOW COLUMNS FROM samples WHERE Field = 'advisor_run_reason'"); // 0012
+    expect(reason[0].Type).toBe("text");
   });
 });
