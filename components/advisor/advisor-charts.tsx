@@ -28,7 +28,7 @@ export function EstimateHistogram({ estimator, bins, truth, from, to, mean }: { 
       <figcaption className="mb-1 flex items-center gap-1.5 text-xs font-medium text-ink">
         <span aria-hidden className="inline-block h-2.5 w-2.5 rounded-sm" style={{ background: ESTIMATOR_COLOURS[estimator] }} />{label}
       </figcaption>
-      <svg viewBox={`0 0 ${W} ${H}`} className="w-full" role="img" aria-label={`${label}: histogram of estimated audited totals from ${compact(bins[0]?.from ?? 0)} to ${compact(bins.at(-1)?.to ?? 0)}; true value ${compact(truth)}`}>
+      <svg viewBox={`0 0 ${W} ${H}`} className="w-full" role="img" aria-label={`${mean === undefined ? "" : "Zoomed, own scale: "}${label}: histogram of estimated audited totals from ${compact(bins[0]?.from ?? 0)} to ${compact(bins.at(-1)?.to ?? 0)}; true value ${compact(truth)}${mean === undefined ? "" : `; mean estimate ${compact(mean)}`}`}>
         {bins.map((b, i) => {
           const h = (b.count / max) * (H - 34);
           return <rect key={i} x={x(b.from)} y={H - 18 - h} width={Math.max(1, x(b.to) - x(b.from) - 1)} height={h} fill={ESTIMATOR_COLOURS[estimator]} opacity={0.8} />;

@@ -40,7 +40,7 @@ test("a senior runs the estimator advisor on the demo ledger, reads the recommen
   await expect(advisor.recommendation()).toContainText("(for comparison)");
   // The zoom shows one estimator on its own scale with the true total and its mean marked.
   await advisor.root.getByRole("radio", { name: "Ratio", exact: true }).check();
-  await expect(advisor.root.getByTestId("estimate-zoom").getByRole("img", { name: /^Ratio: histogram/ })).toBeVisible();
+  await expect(advisor.root.getByTestId("estimate-zoom").getByRole("img", { name: /^Zoomed, own scale: Ratio: histogram .*; mean estimate / })).toBeVisible();
   await expect(advisor.root.getByTestId("estimate-zoom").getByText(/^mean /)).toBeVisible();
   await expect(advisor.root.getByRole("img", { name: /^RMSE against sample size/ })).toBeVisible();
   await expect(advisor.root.getByRole("img", { name: /^Coverage against sample size/ })).toBeVisible();
