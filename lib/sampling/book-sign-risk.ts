@@ -41,14 +41,14 @@ export function bookSignRisk(o: { bookValues: ArrayLike<number>; sampleSize: num
   const tolerable = o.tolerableMisstatement === undefined ? undefined : requirePositive("tolerableMisstatement", o.tolerableMisstatement);
   let zeroCount = 0, negativeCount = 0, negativeTotal = 0, sum = 0;
   for (let i = 0; i < N; i++) {
-    const v = values[i];
+    const v = values[i]!;
     sum += v;
     if (v === 0) zeroCount++;
     else if (v < 0) { negativeCount++; negativeTotal += v; }
   }
   const mean = N > 0 ? sum / N : 0;
   let squares = 0;
-  for (let i = 0; i < N; i++) squares += (values[i] - mean) ** 2;
+  for (let i = 0; i < N; i++) squares += (values[i]! - mean) ** 2;
   const sd = N > 1 ? Math.sqrt(squares / (N - 1)) : 0;
   const standardError = sd * Math.sqrt(Math.max(0, 1 - n / N) / n);
   const nonPositive = zeroCount + negativeCount;

@@ -30,9 +30,10 @@ export function ratioItemStats(x: ArrayLike<number>, y: ArrayLike<number>, idx: 
   const R = sumY / sumX;
   let ratios = 0, shifted = 0, shiftedSquares = 0;
   for (let j = 0; j < n; j++) {
-    const i = idx[j];
-    ratios += y[i] / x[i];
-    const loo = (sumY - y[i]) / (sumX - x[i]) - R; // shifted by R̂ to keep the squares well conditioned
+    const i = idx[j]!;
+    const xi = x[i]!, yi = y[i]!;
+    ratios += yi / xi;
+    const loo = (sumY - yi) / (sumX - xi) - R; // shifted by R̂ to keep the squares well conditioned
     shifted += loo;
     shiftedSquares += loo * loo;
   }

@@ -5,7 +5,6 @@ import { smallestHypergeometricSize } from "../hypergeometric";
 import { EngineInputError } from "../errors";
 import { binomialCdf } from "../quantiles";
 import { requireFiniteNumber, requireInteger, requireObject, requireOpenFraction } from "../validate";
-import { EngineInputError } from "../errors";
 
 /** Search limit: sizes beyond this are not practical audit samples. */
 export const MAX_ATTRIBUTE_SAMPLE_SIZE = 100000;

@@ -7,7 +7,6 @@ import { gammaQuantile } from "../quantiles";
 import { EngineInputError } from "../errors";
 import { FACTOR_MODES, type FactorMode } from "../types";
 import { requireFiniteNumber, requireObject, requireOneOf, requireOpenFraction } from "../validate";
-import { EngineInputError } from "../errors";
 
 /** Above this R no practical MUS sample exists (n = R·BV/TM would exceed a million units per TM). */
 export const MAX_CONFIDENCE_FACTOR = 1e6;

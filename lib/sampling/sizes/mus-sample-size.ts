@@ -6,7 +6,6 @@ import { EngineInputError } from "../errors";
 import { FACTOR_MODES, type FactorMode } from "../types";
 import { requireObject, requireOneOf, requireOpenFraction, requirePositive } from "../validate";
 import { musConfidenceFactor } from "./mus-confidence-factor";
-import { EngineInputError } from "../errors";
 
 /**
  * Expansion factors for expected misstatement by confidence (1 − risk of incorrect acceptance),
