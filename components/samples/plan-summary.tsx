@@ -3,6 +3,7 @@ import type { SampleRecord } from "@/lib/data/samples";
 import { Amount } from "@/components/ui/amount";
 import { SizePanel } from "./size-panel";
 import { DIRECTION_LABELS, ESTIMATOR_LABELS, formatPercent, METHOD_LABELS } from "./labels";
+import { factorModeOfSample } from "@/lib/samples/methodology";
 
 /** The plan as recorded: what is tested, the parameters, the size and how it was computed. */
 export function PlanSummary({ sample, currency, performanceMateriality, editHref }: { sample: SampleRecord; currency: string; performanceMateriality: string; editHref: string | null }) {
@@ -29,7 +30,7 @@ export function PlanSummary({ sample, currency, performanceMateriality, editHref
   }
   if (sample.method === "mus") facts.push(["Limits compared with TM", sample.methodology.musLimits === "gross" ? "Gross (firm methodology at planning)" : "Net of the other direction's projected misstatement (firm methodology at planning)"]);
   if (sample.plan.twoStage) facts.push(["Plan", `Two-stage: ${sample.plan.twoStage.firstStageSize} then, after exactly one deviation, ${sample.plan.twoStage.secondStageSize} more (risk of overreliance ${formatPercent(sample.plan.twoStage.riskOfOverreliance, 2)})`]);
-  if (sample.method === "mus") facts.push(["Poisson factors", p.factorMode === "exact" ? "Exact" : "Table (2 decimals)"]);
+  if (sample.method === "mus") facts.push(["Poisson factors", factorModeOfSample(sample) === "exact" ? "Exact (firm methodology at planning)" : "Table, 2 decimals (firm methodology at planning)"]);
   facts.push(["Size", <span key="sz" className="figures">{sample.chosenSize}{sample.chosenSize !== sample.computedSize && ` (computed ${sample.computedSize})`}</span>]);
   if (sample.sizeReason) facts.push(["Reason for the size", sample.sizeReason]);
   facts.push(["Planned", `${sample.createdAt.slice(0, 10)} by ${sample.createdByName} · plan version ${sample.planVersion}`]);

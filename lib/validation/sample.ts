@@ -45,7 +45,6 @@ export const SampleParamsSchema = z.object({
   attributePlan: z.enum(["fixed", "two-stage"], "Choose a fixed or a two-stage plan").default("fixed"),
   expectedRate: fraction("Expected deviation rate", 0, 0.5).default(0),
   topStratumThreshold: moneyInput.optional(),
-  factorMode: z.enum(["exact", "table"]).default("exact"),
   strataBounds: strataBounds.optional(),
   spreadBasis: z.enum(SPREAD_BASES, "Choose where the expected standard deviation comes from").optional(),
   spreadSampleId: z.coerce.number().int().positive("Choose the earlier sample").optional(),

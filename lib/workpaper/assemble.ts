@@ -7,6 +7,7 @@ import { getAdoptedAdvisorRun } from "@/lib/data/advisor-runs";
 import { methodRationaleBlock } from "@/lib/advisor/describe";
 import { loadSampleWithEvaluation, type SampleView } from "@/lib/samples/context";
 import { recipeForSample } from "@/lib/samples/recipe-for-sample";
+import { factorModeOfSample } from "@/lib/samples/methodology";
 import { workpaperReferenceFor } from "@/lib/review/lock";
 import { money } from "@/lib/samples/evaluation-blocks";
 import type { SampleEvaluation } from "@/lib/samples/evaluate";
@@ -113,7 +114,7 @@ function planBlock(sample: SampleView["sample"], tolerable: string): PlanBlock {
   } else {
     parameters.push({ label: "Tolerable misstatement", kind: "money", value: tolerable }, { label: "Expected misstatement", kind: "money", value: p.expectedMisstatement });
     if (sample.method !== "mus") parameters.push({ label: "Risk of incorrect rejection", kind: "rate", value: pct(p.riskOfIncorrectRejection) });
-    else parameters.push({ label: "Factors", kind: "text", value: p.factorMode === "table" ? "table (rounded up to 2 decimals)" : "exact (gamma quantile)" });
+    else parameters.push({ label: "Factors", kind: "text", value: factorModeOfSample(sample) === "table" ? "table (rounded up to 2 decimals)" : "exact (gamma quantile)" });
     if (plan.sizeMethod) parameters.push({ label: "Size method", kind: "text", value: SIZE_METHODS[plan.sizeMethod] });
     if (plan.spread) parameters.push({ label: "Expected standard deviation", kind: "text", value: plan.spread.detail });
   }

@@ -51,7 +51,7 @@ describe("monetary-unit sizes follow the firm's methodology", () => {
   it("refuses EM ≥ TM with a 400 naming expectedMisstatement", async () => {
     const r = await previewPlan({ method: "mus", tolerableMisstatement: "15000", expectedMisstatement: "15000" });
     expect(r.status).toBe(400);
-    expect(r.json.error.fields).toHaveProperty("expectedMisstatement");
+    expect(r.json.error.fields).toHaveProperty(["params.expectedMisstatement"]);
   });
 
   it("uses the older expansion-factor method and table factors when the firm's methodology says so, and stamps them", async () => {
@@ -63,7 +63,7 @@ describe("monetary-unit sizes follow the firm's methodology", () => {
     expect(plan).toMatchObject({ sizeMethod: "expansion-factor", factorMode: "table", computedSize: Math.ceil((BV * 3) / (15000 - 8000)) });
     expect(plan.inputs).toMatchObject({ RF: 3, EF: 1.6 });
     expect(plan.notes.join(" ")).toMatch(/older presentation/);
-    expect(params.factorMode).toBe("table"); // the firm's mode governs the evaluation factors too
+    expect(params).not.toHaveProperty("factorMode"); // no per-plan choice: the stamped mode governs R and the evaluation factors
     expect(stamped).toMatchObject({ musSizeMethod: "expansion-factor", factorMode: "table" });
     await setMethodology({});
   });
