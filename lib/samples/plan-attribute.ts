@@ -1,4 +1,5 @@
 import "server-only";
+import { formatCount } from "@/lib/format/number";
 import { attributeSampleSize } from "@/lib/sampling";
 import { centsToDecimal } from "@/lib/money";
 import { fieldError } from "@/lib/errors";
@@ -34,7 +35,7 @@ export function planAttribute(frame: Frame, p: SampleParams, methodology: Method
       : "smallest n with BinomialCDF(k; n, TDR) ≤ 1 − confidence, k = ⌈EDR × n⌉ (AICPA Audit Guide “Audit Sampling”, Tables A-1/A-2)",
     inputs,
     notes: hypergeometric
-      ? [`The population holds ${N.toLocaleString("en-US")} items, under the firm's threshold of ${methodology.hypergeometricBelow.toLocaleString("en-US")}: sized and evaluated with the hypergeometric distribution (exact for sampling without replacement from a small population).`]
+      ? [`The population holds ${formatCount(N)} items, under the firm's threshold of ${formatCount(methodology.hypergeometricBelow)}: sized and evaluated with the hypergeometric distribution (exact for sampling without replacement from a small population).`]
       : [],
     warnings: [],
   };

@@ -1,4 +1,5 @@
 import "server-only";
+import { formatCount } from "@/lib/format/number";
 import type { Knex } from "knex";
 import { planningSpread, type Estimator, type PlanningSpread } from "@/lib/sampling";
 import { standardDeviation } from "@/lib/sampling/descriptive";
@@ -71,6 +72,6 @@ export function resolveSpread(frame: Frame, p: SampleParams, prior?: PriorSpread
     : [];
   return {
     basis: "book-values", value, symbol: "S", warnings,
-    detail: `S = ${value.toFixed(2)}, the standard deviation of the population's ${frame.bookValues.length.toLocaleString("en-US")} book values${estimator === "mean-per-unit" ? "" : given ? " (chosen by the planner for this estimator)" : " (default)"}.`,
+    detail: `S = ${value.toFixed(2)}, the standard deviation of the population's ${formatCount(frame.bookValues.length)} book values${estimator === "mean-per-unit" ? "" : given ? " (chosen by the planner for this estimator)" : " (default)"}.`,
   };
 }
