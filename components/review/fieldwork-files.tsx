@@ -104,7 +104,7 @@ export function FieldworkFiles({ engagementId, sampleId, items, mayWrite }: Prop
               <ul className="divide-y divide-ink-line/70 text-sm">
                 {evidence.map((e) => (
                   <li key={e.id} className="flex items-center justify-between gap-3 py-2">
-                    <span><a className="font-medium text-ledger-600 hover:underline" href={`${base}/items/${itemId}/evidence/${e.id}`}>{e.fileName}</a> <span className="text-xs text-ink-faint">{Math.ceil(e.sizeBytes / 1024)} KB · {e.uploadedByName} · SHA-256 <span className="figures">{e.sha256.slice(0, 12)}…</span></span></span>
+                    <span><a className="font-medium text-ledger-600 link" href={`${base}/items/${itemId}/evidence/${e.id}`}>{e.fileName}</a> <span className="text-xs text-ink-faint">{Math.ceil(e.sizeBytes / 1024)} KB · {e.uploadedByName} · SHA-256 <span className="figures">{e.sha256.slice(0, 12)}…</span></span></span>
                     {mayWrite && <Button variant="ghost" onClick={() => remove(e)}>Remove</Button>}
                   </li>
                 ))}

@@ -23,7 +23,7 @@ export function ReperformPanel({ engagementId, sampleId, onChecked }: { engageme
     <div className="space-y-3">
       <div className="flex flex-wrap items-center gap-3">
         <Button type="button" variant="secondary" onClick={run} disabled={busy}>{busy ? "Recomputing…" : "Re-perform the selection"}</Button>
-        <a href={`/api/engagements/${engagementId}/samples/${sampleId}/recipe`} download className="text-sm font-medium text-ledger-600 hover:underline">Download the reproduction recipe (.txt)</a>
+        <a href={`/api/engagements/${engagementId}/samples/${sampleId}/recipe`} download className="text-sm font-medium text-ledger-600 link">Download the reproduction recipe (.txt)</a>
       </div>
       {failure && <Alert>{failure}</Alert>}
       {result && (

@@ -28,13 +28,13 @@ export function SampleList({ engagementId, samples, mayPlan }: { engagementId: n
         {samples.map((s) => (
           <tr key={s.id} className="border-t border-ink-line/70">
             <td className="py-2.5 pr-4">
-              <Link href={`/engagements/${engagementId}/samples/${s.id}`} className="font-medium text-ink hover:text-ledger-600 hover:underline">{s.name}</Link>
+              <Link href={`/engagements/${engagementId}/samples/${s.id}`} className="font-medium text-ink hover:text-ledger-600 link">{s.name}</Link>
               <span className="block text-xs text-ink-faint">{s.assertion} · planned by {s.createdByName}</span>
             </td>
             <td className="py-2.5 pr-4">{METHOD_SHORT[s.method]}</td>
             <td className="figures py-2.5 pr-4 text-right">{formatCount(s.chosenSize)}</td>
             <td className="py-2.5 pr-4"><Badge tone={s.status === "drawn" ? "green" : "blue"}>{SAMPLE_STATUS_LABELS[s.status]}</Badge></td>
-            <td className="py-2.5 text-right"><Link href={`/engagements/${engagementId}/samples/${s.id}`} className="text-sm font-medium text-ledger-600 hover:underline">Open</Link></td>
+            <td className="py-2.5 text-right"><Link href={`/engagements/${engagementId}/samples/${s.id}`} className="text-sm font-medium text-ledger-600 link">Open</Link></td>
           </tr>
         ))}
       </tbody>

@@ -50,7 +50,7 @@ export default async function EngagementPage({ params }: { params: Promise<{ eng
             ))}
           </dl>
         </Card>
-        <Card title="Team" action={<Link href={`/engagements/${engagement.id}/team`} className="text-sm font-medium text-ledger-600 hover:underline">Manage</Link>}>
+        <Card title="Team" action={<Link href={`/engagements/${engagement.id}/team`} className="text-sm font-medium text-ledger-600 link">Manage</Link>}>
           <ul className="space-y-2">
             {members.map((m) => (
               <li key={m.userId} className="flex items-center justify-between text-sm">
@@ -62,13 +62,13 @@ export default async function EngagementPage({ params }: { params: Promise<{ eng
         </Card>
         <Card
           title="Populations" className="lg:col-span-3"
-          action={hasAtLeastRole(role, "senior") && <Link href={`/engagements/${engagement.id}/populations/new`} className="text-sm font-medium text-ledger-600 hover:underline">Load a ledger</Link>}
+          action={hasAtLeastRole(role, "senior") && <Link href={`/engagements/${engagement.id}/populations/new`} className="text-sm font-medium text-ledger-600 link">Load a ledger</Link>}
         >
           <PopulationList engagementId={engagement.id} populations={populations} currency={engagement.currency} mayLoad={hasAtLeastRole(role, "senior")} />
         </Card>
         <Card
           title="Samples" className="lg:col-span-3"
-          action={hasAtLeastRole(role, "senior") && <Link href={`/engagements/${engagement.id}/samples/new`} className="text-sm font-medium text-ledger-600 hover:underline">Plan a sample</Link>}
+          action={hasAtLeastRole(role, "senior") && <Link href={`/engagements/${engagement.id}/samples/new`} className="text-sm font-medium text-ledger-600 link">Plan a sample</Link>}
         >
           <SampleList engagementId={engagement.id} samples={samples} mayPlan={hasAtLeastRole(role, "senior")} />
         </Card>

@@ -20,7 +20,7 @@ export default async function NewPopulationPage({ params }: { params: Promise<{ 
   return (
     <>
       <PageHeader eyebrow={engagement.clientName} title="Load a ledger population">
-        <Link href={`/engagements/${engagement.id}`} className="hover:underline">{engagement.name}</Link> · the file is kept exactly as received, with its SHA-256, beside the population.
+        <Link href={`/engagements/${engagement.id}`} className="link">{engagement.name}</Link> · the file is kept exactly as received, with its SHA-256, beside the population.
       </PageHeader>
       {mayLoad ? (
         <Card><UploadFlow engagementId={engagement.id} currency={engagement.currency} replaceable={replaceable} /></Card>

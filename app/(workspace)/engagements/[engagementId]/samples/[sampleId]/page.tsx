@@ -41,9 +41,9 @@ export default async function SamplePage({ params }: { params: Promise<{ engagem
     <>
       <PageHeader eyebrow={engagement.clientName} title={sample.name}
         actions={locked ? <Badge tone="green">Locked — final</Badge> : <Badge tone={sample.status === "drawn" ? "green" : "blue"}>{SAMPLE_STATUS_LABELS[sample.status]}</Badge>}>
-        <Link href={`/engagements/${engagement.id}`} className="hover:underline">{engagement.name}</Link>
+        <Link href={`/engagements/${engagement.id}`} className="link">{engagement.name}</Link>
         {" · "}{METHOD_SHORT[sample.method]}
-        {" · from "}<Link href={`/engagements/${engagement.id}/populations/${population.id}`} className="hover:underline">{population.name}</Link>
+        {" · from "}<Link href={`/engagements/${engagement.id}/populations/${population.id}`} className="link">{population.name}</Link>
       </PageHeader>
       <SampleWorkspace
         key={sample.id} engagementId={engagement.id} initialView={view} initialEvaluation={evaluation}

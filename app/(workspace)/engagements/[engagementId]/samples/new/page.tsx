@@ -20,7 +20,7 @@ export default async function NewSamplePage({ params, searchParams }: { params: 
   return (
     <>
       <PageHeader eyebrow={engagement.clientName} title="Plan a sample">
-        <Link href={`/engagements/${engagement.id}`} className="hover:underline">{engagement.name}</Link> · the size is computed on the server as you type, from the population as loaded.
+        <Link href={`/engagements/${engagement.id}`} className="link">{engagement.name}</Link> · the size is computed on the server as you type, from the population as loaded.
       </PageHeader>
       {mayPlan ? (
         <PlanForm engagementId={engagement.id} currency={engagement.currency} performanceMateriality={engagement.performanceMateriality} populations={choices} initialPopulationId={preset} />

@@ -26,7 +26,7 @@ export default async function TrailPage({ params, searchParams }: { params: Prom
   return (
     <>
       <PageHeader eyebrow={engagement.clientName} title={`Audit trail — ${sample.name}`}>
-        <Link href={`/engagements/${engagement.id}/samples/${sample.id}`} className="hover:underline">Back to the sample</Link> · every change, who made it and when, with the values before and after.
+        <Link href={`/engagements/${engagement.id}/samples/${sample.id}`} className="link">Back to the sample</Link> · every change, who made it and when, with the values before and after.
       </PageHeader>
       <form className="mb-4 flex flex-wrap items-end gap-3 text-sm" method="get">
         <label>
