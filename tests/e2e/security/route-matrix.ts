@@ -116,6 +116,7 @@ export const ROUTE_MATRIX: MatrixRow[] = [
   { route: `POST ${S}/extend`, expect: onEngagement("senior", 400), validBody: () => ({ additional: 1, reason: "Cross-engagement probe" }) },
   { route: `GET ${S}/items`, expect: onEngagement("viewer", 200) },
   { route: `PATCH ${S}/items/[itemId]`, expect: onEngagement("staff", 400), validBody: (ids) => ({ version: ids.itemVersion, status: "done", auditedValue: "1.00" }) },
+  { route: `POST ${S}/results`, expect: onEngagement("staff", 400), validBody: (ids) => ({ rows: [{ itemId: ids.itemId, version: ids.itemVersion, status: "done", auditedValue: "1.00" }] }) }, // issue 19: paste, agreed to book, undo
   { route: `GET ${S}/items/[itemId]/evidence`, expect: onEngagement("viewer", 200) },
   { route: `POST ${S}/items/[itemId]/evidence`, expect: onEngagement("viewer", 400), probe: { query: `fileName=${LONG_NAME}`, body: "probe", contentType: "text/plain" } },
   { route: `GET ${S}/items/[itemId]/evidence/[evidenceId]`, expect: onEngagement("viewer", 200) },
