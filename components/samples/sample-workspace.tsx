@@ -14,6 +14,7 @@ import { FieldworkGrid } from "./fieldwork-grid";
 import { ProgressStrip } from "./progress-strip";
 import { EvaluationPanel } from "./evaluation-panel";
 import { EXTENDABLE, REPLACEABLE } from "./labels";
+import { SAMPLE_CHANGED_EVENT } from "./events";
 
 interface Props {
   engagementId: number; initialView: SampleView; initialEvaluation: SampleEvaluation;
@@ -45,6 +46,12 @@ export function SampleWorkspace({ engagementId, initialView, initialEvaluation, 
 
   const changed = useCallback(() => { setChanges((n) => n + 1); setEvaluating(true); }, []);
   const refreshView = useCallback(async () => { setView(await api<SampleView>(base)); }, [base]);
+  // A workbook import elsewhere on the page changed the results: refetch the grid, progress and evaluation.
+  useEffect(() => {
+    const onChange = () => { setGridKey((k) => k + 1); changed(); void refreshView().catch(() => undefined); };
+    window.addEventListener(SAMPLE_CHANGED_EVENT, onChange);
+    return () => window.removeEventListener(SAMPLE_CHANGED_EVENT, onChange);
+  }, [changed, refreshView]);
   const onDrawn = (next: SampleView) => { setView(next); setGridKey((k) => k + 1); changed(); setTab("results"); router.refresh(); };
   const attribute = sample.method === "attribute";
 

@@ -25,7 +25,7 @@ export const metadata: Metadata = { title: "Sample" };
 export default async function SamplePage({ params }: { params: Promise<{ engagementId: string; sampleId: string }> }) {
   const { engagementId, sampleId } = await params;
   const { engagement, role } = await requireEngagementPage(engagementId);
-  const { view, evaluation, items: drawnItems } = await loadSamplePage(engagement.id, sampleId);
+  const { view, evaluation } = await loadSamplePage(engagement.id, sampleId);
   const { sample, population } = view;
   const locked = Boolean(view.review.lock);
   const senior = hasAtLeastRole(role, "senior") && !locked;
@@ -35,10 +35,9 @@ export default async function SamplePage({ params }: { params: Promise<{ engagem
     advised ? listAdvisorRunsBySampleId(getDb(), { sampleId: sample.id }).then((runs) => loadAdvisorState(getDb(), sample, runs)) : null,
     listRequestListsBySampleId(getDb(), { sampleId: sample.id }),
   ]);
-  const items = drawnItems.filter((i) => i.status !== "void").map((i) => ({ id: i.id, itemRef: i.itemRef }));
   const editHref = senior && sample.status === "planned" ? `/engagements/${engagement.id}/samples/${sample.id}/edit` : null;
   return (
-    <>
+    <div data-wide>
       <PageHeader eyebrow={engagement.clientName} title={sample.name}
         actions={locked ? <Badge tone="green">Locked — final</Badge> : <Badge tone={sample.status === "drawn" ? "green" : "blue"}>{SAMPLE_STATUS_LABELS[sample.status]}</Badge>}>
         <Link href={`/engagements/${engagement.id}`} className="link">{engagement.name}</Link>
@@ -60,8 +59,8 @@ export default async function SamplePage({ params }: { params: Promise<{ engagem
       <div className="mt-6 grid gap-6 lg:grid-cols-2">
         <ReviewPanel engagementId={engagement.id} sampleId={sample.id} role={role} review={view.review} notes={notes} drawn={Boolean(view.currentDraw)} computed={evaluation.computed} complete={evaluation.complete} />
         {view.currentDraw && <RequestListsCard base={`/engagements/${engagement.id}/samples/${sample.id}`} lists={requestLists} mayCreate={senior} />}
-        {view.currentDraw && <FieldworkFiles engagementId={engagement.id} sampleId={sample.id} items={items} mayWrite={!locked && hasAtLeastRole(role, "staff")} />}
+        {view.currentDraw && <FieldworkFiles engagementId={engagement.id} sampleId={sample.id} mayWrite={!locked && hasAtLeastRole(role, "staff")} />}
       </div>
-    </>
+    </div>
   );
 }
