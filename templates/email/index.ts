@@ -6,6 +6,7 @@ import { reviewNoteRaised, type ReviewNoteRaisedData } from "./review-note-raise
 import { sampleLocked, type SampleLockedData } from "./sample-locked";
 import { sampleReadyForReview, type SampleReadyForReviewData } from "./sample-ready-for-review";
 import { clientInvitation, requestFileReturned, requestListSent, requestReminders, type ClientInvitationData, type RequestFileReturnedData, type RequestListSentData, type RequestRemindersData } from "./client-requests";
+import { requestListClosed, type RequestListClosedData } from "./client-requests";
 import type { RenderedEmail } from "./types";
 
 export interface EmailTemplateData {
@@ -19,6 +20,7 @@ export interface EmailTemplateData {
   "request-list-sent": RequestListSentData;
   "request-file-returned": RequestFileReturnedData;
   "request-reminders": RequestRemindersData;
+  "request-list-closed": RequestListClosedData;
 }
 
 export type EmailTemplateName = keyof EmailTemplateData;
@@ -34,6 +36,7 @@ export const EMAIL_TEMPLATES: { [K in EmailTemplateName]: (data: EmailTemplateDa
   "request-list-sent": requestListSent,
   "request-file-returned": requestFileReturned,
   "request-reminders": requestReminders,
+  "request-list-closed": requestListClosed,
 };
 
 export function renderEmailTemplate<K extends EmailTemplateName>(name: K, data: EmailTemplateData[K]): RenderedEmail {

@@ -41,8 +41,17 @@ export class ReviewPanelPage {
     await expect(this.page.getByTestId(`review-note-${n}`)).toContainText("Cleared");
   }
 
+  /** Opens the lock confirmation, which says what locking will do. */
+  async openLockDialog() {
+    await this.page.getByRole("button", { name: "Lock sample…" }).click();
+    const dialog = this.page.getByRole("dialog", { name: "Lock this sample?" });
+    await expect(dialog).toBeVisible();
+    return dialog;
+  }
+
   async lock() {
-    await this.page.getByRole("button", { name: "Lock sample" }).click();
+    const dialog = await this.openLockDialog();
+    await dialog.getByRole("button", { name: "Lock the sample" }).click();
     await expect(this.page.getByTestId("workpaper-sha256")).toBeVisible({ timeout: 30_000 });
     return (await this.page.getByTestId("workpaper-sha256").textContent())!.trim();
   }

@@ -57,7 +57,8 @@ export default async function SamplePage({ params }: { params: Promise<{ engagem
       )}
       {locked && <div className="mt-6"><Alert tone="info">This sample is locked. Its workpaper is final and every part of it is read-only; a partner can unlock it with a reason.</Alert></div>}
       <div className="mt-6 grid gap-6 lg:grid-cols-2">
-        <ReviewPanel engagementId={engagement.id} sampleId={sample.id} role={role} review={view.review} notes={notes} drawn={Boolean(view.currentDraw)} computed={evaluation.computed} complete={evaluation.complete} />
+        <ReviewPanel engagementId={engagement.id} sampleId={sample.id} role={role} review={view.review} notes={notes} drawn={Boolean(view.currentDraw)} computed={evaluation.computed} complete={evaluation.complete}
+          openLists={requestLists.filter((l) => l.status === "open").map((l) => ({ id: l.id, title: l.title, contactName: l.contactName }))} />
         {view.currentDraw && <RequestListsCard base={`/engagements/${engagement.id}/samples/${sample.id}`} lists={requestLists} mayCreate={senior} />}
         {view.currentDraw && <FieldworkFiles engagementId={engagement.id} sampleId={sample.id} mayWrite={!locked && hasAtLeastRole(role, "staff")} />}
       </div>
