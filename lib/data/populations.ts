@@ -101,3 +101,9 @@ export async function reconcilePopulation(db: Knex, { engagementId, populationId
     return getPopulationById(trx, { engagementId, populationId });
   });
 }
+
+/** The population that replaced this one (loaded with `supersedesId` = it), or null. */
+export async function getSupersedingPopulation(db: Knex, { engagementId, populationId }: { engagementId: number; populationId: number }) {
+  const row = await basePopulationQuery(db).where({ "p.supersedes_id": populationId, "p.engagement_id": engagementId }).orderBy("p.id", "desc").first();
+  return row ? toPopulation(row) : null;
+}

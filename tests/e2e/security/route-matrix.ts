@@ -49,6 +49,7 @@ const musParams = { method: "mus", confidence: 0.95, tolerableMisstatement: "600
 
 export const ROUTE_MATRIX: MatrixRow[] = [
   { route: "GET /api/me", expect: signedIn(200) },
+  { route: "GET /api/me/inbox", expect: auditors(200) }, // issue 19: the reviewer's inbox across engagements
   { route: "GET /api/engagements", expect: signedIn(200) },
   // Creating an engagement needs the manager or partner grade (the other firm's caller is a partner).
   { route: "POST /api/engagements", expect: { ...signedIn(403), manager: 400, partner: 400, otherFirm: 400 } },

@@ -19,6 +19,8 @@ import { ADVISED_METHODS } from "@/lib/advisor/methods";
 import { listAdvisorRunsBySampleId } from "@/lib/data/advisor-runs";
 import { RequestListsCard } from "@/components/requests/request-lists-card";
 import { listRequestListsBySampleId } from "@/lib/requests/lists";
+import { getSupersedingPopulation } from "@/lib/data/populations";
+import { SupersededBanner } from "@/components/samples/superseded-banner";
 
 export const metadata: Metadata = { title: "Sample" };
 
@@ -30,10 +32,11 @@ export default async function SamplePage({ params }: { params: Promise<{ engagem
   const locked = Boolean(view.review.lock);
   const senior = hasAtLeastRole(role, "senior") && !locked;
   const advised = ADVISED_METHODS.includes(sample.method);
-  const [notes, advisor, requestLists] = await Promise.all([
+  const [notes, advisor, requestLists, replacement] = await Promise.all([
     listNotesBySampleId(getDb(), { sampleId: sample.id }),
     advised ? listAdvisorRunsBySampleId(getDb(), { sampleId: sample.id }).then((runs) => loadAdvisorState(getDb(), sample, runs)) : null,
     listRequestListsBySampleId(getDb(), { sampleId: sample.id }),
+    population.status === "superseded" ? getSupersedingPopulation(getDb(), { engagementId: engagement.id, populationId: population.id }) : null,
   ]);
   const editHref = senior && sample.status === "planned" ? `/engagements/${engagement.id}/samples/${sample.id}/edit` : null;
   return (
@@ -44,6 +47,7 @@ export default async function SamplePage({ params }: { params: Promise<{ engagem
         {" · "}{METHOD_SHORT[sample.method]}
         {" · from "}<Link href={`/engagements/${engagement.id}/populations/${population.id}`} className="link">{population.name}</Link>
       </PageHeader>
+      {population.status === "superseded" && <SupersededBanner engagementId={engagement.id} population={population} replacement={replacement} />}
       <SampleWorkspace
         key={sample.id} engagementId={engagement.id} initialView={view} initialEvaluation={evaluation}
         may={{ record: hasAtLeastRole(role, "staff") && !locked, draw: senior }}
