@@ -9,18 +9,18 @@ import { Alert } from "@/components/ui/alert";
 import { Badge } from "@/components/ui/badge";
 import { Button, buttonClass } from "@/components/ui/button";
 import { Card } from "@/components/ui/card";
-import { ReviewNotes } from "./review-notes";
+import { ReviewNotes, type NoteItem } from "./review-notes";
 import { ConclusionForm } from "./conclusion-form";
 import type { ComputedResult } from "@/lib/samples/evaluation-types";
 import { LockDialog, type OpenList } from "./lock-dialog";
 import { formatDateTime } from "@/lib/format/dates";
 
-interface Props { engagementId: number; sampleId: number; role: EngagementRole; review: ReviewState; notes: ReviewNote[]; drawn: boolean; computed: ComputedResult; complete: boolean; openLists: OpenList[] }
+interface Props { engagementId: number; sampleId: number; role: EngagementRole; review: ReviewState; notes: ReviewNote[]; drawn: boolean; computed: ComputedResult; complete: boolean; openLists: OpenList[]; items: NoteItem[] }
 
 const when = formatDateTime;
 
 /** Sign-offs, lock and the workpaper: the panel where a sample becomes final. */
-export function ReviewPanel({ engagementId, sampleId, role, review, notes, drawn, computed, complete, openLists }: Props) {
+export function ReviewPanel({ engagementId, sampleId, role, review, notes, drawn, computed, complete, openLists, items }: Props) {
   const [confirming, setConfirming] = useState(false);
   const router = useRouter();
   const [message, setMessage] = useState<{ tone: "error" | "success"; text: string } | null>(null);
@@ -85,7 +85,7 @@ export function ReviewPanel({ engagementId, sampleId, role, review, notes, drawn
         <LockDialog open={confirming} openLists={openLists} busy={busy} onCancel={() => setConfirming(false)}
           onConfirm={() => { void act("lock", {}, `Locked. The final workpaper was rendered once and stored with its SHA-256${openLists.length ? `; ${openLists.length === 1 ? "the open request list was" : `${openLists.length} open request lists were`} closed and the client told` : ""}.`).then(() => setConfirming(false)); }} />
         <p className="text-xs text-ink-faint">Any change to the plan, selection, results or evidence clears the sign-offs and the auditor&apos;s conclusion. The preparer signs off after recording the conclusion (and the response, where the computed result calls for one); the reviewer&apos;s sign-off covers them. A reviewer cannot sign off while a note is open.</p>
-        <ReviewNotes engagementId={engagementId} sampleId={sampleId} role={role} notes={notes} locked={Boolean(review.lock)} onChanged={() => router.refresh()} />
+        <ReviewNotes engagementId={engagementId} sampleId={sampleId} role={role} notes={notes} items={items} locked={Boolean(review.lock)} onChanged={() => router.refresh()} />
       </div>
     </Card>
   );

@@ -18,16 +18,17 @@ import { RowEvidence } from "./row-evidence";
 import { postFile } from "./evidence-upload";
 import { UndoBar } from "./undo-bar";
 import { useGridSaves } from "./use-grid-saves";
+import type { ItemNoteMark } from "@/components/review/note-labels";
 
 type Col = ColumnDef<SampleItemRecord>;
 const right = { align: "right" };
 
 interface ColumnOptions {
   attribute: boolean; selectable: boolean; selected: Set<number>; toggle: (id: number) => void;
-  openEvidence: Set<number>; toggleEvidence: (id: number) => void;
+  openEvidence: Set<number>; toggleEvidence: (id: number) => void; notesByItem: Record<number, ItemNoteMark[]>;
 }
 
-function buildColumns({ attribute, selectable, selected, toggle, openEvidence, toggleEvidence }: ColumnOptions): Col[] {
+function buildColumns({ attribute, selectable, selected, toggle, openEvidence, toggleEvidence, notesByItem }: ColumnOptions): Col[] {
   const cols: Col[] = [];
   if (selectable) cols.push({
     id: "select", header: "", meta: { sticky: true },
@@ -36,7 +37,7 @@ function buildColumns({ attribute, selectable, selected, toggle, openEvidence, t
     ),
   });
   cols.push(
-    { id: "ref", header: "Item", cell: () => <ReferenceCell /> },
+    { id: "ref", header: "Item", cell: ({ row }) => <ReferenceCell notes={notesByItem[row.original.id]} /> },
     { id: "book", header: "Book value", meta: right, cell: ({ row }) => <Amount value={row.original.bookValue} /> },
   );
   if (attribute) cols.push({ id: "status", header: "Status", cell: () => <StatusCell /> }, { id: "deviation", header: "Deviation", cell: () => <DeviationCell /> });
@@ -55,7 +56,7 @@ function buildColumns({ attribute, selectable, selected, toggle, openEvidence, t
 
 interface Props {
   engagementId: number; sampleId: number; method: SampleMethod; drawVersion: number;
-  mayRecord: boolean; mayReplace: boolean; refreshKey: number; onSaved: () => void;
+  mayRecord: boolean; mayReplace: boolean; refreshKey: number; onSaved: () => void; notesByItem: Record<number, ItemNoteMark[]>;
 }
 interface ItemsPage { items: SampleItemRecord[]; total: number }
 
@@ -64,7 +65,7 @@ interface ItemsPage { items: SampleItemRecord[]; total: number }
  * spreadsheet (grid-keys.ts), a pasted column, "agreed to book" on selected rows, the undo of the
  * last save, and evidence attached from the row (Attach… or a file dropped on it).
  */
-export function FieldworkGrid({ engagementId, sampleId, method, drawVersion, mayRecord, mayReplace, refreshKey, onSaved }: Props) {
+export function FieldworkGrid({ engagementId, sampleId, method, drawVersion, mayRecord, mayReplace, refreshKey, onSaved, notesByItem }: Props) {
   const url = `/api/engagements/${engagementId}/samples/${sampleId}/items`;
   const [pagination, setPagination] = useState<PaginationState>({ pageIndex: 0, pageSize: 25 });
   const [status, setStatus] = useState("all");
@@ -80,7 +81,7 @@ export function FieldworkGrid({ engagementId, sampleId, method, drawVersion, may
   const flip = (set: Set<number>, id: number) => { const next = new Set(set); if (!next.delete(id)) next.add(id); return next; };
   const toggle = useCallback((id: number) => setSelected((s) => flip(s, id)), []);
   const toggleEvidence = useCallback((id: number) => setOpenEvidence((s) => flip(s, id)), []);
-  const columns = useMemo(() => buildColumns({ attribute, selectable: mayRecord, selected, toggle, openEvidence, toggleEvidence }), [attribute, mayRecord, selected, toggle, openEvidence, toggleEvidence]);
+  const columns = useMemo(() => buildColumns({ attribute, selectable: mayRecord, selected, toggle, openEvidence, toggleEvidence, notesByItem }), [attribute, mayRecord, selected, toggle, openEvidence, toggleEvidence, notesByItem]);
 
   useEffect(() => {
     const t = setTimeout(() => { setQuery(search.trim()); setPagination((p) => ({ ...p, pageIndex: 0 })); }, 300);

@@ -6,6 +6,7 @@ import { ITEM_STATUS_LABELS } from "./labels";
 import { liveMisstatement } from "./result-values";
 import { useRowEditor } from "./result-row";
 import { RequestStatusBadge } from "@/components/requests/status-badge";
+import { NOTE_STATUS_LABELS, NOTE_STATUS_TONES, type ItemNoteMark } from "@/components/review/note-labels";
 
 const compact = "rounded border border-ink-line bg-paper-raised px-2 py-1 text-sm focus:border-ledger-500 focus:outline-none focus:ring-2 focus:ring-ledger-100 aria-[invalid=true]:border-brick-500 disabled:bg-paper-sunk/60 disabled:text-ink-faint";
 
@@ -13,7 +14,7 @@ function FieldError({ message, id }: { message?: string; id: string }) {
   return message ? <p id={id} className="mt-1 text-xs text-brick-700" aria-live="polite">{message}</p> : null;
 }
 
-export function ReferenceCell() {
+export function ReferenceCell({ notes }: { notes?: ItemNoteMark[] }) {
   const { item } = useRowEditor();
   return (
     <div className="w-32">
@@ -24,6 +25,7 @@ export function ReferenceCell() {
         {item.stratum !== null && <Badge>stratum {item.stratum}</Badge>}
         {item.origin !== "selection" && <Badge tone="amber">{item.origin === "extension" ? "added" : "replacement"}</Badge>}
         {item.hitPoints && item.hitPoints.length > 1 && <Badge>{item.hitPoints.length} hits</Badge>}
+        {notes?.map((n) => <Badge key={n.number} tone={NOTE_STATUS_TONES[n.status]}>Note {n.number}: {NOTE_STATUS_LABELS[n.status].toLowerCase()}</Badge>)}
       </span>
       {item.status === "void" && <span className="block text-xs">Void: {item.voidReason}</span>}
     </div>

@@ -15,14 +15,17 @@ import { ProgressStrip } from "./progress-strip";
 import { EvaluationPanel } from "./evaluation-panel";
 import { EXTENDABLE, REPLACEABLE } from "./labels";
 import { SAMPLE_CHANGED_EVENT } from "./events";
+import type { ItemNoteMark } from "@/components/review/note-labels";
 
 interface Props {
   engagementId: number; initialView: SampleView; initialEvaluation: SampleEvaluation;
   may: { record: boolean; draw: boolean }; planSummary: React.ReactNode;
+  /** Review notes raised on items, shown on their rows. */
+  notesByItem?: Record<number, ItemNoteMark[]>;
 }
 
 /** The sample's three rooms: its plan, its draw, and the results with the live evaluation. */
-export function SampleWorkspace({ engagementId, initialView, initialEvaluation, may, planSummary }: Props) {
+export function SampleWorkspace({ engagementId, initialView, initialEvaluation, may, planSummary, notesByItem = {} }: Props) {
   const router = useRouter();
   const [view, setView] = useState(initialView);
   const [tab, setTab] = useState(initialView.currentDraw ? "results" : "draw");
@@ -89,7 +92,7 @@ export function SampleWorkspace({ engagementId, initialView, initialEvaluation, 
             <Card title="Items and results">
               <p className="mb-2 text-xs text-ink-soft" data-testid="unauditable-treatment">{evaluation.notes[0]}</p>
               <FieldworkGrid engagementId={engagementId} sampleId={sample.id} method={sample.method} drawVersion={currentDraw.version}
-                mayRecord={may.record} mayReplace={may.draw && REPLACEABLE.includes(sample.method)} refreshKey={gridKey} onSaved={changed} />
+                mayRecord={may.record} mayReplace={may.draw && REPLACEABLE.includes(sample.method)} refreshKey={gridKey} onSaved={changed} notesByItem={notesByItem} />
             </Card>
             <Card title="Evaluation">
               {evalFailure && <div className="mb-3"><Alert>{evalFailure}</Alert></div>}

@@ -32,7 +32,7 @@ export class ReviewPanelPage {
 
   async answerNote(n: number, answer: string) {
     await this.page.getByRole("textbox", { name: `Answer to note ${n}` }).fill(answer);
-    await this.page.getByTestId(`review-note-${n}`).getByRole("button", { name: "Answer" }).click();
+    await this.page.getByTestId(`review-note-${n}`).getByRole("button", { name: "Send answer" }).click();
     await expect(this.page.getByTestId(`review-note-${n}`)).toContainText("Answered");
   }
 

@@ -10,6 +10,7 @@ import { METHOD_SHORT, SAMPLE_STATUS_LABELS } from "@/components/samples/labels"
 import { loadSamplePage } from "./load-sample";
 import { getDb } from "@/db/knex";
 import { listNotesBySampleId } from "@/lib/review/notes";
+import { notesOnItems } from "@/components/review/note-labels";
 import { Alert } from "@/components/ui/alert";
 import { ReviewPanel } from "@/components/review/review-panel";
 import { FieldworkFiles } from "@/components/review/fieldwork-files";
@@ -27,7 +28,7 @@ export const metadata: Metadata = { title: "Sample" };
 export default async function SamplePage({ params }: { params: Promise<{ engagementId: string; sampleId: string }> }) {
   const { engagementId, sampleId } = await params;
   const { engagement, role } = await requireEngagementPage(engagementId);
-  const { view, evaluation } = await loadSamplePage(engagement.id, sampleId);
+  const { view, evaluation, items: drawnItems } = await loadSamplePage(engagement.id, sampleId);
   const { sample, population } = view;
   const locked = Boolean(view.review.lock);
   const senior = hasAtLeastRole(role, "senior") && !locked;
@@ -38,6 +39,8 @@ export default async function SamplePage({ params }: { params: Promise<{ engagem
     listRequestListsBySampleId(getDb(), { sampleId: sample.id }),
     population.status === "superseded" ? getSupersedingPopulation(getDb(), { engagementId: engagement.id, populationId: population.id }) : null,
   ]);
+  const items = drawnItems.filter((i) => i.status !== "void").map((i) => ({ id: i.id, itemRef: i.itemRef }));
+  const notesByItem = notesOnItems(notes);
   const editHref = senior && sample.status === "planned" ? `/engagements/${engagement.id}/samples/${sample.id}/edit` : null;
   return (
     <div data-wide>
@@ -50,7 +53,7 @@ export default async function SamplePage({ params }: { params: Promise<{ engagem
       {population.status === "superseded" && <SupersededBanner engagementId={engagement.id} population={population} replacement={replacement} />}
       <SampleWorkspace
         key={sample.id} engagementId={engagement.id} initialView={view} initialEvaluation={evaluation}
-        may={{ record: hasAtLeastRole(role, "staff") && !locked, draw: senior }}
+        may={{ record: hasAtLeastRole(role, "staff") && !locked, draw: senior }} notesByItem={notesByItem}
         planSummary={<PlanSummary sample={sample} currency={engagement.currency} performanceMateriality={engagement.performanceMateriality} editHref={editHref} />}
       />
       {advisor && (sample.status === "planned" || advisor.adopted) && (
@@ -61,7 +64,7 @@ export default async function SamplePage({ params }: { params: Promise<{ engagem
       )}
       {locked && <div className="mt-6"><Alert tone="info">This sample is locked. Its workpaper is final and every part of it is read-only; a partner can unlock it with a reason.</Alert></div>}
       <div className="mt-6 grid gap-6 lg:grid-cols-2">
-        <ReviewPanel engagementId={engagement.id} sampleId={sample.id} role={role} review={view.review} notes={notes} drawn={Boolean(view.currentDraw)} computed={evaluation.computed} complete={evaluation.complete}
+        <ReviewPanel engagementId={engagement.id} sampleId={sample.id} role={role} review={view.review} notes={notes} items={items} drawn={Boolean(view.currentDraw)} computed={evaluation.computed} complete={evaluation.complete}
           openLists={requestLists.filter((l) => l.status === "open").map((l) => ({ id: l.id, title: l.title, contactName: l.contactName }))} />
         {view.currentDraw && <RequestListsCard base={`/engagements/${engagement.id}/samples/${sample.id}`} lists={requestLists} mayCreate={senior} />}
         {view.currentDraw && <FieldworkFiles engagementId={engagement.id} sampleId={sample.id} mayWrite={!locked && hasAtLeastRole(role, "staff")} />}
