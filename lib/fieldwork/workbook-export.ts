@@ -39,7 +39,7 @@ function cellValues(kind: WorkbookKind, item: SampleItemRecord, letter: (k: Colu
 }
 
 const VALIDATIONS: Partial<Record<ColumnKey, ExcelJS.DataValidation>> = {
-  status: { type: "list", allowBlank: true, formulae: listOf(Object.values(STATUS_LABELS)), showErrorMessage: true, errorTitle: "Status", error: "Choose Not started, Done or Not auditable." },
+  status: { type: "list", allowBlank: true, formulae: listOf(Object.values(STATUS_LABELS)), showErrorMessage: true, errorTitle: "Status", error: `Choose ${Object.values(STATUS_LABELS).join(", ")}.` },
   cause: { type: "list", allowBlank: true, formulae: listOf(MISSTATEMENT_CAUSES.map((c) => CAUSE_LABELS[c])), showErrorMessage: true, errorTitle: "Cause", error: "Choose a cause from the list." },
   deviation: { type: "list", allowBlank: true, formulae: listOf(["Yes", "No"]), showErrorMessage: true, errorTitle: "Deviation", error: "Answer Yes or No." },
 };
@@ -64,9 +64,11 @@ async function writeItemsSheet(wb: ExcelJS.Workbook, kind: WorkbookKind, items: 
       if (validation) cell.dataValidation = validation;
     }
   });
-  // No password: the protection stops accidental edits of book values and formulas; the import
-  // re-checks every row on the server, so nothing relies on the sheet staying protected.
-  await ws.protect("", { selectLockedCells: true, selectUnlockedCells: true, formatColumns: false, formatRows: true, insertRows: false, deleteRows: false, sort: false, autoFilter: false });
+  // The sheet is left unprotected so people can sort and filter it (Excel refuses to sort a protected
+  // range that holds locked cells): rows are matched back by their hidden item id and reference, and
+  // the import refuses a changed book value, so nothing relies on the order or on protection. The
+  // fill-in columns stay marked unlocked and shaded.
+  ws.autoFilter = { from: { row: 1, column: 1 }, to: { row: 1, column: columns.length } };
 }
 
 /** The fieldwork workbook of a drawn sample: a cover sheet and the Items sheet to fill. */
