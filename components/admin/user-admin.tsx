@@ -8,6 +8,7 @@ import { Badge } from "@/components/ui/badge";
 import { Button } from "@/components/ui/button";
 import { Alert } from "@/components/ui/alert";
 import { api } from "@/components/ui/api";
+import { GRADE_LABELS } from "@/lib/auth/roles";
 
 export function UserAdmin({ initialUsers, myUserId }: { initialUsers: UserRecord[]; myUserId: number }) {
   const [users, setUsers] = useState(initialUsers);
@@ -39,7 +40,7 @@ export function UserAdmin({ initialUsers, myUserId }: { initialUsers: UserRecord
   const columns: ColumnDef<UserRecord, unknown>[] = [
     { accessorKey: "name", header: "Name", cell: ({ row }) => <span className="font-medium">{row.original.name}</span> },
     { accessorKey: "email", header: "E-mail" },
-    { accessorKey: "grade", header: "Grade", cell: ({ getValue }) => <span className="capitalize">{String(getValue())}</span> },
+    { accessorKey: "grade", header: "Grade", cell: ({ row }) => GRADE_LABELS[row.original.grade] },
     { accessorKey: "firmRole", header: "Firm role", cell: ({ getValue }) => (getValue() === "admin" ? <Badge tone="blue">Admin</Badge> : "Member") },
     { accessorKey: "active", header: "Status", cell: ({ getValue }) => (getValue() ? <Badge tone="green">Active</Badge> : <Badge tone="red">Deactivated</Badge>) },
     {

@@ -2,6 +2,7 @@ import Link from "next/link";
 import { Logo } from "./logo";
 import { SignOutButton } from "./sign-out-button";
 import type { UserRecord } from "@/lib/data/users";
+import { GRADE_LABELS } from "@/lib/auth/roles";
 
 /** `waiting`: how many samples wait for the user (the inbox), shown beside its link. */
 export function TopBar({ user, waiting }: { user: UserRecord; waiting: number }) {
@@ -19,7 +20,7 @@ export function TopBar({ user, waiting }: { user: UserRecord; waiting: number })
         <div className="ml-auto flex items-center gap-3">
           <div className="text-right leading-tight">
             <p className="text-sm font-medium" data-testid="signed-in-as">{user.name}</p>
-            <p className="text-xs capitalize text-ink-faint">{user.grade}{user.firmRole === "admin" ? " · firm admin" : ""}</p>
+            <p className="text-xs text-ink-faint">{GRADE_LABELS[user.grade]}{user.firmRole === "admin" ? " · firm administrator" : ""}</p>
           </div>
           <SignOutButton />
         </div>

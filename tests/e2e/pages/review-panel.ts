@@ -21,7 +21,8 @@ export class ReviewPanelPage {
 
   async signOff(as: "preparer" | "reviewer") {
     await this.page.getByRole("button", { name: `Sign off as ${as}` }).click();
-    await expect(this.page.getByText(as === "preparer" ? /Signed off as preparer/ : /Signed off as reviewer/)).toBeVisible();
+    // The panel's own message (the button then reads "Signed off as …", disabled, with why beside it).
+    await expect(this.page.getByRole("status").filter({ hasText: as === "preparer" ? "Signed off as preparer; the reviewers have been told." : /^Signed off as reviewer\.$/ })).toBeVisible();
   }
 
   async raiseNote(text: string) {
