@@ -88,8 +88,9 @@ export async function updateUser(db: Knex, { firmId, actorId, userId, input }: {
 export async function resetUserPassword(db: Knex, { firmId, actorId, userId, password }: { firmId: number; actorId: number; userId: number; password: string }) {
   const passwordHash = await bcrypt.hash(password, BCRYPT_COST);
   await db.transaction(async (trx) => {
-    const updated = await trx("users").where({ id: userId, firm_id: firmId }).update({ password_hash: passwordHash, updated_at: trx.fn.now(3) });
+    // Every session the person has open ends: sessions issued before this instant are refused (lib/auth/options.ts).
+    const updated = await trx("users").where({ id: userId, firm_id: firmId }).update({ password_hash: passwordHash, sessions_valid_after: trx.fn.now(3), updated_at: trx.fn.now(3) });
     if (!updated) throw notFound("No such user");
-    await recordAudit(trx, { actorUserId: actorId, entity: "user", entityId: userId, action: "reset-password" });
+    await recordAudit(trx, { actorUserId: actorId, entity: "user", entityId: userId, action: "reset-password", after: { openSessions: "ended" } });
   });
 }

@@ -120,6 +120,26 @@ test("a deactivated user's open session stops working at the next request", asyn
   expect(page.headers.get("location")).toContain("/sign-in");
 });
 
+test("a password reset ends the person's open sessions; the new password signs in (issue 19)", async ({ baseURL }) => {
+  const admin = new HttpSession(baseURL!);
+  await admin.signIn(DEMO.admin.email, DEMO_PASSWORD);
+  const email = `reset-${Date.now()}@marrow-quill.example`;
+  const created = await admin.json<{ user: { id: number } }>("/api/users", { method: "POST", headers: JSON_HEADERS, body: JSON.stringify({ name: "Rhea Tamsin", email, grade: "staff", password: "first-password-2026" }) });
+  const open = new HttpSession(baseURL!);
+  await open.signIn(email, "first-password-2026");
+  expect((await open.fetch("/api/me")).status).toBe(200);
+  await new Promise((r) => setTimeout(r, 1100)); // the session's issue time is kept in whole seconds (JWT iat)
+
+  const reset = await admin.fetch(`/api/users/${created.user.id}/password`, { method: "POST", headers: JSON_HEADERS, body: JSON.stringify({ password: "second-password-2026" }) });
+  expect(reset.status).toBe(204);
+  expect((await open.fetch("/api/me")).status, "the session opened before the reset").toBe(401);
+  expect((await open.fetch("/api/auth/session")).status).toBe(200);
+  expect((await open.fetch("/api/me")).status, "and it does not come back when next-auth re-issues the cookie").toBe(401);
+  const again = new HttpSession(baseURL!);
+  await again.signIn(email, "second-password-2026");
+  expect((await again.fetch("/api/me")).status).toBe(200);
+});
+
 test("a ledger upload larger than 10 MB arrives whole (no proxy buffers API bodies)", async ({ baseURL }) => {
   const senior = new HttpSession(baseURL!);
   await senior.signIn(DEMO.senior.email, DEMO_PASSWORD);
