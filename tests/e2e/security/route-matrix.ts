@@ -79,6 +79,9 @@ export const ROUTE_MATRIX: MatrixRow[] = [
 
   { route: `GET ${E}/populations`, expect: onEngagement("viewer", 200) },
   { route: `GET ${E}/populations/[populationId]`, expect: onEngagement("viewer", 200) },
+  // issue 19: the fixture's population is used by its sample, so an allowed caller gets 409 and nothing is deleted
+  { route: `DELETE ${E}/populations/[populationId]`, expect: onEngagement("senior", 409) },
+  { route: `POST ${E}/populations/[populationId]/archive`, expect: onEngagement("senior", 400), validBody: () => ({ archived: false }) },
   { route: `GET ${E}/populations/[populationId]/items`, expect: onEngagement("viewer", 200) },
   { route: `GET ${E}/populations/[populationId]/original`, expect: onEngagement("viewer", 200) },
   { route: `GET ${E}/populations/[populationId]/profile`, expect: onEngagement("viewer", 200) },

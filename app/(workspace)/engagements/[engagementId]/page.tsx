@@ -67,7 +67,7 @@ export default async function EngagementPage({ params }: { params: Promise<{ eng
           title="Populations" className="lg:col-span-3"
           action={hasAtLeastRole(role, "senior") && <Link href={`/engagements/${engagement.id}/populations/new`} className="text-sm font-medium text-ledger-600 link">Load a ledger</Link>}
         >
-          <PopulationList engagementId={engagement.id} populations={populations} currency={engagement.currency} mayLoad={hasAtLeastRole(role, "senior")} />
+          <PopulationList engagementId={engagement.id} populations={populations.filter((p) => !p.archivedAt)} currency={engagement.currency} mayLoad={hasAtLeastRole(role, "senior")} />
         </Card>
         <Card
           title="Samples" className="lg:col-span-3"

@@ -15,7 +15,7 @@ export default async function NewSamplePage({ params, searchParams }: { params: 
   const { engagement, role } = await requireEngagementPage(engagementId);
   const mayPlan = hasAtLeastRole(role, "senior");
   const populations = mayPlan ? await listPopulationsByEngagementId(getDb(), { engagementId: engagement.id }) : [];
-  const choices = populations.map(({ id, name, rowCount, total, status, positive }) => ({ id, name, rowCount, total, status, positive }));
+  const choices = populations.filter((p) => !p.archivedAt).map(({ id, name, rowCount, total, status, positive }) => ({ id, name, rowCount, total, status, positive }));
   const preset = choices.find((p) => p.id === Number(query.population) && p.status === "reconciled")?.id;
   return (
     <>
