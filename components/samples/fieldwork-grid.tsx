@@ -175,7 +175,7 @@ export function FieldworkGrid({ engagementId, sampleId, method, drawVersion, may
         : <p className="text-sm text-ink-soft">Results are read-only here: the sample is locked, or your role is viewer (staff and above record results).</p>}
       {error && <p role="alert" className="text-sm text-brick-700">{error}</p>}
       {saves.notice && <Alert tone={saves.notice.tone}>{saves.notice.text}</Alert>}
-      <UndoBar offer={saves.undo} onDone={saves.clearUndo} />
+      <UndoBar key={saves.undo?.id ?? 0} offer={saves.undo} onDone={saves.clearUndo} />
       <div className="relative overflow-x-auto rounded-card border border-ink-line bg-paper-raised">
         <table className="w-full text-sm" aria-label="Sample items" onKeyDown={onGridKeyDown} onPaste={onPaste}>
           <thead className="bg-paper-sunk text-left text-xs uppercase tracking-wider text-ink-soft">

@@ -6,13 +6,12 @@ export interface UndoOffer { id: number; text: string; undo: () => Promise<void>
 
 const SECONDS = 8;
 
-/** "Saved … Undo" for a few seconds after a save; the undo is itself a new, audited change. */
+/** "Saved … Undo" for a few seconds after a save; the undo is itself a new, audited change. Key it by the offer's id so each offer counts down afresh. */
 export function UndoBar({ offer, onDone }: { offer: UndoOffer | null; onDone: () => void }) {
   const [left, setLeft] = useState(SECONDS);
   const [busy, setBusy] = useState(false);
   useEffect(() => {
     if (!offer) return;
-    setLeft(SECONDS);
     const started = Date.now();
     const t = setInterval(() => {
       const remaining = SECONDS - Math.floor((Date.now() - started) / 1000);

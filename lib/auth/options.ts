@@ -19,8 +19,8 @@ function clientIp(headers: Record<string, unknown> | undefined): string {
 /** True when the user's sessions issued at `issuedAtSeconds` (the JWT's iat) were ended by a password reset. */
 export async function sessionEnded(userId: number, issuedAtSeconds: number): Promise<boolean> {
   if (!Number.isFinite(userId) || !Number.isFinite(issuedAtSeconds)) return true;
-  const row = await getDb()("users").where({ id: userId }).first("sessions_valid_after");
-  const validAfter = row?.sessions_valid_after ? new Date(row.sessions_valid_after as string).getTime() : null;
+  const row = await getDb()("users").where({ id: userId }).first<{ sessions_valid_after: Date | string | null } | undefined>("sessions_valid_after");
+  const validAfter = row?.sessions_valid_after ? new Date(row.sessions_valid_after).getTime() : null;
   return validAfter !== null && issuedAtSeconds * 1000 < Math.floor(validAfter / 1000) * 1000;
 }
 

@@ -44,7 +44,7 @@ const VALIDATIONS: Partial<Record<ColumnKey, ExcelJS.DataValidation>> = {
   deviation: { type: "list", allowBlank: true, formulae: listOf(["Yes", "No"]), showErrorMessage: true, errorTitle: "Deviation", error: "Answer Yes or No." },
 };
 
-async function writeItemsSheet(wb: ExcelJS.Workbook, kind: WorkbookKind, items: SampleItemRecord[]) {
+function writeItemsSheet(wb: ExcelJS.Workbook, kind: WorkbookKind, items: SampleItemRecord[]) {
   const ws = wb.addWorksheet(ITEMS_SHEET, { views: [{ state: "frozen", ySplit: 1 }] });
   const columns = columnsFor(kind);
   ws.columns = columns.map((c) => ({ key: c.key, header: c.header, width: c.width, hidden: c.hidden ?? false }));
@@ -81,7 +81,7 @@ export async function buildFieldworkWorkbook(db: Knex, { engagementId, sampleId,
   wb.creator = "Sondage";
   wb.created = new Date();
   await writeCoverSheet(wb, { ...view, draw: view.currentDraw, kind, itemCount: items.length, exportedBy, caution: JUDGEMENT_CAUTION });
-  await writeItemsSheet(wb, kind, items);
+  writeItemsSheet(wb, kind, items);
   const bytes = Buffer.from(await wb.xlsx.writeBuffer());
   const slug = view.sample.name.toLowerCase().replace(/[^a-z0-9]+/g, "-").replace(/^-|-$/g, "").slice(0, 40) || "sample";
   return { bytes, fileName: `fieldwork-${slug}-${sampleId}.xlsx` };

@@ -5,14 +5,17 @@ import { AppError, conflict, notFound } from "@/lib/errors";
 
 async function usesOf(trx: Knex.Transaction, populationId: number) {
   const [samples, replacements] = await Promise.all([
-    trx("samples").where({ population_id: populationId }).select("name"),
-    trx("populations").where({ supersedes_id: populationId }).count({ n: "*" }).first(),
+    trx("samples").where({ population_id: populationId }).select<{ name: string }[]>("name"),
+    trx("populations").where({ supersedes_id: populationId }).count<{ n: number | string }[]>({ n: "*" }),
   ]);
-  return { samples: samples.map((s: { name: string }) => s.name), replaced: Number(replacements?.n ?? 0) > 0 };
+  return { samples: samples.map((s) => s.name), replaced: Number(replacements[0]?.n ?? 0) > 0 };
 }
 
-async function lockPopulation(trx: Knex.Transaction, engagementId: number, populationId: number) {
-  const row = await trx("populations").where({ id: populationId, engagement_id: engagementId }).whereNot("status", "loading").forUpdate().first();
+interface PopulationRow { name: string; row_count: number | string; total: string | number; source_file_name: string; source_sha256: string; archived_at: Date | string | null }
+
+async function lockPopulation(trx: Knex.Transaction, engagementId: number, populationId: number): Promise<PopulationRow> {
+  const row = await trx("populations").where({ id: populationId, engagement_id: engagementId }).whereNot("status", "loading").forUpdate()
+    .first<PopulationRow | undefined>("name", "row_count", "total", "source_file_name", "source_sha256", "archived_at");
   if (!row) throw notFound("No such population");
   return row;
 }
