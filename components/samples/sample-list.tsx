@@ -10,8 +10,8 @@ import { formatCount, METHOD_SHORT, SAMPLE_STATUS_LABELS } from "./labels";
 function Result({ o }: { o: SampleOverview | undefined }) {
   if (!o || o.items === null) return <span className="text-ink-soft">—</span>;
   if (o.withResult === 0) return <span className="text-ink-soft">no results yet</span>;
-  const figure = o.attribute ? countOf(o.deviations, "deviation") : o.projectedMisstatement === null ? null : `projected ${formatAmount(o.projectedMisstatement.toFixed(2))}`;
-  const bound = !o.attribute && o.upperBound !== null ? ` · bound ${formatAmount(o.upperBound.toFixed(2))}` : "";
+  const figure = o.attribute ? countOf(o.deviations, "deviation") : o.projectedMisstatement === null ? null : `projected ${formatAmount(o.projectedMisstatement)}`;
+  const bound = o.bound ? ` · ${o.bound.label} ${formatAmount(o.bound.amount)}` : "";
   return (
     <span>
       <span className="figures">{figure ?? "—"}{bound}</span>
