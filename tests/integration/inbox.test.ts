@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { getDb } from "@/db/knex";
 import { call } from "./support/call";
 import { makeEngagement, makeFirm, makeUser } from "./support/factory";
-import { drawSample, listSampleItems, loadCanonicalPopulation, planSample, saveResult } from "./support/samples";
+import { concludeSample, drawSample, listSampleItems, loadCanonicalPopulation, planSample, saveResult } from "./support/samples";
 import * as inbox from "@/app/api/me/inbox/route";
 import * as signOff from "@/app/api/engagements/[engagementId]/samples/[sampleId]/sign-off/route";
 import * as notes from "@/app/api/engagements/[engagementId]/samples/[sampleId]/notes/route";
@@ -24,6 +24,7 @@ beforeAll(async () => {
   sampleId = (await planSample(senior, engagement, { populationId, params: { method: "mus", tolerableMisstatement: "15000", factorMode: "table" } })).json.sample.id;
   await drawSample(senior, engagement, sampleId, 4242);
   for (const it of await listSampleItems(staff, engagement, sampleId)) await saveResult(staff, engagement, sampleId, it.id, { version: it.version, status: "done", auditedValue: it.bookValue });
+  expect((await concludeSample(staff, engagement, sampleId)).status).toBe(200);
 });
 
 afterAll(async () => {
