@@ -69,7 +69,7 @@ export function ReviewPanel({ engagementId, sampleId, role, review, notes, drawn
             </div>
           )}
         </div>
-        {drawn && <ConclusionForm key={review.conclusion?.writtenAt ?? "none"} base={base} computed={computed} complete={complete} conclusion={review.conclusion} mayWrite={isPreparer && !review.lock} />}
+        {drawn && <ConclusionForm base={base} computed={computed} complete={complete} conclusion={review.conclusion} mayWrite={isPreparer && !review.lock} />}
         <div className="flex flex-wrap gap-2">
           {!review.lock && isPreparer && (review.preparer
             ? <Action disabled why="You have signed off as preparer. A change to the work clears it; then sign again.">Signed off as preparer</Action>

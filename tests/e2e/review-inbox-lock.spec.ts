@@ -32,7 +32,7 @@ test("the manager's inbox counts the sample awaiting review; lock asks first, na
   expect((await page.request.post(`${api}/draw`, { data: { seed: 192019 } })).status()).toBe(201);
   const { items } = await (await page.request.get(`${api}/items?pageSize=200`)).json();
 
-  // The senior sends a request list to a new contact, records every result and signs off as preparer.
+  // The senior sends a request list to a new contact, records every result and the conclusion, and signs off as preparer.
   await page.goto(`${url}/requests/new`);
   const form = new NewRequestListPage(page);
   await form.inviteContact(CONTACT.name, CONTACT.email);
@@ -40,6 +40,9 @@ test("the manager's inbox counts the sample awaiting review; lock asks first, na
   await expect(page.getByRole("heading", { name: "Inbox run — remittances" })).toBeVisible();
   const rows = items.map((it: { id: number; version: number; bookValue: string }) => ({ itemId: it.id, version: it.version, status: "done", auditedValue: it.bookValue }));
   expect((await page.request.post(`${api}/results`, { data: { rows } })).status()).toBe(200);
+  // Issue 13: the auditor's conclusion is recorded before the preparer signs off.
+  const concluded = await page.request.put(`${api}/conclusion`, { data: { conclusion: "No misstatement found; the balance is fairly stated.", responses: [] } });
+  expect(concluded.status(), await concluded.text()).toBe(200);
   expect((await page.request.post(`${api}/sign-off`, { data: { as: "preparer" } })).status()).toBe(200);
 
   // The manager sees it counted on the top bar and listed in the inbox.
