@@ -22,8 +22,8 @@ export function CreateUserForm() {
   const onSubmit = handleSubmit(async (values) => {
     setFailure(null);
     try {
-      await api("/api/users", { body: values });
-      router.push("/admin/users");
+      const { invitationSent } = await api<{ invitationSent: boolean }>("/api/users", { body: values });
+      router.push(`/admin/users?invited=${encodeURIComponent(values.name)}${invitationSent ? "" : "&mail=failed"}`);
       router.refresh();
     } catch (err) {
       if (err instanceof ApiError && err.fields) for (const [f, m] of Object.entries(err.fields)) setError(f as keyof FormIn, { message: m[0] });
@@ -41,12 +41,8 @@ export function CreateUserForm() {
       <Field label="Firm role" error={errors.firmRole?.message}>
         {({ id }) => <Select id={id} {...register("firmRole")}><option value="member">Member</option><option value="admin">Administrator</option></Select>}
       </Field>
-      <div className="sm:col-span-2">
-        <Field label="First password" error={errors.password?.message} hint="At least 12 characters; give it to the person directly">
-          {({ id, describedBy, invalid }) => <Input id={id} type="text" autoComplete="off" aria-describedby={describedBy} aria-invalid={invalid} {...register("password")} />}
-        </Field>
-      </div>
-      <div className="sm:col-span-2"><Button type="submit" disabled={isSubmitting}>Create user</Button></div>
+      <p className="text-sm text-ink-soft sm:col-span-2">The person is e-mailed a link to choose their own password (valid once, for 14 days). You never see or type it.</p>
+      <div className="sm:col-span-2"><Button type="submit" disabled={isSubmitting}>{isSubmitting ? "Inviting…" : "Invite by e-mail"}</Button></div>
     </form>
   );
 }
