@@ -5,12 +5,12 @@ import { buttonClass } from "@/components/ui/button";
 import { CopyButton } from "./copy-button";
 import { formatBytes, POPULATION_STATUS_LABELS, populationStatusTone } from "./labels";
 import { formatCount } from "@/lib/format/number";
+import { formatDateTime } from "@/lib/format/dates";
 
 interface Props { population: PopulationRecord; engagement: { id: number; name: string; clientName: string }; replacedBy: { id: number; name: string } | null; replaces: { id: number; name: string } | null }
 
 /** Name, state and the source file's identity (name, size, SHA-256, the original for download). */
 export function PopulationHeader({ population: p, engagement, replacedBy, replaces }: Props) {
-  const loadedAt = new Date(p.createdAt).toISOString().slice(0, 16).replace("T", " ");
   return (
     <div className="mb-6 space-y-4 border-b border-ink-line pb-5">
       <div className="flex flex-wrap items-end justify-between gap-4">
@@ -21,7 +21,7 @@ export function PopulationHeader({ population: p, engagement, replacedBy, replac
           <h1 className="mt-1 flex flex-wrap items-center gap-3 text-2xl font-semibold">
             {p.name} <Badge tone={populationStatusTone(p.status)}>{POPULATION_STATUS_LABELS[p.status]}</Badge>
           </h1>
-          <p className="mt-1 text-sm text-ink-soft">Loaded by {p.createdByName} on <span className="figures">{loadedAt}</span> UTC</p>
+          <p className="mt-1 text-sm text-ink-soft">Loaded by {p.createdByName} on {formatDateTime(p.createdAt)}</p>
         </div>
         <a href={`/api/engagements/${engagement.id}/populations/${p.id}/original`} className={buttonClass("secondary")} download>Download the original file</a>
       </div>

@@ -76,7 +76,10 @@ test("every page meets WCAG 2.1 A/AA as axe-core checks it (auditor, administrat
     await expectNoViolations(page, `sample, ${tab} tab`);
   }
   await scan(page, `${sampleUrl}/trail`, "audit trail");
+  await scan(page, `${sampleUrl}/requests/new`, "new request list");
   await scan(page, teamListUrl, "request list (team view)");
+  await scan(page, `/engagements/${engagementId}/misstatements`, "summary of misstatements");
+  await scan(page, "/inbox", "reviewer's inbox");
 
   // The administrator's screens.
   await as(page, "admin");

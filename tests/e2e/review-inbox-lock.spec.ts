@@ -41,7 +41,7 @@ test("the manager's inbox counts the sample awaiting review; lock asks first, na
   const rows = items.map((it: { id: number; version: number; bookValue: string }) => ({ itemId: it.id, version: it.version, status: "done", auditedValue: it.bookValue }));
   expect((await page.request.post(`${api}/results`, { data: { rows } })).status()).toBe(200);
   // Issue 13: the auditor's conclusion is recorded before the preparer signs off.
-  const concluded = await page.request.put(`${api}/conclusion`, { data: { conclusion: "No misstatement found; the balance is fairly stated.", responses: [] } });
+  const concluded = await page.request.put(`${api}/conclusion`, { data: { conclusion: "No misstatement found; the balance is fairly stated.", responses: [{ kind: "alternative-procedures", note: "Subsequent receipts agreed" }] } });
   expect(concluded.status(), await concluded.text()).toBe(200);
   expect((await page.request.post(`${api}/sign-off`, { data: { as: "preparer" } })).status()).toBe(200);
 
