@@ -113,7 +113,7 @@ export function PlanForm({ engagementId, currency, performanceMateriality, popul
         </Card>
         <div className="flex items-center gap-3">
           <Button type="submit" disabled={isSubmitting}>{isSubmitting ? "Saving…" : editing ? "Save the changed plan" : "Save the plan"}</Button>
-          <Link href={editing ? `/engagements/${engagementId}/samples/${editing.sampleId}` : `/engagements/${engagementId}`} className="text-sm text-ink-soft hover:underline">Cancel</Link>
+          <Link href={editing ? `/engagements/${engagementId}/samples/${editing.sampleId}` : `/engagements/${engagementId}`} className="text-sm text-ink-soft link">Cancel</Link>
         </div>
       </div>
       <div className="lg:sticky lg:top-6 lg:col-span-2">

@@ -45,7 +45,7 @@ export function PlanSummary({ sample, currency, performanceMateriality, editHref
             </div>
           ))}
         </dl>
-        {editHref && <Link href={editHref} className="mt-3 inline-block text-sm font-medium text-ledger-600 hover:underline">Change the plan (possible until the draw)</Link>}
+        {editHref && <Link href={editHref} className="mt-3 inline-block text-sm font-medium text-ledger-600 link">Change the plan (possible until the draw)</Link>}
       </div>
       <div className="lg:col-span-2">
         <SizePanel plan={sample.plan} problem={null} busy={false} currency={currency} />

@@ -12,6 +12,7 @@ import * as m0010 from "./20261203_0010_firm_methodology";
 import * as m0011 from "./20261203_0011_auditor_conclusion";
 import * as m0012 from "./20261203_0012_advisor_rationale_reason";
 import * as m0014 from "./20261203_0014_misstatements";
+import * as m0016 from "./20261203_0016_sessions_and_archive";
 
 type Migration = { up(knex: Knex): Promise<void>; down(knex: Knex): Promise<void> };
 
@@ -30,6 +31,7 @@ const migrations: Record<string, Migration> = {
   "20261203_0011_auditor_conclusion": m0011,
   "20261203_0012_advisor_rationale_reason": m0012,
   "20261203_0014_misstatements": m0014,
+  "20261203_0016_sessions_and_archive": m0016,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

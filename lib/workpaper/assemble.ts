@@ -11,10 +11,25 @@ import { factorModeOfSample } from "@/lib/samples/methodology";
 import { workpaperReferenceFor } from "@/lib/review/lock";
 import { money } from "@/lib/samples/evaluation-blocks";
 import type { SampleEvaluation } from "@/lib/samples/evaluate";
-import type { PlanBlock, WorkpaperData, WorkpaperItem } from "@/templates/workpaper/workpaper-data";
+import type { EvidenceIndexRow, PlanBlock, WorkpaperData, WorkpaperItem } from "@/templates/workpaper/workpaper-data";
 import { AppError } from "@/lib/errors";
 import { getAuditorConclusionBySampleId } from "@/lib/data/auditor-conclusions";
 import { RESPONSE_LABELS } from "@/lib/validation/conclusion";
+import { CAUSE_LABELS } from "@/lib/validation/sample";
+import { describeChange } from "@/lib/review/describe-change";
+import { loadChangeContext } from "@/lib/review/audit-trail";
+import { randomStartOf } from "@/lib/samples/random-start";
+
+/** Files attached to the draw's items and not removed, in item order (item_evidence). */
+async function listEvidenceIndex(db: Knex, { drawId }: { drawId: number }): Promise<EvidenceIndexRow[]> {
+  const rows = await db("item_evidence as e").join("sample_items as i", "i.id", "e.sample_item_id").join("users as u", "u.id", "e.uploaded_by")
+    .where("i.draw_id", drawId).whereNull("e.deleted_at").orderBy("i.selection_order").orderBy("e.id")
+    .select("i.item_ref", "e.file_name", "e.sha256", "u.name", "e.uploaded_at");
+  return rows.map((r: Record<string, unknown>) => ({ reference: String(r.item_ref), fileName: String(r.file_name), sha256: String(r.sha256), uploadedBy: String(r.name), uploadedAt: new Date(r.uploaded_at as string).toISOString() }));
+}
+
+const moneyOrNull = (v: number | null) => (v === null ? null : money(v));
+const causeLabel = (cause: string) => CAUSE_LABELS[cause as keyof typeof CAUSE_LABELS] ?? cause;
 
 /** Rates go to the renderer as fractions ("0.95"); it formats them. */
 const pct = (v: number) => String(v);
@@ -39,13 +54,15 @@ const SIZE_METHODS = { "confidence-factor": "Confidence factors (AICPA Guide, 20
 export async function assembleWorkpaper(db: Knex, { engagementId, sampleId, draft, lock }: { engagementId: number; sampleId: number; draft: boolean; lock?: { lockedByName: string; role: string; lockedAt: Date; reference: string } }): Promise<WorkpaperData> {
   const { view, items, evaluation } = await loadSampleWithEvaluation(db, { engagementId, sampleId });
   const { sample, population, engagement, currentDraw, review } = view;
-  const [firm, notes, trail, recipe, adoptedRun, concluded] = await Promise.all([
+  const [firm, notes, trail, recipe, adoptedRun, concluded, changeContext, evidence] = await Promise.all([
     db("firms").where({ id: engagement.firmId }).first("name"),
     listNotesBySampleId(db, { sampleId }),
     listSampleAuditTrail(db, { sampleId, query: { kind: "all" } }),
     currentDraw ? recipeForSample(db, { sample }) : Promise.resolve(""),
     getAdoptedAdvisorRun(db, { sampleId }),
     getAuditorConclusionBySampleId(db, { sampleId }),
+    loadChangeContext(db, { sampleId }),
+    currentDraw ? listEvidenceIndex(db, { drawId: currentDraw.id }) : Promise.resolve([]),
   ]);
   const tolerable = money(Number(sample.params.tolerableMisstatement ?? engagement.performanceMateriality));
   const plan = sample.plan;
@@ -70,7 +87,7 @@ export async function assembleWorkpaper(db: Knex, { engagementId, sampleId, draf
     selection: {
       seed: currentDraw?.seed ?? 0, seedSource: currentDraw?.seedSource ?? "generated", algorithm: currentDraw?.algorithm ?? "not drawn", algorithmVersion: currentDraw?.algorithmVersion ?? "",
       drawVersion: currentDraw?.version ?? 0, drawnBy: currentDraw?.drawnByName ?? "", drawnAt: currentDraw?.drawnAt ?? new Date(0).toISOString(),
-      populationSha256: currentDraw?.populationSha256 ?? population.sourceSha256, selectionSha256: currentDraw?.selectionSha256 ?? "", randomStart: null,
+      populationSha256: currentDraw?.populationSha256 ?? population.sourceSha256, selectionSha256: currentDraw?.selectionSha256 ?? "", randomStart: currentDraw ? moneyOrNull(randomStartOf(currentDraw)) : null,
       reperform: { result: currentDraw?.reperformMatches === null || !currentDraw ? "not-checked" : currentDraw.reperformMatches ? "matches" : "differs", checkedAt: currentDraw?.reperformedAt ?? null, checkedBy: null, detail: null },
       recipe: recipe.split("\n"),
     },
@@ -83,7 +100,12 @@ export async function assembleWorkpaper(db: Knex, { engagementId, sampleId, draf
     reviewNotes: notes.map((n, i) => ({ number: i + 1, text: n.itemRef ? `[${n.itemRef}] ${n.text}` : n.text, raisedBy: n.raisedBy, raisedAt: n.raisedAt, answers: n.answer ? [{ text: n.answer, by: n.answeredBy ?? "", at: n.answeredAt ?? "" }] : [], clearedBy: n.clearedBy, clearedAt: n.clearedAt })),
     signOffs: { preparer: review.preparer, reviewer: review.reviewer },
     lock: lock ? { lockedBy: lock.lockedByName, role: lock.role, lockedAt: lock.lockedAt.toISOString() } : null,
-    auditTrail: trail.slice().reverse().map((e) => ({ at: e.at, who: e.actorName ?? "system", action: e.action, subject: `${e.entity} ${e.entityId}`, before: e.before === null ? null : JSON.stringify(e.before), after: e.after === null ? null : JSON.stringify(e.after) })),
+    evidence,
+    auditTrail: trail.slice().reverse().map((e) => {
+      const r = describeChange(e, changeContext);
+      const side = (k: "before" | "after") => (r.changes.length ? r.changes.map((c) => `${c.field}: ${c[k]}`).join("\n") : null);
+      return { at: e.at, who: e.actorName ?? "system", action: r.what, subject: r.subject, before: side("before"), after: side("after") };
+    }),
   };
 }
 
@@ -98,7 +120,7 @@ function toWorkpaperItem(i: SampleItemRecord): WorkpaperItem {
   return {
     selectionOrder: i.selectionOrder, reference: i.itemRef, description: i.description, rowNumber: i.populationRowNumber, stratum: i.stratum, topStratum: i.topStratum,
     hitPoints: (i.hitPoints ?? []).map((p) => money(p)), origin: i.origin, bookValue: i.bookValue, auditedValue: i.auditedValue, misstatement: i.misstatement,
-    status: i.status, cause: i.cause ? (i.causeNote ? `${i.cause}: ${i.causeNote}` : i.cause) : null, comment: i.voidReason ? `Void: ${i.voidReason}${i.comment ? ` — ${i.comment}` : ""}` : i.comment,
+    status: i.status, cause: i.cause ? (i.causeNote ? `${causeLabel(i.cause)}: ${i.causeNote}` : causeLabel(i.cause)) : null, comment: i.voidReason ? `Void: ${i.voidReason}${i.comment ? ` — ${i.comment}` : ""}` : i.comment,
     deviation: i.deviation, deviationNature: i.deviationNature,
   };
 }

@@ -32,5 +32,10 @@ describe("migrations", () => {
     expect((conclusionCols as { Field: string }[]).map((c) => c.Field).sort()).toEqual(["auditor_conclusion", "auditor_conclusion_at", "auditor_conclusion_by", "auditor_conclusion_role", "auditor_responses_json"]);
     const [reason] = await db.raw("SHOW COLUMNS FROM samples WHERE Field = 'advisor_run_reason'"); // 0012
     expect(reason[0].Type).toBe("text");
+    // 0016 (issue 19): sessions ended by a password reset; archived populations.
+    const [valid] = await db.raw("SHOW COLUMNS FROM users WHERE Field = 'sessions_valid_after'");
+    expect(valid[0].Type).toBe("timestamp(3)");
+    const [archived] = await db.raw("SHOW COLUMNS FROM populations WHERE Field IN ('archived_at', 'archived_by')");
+    expect(archived.map((c: { Field: string }) => c.Field).sort()).toEqual(["archived_at", "archived_by"]);
   });
 });

@@ -19,12 +19,12 @@ export default async function NewSamplePage({ params, searchParams }: { params: 
     ? await Promise.all([listPopulationsByEngagementId(getDb(), { engagementId: engagement.id }), listSamplesByEngagementId(getDb(), { engagementId: engagement.id })])
     : [[], []];
   const earlierSamples = samples.filter((s) => s.status === "drawn" && s.method !== "attribute").map(({ id, name }) => ({ id, name }));
-  const choices = populations.map(({ id, name, rowCount, total, status, positive }) => ({ id, name, rowCount, total, status, positive }));
+  const choices = populations.filter((p) => !p.archivedAt).map(({ id, name, rowCount, total, status, positive }) => ({ id, name, rowCount, total, status, positive }));
   const preset = choices.find((p) => p.id === Number(query.population) && p.status === "reconciled")?.id;
   return (
     <>
       <PageHeader eyebrow={engagement.clientName} title="Plan a sample">
-        <Link href={`/engagements/${engagement.id}`} className="hover:underline">{engagement.name}</Link> · the size is computed on the server as you type, from the population as loaded.
+        <Link href={`/engagements/${engagement.id}`} className="link">{engagement.name}</Link> · the size is computed on the server as you type, from the population as loaded.
       </PageHeader>
       {mayPlan ? (
         <PlanForm engagementId={engagement.id} currency={engagement.currency} performanceMateriality={engagement.performanceMateriality} populations={choices} initialPopulationId={preset} earlierSamples={earlierSamples} />

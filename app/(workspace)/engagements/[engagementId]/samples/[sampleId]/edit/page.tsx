@@ -18,7 +18,7 @@ export default async function EditSamplePage({ params }: { params: Promise<{ eng
   const { engagement, role } = await requireEngagementPage(engagementId);
   const [{ view }, populations, samples] = await Promise.all([loadSamplePage(engagement.id, sampleId), listPopulationsByEngagementId(getDb(), { engagementId: engagement.id }), listSamplesByEngagementId(getDb(), { engagementId: engagement.id })]);
   const { sample } = view;
-  const back = <Link href={`/engagements/${engagement.id}/samples/${sample.id}`} className="hover:underline">{sample.name}</Link>;
+  const back = <Link href={`/engagements/${engagement.id}/samples/${sample.id}`} className="link">{sample.name}</Link>;
   if (!hasAtLeastRole(role, "senior") || sample.status !== "planned") {
     return (
       <>
