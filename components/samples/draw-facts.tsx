@@ -1,7 +1,8 @@
 import type { DrawRecord } from "@/lib/data/samples";
 import { Badge } from "@/components/ui/badge";
+import { formatDateTime } from "@/lib/format/dates";
 
-const when = (iso: string) => `${iso.slice(0, 10)} ${iso.slice(11, 16)} UTC`;
+const when = formatDateTime;
 
 /** What anyone needs to redo the current draw: seed, generator, algorithm version and the population's fingerprint. */
 export function DrawFacts({ draw, itemCount }: { draw: DrawRecord; itemCount?: number }) {

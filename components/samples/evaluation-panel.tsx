@@ -17,6 +17,7 @@ const TONE = { supported: "success", "not-supported": "error", provisional: "inf
 function Chart({ e, direction }: { e: SampleEvaluation; direction: SampleRecord["direction"] }) {
   const b = e.block!;
   if (b.method === "attributes") {
+    if (b.controlFrequency) return null; // no tolerable rate to draw against: the test expects no deviation
     return <BoundChart title="Deviation rate" rows={[{ label: "Deviation rate", projected: b.sampleRate, upper: b.upperDeviationLimit }]} tolerable={b.tolerableRate} tolerableLabel="Tolerable rate" format={(n) => formatPercent(n, 1)} cap={1} legend={{ projected: "sample deviation rate", upper: "to the upper deviation limit" }} />;
   }
   const tm = Number(e.tolerableMisstatement);

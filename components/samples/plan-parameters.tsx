@@ -9,13 +9,17 @@ import { PercentInput } from "./percent-input";
 import { StrataBoundsEditor } from "./strata-bounds-editor";
 import type { PlanFormIn, PlanFormOut } from "./plan-values";
 import { formatMoney } from "@/lib/format/number";
+import { PlanSpreadFields, type EarlierSample } from "./plan-spread-fields";
+import { PlanAttributeMode } from "./plan-attribute-mode";
 
-interface Props { form: UseFormReturn<PlanFormIn, unknown, PlanFormOut>; plan: SamplePlan | null; currency: string; performanceMateriality: string }
+interface Props { form: UseFormReturn<PlanFormIn, unknown, PlanFormOut>; plan: SamplePlan | null; currency: string; performanceMateriality: string; earlierSamples?: EarlierSample[] }
+
+const SIZE_METHOD_TEXT = { "confidence-factor": "confidence factors (current Guide)", "expansion-factor": "expansion factors (older Guide presentation)" } as const;
 
 const money = "figures text-right";
 
 /** The parameters the chosen method needs, with the firm's usual defaults filled in. */
-export function PlanParameters({ form, plan, currency, performanceMateriality }: Props) {
+export function PlanParameters({ form, plan, currency, performanceMateriality, earlierSamples = [] }: Props) {
   const { register, watch, setValue, formState: { errors } } = form;
   const method = watch("params.method");
   const e = errors.params;
@@ -23,6 +27,7 @@ export function PlanParameters({ form, plan, currency, performanceMateriality }:
   const estimators = method === "stratified" ? STRATIFIED_ESTIMATORS : VARIABLES_ESTIMATORS;
   const bounds = (watch("params.strataBounds") ?? []).map(String);
   const selection = watch("params.selection");
+  const byFrequency = method === "attribute" && watch("params.attributeMode") === "control-frequency";
 
   return (
     <div className="grid gap-x-4 sm:grid-cols-2">
@@ -58,8 +63,9 @@ export function PlanParameters({ form, plan, currency, performanceMateriality }:
           </Field>
         </>
       )}
+      {method === "attribute" && <PlanAttributeMode form={form} />}
       {method === "attribute" ? (
-        <>
+        !byFrequency && <>
           <Field label="Tolerable deviation rate" error={e?.tolerableRate?.message}>
             {({ id, describedBy, invalid }) => <PercentInput id={id} aria-describedby={describedBy} aria-invalid={invalid} {...register("params.tolerableRate")} />}
           </Field>
@@ -96,16 +102,12 @@ export function PlanParameters({ form, plan, currency, performanceMateriality }:
             hint={plan?.interval !== undefined ? `Blank: the sampling interval, ${formatMoney(plan.interval)}. Items at or above it are all tested.` : "Blank: the sampling interval. Items at or above it are all tested."}>
             {({ id, describedBy, invalid }) => <Input id={id} aria-describedby={describedBy} aria-invalid={invalid} inputMode="decimal" className={money} placeholder={plan?.interval !== undefined ? String(plan.interval) : ""} {...register("params.topStratumThreshold")} />}
           </Field>
-          <Field label="Poisson factors" error={e?.factorMode?.message} hint="Exact gamma quantiles, or rounded up to 2 decimals as printed tables show them">
-            {({ id, describedBy, invalid }) => (
-              <Select id={id} aria-describedby={describedBy} aria-invalid={invalid} {...register("params.factorMode")}>
-                <option value="exact">Exact</option>
-                <option value="table">Table (2 decimals)</option>
-              </Select>
-            )}
-          </Field>
+          <p className="self-center text-xs text-ink-soft" data-testid="mus-methodology">
+            {plan?.sizeMethod ? <>Sized with {SIZE_METHOD_TEXT[plan.sizeMethod]}; factors {plan.factorMode === "table" ? "rounded up to 2 decimals, as printed tables" : "exact (gamma quantiles)"}.</> : "Size method and factors"} Both are set in the firm&apos;s methodology settings and recorded with the plan.
+          </p>
         </>
       )}
+      {(method === "random" || method === "systematic") && <PlanSpreadFields form={form} earlierSamples={earlierSamples} currency={currency} />}
       {method === "stratified" && (
         <div className="sm:col-span-2">
           <StrataBoundsEditor value={bounds} currency={currency} error={(e?.strataBounds as { message?: string } | undefined)?.message}

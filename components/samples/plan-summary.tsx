@@ -4,6 +4,7 @@ import { Amount } from "@/components/ui/amount";
 import { SizePanel } from "./size-panel";
 import { DIRECTION_LABELS, ESTIMATOR_LABELS, formatPercent, METHOD_LABELS } from "./labels";
 import { RISK_LEVEL_LABELS } from "@/lib/validation/methodology";
+import { factorModeOfSample } from "@/lib/samples/methodology";
 
 /** The plan as recorded: what is tested, the parameters, the size and how it was computed. */
 export function PlanSummary({ sample, currency, performanceMateriality, editHref }: { sample: SampleRecord; currency: string; performanceMateriality: string; editHref: string | null }) {
@@ -39,7 +40,7 @@ export function PlanSummary({ sample, currency, performanceMateriality, editHref
   }
   if (sample.method === "mus") facts.push(["Limits compared with TM", sample.methodology.musLimits === "gross" ? "Gross (firm methodology at planning)" : "Net of the other direction's projected misstatement (firm methodology at planning)"]);
   if (sample.plan.twoStage) facts.push(["Plan", `Two-stage: ${sample.plan.twoStage.firstStageSize} then, after exactly one deviation, ${sample.plan.twoStage.secondStageSize} more (risk of overreliance ${formatPercent(sample.plan.twoStage.riskOfOverreliance, 2)})`]);
-  if (sample.method === "mus") facts.push(["Poisson factors", p.factorMode === "exact" ? "Exact" : "Table (2 decimals)"]);
+  if (sample.method === "mus") facts.push(["Poisson factors", factorModeOfSample(sample) === "exact" ? "Exact (firm methodology at planning)" : "Table, 2 decimals (firm methodology at planning)"]);
   facts.push(["Size", <span key="sz" className="figures">{sample.chosenSize}{sample.chosenSize !== sample.computedSize && ` (computed ${sample.computedSize})`}</span>]);
   if (sample.sizeReason) facts.push(["Reason for the size", sample.sizeReason]);
   facts.push(["Planned", `${sample.createdAt.slice(0, 10)} by ${sample.createdByName} · plan version ${sample.planVersion}`]);
@@ -54,7 +55,7 @@ export function PlanSummary({ sample, currency, performanceMateriality, editHref
             </div>
           ))}
         </dl>
-        {editHref && <Link href={editHref} className="mt-3 inline-block text-sm font-medium text-ledger-600 hover:underline">Change the plan (possible until the draw)</Link>}
+        {editHref && <Link href={editHref} className="mt-3 inline-block text-sm font-medium text-ledger-600 link">Change the plan (possible until the draw)</Link>}
       </div>
       <div className="lg:col-span-2">
         <SizePanel plan={sample.plan} problem={null} busy={false} currency={currency} />

@@ -38,7 +38,7 @@ export function defaultPlanValues(performanceMateriality: string, populationId?:
     name: "", objective: "", assertion: "", direction: "overstatement",
     params: {
       method: "mus", estimator: undefined, confidence: "95", tolerableMisstatement: performanceMateriality, expectedMisstatement: "0.00",
-      riskOfIncorrectRejection: "10", tolerableRate: "5", expectedRate: "0", topStratumThreshold: "", factorMode: "exact", attributePlan: "fixed",
+      riskOfIncorrectRejection: "10", tolerableRate: "5", expectedRate: "0", topStratumThreshold: "", attributePlan: "fixed", attributeMode: "statistical",
       strataBounds: undefined, sampleSize: "", sizeReason: "",
       sizingBasis: "risk-assessment", assessedRisk: undefined, otherProceduresRisk: undefined, confidenceReason: "",
       keyItemThreshold: "", keyItems: [], selection: "random", projection: "ratio",
@@ -46,6 +46,7 @@ export function defaultPlanValues(performanceMateriality: string, populationId?:
   };
 }
 
+const SPREAD_FIELDS = ["spreadBasis", "spreadSampleId", "expectedStdDev", "spreadReason"];
 const blank = (v: unknown) => textOf(v).trim() === "";
 
 /**
@@ -62,11 +63,11 @@ export function toRequest(values: PlanFormIn): PlanFormIn {
   const keyItems = ["keyItemThreshold", "keyItems"];
   const keep: Record<string, string[]> = {
     nonstatistical: ["confidence", "tolerableMisstatement", "expectedMisstatement", "selection", "projection", ...keyItems, ...sizing],
-    mus: ["confidence", "tolerableMisstatement", "expectedMisstatement", "topStratumThreshold", "factorMode", ...sizing],
-    attribute: ["confidence", "tolerableRate", "expectedRate", "attributePlan", ...sizing],
+    mus: ["confidence", "tolerableMisstatement", "expectedMisstatement", "topStratumThreshold", ...sizing],
+    attribute: p.attributeMode === "control-frequency" ? ["attributeMode", "controlFrequency"] : ["confidence", "tolerableRate", "expectedRate", "attributePlan", "attributeMode", ...sizing],
     stratified: ["estimator", "confidence", "tolerableMisstatement", "expectedMisstatement", "riskOfIncorrectRejection", "strataBounds", ...keyItems, ...sizing],
-    random: ["estimator", "confidence", "tolerableMisstatement", "expectedMisstatement", "riskOfIncorrectRejection", ...keyItems, ...sizing],
-    systematic: ["estimator", "confidence", "tolerableMisstatement", "expectedMisstatement", "riskOfIncorrectRejection", ...keyItems, ...sizing],
+    random: ["estimator", "confidence", "tolerableMisstatement", "expectedMisstatement", "riskOfIncorrectRejection", ...SPREAD_FIELDS, ...keyItems, ...sizing],
+    systematic: ["estimator", "confidence", "tolerableMisstatement", "expectedMisstatement", "riskOfIncorrectRejection", ...SPREAD_FIELDS, ...keyItems, ...sizing],
   };
   const allowed = new Set(["method", "sampleSize", "sizeReason", ...(keep[String(method)] ?? [])]);
   for (const k of Object.keys(p)) if (!allowed.has(k)) delete p[k];
@@ -85,6 +86,8 @@ export function fromStored(values: PlanFormOut): PlanFormIn {
       topStratumThreshold: p.topStratumThreshold ?? "", sampleSize: p.sampleSize ?? "", sizeReason: p.sizeReason ?? "",
       sizingBasis: p.sizingBasis ?? "confidence-override", confidenceReason: p.confidenceReason ?? (p.sizingBasis ? "" : "Planned with a typed confidence before risk-based sizing existed"),
       keyItemThreshold: p.keyItemThreshold ?? "", keyItems: p.keyItems ?? [], selection: p.selection ?? "random", projection: p.projection ?? "ratio",
+      attributeMode: p.attributeMode ?? "statistical", spreadBasis: p.spreadBasis ?? undefined, spreadSampleId: p.spreadSampleId ?? "",
+      expectedStdDev: p.expectedStdDev ?? "", spreadReason: p.spreadReason ?? "",
     },
   };
 }

@@ -16,14 +16,18 @@ import { EvaluationPanel } from "./evaluation-panel";
 import { EXTENDABLE, REPLACEABLE } from "./labels";
 import { HaphazardPicker } from "./haphazard-picker";
 import { AnomalyPanel } from "./anomaly-panel";
+import { SAMPLE_CHANGED_EVENT } from "./events";
+import type { ItemNoteMark } from "@/components/review/note-labels";
 
 interface Props {
   engagementId: number; initialView: SampleView; initialEvaluation: SampleEvaluation;
   may: { record: boolean; draw: boolean; acceptAnomaly?: boolean }; anomaliesAllowed?: boolean; planSummary: React.ReactNode;
+  /** Review notes raised on items, shown on their rows. */
+  notesByItem?: Record<number, ItemNoteMark[]>;
 }
 
 /** The sample's three rooms: its plan, its draw, and the results with the live evaluation. */
-export function SampleWorkspace({ engagementId, initialView, initialEvaluation, may, anomaliesAllowed = true, planSummary }: Props) {
+export function SampleWorkspace({ engagementId, initialView, initialEvaluation, may, anomaliesAllowed = true, planSummary, notesByItem = {} }: Props) {
   const router = useRouter();
   const [view, setView] = useState(initialView);
   const [tab, setTab] = useState(initialView.currentDraw ? "results" : "draw");
@@ -47,6 +51,12 @@ export function SampleWorkspace({ engagementId, initialView, initialEvaluation, 
 
   const changed = useCallback(() => { setChanges((n) => n + 1); setEvaluating(true); }, []);
   const refreshView = useCallback(async () => { setView(await api<SampleView>(base)); }, [base]);
+  // A workbook import elsewhere on the page changed the results: refetch the grid, progress and evaluation.
+  useEffect(() => {
+    const onChange = () => { setGridKey((k) => k + 1); changed(); void refreshView().catch(() => undefined); };
+    window.addEventListener(SAMPLE_CHANGED_EVENT, onChange);
+    return () => window.removeEventListener(SAMPLE_CHANGED_EVENT, onChange);
+  }, [changed, refreshView]);
   const onDrawn = (next: SampleView) => { setView(next); setGridKey((k) => k + 1); changed(); setTab(next.currentDraw?.seedSource === "haphazard" ? "draw" : "results"); router.refresh(); };
   const attribute = sample.method === "attribute";
 
@@ -90,7 +100,7 @@ export function SampleWorkspace({ engagementId, initialView, initialEvaluation, 
             <Card title="Items and results">
               <p className="mb-2 text-xs text-ink-soft" data-testid="unauditable-treatment">{evaluation.notes[0]}</p>
               <FieldworkGrid engagementId={engagementId} sampleId={sample.id} method={sample.method} drawVersion={currentDraw.version}
-                mayRecord={may.record} mayReplace={may.draw && REPLACEABLE.includes(sample.method)} refreshKey={gridKey} onSaved={changed} />
+                mayRecord={may.record} mayReplace={may.draw && REPLACEABLE.includes(sample.method)} refreshKey={gridKey} onSaved={changed} notesByItem={notesByItem} />
             </Card>
             {sample.method !== "attribute" && evaluation.progress.misstatements > 0 && (
               <Card title="Anomalous misstatements">

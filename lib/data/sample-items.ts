@@ -110,36 +110,45 @@ export async function getItemById(db: Knex, { drawId, itemId }: { drawId: number
   return toItem(row);
 }
 
+type ResultWrite = { engagementId: number; sampleId: number; drawId: number; itemId: number; actorId: number; input: SaveResult };
+
 /**
- * Saves an item's result if nobody changed it since the caller read it (optimistic concurrency):
- * a stale version gets 409 naming who changed it and when, and nothing is overwritten.
+ * Writes one item's result inside the caller's transaction (after `beginResultWrite`), if nobody
+ * changed it since the caller read it (optimistic concurrency): a stale version gets 409 naming who
+ * changed it and when, and nothing is overwritten. One audit row per item.
  */
-export async function saveItemResult(db: Knex, { engagementId, sampleId, drawId, itemId, actorId, input }: { engagementId: number; sampleId: number; drawId: number; itemId: number; actorId: number; input: SaveResult }) {
+export async function applyItemResult(trx: Knex.Transaction, { engagementId, sampleId, drawId, itemId, actorId, input }: ResultWrite): Promise<SampleItemRecord> {
+  const before = await itemQuery(trx, drawId).andWhere("i.id", itemId).forUpdate().first();
+  if (!before) throw notFound("No such item in this sample");
+  if (before.status === "void") throw new AppError(409, "void_item", "This item was voided and replaced; record the result on its replacement.");
+  if (Number(before.version) !== input.version) {
+    const when = before.updated_at ? new Date(before.updated_at).toISOString().replace("T", " ").slice(0, 16) + " UTC" : "recently";
+    throw new AppError(409, "stale", `${before.updated_by_name ?? "Someone"} changed this item at ${when} after you opened it. Reload to see their change; yours was not saved.`, undefined);
+  }
+  const patch = {
+    status: input.status,
+    audited_value: input.status === "not-auditable" ? null : input.auditedValue ?? null,
+    cause: input.cause ?? null, cause_note: input.causeNote ?? null, deviation: input.deviation ?? null,
+    deviation_nature: input.deviationNature ?? null, comment: input.comment ?? null,
+    version: input.version + 1, updated_by: actorId, updated_at: trx.fn.now(3),
+  };
+  // A later change of the result clears an anomaly mark and its acceptance (they judged the earlier figures).
+  const amountText = (v: unknown) => (v === null || v === undefined ? "" : Number(v).toFixed(2));
+  const resultChanged = before.status !== input.status || amountText(before.audited_value) !== amountText(patch.audited_value);
+  const anomalyCleared = Boolean(before.anomaly_justification) && resultChanged;
+  await trx("sample_items").where({ id: itemId }).update(anomalyCleared ? { ...patch, ...ANOMALY_CLEARED } : patch);
+  const after = await getItemById(trx, { drawId, itemId });
+  const view = (i: SampleItemRecord) => ({ status: i.status, auditedValue: i.auditedValue, cause: i.cause, deviation: i.deviation, comment: i.comment });
+  await recordAudit(trx, { actorUserId: actorId, engagementId, sampleId, entity: "sample_item", entityId: itemId, action: "record-result", before: view(toItem(before)), after: anomalyCleared ? { ...view(after), anomalyCleared: true } : view(after) });
+  return after;
+}
+
+/** Saves one item's result in its own transaction (see applyItemResult). */
+export async function saveItemResult(db: Knex, write: ResultWrite) {
   return db.transaction(async (trx) => {
-    const signOffsCleared = await beginResultWrite(trx, { sampleId, actorId, what: "an item's result" });
-    const before = await itemQuery(trx, drawId).andWhere("i.id", itemId).forUpdate().first();
-    if (!before) throw notFound("No such item in this sample");
-    if (before.status === "void") throw new AppError(409, "void_item", "This item was voided and replaced; record the result on its replacement.");
-    if (Number(before.version) !== input.version) {
-      const when = before.updated_at ? new Date(before.updated_at).toISOString().replace("T", " ").slice(0, 16) + " UTC" : "recently";
-      throw new AppError(409, "stale", `${before.updated_by_name ?? "Someone"} changed this item at ${when} after you opened it. Reload to see their change; yours was not saved.`, undefined);
-    }
-    const patch = {
-      status: input.status,
-      audited_value: input.status === "not-auditable" ? null : input.auditedValue ?? null,
-      cause: input.cause ?? null, cause_note: input.causeNote ?? null, deviation: input.deviation ?? null,
-      deviation_nature: input.deviationNature ?? null, comment: input.comment ?? null,
-      version: input.version + 1, updated_by: actorId, updated_at: trx.fn.now(3),
-    };
-    // A later change of the result clears an anomaly mark and its acceptance (they judged the earlier figures).
-    const amountText = (v: unknown) => (v === null || v === undefined ? "" : Number(v).toFixed(2));
-    const resultChanged = before.status !== input.status || amountText(before.audited_value) !== amountText(patch.audited_value);
-    const anomalyCleared = Boolean(before.anomaly_justification) && resultChanged;
-    await trx("sample_items").where({ id: itemId }).update(anomalyCleared ? { ...patch, ...ANOMALY_CLEARED } : patch);
-    const after = await getItemById(trx, { drawId, itemId });
-    const view = (i: SampleItemRecord) => ({ status: i.status, auditedValue: i.auditedValue, cause: i.cause, deviation: i.deviation, comment: i.comment });
-    await recordAudit(trx, { actorUserId: actorId, engagementId, sampleId, entity: "sample_item", entityId: itemId, action: "record-result", before: view(toItem(before)), after: anomalyCleared ? { ...view(after), anomalyCleared: true } : view(after) });
+    const signOffsCleared = await beginResultWrite(trx, { sampleId: write.sampleId, actorId: write.actorId, what: "an item's result" });
+    const item = await applyItemResult(trx, write);
     // samples.updated_at is not touched here: that would take the sample row exclusively and queue every save behind every other.
-    return { item: after, signOffsCleared };
+    return { item, signOffsCleared };
   });
 }

@@ -12,6 +12,7 @@ import { evaluationSettingsOf } from "./evaluation-settings";
 import { methodologyOfSample } from "./methodology";
 import { buildNonstatisticalEvaluation } from "./evaluation-block-nonstatistical";
 import type { AtActualInput } from "./evaluation-at-actual";
+import { CONTROL_FREQUENCY_LABELS } from "@/lib/validation/sample";
 
 export const JUDGEMENT_CAUTION = "These results support, and do not replace, the auditor's professional judgement, the applicable standards (AU-C 530, ISA 530, AS 2315; AU-C 450, ISA 450) and the firm's methodology.";
 
@@ -119,7 +120,12 @@ function blockFor(sample: SampleRecord, population: PopulationRecord, active: Sa
   if (sample.method === "attribute") {
     const deviates = (i: SampleItemRecord) => Boolean(i.deviation) || i.status === "not-auditable";
     const deviations = done.filter(deviates).length;
-    const common = { confidence: p.confidence, tolerableRate: p.tolerableRate!, expectedRate: p.expectedRate, sampleSize: done.length, allowedDeviations: sample.plan.allowedDeviations ?? 0, deviations };
+    const row = sample.plan.controlFrequencyRow;
+    const common = {
+      confidence: p.confidence, tolerableRate: p.tolerableRate ?? 0, expectedRate: p.expectedRate, sampleSize: done.length, allowedDeviations: sample.plan.allowedDeviations ?? 0, deviations,
+      populationSize: sample.plan.model === "hypergeometric" ? sample.plan.frameSize : undefined,
+      controlFrequency: row ? { frequency: CONTROL_FREQUENCY_LABELS[row.frequency], minimumSampleSize: row.minimumSampleSize } : undefined,
+    };
     const plan = sample.plan.twoStage;
     if (!plan) return buildAttributesEvaluation(common);
     const stage2 = done.filter((i) => i.origin === "extension");

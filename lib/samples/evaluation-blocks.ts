@@ -198,21 +198,57 @@ export const ATTRIBUTES_REFERENCES = [
   "Sample size: smallest n with BinomialCDF(⌈EDR·n⌉; n, TDR) ≤ 1 − confidence, which reproduces the AICPA Audit Guide \"Audit Sampling\" attribute tables.",
 ];
 
+export const HYPERGEOMETRIC_REFERENCES = [
+  "Small population (below the firm's threshold): sampling without replacement, hypergeometric. Size: smallest n with HypergeometricCDF(⌈EDR·n⌉; N, M, n) ≤ 1 − confidence, M = ⌈TDR·N⌉ deviations assumed in the population.",
+  "Upper deviation limit: M_U / N, M_U the largest number of population deviations with HypergeometricCDF(k; N, M_U, n) > 1 − confidence (the exact hypergeometric bound).",
+];
+
+export const CONTROL_FREQUENCY_REFERENCES = [
+  "Size from the firm's control-frequency table (how often the manual control operates → minimum items): firm methodology, not a statistical size. No deviation is expected: any deviation means the test does not support the planned reliance without further work (common practice).",
+  "The upper deviation limit is shown for information only: one-sided Clopper–Pearson bound, C. J. Clopper & E. S. Pearson, Biometrika 26 (1934).",
+];
+
 export function buildAttributesEvaluation(o: {
   confidence: number; tolerableRate: number; expectedRate: number; sampleSize: number; allowedDeviations: number;
   deviations: number; limitMode?: "exact" | "table";
   twoStage?: { plan: TwoStageAttributePlan; firstStageDeviations: number; secondStageDeviations?: number };
+  /** A plan sized with the hypergeometric distribution on its population of N items is evaluated with it. */
+  populationSize?: number;
+  controlFrequency?: { frequency: string; minimumSampleSize: number };
 }): AttributesEvaluationBlock {
-  const r = evaluateAttributes({ sampleSize: o.sampleSize, deviations: o.deviations, confidence: o.confidence, mode: o.limitMode });
+  const r = evaluateAttributes({ sampleSize: o.sampleSize, deviations: o.deviations, confidence: o.confidence, mode: o.limitMode, populationSize: o.controlFrequency ? undefined : o.populationSize });
   const pct = (v: number) => `${(v * 100).toFixed(2)}%`;
-  if (o.twoStage) return { ...twoStageBlock(o, r, o.twoStage), formulaReferences: [TWO_STAGE_REFERENCE, ...ATTRIBUTES_REFERENCES] };
+  const model = { model: r.model, populationSize: r.model === "hypergeometric" ? o.populationSize! : null, upperDeviations: r.upperDeviations ?? null, controlFrequency: null };
+  if (o.twoStage) return { ...twoStageBlock(o, r, o.twoStage), ...model, formulaReferences: [TWO_STAGE_REFERENCE, ...ATTRIBUTES_REFERENCES] };
+  if (o.controlFrequency) return controlFrequencyBlock(o, r, o.controlFrequency);
   const supported = r.upperLimit <= o.tolerableRate;
   return {
     method: "attributes", confidence: o.confidence, tolerableRate: o.tolerableRate, expectedRate: o.expectedRate,
-    sampleSize: o.sampleSize, allowedDeviations: o.allowedDeviations, deviations: o.deviations,
+    sampleSize: o.sampleSize, allowedDeviations: o.allowedDeviations, deviations: o.deviations, ...model,
     sampleRate: r.sampleRate, upperDeviationLimit: r.upperLimit, limitMode: r.mode, allowanceForSamplingRisk: r.upperLimit - r.sampleRate, twoStage: null, supported,
     statement: `${o.deviations} deviation${o.deviations === 1 ? "" : "s"} in ${o.sampleSize}: the upper deviation limit ${pct(r.upperLimit)} is ${supported ? "at or below" : "above"} the tolerable deviation rate ${pct(o.tolerableRate)}${o.deviations > o.allowedDeviations ? `; more deviations were found (${o.deviations}) than the plan allowed (${o.allowedDeviations})` : ""}.`,
-    warnings: [], formulaReferences: ATTRIBUTES_REFERENCES,
+    warnings: [], formulaReferences: r.model === "hypergeometric" ? HYPERGEOMETRIC_REFERENCES : ATTRIBUTES_REFERENCES,
+  };
+}
+
+/** A control test sized from the firm's frequency table is judged on its deviations: none is expected (common practice). */
+function controlFrequencyBlock(
+  o: { confidence: number; sampleSize: number; deviations: number },
+  r: ReturnType<typeof evaluateAttributes>,
+  row: { frequency: string; minimumSampleSize: number },
+): AttributesEvaluationBlock {
+  const supported = o.deviations === 0;
+  const pct = (v: number) => `${(v * 100).toFixed(2)}%`;
+  return {
+    method: "attributes", confidence: o.confidence, tolerableRate: 0, expectedRate: 0,
+    sampleSize: o.sampleSize, allowedDeviations: 0, deviations: o.deviations,
+    model: "binomial", populationSize: null, upperDeviations: null, controlFrequency: row,
+    sampleRate: r.sampleRate, upperDeviationLimit: r.upperLimit, limitMode: r.mode, allowanceForSamplingRisk: r.upperLimit - r.sampleRate, twoStage: null, supported,
+    statement: supported
+      ? `No deviation in ${o.sampleSize} occurrence${o.sampleSize === 1 ? "" : "s"} tested (the firm's control-frequency table: ${row.frequency} → ${row.minimumSampleSize}): the test supports reliance on the control, subject to the auditor's judgement. For information, the upper deviation limit at ${pct(o.confidence)} confidence is ${pct(r.upperLimit)}.`
+      : `${o.deviations} deviation${o.deviations === 1 ? "" : "s"} in ${o.sampleSize} occurrences tested from the firm's control-frequency table: a frequency-based test expects none, so it does not support the planned reliance without further work (understand the cause, extend the test or test a compensating control).`,
+    warnings: ["Sized from the firm's control-frequency table: not a statistical sample; the upper deviation limit is shown for information only."],
+    formulaReferences: CONTROL_FREQUENCY_REFERENCES,
   };
 }
 
@@ -228,7 +264,7 @@ function twoStageBlock(
   o: { confidence: number; tolerableRate: number; expectedRate: number; sampleSize: number; allowedDeviations: number; deviations: number },
   r: ReturnType<typeof evaluateAttributes>,
   t: { plan: TwoStageAttributePlan; firstStageDeviations: number; secondStageDeviations?: number },
-): Omit<AttributesEvaluationBlock, "formulaReferences"> {
+): Omit<AttributesEvaluationBlock, "formulaReferences" | "model" | "populationSize" | "upperDeviations" | "controlFrequency"> {
   const e = evaluateTwoStageAttributes(t);
   const pct = (v: number) => `${(v * 100).toFixed(2)}%`;
   const stage2 = t.secondStageDeviations === undefined ? "" : `, stage 2: ${t.secondStageDeviations} in ${t.plan.secondStageSize}`;

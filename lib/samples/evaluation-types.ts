@@ -180,6 +180,13 @@ export interface AttributesEvaluationBlock {
   upperDeviationLimit: number;
   /** "exact" Clopper–Pearson limit, or "table" (rounded up to 0.1 point as the published tables). */
   limitMode: "exact" | "table";
+  /** The limit's distribution: binomial, or hypergeometric for a plan sized on its population's N. */
+  model: "binomial" | "hypergeometric";
+  /** Hypergeometric only: N and M_U, the largest number of deviations in the population the sample leaves plausible. */
+  populationSize: number | null;
+  upperDeviations: number | null;
+  /** Plans sized from the firm's control-frequency table: the row used. No deviation is expected; the limit is for information. */
+  controlFrequency: { frequency: string; minimumSampleSize: number } | null;
   /** UDL − k/n. */
   allowanceForSamplingRisk: number;
   /** A planned two-stage plan decides by its own rule (the deviation limit above is shown for information). */

@@ -2,13 +2,21 @@ import { z } from "zod";
 import { moneyInput } from "./engagement";
 import { signedMoney } from "./population";
 import { MUS_MIN_CONFIDENCE } from "@/lib/sampling/evaluate-mus";
-import { RISK_LEVELS } from "./methodology";
+import { CONTROL_FREQUENCIES, RISK_LEVELS } from "./methodology";
 
 export const SAMPLE_METHODS = ["mus", "random", "systematic", "stratified", "attribute", "nonstatistical"] as const;
 export type SampleMethod = (typeof SAMPLE_METHODS)[number];
 export const VARIABLES_ESTIMATORS = ["mean-per-unit", "difference", "ratio", "regression"] as const;
 export const STRATIFIED_ESTIMATORS = ["mean-per-unit", "difference", "separate-ratio", "combined-ratio"] as const;
 export const DIRECTIONS = ["overstatement", "understatement", "both"] as const;
+/** Where a classical plan's expected standard deviation comes from (Cochran 1977 ch. 6–7: the spread that matters is the estimator's). */
+export const SPREAD_BASES = ["book-values", "prior-sample", "entered"] as const;
+export type SpreadBasis = (typeof SPREAD_BASES)[number];
+/** Attribute plans: sized statistically, or from the firm's control-frequency table for manual controls. */
+export const ATTRIBUTE_MODES = ["statistical", "control-frequency"] as const;
+export const CONTROL_FREQUENCY_LABELS: Record<(typeof CONTROL_FREQUENCIES)[number], string> = {
+  annual: "Annual", quarterly: "Quarterly", monthly: "Monthly", weekly: "Weekly", daily: "Daily", "several-times-daily": "Several times a day",
+};
 
 export const METHOD_LABELS: Record<SampleMethod, string> = {
   mus: "Monetary-unit (PPS), Stringer bound",
@@ -54,8 +62,13 @@ export const SampleParamsSchema = z.object({
   attributePlan: z.enum(["fixed", "two-stage"], "Choose a fixed or a two-stage plan").default("fixed"),
   expectedRate: fraction("Expected deviation rate", 0, 0.5).default(0),
   topStratumThreshold: moneyInput.optional(),
-  factorMode: z.enum(["exact", "table"]).default("exact"),
   strataBounds: strataBounds.optional(),
+  spreadBasis: z.enum(SPREAD_BASES, "Choose where the expected standard deviation comes from").optional(),
+  spreadSampleId: z.coerce.number().int().positive("Choose the earlier sample").optional(),
+  expectedStdDev: moneyInput.optional(),
+  spreadReason: z.string().trim().max(2000).optional().transform((v) => (v ? v : undefined)),
+  attributeMode: z.enum(ATTRIBUTE_MODES).optional(),
+  controlFrequency: z.enum(CONTROL_FREQUENCIES, "Choose how often the control operates").optional(),
   sampleSize: z.coerce.number().int("Whole items only").positive().optional(),
   sizeReason: z.string().trim().max(2000).optional().transform((v) => (v ? v : undefined)),
   /** How the confidence (and, for nonstatistical plans, the assurance factor) is set; absent on plans made before issue 15. */
@@ -93,6 +106,10 @@ export const SampleParamsSchema = z.object({
     return;
   }
   if (p.method === "attribute") {
+    if (p.attributeMode === "control-frequency") {
+      need("controlFrequency", "Choose how often the control operates");
+      return;
+    }
     need("tolerableRate", "Give the tolerable deviation rate");
     if (p.tolerableRate !== undefined && p.expectedRate >= p.tolerableRate) ctx.addIssue({ code: "custom", path: ["expectedRate"], message: "The expected deviation rate must be below the tolerable rate" });
     return;
@@ -103,6 +120,12 @@ export const SampleParamsSchema = z.object({
   if (p.method === "stratified") {
     if (!p.estimator || !(STRATIFIED_ESTIMATORS as readonly string[]).includes(p.estimator)) ctx.addIssue({ code: "custom", path: ["estimator"], message: "Choose mean-per-unit, difference, separate ratio or combined ratio" });
     need("strataBounds", "Give the book-value band boundaries");
+  }
+  if (p.spreadBasis === "prior-sample") need("spreadSampleId", "Choose the earlier sample whose results give the spread");
+  if (p.spreadBasis === "entered") {
+    need("expectedStdDev", "Enter the expected standard deviation");
+    if (p.expectedStdDev !== undefined && !(Number(p.expectedStdDev) > 0)) ctx.addIssue({ code: "custom", path: ["expectedStdDev"], message: "The expected standard deviation must be above zero" });
+    need("spreadReason", "Say where the entered figure comes from");
   }
 });
 export type SampleParamsInput = z.input<typeof SampleParamsSchema>;

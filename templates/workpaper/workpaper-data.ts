@@ -57,7 +57,11 @@ export interface WorkpaperData {
   signOffs: { preparer: SignOff | null; reviewer: SignOff | null };
   lock: LockInfo | null;
   auditTrail: AuditTrailRow[];
+  /** The evidence index: every file attached to an item of the current draw (absent in older fixtures). */
+  evidence?: EvidenceIndexRow[];
 }
+
+export interface EvidenceIndexRow { reference: string; fileName: string; sha256: string; uploadedBy: string; uploadedAt: IsoTime }
 
 export interface ObjectiveBlock {
   /** The test objective in the auditor's words. */

@@ -2,6 +2,7 @@
 import type { ReactNode } from "react";
 import { Document, Page, View } from "@react-pdf/renderer";
 import { AuditTrailAppendix } from "./audit-trail-appendix";
+import { EvidenceIndexSection } from "./evidence-index-section";
 import { ConclusionSection } from "./conclusion-section";
 import { EvaluationSection } from "./evaluation-section";
 import { ObjectiveSection } from "./objective-section";
@@ -66,6 +67,7 @@ export function WorkpaperDocument({ data }: { data: WorkpaperData }) {
       </Sheet>
       <Sheet data={data}>
         <AuditTrailAppendix data={data} />
+        <EvidenceIndexSection data={data} />
       </Sheet>
     </Document>
   );
