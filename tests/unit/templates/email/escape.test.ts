@@ -36,7 +36,7 @@ describe("oneLine", () => {
 
 describe("dates", () => {
   it("spells out the instant in UTC", () => {
-    expect(formatWhen(new Date("2026-12-02T09:05:00Z"))).toBe("2 December 2026, 09:05 UTC");
+    expect(formatWhen(new Date("2026-12-02T09:05:00Z"))).toBe("2 December 2026 at 09:05 UTC");
   });
 
   it("shows a period end as its calendar day, whatever the time zone", () => {

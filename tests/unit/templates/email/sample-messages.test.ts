@@ -17,7 +17,7 @@ const render = {
 
 describe("every sample message", () => {
   it("covers every template but the invitations and the client-request messages (client-requests.test.ts)", () => {
-    const notSample = ["engagement-invitation", "client-invitation", "request-list-sent", "request-file-returned", "request-reminders", "request-list-closed"];
+    const notSample = ["engagement-invitation", "client-invitation", "staff-invitation", "request-list-sent", "request-file-returned", "request-reminders", "request-list-closed"];
     expect(Object.keys(render).sort()).toEqual(Object.keys(EMAIL_TEMPLATES).filter((k) => !notSample.includes(k)).sort());
   });
 
@@ -40,7 +40,7 @@ describe("every sample message", () => {
         for (const part of [m.text, m.html]) {
           expect(part).toContain("Hello Priya Nair,");
           expect(part).toContain("Tomás Reyes");
-          expect(part).toContain("2 December 2026, 09:05 UTC");
+          expect(part).toContain("2 December 2026 at 09:05 UTC");
         }
       });
 
