@@ -25,11 +25,17 @@ export function resultOfItem(item: SampleItemRecord): RowResult {
   };
 }
 
+/** How the item came into the sample: a key item (examined 100 %) with its reason, a haphazard pick, or the sample. */
+export function selectedAsText(item: Pick<SampleItemRecord, "keyItem" | "keyReason" | "pickedAt">): string {
+  if (item.keyItem) return item.keyReason ? `Key item (examined 100 %): ${item.keyReason}` : "Key item (examined 100 %)";
+  return item.pickedAt ? "Haphazard pick" : "Sample";
+}
+
 function cellValues(kind: WorkbookKind, item: SampleItemRecord, letter: (k: ColumnKey) => string, row: number): Partial<Record<ColumnKey, ExcelJS.CellValue>> {
   const r = resultOfItem(item);
   const misstatementFormula = kind === "deviations" ? "" : `IF(${letter("status")}${row}="${STATUS_LABELS["not-auditable"]}",${letter("bookValue")}${row},IF(${letter("auditedValue")}${row}="","",${letter("bookValue")}${row}-${letter("auditedValue")}${row}))`;
   return {
-    order: item.selectionOrder, itemRef: safeCellText(item.itemRef), description: text(item.description), bookValue: Number(item.bookValue),
+    order: item.selectionOrder, itemRef: safeCellText(item.itemRef), description: text(item.description), bookValue: Number(item.bookValue), selectedAs: text(selectedAsText(item)),
     auditedValue: r.auditedValue === null ? null : Number(r.auditedValue), status: STATUS_LABELS[r.status],
     cause: r.cause ? CAUSE_LABELS[r.cause] : null, causeNote: text(r.causeNote), comment: text(r.comment),
     deviation: r.deviation === null ? null : r.deviation ? "Yes" : "No", deviationNature: text(r.deviationNature),

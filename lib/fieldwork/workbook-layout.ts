@@ -8,7 +8,7 @@ import { ITEM_STATUS_ALIASES, ITEM_STATUS_LABELS } from "./field-labels";
 export type WorkbookKind = "amounts" | "deviations";
 
 export type ColumnKey =
-  | "order" | "itemRef" | "description" | "bookValue" | "auditedValue" | "status" | "cause" | "causeNote"
+  | "order" | "itemRef" | "description" | "bookValue" | "selectedAs" | "auditedValue" | "status" | "cause" | "causeNote"
   | "deviation" | "deviationNature" | "comment" | "misstatement" | "itemId" | "version" | "exported";
 
 export interface ColumnSpec {
@@ -28,6 +28,7 @@ const lead: ColumnSpec[] = [
   { key: "itemRef", header: "Item reference", width: 20 },
   { key: "description", header: "Description", width: 36 },
   { key: "bookValue", header: "Book value", width: 16 },
+  { key: "selectedAs", header: "Selected as", width: 28 },
 ];
 const hiddenTail: ColumnSpec[] = [
   { key: "itemId", header: "Item id", width: 10, hidden: true },

@@ -20,6 +20,8 @@ export interface ColumnPlace { header: string; letter: string }
 export interface ItemsSheet { rows: SheetRow[]; columns: Record<ColumnKey, ColumnPlace> }
 
 const EMPTY: SheetCell = { kind: "empty" };
+/** Read-only columns a sheet may lack (a workbook exported before "Selected as" existed still imports). */
+const OPTIONAL_COLUMNS = new Set<ColumnKey>(["order", "description", "selectedAs", "misstatement"]);
 
 export function toSheetCell(value: ExcelJS.CellValue): SheetCell {
   if (value === null || value === undefined) return EMPTY;
@@ -60,7 +62,7 @@ export async function readItemsSheet(bytes: Buffer, kind: WorkbookKind): Promise
   for (const spec of columnsFor(kind)) {
     const col = byHeader.get(spec.header.toLowerCase());
     if (col === undefined) {
-      if (spec.key !== "order" && spec.key !== "description" && spec.key !== "misstatement") missing.push({ row: 1, column: spec.header, reason: `The column "${spec.header}" is missing from the header row.` });
+      if (!OPTIONAL_COLUMNS.has(spec.key)) missing.push({ row: 1, column: spec.header, reason: `The column "${spec.header}" is missing from the header row.` });
       continue;
     }
     numbers[spec.key] = col;

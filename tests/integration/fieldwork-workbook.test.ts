@@ -97,7 +97,7 @@ describe("the fieldwork workbook export", () => {
 
     const ws = wb.getWorksheet("Items")!;
     const cols = columnsOf(ws);
-    expect(Object.keys(cols)).toEqual(["Order", "Item reference", "Description", "Book value", "Audited value", "Status", "Cause", "Cause detail", "Comment", "Misstatement (book − audited)", "Item id", "Version", "Exported values"]);
+    expect(Object.keys(cols)).toEqual(["Order", "Item reference", "Description", "Book value", "Selected as", "Audited value", "Status", "Cause", "Cause detail", "Comment", "Misstatement (book − audited)", "Item id", "Version", "Exported values"]);
     expect(ws.rowCount).toBe(9);
     // Issue 19: unprotected (Excel will not sort a protected range holding locked cells), with filters on the header row.
     expect((ws as unknown as { sheetProtection?: { sheet?: boolean } }).sheetProtection?.sheet ?? false).toBe(false); // not in the typings
@@ -115,7 +115,9 @@ describe("the fieldwork workbook export", () => {
         if (cell.type === ExcelJS.ValueType.Formula) expect([sheet.name, col]).toEqual(["Items", cols["Misstatement (book − audited)"]]);
       }));
     }
-    expect(row.getCell(cols["Misstatement (book − audited)"]).formula).toMatch(/D2-E2/);
+    expect(row.getCell(cols["Misstatement (book − audited)"]).formula).toMatch(/D2-F2/);
+    // Issue 15: how each item came into the sample; a random draw without key items holds only "Sample" rows.
+    for (let r = 2; r <= ws.rowCount; r++) expect(ws.getRow(r).getCell(cols["Selected as"]).value).toBe("Sample");
     // Formula-looking descriptions are text with the apostrophe prefix.
     expect(rowOf(ws, "INV-01").getCell(cols.Description).value).toBe("'=HYPERLINK(\"http://x.example\",\"click\")");
     expect(rowOf(ws, "INV-02").getCell(cols.Description).value).toBe("'+SUM(A1:A9)");
@@ -138,6 +140,21 @@ describe("the fieldwork workbook export", () => {
 });
 
 describe("the fieldwork workbook import", () => {
+  it("still reads a workbook exported before the read-only \"Selected as\" column existed", async () => {
+    const sampleId = await drawnSample("random");
+    const wb = await exportWorkbook(sampleId);
+    const ws = wb.getWorksheet("Items")!;
+    ws.spliceColumns(columnsOf(ws)["Selected as"], 1);
+    const cols = columnsOf(ws);
+    expect(cols).not.toHaveProperty("Selected as");
+    const r = rowOf(ws, "INV-08");
+    r.getCell(cols["Audited value"]).value = 777.77;
+    r.getCell(cols.Status).value = "Done";
+    const res = await importWorkbook(sampleId, wb);
+    expect(res.status).toBe(200);
+    expect(res.json).toMatchObject({ rows: 8, changed: 1, unchanged: 7 });
+  });
+
   it("round-trips: filled values are saved with audit rows and version + 1, and the evaluation changes", async () => {
     const sampleId = await drawnSample("random");
     const before = await getEvaluation(staff, engagement, sampleId);
@@ -277,7 +294,7 @@ describe("the fieldwork workbook import", () => {
     const wb = await exportWorkbook(sampleId);
     const ws = wb.getWorksheet("Items")!;
     const cols = columnsOf(ws);
-    expect(Object.keys(cols)).toEqual(["Order", "Item reference", "Description", "Book value", "Status", "Deviation (yes/no)", "Nature of deviation", "Comment", "Item id", "Version", "Exported values"]);
+    expect(Object.keys(cols)).toEqual(["Order", "Item reference", "Description", "Book value", "Selected as", "Status", "Deviation (yes/no)", "Nature of deviation", "Comment", "Item id", "Version", "Exported values"]);
     for (let r = 2; r <= ws.rowCount; r++) {
       ws.getRow(r).getCell(cols["Deviation (yes/no)"]).value = r === 3 ? "Yes" : "No";
       ws.getRow(r).getCell(cols.Status).value = "Done";

@@ -24,6 +24,8 @@ import * as anomaly from "@/app/api/engagements/[engagementId]/samples/[sampleId
 import * as acceptance from "@/app/api/engagements/[engagementId]/samples/[sampleId]/items/[itemId]/anomaly/acceptance/route";
 import * as reperform from "@/app/api/engagements/[engagementId]/samples/[sampleId]/reperform/route";
 import * as workpaper from "@/app/api/engagements/[engagementId]/samples/[sampleId]/workpaper/route";
+import * as workbook from "@/app/api/engagements/[engagementId]/samples/[sampleId]/workbook/route";
+import ExcelJS from "exceljs";
 
 vi.mock("@/lib/auth/session-user", async () => (await import("./support/session")).sessionModule);
 
@@ -173,6 +175,22 @@ describe("nonstatistical samples", () => {
     expect(items.slice(3).map((i) => i.itemRef)).toEqual(expected);
     const again = await call(reperform.POST, "POST", { as: staff, params: sp(id), body: {} });
     expect(again.json.reperform.matches).toBe(true);
+
+    // The fieldwork workbook says how each item came into the sample: key items (with the auditor's reason) apart from the sample.
+    const xlsx = await callRaw(workbook.GET, "GET", { as: staff, params: sp(id) });
+    expect(xlsx.status).toBe(200);
+    const wb = new ExcelJS.Workbook();
+    await wb.xlsx.load(await xlsx.arrayBuffer());
+    const sheet = wb.getWorksheet("Items")!;
+    const header = (sheet.getRow(1).values as unknown[]).map(String);
+    const selectedAs = new Map<string, string>();
+    sheet.eachRow((row, n) => {
+      if (n > 1) selectedAs.set(row.getCell(header.indexOf("Item reference")).text, row.getCell(header.indexOf("Selected as")).text);
+    });
+    expect(selectedAs.get("INV004")).toBe("Key item (examined 100 %): Credit note raised after the period end");
+    expect(selectedAs.get("INV006")).toBe("Key item (examined 100 %)");
+    expect(selectedAs.get("INV011")).toBe("Key item (examined 100 %)");
+    expect(expected.map((ref) => selectedAs.get(ref))).toEqual(expected.map(() => "Sample"));
 
     // Results: one key item overstated by 100.00, one sampled item (the first above zero) overstated by 10 % of its book value.
     const misstated = items.slice(3).find((i) => Number(i.bookValue) > 0)!;
