@@ -18,6 +18,7 @@ import { Button } from "@/components/ui/button";
 import { Alert } from "@/components/ui/alert";
 import { Card } from "@/components/ui/card";
 import { api, ApiError } from "@/components/ui/api";
+import { formatDateTime } from "@/lib/format/date";
 
 const num = { valueAsNumber: true } as const;
 const cellInput =
@@ -78,7 +79,7 @@ export function MethodologyForm({ initial }: { initial: MethodologyVersion }) {
       <p className="text-sm text-ink-soft" data-testid="methodology-version">
         {initial.version === 0
           ? "The shipped defaults apply (version 0): no administrator has saved the firm's own settings yet."
-          : `Version ${initial.version}, saved by ${initial.updatedBy ?? "unknown"} on ${initial.updatedAt?.replace("T", " ").slice(0, 16)} UTC.`}
+          : `Version ${initial.version}, saved by ${initial.updatedBy ?? "unknown"} on ${formatDateTime(initial.updatedAt)}.`}
       </p>
       <Card title="Assurance factors">
         <div

@@ -1,5 +1,6 @@
 import type { MethodologyChange } from "@/lib/data/firm-methodology";
 import { Card, EmptyState } from "@/components/ui/card";
+import { formatDateTime } from "@/lib/format/date";
 
 /** Who changed the firm's settings, when, and what each save changed. */
 export function MethodologyHistory({ changes }: { changes: MethodologyChange[] }) {
@@ -15,7 +16,7 @@ export function MethodologyHistory({ changes }: { changes: MethodologyChange[] }
             <li key={c.version} className="border-t border-ink-line/60 pt-3 first:border-0 first:pt-0">
               <p className="font-medium">
                 Version {c.version} · {c.changedBy ?? "unknown"} ·{" "}
-                <time dateTime={c.changedAt}>{c.changedAt.replace("T", " ").slice(0, 16)} UTC</time>
+                <time dateTime={c.changedAt}>{formatDateTime(c.changedAt)}</time>
               </p>
               {c.changes.length === 0 ? (
                 <p className="text-ink-soft">Saved without changes.</p>

@@ -14,7 +14,7 @@ import { api, readErrorAnswer } from "@/components/ui/api";
 import { readNdjson } from "@/components/ui/ndjson";
 import { AdvisorResults } from "./advisor-results";
 import { formatCount } from "@/lib/format/number";
-import { formatTime } from "@/lib/format/date";
+import { formatDateTime } from "@/lib/format/date";
 
 const CAUTION = "The advisor's figures come from assumed misstatements, not from evidence: they support, and do not replace, the auditor's professional judgement, the applicable standards (AU-C 530, ISA 530, AS 2315) and the firm's methodology.";
 
@@ -189,7 +189,7 @@ export function AdvisorPanel({ engagementId, sampleId, initial, mayRun, currency
         {shown?.result && (
           <div className="space-y-3 border-t border-ink-line pt-4">
             <div className="flex flex-wrap items-center justify-between gap-2">
-              <h3 className="text-sm font-semibold text-ink">Run {shown.id} · {formatTime(shown.createdAt)} · {shown.createdByName}</h3>
+              <h3 className="text-sm font-semibold text-ink">Run {shown.id} · {formatDateTime(shown.createdAt)} · {shown.createdByName}</h3>
               {canRun && state.adopted?.id !== shown.id && <Button type="button" variant="secondary" onClick={() => adopt(shown.id)}>Keep as the rationale for the method</Button>}
               {state.adopted?.id === shown.id && <Badge tone="green">Kept with the plan</Badge>}
             </div>
@@ -209,7 +209,7 @@ export function AdvisorPanel({ engagementId, sampleId, initial, mayRun, currency
               {state.runs.map((r) => (
                 <li key={r.id} className="flex flex-wrap items-center gap-2">
                   <span className="figures text-ink-soft">#{r.id}</span>
-                  <span>{formatTime(r.createdAt)} · {r.createdByName} · n = {r.request.sampleSizes.join(", ")} · seed {r.request.seed}</span>
+                  <span>{formatDateTime(r.createdAt)} · {r.createdByName} · n = {r.request.sampleSizes.join(", ")} · seed {r.request.seed}</span>
                   <Badge tone={r.status === "done" ? "green" : r.status === "running" ? "blue" : "neutral"}>{r.status}</Badge>
                   {r.status === "done" && <button type="button" className="text-ledger-700 underline" onClick={() => showRun(r.id)}>Show</button>}
                 </li>

@@ -10,6 +10,7 @@ import { Alert } from "@/components/ui/alert";
 import { api } from "@/components/ui/api";
 import type { EngagementForUser } from "@/lib/data/engagements";
 import { statusTone, STATUS_LABELS } from "./status";
+import { formatDate } from "@/lib/format/date";
 
 const columns: ColumnDef<EngagementForUser, unknown>[] = [
   {
@@ -21,7 +22,7 @@ const columns: ColumnDef<EngagementForUser, unknown>[] = [
       </Link>
     ),
   },
-  { accessorKey: "periodEnd", header: "Period end", cell: ({ getValue }) => <span className="figures">{String(getValue())}</span> },
+  { accessorKey: "periodEnd", header: "Period end", cell: ({ getValue }) => <span className="whitespace-nowrap">{formatDate(String(getValue()))}</span> },
   {
     accessorKey: "performanceMateriality", header: "Performance materiality", meta: { align: "right" },
     sortingFn: (a, b) => Number(a.original.performanceMateriality) - Number(b.original.performanceMateriality),

@@ -14,6 +14,7 @@ import { ConclusionForm } from "./conclusion-form";
 import type { ComputedResult } from "@/lib/samples/evaluation-types";
 import { LockDialog, type OpenList } from "./lock-dialog";
 import { formatDateTime } from "@/lib/format/dates";
+import { preparerSignOffBlocker, reviewerSignOffBlocker } from "@/lib/review/sign-off-blockers";
 
 interface Props { engagementId: number; sampleId: number; role: EngagementRole; review: ReviewState; notes: ReviewNote[]; drawn: boolean; computed: ComputedResult; complete: boolean; openLists: OpenList[]; items: NoteItem[] }
 
@@ -28,6 +29,8 @@ export function ReviewPanel({ engagementId, sampleId, role, review, notes, drawn
   const base = `/api/engagements/${engagementId}/samples/${sampleId}`;
   const isReviewer = hasAtLeastRole(role, "manager");
   const isPreparer = role === "staff" || role === "senior";
+  const preparerBlocked = preparerSignOffBlocker({ drawn, complete, concluded: review.conclusion, responseNeeded: computed.responseNeeded });
+  const reviewerBlocked = reviewerSignOffBlocker({ preparerSigned: Boolean(review.preparer), concluded: Boolean(review.conclusion), openNotes: review.openNotes });
 
   async function act(path: string, body: unknown, done: string) {
     setBusy(true);
@@ -73,10 +76,10 @@ export function ReviewPanel({ engagementId, sampleId, role, review, notes, drawn
         <div className="flex flex-wrap gap-2">
           {!review.lock && isPreparer && (review.preparer
             ? <Action disabled why="You have signed off as preparer. A change to the work clears it; then sign again.">Signed off as preparer</Action>
-            : <Action disabled={busy || !drawn} why={!drawn ? "Draw the sample and record its results first." : undefined} onClick={() => act("sign-off", { as: "preparer" }, "Signed off as preparer; the reviewers have been told.")}>Sign off as preparer</Action>)}
+            : <Action disabled={busy || preparerBlocked !== null} why={preparerBlocked ?? undefined} onClick={() => act("sign-off", { as: "preparer" }, "Signed off as preparer; the reviewers have been told.")}>Sign off as preparer</Action>)}
           {!review.lock && isReviewer && (review.reviewer
             ? <Action disabled why="Signed off as reviewer. A change to the work clears it.">Signed off as reviewer</Action>
-            : <Action disabled={busy || !review.preparer} why={!review.preparer ? "The preparer signs off first." : undefined} onClick={() => act("sign-off", { as: "reviewer" }, "Signed off as reviewer.")}>Sign off as reviewer</Action>)}
+            : <Action disabled={busy || reviewerBlocked !== null} why={reviewerBlocked ?? undefined} onClick={() => act("sign-off", { as: "reviewer" }, "Signed off as reviewer.")}>Sign off as reviewer</Action>)}
           {!review.lock && isReviewer && <Action variant="secondary" disabled={busy || !review.reviewer} why={!review.reviewer ? "A reviewer signs off before the sample is locked." : undefined} onClick={() => setConfirming(true)}>Lock sample…</Action>}
           {review.lock && role === "partner" && <Button variant="danger" disabled={busy} onClick={unlock}>Unlock…</Button>}
           {drawn && <a className={buttonClass("secondary")} href={`${base}/workpaper`}>{review.lock ? "Download signed-off workpaper (PDF)" : "Download draft workpaper (PDF)"}</a>}

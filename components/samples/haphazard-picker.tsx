@@ -7,6 +7,7 @@ import { Alert } from "@/components/ui/alert";
 import { Amount } from "@/components/ui/amount";
 import { Button } from "@/components/ui/button";
 import { api } from "@/components/ui/api";
+import { formatDateTime } from "@/lib/format/date";
 
 interface Props {
   engagementId: number;
@@ -115,7 +116,7 @@ export function HaphazardPicker({
                   <Amount value={p.bookValue} />
                 </td>
                 <td className="py-1.5 pl-4">{p.pickedByName}</td>
-                <td className="figures py-1.5">{p.pickedAt?.replace("T", " ").slice(0, 19)}</td>
+                <td className="figures py-1.5">{formatDateTime(p.pickedAt)}</td>
                 <td className="py-1.5 text-right">
                   {mayPick && p.status === "not-started" && (
                     <Button

@@ -7,6 +7,7 @@ import { liveMisstatement } from "./result-values";
 import { useRowEditor } from "./result-row";
 import { RequestStatusBadge } from "@/components/requests/status-badge";
 import { NOTE_STATUS_LABELS, NOTE_STATUS_TONES, type ItemNoteMark } from "@/components/review/note-labels";
+import { useUnauditableTreatment } from "./row-treatment";
 
 const compact = "rounded border border-ink-line bg-paper-raised px-2 py-1 text-sm focus:border-ledger-500 focus:outline-none focus:ring-2 focus:ring-ledger-100 aria-[invalid=true]:border-brick-500 disabled:bg-paper-sunk/60 disabled:text-ink-faint";
 
@@ -62,12 +63,17 @@ export function MisstatementCell() {
 
 export function StatusCell() {
   const { item, form, formId, editable } = useRowEditor();
+  const treatment = useUnauditableTreatment();
+  const status = form.watch("status");
   if (item.status === "void") return <span>{ITEM_STATUS_LABELS.void}</span>;
+  const treatmentId = `${formId}-unauditable`;
   return (
-    <div>
-      <select form={formId} data-cell="status" aria-label={`Status of ${item.itemRef}`} className={`${compact} w-40 text-[13px]`} disabled={!editable} {...form.register("status")}>
+    <div className="w-40">
+      <select form={formId} data-cell="status" aria-label={`Status of ${item.itemRef}`} className={`${compact} w-40 text-[13px]`} disabled={!editable}
+        aria-describedby={status === "not-auditable" && treatment ? treatmentId : undefined} {...form.register("status")}>
         {ITEM_STATUSES.map((s) => <option key={s} value={s}>{ITEM_STATUS_LABELS[s]}</option>)}
       </select>
+      {status === "not-auditable" && treatment && <span id={treatmentId} className="mt-0.5 block text-xs text-amber-700" data-testid="row-unauditable-treatment">{treatment}</span>}
       {item.updatedByName && <span className="mt-0.5 block text-xs text-ink-faint">saved by {item.updatedByName}</span>}
     </div>
   );

@@ -17,6 +17,7 @@ import { EXTENDABLE, REPLACEABLE } from "./labels";
 import { HaphazardPicker } from "./haphazard-picker";
 import { AnomalyPanel } from "./anomaly-panel";
 import { SAMPLE_CHANGED_EVENT } from "./events";
+import { UnauditableTreatment } from "./row-treatment";
 import type { ItemNoteMark } from "@/components/review/note-labels";
 
 interface Props {
@@ -50,6 +51,9 @@ export function SampleWorkspace({ engagementId, initialView, initialEvaluation, 
   }, [base, changes]);
 
   const changed = useCallback(() => { setChanges((n) => n + 1); setEvaluating(true); }, []);
+  // The review panel (server-rendered) offers the conclusion and sign-off once every item has a result: re-render it when that flips.
+  const completeOnServer = initialEvaluation.complete;
+  useEffect(() => { if (evaluation.complete !== completeOnServer) router.refresh(); }, [evaluation.complete, completeOnServer, router]);
   const refreshView = useCallback(async () => { setView(await api<SampleView>(base)); }, [base]);
   // A workbook import elsewhere on the page changed the results: refetch the grid, progress and evaluation.
   useEffect(() => {
@@ -98,9 +102,10 @@ export function SampleWorkspace({ engagementId, initialView, initialEvaluation, 
           <>
             <Card title="Progress"><ProgressStrip progress={evaluation.progress} attribute={attribute} /></Card>
             <Card title="Items and results">
-              <p className="mb-2 text-xs text-ink-soft" data-testid="unauditable-treatment">{evaluation.notes[0]}</p>
-              <FieldworkGrid engagementId={engagementId} sampleId={sample.id} method={sample.method} drawVersion={currentDraw.version}
-                mayRecord={may.record} mayReplace={may.draw && REPLACEABLE.includes(sample.method)} refreshKey={gridKey} onSaved={changed} notesByItem={notesByItem} />
+              <UnauditableTreatment.Provider value={evaluation.unauditableOnRow}>
+                <FieldworkGrid engagementId={engagementId} sampleId={sample.id} method={sample.method} drawVersion={currentDraw.version}
+                  mayRecord={may.record} mayReplace={may.draw && REPLACEABLE.includes(sample.method)} refreshKey={gridKey} onSaved={changed} notesByItem={notesByItem} />
+              </UnauditableTreatment.Provider>
             </Card>
             {sample.method !== "attribute" && evaluation.progress.misstatements > 0 && (
               <Card title="Anomalous misstatements">

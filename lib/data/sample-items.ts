@@ -7,6 +7,7 @@ import { beginResultWrite } from "@/lib/samples/guard";
 import { ANOMALY_CLEARED } from "@/lib/samples/anomalies";
 import { AppError, notFound } from "@/lib/errors";
 import { centsToDecimal, decimalToCents } from "@/lib/money";
+import { formatDateTime } from "@/lib/format/date";
 
 export interface SampleItemRecord {
   id: number;
@@ -122,7 +123,7 @@ export async function applyItemResult(trx: Knex.Transaction, { engagementId, sam
   if (!before) throw notFound("No such item in this sample");
   if (before.status === "void") throw new AppError(409, "void_item", "This item was voided and replaced; record the result on its replacement.");
   if (Number(before.version) !== input.version) {
-    const when = before.updated_at ? new Date(before.updated_at).toISOString().replace("T", " ").slice(0, 16) + " UTC" : "recently";
+    const when = before.updated_at ? formatDateTime(new Date(before.updated_at)) : "recently";
     throw new AppError(409, "stale", `${before.updated_by_name ?? "Someone"} changed this item at ${when} after you opened it. Reload to see their change; yours was not saved.`, undefined);
   }
   const patch = {

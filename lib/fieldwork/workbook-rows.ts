@@ -4,6 +4,7 @@ import { readAmount, readChoice, readRef, readText, readWhole, readYesNo, type R
 import { causeFromText, resultFingerprint, STATUS_LABELS, statusFromText, type ColumnKey, type RowResult, type WorkbookKind } from "./workbook-layout";
 import type { WorkbookProblem } from "./workbook-problems";
 import type { ItemsSheet, SheetRow } from "./workbook-read";
+import { formatDateTime } from "@/lib/format/date";
 
 /** What the import needs to know of each item of the current draw. */
 export interface ItemFacts {
@@ -54,7 +55,7 @@ function parseResult(kind: WorkbookKind, sr: SheetRow, current: RowResult, repor
 }
 
 function staleReason(item: ItemFacts, version: number): string {
-  const when = item.updatedAt ? `${item.updatedAt.replace("T", " ").slice(0, 16)} UTC` : "recently";
+  const when = item.updatedAt ? formatDateTime(item.updatedAt) : "recently";
   return `Version conflict: ${item.updatedByName ?? "Someone"} changed this item at ${when}, after this workbook was exported (workbook version ${version}, now ${item.version}). Your change to this row was not applied: export a fresh workbook and enter it again.`;
 }
 

@@ -7,7 +7,7 @@ import { EngineInputError, type Sides } from "@/lib/sampling";
 import type { ComputedResult, EvaluationBlock, Money } from "./evaluation-types";
 import { buildAttributesEvaluation, buildMusEvaluation, buildStratifiedEvaluation, buildVariablesEvaluation, type EvaluatedItem } from "./evaluation-blocks";
 import { computedResultOf } from "./computed-result";
-import { UNAUDITABLE_TREATMENT } from "./evaluation-words";
+import { UNAUDITABLE_ON_ROW, UNAUDITABLE_TREATMENT } from "./evaluation-words";
 import { evaluationSettingsOf } from "./evaluation-settings";
 import { methodologyOfSample } from "./methodology";
 import { buildNonstatisticalEvaluation } from "./evaluation-block-nonstatistical";
@@ -38,6 +38,8 @@ export interface SampleEvaluation {
   projectedMisstatement: Money | null;
   /** How items that could not be audited are treated, and method cautions. */
   notes: string[];
+  /** notes[0] in a few words, for the row of each item marked "could not be audited". */
+  unauditableOnRow: string;
   warnings: string[];
   caution: string;
 }
@@ -80,9 +82,10 @@ export function evaluateSample(sample: SampleRecord, population: PopulationRecor
   const done = active.filter(evaluated);
   const tolerable = sample.method === "attribute" ? null : centsToDecimal(decimalToCents(String(sample.params.tolerableMisstatement ?? performanceMateriality)));
   const complete = progress.notStarted === 0 && progress.total > 0;
-  const notes = [UNAUDITABLE_TREATMENT[sample.method === "attribute" ? "attribute" : sample.direction]];
+  const treatment = sample.method === "attribute" ? "attribute" : sample.direction;
+  const notes = [UNAUDITABLE_TREATMENT[treatment]];
   if (sample.method === "mus" && active.some((it) => it.anomaly)) notes.push(MUS_IGNORES_ANOMALIES);
-  const base = { sampleId: sample.id, method: sample.method, direction: sample.direction, confidence: sample.params.confidence, tolerableMisstatement: tolerable, progress, complete, notes, caution: JUDGEMENT_CAUTION };
+  const base = { sampleId: sample.id, method: sample.method, direction: sample.direction, confidence: sample.params.confidence, tolerableMisstatement: tolerable, progress, complete, notes, unauditableOnRow: UNAUDITABLE_ON_ROW[treatment], caution: JUDGEMENT_CAUTION };
   if (done.length === 0) return { ...base, block: null, computed: computedResultOf({ block: null, progress, complete }), projectedMisstatement: null, warnings: [] };
   try {
     const block = blockFor(sample, population, active, tolerable);

@@ -24,6 +24,14 @@ export const UNAUDITABLE_TREATMENT: Record<"overstatement" | "understatement" | 
   attribute: "An item that could not be audited counts as a deviation.",
 };
 
+/** The same treatment in a few words, said on the row of each item marked "could not be audited" (the grid, at once). */
+export const UNAUDITABLE_ON_ROW: Record<keyof typeof UNAUDITABLE_TREATMENT, string> = {
+  overstatement: "Evaluated as audited 0: misstated by its whole book value (100% overstatement).",
+  understatement: "Evaluated as audited at twice its book value: an understatement equal to its book value.",
+  both: "Evaluated as audited 0: misstated by its whole book value (100% overstatement); weigh its understatement risk apart.",
+  attribute: "Evaluated as a deviation.",
+};
+
 const rate = (v: number) => `${(v * 100).toFixed(v * 1000 === Math.round(v * 1000) ? 1 : 2).replace(/\.0$/, "")}%`;
 
 /** The classical decision rule in words, with the figures substituted. */

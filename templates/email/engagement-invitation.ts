@@ -1,4 +1,4 @@
-import { formatDay, formatWhen } from "./format";
+import { formatDate, formatDateTime } from "./format";
 import { renderEmail } from "./layout";
 import { engagementLabel, type EngagementRef, type Person, type RenderedEmail } from "./types";
 
@@ -24,9 +24,9 @@ export function engagementInvitation(d: EngagementInvitationData): RenderedEmail
       { kind: "facts", rows: [
         ["Client", d.engagement.clientName],
         ["Engagement", d.engagement.name],
-        ["Period end", formatDay(d.engagement.periodEnd)],
+        ["Period end", formatDate(d.engagement.periodEnd)],
         ["Your role", d.role],
-        ["Added by", `${d.invitedBy.name}, ${formatWhen(d.addedAt, "addedAt")}`],
+        ["Added by", `${d.invitedBy.name}, ${formatDateTime(d.addedAt, "addedAt")}`],
       ] },
       { kind: "paragraph", text: "Sign in with your firm account to see the engagement's populations, samples and review notes." },
     ],

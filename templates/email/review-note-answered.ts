@@ -1,4 +1,4 @@
-import { formatWhen } from "./format";
+import { formatDateTime } from "./format";
 import { renderEmail } from "./layout";
 import { engagementLabel, type RenderedEmail, type SampleEventData } from "./types";
 
@@ -21,7 +21,7 @@ export function reviewNoteAnswered(d: ReviewNoteAnsweredData): RenderedEmail {
       { kind: "facts", rows: [
         ["Engagement", label],
         ["Sample", d.sample.name],
-        ["Answered", formatWhen(d.at)],
+        ["Answered", formatDateTime(d.at)],
       ] },
       { kind: "paragraph", text: "Clear the note if the answer settles it, or reply to keep it open." },
     ],

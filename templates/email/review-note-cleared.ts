@@ -1,4 +1,4 @@
-import { formatWhen } from "./format";
+import { formatDateTime } from "./format";
 import { renderEmail } from "./layout";
 import { engagementLabel, type RenderedEmail, type SampleEventData } from "./types";
 
@@ -19,7 +19,7 @@ export function reviewNoteCleared(d: ReviewNoteClearedData): RenderedEmail {
       { kind: "facts", rows: [
         ["Engagement", label],
         ["Sample", d.sample.name],
-        ["Cleared by", `${d.actor.name}, ${formatWhen(d.at)}`],
+        ["Cleared by", `${d.actor.name}, ${formatDateTime(d.at)}`],
       ] },
     ],
     action: { label: "Open the sample", url: d.sampleUrl },

@@ -1,4 +1,4 @@
-import { formatWhen } from "./format";
+import { formatDateTime } from "./format";
 import { renderEmail } from "./layout";
 import { engagementLabel, type RenderedEmail, type SampleEventData } from "./types";
 
@@ -19,7 +19,7 @@ export function reviewNoteRaised(d: ReviewNoteRaisedData): RenderedEmail {
       { kind: "facts", rows: [
         ["Engagement", label],
         ["Sample", d.sample.name],
-        ["Raised", formatWhen(d.at)],
+        ["Raised", formatDateTime(d.at)],
       ] },
       { kind: "paragraph", text: "Answer the note in Sondage so the reviewer can clear it." },
     ],

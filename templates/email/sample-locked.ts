@@ -1,4 +1,4 @@
-import { formatWhen } from "./format";
+import { formatDateTime } from "./format";
 import { renderEmail } from "./layout";
 import { engagementLabel, type RenderedEmail, type SampleEventData } from "./types";
 
@@ -16,7 +16,7 @@ export function sampleLocked(d: SampleLockedData): RenderedEmail {
       { kind: "facts", rows: [
         ["Engagement", label],
         ["Sample", d.sample.name],
-        ["Locked by", `${d.actor.name}, ${formatWhen(d.at)}`],
+        ["Locked by", `${d.actor.name}, ${formatDateTime(d.at)}`],
       ] },
     ],
     action: { label: "Open the locked sample", url: d.sampleUrl },

@@ -1,4 +1,4 @@
-import { formatWhen } from "./format";
+import { formatDateTime } from "./format";
 import { renderEmail } from "./layout";
 import { engagementLabel, type RenderedEmail, type SampleEventData } from "./types";
 
@@ -16,7 +16,7 @@ export function sampleReadyForReview(d: SampleReadyForReviewData): RenderedEmail
       { kind: "facts", rows: [
         ["Engagement", label],
         ["Sample", d.sample.name],
-        ["Sent by", `${d.actor.name}, ${formatWhen(d.at)}`],
+        ["Sent by", `${d.actor.name}, ${formatDateTime(d.at)}`],
       ] },
       { kind: "paragraph", text: "Review the selections, the audited values and the evaluation, then raise notes or sign off." },
     ],

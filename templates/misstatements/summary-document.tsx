@@ -3,7 +3,7 @@ import type { ReactNode } from "react";
 import { Document, Page, Text, View } from "@react-pdf/renderer";
 import type { SummaryView } from "@/lib/misstatements/types";
 import { DraftWatermark, Footer, RunningHeader, type PageFrameData } from "../workpaper/page-frame";
-import { formatDate, formatMoney, formatTime } from "../workpaper/format";
+import { formatDate, formatMoney, formatDateTime } from "../workpaper/format";
 import { Callout, Facts, Paragraph, Section } from "../workpaper/primitives";
 import { colours, s } from "../workpaper/styles";
 import { BuildUpBars } from "./build-up-bars";
@@ -32,7 +32,7 @@ export function SummaryDocument({ view, draft }: { view: SummaryView; draft: boo
       <Sheet frame={frame}>
         <Text style={[s.faint, { fontSize: 7.5, letterSpacing: 0.8 }]}>SUMMARY OF MISSTATEMENTS</Text>
         <Text style={{ fontSize: 17, lineHeight: 1.2, fontWeight: "bold", marginTop: 2, marginBottom: 6 }}>{`${view.engagement.clientName} — period ended ${formatDate(view.engagement.periodEnd)}`}</Text>
-        <Text style={s.soft}>{view.review.lock ? `Locked by ${view.review.lock.name}, ${formatTime(view.review.lock.at)}` : `Draft generated ${formatTime(view.generatedAt)} — not locked`}</Text>
+        <Text style={s.soft}>{view.review.lock ? `Locked by ${view.review.lock.name}, ${formatDateTime(view.review.lock.at)}` : `Draft generated ${formatDateTime(view.generatedAt)} — not locked`}</Text>
 
         <Section number="1" title="Materiality">
           <Facts facts={[

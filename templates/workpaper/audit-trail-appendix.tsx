@@ -1,6 +1,6 @@
 /** Appendix A: the audit trail of the sample — who did what, when, with the values before and after. */
 import { Text } from "@react-pdf/renderer";
-import { formatTime } from "./format";
+import { formatDateTime } from "./format";
 import { Section, Table } from "./primitives";
 import { s } from "./styles";
 import type { WorkpaperData } from "./workpaper-data";
@@ -11,7 +11,7 @@ export function AuditTrailAppendix({ data }: { data: WorkpaperData }) {
       <Text style={[s.soft, { marginBottom: 4 }]}>Every change to the sample, in time order, as recorded by Sondage.</Text>
       <Table
         columns={[
-          { label: "When (UTC)", width: 78 },
+          { label: "When", width: 84 },
           { label: "Who", width: 72 },
           { label: "What", flex: 1.2 },
           { label: "Before", flex: 1 },
@@ -19,7 +19,7 @@ export function AuditTrailAppendix({ data }: { data: WorkpaperData }) {
         ]}
         rows={data.auditTrail.map((row) => ({
           cells: [
-            formatTime(row.at).replace(" UTC", ""),
+            formatDateTime(row.at),
             row.who,
             row.subject ? `${row.action} — ${row.subject}` : row.action,
             row.before ?? "—",

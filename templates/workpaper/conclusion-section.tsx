@@ -4,7 +4,7 @@
  * not replaces, the auditor's judgement. Prints the view model as it is.
  */
 import { Text, View } from "@react-pdf/renderer";
-import { formatMoney, formatTime } from "./format";
+import { formatMoney, formatDateTime } from "./format";
 import { CAUTION } from "./page-frame";
 import { Paragraph, Section, SubHead } from "./primitives";
 import { colours, s } from "./styles";
@@ -25,7 +25,7 @@ export function ConclusionSection({ data }: { data: WorkpaperData }) {
       <SubHead>{"Auditor's conclusion and response"}</SubHead>
       {c.auditor ? (
         <View>
-          <Text style={s.faint}>{`Written by ${c.auditor.writtenBy} (${c.auditor.role}), ${formatTime(c.auditor.writtenAt)}`}</Text>
+          <Text style={s.faint}>{`Written by ${c.auditor.writtenBy} (${c.auditor.role}), ${formatDateTime(c.auditor.writtenAt)}`}</Text>
           <Paragraph>{c.auditor.conclusion}</Paragraph>
           {c.auditor.responses.length === 0 ? <Text style={s.soft}>No response recorded (none called for by the computed result).</Text> : c.auditor.responses.map((r, i) => (
             <Text key={i}>{`• ${r.label}${r.amount === null ? "" : `: ${data.currency} ${formatMoney(r.amount)}`}${r.note ? ` — ${r.note}` : ""}`}</Text>

@@ -1,6 +1,6 @@
 /** The evidence index: each file attached to an item, with its SHA-256, who attached it and when. */
 import { Text } from "@react-pdf/renderer";
-import { formatTime } from "./format";
+import { formatDateTime } from "./format";
 import { Section, Table } from "./primitives";
 import { s } from "./styles";
 import type { WorkpaperData } from "./workpaper-data";
@@ -18,7 +18,7 @@ export function EvidenceIndexSection({ data }: { data: WorkpaperData }) {
           { label: "Attached by", width: 70 },
           { label: "When", width: 80 },
         ]}
-        rows={rows.map((e) => ({ cells: [e.reference, e.fileName, e.sha256, e.uploadedBy, formatTime(e.uploadedAt)] }))}
+        rows={rows.map((e) => ({ cells: [e.reference, e.fileName, e.sha256, e.uploadedBy, formatDateTime(e.uploadedAt)] }))}
       />
       {rows.length === 0 && <Text style={s.soft}>No evidence files are attached.</Text>}
     </Section>

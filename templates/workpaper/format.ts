@@ -1,7 +1,7 @@
 /** Printing helpers for the workpaper: exact decimal strings in, display strings out. */
 import { formatCount, formatMoney, formatPercent } from "@/lib/format/number";
 
-export { formatDate, formatTime } from "@/lib/format/date";
+export { formatDate, formatDateTime } from "@/lib/format/date";
 export { formatFactor, formatMoney, formatRate, isNegative } from "@/lib/format/number";
 
 /** A plan parameter value printed by its kind. */

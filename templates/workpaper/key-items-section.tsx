@@ -1,6 +1,6 @@
 /** Sizing from the risk assessment, key items examined 100 %, haphazard picks and anomalies (issue 15, issue 14 §4). */
 import { Text, View } from "@react-pdf/renderer";
-import { formatMoney, formatRate, formatTime } from "./format";
+import { formatMoney, formatRate, formatDateTime } from "./format";
 import { Callout, Facts, SubHead, Table } from "./primitives";
 import { s } from "./styles";
 import type { SizingBlock, WorkpaperData } from "./workpaper-data";
@@ -111,7 +111,7 @@ export function KeyItemsAndPicks({ data }: { data: WorkpaperData }) {
                 String(p.rowNumber),
                 formatMoney(p.bookValue),
                 p.pickedBy ?? "",
-                formatTime(p.pickedAt),
+                formatDateTime(p.pickedAt),
               ],
             }))}
           />
@@ -133,7 +133,7 @@ export function KeyItemsAndPicks({ data }: { data: WorkpaperData }) {
                 a.reference,
                 a.misstatement === null ? "—" : formatMoney(a.misstatement),
                 a.justification,
-                `${a.markedBy ?? ""} ${formatTime(a.markedAt)}\n${a.acceptedBy ? `${a.acceptedBy} ${formatTime(a.acceptedAt)}` : "not accepted"}`,
+                `${a.markedBy ?? ""} ${formatDateTime(a.markedAt)}\n${a.acceptedBy ? `${a.acceptedBy} ${formatDateTime(a.acceptedAt)}` : "not accepted"}`,
                 a.treatment,
               ],
             }))}

@@ -1,6 +1,6 @@
 /** Section 3, continued: the estimator advisor run kept with the plan as the rationale for the method. */
 import { Text, View } from "@react-pdf/renderer";
-import { formatMoney, formatRate, formatTime } from "./format";
+import { formatMoney, formatRate, formatDateTime } from "./format";
 import { Callout, Facts, Paragraph, SubHead, Table } from "./primitives";
 import { s } from "./styles";
 import type { WorkpaperData } from "./workpaper-data";
@@ -23,7 +23,7 @@ export function MethodRationale({ data }: { data: WorkpaperData }) {
           { label: `True audited total under it (${c})`, value: `${formatMoney(r.trueAuditedTotal)} (misstatement ${formatMoney(r.trueMisstatement)})` },
           { label: "Trials and seed", value: `${formatCount(r.trials)} per sample size; seed ${r.seed} (${r.seedSource})`, mono: true },
           { label: "Bound tested", value: r.bound },
-          { label: "Run", value: `${formatTime(r.ranAt)} by ${r.ranBy}` },
+          { label: "Run", value: `${formatDateTime(r.ranAt)} by ${r.ranBy}` },
           { label: "Recommended", value: r.recommended ? `${r.recommended} at n = ${r.atSize}` : `none at n = ${r.atSize}` },
         ]}
       />

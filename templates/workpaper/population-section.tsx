@@ -1,6 +1,6 @@
 /** Section 2: the population, its fingerprint and its reconciliation. */
 import { Text, View } from "@react-pdf/renderer";
-import { formatMoney, formatTime } from "./format";
+import { formatMoney, formatDateTime } from "./format";
 import { Callout, Facts, Section, SubHead } from "./primitives";
 import { s } from "./styles";
 import type { PopulationBlock, WorkpaperData } from "./workpaper-data";
@@ -42,7 +42,7 @@ export function PopulationSection({ data }: { data: WorkpaperData }) {
           { label: "Population", value: p.name },
           { label: "Source file", value: p.sourceFile },
           { label: "SHA-256 of the file", value: p.sha256, mono: true },
-          { label: "Uploaded", value: `${p.uploadedBy}, ${formatTime(p.uploadedAt)}` },
+          { label: "Uploaded", value: `${p.uploadedBy}, ${formatDateTime(p.uploadedAt)}` },
           { label: "Items", value: formatCount(p.itemCount) },
           { label: `Book value (${c})`, value: formatMoney(p.total) },
           { label: "Sampling frame", value: `${formatCount(p.frameCount)} items, ${c} ${formatMoney(p.frameTotal)}` },

@@ -1,6 +1,6 @@
 /** Section 8: review notes, their answers and their clearance. */
 import { Text, View } from "@react-pdf/renderer";
-import { formatTime } from "./format";
+import { formatDateTime } from "./format";
 import { Section } from "./primitives";
 import { colours, s } from "./styles";
 import type { ReviewNote, WorkpaperData } from "./workpaper-data";
@@ -12,17 +12,17 @@ function Note({ note }: { note: ReviewNote }) {
       <Text style={[s.bold, { width: 22, color: colours.ledger }]}>{`R${note.number}`}</Text>
       <View style={{ flex: 1 }}>
         <Text>{note.text}</Text>
-        <Text style={[s.faint, s.small]}>{`Raised by ${note.raisedBy}, ${formatTime(note.raisedAt)}`}</Text>
+        <Text style={[s.faint, s.small]}>{`Raised by ${note.raisedBy}, ${formatDateTime(note.raisedAt)}`}</Text>
         {note.answers.map((a, i) => (
           <View key={i} style={{ marginTop: 2, paddingLeft: 8, borderLeftWidth: 1, borderLeftColor: colours.hairline }}>
             <Text>{a.text}</Text>
-            <Text style={[s.faint, s.small]}>{`Answered by ${a.by}, ${formatTime(a.at)}`}</Text>
+            <Text style={[s.faint, s.small]}>{`Answered by ${a.by}, ${formatDateTime(a.at)}`}</Text>
           </View>
         ))}
       </View>
       <View style={{ width: 150, alignItems: "flex-end" }}>
         <Text style={[s.bold, { color: cleared ? colours.ledger : colours.warn }]}>{cleared ? "Cleared" : "Open"}</Text>
-        {cleared && <Text style={[s.faint, s.small, s.right]}>{`${note.clearedBy ?? ""}, ${formatTime(note.clearedAt)}`}</Text>}
+        {cleared && <Text style={[s.faint, s.small, s.right]}>{`${note.clearedBy ?? ""}, ${formatDateTime(note.clearedAt)}`}</Text>}
       </View>
     </View>
   );

@@ -1,6 +1,6 @@
 /** Section 9: who prepared and who reviewed, and when the workpaper was locked. */
 import { Text, View } from "@react-pdf/renderer";
-import { formatTime } from "./format";
+import { formatDateTime } from "./format";
 import { Section } from "./primitives";
 import { colours, s } from "./styles";
 import type { SignOff, WorkpaperData } from "./workpaper-data";
@@ -13,7 +13,7 @@ function Box({ title, signOff }: { title: string; signOff: SignOff | null }) {
         <View>
           <Text style={[s.bold, { fontSize: 9.5, marginTop: 2 }]}>{signOff.name}</Text>
           <Text style={s.soft}>{signOff.role}</Text>
-          <Text style={s.soft}>{formatTime(signOff.at)}</Text>
+          <Text style={s.soft}>{formatDateTime(signOff.at)}</Text>
         </View>
       ) : (
         <Text style={[s.soft, { marginTop: 2 }]}>Not signed off</Text>
@@ -34,7 +34,7 @@ export function SignOffsSection({ data }: { data: WorkpaperData }) {
             <View>
               <Text style={[s.bold, { fontSize: 9.5, marginTop: 2 }]}>{data.lock.lockedBy}</Text>
               <Text style={s.soft}>{data.lock.role}</Text>
-              <Text style={s.soft}>{formatTime(data.lock.lockedAt)}</Text>
+              <Text style={s.soft}>{formatDateTime(data.lock.lockedAt)}</Text>
             </View>
           ) : (
             <Text style={[s.soft, { marginTop: 2 }]}>Not locked — this is a draft</Text>

@@ -1,6 +1,6 @@
 /** The first page's title block: what this workpaper is, for whom, and its state. */
 import { Text, View } from "@react-pdf/renderer";
-import { formatDate, formatTime } from "./format";
+import { formatDate, formatDateTime } from "./format";
 import { colours, s } from "./styles";
 import type { WorkpaperData } from "./workpaper-data";
 
@@ -28,7 +28,7 @@ function Cell({ label, value, width }: { label: string; value: string; width: st
 
 export function TitleBlock({ data }: { data: WorkpaperData }) {
   const state = data.lock
-    ? `Locked by ${data.lock.lockedBy} (${data.lock.role}), ${formatTime(data.lock.lockedAt)}`
+    ? `Locked by ${data.lock.lockedBy} (${data.lock.role}), ${formatDateTime(data.lock.lockedAt)}`
     : "Draft — not signed off, not locked";
   return (
     <View style={{ marginBottom: 4 }}>
@@ -40,7 +40,7 @@ export function TitleBlock({ data }: { data: WorkpaperData }) {
         <Cell label="Period end" value={formatDate(data.periodEnd)} width="33%" />
         <Cell label="Workpaper reference" value={data.workpaperReference} width="34%" />
         <Cell label="Currency" value={data.currency} width="33%" />
-        <Cell label="Generated" value={formatTime(data.generatedAt)} width="33%" />
+        <Cell label="Generated" value={formatDateTime(data.generatedAt)} width="33%" />
       </View>
       <Text style={[{ marginTop: 5, fontSize: 8 }, data.lock ? { color: colours.ledger } : { color: colours.draft }]}>{state}</Text>
     </View>

@@ -55,8 +55,11 @@ test("the whole job: results, preparer sign-off, a review note answered and clea
   await page.goto(url);
   const review = new ReviewPanelPage(page);
   // Issue 13 §6: no sign-off before the auditor's own conclusion and response are recorded.
-  await page.getByRole("button", { name: "Sign off as preparer" }).click();
-  await expect(page.getByText(/Record the auditor's conclusion/)).toBeVisible();
+  // The screen matches the server's refusal: the button is disabled and says why beside it.
+  const preparerSignOff = page.getByRole("button", { name: "Sign off as preparer" });
+  await expect(preparerSignOff).toBeDisabled();
+  await expect(preparerSignOff).toHaveAccessibleDescription("Record the auditor's conclusion first.");
+  await shot(page, "2a-sign-off-waits-for-conclusion");
   await review.conclude(CONCLUSION, [{ label: "Perform alternative procedures" }]);
   await review.signOff("preparer");
   await shot(page, "2-senior-signed-off");
@@ -79,8 +82,9 @@ test("the whole job: results, preparer sign-off, a review note answered and clea
   await as(page, "manager");
   await page.goto(url);
   await review.raiseNote(`Explain the pricing difference on ${misstated.itemRef} and attach the price list.`);
-  await page.getByRole("button", { name: "Sign off as reviewer" }).click();
-  await expect(page.getByText(/not cleared; clear them before signing off/)).toBeVisible();
+  const reviewerSignOff = page.getByRole("button", { name: "Sign off as reviewer" });
+  await expect(reviewerSignOff).toBeDisabled();
+  await expect(reviewerSignOff).toHaveAccessibleDescription("Clear the open review note first.");
   await shot(page, "3-manager-raised-note");
 
   await as(page, "senior");

@@ -97,7 +97,14 @@ test("a senior plans and draws a PPS sample; staff record results and the String
     // The misstatement is shown as typed, before saving.
     await expect(row.getByTestId("row-misstatement")).toHaveText(shown((Number(misstated.bookValue) - Number(half)).toFixed(2)));
     await sample.record(misstated.itemRef, { cause: "Pricing or rate", causeNote: "Invoiced at the list price, not the contract price" }, DEMO.staff.name);
+    // Choosing the status says on the row, before any save, how the evaluation counts the item (an overstatement test: audited 0).
+    const unauditableRow = sample.row(unauditable.itemRef);
+    await expect(unauditableRow.getByTestId("row-unauditable-treatment")).toHaveCount(0);
+    await unauditableRow.getByLabel(`Status of ${unauditable.itemRef}`).selectOption({ label: "Could not be audited" });
+    await expect(unauditableRow.getByTestId("row-unauditable-treatment")).toHaveText("Evaluated as audited 0: misstated by its whole book value (100% overstatement).");
+    await expect(unauditableRow.getByLabel(`Status of ${unauditable.itemRef}`)).toHaveAccessibleDescription(/Evaluated as audited 0/);
     await sample.record(unauditable.itemRef, { status: "Could not be audited", comment: "No confirmation reply and no subsequent receipt" }, DEMO.staff.name);
+    await expect(unauditableRow.getByTestId("row-unauditable-treatment")).toBeVisible();
     await sample.record(clean2.itemRef, { audited: clean2.bookValue }, DEMO.staff.name);
     await expect(sample.progress("done")).toHaveText("4 of " + (await (await page.request.get(`${apiBase()}/evaluation`)).json()).evaluation.progress.total);
     await expect(sample.progress("not-auditable")).toHaveText("1");

@@ -123,6 +123,8 @@ describe("an item that could not be audited", () => {
     expect(ev.block.understatement.rows).toEqual([expect.objectContaining({ reference: target.itemRef, tainting: 1, auditedValue: (Number(target.bookValue) * 2).toFixed(2) })]);
     expect(ev.block.overstatement.rows).toEqual([]);
     expect(ev.notes[0]).toMatch(/understatement equal to its book value.*never as audited 0/);
+    // The grid's row says the same treatment in a few words (ISA 530 ¶12, from memory: an item the procedures cannot be applied to is treated as a misstatement or a deviation).
+    expect(ev.unauditableOnRow).toBe("Evaluated as audited at twice its book value: an understatement equal to its book value.");
     expect(ev.block.understatementCaution).toMatch(/understated items are less likely to be selected/);
     const plan = (await getDb()("samples").where({ id }).first("plan_json")).plan_json;
     expect(JSON.stringify(plan)).toMatch(/Understatement tested by monetary-unit sampling/);

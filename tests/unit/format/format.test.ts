@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { formatDate, formatShortDate, formatTime, formatWhen } from "@/lib/format/date";
+import { formatDate, formatDateTime, formatShortDate, formatTime, formatWhen } from "@/lib/format/date";
 import { formatBytes, formatCount, formatFactor, formatMoney, formatPercent, formatRate, isNegative } from "@/lib/format/number";
 import { formatAmount } from "@/components/ui/amount";
 import { formatMoney as workpaperMoney } from "@/templates/workpaper/format";
@@ -22,9 +22,9 @@ describe("one formatting module (screens, workbook text, PDF and e-mail print al
   it("prints rates, UTC times and period dates", () => {
     expect(formatRate(0.0475)).toBe("4.75%");
     expect(formatRate(0.95, 0)).toBe("95%");
-    expect(formatTime("2027-02-08T09:24:00.000Z")).toBe("2027-02-08 09:24 UTC");
-    expect(formatTime("2027-02-08T10:24:00+01:00")).toBe("2027-02-08 09:24 UTC");
-    expect(formatDate("2026-12-31")).toBe("31 December 2026");
+    expect(formatDateTime("2027-02-08T09:24:00.000Z")).toBe("8 Feb 2027, 09:24 UTC");
+    expect(formatDateTime("2027-02-08T10:24:00+01:00")).toBe("8 Feb 2027, 09:24 UTC"); // an offset is brought back to UTC
+    expect(formatDate("2026-12-31")).toBe("31 Dec 2026");
   });
 
   it("is exact on decimal text beyond a float's 15–17 digits (Intl formats the string, not a double)", () => {
@@ -45,9 +45,25 @@ describe("one formatting module (screens, workbook text, PDF and e-mail print al
     expect(formatBytes(5 * 1024 * 1024)).toBe("5.0 MB");
   });
 
-  it("prints instants in UTC in words, and calendar days without a time-zone shift", () => {
-    expect(formatWhen("2026-12-02T09:05:00Z")).toBe("2 December 2026 at 09:05 UTC");
-    expect(formatShortDate("2026-12-31")).toBe("31 Dec 2026");
+  it("has one style for dates and one for instants, whatever name an older caller uses", () => {
+    expect(formatDateTime("2026-12-02T09:05:00Z")).toBe("2 Dec 2026, 09:05 UTC");
+    for (const older of [formatTime, formatWhen]) expect(older("2026-12-02T09:05:00Z")).toBe(formatDateTime("2026-12-02T09:05:00Z"));
+    expect(formatShortDate("2026-12-31")).toBe(formatDate("2026-12-31"));
+  });
+
+  it("prints calendar days without a time-zone shift, every month by the same hand-written abbreviation", () => {
+    expect(formatDate("2026-01-01")).toBe("1 Jan 2026");
+    expect(formatDate("2026-09-30")).toBe("30 Sep 2026"); // not ICU's en-GB "Sept", which differs between Node and browsers
+    expect(formatDate("2026-12-31T23:59:59.999Z")).toBe("31 Dec 2026");
+    expect(["01", "02", "03", "04", "05", "06", "07", "08", "09", "10", "11", "12"].map((m) => formatDate(`2027-${m}-15`).split(" ")[1]))
+      .toEqual(["Jan", "Feb", "Mar", "Apr", "May", "Jun", "Jul", "Aug", "Sep", "Oct", "Nov", "Dec"]);
+  });
+
+  it("shows a dash for nothing, and refuses what is not a date, naming it", () => {
+    expect(formatDate(null)).toBe("—");
+    expect(formatDateTime(undefined)).toBe("—");
+    expect(formatDateTime("")).toBe("—");
     expect(() => formatDate("31/12/2026")).toThrow(/31\/12\/2026/);
+    expect(() => formatDateTime("soon", "lockedAt")).toThrow(/lockedAt: not a date/);
   });
 });

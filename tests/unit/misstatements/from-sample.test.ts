@@ -17,7 +17,7 @@ function musEvaluation(): SampleEvaluation {
   const side = (x: typeof r.overstatement) => ({ upperLimit: x.upperLimit.toFixed(2), projected: x.projected.toFixed(2) });
   const block = { method: "mus", direction: "overstatement", overstatement: side(r.overstatement), understatement: side(r.understatement) } as unknown as MusEvaluationBlock;
   return {
-    sampleId: 3, method: "mus", direction: "overstatement", confidence: 0.95, tolerableMisstatement: "100000.00", complete: true, caution: "", notes: [], warnings: [],
+    sampleId: 3, method: "mus", direction: "overstatement", confidence: 0.95, tolerableMisstatement: "100000.00", complete: true, caution: "", notes: [], unauditableOnRow: "", warnings: [],
     progress: { total: 1, done: 1, notAuditable: 0, notStarted: 0, void: 0, misstatements: 1, misstatementTotal: "1096.00", deviations: 0 },
     block, computed: { statement: "" } as unknown as SampleEvaluation["computed"], projectedMisstatement: r.mostLikelyMisstatement.toFixed(2),
   };

@@ -28,8 +28,8 @@ describe("engagement invitation", () => {
     for (const part of [m.text, m.html].map((p) => p.replace(/\s+/g, " "))) {
       expect(part).toContain("Hello Jonah Lindqvist,");
       expect(part).toContain("Tomás Reyes added you to the team of Tessaly Outdoor — Year-end audit 2026 in Sondage, as staff.");
-      expect(part).toContain("31 December 2026");
-      expect(part).toContain("30 November 2026 at 15:40 UTC");
+      expect(part).toContain("31 Dec 2026");
+      expect(part).toContain("30 Nov 2026, 15:40 UTC");
     }
   });
 

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { escapeHtml, oneLine, safeUrl } from "@/templates/email/escape";
-import { formatDay, formatWhen, wrapText } from "@/templates/email/format";
+import { formatDate, formatDateTime, wrapText } from "@/templates/email/format";
 
 describe("escapeHtml", () => {
   it("escapes the five characters that matter in content and quoted attributes", () => {
@@ -36,15 +36,15 @@ describe("oneLine", () => {
 
 describe("dates", () => {
   it("spells out the instant in UTC", () => {
-    expect(formatWhen(new Date("2026-12-02T09:05:00Z"))).toBe("2 December 2026 at 09:05 UTC");
+    expect(formatDateTime(new Date("2026-12-02T09:05:00Z"))).toBe("2 Dec 2026, 09:05 UTC");
   });
 
   it("shows a period end as its calendar day, whatever the time zone", () => {
-    expect(formatDay("2026-12-31")).toBe("31 December 2026");
+    expect(formatDate("2026-12-31")).toBe("31 Dec 2026");
   });
 
   it("refuses what is not a date, naming the field", () => {
-    expect(() => formatWhen("soon", "at")).toThrow(/at: not a date/);
+    expect(() => formatDateTime("soon", "at")).toThrow(/at: not a date/);
   });
 });
 

@@ -53,7 +53,7 @@ describe("review note cleared", () => {
   });
 
   it("says who cleared it and when", () => {
-    expect(m.text).toContain("Cleared by: Tomás Reyes, 2 December 2026 at 09:05 UTC");
+    expect(m.text).toContain("Cleared by: Tomás Reyes, 2 Dec 2026, 09:05 UTC");
     expect(m.html).not.toContain("<script>");
   });
 });

@@ -9,7 +9,7 @@ describe("sample locked", () => {
 
   it("says who locked it and that it is final", () => {
     const m = sampleLocked(sampleEvent());
-    expect(m.text).toContain("Locked by:  Tomás Reyes, 2 December 2026 at 09:05 UTC");
+    expect(m.text).toContain("Locked by:  Tomás Reyes, 2 Dec 2026, 09:05 UTC");
     expect(m.html).toContain("its workpaper is final");
   });
 });

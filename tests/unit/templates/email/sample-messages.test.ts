@@ -40,7 +40,7 @@ describe("every sample message", () => {
         for (const part of [m.text, m.html]) {
           expect(part).toContain("Hello Priya Nair,");
           expect(part).toContain("Tomás Reyes");
-          expect(part).toContain("2 December 2026 at 09:05 UTC");
+          expect(part).toContain("2 Dec 2026, 09:05 UTC");
         }
       });
 

@@ -10,7 +10,7 @@ describe("sample ready for review", () => {
   it("says who sent it and asks for review", () => {
     const { text } = sampleReadyForReview(sampleEvent());
     expect(text).toContain('Tomás Reyes marked the sample "Receivables MUS" ready for review.');
-    expect(text).toContain("Sent by:    Tomás Reyes, 2 December 2026 at 09:05 UTC");
+    expect(text).toContain("Sent by:    Tomás Reyes, 2 Dec 2026, 09:05 UTC");
     expect(text).toContain("Review the sample:\nhttps://sondage.example/engagements/12/samples/34");
   });
 });

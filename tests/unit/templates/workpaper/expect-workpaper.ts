@@ -21,7 +21,7 @@ export const SECTION_TITLES = [
 export function expectCommonContent(pdf: RenderedPdf, data: WorkpaperData): void {
   const text = squash(pdf.text);
   for (const title of SECTION_TITLES) expect(text).toContain(title);
-  for (const fact of [data.firmName, data.clientName, data.workpaperReference, "31 December 2026"]) expect(text).toContain(fact);
+  for (const fact of [data.firmName, data.clientName, data.workpaperReference, "period ended 31 Dec 2026"]) expect(text).toContain(fact);
   expect(text).toContain(String(data.selection.seed));
   expect(text).toContain(data.population.sha256);
   expect(text).toContain(data.selection.selectionSha256);
