@@ -22,7 +22,7 @@ import { formatDateTime } from "@/lib/format/date";
 
 const num = { valueAsNumber: true } as const;
 const cellInput =
-  "w-20 rounded-md border border-ink-line bg-paper-raised px-2 py-1 text-right text-sm figures focus:border-ledger-500 focus:outline-none aria-[invalid=true]:border-brick-500";
+  "w-24 rounded-md border border-ink-line bg-paper-raised px-2 py-1 text-right text-sm figures focus:border-ledger-500 focus:outline-none aria-[invalid=true]:border-brick-500";
 
 /** The firm's methodology settings, validated by the same schema as PUT /api/firm/methodology. */
 export function MethodologyForm({ initial }: { initial: MethodologyVersion }) {
@@ -158,7 +158,7 @@ export function MethodologyForm({ initial }: { initial: MethodologyVersion }) {
         </div>
         <div className="mt-3 flex gap-3">
           <Button type="button" variant="secondary" onClick={deriveConfidences}>
-            Derive every confidence from its factor (1 − e^−factor)
+            Derive every confidence from its factor (1 − e<sup>−factor</sup>)
           </Button>
           <Button
             type="button"

@@ -11,7 +11,7 @@ export function TrailCard({ view }: { view: SummaryView }) {
         <table className="mt-3 w-full text-xs">
           <thead>
             <tr className="border-b border-ink-line text-left uppercase tracking-wider text-ink-soft">
-              <th scope="col" className="py-1.5 pr-2 font-medium">When (UTC)</th><th scope="col" className="py-1.5 pr-2 font-medium">Who</th><th scope="col" className="py-1.5 pr-2 font-medium">Action</th>
+              <th scope="col" className="py-1.5 pr-2 font-medium">When</th><th scope="col" className="py-1.5 pr-2 font-medium">Who</th><th scope="col" className="py-1.5 pr-2 font-medium">Action</th>
               <th scope="col" className="py-1.5 pr-2 font-medium">Subject</th><th scope="col" className="py-1.5 font-medium">After</th>
             </tr>
           </thead>

@@ -73,7 +73,7 @@ export function ReviewPanel({ engagementId, sampleId, role, review, notes, drawn
           )}
         </div>
         {drawn && <ConclusionForm base={base} computed={computed} complete={complete} conclusion={review.conclusion} mayWrite={isPreparer && !review.lock} />}
-        <div className="flex flex-wrap gap-2">
+        <div className="flex flex-wrap items-start gap-2">
           {!review.lock && isPreparer && (review.preparer
             ? <Action disabled why="You have signed off as preparer. A change to the work clears it; then sign again.">Signed off as preparer</Action>
             : <Action disabled={busy || preparerBlocked !== null} why={preparerBlocked ?? undefined} onClick={() => act("sign-off", { as: "preparer" }, "Signed off as preparer; the reviewers have been told.")}>Sign off as preparer</Action>)}

@@ -14,10 +14,14 @@ import { textOf } from "@/lib/format/text";
 type In = z.input<typeof DrawSchema>;
 type Out = z.output<typeof DrawSchema>;
 
-interface Props { engagementId: number; sampleId: number; currentVersion: number | null; populationReady: boolean; onDrawn: (view: SampleView) => void }
+interface Props {
+  engagementId: number; sampleId: number; currentVersion: number | null; populationReady: boolean; onDrawn: (view: SampleView) => void;
+  /** A haphazard selection has no seed (the server refuses one): no seed field then. */
+  seeded?: boolean;
+}
 
 /** Draws on the server; an entered seed re-performs a draw made elsewhere. Drawing again makes a new version. */
-export function DrawForm({ engagementId, sampleId, currentVersion, populationReady, onDrawn }: Props) {
+export function DrawForm({ engagementId, sampleId, currentVersion, populationReady, onDrawn, seeded = true }: Props) {
   const [failure, setFailure] = useState<string | null>(null);
   const [confirming, setConfirming] = useState(false);
   const { register, handleSubmit, reset, setError, formState: { errors, isSubmitting } } = useForm<In, unknown, Out>({ resolver: zodResolver(DrawSchema), defaultValues: { seed: "" } });
@@ -41,9 +45,13 @@ export function DrawForm({ engagementId, sampleId, currentVersion, populationRea
     <form onSubmit={onSubmit} noValidate className="space-y-3">
       {failure && <Alert>{failure}</Alert>}
       {!populationReady && <Alert tone="info">The population is not reconciled yet; the server will refuse the draw until it is.</Alert>}
-      <Field label="Seed (optional)" error={errors.seed?.message} hint="Leave blank for a seed generated on the server. Enter one (0 to 4294967295) to re-perform a selection made elsewhere.">
-        {({ id, describedBy, invalid }) => <Input id={id} aria-describedby={describedBy} aria-invalid={invalid} inputMode="numeric" className="figures max-w-56" {...register("seed", { setValueAs: (v: unknown) => (textOf(v).trim() === "" ? undefined : v) })} />}
-      </Field>
+      {seeded ? (
+        <Field label="Seed (optional)" error={errors.seed?.message} hint="Leave blank for a seed generated on the server. Enter one (0 to 4294967295) to re-perform a selection made elsewhere.">
+          {({ id, describedBy, invalid }) => <Input id={id} aria-describedby={describedBy} aria-invalid={invalid} inputMode="numeric" className="figures max-w-56" {...register("seed", { setValueAs: (v: unknown) => (textOf(v).trim() === "" ? undefined : v) })} />}
+        </Field>
+      ) : (
+        <p className="text-sm text-ink-soft">A haphazard selection has no seed: drawing sets the key items, then you pick the rest from the population on this tab.</p>
+      )}
       {confirming && (
         <Alert tone="info">
           Drawing again creates version {next}. Version {currentVersion} and any results recorded on it are kept for the record; fieldwork continues on version {next}.

@@ -103,7 +103,7 @@ export function HaphazardPicker({
               <th className="py-1 text-right font-medium">Row</th>
               <th className="py-1 text-right font-medium">Book value</th>
               <th className="py-1 pl-4 font-medium">Picked by</th>
-              <th className="py-1 font-medium">When (UTC)</th>
+              <th className="py-1 font-medium">When</th>
               <th />
             </tr>
           </thead>

@@ -103,7 +103,9 @@ export function PlanParameters({ form, plan, currency, performanceMateriality, e
             {({ id, describedBy, invalid }) => <Input id={id} aria-describedby={describedBy} aria-invalid={invalid} inputMode="decimal" className={money} placeholder={plan?.interval !== undefined ? String(plan.interval) : ""} {...register("params.topStratumThreshold")} />}
           </Field>
           <p className="self-center text-xs text-ink-soft" data-testid="mus-methodology">
-            {plan?.sizeMethod ? <>Sized with {SIZE_METHOD_TEXT[plan.sizeMethod]}; factors {plan.factorMode === "table" ? "rounded up to 2 decimals, as printed tables" : "exact (gamma quantiles)"}.</> : "Size method and factors"} Both are set in the firm&apos;s methodology settings and recorded with the plan.
+            {plan?.sizeMethod
+              ? <>Sized with {SIZE_METHOD_TEXT[plan.sizeMethod]}; factors {plan.factorMode === "table" ? "rounded up to 2 decimals, as printed tables" : "exact (gamma quantiles)"}. Both are set in the firm&apos;s methodology settings and recorded with the plan.</>
+              : "The size method and the factors come from the firm’s methodology settings and are recorded with the plan."}
           </p>
         </>
       )}

@@ -68,9 +68,10 @@ export function StatusCell() {
   if (item.status === "void") return <span>{ITEM_STATUS_LABELS.void}</span>;
   const treatmentId = `${formId}-unauditable`;
   return (
-    <div className="w-40">
-      <select form={formId} data-cell="status" aria-label={`Status of ${item.itemRef}`} className={`${compact} w-40 text-[13px]`} disabled={!editable}
-        aria-describedby={status === "not-auditable" && treatment ? treatmentId : undefined} {...form.register("status")}>
+    <div className="w-44">
+      <select form={formId} data-cell="status" aria-label={`Status of ${item.itemRef}`} className={`${compact} w-44 text-[13px]`} disabled={!editable}
+        aria-describedby={status === "not-auditable" && treatment ? treatmentId : undefined}
+        {...form.register("status", { onChange: (e: React.ChangeEvent<HTMLSelectElement>) => { if (e.target.value === "not-auditable") form.setValue("auditedValue", "", { shouldDirty: true }); } })}>
         {ITEM_STATUSES.map((s) => <option key={s} value={s}>{ITEM_STATUS_LABELS[s]}</option>)}
       </select>
       {status === "not-auditable" && treatment && <span id={treatmentId} className="mt-0.5 block text-xs text-amber-700" data-testid="row-unauditable-treatment">{treatment}</span>}

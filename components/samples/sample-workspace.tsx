@@ -81,7 +81,8 @@ export function SampleWorkspace({ engagementId, initialView, initialEvaluation, 
           <Card title={currentDraw ? "Re-perform or draw again" : "Draw the sample"}>
             <div className="space-y-5">
               {currentDraw && <ReperformPanel engagementId={engagementId} sampleId={sample.id} onChecked={refreshView} />}
-              {may.draw ? <DrawForm engagementId={engagementId} sampleId={sample.id} currentVersion={currentDraw?.version ?? null} populationReady={population.status === "reconciled"} onDrawn={onDrawn} />
+              {may.draw ? <DrawForm engagementId={engagementId} sampleId={sample.id} currentVersion={currentDraw?.version ?? null} populationReady={population.status === "reconciled"} onDrawn={onDrawn}
+                seeded={!(sample.method === "nonstatistical" && sample.plan.nonstatistical?.selection === "haphazard")} />
                 : !currentDraw && <Alert tone="info">A senior, manager or partner on the engagement draws the sample.</Alert>}
             </div>
           </Card>

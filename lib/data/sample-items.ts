@@ -123,8 +123,8 @@ export async function applyItemResult(trx: Knex.Transaction, { engagementId, sam
   if (!before) throw notFound("No such item in this sample");
   if (before.status === "void") throw new AppError(409, "void_item", "This item was voided and replaced; record the result on its replacement.");
   if (Number(before.version) !== input.version) {
-    const when = before.updated_at ? formatDateTime(new Date(before.updated_at)) : "recently";
-    throw new AppError(409, "stale", `${before.updated_by_name ?? "Someone"} changed this item at ${when} after you opened it. Reload to see their change; yours was not saved.`, undefined);
+    const when = before.updated_at ? `on ${formatDateTime(new Date(before.updated_at))}` : "recently";
+    throw new AppError(409, "stale", `${before.updated_by_name ?? "Someone"} changed this item ${when}, after you opened it. Reload to see their change; yours was not saved.`, undefined);
   }
   const patch = {
     status: input.status,

@@ -55,8 +55,8 @@ function parseResult(kind: WorkbookKind, sr: SheetRow, current: RowResult, repor
 }
 
 function staleReason(item: ItemFacts, version: number): string {
-  const when = item.updatedAt ? formatDateTime(item.updatedAt) : "recently";
-  return `Version conflict: ${item.updatedByName ?? "Someone"} changed this item at ${when}, after this workbook was exported (workbook version ${version}, now ${item.version}). Your change to this row was not applied: export a fresh workbook and enter it again.`;
+  const when = item.updatedAt ? `on ${formatDateTime(item.updatedAt)}` : "recently";
+  return `Version conflict: ${item.updatedByName ?? "Someone"} changed this item ${when}, after this workbook was exported (workbook version ${version}, now ${item.version}). Your change to this row was not applied: export a fresh workbook and enter it again.`;
 }
 
 /**

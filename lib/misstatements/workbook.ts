@@ -3,6 +3,7 @@ import ExcelJS from "exceljs";
 import { safeCellText } from "@/lib/fieldwork/cell-text";
 import { KIND_LABELS, treatmentOf } from "./labels";
 import type { SummaryView } from "./types";
+import { formatDate, formatDateTime } from "@/lib/format/date";
 
 const MONEY_FORMAT = "#,##0.00;-#,##0.00";
 const t = (v: string | null | undefined) => safeCellText(v ?? "");
@@ -17,8 +18,8 @@ function writeOverview(wb: ExcelJS.Workbook, v: SummaryView) {
     return row;
   };
   ws.addRow([t(`Summary of misstatements — ${v.engagement.clientName} · ${v.engagement.name}`)]).font = { bold: true, size: 13 };
-  line("Period ended", v.engagement.periodEnd);
-  line("Workpaper", `${v.workpaperReference}${v.review.lock ? ` (locked ${v.review.lock.at}, SHA-256 ${v.review.lock.workpaperSha256})` : " (draft, not locked)"}`);
+  line("Period ended", formatDate(v.engagement.periodEnd));
+  line("Workpaper", `${v.workpaperReference}${v.review.lock ? ` (locked ${formatDateTime(v.review.lock.at)}, SHA-256 ${v.review.lock.workpaperSha256})` : " (draft, not locked)"}`);
   line("Currency", v.materiality.currency);
   ws.addRow([]);
   line("Overall materiality", n(v.materiality.overall), true);

@@ -1,6 +1,7 @@
 import { CAUSE_LABELS, METHOD_LABELS } from "@/lib/validation/sample";
 import { FIELD_LABELS, ITEM_STATUS_LABELS } from "@/lib/fieldwork/field-labels";
-import { formatDateTime } from "@/lib/format/dates";
+import { formatDate, formatDateTime } from "@/lib/format/date";
+import { REQUEST_NEED_LABELS } from "@/lib/validation/requests";
 
 /**
  * One audit-log row as people read it, on the trail page and in the locked workpaper's appendix:
@@ -36,6 +37,8 @@ const KEY_LABELS: Record<string, string> = {
   rows: "Rows", status_: "Status", replacedBy: "Replaced by", replacement: "Replacement", note: "Note", lockedAt: "Locked", workpaperObjectKey: "Stored workpaper",
 };
 
+const HIDDEN_KEYS = new Set(["contactUserId"]);
+
 const humanise = (key: string) => KEY_LABELS[key] ?? key.replace(/([a-z])([A-Z])/g, "$1 $2").replace(/[-_]/g, " ").replace(/^./, (c) => c.toUpperCase()).replace(/ ([A-Z])/g, (_m, c: string) => ` ${c.toLowerCase()}`);
 const amount = (v: string) => { const [w, f = "00"] = v.replace(/^-/, "").split("."); return `${v.startsWith("-") ? "−" : ""}${w.replace(/\B(?=(\d{3})+(?!\d))/g, ",")}.${f.padEnd(2, "0")}`; };
 const MONEY_KEYS = new Set(["auditedValue", "bookValue", "tolerableMisstatement", "expectedMisstatement", "total", "controlTotal"]);
@@ -51,7 +54,9 @@ export function showValue(key: string, v: unknown, ctx?: ChangeContext): string 
   if (MONEY_KEYS.has(key) && /^-?\d+(\.\d+)?$/.test(String(v))) return amount(String(v));
   if (key === "confidence" && typeof v === "number") return `${Number((v * 100).toPrecision(6))}%`;
   if (typeof v === "boolean") return v ? "yes" : "no";
+  if (key === "needs" && typeof v === "string" && v in REQUEST_NEED_LABELS) return REQUEST_NEED_LABELS[v as keyof typeof REQUEST_NEED_LABELS];
   if (typeof v === "string" && /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}/.test(v)) return formatDateTime(v);
+  if (typeof v === "string" && /^\d{4}-\d{2}-\d{2}$/.test(v)) return formatDate(v);
   if (typeof v === "number") return v.toLocaleString("en-US", { maximumFractionDigits: 6 });
   if (Array.isArray(v)) return v.map((x) => showValue(key, x, ctx)).join(", ");
   if (typeof v === "object") return Object.entries(v as Record<string, unknown>).map(([k, x]) => `${humanise(k)} ${showValue(k, x, ctx)}`).join("; ");
@@ -71,7 +76,8 @@ function subjectOf(e: ChangeSource, ctx: ChangeContext): string | null {
 export function describeChange(e: ChangeSource, ctx: ChangeContext): ReadableChange {
   const before = asRecord(e.before);
   const after = asRecord(e.after);
-  const keys = [...new Set([...Object.keys(before), ...Object.keys(after)])];
+  // Internal ids a person cannot read (the contact is named in the request list itself) are left out.
+  const keys = [...new Set([...Object.keys(before), ...Object.keys(after)])].filter((k) => !HIDDEN_KEYS.has(k));
   const both = e.before !== null && e.before !== undefined && e.after !== null && e.after !== undefined;
   const changes = keys
     .map((k) => ({ key: k, before: k in before ? showValue(k, before[k], ctx) : "—", after: k in after ? showValue(k, after[k], ctx) : "—" }))

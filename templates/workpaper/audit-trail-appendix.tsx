@@ -11,7 +11,7 @@ export function AuditTrailAppendix({ data }: { data: WorkpaperData }) {
       <Text style={[s.soft, { marginBottom: 4 }]}>Every change to the sample, in time order, as recorded by Sondage.</Text>
       <Table
         columns={[
-          { label: "When", width: 84 },
+          { label: "When", width: 96 },
           { label: "Who", width: 72 },
           { label: "What", flex: 1.2 },
           { label: "Before", flex: 1 },

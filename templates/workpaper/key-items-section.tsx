@@ -103,7 +103,7 @@ export function KeyItemsAndPicks({ data }: { data: WorkpaperData }) {
               { label: "Row", width: 45, align: "right" },
               { label: "Book value", width: 85, align: "right" },
               { label: "Picked by", flex: 1 },
-              { label: "When (UTC)", width: 110 },
+              { label: "When", width: 110 },
             ]}
             rows={picks.map((p) => ({
               cells: [

@@ -185,7 +185,7 @@ describe("monetary-unit sample: fieldwork and the Stringer bound", () => {
     const staleVersion = first.version - 1;
     const r = await saveResult(senior, engagement, sampleId, first.id, { version: staleVersion, status: "done", auditedValue: "1.00" });
     expect(r.status).toBe(409);
-    expect(r.json.error.message).toMatch(/Person \d+ \(staff\) changed this item at .* after you opened it/);
+    expect(r.json.error.message).toMatch(/Person \d+ \(staff\) changed this item on \d{1,2} [A-Z][a-z]{2} \d{4}, \d{2}:\d{2} UTC, after you opened it/);
     const [again] = await listSampleItems(staff, engagement, sampleId);
     expect(again.version).toBe(first.version);
   });

@@ -1,4 +1,5 @@
 import { describe, expect, it } from "vitest";
+import { REQUEST_NEED_LABELS } from "@/lib/validation/requests";
 import { describeChange } from "@/lib/review/describe-change";
 import { METHOD_LABELS } from "@/lib/validation/sample";
 
@@ -32,5 +33,15 @@ describe("describeChange", () => {
     expect(describeChange({ entity: "review_note", entityId: "3", action: "raise", before: null, after: { text: "Explain", itemId: 41 } }, ctx).changes)
       .toEqual([{ field: "Note", before: "—", after: "Explain" }, { field: "Item", before: "—", after: "INV-100218" }]);
     expect(describeChange({ entity: "sample", entityId: "1", action: "archive-thing", before: null, after: null }, ctx).what).toBe("Archive thing");
+  });
+
+  it("prints a request list's due date, needs and contact as people read them, not as stored", () => {
+    const r = describeChange({ entity: "request_list", entityId: "5", action: "create", before: null, after: { title: "Invoices", contactUserId: 7, dueDate: "2026-12-13", needs: ["invoice", "delivery-note"] } }, ctx);
+    expect(r.subject).toBe("Client request list");
+    expect(r.changes).toEqual([
+      { field: "Title", before: "—", after: "Invoices" },
+      { field: "Due date", before: "—", after: "13 Dec 2026" },
+      { field: "Needs", before: "—", after: `${REQUEST_NEED_LABELS.invoice}, ${REQUEST_NEED_LABELS["delivery-note"]}` },
+    ]);
   });
 });
