@@ -14,6 +14,7 @@ import { Amount } from "@/components/ui/amount";
 import { api, ApiError } from "@/components/ui/api";
 import { formatCount } from "./labels";
 import { textOf } from "@/lib/format/text";
+import { formatDate } from "@/lib/format/date";
 
 type FormIn = z.input<typeof ReconcileSchema>;
 type FormOut = z.output<typeof ReconcileSchema>;
@@ -108,7 +109,7 @@ function StatusNote({ population: p }: { population: PopulationRecord }) {
   if (p.status === "reconciled") {
     return (
       <Alert tone="success">
-        <p className="font-semibold">Reconciled{p.reconciledByName ? ` by ${p.reconciledByName}` : ""}{p.reconciledAt ? ` on ${p.reconciledAt.slice(0, 10)}` : ""}.</p>
+        <p className="font-semibold">Reconciled{p.reconciledByName ? ` by ${p.reconciledByName}` : ""}{p.reconciledAt ? ` on ${formatDate(p.reconciledAt)}` : ""}.</p>
         {p.reconciliationExplanation && <p className="mt-1">Difference explained: “{p.reconciliationExplanation}”</p>}
       </Alert>
     );

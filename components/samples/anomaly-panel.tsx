@@ -5,6 +5,7 @@ import { Alert } from "@/components/ui/alert";
 import { Amount } from "@/components/ui/amount";
 import { Button } from "@/components/ui/button";
 import { api } from "@/components/ui/api";
+import { formatDate } from "@/lib/format/date";
 
 interface Props {
   base: string;
@@ -120,7 +121,7 @@ export function AnomalyPanel({ base, method, refreshKey, mayMark, mayAccept, all
                 <p className="mt-1 text-ink-soft">
                   “{i.anomaly.justification}” — proposed by {i.anomaly.markedByName}
                   {i.anomaly.acceptedAt
-                    ? `, accepted by ${i.anomaly.acceptedByName} on ${i.anomaly.acceptedAt.slice(0, 10)}: excluded from the projection and added at its actual amount`
+                    ? `, accepted by ${i.anomaly.acceptedByName} on ${formatDate(i.anomaly.acceptedAt)}: excluded from the projection and added at its actual amount`
                     : ", awaiting a manager's or partner's acceptance"}
                   .
                 </p>

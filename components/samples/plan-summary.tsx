@@ -1,4 +1,5 @@
 import Link from "next/link";
+import { formatDateTime } from "@/lib/format/date";
 import type { SampleRecord } from "@/lib/data/samples";
 import { Amount } from "@/components/ui/amount";
 import { SizePanel } from "./size-panel";
@@ -43,7 +44,7 @@ export function PlanSummary({ sample, currency, performanceMateriality, editHref
   if (sample.method === "mus") facts.push(["Poisson factors", factorModeOfSample(sample) === "exact" ? "Exact (firm methodology at planning)" : "Table, 2 decimals (firm methodology at planning)"]);
   facts.push(["Size", <span key="sz" className="figures">{sample.chosenSize}{sample.chosenSize !== sample.computedSize && ` (computed ${sample.computedSize})`}</span>]);
   if (sample.sizeReason) facts.push(["Reason for the size", sample.sizeReason]);
-  facts.push(["Planned", `${sample.createdAt.slice(0, 10)} by ${sample.createdByName} · plan version ${sample.planVersion}`]);
+  facts.push(["Planned", `${formatDateTime(sample.createdAt)} by ${sample.createdByName} · plan version ${sample.planVersion}`]);
   return (
     <div className="grid gap-6 lg:grid-cols-5">
       <div className="lg:col-span-3">
