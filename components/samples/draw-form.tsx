@@ -30,7 +30,7 @@ export function DrawForm({ engagementId, sampleId, currentVersion, populationRea
     if (currentVersion !== null && !confirming) { setConfirming(true); return; }
     setFailure(null);
     try {
-      const view = await api<SampleView>(`/api/engagements/${engagementId}/samples/${sampleId}/draw`, { body: seed === undefined ? {} : { seed } });
+      const view = await api<SampleView>(`/api/engagements/${engagementId}/samples/${sampleId}/draw`, { body: seed === undefined || !seeded ? {} : { seed } });
       setConfirming(false);
       reset({ seed: "" });
       onDrawn(view);
