@@ -3,9 +3,9 @@ import type { PopulationRecord } from "@/lib/data/populations";
 import { Badge } from "@/components/ui/badge";
 import { buttonClass } from "@/components/ui/button";
 import { CopyButton } from "./copy-button";
-import { formatBytes, POPULATION_STATUS_LABELS, populationStatusTone } from "./labels";
-import { formatCount } from "@/lib/format/number";
-import { formatDateTime } from "@/lib/format/dates";
+import { POPULATION_STATUS_LABELS, populationStatusTone } from "./labels";
+import { formatBytes, formatCount } from "@/lib/format/number";
+import { formatWhen } from "@/lib/format/date";
 
 interface Props { population: PopulationRecord; engagement: { id: number; name: string; clientName: string }; replacedBy: { id: number; name: string } | null; replaces: { id: number; name: string } | null }
 
@@ -21,7 +21,7 @@ export function PopulationHeader({ population: p, engagement, replacedBy, replac
           <h1 className="mt-1 flex flex-wrap items-center gap-3 text-2xl font-semibold">
             {p.name} <Badge tone={populationStatusTone(p.status)}>{POPULATION_STATUS_LABELS[p.status]}</Badge>
           </h1>
-          <p className="mt-1 text-sm text-ink-soft">Loaded by {p.createdByName} on {formatDateTime(p.createdAt)}</p>
+          <p className="mt-1 text-sm text-ink-soft">Loaded by {p.createdByName} on {formatWhen(p.createdAt)}</p>
         </div>
         <a href={`/api/engagements/${engagement.id}/populations/${p.id}/original`} className={buttonClass("secondary")} download>Download the original file</a>
       </div>

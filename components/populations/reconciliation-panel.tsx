@@ -12,8 +12,8 @@ import { Button } from "@/components/ui/button";
 import { Alert } from "@/components/ui/alert";
 import { Amount } from "@/components/ui/amount";
 import { api, ApiError } from "@/components/ui/api";
-import { formatCount } from "./labels";
 import { textOf } from "@/lib/format/text";
+import { formatCount } from "@/lib/format/number";
 
 type FormIn = z.input<typeof ReconcileSchema>;
 type FormOut = z.output<typeof ReconcileSchema>;

@@ -9,6 +9,3 @@ export const FILE_STATUS_LABELS = { pending: "Awaiting review", accepted: "Accep
 export const needsText = (needs: RequestNeed[]) => needs.filter((n) => n !== "other").map((n) => REQUEST_NEED_LABELS[n]).join("; ");
 
 export { REQUEST_STATUS_LABELS };
-
-export { formatShortDate as formatDay } from "@/lib/format/date";
-export { formatBytes } from "@/lib/format/number";

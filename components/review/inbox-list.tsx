@@ -2,8 +2,8 @@ import Link from "next/link";
 import type { Inbox, InboxReason } from "@/lib/review/inbox";
 import { Card, EmptyState } from "@/components/ui/card";
 import { Badge } from "@/components/ui/badge";
-import { formatDateTime } from "@/lib/format/dates";
-import { countOf } from "@/lib/format/numbers";
+import { formatWhen } from "@/lib/format/date";
+import { countOf } from "@/lib/format/number";
 
 export const INBOX_REASON_LABELS: Record<InboxReason, string> = {
   review: "Review and sign off",
@@ -37,7 +37,7 @@ export function InboxList({ inbox }: { inbox: Inbox }) {
               <td className="py-2.5 pr-3"><Link className="font-medium link" href={`/engagements/${e.engagementId}/samples/${e.sampleId}`}>{e.sampleName}</Link></td>
               <td className="py-2.5 pr-3">{e.clientName}<span className="block text-xs text-ink-soft">{e.engagementName}</span></td>
               <td className="py-2.5 pr-3"><Badge tone={TONE[e.reason]}>{INBOX_REASON_LABELS[e.reason]}</Badge><span className="mt-0.5 block text-xs text-ink-soft">{what(e.reason, e.notes)}</span></td>
-              <td className="figures py-2.5 text-xs text-ink-soft">{formatDateTime(e.since)}</td>
+              <td className="figures py-2.5 text-xs text-ink-soft">{formatWhen(e.since)}</td>
             </tr>
           ))}
         </tbody>

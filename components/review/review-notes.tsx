@@ -3,12 +3,12 @@ import { useState } from "react";
 import { hasAtLeastRole, type EngagementRole } from "@/lib/auth/roles";
 import type { ReviewNote } from "@/lib/review/notes";
 import { AnswerNoteSchema, RaiseNoteSchema } from "@/lib/validation/review";
-import { formatDateTime } from "@/lib/format/dates";
 import { api, ApiError } from "@/components/ui/api";
 import { Alert } from "@/components/ui/alert";
 import { Badge } from "@/components/ui/badge";
 import { Button } from "@/components/ui/button";
 import { NOTE_STATUS_LABELS, NOTE_STATUS_TONES } from "./note-labels";
+import { formatWhen } from "@/lib/format/date";
 
 export interface NoteItem { id: number; itemRef: string }
 
@@ -67,14 +67,14 @@ export function ReviewNotes({ engagementId, sampleId, role, notes, locked, items
               <Badge tone={NOTE_STATUS_TONES[n.status]}>{NOTE_STATUS_LABELS[n.status]}</Badge>
             </div>
             <p className="mt-1 whitespace-pre-wrap">{n.text}</p>
-            <p className="text-xs text-ink-soft">Raised by {n.raisedBy} · {formatDateTime(n.raisedAt)}</p>
+            <p className="text-xs text-ink-soft">Raised by {n.raisedBy} · {formatWhen(n.raisedAt)}</p>
             {n.answer && (
               <div className="mt-2 border-l-2 border-ledger-500 pl-2">
                 <p className="whitespace-pre-wrap">{n.answer}</p>
-                <p className="text-xs text-ink-soft">Answered by {n.answeredBy}{n.answeredAt ? ` · ${formatDateTime(n.answeredAt)}` : ""}</p>
+                <p className="text-xs text-ink-soft">Answered by {n.answeredBy}{n.answeredAt ? ` · ${formatWhen(n.answeredAt)}` : ""}</p>
               </div>
             )}
-            {n.clearedBy && <p className="mt-1 text-xs text-ledger-700">Cleared by {n.clearedBy}{n.clearedAt ? ` · ${formatDateTime(n.clearedAt)}` : ""}</p>}
+            {n.clearedBy && <p className="mt-1 text-xs text-ledger-700">Cleared by {n.clearedBy}{n.clearedAt ? ` · ${formatWhen(n.clearedAt)}` : ""}</p>}
             {!locked && n.status !== "cleared" && canAnswer && (
               <div className="mt-2 space-y-2">
                 <textarea aria-label={`Answer to note ${i + 1}`} value={answers[n.id] ?? ""} rows={2} onChange={(e) => setAnswers({ ...answers, [n.id]: e.target.value })}

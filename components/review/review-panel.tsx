@@ -13,11 +13,11 @@ import { ReviewNotes, type NoteItem } from "./review-notes";
 import { ConclusionForm } from "./conclusion-form";
 import type { ComputedResult } from "@/lib/samples/evaluation-types";
 import { LockDialog, type OpenList } from "./lock-dialog";
-import { formatDateTime } from "@/lib/format/dates";
+import { formatWhen } from "@/lib/format/date";
 
 interface Props { engagementId: number; sampleId: number; role: EngagementRole; review: ReviewState; notes: ReviewNote[]; drawn: boolean; computed: ComputedResult; complete: boolean; openLists: OpenList[]; items: NoteItem[] }
 
-const when = formatDateTime;
+const when = formatWhen;
 
 /** Sign-offs, lock and the workpaper: the panel where a sample becomes final. */
 export function ReviewPanel({ engagementId, sampleId, role, review, notes, drawn, computed, complete, openLists, items }: Props) {

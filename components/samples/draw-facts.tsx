@@ -1,8 +1,8 @@
 import type { DrawRecord } from "@/lib/data/samples";
 import { Badge } from "@/components/ui/badge";
-import { formatDateTime } from "@/lib/format/dates";
+import { formatWhen } from "@/lib/format/date";
 
-const when = formatDateTime;
+const when = formatWhen;
 
 /** What anyone needs to redo the current draw: seed, generator, algorithm version and the population's fingerprint. */
 export function DrawFacts({ draw, itemCount }: { draw: DrawRecord; itemCount?: number }) {

@@ -4,7 +4,7 @@ import { Button } from "@/components/ui/button";
 import { Alert } from "@/components/ui/alert";
 import { api } from "@/components/ui/api";
 import type { ReperformResult } from "./types";
-import { formatDateTime } from "@/lib/format/dates";
+import { formatWhen } from "@/lib/format/date";
 
 /** Recomputes the current draw from its stored seed and inputs and compares it item by item with what is stored. */
 export function ReperformPanel({ engagementId, sampleId, onChecked }: { engagementId: number; sampleId: number; onChecked: () => void }) {
@@ -31,7 +31,7 @@ export function ReperformPanel({ engagementId, sampleId, onChecked }: { engageme
         <div data-testid="reperform-result">
           <Alert tone={result.matches ? "success" : "error"}>
             <p className="font-semibold">{result.matches ? "The recomputed selection matches the stored one, item by item." : "The recomputed selection differs from the stored one."}</p>
-            <p className="mt-1"><span className="figures">{result.storedItems}</span> items stored, <span className="figures">{result.recomputedItems}</span> recomputed · checked {formatDateTime(result.checkedAt)}</p>
+            <p className="mt-1"><span className="figures">{result.storedItems}</span> items stored, <span className="figures">{result.recomputedItems}</span> recomputed · checked {formatWhen(result.checkedAt)}</p>
             <p className="mt-1 break-all text-xs">Recomputed selection SHA-256 <code className="figures">{result.recomputedSha256}</code></p>
           </Alert>
           {result.differences.length > 0 && (

@@ -2,7 +2,7 @@
 import { useEffect, useState } from "react";
 import { api } from "@/components/ui/api";
 import { Button } from "@/components/ui/button";
-import { formatDateTime } from "@/lib/format/dates";
+import { formatWhen } from "@/lib/format/date";
 
 export interface EvidenceFile { id: number; fileName: string; contentType: string; sizeBytes: number; sha256: string; uploadedByName: string; uploadedAt: string }
 
@@ -42,7 +42,7 @@ export function RowEvidence({ itemUrl, itemRef, columnCount, mayWrite, version, 
                 <li key={f.id} className="flex flex-wrap items-center justify-between gap-3 py-1.5">
                   <span>
                     <a className="font-medium text-ledger-700 link" href={`${itemUrl}/evidence/${f.id}`}>{f.fileName}</a>{" "}
-                    <span className="text-xs text-ink-soft">{Math.max(1, Math.ceil(f.sizeBytes / 1024)).toLocaleString("en-US")} KB · {f.uploadedByName} · {formatDateTime(f.uploadedAt)} · SHA-256 <span className="figures">{f.sha256.slice(0, 12)}…</span></span>
+                    <span className="text-xs text-ink-soft">{Math.max(1, Math.ceil(f.sizeBytes / 1024)).toLocaleString("en-US")} KB · {f.uploadedByName} · {formatWhen(f.uploadedAt)} · SHA-256 <span className="figures">{f.sha256.slice(0, 12)}…</span></span>
                   </span>
                   {mayWrite && <Button variant="ghost" className="px-2 py-1 text-xs" onClick={() => void remove(f)} aria-label={`Remove ${f.fileName} from ${itemRef}`}>Remove</Button>}
                 </li>

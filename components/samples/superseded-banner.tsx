@@ -1,5 +1,5 @@
 import Link from "next/link";
-import { formatDateTime } from "@/lib/format/dates";
+import { formatWhen } from "@/lib/format/date";
 
 interface Props { engagementId: number; population: { id: number; name: string }; replacement: { id: number; name: string; createdAt: string; createdByName: string } | null }
 
@@ -10,7 +10,7 @@ export function SupersededBanner({ engagementId, population, replacement }: Prop
       <p className="font-semibold">The population of this sample was superseded.</p>
       <p>
         &ldquo;<Link className="link" href={`/engagements/${engagementId}/populations/${population.id}`}>{population.name}</Link>&rdquo; was replaced
-        {replacement ? <> by &ldquo;<Link className="link" href={`/engagements/${engagementId}/populations/${replacement.id}`}>{replacement.name}</Link>&rdquo; ({replacement.createdByName}, {formatDateTime(replacement.createdAt)})</> : null} with a corrected file.
+        {replacement ? <> by &ldquo;<Link className="link" href={`/engagements/${engagementId}/populations/${replacement.id}`}>{replacement.name}</Link>&rdquo; ({replacement.createdByName}, {formatWhen(replacement.createdAt)})</> : null} with a corrected file.
         This sample&apos;s items were drawn from the old file and its evaluation still projects onto the old book value, so its result may not describe the corrected ledger.
       </p>
       <p>Compare the two populations. If the correction does not touch what this sample tests, record why in a review note; otherwise plan a new sample from the corrected population and explain the change in the workpaper.</p>

@@ -1,6 +1,6 @@
 import { CAUSE_LABELS, METHOD_LABELS } from "@/lib/validation/sample";
 import { FIELD_LABELS, ITEM_STATUS_LABELS } from "@/lib/fieldwork/field-labels";
-import { formatDateTime } from "@/lib/format/dates";
+import { formatWhen } from "@/lib/format/date";
 
 /**
  * One audit-log row as people read it, on the trail page and in the locked workpaper's appendix:
@@ -51,7 +51,7 @@ export function showValue(key: string, v: unknown, ctx?: ChangeContext): string 
   if (MONEY_KEYS.has(key) && /^-?\d+(\.\d+)?$/.test(String(v))) return amount(String(v));
   if (key === "confidence" && typeof v === "number") return `${Number((v * 100).toPrecision(6))}%`;
   if (typeof v === "boolean") return v ? "yes" : "no";
-  if (typeof v === "string" && /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}/.test(v)) return formatDateTime(v);
+  if (typeof v === "string" && /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}/.test(v)) return formatWhen(v);
   if (typeof v === "number") return v.toLocaleString("en-US", { maximumFractionDigits: 6 });
   if (Array.isArray(v)) return v.map((x) => showValue(key, x, ctx)).join(", ");
   if (typeof v === "object") return Object.entries(v as Record<string, unknown>).map(([k, x]) => `${humanise(k)} ${showValue(k, x, ctx)}`).join("; ");

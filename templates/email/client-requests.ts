@@ -1,8 +1,8 @@
 // The messages of client requests: the invitation of a client contact, a new request list, a file
 // sent back, and the daily digests of overdue items (to the client contact and to the senior).
-import { formatDay } from "./format";
 import { renderEmail } from "./layout";
 import { engagementLabel, type EngagementRef, type Person, type RenderedEmail } from "./types";
+import { formatDate } from "@/lib/format/date";
 
 export interface ClientInvitationData {
   recipient: Person; invitedBy: Person; firmName: string; engagement: EngagementRef;
@@ -32,12 +32,12 @@ export interface RequestListSentData {
 
 export function requestListSent(d: RequestListSentData): RenderedEmail {
   return renderEmail({
-    subject: `Documents requested: ${d.title} — due ${formatDay(d.dueDate, "dueDate")}`,
+    subject: `Documents requested: ${d.title} — due ${formatDate(d.dueDate, "dueDate")}`,
     preview: `${d.sentBy.name} asks for documents on ${d.itemCount} item${d.itemCount === 1 ? "" : "s"}.`,
     greeting: `Hello ${d.recipient.name},`,
     blocks: [
       { kind: "paragraph", text: `${d.sentBy.name} asks you for documents on ${d.itemCount} item${d.itemCount === 1 ? "" : "s"} for the audit of ${d.engagement.clientName}.` },
-      { kind: "facts", rows: [["Request list", d.title], ["Items", String(d.itemCount)], ["Due by", formatDay(d.dueDate, "dueDate")], ["From", d.sentBy.name]] },
+      { kind: "facts", rows: [["Request list", d.title], ["Items", String(d.itemCount)], ["Due by", formatDate(d.dueDate, "dueDate")], ["From", d.sentBy.name]] },
       ...(d.message ? [{ kind: "quote" as const, label: `Message from ${d.sentBy.name}`, text: d.message }] : []),
     ],
     action: { label: "Open the request list", url: d.listUrl },
@@ -82,9 +82,9 @@ export function requestReminders(d: RequestRemindersData): RenderedEmail {
     greeting: `Hello ${d.recipient.name},`,
     blocks: [
       { kind: "paragraph", text: client
-        ? `These requested documents are past their due date (as of ${formatDay(d.today, "today")}). Please upload them, or add a note on the item if they cannot be found.`
-        : `The client has not yet provided these items, past the due date (as of ${formatDay(d.today, "today")}).` },
-      ...d.lists.map((l) => ({ kind: "facts" as const, rows: [["Request list", l.title], ["Audit", engagementLabel(l.engagement)], ["Was due", formatDay(l.dueDate, "dueDate")], ["Items", listedRefs(l.itemRefs)], ["Open", l.url]] as [string, string][] })),
+        ? `These requested documents are past their due date (as of ${formatDate(d.today, "today")}). Please upload them, or add a note on the item if they cannot be found.`
+        : `The client has not yet provided these items, past the due date (as of ${formatDate(d.today, "today")}).` },
+      ...d.lists.map((l) => ({ kind: "facts" as const, rows: [["Request list", l.title], ["Audit", engagementLabel(l.engagement)], ["Was due", formatDate(l.dueDate, "dueDate")], ["Items", listedRefs(l.itemRefs)], ["Open", l.url]] as [string, string][] })),
     ],
     action: { label: client ? "Open my requests" : "Open the request list", url: d.lists[0].url },
     judgementCaution: false,

@@ -1,6 +1,6 @@
-import { formatDay, formatWhen } from "./format";
 import { renderEmail } from "./layout";
 import { engagementLabel, type EngagementRef, type Person, type RenderedEmail } from "./types";
+import { formatDate, formatWhen } from "@/lib/format/date";
 
 export interface EngagementInvitationData {
   recipient: Person;
@@ -24,7 +24,7 @@ export function engagementInvitation(d: EngagementInvitationData): RenderedEmail
       { kind: "facts", rows: [
         ["Client", d.engagement.clientName],
         ["Engagement", d.engagement.name],
-        ["Period end", formatDay(d.engagement.periodEnd)],
+        ["Period end", formatDate(d.engagement.periodEnd)],
         ["Your role", d.role],
         ["Added by", `${d.invitedBy.name}, ${formatWhen(d.addedAt, "addedAt")}`],
       ] },

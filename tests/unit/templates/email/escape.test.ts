@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { escapeHtml, oneLine, safeUrl } from "@/templates/email/escape";
-import { formatDay, formatWhen, wrapText } from "@/templates/email/format";
+import { formatDate, formatWhen } from "@/lib/format/date";
+import { wrapText } from "@/templates/email/wrap-text";
 
 describe("escapeHtml", () => {
   it("escapes the five characters that matter in content and quoted attributes", () => {
@@ -40,7 +41,7 @@ describe("dates", () => {
   });
 
   it("shows a period end as its calendar day, whatever the time zone", () => {
-    expect(formatDay("2026-12-31")).toBe("31 December 2026");
+    expect(formatDate("2026-12-31")).toBe("31 December 2026");
   });
 
   it("refuses what is not a date, naming the field", () => {

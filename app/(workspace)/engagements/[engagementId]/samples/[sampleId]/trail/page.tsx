@@ -11,7 +11,7 @@ import { Card, EmptyState } from "@/components/ui/card";
 import { Alert } from "@/components/ui/alert";
 import { ChangeList } from "@/components/review/audit-value";
 import { describeChange } from "@/lib/review/describe-change";
-import { formatDateTime } from "@/lib/format/dates";
+import { formatWhen } from "@/lib/format/date";
 
 export const metadata: Metadata = { title: "Audit trail" };
 
@@ -58,7 +58,7 @@ export default async function TrailPage({ params, searchParams }: { params: Prom
                 const r = describeChange(e, context);
                 return (
                   <tr key={e.id} className="border-t border-ink-line/70 align-top">
-                    <td className="py-2 pr-3 text-xs">{formatDateTime(e.at)}</td>
+                    <td className="py-2 pr-3 text-xs">{formatWhen(e.at)}</td>
                     <td className="py-2 pr-3">{e.actorName ?? "Sondage"}</td>
                     <td className="py-2 pr-3"><span className="font-medium">{r.what}</span>{r.subject && <span className="block text-xs text-ink-soft">{r.subject}</span>}</td>
                     <td className="py-2"><ChangeList changes={r.changes} /></td>

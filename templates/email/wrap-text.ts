@@ -1,7 +1,3 @@
-// How dates read in e-mail: spelled-out months, in UTC so every recipient sees the same instant.
-
-export { formatWhen, formatDate as formatDay } from "@/lib/format/date";
-
 /** Wraps a paragraph for the plain-text part at about 72 columns; long words (links) stay whole. */
 export function wrapText(text: string, width = 72, indent = ""): string {
   return text.split("\n").map((line) => {
