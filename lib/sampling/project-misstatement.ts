@@ -61,11 +61,11 @@ export function projectMisstatement(o: {
     bookCents = 0,
     keyCents = 0;
   for (let i = 0; i < s.book.length; i++) {
-    missCents = addCents("sample misstatement", missCents, s.book[i] - s.audited[i]);
-    bookCents = addCents("sample book value", bookCents, s.book[i]);
+    missCents = addCents("sample misstatement", missCents, s.book[i]! - s.audited[i]!);
+    bookCents = addCents("sample book value", bookCents, s.book[i]!);
   }
   for (let i = 0; i < key.book.length; i++)
-    keyCents = addCents("keyItems misstatement", keyCents, key.book[i] - key.audited[i]);
+    keyCents = addCents("keyItems misstatement", keyCents, key.book[i]! - key.audited[i]!);
   let projectedCents: number, rate: number;
   if (method === "ratio") {
     if (bookCents === 0)
