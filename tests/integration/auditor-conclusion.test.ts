@@ -124,7 +124,7 @@ describe("an item that could not be audited", () => {
     expect(ev.block.overstatement.rows).toEqual([]);
     expect(ev.notes[0]).toMatch(/understatement equal to its book value.*never as audited 0/);
     expect(ev.block.understatementCaution).toMatch(/understated items are less likely to be selected/);
-    const plan = (await getDb()("samples").where({ id }).first("plan_json")).plan_json;
+    const plan = (await getDb()("samples").where({ id }).first("plan_json"))!.plan_json;
     expect(JSON.stringify(plan)).toMatch(/Understatement tested by monetary-unit sampling/);
   });
 });
