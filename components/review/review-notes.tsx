@@ -1,7 +1,7 @@
 "use client";
 import { useState } from "react";
 import { hasAtLeastRole, type EngagementRole } from "@/lib/auth/roles";
-import type { ReviewNote } from "@/lib/review/notes";
+import type { ReviewNote } from "@/lib/data/review-notes";
 import { AnswerNoteSchema, RaiseNoteSchema } from "@/lib/validation/review";
 import { api, ApiError } from "@/components/ui/api";
 import { Alert } from "@/components/ui/alert";

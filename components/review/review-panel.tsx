@@ -3,7 +3,7 @@ import { useId, useState } from "react";
 import { useRouter } from "next/navigation";
 import { hasAtLeastRole, type EngagementRole } from "@/lib/auth/roles";
 import type { ReviewState } from "@/lib/review/review-state";
-import type { ReviewNote } from "@/lib/review/notes";
+import type { ReviewNote } from "@/lib/data/review-notes";
 import { api } from "@/components/ui/api";
 import { Alert } from "@/components/ui/alert";
 import { Badge } from "@/components/ui/badge";
