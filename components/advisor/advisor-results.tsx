@@ -2,10 +2,9 @@ import type { AdvisedEstimator } from "@/lib/sampling";
 import { ADVISED_ESTIMATOR_LABELS } from "@/lib/sampling/advise";
 import type { AdvisorRunRecord } from "@/lib/data/advisor-runs";
 import { boundInWords, scenarioInWords } from "@/lib/advisor/describe";
-import { formatAmount } from "@/components/ui/amount";
 import { Badge } from "@/components/ui/badge";
 import { ESTIMATOR_COLOURS, EstimateHistogram, SizeChart, compactFigure } from "./advisor-charts";
-import { formatCount } from "@/lib/format/number";
+import { formatCount, formatMoney } from "@/lib/format/number";
 import { EstimateZoom } from "./estimate-zoom";
 
 const pct = (v: number) => `${(v * 100).toFixed(1)}%`;
@@ -35,7 +34,7 @@ export function AdvisorResults({ run, currency }: { run: AdvisorRunRecord; curre
 
       <dl className="grid gap-x-6 gap-y-1 text-sm sm:grid-cols-2">
         <div className="flex gap-2"><dt className="text-ink-soft">Assumed misstatements</dt><dd className="text-ink">{scenarioInWords(run.request)}</dd></div>
-        <div className="flex gap-2"><dt className="text-ink-soft">True audited total under it</dt><dd className="figures text-ink">{currency} {formatAmount(result.truth.auditedTotal)} (misstatement {formatAmount(result.truth.misstatement)}, {formatCount(result.truth.misstatedItems)} items)</dd></div>
+        <div className="flex gap-2"><dt className="text-ink-soft">True audited total under it</dt><dd className="figures text-ink">{currency} {formatMoney(result.truth.auditedTotal)} (misstatement {formatMoney(result.truth.misstatement)}, {formatCount(result.truth.misstatedItems)} items)</dd></div>
         <div className="flex gap-2"><dt className="text-ink-soft">Trials, seed</dt><dd className="figures text-ink">{formatCount(run.request.trials)} per size · seed {run.request.seed} ({run.request.seedSource})</dd></div>
         <div className="flex gap-2"><dt className="text-ink-soft">Bound tested</dt><dd className="text-ink">{boundInWords(run.request)}</dd></div>
       </dl>
@@ -54,11 +53,11 @@ export function AdvisorResults({ run, currency }: { run: AdvisorRunRecord; curre
                 <tr key={`${n}-${c.estimator}`} className={`border-t border-ink-line ${best ? "bg-ledger-50" : ""}`}>
                   <td className="figures py-1.5 pr-3 text-ink-soft">{i === 0 ? n : ""}</td>
                   <td className="pr-3 text-ink">{ADVISED_ESTIMATOR_LABELS[c.estimator]} {best && <Badge tone="green">recommended</Badge>}</td>
-                  <td className="figures pr-3 text-right">{formatAmount(c.performance.bias)}</td>
-                  <td className="figures pr-3 text-right">{formatAmount(c.performance.standardDeviation)}</td>
-                  <td className="figures pr-3 text-right font-medium">{formatAmount(c.performance.rmse)}</td>
+                  <td className="figures pr-3 text-right">{formatMoney(c.performance.bias)}</td>
+                  <td className="figures pr-3 text-right">{formatMoney(c.performance.standardDeviation)}</td>
+                  <td className="figures pr-3 text-right font-medium">{formatMoney(c.performance.rmse)}</td>
                   <td className={`figures pr-3 text-right ${short ? "text-brick-700" : ""}`}>{pct(c.performance.coverage)}</td>
-                  <td className="figures text-right">{formatAmount(c.performance.meanAllowance)}</td>
+                  <td className="figures text-right">{formatMoney(c.performance.meanAllowance)}</td>
                 </tr>
               );
             }))}

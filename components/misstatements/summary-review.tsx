@@ -7,7 +7,7 @@ import { Badge } from "@/components/ui/badge";
 import { Button } from "@/components/ui/button";
 import { Card } from "@/components/ui/card";
 import { useSummaryAction } from "./use-summary-action";
-import { formatDateTime } from "@/lib/format/dates";
+import { formatDateTime } from "@/lib/format/date";
 
 const when = formatDateTime;
 const NOTE_TONE = { open: "red", answered: "amber", cleared: "green" } as const;

@@ -1,6 +1,6 @@
 import type { SummaryView } from "@/lib/misstatements/types";
 import { Card } from "@/components/ui/card";
-import { formatDateTime } from "@/lib/format/dates";
+import { formatDateTime } from "@/lib/format/date";
 
 /** Who changed what on the summary, and when (every write is in the audit log). */
 export function TrailCard({ view }: { view: SummaryView }) {

@@ -1,7 +1,7 @@
 "use client";
 import { useEffect, useRef } from "react";
 import type { UploadView } from "./upload-file";
-import { formatBytes, formatCount } from "./labels";
+import { formatBytes, formatCount } from "@/lib/format/number";
 
 /** Brings its content into view once, when it first appears (the load button sits below the preview). */
 export function InView({ children }: { children: React.ReactNode }) {

@@ -9,7 +9,7 @@ import { Amount } from "@/components/ui/amount";
 import { Button } from "@/components/ui/button";
 import { api } from "@/components/ui/api";
 import { SortableHead, alignOf } from "@/components/ui/data-table";
-import { formatCount } from "./labels";
+import { formatCount } from "@/lib/format/number";
 
 /** Column ids the server sorts by (ItemsQuerySchema `sort`). */
 const SERVER_SORT: Record<string, "row" | "ref" | "book"> = { rowNumber: "row", itemRef: "ref", bookValue: "book" };

@@ -11,5 +11,3 @@ export function populationStatusTone(status: PopulationStatus): "amber" | "green
   return status === "reconciled" ? "green" : status === "unreconciled" ? "amber" : status === "loading" ? "blue" : "neutral";
 }
 
-export { formatBytes, formatCount } from "@/lib/format/number";
-

@@ -1,5 +1,5 @@
 import { Alert } from "@/components/ui/alert";
-import { formatCount } from "./labels";
+import { formatCount } from "@/lib/format/number";
 
 type Problem = { row: number; column: string | null; reason: string };
 

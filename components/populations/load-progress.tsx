@@ -1,6 +1,6 @@
 import type { LoadEvent } from "./read-load-stream";
 import { ProgressBar } from "./progress-bar";
-import { formatBytes, formatCount } from "./labels";
+import { formatBytes, formatCount } from "@/lib/format/number";
 
 type Progress = Extract<LoadEvent, { type: "progress" }>;
 

@@ -9,7 +9,7 @@ import { Button } from "@/components/ui/button";
 import { guessColumns } from "./column-guess";
 import { PreviewTable } from "./preview-table";
 import type { UploadView } from "./upload-file";
-import { formatCount } from "./labels";
+import { formatCount } from "@/lib/format/number";
 
 type FormIn = z.input<typeof LoadPopulationSchema>;
 export type MappingValues = z.output<typeof LoadPopulationSchema>;

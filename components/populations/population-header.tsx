@@ -3,9 +3,9 @@ import type { PopulationRecord } from "@/lib/data/populations";
 import { Badge } from "@/components/ui/badge";
 import { buttonClass } from "@/components/ui/button";
 import { CopyButton } from "./copy-button";
-import { formatBytes, POPULATION_STATUS_LABELS, populationStatusTone } from "./labels";
-import { formatCount } from "@/lib/format/number";
-import { formatDateTime } from "@/lib/format/dates";
+import { POPULATION_STATUS_LABELS, populationStatusTone } from "./labels";
+import { formatBytes, formatCount } from "@/lib/format/number";
+import { formatDateTime } from "@/lib/format/date";
 
 interface Props { population: PopulationRecord; engagement: { id: number; name: string; clientName: string }; replacedBy: { id: number; name: string } | null; replaces: { id: number; name: string } | null }
 

@@ -3,7 +3,8 @@ import type { PopulationRecord } from "@/lib/data/populations";
 import { Amount } from "@/components/ui/amount";
 import { Badge } from "@/components/ui/badge";
 import { EmptyState } from "@/components/ui/card";
-import { formatCount, POPULATION_STATUS_LABELS, populationStatusTone } from "./labels";
+import { POPULATION_STATUS_LABELS, populationStatusTone } from "./labels";
+import { formatCount } from "@/lib/format/number";
 
 /** The engagement's populations for its overview card: name, items, total, state. */
 export function PopulationList({ engagementId, populations, currency, mayLoad }: { engagementId: number; populations: PopulationRecord[]; currency: string; mayLoad: boolean }) {

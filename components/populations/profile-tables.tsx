@@ -1,6 +1,6 @@
 import type { PopulationProfile } from "@/lib/data/population-items";
 import { Amount } from "@/components/ui/amount";
-import { formatCount } from "./labels";
+import { formatCount } from "@/lib/format/number";
 
 const th = "px-3 py-2 font-semibold";
 const td = "px-3 py-1.5";

@@ -12,9 +12,9 @@ import { Button } from "@/components/ui/button";
 import { Alert } from "@/components/ui/alert";
 import { Amount } from "@/components/ui/amount";
 import { api, ApiError } from "@/components/ui/api";
-import { formatCount } from "./labels";
 import { textOf } from "@/lib/format/text";
 import { formatDate } from "@/lib/format/date";
+import { formatCount } from "@/lib/format/number";
 
 type FormIn = z.input<typeof ReconcileSchema>;
 type FormOut = z.output<typeof ReconcileSchema>;

@@ -1,6 +1,5 @@
 import type { PopulationProfile } from "@/lib/data/population-items";
-import { formatAmount } from "@/components/ui/amount";
-import { formatCount } from "./labels";
+import { formatCount, formatMoney } from "@/lib/format/number";
 
 const ROW = 40;
 const LABEL_W = 170;
@@ -34,14 +33,14 @@ export function StrataChart({ strata }: { strata: PopulationProfile["strata"] })
           const credit = band.from === null;
           return (
             <g key={band.label} transform={`translate(0, ${y})`}>
-              <title>{`${band.label}: ${formatCount(band.count)} items, ${formatAmount(band.total)}`}</title>
+              <title>{`${band.label}: ${formatCount(band.count)} items, ${formatMoney(band.total)}`}</title>
               <text x={LABEL_W - 10} y={19} textAnchor="end" className="figures fill-ink text-[12px]">{band.label}</text>
               <rect x={LABEL_W} y={4} width={BAR_W} height={12} className="fill-paper-sunk" />
               <rect x={LABEL_W} y={4} width={Math.max(c > 0 ? 1 : 0, c * BAR_W)} height={12} className="fill-slate-500" />
               <rect x={LABEL_W} y={19} width={BAR_W} height={12} className="fill-paper-sunk" />
               <rect x={LABEL_W} y={19} width={Math.max(v > 0 ? 1 : 0, v * BAR_W)} height={12} className={credit ? "fill-brick-500" : "fill-ledger-500"} />
               <text x={LABEL_W + BAR_W + 10} y={14} className="figures fill-ink-soft text-[11px]">{formatCount(band.count)} items · {pct(c)}</text>
-              <text x={LABEL_W + BAR_W + 10} y={30} className="figures fill-ink text-[11px]">{formatAmount(band.total)} · {pct(v)}</text>
+              <text x={LABEL_W + BAR_W + 10} y={30} className="figures fill-ink text-[11px]">{formatMoney(band.total)} · {pct(v)}</text>
             </g>
           );
         })}

@@ -1,6 +1,6 @@
 import type { PopulationRecord } from "@/lib/data/populations";
 import { Amount } from "@/components/ui/amount";
-import { formatCount } from "./labels";
+import { formatCount } from "@/lib/format/number";
 
 function Figure({ title, count, total, currency, tone }: { title: string; count: number; total?: string; currency: string; tone: string }) {
   return (

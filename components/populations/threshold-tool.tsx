@@ -6,7 +6,7 @@ import { Amount } from "@/components/ui/amount";
 import { Button } from "@/components/ui/button";
 import { Input } from "@/components/ui/field";
 import { api } from "@/components/ui/api";
-import { formatCount } from "./labels";
+import { formatCount } from "@/lib/format/number";
 
 type Threshold = NonNullable<PopulationProfile["threshold"]>;
 

@@ -13,8 +13,8 @@ import { LoadProblems } from "./load-problems";
 import { MappingForm, type MappingValues, type ReplaceablePopulation } from "./mapping-form";
 import { runLoad, type LoadEvent } from "./read-load-stream";
 import { uploadLedgerFile, type UploadView } from "./upload-file";
-import { formatBytes, formatCount } from "./labels";
 import { FileFacts, InView } from "./file-facts";
+import { formatBytes, formatCount } from "@/lib/format/number";
 
 type Stage =
   | { kind: "pick"; refusal?: string }

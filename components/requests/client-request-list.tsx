@@ -7,7 +7,9 @@ import { Button } from "@/components/ui/button";
 import { PageHeader } from "@/components/ui/page-header";
 import { api, readErrorAnswer } from "@/components/ui/api";
 import { RequestStatusBadge } from "./status-badge";
-import { FILE_STATUS_LABELS, formatBytes, formatDay, needsText } from "./labels";
+import { FILE_STATUS_LABELS, needsText } from "./labels";
+import { formatBytes } from "@/lib/format/number";
+import { formatDate } from "@/lib/format/date";
 
 type Item = ClientListView["items"][number];
 
@@ -29,7 +31,7 @@ export function ClientRequestList({ initial }: { initial: ClientListView }) {
   return (
     <>
       <PageHeader eyebrow={`${list.engagement.clientName} — ${list.engagement.name}`} title={list.title}>
-        Sent by {list.sentBy} · due <strong>{formatDay(list.dueDate)}</strong> · {waiting} of {view.items.length} item{view.items.length === 1 ? "" : "s"} still to send
+        Sent by {list.sentBy} · due <strong>{formatDate(list.dueDate)}</strong> · {waiting} of {view.items.length} item{view.items.length === 1 ? "" : "s"} still to send
       </PageHeader>
       {!open && <div className="mb-4"><Alert tone="info">This request list is closed{list.closedReason ? ` — ${list.closedReason}` : ""}. Files can no longer be sent on it; contact the audit team if you have more.</Alert></div>}
       {list.message && <blockquote className="mb-6 rounded-md border-l-4 border-ledger-500 bg-ledger-50 px-4 py-3 text-sm text-ink"><span className="mb-1 block text-xs font-semibold uppercase tracking-wider text-ink-soft">Message from {list.sentBy}</span>{list.message}</blockquote>}

@@ -10,5 +10,3 @@ export const needsText = (needs: RequestNeed[]) => needs.filter((n) => n !== "ot
 
 export { REQUEST_STATUS_LABELS };
 
-export { formatDate as formatDay } from "@/lib/format/date";
-export { formatBytes } from "@/lib/format/number";

@@ -3,7 +3,7 @@ import type { RequestListSummary } from "@/lib/requests/lists";
 import { Badge } from "@/components/ui/badge";
 import { buttonClass } from "@/components/ui/button";
 import { Card } from "@/components/ui/card";
-import { formatDay } from "./labels";
+import { formatDate } from "@/lib/format/date";
 
 /** The sample's request lists to the client, with how far each has come. */
 export function RequestListsCard({ base, lists, mayCreate }: { base: string; lists: RequestListSummary[]; mayCreate: boolean }) {
@@ -15,7 +15,7 @@ export function RequestListsCard({ base, lists, mayCreate }: { base: string; lis
             <li key={l.id} className="flex flex-wrap items-center justify-between gap-2 py-2">
               <span>
                 <Link href={`${base}/requests/${l.id}`} className="font-medium text-ledger-700 link">{l.title}</Link>
-                <span className="block text-xs text-ink-faint">to {l.contactName} · due {formatDay(l.dueDate)}</span>
+                <span className="block text-xs text-ink-faint">to {l.contactName} · due {formatDate(l.dueDate)}</span>
               </span>
               <span className="figures flex items-center gap-2 text-xs text-ink-soft">
                 {l.counts.accepted}/{l.total} accepted · {l.counts.provided} to review · {l.counts["needs-more"]} sent back

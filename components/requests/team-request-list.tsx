@@ -8,7 +8,8 @@ import { Alert } from "@/components/ui/alert";
 import { Amount } from "@/components/ui/amount";
 import { Button } from "@/components/ui/button";
 import { RequestStatusBadge } from "./status-badge";
-import { FILE_STATUS_LABELS, formatBytes, needsText } from "./labels";
+import { FILE_STATUS_LABELS, needsText } from "./labels";
+import { formatBytes } from "@/lib/format/number";
 
 interface Props { engagementId: number; sampleId: number; initial: TeamListView; mayDecide: boolean; currency: string }
 

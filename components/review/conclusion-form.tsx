@@ -7,8 +7,8 @@ import { RESPONSE_KINDS, RESPONSE_LABELS, type ResponseKind } from "@/lib/valida
 import { api, ApiError } from "@/components/ui/api";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
-import { formatAmount } from "@/components/ui/amount";
-import { formatDateTime } from "@/lib/format/dates";
+import { formatMoney } from "@/lib/format/number";
+import { formatDateTime } from "@/lib/format/date";
 
 interface Props { base: string; computed: ComputedResult; complete: boolean; conclusion: AuditorConclusionRecord | null; mayWrite: boolean }
 
@@ -54,7 +54,7 @@ export function ConclusionForm({ base, computed, complete, conclusion, mayWrite 
           <p className="mt-1 whitespace-pre-line">{conclusion.conclusion}</p>
           {conclusion.responses.length > 0 && (
             <ul className="mt-2 list-disc pl-5">
-              {conclusion.responses.map((r) => <li key={r.kind}>{RESPONSE_LABELS[r.kind]}{r.amount !== null && <>: <span className="figures">{formatAmount(r.amount)}</span></>}{r.note && <> — {r.note}</>}</li>)}
+              {conclusion.responses.map((r) => <li key={r.kind}>{RESPONSE_LABELS[r.kind]}{r.amount !== null && <>: <span className="figures">{formatMoney(r.amount)}</span></>}{r.note && <> — {r.note}</>}</li>)}
             </ul>
           )}
         </div>

@@ -5,8 +5,8 @@ import { Alert } from "@/components/ui/alert";
 import { buttonClass } from "@/components/ui/button";
 import { Card } from "@/components/ui/card";
 import { postFile, type Problem } from "@/components/samples/evidence-upload";
-import { countOf, formatCount } from "@/lib/format/numbers";
 import { SAMPLE_CHANGED_EVENT } from "@/components/samples/events";
+import { countOf, formatCount } from "@/lib/format/number";
 
 interface Props { engagementId: number; sampleId: number; mayWrite: boolean }
 interface Imported { rows: number; changed: number; unchanged: number }

@@ -2,8 +2,8 @@ import Link from "next/link";
 import type { Inbox, InboxReason } from "@/lib/review/inbox";
 import { Card, EmptyState } from "@/components/ui/card";
 import { Badge } from "@/components/ui/badge";
-import { formatDateTime } from "@/lib/format/dates";
-import { countOf } from "@/lib/format/numbers";
+import { formatDateTime } from "@/lib/format/date";
+import { countOf } from "@/lib/format/number";
 
 export const INBOX_REASON_LABELS: Record<InboxReason, string> = {
   review: "Review and sign off",

@@ -1,4 +1,4 @@
-import type { ReviewNote } from "@/lib/review/notes";
+import type { ReviewNote } from "@/lib/data/review-notes";
 
 /** One set of words for a review note's state: the panel, the item's row and the workpaper. */
 export const NOTE_STATUS_LABELS: Record<ReviewNote["status"], string> = { open: "Open", answered: "Answered", cleared: "Cleared" };

@@ -1,14 +1,14 @@
 "use client";
 import { useState } from "react";
 import { hasAtLeastRole, type EngagementRole } from "@/lib/auth/roles";
-import type { ReviewNote } from "@/lib/review/notes";
+import type { ReviewNote } from "@/lib/data/review-notes";
 import { AnswerNoteSchema, RaiseNoteSchema } from "@/lib/validation/review";
-import { formatDateTime } from "@/lib/format/dates";
 import { api, ApiError } from "@/components/ui/api";
 import { Alert } from "@/components/ui/alert";
 import { Badge } from "@/components/ui/badge";
 import { Button } from "@/components/ui/button";
 import { NOTE_STATUS_LABELS, NOTE_STATUS_TONES } from "./note-labels";
+import { formatDateTime } from "@/lib/format/date";
 
 export interface NoteItem { id: number; itemRef: string }
 

@@ -3,7 +3,7 @@ import { useId, useState } from "react";
 import { useRouter } from "next/navigation";
 import { hasAtLeastRole, type EngagementRole } from "@/lib/auth/roles";
 import type { ReviewState } from "@/lib/review/review-state";
-import type { ReviewNote } from "@/lib/review/notes";
+import type { ReviewNote } from "@/lib/data/review-notes";
 import { api } from "@/components/ui/api";
 import { Alert } from "@/components/ui/alert";
 import { Badge } from "@/components/ui/badge";
@@ -13,8 +13,8 @@ import { ReviewNotes, type NoteItem } from "./review-notes";
 import { ConclusionForm } from "./conclusion-form";
 import type { ComputedResult } from "@/lib/samples/evaluation-types";
 import { LockDialog, type OpenList } from "./lock-dialog";
-import { formatDateTime } from "@/lib/format/dates";
 import { preparerSignOffBlocker, reviewerSignOffBlocker } from "@/lib/review/sign-off-blockers";
+import { formatDateTime } from "@/lib/format/date";
 
 interface Props { engagementId: number; sampleId: number; role: EngagementRole; review: ReviewState; notes: ReviewNote[]; drawn: boolean; computed: ComputedResult; complete: boolean; openLists: OpenList[]; items: NoteItem[] }
 

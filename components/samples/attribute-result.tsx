@@ -1,5 +1,5 @@
 import type { AttributesEvaluationBlock } from "@/lib/samples/evaluation-types";
-import { formatPercent } from "./labels";
+import { formatPercent } from "@/lib/format/number";
 
 /** Deviations against the tolerable rate, with the one-sided upper deviation limit, as the view model gives them. */
 export function AttributeResult({ a }: { a: AttributesEvaluationBlock }) {

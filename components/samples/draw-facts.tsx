@@ -1,6 +1,6 @@
 import type { DrawRecord } from "@/lib/data/samples";
 import { Badge } from "@/components/ui/badge";
-import { formatDateTime } from "@/lib/format/dates";
+import { formatDateTime } from "@/lib/format/date";
 
 const when = formatDateTime;
 

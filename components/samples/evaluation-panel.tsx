@@ -1,16 +1,15 @@
 import type { SampleRecord } from "@/lib/data/samples";
 import { Alert } from "@/components/ui/alert";
 import { Badge } from "@/components/ui/badge";
-import { formatAmount } from "@/components/ui/amount";
 import type { SampleEvaluation } from "./types";
 import { BoundChart } from "./bound-chart";
 import { StringerTables } from "./stringer-table";
 import { VariablesResult } from "./variables-result";
 import { AttributeResult } from "./attribute-result";
 import { NonstatisticalResult } from "./nonstatistical-result";
-import { formatPercent } from "./labels";
+import { formatMoney, formatPercent } from "@/lib/format/number";
 
-const shortAmount = (n: number) => (Math.abs(n) >= 1e6 ? `${(n / 1e6).toFixed(2)}m` : Math.abs(n) >= 1e4 ? `${(n / 1e3).toFixed(1)}k` : formatAmount(n));
+const shortAmount = (n: number) => (Math.abs(n) >= 1e6 ? `${(n / 1e6).toFixed(2)}m` : Math.abs(n) >= 1e4 ? `${(n / 1e3).toFixed(1)}k` : formatMoney(n));
 const TONE = { supported: "success", "not-supported": "error", provisional: "info", "no-results": "info", "not-evaluable": "info" } as const;
 
 /** A picture of the view model's figures against tolerable (the chart reads the figures; it decides nothing). */
@@ -41,7 +40,7 @@ export function EvaluationPanel({ evaluation: e, direction, loading }: { evaluat
     <div className={`space-y-5 transition-opacity ${loading ? "opacity-60" : ""}`} aria-busy={loading} data-testid="evaluation-panel">
       <div className="flex flex-wrap items-center gap-2 text-sm">
         {e.complete ? <Badge tone="green">all items have a result</Badge> : <Badge tone="amber">provisional</Badge>}
-        <span className="text-ink-soft">{b?.method === "nonstatistical" ? "Nonstatistical: no confidence level is claimed" : `Confidence ${formatPercent(e.confidence)}`}{e.tolerableMisstatement !== null && <> · tolerable misstatement <span className="figures">{formatAmount(e.tolerableMisstatement)}</span></>}</span>
+        <span className="text-ink-soft">{b?.method === "nonstatistical" ? "Nonstatistical: no confidence level is claimed" : `Confidence ${formatPercent(e.confidence)}`}{e.tolerableMisstatement !== null && <> · tolerable misstatement <span className="figures">{formatMoney(e.tolerableMisstatement)}</span></>}</span>
       </div>
       <div aria-live="polite" data-testid="conclusion">
         <Alert tone={TONE[e.computed.status]}>

@@ -10,8 +10,7 @@ import { Alert } from "@/components/ui/alert";
 import { ResultRow } from "./result-row";
 import { AuditedValueCell, CauseCell, CommentCell, DeviationCell, EvidenceCell, MisstatementCell, ReferenceCell, StatusCell } from "./result-cells";
 import { ReplaceDialog } from "./replace-dialog";
-import { formatCount, ITEM_STATUS_LABELS } from "./labels";
-import { countOf } from "@/lib/format/numbers";
+import { ITEM_STATUS_LABELS } from "./labels";
 import { onGridKeyDown } from "./grid-keys";
 import { RowActions } from "./row-actions";
 import { RowEvidence } from "./row-evidence";
@@ -19,6 +18,7 @@ import { postFile } from "./evidence-upload";
 import { UndoBar } from "./undo-bar";
 import { useGridSaves } from "./use-grid-saves";
 import type { ItemNoteMark } from "@/components/review/note-labels";
+import { countOf, formatCount } from "@/lib/format/number";
 
 type Col = ColumnDef<SampleItemRecord>;
 const right = { align: "right" };

@@ -4,8 +4,6 @@ import { METHOD_LABELS, type SampleMethod } from "@/lib/validation/sample";
 import { textOf } from "@/lib/format/text";
 import { ITEM_STATUS_LABELS as SHARED_ITEM_STATUS_LABELS } from "@/lib/fieldwork/field-labels";
 
-export { formatCount, formatFactor, formatNumber, formatPercent } from "@/lib/format/number";
-
 export { METHOD_LABELS };
 
 /** Short names for lists, where the full method label is too long. */

@@ -1,6 +1,6 @@
 import type { PlannedStratum } from "@/lib/samples/plan";
 import { Amount } from "@/components/ui/amount";
-import { formatCount } from "./labels";
+import { formatCount } from "@/lib/format/number";
 
 /** Neyman allocation of the sample across book-value bands, as planned. */
 export function PlanStrataTable({ strata }: { strata: PlannedStratum[] }) {

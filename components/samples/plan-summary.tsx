@@ -3,9 +3,10 @@ import { formatDateTime } from "@/lib/format/date";
 import type { SampleRecord } from "@/lib/data/samples";
 import { Amount } from "@/components/ui/amount";
 import { SizePanel } from "./size-panel";
-import { DIRECTION_LABELS, ESTIMATOR_LABELS, formatPercent, METHOD_LABELS } from "./labels";
+import { DIRECTION_LABELS, ESTIMATOR_LABELS, METHOD_LABELS } from "./labels";
 import { RISK_LEVEL_LABELS } from "@/lib/validation/methodology";
 import { factorModeOfSample } from "@/lib/samples/methodology";
+import { formatPercent } from "@/lib/format/number";
 
 /** The plan as recorded: what is tested, the parameters, the size and how it was computed. */
 export function PlanSummary({ sample, currency, performanceMateriality, editHref }: { sample: SampleRecord; currency: string; performanceMateriality: string; editHref: string | null }) {

@@ -3,8 +3,8 @@ import Link from "next/link";
 import type { UseFormReturn } from "react-hook-form";
 import { Field, Select } from "@/components/ui/field";
 import { Amount } from "@/components/ui/amount";
-import { formatCount } from "./labels";
 import type { PlanFormIn, PlanFormOut, PopulationChoice } from "./plan-values";
+import { formatCount } from "@/lib/format/number";
 
 const WHY: Record<string, string> = {
   unreconciled: "not reconciled to the ledger yet",

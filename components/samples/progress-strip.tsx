@@ -1,6 +1,6 @@
 import type { SampleEvaluation } from "./types";
 import { Amount } from "@/components/ui/amount";
-import { formatCount } from "./labels";
+import { formatCount } from "@/lib/format/number";
 
 /** How far fieldwork has got: items with a result of the total, and what has been found so far. */
 export function ProgressStrip({ progress, attribute }: { progress: SampleEvaluation["progress"]; attribute: boolean }) {

@@ -4,7 +4,7 @@ import { Button } from "@/components/ui/button";
 import { Alert } from "@/components/ui/alert";
 import { api } from "@/components/ui/api";
 import type { ReperformResult } from "./types";
-import { formatDateTime } from "@/lib/format/dates";
+import { formatDateTime } from "@/lib/format/date";
 
 /** Recomputes the current draw from its stored seed and inputs and compares it item by item with what is stored. */
 export function ReperformPanel({ engagementId, sampleId, onChecked }: { engagementId: number; sampleId: number; onChecked: () => void }) {

@@ -7,8 +7,8 @@ import type { SampleItemRecord } from "@/lib/data/sample-items";
 import { SaveResultSchema, type SaveResult } from "@/lib/validation/sample";
 import { api, ApiError } from "@/components/ui/api";
 import { Button } from "@/components/ui/button";
-import { formatAmount } from "@/components/ui/amount";
 import { rowValuesOf, saveBodyOf, type RowValues } from "./result-values";
+import { formatMoney } from "@/lib/format/number";
 
 export interface RowEditor {
   item: SampleItemRecord;
@@ -87,7 +87,7 @@ export function ResultRow({ item, url, editable, attribute, columnCount, onSaved
   });
 
   const mine = getValues();
-  const attempted = attribute ? `deviation ${mine.deviation || "—"}` : mine.status === "not-auditable" ? "could not be audited" : `audited ${mine.auditedValue ? formatAmount(mine.auditedValue) : "—"}`;
+  const attempted = attribute ? `deviation ${mine.deviation || "—"}` : mine.status === "not-auditable" ? "could not be audited" : `audited ${mine.auditedValue ? formatMoney(mine.auditedValue) : "—"}`;
   const void_ = item.status === "void";
   return (
     <RowContext.Provider value={{ item, form, formId: `result-${item.id}`, editable: editable && !void_, attribute, saved }}>

@@ -4,8 +4,8 @@ import { RISK_LEVELS, RISK_LEVEL_LABELS } from "@/lib/validation/methodology";
 import type { SamplePlan } from "@/lib/samples/plan";
 import { Field, Select } from "@/components/ui/field";
 import { PercentInput } from "./percent-input";
-import { formatPercent } from "./labels";
 import type { PlanFormIn, PlanFormOut } from "./plan-values";
+import { formatPercent } from "@/lib/format/number";
 
 const textarea =
   "w-full rounded-md border border-ink-line bg-paper-raised px-3 py-2 text-sm focus:border-ledger-500 focus:outline-none";

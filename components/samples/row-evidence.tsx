@@ -2,7 +2,7 @@
 import { useEffect, useState } from "react";
 import { api } from "@/components/ui/api";
 import { Button } from "@/components/ui/button";
-import { formatDateTime } from "@/lib/format/dates";
+import { formatDateTime } from "@/lib/format/date";
 
 export interface EvidenceFile { id: number; fileName: string; contentType: string; sizeBytes: number; sha256: string; uploadedByName: string; uploadedAt: string }
 

@@ -3,15 +3,14 @@ import type { SampleRecord } from "@/lib/data/samples";
 import type { SampleOverview } from "@/lib/samples/overview";
 import { Badge } from "@/components/ui/badge";
 import { EmptyState } from "@/components/ui/card";
-import { formatAmount } from "@/components/ui/amount";
-import { countOf } from "@/lib/format/numbers";
-import { formatCount, METHOD_SHORT, SAMPLE_STATUS_LABELS } from "./labels";
+import { METHOD_SHORT, SAMPLE_STATUS_LABELS } from "./labels";
+import { countOf, formatCount, formatMoney } from "@/lib/format/number";
 
 function Result({ o }: { o: SampleOverview | undefined }) {
   if (!o || o.items === null) return <span className="text-ink-soft">—</span>;
   if (o.withResult === 0) return <span className="text-ink-soft">no results yet</span>;
-  const figure = o.attribute ? countOf(o.deviations, "deviation") : o.projectedMisstatement === null ? null : `projected ${formatAmount(o.projectedMisstatement)}`;
-  const bound = o.bound ? ` · ${o.bound.label} ${formatAmount(o.bound.amount)}` : "";
+  const figure = o.attribute ? countOf(o.deviations, "deviation") : o.projectedMisstatement === null ? null : `projected ${formatMoney(o.projectedMisstatement)}`;
+  const bound = o.bound ? ` · ${o.bound.label} ${formatMoney(o.bound.amount)}` : "";
   return (
     <span>
       <span className="figures">{figure ?? "—"}{bound}</span>

@@ -1,8 +1,8 @@
 import type { SamplePlan } from "@/lib/samples/plan";
 import { Amount } from "@/components/ui/amount";
 import { Alert } from "@/components/ui/alert";
-import { formatCount } from "./labels";
 import { PlanStrataTable } from "./plan-strata-table";
+import { formatCount } from "@/lib/format/number";
 
 const INPUT_NOTES: Record<string, string> = {
   BV: "book value of the frame (items above zero)", TM: "tolerable misstatement", EM: "expected misstatement",

@@ -1,7 +1,7 @@
 "use client";
 import { Button } from "@/components/ui/button";
 import { Input } from "@/components/ui/field";
-import { formatAmount } from "@/components/ui/amount";
+import { formatMoney } from "@/lib/format/number";
 
 interface Props { value: string[]; onChange: (bounds: string[]) => void; error?: string; currency: string }
 
@@ -25,7 +25,7 @@ export function StrataBoundsEditor({ value, onChange, error, currency }: Props) 
             {value.length > 1 && <Button type="button" variant="ghost" onClick={() => remove(i)} aria-label={`Remove boundary ${i + 1}`}>Remove</Button>}
           </li>
         ))}
-        <li className="text-xs text-ink-soft">Band {value.length + 1}: above {/^\d+(\.\d{1,2})?$/.test(value.at(-1) ?? "") ? formatAmount(value.at(-1)!) : "the last boundary"}</li>
+        <li className="text-xs text-ink-soft">Band {value.length + 1}: above {/^\d+(\.\d{1,2})?$/.test(value.at(-1) ?? "") ? formatMoney(value.at(-1)) : "the last boundary"}</li>
       </ol>
       {value.length < 9 && <Button type="button" variant="secondary" onClick={add}>Add a boundary</Button>}
       <p id="strata-bounds-error" aria-live="polite" className="min-h-4 text-xs text-brick-700">{error}</p>

@@ -1,6 +1,6 @@
 import type { MusEvaluationBlock, StringerSide as Side } from "@/lib/samples/evaluation-types";
 import { Amount } from "@/components/ui/amount";
-import { formatFactor, formatPercent } from "./labels";
+import { formatFactor, formatPercent } from "@/lib/format/number";
 
 type Direction = "overstatement" | "understatement";
 

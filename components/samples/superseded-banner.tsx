@@ -1,5 +1,5 @@
 import Link from "next/link";
-import { formatDateTime } from "@/lib/format/dates";
+import { formatDateTime } from "@/lib/format/date";
 
 interface Props { engagementId: number; population: { id: number; name: string }; replacement: { id: number; name: string; createdAt: string; createdByName: string } | null }
 

@@ -2,10 +2,10 @@
 import { useCallback, useState } from "react";
 import type { SampleItemRecord } from "@/lib/data/sample-items";
 import { api } from "@/components/ui/api";
-import { countOf, formatCount } from "@/lib/format/numbers";
 import { rowValuesOf, saveBodyOf, type SaveBody } from "./result-values";
 import { readPastedColumn } from "./paste-column";
 import type { UndoOffer } from "./undo-bar";
+import { countOf, formatCount } from "@/lib/format/number";
 
 export type Notice = { tone: "error" | "success"; text: string } | null;
 type BatchRow = SaveBody & { itemId: number };

@@ -1,6 +1,7 @@
 import type { StratifiedEvaluationBlock, VariablesEvaluationBlock } from "@/lib/samples/evaluation-types";
 import { Amount } from "@/components/ui/amount";
-import { ESTIMATOR_LABELS, formatPercent } from "./labels";
+import { ESTIMATOR_LABELS } from "./labels";
+import { formatPercent } from "@/lib/format/number";
 
 const DIRECTIONS = { overstatement: "overstatement only", understatement: "understatement only", both: "both directions" } as const;
 

@@ -5,10 +5,7 @@ export function Amount({ value, currency }: { value: string | number; currency?:
   return (
     <span className="figures whitespace-nowrap">
       {currency && <span className="mr-1 text-ink-faint">{currency}</span>}
-      {formatAmount(value)}
+      {formatMoney(value)}
     </span>
   );
 }
-
-/** Money as screens print it (the one formatter of lib/format). */
-export const formatAmount = (value: string | number) => formatMoney(value);

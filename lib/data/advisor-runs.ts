@@ -116,7 +116,7 @@ export async function adoptAdvisorRun(db: Knex, { engagementId, sampleId, runId,
     if (!run) throw notFound("No such advisor run");
     if (run.status !== "done") throw conflict("Only a finished advisor run can be the rationale for the method.");
     const result = json<AdvisorResult>(run.result_json)!;
-    const planned = planEstimatorOf({ method: String(sample.method), estimator: (sample.estimator as string | null) ?? null });
+    const planned = planEstimatorOf({ method: String(sample.method), estimator: sample.estimator ?? null });
     const label = planned ? ADVISED_ESTIMATOR_LABELS[planned].toLowerCase() : "the plan's estimator";
     if (!planned || !result.cells.some((c) => c.estimator === planned)) {
       throw conflict(`This run did not simulate the plan's estimator (${label}), so it cannot be the rationale for the method. Run the advisor again, or change the plan.`);
@@ -136,5 +136,5 @@ export async function adoptAdvisorRun(db: Knex, { engagementId, sampleId, runId,
 export async function getAdoptedAdvisorRun(db: Knex, { sampleId }: { sampleId: number }): Promise<(AdvisorRunRecord & { keptReason: string | null }) | null> {
   const row = await db("samples").where({ id: sampleId }).first("advisor_run_id", "advisor_run_reason");
   if (!row?.advisor_run_id) return null;
-  return { ...(await getAdvisorRunById(db, { sampleId, runId: Number(row.advisor_run_id) })), keptReason: (row.advisor_run_reason as string | null) ?? null };
+  return { ...(await getAdvisorRunById(db, { sampleId, runId: Number(row.advisor_run_id) })), keptReason: row.advisor_run_reason ?? null };
 }

@@ -1,6 +1,8 @@
 import "server-only";
 import type { Knex } from "knex";
-import type { AuditorResponse } from "@/lib/validation/conclusion";
+import { z } from "zod";
+import { StoredAuditorResponseSchema, type AuditorResponse } from "@/lib/validation/conclusion";
+import { parseJsonColumn } from "./json-column";
 
 /** The auditor's conclusion and response on one sample, as written by the preparer. */
 export interface AuditorConclusionRecord {
@@ -20,7 +22,7 @@ export interface SampleResponseRecord extends AuditorConclusionRecord {
 }
 
 const iso = (v: unknown) => new Date(v as string).toISOString();
-const parse = (v: unknown): AuditorResponse[] => (typeof v === "string" ? (JSON.parse(v) as AuditorResponse[]) : ((v as AuditorResponse[] | null) ?? []));
+const parse = (v: unknown): AuditorResponse[] => (v === null || v === undefined ? [] : parseJsonColumn(z.array(StoredAuditorResponseSchema), v, "samples.auditor_responses_json"));
 
 function toRecord(r: Record<string, unknown>): AuditorConclusionRecord {
   return {

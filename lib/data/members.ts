@@ -16,7 +16,7 @@ export interface MemberRecord {
 
 export async function getMembershipRole(db: Knex, { engagementId, userId }: { engagementId: number; userId: number }): Promise<MembershipRole | null> {
   const row = await db("engagement_members").where({ engagement_id: engagementId, user_id: userId }).first("role");
-  return row ? (row.role as MembershipRole) : null;
+  return row ? row.role : null;
 }
 
 /** The audit team; client contacts are listed apart (lib/requests/contacts.ts). */

@@ -2,6 +2,7 @@ import "server-only";
 import type { Knex } from "knex";
 import type { ItemsQuery } from "@/lib/validation/population";
 import { containsPattern } from "./like";
+import type { PopulationItemsRow } from "./tables";
 
 export interface PopulationItem {
   rowNumber: number;
@@ -12,7 +13,7 @@ export interface PopulationItem {
   extra: Record<string, string> | null;
 }
 
-const toItem = (r: Record<string, unknown>): PopulationItem => ({
+const toItem = (r: Record<string, unknown> | PopulationItemsRow): PopulationItem => ({
   rowNumber: Number(r.row_number), itemRef: String(r.item_ref), description: (r.description as string | null) ?? null,
   bookValue: String(r.book_value), itemDate: (r.item_date as string | null) ?? null,
   extra: r.extra === null ? null : ((typeof r.extra === "string" ? JSON.parse(r.extra) : r.extra) as Record<string, string>),

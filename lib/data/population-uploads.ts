@@ -3,6 +3,7 @@ import type { Knex } from "knex";
 import type { RowProblem, UploadInspection } from "@/lib/imports";
 import { recordAudit } from "./audit-log";
 import { conflict, notFound } from "@/lib/errors";
+import type { PopulationUploadsRow } from "./tables";
 
 export interface UploadRecord {
   id: number;
@@ -21,12 +22,12 @@ export interface UploadRecord {
 
 const parse = (v: unknown) => (typeof v === "string" ? JSON.parse(v) : v);
 
-function toUpload(r: Record<string, unknown>): UploadRecord {
+function toUpload(r: PopulationUploadsRow): UploadRecord {
   return {
     id: Number(r.id), engagementId: Number(r.engagement_id), uploadedBy: Number(r.uploaded_by), fileName: String(r.file_name),
     sizeBytes: Number(r.size_bytes), sha256: String(r.sha256), tempPath: String(r.temp_path), inspection: parse(r.inspection_json) as UploadInspection,
-    status: r.status as UploadRecord["status"], problemCount: Number(r.problem_count), problems: (parse(r.problems_json) as RowProblem[] | null) ?? [],
-    createdAt: new Date(r.created_at as string).toISOString(),
+    status: r.status, problemCount: Number(r.problem_count), problems: (parse(r.problems_json) as RowProblem[] | null) ?? [],
+    createdAt: r.created_at.toISOString(),
   };
 }
 

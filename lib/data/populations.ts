@@ -1,6 +1,7 @@
 import "server-only";
 import type { Knex } from "knex";
-import type { PopulationMapping } from "@/lib/validation/population-mapping";
+import { populationMappingSchema, type PopulationMapping } from "@/lib/validation/population-mapping";
+import { parseJsonColumn } from "./json-column";
 import type { Reconcile } from "@/lib/validation/population";
 import { recordAudit } from "./audit-log";
 import { conflict, notFound } from "@/lib/errors";
@@ -43,7 +44,7 @@ function toPopulation(r: Record<string, unknown>): PopulationRecord {
   return {
     id: Number(r.id), engagementId: Number(r.engagement_id), name: String(r.name), sourceFileName: String(r.source_file_name),
     sourceSizeBytes: Number(r.source_size_bytes), sourceSha256: String(r.source_sha256), sourceObjectKey: String(r.source_object_key),
-    mapping: (typeof r.mapping_json === "string" ? JSON.parse(r.mapping_json) : r.mapping_json) as PopulationMapping,
+    mapping: parseJsonColumn(populationMappingSchema, r.mapping_json, "populations.mapping_json"),
     rowCount: Number(r.row_count), total: String(r.total),
     positive: { count: Number(r.positive_count), total: String(r.positive_total) },
     zero: { count: Number(r.zero_count) },

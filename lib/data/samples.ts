@@ -8,6 +8,7 @@ import { beginSampleWrite } from "@/lib/samples/guard";
 import { conflict, notFound } from "@/lib/errors";
 import { withMethodologyDefaults, type MethodologySettings } from "@/lib/validation/methodology";
 import { getMethodologyByFirmId, type MethodologyVersion } from "./firm-methodology";
+import { mustExist } from "./must-exist";
 
 export interface SampleRecord {
   id: number;
@@ -94,7 +95,7 @@ export async function getSampleById(db: Knex, { engagementId, sampleId }: { enga
 async function methodologyStamp(trx: Knex.Transaction, engagementId: number, given?: MethodologyVersion) {
   let m = given;
   if (!m) {
-    const engagement = await trx("engagements").where({ id: engagementId }).first("firm_id");
+    const engagement = mustExist(await trx("engagements").where({ id: engagementId }).first("firm_id"), `engagement ${engagementId}`);
     m = await getMethodologyByFirmId(trx, { firmId: Number(engagement.firm_id) });
   }
   return { methodology_json: JSON.stringify(m.settings), methodology_version: m.version };

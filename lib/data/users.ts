@@ -4,6 +4,7 @@ import type { FirmRole, Grade } from "@/lib/auth/roles";
 import type { CreateUser, UpdateUser } from "@/lib/validation/user";
 import { recordAudit } from "./audit-log";
 import { AppError, notFound } from "@/lib/errors";
+import type { UsersRow } from "./tables";
 
 export interface UserRecord {
   id: number;
@@ -16,38 +17,38 @@ export interface UserRecord {
   createdAt: string;
 }
 
-const columns = ["id", "firm_id", "email", "name", "firm_role", "grade", "active", "created_at"];
+const columns = ["id", "firm_id", "email", "name", "firm_role", "grade", "active", "created_at"] as const;
 
-function toUser(r: Record<string, unknown>): UserRecord {
+function toUser(r: Pick<UsersRow, (typeof columns)[number]>): UserRecord {
   return {
     id: Number(r.id),
     firmId: Number(r.firm_id),
     email: String(r.email),
     name: String(r.name),
-    firmRole: r.firm_role as FirmRole,
-    grade: r.grade as Grade,
+    firmRole: r.firm_role,
+    grade: r.grade,
     active: Boolean(r.active),
-    createdAt: new Date(r.created_at as string).toISOString(),
+    createdAt: new Date(r.created_at).toISOString(),
   };
 }
 
 export const BCRYPT_COST = 10;
 
 export async function getUserById(db: Knex, { userId }: { userId: number }): Promise<UserRecord | null> {
-  const row = await db("users").where({ id: userId }).first(columns);
+  const row = await db("users").where({ id: userId }).first(...columns);
   return row ? toUser(row) : null;
 }
 
 /** The user and their hash, for sign-in only. */
 export async function getUserCredentialsByEmail(db: Knex, { email }: { email: string }) {
-  const row = await db("users").where({ email: email.toLowerCase() }).first([...columns, "password_hash"]);
+  const row = await db("users").where({ email: email.toLowerCase() }).first(...columns, "password_hash");
   return row ? { user: toUser(row), passwordHash: String(row.password_hash) } : null;
 }
 
 export async function listUsersByFirmId(db: Knex, { firmId, activeOnly = false }: { firmId: number; activeOnly?: boolean }) {
   const q = db("users").where({ firm_id: firmId }).orderBy("name");
   if (activeOnly) q.andWhere({ active: true });
-  return (await q.select(columns)).map(toUser);
+  return (await q.select(...columns)).map(toUser);
 }
 
 /** A new person of the firm, inside the caller's transaction; the hash is of a password nobody knows until they choose theirs with an invitation. */
@@ -64,7 +65,7 @@ export async function createUser(trx: Knex.Transaction, { firmId, actorId, input
 
 export async function updateUser(db: Knex, { firmId, actorId, userId, input }: { firmId: number; actorId: number; userId: number; input: UpdateUser }) {
   return db.transaction(async (trx) => {
-    const before = await trx("users").where({ id: userId, firm_id: firmId }).forUpdate().first(columns);
+    const before = await trx("users").where({ id: userId, firm_id: firmId }).forUpdate().first(...columns);
     if (!before) throw notFound("No such user");
     if (userId === actorId && (input.active === false || input.firmRole === "member"))
       throw new AppError(409, "self_lockout", "You cannot deactivate yourself or remove your own admin role");

@@ -6,9 +6,9 @@ import type { DrawRecord, SampleRecord } from "@/lib/data/samples";
 import { METHOD_LABELS } from "@/lib/validation/sample";
 import { safeCellText } from "./cell-text";
 import { randomStartOf } from "@/lib/samples/random-start";
-import { formatDate, formatDateTime } from "@/lib/format/dates";
-import { countOf, formatAmount } from "@/lib/format/numbers";
 import { COVER_SHEET, ITEMS_SHEET, STATUS_LABELS, type WorkbookKind } from "./workbook-layout";
+import { formatDate, formatDateTime } from "@/lib/format/date";
+import { countOf, formatMoney } from "@/lib/format/number";
 
 interface CoverFacts {
   engagement: EngagementRecord;
@@ -47,10 +47,10 @@ export async function writeCoverSheet(wb: ExcelJS.Workbook, f: CoverFacts) {
     ["Method", METHOD_LABELS[f.sample.method] + (f.sample.estimator ? `, ${f.sample.estimator}` : "")],
     ["Confidence", `${Math.round(f.sample.params.confidence * 1000) / 10}%`],
     ["Seed", String(f.draw.seed)],
-    ...(randomStart === null ? [] : [[`Random start (${f.engagement.currency})`, formatAmount(randomStart.toFixed(2))] as [string, string]]),
-    ...(f.draw.inputs.interval && f.sample.method === "mus" ? [[`Sampling interval (${f.engagement.currency})`, formatAmount(f.draw.inputs.interval.toFixed(2))] as [string, string]] : []),
+    ...(randomStart === null ? [] : [[`Random start (${f.engagement.currency})`, formatMoney(randomStart.toFixed(2))] as [string, string]]),
+    ...(f.draw.inputs.interval && f.sample.method === "mus" ? [[`Sampling interval (${f.engagement.currency})`, formatMoney(f.draw.inputs.interval.toFixed(2))] as [string, string]] : []),
     ["Draw", `version ${f.draw.version}, ${f.draw.algorithm} ${f.draw.algorithmVersion}, drawn ${formatDateTime(f.draw.drawnAt)} by ${f.draw.drawnByName}`],
-    ["Population", `${f.population.name} (${countOf(f.population.rowCount, "item")}, total ${formatAmount(f.population.total)})`],
+    ["Population", `${f.population.name} (${countOf(f.population.rowCount, "item")}, total ${formatMoney(f.population.total)})`],
     ["Population SHA-256", f.draw.populationSha256],
     ["Selection SHA-256", f.draw.selectionSha256],
     ["Items in this workbook", f.itemCount],

@@ -53,6 +53,11 @@ export function formatCount(n: number): string {
   return trueMinus(COUNT.format(n));
 }
 
+/** "1 item", "2 items", "1,204 items" — never "1 items". `plural` defaults to singular + "s". */
+export function countOf(n: number, singular: string, plural = `${singular}s`): string {
+  return `${formatCount(n)} ${n === 1 ? singular : plural}`;
+}
+
 /** A plain figure with fixed decimals and grouping: 1234.5 → "1,234.50". */
 export function formatNumber(n: number, digits = 2): string {
   return trueMinus(n.toLocaleString("en-US", { minimumFractionDigits: digits, maximumFractionDigits: digits }));

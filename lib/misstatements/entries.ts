@@ -7,6 +7,7 @@ import type { Entry } from "@/lib/validation/misstatements";
 import type { z } from "zod";
 import type { SampleCorrectionSchema, SummarySettingsSchema } from "@/lib/validation/misstatements";
 import { beginSummaryWrite } from "./guard";
+import { mustExist } from "@/lib/data/must-exist";
 
 const columnsOf = (e: Entry) => ({
   kind: e.kind, account: e.account, assertion: e.assertion, description: e.description, amount: e.amount, income_effect: e.incomeEffect, balance_effect: e.balanceEffect,
@@ -52,7 +53,7 @@ export async function deleteEntry(db: Knex, { engagementId, entryId, actorId }: 
 export async function saveSummarySettings(db: Knex, { engagementId, actorId, input }: { engagementId: number; actorId: number; input: z.output<typeof SummarySettingsSchema> }) {
   await db.transaction(async (trx) => {
     await beginSummaryWrite(trx, { engagementId, actorId, what: "the clearly trivial threshold or the approaching share" });
-    const before = await trx("misstatement_summaries").where({ engagement_id: engagementId }).first("clearly_trivial", "approaching_share");
+    const before = mustExist(await trx("misstatement_summaries").where({ engagement_id: engagementId }).first("clearly_trivial", "approaching_share"), `summary of engagement ${engagementId}`);
     await trx("misstatement_summaries").where({ engagement_id: engagementId }).update({ clearly_trivial: input.clearlyTrivial, approaching_share: input.approachingShare, updated_at: trx.fn.now(3) });
     await recordAudit(trx, { actorUserId: actorId, engagementId, entity: "misstatement_summary", entityId: engagementId, action: "settings",
       before: { clearlyTrivial: String(before.clearly_trivial), approachingShare: Number(before.approaching_share) }, after: input });

@@ -2,13 +2,14 @@ import "server-only";
 import type { Knex } from "knex";
 import { recordAudit } from "@/lib/data/audit-log";
 import { AppError } from "@/lib/errors";
+import { mustExist } from "@/lib/data/must-exist";
 
 export const SUMMARY_LOCKED_MESSAGE = "The summary of misstatements is locked: its workpaper is final. A partner can unlock it, with a reason, if a change is needed.";
 
 /** The summary's row, created on first use, held FOR UPDATE for the rest of the transaction. */
 export async function lockSummaryRow(trx: Knex.Transaction, engagementId: number) {
   await trx.raw("INSERT IGNORE INTO misstatement_summaries (engagement_id) VALUES (?)", [engagementId]);
-  return trx("misstatement_summaries").where({ engagement_id: engagementId }).forUpdate().first();
+  return mustExist(await trx("misstatement_summaries").where({ engagement_id: engagementId }).forUpdate().first(), `summary of engagement ${engagementId}`);
 }
 
 /**

@@ -10,11 +10,12 @@ import { putObjectBytes } from "@/lib/storage/objects";
 import { closedListError, type RequestListRow } from "./lists";
 import { countPendingFiles, lockRequestFile, lockRequestItem } from "./items";
 import { itemStatusAfter } from "./status";
+import { mustExist } from "@/lib/data/must-exist";
 
 const audit = (list: RequestListRow) => ({ engagementId: list.engagementId, sampleId: list.sampleId });
 
 async function assertListOpen(trx: Knex.Transaction, list: RequestListRow) {
-  const row = await trx("request_lists").where({ id: list.id }).forUpdate().first("status", "closed_reason");
+  const row = mustExist(await trx("request_lists").where({ id: list.id }).forUpdate().first("status", "closed_reason"), `request list ${list.id}`);
   if (row.status !== "open") throw closedListError({ closedReason: row.closed_reason });
 }
 
@@ -47,7 +48,7 @@ export async function setClientNote(db: Knex, a: { list: RequestListRow; request
   await db.transaction(async (trx) => {
     await assertListOpen(trx, a.list);
     const item = await lockRequestItem(trx, { listId: a.list.id, requestItemId: a.requestItemId });
-    const before = await trx("request_items").where({ id: item.id }).first("client_note");
+    const before = mustExist(await trx("request_items").where({ id: item.id }).first("client_note"), `request item ${item.id}`);
     await trx("request_items").where({ id: item.id }).update({ client_note: a.note || null, updated_at: trx.fn.now(3) });
     await recordAudit(trx, { actorUserId: a.actorId, ...audit(a.list), entity: "request_item", entityId: item.id, action: "client-note", before: { note: before.client_note }, after: { note: a.note || null } });
   });

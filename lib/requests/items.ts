@@ -53,7 +53,7 @@ export async function listRequestItems(db: Knex, { listId, withBookValues }: { l
 export async function lockRequestItem(trx: Knex.Transaction, { listId, requestItemId }: { listId: number; requestItemId: number }) {
   const row = await trx("request_items").where({ id: requestItemId, request_list_id: listId }).forUpdate().first();
   if (!row) throw notFound("No such item on this request list");
-  return { id: Number(row.id), sampleItemId: Number(row.sample_item_id), status: row.status as RequestItemStatus };
+  return { id: Number(row.id), sampleItemId: Number(row.sample_item_id), status: row.status };
 }
 
 /** A client file of a list with its item, locked for update (404 when it is not on the list). */

@@ -10,6 +10,7 @@ import { CLOSED_BY_LOCK, closeRequestListsOfSample } from "@/lib/requests/lists"
 import type { EngagementRole } from "@/lib/auth/roles";
 import { freezeSampleContribution, thawSampleContribution } from "@/lib/data/misstatements";
 import { loadSampleContribution } from "@/lib/misstatements/from-sample";
+import { mustExist } from "@/lib/data/must-exist";
 
 export type RenderFinalWorkpaper = (lockInfo: { lockedById: number; role: EngagementRole; lockedAt: Date; reference: string }) => Promise<Buffer>;
 
@@ -21,7 +22,7 @@ export const workpaperReferenceFor = (sample: SampleRecord) => `WP-${sample.enga
  * exactly those bytes (AS 1215 / ISA 230: documentation assembled and not changed afterwards).
  */
 export async function lockSample(db: Knex, { sample, actorId, role, render }: { sample: SampleRecord; actorId: number; role: EngagementRole; render: RenderFinalWorkpaper }) {
-  const row = await db("samples").where({ id: sample.id }).first("locked_at", "reviewer_signed_at");
+  const row = mustExist(await db("samples").where({ id: sample.id }).first("locked_at", "reviewer_signed_at"), `sample ${sample.id}`);
   if (row.locked_at) throw lockedError();
   if (!row.reviewer_signed_at) throw conflict("A manager or partner must sign off as reviewer before the sample is locked.");
   const lockedAt = new Date();
@@ -33,7 +34,7 @@ export async function lockSample(db: Knex, { sample, actorId, role, render }: { 
   // What the sample carries to the summary of misstatements, frozen as it stands at the lock.
   const contribution = await loadSampleContribution(db, { engagementId: sample.engagementId, sampleId: sample.id, lockedAt: lockedAt.toISOString() });
   const closedListIds = await db.transaction(async (trx) => {
-    const current = await trx("samples").where({ id: sample.id }).forUpdate().first("locked_at", "reviewer_signed_at");
+    const current = mustExist(await trx("samples").where({ id: sample.id }).forUpdate().first("locked_at", "reviewer_signed_at"), `sample ${sample.id}`);
     if (current.locked_at) throw lockedError();
     if (!current.reviewer_signed_at) throw conflict("The reviewer sign-off was cleared while the workpaper was being rendered; sign off again.");
     await trx("samples").where({ id: sample.id }).update({ locked_by: actorId, locked_at: lockedAt, workpaper_object_key: key, workpaper_sha256: sha256, workpaper_size_bytes: pdf.length, workpaper_reference: reference });
@@ -48,7 +49,7 @@ export async function lockSample(db: Knex, { sample, actorId, role, render }: { 
 export async function unlockSample(db: Knex, { sample, actorId, role, reason }: { sample: SampleRecord; actorId: number; role: EngagementRole; reason: string }) {
   if (role !== "partner") throw new AppError(403, "forbidden", "Only a partner can unlock a locked sample.");
   await db.transaction(async (trx) => {
-    const row = await trx("samples").where({ id: sample.id }).forUpdate().first("locked_at", "workpaper_sha256", "workpaper_object_key");
+    const row = mustExist(await trx("samples").where({ id: sample.id }).forUpdate().first("locked_at", "workpaper_sha256", "workpaper_object_key"), `sample ${sample.id}`);
     if (!row.locked_at) throw conflict("The sample is not locked.");
     await trx("samples").where({ id: sample.id }).update({
       locked_by: null, locked_at: null, workpaper_object_key: null, workpaper_sha256: null, workpaper_size_bytes: null,

@@ -8,6 +8,7 @@ import { assertSampleUnlocked } from "@/lib/samples/guard";
 import { getAuditorConclusionBySampleId } from "@/lib/data/auditor-conclusions";
 import { evaluationFor } from "@/lib/samples/context";
 import { conclusionGap } from "./auditor-conclusion";
+import { mustExist } from "@/lib/data/must-exist";
 
 /** Preparer sign-off: a staff member or senior, once every item of the current draw has a result and the auditor's conclusion (and response, where called for) is recorded. */
 export async function signOffAsPreparer(db: Knex, { sample, actorId, role }: { sample: SampleRecord; actorId: number; role: EngagementRole }) {
@@ -30,7 +31,7 @@ export async function signOffAsPreparer(db: Knex, { sample, actorId, role }: { s
 export async function signOffAsReviewer(db: Knex, { sample, actorId, role }: { sample: SampleRecord; actorId: number; role: EngagementRole }) {
   await db.transaction(async (trx) => {
     await assertSampleUnlocked(trx, sample.id);
-    const row = await trx("samples").where({ id: sample.id }).first("preparer_signed_at", "auditor_conclusion_at");
+    const row = mustExist(await trx("samples").where({ id: sample.id }).first("preparer_signed_at", "auditor_conclusion_at"), `sample ${sample.id}`);
     if (!row.preparer_signed_at) throw conflict("The preparer has not signed off yet.");
     if (!row.auditor_conclusion_at) throw new AppError(409, "no_conclusion", "No auditor's conclusion is recorded: the preparer records it before either sign-off.");
     const open = await trx("review_notes").where({ sample_id: sample.id }).whereNot("status", "cleared").count({ n: "*" }).first();

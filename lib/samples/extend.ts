@@ -63,7 +63,7 @@ export async function replaceItem(db: Knex, { sample, actorId, itemId, reason }:
     const h = Number(item.stratum) - 1;
     inputs.stratumRanks = draw.inputs.stratumRanks!.map((n, i) => (i === h ? n + 1 : n));
   } else inputs.ranks = draw.inputs.ranks! + 1;
-  const before = new Set((await db("sample_items").where({ draw_id: draw.id }).pluck("population_row_number")) as number[]);
+  const before = new Set(await db("sample_items").where({ draw_id: draw.id }).pluck("population_row_number"));
   const replacement = computeSelection(frame, inputs, draw.seed).find((it) => !before.has(frame.rowNumbers[it.position]));
   if (!replacement) throw conflict("No item is left to replace it with.");
   const maxOrder = Number((await db("sample_items").where({ draw_id: draw.id }).max({ m: "selection_order" }).first())?.m ?? 0);

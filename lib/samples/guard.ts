@@ -3,6 +3,7 @@ import type { Knex } from "knex";
 import { recordAudit } from "@/lib/data/audit-log";
 import { AppError, notFound } from "@/lib/errors";
 import { CLEARED_CONCLUSION } from "@/lib/data/auditor-conclusions";
+import { mustExist } from "@/lib/data/must-exist";
 
 export const LOCKED_MESSAGE = "This sample is locked: its workpaper is final. A partner can unlock it, with a reason, if a change is needed.";
 
@@ -60,7 +61,7 @@ export async function beginResultWrite(trx: Knex.Transaction, a: { sampleId: num
   if (!peek) throw notFound("No such sample");
   if (peek.locked_at) throw lockedError();
   if (peek.preparer_signed_at || peek.reviewer_signed_at || peek.auditor_conclusion_at) return beginSampleWrite(trx, a);
-  const row = await trx("samples").where({ id: a.sampleId }).forShare().first("locked_at", "preparer_signed_at", "reviewer_signed_at", "auditor_conclusion_at");
+  const row = mustExist(await trx("samples").where({ id: a.sampleId }).forShare().first("locked_at", "preparer_signed_at", "reviewer_signed_at", "auditor_conclusion_at"), `sample ${a.sampleId}`);
   if (row.locked_at) throw lockedError();
   // Signed or concluded between the peek and the shared lock (rare): upgrade; InnoDB resolves a clash of two such upgrades as a deadlock (answered 409).
   if (row.preparer_signed_at || row.reviewer_signed_at || row.auditor_conclusion_at) return beginSampleWrite(trx, a);

@@ -6,6 +6,7 @@ import { AppError, conflict, notFound } from "@/lib/errors";
 import { insertSelectedItems, isHaphazard } from "./draw";
 import { beginSampleWrite } from "./guard";
 import { loadFrame } from "./population-frame";
+import { mustExist } from "@/lib/data/must-exist";
 
 async function haphazardDraw(db: Knex, sample: SampleRecord) {
   if (sample.method !== "nonstatistical")
@@ -65,7 +66,7 @@ export async function addHaphazardPick(
       origin: "haphazard",
       pickedBy: actorId,
     });
-    const row = await trx("sample_items").where({ draw_id: draw.id, population_row_number: rowNumber }).first("id");
+    const row = mustExist(await trx("sample_items").where({ draw_id: draw.id, population_row_number: rowNumber }).first("id"), `picked row ${rowNumber}`);
     await recordAudit(trx, {
       actorUserId: actorId,
       engagementId: sample.engagementId,

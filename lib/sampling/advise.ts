@@ -5,6 +5,7 @@
 import type { EstimatorPerformance, SimulatedEstimator } from "./simulate";
 import { CORRECTED_RATIO_ESTIMATORS } from "./ratio-corrected";
 import { EngineInputError } from "./errors";
+import { formatNumber, formatRate } from "../format/number";
 
 export type AdvisedEstimator = SimulatedEstimator | "stringer";
 export const ADVISED_ESTIMATOR_LABELS: Record<AdvisedEstimator, string> = {
@@ -46,9 +47,9 @@ export interface Recommendation {
 export const FEW_DIFFERENCES = 10;
 const DIFFERENCE_TYPE: AdvisedEstimator[] = ["difference", "ratio", "regression"];
 
-const pct = (v: number) => `${(v * 100).toFixed(v >= 0.995 && v < 1 ? 1 : 0)}%`;
-const money = (v: number) => Math.abs(v).toLocaleString("en-US", { maximumFractionDigits: 0 });
-const times = (v: number) => (v >= 10 ? v.toFixed(0) : v.toFixed(1));
+const pct = (v: number) => formatRate(v, v >= 0.995 && v < 1 ? 1 : 0);
+const money = (v: number) => formatNumber(Math.abs(v), 0);
+const times = (v: number) => formatNumber(v, v >= 10 ? 0 : 1);
 
 /**
  * Picks, at one sample size, the estimator with the lowest RMSE among those whose coverage is at
@@ -80,7 +81,7 @@ export function recommendEstimator(o: {
     }
     if (p.coverage < coverageFloor) {
       const few = DIFFERENCE_TYPE.includes(c.estimator) && expectedDifferences !== null && expectedDifferences < FEW_DIFFERENCES
-        ? ` — too few misstatements expected (about ${expectedDifferences.toFixed(expectedDifferences < 1 ? 1 : 0)} in the sample)` : "";
+        ? ` — too few misstatements expected (about ${formatNumber(expectedDifferences, expectedDifferences < 1 ? 1 : 0)} in the sample)` : "";
       return { estimator: c.estimator, verdict: "short-coverage", reason: `${label}: coverage ${pct(p.coverage)} at n = ${sampleSize}, below the ${pct(o.confidence)} confidence${few}.` };
     }
     const b = best!.performance;

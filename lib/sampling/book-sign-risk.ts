@@ -2,6 +2,7 @@
  * When the ratio and regression estimators stand on weak ground: zero or negative book values in the
  * frame, and a sample book total that can come near zero.
  */
+import { formatCount, formatMoney } from "../format/number";
 import { requireArray, requireInteger, requireObject, requirePositive } from "./validate";
 
 /** Share of items at or below zero from which they count as a material part of the frame (common practice). */
@@ -56,10 +57,10 @@ export function bookSignRisk(o: { bookValues: ArrayLike<number>; sampleSize: num
   const nearZeroTotal = N > 0 && mean <= NEAR_ZERO_STANDARD_ERRORS * standardError;
   const warnings: string[] = [];
   if (materialShare) {
-    warnings.push(`${nonPositive.toLocaleString("en-US")} of ${N.toLocaleString("en-US")} items are zero or negative (credits ${Math.abs(negativeTotal).toLocaleString("en-US", { maximumFractionDigits: 2 })}): a material share for the ratio and regression estimators. Consider testing credit balances as their own population.`);
+    warnings.push(`${formatCount(nonPositive)} of ${formatCount(N)} items are zero or negative (credits ${formatMoney(Math.abs(negativeTotal))}): a material share for the ratio and regression estimators. Consider testing credit balances as their own population.`);
   }
   if (nearZeroTotal) {
-    warnings.push(`At n = ${n} the sample's book total can come near zero (mean book value ${mean.toLocaleString("en-US", { maximumFractionDigits: 2 })} is within ${NEAR_ZERO_STANDARD_ERRORS} standard errors of zero): the ratio and regression estimates become unstable. Test credit balances as their own population, or use the difference or mean-per-unit estimator.`);
+    warnings.push(`At n = ${n} the sample's book total can come near zero (mean book value ${formatMoney(mean)} is within ${NEAR_ZERO_STANDARD_ERRORS} standard errors of zero): the ratio and regression estimates become unstable. Test credit balances as their own population, or use the difference or mean-per-unit estimator.`);
   }
   return { zeroCount, negativeCount, negativeTotal, materialShare, nearZeroTotal, warnings };
 }

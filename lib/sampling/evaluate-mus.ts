@@ -1,6 +1,7 @@
 /**
  * Monetary-unit sampling evaluation: the Stringer bound, overstatement and understatement apart.
  */
+import { formatFactor } from "../format/number";
 import { EngineInputError } from "./errors";
 import { toCents } from "./money";
 import { poissonFactors } from "./poisson-factor";
@@ -103,7 +104,7 @@ export function evaluateMus(o: {
     const t = (book - sample.audited[i]!) / book;
     if (t > 0) over.push(t);
     if (t < 0) under.push(-t);
-    if (Math.abs(t) > 1) warnings.push(`sample[${i}] has a tainting of ${Math.abs(t).toFixed(4)} (above 1): kept uncapped, but the Stringer bound assumes taintings between 0 and 1.`);
+    if (Math.abs(t) > 1) warnings.push(`sample[${i}] has a tainting of ${formatFactor(Math.abs(t))} (above 1): kept uncapped, but the Stringer bound assumes taintings between 0 and 1.`);
   }
   let topOver = 0;
   let topUnder = 0;

@@ -1,6 +1,7 @@
 /**
  * Classical variables evaluation of one simple random sample.
  */
+import { formatMoney, formatPercent } from "../format/number";
 import { pairedMoments } from "./descriptive";
 import { toCents } from "./money";
 import { normalQuantile, studentQuantile } from "./quantiles";
@@ -110,7 +111,7 @@ export function evaluateVariables(o: {
   }
   const bias = core.ratioBias / 100;
   if (estimator === "ratio" && Math.abs(bias) > MATERIAL_BIAS_SHARE * result.allowance) {
-    warnings.push(`The ratio estimator's estimated bias (${bias.toFixed(2)}) exceeds ${MATERIAL_BIAS_SHARE * 100}% of the allowance (${result.allowance.toFixed(2)}): enlarge the sample or use the difference estimator.`);
+    warnings.push(`The ratio estimator's estimated bias (${formatMoney(bias)}) exceeds ${formatPercent(MATERIAL_BIAS_SHARE)} of the allowance (${formatMoney(result.allowance)}): enlarge the sample or use the difference estimator.`);
   }
   return { ...result, misstatementsInSample: m.nonZeroDifferences, warnings, zValue: z, distribution, degreesOfFreedom, estimatedRatioBias: bias };
 }

@@ -21,6 +21,8 @@ export const AuditorResponseSchema = z.object({
   note: z.string().trim().max(2000).optional().transform((v) => (v ? v : null)),
 });
 export type AuditorResponse = z.output<typeof AuditorResponseSchema>;
+/** A response as stored (samples.auditor_responses_json): what AuditorResponseSchema gives. */
+export const StoredAuditorResponseSchema = z.object({ kind: z.enum(RESPONSE_KINDS), amount: z.string().nullable(), note: z.string().nullable() }) satisfies z.ZodType<AuditorResponse>;
 
 export const AuditorConclusionSchema = z.object({
   conclusion: z.string().trim().min(10, "Write the conclusion in your own words (at least 10 characters)").max(4000),

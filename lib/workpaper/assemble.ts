@@ -1,7 +1,7 @@
 import "server-only";
 import type { Knex } from "knex";
 import type { SampleItemRecord } from "@/lib/data/sample-items";
-import { listNotesBySampleId } from "@/lib/review/notes";
+import { listNotesBySampleId } from "@/lib/data/review-notes";
 import { listSampleAuditTrail } from "@/lib/review/audit-trail";
 import { getAdoptedAdvisorRun } from "@/lib/data/advisor-runs";
 import { methodRationaleBlock } from "@/lib/advisor/describe";

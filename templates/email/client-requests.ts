@@ -1,8 +1,8 @@
 // The messages of client requests: the invitation of a client contact, a new request list, a file
 // sent back, and the daily digests of overdue items (to the client contact and to the senior).
-import { formatDate } from "./format";
 import { renderEmail } from "./layout";
 import { engagementLabel, type EngagementRef, type Person, type RenderedEmail } from "./types";
+import { formatDate } from "@/lib/format/date";
 
 export interface ClientInvitationData {
   recipient: Person; invitedBy: Person; firmName: string; engagement: EngagementRef;

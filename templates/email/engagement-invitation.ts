@@ -1,6 +1,6 @@
-import { formatDate, formatDateTime } from "./format";
 import { renderEmail } from "./layout";
 import { engagementLabel, type EngagementRef, type Person, type RenderedEmail } from "./types";
+import { formatDate, formatDateTime } from "@/lib/format/date";
 
 export interface EngagementInvitationData {
   recipient: Person;

@@ -1,8 +1,8 @@
 // The shared Sondage e-mail layout. Templates describe content as plain-text blocks; this module
 // renders both parts from them, escaping every value, so no template writes HTML of its own.
 import { escapeHtml, oneLine, safeUrl } from "./escape";
-import { wrapText } from "./format";
 import type { RenderedEmail } from "./types";
+import { wrapText } from "@/templates/email/wrap-text";
 
 export type Block =
   | { kind: "paragraph"; text: string }

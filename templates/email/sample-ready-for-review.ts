@@ -1,6 +1,6 @@
-import { formatDateTime } from "./format";
 import { renderEmail } from "./layout";
 import { engagementLabel, type RenderedEmail, type SampleEventData } from "./types";
+import { formatDateTime } from "@/lib/format/date";
 
 export type SampleReadyForReviewData = SampleEventData;
 

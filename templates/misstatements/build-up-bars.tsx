@@ -1,9 +1,9 @@
 /** The build-up of uncorrected misstatement against performance and overall materiality, drawn as bars. */
 import { Text, View } from "@react-pdf/renderer";
 import type { SummaryView } from "@/lib/misstatements/types";
-import { formatMoney } from "../workpaper/format";
 import { Section } from "../workpaper/primitives";
 import { colours, s } from "../workpaper/styles";
+import { formatMoney } from "@/lib/format/number";
 
 const WIDTH = 330;
 

@@ -1,9 +1,9 @@
 /** Review notes and sign-offs of the summary. */
 import { Text, View } from "@react-pdf/renderer";
 import type { SummaryView } from "@/lib/misstatements/types";
-import { formatDateTime } from "../workpaper/format";
 import { Section, Table } from "../workpaper/primitives";
 import { colours, s } from "../workpaper/styles";
+import { formatDateTime } from "@/lib/format/date";
 
 const clip = (v: string) => (v.length > 240 ? `${v.slice(0, 240)}…` : v);
 

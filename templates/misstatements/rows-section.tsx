@@ -2,9 +2,9 @@
 import { Text, View } from "@react-pdf/renderer";
 import { KIND_LABELS, treatmentOf } from "@/lib/misstatements/labels";
 import type { SummaryRow, SummaryView } from "@/lib/misstatements/types";
-import { formatMoney } from "../workpaper/format";
 import { Paragraph, Section, SubHead, Table, type Column } from "../workpaper/primitives";
 import { s } from "../workpaper/styles";
+import { formatMoney } from "@/lib/format/number";
 
 const COLUMNS: Column[] = [
   { label: "Ref", width: 30 }, { label: "Kind", width: 50 }, { label: "Account · assertion", width: 82 }, { label: "Description", flex: 1 },

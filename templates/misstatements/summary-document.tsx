@@ -3,12 +3,13 @@ import type { ReactNode } from "react";
 import { Document, Page, Text, View } from "@react-pdf/renderer";
 import type { SummaryView } from "@/lib/misstatements/types";
 import { DraftWatermark, Footer, RunningHeader, type PageFrameData } from "../workpaper/page-frame";
-import { formatDate, formatMoney, formatDateTime } from "../workpaper/format";
 import { Callout, Facts, Paragraph, Section } from "../workpaper/primitives";
 import { colours, s } from "../workpaper/styles";
 import { BuildUpBars } from "./build-up-bars";
 import { RowsSection } from "./rows-section";
 import { ReviewSection } from "./review-section";
+import { formatDate, formatDateTime } from "@/lib/format/date";
+import { formatMoney } from "@/lib/format/number";
 
 function Sheet({ frame, children }: { frame: PageFrameData; children: ReactNode }) {
   return (

@@ -1,9 +1,9 @@
 /** Appendix A: the audit trail of the sample — who did what, when, with the values before and after. */
 import { Text } from "@react-pdf/renderer";
-import { formatDateTime } from "./format";
 import { Section, Table } from "./primitives";
 import { s } from "./styles";
 import type { WorkpaperData } from "./workpaper-data";
+import { formatDateTime } from "@/lib/format/date";
 
 export function AuditTrailAppendix({ data }: { data: WorkpaperData }) {
   return (

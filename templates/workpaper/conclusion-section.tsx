@@ -4,11 +4,12 @@
  * not replaces, the auditor's judgement. Prints the view model as it is.
  */
 import { Text, View } from "@react-pdf/renderer";
-import { formatMoney, formatDateTime } from "./format";
 import { CAUTION } from "./page-frame";
 import { Paragraph, Section, SubHead } from "./primitives";
 import { colours, s } from "./styles";
 import type { WorkpaperData } from "./workpaper-data";
+import { formatMoney } from "@/lib/format/number";
+import { formatDateTime } from "@/lib/format/date";
 
 const VERDICT = { supported: "Supports the recorded amount", "not-supported": "Does not support the recorded amount", provisional: "Provisional", "no-results": "No results yet", "not-evaluable": "Not evaluable yet" } as const;
 

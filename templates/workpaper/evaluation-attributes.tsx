@@ -1,8 +1,8 @@
 /** Section 6 for attribute samples: the upper deviation limit against the tolerable rate. */
 import { View } from "@react-pdf/renderer";
-import { formatRate } from "./format";
 import { Callout, SubHead, Table } from "./primitives";
 import type { AttributesEvaluationBlock } from "./workpaper-data";
+import { formatRate } from "@/lib/format/number";
 
 export function AttributesEvaluation({ e }: { e: AttributesEvaluationBlock }) {
   const rate = (x: number) => formatRate(x, 2);

@@ -1,9 +1,9 @@
 /** Section 6 for monetary-unit samples: the Stringer bound, each direction on its own. */
 import { Text, View } from "@react-pdf/renderer";
-import { formatFactor, formatMoney, formatRate } from "./format";
 import { Callout, Facts, SubHead, Table } from "./primitives";
 import { s } from "./styles";
 import type { MusEvaluationBlock, StringerSide } from "./workpaper-data";
+import { formatFactor, formatMoney, formatRate } from "@/lib/format/number";
 
 function RankedTaintings({ title, side, currency }: { title: string; side: StringerSide; currency: string }) {
   return (

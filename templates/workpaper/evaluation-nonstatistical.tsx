@@ -1,9 +1,9 @@
 /** Section 6 for nonstatistical samples: the projection, key items and anomalies at actual, the total against TM. */
 import { Text, View } from "@react-pdf/renderer";
-import { formatMoney } from "./format";
 import { Callout, SubHead, Table } from "./primitives";
 import { s } from "./styles";
 import type { NonstatisticalEvaluationBlock } from "./workpaper-data";
+import { formatMoney } from "@/lib/format/number";
 
 const METHOD = {
   ratio: "Σ misstatement ÷ sampled BV × remainder BV",

@@ -1,11 +1,10 @@
 /** Section 6 for classical variables samples, plain and stratified. */
 import { Text, View } from "@react-pdf/renderer";
-import { formatFactor, formatMoney, formatRate } from "./format";
 import { estimatorName } from "./plan-section";
 import { Callout, Facts, SubHead, Table, type TableRow } from "./primitives";
 import { s } from "./styles";
 import type { StratifiedEvaluationBlock, VariablesEvaluationBlock, VariablesResultFigures } from "./workpaper-data";
-import { formatCount } from "@/lib/format/number";
+import { formatCount, formatFactor, formatMoney, formatRate } from "@/lib/format/number";
 
 const ESTIMATE_FORMULA: Record<string, string> = {
   "mean-per-unit": "Ŷ = N · ȳ",

@@ -1,9 +1,9 @@
 /** The evidence index: each file attached to an item, with its SHA-256, who attached it and when. */
 import { Text } from "@react-pdf/renderer";
-import { formatDateTime } from "./format";
 import { Section, Table } from "./primitives";
 import { s } from "./styles";
 import type { WorkpaperData } from "./workpaper-data";
+import { formatDateTime } from "@/lib/format/date";
 
 export function EvidenceIndexSection({ data }: { data: WorkpaperData }) {
   const rows = data.evidence ?? [];

@@ -1,9 +1,10 @@
 /** Sizing from the risk assessment, key items examined 100 %, haphazard picks and anomalies (issue 15, issue 14 §4). */
 import { Text, View } from "@react-pdf/renderer";
-import { formatMoney, formatRate, formatDateTime } from "./format";
 import { Callout, Facts, SubHead, Table } from "./primitives";
 import { s } from "./styles";
 import type { SizingBlock, WorkpaperData } from "./workpaper-data";
+import { formatMoney, formatRate } from "@/lib/format/number";
+import { formatDateTime } from "@/lib/format/date";
 
 const RISK: Record<string, string> = {
   maximum: "Maximum",

@@ -1,10 +1,10 @@
 /** Section 3, continued: the estimator advisor run kept with the plan as the rationale for the method. */
 import { Text, View } from "@react-pdf/renderer";
-import { formatMoney, formatRate, formatDateTime } from "./format";
 import { Callout, Facts, Paragraph, SubHead, Table } from "./primitives";
 import { s } from "./styles";
 import type { WorkpaperData } from "./workpaper-data";
-import { formatCount } from "@/lib/format/number";
+import { formatCount, formatMoney, formatRate } from "@/lib/format/number";
+import { formatDateTime } from "@/lib/format/date";
 
 export function MethodRationale({ data }: { data: WorkpaperData }) {
   const r = data.methodRationale;

@@ -1,9 +1,9 @@
 /** What every page carries: the running header, the footer with the caution and page x of y, and the draft watermark. */
 import { Path, Svg, Text, View } from "@react-pdf/renderer";
 import { WATERMARK_SHAPE } from "./draft-watermark-shape";
-import { formatDate } from "./format";
 import { colours, PAGE_MARGIN_X, s } from "./styles";
 import type { WorkpaperData } from "./workpaper-data";
+import { formatDate } from "@/lib/format/date";
 
 export const CAUTION =
   "These results support, and do not replace, the auditor's professional judgement, the applicable standards (AU-C 530, ISA 530, AS 2315) and the firm's methodology.";

@@ -1,13 +1,13 @@
 /** Section 3: the method, its parameters and the sample-size computation. */
 import { Text, View } from "@react-pdf/renderer";
-import { formatByKind, formatMoney } from "./format";
 import { Callout, Facts, Section, SubHead, Table } from "./primitives";
 import { s } from "./styles";
 import { methodTitle } from "./title-block";
 import { MethodRationale } from "./method-rationale-section";
 import { SizingFacts } from "./key-items-section";
 import type { PlanBlock, WorkpaperData } from "./workpaper-data";
-import { formatCount } from "@/lib/format/number";
+import { formatCount, formatMoney } from "@/lib/format/number";
+import { formatByKind } from "@/templates/workpaper/parameter-value";
 
 const ESTIMATORS: Record<string, string> = {
   "mean-per-unit": "Mean per unit",

@@ -1,10 +1,10 @@
 /** Section 2: the population, its fingerprint and its reconciliation. */
 import { Text, View } from "@react-pdf/renderer";
-import { formatMoney, formatDateTime } from "./format";
 import { Callout, Facts, Section, SubHead } from "./primitives";
 import { s } from "./styles";
 import type { PopulationBlock, WorkpaperData } from "./workpaper-data";
-import { formatCount } from "@/lib/format/number";
+import { formatCount, formatMoney } from "@/lib/format/number";
+import { formatDateTime } from "@/lib/format/date";
 
 const RECONCILIATION = {
   agreed: "Agreed to the control total",

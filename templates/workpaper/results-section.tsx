@@ -1,11 +1,11 @@
 /** Section 5: every sampled item with its book value, audited value, misstatement, cause and comment. */
 import { Text, View } from "@react-pdf/renderer";
 import { centsToDecimal, decimalToCents } from "@/lib/money";
-import { formatMoney } from "./format";
 import { ITEM_STATUS_LABELS } from "@/lib/fieldwork/field-labels";
 import { Section, Table, type Column, type TableRow } from "./primitives";
 import { colours, s } from "./styles";
 import type { WorkpaperData, WorkpaperItem } from "./workpaper-data";
+import { formatMoney } from "@/lib/format/number";
 
 const STATUS = ITEM_STATUS_LABELS;
 const ORIGIN = { selection: "", extension: "extension", replacement: "replacement", "key-item": "key item (100 %)", haphazard: "haphazard pick" } as const;

@@ -1,9 +1,9 @@
 /** Section 8: review notes, their answers and their clearance. */
 import { Text, View } from "@react-pdf/renderer";
-import { formatDateTime } from "./format";
 import { Section } from "./primitives";
 import { colours, s } from "./styles";
 import type { ReviewNote, WorkpaperData } from "./workpaper-data";
+import { formatDateTime } from "@/lib/format/date";
 
 function Note({ note }: { note: ReviewNote }) {
   const cleared = note.clearedAt !== null;

@@ -1,9 +1,10 @@
 /** Section 4: how the sample was drawn, whether it re-performs, and how anyone can redo it. */
 import { Text, View } from "@react-pdf/renderer";
-import { formatMoney, formatDateTime } from "./format";
 import { Callout, Facts, Section, SubHead } from "./primitives";
 import { colours, s } from "./styles";
 import type { SelectionBlock, WorkpaperData } from "./workpaper-data";
+import { formatMoney } from "@/lib/format/number";
+import { formatDateTime } from "@/lib/format/date";
 
 function Reperform({ r }: { r: SelectionBlock["reperform"] }) {
   if (r.result === "not-checked") return <Callout tone="warning">The selection has not been re-performed.</Callout>;

@@ -1,9 +1,9 @@
 /** Section 9: who prepared and who reviewed, and when the workpaper was locked. */
 import { Text, View } from "@react-pdf/renderer";
-import { formatDateTime } from "./format";
 import { Section } from "./primitives";
 import { colours, s } from "./styles";
 import type { SignOff, WorkpaperData } from "./workpaper-data";
+import { formatDateTime } from "@/lib/format/date";
 
 function Box({ title, signOff }: { title: string; signOff: SignOff | null }) {
   return (

@@ -1,8 +1,8 @@
 /** The first page's title block: what this workpaper is, for whom, and its state. */
 import { Text, View } from "@react-pdf/renderer";
-import { formatDate, formatDateTime } from "./format";
 import { colours, s } from "./styles";
 import type { WorkpaperData } from "./workpaper-data";
+import { formatDate, formatDateTime } from "@/lib/format/date";
 
 const METHOD_TITLES: Record<WorkpaperData["plan"]["method"], string> = {
   mus: "Monetary-unit sample",

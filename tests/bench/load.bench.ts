@@ -63,7 +63,7 @@ async function hardKill(service: Service): Promise<void> {
 async function addLoadUsers(engagementId: number): Promise<string[]> {
   const db = database();
   try {
-    const firm = await db("firms").first("id");
+    const firm = (await db("firms").first("id"))!;
     const hash = await bcrypt.hash(PASSWORD, 10);
     const emails = Array.from({ length: USERS }, (_, i) => `load${i + 1}@marrow-quill.example`);
     for (const email of emails) {

@@ -137,7 +137,7 @@ describe("estimator advisor API", () => {
     expect((await call(adopt.POST, "POST", { as: staff, params: at(ratioSample, { runId: String(done.id) }), body: {} })).status).toBe(403);
     // A run that did not simulate the plan's estimator (runs made before ratio forms were simulated with
     // non-positive items looked like this) cannot be kept.
-    const stored = await getDb()("advisor_runs").where({ id: done.id }).first();
+    const stored = (await getDb()("advisor_runs").where({ id: done.id }).first())!;
     const withoutRatio = typeof stored.result_json === "string" ? JSON.parse(stored.result_json) : stored.result_json;
     withoutRatio.cells = withoutRatio.cells.filter((c: { estimator: string }) => c.estimator !== "ratio");
     const [skipped] = await getDb()("advisor_runs").insert({ ...stored, id: undefined, result_json: JSON.stringify(withoutRatio), request_json: typeof stored.request_json === "string" ? stored.request_json : JSON.stringify(stored.request_json) });

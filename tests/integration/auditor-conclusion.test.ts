@@ -126,7 +126,7 @@ describe("an item that could not be audited", () => {
     // The grid's row says the same treatment in a few words (ISA 530 ¶12, from memory: an item the procedures cannot be applied to is treated as a misstatement or a deviation).
     expect(ev.unauditableOnRow).toBe("Evaluated as audited at twice its book value: an understatement equal to its book value.");
     expect(ev.block.understatementCaution).toMatch(/understated items are less likely to be selected/);
-    const plan = (await getDb()("samples").where({ id }).first("plan_json")).plan_json;
+    const plan = (await getDb()("samples").where({ id }).first("plan_json"))!.plan_json;
     expect(JSON.stringify(plan)).toMatch(/Understatement tested by monetary-unit sampling/);
   });
 });

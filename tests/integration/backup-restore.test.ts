@@ -78,9 +78,9 @@ describe("db:backup and db:restore", () => {
     db = knex(buildKnexConfig());
     try {
       expect(await fingerprint(db)).toEqual(before);
-      const sample = await db("samples").where({ id: sampleId }).first("locked_at", "workpaper_object_key", "workpaper_sha256");
+      const sample = (await db("samples").where({ id: sampleId }).first("locked_at", "workpaper_object_key", "workpaper_sha256"))!;
       expect(sample.locked_at).not.toBeNull();
-      const object = await getObjectStream({ key: sample.workpaper_object_key });
+      const object = await getObjectStream({ key: sample.workpaper_object_key! });
       const hash = createHash("sha256");
       for await (const chunk of object.body) hash.update(chunk as Buffer);
       expect(hash.digest("hex")).toBe(sample.workpaper_sha256);

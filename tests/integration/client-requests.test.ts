@@ -47,7 +47,7 @@ beforeAll(async () => {
   firm = await makeFirm();
   [manager, senior, staff, otherClient] = await Promise.all([makeUser(firm, "manager"), makeUser(firm, "senior"), makeUser(firm, "staff"), makeUser(firm, "client")]);
   engagement = await makeEngagement(firm, manager, [[manager, "manager"], [senior, "senior"], [staff, "staff"], [otherClient, "client"]]);
-  seniorEmail = (await getDb()("users").where({ id: senior }).first("email")).email;
+  seniorEmail = (await getDb()("users").where({ id: senior }).first("email"))!.email;
   const { populationId } = await loadCanonicalPopulation(senior, engagement);
   sampleId = (await planSample(senior, engagement, { populationId, params: { method: "random", estimator: "difference", tolerableMisstatement: "5000", sampleSize: 6, sizeReason: "test" } })).json.sample.id;
   await drawSample(senior, engagement, sampleId, 7);
@@ -80,14 +80,14 @@ describe("inviting a client contact", () => {
     expect((await call(invitation.POST, "POST", { as: null, params: { token: token! }, body: { password: "short" } })).status).toBe(400);
     const ok = await call(invitation.POST, "POST", { as: null, params: { token: token! }, body: { password: "carla-chooses-this-1" } });
     expect(ok).toMatchObject({ status: 200, json: { email: carla.email } });
-    const stored = await getDb()("users").where({ id: carla.userId }).first("password_hash");
+    const stored = (await getDb()("users").where({ id: carla.userId }).first("password_hash"))!;
     expect(await bcrypt.compare("carla-chooses-this-1", stored.password_hash)).toBe(true);
     expect((await call(invitation.POST, "POST", { as: null, params: { token: token! }, body: { password: "someone-else-again" } })).status).toBe(404);
     expect(await auditCount({ entity: "user_invitation", action: "accept" })).toBeGreaterThanOrEqual(1);
   });
 
   it("refuses an e-mail that belongs to an auditor, and lists the contacts", async () => {
-    const auditorEmail = (await getDb()("users").where({ id: staff }).first("email")).email;
+    const auditorEmail = (await getDb()("users").where({ id: staff }).first("email"))!.email;
     const r = await call(contacts.POST, "POST", { as: senior, params: { engagementId: String(engagement) }, body: { name: "Not a client", email: auditorEmail } });
     expect(r.status).toBe(409);
     const listed = await call(contacts.GET, "GET", { as: staff, params: { engagementId: String(engagement) } });

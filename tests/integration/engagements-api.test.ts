@@ -108,7 +108,7 @@ describe("PATCH /api/engagements/:id", () => {
     const r = await call(one.PATCH, "PATCH", { as: manager, params: params(), body: { status: "fieldwork" } });
     expect(r.status).toBe(200);
     expect(r.json.engagement.status).toBe("fieldwork");
-    const row = await getDb()("audit_log").where({ entity: "engagement", entity_id: String(engagementA), action: "update" }).orderBy("id", "desc").first();
+    const row = (await getDb()("audit_log").where({ entity: "engagement", entity_id: String(engagementA), action: "update" }).orderBy("id", "desc").first())!;
     expect(json(row.before_json)).toEqual({ status: "planning" });
     expect(json(row.after_json)).toEqual({ status: "fieldwork" });
   });

@@ -18,7 +18,7 @@ import { callRaw } from "./support/call";
 import { makeEngagement, makeFirm, makeUser } from "./support/factory";
 import { concludeSample, drawSample, getEvaluation, listSampleItems, loadCanonicalPopulation, planSample, saveResult } from "./support/samples";
 import * as workpaper from "@/app/api/engagements/[engagementId]/samples/[sampleId]/workpaper/route";
-import { formatFactor, formatMoney, formatRate } from "@/templates/workpaper/format";
+import { formatFactor, formatMoney, formatRate } from "@/lib/format/number";
 
 vi.mock("@/lib/auth/session-user", async () => (await import("./support/session")).sessionModule);
 

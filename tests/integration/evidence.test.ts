@@ -129,7 +129,7 @@ describe("evidence files", () => {
     expect(all.find((e: { id: number }) => e.id === staffs.id)).toMatchObject({ deletedByName: expect.stringContaining("(staff)"), deletedAt: expect.any(String) });
     expect((await callRaw(evidenceOne.GET, "GET", { as: staff, params: routeParams(itemId, mine.id) })).status).toBe(404);
     expect(await auditCount({ entity: "item_evidence", entity_id: String(mine.id), action: "delete" })).toBe(1);
-    const row = await getDb()("item_evidence").where({ id: mine.id }).first();
+    const row = (await getDb()("item_evidence").where({ id: mine.id }).first())!;
     expect(row.deleted_by).toBe(staff);
   });
 

@@ -89,7 +89,7 @@ describe("the fieldwork workbook export", () => {
     const wb = await exportWorkbook(sampleId);
     const cover = wb.getWorksheet("Cover")!;
     const coverText = cover.getSheetValues().flat().map(String).join("\n");
-    const draw = await getDb()("sample_draws").where({ sample_id: sampleId, current: true }).first();
+    const draw = (await getDb()("sample_draws").where({ sample_id: sampleId, current: true }).first())!;
     expect(coverText).toContain(draw.population_sha256);
     expect(coverText).toContain("20261231");
     expect(coverText).toContain("Simple random");
@@ -131,7 +131,7 @@ describe("the fieldwork workbook export", () => {
     const sampleId = await drawnSample("random");
     expect((await callRaw(workbook.GET, "GET", { as: viewer, params: params(sampleId) })).status).toBe(200);
     expect((await callRaw(workbook.GET, "GET", { as: outsider, params: params(sampleId) })).status).toBe(404);
-    const sample = await getDb()("samples").where({ id: sampleId }).first();
+    const sample = (await getDb()("samples").where({ id: sampleId }).first())!;
     const planned = await planSample(senior, engagement, { populationId: sample.population_id, params: { method: "random", estimator: "difference", tolerableMisstatement: "5000" } });
     const undrawn = await call(workbook.GET, "GET", { as: staff, params: params(planned.json.sample.id) });
     expect(undrawn.status).toBe(409);
@@ -265,11 +265,11 @@ describe("the fieldwork workbook import", () => {
     rowOf(ws, "INV-03").getCell(cols.Status).value = "Done";
     const res = await importWorkbook(sampleId, wb);
     expect(res.status).toBe(422);
-    const seniorName = (await getDb()("users").where({ id: senior }).first()).name;
+    const seniorName = (await getDb()("users").where({ id: senior }).first())!.name;
     expect(res.json.error.problems).toEqual([{ row: stale.number, column: "Item reference", cell: expect.any(String), reason: expect.stringContaining(`Version conflict: ${seniorName} changed this item`) }]);
-    const saved = await getDb()("sample_items").where({ id: first.id }).first();
+    const saved = (await getDb()("sample_items").where({ id: first.id }).first())!;
     expect([saved.audited_value, saved.version]).toEqual(["1250.00", 2]);
-    expect((await getDb()("sample_items").where({ sample_id: sampleId, item_ref: "INV-03" }).first()).status).toBe("not-started");
+    expect((await getDb()("sample_items").where({ sample_id: sampleId, item_ref: "INV-03" }).first())!.status).toBe("not-started");
   });
 
   it("checks the file by content and size, and needs staff", async () => {
@@ -305,7 +305,7 @@ describe("the fieldwork workbook import", () => {
     expect(res.json.changed).toBe(8);
     const evaluation = await getEvaluation(staff, engagement, sampleId);
     expect(evaluation.block).toMatchObject({ method: "attributes", sampleSize: 8, deviations: 1 });
-    const nature = await getDb()("sample_items").where({ sample_id: sampleId, deviation: true }).first();
+    const nature = (await getDb()("sample_items").where({ sample_id: sampleId, deviation: true }).first())!;
     expect(nature.deviation_nature).toBe("Approval signature missing");
   });
 });

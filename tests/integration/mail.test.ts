@@ -15,8 +15,8 @@ const APP_URL = "https://sondage.test/audit";
 const saved = { NEXTAUTH_URL: process.env.NEXTAUTH_URL, SMTP_PORT: process.env.SMTP_PORT, MAIL_FROM: process.env.MAIL_FROM };
 
 let firm: number, manager: number, engagement: number;
-const emailOf = async (userId: number) => (await getDb()("users").where({ id: userId }).first("email")).email as string;
-const nameOf = async (userId: number) => (await getDb()("users").where({ id: userId }).first("name")).name as string;
+const emailOf = async (userId: number) => (await getDb()("users").where({ id: userId }).first("email"))!.email;
+const nameOf = async (userId: number) => (await getDb()("users").where({ id: userId }).first("name"))!.name;
 
 /** A loopback port with nothing listening on it: the relay is down. */
 async function closedPort(): Promise<number> {

@@ -34,7 +34,7 @@ beforeAll(async () => {
   const firm = await makeFirm();
   [staff, senior, manager, partner] = await Promise.all([makeUser(firm, "staff"), makeUser(firm, "senior"), makeUser(firm, "manager"), makeUser(firm, "partner")]);
   engagement = await makeEngagement(firm, manager, [[manager, "manager"], [partner, "partner"], [senior, "senior"], [staff, "staff"]]);
-  [managerEmail, staffEmail] = await Promise.all([manager, staff].map(async (id) => (await getDb()("users").where({ id }).first("email")).email));
+  [managerEmail, staffEmail] = await Promise.all([manager, staff].map(async (id) => (await getDb()("users").where({ id }).first("email"))!.email));
   populationId = (await loadCanonicalPopulation(senior, engagement)).populationId;
   sampleId = (await planSample(senior, engagement, { populationId, params: { method: "mus", tolerableMisstatement: "15000", factorMode: "table" } })).json.sample.id;
   await drawSample(senior, engagement, sampleId, 1206281);

@@ -92,7 +92,7 @@ describe("classical variables", () => {
         Y = N * (ym + b * (X / N - xm)); v = N * N * (1 - f) / n * x.reduce((s, xi, i) => s + ((y[i] - ym) - b * (xi - xm)) ** 2, 0) / (n - 2);
       }
       const ev = await getEvaluation(staff, engagement, id);
-      const plan = (await getDb()("samples").where({ id }).first("plan_json")).plan_json;
+      const plan = (await getDb()("samples").where({ id }).first("plan_json"))!.plan_json;
       const A = Number((typeof plan === "string" ? JSON.parse(plan) : plan).inputs.A);
       // AICPA Audit Guide decision rule, overstatement only: A′ = z_α·SE with z_α one-sided at 1 − RIR (RIR 10%);
       // A″ = A′ + TM·(1 − A′/A) when A′ > A; supported when X ≤ Ŷ + allowance.

@@ -114,7 +114,7 @@ describe("monetary-unit sample: draw, re-perform, recipe", () => {
     // numpy RandomState(121285).random_sample() = 3.999558920275703e-06 → r = 2 cents: 9 points, not 8.
     expect(after.reduce((n, i) => n + (i.hitPoints?.length ?? 0), 0)).toBe(9);
     expect(after.map((i) => i.itemRef).join()).not.toBe(before);
-    const old = await getDb()("sample_items").where({ "sample_items.sample_id": sampleId }).join("sample_draws as d", "d.id", "sample_items.draw_id").where("d.version", 1).count({ n: "*" }).first();
+    const old = await getDb()("sample_items").where("sample_items.sample_id", sampleId).join("sample_draws as d", "d.id", "sample_items.draw_id").where("d.version", 1).count({ n: "*" }).first();
     expect(Number(old?.n)).toBeGreaterThan(0);
     // The same seed again gives the same selection as version 1.
     await drawSample(senior, engagement, sampleId, 1206281);

@@ -240,7 +240,7 @@ describe("nonstatistical samples", () => {
       "INV006",
       "INV011",
     ]);
-    const draw = await getDb()("sample_draws").where({ sample_id: id }).first("seed_source");
+    const draw = (await getDb()("sample_draws").where({ sample_id: id }).first("seed_source"))!;
     expect(draw.seed_source).toBe("haphazard");
 
     const rowOf = (ref: string) => book.find((b) => b.ref === ref)!.row;
@@ -392,9 +392,9 @@ describe("nonstatistical samples", () => {
     });
     expect(refused.status).toBe(409);
     expect(refused.json.error.message).toMatch(/does not allow anomalous/);
-    const stillOld = await getDb()("samples")
+    const stillOld = (await getDb()("samples")
       .where({ id: old.json.sample.id })
-      .first("plan_json", "methodology_version");
+      .first("plan_json", "methodology_version"))!;
     expect(
       JSON.parse(typeof stillOld.plan_json === "string" ? stillOld.plan_json : JSON.stringify(stillOld.plan_json))
         .computedSize,

@@ -30,7 +30,7 @@ describe("user administration", () => {
     expect(r.status).toBe(201);
     expect(r.json).toMatchObject({ user: { name: "Ada Quill", grade: "staff" }, invitationSent: true });
     expect(r.json.user).not.toHaveProperty("passwordHash");
-    const audit = await getDb()("audit_log").where({ entity: "user", entity_id: String(r.json.user.id), action: "create" }).first();
+    const audit = (await getDb()("audit_log").where({ entity: "user", entity_id: String(r.json.user.id), action: "create" }).first())!;
     expect(JSON.stringify(audit.after_json)).not.toMatch(/password/i);
     // Nobody can sign in before Ada chooses her password: the stored hash is of a password nobody was told.
     await expect(verifyCredentials(getDb(), { email: "ada@test.example", password: "a long enough password" }, "10.0.0.5")).rejects.toThrow(/do not match/);
@@ -54,7 +54,7 @@ describe("user administration", () => {
 
   it("resets a password by link: the old one stops working, earlier links are withdrawn, the new link sets it (issue 19)", async () => {
     const target = await makeUser(firm, "staff");
-    const email = (await getDb()("users").where({ id: target }).first("email")).email as string;
+    const email = (await getDb()("users").where({ id: target }).first("email"))!.email;
     await expect(verifyCredentials(getDb(), { email, password: "integration-pass-1" }, "10.0.0.6")).resolves.toMatchObject({ id: target });
     expect((await call(password.POST, "POST", { as: member, params: { userId: String(target) }, body: {} })).status).toBe(403);
     expect((await call(password.POST, "POST", { as: admin, params: { userId: String(target) }, body: {} })).json).toEqual({ invitationSent: true });
@@ -71,7 +71,7 @@ describe("user administration", () => {
 
   it("deactivates a user, who then cannot sign in", async () => {
     const target = await makeUser(firm, "staff");
-    const email = (await getDb()("users").where({ id: target }).first("email")).email;
+    const email = (await getDb()("users").where({ id: target }).first("email"))!.email;
     await expect(verifyCredentials(getDb(), { email, password: "integration-pass-1" }, "10.0.0.1")).resolves.toMatchObject({ id: target });
     const r = await call(user.PATCH, "PATCH", { as: admin, params: { userId: String(target) }, body: { active: false } });
     expect(r.status).toBe(200);
@@ -89,7 +89,7 @@ describe("user administration", () => {
 describe("sign-in rate limit", () => {
   it(`locks an account after ${SIGN_IN_LIMITS.perAccount} failures, with a clear message, and logs each try`, async () => {
     const target = await makeUser(firm, "staff");
-    const email = (await getDb()("users").where({ id: target }).first("email")).email;
+    const email = (await getDb()("users").where({ id: target }).first("email"))!.email;
     for (let i = 0; i < SIGN_IN_LIMITS.perAccount; i++) {
       await expect(verifyCredentials(getDb(), { email, password: "wrong" }, "10.0.0.2")).rejects.toThrow(/do not match/);
     }
@@ -102,7 +102,7 @@ describe("sign-in rate limit", () => {
     for (let i = 0; i < SIGN_IN_LIMITS.perIp; i++) {
       await expect(verifyCredentials(getDb(), { email: `ghost${i}@test.example`, password: "x" }, "10.9.9.9")).rejects.toThrow();
     }
-    const email = (await getDb()("users").where({ id: member }).first("email")).email;
+    const email = (await getDb()("users").where({ id: member }).first("email"))!.email;
     await expect(verifyCredentials(getDb(), { email, password: "integration-pass-1" }, "10.9.9.9")).rejects.toThrow(/this network address/);
     await expect(verifyCredentials(getDb(), { email, password: "integration-pass-1" }, "10.9.9.10")).resolves.toMatchObject({ id: member });
   });

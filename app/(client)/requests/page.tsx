@@ -6,7 +6,7 @@ import { listClientSummaries } from "@/lib/requests/client-lists";
 import { PageHeader } from "@/components/ui/page-header";
 import { Badge } from "@/components/ui/badge";
 import { EmptyState } from "@/components/ui/card";
-import { formatDay } from "@/components/requests/labels";
+import { formatDate } from "@/lib/format/date";
 
 export const metadata: Metadata = { title: "My requests" };
 
@@ -28,7 +28,7 @@ export default async function MyRequestsPage() {
                   <Link href={`/requests/${l.id}`} className="text-base font-semibold text-ledger-700 link">{l.title}</Link>
                   <span className="flex gap-2">{l.status === "closed" ? <Badge>Closed</Badge> : late ? <Badge tone="red">Overdue</Badge> : <Badge tone="blue">Open</Badge>}</span>
                 </div>
-                <p className="mt-1 text-sm text-ink-soft">{l.engagement.clientName} — {l.engagement.name} · from {l.sentBy} · due {formatDay(l.dueDate)}</p>
+                <p className="mt-1 text-sm text-ink-soft">{l.engagement.clientName} — {l.engagement.name} · from {l.sentBy} · due {formatDate(l.dueDate)}</p>
                 <p className="figures mt-2 text-sm">{waiting} of {l.total} still to send · {l.counts.provided} with the auditors · {l.counts.accepted} accepted</p>
               </li>
             );

@@ -38,7 +38,7 @@ async function addMatrixViewer(): Promise<void> {
   const db = e2eDatabase();
   try {
     if (await db("users").where({ email: MATRIX_VIEWER.email }).first("id")) return;
-    const firm = await db("users").where({ email: DEMO.admin.email }).first("firm_id");
+    const firm = (await db("users").where({ email: DEMO.admin.email }).first("firm_id"))!;
     await db("users").insert({ firm_id: firm.firm_id, email: MATRIX_VIEWER.email, name: MATRIX_VIEWER.name, grade: "staff", firm_role: "member", password_hash: await bcrypt.hash(DEMO_PASSWORD, 10) });
   } finally {
     await db.destroy();

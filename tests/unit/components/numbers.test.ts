@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { countOf, formatCount } from "@/lib/format/numbers";
+import { countOf, formatCount } from "@/lib/format/number";
 
 // common practice: English count nouns take the singular for exactly one; thousands grouped by commas (en-US).
 describe("counts in messages", () => {

@@ -9,13 +9,13 @@ import { PopulationList } from "@/components/populations/population-list";
 import { listSamplesByEngagementId } from "@/lib/data/samples";
 import { SampleList } from "@/components/samples/sample-list";
 import { listSampleOverviews } from "@/lib/samples/overview";
-import { formatDate } from "@/lib/format/dates";
 import { PageHeader } from "@/components/ui/page-header";
 import { Card } from "@/components/ui/card";
 import { Badge } from "@/components/ui/badge";
 import { Amount } from "@/components/ui/amount";
 import { STATUS_LABELS, statusTone } from "@/components/engagements/status";
 import { EngagementTabs } from "@/components/engagements/engagement-tabs";
+import { formatDate } from "@/lib/format/date";
 
 export const metadata: Metadata = { title: "Engagement" };
 

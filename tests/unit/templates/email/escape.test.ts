@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { escapeHtml, oneLine, safeUrl } from "@/templates/email/escape";
-import { formatDate, formatDateTime, wrapText } from "@/templates/email/format";
+import { formatDate, formatDateTime } from "@/lib/format/date";
+import { wrapText } from "@/templates/email/wrap-text";
 
 describe("escapeHtml", () => {
   it("escapes the five characters that matter in content and quoted attributes", () => {

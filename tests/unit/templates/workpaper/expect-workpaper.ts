@@ -1,9 +1,9 @@
 /** Checks every workpaper must pass, whatever its method. */
 import { expect } from "vitest";
-import { formatMoney } from "@/templates/workpaper/format";
 import { CAUTION, DRAFT_MARK } from "@/templates/workpaper/page-frame";
 import type { WorkpaperData } from "@/templates/workpaper/workpaper-data";
 import { squash, watermarkPixels, type RenderedPdf } from "./pdf-support";
+import { formatMoney } from "@/lib/format/number";
 
 export const SECTION_TITLES = [
   "1 Objective and assertion",

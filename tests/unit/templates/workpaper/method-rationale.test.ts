@@ -4,8 +4,8 @@ import { runAdvisorJob } from "@/lib/advisor/compute";
 import { methodRationaleBlock } from "@/lib/advisor/describe";
 import type { AdvisorRunRecord } from "@/lib/data/advisor-runs";
 import { variablesFixture } from "@/tests/support/workpaper";
-import { formatMoney } from "@/templates/workpaper/format";
 import { renderAndRead, squash } from "./pdf-support";
+import { formatMoney } from "@/lib/format/number";
 
 describe("workpaper: the estimator advisor run kept as the method's rationale", () => {
   it("prints the scenario, seed, every estimator's figures at every size and the recommendation", { timeout: 180_000 }, async () => {

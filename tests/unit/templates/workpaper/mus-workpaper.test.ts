@@ -1,10 +1,10 @@
 import { describe, expect, it } from "vitest";
 import { evaluateMus } from "@/lib/sampling";
 import { musFixture } from "@/tests/support/workpaper";
-import { formatMoney } from "@/templates/workpaper/format";
 import type { MusEvaluationBlock } from "@/templates/workpaper/workpaper-data";
 import { expectCommonContent, expectDraftState } from "./expect-workpaper";
 import { previewPngs, renderAndRead, squash } from "./pdf-support";
+import { formatMoney } from "@/lib/format/number";
 
 const SLOW = { timeout: 180_000 };
 

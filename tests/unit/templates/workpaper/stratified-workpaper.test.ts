@@ -1,9 +1,9 @@
 import { describe, expect, it } from "vitest";
 import { stratifiedFixture } from "@/tests/support/workpaper";
-import { formatMoney } from "@/templates/workpaper/format";
 import type { StratifiedEvaluationBlock } from "@/templates/workpaper/workpaper-data";
 import { expectCommonContent, expectDraftState } from "./expect-workpaper";
 import { previewPngs, renderAndRead, squash } from "./pdf-support";
+import { formatMoney } from "@/lib/format/number";
 
 describe("stratified workpaper", () => {
   it("prints a row per stratum and the combined ratio evaluation", { timeout: 180_000 }, async () => {

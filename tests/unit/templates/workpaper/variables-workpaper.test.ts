@@ -2,10 +2,10 @@ import { describe, expect, it } from "vitest";
 import { evaluateVariables } from "@/lib/sampling";
 import { normalQuantile } from "@/lib/sampling/quantiles";
 import { variablesFixture } from "@/tests/support/workpaper";
-import { formatMoney } from "@/templates/workpaper/format";
 import type { VariablesEvaluationBlock } from "@/templates/workpaper/workpaper-data";
 import { expectCommonContent, expectDraftState } from "./expect-workpaper";
 import { previewPngs, renderAndRead, squash } from "./pdf-support";
+import { formatMoney } from "@/lib/format/number";
 
 const SLOW = { timeout: 180_000 };
 

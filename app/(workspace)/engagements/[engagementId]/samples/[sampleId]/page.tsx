@@ -9,7 +9,7 @@ import { SampleWorkspace } from "@/components/samples/sample-workspace";
 import { METHOD_SHORT, SAMPLE_STATUS_LABELS } from "@/components/samples/labels";
 import { loadSamplePage } from "./load-sample";
 import { getDb } from "@/db/knex";
-import { listNotesBySampleId } from "@/lib/review/notes";
+import { listNotesBySampleId } from "@/lib/data/review-notes";
 import { notesOnItems } from "@/components/review/note-labels";
 import { Alert } from "@/components/ui/alert";
 import { ReviewPanel } from "@/components/review/review-panel";

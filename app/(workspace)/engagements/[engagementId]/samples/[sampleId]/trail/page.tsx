@@ -11,7 +11,7 @@ import { Card, EmptyState } from "@/components/ui/card";
 import { Alert } from "@/components/ui/alert";
 import { ChangeList } from "@/components/review/audit-value";
 import { describeChange } from "@/lib/review/describe-change";
-import { formatDateTime } from "@/lib/format/dates";
+import { formatDateTime } from "@/lib/format/date";
 
 export const metadata: Metadata = { title: "Audit trail" };
 

@@ -1,6 +1,6 @@
 import { z } from "zod";
 import { withEngagementRole } from "@/lib/auth/with-role";
-import { listNotesBySampleId, raiseNote } from "@/lib/review/notes";
+import { listNotesBySampleId, raiseNote } from "@/lib/data/review-notes";
 import { notifyNote } from "@/lib/review/notifications";
 import { sampleOf } from "@/lib/samples/route-helpers";
 import { RaiseNoteSchema } from "@/lib/validation/review";

@@ -12,7 +12,7 @@ import { getSampleById } from "@/lib/data/samples";
 import { PageHeader } from "@/components/ui/page-header";
 import { Badge } from "@/components/ui/badge";
 import { TeamRequestList } from "@/components/requests/team-request-list";
-import { formatDay } from "@/components/requests/labels";
+import { formatDate } from "@/lib/format/date";
 
 export const metadata: Metadata = { title: "Request list" };
 
@@ -40,7 +40,7 @@ export default async function TeamRequestListPage({ params }: { params: Promise<
     <>
       <PageHeader eyebrow={engagement.clientName} title={list.title} actions={list.status === "closed" ? <Badge>Closed</Badge> : <Badge tone="blue">Open</Badge>}>
         <Link href={`/engagements/${engagement.id}/samples/${sample.id}`} className="link">{sample.name}</Link>
-        {` · to ${list.contactName} (${list.contactEmail}) · due ${formatDay(list.dueDate)} · book values ${list.showBookValues ? "shown to the client" : "hidden from the client"} · sent by ${list.createdByName}`}
+        {` · to ${list.contactName} (${list.contactEmail}) · due ${formatDate(list.dueDate)} · book values ${list.showBookValues ? "shown to the client" : "hidden from the client"} · sent by ${list.createdByName}`}
       </PageHeader>
       <TeamRequestList engagementId={engagement.id} sampleId={sample.id} initial={view} mayDecide={mayDecide} currency={engagement.currency} />
     </>

@@ -1,6 +1,6 @@
 import { withEngagementRole } from "@/lib/auth/with-role";
 import { parseIdParam } from "@/lib/auth/access";
-import { answerNote, listNotesBySampleId } from "@/lib/review/notes";
+import { answerNote, listNotesBySampleId } from "@/lib/data/review-notes";
 import { notifyNote } from "@/lib/review/notifications";
 import { sampleOf } from "@/lib/samples/route-helpers";
 import { AnswerNoteSchema } from "@/lib/validation/review";

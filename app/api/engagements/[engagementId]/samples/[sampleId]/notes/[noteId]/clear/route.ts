@@ -1,7 +1,7 @@
 import { z } from "zod";
 import { withEngagementRole } from "@/lib/auth/with-role";
 import { parseIdParam } from "@/lib/auth/access";
-import { clearNote, listNotesBySampleId } from "@/lib/review/notes";
+import { clearNote, listNotesBySampleId } from "@/lib/data/review-notes";
 import { notifyNote } from "@/lib/review/notifications";
 import { sampleOf } from "@/lib/samples/route-helpers";
 

@@ -1,8 +1,5 @@
-/** Printing helpers for the workpaper: exact decimal strings in, display strings out. */
 import { formatCount, formatMoney, formatPercent } from "@/lib/format/number";
 
-export { formatDate, formatDateTime } from "@/lib/format/date";
-export { formatFactor, formatMoney, formatRate, isNegative } from "@/lib/format/number";
 
 /** A plan parameter value printed by its kind. */
 export function formatByKind(kind: "money" | "rate" | "count" | "text" | "factor", value: string): string {

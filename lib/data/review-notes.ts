@@ -1,7 +1,7 @@
 import "server-only";
 import type { Knex } from "knex";
-import { recordAudit } from "@/lib/data/audit-log";
-import type { SampleRecord } from "@/lib/data/samples";
+import { recordAudit } from "./audit-log";
+import type { SampleRecord } from "./samples";
 import { conflict, notFound } from "@/lib/errors";
 import { assertSampleUnlocked } from "@/lib/samples/guard";
 

@@ -1,6 +1,4 @@
-// Dates in e-mail read as on every screen (lib/format/date.ts), in UTC so every recipient sees the same instant.
 
-export { formatDateTime, formatDate } from "@/lib/format/date";
 
 /** Wraps a paragraph for the plain-text part at about 72 columns; long words (links) stay whole. */
 export function wrapText(text: string, width = 72, indent = ""): string {
