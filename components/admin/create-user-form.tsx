@@ -9,7 +9,7 @@ import { GRADE_LABELS, GRADES } from "@/lib/auth/roles";
 import { Field, Input, Select } from "@/components/ui/field";
 import { Button } from "@/components/ui/button";
 import { Alert } from "@/components/ui/alert";
-import { api, ApiError } from "@/components/ui/api";
+import { apiFetch, ApiError } from "@/components/ui/api";
 
 type FormIn = z.input<typeof CreateUserSchema>;
 
@@ -22,7 +22,7 @@ export function CreateUserForm() {
   const onSubmit = handleSubmit(async (values) => {
     setFailure(null);
     try {
-      const { invitationSent } = await api<{ invitationSent: boolean }>("/api/users", { body: values });
+      const { invitationSent } = await apiFetch<{ invitationSent: boolean }>("/api/users", { body: values });
       router.push(`/admin/users?invited=${encodeURIComponent(values.name)}${invitationSent ? "" : "&mail=failed"}`);
       router.refresh();
     } catch (err) {

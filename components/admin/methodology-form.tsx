@@ -17,7 +17,7 @@ import { Field, Input, Select } from "@/components/ui/field";
 import { Button } from "@/components/ui/button";
 import { Alert } from "@/components/ui/alert";
 import { Card } from "@/components/ui/card";
-import { api, ApiError } from "@/components/ui/api";
+import { apiFetch, ApiError } from "@/components/ui/api";
 
 const num = { valueAsNumber: true } as const;
 const cellInput =
@@ -44,7 +44,7 @@ export function MethodologyForm({ initial }: { initial: MethodologyVersion }) {
   const onSubmit = handleSubmit(async (settings) => {
     setStatus(null);
     try {
-      const { methodology } = await api<{ methodology: MethodologyVersion }>("/api/firm/methodology", {
+      const { methodology } = await apiFetch<{ methodology: MethodologyVersion }>("/api/firm/methodology", {
         method: "PUT",
         body: settings,
       });

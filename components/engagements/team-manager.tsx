@@ -1,9 +1,10 @@
 "use client";
-import { useEffect, useState } from "react";
+import { useState } from "react";
 import { ENGAGEMENT_ROLES, ROLE_LABELS, defaultRoleForGrade, hasAtLeastRole, type EngagementRole } from "@/lib/auth/roles";
 import type { MemberRecord } from "@/lib/data/members";
 import type { UserRecord } from "@/lib/data/users";
-import { api } from "@/components/ui/api";
+import { apiFetch } from "@/components/ui/api";
+import { useApi } from "@/components/ui/use-api";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { Select } from "@/components/ui/field";
@@ -12,16 +13,14 @@ interface Props { engagementId: number; myRole: EngagementRole; myUserId: number
 
 export function TeamManager({ engagementId, myRole, myUserId, initialMembers }: Props) {
   const [members, setMembers] = useState(initialMembers);
-  const [people, setPeople] = useState<UserRecord[]>([]);
   const [message, setMessage] = useState<{ tone: "error" | "success"; text: string } | null>(null);
   const [candidate, setCandidate] = useState("");
   const canManage = hasAtLeastRole(myRole, "manager");
   const grantable = ENGAGEMENT_ROLES.filter((r) => hasAtLeastRole(myRole, r));
   const base = `/api/engagements/${engagementId}/members`;
 
-  useEffect(() => {
-    if (canManage) api<{ users: UserRecord[] }>("/api/users").then((r) => setPeople(r.users.filter((u) => u.active)), () => setPeople([]));
-  }, [canManage]);
+  const { data: firm } = useApi<{ users: UserRecord[] }>(canManage ? "/api/users" : null);
+  const people = firm?.users.filter((u) => u.active) ?? [];
 
   async function run(action: () => Promise<{ members: MemberRecord[] }>, done: string) {
     setMessage(null);
@@ -53,13 +52,13 @@ export function TeamManager({ engagementId, myRole, myUserId, initialMembers }: 
                 <td className="text-ink-soft">{m.email}</td>
                 <td className="w-44">
                   {editable ? (
-                    <Select aria-label={`Role of ${m.name}`} value={m.role} onChange={(e) => run(() => api(`${base}/${m.userId}`, { method: "PATCH", body: { role: e.target.value } }), `${m.name} is now ${e.target.value}.`)}>
+                    <Select aria-label={`Role of ${m.name}`} value={m.role} onChange={(e) => run(() => apiFetch(`${base}/${m.userId}`, { method: "PATCH", body: { role: e.target.value } }), `${m.name} is now ${e.target.value}.`)}>
                       {grantable.map((r) => <option key={r} value={r}>{ROLE_LABELS[r]}</option>)}
                     </Select>
                   ) : ROLE_LABELS[m.role]}
                 </td>
                 <td className="w-28 text-right">
-                  {editable && <Button variant="ghost" onClick={() => run(() => api(`${base}/${m.userId}`, { method: "DELETE" }), `${m.name} was removed from the team.`)}>Remove</Button>}
+                  {editable && <Button variant="ghost" onClick={() => run(() => apiFetch(`${base}/${m.userId}`, { method: "DELETE" }), `${m.name} was removed from the team.`)}>Remove</Button>}
                 </td>
               </tr>
             );
@@ -72,7 +71,7 @@ export function TeamManager({ engagementId, myRole, myUserId, initialMembers }: 
           if (!chosen) return;
           const suggested = defaultRoleForGrade(chosen.grade);
           const role: EngagementRole = suggested === "client" ? "viewer" : suggested;
-          void run(() => api(base, { body: { userId: chosen.id, role: hasAtLeastRole(myRole, role) ? role : "staff" } }), `${chosen.name} joined the team.`);
+          void run(() => apiFetch(base, { body: { userId: chosen.id, role: hasAtLeastRole(myRole, role) ? role : "staff" } }), `${chosen.name} joined the team.`);
           setCandidate("");
         }}>
           <label className="text-sm">

@@ -11,7 +11,7 @@ import { Field, Input } from "@/components/ui/field";
 import { Button } from "@/components/ui/button";
 import { Alert } from "@/components/ui/alert";
 import { Amount } from "@/components/ui/amount";
-import { api, ApiError } from "@/components/ui/api";
+import { apiFetch, ApiError } from "@/components/ui/api";
 import { formatCount } from "./labels";
 import { textOf } from "@/lib/format/text";
 
@@ -46,7 +46,7 @@ export function ReconciliationPanel({ engagementId, initial, currency, mayReconc
   const onSubmit = handleSubmit(async (values) => {
     setFailure(null);
     try {
-      const { population } = await api<{ population: PopulationRecord }>(`/api/engagements/${engagementId}/populations/${p.id}/reconciliation`, { body: values });
+      const { population } = await apiFetch<{ population: PopulationRecord }>(`/api/engagements/${engagementId}/populations/${p.id}/reconciliation`, { body: values });
       setP(population);
       router.refresh();
     } catch (err) {

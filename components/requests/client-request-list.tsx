@@ -5,25 +5,29 @@ import { Alert } from "@/components/ui/alert";
 import { Amount } from "@/components/ui/amount";
 import { Button } from "@/components/ui/button";
 import { PageHeader } from "@/components/ui/page-header";
-import { api, readErrorAnswer } from "@/components/ui/api";
+import { apiFetch, withFileName } from "@/components/ui/api";
+import { useApi } from "@/components/ui/use-api";
 import { RequestStatusBadge } from "./status-badge";
 import { FILE_STATUS_LABELS, formatBytes, formatDay, needsText } from "./labels";
 
 type Item = ClientListView["items"][number];
 
 async function uploadOne(url: string, file: File) {
-  const res = await fetch(`${url}?fileName=${encodeURIComponent(file.name)}`, { method: "POST", body: file });
-  if (res.ok) return null;
-  const data = await readErrorAnswer(res);
-  return `${file.name}: ${data.error?.message ?? `upload failed (${res.status})`}`;
+  try {
+    await apiFetch(withFileName(url, file), { body: file });
+    return null;
+  } catch (err) {
+    return `${file.name}: ${(err as Error).message}`;
+  }
 }
 
 /** The client's view of one request list: each item, what is needed, its status, its files, an upload and a note. */
 export function ClientRequestList({ initial }: { initial: ClientListView }) {
-  const [view, setView] = useState(initial);
+  const base = `/api/requests/${initial.list.id}`;
+  const read = useApi<ClientListView>(base, { initial });
+  const view = read.data ?? initial;
   const { list } = view;
-  const base = `/api/requests/${list.id}`;
-  const reload = async () => setView(await api<ClientListView>(base));
+  const { reload } = read;
   const open = list.status === "open";
   const waiting = view.items.filter((i) => i.status === "requested" || i.status === "needs-more").length;
   return (
@@ -40,7 +44,7 @@ export function ClientRequestList({ initial }: { initial: ClientListView }) {
   );
 }
 
-function ClientItem({ item, base, open, showBookValue, currency, onChanged }: { item: Item; base: string; open: boolean; showBookValue: boolean; currency: string; onChanged: () => Promise<void> }) {
+function ClientItem({ item, base, open, showBookValue, currency, onChanged }: { item: Item; base: string; open: boolean; showBookValue: boolean; currency: string; onChanged: () => Promise<unknown> }) {
   const [files, setFiles] = useState<File[]>([]);
   const [inputKey, setInputKey] = useState(0);
   const [busy, setBusy] = useState<string | null>(null);
@@ -67,7 +71,7 @@ function ClientItem({ item, base, open, showBookValue, currency, onChanged }: { 
   async function saveNote() {
     setProblems([]); setDone(null);
     try {
-      await api(url, { method: "PATCH", body: { note } });
+      await apiFetch(url, { method: "PATCH", body: { note } });
       setDone("Note saved.");
       await onChanged();
     } catch (err) {

@@ -5,7 +5,7 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import type { z } from "zod";
 import { InviteClientContactSchema, type InviteClientContactInput } from "@/lib/validation/requests";
 import type { ClientContact } from "@/lib/requests/contacts";
-import { api, ApiError } from "@/components/ui/api";
+import { apiFetch, ApiError } from "@/components/ui/api";
 import { Button } from "@/components/ui/button";
 import { Field, Input } from "@/components/ui/field";
 
@@ -18,7 +18,7 @@ export function InviteContactForm({ engagementId, onInvited }: { engagementId: n
   const submit = handleSubmit(async (body) => {
     setMessage(null);
     try {
-      const r = await api<{ contact: { userId: number; name: string; email: string; invitationSent: boolean }; contacts: ClientContact[] }>(`/api/engagements/${engagementId}/client-contacts`, { body });
+      const r = await apiFetch<{ contact: { userId: number; name: string; email: string; invitationSent: boolean }; contacts: ClientContact[] }>(`/api/engagements/${engagementId}/client-contacts`, { body });
       setMessage({ ok: true, text: r.contact.invitationSent ? `${r.contact.name} was invited; an e-mail is on its way to ${r.contact.email}.` : `${r.contact.name} was added, but the e-mail could not be sent.` });
       reset();
       onInvited(r.contact.userId, r.contacts);

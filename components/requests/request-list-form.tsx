@@ -5,7 +5,7 @@ import { useForm, type Resolver } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import type { ClientContact } from "@/lib/requests/contacts";
 import { CreateRequestListSchema, REQUEST_NEED_LABELS, REQUEST_NEEDS, type CreateRequestList, type CreateRequestListInput } from "@/lib/validation/requests";
-import { api, ApiError } from "@/components/ui/api";
+import { apiFetch, ApiError } from "@/components/ui/api";
 import { Alert } from "@/components/ui/alert";
 import { Amount } from "@/components/ui/amount";
 import { Button } from "@/components/ui/button";
@@ -36,7 +36,7 @@ export function RequestListForm({ engagementId, sampleId, items, contacts: initi
   const submit = handleSubmit(async (body) => {
     setFailure(null);
     try {
-      const r = await api<{ requestList: { id: number } }>(`/api/engagements/${engagementId}/samples/${sampleId}/requests`, { body });
+      const r = await apiFetch<{ requestList: { id: number } }>(`/api/engagements/${engagementId}/samples/${sampleId}/requests`, { body });
       router.push(`/engagements/${engagementId}/samples/${sampleId}/requests/${r.requestList.id}`);
     } catch (err) {
       if (err instanceof ApiError && err.fields) for (const [k, m] of Object.entries(err.fields)) setError((k === "items" ? "chosen" : k) as keyof Values, { message: m[0] });

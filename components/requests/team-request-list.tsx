@@ -3,7 +3,8 @@ import { useState } from "react";
 import { useRouter } from "next/navigation";
 import type { TeamListView } from "@/lib/requests/views";
 import type { RequestFileView } from "@/lib/requests/items";
-import { api } from "@/components/ui/api";
+import { apiFetch } from "@/components/ui/api";
+import { useApi } from "@/components/ui/use-api";
 import { Alert } from "@/components/ui/alert";
 import { Amount } from "@/components/ui/amount";
 import { Button } from "@/components/ui/button";
@@ -15,15 +16,16 @@ interface Props { engagementId: number; sampleId: number; initial: TeamListView;
 /** The audit team's view of a request list: each item's status and the client's files, to accept or send back. */
 export function TeamRequestList({ engagementId, sampleId, initial, mayDecide, currency }: Props) {
   const router = useRouter();
-  const [view, setView] = useState(initial);
   const [message, setMessage] = useState<{ tone: "error" | "success"; text: string } | null>(null);
-  const base = `/api/engagements/${engagementId}/samples/${sampleId}/requests/${view.list.id}`;
-  const reload = async () => { setView(await api<TeamListView>(base)); router.refresh(); };
+  const base = `/api/engagements/${engagementId}/samples/${sampleId}/requests/${initial.list.id}`;
+  const list = useApi<TeamListView>(base, { initial });
+  const view = list.data ?? initial;
+  const reload = async () => { await list.reload(); router.refresh(); };
 
   async function decide(file: RequestFileView, action: "accept" | "return", reason?: string) {
     setMessage(null);
     try {
-      await api(`${base}/files/${file.id}/${action}`, { body: action === "return" ? { reason } : {} });
+      await apiFetch(`${base}/files/${file.id}/${action}`, { body: action === "return" ? { reason } : {} });
       setMessage({ tone: "success", text: action === "accept" ? `${file.fileName} accepted: it is now evidence on the item.` : `${file.fileName} sent back; the client has been e-mailed the reason.` });
       await reload();
       return true;

@@ -4,7 +4,7 @@ import { useRouter } from "next/navigation";
 import type { AuditorConclusionRecord } from "@/lib/data/auditor-conclusions";
 import type { ComputedResult } from "@/lib/samples/evaluation-types";
 import { RESPONSE_KINDS, RESPONSE_LABELS, type ResponseKind } from "@/lib/validation/conclusion";
-import { api, ApiError } from "@/components/ui/api";
+import { apiFetch, ApiError } from "@/components/ui/api";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { formatAmount } from "@/components/ui/amount";
@@ -33,7 +33,7 @@ export function ConclusionForm({ base, computed, complete, conclusion, mayWrite 
     setErrors({});
     const responses = RESPONSE_KINDS.filter((k) => chosen[k]).map((k) => ({ kind: k, amount: WITH_AMOUNT.includes(k) ? chosen[k]!.amount : null, note: chosen[k]!.note || undefined }));
     try {
-      await api(`${base}/conclusion`, { method: "PUT", body: { conclusion: text, responses } });
+      await apiFetch(`${base}/conclusion`, { method: "PUT", body: { conclusion: text, responses } });
       setMessage({ tone: "success", text: "Conclusion recorded. Any later change of results clears it, as it clears sign-offs." });
       router.refresh();
     } catch (err) {

@@ -4,7 +4,7 @@ import { hasAtLeastRole, type EngagementRole } from "@/lib/auth/roles";
 import type { ReviewNote } from "@/lib/review/notes";
 import { AnswerNoteSchema, RaiseNoteSchema } from "@/lib/validation/review";
 import { formatDateTime } from "@/lib/format/dates";
-import { api, ApiError } from "@/components/ui/api";
+import { apiFetch, ApiError } from "@/components/ui/api";
 import { Alert } from "@/components/ui/alert";
 import { Badge } from "@/components/ui/badge";
 import { Button } from "@/components/ui/button";
@@ -43,7 +43,7 @@ export function ReviewNotes({ engagementId, sampleId, role, notes, locked, items
   async function sendAnswer(n: ReviewNote, i: number) {
     const checked = AnswerNoteSchema.safeParse({ answer: answers[n.id] ?? "" });
     if (!checked.success) return setError(`Note ${i + 1}: ${checked.error.issues[0].message}`);
-    if (await run(() => api(`${base}/${n.id}/answer`, { body: checked.data }))) setAnswers((a) => ({ ...a, [n.id]: "" }));
+    if (await run(() => apiFetch(`${base}/${n.id}/answer`, { body: checked.data }))) setAnswers((a) => ({ ...a, [n.id]: "" }));
   }
 
   async function raise() {
@@ -51,7 +51,7 @@ export function ReviewNotes({ engagementId, sampleId, role, notes, locked, items
     if (itemRef.trim() && !item) return setError(`No item ${itemRef.trim()} in this sample's current draw.`);
     const checked = RaiseNoteSchema.safeParse({ text, itemId: item?.id });
     if (!checked.success) return setError(checked.error.issues[0].message);
-    if (await run(() => api(base, { body: checked.data }))) { setText(""); setItemRef(""); }
+    if (await run(() => apiFetch(base, { body: checked.data }))) { setText(""); setItemRef(""); }
   }
 
   return (
@@ -81,7 +81,7 @@ export function ReviewNotes({ engagementId, sampleId, role, notes, locked, items
                   placeholder={n.answer ? "Add to the answer…" : "Answer the note…"} className={area} />
                 <div className="flex gap-2">
                   <Button variant="secondary" className="px-2.5 py-1 text-xs" onClick={() => void sendAnswer(n, i)}>Send answer</Button>
-                  {isReviewer && n.status === "answered" && <Button variant="secondary" className="px-2.5 py-1 text-xs" onClick={() => void run(() => api(`${base}/${n.id}/clear`, { body: {} }))}>Clear</Button>}
+                  {isReviewer && n.status === "answered" && <Button variant="secondary" className="px-2.5 py-1 text-xs" onClick={() => void run(() => apiFetch(`${base}/${n.id}/clear`, { body: {} }))}>Clear</Button>}
                 </div>
               </div>
             )}

@@ -7,7 +7,7 @@ import { DrawSchema } from "@/lib/validation/sample";
 import { Field, Input } from "@/components/ui/field";
 import { Button } from "@/components/ui/button";
 import { Alert } from "@/components/ui/alert";
-import { api, ApiError } from "@/components/ui/api";
+import { apiFetch, ApiError } from "@/components/ui/api";
 import type { SampleView } from "./types";
 import { textOf } from "@/lib/format/text";
 
@@ -26,7 +26,7 @@ export function DrawForm({ engagementId, sampleId, currentVersion, populationRea
     if (currentVersion !== null && !confirming) { setConfirming(true); return; }
     setFailure(null);
     try {
-      const view = await api<SampleView>(`/api/engagements/${engagementId}/samples/${sampleId}/draw`, { body: seed === undefined ? {} : { seed } });
+      const view = await apiFetch<SampleView>(`/api/engagements/${engagementId}/samples/${sampleId}/draw`, { body: seed === undefined ? {} : { seed } });
       setConfirming(false);
       reset({ seed: "" });
       onDrawn(view);

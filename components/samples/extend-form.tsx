@@ -7,7 +7,7 @@ import { ExtendSchema } from "@/lib/validation/sample";
 import { Field, Input } from "@/components/ui/field";
 import { Button } from "@/components/ui/button";
 import { Alert } from "@/components/ui/alert";
-import { api } from "@/components/ui/api";
+import { apiFetch } from "@/components/ui/api";
 
 type In = z.input<typeof ExtendSchema>;
 type Out = z.output<typeof ExtendSchema>;
@@ -19,7 +19,7 @@ export function ExtendForm({ engagementId, sampleId, onExtended }: { engagementI
   const onSubmit = handleSubmit(async (body) => {
     setOutcome(null);
     try {
-      const { extension } = await api<{ extension: { added: number; streamPosition: number } }>(`/api/engagements/${engagementId}/samples/${sampleId}/extend`, { body });
+      const { extension } = await apiFetch<{ extension: { added: number; streamPosition: number } }>(`/api/engagements/${engagementId}/samples/${sampleId}/extend`, { body });
       setOutcome({ tone: "success", text: `${extension.added} items added, continuing the random numbers after rank ${extension.streamPosition}.` });
       reset({ additional: "", reason: "" });
       onExtended();

@@ -10,7 +10,7 @@ import { Field, Input, Select } from "@/components/ui/field";
 import { Button } from "@/components/ui/button";
 import { Alert } from "@/components/ui/alert";
 import { Card } from "@/components/ui/card";
-import { api, ApiError } from "@/components/ui/api";
+import { apiFetch, ApiError } from "@/components/ui/api";
 import { DIRECTION_LABELS, METHOD_LABELS } from "./labels";
 import { PlanParameters } from "./plan-parameters";
 import type { EarlierSample } from "./plan-spread-fields";
@@ -68,7 +68,7 @@ export function PlanForm({ engagementId, currency, performanceMateriality, popul
     setFailure(null);
     try {
       const path = editing ? `/api/engagements/${engagementId}/samples/${editing.sampleId}` : `/api/engagements/${engagementId}/samples`;
-      const { sample } = await api<{ sample: SampleRecord }>(path, { method: editing ? "PATCH" : "POST", body });
+      const { sample } = await apiFetch<{ sample: SampleRecord }>(path, { method: editing ? "PATCH" : "POST", body });
       router.push(`/engagements/${engagementId}/samples/${sample.id}`);
       router.refresh();
     } catch (err) {

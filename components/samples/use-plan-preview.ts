@@ -2,7 +2,7 @@
 import { useEffect, useMemo, useState } from "react";
 import type { SamplePlan } from "@/lib/samples/plan";
 import { PreviewPlanSchema } from "@/lib/validation/sample";
-import { api, ApiError } from "@/components/ui/api";
+import { apiFetch, ApiError } from "@/components/ui/api";
 import type { PlanFormIn } from "./plan-values";
 
 export interface PreviewState {
@@ -31,7 +31,7 @@ export function usePlanPreview(engagementId: number, request: PlanFormIn, delayM
     const body = JSON.parse(key) as { populationId: unknown; params: unknown };
     let live = true;
     const timer = setTimeout(() => {
-      api<{ plan: SamplePlan }>(`/api/engagements/${engagementId}/samples/plan-preview`, { body }).then(
+      apiFetch<{ plan: SamplePlan }>(`/api/engagements/${engagementId}/samples/plan-preview`, { body }).then(
         ({ plan }) => { if (live) setAnswer({ key, plan, problem: null, fields: null }); },
         (err: unknown) => {
           if (!live) return;
