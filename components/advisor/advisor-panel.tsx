@@ -139,37 +139,33 @@ export function AdvisorPanel({ engagementId, sampleId, initial, mayRun, currency
             {kind === "pattern" ? (
               <div className="grid gap-x-4 sm:grid-cols-3">
                 <Field label="Items misstated (%)" error={scenarioErrors?.misstatedPercent?.message}>
-                  {({ id, describedBy, invalid }) => <Input id={id} aria-describedby={describedBy} aria-invalid={invalid} inputMode="decimal" className="figures text-right" {...register("scenario.misstatedPercent")} />}
+                  <Input inputMode="decimal" className="figures text-right" {...register("scenario.misstatedPercent")} />
                 </Field>
                 <Field label="Size of each misstatement" error={scenarioErrors?.tainting?.message}>
-                  {({ id, describedBy, invalid }) => (
-                    <Select id={id} aria-describedby={describedBy} aria-invalid={invalid} {...register("scenario.tainting")}>
-                      {TAINTING_PATTERN_KEYS.map((k) => <option key={k} value={k}>{TAINTING_PATTERN_LABELS[k]}</option>)}
-                    </Select>
-                  )}
+                  <Select {...register("scenario.tainting")}>
+                    {TAINTING_PATTERN_KEYS.map((k) => <option key={k} value={k}>{TAINTING_PATTERN_LABELS[k]}</option>)}
+                  </Select>
                 </Field>
                 <Field label="Of which overstatements (%)" error={scenarioErrors?.overstatementPercent?.message}>
-                  {({ id, describedBy, invalid }) => <Input id={id} aria-describedby={describedBy} aria-invalid={invalid} inputMode="decimal" className="figures text-right" {...register("scenario.overstatementPercent")} />}
+                  <Input inputMode="decimal" className="figures text-right" {...register("scenario.overstatementPercent")} />
                 </Field>
               </div>
             ) : (
               <Field label="Earlier sample" error={scenarioErrors?.sampleId?.message} hint="Its audited values give the share misstated and the taintings to draw from.">
-                {({ id, describedBy, invalid }) => (
-                  <Select id={id} aria-describedby={describedBy} aria-invalid={invalid} {...register("scenario.sampleId")}>
-                    {state.previousSamples.map((s) => <option key={s.id} value={s.id}>{s.name}</option>)}
-                  </Select>
-                )}
+                <Select {...register("scenario.sampleId")}>
+                  {state.previousSamples.map((s) => <option key={s.id} value={s.id}>{s.name}</option>)}
+                </Select>
               </Field>
             )}
             <div className="grid gap-x-4 sm:grid-cols-3">
               <Field label="Sample sizes" error={errors.sampleSizes?.message} hint={`Up to 6, separated by commas; the plan's is ${plannedSize}.`}>
-                {({ id, describedBy, invalid }) => <Input id={id} aria-describedby={describedBy} aria-invalid={invalid} className="figures" {...register("sampleSizes")} />}
+                <Input className="figures" {...register("sampleSizes")} />
               </Field>
               <Field label="Trials per size" error={errors.trials?.message}>
-                {({ id, describedBy, invalid }) => <Input id={id} aria-describedby={describedBy} aria-invalid={invalid} inputMode="numeric" className="figures text-right" {...register("trials")} />}
+                <Input inputMode="numeric" className="figures text-right" {...register("trials")} />
               </Field>
               <Field label="Simulation seed (optional)" error={errors.seed?.message} hint="Leave empty for a fresh random seed; it is stored with the run.">
-                {({ id, describedBy, invalid }) => <Input id={id} aria-describedby={describedBy} aria-invalid={invalid} inputMode="numeric" className="figures text-right" {...register("seed")} />}
+                <Input inputMode="numeric" className="figures text-right" {...register("seed")} />
               </Field>
             </div>
             <div className="flex items-center gap-3">
@@ -197,7 +193,7 @@ export function AdvisorPanel({ engagementId, sampleId, initial, mayRun, currency
             </div>
             {canRun && state.adopted?.id !== shown.id && (
               <Field label="Reason for keeping this run (required when it recommends another estimator or none)" hint="Printed beside the run in the workpaper">
-                {({ id, describedBy }) => <Input id={id} aria-describedby={describedBy} value={keepReason} maxLength={4000} onChange={(e) => setKeepReason(e.target.value)} />}
+                <Input value={keepReason} maxLength={4000} onChange={(e) => setKeepReason(e.target.value)} />
               </Field>
             )}
             {state.adopted?.id === shown.id && state.adopted.keptReason && <p className="text-sm text-ink-soft">Kept with this reason: {state.adopted.keptReason}</p>}

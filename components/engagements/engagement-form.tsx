@@ -37,7 +37,7 @@ export function EngagementForm() {
 
   const text = (name: keyof FormIn, label: string, props: React.InputHTMLAttributes<HTMLInputElement> = {}, hint?: string) => (
     <Field label={label} error={errors[name]?.message} hint={hint}>
-      {({ id, describedBy, invalid }) => <Input id={id} aria-describedby={describedBy} aria-invalid={invalid} {...props} {...register(name)} />}
+      <Input {...props} {...register(name)} />
     </Field>
   );
 

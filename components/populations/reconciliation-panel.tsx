@@ -7,7 +7,7 @@ import type { z } from "zod";
 import { ReconcileSchema } from "@/lib/validation/population";
 import type { PopulationRecord } from "@/lib/data/populations";
 import { centsToDecimal, decimalToCents } from "@/lib/money";
-import { Field, Input } from "@/components/ui/field";
+import { Field, Input, Textarea } from "@/components/ui/field";
 import { Button } from "@/components/ui/button";
 import { Alert } from "@/components/ui/alert";
 import { Amount } from "@/components/ui/amount";
@@ -83,15 +83,15 @@ export function ReconciliationPanel({ engagementId, initial, currency, mayReconc
           {failure && <div className="mb-3"><Alert>{failure}</Alert></div>}
           <div className="grid gap-x-4 sm:grid-cols-2">
             <Field label={`Control total (${currency})`} error={errors.controlTotal?.message} hint="From the trial balance or the ledger's closing balance">
-              {({ id, describedBy, invalid }) => <Input id={id} aria-describedby={describedBy} aria-invalid={invalid} inputMode="decimal" className="figures text-right" {...register("controlTotal")} />}
+              <Input inputMode="decimal" className="figures text-right" {...register("controlTotal")} />
             </Field>
             <Field label="Control count" error={errors.controlCount?.message} hint="Number of items in the ledger">
-              {({ id, describedBy, invalid }) => <Input id={id} aria-describedby={describedBy} aria-invalid={invalid} inputMode="numeric" className="figures text-right" {...register("controlCount")} />}
+              <Input inputMode="numeric" className="figures text-right" {...register("controlCount")} />
             </Field>
           </div>
           {differs && (
             <Field label="Explanation of the difference" error={errors.explanation?.message} hint="The auditor can record an explanation (kept in the audit log) to proceed; otherwise correct the file and load it again.">
-              {({ id, describedBy, invalid }) => <textarea id={id} aria-describedby={describedBy} aria-invalid={invalid} rows={3} className="w-full rounded-md border border-ink-line bg-paper-raised px-3 py-2 text-sm focus:border-ledger-500 focus:outline-none focus:ring-2 focus:ring-ledger-100" {...register("explanation")} />}
+              <Textarea rows={3} {...register("explanation")} />
             </Field>
           )}
           <Button type="submit" disabled={isSubmitting}>{isSubmitting ? "Recording…" : p.controlTotal === null ? "Record the reconciliation" : "Record again"}</Button>

@@ -95,11 +95,9 @@ export function UploadFlow({ engagementId, currency, replaceable }: Props) {
           {inspection.kind === "xlsx" && inspection.sheets && inspection.sheets.length > 1 && (
             <div className="max-w-xs">
               <Field label="Sheet" hint="The rows are read from this sheet only">
-                {({ id, describedBy }) => (
-                  <Select id={id} aria-describedby={describedBy} value={inspection.sheet} disabled={sheetBusy || stage.kind === "loading"} onChange={(e) => chooseSheet(upload, e.target.value)}>
-                    {inspection.sheets!.map((s) => <option key={s} value={s}>{s}</option>)}
-                  </Select>
-                )}
+                <Select value={inspection.sheet} disabled={sheetBusy || stage.kind === "loading"} onChange={(e) => chooseSheet(upload, e.target.value)}>
+                  {inspection.sheets!.map((s) => <option key={s} value={s}>{s}</option>)}
+                </Select>
               </Field>
             </div>
           )}

@@ -9,6 +9,7 @@ import { apiFetch, withFileName } from "@/components/ui/api";
 import { useApi } from "@/components/ui/use-api";
 import { RequestStatusBadge } from "./status-badge";
 import { FILE_STATUS_LABELS, formatBytes, formatDay, needsText } from "./labels";
+import { Textarea } from "@/components/ui/field";
 
 type Item = ClientListView["items"][number];
 
@@ -110,8 +111,7 @@ function ClientItem({ item, base, open, showBookValue, currency, onChanged }: { 
           </div>
           <div className="space-y-2">
             <label className="block text-sm font-medium" htmlFor={`note-${item.id}`}>Note for {item.itemRef}</label>
-            <textarea id={`note-${item.id}`} value={note} onChange={(e) => setNote(e.target.value)} rows={3} maxLength={2000}
-              className="w-full rounded-md border border-ink-line bg-paper-raised px-3 py-2 text-sm focus:border-ledger-500 focus:outline-none" placeholder="e.g. the invoice was re-issued under another number" />
+            <Textarea id={`note-${item.id}`} value={note} onChange={(e) => setNote(e.target.value)} rows={3} maxLength={2000} placeholder="e.g. the invoice was re-issued under another number" />
             <Button type="button" variant="secondary" onClick={saveNote} disabled={note === (item.clientNote ?? "")}>Save note</Button>
           </div>
         </div>

@@ -30,10 +30,10 @@ export function InvitationForm({ token, client }: { token: string; client: boole
     <form onSubmit={submit} noValidate className="space-y-3">
       {failure && <Alert>{failure}</Alert>}
       <Field label="New password" error={errors.password?.message} hint="At least 12 characters">
-        {({ id, describedBy, invalid }) => <Input id={id} type="password" autoComplete="new-password" aria-describedby={describedBy} aria-invalid={invalid} {...register("password")} />}
+        <Input type="password" autoComplete="new-password" {...register("password")} />
       </Field>
       <Field label="Repeat the password" error={errors.confirm?.message}>
-        {({ id, describedBy, invalid }) => <Input id={id} type="password" autoComplete="new-password" aria-describedby={describedBy} aria-invalid={invalid} {...register("confirm")} />}
+        <Input type="password" autoComplete="new-password" {...register("confirm")} />
       </Field>
       <Button type="submit" disabled={isSubmitting} className="w-full">{isSubmitting ? "Saving…" : "Save my password"}</Button>
     </form>

@@ -30,8 +30,8 @@ export function InviteContactForm({ engagementId, onInvited }: { engagementId: n
   return (
     <form onSubmit={submit} noValidate className="space-y-2" aria-label="Invite a client contact">
       <div className="grid gap-3 sm:grid-cols-2">
-        <Field label="Contact's name" error={errors.name?.message}>{({ id, describedBy, invalid }) => <Input id={id} aria-describedby={describedBy} aria-invalid={invalid} {...register("name")} />}</Field>
-        <Field label="Contact's e-mail" error={errors.email?.message}>{({ id, describedBy, invalid }) => <Input id={id} type="email" aria-describedby={describedBy} aria-invalid={invalid} {...register("email")} />}</Field>
+        <Field label="Contact's name" error={errors.name?.message}><Input {...register("name")} /></Field>
+        <Field label="Contact's e-mail" error={errors.email?.message}><Input type="email" {...register("email")} /></Field>
       </div>
       <Button type="submit" variant="secondary" disabled={isSubmitting}>{isSubmitting ? "Inviting…" : "Invite the contact"}</Button>
       <p aria-live="polite" className={`text-sm ${message?.ok ? "text-ledger-700" : "text-brick-700"}`}>{message?.text}</p>

@@ -10,6 +10,7 @@ import { Amount } from "@/components/ui/amount";
 import { Button } from "@/components/ui/button";
 import { RequestStatusBadge } from "./status-badge";
 import { FILE_STATUS_LABELS, formatBytes, needsText } from "./labels";
+import { Textarea } from "@/components/ui/field";
 
 interface Props { engagementId: number; sampleId: number; initial: TeamListView; mayDecide: boolean; currency: string }
 
@@ -86,7 +87,7 @@ function FileRow({ file, href, mayDecide, onDecide }: { file: RequestFileView; h
       {returning && (
         <div className="mt-2 space-y-1.5">
           <label className="block text-xs font-medium" htmlFor={`reason-${file.id}`}>What is missing or wrong in {file.fileName}</label>
-          <textarea id={`reason-${file.id}`} rows={2} value={reason} onChange={(e) => setReason(e.target.value)} className="w-full rounded-md border border-ink-line px-2 py-1 text-sm" />
+          <Textarea id={`reason-${file.id}`} rows={2} value={reason} onChange={(e) => setReason(e.target.value)} />
           <div className="flex gap-2">
             <Button type="button" variant="danger" className="px-2.5 py-1 text-xs" disabled={busy || reason.trim().length < 5} onClick={() => run("return")}>Send back to the client</Button>
             <Button type="button" variant="ghost" className="px-2.5 py-1 text-xs" onClick={() => setReturning(false)}>Cancel</Button>

@@ -9,6 +9,7 @@ import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { formatAmount } from "@/components/ui/amount";
 import { formatDateTime } from "@/lib/format/dates";
+import { Textarea } from "@/components/ui/field";
 
 interface Props { base: string; computed: ComputedResult; complete: boolean; conclusion: AuditorConclusionRecord | null; mayWrite: boolean }
 
@@ -64,7 +65,7 @@ export function ConclusionForm({ base, computed, complete, conclusion, mayWrite 
           {computed.responseNeeded && <Alert tone="info">{computed.supported ? "The limit is close to tolerable" : "The computed result does not support the amount"}: record at least one response.</Alert>}
           <div>
             <label htmlFor="auditor-conclusion-text" className="block text-sm font-medium">Conclusion, in your words</label>
-            <textarea id="auditor-conclusion-text" className="mt-1 w-full rounded border border-ink-line p-2 text-sm" rows={3} value={text} onChange={(e) => setText(e.target.value)}
+            <Textarea id="auditor-conclusion-text" className="mt-1" rows={3} value={text} onChange={(e) => setText(e.target.value)}
               aria-invalid={Boolean(fieldError("conclusion"))} aria-describedby={fieldError("conclusion") ? "auditor-conclusion-error" : undefined} />
             {fieldError("conclusion") && <p id="auditor-conclusion-error" className="text-sm text-brick-700" aria-live="polite">{fieldError("conclusion")}</p>}
           </div>

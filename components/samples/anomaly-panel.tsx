@@ -6,6 +6,7 @@ import { Amount } from "@/components/ui/amount";
 import { Button } from "@/components/ui/button";
 import { apiFetch } from "@/components/ui/api";
 import { useApi } from "@/components/ui/use-api";
+import { Textarea } from "@/components/ui/field";
 
 interface Props {
   base: string;
@@ -17,8 +18,6 @@ interface Props {
   onChanged: () => void;
 }
 
-const textarea =
-  "w-full rounded-md border border-ink-line bg-paper-raised px-3 py-2 text-sm focus:border-ledger-500 focus:outline-none";
 
 /**
  * Misstatements that may be anomalous (ISA 530 ¶13, AU-C 530.13): a preparer proposes one with a written
@@ -124,10 +123,9 @@ export function AnomalyPanel({ base, method, refreshKey, mayMark, mayAccept, all
                   <label className="block font-medium" htmlFor={`anomaly-${i.id}`}>
                     Why is this misstatement not representative of the population? (extremely rare circumstances)
                   </label>
-                  <textarea
+                  <Textarea
                     id={`anomaly-${i.id}`}
                     rows={3}
-                    className={textarea}
                     value={text}
                     onChange={(e) => setText(e.target.value)}
                   />

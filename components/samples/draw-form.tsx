@@ -42,7 +42,7 @@ export function DrawForm({ engagementId, sampleId, currentVersion, populationRea
       {failure && <Alert>{failure}</Alert>}
       {!populationReady && <Alert tone="info">The population is not reconciled yet; the server will refuse the draw until it is.</Alert>}
       <Field label="Seed (optional)" error={errors.seed?.message} hint="Leave blank for a seed generated on the server. Enter one (0 to 4294967295) to re-perform a selection made elsewhere.">
-        {({ id, describedBy, invalid }) => <Input id={id} aria-describedby={describedBy} aria-invalid={invalid} inputMode="numeric" className="figures max-w-56" {...register("seed", { setValueAs: (v: unknown) => (textOf(v).trim() === "" ? undefined : v) })} />}
+        <Input inputMode="numeric" className="figures max-w-56" {...register("seed", { setValueAs: (v: unknown) => (textOf(v).trim() === "" ? undefined : v) })} />
       </Field>
       {confirming && (
         <Alert tone="info">

@@ -32,11 +32,11 @@ export function ExtendForm({ engagementId, sampleId, onExtended }: { engagementI
       {outcome && <div className="mb-2"><Alert tone={outcome.tone}>{outcome.text}</Alert></div>}
       <div className="grid gap-x-4 sm:grid-cols-3">
         <Field label="Items to add" error={errors.additional?.message}>
-          {({ id, describedBy, invalid }) => <Input id={id} aria-describedby={describedBy} aria-invalid={invalid} inputMode="numeric" className="figures text-right" {...register("additional")} />}
+          <Input inputMode="numeric" className="figures text-right" {...register("additional")} />
         </Field>
         <div className="sm:col-span-2">
           <Field label="Why the sample is extended" error={errors.reason?.message}>
-            {({ id, describedBy, invalid }) => <Input id={id} aria-describedby={describedBy} aria-invalid={invalid} {...register("reason")} />}
+            <Input {...register("reason")} />
           </Field>
         </div>
       </div>

@@ -30,7 +30,7 @@ export function ReplaceDialog({ url, item, onClose, onReplaced }: { url: string;
         <p className="text-sm text-ink-soft">The item is kept, marked void with your reason, and the next item in the random-number order takes its place. Use this only for items that cannot be part of the population (e.g. a voided document) — an item you simply cannot audit is recorded as “could not be audited” instead.</p>
         {failure && <Alert>{failure}</Alert>}
         <Field label="Why the item cannot be used" error={errors.reason?.message}>
-          {({ id, describedBy, invalid }) => <Input id={id} aria-describedby={describedBy} aria-invalid={invalid} autoFocus {...register("reason")} />}
+          <Input autoFocus {...register("reason")} />
         </Field>
         <div className="flex justify-end gap-2">
           <Button type="button" variant="ghost" onClick={() => ref.current?.close()}>Cancel</Button>
