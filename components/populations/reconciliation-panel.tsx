@@ -14,6 +14,7 @@ import { Amount } from "@/components/ui/amount";
 import { apiFetch, ApiError } from "@/components/ui/api";
 import { formatCount } from "./labels";
 import { textOf } from "@/lib/format/text";
+import { Table, THead, Th, Td } from "@/components/ui/table";
 
 type FormIn = z.input<typeof ReconcileSchema>;
 type FormOut = z.output<typeof ReconcileSchema>;
@@ -59,25 +60,25 @@ export function ReconciliationPanel({ engagementId, initial, currency, mayReconc
   return (
     <div className="space-y-4">
       <StatusNote population={p} />
-      <table className="w-full text-sm" aria-label="Reconciliation">
-        <thead className="text-left text-xs uppercase tracking-wider text-ink-soft">
-          <tr><th scope="col" className="py-1.5" /><th scope="col" className="py-1.5 text-right">Loaded</th><th scope="col" className="py-1.5 text-right">Ledger (control)</th><th scope="col" className="py-1.5 text-right">Difference</th></tr>
-        </thead>
+      <Table label="Reconciliation" density="compact">
+        <THead>
+          <tr><Th /><Th numeric>Loaded</Th><Th numeric>Ledger (control)</Th><Th numeric>Difference</Th></tr>
+        </THead>
         <tbody>
           <tr className="border-t border-ink-line/70">
-            <th scope="row" className="py-2 text-left font-medium">Total</th>
-            <td className="py-2 text-right"><Amount value={p.total} /></td>
-            <td className="py-2 text-right">{typedTotal !== null ? <Amount value={centsToDecimal(typedTotal)} /> : <span className="text-ink-faint">—</span>}</td>
-            <td className={`py-2 text-right ${diffTotal ? "font-semibold text-brick-700" : ""}`} data-testid="difference-total">{diffTotal !== null ? <Amount value={centsToDecimal(diffTotal)} /> : "—"}</td>
+            <Th scope="row" className="font-medium">Total</Th>
+            <Td className="text-right"><Amount value={p.total} /></Td>
+            <Td className="text-right">{typedTotal !== null ? <Amount value={centsToDecimal(typedTotal)} /> : <span className="text-ink-faint">—</span>}</Td>
+            <Td className={`py-2 text-right ${diffTotal ? "font-semibold text-brick-700" : ""}`} data-testid="difference-total">{diffTotal !== null ? <Amount value={centsToDecimal(diffTotal)} /> : "—"}</Td>
           </tr>
           <tr className="border-t border-ink-line/70">
-            <th scope="row" className="py-2 text-left font-medium">Items</th>
-            <td className="figures py-2 text-right">{formatCount(p.rowCount)}</td>
-            <td className="figures py-2 text-right">{typedCount !== null ? formatCount(typedCount) : <span className="text-ink-faint">—</span>}</td>
-            <td className={`figures py-2 text-right ${diffCount ? "font-semibold text-brick-700" : ""}`} data-testid="difference-count">{diffCount !== null ? formatCount(diffCount) : "—"}</td>
+            <Th scope="row" className="font-medium">Items</Th>
+            <Td numeric>{formatCount(p.rowCount)}</Td>
+            <Td numeric>{typedCount !== null ? formatCount(typedCount) : <span className="text-ink-faint">—</span>}</Td>
+            <Td className={`figures py-2 text-right ${diffCount ? "font-semibold text-brick-700" : ""}`} data-testid="difference-count">{diffCount !== null ? formatCount(diffCount) : "—"}</Td>
           </tr>
         </tbody>
-      </table>
+      </Table>
       {editable ? (
         <form onSubmit={onSubmit} noValidate className="space-y-1 border-t border-ink-line pt-4">
           {failure && <div className="mb-3"><Alert>{failure}</Alert></div>}

@@ -11,6 +11,7 @@ import { Button } from "@/components/ui/button";
 import { RequestStatusBadge } from "./status-badge";
 import { FILE_STATUS_LABELS, formatBytes, needsText } from "./labels";
 import { Textarea } from "@/components/ui/field";
+import { Table, THead, Th, Td } from "@/components/ui/table";
 
 interface Props { engagementId: number; sampleId: number; initial: TeamListView; mayDecide: boolean; currency: string }
 
@@ -41,26 +42,26 @@ export function TeamRequestList({ engagementId, sampleId, initial, mayDecide, cu
       {view.list.status === "closed" && <Alert tone="info">This list is closed{view.list.closedReason ? ` — ${view.list.closedReason}` : ""}. The client can no longer send files on it.</Alert>}
       {message && <Alert tone={message.tone}>{message.text}</Alert>}
       <div className="overflow-x-auto rounded-card border border-ink-line bg-paper-raised">
-        <table className="w-full text-sm" aria-label="Requested items">
-          <thead className="bg-paper-sunk text-left text-xs uppercase tracking-wider text-ink-soft">
-            <tr><th scope="col" className="px-3 py-2.5">Item</th><th scope="col" className="px-3 py-2.5 text-right">Book value</th><th scope="col" className="px-3 py-2.5">Needed</th><th scope="col" className="px-3 py-2.5">Status</th><th scope="col" className="px-3 py-2.5">Client&rsquo;s files and note</th></tr>
-          </thead>
+        <Table label="Requested items" density="boxed">
+          <THead className="bg-paper-sunk">
+            <tr><Th>Item</Th><Th numeric>Book value</Th><Th>Needed</Th><Th>Status</Th><Th>Client&rsquo;s files and note</Th></tr>
+          </THead>
           <tbody>
             {view.items.map((item) => (
               <tr key={item.id} className="border-t border-ink-line/70 align-top" data-testid={`request-row-${item.itemRef}`}>
-                <td className="px-3 py-2"><span className="figures font-medium">{item.itemRef}</span>{item.description && <span className="block text-xs text-ink-faint">{item.description}</span>}</td>
-                <td className="px-3 py-2 text-right">{item.bookValue !== undefined && <Amount value={item.bookValue} currency={currency} />}</td>
-                <td className="px-3 py-2 text-xs text-ink-soft">{needsText(item.needs)}{item.needsNote && <span className="block">{item.needsNote}</span>}</td>
-                <td className="px-3 py-2"><RequestStatusBadge status={item.status} /></td>
-                <td className="space-y-2 px-3 py-2">
+                <Td><span className="figures font-medium">{item.itemRef}</span>{item.description && <span className="block text-xs text-ink-faint">{item.description}</span>}</Td>
+                <Td className="text-right">{item.bookValue !== undefined && <Amount value={item.bookValue} currency={currency} />}</Td>
+                <Td className="text-xs text-ink-soft">{needsText(item.needs)}{item.needsNote && <span className="block">{item.needsNote}</span>}</Td>
+                <Td><RequestStatusBadge status={item.status} /></Td>
+                <Td className="space-y-2">
                   {item.files.length === 0 && <span className="text-xs text-ink-faint">Nothing sent yet</span>}
                   {item.files.map((f) => <FileRow key={f.id} file={f} href={`${base}/files/${f.id}`} mayDecide={mayDecide} onDecide={decide} />)}
                   {item.clientNote && <p className="text-xs text-ink-soft"><span className="font-medium">Client&rsquo;s note:</span> {item.clientNote}</p>}
-                </td>
+                </Td>
               </tr>
             ))}
           </tbody>
-        </table>
+        </Table>
       </div>
     </div>
   );
