@@ -5,6 +5,9 @@ import { apiFetch } from "./api";
 /** SWR's fetcher for our route handlers: the key is the URL, a refusal throws `ApiError`. */
 export const apiFetcher = <T>(url: string) => apiFetch<T>(url);
 
+/** How every read behaves: no refetch on focus or reconnect (screens refetch after their own writes), no retries. */
+export const API_READ_OPTIONS = { revalidateOnFocus: false, revalidateOnReconnect: false, shouldRetryOnError: false } as const;
+
 export interface ApiRead<T> {
   data: T | undefined;
   error: Error | undefined;
@@ -33,9 +36,7 @@ export function useApi<T>(url: string | null, options: { initial?: T; revision?:
   const { data, error, isLoading, isValidating, mutate } = useSWR<T, Error>(url, apiFetcher<T>, {
     fallbackData: initial,
     revalidateOnMount: initial === undefined || cachedAtMount,
-    revalidateOnFocus: false,
-    revalidateOnReconnect: false,
-    shouldRetryOnError: false,
+    ...API_READ_OPTIONS,
   });
   const seenRevision = useRef(revision);
   useEffect(() => {
