@@ -7,6 +7,10 @@ import { PercentInput } from "./percent-input";
 import { formatPercent } from "./labels";
 import type { PlanFormIn, PlanFormOut } from "./plan-values";
 
+const riskOptions = [
+  <option key="" value="">Choose…</option>,
+  ...RISK_LEVELS.map((r) => <option key={r} value={r}>{RISK_LEVEL_LABELS[r]}</option>),
+];
 
 /**
  * The two assessed risks that set the confidence (and the assurance factor) through the firm's
@@ -47,30 +51,14 @@ export function RiskSizingFields({
         error={e?.assessedRisk?.message}
         hint="Inherent and control risk combined"
       >
-        <Select {...register("params.assessedRisk")}>
-          <option value="">Choose…</option>
-          {RISK_LEVELS.map((r) => (
-            <option key={r} value={r}>
-              {RISK_LEVEL_LABELS[r]}
-            </option>
-          ))}
-        </Select>
+        <Select {...register("params.assessedRisk")}>{riskOptions}</Select>
       </Field>
       <Field
         label="Risk other substantive procedures fail to detect"
         error={e?.otherProceduresRisk?.message}
         hint="Reliance on analytical and other tests of the same assertion"
       >
-        <Select
-          {...register("params.otherProceduresRisk")}
-        >
-          <option value="">Choose…</option>
-          {RISK_LEVELS.map((r) => (
-            <option key={r} value={r}>
-              {RISK_LEVEL_LABELS[r]}
-            </option>
-          ))}
-        </Select>
+        <Select {...register("params.otherProceduresRisk")}>{riskOptions}</Select>
       </Field>
       {risk && risk.tableFactor !== null && (
         <p className="text-sm sm:col-span-2" data-testid="risk-mapping">
