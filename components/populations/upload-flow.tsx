@@ -96,7 +96,7 @@ export function UploadFlow({ engagementId, currency, replaceable }: Props) {
             <div className="max-w-xs">
               <Field label="Sheet" hint="The rows are read from this sheet only">
                 <Select value={inspection.sheet} disabled={sheetBusy || stage.kind === "loading"} onChange={(e) => chooseSheet(upload, e.target.value)}>
-                  {inspection.sheets!.map((s) => <option key={s} value={s}>{s}</option>)}
+                  {inspection.sheets.map((s) => <option key={s} value={s}>{s}</option>)}
                 </Select>
               </Field>
             </div>
