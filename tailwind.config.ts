@@ -16,6 +16,11 @@ export default {
         amber: { 50: "#fdf6e7", 100: "#f8e6bd", 500: "#c98a12", 700: "#8a5d07" },
         brick: { 50: "#fbeeea", 100: "#f3d2c8", 500: "#b5432a", 700: "#85301d" },
         slate: { 50: "#f0f3f7", 100: "#dfe5ee", 500: "#5a6b85", 700: "#37445a" },
+        // Chart series that the palette above has no colour for (the advisor's estimators), and chart rules.
+        chart: {
+          "mean-per-unit": "#55606e", regression: "#6b4f9e", "hartley-ross": "#2f6f8f", "jackknife-ratio": "#8a6d1f",
+          "beale-ratio": "#a0522d", "tin-ratio": "#4d7a6a", grid: "#e6e1d5", truth: "#1f2328",
+        },
       },
       borderRadius: { card: "10px" },
       boxShadow: { card: "0 1px 0 rgba(29,36,48,0.04), 0 1px 3px rgba(29,36,48,0.08)" },

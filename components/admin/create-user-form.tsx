@@ -9,7 +9,7 @@ import { GRADE_LABELS, GRADES } from "@/lib/auth/roles";
 import { Field, Input, Select } from "@/components/ui/field";
 import { Button } from "@/components/ui/button";
 import { Alert } from "@/components/ui/alert";
-import { api, ApiError } from "@/components/ui/api";
+import { apiFetch, ApiError } from "@/components/ui/api";
 
 type FormIn = z.input<typeof CreateUserSchema>;
 
@@ -22,7 +22,7 @@ export function CreateUserForm() {
   const onSubmit = handleSubmit(async (values) => {
     setFailure(null);
     try {
-      const { invitationSent } = await api<{ invitationSent: boolean }>("/api/users", { body: values });
+      const { invitationSent } = await apiFetch<{ invitationSent: boolean }>("/api/users", { body: values });
       router.push(`/admin/users?invited=${encodeURIComponent(values.name)}${invitationSent ? "" : "&mail=failed"}`);
       router.refresh();
     } catch (err) {
@@ -33,13 +33,13 @@ export function CreateUserForm() {
   return (
     <form onSubmit={onSubmit} noValidate className="grid max-w-2xl gap-x-6 gap-y-1 sm:grid-cols-2">
       {failure && <div className="sm:col-span-2"><Alert>{failure}</Alert></div>}
-      <Field label="Name" error={errors.name?.message}>{({ id, describedBy, invalid }) => <Input id={id} aria-describedby={describedBy} aria-invalid={invalid} {...register("name")} />}</Field>
-      <Field label="E-mail" error={errors.email?.message}>{({ id, describedBy, invalid }) => <Input id={id} type="email" aria-describedby={describedBy} aria-invalid={invalid} {...register("email")} />}</Field>
+      <Field label="Name" error={errors.name?.message}><Input {...register("name")} /></Field>
+      <Field label="E-mail" error={errors.email?.message}><Input type="email" {...register("email")} /></Field>
       <Field label="Grade" error={errors.grade?.message} hint="Client contacts are invited from an engagement's request lists, not here">
-        {({ id, describedBy }) => <Select id={id} aria-describedby={describedBy} {...register("grade")}>{GRADES.filter((g) => g !== "client").map((g) => <option key={g} value={g}>{GRADE_LABELS[g]}</option>)}</Select>}
+        <Select {...register("grade")}>{GRADES.filter((g) => g !== "client").map((g) => <option key={g} value={g}>{GRADE_LABELS[g]}</option>)}</Select>
       </Field>
       <Field label="Firm role" error={errors.firmRole?.message}>
-        {({ id }) => <Select id={id} {...register("firmRole")}><option value="member">Member</option><option value="admin">Administrator</option></Select>}
+        <Select {...register("firmRole")}><option value="member">Member</option><option value="admin">Administrator</option></Select>
       </Field>
       <p className="text-sm text-ink-soft sm:col-span-2">The person is e-mailed a link to choose their own password (valid once, for 14 days). You never see or type it.</p>
       <div className="sm:col-span-2"><Button type="submit" disabled={isSubmitting}>{isSubmitting ? "Inviting…" : "Invite by e-mail"}</Button></div>

@@ -17,7 +17,7 @@ import { Field, Input, Select } from "@/components/ui/field";
 import { Button } from "@/components/ui/button";
 import { Alert } from "@/components/ui/alert";
 import { Card } from "@/components/ui/card";
-import { api, ApiError } from "@/components/ui/api";
+import { apiFetch, ApiError } from "@/components/ui/api";
 import { formatDateTime } from "@/lib/format/date";
 
 const num = { valueAsNumber: true } as const;
@@ -45,7 +45,7 @@ export function MethodologyForm({ initial }: { initial: MethodologyVersion }) {
   const onSubmit = handleSubmit(async (settings) => {
     setStatus(null);
     try {
-      const { methodology } = await api<{ methodology: MethodologyVersion }>("/api/firm/methodology", {
+      const { methodology } = await apiFetch<{ methodology: MethodologyVersion }>("/api/firm/methodology", {
         method: "PUT",
         body: settings,
       });
@@ -172,47 +172,34 @@ export function MethodologyForm({ initial }: { initial: MethodologyVersion }) {
       <Card title="Statistical methods">
         <div className="grid gap-x-4 sm:grid-cols-2">
           <Field label="Monetary-unit sample size" error={errors.musSizeMethod?.message}>
-            {({ id, describedBy }) => (
-              <Select id={id} aria-describedby={describedBy} {...register("musSizeMethod")}>
-                <option value="confidence-factor">Confidence factors (current Guide presentation)</option>
-                <option value="expansion-factor">Expansion factors (older presentation)</option>
-              </Select>
-            )}
+            <Select {...register("musSizeMethod")}>
+              <option value="confidence-factor">Confidence factors (current Guide presentation)</option>
+              <option value="expansion-factor">Expansion factors (older presentation)</option>
+            </Select>
           </Field>
           <Field label="Poisson and confidence factors" error={errors.factorMode?.message}>
-            {({ id, describedBy }) => (
-              <Select id={id} aria-describedby={describedBy} {...register("factorMode")}>
-                <option value="exact">Exact</option>
-                <option value="table">Table (rounded up to 2 decimals)</option>
-              </Select>
-            )}
+            <Select {...register("factorMode")}>
+              <option value="exact">Exact</option>
+              <option value="table">Table (rounded up to 2 decimals)</option>
+            </Select>
           </Field>
           <Field label="Classical variables quantiles" error={errors.classicalDistribution?.message}>
-            {({ id, describedBy }) => (
-              <Select id={id} aria-describedby={describedBy} {...register("classicalDistribution")}>
-                <option value="z">Normal (z)</option>
-                <option value="t">Student&rsquo;s t</option>
-              </Select>
-            )}
+            <Select {...register("classicalDistribution")}>
+              <option value="z">Normal (z)</option>
+              <option value="t">Student&rsquo;s t</option>
+            </Select>
           </Field>
           <Field label="Monetary-unit limits" error={errors.musLimits?.message}>
-            {({ id, describedBy }) => (
-              <Select id={id} aria-describedby={describedBy} {...register("musLimits")}>
-                <option value="gross">Gross</option>
-                <option value="net">Net of the opposite direction</option>
-              </Select>
-            )}
+            <Select {...register("musLimits")}>
+              <option value="gross">Gross</option>
+              <option value="net">Net of the opposite direction</option>
+            </Select>
           </Field>
           <Field label="Hypergeometric attribute plans below (items)" error={errors.hypergeometricBelow?.message}>
-            {({ id, describedBy, invalid }) => (
-              <Input
-                id={id}
-                type="number"
-                aria-describedby={describedBy}
-                aria-invalid={invalid}
-                {...register("hypergeometricBelow", num)}
-              />
-            )}
+            <Input
+              type="number"
+              {...register("hypergeometricBelow", num)}
+            />
           </Field>
         </div>
         <table className="mt-2 text-sm" aria-label="Control frequency table">
@@ -262,54 +249,38 @@ export function MethodologyForm({ initial }: { initial: MethodologyVersion }) {
             error={errors.nonstatistical?.expectedMisstatementAdjustment?.message}
             hint="The Guide's formula ignores it (and warns when EM > 0); some firms divide by TM − EM instead"
           >
-            {({ id, describedBy }) => (
-              <Select
-                id={id}
-                aria-describedby={describedBy}
-                {...register("nonstatistical.expectedMisstatementAdjustment")}
-              >
-                <option value="none">None (warn when EM &gt; 0)</option>
-                <option value="subtract-from-tolerable">Subtract it from tolerable misstatement</option>
-              </Select>
-            )}
+            <Select
+              {...register("nonstatistical.expectedMisstatementAdjustment")}
+            >
+              <option value="none">None (warn when EM &gt; 0)</option>
+              <option value="subtract-from-tolerable">Subtract it from tolerable misstatement</option>
+            </Select>
           </Field>
           <Field label="Minimum nonstatistical sample size" error={errors.nonstatistical?.minimumSampleSize?.message}>
-            {({ id, describedBy, invalid }) => (
-              <Input
-                id={id}
-                type="number"
-                aria-describedby={describedBy}
-                aria-invalid={invalid}
-                {...register("nonstatistical.minimumSampleSize", num)}
-              />
-            )}
+            <Input
+              type="number"
+              {...register("nonstatistical.minimumSampleSize", num)}
+            />
           </Field>
           <Field
             label="“Well below” tolerable misstatement means"
             error={errors.nonstatistical?.wellBelowBasis?.message}
           >
-            {({ id, describedBy }) => (
-              <Select id={id} aria-describedby={describedBy} {...register("nonstatistical.wellBelowBasis")}>
-                <option value="expected-misstatement">At most the expected misstatement used in planning</option>
-                <option value="share-of-tolerable">At most a share of tolerable misstatement</option>
-              </Select>
-            )}
+            <Select {...register("nonstatistical.wellBelowBasis")}>
+              <option value="expected-misstatement">At most the expected misstatement used in planning</option>
+              <option value="share-of-tolerable">At most a share of tolerable misstatement</option>
+            </Select>
           </Field>
           <Field
             label="Share of tolerable misstatement (fraction)"
             error={errors.nonstatistical?.wellBelowShare?.message}
             hint="Used only with the share basis, e.g. 0.5"
           >
-            {({ id, describedBy, invalid }) => (
-              <Input
-                id={id}
-                type="number"
-                step="0.01"
-                aria-describedby={describedBy}
-                aria-invalid={invalid}
-                {...register("nonstatistical.wellBelowShare", num)}
-              />
-            )}
+            <Input
+              type="number"
+              step="0.01"
+              {...register("nonstatistical.wellBelowShare", num)}
+            />
           </Field>
         </div>
         <label className="mt-2 flex items-start gap-2 text-sm">

@@ -7,7 +7,7 @@ import { EmptyState } from "@/components/ui/card";
 import { Badge } from "@/components/ui/badge";
 import { Button } from "@/components/ui/button";
 import { Alert } from "@/components/ui/alert";
-import { api } from "@/components/ui/api";
+import { apiFetch } from "@/components/ui/api";
 import { GRADE_LABELS } from "@/lib/auth/roles";
 
 export function UserAdmin({ initialUsers, myUserId }: { initialUsers: UserRecord[]; myUserId: number }) {
@@ -17,7 +17,7 @@ export function UserAdmin({ initialUsers, myUserId }: { initialUsers: UserRecord
   async function setActive(user: UserRecord, active: boolean) {
     setMessage(null);
     try {
-      const { user: updated } = await api<{ user: UserRecord }>(`/api/users/${user.id}`, { method: "PATCH", body: { active } });
+      const { user: updated } = await apiFetch<{ user: UserRecord }>(`/api/users/${user.id}`, { method: "PATCH", body: { active } });
       setUsers((list) => list.map((u) => (u.id === updated.id ? updated : u)));
       setMessage({ tone: "success", text: `${user.name} is ${active ? "active again" : "deactivated and can no longer sign in"}.` });
     } catch (err) {
@@ -29,7 +29,7 @@ export function UserAdmin({ initialUsers, myUserId }: { initialUsers: UserRecord
     if (!window.confirm(`Reset ${user.name}'s password? Their current password stops working at once, their open sessions end, and they are e-mailed a link to choose a new one.`)) return;
     setMessage(null);
     try {
-      const { invitationSent } = await api<{ invitationSent: boolean }>(`/api/users/${user.id}/password`, { body: {} });
+      const { invitationSent } = await apiFetch<{ invitationSent: boolean }>(`/api/users/${user.id}/password`, { body: {} });
       setMessage(invitationSent
         ? { tone: "success", text: `${user.name}'s password no longer works and their sessions have ended. They were e-mailed a link to choose a new one (valid once, for 14 days).` }
         : { tone: "error", text: `${user.name}'s password no longer works, but the e-mail with the link could not be sent. Try "Reset password" again once mail works.` });

@@ -1,10 +1,23 @@
 import type { AdvisedEstimator, HistogramBin } from "@/lib/sampling";
 import { ADVISED_ESTIMATOR_LABELS } from "@/lib/sampling/advise";
 
-export const ESTIMATOR_COLOURS: Record<AdvisedEstimator, string> = {
-  "mean-per-unit": "#55606e", difference: "#24663f", ratio: "#c98a12", regression: "#6b4f9e", stringer: "#b5432a",
-  "hartley-ross": "#2f6f8f", "jackknife-ratio": "#8a6d1f", "beale-ratio": "#a0522d", "tin-ratio": "#4d7a6a",
+/** Each estimator's colour as Tailwind theme classes (tailwind.config.ts), written out so Tailwind finds them. */
+export const ESTIMATOR_TONES: Record<AdvisedEstimator, { fill: string; stroke: string; swatch: string }> = {
+  "mean-per-unit": { fill: "fill-chart-mean-per-unit", stroke: "stroke-chart-mean-per-unit", swatch: "bg-chart-mean-per-unit" },
+  difference: { fill: "fill-ledger-600", stroke: "stroke-ledger-600", swatch: "bg-ledger-600" },
+  ratio: { fill: "fill-amber-500", stroke: "stroke-amber-500", swatch: "bg-amber-500" },
+  regression: { fill: "fill-chart-regression", stroke: "stroke-chart-regression", swatch: "bg-chart-regression" },
+  stringer: { fill: "fill-brick-500", stroke: "stroke-brick-500", swatch: "bg-brick-500" },
+  "hartley-ross": { fill: "fill-chart-hartley-ross", stroke: "stroke-chart-hartley-ross", swatch: "bg-chart-hartley-ross" },
+  "jackknife-ratio": { fill: "fill-chart-jackknife-ratio", stroke: "stroke-chart-jackknife-ratio", swatch: "bg-chart-jackknife-ratio" },
+  "beale-ratio": { fill: "fill-chart-beale-ratio", stroke: "stroke-chart-beale-ratio", swatch: "bg-chart-beale-ratio" },
+  "tin-ratio": { fill: "fill-chart-tin-ratio", stroke: "stroke-chart-tin-ratio", swatch: "bg-chart-tin-ratio" },
 };
+
+/** The small colour square beside an estimator's name in a caption or legend. */
+export function EstimatorSwatch({ estimator }: { estimator: AdvisedEstimator }) {
+  return <span aria-hidden className={`inline-block h-2.5 w-2.5 rounded-sm ${ESTIMATOR_TONES[estimator].swatch}`} />;
+}
 
 const compact = (v: number) => {
   const a = Math.abs(v);
@@ -26,20 +39,20 @@ export function EstimateHistogram({ estimator, bins, truth, from, to, mean }: { 
   return (
     <figure className="rounded-md border border-ink-line bg-paper p-2">
       <figcaption className="mb-1 flex items-center gap-1.5 text-xs font-medium text-ink">
-        <span aria-hidden className="inline-block h-2.5 w-2.5 rounded-sm" style={{ background: ESTIMATOR_COLOURS[estimator] }} />{label}
+        <EstimatorSwatch estimator={estimator} />{label}
       </figcaption>
       <svg viewBox={`0 0 ${W} ${H}`} className="w-full" role="img" aria-label={`${mean === undefined ? "" : "Zoomed, own scale: "}${label}: histogram of estimated audited totals from ${compact(bins[0]?.from ?? 0)} to ${compact(bins.at(-1)?.to ?? 0)}; true value ${compact(truth)}${mean === undefined ? "" : `; mean estimate ${compact(mean)}`}`}>
         {bins.map((b, i) => {
           const h = (b.count / max) * (H - 34);
-          return <rect key={i} x={x(b.from)} y={H - 18 - h} width={Math.max(1, x(b.to) - x(b.from) - 1)} height={h} fill={ESTIMATOR_COLOURS[estimator]} opacity={0.8} />;
+          return <rect key={i} x={x(b.from)} y={H - 18 - h} width={Math.max(1, x(b.to) - x(b.from) - 1)} height={h} className={ESTIMATOR_TONES[estimator].fill} opacity={0.8} />;
         })}
-        <line x1={PAD} x2={W - PAD} y1={H - 18} y2={H - 18} stroke="#d9d4c7" />
-        <line x1={x(truth)} x2={x(truth)} y1={8} y2={H - 18} stroke="#1f2328" strokeWidth={1.5} strokeDasharray="3 2" />
+        <line x1={PAD} x2={W - PAD} y1={H - 18} y2={H - 18} className="stroke-ink-line" />
+        <line x1={x(truth)} x2={x(truth)} y1={8} y2={H - 18} className="stroke-chart-truth" strokeWidth={1.5} strokeDasharray="3 2" />
         <text x={x(truth)} y={7} textAnchor={mean !== undefined && mean < truth ? "start" : mean !== undefined ? "end" : "middle"} fontSize="9" className="fill-ink">true {compact(truth)}</text>
         {mean !== undefined && (
           <g>
-            <line x1={x(mean)} x2={x(mean)} y1={16} y2={H - 18} stroke={ESTIMATOR_COLOURS[estimator]} strokeWidth={1.5} />
-            <text x={x(mean)} y={24} textAnchor={mean < truth ? "end" : "start"} fontSize="9" fill={ESTIMATOR_COLOURS[estimator]}>mean {compact(mean)}</text>
+            <line x1={x(mean)} x2={x(mean)} y1={16} y2={H - 18} className={ESTIMATOR_TONES[estimator].stroke} strokeWidth={1.5} />
+            <text x={x(mean)} y={24} textAnchor={mean < truth ? "end" : "start"} fontSize="9" className={ESTIMATOR_TONES[estimator].fill}>mean {compact(mean)}</text>
           </g>
         )}
         <text x={PAD} y={H - 5} fontSize="9" className="fill-ink-faint" fontFamily="IBM Plex Mono, monospace">{compact(from)}</text>
@@ -69,21 +82,21 @@ export function SizeChart({ title, series, format, reference, yMin }: {
       <svg viewBox={`0 0 ${W} ${H}`} className="w-full" role="img" aria-label={`${title}: ${series.map((s) => `${ADVISED_ESTIMATOR_LABELS[s.estimator]} ${s.points.map((p) => `n=${p.sampleSize} ${format(p.value)}`).join(", ")}`).join("; ")}`}>
         {ticks.map((t) => (
           <g key={t}>
-            <line x1={L} x2={W - R} y1={y(t)} y2={y(t)} stroke="#e6e1d5" />
+            <line x1={L} x2={W - R} y1={y(t)} y2={y(t)} className="stroke-chart-grid" />
             <text x={L - 6} y={y(t) + 3} textAnchor="end" fontSize="9" className="fill-ink-faint" fontFamily="IBM Plex Mono, monospace">{format(t)}</text>
           </g>
         ))}
         {sizes.map((n) => <text key={n} x={x(n)} y={H - 10} textAnchor="middle" fontSize="9" className="fill-ink-faint" fontFamily="IBM Plex Mono, monospace">n={n}</text>)}
         {reference && (
           <g>
-            <line x1={L} x2={W - R} y1={y(reference.value)} y2={y(reference.value)} stroke="#c98a12" strokeWidth={1.5} strokeDasharray="4 3" />
+            <line x1={L} x2={W - R} y1={y(reference.value)} y2={y(reference.value)} className="stroke-amber-500" strokeWidth={1.5} strokeDasharray="4 3" />
             <text x={W - R} y={y(reference.value) - 4} textAnchor="end" fontSize="9" className="fill-amber-700">{reference.label}</text>
           </g>
         )}
         {series.map((s) => (
           <g key={s.estimator}>
-            <polyline fill="none" stroke={ESTIMATOR_COLOURS[s.estimator]} strokeWidth={2} points={s.points.map((p) => `${x(p.sampleSize)},${y(p.value)}`).join(" ")} />
-            {s.points.map((p) => <circle key={p.sampleSize} cx={x(p.sampleSize)} cy={y(p.value)} r={3} fill={ESTIMATOR_COLOURS[s.estimator]} />)}
+            <polyline fill="none" className={ESTIMATOR_TONES[s.estimator].stroke} strokeWidth={2} points={s.points.map((p) => `${x(p.sampleSize)},${y(p.value)}`).join(" ")} />
+            {s.points.map((p) => <circle key={p.sampleSize} cx={x(p.sampleSize)} cy={y(p.value)} r={3} className={ESTIMATOR_TONES[s.estimator].fill} />)}
           </g>
         ))}
       </svg>

@@ -10,7 +10,9 @@ import { Field, Input, Select } from "@/components/ui/field";
 import { Button } from "@/components/ui/button";
 import { Alert } from "@/components/ui/alert";
 import { Badge } from "@/components/ui/badge";
-import { api, readErrorAnswer } from "@/components/ui/api";
+import { useSWRConfig } from "swr";
+import { apiFetch, apiStream } from "@/components/ui/api";
+import { useApi } from "@/components/ui/use-api";
 import { readNdjson } from "@/components/ui/ndjson";
 import { AdvisorResults } from "./advisor-results";
 import { formatCount } from "@/lib/format/number";
@@ -38,8 +40,15 @@ export function AdvisorPanel({ engagementId, sampleId, initial, mayRun, currency
   engagementId: number; sampleId: number; initial: AdvisorState; mayRun: boolean; currency: string; plannedSize: number; populationItems: number;
 }) {
   const base = `/api/engagements/${engagementId}/samples/${sampleId}/advisor`;
-  const [state, setState] = useState(initial);
-  const [shown, setShown] = useState<AdvisorRunRecord | null>(initial.adopted);
+  const stateRead = useApi<AdvisorState>(base, { initial });
+  const state = stateRead.data ?? initial;
+  // The run on show is read by its URL: a slow answer for a run clicked before can never replace it.
+  const { mutate: setCached } = useSWRConfig();
+  const [shownId, setShownId] = useState<number | null>(initial.adopted?.id ?? null);
+  const shownRead = useApi<{ run: AdvisorRunRecord }>(shownId === null ? null : `${base}/${shownId}`, {
+    initial: initial.adopted && shownId === initial.adopted.id ? { run: initial.adopted } : undefined,
+  });
+  const shown = shownRead.data?.run ?? null;
   const [progress, setProgress] = useState<{ runId: number | null; done: number; total: number } | null>(null);
   const [message, setMessage] = useState<{ tone: "error" | "info" | "success"; text: string } | null>(null);
   const abort = useRef<AbortController | null>(null);
@@ -55,13 +64,14 @@ export function AdvisorPanel({ engagementId, sampleId, initial, mayRun, currency
   const kind = useWatch({ control, name: "scenario.kind" });
   const scenarioErrors = errors.scenario as Record<string, { message?: string } | undefined> | undefined;
 
-  const refreshRuns = async () => setState(await api<AdvisorState>(base));
+  const refreshRuns = () => stateRead.mutate();
 
   const onRunEvent = (event: RunEvent) => {
     if (event.type === "started") setProgress({ runId: event.runId, done: 0, total: event.total });
     else if (event.type === "progress") setProgress((p) => ({ runId: p?.runId ?? null, done: event.done, total: event.total }));
     else if (event.type === "result") {
-      setShown(event.run);
+      void setCached(`${base}/${event.run.id}`, { run: event.run }, { revalidate: false });
+      setShownId(event.run.id);
       setMessage(event.cached ? { tone: "info", text: "These inputs and seed were run before: the stored figures are shown." } : null);
     } else if (event.type === "cancelled") setMessage({ tone: "info", text: "The run was cancelled." });
     else if (event.type === "error") setMessage({ tone: "error", text: event.message });
@@ -73,12 +83,7 @@ export function AdvisorPanel({ engagementId, sampleId, initial, mayRun, currency
     abort.current = controller;
     setProgress({ runId: null, done: 0, total: 1 });
     try {
-      const res = await fetch(base, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify(body), signal: controller.signal });
-      if (!res.ok || !res.body) {
-        const data = await readErrorAnswer(res);
-        throw new Error(data.error?.message ?? `The advisor could not start (${res.status})`);
-      }
-      await readNdjson<RunEvent>(res.body, onRunEvent);
+      await readNdjson<RunEvent>(await apiStream(base, { body, signal: controller.signal }), onRunEvent);
     } catch (err) {
       if (!controller.signal.aborted) setMessage({ tone: "error", text: err instanceof Error ? err.message : "The advisor run failed" });
     } finally {
@@ -90,26 +95,22 @@ export function AdvisorPanel({ engagementId, sampleId, initial, mayRun, currency
 
   const cancel = async () => {
     const runId = progress?.runId;
-    if (runId) await api(`${base}/${runId}`, { method: "DELETE" }).catch(() => undefined);
+    if (runId) await apiFetch(`${base}/${runId}`, { method: "DELETE" }).catch(() => undefined);
     abort.current?.abort();
     setMessage({ tone: "info", text: "The run was cancelled." });
   };
 
-  const showRun = async (runId: number) => {
+  const showRun = (runId: number) => {
     setMessage(null);
-    try {
-      setShown((await api<{ run: AdvisorRunRecord }>(`${base}/${runId}`)).run);
-    } catch (err) {
-      setMessage({ tone: "error", text: err instanceof Error ? err.message : "The run could not be opened" });
-    }
+    setShownId(runId);
   };
 
   const [keepReason, setKeepReason] = useState("");
   const adopt = async (runId: number) => {
     try {
-      const next = await api<AdvisorState>(`${base}/${runId}/adopt`, { body: keepReason.trim() ? { reason: keepReason.trim() } : {} });
+      const next = await apiFetch<AdvisorState>(`${base}/${runId}/adopt`, { body: keepReason.trim() ? { reason: keepReason.trim() } : {} });
       setKeepReason("");
-      setState(next);
+      await stateRead.mutate(next, { revalidate: false });
       setMessage({ tone: "success", text: "Kept with the plan as the rationale for the method; the workpaper prints it." });
     } catch (err) {
       setMessage({ tone: "error", text: err instanceof Error ? err.message : "The run could not be kept" });
@@ -138,37 +139,33 @@ export function AdvisorPanel({ engagementId, sampleId, initial, mayRun, currency
             {kind === "pattern" ? (
               <div className="grid gap-x-4 sm:grid-cols-3">
                 <Field label="Items misstated (%)" error={scenarioErrors?.misstatedPercent?.message}>
-                  {({ id, describedBy, invalid }) => <Input id={id} aria-describedby={describedBy} aria-invalid={invalid} inputMode="decimal" className="figures text-right" {...register("scenario.misstatedPercent")} />}
+                  <Input inputMode="decimal" className="figures text-right" {...register("scenario.misstatedPercent")} />
                 </Field>
                 <Field label="Size of each misstatement" error={scenarioErrors?.tainting?.message}>
-                  {({ id, describedBy, invalid }) => (
-                    <Select id={id} aria-describedby={describedBy} aria-invalid={invalid} {...register("scenario.tainting")}>
-                      {TAINTING_PATTERN_KEYS.map((k) => <option key={k} value={k}>{TAINTING_PATTERN_LABELS[k]}</option>)}
-                    </Select>
-                  )}
+                  <Select {...register("scenario.tainting")}>
+                    {TAINTING_PATTERN_KEYS.map((k) => <option key={k} value={k}>{TAINTING_PATTERN_LABELS[k]}</option>)}
+                  </Select>
                 </Field>
                 <Field label="Of which overstatements (%)" error={scenarioErrors?.overstatementPercent?.message}>
-                  {({ id, describedBy, invalid }) => <Input id={id} aria-describedby={describedBy} aria-invalid={invalid} inputMode="decimal" className="figures text-right" {...register("scenario.overstatementPercent")} />}
+                  <Input inputMode="decimal" className="figures text-right" {...register("scenario.overstatementPercent")} />
                 </Field>
               </div>
             ) : (
               <Field label="Earlier sample" error={scenarioErrors?.sampleId?.message} hint="Its audited values give the share misstated and the taintings to draw from.">
-                {({ id, describedBy, invalid }) => (
-                  <Select id={id} aria-describedby={describedBy} aria-invalid={invalid} {...register("scenario.sampleId")}>
-                    {state.previousSamples.map((s) => <option key={s.id} value={s.id}>{s.name}</option>)}
-                  </Select>
-                )}
+                <Select {...register("scenario.sampleId")}>
+                  {state.previousSamples.map((s) => <option key={s.id} value={s.id}>{s.name}</option>)}
+                </Select>
               </Field>
             )}
             <div className="grid gap-x-4 sm:grid-cols-3">
               <Field label="Sample sizes" error={errors.sampleSizes?.message} hint={`Up to 6, separated by commas; the plan's is ${plannedSize}.`}>
-                {({ id, describedBy, invalid }) => <Input id={id} aria-describedby={describedBy} aria-invalid={invalid} className="figures" {...register("sampleSizes")} />}
+                <Input className="figures" {...register("sampleSizes")} />
               </Field>
               <Field label="Trials per size" error={errors.trials?.message}>
-                {({ id, describedBy, invalid }) => <Input id={id} aria-describedby={describedBy} aria-invalid={invalid} inputMode="numeric" className="figures text-right" {...register("trials")} />}
+                <Input inputMode="numeric" className="figures text-right" {...register("trials")} />
               </Field>
               <Field label="Simulation seed (optional)" error={errors.seed?.message} hint="Leave empty for a fresh random seed; it is stored with the run.">
-                {({ id, describedBy, invalid }) => <Input id={id} aria-describedby={describedBy} aria-invalid={invalid} inputMode="numeric" className="figures text-right" {...register("seed")} />}
+                <Input inputMode="numeric" className="figures text-right" {...register("seed")} />
               </Field>
             </div>
             <div className="flex items-center gap-3">
@@ -186,6 +183,7 @@ export function AdvisorPanel({ engagementId, sampleId, initial, mayRun, currency
           </form>
         )}
         {message && <Alert tone={message.tone}>{message.text}</Alert>}
+        {shownRead.error && <Alert tone="error">{shownRead.error.message}</Alert>}
         {shown?.result && (
           <div className="space-y-3 border-t border-ink-line pt-4">
             <div className="flex flex-wrap items-center justify-between gap-2">
@@ -195,7 +193,7 @@ export function AdvisorPanel({ engagementId, sampleId, initial, mayRun, currency
             </div>
             {canRun && state.adopted?.id !== shown.id && (
               <Field label="Reason for keeping this run (required when it recommends another estimator or none)" hint="Printed beside the run in the workpaper">
-                {({ id, describedBy }) => <Input id={id} aria-describedby={describedBy} value={keepReason} maxLength={4000} onChange={(e) => setKeepReason(e.target.value)} />}
+                <Input value={keepReason} maxLength={4000} onChange={(e) => setKeepReason(e.target.value)} />
               </Field>
             )}
             {state.adopted?.id === shown.id && state.adopted.keptReason && <p className="text-sm text-ink-soft">Kept with this reason: {state.adopted.keptReason}</p>}

@@ -3,9 +3,10 @@ import { ADVISED_ESTIMATOR_LABELS } from "@/lib/sampling/advise";
 import type { AdvisorRunRecord } from "@/lib/data/advisor-runs";
 import { boundInWords, scenarioInWords } from "@/lib/advisor/describe";
 import { Badge } from "@/components/ui/badge";
-import { ESTIMATOR_COLOURS, EstimateHistogram, SizeChart, compactFigure } from "./advisor-charts";
 import { formatCount, formatMoney } from "@/lib/format/number";
+import { EstimatorSwatch, EstimateHistogram, SizeChart, compactFigure } from "./advisor-charts";
 import { EstimateZoom } from "./estimate-zoom";
+import { Table, THead, Th, Td } from "@/components/ui/table";
 
 const pct = (v: number) => `${(v * 100).toFixed(1)}%`;
 
@@ -40,29 +41,29 @@ export function AdvisorResults({ run, currency }: { run: AdvisorRunRecord; curre
       </dl>
 
       <div className="overflow-x-auto">
-        <table className="w-full text-sm">
+        <Table density="compact">
           <caption className="sr-only">Estimator performance by sample size</caption>
-          <thead className="text-left text-xs uppercase tracking-wider text-ink-soft">
-            <tr><th className="py-1.5 pr-3">n</th><th className="pr-3">Estimator</th><th className="pr-3 text-right">Bias</th><th className="pr-3 text-right">Std deviation</th><th className="pr-3 text-right">RMSE</th><th className="pr-3 text-right">Coverage</th><th className="text-right">Mean allowance</th></tr>
-          </thead>
+          <THead>
+            <tr><Th>n</Th><Th>Estimator</Th><Th numeric>Bias</Th><Th numeric>Std deviation</Th><Th numeric>RMSE</Th><Th numeric>Coverage</Th><Th numeric>Mean allowance</Th></tr>
+          </THead>
           <tbody>
             {sizes.flatMap((n) => result.cells.filter((c) => c.sampleSize === n).map((c, i) => {
               const best = n === rec.sampleSize && c.estimator === rec.recommended;
               const short = c.performance.coverage < rec.coverageFloor;
               return (
                 <tr key={`${n}-${c.estimator}`} className={`border-t border-ink-line ${best ? "bg-ledger-50" : ""}`}>
-                  <td className="figures py-1.5 pr-3 text-ink-soft">{i === 0 ? n : ""}</td>
-                  <td className="pr-3 text-ink">{ADVISED_ESTIMATOR_LABELS[c.estimator]} {best && <Badge tone="green">recommended</Badge>}</td>
-                  <td className="figures pr-3 text-right">{formatMoney(c.performance.bias)}</td>
-                  <td className="figures pr-3 text-right">{formatMoney(c.performance.standardDeviation)}</td>
-                  <td className="figures pr-3 text-right font-medium">{formatMoney(c.performance.rmse)}</td>
-                  <td className={`figures pr-3 text-right ${short ? "text-brick-700" : ""}`}>{pct(c.performance.coverage)}</td>
-                  <td className="figures text-right">{formatMoney(c.performance.meanAllowance)}</td>
+                  <Td className="figures text-ink-soft">{i === 0 ? n : ""}</Td>
+                  <Td className="text-ink">{ADVISED_ESTIMATOR_LABELS[c.estimator]} {best && <Badge tone="green">recommended</Badge>}</Td>
+                  <Td numeric>{formatMoney(c.performance.bias)}</Td>
+                  <Td numeric>{formatMoney(c.performance.standardDeviation)}</Td>
+                  <Td numeric className="font-medium">{formatMoney(c.performance.rmse)}</Td>
+                  <Td className={`figures pr-3 text-right ${short ? "text-brick-700" : ""}`}>{pct(c.performance.coverage)}</Td>
+                  <Td numeric>{formatMoney(c.performance.meanAllowance)}</Td>
                 </tr>
               );
             }))}
           </tbody>
-        </table>
+        </Table>
         <p className="mt-1 text-xs text-ink-faint">Coverage: share of trials whose bound held the true audited total. Below {pct(rec.coverageFloor)} (the confidence less two Monte Carlo standard errors) counts as short.</p>
       </div>
 
@@ -82,7 +83,7 @@ export function AdvisorResults({ run, currency }: { run: AdvisorRunRecord; curre
       )}
       {sizes.length > 1 && (
         <p className="flex flex-wrap gap-3 text-xs text-ink-soft">
-          {estimators.map((e) => <span key={e} className="inline-flex items-center gap-1.5"><span aria-hidden className="inline-block h-2.5 w-2.5 rounded-sm" style={{ background: ESTIMATOR_COLOURS[e] }} />{ADVISED_ESTIMATOR_LABELS[e]}</span>)}
+          {estimators.map((e) => <span key={e} className="inline-flex items-center gap-1.5"><EstimatorSwatch estimator={e} />{ADVISED_ESTIMATOR_LABELS[e]}</span>)}
         </p>
       )}
       {result.notes.map((n) => <p key={n} className="text-xs text-ink-soft">{n}</p>)}

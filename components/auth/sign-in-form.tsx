@@ -29,10 +29,10 @@ export function SignInForm({ callbackUrl }: { callbackUrl: string }) {
     <form onSubmit={onSubmit} noValidate className="space-y-2">
       {failure && <Alert>{failure}</Alert>}
       <Field label="E-mail" error={errors.email?.message}>
-        {({ id, describedBy, invalid }) => <Input id={id} type="email" autoComplete="username" aria-describedby={describedBy} aria-invalid={invalid} {...register("email")} />}
+        <Input type="email" autoComplete="username" {...register("email")} />
       </Field>
       <Field label="Password" error={errors.password?.message}>
-        {({ id, describedBy, invalid }) => <Input id={id} type="password" autoComplete="current-password" aria-describedby={describedBy} aria-invalid={invalid} {...register("password")} />}
+        <Input type="password" autoComplete="current-password" {...register("password")} />
       </Field>
       <Button type="submit" className="w-full" disabled={isSubmitting}>{isSubmitting ? "Signing in…" : "Sign in"}</Button>
     </form>

@@ -8,7 +8,7 @@ import { CreateEngagementSchema } from "@/lib/validation/engagement";
 import { Field, Input } from "@/components/ui/field";
 import { Button } from "@/components/ui/button";
 import { Alert } from "@/components/ui/alert";
-import { api, ApiError } from "@/components/ui/api";
+import { apiFetch, ApiError } from "@/components/ui/api";
 import type { EngagementRecord } from "@/lib/data/engagements";
 
 type FormIn = z.input<typeof CreateEngagementSchema>;
@@ -25,7 +25,7 @@ export function EngagementForm() {
   const onSubmit = handleSubmit(async (values) => {
     setFailure(null);
     try {
-      const { engagement } = await api<{ engagement: EngagementRecord }>("/api/engagements", { body: values });
+      const { engagement } = await apiFetch<{ engagement: EngagementRecord }>("/api/engagements", { body: values });
       router.push(`/engagements/${engagement.id}`);
     } catch (err) {
       if (err instanceof ApiError && err.fields) {
@@ -37,7 +37,7 @@ export function EngagementForm() {
 
   const text = (name: keyof FormIn, label: string, props: React.InputHTMLAttributes<HTMLInputElement> = {}, hint?: string) => (
     <Field label={label} error={errors[name]?.message} hint={hint}>
-      {({ id, describedBy, invalid }) => <Input id={id} aria-describedby={describedBy} aria-invalid={invalid} {...props} {...register(name)} />}
+      <Input {...props} {...register(name)} />
     </Field>
   );
 

@@ -1,13 +1,12 @@
 "use client";
 import Link from "next/link";
-import { useEffect, useState } from "react";
 import type { ColumnDef } from "@tanstack/react-table";
 import { DataTable } from "@/components/ui/data-table";
 import { EmptyState } from "@/components/ui/card";
 import { Badge } from "@/components/ui/badge";
 import { Amount } from "@/components/ui/amount";
 import { Alert } from "@/components/ui/alert";
-import { api } from "@/components/ui/api";
+import { useApi } from "@/components/ui/use-api";
 import type { EngagementForUser } from "@/lib/data/engagements";
 import { statusTone, STATUS_LABELS } from "./status";
 import { formatDate } from "@/lib/format/date";
@@ -34,12 +33,9 @@ const columns: ColumnDef<EngagementForUser, unknown>[] = [
 ];
 
 export function EngagementList() {
-  const [data, setData] = useState<EngagementForUser[] | null>(null);
-  const [error, setError] = useState<string | null>(null);
-  useEffect(() => {
-    api<{ engagements: EngagementForUser[] }>("/api/engagements").then((r) => setData(r.engagements), (e: Error) => setError(e.message));
-  }, []);
-  if (error) return <Alert>{error}</Alert>;
+  const { data: answer, error } = useApi<{ engagements: EngagementForUser[] }>("/api/engagements");
+  const data = answer?.engagements;
+  if (error && !data) return <Alert>{error.message}</Alert>;
   if (!data) return <div aria-busy="true" className="h-40 animate-pulse rounded-card bg-paper-sunk" />;
   return (
     <DataTable

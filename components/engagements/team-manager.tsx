@@ -1,27 +1,27 @@
 "use client";
-import { useEffect, useState } from "react";
+import { useState } from "react";
 import { ENGAGEMENT_ROLES, ROLE_LABELS, defaultRoleForGrade, hasAtLeastRole, type EngagementRole } from "@/lib/auth/roles";
 import type { MemberRecord } from "@/lib/data/members";
 import type { UserRecord } from "@/lib/data/users";
-import { api } from "@/components/ui/api";
+import { apiFetch } from "@/components/ui/api";
+import { useApi } from "@/components/ui/use-api";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { Select } from "@/components/ui/field";
+import { Table, THead, Th, Td } from "@/components/ui/table";
 
 interface Props { engagementId: number; myRole: EngagementRole; myUserId: number; initialMembers: MemberRecord[] }
 
 export function TeamManager({ engagementId, myRole, myUserId, initialMembers }: Props) {
   const [members, setMembers] = useState(initialMembers);
-  const [people, setPeople] = useState<UserRecord[]>([]);
   const [message, setMessage] = useState<{ tone: "error" | "success"; text: string } | null>(null);
   const [candidate, setCandidate] = useState("");
   const canManage = hasAtLeastRole(myRole, "manager");
   const grantable = ENGAGEMENT_ROLES.filter((r) => hasAtLeastRole(myRole, r));
   const base = `/api/engagements/${engagementId}/members`;
 
-  useEffect(() => {
-    if (canManage) api<{ users: UserRecord[] }>("/api/users").then((r) => setPeople(r.users.filter((u) => u.active)), () => setPeople([]));
-  }, [canManage]);
+  const { data: firm } = useApi<{ users: UserRecord[] }>(canManage ? "/api/users" : null);
+  const people = firm?.users.filter((u) => u.active) ?? [];
 
   async function run(action: () => Promise<{ members: MemberRecord[] }>, done: string) {
     setMessage(null);
@@ -40,39 +40,39 @@ export function TeamManager({ engagementId, myRole, myUserId, initialMembers }: 
   return (
     <div className="space-y-4">
       {message && <Alert tone={message.tone}>{message.text}</Alert>}
-      <table className="w-full text-sm" aria-label="Team">
-        <thead className="text-left text-xs uppercase tracking-wider text-ink-soft">
-          <tr><th className="py-2">Name</th><th>E-mail</th><th>Role</th><th className="sr-only">Actions</th></tr>
-        </thead>
+      <Table label="Team" density="list">
+        <THead>
+          <tr><Th>Name</Th><Th>E-mail</Th><Th>Role</Th><Th className="sr-only">Actions</Th></tr>
+        </THead>
         <tbody>
           {members.map((m) => {
             const editable = canManage && hasAtLeastRole(myRole, m.role);
             return (
               <tr key={m.userId} className="border-t border-ink-line/70">
-                <td className="py-2.5 font-medium">{m.name}{m.userId === myUserId && <span className="ml-2 text-xs text-ink-faint">(you)</span>}</td>
-                <td className="text-ink-soft">{m.email}</td>
-                <td className="w-44">
+                <Td className="font-medium">{m.name}{m.userId === myUserId && <span className="ml-2 text-xs text-ink-faint">(you)</span>}</Td>
+                <Td className="text-ink-soft">{m.email}</Td>
+                <Td className="w-44">
                   {editable ? (
-                    <Select aria-label={`Role of ${m.name}`} value={m.role} onChange={(e) => run(() => api(`${base}/${m.userId}`, { method: "PATCH", body: { role: e.target.value } }), `${m.name} is now ${e.target.value}.`)}>
+                    <Select aria-label={`Role of ${m.name}`} value={m.role} onChange={(e) => run(() => apiFetch(`${base}/${m.userId}`, { method: "PATCH", body: { role: e.target.value } }), `${m.name} is now ${e.target.value}.`)}>
                       {grantable.map((r) => <option key={r} value={r}>{ROLE_LABELS[r]}</option>)}
                     </Select>
                   ) : ROLE_LABELS[m.role]}
-                </td>
-                <td className="w-28 text-right">
-                  {editable && <Button variant="ghost" onClick={() => run(() => api(`${base}/${m.userId}`, { method: "DELETE" }), `${m.name} was removed from the team.`)}>Remove</Button>}
-                </td>
+                </Td>
+                <Td className="w-28 text-right">
+                  {editable && <Button variant="ghost" onClick={() => run(() => apiFetch(`${base}/${m.userId}`, { method: "DELETE" }), `${m.name} was removed from the team.`)}>Remove</Button>}
+                </Td>
               </tr>
             );
           })}
         </tbody>
-      </table>
+      </Table>
       {canManage && (
         <form className="flex flex-wrap items-end gap-3 border-t border-ink-line pt-4" onSubmit={(e) => {
           e.preventDefault();
           if (!chosen) return;
           const suggested = defaultRoleForGrade(chosen.grade);
           const role: EngagementRole = suggested === "client" ? "viewer" : suggested;
-          void run(() => api(base, { body: { userId: chosen.id, role: hasAtLeastRole(myRole, role) ? role : "staff" } }), `${chosen.name} joined the team.`);
+          void run(() => apiFetch(base, { body: { userId: chosen.id, role: hasAtLeastRole(myRole, role) ? role : "staff" } }), `${chosen.name} joined the team.`);
           setCandidate("");
         }}>
           <label className="text-sm">

@@ -1,7 +1,8 @@
 "use client";
 import { useState } from "react";
 import { useRouter } from "next/navigation";
-import { api } from "@/components/ui/api";
+import { apiFetch, withFileName } from "@/components/ui/api";
+import { useApi } from "@/components/ui/use-api";
 import { Alert } from "@/components/ui/alert";
 
 interface EvidenceFile { id: number; fileName: string; sizeBytes: number; uploadedByName: string }
@@ -9,19 +10,20 @@ interface EvidenceFile { id: number; fileName: string; sizeBytes: number; upload
 /** An entry's evidence files: listed when opened, added by staff and above (the same store and checks as sample items). */
 export function EntryEvidence({ engagementId, entryId, count, mayWrite }: { engagementId: number; entryId: number; count: number; mayWrite: boolean }) {
   const router = useRouter();
-  const [files, setFiles] = useState<EvidenceFile[] | null>(null);
-  const [error, setError] = useState<string | null>(null);
+  const [opened, setOpened] = useState(false);
+  const [failure, setFailure] = useState<string | null>(null);
   const base = `/api/engagements/${engagementId}/misstatements/entries/${entryId}/evidence`;
-  const load = async () => setFiles((await api<{ evidence: EvidenceFile[] }>(base)).evidence);
+  const evidence = useApi<{ evidence: EvidenceFile[] }>(opened ? base : null);
+  const files = evidence.data?.evidence ?? null;
+  const error = failure ?? evidence.error?.message ?? null;
   async function upload(file: File) {
-    setError(null);
-    const res = await fetch(`${base}?fileName=${encodeURIComponent(file.name)}`, { method: "POST", body: file });
-    if (!res.ok) setError(((await res.json().catch(() => ({}))) as { error?: { message?: string } }).error?.message ?? `Upload failed (${res.status})`);
-    await load();
+    setFailure(null);
+    await apiFetch(withFileName(base, file), { body: file }).catch((err: Error) => setFailure(err.message));
+    await evidence.mutate();
     router.refresh();
   }
   return (
-    <details onToggle={(e) => { if ((e.target as HTMLDetailsElement).open && files === null) void load().catch((err: Error) => setError(err.message)); }}>
+    <details onToggle={(e) => { if ((e.target as HTMLDetailsElement).open) setOpened(true); }}>
       <summary className="cursor-pointer text-xs text-ledger-700">Evidence ({count})</summary>
       <div className="mt-1 space-y-1 text-xs">
         {error && <Alert>{error}</Alert>}

@@ -4,7 +4,7 @@ import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import type { z } from "zod";
 import { EntrySchema } from "@/lib/validation/misstatements";
-import { Field, Input, Select } from "@/components/ui/field";
+import { Field, Input, Select, Textarea } from "@/components/ui/field";
 import { Button } from "@/components/ui/button";
 import { Alert } from "@/components/ui/alert";
 import { ApiError } from "@/components/ui/api";
@@ -41,7 +41,7 @@ export function EntryForm({ engagementId, editing, onDone }: { engagementId: num
   });
   const field = (name: "account" | "assertion" | "amount" | "incomeEffect" | "balanceEffect", label: string, numeric = false) => (
     <Field label={label} error={errors[name]?.message} hint={numeric ? HINTS[name as keyof typeof HINTS] : undefined}>
-      {({ id, describedBy, invalid }) => <Input id={id} aria-describedby={describedBy} aria-invalid={invalid} inputMode={numeric ? "decimal" : undefined} className={numeric ? "figures text-right" : ""} {...register(name)} />}
+      <Input inputMode={numeric ? "decimal" : undefined} className={numeric ? "figures text-right" : ""} {...register(name)} />
     </Field>
   );
   return (
@@ -49,19 +49,17 @@ export function EntryForm({ engagementId, editing, onDone }: { engagementId: num
       aria-label={editing ? "Edit misstatement" : "Add a misstatement"} className="grid gap-x-6 gap-y-1 sm:grid-cols-2 lg:grid-cols-3">
       {message && <div className="sm:col-span-2 lg:col-span-3"><Alert tone={message.tone}>{message.text}</Alert></div>}
       <Field label="Kind" error={errors.kind?.message}>
-        {({ id, describedBy, invalid }) => (
-          <Select id={id} aria-describedby={describedBy} aria-invalid={invalid} {...register("kind")}>
-            <option value="factual">Factual — found outside sampling</option>
-            <option value="judgemental">Judgemental — a difference in an estimate</option>
-            <option value="prior-period">Prior period — uncorrected, carried forward</option>
-          </Select>
-        )}
+        <Select {...register("kind")}>
+          <option value="factual">Factual — found outside sampling</option>
+          <option value="judgemental">Judgemental — a difference in an estimate</option>
+          <option value="prior-period">Prior period — uncorrected, carried forward</option>
+        </Select>
       </Field>
       {field("account", "Account")}
       {field("assertion", "Assertion")}
       <div className="sm:col-span-2 lg:col-span-3">
         <Field label="Description" error={errors.description?.message}>
-          {({ id, describedBy, invalid }) => <textarea id={id} aria-describedby={describedBy} aria-invalid={invalid} rows={2} className="w-full rounded-md border border-ink-line bg-paper-raised px-3 py-2 text-sm focus:border-ledger-500 focus:outline-none focus:ring-2 focus:ring-ledger-100" {...register("description")} />}
+          <Textarea rows={2} {...register("description")} />
         </Field>
       </div>
       {field("amount", "Amount", true)}
@@ -72,8 +70,8 @@ export function EntryForm({ engagementId, editing, onDone }: { engagementId: num
       </div>
       {corrected && (
         <>
-          <Field label="Corrected on" error={errors.corrected?.on?.message}>{({ id, describedBy, invalid }) => <Input id={id} type="date" aria-describedby={describedBy} aria-invalid={invalid} {...register("corrected.on")} />}</Field>
-          <Field label="Client's adjustment reference" error={errors.corrected?.reference?.message}>{({ id, describedBy, invalid }) => <Input id={id} aria-describedby={describedBy} aria-invalid={invalid} {...register("corrected.reference")} />}</Field>
+          <Field label="Corrected on" error={errors.corrected?.on?.message}><Input type="date" {...register("corrected.on")} /></Field>
+          <Field label="Client's adjustment reference" error={errors.corrected?.reference?.message}><Input {...register("corrected.reference")} /></Field>
         </>
       )}
       <div className="flex gap-2 pt-2 sm:col-span-2 lg:col-span-3">

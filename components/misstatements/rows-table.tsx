@@ -10,6 +10,7 @@ import { CorrectionForm } from "./correction-form";
 import { EntryEvidence } from "./entry-evidence";
 import { EntryForm, type EntryDefaults } from "./entry-form";
 import { useSummaryAction } from "./use-summary-action";
+import { Table, THead, Th, Td } from "@/components/ui/table";
 
 const GROUPS: { title: string; test: (r: SummaryRow) => boolean }[] = [
   { title: "Uncorrected — accumulated", test: (r) => r.accumulated },
@@ -40,33 +41,33 @@ export function RowsTable({ view, mayEdit }: { view: SummaryView; mayEdit: boole
         const rows = view.rows.filter(g.test);
         if (rows.length === 0) return null;
         return (
-          <table key={g.title} className="w-full text-sm">
+          <Table key={g.title} density="compact">
             <caption className="mb-2 text-left font-semibold">{g.title}</caption>
-            <thead>
+            <THead>
               <tr className="border-b border-ink-line text-left text-xs uppercase tracking-wider text-ink-soft">
-                <th scope="col" className="py-2 pr-2 font-medium">Ref</th><th scope="col" className="py-2 pr-2 font-medium">Kind</th><th scope="col" className="py-2 pr-2 font-medium">Account · assertion</th>
-                <th scope="col" className="py-2 pr-2 font-medium">Description</th><th scope="col" className="py-2 pr-2 text-right font-medium">Amount</th><th scope="col" className="py-2 pr-2 text-right font-medium">Income statement</th>
-                <th scope="col" className="py-2 pr-2 text-right font-medium">Balance sheet</th><th scope="col" className="py-2 pr-2 text-right font-medium">Allowance</th><th scope="col" className="py-2 font-medium">Treatment</th>
+                <Th className="font-medium">Ref</Th><Th className="font-medium">Kind</Th><Th className="font-medium">Account · assertion</Th>
+                <Th className="font-medium">Description</Th><Th numeric className="font-medium">Amount</Th><Th numeric className="font-medium">Income statement</Th>
+                <Th numeric className="font-medium">Balance sheet</Th><Th numeric className="font-medium">Allowance</Th><Th className="font-medium">Treatment</Th>
               </tr>
-            </thead>
+            </THead>
             <tbody>
               {rows.map((r) => (
                 <tr key={r.key} id={r.entryId ? `entry-${r.entryId}` : undefined} className="border-b border-ink-line/60 align-top" data-testid={`summary-row-${r.key}`}>
-                  <td className="py-2 pr-2"><Link href={r.link} className="font-medium text-ledger-700 underline">{r.reference}</Link></td>
-                  <td className="py-2 pr-2">{KIND_LABELS[r.kind]}</td>
-                  <td className="py-2 pr-2">{r.account}<div className="text-xs text-ink-faint">{r.assertion}</div></td>
-                  <td className="max-w-md py-2 pr-2">
+                  <Td><Link href={r.link} className="font-medium text-ledger-700 underline">{r.reference}</Link></Td>
+                  <Td>{KIND_LABELS[r.kind]}</Td>
+                  <Td>{r.account}<div className="text-xs text-ink-faint">{r.assertion}</div></Td>
+                  <Td className="max-w-md">
                     {r.description}
                     {r.allowanceNote && <div className="text-xs text-ink-faint">{r.allowanceNote}</div>}
                     {r.frozen && <div className="text-xs text-ink-faint">Frozen at the sample&apos;s lock.</div>}
                     {r.source === "entry" && <EntryEvidence engagementId={view.engagement.id} entryId={r.entryId!} count={r.evidenceCount} mayWrite={mayEdit} />}
                     {correcting === r.key && <CorrectionForm busy={busy} onSave={(c) => correct(r, c)} onCancel={() => setCorrecting(null)} />}
-                  </td>
-                  <td className="py-2 pr-2 text-right">{money(r.amount)}</td>
-                  <td className="py-2 pr-2 text-right">{money(r.incomeEffect)}</td>
-                  <td className="py-2 pr-2 text-right">{money(r.balanceEffect)}</td>
-                  <td className="py-2 pr-2 text-right">{money(r.allowance)}</td>
-                  <td className="py-2">
+                  </Td>
+                  <Td className="text-right">{money(r.amount)}</Td>
+                  <Td className="text-right">{money(r.incomeEffect)}</Td>
+                  <Td className="text-right">{money(r.balanceEffect)}</Td>
+                  <Td className="text-right">{money(r.allowance)}</Td>
+                  <Td>
                     <div className="text-xs">{treatmentOf(r)}</div>
                     {mayEdit && r.source === "sample" && (r.corrected
                       ? <Button variant="ghost" className="mt-1 px-2 py-1 text-xs" disabled={busy} onClick={() => correct(r, null)}>Not corrected</Button>
@@ -78,11 +79,11 @@ export function RowsTable({ view, mayEdit }: { view: SummaryView; mayEdit: boole
                           onClick={() => { if (window.confirm(`Remove ${r.reference} from the summary? It stays in the audit trail.`)) void act(`/entries/${r.entryId}`, { method: "DELETE" }, "Entry removed."); }}>Remove</Button>
                       </div>
                     )}
-                  </td>
+                  </Td>
                 </tr>
               ))}
             </tbody>
-          </table>
+          </Table>
         );
       })}
     </div>

@@ -20,10 +20,10 @@ export function SettingsForm({ engagementId, materiality }: { engagementId: numb
     <form onSubmit={(e) => { e.preventDefault(); setErrors({}); save(); }} className="grid gap-x-6 sm:grid-cols-[1fr_1fr_auto] sm:items-start" aria-label="Thresholds">
       {message && <div className="sm:col-span-3"><Alert tone={message.tone}>{message.text}</Alert></div>}
       <Field label="Clearly trivial threshold" error={errors.clearlyTrivial} hint="Entries below it are listed but not accumulated (AU-C 450 / ISA 450).">
-        {({ id, describedBy, invalid }) => <Input id={id} aria-describedby={describedBy} aria-invalid={invalid} inputMode="decimal" className="figures text-right" value={trivial} onChange={(e) => setTrivial(e.target.value)} />}
+        <Input inputMode="decimal" className="figures text-right" value={trivial} onChange={(e) => setTrivial(e.target.value)} />
       </Field>
       <Field label="Approaching above (% of performance materiality)" error={errors.approachingShare} hint="Default 75 % (common practice).">
-        {({ id, describedBy, invalid }) => <Input id={id} aria-describedby={describedBy} aria-invalid={invalid} inputMode="decimal" className="figures text-right" value={share} onChange={(e) => setShare(e.target.value)} />}
+        <Input inputMode="decimal" className="figures text-right" value={share} onChange={(e) => setShare(e.target.value)} />
       </Field>
       <div className="pt-6"><Button type="submit" variant="secondary" disabled={busy}>Save thresholds</Button></div>
     </form>

@@ -1,6 +1,7 @@
 import type { SummaryView } from "@/lib/misstatements/types";
 import { Amount } from "@/components/ui/amount";
 import { Card } from "@/components/ui/card";
+import { Table, THead, Th, Td } from "@/components/ui/table";
 
 function Line({ label, value, strong }: { label: string; value: string; strong?: boolean }) {
   return (
@@ -38,25 +39,25 @@ export function TotalsCard({ view }: { view: SummaryView }) {
           <Line label={`Clearly trivial (${t.clearlyTrivial.count}, listed only)`} value={t.clearlyTrivial.total} />
         </dl>
         <div className="space-y-4">
-          <table className="w-full text-sm">
+          <Table density="compact">
             <caption className="mb-2 text-left text-sm font-semibold">Prior-period misstatements: two approaches, never mixed</caption>
-            <thead>
+            <THead>
               <tr className="border-b border-ink-line text-xs uppercase tracking-wider text-ink-soft">
-                <th scope="col" className="py-1.5 text-left font-medium"><span className="sr-only">Figure</span></th>
-                <th scope="col" className="py-1.5 text-right font-medium">Income statement (rollover)</th>
-                <th scope="col" className="py-1.5 text-right font-medium">Balance sheet (iron curtain)</th>
+                <Th className="font-medium"><span className="sr-only">Figure</span></Th>
+                <Th numeric className="font-medium">Income statement (rollover)</Th>
+                <Th numeric className="font-medium">Balance sheet (iron curtain)</Th>
               </tr>
-            </thead>
+            </THead>
             <tbody>
               {both.map(([label, a, b, strong]) => (
                 <tr key={label} className={`border-b border-ink-line/60 ${strong ? "font-semibold" : ""}`}>
-                  <th scope="row" className={`py-1.5 text-left ${strong ? "" : "font-normal text-ink-soft"}`}>{label}</th>
-                  <td className="py-1.5 text-right"><Amount value={a} /></td>
-                  <td className="py-1.5 text-right"><Amount value={b} /></td>
+                  <Th scope="row" className={`py-1.5 text-left ${strong ? "" : "font-normal text-ink-soft"}`}>{label}</Th>
+                  <Td className="text-right"><Amount value={a} /></Td>
+                  <Td className="text-right"><Amount value={b} /></Td>
                 </tr>
               ))}
             </tbody>
-          </table>
+          </Table>
           <dl>
             <Line label={`Sum of sampling allowances (${t.allowance.samples} sample${t.allowance.samples === 1 ? "" : "s"}, conservative)`} value={t.allowance.sum} />
             <Line label="Larger total + allowances" value={t.upperEstimate} />

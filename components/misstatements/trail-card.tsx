@@ -1,6 +1,7 @@
 import type { SummaryView } from "@/lib/misstatements/types";
 import { Card } from "@/components/ui/card";
 import { formatDateTime } from "@/lib/format/date";
+import { Table, THead, Th, Td } from "@/components/ui/table";
 
 /** Who changed what on the summary, and when (every write is in the audit log). */
 export function TrailCard({ view }: { view: SummaryView }) {
@@ -8,22 +9,22 @@ export function TrailCard({ view }: { view: SummaryView }) {
     <Card title="Audit trail">
       <details>
         <summary className="cursor-pointer text-sm text-ledger-700">{view.trail.length} recorded change{view.trail.length === 1 ? "" : "s"}</summary>
-        <table className="mt-3 w-full text-xs">
-          <thead>
+        <Table density="compact" className="mt-3 text-xs">
+          <THead>
             <tr className="border-b border-ink-line text-left uppercase tracking-wider text-ink-soft">
-              <th scope="col" className="py-1.5 pr-2 font-medium">When</th><th scope="col" className="py-1.5 pr-2 font-medium">Who</th><th scope="col" className="py-1.5 pr-2 font-medium">Action</th>
-              <th scope="col" className="py-1.5 pr-2 font-medium">Subject</th><th scope="col" className="py-1.5 font-medium">After</th>
+              <Th className="font-medium">When</Th><Th className="font-medium">Who</Th><Th className="font-medium">Action</Th>
+              <Th className="font-medium">Subject</Th><Th className="font-medium">After</Th>
             </tr>
-          </thead>
+          </THead>
           <tbody>
             {view.trail.slice().reverse().map((t, i) => (
               <tr key={i} className="border-b border-ink-line/60 align-top">
-                <td className="whitespace-nowrap py-1.5 pr-2 figures">{formatDateTime(t.at)}</td><td className="py-1.5 pr-2">{t.who}</td>
-                <td className="py-1.5 pr-2">{t.action}</td><td className="py-1.5 pr-2">{t.subject}</td><td className="break-all py-1.5 font-mono">{t.after}</td>
+                <Td className="figures whitespace-nowrap">{formatDateTime(t.at)}</Td><Td>{t.who}</Td>
+                <Td>{t.action}</Td><Td>{t.subject}</Td><Td className="break-all font-mono">{t.after}</Td>
               </tr>
             ))}
           </tbody>
-        </table>
+        </Table>
       </details>
     </Card>
   );

@@ -1,7 +1,7 @@
 "use client";
 import { useState } from "react";
 import { useRouter } from "next/navigation";
-import { api } from "@/components/ui/api";
+import { apiFetch } from "@/components/ui/api";
 
 /** Calls a summary route, then refreshes the server-rendered view; keeps the last message for an Alert. */
 export function useSummaryAction(engagementId: number) {
@@ -12,7 +12,7 @@ export function useSummaryAction(engagementId: number) {
     setBusy(true);
     setMessage(null);
     try {
-      await api(`/api/engagements/${engagementId}/misstatements${path}`, init);
+      await apiFetch(`/api/engagements/${engagementId}/misstatements${path}`, init);
       setMessage({ tone: "success", text: done });
       router.refresh();
       return true;

@@ -7,7 +7,7 @@ import {
 import type { PopulationItem } from "@/lib/data/population-items";
 import { Amount } from "@/components/ui/amount";
 import { Button } from "@/components/ui/button";
-import { api } from "@/components/ui/api";
+import { apiFetch } from "@/components/ui/api";
 import { SortableHead, alignOf } from "@/components/ui/data-table";
 import { formatCount } from "@/lib/format/number";
 
@@ -69,7 +69,7 @@ export function ItemsGrid({ url, extraColumns, hasDescription, hasDate, pick }: 
     });
     if (query) params.set("q", query);
     setBusy(true);
-    api<Page>(`${url}?${params}`).then(
+    apiFetch<Page>(`${url}?${params}`).then(
       (r) => { if (live) { setPage(r); setError(null); setBusy(false); } },
       (e: Error) => { if (live) { setError(e.message); setBusy(false); } },
     );

@@ -1,5 +1,6 @@
 import { Alert } from "@/components/ui/alert";
 import { formatCount } from "@/lib/format/number";
+import { Table, THead, Th, Td } from "@/components/ui/table";
 
 type Problem = { row: number; column: string | null; reason: string };
 
@@ -20,24 +21,24 @@ export function LoadProblems({ problems, problemCount, downloadHref, fileName }:
         <a href={downloadHref} download className="text-sm font-medium text-ledger-600 link">Download all problems (CSV)</a>
       </div>
       <div className="max-h-[28rem] overflow-auto rounded-card border border-ink-line bg-paper-raised">
-        <table className="w-full text-sm" aria-label="Problems found">
-          <thead className="sticky top-0 bg-paper-sunk text-left text-xs uppercase tracking-wider text-ink-soft">
+        <Table label="Problems found" density="boxed">
+          <THead className="sticky top-0 bg-paper-sunk">
             <tr>
-              <th scope="col" className="px-4 py-2 text-right font-semibold">Row</th>
-              <th scope="col" className="px-4 py-2 font-semibold">Column</th>
-              <th scope="col" className="px-4 py-2 font-semibold">Problem</th>
+              <Th numeric>Row</Th>
+              <Th>Column</Th>
+              <Th>Problem</Th>
             </tr>
-          </thead>
+          </THead>
           <tbody>
             {problems.map((p, i) => (
               <tr key={`${p.row}-${p.column}-${i}`} className="border-t border-ink-line/60">
-                <td className="figures px-4 py-2 text-right">{p.row}</td>
-                <td className="px-4 py-2">{p.column ?? <span className="text-ink-faint">whole row</span>}</td>
-                <td className="px-4 py-2">{p.reason}</td>
+                <Td numeric>{p.row}</Td>
+                <Td>{p.column ?? <span className="text-ink-faint">whole row</span>}</Td>
+                <Td>{p.reason}</Td>
               </tr>
             ))}
           </tbody>
-        </table>
+        </Table>
       </div>
     </div>
   );

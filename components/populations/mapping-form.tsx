@@ -57,12 +57,10 @@ export function MappingForm({ upload, replaceable, disabled, onSubmit }: Props) 
 
   const columnSelect = (name: "itemRefColumn" | "bookValueColumn" | "descriptionColumn" | "dateColumn", label: string, optional: boolean, hint?: string) => (
     <Field label={label} error={errors.mapping?.[name]?.message} hint={hint}>
-      {({ id, describedBy, invalid }) => (
-        <Select id={id} aria-describedby={describedBy} aria-invalid={invalid} disabled={disabled} {...register(`mapping.${name}`)}>
-          <option value="">{optional ? "— none —" : "Choose a column…"}</option>
-          {inspection.headers.map((h) => <option key={h} value={h}>{h}</option>)}
-        </Select>
-      )}
+      <Select disabled={disabled} {...register(`mapping.${name}`)}>
+        <option value="">{optional ? "— none —" : "Choose a column…"}</option>
+        {inspection.headers.map((h) => <option key={h} value={h}>{h}</option>)}
+      </Select>
     </Field>
   );
 
@@ -107,36 +105,30 @@ export function MappingForm({ upload, replaceable, disabled, onSubmit }: Props) 
 
       <div className="grid gap-x-6 gap-y-1 sm:grid-cols-2 lg:grid-cols-4">
         <Field label="Number format" hint={inspection.detectedNumberFormat ? "Detected from the file; change it if the amounts read wrongly" : "Nothing in the file decides it; check the preview"}>
-          {({ id, describedBy }) => (
-            <Select id={id} aria-describedby={describedBy} disabled={disabled} {...register("mapping.numberFormat")}>
-              <option value="dot-decimal">1,234.56 — dot for decimals</option>
-              <option value="comma-decimal">1.234,56 — comma for decimals</option>
-            </Select>
-          )}
+          <Select disabled={disabled} {...register("mapping.numberFormat")}>
+            <option value="dot-decimal">1,234.56 — dot for decimals</option>
+            <option value="comma-decimal">1.234,56 — comma for decimals</option>
+          </Select>
         </Field>
         <Field label="Date order" hint="How a date such as 03/04/2026 is read; ISO dates need no choice">
-          {({ id, describedBy }) => (
-            <Select id={id} aria-describedby={describedBy} disabled={disabled} {...register("mapping.dateOrder")}>
-              <option value="">{inspection.detectedDateOrder ? "As detected" : "ISO dates only (2026-04-03)"}</option>
-              <option value="day-first">Day first — 31/12/2026</option>
-              <option value="month-first">Month first — 12/31/2026</option>
-            </Select>
-          )}
+          <Select disabled={disabled} {...register("mapping.dateOrder")}>
+            <option value="">{inspection.detectedDateOrder ? "As detected" : "ISO dates only (2026-04-03)"}</option>
+            <option value="day-first">Day first — 31/12/2026</option>
+            <option value="month-first">Month first — 12/31/2026</option>
+          </Select>
         </Field>
         <div className="sm:col-span-2">
           <Field label="Population name" error={errors.name?.message}>
-            {({ id, describedBy, invalid }) => <Input id={id} aria-describedby={describedBy} aria-invalid={invalid} disabled={disabled} placeholder="e.g. Trade receivables at 30 Sep 2026" {...register("name")} />}
+            <Input disabled={disabled} placeholder="e.g. Trade receivables at 30 Sep 2026" {...register("name")} />
           </Field>
         </div>
         {replaceable.length > 0 && (
           <div className="sm:col-span-2">
             <Field label="Replaces a population" hint="A corrected file replaces the earlier population, which is kept, marked superseded">
-              {({ id, describedBy }) => (
-                <Select id={id} aria-describedby={describedBy} disabled={disabled} {...register("supersedesId", { setValueAs: (v) => (v === "" || v === undefined ? undefined : Number(v)) })}>
-                  <option value="">No — this is a new population</option>
-                  {replaceable.map((p) => <option key={p.id} value={p.id}>Yes — replaces “{p.name}” ({formatCount(p.rowCount)} items)</option>)}
-                </Select>
-              )}
+              <Select disabled={disabled} {...register("supersedesId", { setValueAs: (v) => (v === "" || v === undefined ? undefined : Number(v)) })}>
+                <option value="">No — this is a new population</option>
+                {replaceable.map((p) => <option key={p.id} value={p.id}>Yes — replaces “{p.name}” ({formatCount(p.rowCount)} items)</option>)}
+              </Select>
             </Field>
             <SupersedeWarning target={replaceable.find((p) => p.id === Number(watch("supersedesId")))} understood={understood} onUnderstood={setUnderstood} />
           </div>

@@ -1,7 +1,7 @@
 "use client";
 import { useState } from "react";
 import { useRouter } from "next/navigation";
-import { api } from "@/components/ui/api";
+import { apiFetch } from "@/components/ui/api";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 
@@ -23,11 +23,11 @@ export function PopulationActions({ base, engagementUrl, name, usedBy, replaced,
         {deletable && (
           <Button variant="danger" className="px-2.5 py-1 text-xs" onClick={() => {
             if (window.confirm(`Delete "${name}"? No sample uses it. Its items are removed; the file as received stays on record, and the deletion is kept in the audit trail.`)) {
-              void run(() => api(base, { method: "DELETE" }), () => router.push(engagementUrl));
+              void run(() => apiFetch(base, { method: "DELETE" }), () => router.push(engagementUrl));
             }
           }}>Delete population…</Button>
         )}
-        <Button variant="secondary" className="px-2.5 py-1 text-xs" onClick={() => void run(() => api(`${base}/archive`, { body: { archived: !archived } }), () => router.refresh())}>
+        <Button variant="secondary" className="px-2.5 py-1 text-xs" onClick={() => void run(() => apiFetch(`${base}/archive`, { body: { archived: !archived } }), () => router.refresh())}>
           {archived ? "Restore from the archive" : "Archive"}
         </Button>
         {!deletable && <span className="text-xs text-ink-soft">{usedBy.length ? `Used by ${usedBy.length === 1 ? "1 sample" : `${usedBy.length} samples`}, so it can be archived but not deleted.` : "Replaced by a corrected file, so it stays on record: it can be archived."}</span>}

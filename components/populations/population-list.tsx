@@ -5,6 +5,7 @@ import { Badge } from "@/components/ui/badge";
 import { EmptyState } from "@/components/ui/card";
 import { POPULATION_STATUS_LABELS, populationStatusTone } from "./labels";
 import { formatCount } from "@/lib/format/number";
+import { Table, THead, Th, Td } from "@/components/ui/table";
 
 /** The engagement's populations for its overview card: name, items, total, state. */
 export function PopulationList({ engagementId, populations, currency, mayLoad }: { engagementId: number; populations: PopulationRecord[]; currency: string; mayLoad: boolean }) {
@@ -16,28 +17,28 @@ export function PopulationList({ engagementId, populations, currency, mayLoad }:
     );
   }
   return (
-    <table className="w-full text-sm" aria-label="Populations">
-      <thead className="text-left text-xs uppercase tracking-wider text-ink-soft">
+    <Table label="Populations" density="list">
+      <THead>
         <tr>
-          <th scope="col" className="py-2 pr-4 font-semibold">Population</th>
-          <th scope="col" className="py-2 pr-4 text-right font-semibold">Items</th>
-          <th scope="col" className="py-2 pr-4 text-right font-semibold">Total ({currency})</th>
-          <th scope="col" className="py-2 font-semibold">Status</th>
+          <Th>Population</Th>
+          <Th numeric>Items</Th>
+          <Th numeric>Total ({currency})</Th>
+          <Th>Status</Th>
         </tr>
-      </thead>
+      </THead>
       <tbody>
         {populations.map((p) => (
           <tr key={p.id} className={`border-t border-ink-line/70 ${p.status === "superseded" ? "text-ink-faint" : ""}`}>
-            <td className="py-2.5 pr-4">
+            <Td>
               <Link href={`/engagements/${engagementId}/populations/${p.id}`} className="font-medium text-ink hover:text-ledger-600 link">{p.name}</Link>
               <span className="block text-xs text-ink-faint">{p.sourceFileName}</span>
-            </td>
-            <td className="figures py-2.5 pr-4 text-right">{formatCount(p.rowCount)}</td>
-            <td className="py-2.5 pr-4 text-right"><Amount value={p.total} /></td>
-            <td className="py-2.5"><Badge tone={populationStatusTone(p.status)}>{POPULATION_STATUS_LABELS[p.status]}</Badge></td>
+            </Td>
+            <Td numeric>{formatCount(p.rowCount)}</Td>
+            <Td numeric><Amount value={p.total} /></Td>
+            <Td><Badge tone={populationStatusTone(p.status)}>{POPULATION_STATUS_LABELS[p.status]}</Badge></Td>
           </tr>
         ))}
       </tbody>
-    </table>
+    </Table>
   );
 }

@@ -1,6 +1,7 @@
 import type { PopulationProfile } from "@/lib/data/population-items";
 import { Amount } from "@/components/ui/amount";
 import { formatCount } from "@/lib/format/number";
+import { Table, THead, Th, Td } from "@/components/ui/table";
 
 const th = "px-3 py-2 font-semibold";
 const td = "px-3 py-1.5";
@@ -8,21 +9,21 @@ const td = "px-3 py-1.5";
 export function LargestItems({ items, currency }: { items: PopulationProfile["largest"]; currency: string }) {
   if (items.length === 0) return <p className="text-sm text-ink-soft">No items.</p>;
   return (
-    <table className="w-full text-sm" aria-label="Largest items">
-      <thead className="text-left text-xs uppercase tracking-wider text-ink-soft">
-        <tr><th scope="col" className={`${th} text-right`}>Row</th><th scope="col" className={th}>Reference</th><th scope="col" className={th}>Description</th><th scope="col" className={`${th} text-right`}>Book value ({currency})</th></tr>
-      </thead>
+    <Table label="Largest items" density="compact">
+      <THead>
+        <tr><Th className={`${th} text-right`}>Row</Th><Th className={th}>Reference</Th><Th className={th}>Description</Th><Th className={`${th} text-right`}>Book value ({currency})</Th></tr>
+      </THead>
       <tbody>
         {items.map((i) => (
           <tr key={i.rowNumber} className="border-t border-ink-line/60">
-            <td className={`${td} figures text-right text-ink-faint`}>{i.rowNumber}</td>
-            <td className={`${td} whitespace-nowrap font-medium`}>{i.itemRef}</td>
-            <td className={`${td} max-w-48 truncate text-ink-soft`} title={i.description ?? undefined}>{i.description}</td>
-            <td className={`${td} text-right`}><Amount value={i.bookValue} /></td>
+            <Td className={`${td} figures text-right text-ink-faint`}>{i.rowNumber}</Td>
+            <Td className={`${td} whitespace-nowrap font-medium`}>{i.itemRef}</Td>
+            <Td className={`${td} max-w-48 truncate text-ink-soft`} title={i.description ?? undefined}>{i.description}</Td>
+            <Td className={`${td} text-right`}><Amount value={i.bookValue} /></Td>
           </tr>
         ))}
       </tbody>
-    </table>
+    </Table>
   );
 }
 
@@ -35,20 +36,20 @@ export function DuplicateRefs({ duplicates, duplicateRefCount }: { duplicates: P
         {duplicates.length < duplicateRefCount && ` The ${duplicates.length} most repeated are shown.`}
       </p>
       <div className="max-h-72 overflow-auto">
-        <table className="w-full text-sm" aria-label="Duplicate item references">
-          <thead className="text-left text-xs uppercase tracking-wider text-ink-soft">
-            <tr><th scope="col" className={th}>Reference</th><th scope="col" className={`${th} text-right`}>Times</th><th scope="col" className={`${th} text-right`}>Combined book value</th></tr>
-          </thead>
+        <Table label="Duplicate item references" density="compact">
+          <THead>
+            <tr><Th className={th}>Reference</Th><Th className={`${th} text-right`}>Times</Th><Th className={`${th} text-right`}>Combined book value</Th></tr>
+          </THead>
           <tbody>
             {duplicates.map((d) => (
               <tr key={d.itemRef} className="border-t border-ink-line/60">
-                <td className={`${td} font-medium`}>{d.itemRef}</td>
-                <td className={`${td} figures text-right`}>{formatCount(d.count)}</td>
-                <td className={`${td} text-right`}><Amount value={d.total} /></td>
+                <Td className={`${td} font-medium`}>{d.itemRef}</Td>
+                <Td className={`${td} figures text-right`}>{formatCount(d.count)}</Td>
+                <Td className={`${td} text-right`}><Amount value={d.total} /></Td>
               </tr>
             ))}
           </tbody>
-        </table>
+        </Table>
       </div>
     </div>
   );

@@ -1,5 +1,5 @@
 import type { LoadEvent } from "@/lib/populations/stream-load";
-import { readErrorAnswer } from "@/components/ui/api";
+import { ApiError, apiStream } from "@/components/ui/api";
 import { readNdjson } from "@/components/ui/ndjson";
 
 export type { LoadEvent };
@@ -9,14 +9,16 @@ export type { LoadEvent };
  * one (the outcome). A refusal before streaming (400/403/409) comes back as an "error" event.
  */
 export async function runLoad(url: string, body: unknown, onEvent: (event: LoadEvent) => void): Promise<LoadEvent> {
-  const res = await fetch(url, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify(body) });
-  if (!res.ok || !res.body) {
-    const data = await readErrorAnswer(res);
-    const event: LoadEvent = { type: "error", status: res.status, message: data.error?.message ?? `The load was refused (${res.status}).` };
+  let stream: ReadableStream<Uint8Array>;
+  try {
+    stream = await apiStream(url, { body });
+  } catch (err) {
+    if (!(err instanceof ApiError)) throw err;
+    const event: LoadEvent = { type: "error", status: err.status, message: err.message };
     onEvent(event);
     return event;
   }
-  const last = await readNdjson<LoadEvent>(res.body, onEvent);
+  const last = await readNdjson<LoadEvent>(stream, onEvent);
   if (last === null) {
     const event: LoadEvent = { type: "error", status: 0, message: "The connection closed before the load finished. Nothing was stored; try again." };
     onEvent(event);

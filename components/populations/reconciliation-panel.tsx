@@ -7,14 +7,15 @@ import type { z } from "zod";
 import { ReconcileSchema } from "@/lib/validation/population";
 import type { PopulationRecord } from "@/lib/data/populations";
 import { centsToDecimal, decimalToCents } from "@/lib/money";
-import { Field, Input } from "@/components/ui/field";
+import { Field, Input, Textarea } from "@/components/ui/field";
 import { Button } from "@/components/ui/button";
 import { Alert } from "@/components/ui/alert";
 import { Amount } from "@/components/ui/amount";
-import { api, ApiError } from "@/components/ui/api";
-import { textOf } from "@/lib/format/text";
+import { apiFetch, ApiError } from "@/components/ui/api";
 import { formatDate } from "@/lib/format/date";
 import { formatCount } from "@/lib/format/number";
+import { textOf } from "@/lib/format/text";
+import { Table, THead, Th, Td } from "@/components/ui/table";
 
 type FormIn = z.input<typeof ReconcileSchema>;
 type FormOut = z.output<typeof ReconcileSchema>;
@@ -47,7 +48,7 @@ export function ReconciliationPanel({ engagementId, initial, currency, mayReconc
   const onSubmit = handleSubmit(async (values) => {
     setFailure(null);
     try {
-      const { population } = await api<{ population: PopulationRecord }>(`/api/engagements/${engagementId}/populations/${p.id}/reconciliation`, { body: values });
+      const { population } = await apiFetch<{ population: PopulationRecord }>(`/api/engagements/${engagementId}/populations/${p.id}/reconciliation`, { body: values });
       setP(population);
       router.refresh();
     } catch (err) {
@@ -60,39 +61,39 @@ export function ReconciliationPanel({ engagementId, initial, currency, mayReconc
   return (
     <div className="space-y-4">
       <StatusNote population={p} />
-      <table className="w-full text-sm" aria-label="Reconciliation">
-        <thead className="text-left text-xs uppercase tracking-wider text-ink-soft">
-          <tr><th scope="col" className="py-1.5" /><th scope="col" className="py-1.5 text-right">Loaded</th><th scope="col" className="py-1.5 text-right">Ledger (control)</th><th scope="col" className="py-1.5 text-right">Difference</th></tr>
-        </thead>
+      <Table label="Reconciliation" density="compact">
+        <THead>
+          <tr><Th /><Th numeric>Loaded</Th><Th numeric>Ledger (control)</Th><Th numeric>Difference</Th></tr>
+        </THead>
         <tbody>
           <tr className="border-t border-ink-line/70">
-            <th scope="row" className="py-2 text-left font-medium">Total</th>
-            <td className="py-2 text-right"><Amount value={p.total} /></td>
-            <td className="py-2 text-right">{typedTotal !== null ? <Amount value={centsToDecimal(typedTotal)} /> : <span className="text-ink-faint">—</span>}</td>
-            <td className={`py-2 text-right ${diffTotal ? "font-semibold text-brick-700" : ""}`} data-testid="difference-total">{diffTotal !== null ? <Amount value={centsToDecimal(diffTotal)} /> : "—"}</td>
+            <Th scope="row" className="font-medium">Total</Th>
+            <Td className="text-right"><Amount value={p.total} /></Td>
+            <Td className="text-right">{typedTotal !== null ? <Amount value={centsToDecimal(typedTotal)} /> : <span className="text-ink-faint">—</span>}</Td>
+            <Td className={`py-2 text-right ${diffTotal ? "font-semibold text-brick-700" : ""}`} data-testid="difference-total">{diffTotal !== null ? <Amount value={centsToDecimal(diffTotal)} /> : "—"}</Td>
           </tr>
           <tr className="border-t border-ink-line/70">
-            <th scope="row" className="py-2 text-left font-medium">Items</th>
-            <td className="figures py-2 text-right">{formatCount(p.rowCount)}</td>
-            <td className="figures py-2 text-right">{typedCount !== null ? formatCount(typedCount) : <span className="text-ink-faint">—</span>}</td>
-            <td className={`figures py-2 text-right ${diffCount ? "font-semibold text-brick-700" : ""}`} data-testid="difference-count">{diffCount !== null ? formatCount(diffCount) : "—"}</td>
+            <Th scope="row" className="font-medium">Items</Th>
+            <Td numeric>{formatCount(p.rowCount)}</Td>
+            <Td numeric>{typedCount !== null ? formatCount(typedCount) : <span className="text-ink-faint">—</span>}</Td>
+            <Td className={`figures py-2 text-right ${diffCount ? "font-semibold text-brick-700" : ""}`} data-testid="difference-count">{diffCount !== null ? formatCount(diffCount) : "—"}</Td>
           </tr>
         </tbody>
-      </table>
+      </Table>
       {editable ? (
         <form onSubmit={onSubmit} noValidate className="space-y-1 border-t border-ink-line pt-4">
           {failure && <div className="mb-3"><Alert>{failure}</Alert></div>}
           <div className="grid gap-x-4 sm:grid-cols-2">
             <Field label={`Control total (${currency})`} error={errors.controlTotal?.message} hint="From the trial balance or the ledger's closing balance">
-              {({ id, describedBy, invalid }) => <Input id={id} aria-describedby={describedBy} aria-invalid={invalid} inputMode="decimal" className="figures text-right" {...register("controlTotal")} />}
+              <Input inputMode="decimal" className="figures text-right" {...register("controlTotal")} />
             </Field>
             <Field label="Control count" error={errors.controlCount?.message} hint="Number of items in the ledger">
-              {({ id, describedBy, invalid }) => <Input id={id} aria-describedby={describedBy} aria-invalid={invalid} inputMode="numeric" className="figures text-right" {...register("controlCount")} />}
+              <Input inputMode="numeric" className="figures text-right" {...register("controlCount")} />
             </Field>
           </div>
           {differs && (
             <Field label="Explanation of the difference" error={errors.explanation?.message} hint="The auditor can record an explanation (kept in the audit log) to proceed; otherwise correct the file and load it again.">
-              {({ id, describedBy, invalid }) => <textarea id={id} aria-describedby={describedBy} aria-invalid={invalid} rows={3} className="w-full rounded-md border border-ink-line bg-paper-raised px-3 py-2 text-sm focus:border-ledger-500 focus:outline-none focus:ring-2 focus:ring-ledger-100" {...register("explanation")} />}
+              <Textarea rows={3} {...register("explanation")} />
             </Field>
           )}
           <Button type="submit" disabled={isSubmitting}>{isSubmitting ? "Recording…" : p.controlTotal === null ? "Record the reconciliation" : "Record again"}</Button>

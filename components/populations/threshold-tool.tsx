@@ -5,8 +5,8 @@ import { decimalToCents } from "@/lib/money";
 import { Amount } from "@/components/ui/amount";
 import { Button } from "@/components/ui/button";
 import { Input } from "@/components/ui/field";
-import { api } from "@/components/ui/api";
 import { formatCount } from "@/lib/format/number";
+import { useApi } from "@/components/ui/use-api";
 
 type Threshold = NonNullable<PopulationProfile["threshold"]>;
 
@@ -14,23 +14,16 @@ type Threshold = NonNullable<PopulationProfile["threshold"]>;
 export function ThresholdTool({ url, populationCount, positiveTotal, currency, suggestion }: { url: string; populationCount: number; positiveTotal: string; currency: string; suggestion: string }) {
   const id = useId();
   const [amount, setAmount] = useState("");
-  const [result, setResult] = useState<Threshold | null>(null);
-  const [error, setError] = useState<string | null>(null);
-  const [busy, setBusy] = useState(false);
+  // The amount last asked about: its answer is read by URL, so a slow answer for an earlier amount never shows.
+  const [asked, setAsked] = useState<string | null>(null);
+  const read = useApi<{ profile: PopulationProfile }>(asked === null ? null : `${url}?threshold=${encodeURIComponent(asked)}`);
+  const result: Threshold | null = read.data?.profile.threshold ?? null;
+  const error = read.error?.message ?? null;
+  const busy = read.isLoading;
 
-  const run = async (e: React.FormEvent) => {
+  const run = (e: React.FormEvent) => {
     e.preventDefault();
-    setBusy(true);
-    setError(null);
-    try {
-      const r = await api<{ profile: PopulationProfile }>(`${url}?threshold=${encodeURIComponent(amount.trim())}`);
-      setResult(r.profile.threshold);
-    } catch (err) {
-      setResult(null);
-      setError(err instanceof Error ? err.message : "Could not work that out");
-    } finally {
-      setBusy(false);
-    }
+    setAsked(amount.trim());
   };
 
   const positive = decimalToCents(positiveTotal);

@@ -5,7 +5,7 @@ import { Alert } from "@/components/ui/alert";
 import { Amount } from "@/components/ui/amount";
 import { Button, buttonClass } from "@/components/ui/button";
 import { Field, Select } from "@/components/ui/field";
-import { api } from "@/components/ui/api";
+import { apiFetch } from "@/components/ui/api";
 import { DropZone } from "./drop-zone";
 import { ProgressBar } from "./progress-bar";
 import { LoadProgress } from "./load-progress";
@@ -46,7 +46,7 @@ export function UploadFlow({ engagementId, currency, replaceable }: Props) {
   const chooseSheet = async (upload: UploadView, sheet: string) => {
     setSheetBusy(true);
     try {
-      const r = await api<{ upload: UploadView }>(`${base}/${upload.id}?sheet=${encodeURIComponent(sheet)}`);
+      const r = await apiFetch<{ upload: UploadView }>(`${base}/${upload.id}?sheet=${encodeURIComponent(sheet)}`);
       setStage({ kind: "mapping", upload: r.upload });
     } catch (err) {
       setStage({ kind: "mapping", upload, message: err instanceof Error ? err.message : "Could not read that sheet" });
@@ -95,11 +95,9 @@ export function UploadFlow({ engagementId, currency, replaceable }: Props) {
           {inspection.kind === "xlsx" && inspection.sheets && inspection.sheets.length > 1 && (
             <div className="max-w-xs">
               <Field label="Sheet" hint="The rows are read from this sheet only">
-                {({ id, describedBy }) => (
-                  <Select id={id} aria-describedby={describedBy} value={inspection.sheet} disabled={sheetBusy || stage.kind === "loading"} onChange={(e) => chooseSheet(upload, e.target.value)}>
-                    {inspection.sheets!.map((s) => <option key={s} value={s}>{s}</option>)}
-                  </Select>
-                )}
+                <Select value={inspection.sheet} disabled={sheetBusy || stage.kind === "loading"} onChange={(e) => chooseSheet(upload, e.target.value)}>
+                  {inspection.sheets.map((s) => <option key={s} value={s}>{s}</option>)}
+                </Select>
               </Field>
             </div>
           )}

@@ -5,27 +5,32 @@ import { Alert } from "@/components/ui/alert";
 import { Amount } from "@/components/ui/amount";
 import { Button } from "@/components/ui/button";
 import { PageHeader } from "@/components/ui/page-header";
-import { api, readErrorAnswer } from "@/components/ui/api";
+import { apiFetch, withFileName } from "@/components/ui/api";
+import { useApi } from "@/components/ui/use-api";
 import { RequestStatusBadge } from "./status-badge";
 import { FILE_STATUS_LABELS, needsText } from "./labels";
 import { formatBytes } from "@/lib/format/number";
 import { formatDate } from "@/lib/format/date";
+import { Textarea } from "@/components/ui/field";
 
 type Item = ClientListView["items"][number];
 
 async function uploadOne(url: string, file: File) {
-  const res = await fetch(`${url}?fileName=${encodeURIComponent(file.name)}`, { method: "POST", body: file });
-  if (res.ok) return null;
-  const data = await readErrorAnswer(res);
-  return `${file.name}: ${data.error?.message ?? `upload failed (${res.status})`}`;
+  try {
+    await apiFetch(withFileName(url, file), { body: file });
+    return null;
+  } catch (err) {
+    return `${file.name}: ${(err as Error).message}`;
+  }
 }
 
 /** The client's view of one request list: each item, what is needed, its status, its files, an upload and a note. */
 export function ClientRequestList({ initial }: { initial: ClientListView }) {
-  const [view, setView] = useState(initial);
+  const base = `/api/requests/${initial.list.id}`;
+  const read = useApi<ClientListView>(base, { initial });
+  const view = read.data ?? initial;
   const { list } = view;
-  const base = `/api/requests/${list.id}`;
-  const reload = async () => setView(await api<ClientListView>(base));
+  const { reload } = read;
   const open = list.status === "open";
   const waiting = view.items.filter((i) => i.status === "requested" || i.status === "needs-more").length;
   return (
@@ -42,7 +47,7 @@ export function ClientRequestList({ initial }: { initial: ClientListView }) {
   );
 }
 
-function ClientItem({ item, base, open, showBookValue, currency, onChanged }: { item: Item; base: string; open: boolean; showBookValue: boolean; currency: string; onChanged: () => Promise<void> }) {
+function ClientItem({ item, base, open, showBookValue, currency, onChanged }: { item: Item; base: string; open: boolean; showBookValue: boolean; currency: string; onChanged: () => Promise<unknown> }) {
   const [files, setFiles] = useState<File[]>([]);
   const [inputKey, setInputKey] = useState(0);
   const [busy, setBusy] = useState<string | null>(null);
@@ -69,7 +74,7 @@ function ClientItem({ item, base, open, showBookValue, currency, onChanged }: { 
   async function saveNote() {
     setProblems([]); setDone(null);
     try {
-      await api(url, { method: "PATCH", body: { note } });
+      await apiFetch(url, { method: "PATCH", body: { note } });
       setDone("Note saved.");
       await onChanged();
     } catch (err) {
@@ -108,8 +113,7 @@ function ClientItem({ item, base, open, showBookValue, currency, onChanged }: { 
           </div>
           <div className="space-y-2">
             <label className="block text-sm font-medium" htmlFor={`note-${item.id}`}>Note for {item.itemRef}</label>
-            <textarea id={`note-${item.id}`} value={note} onChange={(e) => setNote(e.target.value)} rows={3} maxLength={2000}
-              className="w-full rounded-md border border-ink-line bg-paper-raised px-3 py-2 text-sm focus:border-ledger-500 focus:outline-none" placeholder="e.g. the invoice was re-issued under another number" />
+            <Textarea id={`note-${item.id}`} value={note} onChange={(e) => setNote(e.target.value)} rows={3} maxLength={2000} placeholder="e.g. the invoice was re-issued under another number" />
             <Button type="button" variant="secondary" onClick={saveNote} disabled={note === (item.clientNote ?? "")}>Save note</Button>
           </div>
         </div>

@@ -5,7 +5,7 @@ import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { z } from "zod";
 import { AcceptInvitationSchema } from "@/lib/validation/requests";
-import { api } from "@/components/ui/api";
+import { apiFetch } from "@/components/ui/api";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { Field, Input } from "@/components/ui/field";
@@ -20,7 +20,7 @@ export function InvitationForm({ token, client }: { token: string; client: boole
   const submit = handleSubmit(async ({ password }) => {
     setFailure(null);
     try {
-      await api(`/api/invitations/${encodeURIComponent(token)}`, { body: { password } });
+      await apiFetch(`/api/invitations/${encodeURIComponent(token)}`, { body: { password } });
       router.push(client ? "/sign-in?callbackUrl=%2Frequests&welcome=1" : "/sign-in?welcome=1");
     } catch (err) {
       setFailure((err as Error).message);
@@ -30,10 +30,10 @@ export function InvitationForm({ token, client }: { token: string; client: boole
     <form onSubmit={submit} noValidate className="space-y-3">
       {failure && <Alert>{failure}</Alert>}
       <Field label="New password" error={errors.password?.message} hint="At least 12 characters">
-        {({ id, describedBy, invalid }) => <Input id={id} type="password" autoComplete="new-password" aria-describedby={describedBy} aria-invalid={invalid} {...register("password")} />}
+        <Input type="password" autoComplete="new-password" {...register("password")} />
       </Field>
       <Field label="Repeat the password" error={errors.confirm?.message}>
-        {({ id, describedBy, invalid }) => <Input id={id} type="password" autoComplete="new-password" aria-describedby={describedBy} aria-invalid={invalid} {...register("confirm")} />}
+        <Input type="password" autoComplete="new-password" {...register("confirm")} />
       </Field>
       <Button type="submit" disabled={isSubmitting} className="w-full">{isSubmitting ? "Saving…" : "Save my password"}</Button>
     </form>

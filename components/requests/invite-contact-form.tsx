@@ -5,7 +5,7 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import type { z } from "zod";
 import { InviteClientContactSchema, type InviteClientContactInput } from "@/lib/validation/requests";
 import type { ClientContact } from "@/lib/requests/contacts";
-import { api, ApiError } from "@/components/ui/api";
+import { apiFetch, ApiError } from "@/components/ui/api";
 import { Button } from "@/components/ui/button";
 import { Field, Input } from "@/components/ui/field";
 
@@ -18,7 +18,7 @@ export function InviteContactForm({ engagementId, onInvited }: { engagementId: n
   const submit = handleSubmit(async (body) => {
     setMessage(null);
     try {
-      const r = await api<{ contact: { userId: number; name: string; email: string; invitationSent: boolean }; contacts: ClientContact[] }>(`/api/engagements/${engagementId}/client-contacts`, { body });
+      const r = await apiFetch<{ contact: { userId: number; name: string; email: string; invitationSent: boolean }; contacts: ClientContact[] }>(`/api/engagements/${engagementId}/client-contacts`, { body });
       setMessage({ ok: true, text: r.contact.invitationSent ? `${r.contact.name} was invited; an e-mail is on its way to ${r.contact.email}.` : `${r.contact.name} was added, but the e-mail could not be sent.` });
       reset();
       onInvited(r.contact.userId, r.contacts);
@@ -30,8 +30,8 @@ export function InviteContactForm({ engagementId, onInvited }: { engagementId: n
   return (
     <form onSubmit={submit} noValidate className="space-y-2" aria-label="Invite a client contact">
       <div className="grid gap-3 sm:grid-cols-2">
-        <Field label="Contact's name" error={errors.name?.message}>{({ id, describedBy, invalid }) => <Input id={id} aria-describedby={describedBy} aria-invalid={invalid} {...register("name")} />}</Field>
-        <Field label="Contact's e-mail" error={errors.email?.message}>{({ id, describedBy, invalid }) => <Input id={id} type="email" aria-describedby={describedBy} aria-invalid={invalid} {...register("email")} />}</Field>
+        <Field label="Contact's name" error={errors.name?.message}><Input {...register("name")} /></Field>
+        <Field label="Contact's e-mail" error={errors.email?.message}><Input type="email" {...register("email")} /></Field>
       </div>
       <Button type="submit" variant="secondary" disabled={isSubmitting}>{isSubmitting ? "Inviting…" : "Invite the contact"}</Button>
       <p aria-live="polite" className={`text-sm ${message?.ok ? "text-ledger-700" : "text-brick-700"}`}>{message?.text}</p>

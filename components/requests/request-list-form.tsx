@@ -5,12 +5,12 @@ import { useForm, type Resolver } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import type { ClientContact } from "@/lib/requests/contacts";
 import { CreateRequestListSchema, REQUEST_NEED_LABELS, REQUEST_NEEDS, type CreateRequestList, type CreateRequestListInput } from "@/lib/validation/requests";
-import { api, ApiError } from "@/components/ui/api";
+import { apiFetch, ApiError } from "@/components/ui/api";
 import { Alert } from "@/components/ui/alert";
 import { Amount } from "@/components/ui/amount";
 import { Button } from "@/components/ui/button";
 import { Card } from "@/components/ui/card";
-import { Field, Input, Select } from "@/components/ui/field";
+import { Field, Input, Select, Textarea } from "@/components/ui/field";
 import { InviteContactForm } from "./invite-contact-form";
 
 interface ItemOption { id: number; itemRef: string; description: string | null; bookValue: string }
@@ -36,7 +36,7 @@ export function RequestListForm({ engagementId, sampleId, items, contacts: initi
   const submit = handleSubmit(async (body) => {
     setFailure(null);
     try {
-      const r = await api<{ requestList: { id: number } }>(`/api/engagements/${engagementId}/samples/${sampleId}/requests`, { body });
+      const r = await apiFetch<{ requestList: { id: number } }>(`/api/engagements/${engagementId}/samples/${sampleId}/requests`, { body });
       router.push(`/engagements/${engagementId}/samples/${sampleId}/requests/${r.requestList.id}`);
     } catch (err) {
       if (err instanceof ApiError && err.fields) for (const [k, m] of Object.entries(err.fields)) setError((k === "items" ? "chosen" : k) as keyof Values, { message: m[0] });
@@ -49,17 +49,15 @@ export function RequestListForm({ engagementId, sampleId, items, contacts: initi
       <Card title="Request list">
         <form onSubmit={submit} noValidate className="space-y-4" aria-label="New request list">
           {failure && <Alert>{failure}</Alert>}
-          <Field label="Title" error={errors.title?.message}>{({ id, describedBy, invalid }) => <Input id={id} aria-describedby={describedBy} aria-invalid={invalid} {...register("title")} />}</Field>
+          <Field label="Title" error={errors.title?.message}><Input {...register("title")} /></Field>
           <div className="grid gap-4 sm:grid-cols-2">
             <Field label="Client contact" error={errors.contactUserId?.message} hint={contacts.length ? undefined : "Invite a contact first (on the right)"}>
-              {({ id, describedBy, invalid }) => (
-                <Select id={id} aria-describedby={describedBy} aria-invalid={invalid} {...register("contactUserId")}>
-                  {contacts.length === 0 && <option value="">No client contact yet</option>}
-                  {contacts.map((c) => <option key={c.userId} value={c.userId}>{c.name} — {c.email}</option>)}
-                </Select>
-              )}
+              <Select {...register("contactUserId")}>
+                {contacts.length === 0 && <option value="">No client contact yet</option>}
+                {contacts.map((c) => <option key={c.userId} value={c.userId}>{c.name} — {c.email}</option>)}
+              </Select>
             </Field>
-            <Field label="Due date" error={errors.dueDate?.message}>{({ id, describedBy, invalid }) => <Input id={id} type="date" aria-describedby={describedBy} aria-invalid={invalid} {...register("dueDate")} />}</Field>
+            <Field label="Due date" error={errors.dueDate?.message}><Input type="date" {...register("dueDate")} /></Field>
           </div>
           <fieldset className="space-y-1.5">
             <legend className="text-sm font-medium">What is needed for each item</legend>
@@ -68,7 +66,7 @@ export function RequestListForm({ engagementId, sampleId, items, contacts: initi
             </div>
             <p aria-live="polite" className="text-xs text-brick-700">{errors.needs?.message}</p>
           </fieldset>
-          <Field label="Details of what is needed (optional)" error={errors.needsNote?.message}>{({ id, describedBy, invalid }) => <textarea id={id} rows={2} aria-describedby={describedBy} aria-invalid={invalid} className="w-full rounded-md border border-ink-line bg-paper-raised px-3 py-2 text-sm" {...register("needsNote")} />}</Field>
+          <Field label="Details of what is needed (optional)" error={errors.needsNote?.message}><Textarea rows={2} {...register("needsNote")} /></Field>
           <fieldset className="space-y-1.5">
             <legend className="text-sm font-medium">Items</legend>
             <label className="mr-4 inline-flex items-center gap-2 text-sm"><input type="radio" name="scope" checked={allItems} onChange={() => setAllItems(true)} />All {items.length} selected items</label>
@@ -86,7 +84,7 @@ export function RequestListForm({ engagementId, sampleId, items, contacts: initi
             <p aria-live="polite" className="text-xs text-brick-700">{itemsError}</p>
           </fieldset>
           <label className="flex items-start gap-2 text-sm"><input type="checkbox" className="mt-1" {...register("showBookValues")} /><span>Show the client each item&rsquo;s book value<span className="block text-xs text-ink-faint">Off by default: the client sees the reference and description only.</span></span></label>
-          <Field label="Message to the client (optional)" error={errors.message?.message}>{({ id, describedBy, invalid }) => <textarea id={id} rows={3} aria-describedby={describedBy} aria-invalid={invalid} className="w-full rounded-md border border-ink-line bg-paper-raised px-3 py-2 text-sm" {...register("message")} />}</Field>
+          <Field label="Message to the client (optional)" error={errors.message?.message}><Textarea rows={3} {...register("message")} /></Field>
           <Button type="submit" disabled={isSubmitting || contacts.length === 0}>{isSubmitting ? "Sending…" : "Send the request list"}</Button>
         </form>
       </Card>

@@ -3,28 +3,32 @@ import { useState } from "react";
 import { useRouter } from "next/navigation";
 import type { TeamListView } from "@/lib/requests/views";
 import type { RequestFileView } from "@/lib/requests/items";
-import { api } from "@/components/ui/api";
+import { apiFetch } from "@/components/ui/api";
+import { useApi } from "@/components/ui/use-api";
 import { Alert } from "@/components/ui/alert";
 import { Amount } from "@/components/ui/amount";
 import { Button } from "@/components/ui/button";
 import { RequestStatusBadge } from "./status-badge";
 import { FILE_STATUS_LABELS, needsText } from "./labels";
 import { formatBytes } from "@/lib/format/number";
+import { Textarea } from "@/components/ui/field";
+import { Table, THead, Th, Td } from "@/components/ui/table";
 
 interface Props { engagementId: number; sampleId: number; initial: TeamListView; mayDecide: boolean; currency: string }
 
 /** The audit team's view of a request list: each item's status and the client's files, to accept or send back. */
 export function TeamRequestList({ engagementId, sampleId, initial, mayDecide, currency }: Props) {
   const router = useRouter();
-  const [view, setView] = useState(initial);
   const [message, setMessage] = useState<{ tone: "error" | "success"; text: string } | null>(null);
-  const base = `/api/engagements/${engagementId}/samples/${sampleId}/requests/${view.list.id}`;
-  const reload = async () => { setView(await api<TeamListView>(base)); router.refresh(); };
+  const base = `/api/engagements/${engagementId}/samples/${sampleId}/requests/${initial.list.id}`;
+  const list = useApi<TeamListView>(base, { initial });
+  const view = list.data ?? initial;
+  const reload = async () => { await list.reload(); router.refresh(); };
 
   async function decide(file: RequestFileView, action: "accept" | "return", reason?: string) {
     setMessage(null);
     try {
-      await api(`${base}/files/${file.id}/${action}`, { body: action === "return" ? { reason } : {} });
+      await apiFetch(`${base}/files/${file.id}/${action}`, { body: action === "return" ? { reason } : {} });
       setMessage({ tone: "success", text: action === "accept" ? `${file.fileName} accepted: it is now evidence on the item.` : `${file.fileName} sent back; the client has been e-mailed the reason.` });
       await reload();
       return true;
@@ -39,26 +43,26 @@ export function TeamRequestList({ engagementId, sampleId, initial, mayDecide, cu
       {view.list.status === "closed" && <Alert tone="info">This list is closed{view.list.closedReason ? ` — ${view.list.closedReason}` : ""}. The client can no longer send files on it.</Alert>}
       {message && <Alert tone={message.tone}>{message.text}</Alert>}
       <div className="overflow-x-auto rounded-card border border-ink-line bg-paper-raised">
-        <table className="w-full text-sm" aria-label="Requested items">
-          <thead className="bg-paper-sunk text-left text-xs uppercase tracking-wider text-ink-soft">
-            <tr><th scope="col" className="px-3 py-2.5">Item</th><th scope="col" className="px-3 py-2.5 text-right">Book value</th><th scope="col" className="px-3 py-2.5">Needed</th><th scope="col" className="px-3 py-2.5">Status</th><th scope="col" className="px-3 py-2.5">Client&rsquo;s files and note</th></tr>
-          </thead>
+        <Table label="Requested items" density="boxed">
+          <THead className="bg-paper-sunk">
+            <tr><Th>Item</Th><Th numeric>Book value</Th><Th>Needed</Th><Th>Status</Th><Th>Client&rsquo;s files and note</Th></tr>
+          </THead>
           <tbody>
             {view.items.map((item) => (
               <tr key={item.id} className="border-t border-ink-line/70 align-top" data-testid={`request-row-${item.itemRef}`}>
-                <td className="px-3 py-2"><span className="figures font-medium">{item.itemRef}</span>{item.description && <span className="block text-xs text-ink-faint">{item.description}</span>}</td>
-                <td className="px-3 py-2 text-right">{item.bookValue !== undefined && <Amount value={item.bookValue} currency={currency} />}</td>
-                <td className="px-3 py-2 text-xs text-ink-soft">{needsText(item.needs)}{item.needsNote && <span className="block">{item.needsNote}</span>}</td>
-                <td className="px-3 py-2"><RequestStatusBadge status={item.status} /></td>
-                <td className="space-y-2 px-3 py-2">
+                <Td><span className="figures font-medium">{item.itemRef}</span>{item.description && <span className="block text-xs text-ink-faint">{item.description}</span>}</Td>
+                <Td className="text-right">{item.bookValue !== undefined && <Amount value={item.bookValue} currency={currency} />}</Td>
+                <Td className="text-xs text-ink-soft">{needsText(item.needs)}{item.needsNote && <span className="block">{item.needsNote}</span>}</Td>
+                <Td><RequestStatusBadge status={item.status} /></Td>
+                <Td className="space-y-2">
                   {item.files.length === 0 && <span className="text-xs text-ink-faint">Nothing sent yet</span>}
                   {item.files.map((f) => <FileRow key={f.id} file={f} href={`${base}/files/${f.id}`} mayDecide={mayDecide} onDecide={decide} />)}
                   {item.clientNote && <p className="text-xs text-ink-soft"><span className="font-medium">Client&rsquo;s note:</span> {item.clientNote}</p>}
-                </td>
+                </Td>
               </tr>
             ))}
           </tbody>
-        </table>
+        </Table>
       </div>
     </div>
   );
@@ -85,7 +89,7 @@ function FileRow({ file, href, mayDecide, onDecide }: { file: RequestFileView; h
       {returning && (
         <div className="mt-2 space-y-1.5">
           <label className="block text-xs font-medium" htmlFor={`reason-${file.id}`}>What is missing or wrong in {file.fileName}</label>
-          <textarea id={`reason-${file.id}`} rows={2} value={reason} onChange={(e) => setReason(e.target.value)} className="w-full rounded-md border border-ink-line px-2 py-1 text-sm" />
+          <Textarea id={`reason-${file.id}`} rows={2} value={reason} onChange={(e) => setReason(e.target.value)} />
           <div className="flex gap-2">
             <Button type="button" variant="danger" className="px-2.5 py-1 text-xs" disabled={busy || reason.trim().length < 5} onClick={() => run("return")}>Send back to the client</Button>
             <Button type="button" variant="ghost" className="px-2.5 py-1 text-xs" onClick={() => setReturning(false)}>Cancel</Button>

@@ -4,11 +4,12 @@ import { useRouter } from "next/navigation";
 import type { AuditorConclusionRecord } from "@/lib/data/auditor-conclusions";
 import type { ComputedResult } from "@/lib/samples/evaluation-types";
 import { RESPONSE_KINDS, RESPONSE_LABELS, type ResponseKind } from "@/lib/validation/conclusion";
-import { api, ApiError } from "@/components/ui/api";
+import { apiFetch, ApiError } from "@/components/ui/api";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { formatMoney } from "@/lib/format/number";
 import { formatDateTime } from "@/lib/format/date";
+import { Textarea } from "@/components/ui/field";
 
 interface Props { base: string; computed: ComputedResult; complete: boolean; conclusion: AuditorConclusionRecord | null; mayWrite: boolean }
 
@@ -33,7 +34,7 @@ export function ConclusionForm({ base, computed, complete, conclusion, mayWrite 
     setErrors({});
     const responses = RESPONSE_KINDS.filter((k) => chosen[k]).map((k) => ({ kind: k, amount: WITH_AMOUNT.includes(k) ? chosen[k]!.amount : null, note: chosen[k]!.note || undefined }));
     try {
-      await api(`${base}/conclusion`, { method: "PUT", body: { conclusion: text, responses } });
+      await apiFetch(`${base}/conclusion`, { method: "PUT", body: { conclusion: text, responses } });
       setMessage({ tone: "success", text: "Conclusion recorded. Any later change of results clears it, as it clears sign-offs." });
       router.refresh();
     } catch (err) {
@@ -64,7 +65,7 @@ export function ConclusionForm({ base, computed, complete, conclusion, mayWrite 
           {computed.responseNeeded && <Alert tone="info">{computed.supported ? "The limit is close to tolerable" : "The computed result does not support the amount"}: record at least one response.</Alert>}
           <div>
             <label htmlFor="auditor-conclusion-text" className="block text-sm font-medium">Conclusion, in your words</label>
-            <textarea id="auditor-conclusion-text" className="mt-1 w-full rounded border border-ink-line p-2 text-sm" rows={3} value={text} onChange={(e) => setText(e.target.value)}
+            <Textarea id="auditor-conclusion-text" className="mt-1" rows={3} value={text} onChange={(e) => setText(e.target.value)}
               aria-invalid={Boolean(fieldError("conclusion"))} aria-describedby={fieldError("conclusion") ? "auditor-conclusion-error" : undefined} />
             {fieldError("conclusion") && <p id="auditor-conclusion-error" className="text-sm text-brick-700" aria-live="polite">{fieldError("conclusion")}</p>}
           </div>

@@ -4,6 +4,7 @@ import { Card, EmptyState } from "@/components/ui/card";
 import { Badge } from "@/components/ui/badge";
 import { formatDateTime } from "@/lib/format/date";
 import { countOf } from "@/lib/format/number";
+import { Table, THead, Th, Td } from "@/components/ui/table";
 
 export const INBOX_REASON_LABELS: Record<InboxReason, string> = {
   review: "Review and sign off",
@@ -27,21 +28,21 @@ export function InboxList({ inbox }: { inbox: Inbox }) {
       <p className="mb-3 text-sm text-ink-soft" data-testid="inbox-summary">
         {(["review", "lock", "answer", "clear"] as const).filter((r) => counts[r] > 0).map((r) => `${INBOX_REASON_LABELS[r]}: ${counts[r].toLocaleString("en-US")}`).join(" · ")}
       </p>
-      <table className="w-full text-sm" aria-label="Samples waiting for you">
-        <thead className="text-left text-xs uppercase tracking-wider text-ink-soft">
-          <tr><th scope="col" className="py-2">Sample</th><th scope="col" className="py-2">Engagement</th><th scope="col" className="py-2">Waiting for</th><th scope="col" className="py-2">Since</th></tr>
-        </thead>
+      <Table label="Samples waiting for you" density="list">
+        <THead>
+          <tr><Th>Sample</Th><Th>Engagement</Th><Th>Waiting for</Th><Th>Since</Th></tr>
+        </THead>
         <tbody>
           {inbox.entries.map((e) => (
             <tr key={`${e.sampleId}-${e.reason}`} className="border-t border-ink-line/70 align-top">
-              <td className="py-2.5 pr-3"><Link className="font-medium link" href={`/engagements/${e.engagementId}/samples/${e.sampleId}`}>{e.sampleName}</Link></td>
-              <td className="py-2.5 pr-3">{e.clientName}<span className="block text-xs text-ink-soft">{e.engagementName}</span></td>
-              <td className="py-2.5 pr-3"><Badge tone={TONE[e.reason]}>{INBOX_REASON_LABELS[e.reason]}</Badge><span className="mt-0.5 block text-xs text-ink-soft">{what(e.reason, e.notes)}</span></td>
-              <td className="figures py-2.5 text-xs text-ink-soft">{formatDateTime(e.since)}</td>
+              <Td><Link className="font-medium link" href={`/engagements/${e.engagementId}/samples/${e.sampleId}`}>{e.sampleName}</Link></Td>
+              <Td>{e.clientName}<span className="block text-xs text-ink-soft">{e.engagementName}</span></Td>
+              <Td><Badge tone={TONE[e.reason]}>{INBOX_REASON_LABELS[e.reason]}</Badge><span className="mt-0.5 block text-xs text-ink-soft">{what(e.reason, e.notes)}</span></Td>
+              <Td className="figures text-xs text-ink-soft">{formatDateTime(e.since)}</Td>
             </tr>
           ))}
         </tbody>
-      </table>
+      </Table>
     </Card>
   );
 }

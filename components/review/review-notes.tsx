@@ -3,18 +3,18 @@ import { useState } from "react";
 import { hasAtLeastRole, type EngagementRole } from "@/lib/auth/roles";
 import type { ReviewNote } from "@/lib/data/review-notes";
 import { AnswerNoteSchema, RaiseNoteSchema } from "@/lib/validation/review";
-import { api, ApiError } from "@/components/ui/api";
+import { apiFetch, ApiError } from "@/components/ui/api";
 import { Alert } from "@/components/ui/alert";
 import { Badge } from "@/components/ui/badge";
 import { Button } from "@/components/ui/button";
 import { NOTE_STATUS_LABELS, NOTE_STATUS_TONES } from "./note-labels";
 import { formatDateTime } from "@/lib/format/date";
+import { Textarea } from "@/components/ui/field";
 
 export interface NoteItem { id: number; itemRef: string }
 
 interface Props { engagementId: number; sampleId: number; role: EngagementRole; notes: ReviewNote[]; locked: boolean; items: NoteItem[]; onChanged: () => void }
 
-const area = "w-full rounded-md border border-ink-line bg-paper-raised px-2 py-1 text-sm";
 
 /** The plain words of a refusal: a field's own message rather than "Invalid input — answer: …". */
 const plain = (err: unknown) => (err instanceof ApiError && err.fields ? Object.values(err.fields)[0]?.[0] ?? err.message : (err as Error).message);
@@ -43,7 +43,7 @@ export function ReviewNotes({ engagementId, sampleId, role, notes, locked, items
   async function sendAnswer(n: ReviewNote, i: number) {
     const checked = AnswerNoteSchema.safeParse({ answer: answers[n.id] ?? "" });
     if (!checked.success) return setError(`Note ${i + 1}: ${checked.error.issues[0].message}`);
-    if (await run(() => api(`${base}/${n.id}/answer`, { body: checked.data }))) setAnswers((a) => ({ ...a, [n.id]: "" }));
+    if (await run(() => apiFetch(`${base}/${n.id}/answer`, { body: checked.data }))) setAnswers((a) => ({ ...a, [n.id]: "" }));
   }
 
   async function raise() {
@@ -51,7 +51,7 @@ export function ReviewNotes({ engagementId, sampleId, role, notes, locked, items
     if (itemRef.trim() && !item) return setError(`No item ${itemRef.trim()} in this sample's current draw.`);
     const checked = RaiseNoteSchema.safeParse({ text, itemId: item?.id });
     if (!checked.success) return setError(checked.error.issues[0].message);
-    if (await run(() => api(base, { body: checked.data }))) { setText(""); setItemRef(""); }
+    if (await run(() => apiFetch(base, { body: checked.data }))) { setText(""); setItemRef(""); }
   }
 
   return (
@@ -77,11 +77,11 @@ export function ReviewNotes({ engagementId, sampleId, role, notes, locked, items
             {n.clearedBy && <p className="mt-1 text-xs text-ledger-700">Cleared by {n.clearedBy}{n.clearedAt ? ` · ${formatDateTime(n.clearedAt)}` : ""}</p>}
             {!locked && n.status !== "cleared" && canAnswer && (
               <div className="mt-2 space-y-2">
-                <textarea aria-label={`Answer to note ${i + 1}`} value={answers[n.id] ?? ""} rows={2} onChange={(e) => setAnswers({ ...answers, [n.id]: e.target.value })}
-                  placeholder={n.answer ? "Add to the answer…" : "Answer the note…"} className={area} />
+                <Textarea aria-label={`Answer to note ${i + 1}`} value={answers[n.id] ?? ""} rows={2} onChange={(e) => setAnswers({ ...answers, [n.id]: e.target.value })}
+                  placeholder={n.answer ? "Add to the answer…" : "Answer the note…"} />
                 <div className="flex gap-2">
                   <Button variant="secondary" className="px-2.5 py-1 text-xs" onClick={() => void sendAnswer(n, i)}>Send answer</Button>
-                  {isReviewer && n.status === "answered" && <Button variant="secondary" className="px-2.5 py-1 text-xs" onClick={() => void run(() => api(`${base}/${n.id}/clear`, { body: {} }))}>Clear</Button>}
+                  {isReviewer && n.status === "answered" && <Button variant="secondary" className="px-2.5 py-1 text-xs" onClick={() => void run(() => apiFetch(`${base}/${n.id}/clear`, { body: {} }))}>Clear</Button>}
                 </div>
               </div>
             )}
@@ -90,7 +90,7 @@ export function ReviewNotes({ engagementId, sampleId, role, notes, locked, items
       </ol>
       {!locked && isReviewer && (
         <form className="space-y-2" aria-label="Raise a review note" onSubmit={(e) => { e.preventDefault(); void raise(); }}>
-          <textarea aria-label="New review note" value={text} onChange={(e) => setText(e.target.value)} rows={3} placeholder="Raise a review note for the preparer…" className={area} />
+          <Textarea aria-label="New review note" value={text} onChange={(e) => setText(e.target.value)} rows={3} placeholder="Raise a review note for the preparer…" />
           <div className="flex flex-wrap items-center gap-2">
             <label className="inline-flex items-center gap-2 text-sm text-ink-soft">About item (optional)
               <input list={`note-items-${sampleId}`} value={itemRef} onChange={(e) => setItemRef(e.target.value)} placeholder="reference" className="w-36 rounded-md border border-ink-line bg-paper-raised px-2 py-1 text-sm" />

@@ -4,7 +4,7 @@ import { useRouter } from "next/navigation";
 import { hasAtLeastRole, type EngagementRole } from "@/lib/auth/roles";
 import type { ReviewState } from "@/lib/review/review-state";
 import type { ReviewNote } from "@/lib/data/review-notes";
-import { api } from "@/components/ui/api";
+import { apiFetch } from "@/components/ui/api";
 import { Alert } from "@/components/ui/alert";
 import { Badge } from "@/components/ui/badge";
 import { Button, buttonClass } from "@/components/ui/button";
@@ -36,7 +36,7 @@ export function ReviewPanel({ engagementId, sampleId, role, review, notes, drawn
     setBusy(true);
     setMessage(null);
     try {
-      await api(`${base}/${path}`, { body });
+      await apiFetch(`${base}/${path}`, { body });
       setMessage({ tone: "success", text: done });
       router.refresh();
     } catch (err) {

@@ -1,11 +1,13 @@
 "use client";
-import { useEffect, useState } from "react";
+import { useState } from "react";
 import type { SampleItemRecord } from "@/lib/data/sample-items";
 import { Alert } from "@/components/ui/alert";
 import { Amount } from "@/components/ui/amount";
 import { Button } from "@/components/ui/button";
-import { api } from "@/components/ui/api";
+import { apiFetch } from "@/components/ui/api";
 import { formatDate } from "@/lib/format/date";
+import { useApi } from "@/components/ui/use-api";
+import { Textarea } from "@/components/ui/field";
 
 interface Props {
   base: string;
@@ -17,40 +19,25 @@ interface Props {
   onChanged: () => void;
 }
 
-const textarea =
-  "w-full rounded-md border border-ink-line bg-paper-raised px-3 py-2 text-sm focus:border-ledger-500 focus:outline-none";
 
 /**
  * Misstatements that may be anomalous (ISA 530 ¶13, AU-C 530.13): a preparer proposes one with a written
  * justification of the extremely rare circumstances; it counts only once a manager or partner accepts it.
  */
 export function AnomalyPanel({ base, method, refreshKey, mayMark, mayAccept, allowed, onChanged }: Props) {
-  const [items, setItems] = useState<SampleItemRecord[]>([]);
+  const read = useApi<{ items: SampleItemRecord[] }>(`${base}/items?pageSize=500`, { revision: refreshKey });
+  const items = read.data?.items ?? [];
   const [open, setOpen] = useState<number | null>(null);
   const [text, setText] = useState("");
-  const [failure, setFailure] = useState<string | null>(null);
-  const [reloads, setReloads] = useState(0);
-  useEffect(() => {
-    let live = true;
-    api<{ items: SampleItemRecord[] }>(`${base}/items?pageSize=500`).then(
-      (r) => {
-        if (live) setItems(r.items);
-      },
-      (e: Error) => {
-        if (live) setFailure(e.message);
-      },
-    );
-    return () => {
-      live = false;
-    };
-  }, [base, refreshKey, reloads]);
+  const [actionFailure, setFailure] = useState<string | null>(null);
+  const failure = actionFailure ?? read.error?.message ?? null;
   const act = async (fn: () => Promise<unknown>) => {
     setFailure(null);
     try {
       await fn();
       setOpen(null);
       setText("");
-      setReloads((n) => n + 1);
+      await read.mutate();
       onChanged();
     } catch (e) {
       setFailure(e instanceof Error ? e.message : "Not saved");
@@ -100,7 +87,7 @@ export function AnomalyPanel({ base, method, refreshKey, mayMark, mayAccept, all
                     <Button
                       type="button"
                       onClick={() =>
-                        void act(() => api(`${base}/items/${i.id}/anomaly/acceptance`, { body: { confirm: true } }))
+                        void act(() => apiFetch(`${base}/items/${i.id}/anomaly/acceptance`, { body: { confirm: true } }))
                       }
                     >
                       Accept the anomaly
@@ -110,7 +97,7 @@ export function AnomalyPanel({ base, method, refreshKey, mayMark, mayAccept, all
                     <Button
                       type="button"
                       variant="secondary"
-                      onClick={() => void act(() => api(`${base}/items/${i.id}/anomaly`, { method: "DELETE" }))}
+                      onClick={() => void act(() => apiFetch(`${base}/items/${i.id}/anomaly`, { method: "DELETE" }))}
                     >
                       Withdraw
                     </Button>
@@ -131,16 +118,15 @@ export function AnomalyPanel({ base, method, refreshKey, mayMark, mayAccept, all
                   className="mt-2 space-y-2"
                   onSubmit={(e) => {
                     e.preventDefault();
-                    void act(() => api(`${base}/items/${i.id}/anomaly`, { body: { justification: text } }));
+                    void act(() => apiFetch(`${base}/items/${i.id}/anomaly`, { body: { justification: text } }));
                   }}
                 >
                   <label className="block font-medium" htmlFor={`anomaly-${i.id}`}>
                     Why is this misstatement not representative of the population? (extremely rare circumstances)
                   </label>
-                  <textarea
+                  <Textarea
                     id={`anomaly-${i.id}`}
                     rows={3}
-                    className={textarea}
                     value={text}
                     onChange={(e) => setText(e.target.value)}
                   />

@@ -1,5 +1,6 @@
 import type { AttributesEvaluationBlock } from "@/lib/samples/evaluation-types";
 import { formatPercent } from "@/lib/format/number";
+import { Table, Th, Td } from "@/components/ui/table";
 
 /** Deviations against the tolerable rate, with the one-sided upper deviation limit, as the view model gives them. */
 export function AttributeResult({ a }: { a: AttributesEvaluationBlock }) {
@@ -26,16 +27,16 @@ export function AttributeResult({ a }: { a: AttributesEvaluationBlock }) {
   ];
   return (
     <div className="space-y-2">
-      <table className="w-full text-sm" aria-label="Attribute result">
+      <Table label="Attribute result" density="compact">
         <tbody>
           {rows.map(([label, value, id]) => (
             <tr key={label} className="border-t border-ink-line/60">
-              <th scope="row" className="py-1.5 pr-3 text-left font-normal text-ink-soft">{label}</th>
-              <td className="figures py-1.5 text-right font-medium" data-testid={id}>{value}</td>
+              <Th scope="row" className="font-normal text-ink-soft">{label}</Th>
+              <Td numeric data-testid={id} className="font-medium">{value}</Td>
             </tr>
           ))}
         </tbody>
-      </table>
+      </Table>
       <p className="text-sm">{a.statement}</p>
     </div>
   );

@@ -23,13 +23,13 @@ export function BoundChart({ rows, tolerable, tolerableLabel, format, title, cap
       <svg viewBox={`0 0 ${W} ${height}`} className="w-full" role="img" aria-label={`${title}: ${rows.map((r) => `${r.label} projected ${format(r.projected)}, upper bound ${format(r.upper)}`).join("; ")}; ${tolerableLabel} ${format(tolerable)}`}>
         <defs>
           <pattern id="allowance-hatch" width="6" height="6" patternUnits="userSpaceOnUse" patternTransform="rotate(45)">
-            <rect width="6" height="6" fill="#d5eadd" />
-            <line x1="0" y1="0" x2="0" y2="6" stroke="#2f7a54" strokeWidth="1.5" opacity="0.45" />
+            <rect width="6" height="6" className="fill-ledger-100" />
+            <line x1="0" y1="0" x2="0" y2="6" className="stroke-ledger-500" strokeWidth="1.5" opacity="0.45" />
           </pattern>
         </defs>
         {ticks.map((t) => (
           <g key={t}>
-            <line x1={x(t)} x2={x(t)} y1={TOP - 6} y2={height - 22} stroke="#d9d4c7" strokeDasharray="2 3" />
+            <line x1={x(t)} x2={x(t)} y1={TOP - 6} y2={height - 22} className="stroke-ink-line" strokeDasharray="2 3" />
             <text x={x(t)} y={height - 6} textAnchor="middle" className="fill-ink-faint" fontSize="10" fontFamily="IBM Plex Mono, monospace">{format(t)}</text>
           </g>
         ))}
@@ -39,15 +39,15 @@ export function BoundChart({ rows, tolerable, tolerableLabel, format, title, cap
           return (
             <g key={r.label}>
               <text x={LEFT - 10} y={y + 17} textAnchor="end" fontSize="12" className="fill-ink">{r.label}</text>
-              <rect x={x(0)} y={y + 4} width={Math.max(0, x(r.upper) - x(0))} height={20} rx={3} fill="url(#allowance-hatch)" stroke={over ? "#b5432a" : "#2f7a54"} strokeWidth="1" />
-              <rect x={x(0)} y={y + 4} width={Math.max(0, x(r.projected) - x(0))} height={20} rx={3} fill={over ? "#b5432a" : "#24663f"} />
+              <rect x={x(0)} y={y + 4} width={Math.max(0, x(r.upper) - x(0))} height={20} rx={3} fill="url(#allowance-hatch)" className={over ? "stroke-brick-500" : "stroke-ledger-500"} strokeWidth="1" />
+              <rect x={x(0)} y={y + 4} width={Math.max(0, x(r.projected) - x(0))} height={20} rx={3} className={over ? "fill-brick-500" : "fill-ledger-600"} />
               <text x={Math.min(x(r.upper) + 6, W - RIGHT)} y={y + 38} textAnchor={x(r.upper) + 6 > W - 120 ? "end" : "start"} fontSize="10" className="fill-ink-soft" fontFamily="IBM Plex Mono, monospace">
                 {format(r.projected)} → {format(r.upper)}
               </text>
             </g>
           );
         })}
-        <line x1={x(tolerable)} x2={x(tolerable)} y1={TOP - 14} y2={height - 22} stroke="#c98a12" strokeWidth="2" />
+        <line x1={x(tolerable)} x2={x(tolerable)} y1={TOP - 14} y2={height - 22} className="stroke-amber-500" strokeWidth="2" />
         <text x={x(tolerable)} y={TOP - 18} textAnchor={x(tolerable) > W - 140 ? "end" : "middle"} fontSize="11" fontWeight="600" className="fill-amber-700">{tolerableLabel} {format(tolerable)}</text>
       </svg>
       <figcaption className="flex flex-wrap gap-4 text-xs text-ink-soft">

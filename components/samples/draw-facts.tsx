@@ -1,6 +1,7 @@
 import type { DrawRecord } from "@/lib/data/samples";
 import { Badge } from "@/components/ui/badge";
 import { formatDateTime } from "@/lib/format/date";
+import { Table, THead, Th, Td } from "@/components/ui/table";
 
 const when = formatDateTime;
 
@@ -40,25 +41,25 @@ export function DrawFacts({ draw, itemCount }: { draw: DrawRecord; itemCount?: n
 /** Every draw of the sample, newest first; earlier versions are kept with their own results. */
 export function DrawHistory({ draws }: { draws: DrawRecord[] }) {
   return (
-    <table className="w-full text-sm" aria-label="Draw history">
-      <thead className="text-left text-xs uppercase tracking-wider text-ink-soft">
+    <Table label="Draw history" density="compact">
+      <THead>
         <tr>
-          <th scope="col" className="py-1.5 pr-3 font-semibold">Version</th>
-          <th scope="col" className="py-1.5 pr-3 font-semibold">Seed</th>
-          <th scope="col" className="py-1.5 pr-3 font-semibold">Drawn</th>
-          <th scope="col" className="py-1.5 font-semibold">State</th>
+          <Th>Version</Th>
+          <Th>Seed</Th>
+          <Th>Drawn</Th>
+          <Th>State</Th>
         </tr>
-      </thead>
+      </THead>
       <tbody>
         {draws.map((d) => (
           <tr key={d.id} className="border-t border-ink-line/60">
-            <td className="figures py-1.5 pr-3">{d.version}</td>
-            <td className="figures py-1.5 pr-3">{d.seed}{d.seedSource === "entered" && <span className="ml-1 text-xs text-ink-faint">(entered)</span>}</td>
-            <td className="py-1.5 pr-3">{when(d.drawnAt)} · {d.drawnByName}</td>
-            <td className="py-1.5">{d.current ? <Badge tone="green">current</Badge> : <Badge>kept for the record</Badge>}</td>
+            <Td className="figures">{d.version}</Td>
+            <Td className="figures">{d.seed}{d.seedSource === "entered" && <span className="ml-1 text-xs text-ink-faint">(entered)</span>}</Td>
+            <Td>{when(d.drawnAt)} · {d.drawnByName}</Td>
+            <Td>{d.current ? <Badge tone="green">current</Badge> : <Badge>kept for the record</Badge>}</Td>
           </tr>
         ))}
       </tbody>
-    </table>
+    </Table>
   );
 }

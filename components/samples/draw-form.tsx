@@ -7,7 +7,7 @@ import { DrawSchema } from "@/lib/validation/sample";
 import { Field, Input } from "@/components/ui/field";
 import { Button } from "@/components/ui/button";
 import { Alert } from "@/components/ui/alert";
-import { api, ApiError } from "@/components/ui/api";
+import { apiFetch, ApiError } from "@/components/ui/api";
 import type { SampleView } from "./types";
 import { textOf } from "@/lib/format/text";
 
@@ -30,7 +30,7 @@ export function DrawForm({ engagementId, sampleId, currentVersion, populationRea
     if (currentVersion !== null && !confirming) { setConfirming(true); return; }
     setFailure(null);
     try {
-      const view = await api<SampleView>(`/api/engagements/${engagementId}/samples/${sampleId}/draw`, { body: seed === undefined || !seeded ? {} : { seed } });
+      const view = await apiFetch<SampleView>(`/api/engagements/${engagementId}/samples/${sampleId}/draw`, { body: seed === undefined || !seeded ? {} : { seed } });
       setConfirming(false);
       reset({ seed: "" });
       onDrawn(view);
@@ -47,7 +47,7 @@ export function DrawForm({ engagementId, sampleId, currentVersion, populationRea
       {!populationReady && <Alert tone="info">The population is not reconciled yet; the server will refuse the draw until it is.</Alert>}
       {seeded ? (
         <Field label="Seed (optional)" error={errors.seed?.message} hint="Leave blank for a seed generated on the server. Enter one (0 to 4294967295) to re-perform a selection made elsewhere.">
-          {({ id, describedBy, invalid }) => <Input id={id} aria-describedby={describedBy} aria-invalid={invalid} inputMode="numeric" className="figures max-w-56" {...register("seed", { setValueAs: (v: unknown) => (textOf(v).trim() === "" ? undefined : v) })} />}
+          <Input inputMode="numeric" className="figures max-w-56" {...register("seed", { setValueAs: (v: unknown) => (textOf(v).trim() === "" ? undefined : v) })} />
         </Field>
       ) : (
         <p className="text-sm text-ink-soft">A haphazard selection has no seed: drawing sets the key items, then you pick the rest from the population on this tab.</p>

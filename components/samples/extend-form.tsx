@@ -7,7 +7,7 @@ import { ExtendSchema } from "@/lib/validation/sample";
 import { Field, Input } from "@/components/ui/field";
 import { Button } from "@/components/ui/button";
 import { Alert } from "@/components/ui/alert";
-import { api } from "@/components/ui/api";
+import { apiFetch } from "@/components/ui/api";
 
 type In = z.input<typeof ExtendSchema>;
 type Out = z.output<typeof ExtendSchema>;
@@ -19,7 +19,7 @@ export function ExtendForm({ engagementId, sampleId, onExtended }: { engagementI
   const onSubmit = handleSubmit(async (body) => {
     setOutcome(null);
     try {
-      const { extension } = await api<{ extension: { added: number; streamPosition: number } }>(`/api/engagements/${engagementId}/samples/${sampleId}/extend`, { body });
+      const { extension } = await apiFetch<{ extension: { added: number; streamPosition: number } }>(`/api/engagements/${engagementId}/samples/${sampleId}/extend`, { body });
       setOutcome({ tone: "success", text: `${extension.added} items added, continuing the random numbers after rank ${extension.streamPosition}.` });
       reset({ additional: "", reason: "" });
       onExtended();
@@ -32,11 +32,11 @@ export function ExtendForm({ engagementId, sampleId, onExtended }: { engagementI
       {outcome && <div className="mb-2"><Alert tone={outcome.tone}>{outcome.text}</Alert></div>}
       <div className="grid gap-x-4 sm:grid-cols-3">
         <Field label="Items to add" error={errors.additional?.message}>
-          {({ id, describedBy, invalid }) => <Input id={id} aria-describedby={describedBy} aria-invalid={invalid} inputMode="numeric" className="figures text-right" {...register("additional")} />}
+          <Input inputMode="numeric" className="figures text-right" {...register("additional")} />
         </Field>
         <div className="sm:col-span-2">
           <Field label="Why the sample is extended" error={errors.reason?.message}>
-            {({ id, describedBy, invalid }) => <Input id={id} aria-describedby={describedBy} aria-invalid={invalid} {...register("reason")} />}
+            <Input {...register("reason")} />
           </Field>
         </div>
       </div>

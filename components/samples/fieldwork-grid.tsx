@@ -5,7 +5,7 @@ import type { SampleItemRecord } from "@/lib/data/sample-items";
 import type { SampleMethod } from "@/lib/validation/sample";
 import { Amount } from "@/components/ui/amount";
 import { Button } from "@/components/ui/button";
-import { api } from "@/components/ui/api";
+import { apiFetch } from "@/components/ui/api";
 import { Alert } from "@/components/ui/alert";
 import { ResultRow } from "./result-row";
 import { AuditedValueCell, CauseCell, CommentCell, DeviationCell, EvidenceCell, MisstatementCell, ReferenceCell, StatusCell } from "./result-cells";
@@ -92,7 +92,7 @@ export function FieldworkGrid({ engagementId, sampleId, method, drawVersion, may
     let live = true;
     const params = new URLSearchParams({ page: String(pagination.pageIndex + 1), pageSize: String(pagination.pageSize), status });
     if (query) params.set("q", query);
-    api<ItemsPage>(`${url}?${params}`).then(
+    apiFetch<ItemsPage>(`${url}?${params}`).then(
       (r) => { if (live) { setPage(r); setError(null); } },
       (e: Error) => { if (live) setError(e.message); },
     );

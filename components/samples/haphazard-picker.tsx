@@ -1,13 +1,14 @@
 "use client";
-import { useCallback, useEffect, useMemo, useState } from "react";
+import { useCallback, useMemo, useState } from "react";
 import type { SampleItemRecord } from "@/lib/data/sample-items";
 import type { PopulationItem } from "@/lib/data/population-items";
 import { ItemsGrid, type GridPick } from "@/components/populations/items-grid";
 import { Alert } from "@/components/ui/alert";
 import { Amount } from "@/components/ui/amount";
 import { Button } from "@/components/ui/button";
-import { api } from "@/components/ui/api";
+import { apiFetch } from "@/components/ui/api";
 import { formatDateTime } from "@/lib/format/date";
+import { useApi } from "@/components/ui/use-api";
 
 interface Props {
   engagementId: number;
@@ -33,24 +34,12 @@ export function HaphazardPicker({
   onChanged,
 }: Props) {
   const base = `/api/engagements/${engagementId}/samples/${sampleId}`;
-  const [items, setItems] = useState<SampleItemRecord[]>([]);
-  const [failure, setFailure] = useState<string | null>(null);
+  const read = useApi<{ items: SampleItemRecord[] }>(`${base}/items?pageSize=500`);
+  const items = useMemo(() => read.data?.items ?? [], [read.data]);
+  const [actionFailure, setFailure] = useState<string | null>(null);
+  const failure = actionFailure ?? read.error?.message ?? null;
   const [busy, setBusy] = useState(false);
-  const [reloads, setReloads] = useState(0);
-  useEffect(() => {
-    let live = true;
-    api<{ items: SampleItemRecord[] }>(`${base}/items?pageSize=500`).then(
-      (r) => {
-        if (live) setItems(r.items);
-      },
-      (e: Error) => {
-        if (live) setFailure(e.message);
-      },
-    );
-    return () => {
-      live = false;
-    };
-  }, [base, reloads]);
+  const { mutate } = read;
 
   const picks = items.filter((i) => i.origin === "haphazard");
   const full = picks.length >= planned;
@@ -64,7 +53,7 @@ export function HaphazardPicker({
       setFailure(null);
       try {
         await fn();
-        setReloads((n) => n + 1);
+        await mutate();
         onChanged();
       } catch (e) {
         setFailure(e instanceof Error ? e.message : "Not saved");
@@ -72,13 +61,13 @@ export function HaphazardPicker({
         setBusy(false);
       }
     },
-    [onChanged],
+    [onChanged, mutate],
   );
   const pick: GridPick = useMemo(
     () => ({
       status: (row) => byRow.get(row) ?? null,
       disabled: busy || full || !mayPick,
-      onPick: (item: PopulationItem) => void act(() => api(`${base}/picks`, { body: { rowNumber: item.rowNumber } })),
+      onPick: (item: PopulationItem) => void act(() => apiFetch(`${base}/picks`, { body: { rowNumber: item.rowNumber } })),
     }),
     [byRow, busy, full, mayPick, act, base],
   );
@@ -123,7 +112,7 @@ export function HaphazardPicker({
                       type="button"
                       variant="secondary"
                       disabled={busy}
-                      onClick={() => void act(() => api(`${base}/picks/${p.id}`, { method: "DELETE" }))}
+                      onClick={() => void act(() => apiFetch(`${base}/picks/${p.id}`, { method: "DELETE" }))}
                       aria-label={`Remove the pick ${p.itemRef}`}
                     >
                       Remove

@@ -1,5 +1,6 @@
 import type { NonstatisticalEvaluationBlock } from "@/lib/samples/evaluation-types";
 import { Amount } from "@/components/ui/amount";
+import { Table, Th, Td } from "@/components/ui/table";
 
 const amt = (v: string) => <Amount value={v} />;
 const METHOD = {
@@ -40,20 +41,20 @@ export function NonstatisticalResult({ n }: { n: NonstatisticalEvaluationBlock }
   ];
   return (
     <div className="space-y-4">
-      <table className="w-full text-sm" aria-label="Nonstatistical projection">
+      <Table label="Nonstatistical projection" density="compact">
         <tbody>
           {rows.map(([label, value, id]) => (
             <tr key={label} className="border-t border-ink-line/60">
-              <th scope="row" className="py-1.5 pr-3 text-left font-normal text-ink-soft">
+              <Th scope="row" className="font-normal text-ink-soft">
                 {label}
-              </th>
-              <td className="py-1.5 text-right font-medium" data-testid={id}>
+              </Th>
+              <Td data-testid={id} className="text-right font-medium">
                 {value}
-              </td>
+              </Td>
             </tr>
           ))}
         </tbody>
-      </table>
+      </Table>
       <p className="text-sm" data-testid="ns-statement">{n.statement}</p>
       {n.responses.length > 0 && (
         <div

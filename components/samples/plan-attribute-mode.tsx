@@ -13,21 +13,17 @@ export function PlanAttributeMode({ form }: { form: UseFormReturn<PlanFormIn, un
   return (
     <>
       <Field label="Size set by" error={e?.attributeMode?.message} hint={byFrequency ? "The firm's control-frequency table (methodology settings)" : "Risk of overreliance and deviation rates"}>
-        {({ id, describedBy, invalid }) => (
-          <Select id={id} aria-describedby={describedBy} aria-invalid={invalid} {...register("params.attributeMode")}>
-            <option value="statistical">Statistical attribute plan</option>
-            <option value="control-frequency">Control frequency (manual control)</option>
-          </Select>
-        )}
+        <Select {...register("params.attributeMode")}>
+          <option value="statistical">Statistical attribute plan</option>
+          <option value="control-frequency">Control frequency (manual control)</option>
+        </Select>
       </Field>
       {byFrequency && (
         <Field label="How often the control operates" error={e?.controlFrequency?.message}>
-          {({ id, describedBy, invalid }) => (
-            <Select id={id} aria-describedby={describedBy} aria-invalid={invalid} {...register("params.controlFrequency")}>
-              <option value="">Choose…</option>
-              {CONTROL_FREQUENCIES.map((f) => <option key={f} value={f}>{CONTROL_FREQUENCY_LABELS[f]}</option>)}
-            </Select>
-          )}
+          <Select {...register("params.controlFrequency")}>
+            <option value="">Choose…</option>
+            {CONTROL_FREQUENCIES.map((f) => <option key={f} value={f}>{CONTROL_FREQUENCY_LABELS[f]}</option>)}
+          </Select>
         </Field>
       )}
     </>

@@ -6,11 +6,11 @@ import { useForm, type FieldPath, type Resolver } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { DIRECTIONS, PlanSampleSchema, SAMPLE_METHODS } from "@/lib/validation/sample";
 import type { SampleRecord } from "@/lib/data/samples";
-import { Field, Input, Select } from "@/components/ui/field";
+import { Field, Input, Select, Textarea } from "@/components/ui/field";
 import { Button } from "@/components/ui/button";
 import { Alert } from "@/components/ui/alert";
 import { Card } from "@/components/ui/card";
-import { api, ApiError } from "@/components/ui/api";
+import { apiFetch, ApiError } from "@/components/ui/api";
 import { DIRECTION_LABELS, METHOD_LABELS } from "./labels";
 import { PlanParameters } from "./plan-parameters";
 import type { EarlierSample } from "./plan-spread-fields";
@@ -23,7 +23,6 @@ import { KeyItemsEditor } from "./key-items-editor";
 import { KEY_ITEM_METHODS } from "@/lib/validation/sample";
 import { defaultPlanValues, formFieldOf, suggestedBounds, toRequest, type PlanFormIn, type PlanFormOut, type PopulationChoice } from "./plan-values";
 
-const textarea = "w-full rounded-md border border-ink-line bg-paper-raised px-3 py-2 text-sm focus:border-ledger-500 focus:outline-none focus:ring-2 focus:ring-ledger-100 aria-[invalid=true]:border-brick-500";
 const schemaResolver = zodResolver(PlanSampleSchema);
 const resolver: Resolver<PlanFormIn, unknown, PlanFormOut> = (values, context, options) => schemaResolver(toRequest(values), context, options);
 const ASSERTIONS = ["Existence", "Occurrence", "Valuation and allocation", "Accuracy", "Completeness", "Cut-off", "Rights and obligations"];
@@ -68,7 +67,7 @@ export function PlanForm({ engagementId, currency, performanceMateriality, popul
     setFailure(null);
     try {
       const path = editing ? `/api/engagements/${engagementId}/samples/${editing.sampleId}` : `/api/engagements/${engagementId}/samples`;
-      const { sample } = await api<{ sample: SampleRecord }>(path, { method: editing ? "PATCH" : "POST", body });
+      const { sample } = await apiFetch<{ sample: SampleRecord }>(path, { method: editing ? "PATCH" : "POST", body });
       router.push(`/engagements/${engagementId}/samples/${sample.id}`);
       router.refresh();
     } catch (err) {
@@ -85,29 +84,28 @@ export function PlanForm({ engagementId, currency, performanceMateriality, popul
         <Card title="What is tested">
           <PopulationPicker form={form} populations={populations} engagementId={engagementId} currency={currency} />
           <Field label="Sample name" error={errors.name?.message} hint="e.g. Trade receivables — existence at year end">
-            {({ id, describedBy, invalid }) => <Input id={id} aria-describedby={describedBy} aria-invalid={invalid} {...register("name")} />}
+            <Input {...register("name")} />
           </Field>
           <Field label="Objective of the test" error={errors.objective?.message}>
-            {({ id, describedBy, invalid }) => <textarea id={id} aria-describedby={describedBy} aria-invalid={invalid} rows={3} className={textarea} {...register("objective")} />}
+            <Textarea rows={3} {...register("objective")} />
           </Field>
           <div className="grid gap-x-4 sm:grid-cols-2">
             <Field label="Assertion" error={errors.assertion?.message}>
-              {({ id, describedBy, invalid }) => <><Input id={id} aria-describedby={describedBy} aria-invalid={invalid} list="assertion-suggestions" {...register("assertion")} /><datalist id="assertion-suggestions">{ASSERTIONS.map((a) => <option key={a} value={a} />)}</datalist></>}
+              <Input list="assertion-suggestions" {...register("assertion")} />
+              <datalist id="assertion-suggestions">{ASSERTIONS.map((a) => <option key={a} value={a} />)}</datalist>
             </Field>
             {method !== "attribute" && (
               <Field label="Misstatement tested for" error={errors.direction?.message}>
-                {({ id, describedBy, invalid }) => <Select id={id} aria-describedby={describedBy} aria-invalid={invalid} {...register("direction")}>{DIRECTIONS.map((d) => <option key={d} value={d}>{DIRECTION_LABELS[d]}</option>)}</Select>}
+                <Select {...register("direction")}>{DIRECTIONS.map((d) => <option key={d} value={d}>{DIRECTION_LABELS[d]}</option>)}</Select>
               </Field>
             )}
           </div>
         </Card>
         <Card title="Method and parameters">
           <Field label="Sampling method" error={errors.params?.method?.message}>
-            {({ id, describedBy, invalid }) => (
-              <Select id={id} aria-describedby={describedBy} aria-invalid={invalid} {...register("params.method", { onChange: (e: React.ChangeEvent<HTMLSelectElement>) => onMethod(e.target.value) })}>
-                {SAMPLE_METHODS.map((m) => <option key={m} value={m}>{METHOD_LABELS[m]}</option>)}
-              </Select>
-            )}
+            <Select {...register("params.method", { onChange: (e: React.ChangeEvent<HTMLSelectElement>) => onMethod(e.target.value) })}>
+              {SAMPLE_METHODS.map((m) => <option key={m} value={m}>{METHOD_LABELS[m]}</option>)}
+            </Select>
           </Field>
           <PlanParameters form={form} plan={preview.plan} currency={currency} performanceMateriality={performanceMateriality} earlierSamples={earlierSamples} />
         </Card>

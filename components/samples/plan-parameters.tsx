@@ -33,33 +33,27 @@ export function PlanParameters({ form, plan, currency, performanceMateriality, e
     <div className="grid gap-x-4 sm:grid-cols-2">
       {classical && (
         <Field label="Estimator" error={e?.estimator?.message} hint={method === "stratified" ? "Separate ratio suits strata with many misstatements each; combined ratio otherwise" : "Difference and ratio need misstatements in the sample to be reliable"}>
-          {({ id, describedBy, invalid }) => (
-            <Select id={id} aria-describedby={describedBy} aria-invalid={invalid} {...register("params.estimator")}>
-              <option value="">Choose…</option>
-              {estimators.map((k) => <option key={k} value={k}>{ESTIMATOR_LABELS[k]}</option>)}
-            </Select>
-          )}
+          <Select {...register("params.estimator")}>
+            <option value="">Choose…</option>
+            {estimators.map((k) => <option key={k} value={k}>{ESTIMATOR_LABELS[k]}</option>)}
+          </Select>
         </Field>
       )}
       {method === "nonstatistical" && (
         <>
           <Field label="Selection of the rest" error={e?.selection?.message} hint={selection === "haphazard" ? "You pick the items on the population grid after the draw; each pick is recorded with who and when. It cannot be re-performed from a seed." : "Seeded, re-performable by anyone"}>
-            {({ id, describedBy, invalid }) => (
-              <Select id={id} aria-describedby={describedBy} aria-invalid={invalid} {...register("params.selection")}>
-                <option value="random">Random (seeded)</option>
-                <option value="systematic">Systematic with a random start</option>
-                <option value="haphazard">Haphazard (picked by the auditor)</option>
-                <option value="block">Block of contiguous items</option>
-              </Select>
-            )}
+            <Select {...register("params.selection")}>
+              <option value="random">Random (seeded)</option>
+              <option value="systematic">Systematic with a random start</option>
+              <option value="haphazard">Haphazard (picked by the auditor)</option>
+              <option value="block">Block of contiguous items</option>
+            </Select>
           </Field>
           <Field label="Projection of misstatement" error={e?.projection?.message} hint="Ratio: misstatement ÷ sampled book × remainder book. Difference: misstatement per item × remainder items.">
-            {({ id, describedBy, invalid }) => (
-              <Select id={id} aria-describedby={describedBy} aria-invalid={invalid} {...register("params.projection")}>
-                <option value="ratio">Ratio</option>
-                <option value="difference">Difference</option>
-              </Select>
-            )}
+            <Select {...register("params.projection")}>
+              <option value="ratio">Ratio</option>
+              <option value="difference">Difference</option>
+            </Select>
           </Field>
         </>
       )}
@@ -67,40 +61,38 @@ export function PlanParameters({ form, plan, currency, performanceMateriality, e
       {method === "attribute" ? (
         !byFrequency && <>
           <Field label="Tolerable deviation rate" error={e?.tolerableRate?.message}>
-            {({ id, describedBy, invalid }) => <PercentInput id={id} aria-describedby={describedBy} aria-invalid={invalid} {...register("params.tolerableRate")} />}
+            <PercentInput {...register("params.tolerableRate")} />
           </Field>
           <Field label="Expected deviation rate" error={e?.expectedRate?.message}>
-            {({ id, describedBy, invalid }) => <PercentInput id={id} aria-describedby={describedBy} aria-invalid={invalid} {...register("params.expectedRate")} />}
+            <PercentInput {...register("params.expectedRate")} />
           </Field>
           <Field label="Plan" error={e?.attributePlan?.message} hint="A fixed sample is never extended once results exist; a two-stage plan fixes its stage 2 now, drawn only after exactly one deviation">
-            {({ id, describedBy, invalid }) => (
-              <Select id={id} aria-describedby={describedBy} aria-invalid={invalid} {...register("params.attributePlan")}>
-                <option value="fixed">Fixed size</option>
-                <option value="two-stage">Two-stage (planned)</option>
-              </Select>
-            )}
+            <Select {...register("params.attributePlan")}>
+              <option value="fixed">Fixed size</option>
+              <option value="two-stage">Two-stage (planned)</option>
+            </Select>
           </Field>
         </>
       ) : (
         <>
           <Field label={`Tolerable misstatement (${currency})`} error={e?.tolerableMisstatement?.message} hint={`Performance materiality on this engagement: ${formatMoney(performanceMateriality)}`}>
-            {({ id, describedBy, invalid }) => <Input id={id} aria-describedby={describedBy} aria-invalid={invalid} inputMode="decimal" className={money} {...register("params.tolerableMisstatement")} />}
+            <Input inputMode="decimal" className={money} {...register("params.tolerableMisstatement")} />
           </Field>
           <Field label={`Expected misstatement (${currency})`} error={e?.expectedMisstatement?.message}>
-            {({ id, describedBy, invalid }) => <Input id={id} aria-describedby={describedBy} aria-invalid={invalid} inputMode="decimal" className={money} {...register("params.expectedMisstatement")} />}
+            <Input inputMode="decimal" className={money} {...register("params.expectedMisstatement")} />
           </Field>
         </>
       )}
       {classical && (
         <Field label="Risk of incorrect rejection" error={e?.riskOfIncorrectRejection?.message} hint="Two-sided when both directions are tested, one-sided for one direction; sets how wide the planned allowance is">
-          {({ id, describedBy, invalid }) => <PercentInput id={id} aria-describedby={describedBy} aria-invalid={invalid} {...register("params.riskOfIncorrectRejection")} />}
+          <PercentInput {...register("params.riskOfIncorrectRejection")} />
         </Field>
       )}
       {method === "mus" && (
         <>
           <Field label={`Top-stratum threshold (${currency})`} error={e?.topStratumThreshold?.message}
             hint={plan?.interval !== undefined ? `Blank: the sampling interval, ${formatMoney(plan.interval)}. Items at or above it are all tested.` : "Blank: the sampling interval. Items at or above it are all tested."}>
-            {({ id, describedBy, invalid }) => <Input id={id} aria-describedby={describedBy} aria-invalid={invalid} inputMode="decimal" className={money} placeholder={plan?.interval !== undefined ? String(plan.interval) : ""} {...register("params.topStratumThreshold")} />}
+            <Input inputMode="decimal" className={money} placeholder={plan?.interval !== undefined ? String(plan.interval) : ""} {...register("params.topStratumThreshold")} />
           </Field>
           <p className="self-center text-xs text-ink-soft" data-testid="mus-methodology">
             {plan?.sizeMethod

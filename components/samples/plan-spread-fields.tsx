@@ -1,7 +1,7 @@
 "use client";
 import type { UseFormReturn } from "react-hook-form";
 import { SPREAD_BASES, type SpreadBasis } from "@/lib/validation/sample";
-import { Field, Input, Select } from "@/components/ui/field";
+import { Field, Input, Select, Textarea } from "@/components/ui/field";
 import type { PlanFormIn, PlanFormOut } from "./plan-values";
 
 export interface EarlierSample { id: number; name: string }
@@ -12,7 +12,6 @@ const BASIS_LABELS: Record<SpreadBasis, string> = {
   entered: "A figure I enter, with its reason",
 };
 
-const textarea = "w-full rounded-md border border-ink-line bg-paper-raised px-3 py-2 text-sm focus:border-ledger-500 focus:outline-none focus:ring-2 focus:ring-ledger-100 aria-[invalid=true]:border-brick-500";
 
 /** The expected standard deviation a classical plan is sized with, and where it comes from. */
 export function PlanSpreadFields({ form, earlierSamples, currency }: { form: UseFormReturn<PlanFormIn, unknown, PlanFormOut>; earlierSamples: EarlierSample[]; currency: string }) {
@@ -24,32 +23,28 @@ export function PlanSpreadFields({ form, earlierSamples, currency }: { form: Use
   return (
     <>
       <Field label="Expected standard deviation from" error={e?.spreadBasis?.message} hint={`The size depends on ${symbol}`}>
-        {({ id, describedBy, invalid }) => (
-          <Select id={id} aria-describedby={describedBy} aria-invalid={invalid} {...register("params.spreadBasis")}>
-            <option value="">Book values (default)</option>
-            {SPREAD_BASES.filter((b) => b !== "book-values").map((b) => <option key={b} value={b}>{BASIS_LABELS[b]}</option>)}
-            <option value="book-values">{BASIS_LABELS["book-values"]}, chosen</option>
-          </Select>
-        )}
+        <Select {...register("params.spreadBasis")}>
+          <option value="">Book values (default)</option>
+          {SPREAD_BASES.filter((b) => b !== "book-values").map((b) => <option key={b} value={b}>{BASIS_LABELS[b]}</option>)}
+          <option value="book-values">{BASIS_LABELS["book-values"]}, chosen</option>
+        </Select>
       </Field>
       {basis === "prior-sample" && (
         <Field label="Earlier sample" error={e?.spreadSampleId?.message} hint={earlierSamples.length === 0 ? "No drawn sample with audited values on this engagement yet" : "Its recorded results give the spread for this estimator"}>
-          {({ id, describedBy, invalid }) => (
-            <Select id={id} aria-describedby={describedBy} aria-invalid={invalid} {...register("params.spreadSampleId")}>
-              <option value="">Choose…</option>
-              {earlierSamples.map((s) => <option key={s.id} value={s.id}>{s.name}</option>)}
-            </Select>
-          )}
+          <Select {...register("params.spreadSampleId")}>
+            <option value="">Choose…</option>
+            {earlierSamples.map((s) => <option key={s.id} value={s.id}>{s.name}</option>)}
+          </Select>
         </Field>
       )}
       {basis === "entered" && (
         <>
           <Field label={`Expected standard deviation (${currency})`} error={e?.expectedStdDev?.message}>
-            {({ id, describedBy, invalid }) => <Input id={id} aria-describedby={describedBy} aria-invalid={invalid} inputMode="decimal" className="figures text-right" {...register("params.expectedStdDev")} />}
+            <Input inputMode="decimal" className="figures text-right" {...register("params.expectedStdDev")} />
           </Field>
           <div className="sm:col-span-2">
             <Field label="Where the figure comes from" error={e?.spreadReason?.message} hint="e.g. prior-year sample of the same account, residuals of the ratio estimator">
-              {({ id, describedBy, invalid }) => <textarea id={id} aria-describedby={describedBy} aria-invalid={invalid} rows={2} className={textarea} {...register("params.spreadReason")} />}
+              <Textarea rows={2} {...register("params.spreadReason")} />
             </Field>
           </div>
         </>

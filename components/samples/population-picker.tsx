@@ -19,16 +19,14 @@ export function PopulationPicker({ form, populations, engagementId, currency }: 
   return (
     <div>
       <Field label="Population" error={errors.populationId?.message}>
-        {({ id, describedBy, invalid }) => (
-          <Select id={id} aria-describedby={describedBy} aria-invalid={invalid} {...register("populationId")}>
-            <option value="">Choose a reconciled population…</option>
-            {populations.map((p) => (
-              <option key={p.id} value={p.id} disabled={p.status !== "reconciled"}>
-                {p.name} — {formatCount(p.rowCount)} items{p.status !== "reconciled" ? ` (${WHY[p.status]})` : ""}
-              </option>
-            ))}
-          </Select>
-        )}
+        <Select {...register("populationId")}>
+          <option value="">Choose a reconciled population…</option>
+          {populations.map((p) => (
+            <option key={p.id} value={p.id} disabled={p.status !== "reconciled"}>
+              {p.name} — {formatCount(p.rowCount)} items{p.status !== "reconciled" ? ` (${WHY[p.status]})` : ""}
+            </option>
+          ))}
+        </Select>
       </Field>
       {blocked.length > 0 && (
         <div className="-mt-2 mb-3 rounded-md bg-paper-sunk/60 p-3 text-xs text-ink-soft" data-testid="blocked-populations">

@@ -2,7 +2,7 @@
 import { useState } from "react";
 import { Button } from "@/components/ui/button";
 import { Alert } from "@/components/ui/alert";
-import { api } from "@/components/ui/api";
+import { apiFetch } from "@/components/ui/api";
 import type { ReperformResult } from "./types";
 import { formatDateTime } from "@/lib/format/date";
 
@@ -14,7 +14,7 @@ export function ReperformPanel({ engagementId, sampleId, onChecked }: { engageme
   const run = async () => {
     setBusy(true); setFailure(null);
     try {
-      setResult((await api<{ reperform: ReperformResult }>(`/api/engagements/${engagementId}/samples/${sampleId}/reperform`, { body: {} })).reperform);
+      setResult((await apiFetch<{ reperform: ReperformResult }>(`/api/engagements/${engagementId}/samples/${sampleId}/reperform`, { body: {} })).reperform);
       onChecked();
     } catch (err) {
       setFailure(err instanceof Error ? err.message : "The re-performance failed");

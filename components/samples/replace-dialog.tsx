@@ -8,7 +8,7 @@ import { ReplaceItemSchema } from "@/lib/validation/sample";
 import { Field, Input } from "@/components/ui/field";
 import { Button } from "@/components/ui/button";
 import { Alert } from "@/components/ui/alert";
-import { api } from "@/components/ui/api";
+import { apiFetch } from "@/components/ui/api";
 
 type In = z.input<typeof ReplaceItemSchema>;
 type Out = z.output<typeof ReplaceItemSchema>;
@@ -21,7 +21,7 @@ export function ReplaceDialog({ url, item, onClose, onReplaced }: { url: string;
   useEffect(() => { ref.current?.showModal(); }, []);
   const onSubmit = handleSubmit(async (body) => {
     setFailure(null);
-    try { await api(url, { body }); onReplaced(); } catch (err) { setFailure(err instanceof Error ? err.message : "The item could not be replaced"); }
+    try { await apiFetch(url, { body }); onReplaced(); } catch (err) { setFailure(err instanceof Error ? err.message : "The item could not be replaced"); }
   });
   return (
     <dialog ref={ref} onClose={onClose} aria-labelledby="replace-title" className="w-full max-w-lg rounded-card border border-ink-line bg-paper-raised p-0 shadow-card backdrop:bg-ink/30">
@@ -30,7 +30,7 @@ export function ReplaceDialog({ url, item, onClose, onReplaced }: { url: string;
         <p className="text-sm text-ink-soft">The item is kept, marked void with your reason, and the next item in the random-number order takes its place. Use this only for items that cannot be part of the population (e.g. a voided document) — an item you simply cannot audit is recorded as “could not be audited” instead.</p>
         {failure && <Alert>{failure}</Alert>}
         <Field label="Why the item cannot be used" error={errors.reason?.message}>
-          {({ id, describedBy, invalid }) => <Input id={id} aria-describedby={describedBy} aria-invalid={invalid} autoFocus {...register("reason")} />}
+          <Input autoFocus {...register("reason")} />
         </Field>
         <div className="flex justify-end gap-2">
           <Button type="button" variant="ghost" onClick={() => ref.current?.close()}>Cancel</Button>

@@ -5,7 +5,7 @@ import { useForm, type FieldPath, type Resolver, type UseFormReturn } from "reac
 import { zodResolver } from "@hookform/resolvers/zod";
 import type { SampleItemRecord } from "@/lib/data/sample-items";
 import { SaveResultSchema, type SaveResult } from "@/lib/validation/sample";
-import { api, ApiError } from "@/components/ui/api";
+import { apiFetch, ApiError } from "@/components/ui/api";
 import { Button } from "@/components/ui/button";
 import { rowValuesOf, saveBodyOf, type RowValues } from "./result-values";
 import { formatMoney } from "@/lib/format/number";
@@ -74,7 +74,7 @@ export function ResultRow({ item, url, editable, attribute, columnCount, onSaved
     if (!form.formState.isDirty) return; // Enter on a row nobody changed moves on without a save
     setFailure(null); setSaved(false);
     try {
-      const { item: after, signOffsCleared: cleared } = await api<{ item: SampleItemRecord; signOffsCleared?: boolean }>(`${url}/${item.id}`, { method: "PATCH", body });
+      const { item: after, signOffsCleared: cleared } = await apiFetch<{ item: SampleItemRecord; signOffsCleared?: boolean }>(`${url}/${item.id}`, { method: "PATCH", body });
       setSaved(true);
       setSignOffsCleared(Boolean(cleared));
       if (cleared) router.refresh(); // the review panel is server-rendered: show the cleared sign-offs

@@ -2,13 +2,15 @@
 import type { UseFormReturn } from "react-hook-form";
 import { RISK_LEVELS, RISK_LEVEL_LABELS } from "@/lib/validation/methodology";
 import type { SamplePlan } from "@/lib/samples/plan";
-import { Field, Select } from "@/components/ui/field";
+import { Field, Select, Textarea } from "@/components/ui/field";
 import { PercentInput } from "./percent-input";
 import type { PlanFormIn, PlanFormOut } from "./plan-values";
 import { formatPercent } from "@/lib/format/number";
 
-const textarea =
-  "w-full rounded-md border border-ink-line bg-paper-raised px-3 py-2 text-sm focus:border-ledger-500 focus:outline-none";
+const riskOptions = [
+  <option key="" value="">Choose…</option>,
+  ...RISK_LEVELS.map((r) => <option key={r} value={r}>{RISK_LEVEL_LABELS[r]}</option>),
+];
 
 /**
  * The two assessed risks that set the confidence (and the assurance factor) through the firm's
@@ -38,12 +40,10 @@ export function RiskSizingFields({
           error={e?.sizingBasis?.message}
           hint="The firm's assurance-factor table maps the two assessed risks to a factor and a confidence."
         >
-          {({ id, describedBy, invalid }) => (
-            <Select id={id} aria-describedby={describedBy} aria-invalid={invalid} {...register("params.sizingBasis")}>
-              <option value="risk-assessment">The risk assessment</option>
-              <option value="confidence-override">A typed confidence (override, with a reason)</option>
-            </Select>
-          )}
+          <Select {...register("params.sizingBasis")}>
+            <option value="risk-assessment">The risk assessment</option>
+            <option value="confidence-override">A typed confidence (override, with a reason)</option>
+          </Select>
         </Field>
       </div>
       <Field
@@ -51,37 +51,14 @@ export function RiskSizingFields({
         error={e?.assessedRisk?.message}
         hint="Inherent and control risk combined"
       >
-        {({ id, describedBy, invalid }) => (
-          <Select id={id} aria-describedby={describedBy} aria-invalid={invalid} {...register("params.assessedRisk")}>
-            <option value="">Choose…</option>
-            {RISK_LEVELS.map((r) => (
-              <option key={r} value={r}>
-                {RISK_LEVEL_LABELS[r]}
-              </option>
-            ))}
-          </Select>
-        )}
+        <Select {...register("params.assessedRisk")}>{riskOptions}</Select>
       </Field>
       <Field
         label="Risk other substantive procedures fail to detect"
         error={e?.otherProceduresRisk?.message}
         hint="Reliance on analytical and other tests of the same assertion"
       >
-        {({ id, describedBy, invalid }) => (
-          <Select
-            id={id}
-            aria-describedby={describedBy}
-            aria-invalid={invalid}
-            {...register("params.otherProceduresRisk")}
-          >
-            <option value="">Choose…</option>
-            {RISK_LEVELS.map((r) => (
-              <option key={r} value={r}>
-                {RISK_LEVEL_LABELS[r]}
-              </option>
-            ))}
-          </Select>
-        )}
+        <Select {...register("params.otherProceduresRisk")}>{riskOptions}</Select>
       </Field>
       {risk && risk.tableFactor !== null && (
         <p className="text-sm sm:col-span-2" data-testid="risk-mapping">
@@ -105,30 +82,19 @@ export function RiskSizingFields({
               method === "attribute" ? "1 − risk of overreliance on the control" : "1 − risk of incorrect acceptance"
             }
           >
-            {({ id, describedBy, invalid }) => (
-              <PercentInput
-                id={id}
-                aria-describedby={describedBy}
-                aria-invalid={invalid}
-                {...register("params.confidence")}
-              />
-            )}
+            <PercentInput
+              {...register("params.confidence")}
+            />
           </Field>
           <Field
             label="Reason for typing the confidence"
             error={e?.confidenceReason?.message}
             hint="Kept with the plan; printed in the workpaper."
           >
-            {({ id, describedBy, invalid }) => (
-              <textarea
-                id={id}
-                aria-describedby={describedBy}
-                aria-invalid={invalid}
-                rows={2}
-                className={textarea}
-                {...register("params.confidenceReason")}
-              />
-            )}
+            <Textarea
+              rows={2}
+              {...register("params.confidenceReason")}
+            />
           </Field>
         </>
       )}

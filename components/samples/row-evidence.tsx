@@ -1,6 +1,7 @@
 "use client";
-import { useEffect, useState } from "react";
-import { api } from "@/components/ui/api";
+import { useState } from "react";
+import { apiFetch } from "@/components/ui/api";
+import { useApi } from "@/components/ui/use-api";
 import { Button } from "@/components/ui/button";
 import { formatDateTime } from "@/lib/format/date";
 
@@ -8,24 +9,24 @@ export interface EvidenceFile { id: number; fileName: string; contentType: strin
 
 interface Props { itemUrl: string; itemRef: string; columnCount: number; mayWrite: boolean; version: number; onRemoved: () => void }
 
-/** The files attached to one item, listed under its row; `version` (the evidence count) refetches them. */
+/**
+ * The files attached to one item, listed under its row; `version` (the evidence count) refetches them.
+ * The list is read by the item's URL, so a slow answer for an item shown before can never appear here.
+ */
 export function RowEvidence({ itemUrl, itemRef, columnCount, mayWrite, version, onRemoved }: Props) {
-  const [files, setFiles] = useState<EvidenceFile[] | null>(null);
-  const [error, setError] = useState<string | null>(null);
-  useEffect(() => {
-    let live = true;
-    api<{ evidence: EvidenceFile[] }>(`${itemUrl}/evidence`).then((r) => { if (live) setFiles(r.evidence); }, (e: Error) => { if (live) setError(e.message); });
-    return () => { live = false; };
-  }, [itemUrl, version]);
+  const evidence = useApi<{ evidence: EvidenceFile[] }>(`${itemUrl}/evidence`, { revision: version });
+  const files = evidence.data?.evidence ?? null;
+  const [failure, setFailure] = useState<string | null>(null);
+  const error = failure ?? evidence.error?.message ?? null;
 
   async function remove(f: EvidenceFile) {
-    setError(null);
+    setFailure(null);
     try {
-      await api(`${itemUrl}/evidence/${f.id}`, { method: "DELETE" });
-      setFiles((list) => list && list.filter((x) => x.id !== f.id));
+      await apiFetch(`${itemUrl}/evidence/${f.id}`, { method: "DELETE" });
+      await evidence.mutate((answer) => answer && { evidence: answer.evidence.filter((x) => x.id !== f.id) }, { revalidate: false });
       onRemoved();
     } catch (e) {
-      setError((e as Error).message);
+      setFailure((e as Error).message);
     }
   }
 

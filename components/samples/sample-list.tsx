@@ -5,6 +5,7 @@ import { Badge } from "@/components/ui/badge";
 import { EmptyState } from "@/components/ui/card";
 import { METHOD_SHORT, SAMPLE_STATUS_LABELS } from "./labels";
 import { countOf, formatCount, formatMoney } from "@/lib/format/number";
+import { Table, THead, Th, Td } from "@/components/ui/table";
 
 function Result({ o }: { o: SampleOverview | undefined }) {
   if (!o || o.items === null) return <span className="text-ink-soft">—</span>;
@@ -34,34 +35,34 @@ export function SampleList({ engagementId, samples, overviews = {}, mayPlan }: {
   }
   return (
     <div className="overflow-x-auto">
-      <table className="w-full text-sm" aria-label="Samples">
-        <thead className="text-left text-xs uppercase tracking-wider text-ink-soft">
+      <Table label="Samples" density="list">
+        <THead>
           <tr>
-            <th scope="col" className="py-2 pr-4 font-semibold">Sample</th>
-            <th scope="col" className="py-2 pr-4 font-semibold">Method</th>
-            <th scope="col" className="py-2 pr-4 text-right font-semibold">Items</th>
-            <th scope="col" className="py-2 pr-4 font-semibold">Progress</th>
-            <th scope="col" className="py-2 pr-4 font-semibold">Result so far</th>
-            <th scope="col" className="py-2 font-semibold">Status</th>
+            <Th>Sample</Th>
+            <Th>Method</Th>
+            <Th numeric>Items</Th>
+            <Th>Progress</Th>
+            <Th>Result so far</Th>
+            <Th>Status</Th>
           </tr>
-        </thead>
+        </THead>
         <tbody>
           {samples.map((s) => {
             const o = overviews[s.id];
             const items = o?.items ?? null;
             return (
               <tr key={s.id} className="border-t border-ink-line/70 align-top" data-testid={`sample-row-${s.id}`}>
-                <td className="py-2.5 pr-4">
+                <Td>
                   <Link href={`/engagements/${engagementId}/samples/${s.id}`} className="font-medium text-ink hover:text-ledger-600 link">{s.name}</Link>
                   <span className="block text-xs text-ink-soft">{s.assertion} · planned by {s.createdByName}</span>
-                </td>
-                <td className="py-2.5 pr-4">{METHOD_SHORT[s.method]}</td>
-                <td className="figures py-2.5 pr-4 text-right">
+                </Td>
+                <Td>{METHOD_SHORT[s.method]}</Td>
+                <Td numeric>
                   {items === null ? formatCount(s.chosenSize) : formatCount(items)}
                   {items !== null && items !== s.chosenSize && <span className="block text-xs text-ink-soft">size {formatCount(s.chosenSize)}</span>}
                   {items === null && <span className="block text-xs text-ink-soft">planned</span>}
-                </td>
-                <td className="py-2.5 pr-4">
+                </Td>
+                <Td>
                   {items === null ? <span className="text-ink-soft">not drawn</span> : (
                     <span className="inline-flex min-w-28 flex-col gap-1">
                       <span className="figures text-xs">{formatCount(o.withResult)} of {formatCount(items)}</span>
@@ -70,14 +71,14 @@ export function SampleList({ engagementId, samples, overviews = {}, mayPlan }: {
                       </span>
                     </span>
                   )}
-                </td>
-                <td className="py-2.5 pr-4"><Result o={o} /></td>
-                <td className="py-2.5"><Badge tone={s.status === "drawn" ? "green" : "blue"}>{SAMPLE_STATUS_LABELS[s.status]}</Badge></td>
+                </Td>
+                <Td><Result o={o} /></Td>
+                <Td><Badge tone={s.status === "drawn" ? "green" : "blue"}>{SAMPLE_STATUS_LABELS[s.status]}</Badge></Td>
               </tr>
             );
           })}
         </tbody>
-      </table>
+      </Table>
     </div>
   );
 }

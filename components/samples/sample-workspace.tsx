@@ -3,7 +3,7 @@ import { useCallback, useEffect, useState } from "react";
 import { useRouter } from "next/navigation";
 import { Card } from "@/components/ui/card";
 import { Alert } from "@/components/ui/alert";
-import { api } from "@/components/ui/api";
+import { useApi } from "@/components/ui/use-api";
 import type { SampleEvaluation, SampleView } from "./types";
 import { SampleTabs } from "./sample-tabs";
 import { DrawForm } from "./draw-form";
@@ -30,38 +30,32 @@ interface Props {
 /** The sample's three rooms: its plan, its draw, and the results with the live evaluation. */
 export function SampleWorkspace({ engagementId, initialView, initialEvaluation, may, anomaliesAllowed = true, planSummary, notesByItem = {} }: Props) {
   const router = useRouter();
-  const [view, setView] = useState(initialView);
   const [tab, setTab] = useState(initialView.currentDraw ? "results" : "draw");
-  const [evaluation, setEvaluation] = useState(initialEvaluation);
-  const [evaluating, setEvaluating] = useState(false);
-  const [evalFailure, setEvalFailure] = useState<string | null>(null);
   const [changes, setChanges] = useState(0);
   const [gridKey, setGridKey] = useState(0);
+  const base = `/api/engagements/${engagementId}/samples/${initialView.sample.id}`;
+  const viewRead = useApi<SampleView>(base, { initial: initialView });
+  const view = viewRead.data ?? initialView;
   const { sample, currentDraw, draws, population } = view;
-  const base = `/api/engagements/${engagementId}/samples/${sample.id}`;
+  // Every change of results bumps `changes`; only the latest evaluation asked for is shown.
+  const evaluationRead = useApi<{ evaluation: SampleEvaluation }>(`${base}/evaluation`, { initial: { evaluation: initialEvaluation }, revision: changes });
+  const evaluation = evaluationRead.data?.evaluation ?? initialEvaluation;
+  const evaluating = evaluationRead.isValidating;
+  const evalFailure = evaluationRead.error?.message ?? null;
 
-  useEffect(() => {
-    if (changes === 0) return;
-    let live = true;
-    api<{ evaluation: SampleEvaluation }>(`${base}/evaluation`).then(
-      (r) => { if (live) { setEvaluation(r.evaluation); setEvalFailure(null); setEvaluating(false); } },
-      (e: Error) => { if (live) { setEvalFailure(e.message); setEvaluating(false); } },
-    );
-    return () => { live = false; };
-  }, [base, changes]);
-
-  const changed = useCallback(() => { setChanges((n) => n + 1); setEvaluating(true); }, []);
+  const changed = useCallback(() => setChanges((n) => n + 1), []);
+  const { reload: reloadView, mutate: setView } = viewRead;
+  const refreshView = useCallback(async () => { await reloadView(); }, [reloadView]);
   // The review panel (server-rendered) offers the conclusion and sign-off once every item has a result: re-render it when that flips.
   const completeOnServer = initialEvaluation.complete;
   useEffect(() => { if (evaluation.complete !== completeOnServer) router.refresh(); }, [evaluation.complete, completeOnServer, router]);
-  const refreshView = useCallback(async () => { setView(await api<SampleView>(base)); }, [base]);
   // A workbook import elsewhere on the page changed the results: refetch the grid, progress and evaluation.
   useEffect(() => {
     const onChange = () => { setGridKey((k) => k + 1); changed(); void refreshView().catch(() => undefined); };
     window.addEventListener(SAMPLE_CHANGED_EVENT, onChange);
     return () => window.removeEventListener(SAMPLE_CHANGED_EVENT, onChange);
   }, [changed, refreshView]);
-  const onDrawn = (next: SampleView) => { setView(next); setGridKey((k) => k + 1); changed(); setTab(next.currentDraw?.seedSource === "haphazard" ? "draw" : "results"); router.refresh(); };
+  const onDrawn = (next: SampleView) => { void setView(next, { revalidate: false }); setGridKey((k) => k + 1); changed(); setTab(next.currentDraw?.seedSource === "haphazard" ? "draw" : "results"); router.refresh(); };
   const attribute = sample.method === "attribute";
 
   const tabs = [

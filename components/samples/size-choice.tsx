@@ -1,7 +1,7 @@
 "use client";
 import type { UseFormReturn } from "react-hook-form";
 import type { SamplePlan } from "@/lib/samples/plan";
-import { Field, Input } from "@/components/ui/field";
+import { Field, Input, Textarea } from "@/components/ui/field";
 import type { PlanFormIn, PlanFormOut } from "./plan-values";
 import { textOf } from "@/lib/format/text";
 
@@ -14,12 +14,12 @@ export function SizeChoice({ form, plan }: { form: UseFormReturn<PlanFormIn, unk
     <div className="grid gap-x-4 sm:grid-cols-2">
       <Field label="Items to select" error={errors.params?.sampleSize?.message}
         hint={plan ? `Blank: the computed ${plan.computedSize}. You may raise it; a smaller sample needs a recorded reason.` : "Blank: the computed size."}>
-        {({ id, describedBy, invalid }) => <Input id={id} aria-describedby={describedBy} aria-invalid={invalid} inputMode="numeric" className="figures text-right" placeholder={plan ? String(plan.computedSize) : ""} {...register("params.sampleSize")} />}
+        <Input inputMode="numeric" className="figures text-right" placeholder={plan ? String(plan.computedSize) : ""} {...register("params.sampleSize")} />
       </Field>
       {(below || watch("params.sizeReason")) && (
         <div className="sm:col-span-2">
           <Field label="Reason for a size below the computed one" error={errors.params?.sizeReason?.message} hint="Kept with the plan and in the audit log; the reviewer sees it.">
-            {({ id, describedBy, invalid }) => <textarea id={id} aria-describedby={describedBy} aria-invalid={invalid} rows={2} className="w-full rounded-md border border-ink-line bg-paper-raised px-3 py-2 text-sm focus:border-ledger-500 focus:outline-none" {...register("params.sizeReason")} />}
+            <Textarea rows={2} {...register("params.sizeReason")} />
           </Field>
         </div>
       )}

@@ -3,6 +3,7 @@ import { Amount } from "@/components/ui/amount";
 import { Alert } from "@/components/ui/alert";
 import { PlanStrataTable } from "./plan-strata-table";
 import { formatCount } from "@/lib/format/number";
+import { Table, Th, Td } from "@/components/ui/table";
 
 const INPUT_NOTES: Record<string, string> = {
   BV: "book value of the frame (items above zero)", TM: "tolerable misstatement", EM: "expected misstatement",
@@ -53,16 +54,16 @@ export function SizePanel({ plan, problem, busy, currency }: { plan: SamplePlan 
             <p className="text-xs font-semibold uppercase tracking-wider text-ink-soft">Formula</p>
             <p className="mt-1 text-sm leading-relaxed">{plan.formula}</p>
           </div>
-          <table className="w-full text-sm" aria-label="Inputs to the size">
+          <Table label="Inputs to the size" density="compact">
             <tbody>
               {Object.entries(plan.inputs).map(([name, value]) => (
                 <tr key={name} className="border-t border-ink-line/60">
-                  <th scope="row" className="py-1.5 pr-3 text-left align-top font-medium">{name}<span className="block text-xs font-normal text-ink-faint">{INPUT_NOTES[name]}</span></th>
-                  <td className="py-1.5 text-right align-top"><InputValue name={name} value={value} /></td>
+                  <Th scope="row" className="align-top font-medium">{name}<span className="block text-xs font-normal text-ink-faint">{INPUT_NOTES[name]}</span></Th>
+                  <Td className="text-right align-top"><InputValue name={name} value={value} /></Td>
                 </tr>
               ))}
             </tbody>
-          </table>
+          </Table>
           <p className="text-xs text-ink-soft">Frame: <span className="figures">{formatCount(plan.frameSize)}</span> items, <Amount value={plan.frameTotal} currency={currency} />.</p>
           {plan.excluded && (plan.excluded.zeroCount > 0 || plan.excluded.negativeCount > 0) && (
             <div className="rounded-md border border-amber-100 bg-amber-50 p-3 text-sm text-amber-700" data-testid="excluded-items">

@@ -1,6 +1,7 @@
 import type { MusEvaluationBlock, StringerSide as Side } from "@/lib/samples/evaluation-types";
 import { Amount } from "@/components/ui/amount";
 import { formatFactor, formatPercent } from "@/lib/format/number";
+import { Table, THead, Th, Td } from "@/components/ui/table";
 
 type Direction = "overstatement" | "understatement";
 
@@ -8,65 +9,65 @@ type Direction = "overstatement" | "understatement";
 function StringerSide({ side, direction, net }: { side: Side; direction: Direction; net: string }) {
   const label = direction === "overstatement" ? "Overstatement" : "Understatement";
   return (
-    <table className="w-full text-sm" aria-label={`Stringer bound — ${direction}`} data-testid={`stringer-${direction}`}>
+    <Table label={`Stringer bound — ${direction}`} density="compact" data-testid={`stringer-${direction}`}>
       <caption className="mb-1 text-left text-sm font-semibold">{label}</caption>
-      <thead className="text-left text-xs uppercase tracking-wider text-ink-soft">
+      <THead>
         <tr>
-          <th scope="col" className="py-1.5 pr-2 font-semibold">Line</th>
-          <th scope="col" className="py-1.5 pr-2 text-right font-semibold">Book / audited</th>
-          <th scope="col" className="py-1.5 pr-2 text-right font-semibold">Tainting</th>
-          <th scope="col" className="py-1.5 pr-2 text-right font-semibold">RF(k)</th>
-          <th scope="col" className="py-1.5 pr-2 text-right font-semibold">RF(k) − RF(k−1)</th>
-          <th scope="col" className="py-1.5 pr-2 text-right font-semibold">Projected t·J</th>
-          <th scope="col" className="py-1.5 text-right font-semibold">Allowance</th>
+          <Th>Line</Th>
+          <Th numeric>Book / audited</Th>
+          <Th numeric>Tainting</Th>
+          <Th numeric>RF(k)</Th>
+          <Th numeric>RF(k) − RF(k−1)</Th>
+          <Th numeric>Projected t·J</Th>
+          <Th numeric>Allowance</Th>
         </tr>
-      </thead>
+      </THead>
       <tbody className="figures">
         <tr className="border-t border-ink-line/60">
-          <th scope="row" className="py-1.5 pr-2 text-left font-sans font-medium">Basic precision</th>
-          <td className="py-1.5 pr-2 text-right text-ink-faint">—</td>
-          <td className="py-1.5 pr-2 text-right">1.0000</td>
-          <td className="py-1.5 pr-2 text-right">{formatFactor(side.basicPrecisionFactor)}</td>
-          <td className="py-1.5 pr-2 text-right text-ink-faint">—</td>
-          <td className="py-1.5 pr-2 text-right text-ink-faint">—</td>
-          <td className="py-1.5 text-right" data-testid={`basic-precision-${direction}`}><Amount value={side.basicPrecision} /></td>
+          <Th scope="row" className="font-sans font-medium">Basic precision</Th>
+          <Td className="text-right text-ink-faint">—</Td>
+          <Td className="text-right">1.0000</Td>
+          <Td className="text-right">{formatFactor(side.basicPrecisionFactor)}</Td>
+          <Td className="text-right text-ink-faint">—</Td>
+          <Td className="text-right text-ink-faint">—</Td>
+          <Td data-testid={`basic-precision-${direction}`} className="text-right"><Amount value={side.basicPrecision} /></Td>
         </tr>
         {side.rows.map((r) => (
           <tr key={r.rank} className="border-t border-ink-line/60">
-            <th scope="row" className="py-1.5 pr-2 text-left font-sans font-normal">Rank {r.rank} · {r.reference}</th>
-            <td className="py-1.5 pr-2 text-right"><Amount value={r.bookValue} /> / <Amount value={r.auditedValue} /></td>
-            <td className="py-1.5 pr-2 text-right">{formatPercent(r.tainting, 2)}</td>
-            <td className="py-1.5 pr-2 text-right">{formatFactor(r.factor)}</td>
-            <td className="py-1.5 pr-2 text-right">{formatFactor(r.factorIncrement)}</td>
-            <td className="py-1.5 pr-2 text-right"><Amount value={r.projected} /></td>
-            <td className="py-1.5 text-right"><Amount value={r.incrementalAllowance} /></td>
+            <Th scope="row" className="font-sans font-normal">Rank {r.rank} · {r.reference}</Th>
+            <Td className="text-right"><Amount value={r.bookValue} /> / <Amount value={r.auditedValue} /></Td>
+            <Td className="text-right">{formatPercent(r.tainting, 2)}</Td>
+            <Td className="text-right">{formatFactor(r.factor)}</Td>
+            <Td className="text-right">{formatFactor(r.factorIncrement)}</Td>
+            <Td className="text-right"><Amount value={r.projected} /></Td>
+            <Td className="text-right"><Amount value={r.incrementalAllowance} /></Td>
           </tr>
         ))}
         <tr className="border-t border-ink-line/60">
-          <th scope="row" colSpan={5} className="py-1.5 pr-2 text-left font-sans font-normal">Projected from the sample (Σ t·J)</th>
-          <td className="py-1.5 pr-2 text-right"><Amount value={side.projectedFromSample} /></td>
-          <td className="py-1.5 text-right text-ink-faint">—</td>
+          <Th scope="row" colSpan={5} className="font-sans font-normal">Projected from the sample (Σ t·J)</Th>
+          <Td className="text-right"><Amount value={side.projectedFromSample} /></Td>
+          <Td className="text-right text-ink-faint">—</Td>
         </tr>
         <tr className="border-t border-ink-line/60">
-          <th scope="row" colSpan={5} className="py-1.5 pr-2 text-left font-sans font-normal">Top stratum, at its actual amount (no allowance)</th>
-          <td className="py-1.5 pr-2 text-right"><Amount value={side.topStratumMisstatement} /></td>
-          <td className="py-1.5 text-right text-ink-faint">—</td>
+          <Th scope="row" colSpan={5} className="font-sans font-normal">Top stratum, at its actual amount (no allowance)</Th>
+          <Td className="text-right"><Amount value={side.topStratumMisstatement} /></Td>
+          <Td className="text-right text-ink-faint">—</Td>
         </tr>
         <tr className="border-t-2 border-ink-line font-semibold">
-          <th scope="row" colSpan={5} className="py-1.5 pr-2 text-left font-sans">Projected misstatement · incremental allowance Σ (RF(k) − RF(k−1) − 1)·t·J</th>
-          <td className="py-1.5 pr-2 text-right" data-testid={`projected-${direction}`}><Amount value={side.projected} /></td>
-          <td className="py-1.5 text-right"><Amount value={side.incrementalAllowance} /></td>
+          <Th scope="row" colSpan={5} className="font-sans">Projected misstatement · incremental allowance Σ (RF(k) − RF(k−1) − 1)·t·J</Th>
+          <Td data-testid={`projected-${direction}`} className="text-right"><Amount value={side.projected} /></Td>
+          <Td className="text-right"><Amount value={side.incrementalAllowance} /></Td>
         </tr>
         <tr className="bg-paper-sunk/60 font-semibold">
-          <th scope="row" colSpan={6} className="py-2 pl-2 pr-2 text-left font-sans">Upper misstatement limit, gross (basic precision + projected + incremental allowance)</th>
-          <td className="py-2 pr-2 text-right" data-testid={`upper-limit-${direction}`}><Amount value={side.upperLimit} /></td>
+          <Th scope="row" colSpan={6} className="font-sans">Upper misstatement limit, gross (basic precision + projected + incremental allowance)</Th>
+          <Td data-testid={`upper-limit-${direction}`} className="text-right"><Amount value={side.upperLimit} /></Td>
         </tr>
         <tr className="text-ink-soft">
-          <th scope="row" colSpan={6} className="py-1.5 pr-2 text-left font-sans font-normal">Net of projected {direction === "overstatement" ? "understatement" : "overstatement"}</th>
-          <td className="py-1.5 text-right" data-testid={`net-limit-${direction}`}><Amount value={net} /></td>
+          <Th scope="row" colSpan={6} className="font-sans font-normal">Net of projected {direction === "overstatement" ? "understatement" : "overstatement"}</Th>
+          <Td data-testid={`net-limit-${direction}`} className="text-right"><Amount value={net} /></Td>
         </tr>
       </tbody>
-    </table>
+    </Table>
   );
 }
 

@@ -1,7 +1,7 @@
 "use client";
 import { useCallback, useState } from "react";
 import type { SampleItemRecord } from "@/lib/data/sample-items";
-import { api } from "@/components/ui/api";
+import { apiFetch } from "@/components/ui/api";
 import { rowValuesOf, saveBodyOf, type SaveBody } from "./result-values";
 import { readPastedColumn } from "./paste-column";
 import type { UndoOffer } from "./undo-bar";
@@ -30,7 +30,7 @@ export function useGridSaves({ resultsUrl, attribute, apply }: Options) {
       undo: async () => {
         const rows = before.map((b) => ({ ...current(b, attribute), version: versions.get(b.id) ?? b.version }));
         try {
-          const r = await api<{ items: SampleItemRecord[] }>(resultsUrl, { body: { rows } });
+          const r = await apiFetch<{ items: SampleItemRecord[] }>(resultsUrl, { body: { rows } });
           apply(r.items);
           setUndo(null);
           setNotice({ tone: "success", text: `Undone: ${before.length === 1 ? before[0].itemRef : countOf(before.length, "item")} back as before (recorded in the audit trail).` });
@@ -45,7 +45,7 @@ export function useGridSaves({ resultsUrl, attribute, apply }: Options) {
   const saveRows = useCallback(async (rows: BatchRow[], before: SampleItemRecord[], done: string) => {
     setNotice(null);
     try {
-      const r = await api<{ items: SampleItemRecord[] }>(resultsUrl, { body: { rows } });
+      const r = await apiFetch<{ items: SampleItemRecord[] }>(resultsUrl, { body: { rows } });
       apply(r.items);
       offerUndo(done, before, r.items);
     } catch (e) {

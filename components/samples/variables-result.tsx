@@ -2,6 +2,7 @@ import type { StratifiedEvaluationBlock, VariablesEvaluationBlock } from "@/lib/
 import { Amount } from "@/components/ui/amount";
 import { ESTIMATOR_LABELS } from "./labels";
 import { formatPercent } from "@/lib/format/number";
+import { Table, THead, Th, Td } from "@/components/ui/table";
 
 const DIRECTIONS = { overstatement: "overstatement only", understatement: "understatement only", both: "both directions" } as const;
 
@@ -40,31 +41,31 @@ export function VariablesResult({ v }: { v: VariablesEvaluationBlock | Stratifie
   ];
   return (
     <div className="space-y-3">
-      <table className="w-full text-sm" aria-label="Variables estimate">
+      <Table label="Variables estimate" density="compact">
         <tbody>
           {rows.map(([label, value, id]) => (
             <tr key={label} className="border-t border-ink-line/60">
-              <th scope="row" className="py-1.5 pr-3 text-left font-normal text-ink-soft">{label}</th>
-              <td className="py-1.5 text-right font-medium" data-testid={id}>{value}</td>
+              <Th scope="row" className="font-normal text-ink-soft">{label}</Th>
+              <Td data-testid={id} className="text-right font-medium">{value}</Td>
             </tr>
           ))}
         </tbody>
-      </table>
+      </Table>
       {v.method === "stratified" && (
-        <table className="w-full text-sm" aria-label="Strata">
-          <thead className="text-left text-xs uppercase tracking-wider text-ink-soft">
-            <tr><th scope="col">h</th><th scope="col">Band</th><th scope="col" className="text-right">N_h</th><th scope="col" className="text-right">X_h</th><th scope="col" className="text-right">n_h</th><th scope="col" className="text-right">Sample book</th><th scope="col" className="text-right">Sample audited</th><th scope="col" className="text-right">Ŷ_h</th><th scope="col" className="text-right">SE_h</th></tr>
-          </thead>
+        <Table label="Strata" density="compact">
+          <THead>
+            <tr><Th>h</Th><Th>Band</Th><Th numeric>N_h</Th><Th numeric>X_h</Th><Th numeric>n_h</Th><Th numeric>Sample book</Th><Th numeric>Sample audited</Th><Th numeric>Ŷ_h</Th><Th numeric>SE_h</Th></tr>
+          </THead>
           <tbody className="figures">
             {v.strata.map((st) => (
               <tr key={st.number} className="border-t border-ink-line/60">
-                <td>{st.number}</td><td className="font-sans">{st.label}</td><td className="text-right">{st.populationSize}</td><td className="text-right"><Amount value={st.populationBookValue} /></td>
-                <td className="text-right">{st.sampleSize}</td><td className="text-right"><Amount value={st.sampleBookValue} /></td><td className="text-right"><Amount value={st.sampleAuditedValue} /></td>
-                <td className="text-right"><Amount value={st.estimatedAuditedValue} /></td><td className="text-right"><Amount value={st.standardError} /></td>
+                <Td>{st.number}</Td><Td className="font-sans">{st.label}</Td><Td className="text-right">{st.populationSize}</Td><Td className="text-right"><Amount value={st.populationBookValue} /></Td>
+                <Td className="text-right">{st.sampleSize}</Td><Td className="text-right"><Amount value={st.sampleBookValue} /></Td><Td className="text-right"><Amount value={st.sampleAuditedValue} /></Td>
+                <Td className="text-right"><Amount value={st.estimatedAuditedValue} /></Td><Td className="text-right"><Amount value={st.standardError} /></Td>
               </tr>
             ))}
           </tbody>
-        </table>
+        </Table>
       )}
       {v.method === "variables" && <p className="text-xs text-ink-soft">Sample: n = {v.sampleSize}, book <Amount value={v.sampleBookValue} />, audited <Amount value={v.sampleAuditedValue} />.</p>}
       <p className="text-sm" data-testid="decision-rule">{d.rule}</p>

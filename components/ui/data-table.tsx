@@ -4,6 +4,7 @@ import {
   flexRender, getCoreRowModel, getFilteredRowModel, getSortedRowModel, useReactTable,
   type ColumnDef, type SortingState, type Table,
 } from "@tanstack/react-table";
+import { THead, Th } from "./table";
 
 interface DataTableProps<T> {
   data: T[];
@@ -53,24 +54,19 @@ export const alignOf = (meta: unknown) => ((meta as { align?: string } | undefin
 /** Header rows whose sortable columns toggle on click and announce their order (aria-sort). */
 export function SortableHead<T>({ table }: { table: Table<T> }) {
   return (
-    <thead className="bg-paper-sunk/60 text-left text-xs uppercase tracking-wider text-ink-soft">
+    <THead className="bg-paper-sunk/60">
       {table.getHeaderGroups().map((group) => (
         <tr key={group.id}>
           {group.headers.map((header) => {
             const sorted = header.column.getIsSorted();
             return (
-              <th key={header.id} scope="col" className={`px-4 py-2.5 font-semibold ${alignOf(header.column.columnDef.meta)}`} aria-sort={sorted ? (sorted === "asc" ? "ascending" : "descending") : undefined}>
-                {header.column.getCanSort() ? (
-                  <button type="button" onClick={header.column.getToggleSortingHandler()} className="inline-flex items-center gap-1 uppercase hover:text-ink">
-                    {flexRender(header.column.columnDef.header, header.getContext())}
-                    <span aria-hidden className="text-ink-faint">{sorted === "asc" ? "▲" : sorted === "desc" ? "▼" : "↕"}</span>
-                  </button>
-                ) : flexRender(header.column.columnDef.header, header.getContext())}
-              </th>
+              <Th key={header.id} className="px-4 py-2.5" numeric={alignOf(header.column.columnDef.meta) === "text-right"} sort={header.column.getCanSort() ? { direction: sorted, onToggle: (e) => header.column.getToggleSortingHandler()?.(e) } : undefined}>
+                {flexRender(header.column.columnDef.header, header.getContext())}
+              </Th>
             );
           })}
         </tr>
       ))}
-    </thead>
+    </THead>
   );
 }

@@ -32,10 +32,3 @@ export function formatDateTime(value: When, field = "at"): string {
   const d = toDate(value, field);
   return `${formatDate(d)}, ${two(d.getUTCHours())}:${two(d.getUTCMinutes())} UTC`;
 }
-
-/** @deprecated The product has one style for instants: use formatDateTime (same output). */
-export const formatTime = formatDateTime;
-/** @deprecated The product has one style for instants: use formatDateTime (same output). */
-export const formatWhen = formatDateTime;
-/** @deprecated The product has one style for dates: use formatDate (same output). */
-export const formatShortDate = formatDate;

@@ -77,3 +77,47 @@ test("a senior runs the estimator advisor on the demo ledger, reads the recommen
   expect(text).toMatch(/8\.0% of items misstated/);
   expect(text.replace(/\s+/g, " ")).toMatch(/Kept as the rationale with this reason: Difference kept: misstatements are expected to be small/);
 });
+
+test("a run asked for last stays on show when a run clicked before answers late", async ({ page }) => {
+  test.setTimeout(120_000);
+  await new SignInPage(page).signInAndWait("senior");
+  const engagementId = await engagementIdByClient(page.request, "Tessaly Outdoor Supply Inc.");
+  const population = await loadReconciledLedger(page.request, { engagementId, path: test.info().outputPath("ledger.csv"), rows: 300, seed: 515, name: "Receivables for the late answer (e2e)" });
+  const planned = await page.request.post(`/api/engagements/${engagementId}/samples`, {
+    data: {
+      populationId: population.id, name: "Receivables valuation — late answer e2e", objective: "Estimate the audited value of trade receivables.", assertion: "Valuation", direction: "overstatement",
+      params: { method: "random", estimator: "difference", confidence: 0.95, tolerableMisstatement: (Number(population.positiveTotal) * 0.05).toFixed(2), sampleSize: 30, sizeReason: "late answer e2e" },
+    },
+  });
+  expect(planned.status(), await planned.text()).toBe(201);
+  const { sample } = await planned.json();
+  const base = `/api/engagements/${engagementId}/samples/${sample.id}/advisor`;
+  // Two small finished runs, streamed to the end (the last line is the result).
+  const runIds: number[] = [];
+  for (const seed of [11, 12]) {
+    const streamed = await page.request.post(base, { data: { scenario: { kind: "pattern", misstatedPercent: 5, tainting: "mostly-small", overstatementPercent: 90 }, sampleSizes: [20], trials: 200, seed } });
+    expect(streamed.status(), await streamed.text()).toBe(200);
+    const events = (await streamed.text()).trim().split("\n").map((line) => JSON.parse(line) as { type: string; runId?: number });
+    expect(events.at(-1)?.type).toBe("result");
+    runIds.push(events.find((e) => e.type === "started")!.runId!);
+  }
+  const [first, second] = runIds;
+
+  // The first run's answer is held back until the second one is on show.
+  let release!: () => void;
+  const held = new Promise<void>((resolve) => { release = resolve; });
+  await page.route(`**${base}/${first}`, async (route) => { await held; await route.continue(); });
+  await page.goto(`/engagements/${engagementId}/samples/${sample.id}`);
+  const advisor = new AdvisorPanel(page);
+  await advisor.root.getByText(/^Earlier runs/).click();
+  const show = (runId: number) => advisor.root.getByRole("listitem").filter({ hasText: `#${runId}` }).getByRole("button", { name: "Show" });
+  await show(first).click();
+  await show(second).click();
+  await expect(advisor.root.getByRole("heading", { name: new RegExp(`^Run ${second} · `) })).toBeVisible();
+  const late = page.waitForResponse((res) => res.url().endsWith(`${base}/${first}`));
+  release();
+  expect((await late).status()).toBe(200);
+  // The late answer came (and was kept in the cache), but the run on show is still the one asked for last.
+  await expect(advisor.root.getByRole("heading", { name: new RegExp(`^Run ${second} · `) })).toBeVisible();
+  await expect(advisor.root.getByRole("heading", { name: new RegExp(`^Run ${first} · `) })).toHaveCount(0);
+});

@@ -8,6 +8,7 @@ import { buttonClass } from "@/components/ui/button";
 import { Card } from "@/components/ui/card";
 import { Alert } from "@/components/ui/alert";
 import { UserAdmin } from "@/components/admin/user-admin";
+import { Table, THead, Th, Td } from "@/components/ui/table";
 
 export const metadata: Metadata = { title: "People" };
 
@@ -32,14 +33,14 @@ export default async function UsersPage({ searchParams }: { searchParams: Promis
         <div className="mt-8">
           <Card title="Client contacts">
             <p className="mb-3 text-sm text-ink-soft">Client staff invited to share evidence on an engagement. They are not members of the firm: they see only the request lists sent to them.</p>
-            <table className="w-full text-sm" aria-label="Client contacts">
-              <thead className="text-left text-xs uppercase tracking-wider text-ink-soft"><tr><th scope="col" className="py-2">Name</th><th scope="col">E-mail</th><th scope="col">Status</th></tr></thead>
+            <Table label="Client contacts" density="list">
+              <THead><tr><Th>Name</Th><Th>E-mail</Th><Th>Status</Th></tr></THead>
               <tbody>
                 {contacts.map((c) => (
-                  <tr key={c.id} className="border-t border-ink-line/70"><td className="py-2">{c.name}</td><td>{c.email}</td><td>{c.active ? "Active" : "Deactivated"}</td></tr>
+                  <tr key={c.id} className="border-t border-ink-line/70"><Td>{c.name}</Td><Td>{c.email}</Td><Td>{c.active ? "Active" : "Deactivated"}</Td></tr>
                 ))}
               </tbody>
-            </table>
+            </Table>
           </Card>
         </div>
       )}

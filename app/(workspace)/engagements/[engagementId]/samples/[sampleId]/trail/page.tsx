@@ -12,6 +12,7 @@ import { Alert } from "@/components/ui/alert";
 import { ChangeList } from "@/components/review/audit-value";
 import { describeChange } from "@/lib/review/describe-change";
 import { formatDateTime } from "@/lib/format/date";
+import { Table, THead, Th, Td } from "@/components/ui/table";
 
 export const metadata: Metadata = { title: "Audit trail" };
 
@@ -48,25 +49,25 @@ export default async function TrailPage({ params, searchParams }: { params: Prom
       </form>
       <Card>
         {entries.length === 0 ? <EmptyState title="No changes match this filter" /> : (
-          <table className="w-full table-fixed text-sm" aria-label="Audit trail">
+          <Table label="Audit trail" density="list" className="table-fixed">
             <colgroup><col className="w-48" /><col className="w-40" /><col className="w-64" /><col /></colgroup>
-            <thead className="text-left text-xs uppercase tracking-wider text-ink-soft">
-              <tr><th scope="col" className="py-2">When</th><th scope="col">Who</th><th scope="col">What</th><th scope="col">Change (before → after)</th></tr>
-            </thead>
+            <THead>
+              <tr><Th>When</Th><Th>Who</Th><Th>What</Th><Th>Change (before → after)</Th></tr>
+            </THead>
             <tbody>
               {entries.map((e) => {
                 const r = describeChange(e, context);
                 return (
                   <tr key={e.id} className="border-t border-ink-line/70 align-top">
-                    <td className="py-2 pr-3 text-xs">{formatDateTime(e.at)}</td>
-                    <td className="py-2 pr-3">{e.actorName ?? "Sondage"}</td>
-                    <td className="py-2 pr-3"><span className="font-medium">{r.what}</span>{r.subject && <span className="block text-xs text-ink-soft">{r.subject}</span>}</td>
-                    <td className="py-2"><ChangeList changes={r.changes} /></td>
+                    <Td className="text-xs">{formatDateTime(e.at)}</Td>
+                    <Td>{e.actorName ?? "Sondage"}</Td>
+                    <Td><span className="font-medium">{r.what}</span>{r.subject && <span className="block text-xs text-ink-soft">{r.subject}</span>}</Td>
+                    <Td><ChangeList changes={r.changes} /></Td>
                   </tr>
                 );
               })}
             </tbody>
-          </table>
+          </Table>
         )}
       </Card>
     </>
