@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { keysetFields } from "./keyset";
 import { moneyInput } from "./engagement";
 import { signedMoney } from "./population";
 import { MUS_MIN_CONFIDENCE } from "@/lib/sampling/evaluate-mus";
@@ -112,4 +113,5 @@ export const SampleItemsQuerySchema = z.object({
   pageSize: z.coerce.number().int().min(10).max(500).default(50),
   status: z.enum(["all", ...ITEM_STATUSES, "void"]).default("all"),
   q: z.string().trim().max(100).optional(),
-});
+  ...keysetFields,
+}).refine((q) => [q.after, q.before, q.last || undefined].filter(Boolean).length <= 1, { path: ["after"], message: "Give one of after, before or last" });
