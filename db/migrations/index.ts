@@ -11,6 +11,7 @@ import * as m0009 from "./20261202_0009_client_requests";
 import * as m0010 from "./20261203_0010_firm_methodology";
 import * as m0011 from "./20261203_0011_auditor_conclusion";
 import * as m0014 from "./20261203_0014_misstatements";
+import * as m0015 from "./20261203_0015_scale_out";
 
 type Migration = { up(knex: Knex): Promise<void>; down(knex: Knex): Promise<void> };
 
@@ -28,6 +29,7 @@ const migrations: Record<string, Migration> = {
   "20261203_0010_firm_methodology": m0010,
   "20261203_0011_auditor_conclusion": m0011,
   "20261203_0014_misstatements": m0014,
+  "20261203_0015_scale_out": m0015,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {
