@@ -3,18 +3,9 @@ import type { NextAuthOptions } from "next-auth";
 import CredentialsProvider from "next-auth/providers/credentials";
 import { getDb } from "@/db/knex";
 import { verifyCredentials } from "./verify-credentials";
+import { clientAddress } from "./client-address";
 
 export const SESSION_MAX_AGE_SECONDS = 8 * 60 * 60; // one working day
-
-// next start fills X-Forwarded-For from the socket only when the request has none, so the
-// per-address limit trusts what the deployment's reverse proxy writes there; the per-account
-// limit holds whatever a caller sends.
-function clientIp(headers: Record<string, unknown> | undefined): string {
-  const forwarded = headers?.["x-forwarded-for"];
-  const first = typeof forwarded === "string" ? forwarded.split(",")[0]?.trim() : undefined;
-  const realIp = headers?.["x-real-ip"];
-  return first || (typeof realIp === "string" ? realIp : "unknown");
-}
 
 export const authOptions: NextAuthOptions = {
   session: { strategy: "jwt", maxAge: SESSION_MAX_AGE_SECONDS },
@@ -26,7 +17,7 @@ export const authOptions: NextAuthOptions = {
       name: "Sondage account",
       credentials: { email: { label: "E-mail", type: "email" }, password: { label: "Password", type: "password" } },
       async authorize(credentials, req) {
-        const user = await verifyCredentials(getDb(), credentials, clientIp(req?.headers));
+        const user = await verifyCredentials(getDb(), credentials, clientAddress(req?.headers));
         return { id: String(user.id), name: user.name, email: user.email };
       },
     }),
