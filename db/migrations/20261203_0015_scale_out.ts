@@ -7,7 +7,8 @@ const UPLOAD_STATUSES = ["inspected", "loading", "rejected", "loaded", "expired"
  * - population_uploads: the upload's bytes live in object storage (object_key); a load holds a
  *   lease (lease_expires_at, renewed while it runs, by lease_holder) so a dead server's load is
  *   marked failed (failure_message) and can be loaded again.
- * - advisor_runs: a cancel flag any server can set and the running server polls.
+ * - advisor_runs: a cancel flag any server can set and the running server polls, and the running
+ *   server's id and heartbeat (a run whose heartbeat stopped is marked interrupted).
  * - mail_outbox: messages written in the same transaction as the change that causes them, sent by
  *   a worker with retries and backoff.
  * - sample_items (draw_id, selection_order): the key the sample grid pages by.
@@ -24,6 +25,7 @@ export async function up(knex: Knex): Promise<void> {
   await knex.schema.alterTable("advisor_runs", (t) => {
     t.timestamp("cancel_requested_at", { precision: 3 }).nullable();
     t.string("server_id", 100).nullable();
+    t.timestamp("heartbeat_at", { precision: 3 }).nullable();
   });
   await knex.schema.alterTable("sample_items", (t) => {
     t.index(["draw_id", "selection_order"], "sample_items_draw_order");
@@ -66,6 +68,7 @@ export async function down(knex: Knex): Promise<void> {
   await knex.schema.alterTable("advisor_runs", (t) => {
     t.dropColumn("cancel_requested_at");
     t.dropColumn("server_id");
+    t.dropColumn("heartbeat_at");
   });
   await knex.schema.alterTable("population_uploads", (t) => {
     t.dropIndex(["status", "lease_expires_at"], "population_uploads_lease");
