@@ -12,7 +12,7 @@ export const BENCH = {
   // Mail fakes of its own too: the demo (npm start) holds 2525/2580, and integration/e2e slots use 25x5/26x5/…
   smtpPort: Number(process.env.BENCH_SMTP_PORT ?? 2694),
   inboxPort: Number(process.env.BENCH_INBOX_PORT ?? 2698),
-  distDir: ".next-bench",
+  distDir: process.env.NEXT_DIST_DIR ?? ".next-bench",
   uploadDir: ".data/uploads-bench",
   fakesData: "fakes-bench",
   bucket: "sondage-bench",
