@@ -4,6 +4,7 @@ import type { SaveResult } from "@/lib/validation/sample";
 import { recordAudit } from "./audit-log";
 import { containsPattern } from "./like";
 import { seekFromQuery, seekPage } from "./keyset";
+import { transactionWithRetry } from "./transaction-retry";
 import type { Cursor, KeysetPage } from "@/lib/validation/keyset";
 import { beginResultWrite } from "@/lib/samples/guard";
 import { AppError, notFound } from "@/lib/errors";
@@ -99,7 +100,8 @@ export async function getItemById(db: Knex, { drawId, itemId }: { drawId: number
  * a stale version gets 409 naming who changed it and when, and nothing is overwritten.
  */
 export async function saveItemResult(db: Knex, { engagementId, sampleId, drawId, itemId, actorId, input }: { engagementId: number; sampleId: number; drawId: number; itemId: number; actorId: number; input: SaveResult }) {
-  return db.transaction(async (trx) => {
+  // A deadlock (or a Galera certification conflict) re-runs the whole save, version check included.
+  return transactionWithRetry(db, async (trx) => {
     const signOffsCleared = await beginResultWrite(trx, { sampleId, actorId, what: "an item's result" });
     const before = await itemQuery(trx, drawId).andWhere("i.id", itemId).forUpdate().first();
     if (!before) throw notFound("No such item in this sample");

@@ -17,8 +17,8 @@
  *     and restarted in the middle of an import (the import complete or absent).
  * LOAD_SAVE_S / LOAD_PAGE_S shorten the runs; NEXT_DIST_DIR picks the build (default .next-load).
  */
-import { existsSync, mkdirSync, rmSync, writeFileSync } from "node:fs";
-import { tmpdir } from "node:os";
+import { existsSync, mkdirSync, readFileSync, rmSync, writeFileSync } from "node:fs";
+import { cpus, loadavg, tmpdir } from "node:os";
 import path from "node:path";
 import bcrypt from "bcryptjs";
 import knex, { type Knex } from "knex";
@@ -379,7 +379,9 @@ async function main() {
     if (app) await stopService(app);
     for (const s of services) await stopService(s);
     await dbServer.stop();
-    console.log("\n== bench:load figures\n" + figures.map((f) => `- ${f}`).join("\n"));
+    const retries = (readFileSync(LOG, "utf8").match(/\[sondage\] deadlock retry/g) ?? []).length;
+    figures.push(`transactions re-run after a deadlock / certification conflict (1213), counted in the app's log: ${retries}`);
+    console.log(`\n== bench:load figures (load average at the end: ${loadavg().map((l) => l.toFixed(2)).join(", ")} on ${cpus().length} cores)\n` + figures.map((f) => `- ${f}`).join("\n"));
   }
 }
 
