@@ -20,7 +20,8 @@ const args = process.argv.slice(2);
 const flag = (name: string) => { const i = args.indexOf(name); return i >= 0 ? args[i + 1] : undefined; };
 const underPlaywright = flag("--front") !== undefined;
 const FRONT = Number(flag("--front") ?? 3290);
-const SERVERS = [FRONT + 300, FRONT + 301];
+// Two ports per front door: slot n (front 3100+n) gets 3500+2n and 3501+2n, so slots never share one.
+const SERVERS = [2 * FRONT - 2700, 2 * FRONT - 2699];
 const DIST = process.env.NEXT_DIST_DIR ?? ".next-cluster";
 const DATA = path.join(ROOT, ".data", `cluster-app-${FRONT}`);
 const LOG = path.join(DATA, "cluster-app.log");
