@@ -4,9 +4,11 @@ const UPLOAD_STATUSES = ["inspected", "loading", "rejected", "loaded", "expired"
 
 /**
  * Issue 17 (scale out): what lets any app server pick up work another one started.
- * - population_uploads: the upload's bytes live in object storage (object_key); a load holds a
- *   lease (lease_expires_at, renewed while it runs, by lease_holder) so a dead server's load is
- *   marked failed (failure_message) and can be loaded again.
+ * - population_uploads: the upload's bytes live in object storage (object_key); a dead server's
+ *   load is marked failed (failure_message) and can be loaded again.
+ * - population_upload_leases: the lease a load holds on its upload, renewed while it runs. A table
+ *   of its own: the load's transaction holds a shared lock on the upload row for its whole length
+ *   (the populations row it inserts references it), so renewing a lease there would wait on it.
  * - advisor_runs: a cancel flag any server can set and the running server polls, and the running
  *   server's id and heartbeat (a run whose heartbeat stopped is marked interrupted).
  * - mail_outbox: messages written in the same transaction as the change that causes them, sent by
@@ -17,10 +19,12 @@ export async function up(knex: Knex): Promise<void> {
   await knex.raw(`ALTER TABLE population_uploads MODIFY status ENUM(${[...UPLOAD_STATUSES, "failed"].map((s) => `'${s}'`).join(", ")}) NOT NULL DEFAULT 'inspected'`);
   await knex.schema.alterTable("population_uploads", (t) => {
     t.string("object_key", 300).nullable();
-    t.string("lease_holder", 100).nullable();
-    t.timestamp("lease_expires_at", { precision: 3 }).nullable();
     t.text("failure_message").nullable();
-    t.index(["status", "lease_expires_at"], "population_uploads_lease");
+  });
+  await knex.schema.createTable("population_upload_leases", (t) => {
+    t.integer("upload_id").unsigned().primary(); // no foreign key: renewing must not touch the upload row
+    t.string("holder", 100).notNullable();
+    t.timestamp("expires_at", { precision: 3 }).notNullable();
   });
   await knex.schema.alterTable("advisor_runs", (t) => {
     t.timestamp("cancel_requested_at", { precision: 3 }).nullable();
@@ -58,6 +62,7 @@ export async function up(knex: Knex): Promise<void> {
 
 export async function down(knex: Knex): Promise<void> {
   await knex.schema.dropTable("mail_outbox");
+  await knex.schema.dropTable("population_upload_leases");
   // The draw_id foreign key leans on the new index (MariaDB dropped its own when this one came): give it one back first.
   await knex.schema.alterTable("sample_items", (t) => {
     t.index(["draw_id"], "sample_items_draw_id");
@@ -71,10 +76,7 @@ export async function down(knex: Knex): Promise<void> {
     t.dropColumn("heartbeat_at");
   });
   await knex.schema.alterTable("population_uploads", (t) => {
-    t.dropIndex(["status", "lease_expires_at"], "population_uploads_lease");
     t.dropColumn("object_key");
-    t.dropColumn("lease_holder");
-    t.dropColumn("lease_expires_at");
     t.dropColumn("failure_message");
   });
   await knex("population_uploads").where({ status: "failed" }).update({ status: "rejected" });

@@ -46,22 +46,30 @@ export const LEASE_RENEW_MS = 10_000;
 export const deadLoadMessage = (fileName: string) =>
   `The server loading ${fileName} stopped before the load finished. Nothing was stored (the load is one transaction); load the file again.`;
 
-/** Marks loads whose lease ran out as failed, with a message for their owner; returns how many. */
+const leaseUntil = (db: Knex) => db.raw(`NOW(3) + INTERVAL ${LEASE_SECONDS} SECOND`);
+
+/**
+ * Marks loads whose lease ran out (or that have none) as failed, with a message for their owner;
+ * returns how many. A dead server's transaction was rolled back by the database when its
+ * connection dropped, so its upload row is free to change.
+ */
 export async function failDeadLoads(db: Knex): Promise<number> {
-  const dead = await db("population_uploads").where({ status: "loading" }).andWhere("lease_expires_at", "<", db.fn.now(3)).select("id", "file_name");
+  const dead = await db("population_uploads as u").leftJoin("population_upload_leases as l", "l.upload_id", "u.id")
+    .where("u.status", "loading").andWhere((w) => w.whereNull("l.upload_id").orWhere("l.expires_at", "<", db.fn.now(3))).select("u.id", "u.file_name", "l.holder");
   let failed = 0;
-  for (const u of dead as { id: number; file_name: string }[]) {
-    failed += await db("population_uploads").where({ id: u.id, status: "loading" }).andWhere("lease_expires_at", "<", db.fn.now(3))
-      .update({ status: "failed", lease_holder: null, lease_expires_at: null, failure_message: deadLoadMessage(u.file_name) });
+  for (const u of dead as { id: number; file_name: string; holder: string | null }[]) {
+    failed += await db.transaction(async (trx): Promise<number> => {
+      const gone = await trx("population_upload_leases").where({ upload_id: u.id }).andWhere("expires_at", "<", trx.fn.now(3)).del();
+      if (!gone && u.holder !== null) return 0; // renewed meanwhile
+      return trx("population_uploads").where({ id: u.id, status: "loading" }).update({ status: "failed", failure_message: deadLoadMessage(u.file_name) });
+    });
   }
   return failed;
 }
 
-/** Extends the lease while the load runs; false when this server no longer holds it (the load must stop). */
+/** Extends the lease while the load runs; false when this server no longer holds it. */
 export async function renewLoadLease(db: Knex, { uploadId, holder }: { uploadId: number; holder: string }): Promise<boolean> {
-  const renewed = await db("population_uploads").where({ id: uploadId, status: "loading", lease_holder: holder })
-    .update({ lease_expires_at: db.raw(`NOW(3) + INTERVAL ${LEASE_SECONDS} SECOND`) });
-  return renewed === 1;
+  return (await db("population_upload_leases").where({ upload_id: uploadId, holder }).update({ expires_at: leaseUntil(db) })) === 1;
 }
 
 export async function createUpload(db: Knex, u: { engagementId: number; actorId: number; fileName: string; sizeBytes: number; sha256: string; tempPath: string; objectKey: string; inspection: UploadInspection }) {
@@ -98,9 +106,11 @@ export async function assertNoLoadRunning(db: Knex, { userId }: { userId: number
  */
 export async function claimUploadForLoading(db: Knex, { uploadId, userId, holder }: { uploadId: number; userId: number; holder: string }) {
   await assertNoLoadRunning(db, { userId });
-  const claimed = await db("population_uploads").where({ id: uploadId }).whereIn("status", ["inspected", "failed"])
-    .update({ status: "loading", lease_holder: holder, lease_expires_at: db.raw(`NOW(3) + INTERVAL ${LEASE_SECONDS} SECOND`), failure_message: null });
-  if (!claimed) throw conflict("This upload has already been loaded or rejected; upload the file again.");
+  await db.transaction(async (trx) => {
+    const claimed = await trx("population_uploads").where({ id: uploadId }).whereIn("status", ["inspected", "failed"]).update({ status: "loading", failure_message: null });
+    if (!claimed) throw conflict("This upload has already been loaded or rejected; upload the file again.");
+    await trx.raw("INSERT INTO population_upload_leases (upload_id, holder, expires_at) VALUES (?, ?, NOW(3) + INTERVAL ? SECOND) ON DUPLICATE KEY UPDATE holder = VALUES(holder), expires_at = VALUES(expires_at)", [uploadId, holder, LEASE_SECONDS]);
+  });
 }
 
 /**
@@ -109,14 +119,19 @@ export async function claimUploadForLoading(db: Knex, { uploadId, userId, holder
  * lock makes a concurrent claim wait for the outcome.
  */
 export async function completeLeasedLoad(trx: Knex.Transaction, { uploadId, holder }: { uploadId: number; holder: string }) {
-  const row = await trx("population_uploads").where({ id: uploadId }).forUpdate().first("status", "lease_holder");
-  if (row?.status !== "loading" || row.lease_holder !== holder) {
+  const lease = await trx("population_upload_leases").where({ upload_id: uploadId }).forUpdate().first("holder");
+  const row = await trx("population_uploads").where({ id: uploadId }).first("status");
+  if (row?.status !== "loading" || lease?.holder !== holder) {
     throw conflict("This load lost its claim on the upload (the server was too slow to renew it); nothing was stored. Load the file again.");
   }
-  await trx("population_uploads").where({ id: uploadId }).update({ status: "loaded", lease_holder: null, lease_expires_at: null, problem_count: 0, problems_json: JSON.stringify([]) });
+  await trx("population_upload_leases").where({ upload_id: uploadId }).del();
+  await trx("population_uploads").where({ id: uploadId }).update({ status: "loaded", problem_count: 0, problems_json: JSON.stringify([]) });
 }
 
 /** Records a load's refusal; only while this server still holds the upload (a taken-over load is left to its new holder). */
 export async function finishUpload(db: Knex, { uploadId, holder, status, problems = [], problemCount = 0 }: { uploadId: number; holder: string; status: "rejected"; problems?: RowProblem[]; problemCount?: number }) {
-  await db("population_uploads").where({ id: uploadId, status: "loading", lease_holder: holder }).update({ status, problem_count: problemCount, problems_json: JSON.stringify(problems), lease_holder: null, lease_expires_at: null });
+  await db.transaction(async (trx) => {
+    if (!(await trx("population_upload_leases").where({ upload_id: uploadId, holder }).del())) return;
+    await trx("population_uploads").where({ id: uploadId, status: "loading" }).update({ status, problem_count: problemCount, problems_json: JSON.stringify(problems) });
+  });
 }

@@ -58,26 +58,28 @@ describe("a load whose server died", () => {
     expect(JSON.stringify(blocked.json)).toMatch(/already have a ledger loading/);
 
     // The lease runs out (moved back rather than waiting LEASE_SECONDS).
-    await getDb()("population_uploads").where({ id: uploadId }).update({ lease_expires_at: getDb().raw("NOW(3) - INTERVAL 1 SECOND") });
+    await getDb()("population_upload_leases").where({ upload_id: uploadId }).update({ expires_at: getDb().raw("NOW(3) - INTERVAL 1 SECOND") });
     const view = await call(inspect.GET, "GET", { as: senior, params: { engagementId: String(engagement), uploadId: String(uploadId) } });
     expect(view.json.upload.failureMessage).toMatch(/server loading dead-server\.csv stopped before the load finished\. Nothing was stored/);
     expect((await getDb()("population_uploads").where({ id: uploadId }).first("status")).status).toBe("failed");
 
     const again = await loadAgain(uploadId);
     expect(again.last).toMatchObject({ type: "loaded", rowCount: 3 });
-    expect((await getDb()("population_uploads").where({ id: uploadId }).first("status", "lease_holder"))).toEqual({ status: "loaded", lease_holder: null });
+    expect((await getDb()("population_uploads").where({ id: uploadId }).first("status"))).toEqual({ status: "loaded" });
+    expect(await getDb()("population_upload_leases").where({ upload_id: uploadId }).first()).toBeUndefined();
   });
 
   it("a load whose lease another server took over stores nothing", async () => {
     const up = await upload(senior, engagement, "taken-over.csv", CSV);
     const uploadId = up.json.upload.id as number;
     await claimUploadForLoading(getDb(), { uploadId, userId: senior, holder: "slow-server" });
-    await getDb()("population_uploads").where({ id: uploadId }).update({ lease_holder: "other-server" });
+    await getDb()("population_upload_leases").where({ upload_id: uploadId }).update({ holder: "other-server" });
     const before = await populationState();
     const record = await getUploadById(getDb(), { engagementId: engagement, uploadId });
     await expect(loadPopulation(getDb(), { upload: record, actorId: senior, holder: "slow-server", input: LoadPopulationSchema.parse({ name: "Taken over", mapping: RECEIVABLES_MAPPING }), onProgress: () => undefined }))
       .rejects.toThrow(/lost its claim/);
     expect(await populationState()).toEqual(before);
-    expect((await getDb()("population_uploads").where({ id: uploadId }).first("status", "lease_holder"))).toEqual({ status: "loading", lease_holder: "other-server" });
+    expect((await getDb()("population_uploads").where({ id: uploadId }).first("status"))).toEqual({ status: "loading" });
+    expect((await getDb()("population_upload_leases").where({ upload_id: uploadId }).first("holder"))).toEqual({ holder: "other-server" });
   });
 });

@@ -6,6 +6,7 @@ import { getDb } from "@/db/knex";
 import { call, callRaw } from "./support/call";
 import { auditCount, makeEngagement, makeFirm, makeUser } from "./support/factory";
 import { populationState, RECEIVABLES_MAPPING, upload, uploadAndLoad } from "./support/populations";
+import { claimUploadForLoading } from "@/lib/data/population-uploads";
 import * as population from "@/app/api/engagements/[engagementId]/populations/[populationId]/route";
 import * as original from "@/app/api/engagements/[engagementId]/populations/[populationId]/original/route";
 import * as problemsCsv from "@/app/api/engagements/[engagementId]/populations/uploads/[uploadId]/problems/route";
@@ -171,11 +172,13 @@ describe("who may upload", () => {
 
   it("refuses a second upload while the same person has a load running", async () => {
     const first = await upload(senior, engagement, "first.csv", GOOD_CSV);
-    await getDb()("population_uploads").where({ id: first.json.upload.id }).update({ status: "loading" });
+    // A load running on some app server: the upload claimed, its lease live.
+    await claimUploadForLoading(getDb(), { uploadId: first.json.upload.id, userId: senior, holder: "a-live-server" });
     const second = await upload(senior, engagement, "second.csv", GOOD_CSV);
     expect(second.status).toBe(409);
     expect(second.json.error.message).toMatch(/already have a ledger loading \(first\.csv\)/);
     await getDb()("population_uploads").where({ id: first.json.upload.id }).update({ status: "rejected" });
+    await getDb()("population_upload_leases").where({ upload_id: first.json.upload.id }).del();
   });
 
   it("does not let an upload be loaded on another engagement", async () => {
