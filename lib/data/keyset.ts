@@ -34,7 +34,7 @@ function beyond(query: Knex.QueryBuilder, order: SeekOrder, dir: "asc" | "desc",
     return;
   }
   query.andWhere(order.column, `${op}=`, cursor.value)
-    .andWhere((w) => w.where(order.column, op, cursor.value).orWhere(order.key, op, cursor.key));
+    .andWhere((w) => { w.where(order.column, op, cursor.value).orWhere(order.key, op, cursor.key); });
 }
 
 export interface SeekResult<R> { rows: R[]; nextCursor: string | null; prevCursor: string | null }

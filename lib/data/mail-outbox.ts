@@ -36,7 +36,7 @@ export const backoffSeconds = (failures: number) => Math.min(3600, 30 * 2 ** Mat
 /** Queues a message; give it the transaction of the change that causes it, so both commit or neither does. */
 export async function enqueueMail(db: Knex, m: { firmId: number | null; template: string; toName: string; toEmail: string; subject: string; text: string; html: string }): Promise<number> {
   const [id] = await db("mail_outbox").insert({ firm_id: m.firmId, template: m.template, to_name: m.toName, to_email: m.toEmail, subject: m.subject, text_body: m.text, html_body: m.html });
-  return id as number;
+  return id;
 }
 
 /**
@@ -83,7 +83,7 @@ export async function markAbandonedSends(db: Knex): Promise<number> {
 /** Messages of the firm not (yet, or not known to be) delivered, newest first. */
 export async function listUndeliveredMailByFirmId(db: Knex, { firmId, limit = 200 }: { firmId: number; limit?: number }): Promise<UndeliveredMessage[]> {
   const rows = await db("mail_outbox").where({ firm_id: firmId })
-    .andWhere((w) => w.whereIn("status", ["failed", "unknown"]).orWhere((p) => p.where("status", "pending").andWhere("attempts", ">", 0)))
+    .andWhere((w) => { w.whereIn("status", ["failed", "unknown"]).orWhere((p) => { p.where("status", "pending").andWhere("attempts", ">", 0); }); })
     .orderBy("id", "desc").limit(limit).select("id", "template", "to_email", "subject", "status", "attempts", "last_error", "next_attempt_at", "created_at");
   return rows.map((r: Record<string, unknown>) => ({
     id: Number(r.id), template: String(r.template), toEmail: String(r.to_email), subject: String(r.subject), status: r.status as UndeliveredMessage["status"],

@@ -55,7 +55,7 @@ const leaseUntil = (db: Knex) => db.raw(`NOW(3) + INTERVAL ${LEASE_SECONDS} SECO
  */
 export async function failDeadLoads(db: Knex): Promise<number> {
   const dead = await db("population_uploads as u").leftJoin("population_upload_leases as l", "l.upload_id", "u.id")
-    .where("u.status", "loading").andWhere((w) => w.whereNull("l.upload_id").orWhere("l.expires_at", "<", db.fn.now(3))).select("u.id", "u.file_name", "l.holder");
+    .where("u.status", "loading").andWhere((w) => { w.whereNull("l.upload_id").orWhere("l.expires_at", "<", db.fn.now(3)); }).select("u.id", "u.file_name", "l.holder");
   let failed = 0;
   for (const u of dead as { id: number; file_name: string; holder: string | null }[]) {
     failed += await db.transaction(async (trx): Promise<number> => {

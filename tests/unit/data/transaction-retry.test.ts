@@ -26,7 +26,7 @@ describe("transactionWithRetry", () => {
     vi.spyOn(console, "warn").mockImplementation(() => undefined);
     const before = deadlockRetries();
     const { db, runs } = fakeDb([deadlock(), deadlock()]);
-    await expect(transactionWithRetry(db, async () => "saved")).resolves.toBe("saved");
+    await expect(transactionWithRetry(db, () => Promise.resolve("saved"))).resolves.toBe("saved");
     expect(runs).toHaveLength(3);
     expect(deadlockRetries() - before).toBe(2);
   });
@@ -34,16 +34,16 @@ describe("transactionWithRetry", () => {
   it("gives up after DEADLOCK_ATTEMPTS runs, passing the deadlock on", async () => {
     vi.spyOn(console, "warn").mockImplementation(() => undefined);
     const { db, runs } = fakeDb(Array.from({ length: 10 }, deadlock));
-    await expect(transactionWithRetry(db, async () => "never")).rejects.toMatchObject({ errno: 1213 });
+    await expect(transactionWithRetry(db, () => Promise.resolve("never"))).rejects.toMatchObject({ errno: 1213 });
     expect(runs).toHaveLength(DEADLOCK_ATTEMPTS);
   });
 
   it("never retries other errors, nor inside a caller's transaction", async () => {
     const other = fakeDb([new Error("Duplicate entry")]);
-    await expect(transactionWithRetry(other.db, async () => 1)).rejects.toThrow("Duplicate entry");
+    await expect(transactionWithRetry(other.db, () => Promise.resolve(1))).rejects.toThrow("Duplicate entry");
     expect(other.runs).toHaveLength(1);
     const nested = fakeDb([deadlock()], true);
-    await expect(transactionWithRetry(nested.db, async () => 1)).rejects.toMatchObject({ errno: 1213 });
+    await expect(transactionWithRetry(nested.db, () => Promise.resolve(1))).rejects.toMatchObject({ errno: 1213 });
     expect(nested.runs).toHaveLength(1);
   });
 
