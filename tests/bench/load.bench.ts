@@ -18,18 +18,17 @@
  * LOAD_SAVE_S / LOAD_PAGE_S shorten the runs; NEXT_DIST_DIR picks the build (default .next-load).
  */
 import { existsSync, mkdirSync, readFileSync, rmSync, writeFileSync } from "node:fs";
-import { cpus, loadavg, tmpdir } from "node:os";
+import { cpus, loadavg } from "node:os";
 import path from "node:path";
-import bcrypt from "bcryptjs";
 import knex, { type Knex } from "knex";
 import { loadLocalEnv } from "../../db/load-env";
 import { buildKnexConfig } from "../../db/knex-config";
-import { generateLedgerCsv } from "./generate-ledger";
 import { HttpSession } from "./support/http-session";
 import { ROOT, run, startService, stopService, waitForHttp, type Service } from "./support/processes";
 import { PrivateMariaDb } from "./support/private-db";
 import { fmt, hammer } from "./load/measure";
 import { SaveTracker, verifySaves } from "./load/saves";
+import { addLoadUsers, drawSample, LOAD_PASSWORD, sampleItems, signInAll, uploadLedger } from "./load/fixtures";
 import { burstWithKill, maxPopulationId, populationsSince, startLoad, until } from "./load/faults";
 import { openLoop } from "./load/open-loop";
 import { encodeCursor } from "../../lib/validation/keyset";
@@ -43,7 +42,6 @@ const SAVE_S = Number(process.env.LOAD_SAVE_S ?? 30);
 const PAGE_S = Number(process.env.LOAD_PAGE_S ?? 20);
 const OPEN_S = Number(process.env.LOAD_OPEN_S ?? 60);
 const USERS = 50;
-const PASSWORD = "load-bench-password-2026";
 const SENIOR = "senior@marrow-quill.example";
 const LOG = path.join(ROOT, ".data/load-bench.log");
 const log = (line: string) => console.log(`[load bench] ${line}`);
@@ -68,34 +66,16 @@ async function hardKill(service: Service): Promise<void> {
   await service.exited;
 }
 
-async function addLoadUsers(engagementId: number): Promise<string[]> {
+async function addUsers(engagementId: number): Promise<string[]> {
   const db = database();
   try {
-    const firm = await db("firms").first("id");
-    const hash = await bcrypt.hash(PASSWORD, 10);
-    const emails = Array.from({ length: USERS }, (_, i) => `load${i + 1}@marrow-quill.example`);
-    for (const email of emails) {
-      const [id] = await db("users").insert({ firm_id: firm.id, email, name: `Load ${email.slice(4, 6)}`, grade: "staff", firm_role: "member", password_hash: hash });
-      await db("engagement_members").insert({ engagement_id: engagementId, user_id: id, role: "staff" });
-    }
-    return emails;
+    return await addLoadUsers(db, engagementId, USERS);
   } finally {
     await db.destroy();
   }
 }
 
-async function loadFile(senior: HttpSession, base: string, rows: number, name: string) {
-  const file = path.join(tmpdir(), `load-bench-${rows}.csv`);
-  if (!existsSync(file)) await generateLedgerCsv(file, rows, 20261202 + rows);
-  let up = await senior.uploadFile<{ upload: { id: number } }>(`${base}/populations/uploads?fileName=${name}.csv`, file);
-  for (let i = 0; up.status === 503 && i < 3; i++) {
-    log(`upload answered 503 (database busy); again in 10 s`);
-    await new Promise((r) => setTimeout(r, 10_000));
-    up = await senior.uploadFile<{ upload: { id: number } }>(`${base}/populations/uploads?fileName=${name}.csv`, file);
-  }
-  if (up.status !== 201) throw new Error(`upload answered ${up.status}`);
-  return { uploadId: up.body.upload.id, file };
-}
+const loadFile = (senior: HttpSession, base: string, rows: number, name: string) => uploadLedger(senior, base, rows, name, log);
 
 async function loadPopulation(senior: HttpSession, base: string, rows: number, name: string, attempt = 1): Promise<number> {
   const { uploadId } = await loadFile(senior, base, rows, name);
@@ -111,20 +91,6 @@ async function loadPopulation(senior: HttpSession, base: string, rows: number, n
   await senior.json(`${base}/populations/${populationId}/reconciliation`, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify({ controlTotal: pop.population.total, controlCount: pop.population.rowCount }) });
   log(`loaded ${rows.toLocaleString("en-US")} rows in ${(result.ms / 1000).toFixed(1)} s (population ${populationId})`);
   return populationId;
-}
-
-async function drawSample(senior: HttpSession, base: string, populationId: number, size: number): Promise<number> {
-  const { sample } = await senior.json<{ sample: { id: number } }>(`${base}/samples`, {
-    method: "POST", headers: { "content-type": "application/json" },
-    body: JSON.stringify({ populationId, name: `Load sample ${size}`, objective: "Concurrent result entry under load.", assertion: "Existence", direction: "overstatement", params: { method: "random", estimator: "difference", tolerableMisstatement: "50000", sampleSize: size, sizeReason: "load benchmark" } }),
-  });
-  await senior.json(`${base}/samples/${sample.id}/draw`, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify({ seed: 42 }) });
-  return sample.id;
-}
-
-async function sampleItems(session: HttpSession, base: string, sampleId: number) {
-  const { items } = await session.json<{ items: { id: number; version: number }[] }>(`${base}/samples/${sampleId}/items?pageSize=500`);
-  return items;
 }
 
 /** One credentials sign-in try; the error text next-auth passes back in the redirect, or "ok". */
@@ -143,7 +109,7 @@ async function measureSignInThrottle(emails: string[]) {
   const target = emails.at(-1)!;
   const tries = [];
   for (let i = 0; i < 7; i++) tries.push(await trySignIn(target, "wrong-password-" + i));
-  const right = await trySignIn(target, PASSWORD);
+  const right = await trySignIn(target, LOAD_PASSWORD);
   const firstBlocked = tries.findIndex((t) => /Too many/.test(t.error)) + 1;
   report(`sign-in throttle, one account: failures answered "${tries[0].error}" in ${tries[0].ms.toFixed(0)} ms each (bcrypt); try ${firstBlocked} was refused: "${tries[firstBlocked - 1]?.error}"; the right password then: ${right.ok ? "accepted (NOT throttled)" : `refused ("${right.error}")`}`);
   // The per-address limit (20 in 15 min) keys on X-Forwarded-For: from one address it holds; a caller who sets the header freely gets a fresh bucket each time.
@@ -207,13 +173,8 @@ async function main() {
     const { engagements } = await senior.json<{ engagements: { id: number; clientName: string }[] }>("/api/engagements");
     const engagementId = engagements.find((e) => e.clientName.startsWith("Tessaly"))!.id;
     const base = `/api/engagements/${engagementId}`;
-    const emails = await addLoadUsers(engagementId);
-    const sessions: HttpSession[] = [];
-    for (const email of emails) {
-      const s = new HttpSession(APP);
-      await s.signIn(email, PASSWORD);
-      sessions.push(s);
-    }
+    const emails = await addUsers(engagementId);
+    const sessions = await signInAll(APP, emails);
     log(`${sessions.length} staff signed in`);
 
     // 0. Sign-in throttling, measured.

@@ -7,14 +7,17 @@
  *   npm run test:cluster    start it, run the integration suite through the front door
  *                           (INTEGRATION_SLOT 41, DB_PORT 4870), then the faults below, then stop it
  *
- * Faults (test:cluster): a node killed (SIGKILL) and rejoining by state transfer, catching up on
- * what was written while it was down.
+ * Faults (test:cluster): the product on the cluster against a single server (app-faults.ts: a 1M-row
+ * load on each, the writer killed during saves and during a load, a backup killed during a load),
+ * then a node killed (SIGKILL) and rejoining by state transfer, catching up on what was written
+ * while it was down. Exits non-zero when the suite fails or a node does not catch up.
  */
 import { spawn } from "node:child_process";
 import { mkdirSync, writeFileSync } from "node:fs";
 import path from "node:path";
 import { loadLocalEnv } from "../../db/load-env";
 import { ROOT, startService, stopService, type Service } from "../bench/support/processes";
+import { runAppFaults, type ClusterControl } from "./app-faults";
 import { databaseFrontDoorConfig, writeConfig } from "./haproxy";
 import { DATA, FRONT_PORT, NODES, client, clusterSize, createUsers, ensureGaleraPackages, initialiseDataFolders, killNode, startNode, waitFor } from "./galera";
 
@@ -82,6 +85,12 @@ async function main() {
     const code = await runIntegrationSuite();
     report(`integration suite through the front door: exit ${code} in ${((performance.now() - t) / 1000).toFixed(0)} s`);
     if (code !== 0) process.exitCode = 1;
+    report(`settings read back on node 1: ${client(1, "SELECT CONCAT_WS(', ', CONCAT('wsrep_max_ws_size ', @@wsrep_max_ws_size), CONCAT('wsrep_load_data_splitting ', @@wsrep_load_data_splitting), CONCAT('wsrep_trx_fragment_size ', @@wsrep_trx_fragment_size), CONCAT('binlog_format ', @@binlog_format))").trim()}`);
+    const control: ClusterControl = {
+      kill: (n) => killNode(nodes[n - 1]),
+      start: async (n) => { nodes[n - 1] = await startNode(n, LOG); },
+    };
+    await runAppFaults(control, report, log, LOG);
     await rejoinByStateTransfer(nodes);
   } finally {
     await stopAll();

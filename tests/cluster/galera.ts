@@ -4,7 +4,8 @@ import path from "node:path";
 import { ROOT, startService, stopService, type Service } from "../bench/support/processes";
 
 /** Node n (1…3): its MariaDB port, Galera replication, IST and SST ports, on loopback. */
-export const node = (n: number) => ({ n, port: 4870 + n, gcomm: 4560 + n * 10, ist: 4561 + n * 10, sst: 4562 + n * 10 });
+// Replication ports 4910/4920/4930 (+1 IST, +2 SST): clear of the test slots' storage fakes (4579 + 10·slot, 4689 + 10·slot).
+export const node = (n: number) => ({ n, port: 4870 + n, gcomm: 4900 + n * 10, ist: 4901 + n * 10, sst: 4902 + n * 10 });
 export const NODES = [1, 2, 3].map(node);
 export const FRONT_PORT = 4870;
 export const DATA = path.join(ROOT, ".data/galera");

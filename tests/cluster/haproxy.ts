@@ -49,7 +49,8 @@ ${a.servers.map((p, i) => `  server app${i + 1} 127.0.0.1:${p} check`).join("\n"
 /**
  * A TCP front door for a Galera cluster: one writer at a time, the other nodes as backups (the
  * usual way to keep certification conflicts away), checked with MariaDB's handshake
- * (\`option mysql-check\` with a user that needs no password from 127.0.0.1).
+ * (\`option mysql-check\` with a user that needs no password from 127.0.0.1). When the writer comes
+ * back, sessions on a backup are closed so that writes return to one node.
  */
 export function databaseFrontDoorConfig(a: { frontPort: number; nodes: number[]; checkUser: string }): string {
   return `global
@@ -68,7 +69,7 @@ frontend galera
 
 backend nodes
   option mysql-check user ${a.checkUser}
-  default-server inter 1s fall 2 rise 2 on-marked-down shutdown-sessions
+  default-server inter 1s fall 2 rise 2 on-marked-down shutdown-sessions on-marked-up shutdown-backup-sessions
 ${a.nodes.map((p, i) => `  server node${i + 1} 127.0.0.1:${p} check${i === 0 ? "" : " backup"}`).join("\n")}
 `;
 }

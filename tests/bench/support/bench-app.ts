@@ -9,9 +9,9 @@ export const BENCH = {
   appPort: 3200,
   // Not 4699: the e2e storage fake of E2E_SLOT=1 listens there (playwright.config.ts: 4689 + 10·slot).
   s3Port: Number(process.env.BENCH_S3_PORT ?? 4694),
-  // Mail fakes of its own too: the demo (npm start) holds 2525/2580, and integration/e2e slots use 25x5/26x5/…
-  smtpPort: Number(process.env.BENCH_SMTP_PORT ?? 2694),
-  inboxPort: Number(process.env.BENCH_INBOX_PORT ?? 2698),
+  // Mail fakes of its own too: the demo (npm start) holds 2525/2580, and integration/e2e slots use 2535–2725 (+10 per slot)
+  smtpPort: Number(process.env.BENCH_SMTP_PORT ?? 2894),
+  inboxPort: Number(process.env.BENCH_INBOX_PORT ?? 2898),
   distDir: process.env.NEXT_DIST_DIR ?? ".next-bench",
   uploadDir: ".data/uploads-bench",
   fakesData: "fakes-bench",
