@@ -6,6 +6,9 @@
  *                                             servers 3291/3292, fakes 4790/2790/2791, build .next-cluster)
  *   E2E_CLUSTER=1 E2E_SLOT=n npx playwright test   the e2e suite through the front door (playwright.config.ts
  *                                             runs this file with --front <its port> and its slot's settings)
+ *   npm run cluster:app -- --kill-one         then 20 users reading through the front door for 20 s while app
+ *                                             server 1 is SIGKILLed at 5 s (restarted at 12 s): every answer
+ *                                             counted; then it keeps running as above
  *
  * Runs until stopped (Ctrl-C); stopping it stops everything it started.
  */
@@ -14,6 +17,7 @@ import path from "node:path";
 import { loadLocalEnv } from "../../db/load-env";
 import { ROOT, run, startService, stopService, waitForHttp, type Service } from "../bench/support/processes";
 import { appFrontDoorConfig, ensureHaproxy, writeConfig } from "./haproxy";
+import { killOneServer } from "./app-kill";
 
 loadLocalEnv();
 const args = process.argv.slice(2);
@@ -66,6 +70,11 @@ async function main() {
     log(`front door http://127.0.0.1:${FRONT} → app servers ${SERVERS.join(", ")} (round-robin; 4 health answers came from ${pids.size} processes); log ${path.relative(ROOT, LOG)}`);
     if (!underPlaywright) {
       await run("npx", ["tsx", "db/seeds/demo-fieldwork.ts", `http://127.0.0.1:${FRONT}`], env).catch((err: unknown) => log(`demo fieldwork not loaded: ${String(err).slice(0, 300)}`));
+      if (args.includes("--kill-one")) {
+        const appIndex = services.length - SERVERS.length - 1;
+        const restart = () => startService(`next start :${SERVERS[0]}`, process.execPath, ["node_modules/next/dist/bin/next", "start", "-H", "127.0.0.1", "-p", String(SERVERS[0])], env, LOG);
+        services[appIndex] = await killOneServer({ front: `http://127.0.0.1:${FRONT}`, victim: services[appIndex], victimHealthUrl: `http://127.0.0.1:${SERVERS[0]}/api/health`, restart, log });
+      }
       log(`Sondage on http://127.0.0.1:${FRONT} — sign in as manager@marrow-quill.example / sondage-demo-2026. Ctrl-C stops it.`);
     }
     await Promise.race(services.map((s) => s.exited.then((code) => { throw new Error(`${s.name} exited (${code})`); })));

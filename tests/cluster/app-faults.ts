@@ -48,6 +48,19 @@ function populationsOnNode(n: number, afterId: number): string {
   const rows = out.trim().split("\n").filter(Boolean).map((l) => l.split("\t").map(Number));
   return rows.length ? rows.map(([id, declared, items]) => `#${id}: ${items.toLocaleString("en-US")} of ${declared.toLocaleString("en-US")} rows`).join(", ") : "none";
 }
+
+/**
+ * Node n's view once it has applied what the cluster committed: a replica applies a write set
+ * after the writer's commit (certification is synchronous, applying is not), so this polls until
+ * the node's last committed seqno reaches the writer's, up to 5 minutes. Says how long that took.
+ */
+async function populationsOnNodeApplied(n: number, afterId: number, writer = 1): Promise<string> {
+  const seqno = (k: number) => Number(client(k, "SHOW GLOBAL STATUS LIKE 'wsrep_last_committed'").trim().split("\t")[1]);
+  const target = seqno(writer);
+  const started = performance.now();
+  while (seqno(n) < target && performance.now() - started < 300_000) await new Promise((r) => setTimeout(r, 500));
+  return `${populationsOnNode(n, afterId)} (applied ${((performance.now() - started) / 1000).toFixed(1)} s after the writer's commit)`;
+}
 const maxPopulationOnNode = (n: number) => Number(client(n, `SELECT COALESCE(MAX(id), 0) FROM ${DB_NAME}.populations`).trim());
 
 async function prepareDatabase(e: NodeJS.ProcessEnv, recreate: boolean): Promise<void> {
@@ -123,7 +136,7 @@ export async function runAppFaults(cluster: ClusterControl, report: Say, log: Sa
     const ref = await timedLoad(one.senior, one.base, MILLION, "cluster-ref-single", log);
     const before = maxPopulationOnNode(1);
     const onCluster = await timedLoad(many.senior, many.base, MILLION, "cluster-ref-galera", log);
-    const nodes = [1, 2, 3].map((n) => `node ${n} ${populationsOnNode(n, before)}`).join("; ");
+    const nodes = [`node 1 ${populationsOnNode(1, before)}`, `node 2 ${await populationsOnNodeApplied(2, before)}`, `node 3 ${await populationsOnNodeApplied(3, before)}`].join("; ");
     report(`1,000,000-row CSV load (one transaction, one write set, wsrep_max_ws_size 2 GB, no streaming): single server ${(ref.ms / 1000).toFixed(1)} s (${ref.last?.type}), Galera through the front door ${(onCluster.ms / 1000).toFixed(1)} s (${onCluster.last?.type}) → cluster / single ${(onCluster.ms / ref.ms).toFixed(2)}×; rows on each node: ${nodes}`);
 
     // 2. The writer killed during a burst of saves.
@@ -131,7 +144,10 @@ export async function runAppFaults(cluster: ClusterControl, report: Say, log: Sa
     const emails = await addLoadUsers(db, many.engagementId, USERS).finally(() => db.destroy());
     const sessions = await signInAll(url(PORTS.cluster), emails);
     const small = await timedLoad(many.senior, many.base, 5_000, "cluster-saves-5k", log);
-    const sampleId = await drawSample(many.senior, many.base, small.last!.populationId!, 100);
+    const smallId = small.last!.populationId!;
+    const { population } = await many.senior.json<{ population: { total: string; rowCount: number } }>(`${many.base}/populations/${smallId}`);
+    await many.senior.json(`${many.base}/populations/${smallId}/reconciliation`, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify({ controlTotal: population.total, controlCount: population.rowCount }) });
+    const sampleId = await drawSample(many.senior, many.base, smallId, 100);
     const items = await sampleItems(many.senior, many.base, sampleId);
     const writer: KillableDatabase = { kill: () => cluster.kill(1), start: () => cluster.start(1) };
     const burst = await burstWithKill({ sessions, base: many.base, sampleId, items, dbServer: writer, db: () => knex(buildKnexConfig(env(FRONT_PORT, PORTS.cluster))), totalMs: 15_000, killAtMs: 3_000, restartAtMs: 15_000 });
@@ -143,13 +159,13 @@ export async function runAppFaults(cluster: ClusterControl, report: Say, log: Sa
     await settle(many.senior);
     let mark = maxPopulationOnNode(2);
     const writerCut = await loadWithKill(many.senior, many.base, "cluster-kill-writer", 1, 400_000, cluster, log);
-    const survivors = [2, 3].map((n) => `node ${n} ${populationsOnNode(n, mark)}`).join("; ");
+    const survivors = `node 2 ${populationsOnNode(2, mark)}, node 3 ${populationsOnNode(3, mark)}`;
     await cluster.start(1);
     await settle(many.senior);
     report(`writer (node 1) SIGKILLed during a 1M-row load (at ${writerCut.at}): the load answered ${writerCut.outcome.last?.type} ${writerCut.outcome.last?.status ?? ""} "${writerCut.outcome.last?.message ?? writerCut.outcome.error}"; populations from it — ${survivors}; node 1 after rejoining ${populationsOnNode(1, mark)} (absent on every node is the right answer)`);
     mark = maxPopulationOnNode(1);
     const backupCut = await loadWithKill(many.senior, many.base, "cluster-kill-backup", 3, 400_000, cluster, log);
-    const whileDown = [1, 2].map((n) => `node ${n} ${populationsOnNode(n, mark)}`).join("; ");
+    const whileDown = `node 1 ${populationsOnNode(1, mark)}; node 2 ${await populationsOnNodeApplied(2, mark)}`;
     const started = performance.now();
     await cluster.start(3);
     await settle(many.senior);

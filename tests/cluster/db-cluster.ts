@@ -5,7 +5,8 @@
  *   npm run cluster:db      start it and keep it running (Ctrl-C stops it): nodes 4871–4873, front door
  *                           127.0.0.1:4870, data under .data/galera/node{1,2,3} (owned by mysql)
  *   npm run test:cluster    start it, run the integration suite through the front door
- *                           (INTEGRATION_SLOT 41, DB_PORT 4870), then the faults below, then stop it
+ *                           (INTEGRATION_SLOT 41, DB_PORT 4870), then the faults below, then stop it;
+ *                           `npm run test:cluster -- <files…>` runs only those integration files
  *
  * Faults (test:cluster): the product on the cluster against a single server (app-faults.ts: a 1M-row
  * load on each, the writer killed during saves and during a load, a backup killed during a load),
@@ -23,6 +24,8 @@ import { DATA, FRONT_PORT, NODES, client, clusterSize, createUsers, ensureGalera
 
 loadLocalEnv();
 const mode = process.argv[2] === "test" ? "test" : "serve";
+// `npm run test:cluster -- <files…>` runs only those integration files through the front door (the faults run in full).
+const suiteFiles = process.argv.slice(3);
 const LOG = path.join(DATA, "..", "galera.log");
 const log = (line: string) => console.log(`[cluster:db] ${line}`);
 const figures: string[] = [];
@@ -31,8 +34,8 @@ const report = (line: string) => { figures.push(line); log(line); };
 function runIntegrationSuite(): Promise<number> {
   return new Promise((resolve) => {
     // backup-restore drives the private server's own socket (mariadb-dump / restore) and is left out here.
-    const child = spawn(path.join(ROOT, "node_modules/.bin/vitest"), ["run", "--project", "integration", "--exclude", "tests/integration/backup-restore.test.ts"], {
-      cwd: ROOT, stdio: "inherit", env: { ...process.env, DB_HOST: "127.0.0.1", DB_PORT: String(FRONT_PORT), INTEGRATION_SLOT: process.env.INTEGRATION_SLOT ?? "41" },
+    const child = spawn(path.join(ROOT, "node_modules/.bin/vitest"), ["run", "--project", "integration", "--exclude", "tests/integration/backup-restore.test.ts", ...suiteFiles], {
+      cwd: ROOT, stdio: "inherit", env: { ...process.env, DB_HOST: "127.0.0.1", DB_PORT: String(FRONT_PORT), INTEGRATION_SLOT: process.env.INTEGRATION_SLOT ?? "41", INTEGRATION_TIMEOUT_SCALE: "3" },
     });
     child.on("exit", (code) => resolve(code ?? 1));
   });
@@ -83,7 +86,7 @@ async function main() {
     }
     t = performance.now();
     const code = await runIntegrationSuite();
-    report(`integration suite through the front door: exit ${code} in ${((performance.now() - t) / 1000).toFixed(0)} s`);
+    report(`integration ${suiteFiles.length ? suiteFiles.join(", ") : "suite"} through the front door: exit ${code} in ${((performance.now() - t) / 1000).toFixed(0)} s`);
     if (code !== 0) process.exitCode = 1;
     report(`settings read back on node 1: ${client(1, "SELECT CONCAT_WS(', ', CONCAT('wsrep_max_ws_size ', @@wsrep_max_ws_size), CONCAT('wsrep_load_data_splitting ', @@wsrep_load_data_splitting), CONCAT('wsrep_trx_fragment_size ', @@wsrep_trx_fragment_size), CONCAT('binlog_format ', @@binlog_format))").trim()}`);
     const control: ClusterControl = {

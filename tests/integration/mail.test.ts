@@ -63,6 +63,8 @@ afterAll(async () => {
 
 describe("invitation when a member is added", () => {
   it("arrives in the inbox addressed to the added person, with text and HTML parts linking to the engagement", async () => {
+    // Messages earlier test files queued go first (files run in any order), so the count below is this addition's.
+    await deliverDueMail(getDb());
     const newcomer = await makeUser(firm, "senior");
     const [email, name, managerName] = await Promise.all([emailOf(newcomer), nameOf(newcomer), nameOf(manager)]);
     const r = await addMember(engagement, newcomer, "senior");

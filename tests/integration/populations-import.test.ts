@@ -7,6 +7,7 @@ import { call, callRaw } from "./support/call";
 import { auditCount, makeEngagement, makeFirm, makeUser } from "./support/factory";
 import { populationState, RECEIVABLES_MAPPING, upload, uploadAndLoad } from "./support/populations";
 import { claimUploadForLoading } from "@/lib/data/population-uploads";
+import { timeoutScale } from "./test-env";
 import * as population from "@/app/api/engagements/[engagementId]/populations/[populationId]/route";
 import * as original from "@/app/api/engagements/[engagementId]/populations/[populationId]/original/route";
 import * as problemsCsv from "@/app/api/engagements/[engagementId]/populations/uploads/[uploadId]/problems/route";
@@ -111,7 +112,7 @@ describe("whole-file refusals leave the database as it was", () => {
     expect(loaded?.last).toMatchObject({ type: "error", status: 413 });
     expect(loaded?.last.message).toMatch(/1,000,000/);
     expect(await populationState()).toEqual(before);
-  }, 120_000);
+  }, 120_000 * timeoutScale);
 });
 
 describe("row problems store nothing and are listed with row, column and reason", () => {
