@@ -130,8 +130,22 @@ export async function completeLeasedLoad(trx: Knex.Transaction, { uploadId, hold
 
 /** Records a load's refusal; only while this server still holds the upload (a taken-over load is left to its new holder). */
 export async function finishUpload(db: Knex, { uploadId, holder, status, problems = [], problemCount = 0 }: { uploadId: number; holder: string; status: "rejected"; problems?: RowProblem[]; problemCount?: number }) {
-  await db.transaction(async (trx) => {
-    if (!(await trx("population_upload_leases").where({ upload_id: uploadId, holder }).del())) return;
-    await trx("population_uploads").where({ id: uploadId, status: "loading" }).update({ status, problem_count: problemCount, problems_json: JSON.stringify(problems) });
-  });
+  // The failed load's own transaction may still be rolling back (knex stops waiting for a ROLLBACK
+  // after 5 s; undoing a million rows takes longer, most on a Galera node) and holds the upload
+  // row through the population's foreign key: wait for it, a lock-wait timeout at a time.
+  for (let attempt = 1; ; attempt++) {
+    try {
+      await db.transaction(async (trx) => {
+        if (!(await trx("population_upload_leases").where({ upload_id: uploadId, holder }).del())) return;
+        await trx("population_uploads").where({ id: uploadId, status: "loading" }).update({ status, problem_count: problemCount, problems_json: JSON.stringify(problems) });
+      });
+      return;
+    } catch (err) {
+      if ((err as { code?: unknown }).code !== "ER_LOCK_WAIT_TIMEOUT" || attempt >= FINISH_ATTEMPTS) throw err;
+      console.warn(`[sondage] upload ${uploadId}: the failed load is still rolling back; waiting again (attempt ${attempt + 1} of ${FINISH_ATTEMPTS})`);
+    }
+  }
 }
+
+/** Lock waits (innodb_lock_wait_timeout, 50 s by default) a failed load's upload waits for its rollback. */
+const FINISH_ATTEMPTS = 6;
