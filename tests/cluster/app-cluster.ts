@@ -2,7 +2,7 @@
  * Two `next start` app servers behind HAProxy (round-robin, health checks on /api/health), with
  * the storage and mail fakes — the product on more than one app server.
  *
- *   npm run cluster:app                       the demo on http://127.0.0.1:3290 (database sondage_cluster_app,
+ *   npm run cluster:app                       the demo on http://127.0.0.1:3290 (database sondage_clusterapp,
  *                                             servers 3291/3292, fakes 4790/2790/2791, build .next-cluster)
  *   E2E_CLUSTER=1 E2E_SLOT=n npx playwright test   the e2e suite through the front door (playwright.config.ts
  *                                             runs this file with --front <its port> and its slot's settings)
@@ -32,7 +32,7 @@ const LOG = path.join(DATA, "cluster-app.log");
 const log = (line: string) => console.log(`[cluster:app] ${line}`);
 
 const standaloneEnv = (): Record<string, string> => ({
-  DB_NAME: "sondage_cluster_app", S3_ENDPOINT: "http://127.0.0.1:4790", S3_BUCKET: "sondage-cluster-app", SMTP_HOST: "127.0.0.1",
+  DB_NAME: "sondage_clusterapp", S3_ENDPOINT: "http://127.0.0.1:4790", S3_BUCKET: "sondage-cluster-app", SMTP_HOST: "127.0.0.1",
   SMTP_PORT: "2790", MAIL_INBOX_PORT: "2791", UPLOAD_DIR: ".data/uploads-cluster-app", FAKES_DATA: "fakes-cluster-app",
 });
 
