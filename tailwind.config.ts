@@ -11,7 +11,7 @@ export default {
       },
       colors: {
         paper: { DEFAULT: "#f6f4ee", raised: "#fffdf8", sunk: "#ece8dd" },
-        ink: { DEFAULT: "#1d2430", soft: "#4a5363", faint: "#7b8494", line: "#d9d4c7" },
+        ink: { DEFAULT: "#1d2430", soft: "#4a5363", faint: "#596272", line: "#d9d4c7" },
         ledger: { 50: "#eef6f1", 100: "#d5eadd", 500: "#2f7a54", 600: "#24663f", 700: "#1b5132", 900: "#0f2e1d" },
         amber: { 50: "#fdf6e7", 100: "#f8e6bd", 500: "#c98a12", 700: "#8a5d07" },
         brick: { 50: "#fbeeea", 100: "#f3d2c8", 500: "#b5432a", 700: "#85301d" },

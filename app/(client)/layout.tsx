@@ -10,7 +10,7 @@ export default async function ClientLayout({ children }: { children: React.React
     <div className="flex min-h-screen flex-col">
       <header className="border-b border-ink-line bg-paper-raised/90">
         <div className="mx-auto flex h-14 max-w-4xl items-center gap-6 px-6">
-          <Link href="/requests" aria-label="My requests"><Logo /></Link>
+          <Link href="/requests" aria-label="Sondage, my requests"><Logo /></Link>
           <nav aria-label="Main" className="text-sm"><Link href="/requests" className="rounded-md px-2.5 py-1.5 text-ink-soft hover:bg-paper-sunk hover:text-ink">My requests</Link></nav>
           <div className="ml-auto flex items-center gap-3">
             <div className="text-right leading-tight">

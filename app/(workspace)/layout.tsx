@@ -1,13 +1,17 @@
 import { requireWorkspaceUser } from "@/lib/auth/page-guards";
 import { TopBar } from "@/components/shell/top-bar";
+import { getDb } from "@/db/knex";
+import { getInboxByUserId } from "@/lib/review/inbox";
 import { JudgementNote } from "@/components/shell/judgement-note";
 
 export default async function WorkspaceLayout({ children }: { children: React.ReactNode }) {
   const user = await requireWorkspaceUser();
+  const inbox = await getInboxByUserId(getDb(), { userId: user.id });
   return (
     <div className="flex min-h-screen flex-col">
-      <TopBar user={user} />
-      <main className="mx-auto w-full max-w-6xl flex-1 px-6 py-8">{children}</main>
+      <TopBar user={user} waiting={inbox.counts.total} />
+      {/* A page that marks itself data-wide (the sample workspace) gets the width its grid needs. */}
+      <main className="mx-auto w-full max-w-6xl flex-1 px-6 py-8 has-[[data-wide]]:max-w-[120rem]">{children}</main>
       <footer className="border-t border-ink-line">
         <div className="mx-auto max-w-6xl px-6 py-4"><JudgementNote /></div>
       </footer>

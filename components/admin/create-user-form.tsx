@@ -5,7 +5,7 @@ import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import type { z } from "zod";
 import { CreateUserSchema } from "@/lib/validation/user";
-import { GRADES } from "@/lib/auth/roles";
+import { GRADE_LABELS, GRADES } from "@/lib/auth/roles";
 import { Field, Input, Select } from "@/components/ui/field";
 import { Button } from "@/components/ui/button";
 import { Alert } from "@/components/ui/alert";
@@ -22,8 +22,8 @@ export function CreateUserForm() {
   const onSubmit = handleSubmit(async (values) => {
     setFailure(null);
     try {
-      await api("/api/users", { body: values });
-      router.push("/admin/users");
+      const { invitationSent } = await api<{ invitationSent: boolean }>("/api/users", { body: values });
+      router.push(`/admin/users?invited=${encodeURIComponent(values.name)}${invitationSent ? "" : "&mail=failed"}`);
       router.refresh();
     } catch (err) {
       if (err instanceof ApiError && err.fields) for (const [f, m] of Object.entries(err.fields)) setError(f as keyof FormIn, { message: m[0] });
@@ -35,18 +35,14 @@ export function CreateUserForm() {
       {failure && <div className="sm:col-span-2"><Alert>{failure}</Alert></div>}
       <Field label="Name" error={errors.name?.message}>{({ id, describedBy, invalid }) => <Input id={id} aria-describedby={describedBy} aria-invalid={invalid} {...register("name")} />}</Field>
       <Field label="E-mail" error={errors.email?.message}>{({ id, describedBy, invalid }) => <Input id={id} type="email" aria-describedby={describedBy} aria-invalid={invalid} {...register("email")} />}</Field>
-      <Field label="Grade" error={errors.grade?.message} hint="Client staff can only view engagements they are added to">
-        {({ id, describedBy }) => <Select id={id} aria-describedby={describedBy} {...register("grade")}>{GRADES.map((g) => <option key={g} value={g} className="capitalize">{g}</option>)}</Select>}
+      <Field label="Grade" error={errors.grade?.message} hint="Client contacts are invited from an engagement's request lists, not here">
+        {({ id, describedBy }) => <Select id={id} aria-describedby={describedBy} {...register("grade")}>{GRADES.filter((g) => g !== "client").map((g) => <option key={g} value={g}>{GRADE_LABELS[g]}</option>)}</Select>}
       </Field>
       <Field label="Firm role" error={errors.firmRole?.message}>
         {({ id }) => <Select id={id} {...register("firmRole")}><option value="member">Member</option><option value="admin">Administrator</option></Select>}
       </Field>
-      <div className="sm:col-span-2">
-        <Field label="First password" error={errors.password?.message} hint="At least 12 characters; give it to the person directly">
-          {({ id, describedBy, invalid }) => <Input id={id} type="text" autoComplete="off" aria-describedby={describedBy} aria-invalid={invalid} {...register("password")} />}
-        </Field>
-      </div>
-      <div className="sm:col-span-2"><Button type="submit" disabled={isSubmitting}>Create user</Button></div>
+      <p className="text-sm text-ink-soft sm:col-span-2">The person is e-mailed a link to choose their own password (valid once, for 14 days). You never see or type it.</p>
+      <div className="sm:col-span-2"><Button type="submit" disabled={isSubmitting}>{isSubmitting ? "Inviting…" : "Invite by e-mail"}</Button></div>
     </form>
   );
 }

@@ -8,6 +8,7 @@ import { Badge } from "@/components/ui/badge";
 import { Button } from "@/components/ui/button";
 import { Alert } from "@/components/ui/alert";
 import { api } from "@/components/ui/api";
+import { GRADE_LABELS } from "@/lib/auth/roles";
 
 export function UserAdmin({ initialUsers, myUserId }: { initialUsers: UserRecord[]; myUserId: number }) {
   const [users, setUsers] = useState(initialUsers);
@@ -25,12 +26,13 @@ export function UserAdmin({ initialUsers, myUserId }: { initialUsers: UserRecord
   }
 
   async function resetPassword(user: UserRecord) {
-    const password = window.prompt(`New password for ${user.name} (at least 12 characters):`);
-    if (!password) return;
+    if (!window.confirm(`Reset ${user.name}'s password? Their current password stops working at once, their open sessions end, and they are e-mailed a link to choose a new one.`)) return;
     setMessage(null);
     try {
-      await api(`/api/users/${user.id}/password`, { body: { password } });
-      setMessage({ tone: "success", text: `Password for ${user.name} was reset. Give it to them in person or by phone.` });
+      const { invitationSent } = await api<{ invitationSent: boolean }>(`/api/users/${user.id}/password`, { body: {} });
+      setMessage(invitationSent
+        ? { tone: "success", text: `${user.name}'s password no longer works and their sessions have ended. They were e-mailed a link to choose a new one (valid once, for 14 days).` }
+        : { tone: "error", text: `${user.name}'s password no longer works, but the e-mail with the link could not be sent. Try "Reset password" again once mail works.` });
     } catch (err) {
       setMessage({ tone: "error", text: (err as Error).message });
     }
@@ -39,7 +41,7 @@ export function UserAdmin({ initialUsers, myUserId }: { initialUsers: UserRecord
   const columns: ColumnDef<UserRecord, unknown>[] = [
     { accessorKey: "name", header: "Name", cell: ({ row }) => <span className="font-medium">{row.original.name}</span> },
     { accessorKey: "email", header: "E-mail" },
-    { accessorKey: "grade", header: "Grade", cell: ({ getValue }) => <span className="capitalize">{String(getValue())}</span> },
+    { accessorKey: "grade", header: "Grade", cell: ({ row }) => GRADE_LABELS[row.original.grade] },
     { accessorKey: "firmRole", header: "Firm role", cell: ({ getValue }) => (getValue() === "admin" ? <Badge tone="blue">Admin</Badge> : "Member") },
     { accessorKey: "active", header: "Status", cell: ({ getValue }) => (getValue() ? <Badge tone="green">Active</Badge> : <Badge tone="red">Deactivated</Badge>) },
     {

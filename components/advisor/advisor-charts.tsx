@@ -3,6 +3,7 @@ import { ADVISED_ESTIMATOR_LABELS } from "@/lib/sampling/advise";
 
 export const ESTIMATOR_COLOURS: Record<AdvisedEstimator, string> = {
   "mean-per-unit": "#55606e", difference: "#24663f", ratio: "#c98a12", regression: "#6b4f9e", stringer: "#b5432a",
+  "hartley-ross": "#2f6f8f", "jackknife-ratio": "#8a6d1f", "beale-ratio": "#a0522d", "tin-ratio": "#4d7a6a",
 };
 
 const compact = (v: number) => {
@@ -11,8 +12,12 @@ const compact = (v: number) => {
   return v < 0 ? `−${s}` : s;
 };
 
-/** Distribution of one estimator's estimates over the trials, with the true audited total marked. */
-export function EstimateHistogram({ estimator, bins, truth, from, to }: { estimator: AdvisedEstimator; bins: HistogramBin[]; truth: number; from: number; to: number }) {
+/**
+ * Distribution of one estimator's estimates over the trials, with the true audited total marked; with
+ * `mean` (the zoomed view, on the estimator's own range) its mean estimate is marked too, so bias
+ * (the gap between the two lines) and spread (the width) can be seen apart.
+ */
+export function EstimateHistogram({ estimator, bins, truth, from, to, mean }: { estimator: AdvisedEstimator; bins: HistogramBin[]; truth: number; from: number; to: number; mean?: number }) {
   const W = 260, H = 120, PAD = 18;
   const max = Math.max(1, ...bins.map((b) => b.count));
   const span = to - from || 1;
@@ -23,14 +28,20 @@ export function EstimateHistogram({ estimator, bins, truth, from, to }: { estima
       <figcaption className="mb-1 flex items-center gap-1.5 text-xs font-medium text-ink">
         <span aria-hidden className="inline-block h-2.5 w-2.5 rounded-sm" style={{ background: ESTIMATOR_COLOURS[estimator] }} />{label}
       </figcaption>
-      <svg viewBox={`0 0 ${W} ${H}`} className="w-full" role="img" aria-label={`${label}: histogram of estimated audited totals from ${compact(bins[0]?.from ?? 0)} to ${compact(bins.at(-1)?.to ?? 0)}; true value ${compact(truth)}`}>
+      <svg viewBox={`0 0 ${W} ${H}`} className="w-full" role="img" aria-label={`${mean === undefined ? "" : "Zoomed, own scale: "}${label}: histogram of estimated audited totals from ${compact(bins[0]?.from ?? 0)} to ${compact(bins.at(-1)?.to ?? 0)}; true value ${compact(truth)}${mean === undefined ? "" : `; mean estimate ${compact(mean)}`}`}>
         {bins.map((b, i) => {
           const h = (b.count / max) * (H - 34);
           return <rect key={i} x={x(b.from)} y={H - 18 - h} width={Math.max(1, x(b.to) - x(b.from) - 1)} height={h} fill={ESTIMATOR_COLOURS[estimator]} opacity={0.8} />;
         })}
         <line x1={PAD} x2={W - PAD} y1={H - 18} y2={H - 18} stroke="#d9d4c7" />
         <line x1={x(truth)} x2={x(truth)} y1={8} y2={H - 18} stroke="#1f2328" strokeWidth={1.5} strokeDasharray="3 2" />
-        <text x={x(truth)} y={7} textAnchor="middle" fontSize="9" className="fill-ink">true {compact(truth)}</text>
+        <text x={x(truth)} y={7} textAnchor={mean !== undefined && mean < truth ? "start" : mean !== undefined ? "end" : "middle"} fontSize="9" className="fill-ink">true {compact(truth)}</text>
+        {mean !== undefined && (
+          <g>
+            <line x1={x(mean)} x2={x(mean)} y1={16} y2={H - 18} stroke={ESTIMATOR_COLOURS[estimator]} strokeWidth={1.5} />
+            <text x={x(mean)} y={24} textAnchor={mean < truth ? "end" : "start"} fontSize="9" fill={ESTIMATOR_COLOURS[estimator]}>mean {compact(mean)}</text>
+          </g>
+        )}
         <text x={PAD} y={H - 5} fontSize="9" className="fill-ink-faint" fontFamily="IBM Plex Mono, monospace">{compact(from)}</text>
         <text x={W - PAD} y={H - 5} textAnchor="end" fontSize="9" className="fill-ink-faint" fontFamily="IBM Plex Mono, monospace">{compact(to)}</text>
       </svg>

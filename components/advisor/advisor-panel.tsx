@@ -104,9 +104,11 @@ export function AdvisorPanel({ engagementId, sampleId, initial, mayRun, currency
     }
   };
 
+  const [keepReason, setKeepReason] = useState("");
   const adopt = async (runId: number) => {
     try {
-      const next = await api<AdvisorState>(`${base}/${runId}/adopt`, { body: {} });
+      const next = await api<AdvisorState>(`${base}/${runId}/adopt`, { body: keepReason.trim() ? { reason: keepReason.trim() } : {} });
+      setKeepReason("");
       setState(next);
       setMessage({ tone: "success", text: "Kept with the plan as the rationale for the method; the workpaper prints it." });
     } catch (err) {
@@ -191,6 +193,12 @@ export function AdvisorPanel({ engagementId, sampleId, initial, mayRun, currency
               {canRun && state.adopted?.id !== shown.id && <Button type="button" variant="secondary" onClick={() => adopt(shown.id)}>Keep as the rationale for the method</Button>}
               {state.adopted?.id === shown.id && <Badge tone="green">Kept with the plan</Badge>}
             </div>
+            {canRun && state.adopted?.id !== shown.id && (
+              <Field label="Reason for keeping this run (required when it recommends another estimator or none)" hint="Printed beside the run in the workpaper">
+                {({ id, describedBy }) => <Input id={id} aria-describedby={describedBy} value={keepReason} maxLength={4000} onChange={(e) => setKeepReason(e.target.value)} />}
+              </Field>
+            )}
+            {state.adopted?.id === shown.id && state.adopted.keptReason && <p className="text-sm text-ink-soft">Kept with this reason: {state.adopted.keptReason}</p>}
             <AdvisorResults run={shown} currency={currency} />
           </div>
         )}

@@ -6,6 +6,7 @@ import { formatAmount } from "@/components/ui/amount";
 import { Badge } from "@/components/ui/badge";
 import { ESTIMATOR_COLOURS, EstimateHistogram, SizeChart, compactFigure } from "./advisor-charts";
 import { formatCount } from "@/lib/format/number";
+import { EstimateZoom } from "./estimate-zoom";
 
 const pct = (v: number) => `${(v * 100).toFixed(1)}%`;
 
@@ -27,8 +28,9 @@ export function AdvisorResults({ run, currency }: { run: AdvisorRunRecord; curre
         <p className="font-medium text-ink">{rec.recommended ? `Recommended: ${ADVISED_ESTIMATOR_LABELS[rec.recommended]}` : "No estimator meets the confidence"}</p>
         <p className="mt-1 text-sm text-ink-soft">{rec.summary}</p>
         <ul className="mt-2 space-y-1 text-sm text-ink">
-          {rec.verdicts.map((v) => <li key={v.estimator} className="flex gap-2"><span aria-hidden>{v.verdict === "recommended" ? "✓" : "·"}</span><span>{v.reason}</span></li>)}
+          {rec.verdicts.map((v) => <li key={v.estimator} className={`flex gap-2 ${v.verdict === "comparison" ? "text-ink-soft" : ""}`}><span aria-hidden>{v.verdict === "recommended" ? "✓" : "·"}</span><span>{v.reason}</span></li>)}
         </ul>
+        {rec.tradeOff && <p className="mt-2 text-sm text-ink" data-testid="trade-off">{rec.tradeOff}</p>}
       </section>
 
       <dl className="grid gap-x-6 gap-y-1 text-sm sm:grid-cols-2">
@@ -70,6 +72,7 @@ export function AdvisorResults({ run, currency }: { run: AdvisorRunRecord; curre
         <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-3">
           {atSize.map((c) => <EstimateHistogram key={c.estimator} estimator={c.estimator} bins={c.performance.histogram} truth={result.truth.auditedTotal} from={from} to={to} />)}
         </div>
+        <EstimateZoom cells={atSize} truth={result.truth.auditedTotal} />
       </div>
 
       {sizes.length > 1 && (

@@ -15,7 +15,7 @@ const columns: ColumnDef<EngagementForUser, unknown>[] = [
   {
     accessorKey: "clientName", header: "Client",
     cell: ({ row }) => (
-      <Link href={`/engagements/${row.original.id}`} className="font-medium text-ink hover:text-ledger-600 hover:underline">
+      <Link href={`/engagements/${row.original.id}`} className="font-medium text-ink hover:text-ledger-600 link">
         {row.original.clientName}
         <span className="block text-xs font-normal text-ink-faint">{row.original.name}</span>
       </Link>

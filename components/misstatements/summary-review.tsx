@@ -7,8 +7,9 @@ import { Badge } from "@/components/ui/badge";
 import { Button } from "@/components/ui/button";
 import { Card } from "@/components/ui/card";
 import { useSummaryAction } from "./use-summary-action";
+import { formatDateTime } from "@/lib/format/dates";
 
-const when = (iso: string) => `${iso.replace("T", " ").slice(0, 16)} UTC`;
+const when = formatDateTime;
 const NOTE_TONE = { open: "red", answered: "amber", cleared: "green" } as const;
 
 /** Sign-offs, review notes, lock and unlock of the summary. */

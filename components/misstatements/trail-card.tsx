@@ -1,5 +1,6 @@
 import type { SummaryView } from "@/lib/misstatements/types";
 import { Card } from "@/components/ui/card";
+import { formatDateTime } from "@/lib/format/dates";
 
 /** Who changed what on the summary, and when (every write is in the audit log). */
 export function TrailCard({ view }: { view: SummaryView }) {
@@ -17,7 +18,7 @@ export function TrailCard({ view }: { view: SummaryView }) {
           <tbody>
             {view.trail.slice().reverse().map((t, i) => (
               <tr key={i} className="border-b border-ink-line/60 align-top">
-                <td className="whitespace-nowrap py-1.5 pr-2 figures">{t.at.replace("T", " ").slice(0, 16)}</td><td className="py-1.5 pr-2">{t.who}</td>
+                <td className="whitespace-nowrap py-1.5 pr-2 figures">{formatDateTime(t.at)}</td><td className="py-1.5 pr-2">{t.who}</td>
                 <td className="py-1.5 pr-2">{t.action}</td><td className="py-1.5 pr-2">{t.subject}</td><td className="break-all py-1.5 font-mono">{t.after}</td>
               </tr>
             ))}

@@ -27,12 +27,27 @@ function buildColumns(extraColumns: string[], hasDescription: boolean, hasDate: 
   return cols;
 }
 
-interface Props { url: string; extraColumns: string[]; hasDescription: boolean; hasDate: boolean }
+/** Haphazard selection on the grid: a column of pick buttons, with the rows already in the sample marked. */
+export interface GridPick { status: (rowNumber: number) => "key-item" | "picked" | null; onPick: (item: PopulationItem) => void; disabled: boolean }
+
+function pickColumn(pick: GridPick): ColumnDef<PopulationItem> {
+  return {
+    id: "pick", header: "Pick", enableSorting: false,
+    cell: ({ row }) => {
+      const state = pick.status(row.original.rowNumber);
+      if (state === "key-item") return <span className="text-xs text-ink-faint">key item</span>;
+      if (state === "picked") return <span className="text-xs font-medium text-ledger-700">picked</span>;
+      return <Button type="button" variant="secondary" disabled={pick.disabled} onClick={() => pick.onPick(row.original)} aria-label={`Pick ${row.original.itemRef}`}>Pick</Button>;
+    },
+  };
+}
+
+interface Props { url: string; extraColumns: string[]; hasDescription: boolean; hasDate: boolean; pick?: GridPick }
 interface Page { items: PopulationItem[]; total: number; nextCursor?: string | null; prevCursor?: string | null }
 
 /** Every item, a page at a time from the server (paged by key), sorted and searched there. */
-export function ItemsGrid({ url, extraColumns, hasDescription, hasDate }: Props) {
-  const columns = useMemo(() => buildColumns(extraColumns, hasDescription, hasDate), [extraColumns, hasDescription, hasDate]);
+export function ItemsGrid({ url, extraColumns, hasDescription, hasDate, pick }: Props) {
+  const columns = useMemo(() => [...buildColumns(extraColumns, hasDescription, hasDate), ...(pick ? [pickColumn(pick)] : [])], [extraColumns, hasDescription, hasDate, pick]);
   const [sorting, setSorting] = useState<SortingState>([]);
   const paging = useKeysetPaging(25);
   const { reset: resetPaging, query: pagingQuery } = paging;

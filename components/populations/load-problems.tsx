@@ -17,7 +17,7 @@ export function LoadProblems({ problems, problemCount, downloadHref, fileName }:
         <p className="text-sm text-ink-soft">
           {problems.length < problemCount ? `Showing the first ${formatCount(problems.length)} of ${formatCount(problemCount)} problems.` : `All ${formatCount(problemCount)} shown.`}
         </p>
-        <a href={downloadHref} download className="text-sm font-medium text-ledger-600 hover:underline">Download all problems (CSV)</a>
+        <a href={downloadHref} download className="text-sm font-medium text-ledger-600 link">Download all problems (CSV)</a>
       </div>
       <div className="max-h-[28rem] overflow-auto rounded-card border border-ink-line bg-paper-raised">
         <table className="w-full text-sm" aria-label="Problems found">

@@ -1,5 +1,5 @@
 "use client";
-import { useEffect, useMemo } from "react";
+import { useEffect, useMemo, useState } from "react";
 import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import type { z } from "zod";
@@ -13,13 +13,15 @@ import { formatCount } from "./labels";
 
 type FormIn = z.input<typeof LoadPopulationSchema>;
 export type MappingValues = z.output<typeof LoadPopulationSchema>;
-export interface ReplaceablePopulation { id: number; name: string; rowCount: number }
+/** A population a corrected file may replace, with the samples planned on it (named in the warning). */
+export interface ReplaceablePopulation { id: number; name: string; rowCount: number; samples: string[] }
 
 interface Props { upload: UploadView; replaceable: ReplaceablePopulation[]; disabled: boolean; onSubmit: (values: MappingValues) => void }
 
 /** Column mapping, formats and name for an inspected upload; validated with the load route's own schema. */
 export function MappingForm({ upload, replaceable, disabled, onSubmit }: Props) {
   const { inspection } = upload;
+  const [understood, setUnderstood] = useState(false);
   const guess = useMemo(() => guessColumns(inspection.headers), [inspection.headers]);
   const { register, handleSubmit, watch, setValue, formState: { errors } } = useForm<FormIn, unknown, MappingValues>({
     resolver: zodResolver(LoadPopulationSchema),
@@ -136,14 +138,32 @@ export function MappingForm({ upload, replaceable, disabled, onSubmit }: Props) 
                 </Select>
               )}
             </Field>
+            <SupersedeWarning target={replaceable.find((p) => p.id === Number(watch("supersedesId")))} understood={understood} onUnderstood={setUnderstood} />
           </div>
         )}
       </div>
 
       <div className="flex items-center gap-4 border-t border-ink-line pt-4">
-        <Button type="submit" disabled={disabled}>Check and load</Button>
+        <Button type="submit" disabled={disabled || (Boolean(replaceable.find((p) => p.id === Number(watch("supersedesId")))?.samples.length) && !understood)}>Check and load</Button>
         <p className="text-sm text-ink-soft">Every row is checked first; if any row has a problem, nothing is stored.</p>
       </div>
     </form>
+  );
+}
+
+/** Before a population that samples use is replaced: which samples, what it means for them, and a tick to go on. */
+function SupersedeWarning({ target, understood, onUnderstood }: { target: ReplaceablePopulation | undefined; understood: boolean; onUnderstood: (v: boolean) => void }) {
+  if (!target || target.samples.length === 0) return null;
+  const n = target.samples.length;
+  return (
+    <div role="alert" className="mt-3 space-y-2 rounded-md border border-amber-100 bg-amber-50 px-3 py-2 text-sm text-amber-700" data-testid="supersede-warning">
+      <p className="font-medium">&ldquo;{target.name}&rdquo; is used by {n === 1 ? "1 sample" : `${formatCount(n)} samples`}:</p>
+      <ul className="list-disc pl-5">{target.samples.map((s) => <li key={s}>{s}</li>)}</ul>
+      <p>Replacing it does not change {n === 1 ? "that sample" : "those samples"}: {n === 1 ? "it keeps" : "they keep"} the items drawn from the old file and {n === 1 ? "its" : "their"} evaluation still projects onto the old book value. Each will show a banner saying its population was superseded, so its preparer can decide whether to draw again from the corrected population.</p>
+      <label className="flex items-center gap-2 font-medium">
+        <input type="checkbox" checked={understood} onChange={(e) => onUnderstood(e.target.checked)} className="h-4 w-4 accent-ledger-600" />
+        Replace it anyway
+      </label>
+    </div>
   );
 }

@@ -5,23 +5,23 @@ import { buttonClass } from "@/components/ui/button";
 import { CopyButton } from "./copy-button";
 import { formatBytes, POPULATION_STATUS_LABELS, populationStatusTone } from "./labels";
 import { formatCount } from "@/lib/format/number";
+import { formatDateTime } from "@/lib/format/dates";
 
 interface Props { population: PopulationRecord; engagement: { id: number; name: string; clientName: string }; replacedBy: { id: number; name: string } | null; replaces: { id: number; name: string } | null }
 
 /** Name, state and the source file's identity (name, size, SHA-256, the original for download). */
 export function PopulationHeader({ population: p, engagement, replacedBy, replaces }: Props) {
-  const loadedAt = new Date(p.createdAt).toISOString().slice(0, 16).replace("T", " ");
   return (
     <div className="mb-6 space-y-4 border-b border-ink-line pb-5">
       <div className="flex flex-wrap items-end justify-between gap-4">
         <div>
           <p className="text-xs font-semibold uppercase tracking-[0.14em] text-ledger-600">
-            <Link href={`/engagements/${engagement.id}`} className="hover:underline">{engagement.clientName} · {engagement.name}</Link>
+            <Link href={`/engagements/${engagement.id}`} className="link">{engagement.clientName} · {engagement.name}</Link>
           </p>
           <h1 className="mt-1 flex flex-wrap items-center gap-3 text-2xl font-semibold">
             {p.name} <Badge tone={populationStatusTone(p.status)}>{POPULATION_STATUS_LABELS[p.status]}</Badge>
           </h1>
-          <p className="mt-1 text-sm text-ink-soft">Loaded by {p.createdByName} on <span className="figures">{loadedAt}</span> UTC</p>
+          <p className="mt-1 text-sm text-ink-soft">Loaded by {p.createdByName} on {formatDateTime(p.createdAt)}</p>
         </div>
         <a href={`/api/engagements/${engagement.id}/populations/${p.id}/original`} className={buttonClass("secondary")} download>Download the original file</a>
       </div>
@@ -30,8 +30,8 @@ export function PopulationHeader({ population: p, engagement, replacedBy, replac
         <dd className="font-medium">{p.sourceFileName} <span className="font-normal text-ink-soft">· {formatBytes(p.sourceSizeBytes)} ({formatCount(p.sourceSizeBytes)} bytes)</span></dd>
         <dt className="text-ink-soft">SHA-256</dt>
         <dd className="flex min-w-0 items-center gap-2"><code className="figures break-all text-xs text-ink" data-testid="source-sha256">{p.sourceSha256}</code><CopyButton text={p.sourceSha256} label="Copy the SHA-256" /></dd>
-        {replaces && (<><dt className="text-ink-soft">Replaces</dt><dd><Link className="text-ledger-600 hover:underline" href={`/engagements/${engagement.id}/populations/${replaces.id}`}>{replaces.name}</Link></dd></>)}
-        {replacedBy && (<><dt className="text-ink-soft">Superseded by</dt><dd><Link className="text-ledger-600 hover:underline" href={`/engagements/${engagement.id}/populations/${replacedBy.id}`}>{replacedBy.name}</Link></dd></>)}
+        {replaces && (<><dt className="text-ink-soft">Replaces</dt><dd><Link className="text-ledger-600 link" href={`/engagements/${engagement.id}/populations/${replaces.id}`}>{replaces.name}</Link></dd></>)}
+        {replacedBy && (<><dt className="text-ink-soft">Superseded by</dt><dd><Link className="text-ledger-600 link" href={`/engagements/${engagement.id}/populations/${replacedBy.id}`}>{replacedBy.name}</Link></dd></>)}
       </dl>
     </div>
   );

@@ -28,7 +28,7 @@ export function PopulationList({ engagementId, populations, currency, mayLoad }:
         {populations.map((p) => (
           <tr key={p.id} className={`border-t border-ink-line/70 ${p.status === "superseded" ? "text-ink-faint" : ""}`}>
             <td className="py-2.5 pr-4">
-              <Link href={`/engagements/${engagementId}/populations/${p.id}`} className="font-medium text-ink hover:text-ledger-600 hover:underline">{p.name}</Link>
+              <Link href={`/engagements/${engagementId}/populations/${p.id}`} className="font-medium text-ink hover:text-ledger-600 link">{p.name}</Link>
               <span className="block text-xs text-ink-faint">{p.sourceFileName}</span>
             </td>
             <td className="figures py-2.5 pr-4 text-right">{formatCount(p.rowCount)}</td>

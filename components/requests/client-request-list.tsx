@@ -90,7 +90,7 @@ function ClientItem({ item, base, open, showBookValue, currency, onChanged }: { 
         <ul className="mt-3 divide-y divide-ink-line rounded-md border border-ink-line text-sm" aria-label={`Files sent for ${item.itemRef}`}>
           {item.files.map((f) => (
             <li key={f.id} className="flex flex-wrap items-center justify-between gap-2 px-3 py-2">
-              <a href={`${base}/files/${f.id}`} className="text-ledger-700 hover:underline">{f.fileName}</a>
+              <a href={`${base}/files/${f.id}`} className="text-ledger-700 link">{f.fileName}</a>
               <span className="text-xs text-ink-faint">{formatBytes(f.sizeBytes)} · {FILE_STATUS_LABELS[f.status]}{f.status === "returned" && f.returnReason ? ` — ${f.returnReason}` : ""}</span>
             </li>
           ))}

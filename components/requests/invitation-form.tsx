@@ -13,7 +13,7 @@ import { Field, Input } from "@/components/ui/field";
 const FormSchema = AcceptInvitationSchema.extend({ confirm: z.string() }).refine((v) => v.password === v.confirm, { message: "The two passwords differ", path: ["confirm"] });
 type FormValues = z.infer<typeof FormSchema>;
 
-export function InvitationForm({ token }: { token: string }) {
+export function InvitationForm({ token, client }: { token: string; client: boolean }) {
   const router = useRouter();
   const [failure, setFailure] = useState<string | null>(null);
   const { register, handleSubmit, formState: { errors, isSubmitting } } = useForm<FormValues>({ resolver: zodResolver(FormSchema) });
@@ -21,7 +21,7 @@ export function InvitationForm({ token }: { token: string }) {
     setFailure(null);
     try {
       await api(`/api/invitations/${encodeURIComponent(token)}`, { body: { password } });
-      router.push("/sign-in?callbackUrl=%2Frequests&welcome=1");
+      router.push(client ? "/sign-in?callbackUrl=%2Frequests&welcome=1" : "/sign-in?welcome=1");
     } catch (err) {
       setFailure((err as Error).message);
     }

@@ -14,7 +14,7 @@ export function RequestListsCard({ base, lists, mayCreate }: { base: string; lis
           {lists.map((l) => (
             <li key={l.id} className="flex flex-wrap items-center justify-between gap-2 py-2">
               <span>
-                <Link href={`${base}/requests/${l.id}`} className="font-medium text-ledger-700 hover:underline">{l.title}</Link>
+                <Link href={`${base}/requests/${l.id}`} className="font-medium text-ledger-700 link">{l.title}</Link>
                 <span className="block text-xs text-ink-faint">to {l.contactName} · due {formatDay(l.dueDate)}</span>
               </span>
               <span className="figures flex items-center gap-2 text-xs text-ink-soft">

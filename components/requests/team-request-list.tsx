@@ -71,7 +71,7 @@ function FileRow({ file, href, mayDecide, onDecide }: { file: RequestFileView; h
   return (
     <div className="rounded-md border border-ink-line px-2.5 py-1.5">
       <div className="flex flex-wrap items-center justify-between gap-2">
-        <a href={href} className="text-ledger-700 hover:underline">{file.fileName}</a>
+        <a href={href} className="text-ledger-700 link">{file.fileName}</a>
         <span className="text-xs text-ink-faint">{formatBytes(file.sizeBytes)} · {FILE_STATUS_LABELS[file.status]}{file.decidedByName ? ` by ${file.decidedByName}` : ""}</span>
       </div>
       {file.status === "returned" && file.returnReason && <p className="text-xs text-amber-700">Sent back: {file.returnReason}</p>}

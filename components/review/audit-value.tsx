@@ -1,13 +1,15 @@
-import { textOf } from "@/lib/format/text";
+import type { ReadableChange } from "@/lib/review/describe-change";
 
-/** A before/after value from the audit trail, shown as compact key: value lines. */
-export function AuditValue({ value }: { value: unknown }) {
-  if (value === null || value === undefined) return <span className="text-ink-faint">—</span>;
-  if (typeof value !== "object") return <span>{textOf(value)}</span>;
+/** The fields a change touched, by their labels, each with its value before → after as the screen shows them. */
+export function ChangeList({ changes }: { changes: ReadableChange["changes"] }) {
+  if (changes.length === 0) return <span className="text-ink-soft">—</span>;
   return (
     <dl className="space-y-0.5 text-xs">
-      {Object.entries(value as Record<string, unknown>).map(([k, v]) => (
-        <div key={k} className="flex gap-1"><dt className="text-ink-faint">{k}:</dt><dd className="break-all">{typeof v === "object" && v !== null ? JSON.stringify(v) : textOf(v)}</dd></div>
+      {changes.map((c) => (
+        <div key={c.field} className="flex flex-wrap gap-x-1.5">
+          <dt className="font-medium text-ink-soft">{c.field}:</dt>
+          <dd className="min-w-0 [overflow-wrap:anywhere]">{c.before === "—" && c.after !== "—" ? c.after : <>{c.before} <span aria-hidden>→</span><span className="sr-only">changed to</span> {c.after}</>}</dd>
+        </div>
       ))}
     </dl>
   );

@@ -8,11 +8,12 @@ import { api, ApiError } from "@/components/ui/api";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { formatAmount } from "@/components/ui/amount";
+import { formatDateTime } from "@/lib/format/dates";
 
 interface Props { base: string; computed: ComputedResult; complete: boolean; conclusion: AuditorConclusionRecord | null; mayWrite: boolean }
 
 const WITH_AMOUNT: ResponseKind[] = ["ask-client-to-adjust", "conclude-misstated"];
-const when = (iso: string) => new Date(iso).toISOString().replace("T", " ").slice(0, 16) + " UTC";
+const when = formatDateTime;
 
 /** The auditor's conclusion and response, written by the preparer apart from the result Sondage computes. */
 export function ConclusionForm({ base, computed, complete, conclusion, mayWrite }: Props) {

@@ -2,64 +2,102 @@
 import { useState } from "react";
 import { hasAtLeastRole, type EngagementRole } from "@/lib/auth/roles";
 import type { ReviewNote } from "@/lib/review/notes";
-import { api } from "@/components/ui/api";
+import { AnswerNoteSchema, RaiseNoteSchema } from "@/lib/validation/review";
+import { formatDateTime } from "@/lib/format/dates";
+import { api, ApiError } from "@/components/ui/api";
 import { Alert } from "@/components/ui/alert";
 import { Badge } from "@/components/ui/badge";
 import { Button } from "@/components/ui/button";
+import { NOTE_STATUS_LABELS, NOTE_STATUS_TONES } from "./note-labels";
 
-interface Props { engagementId: number; sampleId: number; role: EngagementRole; notes: ReviewNote[]; locked: boolean; onChanged: () => void }
+export interface NoteItem { id: number; itemRef: string }
 
-const tone = { open: "red", answered: "amber", cleared: "green" } as const;
-const label = { open: "Open", answered: "Answered", cleared: "Cleared" } as const;
+interface Props { engagementId: number; sampleId: number; role: EngagementRole; notes: ReviewNote[]; locked: boolean; items: NoteItem[]; onChanged: () => void }
 
-export function ReviewNotes({ engagementId, sampleId, role, notes, locked, onChanged }: Props) {
+const area = "w-full rounded-md border border-ink-line bg-paper-raised px-2 py-1 text-sm";
+
+/** The plain words of a refusal: a field's own message rather than "Invalid input — answer: …". */
+const plain = (err: unknown) => (err instanceof ApiError && err.fields ? Object.values(err.fields)[0]?.[0] ?? err.message : (err as Error).message);
+
+export function ReviewNotes({ engagementId, sampleId, role, notes, locked, items, onChanged }: Props) {
   const [text, setText] = useState("");
+  const [itemRef, setItemRef] = useState("");
   const [answers, setAnswers] = useState<Record<number, string>>({});
   const [error, setError] = useState<string | null>(null);
   const base = `/api/engagements/${engagementId}/samples/${sampleId}/notes`;
   const isReviewer = hasAtLeastRole(role, "manager");
   const canAnswer = hasAtLeastRole(role, "staff");
 
-  async function run(call: () => Promise<unknown>) {
+  async function run(call: () => Promise<unknown>): Promise<boolean> {
     setError(null);
     try {
       await call();
       onChanged();
+      return true;
     } catch (err) {
-      setError((err as Error).message);
+      setError(plain(err));
+      return false;
     }
+  }
+
+  async function sendAnswer(n: ReviewNote, i: number) {
+    const checked = AnswerNoteSchema.safeParse({ answer: answers[n.id] ?? "" });
+    if (!checked.success) return setError(`Note ${i + 1}: ${checked.error.issues[0].message}`);
+    if (await run(() => api(`${base}/${n.id}/answer`, { body: checked.data }))) setAnswers((a) => ({ ...a, [n.id]: "" }));
+  }
+
+  async function raise() {
+    const item = itemRef.trim() ? items.find((i) => i.itemRef.toLowerCase() === itemRef.trim().toLowerCase()) : undefined;
+    if (itemRef.trim() && !item) return setError(`No item ${itemRef.trim()} in this sample's current draw.`);
+    const checked = RaiseNoteSchema.safeParse({ text, itemId: item?.id });
+    if (!checked.success) return setError(checked.error.issues[0].message);
+    if (await run(() => api(base, { body: checked.data }))) { setText(""); setItemRef(""); }
   }
 
   return (
     <section aria-label="Review notes" className="space-y-3 border-t border-ink-line pt-4">
       <h3 className="text-sm font-semibold">Review notes</h3>
       {error && <Alert>{error}</Alert>}
-      {notes.length === 0 && <p className="text-sm text-ink-faint">No review notes.</p>}
+      {notes.length === 0 && <p className="text-sm text-ink-soft">No review notes.</p>}
       <ol className="space-y-3">
         {notes.map((n, i) => (
           <li key={n.id} className="rounded-md border border-ink-line bg-paper px-3 py-2 text-sm" data-testid={`review-note-${i + 1}`}>
             <div className="flex items-center justify-between gap-2">
-              <span className="font-medium">Note {i + 1}{n.itemRef ? ` · ${n.itemRef}` : ""}</span>
-              <Badge tone={tone[n.status]}>{label[n.status]}</Badge>
+              <span className="font-medium">Note {i + 1}{n.itemRef ? ` · item ${n.itemRef}` : ""}</span>
+              <Badge tone={NOTE_STATUS_TONES[n.status]}>{NOTE_STATUS_LABELS[n.status]}</Badge>
             </div>
             <p className="mt-1 whitespace-pre-wrap">{n.text}</p>
-            <p className="text-xs text-ink-faint">Raised by {n.raisedBy}</p>
-            {n.answer && <p className="mt-2 whitespace-pre-wrap border-l-2 border-ledger-500 pl-2">{n.answer} <span className="text-xs text-ink-faint">— {n.answeredBy}</span></p>}
-            {n.clearedBy && <p className="mt-1 text-xs text-ledger-700">Cleared by {n.clearedBy}</p>}
+            <p className="text-xs text-ink-soft">Raised by {n.raisedBy} · {formatDateTime(n.raisedAt)}</p>
+            {n.answer && (
+              <div className="mt-2 border-l-2 border-ledger-500 pl-2">
+                <p className="whitespace-pre-wrap">{n.answer}</p>
+                <p className="text-xs text-ink-soft">Answered by {n.answeredBy}{n.answeredAt ? ` · ${formatDateTime(n.answeredAt)}` : ""}</p>
+              </div>
+            )}
+            {n.clearedBy && <p className="mt-1 text-xs text-ledger-700">Cleared by {n.clearedBy}{n.clearedAt ? ` · ${formatDateTime(n.clearedAt)}` : ""}</p>}
             {!locked && n.status !== "cleared" && canAnswer && (
-              <div className="mt-2 flex gap-2">
-                <input aria-label={`Answer to note ${i + 1}`} value={answers[n.id] ?? ""} onChange={(e) => setAnswers({ ...answers, [n.id]: e.target.value })} placeholder="Answer the note…" className="flex-1 rounded-md border border-ink-line bg-paper-raised px-2 py-1 text-sm" />
-                <Button variant="secondary" onClick={() => run(() => api(`${base}/${n.id}/answer`, { body: { answer: answers[n.id] ?? "" } }))}>Answer</Button>
-                {isReviewer && n.status === "answered" && <Button variant="secondary" onClick={() => run(() => api(`${base}/${n.id}/clear`, { body: {} }))}>Clear</Button>}
+              <div className="mt-2 space-y-2">
+                <textarea aria-label={`Answer to note ${i + 1}`} value={answers[n.id] ?? ""} rows={2} onChange={(e) => setAnswers({ ...answers, [n.id]: e.target.value })}
+                  placeholder={n.answer ? "Add to the answer…" : "Answer the note…"} className={area} />
+                <div className="flex gap-2">
+                  <Button variant="secondary" className="px-2.5 py-1 text-xs" onClick={() => void sendAnswer(n, i)}>Send answer</Button>
+                  {isReviewer && n.status === "answered" && <Button variant="secondary" className="px-2.5 py-1 text-xs" onClick={() => void run(() => api(`${base}/${n.id}/clear`, { body: {} }))}>Clear</Button>}
+                </div>
               </div>
             )}
           </li>
         ))}
       </ol>
       {!locked && isReviewer && (
-        <form className="flex gap-2" onSubmit={(e) => { e.preventDefault(); void run(async () => { await api(base, { body: { text } }); setText(""); }); }}>
-          <textarea aria-label="New review note" value={text} onChange={(e) => setText(e.target.value)} rows={2} placeholder="Raise a review note for the preparer…" className="flex-1 rounded-md border border-ink-line bg-paper-raised px-2 py-1 text-sm" />
-          <Button type="submit" disabled={text.trim().length < 3}>Raise note</Button>
+        <form className="space-y-2" aria-label="Raise a review note" onSubmit={(e) => { e.preventDefault(); void raise(); }}>
+          <textarea aria-label="New review note" value={text} onChange={(e) => setText(e.target.value)} rows={3} placeholder="Raise a review note for the preparer…" className={area} />
+          <div className="flex flex-wrap items-center gap-2">
+            <label className="inline-flex items-center gap-2 text-sm text-ink-soft">About item (optional)
+              <input list={`note-items-${sampleId}`} value={itemRef} onChange={(e) => setItemRef(e.target.value)} placeholder="reference" className="w-36 rounded-md border border-ink-line bg-paper-raised px-2 py-1 text-sm" />
+            </label>
+            <datalist id={`note-items-${sampleId}`}>{items.map((i) => <option key={i.id} value={i.itemRef} />)}</datalist>
+            <Button type="submit" className="ml-auto">Raise note</Button>
+          </div>
         </form>
       )}
     </section>

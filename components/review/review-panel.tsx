@@ -1,5 +1,5 @@
 "use client";
-import { useState } from "react";
+import { useId, useState } from "react";
 import { useRouter } from "next/navigation";
 import { hasAtLeastRole, type EngagementRole } from "@/lib/auth/roles";
 import type { ReviewState } from "@/lib/review/review-state";
@@ -9,16 +9,19 @@ import { Alert } from "@/components/ui/alert";
 import { Badge } from "@/components/ui/badge";
 import { Button, buttonClass } from "@/components/ui/button";
 import { Card } from "@/components/ui/card";
-import { ReviewNotes } from "./review-notes";
+import { ReviewNotes, type NoteItem } from "./review-notes";
 import { ConclusionForm } from "./conclusion-form";
 import type { ComputedResult } from "@/lib/samples/evaluation-types";
+import { LockDialog, type OpenList } from "./lock-dialog";
+import { formatDateTime } from "@/lib/format/dates";
 
-interface Props { engagementId: number; sampleId: number; role: EngagementRole; review: ReviewState; notes: ReviewNote[]; drawn: boolean; computed: ComputedResult; complete: boolean }
+interface Props { engagementId: number; sampleId: number; role: EngagementRole; review: ReviewState; notes: ReviewNote[]; drawn: boolean; computed: ComputedResult; complete: boolean; openLists: OpenList[]; items: NoteItem[] }
 
-const when = (iso: string) => new Date(iso).toISOString().replace("T", " ").slice(0, 16) + " UTC";
+const when = formatDateTime;
 
 /** Sign-offs, lock and the workpaper: the panel where a sample becomes final. */
-export function ReviewPanel({ engagementId, sampleId, role, review, notes, drawn, computed, complete }: Props) {
+export function ReviewPanel({ engagementId, sampleId, role, review, notes, drawn, computed, complete, openLists, items }: Props) {
+  const [confirming, setConfirming] = useState(false);
   const router = useRouter();
   const [message, setMessage] = useState<{ tone: "error" | "success"; text: string } | null>(null);
   const [busy, setBusy] = useState(false);
@@ -66,18 +69,35 @@ export function ReviewPanel({ engagementId, sampleId, role, review, notes, drawn
             </div>
           )}
         </div>
-        {drawn && <ConclusionForm key={review.conclusion?.writtenAt ?? "none"} base={base} computed={computed} complete={complete} conclusion={review.conclusion} mayWrite={isPreparer && !review.lock} />}
+        {drawn && <ConclusionForm base={base} computed={computed} complete={complete} conclusion={review.conclusion} mayWrite={isPreparer && !review.lock} />}
         <div className="flex flex-wrap gap-2">
-          {!review.lock && isPreparer && <Button disabled={busy || !drawn} onClick={() => act("sign-off", { as: "preparer" }, "Signed off as preparer; the reviewers have been told.")}>Sign off as preparer</Button>}
-          {!review.lock && isReviewer && <Button disabled={busy || !review.preparer} onClick={() => act("sign-off", { as: "reviewer" }, "Signed off as reviewer.")}>Sign off as reviewer</Button>}
-          {!review.lock && isReviewer && <Button variant="secondary" disabled={busy || !review.reviewer} onClick={() => act("lock", {}, "Locked. The final workpaper was rendered once and stored with its SHA-256.")}>Lock sample</Button>}
+          {!review.lock && isPreparer && (review.preparer
+            ? <Action disabled why="You have signed off as preparer. A change to the work clears it; then sign again.">Signed off as preparer</Action>
+            : <Action disabled={busy || !drawn} why={!drawn ? "Draw the sample and record its results first." : undefined} onClick={() => act("sign-off", { as: "preparer" }, "Signed off as preparer; the reviewers have been told.")}>Sign off as preparer</Action>)}
+          {!review.lock && isReviewer && (review.reviewer
+            ? <Action disabled why="Signed off as reviewer. A change to the work clears it.">Signed off as reviewer</Action>
+            : <Action disabled={busy || !review.preparer} why={!review.preparer ? "The preparer signs off first." : undefined} onClick={() => act("sign-off", { as: "reviewer" }, "Signed off as reviewer.")}>Sign off as reviewer</Action>)}
+          {!review.lock && isReviewer && <Action variant="secondary" disabled={busy || !review.reviewer} why={!review.reviewer ? "A reviewer signs off before the sample is locked." : undefined} onClick={() => setConfirming(true)}>Lock sample…</Action>}
           {review.lock && role === "partner" && <Button variant="danger" disabled={busy} onClick={unlock}>Unlock…</Button>}
           {drawn && <a className={buttonClass("secondary")} href={`${base}/workpaper`}>{review.lock ? "Download signed-off workpaper (PDF)" : "Download draft workpaper (PDF)"}</a>}
           <a className={buttonClass("ghost")} href={`/engagements/${engagementId}/samples/${sampleId}/trail`}>Audit trail</a>
         </div>
+        <LockDialog open={confirming} openLists={openLists} busy={busy} onCancel={() => setConfirming(false)}
+          onConfirm={() => { void act("lock", {}, `Locked. The final workpaper was rendered once and stored with its SHA-256${openLists.length ? `; ${openLists.length === 1 ? "the open request list was" : `${openLists.length} open request lists were`} closed and the client told` : ""}.`).then(() => setConfirming(false)); }} />
         <p className="text-xs text-ink-faint">Any change to the plan, selection, results or evidence clears the sign-offs and the auditor&apos;s conclusion. The preparer signs off after recording the conclusion (and the response, where the computed result calls for one); the reviewer&apos;s sign-off covers them. A reviewer cannot sign off while a note is open.</p>
-        <ReviewNotes engagementId={engagementId} sampleId={sampleId} role={role} notes={notes} locked={Boolean(review.lock)} onChanged={() => router.refresh()} />
+        <ReviewNotes engagementId={engagementId} sampleId={sampleId} role={role} notes={notes} items={items} locked={Boolean(review.lock)} onChanged={() => router.refresh()} />
       </div>
     </Card>
+  );
+}
+
+/** A button that, when it cannot be used, looks disabled and says why beside it. */
+function Action({ why, children, ...props }: React.ComponentProps<typeof Button> & { why?: string }) {
+  const id = useId();
+  return (
+    <span className="inline-flex flex-col gap-1">
+      <Button {...props} aria-describedby={why ? id : undefined}>{children}</Button>
+      {why && <span id={id} className="max-w-48 text-xs text-ink-soft">{why}</span>}
+    </span>
   );
 }

@@ -7,6 +7,7 @@ import { BoundChart } from "./bound-chart";
 import { StringerTables } from "./stringer-table";
 import { VariablesResult } from "./variables-result";
 import { AttributeResult } from "./attribute-result";
+import { NonstatisticalResult } from "./nonstatistical-result";
 import { formatPercent } from "./labels";
 
 const shortAmount = (n: number) => (Math.abs(n) >= 1e6 ? `${(n / 1e6).toFixed(2)}m` : Math.abs(n) >= 1e4 ? `${(n / 1e3).toFixed(1)}k` : formatAmount(n));
@@ -16,10 +17,13 @@ const TONE = { supported: "success", "not-supported": "error", provisional: "inf
 function Chart({ e, direction }: { e: SampleEvaluation; direction: SampleRecord["direction"] }) {
   const b = e.block!;
   if (b.method === "attributes") {
+    if (b.controlFrequency) return null; // no tolerable rate to draw against: the test expects no deviation
     return <BoundChart title="Deviation rate" rows={[{ label: "Deviation rate", projected: b.sampleRate, upper: b.upperDeviationLimit }]} tolerable={b.tolerableRate} tolerableLabel="Tolerable rate" format={(n) => formatPercent(n, 1)} cap={1} legend={{ projected: "sample deviation rate", upper: "to the upper deviation limit" }} />;
   }
   const tm = Number(e.tolerableMisstatement);
   const tested = (direction === "both" ? (["overstatement", "understatement"] as const) : [direction]);
+  // A nonstatistical evaluation claims no bound: its table compares the total with TM, no bar chart of limits.
+  if (b.method === "nonstatistical") return null;
   const rows = b.method === "mus"
     ? tested.map((d) => ({ label: d === "overstatement" ? "Overstatement" : "Understatement", projected: Math.max(0, Number(b[d].projected)), upper: Number(b.compared[d] ?? b[d].upperLimit) }))
     : tested.map((d) => {
@@ -37,7 +41,7 @@ export function EvaluationPanel({ evaluation: e, direction, loading }: { evaluat
     <div className={`space-y-5 transition-opacity ${loading ? "opacity-60" : ""}`} aria-busy={loading} data-testid="evaluation-panel">
       <div className="flex flex-wrap items-center gap-2 text-sm">
         {e.complete ? <Badge tone="green">all items have a result</Badge> : <Badge tone="amber">provisional</Badge>}
-        <span className="text-ink-soft">Confidence {formatPercent(e.confidence)}{e.tolerableMisstatement !== null && <> · tolerable misstatement <span className="figures">{formatAmount(e.tolerableMisstatement)}</span></>}</span>
+        <span className="text-ink-soft">{b?.method === "nonstatistical" ? "Nonstatistical: no confidence level is claimed" : `Confidence ${formatPercent(e.confidence)}`}{e.tolerableMisstatement !== null && <> · tolerable misstatement <span className="figures">{formatAmount(e.tolerableMisstatement)}</span></>}</span>
       </div>
       <div aria-live="polite" data-testid="conclusion">
         <Alert tone={TONE[e.computed.status]}>
@@ -51,6 +55,7 @@ export function EvaluationPanel({ evaluation: e, direction, loading }: { evaluat
           {b.method === "mus" && <StringerTables mus={b} />}
           {(b.method === "variables" || b.method === "stratified") && <VariablesResult v={b} />}
           {b.method === "attributes" && <AttributeResult a={b} />}
+          {b.method === "nonstatistical" && <NonstatisticalResult n={b} />}
         </>
       )}
       {e.computed.rule !== "" && b?.method === "mus" && <p className="text-xs text-ink-soft" data-testid="computed-rule">Rule: {e.computed.rule}</p>}

@@ -2,6 +2,7 @@ import type { SampleRecord } from "@/lib/data/samples";
 import type { SampleItemRecord } from "@/lib/data/sample-items";
 import { METHOD_LABELS, type SampleMethod } from "@/lib/validation/sample";
 import { textOf } from "@/lib/format/text";
+import { ITEM_STATUS_LABELS as SHARED_ITEM_STATUS_LABELS } from "@/lib/fieldwork/field-labels";
 
 export { formatCount, formatFactor, formatNumber, formatPercent } from "@/lib/format/number";
 
@@ -9,7 +10,7 @@ export { METHOD_LABELS };
 
 /** Short names for lists, where the full method label is too long. */
 export const METHOD_SHORT: Record<SampleMethod, string> = {
-  mus: "Monetary-unit (PPS)", random: "Simple random", systematic: "Systematic", stratified: "Stratified random", attribute: "Attribute",
+  mus: "Monetary-unit (PPS)", random: "Simple random", systematic: "Systematic", stratified: "Stratified random", attribute: "Attribute", nonstatistical: "Nonstatistical",
 };
 
 export const ESTIMATOR_LABELS: Record<string, string> = {
@@ -23,9 +24,7 @@ export const DIRECTION_LABELS: Record<SampleRecord["direction"], string> = {
 
 export const SAMPLE_STATUS_LABELS: Record<SampleRecord["status"], string> = { planned: "Planned, not drawn", drawn: "Drawn" };
 
-export const ITEM_STATUS_LABELS: Record<SampleItemRecord["status"], string> = {
-  "not-started": "Not started", done: "Done", "not-auditable": "Could not be audited", void: "Void (replaced)",
-};
+export const ITEM_STATUS_LABELS: Record<SampleItemRecord["status"], string> = SHARED_ITEM_STATUS_LABELS;
 
 /** Methods whose items may be replaced one by one, and those that may be extended (lib/samples/extend.ts). */
 export const REPLACEABLE: SampleMethod[] = ["random", "attribute", "stratified"];

@@ -13,10 +13,14 @@ import { Card } from "@/components/ui/card";
 import { api, ApiError } from "@/components/ui/api";
 import { DIRECTION_LABELS, METHOD_LABELS } from "./labels";
 import { PlanParameters } from "./plan-parameters";
+import type { EarlierSample } from "./plan-spread-fields";
 import { PopulationPicker } from "./population-picker";
 import { SizePanel } from "./size-panel";
 import { SizeChoice } from "./size-choice";
 import { usePlanPreview } from "./use-plan-preview";
+import { RiskSizingFields } from "./risk-sizing-fields";
+import { KeyItemsEditor } from "./key-items-editor";
+import { KEY_ITEM_METHODS } from "@/lib/validation/sample";
 import { defaultPlanValues, formFieldOf, suggestedBounds, toRequest, type PlanFormIn, type PlanFormOut, type PopulationChoice } from "./plan-values";
 
 const textarea = "w-full rounded-md border border-ink-line bg-paper-raised px-3 py-2 text-sm focus:border-ledger-500 focus:outline-none focus:ring-2 focus:ring-ledger-100 aria-[invalid=true]:border-brick-500";
@@ -29,10 +33,12 @@ interface Props {
   /** When editing a plan not yet drawn. */
   editing?: { sampleId: number; values: PlanFormIn };
   initialPopulationId?: number;
+  /** Drawn samples of this engagement with audited values, for a planning spread from their results. */
+  earlierSamples?: EarlierSample[];
 }
 
 /** Plans a sample: what is tested, the method and its parameters, with the size computed live by the server. */
-export function PlanForm({ engagementId, currency, performanceMateriality, populations, editing, initialPopulationId }: Props) {
+export function PlanForm({ engagementId, currency, performanceMateriality, populations, editing, initialPopulationId, earlierSamples }: Props) {
   const router = useRouter();
   const [failure, setFailure] = useState<string | null>(null);
   const form = useForm<PlanFormIn, unknown, PlanFormOut>({ resolver, defaultValues: editing?.values ?? defaultPlanValues(performanceMateriality, initialPopulationId) });
@@ -103,14 +109,22 @@ export function PlanForm({ engagementId, currency, performanceMateriality, popul
               </Select>
             )}
           </Field>
-          <PlanParameters form={form} plan={preview.plan} currency={currency} performanceMateriality={performanceMateriality} />
+          <PlanParameters form={form} plan={preview.plan} currency={currency} performanceMateriality={performanceMateriality} earlierSamples={earlierSamples} />
         </Card>
+        <Card title="Risk assessment">
+          <RiskSizingFields form={form} plan={preview.plan} />
+        </Card>
+        {KEY_ITEM_METHODS.includes(method) && (
+          <Card title="Key items (examined 100 %)">
+            <KeyItemsEditor form={form} plan={preview.plan} currency={currency} />
+          </Card>
+        )}
         <Card title="Size to draw">
           <SizeChoice form={form} plan={preview.plan} />
         </Card>
         <div className="flex items-center gap-3">
           <Button type="submit" disabled={isSubmitting}>{isSubmitting ? "Saving…" : editing ? "Save the changed plan" : "Save the plan"}</Button>
-          <Link href={editing ? `/engagements/${engagementId}/samples/${editing.sampleId}` : `/engagements/${engagementId}`} className="text-sm text-ink-soft hover:underline">Cancel</Link>
+          <Link href={editing ? `/engagements/${engagementId}/samples/${editing.sampleId}` : `/engagements/${engagementId}`} className="text-sm text-ink-soft link">Cancel</Link>
         </div>
       </div>
       <div className="lg:sticky lg:top-6 lg:col-span-2">

@@ -9,19 +9,25 @@ import { PercentInput } from "./percent-input";
 import { StrataBoundsEditor } from "./strata-bounds-editor";
 import type { PlanFormIn, PlanFormOut } from "./plan-values";
 import { formatMoney } from "@/lib/format/number";
+import { PlanSpreadFields, type EarlierSample } from "./plan-spread-fields";
+import { PlanAttributeMode } from "./plan-attribute-mode";
 
-interface Props { form: UseFormReturn<PlanFormIn, unknown, PlanFormOut>; plan: SamplePlan | null; currency: string; performanceMateriality: string }
+interface Props { form: UseFormReturn<PlanFormIn, unknown, PlanFormOut>; plan: SamplePlan | null; currency: string; performanceMateriality: string; earlierSamples?: EarlierSample[] }
+
+const SIZE_METHOD_TEXT = { "confidence-factor": "confidence factors (current Guide)", "expansion-factor": "expansion factors (older Guide presentation)" } as const;
 
 const money = "figures text-right";
 
 /** The parameters the chosen method needs, with the firm's usual defaults filled in. */
-export function PlanParameters({ form, plan, currency, performanceMateriality }: Props) {
+export function PlanParameters({ form, plan, currency, performanceMateriality, earlierSamples = [] }: Props) {
   const { register, watch, setValue, formState: { errors } } = form;
   const method = watch("params.method");
   const e = errors.params;
   const classical = method === "random" || method === "systematic" || method === "stratified";
   const estimators = method === "stratified" ? STRATIFIED_ESTIMATORS : VARIABLES_ESTIMATORS;
   const bounds = (watch("params.strataBounds") ?? []).map(String);
+  const selection = watch("params.selection");
+  const byFrequency = method === "attribute" && watch("params.attributeMode") === "control-frequency";
 
   return (
     <div className="grid gap-x-4 sm:grid-cols-2">
@@ -35,11 +41,31 @@ export function PlanParameters({ form, plan, currency, performanceMateriality }:
           )}
         </Field>
       )}
-      <Field label="Confidence" error={e?.confidence?.message} hint={method === "attribute" ? "1 − risk of overreliance on the control" : "1 − risk of incorrect acceptance"}>
-        {({ id, describedBy, invalid }) => <PercentInput id={id} aria-describedby={describedBy} aria-invalid={invalid} {...register("params.confidence")} />}
-      </Field>
-      {method === "attribute" ? (
+      {method === "nonstatistical" && (
         <>
+          <Field label="Selection of the rest" error={e?.selection?.message} hint={selection === "haphazard" ? "You pick the items on the population grid after the draw; each pick is recorded with who and when. It cannot be re-performed from a seed." : "Seeded, re-performable by anyone"}>
+            {({ id, describedBy, invalid }) => (
+              <Select id={id} aria-describedby={describedBy} aria-invalid={invalid} {...register("params.selection")}>
+                <option value="random">Random (seeded)</option>
+                <option value="systematic">Systematic with a random start</option>
+                <option value="haphazard">Haphazard (picked by the auditor)</option>
+                <option value="block">Block of contiguous items</option>
+              </Select>
+            )}
+          </Field>
+          <Field label="Projection of misstatement" error={e?.projection?.message} hint="Ratio: misstatement ÷ sampled book × remainder book. Difference: misstatement per item × remainder items.">
+            {({ id, describedBy, invalid }) => (
+              <Select id={id} aria-describedby={describedBy} aria-invalid={invalid} {...register("params.projection")}>
+                <option value="ratio">Ratio</option>
+                <option value="difference">Difference</option>
+              </Select>
+            )}
+          </Field>
+        </>
+      )}
+      {method === "attribute" && <PlanAttributeMode form={form} />}
+      {method === "attribute" ? (
+        !byFrequency && <>
           <Field label="Tolerable deviation rate" error={e?.tolerableRate?.message}>
             {({ id, describedBy, invalid }) => <PercentInput id={id} aria-describedby={describedBy} aria-invalid={invalid} {...register("params.tolerableRate")} />}
           </Field>
@@ -76,16 +102,12 @@ export function PlanParameters({ form, plan, currency, performanceMateriality }:
             hint={plan?.interval !== undefined ? `Blank: the sampling interval, ${formatMoney(plan.interval)}. Items at or above it are all tested.` : "Blank: the sampling interval. Items at or above it are all tested."}>
             {({ id, describedBy, invalid }) => <Input id={id} aria-describedby={describedBy} aria-invalid={invalid} inputMode="decimal" className={money} placeholder={plan?.interval !== undefined ? String(plan.interval) : ""} {...register("params.topStratumThreshold")} />}
           </Field>
-          <Field label="Poisson factors" error={e?.factorMode?.message} hint="Exact gamma quantiles, or rounded up to 2 decimals as printed tables show them">
-            {({ id, describedBy, invalid }) => (
-              <Select id={id} aria-describedby={describedBy} aria-invalid={invalid} {...register("params.factorMode")}>
-                <option value="exact">Exact</option>
-                <option value="table">Table (2 decimals)</option>
-              </Select>
-            )}
-          </Field>
+          <p className="self-center text-xs text-ink-soft" data-testid="mus-methodology">
+            {plan?.sizeMethod ? <>Sized with {SIZE_METHOD_TEXT[plan.sizeMethod]}; factors {plan.factorMode === "table" ? "rounded up to 2 decimals, as printed tables" : "exact (gamma quantiles)"}.</> : "Size method and factors"} Both are set in the firm&apos;s methodology settings and recorded with the plan.
+          </p>
         </>
       )}
+      {(method === "random" || method === "systematic") && <PlanSpreadFields form={form} earlierSamples={earlierSamples} currency={currency} />}
       {method === "stratified" && (
         <div className="sm:col-span-2">
           <StrataBoundsEditor value={bounds} currency={currency} error={(e?.strataBounds as { message?: string } | undefined)?.message}

@@ -3,6 +3,8 @@ import type { SampleRecord } from "@/lib/data/samples";
 import { Amount } from "@/components/ui/amount";
 import { SizePanel } from "./size-panel";
 import { DIRECTION_LABELS, ESTIMATOR_LABELS, formatPercent, METHOD_LABELS } from "./labels";
+import { RISK_LEVEL_LABELS } from "@/lib/validation/methodology";
+import { factorModeOfSample } from "@/lib/samples/methodology";
 
 /** The plan as recorded: what is tested, the parameters, the size and how it was computed. */
 export function PlanSummary({ sample, currency, performanceMateriality, editHref }: { sample: SampleRecord; currency: string; performanceMateriality: string; editHref: string | null }) {
@@ -14,7 +16,16 @@ export function PlanSummary({ sample, currency, performanceMateriality, editHref
   ];
   if (sample.method !== "attribute") facts.push(["Misstatement tested for", DIRECTION_LABELS[sample.direction]]);
   if (p.estimator) facts.push(["Estimator", ESTIMATOR_LABELS[p.estimator] ?? p.estimator]);
-  facts.push(["Confidence", formatPercent(p.confidence)]);
+  const risk = sample.plan.risk;
+  if (risk?.assessedRisk && risk.otherProceduresRisk) {
+    facts.push(["Assessed risks", `RMM ${RISK_LEVEL_LABELS[risk.assessedRisk]} · other procedures ${RISK_LEVEL_LABELS[risk.otherProceduresRisk]} → factor ${risk.tableFactor?.toFixed(2)} (firm methodology ${risk.tableVersion === 0 ? "defaults, version 0" : `version ${risk.tableVersion}`})`]);
+  }
+  facts.push(["Confidence", `${formatPercent(p.confidence, 2)}${risk?.basis === "confidence-override" ? " (typed override)" : risk?.basis === "risk-assessment" ? " (from the risk assessment)" : ""}`]);
+  if (risk?.overrideReason) facts.push(["Reason for the typed confidence", risk.overrideReason]);
+  const ns = sample.plan.nonstatistical;
+  if (ns) facts.push(["Assurance factor", ns.assuranceFactor.toFixed(2)], ["Selection", ns.selection === "haphazard" ? "Haphazard (picked by the auditor; not re-performable from a seed)" : ns.selection === "systematic" ? "Systematic with a random start" : "Random (seeded)"], ["Projection", ns.projection === "ratio" ? "Ratio method" : "Difference method"]);
+  const k = sample.plan.keyItems;
+  if (k) facts.push(["Key items", <span key="k"><span className="figures">{k.count}</span> items, <Amount value={k.total} />{k.threshold && <> (threshold <Amount value={k.threshold} />)</>}; sample drawn on the other <span className="figures">{k.remainder.count}</span></span>]);
   if (sample.method === "attribute") {
     facts.push(["Tolerable deviation rate", formatPercent(p.tolerableRate ?? 0)], ["Expected deviation rate", formatPercent(p.expectedRate)]);
   } else {
@@ -29,7 +40,7 @@ export function PlanSummary({ sample, currency, performanceMateriality, editHref
   }
   if (sample.method === "mus") facts.push(["Limits compared with TM", sample.methodology.musLimits === "gross" ? "Gross (firm methodology at planning)" : "Net of the other direction's projected misstatement (firm methodology at planning)"]);
   if (sample.plan.twoStage) facts.push(["Plan", `Two-stage: ${sample.plan.twoStage.firstStageSize} then, after exactly one deviation, ${sample.plan.twoStage.secondStageSize} more (risk of overreliance ${formatPercent(sample.plan.twoStage.riskOfOverreliance, 2)})`]);
-  if (sample.method === "mus") facts.push(["Poisson factors", p.factorMode === "exact" ? "Exact" : "Table (2 decimals)"]);
+  if (sample.method === "mus") facts.push(["Poisson factors", factorModeOfSample(sample) === "exact" ? "Exact (firm methodology at planning)" : "Table, 2 decimals (firm methodology at planning)"]);
   facts.push(["Size", <span key="sz" className="figures">{sample.chosenSize}{sample.chosenSize !== sample.computedSize && ` (computed ${sample.computedSize})`}</span>]);
   if (sample.sizeReason) facts.push(["Reason for the size", sample.sizeReason]);
   facts.push(["Planned", `${sample.createdAt.slice(0, 10)} by ${sample.createdByName} · plan version ${sample.planVersion}`]);
@@ -44,7 +55,7 @@ export function PlanSummary({ sample, currency, performanceMateriality, editHref
             </div>
           ))}
         </dl>
-        {editHref && <Link href={editHref} className="mt-3 inline-block text-sm font-medium text-ledger-600 hover:underline">Change the plan (possible until the draw)</Link>}
+        {editHref && <Link href={editHref} className="mt-3 inline-block text-sm font-medium text-ledger-600 link">Change the plan (possible until the draw)</Link>}
       </div>
       <div className="lg:col-span-2">
         <SizePanel plan={sample.plan} problem={null} busy={false} currency={currency} />

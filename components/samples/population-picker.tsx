@@ -36,14 +36,14 @@ export function PopulationPicker({ form, populations, engagementId, currency }: 
           <ul className="mt-1 space-y-0.5">
             {blocked.map((p) => (
               <li key={p.id}>
-                <Link href={`/engagements/${engagementId}/populations/${p.id}`} className="text-ledger-600 hover:underline">{p.name}</Link>{" "}
+                <Link href={`/engagements/${engagementId}/populations/${p.id}`} className="text-ledger-600 link">{p.name}</Link>{" "}
                 ({formatCount(p.rowCount)} items, <Amount value={p.total} currency={currency} />) is {WHY[p.status]}: record its control total and count first.
               </li>
             ))}
           </ul>
         </div>
       )}
-      {populations.length === 0 && <p className="-mt-2 mb-3 text-xs text-ink-soft">No population is loaded on this engagement yet. <Link href={`/engagements/${engagementId}/populations/new`} className="text-ledger-600 hover:underline">Load a ledger</Link> first.</p>}
+      {populations.length === 0 && <p className="-mt-2 mb-3 text-xs text-ink-soft">No population is loaded on this engagement yet. <Link href={`/engagements/${engagementId}/populations/new`} className="text-ledger-600 link">Load a ledger</Link> first.</p>}
     </div>
   );
 }

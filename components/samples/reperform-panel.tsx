@@ -4,6 +4,7 @@ import { Button } from "@/components/ui/button";
 import { Alert } from "@/components/ui/alert";
 import { api } from "@/components/ui/api";
 import type { ReperformResult } from "./types";
+import { formatDateTime } from "@/lib/format/dates";
 
 /** Recomputes the current draw from its stored seed and inputs and compares it item by item with what is stored. */
 export function ReperformPanel({ engagementId, sampleId, onChecked }: { engagementId: number; sampleId: number; onChecked: () => void }) {
@@ -23,14 +24,14 @@ export function ReperformPanel({ engagementId, sampleId, onChecked }: { engageme
     <div className="space-y-3">
       <div className="flex flex-wrap items-center gap-3">
         <Button type="button" variant="secondary" onClick={run} disabled={busy}>{busy ? "Recomputing…" : "Re-perform the selection"}</Button>
-        <a href={`/api/engagements/${engagementId}/samples/${sampleId}/recipe`} download className="text-sm font-medium text-ledger-600 hover:underline">Download the reproduction recipe (.txt)</a>
+        <a href={`/api/engagements/${engagementId}/samples/${sampleId}/recipe`} download className="text-sm font-medium text-ledger-600 link">Download the reproduction recipe (.txt)</a>
       </div>
       {failure && <Alert>{failure}</Alert>}
       {result && (
         <div data-testid="reperform-result">
           <Alert tone={result.matches ? "success" : "error"}>
             <p className="font-semibold">{result.matches ? "The recomputed selection matches the stored one, item by item." : "The recomputed selection differs from the stored one."}</p>
-            <p className="mt-1"><span className="figures">{result.storedItems}</span> items stored, <span className="figures">{result.recomputedItems}</span> recomputed · checked {result.checkedAt.slice(0, 16).replace("T", " ")} UTC</p>
+            <p className="mt-1"><span className="figures">{result.storedItems}</span> items stored, <span className="figures">{result.recomputedItems}</span> recomputed · checked {formatDateTime(result.checkedAt)}</p>
             <p className="mt-1 break-all text-xs">Recomputed selection SHA-256 <code className="figures">{result.recomputedSha256}</code></p>
           </Alert>
           {result.differences.length > 0 && (

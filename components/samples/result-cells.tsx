@@ -5,6 +5,8 @@ import { Badge } from "@/components/ui/badge";
 import { ITEM_STATUS_LABELS } from "./labels";
 import { liveMisstatement } from "./result-values";
 import { useRowEditor } from "./result-row";
+import { RequestStatusBadge } from "@/components/requests/status-badge";
+import { NOTE_STATUS_LABELS, NOTE_STATUS_TONES, type ItemNoteMark } from "@/components/review/note-labels";
 
 const compact = "rounded border border-ink-line bg-paper-raised px-2 py-1 text-sm focus:border-ledger-500 focus:outline-none focus:ring-2 focus:ring-ledger-100 aria-[invalid=true]:border-brick-500 disabled:bg-paper-sunk/60 disabled:text-ink-faint";
 
@@ -12,7 +14,7 @@ function FieldError({ message, id }: { message?: string; id: string }) {
   return message ? <p id={id} className="mt-1 text-xs text-brick-700" aria-live="polite">{message}</p> : null;
 }
 
-export function ReferenceCell() {
+export function ReferenceCell({ notes }: { notes?: ItemNoteMark[] }) {
   const { item } = useRowEditor();
   return (
     <div className="w-32">
@@ -21,8 +23,12 @@ export function ReferenceCell() {
       <span className="mt-0.5 flex flex-wrap gap-1">
         {item.topStratum && <Badge tone="blue">top stratum</Badge>}
         {item.stratum !== null && <Badge>stratum {item.stratum}</Badge>}
-        {item.origin !== "selection" && <Badge tone="amber">{item.origin === "extension" ? "added" : "replacement"}</Badge>}
+        {item.keyItem && <Badge tone="blue">key item</Badge>}
+        {item.origin === "haphazard" && <Badge>picked</Badge>}
+        {item.anomaly && <Badge tone="amber">{item.anomaly.acceptedAt ? "anomaly accepted" : "anomaly proposed"}</Badge>}
+        {(item.origin === "extension" || item.origin === "replacement") && <Badge tone="amber">{item.origin === "extension" ? "added" : "replacement"}</Badge>}
         {item.hitPoints && item.hitPoints.length > 1 && <Badge>{item.hitPoints.length} hits</Badge>}
+        {notes?.map((n) => <Badge key={n.number} tone={NOTE_STATUS_TONES[n.status]}>Note {n.number}: {NOTE_STATUS_LABELS[n.status].toLowerCase()}</Badge>)}
       </span>
       {item.status === "void" && <span className="block text-xs">Void: {item.voidReason}</span>}
     </div>
@@ -36,7 +42,7 @@ export function AuditedValueCell() {
   const errId = `${formId}-audited-error`;
   return (
     <div className="w-28">
-      <input form={formId} aria-label={`Audited value of ${item.itemRef}`} inputMode="decimal" className={`${compact} figures w-full text-right`}
+      <input form={formId} data-cell="audited" aria-label={`Audited value of ${item.itemRef}`} inputMode="decimal" className={`${compact} figures w-full text-right`}
         disabled={!editable || status === "not-auditable"} aria-invalid={Boolean(errors.auditedValue)} aria-describedby={errors.auditedValue ? errId : undefined}
         {...register("auditedValue", { onChange: (e: React.ChangeEvent<HTMLInputElement>) => { if (e.target.value.trim() !== "" && watch("status") === "not-started") setValue("status", "done", { shouldDirty: true }); } })} />
       <FieldError id={errId} message={errors.auditedValue?.message} />
@@ -59,7 +65,7 @@ export function StatusCell() {
   if (item.status === "void") return <span>{ITEM_STATUS_LABELS.void}</span>;
   return (
     <div>
-      <select form={formId} aria-label={`Status of ${item.itemRef}`} className={`${compact} w-[10.5rem] text-[13px]`} disabled={!editable} {...form.register("status")}>
+      <select form={formId} data-cell="status" aria-label={`Status of ${item.itemRef}`} className={`${compact} w-40 text-[13px]`} disabled={!editable} {...form.register("status")}>
         {ITEM_STATUSES.map((s) => <option key={s} value={s}>{ITEM_STATUS_LABELS[s]}</option>)}
       </select>
       {item.updatedByName && <span className="mt-0.5 block text-xs text-ink-faint">saved by {item.updatedByName}</span>}
@@ -74,12 +80,12 @@ export function CauseCell() {
   const errId = `${formId}-cause-error`;
   return (
     <div className="w-32 space-y-1">
-      <select form={formId} aria-label={`Cause of misstatement in ${item.itemRef}`} className={`${compact} w-full`} disabled={!editable} {...register("cause")}>
+      <select form={formId} data-cell="cause" aria-label={`Cause of misstatement in ${item.itemRef}`} className={`${compact} w-full`} disabled={!editable} {...register("cause")}>
         <option value="">—</option>
         {MISSTATEMENT_CAUSES.map((c) => <option key={c} value={c}>{CAUSE_LABELS[c]}</option>)}
       </select>
       {(cause || watch("causeNote")) && (
-        <input form={formId} aria-label={`Cause details for ${item.itemRef}`} placeholder={cause === "other" ? "Describe the cause" : "Details (optional)"} className={`${compact} w-full`}
+        <input form={formId} data-cell="cause-note" aria-label={`Cause details for ${item.itemRef}`} placeholder={cause === "other" ? "Describe the cause" : "Details (optional)"} className={`${compact} w-full`}
           disabled={!editable} aria-invalid={Boolean(errors.causeNote)} aria-describedby={errors.causeNote ? errId : undefined} {...register("causeNote")} />
       )}
       <FieldError id={errId} message={errors.causeNote?.message} />
@@ -94,13 +100,13 @@ export function DeviationCell() {
   const errId = `${formId}-deviation-error`;
   return (
     <div className="w-60 space-y-1">
-      <select form={formId} aria-label={`Deviation found in ${item.itemRef}`} className={`${compact} w-full`} disabled={!editable}
+      <select form={formId} data-cell="deviation" aria-label={`Deviation found in ${item.itemRef}`} className={`${compact} w-full`} disabled={!editable}
         {...register("deviation", { onChange: (e: React.ChangeEvent<HTMLSelectElement>) => { if (e.target.value !== "" && watch("status") === "not-started") setValue("status", "done", { shouldDirty: true }); } })}>
         <option value="">—</option>
         <option value="no">No deviation</option>
         <option value="yes">Deviation</option>
       </select>
-      {deviation === "yes" && <input form={formId} aria-label={`Nature of the deviation in ${item.itemRef}`} placeholder="Nature of the deviation" className={`${compact} w-full`} disabled={!editable} {...register("deviationNature")} />}
+      {deviation === "yes" && <input form={formId} data-cell="deviation-nature" aria-label={`Nature of the deviation in ${item.itemRef}`} placeholder="Nature of the deviation" className={`${compact} w-full`} disabled={!editable} {...register("deviationNature")} />}
       <FieldError id={errId} message={errors.deviation?.message ?? errors.auditedValue?.message} />
     </div>
   );
@@ -108,10 +114,20 @@ export function DeviationCell() {
 
 export function CommentCell() {
   const { item, form, formId, editable } = useRowEditor();
-  return <input form={formId} aria-label={`Comment on ${item.itemRef}`} className={`${compact} w-28`} disabled={!editable} {...form.register("comment")} />;
+  return <input form={formId} data-cell="comment" aria-label={`Comment on ${item.itemRef}`} className={`${compact} w-full min-w-28`} disabled={!editable} {...form.register("comment")} />;
 }
 
-export function EvidenceCell() {
+/** The item's evidence count (a button that opens its files under the row) and its client request status. */
+export function EvidenceCell({ open, onToggle }: { open: boolean; onToggle: () => void }) {
   const { item } = useRowEditor();
-  return <span className={`figures ${item.evidenceCount === 0 ? "text-ink-faint" : ""}`} title="Evidence files attached to this item">{item.evidenceCount}</span>;
+  const n = item.evidenceCount;
+  return (
+    <div className="flex flex-col items-end gap-1">
+      <button type="button" tabIndex={-1} data-row-action aria-expanded={open} onClick={onToggle} aria-label={`Evidence of ${item.itemRef}: ${n === 0 ? "no files" : n === 1 ? "1 file" : `${n} files`}`}
+        className={`figures rounded px-1.5 py-0.5 text-sm link ${n === 0 ? "text-ink-soft" : "text-ledger-700"}`}>
+        {n === 0 ? "none" : n === 1 ? "1 file" : `${n} files`}
+      </button>
+      {item.requestStatus && <RequestStatusBadge status={item.requestStatus} />}
+    </div>
+  );
 }

@@ -31,7 +31,14 @@ const schemaResolver = zodResolver(SaveResultSchema);
 
 interface Props {
   item: SampleItemRecord; url: string; editable: boolean; attribute: boolean; columnCount: number;
-  onSaved: (item: SampleItemRecord) => void; onReload: () => void; children: React.ReactNode;
+  /** Called with the item as saved and as it was before (for the undo). */
+  onSaved: (after: SampleItemRecord, before: SampleItemRecord) => void; onReload: () => void; children: React.ReactNode;
+  /** Replace, Attach…: shown beside Save in the sticky actions cell. */
+  actions?: React.ReactNode;
+  /** A row under this one (the item's evidence), or null. */
+  detail?: React.ReactNode;
+  /** Evidence dropped on the row. */
+  onDropFiles?: (files: File[]) => void;
 }
 
 /**
@@ -39,7 +46,8 @@ interface Props {
  * sends the version the row was read at; if someone saved the item since, the server refuses
  * (409) and the row says who, keeps the auditor's entry on screen, and offers to reload.
  */
-export function ResultRow({ item, url, editable, attribute, columnCount, onSaved, onReload, children }: Props) {
+export function ResultRow({ item, url, editable, attribute, columnCount, onSaved, onReload, children, actions, detail, onDropFiles }: Props) {
+  const [dropping, setDropping] = useState(false);
   const storedKey = `${item.id}:${item.version}`;
   // A conflict belongs to the stored version it was met at: once the item is reloaded, it is gone.
   const [conflict, setConflict] = useState<{ at: string; message: string } | null>(null);
@@ -63,13 +71,14 @@ export function ResultRow({ item, url, editable, attribute, columnCount, onSaved
   }, [storedKey, item, reset]);
 
   const submit = handleSubmit(async (body) => {
+    if (!form.formState.isDirty) return; // Enter on a row nobody changed moves on without a save
     setFailure(null); setSaved(false);
     try {
       const { item: after, signOffsCleared: cleared } = await api<{ item: SampleItemRecord; signOffsCleared?: boolean }>(`${url}/${item.id}`, { method: "PATCH", body });
       setSaved(true);
       setSignOffsCleared(Boolean(cleared));
       if (cleared) router.refresh(); // the review panel is server-rendered: show the cleared sign-offs
-      onSaved(after);
+      onSaved(after, item);
     } catch (err) {
       if (err instanceof ApiError && err.status === 409) { setConflictMessage(err.message); return; }
       if (err instanceof ApiError && err.fields) for (const [k, m] of Object.entries(err.fields)) setError(k as FieldPath<RowValues>, { message: m[0] });
@@ -82,18 +91,26 @@ export function ResultRow({ item, url, editable, attribute, columnCount, onSaved
   const void_ = item.status === "void";
   return (
     <RowContext.Provider value={{ item, form, formId: `result-${item.id}`, editable: editable && !void_, attribute, saved }}>
-      <tr className={`border-t border-ink-line/70 align-top ${void_ ? "bg-paper-sunk text-ink-faint" : "bg-paper-raised hover:bg-paper"}`} data-testid={`item-row-${item.itemRef}`}>
+      <tr className={`border-t border-ink-line/70 align-top ${void_ ? "bg-paper-sunk text-ink-soft" : dropping ? "bg-ledger-50 outline-2 outline-dashed outline-ledger-600" : "bg-paper-raised hover:bg-paper"}`}
+        data-testid={`item-row-${item.itemRef}`} data-item-id={item.id}
+        onDragOver={onDropFiles && !void_ ? (e) => { if (e.dataTransfer.types.includes("Files")) { e.preventDefault(); setDropping(true); } } : undefined}
+        onDragLeave={onDropFiles ? () => setDropping(false) : undefined}
+        onDrop={onDropFiles && !void_ ? (e) => { e.preventDefault(); setDropping(false); onDropFiles(Array.from(e.dataTransfer.files)); } : undefined}>
         {children}
-        <td className="px-1.5 py-2 text-right">
-          {!void_ && editable && (
-            <form id={`result-${item.id}`} onSubmit={submit} noValidate>
-              <Button type="submit" variant={form.formState.isDirty ? "primary" : "secondary"} className="px-2.5 py-1 text-xs" disabled={form.formState.isSubmitting} aria-label={`Save ${item.itemRef}`}>
-                {form.formState.isSubmitting ? "Saving…" : "Save"}
-              </Button>
-            </form>
-          )}
+        <td className="sticky right-0 z-10 bg-inherit px-1.5 py-2 text-right shadow-[-8px_0_8px_-8px_rgba(29,36,48,0.15)]">
+          <div className="flex items-center justify-end gap-1">
+            {actions}
+            {!void_ && editable && (
+              <form id={`result-${item.id}`} onSubmit={submit} noValidate>
+                <Button type="submit" variant={form.formState.isDirty ? "primary" : "secondary"} className="px-2.5 py-1 text-xs" disabled={form.formState.isSubmitting} aria-label={`Save ${item.itemRef}`} tabIndex={-1} data-row-action>
+                  {form.formState.isSubmitting ? "Saving…" : saved && !form.formState.isDirty ? "Saved" : "Save"}
+                </Button>
+              </form>
+            )}
+          </div>
         </td>
       </tr>
+      {detail}
       {signOffsCleared && (
         <tr>
           <td colSpan={columnCount + 1} className="px-2 pb-3">

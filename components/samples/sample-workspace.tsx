@@ -14,14 +14,20 @@ import { FieldworkGrid } from "./fieldwork-grid";
 import { ProgressStrip } from "./progress-strip";
 import { EvaluationPanel } from "./evaluation-panel";
 import { EXTENDABLE, REPLACEABLE } from "./labels";
+import { HaphazardPicker } from "./haphazard-picker";
+import { AnomalyPanel } from "./anomaly-panel";
+import { SAMPLE_CHANGED_EVENT } from "./events";
+import type { ItemNoteMark } from "@/components/review/note-labels";
 
 interface Props {
   engagementId: number; initialView: SampleView; initialEvaluation: SampleEvaluation;
-  may: { record: boolean; draw: boolean }; planSummary: React.ReactNode;
+  may: { record: boolean; draw: boolean; acceptAnomaly?: boolean }; anomaliesAllowed?: boolean; planSummary: React.ReactNode;
+  /** Review notes raised on items, shown on their rows. */
+  notesByItem?: Record<number, ItemNoteMark[]>;
 }
 
 /** The sample's three rooms: its plan, its draw, and the results with the live evaluation. */
-export function SampleWorkspace({ engagementId, initialView, initialEvaluation, may, planSummary }: Props) {
+export function SampleWorkspace({ engagementId, initialView, initialEvaluation, may, anomaliesAllowed = true, planSummary, notesByItem = {} }: Props) {
   const router = useRouter();
   const [view, setView] = useState(initialView);
   const [tab, setTab] = useState(initialView.currentDraw ? "results" : "draw");
@@ -45,7 +51,13 @@ export function SampleWorkspace({ engagementId, initialView, initialEvaluation, 
 
   const changed = useCallback(() => { setChanges((n) => n + 1); setEvaluating(true); }, []);
   const refreshView = useCallback(async () => { setView(await api<SampleView>(base)); }, [base]);
-  const onDrawn = (next: SampleView) => { setView(next); setGridKey((k) => k + 1); changed(); setTab("results"); router.refresh(); };
+  // A workbook import elsewhere on the page changed the results: refetch the grid, progress and evaluation.
+  useEffect(() => {
+    const onChange = () => { setGridKey((k) => k + 1); changed(); void refreshView().catch(() => undefined); };
+    window.addEventListener(SAMPLE_CHANGED_EVENT, onChange);
+    return () => window.removeEventListener(SAMPLE_CHANGED_EVENT, onChange);
+  }, [changed, refreshView]);
+  const onDrawn = (next: SampleView) => { setView(next); setGridKey((k) => k + 1); changed(); setTab(next.currentDraw?.seedSource === "haphazard" ? "draw" : "results"); router.refresh(); };
   const attribute = sample.method === "attribute";
 
   const tabs = [
@@ -70,6 +82,12 @@ export function SampleWorkspace({ engagementId, initialView, initialEvaluation, 
             </div>
           </Card>
         </div>
+        {currentDraw?.seedSource === "haphazard" && (
+          <Card title="Pick the items (haphazard selection)">
+            <HaphazardPicker engagementId={engagementId} sampleId={sample.id} populationId={population.id} planned={sample.plan.chosenSize} mayPick={may.draw}
+              hasDescription={Boolean(population.mapping.descriptionColumn)} onChanged={() => { setGridKey((k) => k + 1); changed(); }} />
+          </Card>
+        )}
         {draws.length > 0 && <Card title="Draw history"><DrawHistory draws={draws} /></Card>}
         {currentDraw && may.draw && EXTENDABLE.includes(sample.method) && (
           <Card title="Extend the sample"><ExtendForm engagementId={engagementId} sampleId={sample.id} onExtended={() => { setGridKey((k) => k + 1); changed(); }} /></Card>
@@ -82,8 +100,13 @@ export function SampleWorkspace({ engagementId, initialView, initialEvaluation, 
             <Card title="Items and results">
               <p className="mb-2 text-xs text-ink-soft" data-testid="unauditable-treatment">{evaluation.notes[0]}</p>
               <FieldworkGrid engagementId={engagementId} sampleId={sample.id} method={sample.method} drawVersion={currentDraw.version}
-                mayRecord={may.record} mayReplace={may.draw && REPLACEABLE.includes(sample.method)} refreshKey={gridKey} onSaved={changed} />
+                mayRecord={may.record} mayReplace={may.draw && REPLACEABLE.includes(sample.method)} refreshKey={gridKey} onSaved={changed} notesByItem={notesByItem} />
             </Card>
+            {sample.method !== "attribute" && evaluation.progress.misstatements > 0 && (
+              <Card title="Anomalous misstatements">
+                <AnomalyPanel base={base} method={sample.method} refreshKey={changes} mayMark={may.record} mayAccept={Boolean(may.acceptAnomaly)} allowed={anomaliesAllowed} onChanged={changed} />
+              </Card>
+            )}
             <Card title="Evaluation">
               {evalFailure && <div className="mb-3"><Alert>{evalFailure}</Alert></div>}
               <EvaluationPanel evaluation={evaluation} direction={sample.direction} loading={evaluating} />

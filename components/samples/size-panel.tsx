@@ -9,10 +9,15 @@ const INPUT_NOTES: Record<string, string> = {
   RF: "reliability factor, zero misstatements", EF: "expansion factor for expected misstatement", N: "items in the population",
   S: "standard deviation of book values", A: "planned allowance for sampling risk", "n′": "size before the finite population correction",
   TDR: "tolerable deviation rate", EDR: "expected deviation rate",
+  "key items' BV": "book value of the key items, examined 100 %", "assurance factor": "from the firm's table for the two assessed risks (or −ln(1 − typed confidence))",
+  "n (exact)": "size before rounding up",
+  R: "confidence factor for EM/TM", "EM/TM": "expected over tolerable misstatement", factors: "factor mode (firm methodology)",
+  M: "deviations assumed in the population, ⌈TDR × N⌉", s_d: "standard deviation of the differences", s_e: "standard deviation of the residuals",
+  "spread basis": "where the standard deviation comes from",
 };
 
 function InputValue({ name, value }: { name: string; value: string | number }) {
-  if (["BV", "TM", "EM", "A"].includes(name)) return <Amount value={typeof value === "number" ? value.toFixed(2) : value} />;
+  if (["BV", "TM", "EM", "A", "S", "s_d", "s_e", "key items' BV"].includes(name)) return <Amount value={typeof value === "number" ? value.toFixed(2) : value} />;
   if (["TDR", "EDR", "confidence", "risk of incorrect acceptance", "risk of incorrect rejection"].includes(name) && typeof value === "number") return <span className="figures">{Number((value * 100).toPrecision(10))}%</span>;
   return <span className="figures">{typeof value === "number" ? value.toLocaleString("en-US", { maximumFractionDigits: 6 }) : value}</span>;
 }
@@ -70,6 +75,7 @@ export function SizePanel({ plan, problem, busy, currency }: { plan: SamplePlan 
             </div>
           )}
           {plan.strata && <PlanStrataTable strata={plan.strata} />}
+          {plan.notes && plan.notes.length > 0 && <ul className="space-y-1 text-xs text-ink-soft" data-testid="plan-notes">{plan.notes.map((n) => <li key={n}>{n}</li>)}</ul>}
           {plan.warnings.length > 0 && <ul className="space-y-1 text-xs text-amber-700">{plan.warnings.map((w) => <li key={w}>⚠ {w}</li>)}</ul>}
         </div>
       )}

@@ -4,6 +4,18 @@ import { ESTIMATOR_LABELS, formatPercent } from "./labels";
 
 const DIRECTIONS = { overstatement: "overstatement only", understatement: "understatement only", both: "both directions" } as const;
 
+/** Key items and accepted anomalies taken at actual outside the estimator, when there are any. */
+function atActualRows(v: VariablesEvaluationBlock | StratifiedEvaluationBlock): [string, React.ReactNode, string?][] {
+  const a = v.atActual;
+  if (!a) return [];
+  return [
+    [`Remainder estimated from the sample (${a.remainderSize.toLocaleString("en-US")} items): book value`, <Amount key="rb" value={a.remainderBookValue} />],
+    ["Remainder: estimated audited value (Ŷ_r) · projected misstatement", <span key="re"><Amount value={a.remainderEstimatedAuditedValue} /> · <Amount value={a.remainderProjectedMisstatement} /></span>],
+    [`Key items at actual (${a.keyItems.count}): book · audited · misstatement`, <span key="ki"><Amount value={a.keyItems.bookValue} /> · <Amount value={a.keyItems.auditedValue} /> · <Amount value={a.keyItems.misstatement} /></span>, "key-items-actual"],
+    [`Accepted anomalies at actual (${a.anomalies.count}): misstatement`, <Amount key="an" value={a.anomalies.misstatement} />, "anomalies-actual"],
+  ];
+}
+
 /** The classical variables estimate and the Audit Guide's decision rule, as the evaluation view model gives them. */
 export function VariablesResult({ v }: { v: VariablesEvaluationBlock | StratifiedEvaluationBlock }) {
   const d = v.decision;
@@ -11,6 +23,7 @@ export function VariablesResult({ v }: { v: VariablesEvaluationBlock | Stratifie
   const rows: [string, React.ReactNode, string?][] = [
     ["Estimator", `${ESTIMATOR_LABELS[v.estimator] ?? v.estimator}${v.method === "stratified" ? " (stratified)" : ""}, ${DIRECTIONS[d.direction]}`],
     ["Recorded book value (X)", <Amount key="bv" value={v.populationBookValue} />],
+    ...atActualRows(v),
     ["Tolerable misstatement (TM)", <Amount key="tm" value={v.tolerableMisstatement} />],
     ["Estimated audited value (Ŷ)", <Amount key="y" value={v.estimatedAuditedValue} />, "estimated-audited"],
     ["Projected misstatement (X − Ŷ)", <Amount key="pm" value={v.projectedMisstatement} />, "projected-misstatement"],

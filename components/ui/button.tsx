@@ -3,10 +3,10 @@ import { forwardRef } from "react";
 type Variant = "primary" | "secondary" | "ghost" | "danger";
 
 const variants: Record<Variant, string> = {
-  primary: "bg-ledger-600 text-white hover:bg-ledger-700 disabled:bg-ledger-500/60",
-  secondary: "bg-paper-raised text-ink border border-ink-line hover:bg-paper-sunk",
-  ghost: "text-ink-soft hover:bg-paper-sunk hover:text-ink",
-  danger: "bg-brick-500 text-white hover:bg-brick-700",
+  primary: "bg-ledger-600 text-white hover:bg-ledger-700 disabled:bg-paper-sunk disabled:text-ink-soft disabled:border disabled:border-dashed disabled:border-ink-line",
+  secondary: "bg-paper-raised text-ink border border-ink-line hover:bg-paper-sunk disabled:bg-paper-sunk disabled:text-ink-soft disabled:border-dashed",
+  ghost: "text-ink-soft hover:bg-paper-sunk hover:text-ink disabled:text-ink-faint",
+  danger: "bg-brick-500 text-white hover:bg-brick-700 disabled:bg-paper-sunk disabled:text-ink-soft disabled:border disabled:border-dashed disabled:border-ink-line",
 };
 
 export function buttonClass(variant: Variant = "primary", extra = "") {

@@ -10,8 +10,11 @@ import * as m0008 from "./20261202_0008_advisor_runs";
 import * as m0009 from "./20261202_0009_client_requests";
 import * as m0010 from "./20261203_0010_firm_methodology";
 import * as m0011 from "./20261203_0011_auditor_conclusion";
+import * as m0012 from "./20261203_0012_advisor_rationale_reason";
+import * as m0013 from "./20261203_0013_nonstatistical";
 import * as m0014 from "./20261203_0014_misstatements";
 import * as m0015 from "./20261203_0015_scale_out";
+import * as m0016 from "./20261203_0016_sessions_and_archive";
 
 type Migration = { up(knex: Knex): Promise<void>; down(knex: Knex): Promise<void> };
 
@@ -28,8 +31,11 @@ const migrations: Record<string, Migration> = {
   "20261202_0009_client_requests": m0009,
   "20261203_0010_firm_methodology": m0010,
   "20261203_0011_auditor_conclusion": m0011,
+  "20261203_0012_advisor_rationale_reason": m0012,
+  "20261203_0013_nonstatistical": m0013,
   "20261203_0014_misstatements": m0014,
   "20261203_0015_scale_out": m0015,
+  "20261203_0016_sessions_and_archive": m0016,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

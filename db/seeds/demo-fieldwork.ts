@@ -67,6 +67,7 @@ async function main(baseUrl: string) {
     method: "POST", headers: { "content-type": "application/json" },
     body: JSON.stringify({ populationId: loaded.populationId, name: "Receivables valuation — classical estimate", objective: "Estimate the audited value of trade receivables to test their valuation at the period end.", assertion: "Valuation", direction: "overstatement", params: { method: "random", estimator: "difference", confidence: 0.95, tolerableMisstatement: "60000", sampleSize: 120, sizeReason: "Planned size to be confirmed with the estimator advisor before drawing" } }),
   });
+  const nonstatistical = await demoNonstatistical({ senior, staff, base, populationId: loaded.populationId, total: Number(loaded.total) });
   // The summary of misstatements (issue 16): both samples feed it (the drawn one with results, the
   // classical plan once it has results); the manager sets a clearly trivial threshold and the team
   // enters two misstatements found outside sampling.
@@ -88,7 +89,39 @@ async function main(baseUrl: string) {
         message: "Hello Carla, these are the invoices we selected for testing. Thank you for sending the documents by the due date." }),
     });
   }
-  console.log(`demo fieldwork: ${loaded.rowCount} ledger lines loaded, sample ${sample.id} drawn, 24 results recorded, 2 misstatements entered on the summary${carla ? ", a request list sent to the client contact" : ""}; sample ${valuation.id} planned for the advisor`);
+  console.log(`demo fieldwork: ${loaded.rowCount} ledger lines loaded, sample ${sample.id} drawn, 24 results recorded, 2 misstatements entered on the summary${carla ? ", a request list sent to the client contact" : ""}; sample ${valuation.id} planned for the advisor; nonstatistical sample ${nonstatistical} with key items and haphazard picks`);
+}
+
+const JSON_HEADERS = { "content-type": "application/json" };
+
+/**
+ * A nonstatistical cut-off test sized from the risk assessment: the five largest balances and one
+ * chosen invoice are key items, the rest is picked haphazardly on the grid, and results are keyed in.
+ */
+async function demoNonstatistical({ senior, staff, base, populationId, total }: { senior: HttpSession; staff: HttpSession; base: string; populationId: number; total: number }) {
+  const { items: largest } = await senior.json<{ items: { itemRef: string; bookValue: string; rowNumber: number }[] }>(`${base}/populations/${populationId}/items?sort=book&dir=desc&pageSize=25`);
+  const threshold = largest[4].bookValue; // the five largest balances
+  const { sample } = await senior.json<{ sample: { id: number; chosenSize: number } }>(`${base}/samples`, {
+    method: "POST", headers: JSON_HEADERS,
+    body: JSON.stringify({ populationId, name: "Receivables cut-off — key items and a haphazard selection", objective: "Test that invoices recorded in trade receivables relate to goods delivered before the period end.", assertion: "Cut-off", direction: "overstatement",
+      params: { method: "nonstatistical", sizingBasis: "risk-assessment", assessedRisk: "slightly-below-maximum", otherProceduresRisk: "moderate", tolerableMisstatement: (Math.round(total / 20)).toFixed(2), expectedMisstatement: (Math.round(total / 400)).toFixed(2),
+        keyItemThreshold: threshold, keyItems: [{ itemRef: largest[12].itemRef, reason: "Invoiced on the last day of the period to a new customer" }], selection: "haphazard", projection: "ratio" } }),
+  });
+  await senior.json(`${base}/samples/${sample.id}/draw`, { method: "POST", headers: JSON_HEADERS, body: "{}" });
+  // The senior's picks, spread over the ledger by eye (invented for the demo).
+  const rows = Array.from({ length: sample.chosenSize }, (_, i) => 2 + Math.floor(((i + 0.37) * 2397) / sample.chosenSize) + ((i * 7) % 5));
+  for (const rowNumber of rows) {
+    await senior.fetch(`${base}/samples/${sample.id}/picks`, { method: "POST", headers: JSON_HEADERS, body: JSON.stringify({ rowNumber }) });
+  }
+  const { items } = await staff.json<{ items: { id: number; version: number; bookValue: string; keyItem: boolean }[] }>(`${base}/samples/${sample.id}/items?pageSize=500`);
+  const keyed = items.filter((i) => i.keyItem).concat(items.filter((i) => !i.keyItem).slice(0, Math.ceil(items.length * 0.6)));
+  for (const [i, it] of keyed.entries()) {
+    const body = i === 1 ? { status: "done", auditedValue: (Number(it.bookValue) - 1250).toFixed(2), cause: "cut-off", comment: "Goods shipped on 2 October; invoice dated 30 September" }
+      : i === 9 ? { status: "done", auditedValue: (Number(it.bookValue) * 0.9).toFixed(2), cause: "cut-off", comment: "Part of the order delivered after the period end" }
+      : { status: "done", auditedValue: it.bookValue, comment: "Agreed to delivery note dated before the period end" };
+    await staff.json(`${base}/samples/${sample.id}/items/${it.id}`, { method: "PATCH", headers: JSON_HEADERS, body: JSON.stringify({ version: it.version, ...body }) });
+  }
+  return sample.id;
 }
 
 main(process.argv[2] ?? "http://127.0.0.1:3000").catch((err: unknown) => {

@@ -3,8 +3,8 @@
  * `server-only` and of Next so it runs in a bare worker_threads Worker (and in tests) as is.
  */
 import {
-  assumeAuditedValues, recommendEstimator, simulateEstimators, simulateStringer,
-  type AdvisorCell, type Estimator, type FactorMode, type MisstatementScenario, type Recommendation, type SampledItem, type Sides,
+  assumeAuditedValues, bookSignRisk, recommendEstimator, simulateEstimators, simulateStringer,
+  type AdvisorCell, type FactorMode, type MisstatementScenario, type Recommendation, type SampledItem, type SimulatedEstimator, type Sides,
 } from "@/lib/sampling";
 import { formatCount } from "@/lib/format/number";
 
@@ -30,7 +30,8 @@ export interface AdvisorResult {
   notes: string[];
 }
 
-const VARIABLES: Estimator[] = ["mean-per-unit", "difference", "ratio", "regression"];
+/** The four evaluation estimators, then the bias-corrected ratio forms as comparison rows (Cochran 1977 §6.8–6.9). */
+const VARIABLES: SimulatedEstimator[] = ["mean-per-unit", "difference", "ratio", "regression", "hartley-ross", "jackknife-ratio", "beale-ratio", "tin-ratio"];
 
 /** Units of work in a job, for progress: one per trial per estimator group per size. */
 export function jobUnits(job: Pick<AdvisorJob, "sampleSizes" | "trials" | "includeStringer">): number {
@@ -48,16 +49,20 @@ export function runAdvisorJob(job: AdvisorJob, onProgress: (done: number, total:
   let bookCents = 0;
   let auditedCents = 0;
   let misstatedItems = 0;
-  let nonPositive = 0;
+  let zeroBook = 0;
   for (const p of population) {
     bookCents += Math.round(p.bookValue * 100);
     auditedCents += Math.round(p.auditedValue * 100);
     if (p.auditedValue !== p.bookValue) misstatedItems++;
-    if (p.bookValue <= 0) nonPositive++;
+    if (p.bookValue === 0) zeroBook++;
   }
   const notes: string[] = [];
-  const estimators = nonPositive > 0 ? VARIABLES.filter((e) => e !== "ratio") : VARIABLES;
-  if (nonPositive > 0) notes.push(`The ratio estimator was not simulated: ${formatCount(nonPositive)} items have a zero or negative book value.`);
+  // Ratio and regression are defined whenever the sample's book total is not zero, so they are simulated
+  // with zero and negative items too; Hartley–Ross needs every y/x, so zero book values leave it out.
+  const estimators = zeroBook > 0 ? VARIABLES.filter((e) => e !== "hartley-ross") : VARIABLES;
+  if (zeroBook > 0) notes.push(`The Hartley–Ross estimator was not simulated: ${formatCount(zeroBook)} items have a zero book value (it averages y/x item by item).`);
+  const atSize = Math.min(Math.max(job.plannedSize, 1), job.bookValues.length);
+  notes.push(...bookSignRisk({ bookValues: job.bookValues, sampleSize: atSize }).warnings);
   if (job.includeStringer) notes.push("The variables estimators are simulated under simple random selection; the Stringer bound under systematic PPS selection with the interval book total / n.");
 
   const total = jobUnits(job);

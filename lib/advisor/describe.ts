@@ -20,7 +20,7 @@ export function boundInWords(request: Pick<AdvisorRequest, "confidence" | "sides
 }
 
 /** The workpaper's block for the advisor run kept with the plan. */
-export function methodRationaleBlock(run: AdvisorRunRecord, planVersion: number) {
+export function methodRationaleBlock(run: AdvisorRunRecord & { keptReason?: string | null }, planVersion: number) {
   const result = run.result!;
   const rec = result.recommendation;
   return {
@@ -38,6 +38,9 @@ export function methodRationaleBlock(run: AdvisorRunRecord, planVersion: number)
     recommended: rec.recommended === null ? null : ADVISED_ESTIMATOR_LABELS[rec.recommended],
     atSize: rec.sampleSize,
     summary: rec.summary,
+    tradeOff: rec.tradeOff ?? null,
+    /** Why the run was kept although it recommends another estimator or none (required then). */
+    keptReason: run.keptReason ?? null,
     reasons: rec.verdicts.map((v) => v.reason),
     rows: result.cells.map((c) => ({
       sampleSize: c.sampleSize, estimator: ADVISED_ESTIMATOR_LABELS[c.estimator], recommended: c.sampleSize === rec.sampleSize && c.estimator === rec.recommended,

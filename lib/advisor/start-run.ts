@@ -11,6 +11,7 @@ import { instanceId } from "@/lib/workers/instance-id";
 import { AppError, conflict, fieldError } from "@/lib/errors";
 import { loadFrame } from "@/lib/samples/population-frame";
 import { sidesFor } from "@/lib/samples/evaluate";
+import { factorModeOfSample } from "@/lib/samples/methodology";
 import type { AdvisorRun } from "@/lib/validation/advisor";
 import { AdvisorCancelled, AdvisorInputError, MAX_CONCURRENT_RUNS, advisorRunsInProgress, cancelAdvisorRun, runInWorker } from "./runner";
 import { jobUnits, type AdvisorJob } from "./compute";
@@ -79,7 +80,7 @@ export async function startAdvisorRun(ctx: EngagementContext, sample: SampleReco
   const runId = await createAdvisorRun(db, { engagementId: ctx.engagementId, sampleId: sample.id, populationId: sample.populationId, planVersion: sample.planVersion, cacheKey, request, actorId: ctx.user.id });
   const job: AdvisorJob = {
     bookValues: frame.bookValues, scenario: request.scenario, sampleSizes: request.sampleSizes, trials: request.trials, seed: request.seed,
-    confidence: request.confidence, sides: request.sides, plannedSize: request.plannedSize, includeStringer: sample.method === "mus", factors: sample.params.factorMode,
+    confidence: request.confidence, sides: request.sides, plannedSize: request.plannedSize, includeStringer: sample.method === "mus", factors: factorModeOfSample(sample),
   };
   const started = Date.now();
   const finish = (status: "done" | "cancelled" | "failed", extra: { result?: Awaited<ReturnType<typeof runInWorker>>; error?: string }) =>

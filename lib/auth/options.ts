@@ -7,6 +7,14 @@ import { clientAddress } from "./client-address";
 
 export const SESSION_MAX_AGE_SECONDS = 8 * 60 * 60; // one working day
 
+/** True when the user's sessions issued at `issuedAtSeconds` (the JWT's iat) were ended by a password reset. */
+export async function sessionEnded(userId: number, issuedAtSeconds: number): Promise<boolean> {
+  if (!Number.isFinite(userId) || !Number.isFinite(issuedAtSeconds)) return true;
+  const row = await getDb()("users").where({ id: userId }).first<{ sessions_valid_after: Date | string | null } | undefined>("sessions_valid_after");
+  const validAfter = row?.sessions_valid_after ? new Date(row.sessions_valid_after).getTime() : null;
+  return validAfter !== null && issuedAtSeconds * 1000 < Math.floor(validAfter / 1000) * 1000;
+}
+
 export const authOptions: NextAuthOptions = {
   session: { strategy: "jwt", maxAge: SESSION_MAX_AGE_SECONDS },
   // Session cookies are always httpOnly and SameSite=Lax, and Secure (__Secure- prefixed) when served over https.
@@ -23,12 +31,15 @@ export const authOptions: NextAuthOptions = {
     }),
   ],
   callbacks: {
-    jwt({ token, user }) {
+    async jwt({ token, user }) {
       if (user) token.uid = Number(user.id);
+      // An ended session must not come back when its token is re-issued (with a fresh iat): drop the user from it.
+      else if (token.uid !== undefined && (await sessionEnded(Number(token.uid), Number(token.iat)))) delete token.uid;
       return token;
     },
-    session({ session, token }) {
-      if (session.user) (session.user as { id?: number }).id = token.uid as number;
+    async session({ session, token }) {
+      // A session issued before the person's password was reset carries no user: they sign in again.
+      if (session.user && !(await sessionEnded(Number(token.uid), Number(token.iat)))) (session.user as { id?: number }).id = token.uid as number;
       return session;
     },
   },

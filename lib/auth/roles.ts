@@ -13,6 +13,9 @@ export type MembershipRole = EngagementRole | typeof CLIENT_ROLE;
 export const GRADES = ["staff", "senior", "manager", "partner", "client"] as const;
 export type Grade = (typeof GRADES)[number];
 
+/** Grades as people say them. */
+export const GRADE_LABELS: Record<Grade, string> = { staff: "Staff", senior: "Senior", manager: "Manager", partner: "Partner", client: "Client contact" };
+
 export const FIRM_ROLES = ["admin", "member"] as const;
 export type FirmRole = (typeof FIRM_ROLES)[number];
 

@@ -2,7 +2,8 @@ import "server-only";
 import type { Knex } from "knex";
 import { recordAudit } from "./audit-log";
 import { beginSampleWrite } from "@/lib/samples/guard";
-import { conflict, notFound } from "@/lib/errors";
+import { conflict, fieldError, notFound } from "@/lib/errors";
+import { ADVISED_ESTIMATOR_LABELS, type AdvisedEstimator } from "@/lib/sampling/advise";
 import type { AdvisorResult } from "@/lib/advisor/compute";
 import type { MisstatementScenario, Sides } from "@/lib/sampling";
 
@@ -119,23 +120,46 @@ export async function markAdvisorRunInterrupted(db: Knex, { runId }: { runId: nu
   await db("advisor_runs").where({ id: runId, status: "running" }).update({ status: "failed", error: "Interrupted: the server stopped before the run finished.", finished_at: db.fn.now(3) });
 }
 
-/** Makes a finished run the plan's stated rationale for the method; the plan must not be drawn yet. */
-export async function adoptAdvisorRun(db: Knex, { engagementId, sampleId, runId, actorId }: { engagementId: number; sampleId: number; runId: number; actorId: number }) {
+/** The estimator a plan evaluates with, as the advisor names it (null for methods it does not simulate). */
+export function planEstimatorOf(sample: { method: string; estimator: string | null }): AdvisedEstimator | null {
+  if (sample.method === "mus") return "stringer";
+  if (sample.method === "random" || sample.method === "systematic") return (sample.estimator as AdvisedEstimator | null) ?? null;
+  return null;
+}
+
+/**
+ * Makes a finished run the plan's stated rationale for the method; the plan must not be drawn yet.
+ * The run must have simulated the plan's own estimator; one whose recommendation differs from the
+ * plan, or that found none meeting the confidence, is kept only with a written reason.
+ */
+export async function adoptAdvisorRun(db: Knex, { engagementId, sampleId, runId, actorId, reason }: { engagementId: number; sampleId: number; runId: number; actorId: number; reason?: string }) {
   return db.transaction(async (trx) => {
-    const sample = await trx("samples").where({ id: sampleId, engagement_id: engagementId }).forUpdate().first("status", "advisor_run_id");
+    const sample = await trx("samples").where({ id: sampleId, engagement_id: engagementId }).forUpdate().first("status", "advisor_run_id", "advisor_run_reason", "method", "estimator");
     if (!sample) throw notFound("No such sample");
     if (sample.status !== "planned") throw conflict("The sample has been drawn; the rationale for its method is final.");
-    const run = await trx("advisor_runs").where({ id: runId, sample_id: sampleId }).first("status");
+    const run = await trx("advisor_runs").where({ id: runId, sample_id: sampleId }).first("status", "result_json");
     if (!run) throw notFound("No such advisor run");
     if (run.status !== "done") throw conflict("Only a finished advisor run can be the rationale for the method.");
+    const result = json<AdvisorResult>(run.result_json)!;
+    const planned = planEstimatorOf({ method: String(sample.method), estimator: (sample.estimator as string | null) ?? null });
+    const label = planned ? ADVISED_ESTIMATOR_LABELS[planned].toLowerCase() : "the plan's estimator";
+    if (!planned || !result.cells.some((c) => c.estimator === planned)) {
+      throw conflict(`This run did not simulate the plan's estimator (${label}), so it cannot be the rationale for the method. Run the advisor again, or change the plan.`);
+    }
+    const recommended = result.recommendation.recommended;
+    if ((recommended === null || recommended !== planned) && !reason) {
+      const why = recommended === null ? "found no estimator meeting the confidence" : `recommends ${ADVISED_ESTIMATOR_LABELS[recommended].toLowerCase()}, not the plan's ${label}`;
+      throw fieldError("reason", `This run ${why}: write why the plan's method stands despite it.`);
+    }
     await beginSampleWrite(trx, { sampleId, actorId, what: "the method's rationale" });
-    await trx("samples").where({ id: sampleId }).update({ advisor_run_id: runId });
-    await recordAudit(trx, { actorUserId: actorId, engagementId, sampleId, entity: "sample", entityId: sampleId, action: "adopt-advisor-run", before: { advisorRunId: sample.advisor_run_id }, after: { advisorRunId: runId } });
+    await trx("samples").where({ id: sampleId }).update({ advisor_run_id: runId, advisor_run_reason: reason ?? null });
+    await recordAudit(trx, { actorUserId: actorId, engagementId, sampleId, entity: "sample", entityId: sampleId, action: "adopt-advisor-run",
+      before: { advisorRunId: sample.advisor_run_id, reason: sample.advisor_run_reason ?? null }, after: { advisorRunId: runId, reason: reason ?? null } });
   });
 }
 
-export async function getAdoptedAdvisorRun(db: Knex, { sampleId }: { sampleId: number }): Promise<AdvisorRunRecord | null> {
-  const row = await db("samples").where({ id: sampleId }).first("advisor_run_id");
+export async function getAdoptedAdvisorRun(db: Knex, { sampleId }: { sampleId: number }): Promise<(AdvisorRunRecord & { keptReason: string | null }) | null> {
+  const row = await db("samples").where({ id: sampleId }).first("advisor_run_id", "advisor_run_reason");
   if (!row?.advisor_run_id) return null;
-  return getAdvisorRunById(db, { sampleId, runId: Number(row.advisor_run_id) });
+  return { ...(await getAdvisorRunById(db, { sampleId, runId: Number(row.advisor_run_id) })), keptReason: (row.advisor_run_reason as string | null) ?? null };
 }

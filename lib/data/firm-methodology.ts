@@ -50,3 +50,30 @@ export async function saveMethodologyForFirm(
     return getMethodologyByFirmId(trx, { firmId });
   });
 }
+
+export interface MethodologyChange { version: number; changedBy: string | null; changedAt: string; changes: { field: string; from: string; to: string }[] }
+
+/** Flattens settings to "path → value" so two versions can be compared field by field. */
+function flatten(value: unknown, path = ""): Map<string, string> {
+  const out = new Map<string, string>();
+  if (value !== null && typeof value === "object") {
+    for (const [k, v] of Object.entries(value as Record<string, unknown>)) for (const [p, x] of flatten(v, path ? `${path}.${k}` : k)) out.set(p, x);
+  } else out.set(path, JSON.stringify(value));
+  return out;
+}
+
+/** Every saved version of the firm's settings, newest first, with who saved it, when, and what changed from the one before. */
+export async function listMethodologyChangesByFirmId(db: Knex, { firmId }: { firmId: number }): Promise<MethodologyChange[]> {
+  const rows: { version: number; settings_json: unknown; created_at: string; created_by_name: string | null }[] = await db("firm_methodology as m")
+    .leftJoin("users as u", "u.id", "m.created_by").where("m.firm_id", firmId).orderBy("m.version", "asc")
+    .select("m.version", "m.settings_json", "m.created_at", "u.name as created_by_name");
+  let previous = flatten(DEFAULT_METHODOLOGY);
+  const changes: MethodologyChange[] = [];
+  for (const r of rows) {
+    const current = flatten(withMethodologyDefaults(typeof r.settings_json === "string" ? JSON.parse(r.settings_json) : r.settings_json));
+    const diff = [...current].filter(([k, v]) => previous.get(k) !== v).map(([field, to]) => ({ field, from: previous.get(field) ?? "—", to }));
+    changes.push({ version: Number(r.version), changedBy: r.created_by_name ?? null, changedAt: new Date(r.created_at).toISOString(), changes: diff });
+    previous = current;
+  }
+  return changes.reverse();
+}

@@ -31,6 +31,8 @@ export interface PopulationRecord {
   reconciledByName: string | null;
   status: PopulationStatus;
   supersedesId: number | null;
+  /** When it was archived (kept, out of the lists), or null. */
+  archivedAt: string | null;
   createdAt: string;
   createdByName: string;
 }
@@ -55,6 +57,7 @@ function toPopulation(r: Record<string, unknown>): PopulationRecord {
     reconciledAt: r.reconciled_at ? new Date(r.reconciled_at as string).toISOString() : null,
     reconciledByName: (r.reconciled_by_name as string | null) ?? null,
     status: r.status as PopulationStatus, supersedesId: r.supersedes_id === null ? null : Number(r.supersedes_id),
+    archivedAt: r.archived_at ? new Date(r.archived_at as string).toISOString() : null,
     createdAt: new Date(r.created_at as string).toISOString(), createdByName: String(r.created_by_name ?? ""),
   };
 }
@@ -100,4 +103,10 @@ export async function reconcilePopulation(db: Knex, { engagementId, populationId
     });
     return getPopulationById(trx, { engagementId, populationId });
   });
+}
+
+/** The population that replaced this one (loaded with `supersedesId` = it), or null. */
+export async function getSupersedingPopulation(db: Knex, { engagementId, populationId }: { engagementId: number; populationId: number }) {
+  const row = await basePopulationQuery(db).where({ "p.supersedes_id": populationId, "p.engagement_id": engagementId }).orderBy("p.id", "desc").first();
+  return row ? toPopulation(row) : null;
 }

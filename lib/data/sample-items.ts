@@ -7,6 +7,7 @@ import { seekFromQuery, seekPage } from "./keyset";
 import { transactionWithRetry } from "./transaction-retry";
 import type { Cursor, KeysetPage } from "@/lib/validation/keyset";
 import { beginResultWrite } from "@/lib/samples/guard";
+import { ANOMALY_CLEARED } from "@/lib/samples/anomalies";
 import { AppError, notFound } from "@/lib/errors";
 import { centsToDecimal, decimalToCents } from "@/lib/money";
 
@@ -20,7 +21,15 @@ export interface SampleItemRecord {
   hitPoints: number[] | null;
   topStratum: boolean;
   stratum: number | null;
-  origin: "selection" | "extension" | "replacement";
+  origin: "selection" | "extension" | "replacement" | "key-item" | "haphazard";
+  /** Examined 100 % (threshold or chosen with a reason); evaluated at its actual misstatement. */
+  keyItem: boolean;
+  keyReason: string | null;
+  /** Haphazard picks: who picked the item and when. */
+  pickedByName: string | null;
+  pickedAt: string | null;
+  /** An anomalous misstatement: the justification, who marked it, and the manager's or partner's acceptance. */
+  anomaly: { justification: string; markedByName: string | null; markedAt: string | null; acceptedByName: string | null; acceptedAt: string | null } | null;
   replacesItemId: number | null;
   status: "not-started" | "done" | "not-auditable" | "void";
   auditedValue: string | null;
@@ -57,6 +66,12 @@ function toItem(r: Record<string, unknown>): SampleItemRecord {
     cause: (r.cause as string | null) ?? null, causeNote: (r.cause_note as string | null) ?? null,
     deviation: r.deviation === null ? null : Boolean(r.deviation), deviationNature: (r.deviation_nature as string | null) ?? null,
     comment: (r.comment as string | null) ?? null, voidReason: (r.void_reason as string | null) ?? null,
+    keyItem: Boolean(r.key_item), keyReason: (r.key_reason as string | null) ?? null,
+    pickedByName: (r.picked_by_name as string | null) ?? null, pickedAt: r.picked_at ? new Date(r.picked_at as string).toISOString() : null,
+    anomaly: r.anomaly_justification ? {
+      justification: String(r.anomaly_justification), markedByName: (r.anomaly_marked_by_name as string | null) ?? null, markedAt: r.anomaly_marked_at ? new Date(r.anomaly_marked_at as string).toISOString() : null,
+      acceptedByName: (r.anomaly_accepted_by_name as string | null) ?? null, acceptedAt: r.anomaly_accepted_at ? new Date(r.anomaly_accepted_at as string).toISOString() : null,
+    } : null,
     evidenceCount: Number(r.evidence_count ?? 0), requestStatus: (r.request_status as SampleItemRecord["requestStatus"]) ?? null, version: Number(r.version),
     updatedAt: r.updated_at ? new Date(r.updated_at as string).toISOString() : null, updatedByName: (r.updated_by_name as string | null) ?? null,
   };
@@ -65,11 +80,18 @@ function toItem(r: Record<string, unknown>): SampleItemRecord {
 /** Files attached to the item and not deleted (item_evidence). */
 const evidenceCount = (db: Knex) => db.raw("(select count(*) from item_evidence e where e.sample_item_id = i.id and e.deleted_at is null) as evidence_count");
 
+/** Names of the people behind a pick and an anomaly mark (users). */
+const peopleNames = (db: Knex) => [
+  db.raw("(select p.name from users p where p.id = i.picked_by) as picked_by_name"),
+  db.raw("(select m.name from users m where m.id = i.anomaly_marked_by) as anomaly_marked_by_name"),
+  db.raw("(select a.name from users a where a.id = i.anomaly_accepted_by) as anomaly_accepted_by_name"),
+];
+
 /** The newest request on the item (request_items). */
 const requestStatus = (db: Knex) => db.raw("(select r.status from request_items r where r.sample_item_id = i.id order by r.id desc limit 1) as request_status");
 
 function itemQuery(db: Knex, drawId: number) {
-  const q = db("sample_items as i").leftJoin("users as u", "u.id", "i.updated_by").where("i.draw_id", drawId).select("i.*", "u.name as updated_by_name", evidenceCount(db), requestStatus(db));
+  const q = db("sample_items as i").leftJoin("users as u", "u.id", "i.updated_by").where("i.draw_id", drawId).select("i.*", "u.name as updated_by_name", evidenceCount(db), requestStatus(db), ...peopleNames(db));
   return q;
 }
 
@@ -81,7 +103,7 @@ export async function listItemsByDrawId(db: Knex, { drawId, page = 1, pageSize =
   if (status !== "all") base.andWhere("i.status", status);
   if (q) base.andWhere((w) => { w.where("i.item_ref", "like", containsPattern(q)).orWhere("i.description", "like", containsPattern(q)); });
   const total = Number((await base.clone().count({ n: "*" }).first())?.n ?? 0);
-  const rows = base.clone().leftJoin("users as u", "u.id", "i.updated_by").select("i.*", "u.name as updated_by_name", evidenceCount(db), requestStatus(db));
+  const rows = base.clone().leftJoin("users as u", "u.id", "i.updated_by").select("i.*", "u.name as updated_by_name", evidenceCount(db), requestStatus(db), ...peopleNames(db));
   const from = seekFromQuery({ after, before, last: last ?? false, page, pageSize }, total);
   const seek = await seekPage<Record<string, unknown>>(rows, { column: "i.selection_order", key: "i.id", dir: "asc" }, from, pageSize,
     (r) => ({ value: Number(r.selection_order), key: Number(r.id) }));
@@ -95,33 +117,46 @@ export async function getItemById(db: Knex, { drawId, itemId }: { drawId: number
   return toItem(row);
 }
 
+type ResultWrite = { engagementId: number; sampleId: number; drawId: number; itemId: number; actorId: number; input: SaveResult };
+
 /**
- * Saves an item's result if nobody changed it since the caller read it (optimistic concurrency):
- * a stale version gets 409 naming who changed it and when, and nothing is overwritten.
+ * Writes one item's result inside the caller's transaction (after `beginResultWrite`), if nobody
+ * changed it since the caller read it (optimistic concurrency): a stale version gets 409 naming who
+ * changed it and when, and nothing is overwritten. One audit row per item.
  */
-export async function saveItemResult(db: Knex, { engagementId, sampleId, drawId, itemId, actorId, input }: { engagementId: number; sampleId: number; drawId: number; itemId: number; actorId: number; input: SaveResult }) {
+export async function applyItemResult(trx: Knex.Transaction, { engagementId, sampleId, drawId, itemId, actorId, input }: ResultWrite): Promise<SampleItemRecord> {
+  const before = await itemQuery(trx, drawId).andWhere("i.id", itemId).forUpdate().first();
+  if (!before) throw notFound("No such item in this sample");
+  if (before.status === "void") throw new AppError(409, "void_item", "This item was voided and replaced; record the result on its replacement.");
+  if (Number(before.version) !== input.version) {
+    const when = before.updated_at ? new Date(before.updated_at).toISOString().replace("T", " ").slice(0, 16) + " UTC" : "recently";
+    throw new AppError(409, "stale", `${before.updated_by_name ?? "Someone"} changed this item at ${when} after you opened it. Reload to see their change; yours was not saved.`, undefined);
+  }
+  const patch = {
+    status: input.status,
+    audited_value: input.status === "not-auditable" ? null : input.auditedValue ?? null,
+    cause: input.cause ?? null, cause_note: input.causeNote ?? null, deviation: input.deviation ?? null,
+    deviation_nature: input.deviationNature ?? null, comment: input.comment ?? null,
+    version: input.version + 1, updated_by: actorId, updated_at: trx.fn.now(3),
+  };
+  // A later change of the result clears an anomaly mark and its acceptance (they judged the earlier figures).
+  const amountText = (v: unknown) => (v === null || v === undefined ? "" : Number(v).toFixed(2));
+  const resultChanged = before.status !== input.status || amountText(before.audited_value) !== amountText(patch.audited_value);
+  const anomalyCleared = Boolean(before.anomaly_justification) && resultChanged;
+  await trx("sample_items").where({ id: itemId }).update(anomalyCleared ? { ...patch, ...ANOMALY_CLEARED } : patch);
+  const after = await getItemById(trx, { drawId, itemId });
+  const view = (i: SampleItemRecord) => ({ status: i.status, auditedValue: i.auditedValue, cause: i.cause, deviation: i.deviation, comment: i.comment });
+  await recordAudit(trx, { actorUserId: actorId, engagementId, sampleId, entity: "sample_item", entityId: itemId, action: "record-result", before: view(toItem(before)), after: anomalyCleared ? { ...view(after), anomalyCleared: true } : view(after) });
+  return after;
+}
+
+/** Saves one item's result in its own transaction (see applyItemResult). */
+export async function saveItemResult(db: Knex, write: ResultWrite) {
   // A deadlock (or a Galera certification conflict) re-runs the whole save, version check included.
   return transactionWithRetry(db, async (trx) => {
-    const signOffsCleared = await beginResultWrite(trx, { sampleId, actorId, what: "an item's result" });
-    const before = await itemQuery(trx, drawId).andWhere("i.id", itemId).forUpdate().first();
-    if (!before) throw notFound("No such item in this sample");
-    if (before.status === "void") throw new AppError(409, "void_item", "This item was voided and replaced; record the result on its replacement.");
-    if (Number(before.version) !== input.version) {
-      const when = before.updated_at ? new Date(before.updated_at).toISOString().replace("T", " ").slice(0, 16) + " UTC" : "recently";
-      throw new AppError(409, "stale", `${before.updated_by_name ?? "Someone"} changed this item at ${when} after you opened it. Reload to see their change; yours was not saved.`, undefined);
-    }
-    const patch = {
-      status: input.status,
-      audited_value: input.status === "not-auditable" ? null : input.auditedValue ?? null,
-      cause: input.cause ?? null, cause_note: input.causeNote ?? null, deviation: input.deviation ?? null,
-      deviation_nature: input.deviationNature ?? null, comment: input.comment ?? null,
-      version: input.version + 1, updated_by: actorId, updated_at: trx.fn.now(3),
-    };
-    await trx("sample_items").where({ id: itemId }).update(patch);
-    const after = await getItemById(trx, { drawId, itemId });
-    const view = (i: SampleItemRecord) => ({ status: i.status, auditedValue: i.auditedValue, cause: i.cause, deviation: i.deviation, comment: i.comment });
-    await recordAudit(trx, { actorUserId: actorId, engagementId, sampleId, entity: "sample_item", entityId: itemId, action: "record-result", before: view(toItem(before)), after: view(after) });
+    const signOffsCleared = await beginResultWrite(trx, { sampleId: write.sampleId, actorId: write.actorId, what: "an item's result" });
+    const item = await applyItemResult(trx, write);
     // samples.updated_at is not touched here: that would take the sample row exclusively and queue every save behind every other.
-    return { item: after, signOffsCleared };
+    return { item, signOffsCleared };
   });
 }

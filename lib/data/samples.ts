@@ -38,7 +38,8 @@ export interface DrawRecord {
   id: number;
   version: number;
   seed: number;
-  seedSource: "generated" | "entered";
+  /** "haphazard": no seed — the key items are set by the plan and the rest picked by the auditor. */
+  seedSource: "generated" | "entered" | "haphazard";
   algorithm: string;
   algorithmVersion: string;
   populationSha256: string;

@@ -1,5 +1,4 @@
 import "server-only";
-import bcrypt from "bcryptjs";
 import type { Knex } from "knex";
 import type { FirmRole, Grade } from "@/lib/auth/roles";
 import type { CreateUser, UpdateUser } from "@/lib/validation/user";
@@ -51,18 +50,16 @@ export async function listUsersByFirmId(db: Knex, { firmId, activeOnly = false }
   return (await q.select(columns)).map(toUser);
 }
 
-export async function createUser(db: Knex, { firmId, actorId, input }: { firmId: number; actorId: number; input: CreateUser }) {
-  const passwordHash = await bcrypt.hash(input.password, BCRYPT_COST);
-  return db.transaction(async (trx) => {
-    const taken = await trx("users").where({ email: input.email }).first("id");
-    if (taken) throw new AppError(409, "email_taken", `A user with e-mail ${input.email} already exists`, { email: ["Already in use"] });
-    const [id] = await trx("users").insert({
-      firm_id: firmId, email: input.email, name: input.name, grade: input.grade, firm_role: input.firmRole, password_hash: passwordHash,
-    });
-    const after = { email: input.email, name: input.name, grade: input.grade, firmRole: input.firmRole, active: true };
-    await recordAudit(trx, { actorUserId: actorId, entity: "user", entityId: id, action: "create", after });
-    return (await getUserById(trx, { userId: id }))!;
+/** A new person of the firm, inside the caller's transaction; the hash is of a password nobody knows until they choose theirs with an invitation. */
+export async function createUser(trx: Knex.Transaction, { firmId, actorId, input, passwordHash }: { firmId: number; actorId: number; input: CreateUser; passwordHash: string }) {
+  const taken = await trx("users").where({ email: input.email }).first("id");
+  if (taken) throw new AppError(409, "email_taken", `A user with e-mail ${input.email} already exists`, { email: ["Already in use"] });
+  const [id] = await trx("users").insert({
+    firm_id: firmId, email: input.email, name: input.name, grade: input.grade, firm_role: input.firmRole, password_hash: passwordHash,
   });
+  const after = { email: input.email, name: input.name, grade: input.grade, firmRole: input.firmRole, active: true };
+  await recordAudit(trx, { actorUserId: actorId, entity: "user", entityId: id, action: "create", after });
+  return (await getUserById(trx, { userId: id }))!;
 }
 
 export async function updateUser(db: Knex, { firmId, actorId, userId, input }: { firmId: number; actorId: number; userId: number; input: UpdateUser }) {
@@ -85,11 +82,13 @@ export async function updateUser(db: Knex, { firmId, actorId, userId, input }: {
   });
 }
 
-export async function resetUserPassword(db: Knex, { firmId, actorId, userId, password }: { firmId: number; actorId: number; userId: number; password: string }) {
-  const passwordHash = await bcrypt.hash(password, BCRYPT_COST);
-  await db.transaction(async (trx) => {
-    const updated = await trx("users").where({ id: userId, firm_id: firmId }).update({ password_hash: passwordHash, updated_at: trx.fn.now(3) });
-    if (!updated) throw notFound("No such user");
-    await recordAudit(trx, { actorUserId: actorId, entity: "user", entityId: userId, action: "reset-password" });
-  });
+/**
+ * Inside the caller's transaction: the person's password stops working (replaced by one nobody knows)
+ * and every session they have open ends (sessions issued before this instant are refused, lib/auth/options.ts).
+ */
+export async function revokePassword(trx: Knex.Transaction, { firmId, actorId, userId, passwordHash }: { firmId: number; actorId: number; userId: number; passwordHash: string }) {
+  const updated = await trx("users").where({ id: userId, firm_id: firmId }).update({ password_hash: passwordHash, sessions_valid_after: trx.fn.now(3), updated_at: trx.fn.now(3) });
+  if (!updated) throw notFound("No such user");
+  await recordAudit(trx, { actorUserId: actorId, entity: "user", entityId: userId, action: "reset-password", after: { openSessions: "ended", newPassword: "chosen by the person with a one-time link" } });
+  return (await getUserById(trx, { userId }))!;
 }

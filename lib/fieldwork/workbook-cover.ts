@@ -5,6 +5,9 @@ import type { PopulationRecord } from "@/lib/data/populations";
 import type { DrawRecord, SampleRecord } from "@/lib/data/samples";
 import { METHOD_LABELS } from "@/lib/validation/sample";
 import { safeCellText } from "./cell-text";
+import { randomStartOf } from "@/lib/samples/random-start";
+import { formatDate, formatDateTime } from "@/lib/format/dates";
+import { countOf, formatAmount } from "@/lib/format/numbers";
 import { COVER_SHEET, ITEMS_SHEET, STATUS_LABELS, type WorkbookKind } from "./workbook-layout";
 
 interface CoverFacts {
@@ -22,7 +25,7 @@ function instructions(kind: WorkbookKind): string[] {
   const common = [
     `Fill in only the shaded columns of the ${ITEMS_SHEET} sheet; the other columns are locked.`,
     `Status: ${Object.values(STATUS_LABELS).join(", ")}. An item cannot be Done without its result.`,
-    "Do not add, delete, sort or move rows; rows are matched back by item reference and a hidden item id.",
+    "You may sort and filter the rows as you like: they are matched back by item reference and a hidden item id, not by their order. Do not add or delete rows, and do not change a book value.",
     "Import the filled workbook on the sample's page. Every row is checked first: if any row has a problem, nothing is applied and the problems are listed by row and column.",
     "If someone changed an item in Sondage after this workbook was exported, the import refuses your change to that row: export a fresh workbook.",
   ];
@@ -33,22 +36,25 @@ function instructions(kind: WorkbookKind): string[] {
 
 /** The cover sheet: what the workbook is for, where the selection came from, how to fill it, and the judgement caution. */
 export async function writeCoverSheet(wb: ExcelJS.Workbook, f: CoverFacts) {
+  const randomStart = randomStartOf(f.draw);
   const ws = wb.addWorksheet(COVER_SHEET);
   ws.columns = [{ width: 28 }, { width: 90 }];
   const rows: [string, string | number][] = [
-    ["Engagement", `${f.engagement.clientName} — ${f.engagement.name} (period end ${f.engagement.periodEnd})`],
+    ["Engagement", `${f.engagement.clientName} — ${f.engagement.name} (period end ${formatDate(f.engagement.periodEnd)})`],
     ["Sample", f.sample.name],
     ["Objective", f.sample.objective],
     ["Assertion", f.sample.assertion],
     ["Method", METHOD_LABELS[f.sample.method] + (f.sample.estimator ? `, ${f.sample.estimator}` : "")],
     ["Confidence", `${Math.round(f.sample.params.confidence * 1000) / 10}%`],
     ["Seed", String(f.draw.seed)],
-    ["Draw", `version ${f.draw.version}, ${f.draw.algorithm} ${f.draw.algorithmVersion}, drawn ${f.draw.drawnAt.slice(0, 10)} by ${f.draw.drawnByName}`],
-    ["Population", `${f.population.name} (${f.population.rowCount} items, total ${f.population.total})`],
+    ...(randomStart === null ? [] : [[`Random start (${f.engagement.currency})`, formatAmount(randomStart.toFixed(2))] as [string, string]]),
+    ...(f.draw.inputs.interval && f.sample.method === "mus" ? [[`Sampling interval (${f.engagement.currency})`, formatAmount(f.draw.inputs.interval.toFixed(2))] as [string, string]] : []),
+    ["Draw", `version ${f.draw.version}, ${f.draw.algorithm} ${f.draw.algorithmVersion}, drawn ${formatDateTime(f.draw.drawnAt)} by ${f.draw.drawnByName}`],
+    ["Population", `${f.population.name} (${countOf(f.population.rowCount, "item")}, total ${formatAmount(f.population.total)})`],
     ["Population SHA-256", f.draw.populationSha256],
     ["Selection SHA-256", f.draw.selectionSha256],
     ["Items in this workbook", f.itemCount],
-    ["Exported", `${new Date().toISOString().replace("T", " ").slice(0, 16)} UTC by ${f.exportedBy}`],
+    ["Exported", `${formatDateTime(new Date())} by ${f.exportedBy}`],
   ];
   const title = ws.addRow(["Fieldwork workbook"]);
   title.font = { bold: true, size: 14 };

@@ -39,12 +39,12 @@ function cellValues(kind: WorkbookKind, item: SampleItemRecord, letter: (k: Colu
 }
 
 const VALIDATIONS: Partial<Record<ColumnKey, ExcelJS.DataValidation>> = {
-  status: { type: "list", allowBlank: true, formulae: listOf(Object.values(STATUS_LABELS)), showErrorMessage: true, errorTitle: "Status", error: "Choose Not started, Done or Not auditable." },
+  status: { type: "list", allowBlank: true, formulae: listOf(Object.values(STATUS_LABELS)), showErrorMessage: true, errorTitle: "Status", error: `Choose ${Object.values(STATUS_LABELS).join(", ")}.` },
   cause: { type: "list", allowBlank: true, formulae: listOf(MISSTATEMENT_CAUSES.map((c) => CAUSE_LABELS[c])), showErrorMessage: true, errorTitle: "Cause", error: "Choose a cause from the list." },
   deviation: { type: "list", allowBlank: true, formulae: listOf(["Yes", "No"]), showErrorMessage: true, errorTitle: "Deviation", error: "Answer Yes or No." },
 };
 
-async function writeItemsSheet(wb: ExcelJS.Workbook, kind: WorkbookKind, items: SampleItemRecord[]) {
+function writeItemsSheet(wb: ExcelJS.Workbook, kind: WorkbookKind, items: SampleItemRecord[]) {
   const ws = wb.addWorksheet(ITEMS_SHEET, { views: [{ state: "frozen", ySplit: 1 }] });
   const columns = columnsFor(kind);
   ws.columns = columns.map((c) => ({ key: c.key, header: c.header, width: c.width, hidden: c.hidden ?? false }));
@@ -64,9 +64,11 @@ async function writeItemsSheet(wb: ExcelJS.Workbook, kind: WorkbookKind, items: 
       if (validation) cell.dataValidation = validation;
     }
   });
-  // No password: the protection stops accidental edits of book values and formulas; the import
-  // re-checks every row on the server, so nothing relies on the sheet staying protected.
-  await ws.protect("", { selectLockedCells: true, selectUnlockedCells: true, formatColumns: false, formatRows: true, insertRows: false, deleteRows: false, sort: false, autoFilter: false });
+  // The sheet is left unprotected so people can sort and filter it (Excel refuses to sort a protected
+  // range that holds locked cells): rows are matched back by their hidden item id and reference, and
+  // the import refuses a changed book value, so nothing relies on the order or on protection. The
+  // fill-in columns stay marked unlocked and shaded.
+  ws.autoFilter = { from: { row: 1, column: 1 }, to: { row: 1, column: columns.length } };
 }
 
 /** The fieldwork workbook of a drawn sample: a cover sheet and the Items sheet to fill. */
@@ -79,7 +81,7 @@ export async function buildFieldworkWorkbook(db: Knex, { engagementId, sampleId,
   wb.creator = "Sondage";
   wb.created = new Date();
   await writeCoverSheet(wb, { ...view, draw: view.currentDraw, kind, itemCount: items.length, exportedBy, caution: JUDGEMENT_CAUTION });
-  await writeItemsSheet(wb, kind, items);
+  writeItemsSheet(wb, kind, items);
   const bytes = Buffer.from(await wb.xlsx.writeBuffer());
   const slug = view.sample.name.toLowerCase().replace(/[^a-z0-9]+/g, "-").replace(/^-|-$/g, "").slice(0, 40) || "sample";
   return { bytes, fileName: `fieldwork-${slug}-${sampleId}.xlsx` };

@@ -2,6 +2,7 @@ import "server-only";
 import { createHash } from "node:crypto";
 import { CAUSE_LABELS, ITEM_STATUSES, MISSTATEMENT_CAUSES } from "@/lib/validation/sample";
 import type { SampleMethod } from "@/lib/validation/sample";
+import { ITEM_STATUS_ALIASES, ITEM_STATUS_LABELS } from "./field-labels";
 
 /** The fieldwork workbook's two layouts: amounts for variables and MUS samples, yes/no deviations for attribute samples. */
 export type WorkbookKind = "amounts" | "deviations";
@@ -66,7 +67,7 @@ export function columnsFor(kind: WorkbookKind): ColumnSpec[] {
 export type ItemStatus = (typeof ITEM_STATUSES)[number];
 export type Cause = (typeof MISSTATEMENT_CAUSES)[number];
 
-export const STATUS_LABELS: Record<ItemStatus, string> = { "not-started": "Not started", done: "Done", "not-auditable": "Not auditable" };
+export const STATUS_LABELS: Record<ItemStatus, string> = { "not-started": ITEM_STATUS_LABELS["not-started"], done: ITEM_STATUS_LABELS.done, "not-auditable": ITEM_STATUS_LABELS["not-auditable"] };
 
 const byLabel = <T extends string>(labels: Record<T, string>) => {
   const map = new Map<string, T>();
@@ -76,10 +77,10 @@ const byLabel = <T extends string>(labels: Record<T, string>) => {
   }
   return map;
 };
-const STATUS_BY_TEXT = byLabel(STATUS_LABELS);
+const STATUS_BY_TEXT = new Map([...byLabel(STATUS_LABELS), ...Object.entries(ITEM_STATUS_ALIASES)]);
 const CAUSE_BY_TEXT = byLabel(CAUSE_LABELS);
 
-/** A status typed as its label ("Not auditable") or its code ("not-auditable"); undefined when neither. */
+/** A status typed as its label ("Could not be audited", or the older "Not auditable") or its code ("not-auditable"); undefined when neither. */
 export const statusFromText = (text: string) => STATUS_BY_TEXT.get(text.trim().toLowerCase());
 export const causeFromText = (text: string) => CAUSE_BY_TEXT.get(text.trim().toLowerCase());
 

@@ -50,3 +50,11 @@ export function notifyRequestFileReturned(db: Knex, a: { list: RequestListRow; r
       itemRef: a.itemRef, fileName: a.fileName, reason: a.reason, listUrl: clientRequestUrl(a.list.id) },
   }));
 }
+
+/** The contact of a list closed by the lock of its sample is told it takes no more files. */
+export function notifyRequestListClosed(db: Knex, a: { list: RequestListRow; reason: string }) {
+  return safely(`request-list-closed to ${a.list.contactEmail}`, async () => sendMail(db, {
+    to: { name: a.list.contactName, email: a.list.contactEmail }, template: "request-list-closed",
+    data: { recipient: { name: a.list.contactName }, engagement: await engagementRef(db, a.list.engagementId), title: a.list.title, reason: a.reason, listUrl: clientRequestUrl(a.list.id) },
+  }));
+}

@@ -28,6 +28,8 @@ export const CONTRIBUTION_READERS: Record<string, Reader> = {
   // Classical estimators: the allowance the interval uses (A′, or A″ when adjusted): limit − projection.
   variables: (b) => (b.method === "variables" ? { allowance: b.decision.allowance, allowanceNote: null, upperLimit: null, basis: `classical ${b.estimator}` } : null),
   stratified: (b) => (b.method === "stratified" ? { allowance: b.decision.allowance, allowanceNote: null, upperLimit: null, basis: `stratified ${b.estimator}` } : null),
+  // Nonstatistical: projection + key items + accepted anomalies at actual; no allowance is measured (AS 2315.26).
+  nonstatistical: (b) => (b.method === "nonstatistical" ? { allowance: null, allowanceNote: "No allowance for sampling risk is measured for a nonstatistical sample: the auditor judges it (AS 2315.26; AU-C 530).", upperLimit: null, basis: `nonstatistical ${b.projection} projection` } : null),
   // A test of controls has no monetary misstatement to carry.
   attributes: () => null,
 };

@@ -1,13 +1,10 @@
 import "server-only";
-import { randomBytes } from "node:crypto";
-import bcrypt from "bcryptjs";
 import type { Knex } from "knex";
 import { recordAudit } from "@/lib/data/audit-log";
-import { BCRYPT_COST } from "@/lib/data/users";
 import { AppError } from "@/lib/errors";
 import type { z } from "zod";
 import type { InviteClientContactSchema } from "@/lib/validation/requests";
-import { createInvitation } from "./invitations";
+import { createInvitation, unusablePasswordHash } from "./invitations";
 
 export interface ClientContact { userId: number; name: string; email: string; active: boolean; invitationPending: boolean }
 
@@ -26,7 +23,7 @@ export async function listClientContactsByEngagementId(db: Knex, { engagementId 
  * the firm who already has an account is simply added. Anyone else with that e-mail is refused (409).
  */
 export async function inviteClientContact(db: Knex, { engagementId, firmId, actorId, input }: { engagementId: number; firmId: number; actorId: number; input: z.output<typeof InviteClientContactSchema> }) {
-  const unusable = await bcrypt.hash(randomBytes(32).toString("base64url"), BCRYPT_COST);
+  const unusable = await unusablePasswordHash();
   return db.transaction(async (trx) => {
     const existing = await trx("users").where({ email: input.email }).forUpdate().first("id", "firm_id", "grade", "active", "name");
     let userId: number;

@@ -11,6 +11,14 @@ export const INVITATION_DAYS = 14;
 
 const digest = (token: string) => createHash("sha256").update(token).digest("hex");
 
+/** The hash of a random password nobody is told: the account cannot sign in until its owner chooses one with a link. */
+export const unusablePasswordHash = () => bcrypt.hash(randomBytes(32).toString("base64url"), BCRYPT_COST);
+
+/** Any earlier link of the person stops working (a new one is about to be sent). */
+export async function withdrawInvitations(trx: Knex.Transaction, { userId }: { userId: number }) {
+  await trx("user_invitations").where({ user_id: userId }).whereNull("used_at").where("expires_at", ">", trx.fn.now(3)).update({ expires_at: trx.fn.now(3) });
+}
+
 /** A one-time link token for the user; only its SHA-256 is stored, so the database never holds a usable link. */
 export async function createInvitation(trx: Knex.Transaction, { userId, actorId }: { userId: number; actorId: number }): Promise<string> {
   const token = randomBytes(32).toString("base64url");
@@ -27,8 +35,8 @@ export async function getInvitationByToken(db: Knex, { token }: { token: string 
   if (!/^[A-Za-z0-9_-]{20,100}$/.test(token)) return null;
   const row = await db("user_invitations as i").join("users as u", "u.id", "i.user_id")
     .where("i.token_sha256", digest(token)).whereNull("i.used_at").where("i.expires_at", ">", db.fn.now(3)).where("u.active", true)
-    .first("i.id", "u.id as user_id", "u.name", "u.email");
-  return row ? { id: Number(row.id), userId: Number(row.user_id), name: String(row.name), email: String(row.email) } : null;
+    .first("i.id", "u.id as user_id", "u.name", "u.email", "u.grade");
+  return row ? { id: Number(row.id), userId: Number(row.user_id), name: String(row.name), email: String(row.email), grade: String(row.grade) } : null;
 }
 
 /** Sets the invited person's password and spends the link (404 when it is not valid). */

@@ -95,14 +95,15 @@ export async function createRequestList(db: Knex, { sample, actorId, input }: { 
 }
 
 /** A locked sample closes its open request lists (inside the lock's transaction); each closing is in the audit log. */
-export async function closeRequestListsOfSample(trx: Knex.Transaction, { sampleId, engagementId, actorId, reason }: { sampleId: number; engagementId: number; actorId: number; reason: string }) {
+/** Closes the sample's open request lists; returns the ids it closed (their contacts are told after the commit). */
+export async function closeRequestListsOfSample(trx: Knex.Transaction, { sampleId, engagementId, actorId, reason }: { sampleId: number; engagementId: number; actorId: number; reason: string }): Promise<number[]> {
   const open = await trx("request_lists").where({ sample_id: sampleId, status: "open" }).forUpdate().select("id");
-  if (open.length === 0) return 0;
+  if (open.length === 0) return [];
   await trx("request_lists").whereIn("id", open.map((r) => r.id)).update({ status: "closed", closed_reason: reason, closed_at: trx.fn.now(3) });
   for (const { id } of open) {
     await recordAudit(trx, { actorUserId: actorId, engagementId, sampleId, entity: "request_list", entityId: id, action: "close", before: { status: "open" }, after: { status: "closed", reason } });
   }
-  return open.length;
+  return open.map((r) => Number(r.id));
 }
 
 export const CLOSED_BY_LOCK = "The sample was locked: its workpaper is final.";

@@ -1,6 +1,7 @@
 import "server-only";
 import type { Knex } from "knex";
 import type { AuditQuery } from "@/lib/validation/review";
+import type { ChangeContext } from "./describe-change";
 
 export interface AuditTrailEntry { id: number; at: string; actorId: number | null; actorName: string | null; entity: string; entityId: string; action: string; before: unknown; after: unknown }
 
@@ -28,4 +29,16 @@ export async function listSampleAuditTrail(db: Knex, { sampleId, query }: { samp
     });
   }
   return (await q).map((r) => ({ id: Number(r.id), at: new Date(r.at).toISOString(), actorId: r.actor_user_id, actorName: r.name ?? null, entity: r.entity, entityId: r.entity_id, action: r.action, before: parse(r.before_json), after: parse(r.after_json) }));
+}
+
+/** What the readable trail needs to name things: every item of the sample (any draw) and its evidence files. */
+export async function loadChangeContext(db: Knex, { sampleId }: { sampleId: number }): Promise<ChangeContext> {
+  const [items, files] = await Promise.all([
+    db("sample_items").where({ sample_id: sampleId }).select("id", "item_ref"),
+    db("item_evidence as e").join("sample_items as i", "i.id", "e.sample_item_id").where("i.sample_id", sampleId).select("e.id", "e.file_name", "i.item_ref"),
+  ]);
+  return {
+    itemRefs: new Map(items.map((r: { id: number; item_ref: string }) => [String(r.id), String(r.item_ref)])),
+    evidenceNames: new Map(files.map((r: { id: number; file_name: string; item_ref: string }) => [String(r.id), `${r.file_name} (item ${r.item_ref})`])),
+  };
 }

@@ -32,16 +32,16 @@ export async function lockSample(db: Knex, { sample, actorId, role, render }: { 
   await putObjectBytes({ key, bytes: pdf, contentType: "application/pdf" });
   // What the sample carries to the summary of misstatements, frozen as it stands at the lock.
   const contribution = await loadSampleContribution(db, { engagementId: sample.engagementId, sampleId: sample.id, lockedAt: lockedAt.toISOString() });
-  await db.transaction(async (trx) => {
+  const closedListIds = await db.transaction(async (trx) => {
     const current = await trx("samples").where({ id: sample.id }).forUpdate().first("locked_at", "reviewer_signed_at");
     if (current.locked_at) throw lockedError();
     if (!current.reviewer_signed_at) throw conflict("The reviewer sign-off was cleared while the workpaper was being rendered; sign off again.");
     await trx("samples").where({ id: sample.id }).update({ locked_by: actorId, locked_at: lockedAt, workpaper_object_key: key, workpaper_sha256: sha256, workpaper_size_bytes: pdf.length, workpaper_reference: reference });
     await recordAudit(trx, { actorUserId: actorId, engagementId: sample.engagementId, sampleId: sample.id, entity: "sample", entityId: sample.id, action: "lock", after: { role, workpaperSha256: sha256, bytes: pdf.length, reference } });    // The workpaper is final, so the client is asked for nothing more on this sample.
-    await closeRequestListsOfSample(trx, { sampleId: sample.id, engagementId: sample.engagementId, actorId, reason: CLOSED_BY_LOCK });
     await freezeSampleContribution(trx, { engagementId: sample.engagementId, contribution });
+    return closeRequestListsOfSample(trx, { sampleId: sample.id, engagementId: sample.engagementId, actorId, reason: CLOSED_BY_LOCK });
   });
-  return { sha256, bytes: pdf.length, reference };
+  return { sha256, bytes: pdf.length, reference, closedListIds };
 }
 
 /** Unlocks a locked sample: partners only, with a reason; the stored workpaper stays on record in the log. */

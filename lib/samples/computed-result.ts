@@ -14,7 +14,8 @@ const pct = (v: number) => `${(v * 100).toFixed(2)}%`;
 function ruleOf(block: EvaluationBlock): string {
   switch (block.method) {
     case "mus": return `Stringer bound at ${pct(block.confidence)} confidence, ${block.factorMode} factors; ${block.statement}`;
-    case "attributes": return block.twoStage ? `Two-stage plan rule (accept on 0 deviations in stage 1, reject on 2 or more, 1 opens stage 2 accepted only on 0 more); ${block.statement}` : `One-sided Clopper–Pearson upper deviation limit at ${pct(block.confidence)} confidence compared with the tolerable deviation rate; ${block.statement}`;
+    case "nonstatistical": return `Nonstatistical evaluation, no statistical bound: the total projected misstatement compared with tolerable misstatement and with the "well below" amount (${block.wellBelowBasis}); ${block.statement}`;
+    case "attributes": return block.controlFrequency ? `Firm control-frequency table (${block.controlFrequency.frequency} → ${block.controlFrequency.minimumSampleSize}): no deviation expected; ${block.statement}` : block.twoStage ? `Two-stage plan rule (accept on 0 deviations in stage 1, reject on 2 or more, 1 opens stage 2 accepted only on 0 more); ${block.statement}` : `One-sided Clopper–Pearson upper deviation limit at ${pct(block.confidence)} confidence compared with the tolerable deviation rate; ${block.statement}`;
     default: return block.decision.rule;
   }
 }
@@ -26,14 +27,17 @@ function soFar(block: EvaluationBlock): string {
       const parts = (["overstatement", "understatement"] as const).flatMap((d) => (block.compared[d] === null ? [] : [`${d} ${moneyWords(block.compared[d])}`]));
       return `the upper misstatement limit so far (${block.limits}) is ${parts.join(", ")} against tolerable misstatement ${moneyWords(block.tolerableMisstatement)}`;
     }
-    case "attributes": return `${block.deviations} deviation${block.deviations === 1 ? "" : "s"} so far; the upper deviation limit so far is ${pct(block.upperDeviationLimit)} against a tolerable rate of ${pct(block.tolerableRate)}`;
+    case "nonstatistical": return `the total projected misstatement so far is ${moneyWords(block.totalProjected)} (projection ${moneyWords(block.projectedMisstatement)}, key items ${moneyWords(block.keyItems.misstatement)}) against tolerable misstatement ${moneyWords(block.tolerableMisstatement)}`;
+    case "attributes": return block.controlFrequency ? `${block.deviations} deviation${block.deviations === 1 ? "" : "s"} so far; a frequency-based test expects none` : `${block.deviations} deviation${block.deviations === 1 ? "" : "s"} so far; the upper deviation limit so far is ${pct(block.upperDeviationLimit)} against a tolerable rate of ${pct(block.tolerableRate)}`;
     default: return `the projected misstatement so far is ${moneyWords(block.projectedMisstatement)}, with a standard error of ${moneyWords(block.standardError)} and an allowance of ${moneyWords(block.decision.allowance)}`;
   }
 }
 
 function isClose(block: EvaluationBlock): boolean {
   switch (block.method) {
-    case "attributes": return block.twoStage ? false : block.upperDeviationLimit >= (1 - CLOSE_TO_TOLERABLE_SHARE) * block.tolerableRate;
+    // The firm's "well below" amount already decides how close to tolerable a supporting total may be.
+    case "nonstatistical": return false;
+    case "attributes": return block.twoStage || block.controlFrequency ? false : block.upperDeviationLimit >= (1 - CLOSE_TO_TOLERABLE_SHARE) * block.tolerableRate;
     case "mus": {
       const tm = Number(decimalToCents(block.tolerableMisstatement));
       return [block.compared.overstatement, block.compared.understatement].some((v) => v !== null && Number(decimalToCents(v)) >= (1 - CLOSE_TO_TOLERABLE_SHARE) * tm);
@@ -59,9 +63,11 @@ export function computedResultOf(o: { block: EvaluationBlock | null; progress: {
   if (!o.complete) {
     return { status: "provisional", supported: null, statement: `Provisional, on ${withResult} of ${o.progress.total} items: ${soFar(o.block)}. No result is stated until every item has one.`, rule, responseNeeded: false };
   }
-  const supported = o.block.method === "mus" || o.block.method === "attributes" ? o.block.supported : o.block.decision.supported;
+  const supported = o.block.method === "mus" || o.block.method === "attributes" || o.block.method === "nonstatistical" ? o.block.supported : o.block.decision.supported;
   const what = o.block.method === "attributes" ? "reliance on the control" : "the recorded amount";
   const close = supported && isClose(o.block);
-  const statement = `Computed by Sondage: the sample ${supported ? "supports" : "does not support"} ${what} at ${pct(o.block.confidence)} confidence${close ? ", with the limit close to tolerable" : ""}.`;
+  const statement = o.block.method === "nonstatistical"
+    ? `Computed by Sondage: the sample ${supported ? "supports" : "does not support"} ${what} — a nonstatistical evaluation, which claims no confidence level${o.block.verdict === "approaches" ? ": the total projected misstatement is below tolerable misstatement but not well below it" : ""}.`
+    : `Computed by Sondage: the sample ${supported ? "supports" : "does not support"} ${what} at ${pct(o.block.confidence)} confidence${close ? ", with the limit close to tolerable" : ""}.`;
   return { status: supported ? "supported" : "not-supported", supported, statement, rule, responseNeeded: !supported || close };
 }

@@ -9,6 +9,10 @@ import { buildAttributesEvaluation, buildMusEvaluation, buildStratifiedEvaluatio
 import { computedResultOf } from "./computed-result";
 import { UNAUDITABLE_TREATMENT } from "./evaluation-words";
 import { evaluationSettingsOf } from "./evaluation-settings";
+import { methodologyOfSample } from "./methodology";
+import { buildNonstatisticalEvaluation } from "./evaluation-block-nonstatistical";
+import type { AtActualInput } from "./evaluation-at-actual";
+import { CONTROL_FREQUENCY_LABELS } from "@/lib/validation/sample";
 
 export const JUDGEMENT_CAUTION = "These results support, and do not replace, the auditor's professional judgement, the applicable standards (AU-C 530, ISA 530, AS 2315; AU-C 450, ISA 450) and the firm's methodology.";
 
@@ -77,11 +81,12 @@ export function evaluateSample(sample: SampleRecord, population: PopulationRecor
   const tolerable = sample.method === "attribute" ? null : centsToDecimal(decimalToCents(String(sample.params.tolerableMisstatement ?? performanceMateriality)));
   const complete = progress.notStarted === 0 && progress.total > 0;
   const notes = [UNAUDITABLE_TREATMENT[sample.method === "attribute" ? "attribute" : sample.direction]];
+  if (sample.method === "mus" && active.some((it) => it.anomaly)) notes.push(MUS_IGNORES_ANOMALIES);
   const base = { sampleId: sample.id, method: sample.method, direction: sample.direction, confidence: sample.params.confidence, tolerableMisstatement: tolerable, progress, complete, notes, caution: JUDGEMENT_CAUTION };
   if (done.length === 0) return { ...base, block: null, computed: computedResultOf({ block: null, progress, complete }), projectedMisstatement: null, warnings: [] };
   try {
-    const block = blockFor(sample, population, done, tolerable);
-    const projected = block.method === "mus" ? block.mostLikelyMisstatement : block.method === "attributes" ? null : block.projectedMisstatement;
+    const block = blockFor(sample, population, active, tolerable);
+    const projected = block.method === "mus" ? block.mostLikelyMisstatement : block.method === "attributes" ? null : block.method === "nonstatistical" ? block.totalProjected : block.projectedMisstatement;
     return { ...base, block, computed: computedResultOf({ block, progress, complete }), projectedMisstatement: projected, warnings: block.warnings };
   } catch (err) {
     if (err instanceof EngineInputError) return { ...base, block: null, computed: computedResultOf({ block: null, progress, complete, notEvaluable: err.message }), projectedMisstatement: null, warnings: [err.message] };
@@ -89,14 +94,38 @@ export function evaluateSample(sample: SampleRecord, population: PopulationRecor
   }
 }
 
-function blockFor(sample: SampleRecord, population: PopulationRecord, done: SampleItemRecord[], tolerable: Money | null): EvaluationBlock {
+export const MUS_IGNORES_ANOMALIES = "Items marked anomalous are evaluated like any other: the Stringer bound has no provision for anomalous misstatements, so a monetary-unit evaluation ignores the mark.";
+
+/** An anomaly counts only once a manager or partner has accepted it, and only where the firm's methodology allows anomalies. */
+export const acceptedAnomaly = (it: SampleItemRecord, allowed: boolean) => allowed && Boolean(it.anomaly?.acceptedAt);
+
+function blockFor(sample: SampleRecord, population: PopulationRecord, active: SampleItemRecord[], tolerable: Money | null): EvaluationBlock {
   const p = sample.params;
   const settings = evaluationSettingsOf(sample);
+  const done = active.filter(evaluated);
   const item = (it: SampleItemRecord): EvaluatedItem => ({ reference: it.itemRef, bookValue: it.bookValue, auditedValue: auditedForEvaluation(it, sample.direction), topStratum: it.topStratum });
+  const anomaliesAllowed = methodologyOfSample(sample).anomaliesAllowed;
+  const isAnomaly = (it: SampleItemRecord) => acceptedAnomaly(it, anomaliesAllowed);
+  if (sample.method === "nonstatistical") {
+    const ns = sample.plan.nonstatistical!;
+    const key = sample.plan.keyItems ?? null;
+    return buildNonstatisticalEvaluation({
+      projection: ns.projection, direction: sample.direction,
+      sample: done.filter((i) => !i.keyItem).map((i) => ({ ...item(i), anomaly: isAnomaly(i) })),
+      keyItems: done.filter((i) => i.keyItem).map(item), keyItemsPlanned: key?.count ?? 0,
+      remainder: { count: key?.remainder.count ?? sample.plan.frameSize, bookValue: key?.remainder.total ?? sample.plan.frameTotal },
+      tolerableMisstatement: tolerable!, expectedMisstatement: ns.expectedMisstatement, wellBelow: ns.wellBelow, haphazard: ns.selection === "haphazard",
+    });
+  }
   if (sample.method === "attribute") {
     const deviates = (i: SampleItemRecord) => Boolean(i.deviation) || i.status === "not-auditable";
     const deviations = done.filter(deviates).length;
-    const common = { confidence: p.confidence, tolerableRate: p.tolerableRate!, expectedRate: p.expectedRate, sampleSize: done.length, allowedDeviations: sample.plan.allowedDeviations ?? 0, deviations };
+    const row = sample.plan.controlFrequencyRow;
+    const common = {
+      confidence: p.confidence, tolerableRate: p.tolerableRate ?? 0, expectedRate: p.expectedRate, sampleSize: done.length, allowedDeviations: sample.plan.allowedDeviations ?? 0, deviations,
+      populationSize: sample.plan.model === "hypergeometric" ? sample.plan.frameSize : undefined,
+      controlFrequency: row ? { frequency: CONTROL_FREQUENCY_LABELS[row.frequency], minimumSampleSize: row.minimumSampleSize } : undefined,
+    };
     const plan = sample.plan.twoStage;
     if (!plan) return buildAttributesEvaluation(common);
     const stage2 = done.filter((i) => i.origin === "extension");
@@ -109,8 +138,15 @@ function blockFor(sample: SampleRecord, population: PopulationRecord, done: Samp
   if (!(planned > 0)) throw new EngineInputError("plannedAllowance", "plannedAllowance is missing from the plan; plan the sample again");
   const classical = { direction: sample.direction, riskOfIncorrectRejection: p.riskOfIncorrectRejection, plannedAllowance: planned, plannedSides: sample.plan.sides ?? "two", distribution: settings.classicalDistribution } as const;
   const common = { ...classical, estimator: p.estimator as never, confidence: p.confidence, sides: sidesFor(sample.direction), tolerableMisstatement: tolerable! };
+  // Key items (every one, at book until it has a result) and accepted anomalies are taken at actual, outside the estimator.
+  const key = sample.plan.keyItems ?? null;
+  const outside = done.filter((i) => !i.keyItem);
+  const asSampled = (i: SampleItemRecord): EvaluatedItem => (isAnomaly(i) ? { ...item(i), auditedValue: i.bookValue } : item(i));
+  const atActual: AtActualInput | undefined = key || done.some(isAnomaly)
+    ? { keyItems: active.filter((i) => i.keyItem).map((i) => (evaluated(i) ? item(i) : { ...item(i), auditedValue: i.bookValue })), anomalies: outside.filter(isAnomaly).map(item) }
+    : undefined;
   if (sample.method === "stratified") {
-    return buildStratifiedEvaluation({ ...common, strata: sample.plan.strata!.map((s) => ({ label: s.label, populationSize: s.populationSize, populationBookValue: s.bookValue, items: done.filter((i) => i.stratum === s.number).map(item) })) });
+    return buildStratifiedEvaluation({ ...common, atActual, strata: sample.plan.strata!.map((s) => ({ label: s.label, populationSize: s.populationSize, populationBookValue: s.bookValue, items: outside.filter((i) => i.stratum === s.number).map(asSampled) })) });
   }
-  return buildVariablesEvaluation({ ...common, populationSize: population.rowCount, populationBookValue: population.total, items: done.map(item) });
+  return buildVariablesEvaluation({ ...common, atActual, populationSize: key ? key.remainder.count : population.rowCount, populationBookValue: key ? key.remainder.total : population.total, items: outside.map(asSampled) });
 }

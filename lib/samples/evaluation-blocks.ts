@@ -13,6 +13,7 @@ import type {
   VariablesEvaluationBlock, VariablesResultFigures,
 } from "./evaluation-types";
 import { describeClassicalRule, describeMusLimits, MUS_UNDERSTATEMENT_CAUTION } from "./evaluation-words";
+import { addAtActual, type AtActualInput } from "./evaluation-at-actual";
 
 export interface EvaluatedItem { reference: string; bookValue: Money; auditedValue: Money; topStratum?: boolean }
 
@@ -150,38 +151,45 @@ function figures(r: VariablesEvaluation, o: ClassicalPlanInputs & { confidence: 
   };
 }
 
+/**
+ * `populationSize`/`populationBookValue` are the estimator's frame: with key items, the remainder
+ * outside them; `atActual` brings the key items and accepted anomalies back at their actual amounts.
+ */
 export function buildVariablesEvaluation(o: ClassicalPlanInputs & {
   estimator: Estimator; confidence: number; sides: Sides; tolerableMisstatement: Money;
-  populationSize: number; populationBookValue: Money; items: EvaluatedItem[];
+  populationSize: number; populationBookValue: Money; items: EvaluatedItem[]; atActual?: AtActualInput;
 }): VariablesEvaluationBlock {
-  const r = evaluateVariables({ estimator: o.estimator, populationSize: o.populationSize, populationBookValue: toNumber(o.populationBookValue), sample: o.items.map(pair), confidence: o.confidence, sides: o.sides, distribution: o.distribution });
+  const estimate = evaluateVariables({ estimator: o.estimator, populationSize: o.populationSize, populationBookValue: toNumber(o.populationBookValue), sample: o.items.map(pair), confidence: o.confidence, sides: o.sides, distribution: o.distribution });
+  const whole = addAtActual(estimate, { size: o.populationSize, bookValue: o.populationBookValue }, o.atActual);
   return {
     method: "variables", estimator: o.estimator, confidence: o.confidence, sides: o.sides, tolerableMisstatement: o.tolerableMisstatement,
-    populationSize: o.populationSize, populationBookValue: o.populationBookValue, sampleSize: o.items.length,
+    populationSize: whole.populationSize, populationBookValue: whole.populationBookValue, sampleSize: o.items.length,
     sampleBookValue: sumMoney(o.items.map((i) => i.bookValue)), sampleAuditedValue: sumMoney(o.items.map((i) => i.auditedValue)),
-    ...figures(r, o), warnings: r.warnings, formulaReferences: VARIABLES_REFERENCES,
+    ...figures(whole.result, { ...o, populationBookValue: whole.populationBookValue }), atActual: whole.figures, warnings: whole.result.warnings, formulaReferences: VARIABLES_REFERENCES,
   };
 }
 
 export function buildStratifiedEvaluation(o: ClassicalPlanInputs & {
   estimator: StratifiedEstimator; confidence: number; sides: Sides; tolerableMisstatement: Money;
-  strata: { label: string; populationSize: number; populationBookValue: Money; items: EvaluatedItem[] }[];
+  strata: { label: string; populationSize: number; populationBookValue: Money; items: EvaluatedItem[] }[]; atActual?: AtActualInput;
 }): StratifiedEvaluationBlock {
-  const r = evaluateStratified({
+  const estimate = evaluateStratified({
     estimator: o.estimator, confidence: o.confidence, sides: o.sides, distribution: o.distribution,
     strata: o.strata.map((st) => ({ populationSize: st.populationSize, populationBookValue: toNumber(st.populationBookValue), sample: st.items.map(pair) })),
   });
+  const remainder = { size: o.strata.reduce((n, st) => n + st.populationSize, 0), bookValue: sumMoney(o.strata.map((st) => st.populationBookValue)) };
+  const whole = addAtActual(estimate, remainder, o.atActual);
   return {
     method: "stratified", estimator: o.estimator, confidence: o.confidence, sides: o.sides, tolerableMisstatement: o.tolerableMisstatement,
-    populationSize: o.strata.reduce((n, st) => n + st.populationSize, 0),
-    populationBookValue: sumMoney(o.strata.map((st) => st.populationBookValue)),
+    populationSize: whole.populationSize,
+    populationBookValue: whole.populationBookValue,
     strata: o.strata.map((st, h) => ({
       number: h + 1, label: st.label, populationSize: st.populationSize, populationBookValue: st.populationBookValue,
       sampleSize: st.items.length, sampleBookValue: sumMoney(st.items.map((i) => i.bookValue)), sampleAuditedValue: sumMoney(st.items.map((i) => i.auditedValue)),
       misstatementsInSample: st.items.filter((i) => decimalToCents(i.bookValue) !== decimalToCents(i.auditedValue)).length,
-      estimatedAuditedValue: money(r.strata[h].estimatedAuditedValue), standardError: money(r.strata[h].standardError),
+      estimatedAuditedValue: money(estimate.strata[h].estimatedAuditedValue), standardError: money(estimate.strata[h].standardError),
     })),
-    ...figures(r, { ...o, populationBookValue: sumMoney(o.strata.map((st) => st.populationBookValue)) }), warnings: r.warnings, formulaReferences: VARIABLES_REFERENCES,
+    ...figures(whole.result, { ...o, populationBookValue: whole.populationBookValue }), atActual: whole.figures, warnings: whole.result.warnings, formulaReferences: VARIABLES_REFERENCES,
   };
 }
 
@@ -190,21 +198,57 @@ export const ATTRIBUTES_REFERENCES = [
   "Sample size: smallest n with BinomialCDF(⌈EDR·n⌉; n, TDR) ≤ 1 − confidence, which reproduces the AICPA Audit Guide \"Audit Sampling\" attribute tables.",
 ];
 
+export const HYPERGEOMETRIC_REFERENCES = [
+  "Small population (below the firm's threshold): sampling without replacement, hypergeometric. Size: smallest n with HypergeometricCDF(⌈EDR·n⌉; N, M, n) ≤ 1 − confidence, M = ⌈TDR·N⌉ deviations assumed in the population.",
+  "Upper deviation limit: M_U / N, M_U the largest number of population deviations with HypergeometricCDF(k; N, M_U, n) > 1 − confidence (the exact hypergeometric bound).",
+];
+
+export const CONTROL_FREQUENCY_REFERENCES = [
+  "Size from the firm's control-frequency table (how often the manual control operates → minimum items): firm methodology, not a statistical size. No deviation is expected: any deviation means the test does not support the planned reliance without further work (common practice).",
+  "The upper deviation limit is shown for information only: one-sided Clopper–Pearson bound, C. J. Clopper & E. S. Pearson, Biometrika 26 (1934).",
+];
+
 export function buildAttributesEvaluation(o: {
   confidence: number; tolerableRate: number; expectedRate: number; sampleSize: number; allowedDeviations: number;
   deviations: number; limitMode?: "exact" | "table";
   twoStage?: { plan: TwoStageAttributePlan; firstStageDeviations: number; secondStageDeviations?: number };
+  /** A plan sized with the hypergeometric distribution on its population of N items is evaluated with it. */
+  populationSize?: number;
+  controlFrequency?: { frequency: string; minimumSampleSize: number };
 }): AttributesEvaluationBlock {
-  const r = evaluateAttributes({ sampleSize: o.sampleSize, deviations: o.deviations, confidence: o.confidence, mode: o.limitMode });
+  const r = evaluateAttributes({ sampleSize: o.sampleSize, deviations: o.deviations, confidence: o.confidence, mode: o.limitMode, populationSize: o.controlFrequency ? undefined : o.populationSize });
   const pct = (v: number) => `${(v * 100).toFixed(2)}%`;
-  if (o.twoStage) return { ...twoStageBlock(o, r, o.twoStage), formulaReferences: [TWO_STAGE_REFERENCE, ...ATTRIBUTES_REFERENCES] };
+  const model = { model: r.model, populationSize: r.model === "hypergeometric" ? o.populationSize! : null, upperDeviations: r.upperDeviations ?? null, controlFrequency: null };
+  if (o.twoStage) return { ...twoStageBlock(o, r, o.twoStage), ...model, formulaReferences: [TWO_STAGE_REFERENCE, ...ATTRIBUTES_REFERENCES] };
+  if (o.controlFrequency) return controlFrequencyBlock(o, r, o.controlFrequency);
   const supported = r.upperLimit <= o.tolerableRate;
   return {
     method: "attributes", confidence: o.confidence, tolerableRate: o.tolerableRate, expectedRate: o.expectedRate,
-    sampleSize: o.sampleSize, allowedDeviations: o.allowedDeviations, deviations: o.deviations,
+    sampleSize: o.sampleSize, allowedDeviations: o.allowedDeviations, deviations: o.deviations, ...model,
     sampleRate: r.sampleRate, upperDeviationLimit: r.upperLimit, limitMode: r.mode, allowanceForSamplingRisk: r.upperLimit - r.sampleRate, twoStage: null, supported,
     statement: `${o.deviations} deviation${o.deviations === 1 ? "" : "s"} in ${o.sampleSize}: the upper deviation limit ${pct(r.upperLimit)} is ${supported ? "at or below" : "above"} the tolerable deviation rate ${pct(o.tolerableRate)}${o.deviations > o.allowedDeviations ? `; more deviations were found (${o.deviations}) than the plan allowed (${o.allowedDeviations})` : ""}.`,
-    warnings: [], formulaReferences: ATTRIBUTES_REFERENCES,
+    warnings: [], formulaReferences: r.model === "hypergeometric" ? HYPERGEOMETRIC_REFERENCES : ATTRIBUTES_REFERENCES,
+  };
+}
+
+/** A control test sized from the firm's frequency table is judged on its deviations: none is expected (common practice). */
+function controlFrequencyBlock(
+  o: { confidence: number; sampleSize: number; deviations: number },
+  r: ReturnType<typeof evaluateAttributes>,
+  row: { frequency: string; minimumSampleSize: number },
+): AttributesEvaluationBlock {
+  const supported = o.deviations === 0;
+  const pct = (v: number) => `${(v * 100).toFixed(2)}%`;
+  return {
+    method: "attributes", confidence: o.confidence, tolerableRate: 0, expectedRate: 0,
+    sampleSize: o.sampleSize, allowedDeviations: 0, deviations: o.deviations,
+    model: "binomial", populationSize: null, upperDeviations: null, controlFrequency: row,
+    sampleRate: r.sampleRate, upperDeviationLimit: r.upperLimit, limitMode: r.mode, allowanceForSamplingRisk: r.upperLimit - r.sampleRate, twoStage: null, supported,
+    statement: supported
+      ? `No deviation in ${o.sampleSize} occurrence${o.sampleSize === 1 ? "" : "s"} tested (the firm's control-frequency table: ${row.frequency} → ${row.minimumSampleSize}): the test supports reliance on the control, subject to the auditor's judgement. For information, the upper deviation limit at ${pct(o.confidence)} confidence is ${pct(r.upperLimit)}.`
+      : `${o.deviations} deviation${o.deviations === 1 ? "" : "s"} in ${o.sampleSize} occurrences tested from the firm's control-frequency table: a frequency-based test expects none, so it does not support the planned reliance without further work (understand the cause, extend the test or test a compensating control).`,
+    warnings: ["Sized from the firm's control-frequency table: not a statistical sample; the upper deviation limit is shown for information only."],
+    formulaReferences: CONTROL_FREQUENCY_REFERENCES,
   };
 }
 
@@ -220,7 +264,7 @@ function twoStageBlock(
   o: { confidence: number; tolerableRate: number; expectedRate: number; sampleSize: number; allowedDeviations: number; deviations: number },
   r: ReturnType<typeof evaluateAttributes>,
   t: { plan: TwoStageAttributePlan; firstStageDeviations: number; secondStageDeviations?: number },
-): Omit<AttributesEvaluationBlock, "formulaReferences"> {
+): Omit<AttributesEvaluationBlock, "formulaReferences" | "model" | "populationSize" | "upperDeviations" | "controlFrequency"> {
   const e = evaluateTwoStageAttributes(t);
   const pct = (v: number) => `${(v * 100).toFixed(2)}%`;
   const stage2 = t.secondStageDeviations === undefined ? "" : `, stage 2: ${t.secondStageDeviations} in ${t.plan.secondStageSize}`;

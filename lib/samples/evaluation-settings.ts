@@ -1,6 +1,6 @@
 import type { SampleRecord } from "@/lib/data/samples";
 import type { ClassicalDistribution, FactorMode } from "@/lib/sampling";
-import { methodologyOfSample } from "./methodology";
+import { factorModeOfSample, methodologyOfSample } from "./methodology";
 
 export interface EvaluationSettings {
   classicalDistribution: ClassicalDistribution;
@@ -10,9 +10,9 @@ export interface EvaluationSettings {
 
 /**
  * The settings evaluation reads: the firm methodology stamped on the plan (never the firm's current
- * settings) for the t/z choice and the gross/net convention; the factor mode the plan itself chose.
+ * settings) for the t/z choice, the gross/net convention and the Poisson factor mode (the mode the size used).
  */
 export function evaluationSettingsOf(sample: SampleRecord): EvaluationSettings {
   const m = methodologyOfSample(sample);
-  return { classicalDistribution: m.classicalDistribution, musLimits: m.musLimits, factorMode: sample.params.factorMode };
+  return { classicalDistribution: m.classicalDistribution, musLimits: m.musLimits, factorMode: factorModeOfSample(sample) };
 }

@@ -109,6 +109,20 @@ export interface VariablesResultFigures {
   decision: ClassicalDecisionFigures;
 }
 
+/**
+ * Items a classical evaluation takes at their actual misstatement, outside the estimator: key items
+ * (examined 100 %) and accepted anomalous misstatements (ISA 530 ¶13, AU-C 530.13). The estimator
+ * runs on the remainder; the estimate, the projection and both limits add these amounts.
+ */
+export interface AtActualFigures {
+  remainderSize: number;
+  remainderBookValue: Money;
+  remainderEstimatedAuditedValue: Money;
+  remainderProjectedMisstatement: Money;
+  keyItems: { count: number; bookValue: Money; auditedValue: Money; misstatement: Money };
+  anomalies: { count: number; misstatement: Money };
+}
+
 export interface VariablesEvaluationBlock extends VariablesResultFigures {
   method: "variables";
   estimator: Estimator;
@@ -120,6 +134,8 @@ export interface VariablesEvaluationBlock extends VariablesResultFigures {
   sampleSize: number;
   sampleBookValue: Money;
   sampleAuditedValue: Money;
+  /** Key items and accepted anomalies at actual; null when there are none. X and N above are the whole population's. */
+  atActual: AtActualFigures | null;
   warnings: string[];
   formulaReferences: string[];
 }
@@ -145,7 +161,9 @@ export interface StratifiedEvaluationBlock extends VariablesResultFigures {
   tolerableMisstatement: Money;
   populationSize: number;
   populationBookValue: Money;
+  /** The strata cover the items outside the key items. */
   strata: StratumEvaluationRow[];
+  atActual: AtActualFigures | null;
   warnings: string[];
   formulaReferences: string[];
 }
@@ -162,6 +180,13 @@ export interface AttributesEvaluationBlock {
   upperDeviationLimit: number;
   /** "exact" Clopper–Pearson limit, or "table" (rounded up to 0.1 point as the published tables). */
   limitMode: "exact" | "table";
+  /** The limit's distribution: binomial, or hypergeometric for a plan sized on its population's N. */
+  model: "binomial" | "hypergeometric";
+  /** Hypergeometric only: N and M_U, the largest number of deviations in the population the sample leaves plausible. */
+  populationSize: number | null;
+  upperDeviations: number | null;
+  /** Plans sized from the firm's control-frequency table: the row used. No deviation is expected; the limit is for information. */
+  controlFrequency: { frequency: string; minimumSampleSize: number } | null;
   /** UDL − k/n. */
   allowanceForSamplingRisk: number;
   /** A planned two-stage plan decides by its own rule (the deviation limit above is shown for information). */
@@ -176,7 +201,46 @@ export interface AttributesEvaluationBlock {
   formulaReferences: string[];
 }
 
+/**
+ * Nonstatistical evaluation (PCAOB AS 2315.26; AICPA Audit Guide "Audit Sampling", nonstatistical
+ * evaluation): the sample's misstatement projected to the remainder, plus key items and accepted
+ * anomalies at actual, compared with TM and with the firm's "well below" amount. No bound is claimed.
+ */
+export interface NonstatisticalEvaluationBlock {
+  method: "nonstatistical";
+  projection: "ratio" | "difference";
+  direction: TestDirection;
+  /** Items outside the key items with a result, their book value, and the misstatement found in them (anomalies included). */
+  sampleCount: number;
+  sampleBookValue: Money;
+  sampleMisstatement: Money;
+  remainderCount: number;
+  remainderBookValue: Money;
+  /** The sample's misstatement (accepted anomalies excluded) projected to the remainder. */
+  projectedMisstatement: Money;
+  keyItems: { planned: number; evaluated: number; misstatement: Money };
+  anomalies: { count: number; misstatement: Money };
+  /** Projection + key items + anomalies (overstatement positive). */
+  totalProjected: Money;
+  /** The total in the direction tested, as compared with TM. */
+  comparedAmount: Money;
+  tolerableMisstatement: Money;
+  expectedMisstatement: Money;
+  wellBelowAmount: Money;
+  /** What "well below" means under the firm's setting stamped on the plan, in words with the amount. */
+  wellBelowBasis: string;
+  /** "approaches": below TM but not well below it; the Guide treats it, like "exceeds", as an unacceptably high risk. */
+  verdict: "supports" | "approaches" | "exceeds";
+  supported: boolean;
+  statement: string;
+  /** The usual responses when the sample does not support the amount; empty otherwise. */
+  responses: string[];
+  warnings: string[];
+  formulaReferences: string[];
+}
+
 export type EvaluationBlock =
+  | NonstatisticalEvaluationBlock
   | MusEvaluationBlock
   | VariablesEvaluationBlock
   | StratifiedEvaluationBlock

@@ -37,7 +37,7 @@ export async function extendSample(db: Knex, { sample, actorId, additional, reas
   const from = draw.inputs.ranks!;
   if (from + additional > frame.bookValues.length) throw conflict(`Only ${frame.bookValues.length - from} items are left to add.`);
   const inputs: SelectionInputs = { ...draw.inputs, ranks: from + additional };
-  const added = computeSelection(frame, inputs, draw.seed).slice(from);
+  const added = computeSelection(frame, inputs, draw.seed).filter((it) => !it.keyItem).slice(from);
   await db.transaction(async (trx) => {
     await beginSampleWrite(trx, { sampleId: sample.id, actorId, what: "an extension" });
     if (sample.method === "attribute") await assertAttributeExtension(trx, sample, draw.id, additional); // again, under the sample lock

@@ -1,15 +1,19 @@
 import "server-only";
-import {
-  attributeSampleSize, twoStageAttributePlan, musSampleSize, neymanAllocation, stratifiedSampleSize, variablesSampleSize,
-} from "@/lib/sampling";
+import { bookSignRisk, twoStageAttributePlan, neymanAllocation, stratifiedSampleSize, variablesSampleSize, type FactorMode } from "@/lib/sampling";
 import { standardDeviation } from "@/lib/sampling/descriptive";
 import { centsToDecimal } from "@/lib/money";
 import { engineInputError, fieldError } from "@/lib/errors";
 import { EngineInputError } from "@/lib/sampling";
-import type { SampleParams } from "@/lib/validation/sample";
+import type { MethodologySettings } from "@/lib/validation/methodology";
+import { KEY_ITEM_METHODS, type SampleParams } from "@/lib/validation/sample";
 import type { Frame } from "./population-frame";
 import { stratifyFrame } from "./strata";
-import { MUS_UNDERSTATEMENT_CAUTION } from "./evaluation-words";
+import { planMus } from "./plan-mus";
+import { planAttribute } from "./plan-attribute";
+import { resolveSpread, type PriorSpread, type SpreadChoice } from "./plan-spread";
+import { remainderFrame, resolveKeyItems, type KeyItemsPlan } from "./key-items";
+import { riskSizing, type RiskSizing } from "./risk-sizing";
+import { planNonstatistical, type NonstatisticalPlanPart } from "./plan-nonstatistical";
 
 export interface PlannedStratum { number: number; label: string; populationSize: number; bookValue: string; standardDeviation: number; allocation: number }
 
@@ -32,25 +36,62 @@ export interface SamplePlan {
   /** Classical variables plans: the sides of z_α the size used — "two" when both directions are
    *  tested, "one" for one direction — stored so that evaluation uses the same (absent: "two"). */
   sides?: "two" | "one";
+  /** MUS: the size method and factor mode of the firm's methodology stamped on the plan. */
+  sizeMethod?: MethodologySettings["musSizeMethod"];
+  factorMode?: FactorMode;
+  /** Attribute: the distribution the size (and the evaluation) uses. */
+  model?: "binomial" | "hypergeometric";
+  /** Attribute plans by control frequency: the firm table's row used. */
+  controlFrequencyRow?: MethodologySettings["controlFrequencies"][number];
+  /** Classical plans: the expected standard deviation and its basis. */
+  spread?: SpreadChoice;
+  /** Facts about how the size was reached that are not warnings (e.g. the hypergeometric default). */
+  notes?: string[];
   warnings: string[];
+  /** How the confidence (and assurance factor) were set: risks, table cell and version, or an override. */
+  risk?: RiskSizing;
+  /** Key items examined 100 %; the size and the draw are on the remainder. */
+  keyItems?: KeyItemsPlan | null;
+  nonstatistical?: NonstatisticalPlanPart;
 }
 
 export type PlanDirection = "overstatement" | "understatement" | "both";
 
+/**
+ * What a plan is sized under besides its own parameters: the firm's methodology (stamped on the plan
+ * when saved) and its version (printed on the workpaper beside the assurance factor used).
+ */
+export interface PlanContext { methodology: MethodologySettings; methodologyVersion?: number; priorSpread?: PriorSpread; direction?: PlanDirection }
+
 const money = (cents: bigint) => centsToDecimal(cents);
 
 /** Sample size and its computation for a population, as the auditor sees it while planning. */
-export function computePlan(frame: Frame, params: SampleParams, performanceMateriality: string, direction: PlanDirection = "both"): SamplePlan {
-  const tolerable = Number(params.tolerableMisstatement ?? performanceMateriality);
-  const expected = Number(params.expectedMisstatement);
-  const plan = engineCall(params, () => {
+export function computePlan(frame: Frame, input: SampleParams, performanceMateriality: string, context: PlanContext): SamplePlan {
+  const direction = context.direction ?? "both";
+  const tolerable = Number(input.tolerableMisstatement ?? performanceMateriality);
+  const expected = Number(input.expectedMisstatement);
+  const risk = riskSizing(input, { version: context.methodologyVersion ?? 0, assuranceFactors: context.methodology.assuranceFactors });
+  const params: SampleParams = { ...input, confidence: risk.confidence };
+  const keyItems = KEY_ITEM_METHODS.includes(params.method) ? resolveKeyItems(frame, params) : null;
+  const sampled = keyItems ? remainderFrame(frame, keyItems.items.map((k) => k.rowNumber)).frame : frame;
+  const sides = direction === "both" ? "two" : "one";
+  const planned = engineCall(params, (): SamplePlan => {
     switch (params.method) {
-      case "mus": return planMus(frame, params, tolerable, expected, direction);
-      case "attribute": return planAttribute(frame, params);
-      case "stratified": return planStratified(frame, params, tolerable, expected, direction === "both" ? "two" : "one");
-      default: return planVariables(frame, params, tolerable, expected, direction === "both" ? "two" : "one");
+      case "mus": return planMus(frame, params, tolerable, expected, { methodology: context.methodology, direction });
+      case "attribute": return params.attributePlan === "two-stage" ? planTwoStage(frame, params) : planAttribute(frame, params, context.methodology);
+      case "stratified": return planStratified(sampled, params, tolerable, expected, sides);
+      case "nonstatistical": {
+        const r = planNonstatistical(frame, params, { tolerable, expected, risk, keyItems, settings: context.methodology.nonstatistical });
+        return { method: "nonstatistical", frameSize: frame.bookValues.length, frameTotal: money(frame.totalCents), excluded: null, computedSize: r.computedSize, chosenSize: params.sampleSize ?? r.computedSize, formula: r.formula, inputs: r.inputs, nonstatistical: r.nonstatistical, warnings: r.warnings };
+      }
+      default: return planVariables(sampled, params, tolerable, expected, sides, context.priorSpread);
     }
   });
+  const plan: SamplePlan = { ...planned, risk, keyItems };
+  if (keyItems && params.method !== "nonstatistical") plan.warnings = [...plan.warnings, `The size is computed on the ${keyItems.remainder.count} items outside the ${keyItems.count} key items (book value ${keyItems.remainder.total}); key items are examined in full and evaluated at their actual misstatement.`];
+  if (keyItems && plan.chosenSize > keyItems.remainder.count) {
+    throw fieldError("sampleSize", `at most ${keyItems.remainder.count} items remain outside the key items`, `At most ${keyItems.remainder.count}`);
+  }
   if (params.sampleSize !== undefined && params.sampleSize < plan.computedSize && !params.sizeReason) {
     throw fieldError("sampleSize", `${params.sampleSize} is below the computed size ${plan.computedSize}; record the reason to use a smaller sample`, `Below the computed size ${plan.computedSize}: give a reason`);
   }
@@ -73,49 +114,22 @@ function engineCall<T>(params: object, fn: () => T): T {
   }
 }
 
-function signSummary(frame: Frame) {
-  let zeroCount = 0, negativeCount = 0, negativeCents = 0n, positiveCents = 0n, positiveCount = 0;
-  frame.bookCents.forEach((c) => {
-    if (c === 0n) zeroCount++;
-    else if (c < 0n) { negativeCount++; negativeCents += c; }
-    else { positiveCount++; positiveCents += c; }
-  });
-  return { zeroCount, negativeCount, negativeCents, positiveCount, positiveCents };
-}
-
-function planMus(frame: Frame, p: SampleParams, tolerable: number, expected: number, direction: PlanDirection): SamplePlan {
-  const s = signSummary(frame);
-  const bookValue = Number(money(s.positiveCents));
-  const r = musSampleSize({ bookValue, tolerableMisstatement: tolerable, expectedMisstatement: expected, confidence: p.confidence });
-  const chosenSize = p.sampleSize ?? r.sampleSize;
-  const interval = chosenSize === r.sampleSize ? r.interval : Math.floor(bookValue / chosenSize);
-  if (interval < 1) throw fieldError("sampleSize", "the sampling interval would be below one currency unit", "Too large for this population");
-  const threshold = Number(p.topStratumThreshold ?? interval);
-  if (threshold > interval) throw fieldError("topStratumThreshold", `must not exceed the sampling interval (${interval})`, `At most the interval, ${interval}`);
-  let topCount = 0, topCents = 0n;
-  frame.bookValues.forEach((v, i) => { if (v >= threshold) { topCount++; topCents += frame.bookCents[i]; } });
-  return {
-    method: "mus", frameSize: s.positiveCount, frameTotal: money(s.positiveCents),
-    excluded: { zeroCount: s.zeroCount, negativeCount: s.negativeCount, negativeTotal: money(s.negativeCents) },
-    computedSize: r.sampleSize, chosenSize,
-    formula: "n = ⌈BV × RF / (TM − EM × EF)⌉; sampling interval J = ⌊BV / n⌋ (AICPA Audit Guide “Audit Sampling”, monetary-unit sampling)",
-    inputs: { BV: money(s.positiveCents), TM: tolerable.toFixed(2), EM: expected.toFixed(2), confidence: p.confidence, RF: Number(r.reliabilityFactor.toFixed(6)), EF: r.expansionFactor },
-    interval, topStratumThreshold: threshold, topStratum: { count: topCount, total: money(topCents) }, warnings: direction === "overstatement" ? [] : [MUS_UNDERSTATEMENT_CAUTION],
-  };
-}
-
 const ZA_WORDS = { two: "two-sided z_α (both directions tested)", one: "one-sided z_α (one direction tested)" } as const;
 
-function planVariables(frame: Frame, p: SampleParams, tolerable: number, expected: number, sides: "two" | "one"): SamplePlan {
+function planVariables(frame: Frame, p: SampleParams, tolerable: number, expected: number, sides: "two" | "one", prior?: PriorSpread): SamplePlan {
   const N = frame.bookValues.length;
-  const sd = standardDeviation(frame.bookValues);
-  const r = variablesSampleSize({ populationSize: N, estimatedStdDev: sd, tolerableMisstatement: tolerable, expectedMisstatement: expected, riskOfIncorrectAcceptance: 1 - p.confidence, riskOfIncorrectRejection: p.riskOfIncorrectRejection, sides });
+  const spread = resolveSpread(frame, p, prior);
+  const r = variablesSampleSize({ populationSize: N, estimatedStdDev: spread.value, tolerableMisstatement: tolerable, expectedMisstatement: expected, riskOfIncorrectAcceptance: 1 - p.confidence, riskOfIncorrectRejection: p.riskOfIncorrectRejection, sides });
+  const chosenSize = p.sampleSize ?? r.sampleSize;
+  const signWarnings = p.estimator === "ratio" || p.estimator === "regression"
+    ? bookSignRisk({ bookValues: frame.bookValues, sampleSize: Math.min(Math.max(chosenSize, 1), N), tolerableMisstatement: tolerable }).warnings : [];
   return {
     method: p.method, frameSize: N, sides, frameTotal: money(frame.totalCents), excluded: null,
-    computedSize: r.sampleSize, chosenSize: p.sampleSize ?? r.sampleSize,
-    formula: `A = (TM − EM) × z_α / (z_α + z_β), ${ZA_WORDS[sides]}; n′ = (N × z_α × S / A)²; n = ⌈n′ / (1 + n′/N)⌉ (AICPA classical variables; Cochran 1977 §4.4 finite population correction)`,
-    inputs: { N, S: Number(sd.toFixed(2)), TM: tolerable.toFixed(2), EM: expected.toFixed(2), "risk of incorrect acceptance": Number((1 - p.confidence).toFixed(4)), "risk of incorrect rejection": p.riskOfIncorrectRejection, A: Number(r.plannedAllowance.toFixed(2)), "n′": Number(r.uncorrectedSampleSizeExact.toFixed(4)) },
-    warnings: ["S is estimated from the book values; the audited values' spread may differ."],
+    computedSize: r.sampleSize, chosenSize,
+    formula: `A = (TM − EM) × z_α / (z_α + z_β), ${ZA_WORDS[sides]}; n′ = (N × z_α × ${spread.symbol} / A)²; n = ⌈n′ / (1 + n′/N)⌉ (AICPA classical variables; Cochran 1977 §4.4 finite population correction; ${spread.symbol} the planning spread of the ${p.estimator ?? "mean-per-unit"} estimator, Cochran 1977 ch. 6–7)`,
+    inputs: { N, [spread.symbol]: Number(spread.value.toFixed(2)), "spread basis": spread.detail, TM: tolerable.toFixed(2), EM: expected.toFixed(2), "risk of incorrect acceptance": Number((1 - p.confidence).toFixed(4)), "risk of incorrect rejection": p.riskOfIncorrectRejection, A: Number(r.plannedAllowance.toFixed(2)), "n′": Number(r.uncorrectedSampleSizeExact.toFixed(4)) },
+    spread,
+    warnings: [...spread.warnings, ...(spread.basis === "book-values" ? ["S is estimated from the book values; the audited values' spread may differ."] : []), ...signWarnings],
   };
 }
 
@@ -134,7 +148,10 @@ function planStratified(frame: Frame, p: SampleParams, tolerable: number, expect
     formula: `Neyman allocation n_h = n × N_h S_h / Σ N_h S_h; n = (Σ N_h S_h)² / ((A / z_α)² + Σ N_h S_h²), ${ZA_WORDS[sides]} (Cochran 1977, ch. 5, Neyman allocation, with the planned allowance A)`,
     inputs: { strata: strata.length, A: Number(whole.plannedAllowance.toFixed(2)), TM: tolerable.toFixed(2), EM: expected.toFixed(2), "risk of incorrect rejection": p.riskOfIncorrectRejection },
     strata: strata.map((s, h) => ({ number: s.number, label: s.label, populationSize: s.members.length, bookValue: money(s.bookCents), standardDeviation: Number(planning[h].standardDeviation.toFixed(2)), allocation: allocation[h] })),
-    warnings: ["Stratum standard deviations are estimated from the book values."],
+    warnings: [
+      "Stratum standard deviations are estimated from the book values.",
+      ...(p.estimator && p.estimator !== "mean-per-unit" ? [`The ${p.estimator} estimator's precision depends on the spread of the differences or residuals, not of the book values: this is the mean-per-unit size for the strata.`] : []),
+    ],
   };
 }
 
@@ -147,17 +164,5 @@ function planTwoStage(frame: Frame, p: SampleParams): SamplePlan {
     formula: "two-stage: risk of overreliance = b(0; n₁, TDR) + b(1; n₁, TDR) × (1 − TDR)^n₂ ≤ 1 − confidence; for each n₁ the smallest n₂, then the pair with the smallest expected size n₁ + b(1; n₁, EDR) × n₂ (binomial; planned sequential sampling)",
     inputs: { TDR: p.tolerableRate!, EDR: p.expectedRate, confidence: p.confidence, "n₁": plan.firstStageSize, "n₂": plan.secondStageSize, "risk of overreliance": Number(plan.riskOfOverreliance.toFixed(6)), "expected size": Number(plan.expectedSampleSize.toFixed(2)) },
     warnings: [`Stage 1: ${plan.firstStageSize} items. No deviation: rely on the control. Two or more: do not. Exactly one: draw stage 2 of ${plan.secondStageSize} more items, continuing the same random ranking; rely only if none of them deviates.`],
-  };
-}
-
-function planAttribute(frame: Frame, p: SampleParams): SamplePlan {
-  if (p.attributePlan === "two-stage") return planTwoStage(frame, p);
-  const r = attributeSampleSize({ tolerableRate: p.tolerableRate!, expectedRate: p.expectedRate, confidence: p.confidence });
-  return {
-    method: "attribute", frameSize: frame.bookValues.length, frameTotal: money(frame.totalCents), excluded: null,
-    computedSize: r.sampleSize, chosenSize: p.sampleSize ?? r.sampleSize, allowedDeviations: r.allowedDeviations,
-    formula: "smallest n with BinomialCDF(k; n, TDR) ≤ 1 − confidence, k = ⌈EDR × n⌉ (AICPA Audit Guide “Audit Sampling”, Tables A-1/A-2)",
-    inputs: { TDR: p.tolerableRate!, EDR: p.expectedRate, confidence: p.confidence, "allowed deviations": r.allowedDeviations },
-    warnings: frame.bookValues.length < 10 * r.sampleSize ? ["The population is small beside the sample: the binomial sizes are conservative here."] : [],
   };
 }

@@ -27,12 +27,32 @@ export function reproductionRecipe(ctx: RecipeContext, inputs: SelectionInputs):
     "",
     "   import numpy as np",
     "   # refs, cents: the item references and book values in cents, in file order",
-    `   rs = np.random.RandomState(${ctx.seed})   # MT19937, init_genrand(${ctx.seed})`,
+    ...(inputs.method === "nonstatistical" && inputs.selection === "haphazard" ? [] : [`   rs = np.random.RandomState(${ctx.seed})   # MT19937, init_genrand(${ctx.seed})`]),
   ];
-  return [...head, ...methodSteps(inputs, ctx.seed), "", "Selection order is 1-based; row numbers are those of the file (header = row 1).", ""].join("\n");
+  return [...head, ...keyItemSteps(inputs), ...methodSteps(inputs, ctx.seed), "", "Selection order is 1-based; row numbers are those of the file (header = row 1).", ""].join("\n");
+}
+
+/** Key items come first and are removed from the frame; the method then runs on what remains, in file order. */
+function keyItemSteps(inputs: SelectionInputs): string[] {
+  const lines: string[] = [];
+  if (inputs.keyRows?.length) {
+    lines.push(
+      `   key_rows = ${JSON.stringify(inputs.keyRows)}   # key items (file row numbers), examined 100 %, selection orders 1..${inputs.keyRows.length}`,
+      "   keep = [i for i, row in enumerate(rows) if row not in key_rows]   # rows: each item's file row number; the remainder, in file order",
+      "   refs, cents = [refs[i] for i in keep], cents[keep]               # positions below are within the remainder",
+    );
+  }
+  if (inputs.method === "nonstatistical" && inputs.selection === "haphazard") {
+    lines.push("   # HAPHAZARD SELECTION: the other items were picked by the auditor on the population grid.", "   # No seed re-performs them; the workpaper lists each pick with who made it and when.");
+  }
+  return lines;
 }
 
 function methodSteps(inputs: SelectionInputs, seed: number): string[] {
+  if (inputs.method === "nonstatistical") {
+    if (inputs.selection === "haphazard") return [];
+    return methodSteps({ ...inputs, method: inputs.selection === "systematic" ? "systematic" : "random", frameSize: inputs.frameSize - (inputs.keyRows?.length ?? 0) }, seed);
+  }
   switch (inputs.method) {
     case "mus": {
       const J = Math.round(inputs.interval! * 100);

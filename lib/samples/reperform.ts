@@ -24,7 +24,7 @@ export async function reperformDraw(db: Knex, { sample, actorId }: { sample: Sam
   const frame = await loadFrame(db, { populationId: sample.populationId });
   const recomputed = computeSelection(frame, draw.inputs, draw.seed);
   const stored: { population_row_number: number; selection_order: number; hit_points: unknown; stratum: number | null }[] =
-    await db("sample_items").where({ draw_id: draw.id }).orderBy("selection_order").select("population_row_number", "selection_order", "hit_points", "stratum");
+    await db("sample_items").where({ draw_id: draw.id }).whereNot({ origin: "haphazard" }).orderBy("selection_order").select("population_row_number", "selection_order", "hit_points", "stratum");
 
   const key = (row: number, stratum: number | null, order: number, points: number[] | null) =>
     `${stratum ?? "-"}|${row}|${sample.method === "stratified" ? "" : order}|${(points ?? []).map((p) => p.toFixed(2)).join(";")}`;

@@ -3,6 +3,7 @@ import { selectPps, selectRandom, selectStratifiedRandom, selectSystematic } fro
 import type { SampleMethod } from "@/lib/validation/sample";
 import type { Frame } from "./population-frame";
 import { stratifyFrame } from "./strata";
+import { positionsOfRows, remainderFrame } from "./key-items";
 
 /** Everything a selection depends on besides the frame and the seed; stored with the draw. */
 export interface SelectionInputs {
@@ -16,6 +17,10 @@ export interface SelectionInputs {
   strataBounds?: number[];
   /** Ranks consumed per stratum (stratified). */
   stratumRanks?: number[];
+  /** Row numbers of the key items (examined 100 %); the rest is drawn from the remainder, in population order. */
+  keyRows?: number[];
+  /** Nonstatistical plans: how the remainder is selected ("haphazard": picked by the auditor, no seed). */
+  selection?: "random" | "systematic" | "haphazard";
 }
 
 export interface SelectedItem {
@@ -24,22 +29,42 @@ export interface SelectedItem {
   hitPoints: number[] | null;
   topStratum: boolean;
   stratum: number | null;
+  keyItem?: boolean;
 }
 
 export const ALGORITHM_VERSION = "1";
 
-export function algorithmName(method: SampleMethod): string {
-  return {
-    mus: "MT19937 systematic monetary-unit selection, random start in cents",
-    random: "MT19937 random-number sort (n smallest of genrand_res53)",
-    attribute: "MT19937 random-number sort (n smallest of genrand_res53)",
-    systematic: "MT19937 systematic selection, random start",
-    stratified: "MT19937 random-number sort per stratum (seed + stratum number)",
-  }[method];
+const ALGORITHMS: Record<SampleMethod | "haphazard", string> = {
+  mus: "MT19937 systematic monetary-unit selection, random start in cents",
+  random: "MT19937 random-number sort (n smallest of genrand_res53)",
+  attribute: "MT19937 random-number sort (n smallest of genrand_res53)",
+  systematic: "MT19937 systematic selection, random start",
+  stratified: "MT19937 random-number sort per stratum (seed + stratum number)",
+  nonstatistical: "MT19937 random-number sort (n smallest of genrand_res53)",
+  haphazard: "Haphazard selection by the auditor (recorded picks; not re-performable from a seed)",
+};
+
+export function algorithmName(method: SampleMethod, selection?: SelectionInputs["selection"]): string {
+  if (method === "nonstatistical" && selection && selection !== "random") return ALGORITHMS[selection];
+  return ALGORITHMS[method];
 }
 
-/** The selection for stored inputs and a seed: the same function draws, extends and re-performs. */
+/**
+ * The selection for stored inputs and a seed: the same function draws, extends and re-performs.
+ * Key items come first (orders 1..K, population order); the method then runs on the remainder
+ * frame, its positions mapped back, with orders continuing after the key items.
+ */
 export function computeSelection(frame: Frame, inputs: SelectionInputs, seed: number): SelectedItem[] {
+  const keyRows = inputs.keyRows ?? [];
+  if (keyRows.length === 0 && inputs.method !== "nonstatistical") return selectFromFrame(frame, inputs, seed);
+  const keyItems: SelectedItem[] = positionsOfRows(frame, keyRows).map((position, i) => ({ position, order: i + 1, hitPoints: null, topStratum: false, stratum: null, keyItem: true }));
+  const rest = remainderFrame(frame, keyRows);
+  const method = inputs.method === "nonstatistical" ? (inputs.selection === "systematic" ? "systematic" : "random") : inputs.method;
+  const drawn = inputs.method === "nonstatistical" && inputs.selection === "haphazard" ? [] : selectFromFrame(rest.frame, { ...inputs, method }, seed);
+  return [...keyItems, ...drawn.map((it) => ({ ...it, position: rest.positions[it.position], order: it.order + keyItems.length }))];
+}
+
+function selectFromFrame(frame: Frame, inputs: SelectionInputs, seed: number): SelectedItem[] {
   switch (inputs.method) {
     case "mus": return selectMus(frame, inputs, seed);
     case "systematic":

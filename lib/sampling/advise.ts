@@ -2,24 +2,31 @@
  * The estimator advisor's recommendation: the estimator with the lowest root mean squared error
  * whose bound held the truth often enough, and in plain words why each other one loses.
  */
-import type { EstimatorPerformance } from "./simulate";
-import type { Estimator } from "./types";
+import type { EstimatorPerformance, SimulatedEstimator } from "./simulate";
+import { CORRECTED_RATIO_ESTIMATORS } from "./ratio-corrected";
 import { EngineInputError } from "./errors";
 
-export type AdvisedEstimator = Estimator | "stringer";
+export type AdvisedEstimator = SimulatedEstimator | "stringer";
 export const ADVISED_ESTIMATOR_LABELS: Record<AdvisedEstimator, string> = {
   "mean-per-unit": "Mean-per-unit",
   difference: "Difference",
   ratio: "Ratio",
   regression: "Regression",
+  "hartley-ross": "Hartley–Ross (unbiased ratio-type)",
+  "jackknife-ratio": "Jackknife ratio (Quenouille)",
+  "beale-ratio": "Beale ratio",
+  "tin-ratio": "Tin ratio",
   stringer: "Stringer bound (PPS)",
 };
+
+/** Shown for comparison only: the evaluation does not offer them, so they are never recommended. */
+export const isComparisonEstimator = (e: AdvisedEstimator) => (CORRECTED_RATIO_ESTIMATORS as readonly string[]).includes(e);
 
 export interface AdvisorCell { estimator: AdvisedEstimator; sampleSize: number; performance: EstimatorPerformance }
 
 export interface Verdict {
   estimator: AdvisedEstimator;
-  verdict: "recommended" | "wider" | "short-coverage";
+  verdict: "recommended" | "wider" | "short-coverage" | "comparison";
   reason: string;
 }
 
@@ -31,6 +38,8 @@ export interface Recommendation {
   coverageFloor: number;
   verdicts: Verdict[];
   summary: string;
+  /** Plain words on the bias–variance trade-off when a corrected ratio estimator is less biased but worse on RMSE. */
+  tradeOff: string | null;
 }
 
 /** Differences seen in the sample below which difference-type estimators are unreliable (common practice). */
@@ -58,13 +67,14 @@ export function recommendEstimator(o: {
   const sampleSize = o.atSize !== undefined && sizes.includes(o.atSize) ? o.atSize : sizes[sizes.length - 1]!;
   const cells = o.cells.filter((c) => c.sampleSize === sampleSize);
   const coverageFloor = o.confidence - 2 * Math.sqrt((o.confidence * (1 - o.confidence)) / o.trials);
-  const eligible = cells.filter((c) => c.performance.coverage >= coverageFloor);
+  const eligible = cells.filter((c) => !isComparisonEstimator(c.estimator) && c.performance.coverage >= coverageFloor);
   const best = eligible.reduce<AdvisorCell | null>((b, c) => (b === null || c.performance.rmse < b.performance.rmse ? c : b), null);
   const expectedDifferences = o.misstatedShare === undefined ? null : o.misstatedShare * sampleSize;
 
   const verdicts: Verdict[] = cells.map((c) => {
     const p = c.performance;
     const label = ADVISED_ESTIMATOR_LABELS[c.estimator];
+    if (isComparisonEstimator(c.estimator)) return comparisonVerdict(c, cells);
     if (c === best) {
       return { estimator: c.estimator, verdict: "recommended", reason: `${label}: the lowest RMSE (${money(p.rmse)}) among the estimators whose bound held the truth in at least ${pct(coverageFloor)} of trials (${pct(p.coverage)}).` };
     }
@@ -85,5 +95,27 @@ export function recommendEstimator(o: {
   const summary = best === null
     ? `No estimator's bound held the truth in at least ${pct(coverageFloor)} of trials at n = ${sampleSize}: consider a larger sample or another method.`
     : `At n = ${sampleSize}, ${ADVISED_ESTIMATOR_LABELS[best.estimator].toLowerCase()} gives the most accurate estimate under the assumed misstatements while its bound still holds at the stated confidence.`;
-  return { sampleSize, recommended: best?.estimator ?? null, coverageFloor, verdicts, summary };
+  return { sampleSize, recommended: best?.estimator ?? null, coverageFloor, verdicts, summary, tradeOff: tradeOffLine(cells) };
+}
+
+function comparisonVerdict(c: AdvisorCell, cells: AdvisorCell[]): Verdict {
+  const p = c.performance;
+  const ratio = cells.find((r) => r.estimator === "ratio")?.performance;
+  const label = ADVISED_ESTIMATOR_LABELS[c.estimator];
+  const against = ratio ? `; the plain ratio estimator: bias ${money(ratio.bias)}, RMSE ${money(ratio.rmse)}` : "";
+  const undefinedNote = p.undefinedTrials ? `; undefined in ${p.undefinedTrials} trials` : "";
+  return { estimator: c.estimator, verdict: "comparison", reason: `${label} (for comparison): bias ${money(p.bias)}, RMSE ${money(p.rmse)}, coverage ${pct(p.coverage)}${against}${undefinedNote}.` };
+}
+
+/**
+ * "Less biased but worse": a corrected ratio estimator with a smaller |bias| than the plain ratio
+ * estimator and a larger RMSE — its extra variance costs more than the bias it removes.
+ */
+function tradeOffLine(cells: AdvisorCell[]): string | null {
+  const ratio = cells.find((c) => c.estimator === "ratio")?.performance;
+  if (!ratio || !Number.isFinite(ratio.rmse)) return null;
+  const worse = cells.filter((c) => isComparisonEstimator(c.estimator) && Math.abs(c.performance.bias) < Math.abs(ratio.bias) && c.performance.rmse > ratio.rmse);
+  if (worse.length === 0) return null;
+  const names = worse.map((c) => ADVISED_ESTIMATOR_LABELS[c.estimator].replace(/ \(.*\)$/, "")).join(", ");
+  return `${names} ${worse.length === 1 ? "removes" : "remove"} most of the ratio estimator's bias (${money(ratio.bias)}) but ${worse.length === 1 ? "its" : "their"} extra spread costs more than the bias removed: RMSE ${worse.map((c) => money(c.performance.rmse)).join(", ")} against ${money(ratio.rmse)}. On this population the plain ratio estimator is the better choice of the ratio forms.`;
 }

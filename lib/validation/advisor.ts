@@ -38,4 +38,7 @@ export const AdvisorRunSchema = z.object({
 export type AdvisorRunInput = z.input<typeof AdvisorRunSchema>;
 export type AdvisorRun = z.output<typeof AdvisorRunSchema>;
 
-export const AdoptAdvisorRunSchema = z.object({});
+/** Keeping a run as the rationale: a reason is required when the run does not simply back the plan (checked on the server). */
+export const AdoptAdvisorRunSchema = z.object({
+  reason: z.string().trim().max(4000, "At most 4,000 characters").optional().transform((v) => (v ? v : undefined)),
+});

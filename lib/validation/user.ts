@@ -11,12 +11,9 @@ export const CreateUserSchema = z.object({
   email: z.string().trim().toLowerCase().email("Enter a valid e-mail address").max(254),
   grade: z.enum(GRADES, "Choose a grade: staff, senior, manager, partner or client"),
   firmRole: z.enum(FIRM_ROLES).default("member"),
-  password: passwordInput,
 });
 export type CreateUserInput = z.input<typeof CreateUserSchema>;
 export type CreateUser = z.output<typeof CreateUserSchema>;
-
-export const ResetPasswordSchema = z.object({ password: passwordInput });
 
 export const UpdateUserSchema = z
   .object({ active: z.boolean(), grade: z.enum(GRADES), firmRole: z.enum(FIRM_ROLES), name: CreateUserSchema.shape.name })

@@ -91,3 +91,22 @@ export function requestReminders(d: RequestRemindersData): RenderedEmail {
     footer: client ? "You receive this daily while requested items are overdue." : "You receive this daily while items on a request list you sent are overdue.",
   });
 }
+
+export interface RequestListClosedData { recipient: Person; engagement: EngagementRef; title: string; reason: string; listUrl: string }
+
+/** The client contact is told that a list no longer takes files (the audit team locked the sample). */
+export function requestListClosed(d: RequestListClosedData): RenderedEmail {
+  return renderEmail({
+    subject: `Request list closed: ${d.title}`,
+    preview: "The audit team no longer takes files on this list.",
+    greeting: `Hello ${d.recipient.name},`,
+    blocks: [
+      { kind: "paragraph", text: `The request list "${d.title}" for the audit of ${d.engagement.clientName} is closed: the audit team has finished the work it was for and no longer takes files on it. You can still open it to see what you sent.` },
+      { kind: "facts", rows: [["Request list", d.title], ["Why it closed", d.reason.replace(/\.$/, "")]] },
+      { kind: "paragraph", text: "If you have more to send, contact the audit team directly." },
+    ],
+    action: { label: "Open the request list", url: d.listUrl },
+    judgementCaution: false,
+    footer: `You receive this because you are a client contact for ${engagementLabel(d.engagement)} in Sondage.`,
+  });
+}

@@ -6,6 +6,8 @@ import { reviewNoteRaised, type ReviewNoteRaisedData } from "./review-note-raise
 import { sampleLocked, type SampleLockedData } from "./sample-locked";
 import { sampleReadyForReview, type SampleReadyForReviewData } from "./sample-ready-for-review";
 import { clientInvitation, requestFileReturned, requestListSent, requestReminders, type ClientInvitationData, type RequestFileReturnedData, type RequestListSentData, type RequestRemindersData } from "./client-requests";
+import { requestListClosed, type RequestListClosedData } from "./client-requests";
+import { staffInvitation, type StaffInvitationData } from "./staff-invitation";
 import type { RenderedEmail } from "./types";
 
 export interface EmailTemplateData {
@@ -19,6 +21,8 @@ export interface EmailTemplateData {
   "request-list-sent": RequestListSentData;
   "request-file-returned": RequestFileReturnedData;
   "request-reminders": RequestRemindersData;
+  "request-list-closed": RequestListClosedData;
+  "staff-invitation": StaffInvitationData;
 }
 
 export type EmailTemplateName = keyof EmailTemplateData;
@@ -34,6 +38,8 @@ export const EMAIL_TEMPLATES: { [K in EmailTemplateName]: (data: EmailTemplateDa
   "request-list-sent": requestListSent,
   "request-file-returned": requestFileReturned,
   "request-reminders": requestReminders,
+  "request-list-closed": requestListClosed,
+  "staff-invitation": staffInvitation,
 };
 
 export function renderEmailTemplate<K extends EmailTemplateName>(name: K, data: EmailTemplateData[K]): RenderedEmail {

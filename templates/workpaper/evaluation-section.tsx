@@ -1,6 +1,7 @@
 /** Section 6: the evaluation table for the sample's method, with its formula references and warnings. */
 import { Text, View } from "@react-pdf/renderer";
 import { AttributesEvaluation } from "./evaluation-attributes";
+import { NonstatisticalEvaluation } from "./evaluation-nonstatistical";
 import { MusEvaluation } from "./evaluation-mus";
 import { StratifiedEvaluation, VariablesEvaluation } from "./evaluation-variables";
 import { Callout, Section, SubHead } from "./primitives";
@@ -13,6 +14,7 @@ function Body({ e, currency }: { e: EvaluationBlock; currency: string }) {
     case "variables": return <VariablesEvaluation e={e} currency={currency} />;
     case "stratified": return <StratifiedEvaluation e={e} currency={currency} />;
     case "attributes": return <AttributesEvaluation e={e} />;
+    case "nonstatistical": return <NonstatisticalEvaluation e={e} currency={currency} />;
   }
 }
 

@@ -27,11 +27,27 @@ const VARIANCE_FORMULA: Record<string, string> = {
 
 const DIRECTION_WORDS = { overstatement: "overstatement only", understatement: "understatement only", both: "both directions" } as const;
 
-function figureRows(e: VariablesResultFigures, estimator: string, bookValue: string): TableRow[] {
+/** Key items and accepted anomalies taken at actual outside the estimator (AS 2315.26; ISA 530 ¶13). */
+function atActualRows(e: VariablesEvaluationBlock | StratifiedEvaluationBlock, estimator: string): TableRow[] {
+  const a = e.atActual;
+  if (!a) return [];
+  return [
+    { cells: [`Remainder (${a.remainderSize.toLocaleString("en-US")} items outside the key items): book value`, "X_r", formatMoney(a.remainderBookValue)] },
+    { cells: ["Remainder: estimated audited value", `Ŷ_r, ${ESTIMATE_FORMULA[estimator]} on the remainder`, formatMoney(a.remainderEstimatedAuditedValue)] },
+    { cells: ["Remainder: projected misstatement", "X_r − Ŷ_r", formatMoney(a.remainderProjectedMisstatement)] },
+    { cells: [`Key items at actual (${a.keyItems.count}): book value`, "examined 100 %", formatMoney(a.keyItems.bookValue)] },
+    { cells: ["Key items: audited value", "", formatMoney(a.keyItems.auditedValue)] },
+    { cells: ["Key items: misstatement", "book − audited", formatMoney(a.keyItems.misstatement)] },
+    { cells: [`Accepted anomalies at actual (${a.anomalies.count})`, "misstatement, ISA 530 ¶13", formatMoney(a.anomalies.misstatement)] },
+  ];
+}
+
+function figureRows(e: VariablesEvaluationBlock | StratifiedEvaluationBlock, estimator: string, bookValue: string): TableRow[] {
   const d = e.decision;
   const coef = d.distribution === "t" ? `Student t_α (${d.degreesOfFreedom?.toFixed(1)} df)` : "Normal quantile z_α";
   const rows: TableRow[] = [
-    { cells: ["Estimated audited value", ESTIMATE_FORMULA[estimator], formatMoney(e.estimatedAuditedValue)] },
+    ...atActualRows(e, estimator),
+    { cells: ["Estimated audited value", e.atActual ? "Ŷ_r + key items' audited value − anomalies" : ESTIMATE_FORMULA[estimator], formatMoney(e.estimatedAuditedValue)] },
     { cells: ["Projected misstatement", "X − Ŷ", formatMoney(e.projectedMisstatement)] },
     { cells: ["Standard error", `√v,  ${VARIANCE_FORMULA[estimator]}`, formatMoney(e.standardError)] },
     { cells: [`${coef}, ${d.coefficientSides === "two" ? "two-sided" : "one-sided"}`, `risk of incorrect rejection ${formatRate(d.riskOfIncorrectRejection, 1)}`, formatFactor(d.coefficient)] },

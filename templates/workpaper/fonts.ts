@@ -42,6 +42,8 @@ export function registerWorkpaperFonts(): void {
       { src: file("DejaVuSansMono-Bold.ttf"), fontWeight: "bold" },
     ],
   });
-  Font.registerHyphenationCallback((word) => [word]);
+  // Words stay whole, except long unbroken tokens (SHA-256 digests, file names) which break every 16
+  // characters so they wrap inside their column instead of running off the page.
+  Font.registerHyphenationCallback((word) => (word.length > 24 ? (word.match(/.{1,16}/g) ?? [word]) : [word]));
   registered = true;
 }

@@ -27,6 +27,7 @@ export function MethodRationale({ data }: { data: WorkpaperData }) {
           { label: "Recommended", value: r.recommended ? `${r.recommended} at n = ${r.atSize}` : `none at n = ${r.atSize}` },
         ]}
       />
+      {r.keptReason && <Callout tone="warning"><Text>Kept as the rationale with this reason: {r.keptReason}</Text></Callout>}
       <Table
         columns={[
           { label: "n", width: 36, align: "right" },
@@ -48,6 +49,7 @@ export function MethodRationale({ data }: { data: WorkpaperData }) {
       <Callout>
         <Text>{r.summary}</Text>
         {r.reasons.map((reason, i) => <Text key={i}>• {reason}</Text>)}
+        {r.tradeOff && <Text>{r.tradeOff}</Text>}
       </Callout>
       {r.planChanged && <Callout tone="warning">The plan was changed after this run; the figures were simulated for the plan as it was then.</Callout>}
       {r.notes.map((n, i) => <Text key={i} style={[s.small, s.faint]}>{n}</Text>)}

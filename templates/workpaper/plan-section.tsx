@@ -5,6 +5,7 @@ import { Callout, Facts, Section, SubHead, Table } from "./primitives";
 import { s } from "./styles";
 import { methodTitle } from "./title-block";
 import { MethodRationale } from "./method-rationale-section";
+import { SizingFacts } from "./key-items-section";
 import type { PlanBlock, WorkpaperData } from "./workpaper-data";
 import { formatCount } from "@/lib/format/number";
 
@@ -80,6 +81,7 @@ export function PlanSection({ data }: { data: WorkpaperData }) {
           ...plan.parameters.map((p) => ({ label: p.label, value: formatByKind(p.kind, p.value) })),
         ]}
       />
+      {data.sizing && <SizingFacts sizing={data.sizing} />}
       <SizeComputation plan={plan} />
       <View style={{ marginTop: 6 }}>
         <Facts facts={sizeFacts} />

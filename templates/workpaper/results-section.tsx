@@ -2,12 +2,13 @@
 import { Text, View } from "@react-pdf/renderer";
 import { centsToDecimal, decimalToCents } from "@/lib/money";
 import { formatMoney } from "./format";
+import { ITEM_STATUS_LABELS } from "@/lib/fieldwork/field-labels";
 import { Section, Table, type Column, type TableRow } from "./primitives";
 import { colours, s } from "./styles";
 import type { WorkpaperData, WorkpaperItem } from "./workpaper-data";
 
-const STATUS = { "not-started": "Not started", done: "Audited", "not-auditable": "Not auditable", void: "Void" } as const;
-const ORIGIN = { selection: "", extension: "extension", replacement: "replacement" } as const;
+const STATUS = ITEM_STATUS_LABELS;
+const ORIGIN = { selection: "", extension: "extension", replacement: "replacement", "key-item": "key item (100 %)", haphazard: "haphazard pick" } as const;
 
 function ReferenceCell({ item, showHits }: { item: WorkpaperItem; showHits: boolean }) {
   const tags = [

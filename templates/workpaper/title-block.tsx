@@ -10,6 +10,7 @@ const METHOD_TITLES: Record<WorkpaperData["plan"]["method"], string> = {
   systematic: "Systematic sample — classical variables",
   stratified: "Stratified random sample — classical variables",
   attribute: "Attribute sample — test of controls",
+  nonstatistical: "Nonstatistical sample — key items and projected misstatement",
 };
 
 export function methodTitle(method: WorkpaperData["plan"]["method"]): string {

@@ -19,7 +19,7 @@ export type * from "@/lib/samples/evaluation-types";
 
 export type IsoTime = string;
 
-export type SampleMethod = "mus" | "random" | "systematic" | "stratified" | "attribute";
+export type SampleMethod = "mus" | "random" | "systematic" | "stratified" | "attribute" | "nonstatistical";
 
 export interface WorkpaperData {
   /** True until the workpaper is locked: every page carries the draft watermark and banner. */
@@ -41,6 +41,14 @@ export interface WorkpaperData {
   /** The estimator advisor run kept with the plan as the rationale for the method, if any. */
   methodRationale: MethodRationaleBlock | null;
   selection: SelectionBlock;
+  /** How the confidence (and assurance factor) were set: the two risks, the table cell and version, or an override. */
+  sizing?: SizingBlock | null;
+  /** Key items examined 100 % (threshold and chosen, with reasons); null when the plan has none. */
+  keyItems?: KeyItemsBlock | null;
+  /** Haphazard picks, with who picked each and when; null when the selection is seeded. */
+  picks?: HaphazardPick[] | null;
+  /** Misstatements marked anomalous, with justification and acceptance. */
+  anomalies?: AnomalyRow[];
   items: WorkpaperItem[];
   /** Null while the sample has nothing to evaluate (a draft before the first result); the conclusion says why. */
   evaluation: EvaluationBlock | null;
@@ -49,7 +57,11 @@ export interface WorkpaperData {
   signOffs: { preparer: SignOff | null; reviewer: SignOff | null };
   lock: LockInfo | null;
   auditTrail: AuditTrailRow[];
+  /** The evidence index: every file attached to an item of the current draw (absent in older fixtures). */
+  evidence?: EvidenceIndexRow[];
 }
+
+export interface EvidenceIndexRow { reference: string; fileName: string; sha256: string; uploadedBy: string; uploadedAt: IsoTime }
 
 export interface ObjectiveBlock {
   /** The test objective in the auditor's words. */
@@ -145,9 +157,44 @@ export interface PlanBlock {
   warnings: string[];
 }
 
+export interface SizingBlock {
+  basis: "risk-assessment" | "confidence-override" | "typed-confidence";
+  assessedRisk: string | null;
+  otherProceduresRisk: string | null;
+  tableFactor: number | null;
+  tableConfidence: number | null;
+  factor: number;
+  confidence: number;
+  /** Firm methodology version the plan was stamped with (0 = shipped defaults, from memory). */
+  tableVersion: number;
+  overrideReason: string | null;
+}
+
+export interface KeyItemsBlock {
+  threshold: Money | null;
+  items: { reference: string; rowNumber: number; bookValue: Money; basis: "threshold" | "chosen"; reason: string | null; misstatement: Money | null }[];
+  count: number;
+  total: Money;
+  remainder: { count: number; total: Money };
+}
+
+export interface HaphazardPick { reference: string; rowNumber: number; bookValue: Money; pickedBy: string | null; pickedAt: IsoTime | null }
+
+export interface AnomalyRow {
+  reference: string;
+  misstatement: Money | null;
+  justification: string;
+  markedBy: string | null;
+  markedAt: IsoTime | null;
+  acceptedBy: string | null;
+  acceptedAt: IsoTime | null;
+  /** How the evaluation treated it ("excluded from the projection, added at its actual amount"). */
+  treatment: string;
+}
+
 export interface SelectionBlock {
   seed: number;
-  seedSource: "generated" | "entered";
+  seedSource: "generated" | "entered" | "haphazard";
   algorithm: string;
   algorithmVersion: string;
   /** 1 for the first draw; higher after a redraw (the earlier draws stay in the audit trail). */
@@ -181,7 +228,7 @@ export interface WorkpaperItem {
   topStratum: boolean;
   /** MUS selection points that fell in this item, in currency units. */
   hitPoints: Money[];
-  origin: "selection" | "extension" | "replacement";
+  origin: "selection" | "extension" | "replacement" | "key-item" | "haphazard";
   bookValue: Money;
   auditedValue: Money | null;
   /** book − audited (overstatement positive); null until audited. */

@@ -2,6 +2,7 @@
 import type { ReactNode } from "react";
 import { Document, Page, View } from "@react-pdf/renderer";
 import { AuditTrailAppendix } from "./audit-trail-appendix";
+import { EvidenceIndexSection } from "./evidence-index-section";
 import { ConclusionSection } from "./conclusion-section";
 import { EvaluationSection } from "./evaluation-section";
 import { ObjectiveSection } from "./objective-section";
@@ -12,6 +13,7 @@ import { paginateItems } from "./results-pages";
 import { ResultsSection } from "./results-section";
 import { ReviewNotesSection } from "./review-notes-section";
 import { SelectionSection } from "./selection-section";
+import { KeyItemsAndPicks } from "./key-items-section";
 import { SignOffsSection } from "./sign-offs-section";
 import { s } from "./styles";
 import { TitleBlock } from "./title-block";
@@ -50,6 +52,7 @@ export function WorkpaperDocument({ data }: { data: WorkpaperData }) {
         <PopulationSection data={data} />
         <PlanSection data={data} />
         <SelectionSection data={data} />
+        <KeyItemsAndPicks data={data} />
       </Sheet>
       {runs.map((items, i) => (
         <Sheet key={`results-${i}`} data={data}>
@@ -64,6 +67,7 @@ export function WorkpaperDocument({ data }: { data: WorkpaperData }) {
       </Sheet>
       <Sheet data={data}>
         <AuditTrailAppendix data={data} />
+        <EvidenceIndexSection data={data} />
       </Sheet>
     </Document>
   );

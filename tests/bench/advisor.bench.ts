@@ -2,7 +2,8 @@
  * Estimator advisor benchmark: `npx tsx tests/bench/advisor.bench.ts [--rows 100000] [--trials 10000] [--n 200]`.
  *
  * 1. In process: `runAdvisorJob` (the worker's code) on a 100,000-item generated ledger, 10,000
- *    trials × 4 estimators × n = 200 — the engine's own time.
+ *    trials × every variables estimator (the four evaluation estimators and the four bias-corrected
+ *    ratio forms) × n = 200 — the engine's own time.
  * 2. Through the built app (`next start` on 127.0.0.1:3200, database sondage_bench): a signed-in
  *    senior loads the same ledger, plans a simple random sample, and POSTs the advisor run; the time
  *    to its result event is taken, while a second signed-in user GETs the sample every 20 ms. The
@@ -69,7 +70,7 @@ async function main(): Promise<void> {
   const dir = mkdtempSync(path.join(tmpdir(), "sondage-advisor-bench-"));
   let app: RunningApp | null = null;
   try {
-    // A debit-balance ledger: the ratio estimator needs positive book values, so the four estimators all run.
+    // A debit-balance ledger: every estimator runs (Hartley–Ross needs no zero book values).
     const generated = path.join(dir, "generated.csv");
     await generateLedgerCsv(generated, Math.ceil(rows * 1.1), 20261203);
     const [header, ...lines] = (await readFile(generated, "utf8")).trim().split(/\r?\n/);
@@ -80,13 +81,15 @@ async function main(): Promise<void> {
     const bookValues = debit.map((l) => Number(l.split(",").at(-2)));
 
     const inProcess: number[] = [];
+    let estimatorCount = 0;
     for (let i = 0; i < 3; i++) {
       const t = performance.now();
       const result = runAdvisorJob({ bookValues, scenario: { kind: "pattern", misstatedShare: 0.1, tainting: "mostly-small", overstatementShare: 0.9 }, sampleSizes: [n], trials, seed: 11 + i, confidence: 0.95, sides: "lower", plannedSize: n, includeStringer: false, factors: "exact" });
       inProcess.push((performance.now() - t) / 1000);
-      if (result.cells.length !== 4) throw new Error(`expected 4 estimators, got ${result.cells.length}`);
+      if (result.cells.length !== 8) throw new Error(`expected 8 estimators, got ${result.cells.length}`);
+      estimatorCount = result.cells.length;
     }
-    log(`in process: ${trials.toLocaleString("en-US")} trials × 4 estimators × n = ${n} on ${rows.toLocaleString("en-US")} items: ${inProcess.map((s) => s.toFixed(2)).join(" / ")} s`);
+    log(`in process: ${trials.toLocaleString("en-US")} trials × all variables estimators (${estimatorCount}) × n = ${n} on ${rows.toLocaleString("en-US")} items: ${inProcess.map((s) => s.toFixed(2)).join(" / ")} s`);
 
     await ensureDatabaseServer();
     await prepareDatabase();
@@ -150,14 +153,14 @@ async function main(): Promise<void> {
     const all = runs.flatMap((r) => r.latencies).concat(long.latencies).sort((a, b) => a - b);
     const failures = runs.flatMap((r) => r.failures).concat(long.failures);
     const medianRun = median(runs.map((r) => r.seconds));
-    console.log(`\nSondage estimator-advisor benchmark — Node ${process.version}, ${rows.toLocaleString("en-US")} items, ${trials.toLocaleString("en-US")} trials × 4 estimators × n = ${n}`);
+    console.log(`\nSondage estimator-advisor benchmark — Node ${process.version}, ${rows.toLocaleString("en-US")} items, ${trials.toLocaleString("en-US")} trials × all variables estimators (${estimatorCount}) × n = ${n}`);
     console.log(formatTable(["measure", "value"], [
-      ["in process (runAdvisorJob), median of 3", `${median(inProcess).toFixed(3)} s · ${Math.round(trials / median(inProcess)).toLocaleString("en-US")} trials/s (×4 estimators)`],
+      ["in process (runAdvisorJob), median of 3", `${median(inProcess).toFixed(3)} s · ${Math.round(trials / median(inProcess)).toLocaleString("en-US")} trials/s (every variables estimator, corrected ratio forms included)`],
       ["through POST …/advisor (worker thread), each run", runs.map((r) => `${r.seconds.toFixed(3)} s`).join(" / ")],
       ["through the route, median", `${medianRun.toFixed(3)} s · ${Math.round(trials / medianRun).toLocaleString("en-US")} trials/s`],
       ["progress events per run", runs.map((r) => String(r.progressEvents)).join(" / ")],
       ["other requests (GET sample) while idle: p50 / p95 / max", `${quantile(idleStats.latencies, 0.5).toFixed(1)} / ${quantile(idleStats.latencies, 0.95).toFixed(1)} / ${quantile(idleStats.latencies, 1).toFixed(1)} ms (${idleStats.latencies.length} requests)`],
-      [`long run: 50,000 trials × 4 estimators × n = ${n}, ${2 * n}, ${5 * n}`, `${longSeconds.toFixed(2)} s; other requests p50 / p95 / max ${quantile(long.latencies, 0.5).toFixed(1)} / ${quantile(long.latencies, 0.95).toFixed(1)} / ${quantile(long.latencies, 1).toFixed(1)} ms (${long.latencies.length} requests)`],
+      [`long run: 50,000 trials × all variables estimators (${estimatorCount}) × n = ${n}, ${2 * n}, ${5 * n}`, `${longSeconds.toFixed(2)} s; other requests p50 / p95 / max ${quantile(long.latencies, 0.5).toFixed(1)} / ${quantile(long.latencies, 0.95).toFixed(1)} / ${quantile(long.latencies, 1).toFixed(1)} ms (${long.latencies.length} requests)`],
       ["other requests during all runs: p50 / p95 / max", `${quantile(all, 0.5).toFixed(1)} / ${quantile(all, 0.95).toFixed(1)} / ${quantile(all, 1).toFixed(1)} ms (${all.length} requests, ${failures.length} failed)`],
     ]));
     const okRun = medianRun < GOALS.runS;

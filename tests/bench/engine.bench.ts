@@ -5,14 +5,20 @@
  * the same values, each the median of several runs with its ratio to the baseline. When python3
  * with numpy is available, the same data are selected by a vectorised numpy implementation of the
  * same contract (tests/bench/engine-numpy.py), the selections are compared and our/numpy ratios
- * printed. Also times simulateEstimators (10,000 trials × 4 estimators × n = 200, 100,000 items).
+ * printed. Also times simulateEstimators (10,000 trials × every estimator — the four evaluation
+ * estimators and the four bias-corrected ratio forms — × n = 200, 100,000 items), musConfidenceFactor
+ * over 1,000 ratio × confidence cells (against one gamma quantile per cell, measured in the same run)
+ * and a hypergeometric attribute size for N = 5,000 (against the binomial size for the same inputs).
  * Goals: both selections within 2× of numpy; the simulation under 2 s.
  */
 import { execFileSync } from "node:child_process";
 import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
-import { createRng, selectPps, selectRandom, simulateEstimators, type SampledItem } from "../../lib/sampling";
+import {
+  attributeSampleSize, createRng, musConfidenceFactor, selectPps, selectRandom, simulateEstimators, SIMULATED_ESTIMATORS, type SampledItem,
+} from "../../lib/sampling";
+import { gammaQuantile } from "../../lib/sampling/quantiles";
 
 const N = 1_000_000;
 const SAMPLE_SIZE = 400;
@@ -104,9 +110,13 @@ function main(): void {
     const auditedValue = rng.nextDouble() < 0.1 ? Math.round(bookValue * (0.5 + 0.5 * rng.nextDouble()) * 100) / 100 : bookValue;
     return { bookValue, auditedValue };
   });
-  const simulation = time(() => simulateEstimators({ population, sampleSize: 200, trials: 10_000, seed: SEED, confidence: 0.95,
+  const four = time(() => simulateEstimators({ population, sampleSize: 200, trials: 10_000, seed: SEED, confidence: 0.95,
     estimators: ["mean-per-unit", "difference", "ratio", "regression"] }), 3);
-  rows.push(["simulateEstimators (100k items, 10,000 trials × 4 × n = 200)", simulation.ms, "", `goal < 2000 ms: ${simulation.ms < 2000 ? "met" : "NOT met"}`]);
+  const simulation = time(() => simulateEstimators({ population, sampleSize: 200, trials: 10_000, seed: SEED, confidence: 0.95, estimators: [...SIMULATED_ESTIMATORS] }), 3);
+  rows.push(["simulateEstimators (100k items, 10,000 trials × 4 × n = 200)", four.ms, "", "reference: the four evaluation estimators"]);
+  rows.push([`simulateEstimators (100k items, 10,000 trials × ${SIMULATED_ESTIMATORS.length} × n = 200)`, simulation.ms, "",
+    `× the 4-estimator run ${(simulation.ms / four.ms).toFixed(2)}; goal < 2000 ms: ${simulation.ms < 2000 ? "met" : "NOT met"}`]);
+  rows.push(...planningRows());
 
   console.log(`Sondage engine benchmark — Node ${process.version}, median of ${RUNS} runs (simulation: 3)`);
   console.log(numpyNote);
@@ -114,6 +124,30 @@ function main(): void {
   console.log(`${"case".padEnd(62)}${"ms".padStart(10)}${"× base".padStart(9)}  comparison`);
   console.log("-".repeat(130));
   for (const [name, ms, ratio, note] of rows) console.log(`${name.padEnd(62)}${ms.toFixed(2).padStart(10)}${ratio.padStart(9)}  ${note}`);
+}
+
+/** musConfidenceFactor over 1,000 cells and a hypergeometric size at N = 5,000, each beside a reference from the same run. */
+function planningRows(): [string, number, string, string][] {
+  const confidences = Array.from({ length: 40 }, (_, i) => 0.5 + (0.49 * i) / 39);
+  const ratios = Array.from({ length: 25 }, (_, j) => (0.9 * j) / 25);
+  const factors = time(() => {
+    let sum = 0;
+    for (const confidence of confidences) for (const expectedToTolerable of ratios) sum += musConfidenceFactor({ confidence, expectedToTolerable });
+    return sum;
+  });
+  const quantiles = time(() => {
+    let sum = 0;
+    for (const confidence of confidences) for (const r of ratios) sum += gammaQuantile(confidence, 1 + 3 * r);
+    return sum;
+  });
+  const hyper = time(() => attributeSampleSize({ tolerableRate: 0.05, expectedRate: 0.01, confidence: 0.95, populationSize: 5000 }));
+  const binomial = time(() => attributeSampleSize({ tolerableRate: 0.05, expectedRate: 0.01, confidence: 0.95 }));
+  return [
+    ["reference: 1,000 gamma quantiles (one per cell)", quantiles.ms, "", ""],
+    ["musConfidenceFactor, 1,000 ratio × confidence cells (exact root)", factors.ms, "", `× one quantile per cell ${(factors.ms / quantiles.ms).toFixed(1)}`],
+    [`reference: binomial attribute size (TDR 5%, EDR 1%, 95%) → ${binomial.result.sampleSize}`, binomial.ms, "", ""],
+    [`hypergeometric attribute size, N = 5,000 (same inputs) → ${hyper.result.sampleSize}`, hyper.ms, "", `× the binomial size ${(hyper.ms / binomial.ms).toFixed(1)}`],
+  ];
 }
 
 main();

@@ -34,16 +34,22 @@ test("a senior runs the estimator advisor on the demo ledger, reads the recommen
   await expect(advisor.recommendation()).toBeVisible({ timeout: 90_000 });
   await expect(advisor.recommendation()).toContainText(/Recommended: (Mean-per-unit|Difference|Ratio|Regression)|No estimator meets the confidence/);
   await expect(advisor.recommendation()).toContainText("Mean-per-unit:");
-  for (const e of ["Mean-per-unit", "Difference", "Regression"]) await expect(advisor.histogram(e)).toBeVisible();
-  // The demo ledger holds credit notes, so the ratio estimator (positive book values only) is left out, and said so.
-  await expect(advisor.root.getByText(/The ratio estimator was not simulated: \d+ items have a zero or negative book value/)).toBeVisible();
+  // The demo ledger holds credit notes: ratio and regression are still simulated (defined whenever the sample's book total is not zero),
+  // with the bias-corrected ratio forms beside them as comparison rows.
+  for (const e of ["Mean-per-unit", "Difference", "Ratio", "Regression", "Jackknife ratio \\(Quenouille\\)", "Beale ratio", "Tin ratio"]) await expect(advisor.histogram(e)).toBeVisible();
+  await expect(advisor.recommendation()).toContainText("(for comparison)");
+  // The zoom shows one estimator on its own scale with the true total and its mean marked.
+  await advisor.root.getByRole("radio", { name: "Ratio", exact: true }).check();
+  await expect(advisor.root.getByTestId("estimate-zoom").getByRole("img", { name: /^Zoomed, own scale: Ratio: histogram .*; mean estimate / })).toBeVisible();
+  await expect(advisor.root.getByTestId("estimate-zoom").getByText(/^mean /)).toBeVisible();
   await expect(advisor.root.getByRole("img", { name: /^RMSE against sample size/ })).toBeVisible();
   await expect(advisor.root.getByRole("img", { name: /^Coverage against sample size/ })).toBeVisible();
   await expect(advisor.root.getByText(/support, and do not replace, the auditor's professional judgement/)).toBeVisible();
   await shot(page, "advisor-results.png");
   await advisor.root.screenshot({ path: test.info().outputPath("advisor-panel.png") });
 
-  await advisor.keepAsRationale();
+  // The plan's estimator (difference) may not be the one recommended: keeping the run then needs a written reason.
+  await advisor.keepAsRationale("Difference kept: misstatements are expected to be small and not proportional to book value.");
   await expect(advisor.root.getByText("Rationale kept: run")).toBeVisible();
 
   // Drawn, the plan is final: the kept run stays on the page, read-only, and goes into the workpaper.
@@ -69,4 +75,5 @@ test("a senior runs the estimator advisor on the demo ledger, reads the recommen
   expect(text).toContain("Rationale for the method: estimator advisor");
   expect(text).toContain("seed 2026 (entered)");
   expect(text).toMatch(/8\.0% of items misstated/);
+  expect(text.replace(/\s+/g, " ")).toMatch(/Kept as the rationale with this reason: Difference kept: misstatements are expected to be small/);
 });

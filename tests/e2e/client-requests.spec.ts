@@ -95,7 +95,7 @@ test("invite a client contact, who uploads per item; the team sends one file bac
   const sample = new SamplePage(page);
   await sample.open("Results and evaluation");
   const grid = page.getByRole("table", { name: "Sample items" });
-  await expect(grid.getByRole("columnheader", { name: "Client request" })).toBeVisible();
+  await expect(grid.getByRole("columnheader", { name: "Evidence" })).toBeVisible(); // the request status shows under the evidence count
   await expect(grid.getByRole("row").filter({ hasText: first.itemRef }).getByText("Accepted")).toBeVisible();
   await expect(grid.getByRole("row").filter({ hasText: second.itemRef }).getByText("Requested")).toBeVisible();
   await shot(page, "5-grid-request-status");

@@ -54,7 +54,7 @@ test("a senior edits a plan before the draw, then extends the drawn sample and r
   await test.step("an item that cannot be used is voided and replaced by the next in the ranking", async () => {
     await s.open("Results and evaluation");
     const first = s.grid().getByRole("row").nth(1);
-    const ref = (await first.getByRole("cell").first().textContent())?.trim() ?? "";
+    const ref = (await first.getByRole("cell").nth(1).textContent())?.trim() ?? ""; // after the row's tick box
     await first.getByRole("button", { name: "Replace…" }).click();
     const dialog = page.getByRole("dialog", { name: /^Replace / });
     await dialog.getByLabel("Why the item cannot be used").fill("Document voided before the period end");

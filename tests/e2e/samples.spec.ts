@@ -38,9 +38,14 @@ test("a senior plans and draws a PPS sample; staff record results and the String
     await plan.openFromEngagement();
     await plan.describe({ populationId: population.id, name: SAMPLE_NAME, objective: "Confirm that recorded trade receivables exist at the period end.", assertion: "Existence", direction: "overstatement" });
     await expect(plan.field(/Tolerable misstatement/)).toHaveValue("900000.00"); // the engagement's performance materiality
-    await expect(plan.field("Confidence")).toHaveValue("95");
+    // A typed confidence is an override of the risk assessment, with its reason (issue 15).
+    await plan.field("Confidence from").selectOption({ label: "A typed confidence (override, with a reason)" });
+    await plan.field("Reason for typing the confidence").fill("Group instructions fix 95 % for this component");
+    await expect(page.getByLabel("Confidence", { exact: true })).toHaveValue("95");
     await plan.field(/Tolerable misstatement/).fill(tolerable);
-    await expect(plan.sizePanel().getByText("n = ⌈BV × RF / (TM − EM × EF)⌉", { exact: false })).toBeVisible();
+    // The firm's default methodology: confidence factors (AICPA Guide, 2008 and later), n = ⌈R × BV / TM⌉.
+    await expect(plan.sizePanel().getByText("n = ⌈R × BV / TM⌉", { exact: false })).toBeVisible();
+    await expect(page.getByTestId("mus-methodology")).toContainText("Sized with confidence factors (current Guide)");
     await expect(plan.sizePanel().getByRole("table", { name: "Inputs to the size" }).getByText(shown(tolerable))).toBeVisible();
     const computed = Number(await plan.chosenSize().textContent());
     expect(computed).toBeGreaterThan(40);
@@ -163,6 +168,9 @@ test("a senior sees the Neyman allocation while editing strata, and an attribute
   const plan = new PlanSamplePage(page);
   await plan.describe({ populationId: population.id, name: "Receivables valuation — stratified", objective: "Estimate the audited value of receivables by book-value band.", assertion: "Valuation and allocation" });
   await plan.method("Stratified random, classical variables");
+  // Sized from the risk assessment (issue 15): the firm's table maps the two risks to the confidence.
+  await plan.field("Assessed risk of material misstatement").selectOption({ label: "Maximum" });
+  await plan.field("Risk other substantive procedures fail to detect").selectOption({ label: "Maximum" });
   await plan.field(/Tolerable misstatement/).fill("30000");
   await plan.field("Estimator").selectOption({ label: "Combined ratio" });
   const allocation = page.getByRole("table", { name: "Allocation by stratum" });
@@ -186,12 +194,36 @@ test("a senior sees the Neyman allocation while editing strata, and an attribute
   await expect(allocation).toContainText("above");
   await shot(page, "s1-stratified-plan.png");
 
+  // A difference plan without a planning spread is warned that its size is the mean-per-unit one; an entered figure needs a reason.
+  await plan.method("Simple random, classical variables");
+  await plan.field("Estimator").selectOption({ label: "Difference" });
+  await expect(plan.sizePanel().getByText(/the size is the mean-per-unit size/)).toBeVisible();
+  await plan.field("Expected standard deviation from").selectOption({ label: "A figure I enter, with its reason" });
+  await plan.field(/Expected standard deviation \(/).fill("40");
+  await plan.field("Where the figure comes from").fill("Prior-year differences on this account");
+  await expect(plan.sizePanel().getByText(/S = 40\.00, entered by the planner: Prior-year differences/)).toBeVisible();
+  await expect(plan.sizePanel().getByText(/the size is the mean-per-unit size/)).toHaveCount(0);
+  await shot(page, "s1b-difference-plan-spread.png");
+
   await plan.method("Attribute sampling (test of controls)");
+  await plan.field("Confidence from").selectOption({ label: "A typed confidence (override, with a reason)" });
+  await plan.field("Reason for typing the confidence").fill("Control tests use the firm's 95 % reliance level");
+  await page.getByLabel("Confidence", { exact: true }).fill("95");
   await plan.field("Tolerable deviation rate").fill("5");
   await plan.field("Expected deviation rate").fill("0");
-  // AICPA Audit Guide "Audit Sampling", Table A-1: 5% risk, 5% tolerable, 0% expected → 59 items, 0 deviations allowed.
-  await expect(plan.chosenSize()).toHaveText("59");
+  // 400 items is under the firm's 5,000: hypergeometric, M = ⌈5% × 400⌉ = 20; scipy 1.17.1 hypergeom.cdf(0, 400, 20, 55) = 0.04798 ≤ 0.05
+  // (the binomial Table A-1 size for a large population would be 59).
+  await expect(plan.chosenSize()).toHaveText("55");
+  await expect(plan.sizePanel().getByTestId("plan-notes")).toContainText("under the firm's threshold of 5,000");
   await shot(page, "s2-attribute-plan.png");
+  // A manual control sized from the firm's frequency table prints the row used.
+  await plan.field("Size set by").selectOption({ label: "Control frequency (manual control)" });
+  await plan.field("How often the control operates").selectOption({ label: "Weekly" });
+  await expect(plan.chosenSize()).toHaveText("5");
+  await expect(plan.sizePanel().getByTestId("plan-notes")).toContainText("Row used: Weekly → 5 items");
+  await shot(page, "s2b-control-frequency-plan.png");
+  await plan.field("Size set by").selectOption({ label: "Statistical attribute plan" });
+  await expect(plan.chosenSize()).toHaveText("55");
   await plan.field("Sample name").fill("Credit approval on sales invoices");
   await plan.field("Objective of the test").fill("Test that each invoice above the credit limit was approved before dispatch.");
   await page.getByLabel("Assertion", { exact: true }).fill("Occurrence");
@@ -213,8 +245,9 @@ test("a senior sees the Neyman allocation while editing strata, and an attribute
   const panel = sample.evaluation();
   await expect(panel.getByTestId("deviations")).toHaveText("1");
   await expect(panel.getByTestId("sample-rate")).toHaveText("50.00%");
-  // One-sided Clopper–Pearson upper limit, 1 deviation in 2 at 95%: P(X ≤ 1 | n = 2, p) = 1 − p² = 0.05, so p = √0.95 = 0.974679.
-  await expect(panel.getByTestId("upper-deviation-limit")).toHaveText("97.47%");
+  // Hypergeometric upper limit, 1 deviation in 2 of N = 400 at 95%: P(X ≤ 1) = 1 − M(M − 1)/(400·399) > 0.05 holds up to M = 389
+  // (scipy hypergeom.cdf(1, 400, 389, 2) = 0.0543, (…, 390, …) = 0.0495) → 389/400 = 97.25%.
+  await expect(panel.getByTestId("upper-deviation-limit")).toHaveText("97.25%");
   await shot(page, "s3-attribute-results.png");
   // Monetary-unit and systematic samples are never replaced item by item; attribute items can be.
   await expect(sample.row(items[2].itemRef).getByRole("button", { name: "Replace…" })).toBeVisible();

@@ -6,6 +6,7 @@ import path from "node:path";
 import { encode } from "next-auth/jwt";
 import { HttpSession } from "../bench/support/http-session";
 import { DEMO, DEMO_PASSWORD, SignInPage } from "./pages/sign-in-page";
+import { waitForMail } from "./pages/requests-pages";
 
 const JSON_HEADERS = { "content-type": "application/json" };
 const LEAK = /\bat \S+ \(|node_modules|\/work\/|\bSELECT\b|\bINSERT\b|ER_[A-Z_]+|Error:/;
@@ -102,11 +103,24 @@ test("the session cookie is httpOnly and SameSite=Lax; an expired or forged sess
   expect(await ask(forged), "a session signed with another secret").toBe(401);
 });
 
+/** The administrator adds a person; the person chooses a password with the e-mailed link (issue 19: no password typed by the admin). */
+async function addPerson(admin: HttpSession, baseURL: string, name: string, email: string, password: string) {
+  const created = await admin.json<{ user: { id: number } }>("/api/users", { method: "POST", headers: JSON_HEADERS, body: JSON.stringify({ name, email, grade: "staff" }) });
+  await choosePassword(baseURL, email, /choose your Sondage password/, password);
+  return created;
+}
+
+async function choosePassword(baseURL: string, email: string, subject: RegExp, password: string) {
+  const token = /\/invitation\/([A-Za-z0-9_-]+)/.exec((await waitForMail(email, subject)).text)![1];
+  const res = await fetch(`${baseURL}/api/invitations/${token}`, { method: "POST", headers: { ...JSON_HEADERS, origin: baseURL }, body: JSON.stringify({ password }) });
+  expect(res.status).toBe(200);
+}
+
 test("a deactivated user's open session stops working at the next request", async ({ baseURL }) => {
   const admin = new HttpSession(baseURL!);
   await admin.signIn(DEMO.admin.email, DEMO_PASSWORD);
   const email = `leaver-${Date.now()}@marrow-quill.example`;
-  const created = await admin.json<{ user: { id: number } }>("/api/users", { method: "POST", headers: JSON_HEADERS, body: JSON.stringify({ name: "Lee Vermont", email, grade: "staff", password: "leaver-password-2026" }) });
+  const created = await addPerson(admin, baseURL!, "Lee Vermont", email, "leaver-password-2026");
   const leaver = new HttpSession(baseURL!);
   await leaver.signIn(email, "leaver-password-2026");
   expect((await leaver.fetch("/api/me")).status).toBe(200);
@@ -118,6 +132,27 @@ test("a deactivated user's open session stops working at the next request", asyn
   const page = await leaver.fetch("/engagements");
   expect(page.status).toBe(307);
   expect(page.headers.get("location")).toContain("/sign-in");
+});
+
+test("a password reset ends the person's open sessions; the password chosen with the e-mailed link signs in (issue 19)", async ({ baseURL }) => {
+  const admin = new HttpSession(baseURL!);
+  await admin.signIn(DEMO.admin.email, DEMO_PASSWORD);
+  const email = `reset-${Date.now()}@marrow-quill.example`;
+  const created = await addPerson(admin, baseURL!, "Rhea Tamsin", email, "first-password-2026");
+  const open = new HttpSession(baseURL!);
+  await open.signIn(email, "first-password-2026");
+  expect((await open.fetch("/api/me")).status).toBe(200);
+  await new Promise((r) => setTimeout(r, 1100)); // the session's issue time is kept in whole seconds (JWT iat)
+
+  const reset = await admin.fetch(`/api/users/${created.user.id}/password`, { method: "POST", headers: JSON_HEADERS, body: JSON.stringify({}) });
+  expect(reset.status).toBe(200);
+  expect((await open.fetch("/api/me")).status, "the session opened before the reset").toBe(401);
+  expect((await open.fetch("/api/auth/session")).status).toBe(200);
+  expect((await open.fetch("/api/me")).status, "and it does not come back when next-auth re-issues the cookie").toBe(401);
+  await choosePassword(baseURL!, email, /choose a new Sondage password/, "second-password-2026");
+  const again = new HttpSession(baseURL!);
+  await again.signIn(email, "second-password-2026");
+  expect((await again.fetch("/api/me")).status).toBe(200);
 });
 
 test("a ledger upload larger than 10 MB arrives whole (no proxy buffers API bodies)", async ({ baseURL }) => {

@@ -49,10 +49,14 @@ describe("estimator advisor API", () => {
     expect(run.status).toBe("done");
     expect(run.request).toMatchObject({ seed: 7, seedSource: "entered", sampleSizes: [30, 60], confidence: 0.95, sides: "lower", plannedSize: 60 });
     expect(run.result.cells.map((c: { estimator: string; sampleSize: number }) => `${c.estimator}@${c.sampleSize}`).sort())
-      .toEqual(["difference@30", "difference@60", "mean-per-unit@30", "mean-per-unit@60", "ratio@30", "ratio@60", "regression@30", "regression@60"]);
+      .toEqual(["beale-ratio@30", "beale-ratio@60", "difference@30", "difference@60", "hartley-ross@30", "hartley-ross@60", "jackknife-ratio@30", "jackknife-ratio@60",
+        "mean-per-unit@30", "mean-per-unit@60", "ratio@30", "ratio@60", "regression@30", "regression@60", "tin-ratio@30", "tin-ratio@60"]);
     for (const c of run.result.cells) expect(c.performance.histogram.reduce((s: number, b: { count: number }) => s + b.count, 0)).toBe(3000);
     expect(run.result.recommendation.sampleSize).toBe(60);
-    expect(run.result.recommendation.verdicts).toHaveLength(4);
+    expect(run.result.recommendation.verdicts).toHaveLength(8);
+    // The bias-corrected ratio forms are comparison rows, never the recommendation.
+    expect(run.result.recommendation.verdicts.filter((v: { verdict: string }) => v.verdict === "comparison")).toHaveLength(4);
+    expect(["mean-per-unit", "difference", "ratio", "regression", null]).toContain(run.result.recommendation.recommended);
     expect(run.result.truth.items).toBe(N);
     expect(await auditCount({ entity: "advisor_run", action: "done" })).toBeGreaterThanOrEqual(1);
   });
@@ -162,9 +166,26 @@ describe("estimator advisor API", () => {
     const cancelled = list.json.runs.find((r: { status: string }) => r.status === "cancelled");
     expect((await call(adopt.POST, "POST", { as: senior, params: at(ratioSample, { runId: String(cancelled.id) }), body: {} })).status).toBe(409);
     expect((await call(adopt.POST, "POST", { as: staff, params: at(ratioSample, { runId: String(done.id) }), body: {} })).status).toBe(403);
-    const ok = await call(adopt.POST, "POST", { as: senior, params: at(ratioSample, { runId: String(done.id) }), body: {} });
+    // A run that did not simulate the plan's estimator (runs made before ratio forms were simulated with
+    // non-positive items looked like this) cannot be kept.
+    const stored = await getDb()("advisor_runs").where({ id: done.id }).first();
+    const withoutRatio = typeof stored.result_json === "string" ? JSON.parse(stored.result_json) : stored.result_json;
+    withoutRatio.cells = withoutRatio.cells.filter((c: { estimator: string }) => c.estimator !== "ratio");
+    const [skipped] = await getDb()("advisor_runs").insert({ ...stored, id: undefined, result_json: JSON.stringify(withoutRatio), request_json: typeof stored.request_json === "string" ? stored.request_json : JSON.stringify(stored.request_json) });
+    const refused = await call(adopt.POST, "POST", { as: senior, params: at(ratioSample, { runId: String(skipped) }), body: { reason: "any" } });
+    expect(refused.status).toBe(409);
+    expect(refused.json.error.message).toMatch(/did not simulate the plan's estimator \(ratio\)/);
+    const full = await call(advisorRun.GET, "GET", { as: staff, params: at(ratioSample, { runId: String(done.id) }) });
+    if (full.json.run.result.recommendation.recommended !== "ratio") {
+      // Recommends another estimator (or none): kept only with a written reason, naming the field.
+      const noReason = await call(adopt.POST, "POST", { as: senior, params: at(ratioSample, { runId: String(done.id) }), body: {} });
+      expect(noReason.status).toBe(400);
+      expect(noReason.json.error.fields).toHaveProperty("reason");
+    }
+    const ok = await call(adopt.POST, "POST", { as: senior, params: at(ratioSample, { runId: String(done.id) }), body: { reason: "Ratio kept: the ledger's misstatements are proportional to book value." } });
     expect(ok.status).toBe(200);
     expect(ok.json.adopted.id).toBe(done.id);
+    expect(ok.json.adopted.keptReason).toBe("Ratio kept: the ledger's misstatements are proportional to book value.");
     expect(ok.json.adopted.result.recommendation).toBeTruthy();
     expect(await auditCount({ entity: "sample", action: "adopt-advisor-run" })).toBe(1);
     expect((await drawSample(senior, engagement, ratioSample, 11)).status).toBe(201);

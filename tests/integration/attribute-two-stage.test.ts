@@ -4,6 +4,7 @@
  */
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import stdlibBinomialCdf from "@stdlib/stats-base-dists-binomial-cdf";
+import stdlibHypergeometricCdf from "@stdlib/stats-base-dists-hypergeometric-cdf";
 import { getDb } from "@/db/knex";
 import { call } from "./support/call";
 import { makeEngagement, makeFirm, makeUser } from "./support/factory";
@@ -53,7 +54,12 @@ describe("attribute extension", () => {
     const ext = await call(extend.POST, "POST", { as: senior, params: { engagementId: String(engagement), sampleId: String(id) }, body: { additional: 34, reason: "One deviation found" } });
     expect(ext.status).toBe(409);
     expect(ext.json.error.message).toMatch(/unplanned sequential sampling.*about 7\.5%/);
-    expect(await listSampleItems(staff, engagement, id)).toHaveLength(59);
+    // N 400 is under the firm's default hypergeometric threshold (5,000): M = ⌈0.05 × 400⌉ = 20, and the smallest n with
+    // HypergeometricCDF(0; 400, 20, n) ≤ 0.05 is 55 (@stdlib hypergeometric-cdf: n 54 → 0.0509, n 55 → 0.0480), not the binomial 59.
+    expect(stdlibHypergeometricCdf(0, 400, 20, 54)).toBeGreaterThan(0.05);
+    expect(stdlibHypergeometricCdf(0, 400, 20, 55)).toBeLessThanOrEqual(0.05);
+    expect(r.json.sample.plan).toMatchObject({ model: "hypergeometric", computedSize: 55 });
+    expect(await listSampleItems(staff, engagement, id)).toHaveLength(55);
   });
 
   it("plans two stages, continues the same ranking for stage 2 after exactly one deviation, and re-performs both", async () => {

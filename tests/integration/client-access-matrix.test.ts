@@ -29,6 +29,7 @@ const CLIENT_ROWS: Record<string, number | "skip"> = {
   "GET /api/auth/[...nextauth]": "skip", // next-auth's own sign-in handler, not ours: sign-in is tested in e2e
   "POST /api/auth/[...nextauth]": "skip",
   "GET /api/me": 200, // their own profile only
+  "GET /api/me/inbox": 403, // the review inbox is the audit team's (issue 19)
   "GET /api/engagements": 200, // an empty list: a client contact is on no audit team (asserted below)
   "POST /api/engagements": 403,
   "GET /api/users": 403, // the firm's people are not for client staff

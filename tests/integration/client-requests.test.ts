@@ -249,5 +249,8 @@ describe("request lists", () => {
     expect((await createList(senior, { contactUserId: carla.userId })).status).toBe(409);
     const inbox = await readInbox();
     expect(inbox.some((m) => addressedTo(carla.email)(m) && /locked/i.test(m.subject))).toBe(false);
+    // Issue 19: the contact is told each list the lock closed (not the team's lock notice itself).
+    const closed = await waitForMessage((m) => addressedTo(carla.email)(m) && /^Request list closed: /.test(m.subject) && m.text.includes(`/requests/${listId}`));
+    expect(closed.text.replace(/\s+/g, " ")).toContain("no longer takes files on it");
   });
 });

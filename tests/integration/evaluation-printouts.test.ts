@@ -111,6 +111,45 @@ describe("one evaluation, printed three times", () => {
     expect(out.pdf).toContain(squash(b.decision.rule));
   });
 
+  it("a nonstatistical sample with key items: projection, key items at actual, total and the verdict agree (issue 15)", async () => {
+    const r = await planSample(senior, engagement, { populationId, direction: "overstatement", params: {
+      method: "nonstatistical", sizingBasis: "risk-assessment", assessedRisk: "maximum", otherProceduresRisk: "moderate", tolerableMisstatement: "5000", expectedMisstatement: "0",
+      projection: "ratio", selection: "random", keyItemThreshold: "4000", keyItems: [{ itemRef: "INV004", reason: "Credit note raised after the period end" }],
+    } });
+    expect(r.status).toBe(201);
+    const id = r.json.sample.id as number;
+    await drawSample(senior, engagement, id, 5489);
+    const items = await listSampleItems(staff, engagement, id);
+    const sampled = items.find((i) => !(i as unknown as { keyItem: boolean }).keyItem)!;
+    for (const it of items) {
+      const audited = it.itemRef === "INV004" ? (Number(it.bookValue) - 75).toFixed(2) : it.id === sampled.id ? (Number(it.bookValue) - 40).toFixed(2) : it.bookValue;
+      expect((await saveResult(staff, engagement, id, it.id, { version: it.version, status: "done", auditedValue: audited })).status).toBe(200);
+    }
+    const out = await printouts(id, "overstatement");
+    const b = out.api.block!;
+    if (b.method !== "nonstatistical") throw new Error("expected a nonstatistical block");
+    expect(b.keyItems.misstatement).toBe("75.00");
+    expectSameFigures(out, []);
+    expect(out.page).toContain(b.statement);
+    expect(out.pdf).toContain(squash(b.statement));
+  });
+
+  it("a classical sample with key items: the remainder's estimate and the key items at actual agree", async () => {
+    const r = await planSample(senior, engagement, { populationId, direction: "overstatement", params: { method: "random", estimator: "difference", tolerableMisstatement: "6000", sampleSize: 8, sizeReason: "test", keyItemThreshold: "4000" } });
+    expect(r.status).toBe(201);
+    const id = r.json.sample.id as number;
+    await drawSample(senior, engagement, id, 5489);
+    for (const it of await listSampleItems(staff, engagement, id)) {
+      const audited = it.itemRef === "INV011" ? "4000.00" : it.bookValue;
+      expect((await saveResult(staff, engagement, id, it.id, { version: it.version, status: "done", auditedValue: audited })).status).toBe(200);
+    }
+    const out = await printouts(id, "overstatement");
+    const b = out.api.block!;
+    if (b.method !== "variables") throw new Error("expected a variables block");
+    expect(b.atActual).not.toBeNull();
+    expectSameFigures(out, [formatFactor(b.decision.coefficient)]);
+  });
+
   it("a draft before the first result: the workpaper prints the plan and says why there is no evaluation yet", async () => {
     const r = await planSample(senior, engagement, { populationId, direction: "overstatement", params: { method: "mus", tolerableMisstatement: "15000" } });
     const id = r.json.sample.id as number;

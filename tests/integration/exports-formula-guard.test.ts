@@ -65,7 +65,7 @@ describe("the fieldwork workbook", () => {
       sheet.eachRow((row, r) => row.eachCell((cell, c) => {
         if (cell.type === ExcelJS.ValueType.Formula) {
           // Our own misstatement formula over the same row's cells (status, book, audited) is the only formula written.
-          expect(cell.formula, `${sheet.name}!R${r}C${c}`).toBe(`IF(F${r}="Not auditable",D${r},IF(E${r}="","",D${r}-E${r}))`);
+          expect(cell.formula, `${sheet.name}!R${r}C${c}`).toBe(`IF(F${r}="Could not be audited",D${r},IF(E${r}="","",D${r}-E${r}))`);
           return;
         }
         if (typeof cell.value !== "string") return;

@@ -84,7 +84,7 @@ const itemsState = async (sampleId: number) =>
   (await getDb()("sample_items").where({ sample_id: sampleId }).orderBy("id").select("id", "status", "audited_value", "comment", "version"));
 
 describe("the fieldwork workbook export", () => {
-  it("has a cover sheet, a protected Items sheet with only the fill-in columns unlocked, lists, and no formula but the misstatement", async () => {
+  it("has a cover sheet, an Items sheet people may sort and filter with only the fill-in columns unlocked, lists, and no formula but the misstatement", async () => {
     const sampleId = await drawnSample("random");
     const wb = await exportWorkbook(sampleId);
     const cover = wb.getWorksheet("Cover")!;
@@ -99,12 +99,14 @@ describe("the fieldwork workbook export", () => {
     const cols = columnsOf(ws);
     expect(Object.keys(cols)).toEqual(["Order", "Item reference", "Description", "Book value", "Audited value", "Status", "Cause", "Cause detail", "Comment", "Misstatement (book − audited)", "Item id", "Version", "Exported values"]);
     expect(ws.rowCount).toBe(9);
-    expect((ws as unknown as { sheetProtection: unknown }).sheetProtection).toMatchObject({ sheet: true }); // not in the typings
+    // Issue 19: unprotected (Excel will not sort a protected range holding locked cells), with filters on the header row.
+    expect((ws as unknown as { sheetProtection?: { sheet?: boolean } }).sheetProtection?.sheet ?? false).toBe(false); // not in the typings
+    expect(ws.autoFilter).toBeTruthy();
     for (const hidden of ["Item id", "Version", "Exported values"]) expect(ws.getColumn(cols[hidden]).hidden).toBe(true);
     const fill = new Set(["Audited value", "Status", "Cause", "Cause detail", "Comment"]);
     const row = ws.getRow(2);
     for (const [header, col] of Object.entries(cols)) expect(row.getCell(col).protection?.locked === false).toBe(fill.has(header));
-    expect(row.getCell(cols.Status).dataValidation).toMatchObject({ type: "list", formulae: ['"Not started,Done,Not auditable"'] });
+    expect(row.getCell(cols.Status).dataValidation).toMatchObject({ type: "list", formulae: ['"Not started,Done,Could not be audited"'] });
     expect(row.getCell(cols.Cause).dataValidation?.type).toBe("list");
 
     // No cell anywhere runs a formula except the misstatement column (OWASP "CSV Injection").
@@ -156,7 +158,7 @@ describe("the fieldwork workbook import", () => {
     expect((await itemsState(sampleId)).every((i) => i.status === "not-started" && i.version === 1)).toBe(true);
 
     fillRow("INV-06", { Status: "Done" });
-    fillRow("INV-07", { Status: "Not auditable", Comment: "Customer could not be traced" });
+    fillRow("INV-07", { Status: "Not auditable", Comment: "Customer could not be traced" }); // the earlier label is still read
     const auditsBefore = await auditCount({ action: "record-result" });
     res = await importWorkbook(sampleId, wb);
     expect(res.status).toBe(200);
@@ -176,6 +178,26 @@ describe("the fieldwork workbook import", () => {
     // The same workbook imported again changes nothing: every row still matches what it exported or what is saved.
     res = await importWorkbook(sampleId, wb);
     expect(res.json).toMatchObject({ changed: 0, unchanged: 8 });
+  });
+
+  it("imports a workbook whose rows were sorted (issue 19: rows are matched by id, not order)", async () => {
+    const sampleId = await drawnSample("random");
+    const wb = await exportWorkbook(sampleId);
+    const ws = wb.getWorksheet("Items")!;
+    const cols = columnsOf(ws);
+    const width = Object.keys(cols).length;
+    const data = Array.from({ length: ws.rowCount - 1 }, (_, i) => Array.from({ length: width }, (_c, c) => ws.getRow(i + 2).getCell(c + 1).value));
+    const refsBefore = data.map((values) => values[cols["Item reference"] - 1]);
+    data.reverse().forEach((values, i) => values.forEach((v, c) => { ws.getRow(i + 2).getCell(c + 1).value = v; }));
+    const refsAfter = data.map((_v, i) => ws.getRow(i + 2).getCell(cols["Item reference"]).value);
+    expect(refsAfter).toEqual(refsBefore.slice().reverse());
+    rowOf(ws, "INV-02").getCell(cols["Audited value"]).value = 800;
+    rowOf(ws, "INV-02").getCell(cols.Status).value = "Done";
+    const res = await importWorkbook(sampleId, wb);
+    expect(res.status, JSON.stringify(res.json)).toBe(200);
+    expect(res.json).toMatchObject({ rows: 8, changed: 1, unchanged: 7 });
+    const items = await listSampleItems(staff, engagement, sampleId);
+    expect(items.find((i) => i.itemRef === "INV-02")).toMatchObject({ status: "done", auditedValue: "800.00" });
   });
 
   it("refuses a sheet with a wrong reference, text in an amount cell and a formula in a cell, applying nothing", async () => {

@@ -30,5 +30,17 @@ describe("migrations", () => {
     // 0011: the auditor's conclusion and response live beside the sample's sign-offs.
     const [conclusionCols] = await db.raw("SHOW COLUMNS FROM samples WHERE Field LIKE 'auditor_%'");
     expect((conclusionCols as { Field: string }[]).map((c) => c.Field).sort()).toEqual(["auditor_conclusion", "auditor_conclusion_at", "auditor_conclusion_by", "auditor_conclusion_role", "auditor_responses_json"]);
+    const [reason] = await db.raw("SHOW COLUMNS FROM samples WHERE Field = 'advisor_run_reason'"); // 0012
+    expect(reason[0].Type).toBe("text");
+    // 0016 (issue 19): sessions ended by a password reset; archived populations.
+    const [valid] = await db.raw("SHOW COLUMNS FROM users WHERE Field = 'sessions_valid_after'");
+    expect(valid[0].Type).toBe("timestamp(3)");
+    const [archived] = await db.raw("SHOW COLUMNS FROM populations WHERE Field IN ('archived_at', 'archived_by')");
+    expect(archived.map((c: { Field: string }) => c.Field).sort()).toEqual(["archived_at", "archived_by"]);
+    // 0013: nonstatistical samples, key items, haphazard picks and anomalies
+    const [method] = await db.raw("SHOW COLUMNS FROM samples WHERE Field = 'method'");
+    expect(method[0].Type).toContain("'nonstatistical'");
+    const [itemCols] = await db.raw("SHOW COLUMNS FROM sample_items WHERE Field IN ('key_item', 'key_reason', 'picked_by', 'picked_at', 'anomaly_justification', 'anomaly_accepted_by')");
+    expect(itemCols).toHaveLength(6);
   });
 });

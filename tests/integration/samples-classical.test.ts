@@ -1,6 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import normalQuantile from "@stdlib/stats-base-dists-normal-quantile";
-import betaQuantile from "@stdlib/stats-base-dists-beta-quantile";
 import { getDb } from "@/db/knex";
 import { createRng } from "@/lib/sampling";
 import { call } from "./support/call";
@@ -151,17 +150,21 @@ describe("classical variables", () => {
 });
 
 describe("attribute sampling", () => {
-  it("sizes from AICPA Table A-1 and evaluates the one-sided Clopper-Pearson upper limit", async () => {
+  it("sizes a 20-item population with the hypergeometric distribution (under the firm's 5,000) and evaluates its exact upper limit", async () => {
     const { id, plan } = await drawnSampleWith({ method: "attribute", tolerableRate: 0.2, expectedRate: 0 });
-    // AICPA Audit Guide "Audit Sampling", Table A-1 (5% risk of overreliance): TDR 20%, EDR 0% → 14 (0) (from memory; agrees with the binomial search).
-    expect(plan.computedSize).toBe(14);
+    // N 20 < 5,000 (firm default hypergeometricBelow): M = ⌈0.2 × 20⌉ = 4; scipy 1.17.1 hypergeom.cdf(0, 20, 4, 10) = 0.04334 ≤ 0.05,
+    // hypergeom.cdf(0, 20, 4, 9) = 0.06811 → n 10 (the binomial Table A-1 size would be 14).
+    expect(plan.computedSize).toBe(10);
+    expect(plan.model).toBe("hypergeometric");
+    expect(plan.inputs).toMatchObject({ N: 20, M: 4 });
+    expect(plan.notes.join(" ")).toMatch(/under the firm's threshold of 5,000/);
     const items = await listSampleItems(staff, engagement, id);
     await recordAll(id, [items[3].itemRef]);
     const ev = await getEvaluation(staff, engagement, id);
-    // Clopper-Pearson one-sided upper limit: Beta⁻¹(0.95; k+1, n−k) (@stdlib beta quantile).
-    expect(ev.block).toMatchObject({ method: "attributes", sampleSize: 14, deviations: 1 });
-    expect(ev.block.upperDeviationLimit).toBeCloseTo(betaQuantile(0.95, 2, 13), 9);
-    expect(ev.computed.supported).toBe(betaQuantile(0.95, 2, 13) <= 0.2);
+    // scipy: hypergeom.cdf(1, 20, 6, 10) = 0.0704 > 0.05, hypergeom.cdf(1, 20, 7, 10) = 0.0286 → M_U 6, upper limit 6/20 = 30%.
+    expect(ev.block).toMatchObject({ method: "attributes", sampleSize: 10, deviations: 1, model: "hypergeometric", upperDeviations: 6 });
+    expect(ev.block.upperDeviationLimit).toBeCloseTo(0.3, 12);
+    expect(ev.computed.supported).toBe(false);
   });
 });
 

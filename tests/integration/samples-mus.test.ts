@@ -7,10 +7,15 @@ import { CANONICAL_CSV, CANONICAL_SHA256, drawSample, getEvaluation, listSampleI
 import * as reperform from "@/app/api/engagements/[engagementId]/samples/[sampleId]/reperform/route";
 import * as recipe from "@/app/api/engagements/[engagementId]/samples/[sampleId]/recipe/route";
 import * as one from "@/app/api/engagements/[engagementId]/samples/[sampleId]/route";
+import * as methodology from "@/app/api/firm/methodology/route";
+import { DEFAULT_METHODOLOGY } from "@/lib/validation/methodology";
 
 vi.mock("@/lib/auth/session-user", async () => (await import("./support/session")).sessionModule);
 
-let senior: number, staff: number, outsider: number, engagement: number, populationId: number, sampleId: number;
+let senior: number, staff: number, outsider: number, engagement: number, populationId: number, sampleId: number, admin: number;
+// The factor mode is the firm's methodology setting (stamped on each plan), not a per-plan choice.
+const useFactorMode = async (factorMode: "exact" | "table") =>
+  expect((await call(methodology.PUT, "PUT", { as: admin, body: { ...DEFAULT_METHODOLOGY, factorMode } })).status).toBe(200);
 
 // The canonical population's positive book values in cents, in file order (zero and negative excluded from PPS).
 const rows = CANONICAL_CSV.trim().split("\n").slice(1).map((l, i) => ({ ref: l.split(",")[0], row: i + 2, cents: BigInt(l.split(",")[1].replace(".", "")) }));
@@ -21,8 +26,10 @@ beforeAll(async () => {
   const firm = await makeFirm();
   [senior, staff, outsider] = await Promise.all([makeUser(firm, "senior"), makeUser(firm, "staff"), makeUser(firm, "senior")]);
   const manager = await makeUser(firm, "manager");
+  admin = await makeUser(firm, "staff", { admin: true });
   engagement = await makeEngagement(firm, manager, [[manager, "manager"], [senior, "senior"], [staff, "staff"]]);
   await makeEngagement(firm, manager, [[manager, "manager"], [outsider, "senior"]]);
+  await useFactorMode("table");
   const loaded = await loadCanonicalPopulation(senior, engagement);
   populationId = loaded.populationId;
   expect(loaded.sha256).toBe(CANONICAL_SHA256);
@@ -183,7 +190,8 @@ describe("monetary-unit sample: fieldwork and the Stringer bound", () => {
     expect(again.version).toBe(first.version);
   });
 
-  it("computes exact factors from the gamma quantile when asked", async () => {
+  it("computes exact factors from the gamma quantile when the firm's methodology asks for them", async () => {
+    await useFactorMode("exact");
     const r = await planSample(senior, engagement, { populationId, params: { method: "mus", tolerableMisstatement: "15000", factorMode: "exact" } });
     const id = r.json.sample.id;
     await drawSample(senior, engagement, id, 1206281);

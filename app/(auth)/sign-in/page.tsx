@@ -7,7 +7,7 @@ export const metadata: Metadata = { title: "Sign in" };
 
 function safeCallback(value: string | string[] | undefined): string {
   const v = Array.isArray(value) ? value[0] : value;
-  return v && v.startsWith("/") && !v.startsWith("//") ? v : "/engagements";
+  return v && v.startsWith("/") && !v.startsWith("//") ? v : "/"; // "/" sends each person to their own start page
 }
 
 export default async function SignInPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {

@@ -25,7 +25,7 @@ export default async function MyRequestsPage() {
             return (
               <li key={l.id} className="rounded-card border border-ink-line bg-paper-raised p-4 shadow-card">
                 <div className="flex flex-wrap items-baseline justify-between gap-3">
-                  <Link href={`/requests/${l.id}`} className="text-base font-semibold text-ledger-700 hover:underline">{l.title}</Link>
+                  <Link href={`/requests/${l.id}`} className="text-base font-semibold text-ledger-700 link">{l.title}</Link>
                   <span className="flex gap-2">{l.status === "closed" ? <Badge>Closed</Badge> : late ? <Badge tone="red">Overdue</Badge> : <Badge tone="blue">Open</Badge>}</span>
                 </div>
                 <p className="mt-1 text-sm text-ink-soft">{l.engagement.clientName} — {l.engagement.name} · from {l.sentBy} · due {formatDay(l.dueDate)}</p>

@@ -1,6 +1,8 @@
 import { z } from "zod";
 import { withAuditor, withFirmAdmin } from "@/lib/auth/with-role";
-import { createUser, listUsersByFirmId } from "@/lib/data/users";
+import { listUsersByFirmId } from "@/lib/data/users";
+import { notifyStaffInvitation } from "@/lib/mail/notify-people";
+import { inviteFirmPerson } from "@/lib/people/invite-staff";
 import { CreateUserSchema } from "@/lib/validation/user";
 
 /** Everyone in the audit firm may list its active people (to build a team); admins see everyone; client contacts get 403. */
@@ -9,7 +11,9 @@ export const GET = withAuditor(z.object({}), async (_input, { db, user }) => {
   return { users };
 });
 
+/** An administrator adds a person, who is e-mailed a one-time link to choose their own password. */
 export const POST = withFirmAdmin(CreateUserSchema, async (input, { db, user }) => {
-  const created = await createUser(db, { firmId: user.firmId, actorId: user.id, input });
-  return Response.json({ user: created }, { status: 201 });
+  const { user: created, token } = await inviteFirmPerson(db, { firmId: user.firmId, actorId: user.id, input });
+  const mail = await notifyStaffInvitation(db, { person: created, token, invitedBy: { name: user.name }, firmId: user.firmId, reason: "new" });
+  return Response.json({ user: created, invitationSent: mail.sent }, { status: 201 });
 });

@@ -27,7 +27,8 @@ export class AdvisorPanel {
     return this.root.getByRole("img", { name: new RegExp(`^${estimator}: histogram of estimated audited totals`) });
   }
 
-  async keepAsRationale() {
+  async keepAsRationale(reason?: string) {
+    if (reason) await this.root.getByLabel(/^Reason for keeping this run/).fill(reason);
     await this.root.getByRole("button", { name: "Keep as the rationale for the method" }).click();
     await expect(this.root.getByText("Kept with the plan as the rationale for the method")).toBeVisible();
   }

@@ -21,7 +21,8 @@ export class ReviewPanelPage {
 
   async signOff(as: "preparer" | "reviewer") {
     await this.page.getByRole("button", { name: `Sign off as ${as}` }).click();
-    await expect(this.page.getByText(as === "preparer" ? /Signed off as preparer/ : /Signed off as reviewer/)).toBeVisible();
+    // The panel's own message (the button then reads "Signed off as …", disabled, with why beside it).
+    await expect(this.page.getByRole("status").filter({ hasText: as === "preparer" ? "Signed off as preparer; the reviewers have been told." : /^Signed off as reviewer\.$/ })).toBeVisible();
   }
 
   async raiseNote(text: string) {
@@ -32,7 +33,7 @@ export class ReviewPanelPage {
 
   async answerNote(n: number, answer: string) {
     await this.page.getByRole("textbox", { name: `Answer to note ${n}` }).fill(answer);
-    await this.page.getByTestId(`review-note-${n}`).getByRole("button", { name: "Answer" }).click();
+    await this.page.getByTestId(`review-note-${n}`).getByRole("button", { name: "Send answer" }).click();
     await expect(this.page.getByTestId(`review-note-${n}`)).toContainText("Answered");
   }
 
@@ -41,8 +42,17 @@ export class ReviewPanelPage {
     await expect(this.page.getByTestId(`review-note-${n}`)).toContainText("Cleared");
   }
 
+  /** Opens the lock confirmation, which says what locking will do. */
+  async openLockDialog() {
+    await this.page.getByRole("button", { name: "Lock sample…" }).click();
+    const dialog = this.page.getByRole("dialog", { name: "Lock this sample?" });
+    await expect(dialog).toBeVisible();
+    return dialog;
+  }
+
   async lock() {
-    await this.page.getByRole("button", { name: "Lock sample" }).click();
+    const dialog = await this.openLockDialog();
+    await dialog.getByRole("button", { name: "Lock the sample" }).click();
     await expect(this.page.getByTestId("workpaper-sha256")).toBeVisible({ timeout: 30_000 });
     return (await this.page.getByTestId("workpaper-sha256").textContent())!.trim();
   }

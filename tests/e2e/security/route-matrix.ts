@@ -49,6 +49,7 @@ const musParams = { method: "mus", confidence: 0.95, tolerableMisstatement: "600
 
 export const ROUTE_MATRIX: MatrixRow[] = [
   { route: "GET /api/me", expect: signedIn(200) },
+  { route: "GET /api/me/inbox", expect: auditors(200) }, // issue 19: the reviewer's inbox across engagements
   { route: "GET /api/engagements", expect: signedIn(200) },
   // Creating an engagement needs the manager or partner grade (the other firm's caller is a partner).
   { route: "POST /api/engagements", expect: { ...signedIn(403), manager: 400, partner: 400, otherFirm: 400 } },
@@ -80,6 +81,9 @@ export const ROUTE_MATRIX: MatrixRow[] = [
 
   { route: `GET ${E}/populations`, expect: onEngagement("viewer", 200) },
   { route: `GET ${E}/populations/[populationId]`, expect: onEngagement("viewer", 200) },
+  // issue 19: the fixture's population is used by its sample, so an allowed caller gets 409 and nothing is deleted
+  { route: `DELETE ${E}/populations/[populationId]`, expect: onEngagement("senior", 409) },
+  { route: `POST ${E}/populations/[populationId]/archive`, expect: onEngagement("senior", 400), validBody: () => ({ archived: false }) },
   { route: `GET ${E}/populations/[populationId]/items`, expect: onEngagement("viewer", 200) },
   { route: `GET ${E}/populations/[populationId]/original`, expect: onEngagement("viewer", 200) },
   { route: `GET ${E}/populations/[populationId]/profile`, expect: onEngagement("viewer", 200) },
@@ -118,12 +122,18 @@ export const ROUTE_MATRIX: MatrixRow[] = [
   { route: `POST ${S}/extend`, expect: onEngagement("senior", 400), validBody: () => ({ additional: 1, reason: "Cross-engagement probe" }) },
   { route: `GET ${S}/items`, expect: onEngagement("viewer", 200) },
   { route: `PATCH ${S}/items/[itemId]`, expect: onEngagement("staff", 400), validBody: (ids) => ({ version: ids.itemVersion, status: "done", auditedValue: "1.00" }) },
+  { route: `POST ${S}/results`, expect: onEngagement("staff", 400), validBody: (ids) => ({ rows: [{ itemId: ids.itemId, version: ids.itemVersion, status: "done", auditedValue: "1.00" }] }) }, // issue 19: paste, agreed to book, undo
   { route: `GET ${S}/items/[itemId]/evidence`, expect: onEngagement("viewer", 200) },
   { route: `POST ${S}/items/[itemId]/evidence`, expect: onEngagement("viewer", 400), probe: { query: `fileName=${LONG_NAME}`, body: "probe", contentType: "text/plain" } },
   { route: `GET ${S}/items/[itemId]/evidence/[evidenceId]`, expect: onEngagement("viewer", 200) },
   // Only staff and above remove evidence (a client contact only their own uploads, on the client side).
   { route: `DELETE ${S}/items/[itemId]/evidence/[evidenceId]`, expect: onEngagement("staff", 404), probe: { path: `${S}/items/[itemId]/evidence/2147483000` } },
   { route: `POST ${S}/items/[itemId]/replace`, expect: onEngagement("senior", 400), validBody: () => ({ reason: "Cross-engagement probe" }) },
+  { route: `POST ${S}/items/[itemId]/anomaly`, expect: onEngagement("staff", 400), validBody: () => ({ justification: "Cross-engagement probe of an anomaly mark" }) },
+  { route: `DELETE ${S}/items/[itemId]/anomaly`, expect: onEngagement("staff", 404), probe: { path: `${S}/items/2147483000/anomaly` } },
+  { route: `POST ${S}/items/[itemId]/anomaly/acceptance`, expect: onEngagement("manager", 400), validBody: () => ({ confirm: true }) },
+  { route: `POST ${S}/picks`, expect: onEngagement("senior", 400), validBody: () => ({ rowNumber: 2 }) },
+  { route: `DELETE ${S}/picks/[itemId]`, expect: onEngagement("senior", 404), probe: { path: `${S}/picks/2147483000` } },
   { route: `POST ${S}/lock`, expect: onEngagement("manager", 400), validBody: () => ({}) },
   { route: `GET ${S}/notes`, expect: onEngagement("viewer", 200) },
   { route: `POST ${S}/notes`, expect: onEngagement("manager", 400), validBody: () => ({ text: "Cross-engagement probe" }) },

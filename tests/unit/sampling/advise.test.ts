@@ -40,3 +40,31 @@ describe("recommendEstimator", () => {
     expect(r.summary).toMatch(/No estimator's bound held the truth/);
   });
 });
+
+describe("recommendEstimator — bias-corrected ratio estimators as comparison rows", () => {
+  const cells: AdvisorCell[] = [
+    { estimator: "difference", sampleSize: 50, performance: perf({ standardDeviation: 1200, coverage: 0.95 }) },
+    { estimator: "ratio", sampleSize: 50, performance: perf({ bias: -300, standardDeviation: 1000, coverage: 0.95 }) },
+    { estimator: "hartley-ross", sampleSize: 50, performance: perf({ bias: 10, standardDeviation: 1400, coverage: 0.96 }) },
+    { estimator: "jackknife-ratio", sampleSize: 50, performance: perf({ bias: -20, standardDeviation: 1030, coverage: 0.95 }) },
+    { estimator: "tin-ratio", sampleSize: 50, performance: perf({ bias: -40, standardDeviation: 900, coverage: 0.95 }) },
+  ];
+
+  it("never recommends a comparison row, even with the lowest RMSE", () => {
+    // RMSE: ratio √(300² + 1000²) = 1,044.03; Tin √(40² + 900²) = 900.89 (lowest) but a comparison row.
+    const r = recommendEstimator({ cells, confidence: 0.95, trials: 10000, atSize: 50 });
+    expect(r.recommended).toBe("ratio");
+    expect(r.verdicts.filter((v) => v.verdict === "comparison").map((v) => v.estimator)).toEqual(["hartley-ross", "jackknife-ratio", "tin-ratio"]);
+    expect(r.verdicts.find((v) => v.estimator === "hartley-ross")!.reason).toBe("Hartley–Ross (unbiased ratio-type) (for comparison): bias 10, RMSE 1,400, coverage 96%; the plain ratio estimator: bias 300, RMSE 1,044.");
+  });
+
+  it("says in plain words when a corrected estimator is less biased but worse on RMSE", () => {
+    // Hartley–Ross: |bias| 10 < 300 but RMSE 1,400.04 > 1,044.03; jackknife: |bias| 20 < 300, RMSE √(20² + 1030²) = 1,030.19 < 1,044.03 (better: not listed).
+    const r = recommendEstimator({ cells, confidence: 0.95, trials: 10000, atSize: 50 });
+    expect(r.tradeOff).toBe("Hartley–Ross removes most of the ratio estimator's bias (300) but its extra spread costs more than the bias removed: RMSE 1,400 against 1,044. On this population the plain ratio estimator is the better choice of the ratio forms.");
+  });
+
+  it("has no trade-off line when no corrected estimator is worse on RMSE", () => {
+    expect(recommendEstimator({ cells: cells.filter((c) => c.estimator !== "hartley-ross"), confidence: 0.95, trials: 10000, atSize: 50 }).tradeOff).toBeNull();
+  });
+});

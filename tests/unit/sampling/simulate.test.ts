@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { createRng, evaluateVariables, simulateEstimators, type SampledItem } from "@/lib/sampling";
 import { drawSimpleRandomSample } from "@/lib/sampling/simulate";
+import { correctedRatioEstimates } from "@/lib/sampling/ratio-corrected";
 
 /** Deterministic populations built from a seeded MT19937 stream. */
 function population(N: number, seed: number, make: (u: () => number) => [number, number]): SampledItem[] {
@@ -100,8 +101,8 @@ describe("simulateEstimators", () => {
     it("sample size 2 with regression", () => expect(() => simulateEstimators({ ...ok, sampleSize: 2, estimators: ["regression"] })).toThrow(/sampleSize must be an integer between 3/));
     it("zero trials", () => expect(() => simulateEstimators({ ...ok, trials: 0 })).toThrow(/trials/));
     it("a one-item population", () => expect(() => simulateEstimators({ ...ok, population: SKEWED.slice(0, 1) })).toThrow(/population must hold at least 2/));
-    it("a non-positive book value with the ratio estimator, naming the item", () =>
-      expect(() => simulateEstimators({ ...ok, estimators: ["ratio"], population: [...SKEWED.slice(0, 5), { bookValue: 0, auditedValue: 0 }] })).toThrow(/population\[5\]\.bookValue must be greater than zero/));
+    it("a zero book value with the Hartley–Ross estimator, naming the item", () =>
+      expect(() => simulateEstimators({ ...ok, estimators: ["hartley-ross"], population: [...SKEWED.slice(0, 5), { bookValue: 0, auditedValue: 0 }] })).toThrow(/population\[5\]\.bookValue is zero/));
     it("a population item with 3 decimals", () =>
       expect(() => simulateEstimators({ ...ok, population: [{ bookValue: 1.001, auditedValue: 1 }, ...SKEWED.slice(0, 5)] })).toThrow(/population\[0\]\.bookValue must have at most 2 decimals/));
   });
@@ -137,5 +138,49 @@ describe("simulateEstimators — one-sided bounds, proportional ledgers, progres
     const seen: number[] = [];
     simulateEstimators({ population: SKEWED, sampleSize: 20, trials: 1500, seed: 1, confidence: 0.95, estimators: ["ratio"], onProgress: (d) => seen.push(d) });
     expect(seen).toEqual([500, 1000, 1500]);
+  });
+});
+
+describe("simulateEstimators — bias-corrected ratio estimators and non-positive book values", () => {
+  const CORRECTED = ["hartley-ross", "jackknife-ratio", "beale-ratio", "tin-ratio"] as const;
+
+  it("one trial reproduces correctedRatioEstimates on the same drawn sample", () => {
+    const rng = createRng(7);
+    const permutation = Int32Array.from({ length: SKEWED.length }, (_, i) => i);
+    drawSimpleRandomSample(rng, permutation, 30);
+    const sample = Array.from(permutation.subarray(0, 30), (i) => SKEWED[i]);
+    const book = SKEWED.reduce((sum, s) => sum + Math.round(s.bookValue * 100), 0) / 100;
+    const direct = correctedRatioEstimates({ sample, populationSize: SKEWED.length, populationBookValue: book });
+    const r = simulateEstimators({ population: SKEWED, sampleSize: 30, trials: 1, seed: 7, confidence: 0.95, estimators: [...CORRECTED] });
+    for (const e of CORRECTED) expect(r[e].meanEstimate).toBeCloseTo(direct[e]!.estimate, 4);
+  });
+
+  it("Hartley–Ross is unbiased where the ratio estimator is not (y = 100 + x: Cochran 1977 §6.8)", () => {
+    const pop = population(5000, 8, (u) => {
+      const book = 20 + 380 * u();
+      return [book, 100 + book + 20 * (u() - 0.5)];
+    });
+    const r = simulateEstimators({ population: pop, sampleSize: 10, trials: 20000, seed: 5, confidence: 0.95, estimators: ["ratio", "hartley-ross", "jackknife-ratio"] });
+    // Monte Carlo standard error of the mean estimate = sd / sqrt(trials): HR within 4 of them, ratio well outside.
+    const mcse = (e: "ratio" | "hartley-ross" | "jackknife-ratio") => r[e].standardDeviation / Math.sqrt(20000);
+    expect(Math.abs(r["hartley-ross"].bias)).toBeLessThan(4 * mcse("hartley-ross"));
+    expect(Math.abs(r.ratio.bias)).toBeGreaterThan(8 * mcse("ratio"));
+    expect(Math.abs(r["jackknife-ratio"].bias)).toBeLessThan(Math.abs(r.ratio.bias) / 3);
+  });
+
+  it("simulates ratio and regression on a population with a few negative and zero items", () => {
+    const pop = [...SKEWED.slice(0, 500), { bookValue: -250, auditedValue: -250 }, { bookValue: 0, auditedValue: 0 }, { bookValue: -40.5, auditedValue: -45 }];
+    const r = simulateEstimators({ population: pop, sampleSize: 50, trials: 500, seed: 1, confidence: 0.95, estimators: ["ratio", "regression", "jackknife-ratio"] });
+    expect(Number.isFinite(r.ratio.rmse)).toBe(true);
+    expect(r.ratio.undefinedTrials).toBeUndefined();
+    expect(r.regression.coverage).toBeGreaterThan(0.8);
+  });
+
+  it("counts trials whose sample book total is zero as undefined and not covered", () => {
+    // Samples of 2 from {100, −100, 50}: one of the three pairs sums to zero.
+    const pop = [{ bookValue: 100, auditedValue: 100 }, { bookValue: -100, auditedValue: -100 }, { bookValue: 50, auditedValue: 50 }];
+    const r = simulateEstimators({ population: pop, sampleSize: 2, trials: 3000, seed: 2, confidence: 0.95, estimators: ["ratio"] });
+    expect(r.ratio.undefinedTrials! / 3000).toBeCloseTo(1 / 3, 1);
+    expect(r.ratio.coverage * 3000).toBeLessThanOrEqual(3000 - r.ratio.undefinedTrials!);
   });
 });

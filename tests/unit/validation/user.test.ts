@@ -1,14 +1,13 @@
 import { describe, expect, it } from "vitest";
-import { CreateUserSchema, ResetPasswordSchema, SignInSchema, UpdateUserSchema } from "@/lib/validation/user";
+import { CreateUserSchema, SignInSchema, UpdateUserSchema, passwordInput } from "@/lib/validation/user";
 
 describe("CreateUserSchema", () => {
-  const good = { name: "Ada Quill", email: " Ada.Quill@Example.COM ", grade: "senior", password: "correct horse battery" };
+  const good = { name: "Ada Quill", email: " Ada.Quill@Example.COM ", grade: "senior" };
   it("lower-cases and trims the e-mail and defaults the firm role", () => {
     expect(CreateUserSchema.parse(good)).toEqual({ ...good, email: "ada.quill@example.com", firmRole: "member" });
   });
   it.each([
     ["email", { email: "not-an-email" }],
-    ["password", { password: "short" }],
     ["grade", { grade: "director" }],
     ["name", { name: "A" }],
   ])("rejects a bad %s", (field, patch) => {
@@ -19,9 +18,12 @@ describe("CreateUserSchema", () => {
 });
 
 describe("other user schemas", () => {
-  it("ResetPasswordSchema needs 12 characters", () => {
-    expect(ResetPasswordSchema.safeParse({ password: "12345678901" }).success).toBe(false);
-    expect(ResetPasswordSchema.safeParse({ password: "123456789012" }).success).toBe(true);
+  it("a chosen password needs 12 characters", () => {
+    expect(passwordInput.safeParse("12345678901").success).toBe(false);
+    expect(passwordInput.safeParse("123456789012").success).toBe(true);
+  });
+  it("CreateUserSchema carries no password: the person chooses it with a link", () => {
+    expect(CreateUserSchema.parse({ name: "Ada Quill", email: "ada@example.com", grade: "staff", password: "typed by an admin" })).not.toHaveProperty("password");
   });
   it("UpdateUserSchema takes a deactivation", () => expect(UpdateUserSchema.parse({ active: false })).toEqual({ active: false }));
   it("UpdateUserSchema refuses an empty change", () => expect(UpdateUserSchema.safeParse({}).success).toBe(false));

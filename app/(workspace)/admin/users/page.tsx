@@ -5,19 +5,44 @@ import { requireAdminPage } from "@/lib/auth/admin-guard";
 import { listUsersByFirmId } from "@/lib/data/users";
 import { PageHeader } from "@/components/ui/page-header";
 import { buttonClass } from "@/components/ui/button";
+import { Card } from "@/components/ui/card";
+import { Alert } from "@/components/ui/alert";
 import { UserAdmin } from "@/components/admin/user-admin";
 
 export const metadata: Metadata = { title: "People" };
 
-export default async function UsersPage() {
-  const admin = await requireAdminPage();
+export default async function UsersPage({ searchParams }: { searchParams: Promise<{ invited?: string; mail?: string }> }) {
+  const [admin, { invited, mail }] = await Promise.all([requireAdminPage(), searchParams]);
   const users = await listUsersByFirmId(getDb(), { firmId: admin.firmId });
+  const contacts = users.filter((u) => u.grade === "client");
   return (
     <>
       <PageHeader eyebrow="Firm administration" title="People" actions={<Link href="/admin/users/new" className={buttonClass()}>New user</Link>}>
         Everyone who can sign in to your firm&rsquo;s workspace. Deactivated people cannot sign in; their work stays on record.
       </PageHeader>
-      <UserAdmin initialUsers={users} myUserId={admin.id} />
+      {invited && (
+        <div className="mb-4">
+          <Alert tone={mail === "failed" ? "error" : "success"}>
+            {mail === "failed" ? `${invited} was added, but the invitation e-mail could not be sent. Use "Reset password" to send a new link once mail works.` : `${invited} was added and e-mailed a link to choose a password (valid once, for 14 days).`}
+          </Alert>
+        </div>
+      )}
+      <UserAdmin initialUsers={users.filter((u) => u.grade !== "client")} myUserId={admin.id} />
+      {contacts.length > 0 && (
+        <div className="mt-8">
+          <Card title="Client contacts">
+            <p className="mb-3 text-sm text-ink-soft">Client staff invited to share evidence on an engagement. They are not members of the firm: they see only the request lists sent to them.</p>
+            <table className="w-full text-sm" aria-label="Client contacts">
+              <thead className="text-left text-xs uppercase tracking-wider text-ink-soft"><tr><th scope="col" className="py-2">Name</th><th scope="col">E-mail</th><th scope="col">Status</th></tr></thead>
+              <tbody>
+                {contacts.map((c) => (
+                  <tr key={c.id} className="border-t border-ink-line/70"><td className="py-2">{c.name}</td><td>{c.email}</td><td>{c.active ? "Active" : "Deactivated"}</td></tr>
+                ))}
+              </tbody>
+            </table>
+          </Card>
+        </div>
+      )}
     </>
   );
 }

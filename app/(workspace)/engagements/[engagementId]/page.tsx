@@ -8,6 +8,8 @@ import { listPopulationsByEngagementId } from "@/lib/data/populations";
 import { PopulationList } from "@/components/populations/population-list";
 import { listSamplesByEngagementId } from "@/lib/data/samples";
 import { SampleList } from "@/components/samples/sample-list";
+import { listSampleOverviews } from "@/lib/samples/overview";
+import { formatDate } from "@/lib/format/dates";
 import { PageHeader } from "@/components/ui/page-header";
 import { Card } from "@/components/ui/card";
 import { Badge } from "@/components/ui/badge";
@@ -25,9 +27,10 @@ export default async function EngagementPage({ params }: { params: Promise<{ eng
     listPopulationsByEngagementId(getDb(), { engagementId: engagement.id }),
     listSamplesByEngagementId(getDb(), { engagementId: engagement.id }),
   ]);
+  const overviews = await listSampleOverviews(getDb(), { engagementId: engagement.id, samples });
   const facts: [string, React.ReactNode][] = [
     ["Client", engagement.clientName],
-    ["Period end", <span key="p" className="figures">{engagement.periodEnd}</span>],
+    ["Period end", formatDate(engagement.periodEnd)],
     ["Currency", engagement.currency],
     ["Overall materiality", <Amount key="o" value={engagement.overallMateriality} />],
     ["Performance materiality", <Amount key="pm" value={engagement.performanceMateriality} />],
@@ -36,7 +39,7 @@ export default async function EngagementPage({ params }: { params: Promise<{ eng
   return (
     <>
       <PageHeader eyebrow={engagement.clientName} title={engagement.name} actions={<Badge tone={statusTone(engagement.status)}>{STATUS_LABELS[engagement.status]}</Badge>}>
-        Period ended <span className="figures">{engagement.periodEnd}</span>
+        Period ended {formatDate(engagement.periodEnd)}
       </PageHeader>
       <EngagementTabs engagementId={engagement.id} current="overview" />
       <div className="grid gap-6 lg:grid-cols-3">
@@ -50,7 +53,7 @@ export default async function EngagementPage({ params }: { params: Promise<{ eng
             ))}
           </dl>
         </Card>
-        <Card title="Team" action={<Link href={`/engagements/${engagement.id}/team`} className="text-sm font-medium text-ledger-600 hover:underline">Manage</Link>}>
+        <Card title="Team" action={hasAtLeastRole(role, "manager") && <Link href={`/engagements/${engagement.id}/team`} className="text-sm font-medium text-ledger-600 link">Manage</Link>}>
           <ul className="space-y-2">
             {members.map((m) => (
               <li key={m.userId} className="flex items-center justify-between text-sm">
@@ -62,15 +65,15 @@ export default async function EngagementPage({ params }: { params: Promise<{ eng
         </Card>
         <Card
           title="Populations" className="lg:col-span-3"
-          action={hasAtLeastRole(role, "senior") && <Link href={`/engagements/${engagement.id}/populations/new`} className="text-sm font-medium text-ledger-600 hover:underline">Load a ledger</Link>}
+          action={hasAtLeastRole(role, "senior") && <Link href={`/engagements/${engagement.id}/populations/new`} className="text-sm font-medium text-ledger-600 link">Load a ledger</Link>}
         >
-          <PopulationList engagementId={engagement.id} populations={populations} currency={engagement.currency} mayLoad={hasAtLeastRole(role, "senior")} />
+          <PopulationList engagementId={engagement.id} populations={populations.filter((p) => !p.archivedAt)} currency={engagement.currency} mayLoad={hasAtLeastRole(role, "senior")} />
         </Card>
         <Card
           title="Samples" className="lg:col-span-3"
-          action={hasAtLeastRole(role, "senior") && <Link href={`/engagements/${engagement.id}/samples/new`} className="text-sm font-medium text-ledger-600 hover:underline">Plan a sample</Link>}
+          action={hasAtLeastRole(role, "senior") && <Link href={`/engagements/${engagement.id}/samples/new`} className="text-sm font-medium text-ledger-600 link">Plan a sample</Link>}
         >
-          <SampleList engagementId={engagement.id} samples={samples} mayPlan={hasAtLeastRole(role, "senior")} />
+          <SampleList engagementId={engagement.id} samples={samples} overviews={overviews} mayPlan={hasAtLeastRole(role, "senior")} />
         </Card>
       </div>
     </>

@@ -73,7 +73,7 @@ describe("attributeSampleSize reproduces the ceil-convention tables", () => {
 
   it("gives 90 (0) at 1% risk, 5% tolerable: ceil(ln 0.01 / ln 0.95) = ceil(89.78)", () => {
     // Closed form for zero deviations, n = ceil(ln β / ln(1 − TDR)) (binomial; hand computation).
-    expect(attributeSampleSize({ tolerableRate: 0.05, expectedRate: 0, confidence: 0.99 })).toEqual({ sampleSize: 90, allowedDeviations: 0 });
+    expect(attributeSampleSize({ tolerableRate: 0.05, expectedRate: 0, confidence: 0.99 })).toEqual({ sampleSize: 90, allowedDeviations: 0, model: "binomial" });
   });
 
   it("keeps an exact product whole: EDR 7%, TDR 20% passes at n = 100 with k = 7, not 8", () => {
@@ -82,7 +82,7 @@ describe("attributeSampleSize reproduces the ceil-convention tables", () => {
     // check here is on k alone: the search must see k = 7 at n = 100 (hand computation).
     expect(Math.ceil(0.07 * 100)).toBe(8);
     expect(Math.ceil(0.07 * 100 - 1e-9)).toBe(7);
-    expect(attributeSampleSize({ tolerableRate: 0.2, expectedRate: 0.07, confidence: 0.95 })).toEqual({ sampleSize: 37, allowedDeviations: 3 });
+    expect(attributeSampleSize({ tolerableRate: 0.2, expectedRate: 0.07, confidence: 0.95 })).toEqual({ sampleSize: 37, allowedDeviations: 3, model: "binomial" });
   });
 
   it("sizes that pass the criterion have an upper deviation limit at or below the tolerable rate", () => {

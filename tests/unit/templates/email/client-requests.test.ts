@@ -18,6 +18,18 @@ describe("client request e-mails", () => {
     expect(m.text).not.toMatch(/AU-C 530/);
   });
 
+  it("tells the contact a list closed, why, and where to see what they sent (issue 19)", () => {
+    const m = renderEmailTemplate("request-list-closed", {
+      recipient: { name: "Carla Mendes" }, engagement, title: "Receivables <docs>", reason: "The sample was locked: its workpaper is final.", listUrl: "https://sondage.test/requests/7",
+    });
+    expect(m.subject).toBe("Request list closed: Receivables <docs>");
+    expect(m.text.replace(/\s+/g, " ")).toContain("no longer takes files on it");
+    expect(m.text).toContain("The sample was locked: its workpaper is final");
+    expect(m.text).toContain("https://sondage.test/requests/7");
+    expect(m.html).toContain("Receivables &lt;docs&gt;");
+    expect(m.text).not.toMatch(/AU-C 530/);
+  });
+
   it("names the item, the file and the reason when a file is sent back", () => {
     const m = renderEmailTemplate("request-file-returned", {
       recipient: { name: "Carla" }, returnedBy: { name: "Jonah" }, engagement, title: "Receivables", itemRef: "INV-1043", fileName: "scan.pdf",

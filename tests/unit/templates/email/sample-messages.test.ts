@@ -17,7 +17,7 @@ const render = {
 
 describe("every sample message", () => {
   it("covers every template but the invitations and the client-request messages (client-requests.test.ts)", () => {
-    const notSample = ["engagement-invitation", "client-invitation", "request-list-sent", "request-file-returned", "request-reminders"];
+    const notSample = ["engagement-invitation", "client-invitation", "staff-invitation", "request-list-sent", "request-file-returned", "request-reminders", "request-list-closed"];
     expect(Object.keys(render).sort()).toEqual(Object.keys(EMAIL_TEMPLATES).filter((k) => !notSample.includes(k)).sort());
   });
 

@@ -1,8 +1,12 @@
+import { z } from "zod";
 import { withFirmAdmin } from "@/lib/auth/with-role";
 import { parseIdParam } from "@/lib/auth/access";
-import { resetUserPassword } from "@/lib/data/users";
-import { ResetPasswordSchema } from "@/lib/validation/user";
+import { notifyStaffInvitation } from "@/lib/mail/notify-people";
+import { resetPasswordWithLink } from "@/lib/people/invite-staff";
 
-export const POST = withFirmAdmin(ResetPasswordSchema, async (input, { db, user, params }) => {
-  await resetUserPassword(db, { firmId: user.firmId, actorId: user.id, userId: parseIdParam(params.userId, "user"), password: input.password });
+/** An administrator resets a password: it stops working, the person's sessions end, and they are e-mailed a link to choose a new one. */
+export const POST = withFirmAdmin(z.object({}), async (_input, { db, user, params }) => {
+  const { user: person, token } = await resetPasswordWithLink(db, { firmId: user.firmId, actorId: user.id, userId: parseIdParam(params.userId, "user") });
+  const mail = await notifyStaffInvitation(db, { person, token, invitedBy: { name: user.name }, firmId: user.firmId, reason: "reset" });
+  return { invitationSent: mail.sent };
 });

@@ -9,6 +9,9 @@ import { getPopulationProfile } from "@/lib/data/population-items";
 import { Card } from "@/components/ui/card";
 import { Amount } from "@/components/ui/amount";
 import { PopulationHeader } from "@/components/populations/population-header";
+import { Alert } from "@/components/ui/alert";
+import { PopulationActions } from "@/components/populations/population-actions";
+import { listSamplesByEngagementId } from "@/lib/data/samples";
 import { ReconciliationPanel } from "@/components/populations/reconciliation-panel";
 import { SummaryCards } from "@/components/populations/summary-cards";
 import { StrataChart } from "@/components/populations/strata-chart";
@@ -45,6 +48,13 @@ export default async function PopulationPage({ params }: { params: Promise<{ eng
   return (
     <>
       <PopulationHeader population={population} engagement={engagement} replacedBy={replacedBy} replaces={replaces} />
+      {population.archivedAt && <div className="mb-4"><Alert tone="info">This population is archived: it is kept with its samples but left out of the engagement&apos;s list and the sample planner.</Alert></div>}
+      {hasAtLeastRole(role, "senior") && (
+        <div className="mb-6">
+          <PopulationActions base={api} engagementUrl={`/engagements/${engagement.id}`} name={population.name} archived={Boolean(population.archivedAt)} replaced={Boolean(replacedBy)}
+            usedBy={(await listSamplesByEngagementId(getDb(), { engagementId: engagement.id })).filter((s) => s.populationId === population.id).map((s) => s.name)} />
+        </div>
+      )}
       <div className="space-y-6">
         <div className="grid items-start gap-6 lg:grid-cols-5">
           <Card title="Reconciliation to the ledger" className="lg:col-span-3">

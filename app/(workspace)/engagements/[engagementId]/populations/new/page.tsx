@@ -4,6 +4,7 @@ import { getDb } from "@/db/knex";
 import { requireEngagementPage } from "@/lib/auth/page-guards";
 import { hasAtLeastRole, ROLE_LABELS } from "@/lib/auth/roles";
 import { listPopulationsByEngagementId } from "@/lib/data/populations";
+import { listSamplesByEngagementId } from "@/lib/data/samples";
 import { PageHeader } from "@/components/ui/page-header";
 import { Card } from "@/components/ui/card";
 import { Alert } from "@/components/ui/alert";
@@ -15,12 +16,16 @@ export default async function NewPopulationPage({ params }: { params: Promise<{ 
   const { engagementId } = await params;
   const { engagement, role } = await requireEngagementPage(engagementId);
   const mayLoad = hasAtLeastRole(role, "senior");
-  const populations = mayLoad ? await listPopulationsByEngagementId(getDb(), { engagementId: engagement.id }) : [];
-  const replaceable = populations.filter((p) => p.status !== "superseded").map((p) => ({ id: p.id, name: p.name, rowCount: p.rowCount }));
+  const [populations, samples] = mayLoad
+    ? await Promise.all([listPopulationsByEngagementId(getDb(), { engagementId: engagement.id }), listSamplesByEngagementId(getDb(), { engagementId: engagement.id })])
+    : [[], []];
+  const replaceable = populations.filter((p) => p.status !== "superseded").map((p) => ({
+    id: p.id, name: p.name, rowCount: p.rowCount, samples: samples.filter((s) => s.populationId === p.id).map((s) => s.name),
+  }));
   return (
     <>
       <PageHeader eyebrow={engagement.clientName} title="Load a ledger population">
-        <Link href={`/engagements/${engagement.id}`} className="hover:underline">{engagement.name}</Link> · the file is kept exactly as received, with its SHA-256, beside the population.
+        <Link href={`/engagements/${engagement.id}`} className="link">{engagement.name}</Link> · the file is kept exactly as received, with its SHA-256, beside the population.
       </PageHeader>
       {mayLoad ? (
         <Card><UploadFlow engagementId={engagement.id} currency={engagement.currency} replaceable={replaceable} /></Card>

@@ -4,6 +4,7 @@ import { getDb } from "@/db/knex";
 import { requireEngagementPage } from "@/lib/auth/page-guards";
 import { hasAtLeastRole, ROLE_LABELS } from "@/lib/auth/roles";
 import { listPopulationsByEngagementId } from "@/lib/data/populations";
+import { listSamplesByEngagementId } from "@/lib/data/samples";
 import { PageHeader } from "@/components/ui/page-header";
 import { Alert } from "@/components/ui/alert";
 import { PlanForm } from "@/components/samples/plan-form";
@@ -14,16 +15,19 @@ export default async function NewSamplePage({ params, searchParams }: { params: 
   const [{ engagementId }, query] = await Promise.all([params, searchParams]);
   const { engagement, role } = await requireEngagementPage(engagementId);
   const mayPlan = hasAtLeastRole(role, "senior");
-  const populations = mayPlan ? await listPopulationsByEngagementId(getDb(), { engagementId: engagement.id }) : [];
-  const choices = populations.map(({ id, name, rowCount, total, status, positive }) => ({ id, name, rowCount, total, status, positive }));
+  const [populations, samples] = mayPlan
+    ? await Promise.all([listPopulationsByEngagementId(getDb(), { engagementId: engagement.id }), listSamplesByEngagementId(getDb(), { engagementId: engagement.id })])
+    : [[], []];
+  const earlierSamples = samples.filter((s) => s.status === "drawn" && s.method !== "attribute").map(({ id, name }) => ({ id, name }));
+  const choices = populations.filter((p) => !p.archivedAt).map(({ id, name, rowCount, total, status, positive }) => ({ id, name, rowCount, total, status, positive }));
   const preset = choices.find((p) => p.id === Number(query.population) && p.status === "reconciled")?.id;
   return (
     <>
       <PageHeader eyebrow={engagement.clientName} title="Plan a sample">
-        <Link href={`/engagements/${engagement.id}`} className="hover:underline">{engagement.name}</Link> · the size is computed on the server as you type, from the population as loaded.
+        <Link href={`/engagements/${engagement.id}`} className="link">{engagement.name}</Link> · the size is computed on the server as you type, from the population as loaded.
       </PageHeader>
       {mayPlan ? (
-        <PlanForm engagementId={engagement.id} currency={engagement.currency} performanceMateriality={engagement.performanceMateriality} populations={choices} initialPopulationId={preset} />
+        <PlanForm engagementId={engagement.id} currency={engagement.currency} performanceMateriality={engagement.performanceMateriality} populations={choices} initialPopulationId={preset} earlierSamples={earlierSamples} />
       ) : (
         <Alert>Planning a sample needs the senior role (or above) on this engagement; you are {ROLE_LABELS[role].toLowerCase()}.</Alert>
       )}

@@ -4,6 +4,7 @@ import { getDb } from "@/db/knex";
 import { requireEngagementPage } from "@/lib/auth/page-guards";
 import { hasAtLeastRole } from "@/lib/auth/roles";
 import { listPopulationsByEngagementId } from "@/lib/data/populations";
+import { listSamplesByEngagementId } from "@/lib/data/samples";
 import { PageHeader } from "@/components/ui/page-header";
 import { Alert } from "@/components/ui/alert";
 import { PlanForm } from "@/components/samples/plan-form";
@@ -15,9 +16,9 @@ export const metadata: Metadata = { title: "Change a sample plan" };
 export default async function EditSamplePage({ params }: { params: Promise<{ engagementId: string; sampleId: string }> }) {
   const { engagementId, sampleId } = await params;
   const { engagement, role } = await requireEngagementPage(engagementId);
-  const [{ view }, populations] = await Promise.all([loadSamplePage(engagement.id, sampleId), listPopulationsByEngagementId(getDb(), { engagementId: engagement.id })]);
+  const [{ view }, populations, samples] = await Promise.all([loadSamplePage(engagement.id, sampleId), listPopulationsByEngagementId(getDb(), { engagementId: engagement.id }), listSamplesByEngagementId(getDb(), { engagementId: engagement.id })]);
   const { sample } = view;
-  const back = <Link href={`/engagements/${engagement.id}/samples/${sample.id}`} className="hover:underline">{sample.name}</Link>;
+  const back = <Link href={`/engagements/${engagement.id}/samples/${sample.id}`} className="link">{sample.name}</Link>;
   if (!hasAtLeastRole(role, "senior") || sample.status !== "planned") {
     return (
       <>
@@ -27,11 +28,12 @@ export default async function EditSamplePage({ params }: { params: Promise<{ eng
     );
   }
   const choices = populations.map(({ id, name, rowCount, total, status, positive }) => ({ id, name, rowCount, total, status, positive }));
+  const earlierSamples = samples.filter((s) => s.status === "drawn" && s.method !== "attribute" && s.id !== sample.id).map(({ id, name }) => ({ id, name }));
   const values = fromStored({ populationId: sample.populationId, name: sample.name, objective: sample.objective, assertion: sample.assertion, direction: sample.direction, params: sample.params });
   return (
     <>
       <PageHeader eyebrow={engagement.clientName} title="Change a sample plan">{back} · possible until the sample is drawn</PageHeader>
-      <PlanForm engagementId={engagement.id} currency={engagement.currency} performanceMateriality={engagement.performanceMateriality} populations={choices} editing={{ sampleId: sample.id, values }} />
+      <PlanForm engagementId={engagement.id} currency={engagement.currency} performanceMateriality={engagement.performanceMateriality} populations={choices} editing={{ sampleId: sample.id, values }} earlierSamples={earlierSamples} />
     </>
   );
 }

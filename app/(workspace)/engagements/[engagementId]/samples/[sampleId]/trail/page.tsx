@@ -4,12 +4,14 @@ import { getDb } from "@/db/knex";
 import { requireEngagementPage } from "@/lib/auth/page-guards";
 import { getSampleById } from "@/lib/data/samples";
 import { listMembersByEngagementId } from "@/lib/data/members";
-import { listSampleAuditTrail } from "@/lib/review/audit-trail";
+import { listSampleAuditTrail, loadChangeContext } from "@/lib/review/audit-trail";
 import { AuditQuerySchema } from "@/lib/validation/review";
 import { PageHeader } from "@/components/ui/page-header";
 import { Card, EmptyState } from "@/components/ui/card";
 import { Alert } from "@/components/ui/alert";
-import { AuditValue } from "@/components/review/audit-value";
+import { ChangeList } from "@/components/review/audit-value";
+import { describeChange } from "@/lib/review/describe-change";
+import { formatDateTime } from "@/lib/format/dates";
 
 export const metadata: Metadata = { title: "Audit trail" };
 
@@ -22,11 +24,11 @@ export default async function TrailPage({ params, searchParams }: { params: Prom
   const db = getDb();
   const sample = await getSampleById(db, { engagementId: engagement.id, sampleId: Number(sampleId) });
   const query = AuditQuerySchema.parse({ userId: sp.userId || undefined, kind: sp.kind || undefined });
-  const [entries, members] = await Promise.all([listSampleAuditTrail(db, { sampleId: sample.id, query }), listMembersByEngagementId(db, { engagementId: engagement.id })]);
+  const [entries, members, context] = await Promise.all([listSampleAuditTrail(db, { sampleId: sample.id, query }), listMembersByEngagementId(db, { engagementId: engagement.id }), loadChangeContext(db, { sampleId: sample.id })]);
   return (
     <>
       <PageHeader eyebrow={engagement.clientName} title={`Audit trail — ${sample.name}`}>
-        <Link href={`/engagements/${engagement.id}/samples/${sample.id}`} className="hover:underline">Back to the sample</Link> · every change, who made it and when, with the values before and after.
+        <Link href={`/engagements/${engagement.id}/samples/${sample.id}`} className="link">Back to the sample</Link> · every change, who made it and when, with the values before and after.
       </PageHeader>
       <form className="mb-4 flex flex-wrap items-end gap-3 text-sm" method="get">
         <label>
@@ -46,20 +48,23 @@ export default async function TrailPage({ params, searchParams }: { params: Prom
       </form>
       <Card>
         {entries.length === 0 ? <EmptyState title="No changes match this filter" /> : (
-          <table className="w-full text-sm" aria-label="Audit trail">
+          <table className="w-full table-fixed text-sm" aria-label="Audit trail">
+            <colgroup><col className="w-48" /><col className="w-40" /><col className="w-64" /><col /></colgroup>
             <thead className="text-left text-xs uppercase tracking-wider text-ink-soft">
-              <tr><th className="py-2">When (UTC)</th><th>Who</th><th>What</th><th>Before</th><th>After</th></tr>
+              <tr><th scope="col" className="py-2">When</th><th scope="col">Who</th><th scope="col">What</th><th scope="col">Change (before → after)</th></tr>
             </thead>
             <tbody>
-              {entries.map((e) => (
-                <tr key={e.id} className="border-t border-ink-line/70 align-top">
-                  <td className="figures whitespace-nowrap py-2 pr-3 text-xs">{e.at.replace("T", " ").slice(0, 19)}</td>
-                  <td className="pr-3">{e.actorName ?? "system"}</td>
-                  <td className="pr-3"><span className="font-medium">{e.action}</span><span className="block text-xs text-ink-faint">{e.entity} {e.entityId}</span></td>
-                  <td className="pr-3"><AuditValue value={e.before} /></td>
-                  <td><AuditValue value={e.after} /></td>
-                </tr>
-              ))}
+              {entries.map((e) => {
+                const r = describeChange(e, context);
+                return (
+                  <tr key={e.id} className="border-t border-ink-line/70 align-top">
+                    <td className="py-2 pr-3 text-xs">{formatDateTime(e.at)}</td>
+                    <td className="py-2 pr-3">{e.actorName ?? "Sondage"}</td>
+                    <td className="py-2 pr-3"><span className="font-medium">{r.what}</span>{r.subject && <span className="block text-xs text-ink-soft">{r.subject}</span>}</td>
+                    <td className="py-2"><ChangeList changes={r.changes} /></td>
+                  </tr>
+                );
+              })}
             </tbody>
           </table>
         )}

@@ -39,7 +39,7 @@ export default async function TeamRequestListPage({ params }: { params: Promise<
   return (
     <>
       <PageHeader eyebrow={engagement.clientName} title={list.title} actions={list.status === "closed" ? <Badge>Closed</Badge> : <Badge tone="blue">Open</Badge>}>
-        <Link href={`/engagements/${engagement.id}/samples/${sample.id}`} className="hover:underline">{sample.name}</Link>
+        <Link href={`/engagements/${engagement.id}/samples/${sample.id}`} className="link">{sample.name}</Link>
         {` · to ${list.contactName} (${list.contactEmail}) · due ${formatDay(list.dueDate)} · book values ${list.showBookValues ? "shown to the client" : "hidden from the client"} · sent by ${list.createdByName}`}
       </PageHeader>
       <TeamRequestList engagementId={engagement.id} sampleId={sample.id} initial={view} mayDecide={mayDecide} currency={engagement.currency} />

@@ -23,7 +23,7 @@ export default async function NewRequestListPage({ params }: { params: Promise<{
   return (
     <>
       <PageHeader eyebrow={engagement.clientName} title="Ask the client for evidence">
-        <Link href={back} className="hover:underline">{view.sample.name}</Link> · the client contact sees only this list&rsquo;s items, never results, comments or other samples.
+        <Link href={back} className="link">{view.sample.name}</Link> · the client contact sees only this list&rsquo;s items, never results, comments or other samples.
       </PageHeader>
       {blocked ? <Alert tone="info">{blocked}</Alert> : (
         <RequestListForm engagementId={engagement.id} sampleId={view.sample.id} contacts={contacts} defaultDue={defaultDue}

@@ -1,0 +1,146 @@
+"use client";
+import { useCallback, useEffect, useMemo, useState } from "react";
+import type { SampleItemRecord } from "@/lib/data/sample-items";
+import type { PopulationItem } from "@/lib/data/population-items";
+import { ItemsGrid, type GridPick } from "@/components/populations/items-grid";
+import { Alert } from "@/components/ui/alert";
+import { Amount } from "@/components/ui/amount";
+import { Button } from "@/components/ui/button";
+import { api } from "@/components/ui/api";
+
+interface Props {
+  engagementId: number;
+  sampleId: number;
+  populationId: number;
+  planned: number;
+  mayPick: boolean;
+  hasDescription: boolean;
+  onChanged: () => void;
+}
+
+/**
+ * Haphazard selection (ISA 530, Appendix 4(d)): the auditor picks items on the population's grid,
+ * avoiding conscious bias; each pick is stored with who and when. No seed can re-perform it.
+ */
+export function HaphazardPicker({
+  engagementId,
+  sampleId,
+  populationId,
+  planned,
+  mayPick,
+  hasDescription,
+  onChanged,
+}: Props) {
+  const base = `/api/engagements/${engagementId}/samples/${sampleId}`;
+  const [items, setItems] = useState<SampleItemRecord[]>([]);
+  const [failure, setFailure] = useState<string | null>(null);
+  const [busy, setBusy] = useState(false);
+  const [reloads, setReloads] = useState(0);
+  useEffect(() => {
+    let live = true;
+    api<{ items: SampleItemRecord[] }>(`${base}/items?pageSize=500`).then(
+      (r) => {
+        if (live) setItems(r.items);
+      },
+      (e: Error) => {
+        if (live) setFailure(e.message);
+      },
+    );
+    return () => {
+      live = false;
+    };
+  }, [base, reloads]);
+
+  const picks = items.filter((i) => i.origin === "haphazard");
+  const full = picks.length >= planned;
+  const byRow = useMemo(
+    () => new Map(items.map((i) => [i.populationRowNumber, i.keyItem ? ("key-item" as const) : ("picked" as const)])),
+    [items],
+  );
+  const act = useCallback(
+    async (fn: () => Promise<unknown>) => {
+      setBusy(true);
+      setFailure(null);
+      try {
+        await fn();
+        setReloads((n) => n + 1);
+        onChanged();
+      } catch (e) {
+        setFailure(e instanceof Error ? e.message : "Not saved");
+      } finally {
+        setBusy(false);
+      }
+    },
+    [onChanged],
+  );
+  const pick: GridPick = useMemo(
+    () => ({
+      status: (row) => byRow.get(row) ?? null,
+      disabled: busy || full || !mayPick,
+      onPick: (item: PopulationItem) => void act(() => api(`${base}/picks`, { body: { rowNumber: item.rowNumber } })),
+    }),
+    [byRow, busy, full, mayPick, act, base],
+  );
+
+  return (
+    <div className="space-y-4" data-testid="haphazard-picker">
+      <Alert tone="info">
+        Pick the items yourself, across the whole population, without favouring items that are easy to reach, large,
+        first or last on a page. Each pick is recorded with your name and the time; a haphazard selection cannot be
+        re-performed from a seed, so the workpaper lists every pick.
+      </Alert>
+      <p className="text-sm" aria-live="polite" data-testid="picks-count">
+        <span className="figures font-semibold">{picks.length}</span> of <span className="figures">{planned}</span>{" "}
+        items picked{full ? " — the planned size is reached." : "."}
+      </p>
+      {failure && <Alert>{failure}</Alert>}
+      {picks.length > 0 && (
+        <table className="w-full text-sm" aria-label="Haphazard picks">
+          <thead>
+            <tr className="text-left text-ink-soft">
+              <th className="py-1 font-medium">Item</th>
+              <th className="py-1 text-right font-medium">Row</th>
+              <th className="py-1 text-right font-medium">Book value</th>
+              <th className="py-1 pl-4 font-medium">Picked by</th>
+              <th className="py-1 font-medium">When (UTC)</th>
+              <th />
+            </tr>
+          </thead>
+          <tbody>
+            {picks.map((p) => (
+              <tr key={p.id} className="border-t border-ink-line/60">
+                <td className="py-1.5 font-medium">{p.itemRef}</td>
+                <td className="figures py-1.5 text-right">{p.populationRowNumber}</td>
+                <td className="py-1.5 text-right">
+                  <Amount value={p.bookValue} />
+                </td>
+                <td className="py-1.5 pl-4">{p.pickedByName}</td>
+                <td className="figures py-1.5">{p.pickedAt?.replace("T", " ").slice(0, 19)}</td>
+                <td className="py-1.5 text-right">
+                  {mayPick && p.status === "not-started" && (
+                    <Button
+                      type="button"
+                      variant="secondary"
+                      disabled={busy}
+                      onClick={() => void act(() => api(`${base}/picks/${p.id}`, { method: "DELETE" }))}
+                      aria-label={`Remove the pick ${p.itemRef}`}
+                    >
+                      Remove
+                    </Button>
+                  )}
+                </td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      )}
+      <ItemsGrid
+        url={`/api/engagements/${engagementId}/populations/${populationId}/items`}
+        extraColumns={[]}
+        hasDescription={hasDescription}
+        hasDate={false}
+        pick={pick}
+      />
+    </div>
+  );
+}
