@@ -1,6 +1,7 @@
 import "server-only";
 import type { Knex } from "knex";
-import { ImportError, inspectUpload, type UploadInspection } from "@/lib/imports";
+import { ImportError, MAX_DATA_ROWS, inspectUpload, type UploadInspection } from "@/lib/imports";
+import { countDataRowsWithinLimit } from "@/lib/imports/count-data-rows";
 import { hasWorkbookPart, readWorkbookInfo } from "@/lib/imports/xlsx-sheets";
 import { assertNoLoadRunning, createUpload, failDeadLoads, getUploadById, updateUploadInspection } from "@/lib/data/population-uploads";
 import { fetchUploadToTempFile, receiveToTempFile, removeTempFile, storeUploadObject, uploadObjectKey } from "./upload-files";
@@ -19,13 +20,18 @@ export async function receiveUpload(db: Knex, a: { engagementId: number; actorId
   let inspection: UploadInspection;
   const objectKey = uploadObjectKey(a.engagementId, `${randomUUID()}.${file.sha256.slice(0, 12)}`);
   try {
-    inspection = await inspectFirstUsableSheet(file.tempPath);
+    inspection = await withRowCount(file.tempPath, await inspectFirstUsableSheet(file.tempPath));
     await storeUploadObject({ key: objectKey, tempPath: file.tempPath, size: file.size });
   } finally {
     await removeTempFile(file.tempPath);
   }
   const id = await createUpload(db, { engagementId: a.engagementId, actorId: a.actorId, fileName: a.fileName, sizeBytes: file.size, sha256: file.sha256, tempPath: file.tempPath, objectKey, inspection });
   return { id, fileName: a.fileName, sizeBytes: file.size, sha256: file.sha256, inspection };
+}
+
+/** The inspection with its data rows counted; a file over the row limit is refused here (413), before anything is stored. */
+async function withRowCount(path: string, inspection: UploadInspection): Promise<UploadInspection> {
+  return { ...inspection, dataRows: await countDataRowsWithinLimit(path, inspection, MAX_DATA_ROWS) };
 }
 
 /**
@@ -55,7 +61,7 @@ export async function reinspectUpload(db: Knex, { engagementId, uploadId, sheet 
   const upload = await getUploadById(db, { engagementId, uploadId });
   let inspection = upload.inspection;
   if (sheet && sheet !== upload.inspection.sheet && (upload.status === "inspected" || upload.status === "failed")) {
-    inspection = await withUploadFile(upload, (path) => inspectUpload(path, { sheet }));
+    inspection = await withUploadFile(upload, async (path) => withRowCount(path, await inspectUpload(path, { sheet })));
     await updateUploadInspection(db, { uploadId, inspection });
   }
   return { id: upload.id, fileName: upload.fileName, sizeBytes: upload.sizeBytes, sha256: upload.sha256, inspection, failureMessage: upload.failureMessage };

@@ -103,16 +103,18 @@ describe("whole-file refusals leave the database as it was", () => {
     expect(r.json.error.message).toMatch(/200 MB/);
   });
 
-  it("refuses a file over 1,000,000 data rows, naming the limit, and stores nothing", async () => {
+  it("refuses a file over 1,000,000 data rows at upload, naming the limit and the row, and stores nothing", async () => {
     const rows = ["Invoice,Amount"];
     for (let i = 1; i <= 1_000_001; i++) rows.push(`R${i},1`);
     const before = await populationState();
-    const { up, loaded } = await uploadAndLoad(senior, engagement, "too-many.csv", rows.join("\n"), { itemRefColumn: "Invoice", bookValueColumn: "Amount" });
-    expect(up.status).toBe(201);
-    expect(loaded?.last).toMatchObject({ type: "error", status: 413 });
-    expect(loaded?.last.message).toMatch(/1,000,000/);
+    const uploadsBefore = await getDb()("population_uploads").count({ n: "*" }).first();
+    const up = await upload(senior, engagement, "too-many.csv", rows.join("\n"));
+    expect(up.status).toBe(413);
+    // The header is row 1, so data row 1,000,001 is the file's row 1,000,002.
+    expect(up.json.error.message).toMatch(/Row 1,000,002 is data row 1,000,001: a population holds at most 1,000,000 data rows/);
     expect(await populationState()).toEqual(before);
-  }, 120_000 * timeoutScale);
+    expect(await getDb()("population_uploads").count({ n: "*" }).first()).toEqual(uploadsBefore);
+  }, 60_000 * timeoutScale);
 });
 
 describe("row problems store nothing and are listed with row, column and reason", () => {
