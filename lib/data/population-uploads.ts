@@ -2,7 +2,7 @@ import "server-only";
 import type { Knex } from "knex";
 import type { RowProblem, UploadInspection } from "@/lib/imports";
 import { recordAudit } from "./audit-log";
-import { conflict, notFound } from "@/lib/errors";
+import { conflict, isDatabaseUnavailable, notFound } from "@/lib/errors";
 
 export interface UploadRecord {
   id: number;
@@ -133,6 +133,10 @@ export async function finishUpload(db: Knex, { uploadId, holder, status, problem
   // The failed load's own transaction may still be rolling back (knex stops waiting for a ROLLBACK
   // after 5 s; undoing a million rows takes longer, most on a Galera node) and holds the upload
   // row through the population's foreign key: wait for it, a lock-wait timeout at a time.
+  // A load cut by the database going away (a Galera writer killed) reaches here while the front door
+  // fails over: wait for the database to answer again, so the owner may load at once rather than
+  // after the lease runs out.
+  const outageEnds = Date.now() + FINISH_OUTAGE_MS;
   for (let attempt = 1; ; attempt++) {
     try {
       await db.transaction(async (trx) => {
@@ -141,11 +145,18 @@ export async function finishUpload(db: Knex, { uploadId, holder, status, problem
       });
       return;
     } catch (err) {
+      if (isDatabaseUnavailable(err) && Date.now() < outageEnds) {
+        await new Promise((r) => setTimeout(r, 1_000));
+        continue;
+      }
       if ((err as { code?: unknown }).code !== "ER_LOCK_WAIT_TIMEOUT" || attempt >= FINISH_ATTEMPTS) throw err;
       console.warn(`[sondage] upload ${uploadId}: the failed load is still rolling back; waiting again (attempt ${attempt + 1} of ${FINISH_ATTEMPTS})`);
     }
   }
 }
+
+/** How long a failed load's upload waits for an unreachable database before the lease's expiry is left to release it. */
+const FINISH_OUTAGE_MS = 30_000;
 
 /** Lock waits (innodb_lock_wait_timeout, 50 s by default) a failed load's upload waits for its rollback. */
 const FINISH_ATTEMPTS = 6;

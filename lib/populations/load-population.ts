@@ -62,7 +62,9 @@ async function loadFromFile(db: Knex, args: { upload: UploadRecord; actorId: num
       await finishUpload(db, { uploadId: upload.id, holder, status: "rejected", problems: s.problems, problemCount: s.problemCount });
       return { ok: false, problemCount: s.problemCount, problems: s.problems, problemsTruncated: s.problemsTruncated };
     }
-    await finishUpload(db, { uploadId: upload.id, holder, status: "rejected" });
+    // The load's own error is what the person is told; an upload that could not be marked is released by its lease.
+    await finishUpload(db, { uploadId: upload.id, holder, status: "rejected" })
+      .catch((e: unknown) => console.error(`[sondage] upload ${upload.id}: not marked failed after its load failed (${e instanceof Error ? e.message : String(e)}); its lease releases it`));
     throw err;
   }
 }
