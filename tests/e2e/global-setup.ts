@@ -1,5 +1,5 @@
 import { execFileSync } from "node:child_process";
-import { rmSync } from "node:fs";
+import { existsSync, readdirSync, rmSync } from "node:fs";
 import path from "node:path";
 
 // Run from the project root (as npm and npx run Playwright). Recreates the e2e database with the demo data before the browser tests (the web server reads it per request),
@@ -10,7 +10,9 @@ export default async function globalSetup() {
   const env = { ...process.env, DB_NAME: dbName };
   execFileSync("npx", ["tsx", "db/migrate.ts", "recreate"], { env, stdio: "inherit" });
   execFileSync("npx", ["tsx", "db/seed.ts"], { env, stdio: "inherit" });
-  rmSync(path.join(process.cwd(), ".data", `fakes-${dbName}`, "mail"), { recursive: true, force: true });
+  // Only the message files: the folder stays, since a running fake writes each new message into it.
+  const mail = path.join(process.cwd(), ".data", `fakes-${dbName}`, "mail");
+  for (const f of existsSync(mail) ? readdirSync(mail) : []) if (f.endsWith(".json")) rmSync(path.join(mail, f), { force: true });
   // The fakes (a webServer of playwright.config.ts) may already hold the old mail in memory.
   await fetch(`http://127.0.0.1:${2695 + slot * 10}/messages`, { method: "DELETE" }).catch(() => undefined);
 }
