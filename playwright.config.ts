@@ -44,12 +44,21 @@ export default defineConfig({
       timeout: 30_000,
       env: { ...E2E_SERVICES, FAKES_DATA: `fakes-${E2E_DB_NAME}` },
     },
-    {
-      command: `node node_modules/next/dist/bin/next start -H 127.0.0.1 -p ${PORT}`,
-      url: `${baseURL}/sign-in`,
-      reuseExistingServer: false,
-      timeout: 60_000,
-      env: { ...E2E_SERVICES, DB_NAME: E2E_DB_NAME, NEXTAUTH_URL: baseURL, NEXT_TELEMETRY_DISABLED: "1" },
-    },
+    // E2E_CLUSTER=1: two app servers behind HAProxy on this port instead of one (tests/cluster/app-cluster.ts).
+    process.env.E2E_CLUSTER === "1"
+      ? {
+          command: `npx tsx tests/cluster/app-cluster.ts --front ${PORT}`,
+          url: `${baseURL}/api/health`,
+          reuseExistingServer: false,
+          timeout: 120_000,
+          env: { ...E2E_SERVICES, DB_NAME: E2E_DB_NAME, NEXT_TELEMETRY_DISABLED: "1" },
+        }
+      : {
+          command: `node node_modules/next/dist/bin/next start -H 127.0.0.1 -p ${PORT}`,
+          url: `${baseURL}/sign-in`,
+          reuseExistingServer: false,
+          timeout: 60_000,
+          env: { ...E2E_SERVICES, DB_NAME: E2E_DB_NAME, NEXTAUTH_URL: baseURL, NEXT_TELEMETRY_DISABLED: "1" },
+        },
   ],
 });

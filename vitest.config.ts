@@ -1,5 +1,6 @@
 import { defineConfig } from "vitest/config";
 import path from "node:path";
+import { timeoutScale } from "./tests/integration/test-env";
 
 const alias = { "@": import.meta.dirname, "server-only": path.join(import.meta.dirname, "tests/support/server-only-stub.ts") };
 
@@ -21,8 +22,9 @@ export default defineConfig({
           globalSetup: ["tests/integration/global-setup.ts"],
           setupFiles: ["tests/integration/setup-env.ts"],
           fileParallelism: false,
-          testTimeout: 60_000,
-          hookTimeout: 120_000,
+          // Harness limits; test:cluster scales them (tests/integration/test-env.ts timeoutScale).
+          testTimeout: 60_000 * timeoutScale,
+          hookTimeout: 120_000 * timeoutScale,
         },
       },
     ],

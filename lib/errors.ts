@@ -45,6 +45,8 @@ export function isDatabaseUnavailable(err: unknown): boolean {
     const { code, fatal, name } = e as { code?: unknown; fatal?: unknown; name?: unknown };
     if (typeof code === "string" && (DATABASE_DOWN_CODES.has(code) || (fatal === true && SOCKET_CODES.has(code)))) return true;
     if (name === "KnexTimeoutError") return true; // no connection could be had from the pool in time
+    // A Galera node that is not in the primary component, or still catching up after a restart, answers 1047.
+    if ((e as { errno?: unknown }).errno === 1047 && /WSREP/i.test(e instanceof Error ? e.message : "")) return true;
     const message = e instanceof Error ? e.message : "";
     if (/Connection lost: The server closed the connection|Can't add new command when connection is in closed state/.test(message)) return true;
     e = (e as { cause?: unknown }).cause;

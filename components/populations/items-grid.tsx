@@ -2,12 +2,13 @@
 import { useEffect, useMemo, useState } from "react";
 import {
   flexRender, getCoreRowModel, useReactTable,
-  type ColumnDef, type PaginationState, type SortingState,
+  type ColumnDef, type SortingState,
 } from "@tanstack/react-table";
 import type { PopulationItem } from "@/lib/data/population-items";
 import { Amount } from "@/components/ui/amount";
 import { Button } from "@/components/ui/button";
 import { apiFetch } from "@/components/ui/api";
+import { useKeysetPaging } from "@/components/ui/use-keyset-paging";
 import { SortableHead, alignOf } from "@/components/ui/data-table";
 import { formatCount } from "@/lib/format/number";
 
@@ -42,13 +43,14 @@ function pickColumn(pick: GridPick): ColumnDef<PopulationItem> {
 }
 
 interface Props { url: string; extraColumns: string[]; hasDescription: boolean; hasDate: boolean; pick?: GridPick }
-interface Page { items: PopulationItem[]; total: number }
+interface Page { items: PopulationItem[]; total: number; nextCursor?: string | null; prevCursor?: string | null }
 
-/** Every item, a page at a time from the server, sorted and searched there (manual pagination and sorting). */
+/** Every item, a page at a time from the server (paged by key), sorted and searched there. */
 export function ItemsGrid({ url, extraColumns, hasDescription, hasDate, pick }: Props) {
   const columns = useMemo(() => [...buildColumns(extraColumns, hasDescription, hasDate), ...(pick ? [pickColumn(pick)] : [])], [extraColumns, hasDescription, hasDate, pick]);
   const [sorting, setSorting] = useState<SortingState>([]);
-  const [pagination, setPagination] = useState<PaginationState>({ pageIndex: 0, pageSize: 25 });
+  const paging = useKeysetPaging(25);
+  const { reset: resetPaging, query: pagingQuery } = paging;
   const [search, setSearch] = useState("");
   const [query, setQuery] = useState("");
   const [page, setPage] = useState<Page | null>(null);
@@ -56,15 +58,15 @@ export function ItemsGrid({ url, extraColumns, hasDescription, hasDate, pick }: 
   const [busy, setBusy] = useState(true);
 
   useEffect(() => {
-    const t = setTimeout(() => { setQuery(search.trim()); setPagination((p) => ({ ...p, pageIndex: 0 })); }, 300);
+    const t = setTimeout(() => { setQuery(search.trim()); resetPaging(); }, 300);
     return () => clearTimeout(t);
-  }, [search]);
+  }, [search, resetPaging]);
 
   useEffect(() => {
     let live = true;
     const sort = sorting[0];
     const params = new URLSearchParams({
-      page: String(pagination.pageIndex + 1), pageSize: String(pagination.pageSize),
+      ...pagingQuery,
       sort: sort ? SERVER_SORT[sort.id] ?? "row" : "row", dir: sort?.desc ? "desc" : "asc",
     });
     if (query) params.set("q", query);
@@ -74,17 +76,17 @@ export function ItemsGrid({ url, extraColumns, hasDescription, hasDate, pick }: 
       (e: Error) => { if (live) { setError(e.message); setBusy(false); } },
     );
     return () => { live = false; };
-  }, [url, sorting, pagination, query]);
+  }, [url, sorting, pagingQuery, query]);
 
   const total = page?.total ?? 0;
   const table = useReactTable({
-    data: page?.items ?? [], columns, state: { sorting, pagination },
+    data: page?.items ?? [], columns, state: { sorting },
     manualPagination: true, manualSorting: true, enableMultiSort: false,
-    rowCount: total, onSortingChange: (u) => { setSorting(u); setPagination((p) => ({ ...p, pageIndex: 0 })); }, onPaginationChange: setPagination,
+    rowCount: total, onSortingChange: (u) => { setSorting(u); resetPaging(); },
     getCoreRowModel: getCoreRowModel(),
   });
-  const first = total === 0 ? 0 : pagination.pageIndex * pagination.pageSize + 1;
-  const last = Math.min(total, (pagination.pageIndex + 1) * pagination.pageSize);
+  const first = total === 0 ? 0 : paging.pageIndex * paging.pageSize + 1;
+  const last = Math.min(total, (paging.pageIndex + 1) * paging.pageSize);
 
   return (
     <div className="space-y-3">
@@ -116,16 +118,16 @@ export function ItemsGrid({ url, extraColumns, hasDescription, hasDate, pick }: 
       <div className="flex flex-wrap items-center justify-between gap-3 text-sm">
         <label className="inline-flex items-center gap-2 text-ink-soft">
           Rows per page
-          <select value={pagination.pageSize} onChange={(e) => setPagination({ pageIndex: 0, pageSize: Number(e.target.value) })} className="rounded-md border border-ink-line bg-paper-raised px-2 py-1 text-sm">
+          <select value={paging.pageSize} onChange={(e) => paging.setPageSize(Number(e.target.value))} className="rounded-md border border-ink-line bg-paper-raised px-2 py-1 text-sm">
             {[25, 50, 100, 200].map((n) => <option key={n} value={n}>{n}</option>)}
           </select>
         </label>
         <div className="flex items-center gap-2">
-          <Button type="button" variant="secondary" onClick={() => table.firstPage()} disabled={!table.getCanPreviousPage()}>First</Button>
-          <Button type="button" variant="secondary" onClick={() => table.previousPage()} disabled={!table.getCanPreviousPage()}>Previous</Button>
-          <span className="figures px-2 text-ink-soft">Page {formatCount(pagination.pageIndex + 1)} of {formatCount(Math.max(1, table.getPageCount()))}</span>
-          <Button type="button" variant="secondary" onClick={() => table.nextPage()} disabled={!table.getCanNextPage()}>Next</Button>
-          <Button type="button" variant="secondary" onClick={() => table.lastPage()} disabled={!table.getCanNextPage()}>Last</Button>
+          <Button type="button" variant="secondary" onClick={paging.first} disabled={!paging.canPrevious(page)}>First</Button>
+          <Button type="button" variant="secondary" onClick={() => paging.previous(page)} disabled={!paging.canPrevious(page)}>Previous</Button>
+          <span className="figures px-2 text-ink-soft">Page {formatCount(paging.pageIndex + 1)} of {formatCount(paging.pageCount(total))}</span>
+          <Button type="button" variant="secondary" onClick={() => paging.next(page)} disabled={!paging.canNext(page)}>Next</Button>
+          <Button type="button" variant="secondary" onClick={() => paging.last(page)} disabled={!paging.canNext(page)}>Last</Button>
         </div>
       </div>
     </div>

@@ -1,11 +1,12 @@
 "use client";
 import { useCallback, useEffect, useMemo, useState } from "react";
-import { flexRender, getCoreRowModel, useReactTable, type ColumnDef, type PaginationState } from "@tanstack/react-table";
+import { flexRender, getCoreRowModel, useReactTable, type ColumnDef } from "@tanstack/react-table";
 import type { SampleItemRecord } from "@/lib/data/sample-items";
 import type { SampleMethod } from "@/lib/validation/sample";
 import { Amount } from "@/components/ui/amount";
 import { Button } from "@/components/ui/button";
 import { apiFetch } from "@/components/ui/api";
+import { useKeysetPaging } from "@/components/ui/use-keyset-paging";
 import { Alert } from "@/components/ui/alert";
 import { ResultRow } from "./result-row";
 import { AuditedValueCell, CauseCell, CommentCell, DeviationCell, EvidenceCell, MisstatementCell, ReferenceCell, StatusCell } from "./result-cells";
@@ -58,7 +59,7 @@ interface Props {
   engagementId: number; sampleId: number; method: SampleMethod; drawVersion: number;
   mayRecord: boolean; mayReplace: boolean; refreshKey: number; onSaved: () => void; notesByItem: Record<number, ItemNoteMark[]>;
 }
-interface ItemsPage { items: SampleItemRecord[]; total: number }
+interface ItemsPage { items: SampleItemRecord[]; total: number; nextCursor?: string | null; prevCursor?: string | null }
 
 /**
  * The selected items, a page at a time from the server, with results keyed in on each row as in a
@@ -67,7 +68,8 @@ interface ItemsPage { items: SampleItemRecord[]; total: number }
  */
 export function FieldworkGrid({ engagementId, sampleId, method, drawVersion, mayRecord, mayReplace, refreshKey, onSaved, notesByItem }: Props) {
   const url = `/api/engagements/${engagementId}/samples/${sampleId}/items`;
-  const [pagination, setPagination] = useState<PaginationState>({ pageIndex: 0, pageSize: 25 });
+  const paging = useKeysetPaging(25);
+  const { reset: resetPaging, query: pagingQuery } = paging;
   const [status, setStatus] = useState("all");
   const [search, setSearch] = useState("");
   const [query, setQuery] = useState("");
@@ -84,20 +86,20 @@ export function FieldworkGrid({ engagementId, sampleId, method, drawVersion, may
   const columns = useMemo(() => buildColumns({ attribute, selectable: mayRecord, selected, toggle, openEvidence, toggleEvidence, notesByItem }), [attribute, mayRecord, selected, toggle, openEvidence, toggleEvidence, notesByItem]);
 
   useEffect(() => {
-    const t = setTimeout(() => { setQuery(search.trim()); setPagination((p) => ({ ...p, pageIndex: 0 })); }, 300);
+    const t = setTimeout(() => { setQuery(search.trim()); resetPaging(); }, 300);
     return () => clearTimeout(t);
-  }, [search]);
+  }, [search, resetPaging]);
 
   useEffect(() => {
     let live = true;
-    const params = new URLSearchParams({ page: String(pagination.pageIndex + 1), pageSize: String(pagination.pageSize), status });
+    const params = new URLSearchParams({ ...pagingQuery, status });
     if (query) params.set("q", query);
     apiFetch<ItemsPage>(`${url}?${params}`).then(
       (r) => { if (live) { setPage(r); setError(null); } },
       (e: Error) => { if (live) setError(e.message); },
     );
     return () => { live = false; };
-  }, [url, pagination, status, query, reloads, refreshKey, drawVersion]);
+  }, [url, pagingQuery, status, query, reloads, refreshKey, drawVersion]);
 
   const reload = useCallback(() => setReloads((n) => n + 1), []);
   const apply = useCallback((after: SampleItemRecord[]) => {
@@ -132,15 +134,15 @@ export function FieldworkGrid({ engagementId, sampleId, method, drawVersion, may
 
   const total = page?.total ?? 0;
   const table = useReactTable({
-    data: page?.items ?? [], columns, state: { pagination }, manualPagination: true, rowCount: total,
-    onPaginationChange: setPagination, getCoreRowModel: getCoreRowModel(), getRowId: (it) => String(it.id),
+    data: page?.items ?? [], columns, manualPagination: true, rowCount: total,
+    getCoreRowModel: getCoreRowModel(), getRowId: (it) => String(it.id),
   });
   const align = (meta: unknown) => {
     const m = meta as { align?: string; sticky?: boolean; grow?: boolean } | undefined;
     return `${m?.align === "right" ? "text-right" : ""} ${m?.sticky ? "sticky left-0 z-10 bg-inherit" : ""} ${m?.grow ? "w-full" : ""}`;
   };
-  const first = total === 0 ? 0 : pagination.pageIndex * pagination.pageSize + 1;
-  const last = Math.min(total, (pagination.pageIndex + 1) * pagination.pageSize);
+  const first = total === 0 ? 0 : paging.pageIndex * paging.pageSize + 1;
+  const last = Math.min(total, (paging.pageIndex + 1) * paging.pageSize);
   const onPage = (page?.items ?? []).filter((i) => i.status !== "void");
   const chosen = onPage.filter((i) => selected.has(i.id));
   const allChosen = onPage.length > 0 && chosen.length === onPage.length;
@@ -151,7 +153,7 @@ export function FieldworkGrid({ engagementId, sampleId, method, drawVersion, may
         <input type="search" value={search} onChange={(e) => setSearch(e.target.value)} placeholder="Search reference or description…" aria-label="Search sample items"
           className="w-full max-w-xs rounded-md border border-ink-line bg-paper-raised px-3 py-1.5 text-sm focus:border-ledger-500 focus:outline-none" />
         <label className="inline-flex items-center gap-2 text-sm text-ink-soft">Show
-          <select value={status} onChange={(e) => { setStatus(e.target.value); setPagination((p) => ({ ...p, pageIndex: 0 })); }} className="rounded-md border border-ink-line bg-paper-raised px-2 py-1 text-sm">
+          <select value={status} onChange={(e) => { setStatus(e.target.value); resetPaging(); }} className="rounded-md border border-ink-line bg-paper-raised px-2 py-1 text-sm">
             <option value="all">All items</option>
             {(["not-started", "done", "not-auditable", "void"] as const).map((s) => <option key={s} value={s}>{ITEM_STATUS_LABELS[s]}</option>)}
           </select>
@@ -205,14 +207,14 @@ export function FieldworkGrid({ engagementId, sampleId, method, drawVersion, may
       </div>
       <div className="flex flex-wrap items-center justify-between gap-3 text-sm">
         <label className="inline-flex items-center gap-2 text-ink-soft">Rows per page
-          <select value={pagination.pageSize} onChange={(e) => setPagination({ pageIndex: 0, pageSize: Number(e.target.value) })} className="rounded-md border border-ink-line bg-paper-raised px-2 py-1 text-sm">
+          <select value={paging.pageSize} onChange={(e) => paging.setPageSize(Number(e.target.value))} className="rounded-md border border-ink-line bg-paper-raised px-2 py-1 text-sm">
             {[10, 25, 50, 100].map((n) => <option key={n} value={n}>{n}</option>)}
           </select>
         </label>
         <div className="flex items-center gap-2">
-          <Button type="button" variant="secondary" onClick={() => table.previousPage()} disabled={!table.getCanPreviousPage()}>Previous</Button>
-          <span className="figures px-2 text-ink-soft">Page {pagination.pageIndex + 1} of {Math.max(1, table.getPageCount())}</span>
-          <Button type="button" variant="secondary" onClick={() => table.nextPage()} disabled={!table.getCanNextPage()}>Next</Button>
+          <Button type="button" variant="secondary" onClick={() => paging.previous(page)} disabled={!paging.canPrevious(page)}>Previous</Button>
+          <span className="figures px-2 text-ink-soft">Page {paging.pageIndex + 1} of {paging.pageCount(total)}</span>
+          <Button type="button" variant="secondary" onClick={() => paging.next(page)} disabled={!paging.canNext(page)}>Next</Button>
         </div>
       </div>
       {replacing && (

@@ -13,6 +13,7 @@ import * as m0011 from "./20261203_0011_auditor_conclusion";
 import * as m0012 from "./20261203_0012_advisor_rationale_reason";
 import * as m0013 from "./20261203_0013_nonstatistical";
 import * as m0014 from "./20261203_0014_misstatements";
+import * as m0015 from "./20261203_0015_scale_out";
 import * as m0016 from "./20261203_0016_sessions_and_archive";
 
 type Migration = { up(knex: Knex): Promise<void>; down(knex: Knex): Promise<void> };
@@ -33,6 +34,7 @@ const migrations: Record<string, Migration> = {
   "20261203_0012_advisor_rationale_reason": m0012,
   "20261203_0013_nonstatistical": m0013,
   "20261203_0014_misstatements": m0014,
+  "20261203_0015_scale_out": m0015,
   "20261203_0016_sessions_and_archive": m0016,
 };
 

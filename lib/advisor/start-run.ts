@@ -6,7 +6,8 @@ import { observedTaintings, type MisstatementScenario } from "@/lib/sampling";
 import type { EngagementContext } from "@/lib/auth/with-role";
 import { getSampleById, getCurrentDraw, type SampleRecord } from "@/lib/data/samples";
 import { listItemsByDrawId } from "@/lib/data/sample-items";
-import { createAdvisorRun, findDoneAdvisorRunByKey, finishAdvisorRun, getAdvisorRunById, type AdvisorRequest } from "@/lib/data/advisor-runs";
+import { advisorHeartbeat, createAdvisorRun, findDoneAdvisorRunByKey, finishAdvisorRun, getAdvisorRunById, type AdvisorRequest } from "@/lib/data/advisor-runs";
+import { instanceId } from "@/lib/workers/instance-id";
 import { AppError, conflict, fieldError } from "@/lib/errors";
 import { loadFrame } from "@/lib/samples/population-frame";
 import { sidesFor } from "@/lib/samples/evaluate";
@@ -74,7 +75,7 @@ export async function startAdvisorRun(ctx: EngagementContext, sample: SampleReco
   if (cached) return ndjsonOf({ type: "result", run: cached, cached: true });
 
   if (advisorRunsInProgress() >= MAX_CONCURRENT_RUNS) {
-    throw new AppError(503, "busy", `The advisor is already running ${MAX_CONCURRENT_RUNS} simulations on this server; try again when one has finished.`);
+    throw new AppError(503, "busy", `The advisor is already running ${MAX_CONCURRENT_RUNS} simulations on this server (the limit is per app server); try again when one has finished.`);
   }
   const runId = await createAdvisorRun(db, { engagementId: ctx.engagementId, sampleId: sample.id, populationId: sample.populationId, planVersion: sample.planVersion, cacheKey, request, actorId: ctx.user.id });
   const job: AdvisorJob = {
@@ -87,6 +88,12 @@ export async function startAdvisorRun(ctx: EngagementContext, sample: SampleReco
 
   const response = ndjsonStream<object>(async (send) => {
     send({ type: "started", runId, total: jobUnits(job) });
+    // Once a second: a heartbeat (so other servers know the run is alive) and the cancel flag,
+    // which DELETE …/advisor/:r sets from whichever server it reaches.
+    const serverId = instanceId();
+    const poll = setInterval(() => {
+      advisorHeartbeat(db, { runId, serverId }).then(({ cancelRequested }) => { if (cancelRequested) cancelAdvisorRun(runId); }, () => undefined);
+    }, 1_000);
     try {
       const result = await runInWorker(runId, job, (done, total) => send({ type: "progress", done, total }));
       await finish("done", { result });
@@ -101,6 +108,8 @@ export async function startAdvisorRun(ctx: EngagementContext, sample: SampleReco
         await finish("failed", { error: message });
         send({ type: "error", message });
       }
+    } finally {
+      clearInterval(poll);
     }
   }, () => cancelAdvisorRun(runId));
   ctx.req.signal?.addEventListener("abort", () => cancelAdvisorRun(runId), { once: true });

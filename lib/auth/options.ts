@@ -3,18 +3,10 @@ import type { NextAuthOptions } from "next-auth";
 import CredentialsProvider from "next-auth/providers/credentials";
 import { getDb } from "@/db/knex";
 import { verifyCredentials } from "./verify-credentials";
+import { clientAddress } from "./client-address";
+import { isDatabaseUnavailable } from "@/lib/errors";
 
 export const SESSION_MAX_AGE_SECONDS = 8 * 60 * 60; // one working day
-
-// next start fills X-Forwarded-For from the socket only when the request has none, so the
-// per-address limit trusts what the deployment's reverse proxy writes there; the per-account
-// limit holds whatever a caller sends.
-function clientIp(headers: Record<string, unknown> | undefined): string {
-  const forwarded = headers?.["x-forwarded-for"];
-  const first = typeof forwarded === "string" ? forwarded.split(",")[0]?.trim() : undefined;
-  const realIp = headers?.["x-real-ip"];
-  return first || (typeof realIp === "string" ? realIp : "unknown");
-}
 
 /** True when the user's sessions issued at `issuedAtSeconds` (the JWT's iat) were ended by a password reset. */
 export async function sessionEnded(userId: number, issuedAtSeconds: number): Promise<boolean> {
@@ -22,6 +14,20 @@ export async function sessionEnded(userId: number, issuedAtSeconds: number): Pro
   const row = await getDb()("users").where({ id: userId }).first<{ sessions_valid_after: Date | string | null } | undefined>("sessions_valid_after");
   const validAfter = row?.sessions_valid_after ? new Date(row.sessions_valid_after).getTime() : null;
   return validAfter !== null && issuedAtSeconds * 1000 < Math.floor(validAfter / 1000) * 1000;
+}
+
+/**
+ * sessionEnded, or "unavailable" while the database cannot answer (a Galera writer failing over, a
+ * restart): a blip must neither sign the person out (next-auth clears the cookie when a callback
+ * throws) nor let an ended session through — getSessionUserId answers 503 instead.
+ */
+export async function sessionState(userId: number, issuedAtSeconds: number): Promise<"valid" | "ended" | "unavailable"> {
+  try {
+    return (await sessionEnded(userId, issuedAtSeconds)) ? "ended" : "valid";
+  } catch (err) {
+    if (isDatabaseUnavailable(err)) return "unavailable";
+    throw err;
+  }
 }
 
 export const authOptions: NextAuthOptions = {
@@ -34,7 +40,7 @@ export const authOptions: NextAuthOptions = {
       name: "Sondage account",
       credentials: { email: { label: "E-mail", type: "email" }, password: { label: "Password", type: "password" } },
       async authorize(credentials, req) {
-        const user = await verifyCredentials(getDb(), credentials, clientIp(req?.headers));
+        const user = await verifyCredentials(getDb(), credentials, clientAddress(req?.headers));
         return { id: String(user.id), name: user.name, email: user.email };
       },
     }),
@@ -43,12 +49,14 @@ export const authOptions: NextAuthOptions = {
     async jwt({ token, user }) {
       if (user) token.uid = Number(user.id);
       // An ended session must not come back when its token is re-issued (with a fresh iat): drop the user from it.
-      else if (token.uid !== undefined && (await sessionEnded(Number(token.uid), Number(token.iat)))) delete token.uid;
+      else if (token.uid !== undefined && (await sessionState(Number(token.uid), Number(token.iat))) === "ended") delete token.uid;
       return token;
     },
     async session({ session, token }) {
       // A session issued before the person's password was reset carries no user: they sign in again.
-      if (session.user && !(await sessionEnded(Number(token.uid), Number(token.iat)))) (session.user as { id?: number }).id = token.uid as number;
+      const state = await sessionState(Number(token.uid), Number(token.iat));
+      if (session.user && state === "valid") (session.user as { id?: number }).id = token.uid as number;
+      if (state === "unavailable") (session as { databaseUnavailable?: boolean }).databaseUnavailable = true;
       return session;
     },
   },

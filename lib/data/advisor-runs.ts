@@ -91,6 +91,31 @@ export async function finishAdvisorRun(db: Knex, o: { engagementId: number; samp
 }
 
 /** A row left "running" by a server that stopped: marked failed so nobody waits on it. */
+/** How long a running run's heartbeat may be silent before its server counts as stopped. */
+export const ADVISOR_HEARTBEAT_SECONDS = 30;
+
+/**
+ * Called about once a second by the server running the run: records that it is alive and answers
+ * whether a cancel was asked for (from any server, by requestAdvisorCancel).
+ */
+export async function advisorHeartbeat(db: Knex, { runId, serverId }: { runId: number; serverId: string }): Promise<{ cancelRequested: boolean }> {
+  await db("advisor_runs").where({ id: runId, status: "running" }).update({ heartbeat_at: db.fn.now(3), server_id: serverId });
+  const row = await db("advisor_runs").where({ id: runId }).first("cancel_requested_at");
+  return { cancelRequested: Boolean(row?.cancel_requested_at) };
+}
+
+/** Asks whichever server runs the run to stop it; false when it is not running. */
+export async function requestAdvisorCancel(db: Knex, { runId }: { runId: number }): Promise<boolean> {
+  return (await db("advisor_runs").where({ id: runId, status: "running" }).update({ cancel_requested_at: db.fn.now(3) })) === 1;
+}
+
+/** True when a "running" run's server has stopped: this server ran it and no longer does, or its heartbeat went silent. */
+export async function isAdvisorRunOrphaned(db: Knex, { runId, serverId, runningHere }: { runId: number; serverId: string; runningHere: boolean }): Promise<boolean> {
+  if (runningHere) return false;
+  const row: { server_id: string | null; silent: unknown } | undefined = await db("advisor_runs").where({ id: runId }).first("server_id", db.raw(`COALESCE(heartbeat_at, created_at) < NOW(3) - INTERVAL ${ADVISOR_HEARTBEAT_SECONDS} SECOND as silent`));
+  return row?.server_id === serverId || Boolean(Number(row?.silent));
+}
+
 export async function markAdvisorRunInterrupted(db: Knex, { runId }: { runId: number }) {
   await db("advisor_runs").where({ id: runId, status: "running" }).update({ status: "failed", error: "Interrupted: the server stopped before the run finished.", finished_at: db.fn.now(3) });
 }

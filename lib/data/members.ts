@@ -49,7 +49,8 @@ async function assertReviewerRemains(trx: Knex.Transaction, engagementId: number
   if (Number(row?.n ?? 0) === 0) throw new AppError(409, "last_reviewer", "An engagement needs at least one manager or partner");
 }
 
-export async function addMember(db: Knex, { engagementId, actorId, actorRole, userId, role, firmId }: MemberChange & { role: EngagementRole; firmId: number }) {
+/** Adds a member; `inTransaction` runs before the commit (the invitation is queued there, so it commits with the addition). */
+export async function addMember(db: Knex, { engagementId, actorId, actorRole, userId, role, firmId, inTransaction }: MemberChange & { role: EngagementRole; firmId: number; inTransaction?: (trx: Knex.Transaction) => Promise<unknown> }) {
   assertMayGrant(actorRole, role);
   return db.transaction(async (trx) => {
     const user = await trx("users").where({ id: userId, firm_id: firmId, active: true }).first("id", "grade");
@@ -59,6 +60,7 @@ export async function addMember(db: Knex, { engagementId, actorId, actorRole, us
     if (existing) throw new AppError(409, "already_member", "That person is already on the team");
     await trx("engagement_members").insert({ engagement_id: engagementId, user_id: userId, role });
     await recordAudit(trx, { actorUserId: actorId, engagementId, entity: "engagement_member", entityId: `${engagementId}:${userId}`, action: "add", after: { userId, role } });
+    await inTransaction?.(trx);
   });
 }
 

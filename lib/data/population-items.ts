@@ -3,6 +3,8 @@ import type { Knex } from "knex";
 import type { ItemsQuery } from "@/lib/validation/population";
 import { containsPattern } from "./like";
 import type { PopulationItemsRow } from "./tables";
+import { seekFromQuery, seekPage } from "./keyset";
+import type { KeysetPage } from "@/lib/validation/keyset";
 
 export interface PopulationItem {
   rowNumber: number;
@@ -22,30 +24,26 @@ const toItem = (r: Record<string, unknown> | PopulationItemsRow): PopulationItem
 const SORT_COLUMNS = { row: "row_number", ref: "item_ref", book: "book_value" } as const;
 
 /**
- * One page of a population's items, sorted and optionally searched (reference or description).
- * Unsearched, the total is the population's stored row count (no COUNT over a million rows), and
- * the page is found as a deferred join: the OFFSET walks only the (population_id, sort column)
- * index, whose entries carry the primary key, and the full rows are read for the page kept.
+ * One page of a population's items, sorted and optionally searched (reference or description),
+ * paged by key: the sort column plus the row number, through the (population_id, column) index,
+ * so a deep page costs what the first does. Unsearched, the total is the population's row count
+ * stored at load (no COUNT over a million rows).
  */
-export async function listItemsByPopulationId(db: Knex, { populationId, query }: { populationId: number; query: ItemsQuery }) {
+export async function listItemsByPopulationId(db: Knex, { populationId, query }: { populationId: number; query: ItemsQuery }): Promise<KeysetPage<PopulationItem>> {
   const base = db("population_items").where({ population_id: populationId });
   if (query.q) {
     const like = containsPattern(query.q);
     base.andWhere((w) => { w.where("item_ref", "like", like).orWhere("description", "like", like); });
   }
-  const sort = SORT_COLUMNS[query.sort];
-  const keys = base.clone().orderBy(sort, query.dir).orderBy("row_number", query.dir)
-    .limit(query.pageSize).offset((query.page - 1) * query.pageSize).select("row_number");
   const total = query.q
-    ? base.clone().count({ n: "*" }).first().then((r) => Number(r?.n ?? 0))
-    : db("populations").where({ id: populationId }).first("row_count").then((r) => Number(r?.row_count ?? 0));
-  const [count, rows] = await Promise.all([
-    total,
-    db.from(keys.as("k")).join("population_items as i", (j) => j.on("i.row_number", "k.row_number").andOnVal("i.population_id", populationId))
-      .orderBy(`i.${sort}`, query.dir).orderBy("i.row_number", query.dir)
-      .select("i.row_number", "i.item_ref", "i.description", "i.book_value", "i.item_date", "i.extra"),
-  ]);
-  return { items: rows.map(toItem), total: count, page: query.page, pageSize: query.pageSize };
+    ? Number((await base.clone().count({ n: "*" }).first())?.n ?? 0)
+    : Number((await db("populations").where({ id: populationId }).first("row_count"))?.row_count ?? 0);
+  const column = SORT_COLUMNS[query.sort];
+  const rows = base.clone().select("row_number", "item_ref", "description", "book_value", "item_date", "extra");
+  const page = await seekPage<Record<string, unknown>>(rows, { column, key: "row_number", dir: query.dir }, seekFromQuery(query, total), query.pageSize,
+    (r) => ({ value: column === "book_value" ? String(r.book_value) : column === "item_ref" ? String(r.item_ref) : Number(r.row_number), key: Number(r.row_number) }));
+  const pageNumber = query.last ? Math.max(1, Math.ceil(total / query.pageSize)) : query.page;
+  return { items: page.rows.map(toItem), total, page: pageNumber, pageSize: query.pageSize, nextCursor: page.nextCursor, prevCursor: page.prevCursor };
 }
 
 export interface PopulationProfile {

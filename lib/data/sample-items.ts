@@ -3,6 +3,9 @@ import type { Knex } from "knex";
 import type { SaveResult } from "@/lib/validation/sample";
 import { recordAudit } from "./audit-log";
 import { containsPattern } from "./like";
+import { seekFromQuery, seekPage } from "./keyset";
+import { transactionWithRetry } from "./transaction-retry";
+import type { Cursor, KeysetPage } from "@/lib/validation/keyset";
 import { beginResultWrite } from "@/lib/samples/guard";
 import { ANOMALY_CLEARED } from "@/lib/samples/anomalies";
 import { AppError, notFound } from "@/lib/errors";
@@ -93,16 +96,20 @@ function itemQuery(db: Knex, drawId: number) {
   return q;
 }
 
-export async function listItemsByDrawId(db: Knex, { drawId, page = 1, pageSize = 100000, status = "all", q }: { drawId: number; page?: number; pageSize?: number; status?: string; q?: string }) {
+interface ItemsPageQuery { page?: number; pageSize?: number; status?: string; q?: string; after?: Cursor; before?: Cursor; last?: boolean }
+
+/** A draw's items in selection order, filtered, paged by key (selection order plus id); without paging, all of them. */
+export async function listItemsByDrawId(db: Knex, { drawId, page = 1, pageSize = 100000, status = "all", q, after, before, last }: { drawId: number } & ItemsPageQuery): Promise<KeysetPage<SampleItemRecord>> {
   const base = db("sample_items as i").where("i.draw_id", drawId);
   if (status !== "all") base.andWhere("i.status", status);
   if (q) base.andWhere((w) => { w.where("i.item_ref", "like", containsPattern(q)).orWhere("i.description", "like", containsPattern(q)); });
-  const [count, rows] = await Promise.all([
-    base.clone().count({ n: "*" }).first(),
-    base.clone().leftJoin("users as u", "u.id", "i.updated_by").orderBy("i.selection_order").orderBy("i.id")
-      .limit(pageSize).offset((page - 1) * pageSize).select("i.*", "u.name as updated_by_name", evidenceCount(db), requestStatus(db), ...peopleNames(db)),
-  ]);
-  return { items: rows.map(toItem), total: Number(count?.n ?? 0), page, pageSize };
+  const total = Number((await base.clone().count({ n: "*" }).first())?.n ?? 0);
+  const rows = base.clone().leftJoin("users as u", "u.id", "i.updated_by").select("i.*", "u.name as updated_by_name", evidenceCount(db), requestStatus(db), ...peopleNames(db));
+  const from = seekFromQuery({ after, before, last: last ?? false, page, pageSize }, total);
+  const seek = await seekPage<Record<string, unknown>>(rows, { column: "i.selection_order", key: "i.id", dir: "asc" }, from, pageSize,
+    (r) => ({ value: Number(r.selection_order), key: Number(r.id) }));
+  const pageNumber = last ? Math.max(1, Math.ceil(total / pageSize)) : page;
+  return { items: seek.rows.map(toItem), total, page: pageNumber, pageSize, nextCursor: seek.nextCursor, prevCursor: seek.prevCursor };
 }
 
 export async function getItemById(db: Knex, { drawId, itemId }: { drawId: number; itemId: number }) {
@@ -146,7 +153,8 @@ export async function applyItemResult(trx: Knex.Transaction, { engagementId, sam
 
 /** Saves one item's result in its own transaction (see applyItemResult). */
 export async function saveItemResult(db: Knex, write: ResultWrite) {
-  return db.transaction(async (trx) => {
+  // A deadlock (or a Galera certification conflict) re-runs the whole save, version check included.
+  return transactionWithRetry(db, async (trx) => {
     const signOffsCleared = await beginResultWrite(trx, { sampleId: write.sampleId, actorId: write.actorId, what: "an item's result" });
     const item = await applyItemResult(trx, write);
     // samples.updated_at is not touched here: that would take the sample row exclusively and queue every save behind every other.

@@ -19,6 +19,9 @@ export interface AdvisorRunsRow {
   created_by: number;
   created_at: Date;
   finished_at: Date | null;
+  cancel_requested_at: Date | null;
+  server_id: string | null;
+  heartbeat_at: Date | null;
 }
 
 interface AdvisorRunsWrite {
@@ -36,6 +39,9 @@ interface AdvisorRunsWrite {
   created_by?: number | Knex.Raw;
   created_at?: Date | string | Knex.Raw;
   finished_at?: Date | string | null | Knex.Raw;
+  cancel_requested_at?: Date | string | null | Knex.Raw;
+  server_id?: string | null | Knex.Raw;
+  heartbeat_at?: Date | string | null | Knex.Raw;
 }
 
 export interface AuditLogRow {
@@ -164,6 +170,46 @@ interface ItemEvidenceWrite {
   uploaded_at?: Date | string | Knex.Raw;
   deleted_at?: Date | string | null | Knex.Raw;
   deleted_by?: number | null | Knex.Raw;
+}
+
+export interface MailOutboxRow {
+  id: number;
+  firm_id: number | null;
+  template: string;
+  to_name: string;
+  to_email: string;
+  subject: string;
+  text_body: string;
+  html_body: string;
+  status: "pending" | "sending" | "sent" | "failed" | "unknown";
+  attempts: number;
+  next_attempt_at: Date;
+  claimed_by: string | null;
+  claimed_until: Date | null;
+  last_error: string | null;
+  message_id: string | null;
+  created_at: Date;
+  sent_at: Date | null;
+}
+
+interface MailOutboxWrite {
+  id?: number | Knex.Raw;
+  firm_id?: number | null | Knex.Raw;
+  template?: string | Knex.Raw;
+  to_name?: string | Knex.Raw;
+  to_email?: string | Knex.Raw;
+  subject?: string | Knex.Raw;
+  text_body?: string | Knex.Raw;
+  html_body?: string | Knex.Raw;
+  status?: "pending" | "sending" | "sent" | "failed" | "unknown" | Knex.Raw;
+  attempts?: number | Knex.Raw;
+  next_attempt_at?: Date | string | Knex.Raw;
+  claimed_by?: string | null | Knex.Raw;
+  claimed_until?: Date | string | null | Knex.Raw;
+  last_error?: string | null | Knex.Raw;
+  message_id?: string | null | Knex.Raw;
+  created_at?: Date | string | Knex.Raw;
+  sent_at?: Date | string | null | Knex.Raw;
 }
 
 export interface MisstatementCorrectionsRow {
@@ -433,10 +479,12 @@ export interface PopulationUploadsRow {
   sha256: string;
   temp_path: string;
   inspection_json: string; // JSON text
-  status: "inspected" | "loading" | "rejected" | "loaded" | "expired";
+  status: "inspected" | "loading" | "rejected" | "loaded" | "expired" | "failed";
   problems_json: string | null; // JSON text
   problem_count: number;
   created_at: Date;
+  object_key: string | null;
+  failure_message: string | null;
 }
 
 interface PopulationUploadsWrite {
@@ -448,10 +496,24 @@ interface PopulationUploadsWrite {
   sha256?: string | Knex.Raw;
   temp_path?: string | Knex.Raw;
   inspection_json?: string | Knex.Raw;
-  status?: "inspected" | "loading" | "rejected" | "loaded" | "expired" | Knex.Raw;
+  status?: "inspected" | "loading" | "rejected" | "loaded" | "expired" | "failed" | Knex.Raw;
   problems_json?: string | null | Knex.Raw;
   problem_count?: number | Knex.Raw;
   created_at?: Date | string | Knex.Raw;
+  object_key?: string | null | Knex.Raw;
+  failure_message?: string | null | Knex.Raw;
+}
+
+export interface PopulationUploadLeasesRow {
+  upload_id: number;
+  holder: string;
+  expires_at: Date;
+}
+
+interface PopulationUploadLeasesWrite {
+  upload_id?: number | Knex.Raw;
+  holder?: string | Knex.Raw;
+  expires_at?: Date | string | Knex.Raw;
 }
 
 export interface RequestFilesRow {
@@ -847,6 +909,7 @@ declare module "knex/types/tables" {
     firms: Knex.CompositeTableType<FirmsRow, FirmsWrite>;
     firm_methodology: Knex.CompositeTableType<FirmMethodologyRow, FirmMethodologyWrite>;
     item_evidence: Knex.CompositeTableType<ItemEvidenceRow, ItemEvidenceWrite>;
+    mail_outbox: Knex.CompositeTableType<MailOutboxRow, MailOutboxWrite>;
     misstatement_corrections: Knex.CompositeTableType<MisstatementCorrectionsRow, MisstatementCorrectionsWrite>;
     misstatement_entries: Knex.CompositeTableType<MisstatementEntriesRow, MisstatementEntriesWrite>;
     misstatement_entry_evidence: Knex.CompositeTableType<MisstatementEntryEvidenceRow, MisstatementEntryEvidenceWrite>;
@@ -856,6 +919,7 @@ declare module "knex/types/tables" {
     populations: Knex.CompositeTableType<PopulationsRow, PopulationsWrite>;
     population_items: Knex.CompositeTableType<PopulationItemsRow, PopulationItemsWrite>;
     population_uploads: Knex.CompositeTableType<PopulationUploadsRow, PopulationUploadsWrite>;
+    population_upload_leases: Knex.CompositeTableType<PopulationUploadLeasesRow, PopulationUploadLeasesWrite>;
     request_files: Knex.CompositeTableType<RequestFilesRow, RequestFilesWrite>;
     request_items: Knex.CompositeTableType<RequestItemsRow, RequestItemsWrite>;
     request_lists: Knex.CompositeTableType<RequestListsRow, RequestListsWrite>;

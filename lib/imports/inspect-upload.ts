@@ -39,6 +39,8 @@ export interface UploadInspection {
   detectedNumberFormat: NumberFormat | null;
   columnNumberFormats: (NumberFormat | null)[];
   detectedDateOrder: DateOrder | null;
+  /** Data rows counted at upload (the whole file, within the row limit); absent on uploads received before the count. */
+  dataRows?: number;
 }
 
 const SAMPLE_ROWS = 500;

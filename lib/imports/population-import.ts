@@ -10,7 +10,7 @@ import { addToTotals, emptyTotals, type PopulationTotals } from "./population-to
 import { compileMapping, validateRow, type CompiledMapping, type RowProblem, type ValidatedRow } from "./row-validator";
 import { sniffFile } from "./sniff-file";
 import { isBlankSourceRow, type SourceBatch } from "./source-row";
-import { readXlsxRows } from "./xlsx-rows";
+import { readXlsxRowsForLoad } from "./xlsx-rows";
 import { formatCount } from "@/lib/format/number";
 
 export interface PopulationImportOptions {
@@ -140,7 +140,7 @@ export class PopulationImport {
 
   private source(): AsyncGenerator<SourceBatch> {
     const { inspection, filePath } = this;
-    if (inspection.kind === "xlsx") return readXlsxRows(filePath, inspection.sheet ?? "");
+    if (inspection.kind === "xlsx") return readXlsxRowsForLoad(filePath, inspection.sheet ?? "");
     if (!inspection.encoding || !inspection.delimiter || !inspection.newline) {
       throw new ImportError("invalid-mapping", "The inspection of this CSV is incomplete; inspect the file again.");
     }

@@ -1,9 +1,11 @@
 import "server-only";
 import { createReadStream } from "node:fs";
+import { stat } from "node:fs/promises";
 import ExcelJS from "exceljs";
 import { ImportError } from "./import-error";
 import type { RawCell, SourceBatch } from "./source-row";
 import { normalizeCell } from "./xlsx-cells";
+import { readXlsxRowsFast } from "./xlsx-fast-rows";
 
 /** Rows in each batch; inspection samples the first batch. */
 export const XLSX_BATCH_ROWS = 2000;
@@ -60,4 +62,29 @@ export async function* readXlsxRows(filePath: string, sheetName: string): AsyncG
     input.destroy();
   }
   if (!found) throw new ImportError("sheet-not-found", `The workbook has no sheet named "${sheetName}".`);
+}
+
+/**
+ * Every row of one sheet for a full load: the fast reader (xlsx-fast-rows.ts, the one the preview
+ * uses), and exceljs only for what it cannot read — when the fast reader meets a construct it does
+ * not understand, exceljs carries on from the row after the last one already given. Refusals
+ * (ImportError: a zip bomb, a missing sheet) are not retried.
+ */
+export async function* readXlsxRowsForLoad(filePath: string, sheetName: string, onFallback?: (reason: string) => void): AsyncGenerator<SourceBatch> {
+  let lastRow = 0;
+  try {
+    const { size } = await stat(filePath);
+    for await (const batch of readXlsxRowsFast(filePath, sheetName, size, XLSX_BATCH_ROWS)) {
+      if (batch.rows.length) lastRow = batch.rows[batch.rows.length - 1].rowNumber;
+      yield batch;
+    }
+    return;
+  } catch (err) {
+    if (err instanceof ImportError) throw err;
+    onFallback?.(err instanceof Error ? err.message : String(err));
+  }
+  for await (const batch of readXlsxRows(filePath, sheetName)) {
+    const rows = batch.rows.filter((row) => row.rowNumber > lastRow);
+    if (rows.length) yield { ...batch, rows };
+  }
 }

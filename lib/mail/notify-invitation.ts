@@ -16,7 +16,7 @@ export async function notifyEngagementInvitation(
   try {
     const [engagement, person] = await Promise.all([getEngagementById(db, { engagementId }), getUserById(db, { userId })]);
     if (!engagement || !person) return null;
-    return await sendMail({
+    return await sendMail(db, {
       to: { name: person.name, email: person.email },
       template: "engagement-invitation",
       data: {

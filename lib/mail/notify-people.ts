@@ -8,7 +8,7 @@ import { sendMail, type MailResult } from "./send";
 export async function notifyStaffInvitation(db: Knex, a: { person: { name: string; email: string }; token: string; invitedBy: { name: string }; firmId: number; reason: "new" | "reset" }): Promise<MailResult> {
   try {
     const firm = await db("firms").where({ id: a.firmId }).first("name");
-    return await sendMail({ to: a.person, template: "staff-invitation", data: {
+    return await sendMail(db, { to: a.person, template: "staff-invitation", data: {
       recipient: { name: a.person.name }, invitedBy: a.invitedBy, firmName: String(firm?.name ?? "Your firm"), reason: a.reason,
       actionUrl: invitationUrl(a.token), expiresInDays: INVITATION_DAYS,
     } });

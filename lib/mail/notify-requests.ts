@@ -6,7 +6,7 @@ import type { RequestListRow } from "@/lib/requests/lists";
 import { appUrl, clientRequestUrl, invitationUrl } from "./links";
 import { sendMail, type MailResult } from "./send";
 
-// Every notice here is sent after its write has committed and never throws (sendMail logs and reports).
+// Every notice here is queued in the mail outbox after its write has committed and never throws (sendMail logs and reports).
 
 async function engagementRef(db: Knex, engagementId: number) {
   const e = await getEngagementById(db, { engagementId });
@@ -28,7 +28,7 @@ async function safely(what: string, send: () => Promise<MailResult>): Promise<Ma
 export function notifyClientInvitation(db: Knex, a: { engagementId: number; contact: { name: string; email: string }; token: string | null; invitedBy: { name: string }; firmId: number }) {
   return safely(`client-invitation to ${a.contact.email}`, async () => {
     const [engagement, firm] = await Promise.all([engagementRef(db, a.engagementId), db("firms").where({ id: a.firmId }).first("name")]);
-    return sendMail({ to: a.contact, template: "client-invitation", data: {
+    return sendMail(db, { to: a.contact, template: "client-invitation", data: {
       recipient: { name: a.contact.name }, invitedBy: a.invitedBy, firmName: String(firm?.name ?? "Your auditors"), engagement,
       actionUrl: a.token ? invitationUrl(a.token) : appUrl("/sign-in"), needsPassword: Boolean(a.token), expiresInDays: INVITATION_DAYS,
     } });
@@ -36,7 +36,7 @@ export function notifyClientInvitation(db: Knex, a: { engagementId: number; cont
 }
 
 export function notifyRequestListSent(db: Knex, a: { list: RequestListRow; itemCount: number }) {
-  return safely(`request-list-sent to ${a.list.contactEmail}`, async () => sendMail({
+  return safely(`request-list-sent to ${a.list.contactEmail}`, async () => sendMail(db, {
     to: { name: a.list.contactName, email: a.list.contactEmail }, template: "request-list-sent",
     data: { recipient: { name: a.list.contactName }, sentBy: { name: a.list.createdByName }, engagement: await engagementRef(db, a.list.engagementId), title: a.list.title,
       itemCount: a.itemCount, dueDate: a.list.dueDate, message: a.list.message, listUrl: clientRequestUrl(a.list.id) },
@@ -44,7 +44,7 @@ export function notifyRequestListSent(db: Knex, a: { list: RequestListRow; itemC
 }
 
 export function notifyRequestFileReturned(db: Knex, a: { list: RequestListRow; returnedBy: { name: string }; itemRef: string; fileName: string; reason: string }) {
-  return safely(`request-file-returned to ${a.list.contactEmail}`, async () => sendMail({
+  return safely(`request-file-returned to ${a.list.contactEmail}`, async () => sendMail(db, {
     to: { name: a.list.contactName, email: a.list.contactEmail }, template: "request-file-returned",
     data: { recipient: { name: a.list.contactName }, returnedBy: a.returnedBy, engagement: await engagementRef(db, a.list.engagementId), title: a.list.title,
       itemRef: a.itemRef, fileName: a.fileName, reason: a.reason, listUrl: clientRequestUrl(a.list.id) },
@@ -53,7 +53,7 @@ export function notifyRequestFileReturned(db: Knex, a: { list: RequestListRow; r
 
 /** The contact of a list closed by the lock of its sample is told it takes no more files. */
 export function notifyRequestListClosed(db: Knex, a: { list: RequestListRow; reason: string }) {
-  return safely(`request-list-closed to ${a.list.contactEmail}`, async () => sendMail({
+  return safely(`request-list-closed to ${a.list.contactEmail}`, async () => sendMail(db, {
     to: { name: a.list.contactName, email: a.list.contactEmail }, template: "request-list-closed",
     data: { recipient: { name: a.list.contactName }, engagement: await engagementRef(db, a.list.engagementId), title: a.list.title, reason: a.reason, listUrl: clientRequestUrl(a.list.id) },
   }));

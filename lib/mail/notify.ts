@@ -1,4 +1,5 @@
 import "server-only";
+import type { Knex } from "knex";
 import type { EmailTemplateData, EmailTemplateName, SampleEventData } from "@/templates/email";
 import { sampleUrl } from "./links";
 import { sendMail, type MailResult, type Recipient } from "./send";
@@ -37,7 +38,7 @@ function refuse(template: SampleTemplate, notice: SampleNotice, reason: string):
   return audience(notice).map((r) => ({ sent: false, to: r.email, reason }));
 }
 
-async function notifyEach<K extends SampleTemplate>(template: K, notice: SampleNotice, dataFor: (event: SampleEventData) => EmailTemplateData[K]): Promise<MailResult[]> {
+async function notifyEach<K extends SampleTemplate>(db: Knex, template: K, notice: SampleNotice, dataFor: (event: SampleEventData) => EmailTemplateData[K]): Promise<MailResult[]> {
   let link: string;
   try {
     link = notice.sampleUrl ?? sampleUrl(notice.engagement.id, notice.sample.id);
@@ -52,26 +53,26 @@ async function notifyEach<K extends SampleTemplate>(template: K, notice: SampleN
     at: notice.at ?? new Date(),
   };
   return Promise.all(audience(notice).map((to) =>
-    sendMail({ to, template, data: dataFor({ ...event, recipient: { name: to.name } }) })));
+    sendMail(db, { to, template, data: dataFor({ ...event, recipient: { name: to.name } }) })));
 }
 
 /** The preparer sent a sample for review: tell its reviewers. */
-export function notifySampleReadyForReview(notice: SampleNotice): Promise<MailResult[]> {
-  return notifyEach("sample-ready-for-review", notice, (event) => event);
+export function notifySampleReadyForReview(db: Knex, notice: SampleNotice): Promise<MailResult[]> {
+  return notifyEach(db, "sample-ready-for-review", notice, (event) => event);
 }
 
 /** A review note was raised, answered (with the answer's text) or cleared. */
-export function notifyReviewNote(kind: "raised" | "cleared", notice: ReviewNoteNotice): Promise<MailResult[]>;
-export function notifyReviewNote(kind: "answered", notice: ReviewNoteAnsweredNotice): Promise<MailResult[]>;
-export function notifyReviewNote(kind: "raised" | "answered" | "cleared", notice: ReviewNoteNotice | ReviewNoteAnsweredNotice): Promise<MailResult[]> {
+export function notifyReviewNote(db: Knex, kind: "raised" | "cleared", notice: ReviewNoteNotice): Promise<MailResult[]>;
+export function notifyReviewNote(db: Knex, kind: "answered", notice: ReviewNoteAnsweredNotice): Promise<MailResult[]>;
+export function notifyReviewNote(db: Knex, kind: "raised" | "answered" | "cleared", notice: ReviewNoteNotice | ReviewNoteAnsweredNotice): Promise<MailResult[]> {
   if (kind === "answered") {
     if (!("answer" in notice)) return Promise.resolve(refuse("review-note-answered", notice, "answer: an answered review note needs the answer's text"));
-    return notifyEach("review-note-answered", notice, (event) => ({ ...event, note: notice.note, answer: notice.answer }));
+    return notifyEach(db, "review-note-answered", notice, (event) => ({ ...event, note: notice.note, answer: notice.answer }));
   }
-  return notifyEach(`review-note-${kind}`, notice, (event) => ({ ...event, note: notice.note }));
+  return notifyEach(db, `review-note-${kind}`, notice, (event) => ({ ...event, note: notice.note }));
 }
 
 /** A manager or partner locked a sample: tell its team. */
-export function notifySampleLocked(notice: SampleNotice): Promise<MailResult[]> {
-  return notifyEach("sample-locked", notice, (event) => event);
+export function notifySampleLocked(db: Knex, notice: SampleNotice): Promise<MailResult[]> {
+  return notifyEach(db, "sample-locked", notice, (event) => event);
 }

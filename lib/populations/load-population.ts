@@ -2,12 +2,12 @@ import "server-only";
 import type { Knex } from "knex";
 import { getBulkLoadDb, withLoadStream } from "@/db/knex-bulk-load";
 import { recordAudit } from "@/lib/data/audit-log";
-import { finishUpload, type UploadRecord } from "@/lib/data/population-uploads";
+import { completeLeasedLoad, finishUpload, LEASE_RENEW_MS, renewLoadLease, type UploadRecord } from "@/lib/data/population-uploads";
 import { ImportError, LOAD_DATA_COLUMNS, LOAD_DATA_FORMAT_CLAUSE, PopulationImport, formatCents, type PopulationSummary } from "@/lib/imports";
 import { putObjectFromFile } from "@/lib/storage/objects";
 import { AppError, conflict } from "@/lib/errors";
 import type { LoadPopulation } from "@/lib/validation/population";
-import { removeTempFile } from "./upload-files";
+import { withUploadFile } from "./receive-upload";
 
 export type LoadProgress =
   | { phase: "checking"; rowsRead: number; bytesRead: number; totalBytes: number }
@@ -32,31 +32,44 @@ const CONTENT_TYPES = { csv: "text/csv", xlsx: "application/vnd.openxmlformats-o
  * commits only when no row had a problem, the server raised no warning, the row count agrees and
  * the original file is safely in object storage. Anything else rolls back: nothing partial is ever
  * visible, and an abandoned load is rolled back by the server when the connection drops.
- * The caller has claimed the upload (claimUploadForLoading).
+ * The caller has claimed the upload for this server (claimUploadForLoading, lease `holder`); the
+ * lease is renewed while the load runs, and the upload turns loaded in the load's own commit.
+ * The bytes come back from object storage, so the load may run on another server than the upload.
  */
-export async function loadPopulation(db: Knex, args: { upload: UploadRecord; actorId: number; input: LoadPopulation; onProgress: (p: LoadProgress) => void }): Promise<LoadOutcome> {
-  const { upload, actorId, input, onProgress } = args;
-  const run = new PopulationImport(upload.tempPath, upload.inspection, input.mapping, {
+export async function loadPopulation(db: Knex, args: { upload: UploadRecord; actorId: number; input: LoadPopulation; holder: string; onProgress: (p: LoadProgress) => void }): Promise<LoadOutcome> {
+  const { upload, holder } = args;
+  // A lost lease (another server took the upload over) is caught at commit by completeLeasedLoad.
+  const renew = setInterval(() => void renewLoadLease(db, { uploadId: upload.id, holder }).catch(() => undefined), LEASE_RENEW_MS);
+  try {
+    return await withUploadFile(upload, (path) => loadFromFile(db, { ...args, path }));
+  } finally {
+    clearInterval(renew);
+  }
+}
+
+async function loadFromFile(db: Knex, args: { upload: UploadRecord; actorId: number; input: LoadPopulation; holder: string; path: string; onProgress: (p: LoadProgress) => void }): Promise<LoadOutcome> {
+  const { upload, actorId, input, onProgress, holder, path } = args;
+  const run = new PopulationImport(path, upload.inspection, input.mapping, {
     onProgress: (rowsRead, bytesRead, totalBytes) => onProgress({ phase: "checking", rowsRead, bytesRead, totalBytes }),
   });
   try {
-    const populationId = await getBulkLoadDb().transaction((trx) => loadInTransaction(trx, { upload, actorId, input, run, onProgress }));
-    await finishUpload(db, { uploadId: upload.id, status: "loaded" });
-    await removeTempFile(upload.tempPath);
+    const populationId = await getBulkLoadDb().transaction((trx) => loadInTransaction(trx, { upload, actorId, input, run, path, holder, onProgress }));
     const t = run.summary().totals;
     return { ok: true, populationId, rowCount: t.rowCount, total: formatCents(t.totalCents) };
   } catch (err) {
     if (err instanceof RejectedRows) {
       const s = err.summary;
-      await finishUpload(db, { uploadId: upload.id, status: "rejected", problems: s.problems, problemCount: s.problemCount });
+      await finishUpload(db, { uploadId: upload.id, holder, status: "rejected", problems: s.problems, problemCount: s.problemCount });
       return { ok: false, problemCount: s.problemCount, problems: s.problems, problemsTruncated: s.problemsTruncated };
     }
-    await finishUpload(db, { uploadId: upload.id, status: "rejected" });
+    // The load's own error is what the person is told; an upload that could not be marked is released by its lease.
+    await finishUpload(db, { uploadId: upload.id, holder, status: "rejected" })
+      .catch((e: unknown) => console.error(`[sondage] upload ${upload.id}: not marked failed after its load failed (${e instanceof Error ? e.message : String(e)}); its lease releases it`));
     throw err;
   }
 }
 
-async function loadInTransaction(trx: Knex.Transaction, a: { upload: UploadRecord; actorId: number; input: LoadPopulation; run: PopulationImport; onProgress: (p: LoadProgress) => void }) {
+async function loadInTransaction(trx: Knex.Transaction, a: { upload: UploadRecord; actorId: number; input: LoadPopulation; run: PopulationImport; path: string; holder: string; onProgress: (p: LoadProgress) => void }) {
   const { upload, actorId, input, run } = a;
   const objectKey = `engagements/${upload.engagementId}/populations/${upload.sha256}-${upload.id}.${upload.inspection.kind}`;
   const [populationId] = await trx("populations").insert({
@@ -100,7 +113,8 @@ async function loadInTransaction(trx: Knex.Transaction, a: { upload: UploadRecor
     after: { name: input.name, fileName: upload.fileName, sha256: upload.sha256, rowCount: t.rowCount, total: formatCents(t.totalCents), mapping: input.mapping },
   });
   a.onProgress({ phase: "storing-file" });
-  await putObjectFromFile({ key: objectKey, path: upload.tempPath, contentType: CONTENT_TYPES[upload.inspection.kind], size: upload.sizeBytes });
+  await putObjectFromFile({ key: objectKey, path: a.path, contentType: CONTENT_TYPES[upload.inspection.kind], size: upload.sizeBytes });
+  await completeLeasedLoad(trx, { uploadId: upload.id, holder: a.holder });
   a.onProgress({ phase: "committing" });
   return populationId;
 }

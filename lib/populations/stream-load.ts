@@ -6,6 +6,7 @@ import { AppError, isDatabaseUnavailable } from "@/lib/errors";
 import { ImportError } from "@/lib/imports";
 import { loadPopulation, type LoadProgress } from "./load-population";
 import { ndjsonStream } from "@/lib/http/ndjson";
+import { instanceId } from "@/lib/workers/instance-id";
 
 /** How many problems the screen shows; the full list is the downloadable CSV. */
 export const PROBLEMS_ON_SCREEN = 100;
@@ -18,7 +19,8 @@ export type LoadEvent =
 
 /** Runs a load and answers with one JSON line per event: progress (throttled), then the outcome (the browser going away does not stop it). */
 export async function streamPopulationLoad(db: Knex, args: { upload: UploadRecord; actorId: number; input: LoadPopulation }): Promise<Response> {
-  await claimUploadForLoading(db, { uploadId: args.upload.id, userId: args.actorId }); // 409 before any streaming
+  const holder = instanceId();
+  await claimUploadForLoading(db, { uploadId: args.upload.id, userId: args.actorId, holder }); // 409 before any streaming
   return ndjsonStream<LoadEvent>(async (send) => {
     let lastSent = 0;
     const onProgress = (p: LoadProgress) => {
@@ -29,7 +31,7 @@ export async function streamPopulationLoad(db: Knex, args: { upload: UploadRecor
       }
     };
     try {
-      const outcome = await loadPopulation(db, { ...args, onProgress });
+      const outcome = await loadPopulation(db, { ...args, holder, onProgress });
       if (outcome.ok) send({ type: "loaded", populationId: outcome.populationId, rowCount: outcome.rowCount, total: outcome.total });
       else send({ type: "rejected", problemCount: outcome.problemCount, problems: outcome.problems.slice(0, PROBLEMS_ON_SCREEN), problemsTruncated: outcome.problemCount > PROBLEMS_ON_SCREEN });
     } catch (err) {

@@ -70,6 +70,6 @@ export async function runRequestReminders(db: Knex, { today = utcDay() }: { toda
     ...digestBy(lists, (l) => l.contact, (l) => clientRequestUrl(l.id)).map((d) => ({ ...d, audience: "client" as const })),
     ...digestBy(lists, (l) => l.senior, (l) => teamRequestUrl(l.engagementId, l.sampleId, l.id)).map((d) => ({ ...d, audience: "team" as const })),
   ];
-  const messages = await Promise.all(sends.map((d) => sendMail({ to: d.person, template: "request-reminders", data: { recipient: { name: d.person.name }, audience: d.audience, lists: d.lists, today } })));
+  const messages = await Promise.all(sends.map((d) => sendMail(db, { to: d.person, template: "request-reminders", data: { recipient: { name: d.person.name }, audience: d.audience, lists: d.lists, today } })));
   return { lists: lists.length, messages };
 }

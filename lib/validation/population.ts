@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { keysetFields } from "./keyset";
 import { uploadFileName } from "./file-name";
 import { populationMappingSchema } from "./population-mapping";
 import { moneyInput } from "./engagement";
@@ -37,13 +38,19 @@ export type Reconcile = z.output<typeof ReconcileSchema>;
 
 export const ITEM_SORTS = ["row", "ref", "book"] as const;
 
+/**
+ * A page of a population's items. `after` / `before` (cursors from the previous answer) and `last`
+ * page by key; `page` alone (no cursor) is the page number shown, and still seeks by offset for
+ * callers that jump straight to page n.
+ */
 export const ItemsQuerySchema = z.object({
   page: z.coerce.number().int().min(1).default(1),
   pageSize: z.coerce.number().int().min(10).max(200).default(50),
   sort: z.enum(ITEM_SORTS).default("row"),
   dir: z.enum(["asc", "desc"]).default("asc"),
   q: z.string().trim().max(100).optional(),
-});
+  ...keysetFields,
+}).refine((q) => [q.after, q.before, q.last || undefined].filter(Boolean).length <= 1, { path: ["after"], message: "Give one of after, before or last" });
 export type ItemsQuery = z.output<typeof ItemsQuerySchema>;
 
 export const ProfileQuerySchema = z.object({ threshold: moneyInput.optional() });

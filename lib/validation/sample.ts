@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { keysetFields } from "./keyset";
 import { moneyInput } from "./engagement";
 import { signedMoney } from "./population";
 import { MUS_MIN_CONFIDENCE } from "@/lib/sampling/evaluate-mus";
@@ -182,7 +183,8 @@ export const SampleItemsQuerySchema = z.object({
   pageSize: z.coerce.number().int().min(10).max(500).default(50),
   status: z.enum(["all", ...ITEM_STATUSES, "void"]).default("all"),
   q: z.string().trim().max(100).optional(),
-});
+  ...keysetFields,
+}).refine((q) => [q.after, q.before, q.last || undefined].filter(Boolean).length <= 1, { path: ["after"], message: "Give one of after, before or last" });
 
 export const HaphazardPickSchema = z.object({ rowNumber: z.coerce.number({ error: "Give the item's row number" }).int("Give the item's row number").min(1, "Give the item's row number") });
 

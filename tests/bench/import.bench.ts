@@ -9,6 +9,9 @@
  * scratch table with population_items' columns and indexes. Verifies the loaded count and total
  * against totals computed here, and what the database holds.
  * Goals: end to end ≤ 1.5× the raw load, peak server RSS ≤ 600 MB, preview < 2 s after the upload.
+ * Then the same ledger as an .xlsx workbook (support/ledger-xlsx.ts) through the same routes:
+ * goal ≤ 3× the CSV's end-to-end time (median of the CSV runs), with the same count and total.
+ * --xlsx-runs 0 leaves the workbook out.
  * BENCH_NODE_FLAGS="--max-semi-space-size=64" passes flags to the server's node.
  */
 import { mkdirSync, mkdtempSync, rmSync, statSync, writeFileSync } from "node:fs";
@@ -23,10 +26,11 @@ import { mariadb, rawLoad, type MariaDbClient } from "./support/raw-load";
 import { cpuSeconds, mariadbPid } from "./support/cpu-time";
 import { sampleMemory } from "./support/rss-sampler";
 import { formatTable, median } from "./support/stats";
+import { csvToXlsx } from "./support/ledger-xlsx";
 
 const SEED = 20261202;
 const SENIOR = { email: "senior@marrow-quill.example", password: "sondage-demo-2026" };
-const GOALS = { ratio: 1.5, rssMb: 600, previewS: 2 };
+const GOALS = { ratio: 1.5, rssMb: 600, previewS: 2, xlsxToCsv: 3 };
 const MAPPING = { itemRefColumn: "Invoice", bookValueColumn: "Amount", descriptionColumn: "Customer", dateColumn: "Posted", extraColumns: ["Due", "Currency"] };
 
 type LoadEvent =
@@ -191,6 +195,24 @@ async function main(): Promise<void> {
     }
     console.log(`\nSondage import benchmark — Node ${process.version}${nodeFlags.length ? ` (server: node ${nodeFlags.join(" ")})` : ""}, ${runs} run(s), mapping ${JSON.stringify(MAPPING)}`);
     if (!report(results, rows, fileMb)) process.exitCode = 1;
+    const xlsxRuns = argValue("xlsx-runs", 1);
+    if (xlsxRuns > 0) {
+      const xlsx = path.join(dir, "bench-receivables.xlsx");
+      t = performance.now();
+      const written = await csvToXlsx(csv, xlsx);
+      log(`wrote the same ${written.toLocaleString("en-US")} rows as ${path.basename(xlsx)}, ${(statSync(xlsx).size / 1024 / 1024).toFixed(1)} MB (${((performance.now() - t) / 1000).toFixed(1)} s)`);
+      const csvE2e = median(results.map((r) => r.e2eS));
+      const xlsxTimes: number[] = [];
+      for (let i = 1; i <= xlsxRuns; i += 1) {
+        await mariadb(db, "TRUNCATE TABLE population_items");
+        const ours = await importThroughRoutes({ session, engagementId, csv: xlsx, totals, app, db, dbPid, run: runs + i });
+        xlsxTimes.push(ours.e2eS);
+        log(`xlsx run ${i}: end to end ${ours.e2eS.toFixed(2)} s (upload ${ours.uploadS.toFixed(2)} s, preview ${ours.previewS.toFixed(3)} s, load ${ours.loadS.toFixed(2)} s), peak RSS ${ours.peakRssMb.toFixed(0)} MB; count and total verified against the CSV's`);
+      }
+      const ratio = median(xlsxTimes) / csvE2e;
+      console.log(`1,000,000-row ledger, same data: XLSX ${median(xlsxTimes).toFixed(2)} s vs CSV ${csvE2e.toFixed(2)} s end to end → ${ratio.toFixed(2)}× (goal ≤ ${GOALS.xlsxToCsv}×) ${passFail(ratio <= GOALS.xlsxToCsv)}; same count and total: verified`.replace("1,000,000", rows.toLocaleString("en-US")));
+      if (ratio > GOALS.xlsxToCsv) process.exitCode = 1;
+    }
   } finally {
     await cleanUp();
   }

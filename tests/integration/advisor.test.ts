@@ -9,6 +9,7 @@ import * as reconcile from "@/app/api/engagements/[engagementId]/populations/[po
 import * as advisor from "@/app/api/engagements/[engagementId]/samples/[sampleId]/advisor/route";
 import * as advisorRun from "@/app/api/engagements/[engagementId]/samples/[sampleId]/advisor/[runId]/route";
 import * as adopt from "@/app/api/engagements/[engagementId]/samples/[sampleId]/advisor/[runId]/adopt/route";
+import { ADVISOR_HEARTBEAT_SECONDS, requestAdvisorCancel } from "@/lib/data/advisor-runs";
 
 vi.mock("@/lib/auth/session-user", async () => (await import("./support/session")).sessionModule);
 
@@ -96,6 +97,36 @@ describe("estimator advisor API", () => {
     expect((await callRaw(advisorRun.DELETE, "DELETE", { as: senior, params: at(ratioSample, { runId: String(started.runId) }) })).status).toBe(409);
   });
 
+  it("is cancelled from another app server through the flag in the database, which the running server polls", async () => {
+    const res = await callRaw(advisor.POST, "POST", { as: senior, params: at(ratioSample), body: { scenario, sampleSizes: [1000, 2000, 2500], trials: 50000 } });
+    const reader = res.body!.getReader();
+    const decoder = new TextDecoder();
+    let text = "";
+    while (!text.includes("\n")) text += decoder.decode((await reader.read()).value, { stream: true });
+    const runId = JSON.parse(text.split("\n")[0]).runId as number;
+    // What DELETE does on a server that is not running the run: only the flag (no local worker to stop).
+    const askedAt = performance.now();
+    expect(await requestAdvisorCancel(getDb(), { runId })).toBe(true);
+    for (let chunk = await reader.read(); !chunk.done; chunk = await reader.read()) text += decoder.decode(chunk.value, { stream: true });
+    expect(JSON.parse(text.trim().split("\n").at(-1)!)).toEqual({ type: "cancelled", runId });
+    expect(performance.now() - askedAt).toBeLessThan(5_000); // polled every second
+    expect((await getDb()("advisor_runs").where({ id: runId }).first("status"))!.status).toBe("cancelled");
+  });
+
+  it("leaves another live server's run alone when read, and marks one whose heartbeat stopped as interrupted", async () => {
+    const make = async (heartbeatAgo: number) => {
+      const [id] = await getDb()("advisor_runs").insert({
+        engagement_id: engagement, sample_id: ratioSample, population_id: populationId, plan_version: 1, cache_key: "x".repeat(64), request_json: "{}",
+        created_by: senior, server_id: "another-server", heartbeat_at: getDb().raw(`NOW(3) - INTERVAL ${heartbeatAgo} SECOND`),
+      });
+      return (await call(advisorRun.GET, "GET", { as: senior, params: at(ratioSample, { runId: String(id) }) })).json.run;
+    };
+    expect((await make(2)).status).toBe("running");
+    const dead = await make(ADVISOR_HEARTBEAT_SECONDS + 5);
+    expect(dead.status).toBe("failed");
+    expect(dead.error).toMatch(/Interrupted/);
+  });
+
   it("runs at most two simulations at once per server, answering 503 with the reason", async () => {
     const long = { scenario, sampleSizes: [1000, 2000, 2500], trials: 50000 };
     const starts = await Promise.all([0, 1].map(async () => {
@@ -106,7 +137,7 @@ describe("estimator advisor API", () => {
     }));
     const third = await call(advisor.POST, "POST", { as: senior, params: at(ratioSample), body: long });
     expect(third.status).toBe(503);
-    expect(third.json.error.message).toMatch(/already running 2 simulations/);
+    expect(third.json.error.message).toMatch(/already running 2 simulations on this server \(the limit is per app server\)/);
     for (const s of starts) {
       expect((await callRaw(advisorRun.DELETE, "DELETE", { as: senior, params: at(ratioSample, { runId: String(s.runId) }) })).status).toBe(204);
       while (!(await s.reader.read()).done);

@@ -38,6 +38,8 @@ const CLIENT_ROWS: Record<string, number | "skip"> = {
   "POST /api/users/[userId]/password": 403,
   "GET /api/firm/methodology": 403, // firm administrators only
   "PUT /api/firm/methodology": 403,
+  "GET /api/firm/mail-outbox": 403, // firm admins only
+  "GET /api/health": 200, // the load balancer's check, public
   "GET /api/requests": 200,
   "GET /api/requests/[listId]": 200,
   "PATCH /api/requests/[listId]/items/[requestItemId]": 204,

@@ -2,6 +2,7 @@ import { createHash } from "node:crypto";
 import bcrypt from "bcryptjs";
 import { afterAll, beforeAll, beforeEach, describe, expect, it, vi } from "vitest";
 import { getDb } from "@/db/knex";
+import { runMailWorkerDuringTests } from "./support/mail-worker";
 import { runRequestReminders } from "@/lib/requests/reminders";
 import { call, callRaw } from "./support/call";
 import { auditCount, makeEngagement, makeFirm, makeUser } from "./support/factory";
@@ -61,6 +62,9 @@ beforeEach(async () => {
 afterAll(async () => {
   await getDb().destroy();
 });
+
+// Registered after the afterAll above: vitest runs after-hooks in reverse, so the worker stops before the pool closes.
+runMailWorkerDuringTests();
 
 describe("inviting a client contact", () => {
   it("lets a senior invite; the contact gets a one-time link, chooses a password with it, and the link is then spent", async () => {

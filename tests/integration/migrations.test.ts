@@ -20,7 +20,7 @@ describe("migrations", () => {
     await recreateDatabase(NAME);
     db = knex(buildKnexConfig({ ...process.env, DB_NAME: NAME }));
     await db.migrate.latest();
-    expect(await tables(db)).toEqual(["advisor_runs", "audit_log", "engagement_members", "engagements", "firm_methodology", "firms", "item_evidence", "misstatement_corrections", "misstatement_entries", "misstatement_entry_evidence", "misstatement_notes", "misstatement_sample_snapshots", "misstatement_summaries", "population_items", "population_uploads", "populations", "request_files", "request_items", "request_lists", "review_notes", "sample_draws", "sample_items", "samples", "sign_in_attempts", "user_invitations", "users"]);
+    expect(await tables(db)).toEqual(["advisor_runs", "audit_log", "engagement_members", "engagements", "firm_methodology", "firms", "item_evidence", "mail_outbox", "misstatement_corrections", "misstatement_entries", "misstatement_entry_evidence", "misstatement_notes", "misstatement_sample_snapshots", "misstatement_summaries", "population_items", "population_upload_leases", "population_uploads", "populations", "request_files", "request_items", "request_lists", "review_notes", "sample_draws", "sample_items", "samples", "sign_in_attempts", "user_invitations", "users"]);
     await db.migrate.rollback(undefined, true);
     expect(await tables(db)).toEqual([]);
     await db.migrate.latest();

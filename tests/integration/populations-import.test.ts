@@ -6,6 +6,8 @@ import { getDb } from "@/db/knex";
 import { call, callRaw } from "./support/call";
 import { auditCount, makeEngagement, makeFirm, makeUser } from "./support/factory";
 import { populationState, RECEIVABLES_MAPPING, upload, uploadAndLoad } from "./support/populations";
+import { claimUploadForLoading } from "@/lib/data/population-uploads";
+import { timeoutScale } from "./test-env";
 import * as population from "@/app/api/engagements/[engagementId]/populations/[populationId]/route";
 import * as original from "@/app/api/engagements/[engagementId]/populations/[populationId]/original/route";
 import * as problemsCsv from "@/app/api/engagements/[engagementId]/populations/uploads/[uploadId]/problems/route";
@@ -101,16 +103,18 @@ describe("whole-file refusals leave the database as it was", () => {
     expect(r.json.error.message).toMatch(/200 MB/);
   });
 
-  it("refuses a file over 1,000,000 data rows, naming the limit, and stores nothing", async () => {
+  it("refuses a file over 1,000,000 data rows at upload, naming the limit and the row, and stores nothing", async () => {
     const rows = ["Invoice,Amount"];
     for (let i = 1; i <= 1_000_001; i++) rows.push(`R${i},1`);
     const before = await populationState();
-    const { up, loaded } = await uploadAndLoad(senior, engagement, "too-many.csv", rows.join("\n"), { itemRefColumn: "Invoice", bookValueColumn: "Amount" });
-    expect(up.status).toBe(201);
-    expect(loaded?.last).toMatchObject({ type: "error", status: 413 });
-    expect(loaded?.last.message).toMatch(/1,000,000/);
+    const uploadsBefore = await getDb()("population_uploads").count({ n: "*" }).first();
+    const up = await upload(senior, engagement, "too-many.csv", rows.join("\n"));
+    expect(up.status).toBe(413);
+    // The header is row 1, so data row 1,000,001 is the file's row 1,000,002.
+    expect(up.json.error.message).toMatch(/Row 1,000,002 is data row 1,000,001: a population holds at most 1,000,000 data rows/);
     expect(await populationState()).toEqual(before);
-  }, 120_000);
+    expect(await getDb()("population_uploads").count({ n: "*" }).first()).toEqual(uploadsBefore);
+  }, 60_000 * timeoutScale);
 });
 
 describe("row problems store nothing and are listed with row, column and reason", () => {
@@ -171,11 +175,13 @@ describe("who may upload", () => {
 
   it("refuses a second upload while the same person has a load running", async () => {
     const first = await upload(senior, engagement, "first.csv", GOOD_CSV);
-    await getDb()("population_uploads").where({ id: first.json.upload.id }).update({ status: "loading" });
+    // A load running on some app server: the upload claimed, its lease live.
+    await claimUploadForLoading(getDb(), { uploadId: first.json.upload.id, userId: senior, holder: "a-live-server" });
     const second = await upload(senior, engagement, "second.csv", GOOD_CSV);
     expect(second.status).toBe(409);
     expect(second.json.error.message).toMatch(/already have a ledger loading \(first\.csv\)/);
     await getDb()("population_uploads").where({ id: first.json.upload.id }).update({ status: "rejected" });
+    await getDb()("population_upload_leases").where({ upload_id: first.json.upload.id }).del();
   });
 
   it("does not let an upload be loaded on another engagement", async () => {

@@ -5,6 +5,7 @@ import os from "node:os";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { getDb } from "@/db/knex";
+import { runMailWorkerDuringTests } from "./support/mail-worker";
 import { call, callRaw } from "./support/call";
 import { makeEngagement, makeFirm, makeUser } from "./support/factory";
 import { addressedTo, waitForMessage } from "./support/inbox";
@@ -43,6 +44,9 @@ beforeAll(async () => {
 afterAll(async () => {
   await getDb().destroy();
 });
+
+// Registered after the afterAll above: vitest runs after-hooks in reverse, so the worker stops before the pool closes.
+runMailWorkerDuringTests();
 
 async function recordEverything() {
   for (const it of await listSampleItems(staff, engagement, sampleId)) {

@@ -7,6 +7,7 @@ import * as user from "@/app/api/users/[userId]/route";
 import * as password from "@/app/api/users/[userId]/password/route";
 import * as invitation from "@/app/api/invitations/[token]/route";
 import { addressedTo, clearInbox, waitForMessage } from "./support/inbox";
+import { runMailWorkerDuringTests } from "./support/mail-worker";
 import { verifyCredentials } from "@/lib/auth/verify-credentials";
 import { SIGN_IN_LIMITS } from "@/lib/auth/rate-limit";
 
@@ -23,6 +24,7 @@ beforeAll(async () => {
 afterAll(async () => {
   await getDb().destroy();
 });
+runMailWorkerDuringTests(); // after the afterAll above, so the worker stops before the pool is destroyed
 
 describe("user administration", () => {
   it("lets an admin add a person, who is e-mailed a one-time link and chooses their own password (issue 19)", async () => {

@@ -1,10 +1,9 @@
 import type { Knex } from "knex";
 import { HttpSession } from "../support/http-session";
-import type { PrivateMariaDb } from "../support/private-db";
 import { SaveTracker, verifySaves, type Verification } from "./saves";
 
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
-type LoadEvent = { type: string; status?: number; message?: string; populationId?: number; rowCount?: number };
+export type LoadEvent = { type: string; status?: number; message?: string; populationId?: number; rowCount?: number; phase?: string; rowsRead?: number };
 
 /** Starts a load and returns its events as they come, and a promise of the last one (or the transport error). */
 export function startLoad(session: HttpSession, base: string, uploadId: number, name: string) {
@@ -50,11 +49,14 @@ export async function maxPopulationId(db: Knex): Promise<number> {
   return Number(r.m ?? 0);
 }
 
+/** A database server the fault runs can kill (SIGKILL) and start again: the private server, or one Galera node. */
+export interface KillableDatabase { kill(): Promise<void>; start(): Promise<void> }
+
 /**
  * 50 save loops on one sample for `totalMs`; the database is SIGKILLed at `killAtMs` and started
  * again at `restartAtMs`. Every answer is counted; the acknowledged saves are verified afterwards.
  */
-export async function burstWithKill(a: { sessions: HttpSession[]; base: string; sampleId: number; items: { id: number; version: number }[]; dbServer: PrivateMariaDb; db: () => Knex; totalMs: number; killAtMs: number; restartAtMs: number }) {
+export async function burstWithKill(a: { sessions: HttpSession[]; base: string; sampleId: number; items: { id: number; version: number }[]; dbServer: KillableDatabase; db: () => Knex; totalMs: number; killAtMs: number; restartAtMs: number }) {
   const tracker = new SaveTracker(a.items);
   const initial = new Map(a.items.map((i) => [i.id, i.version]));
   const start = performance.now();
@@ -85,7 +87,8 @@ export async function burstWithKill(a: { sessions: HttpSession[]; base: string; 
     }
   }));
   await killer;
-  const verification: Verification = await verifySaves(a.db(), { sampleId: a.sampleId, initial, acks: tracker.ledger.acks });
+  const db = a.db();
+  const verification: Verification = await verifySaves(db, { sampleId: a.sampleId, initial, acks: tracker.ledger.acks }).finally(() => db.destroy());
   slowDuringOutage.sort((x, y) => x - y);
   return { ledger: tracker.ledger, verification, networkErrors, firstUnavailableMs, firstOkAfterRestartMs, outageAnswerP50: slowDuringOutage[Math.floor(slowDuringOutage.length / 2)] ?? Number.NaN };
 }

@@ -9,7 +9,10 @@ export const BENCH = {
   appPort: 3200,
   // Not 4699: the e2e storage fake of E2E_SLOT=1 listens there (playwright.config.ts: 4689 + 10·slot).
   s3Port: Number(process.env.BENCH_S3_PORT ?? 4694),
-  distDir: ".next-bench",
+  // Mail fakes of its own too: the demo (npm start) holds 2525/2580, and integration/e2e slots use 2535–2725 (+10 per slot)
+  smtpPort: Number(process.env.BENCH_SMTP_PORT ?? 2894),
+  inboxPort: Number(process.env.BENCH_INBOX_PORT ?? 2898),
+  distDir: process.env.NEXT_DIST_DIR ?? ".next-bench",
   uploadDir: ".data/uploads-bench",
   fakesData: "fakes-bench",
   bucket: "sondage-bench",
@@ -27,6 +30,9 @@ export function benchEnv(extra: Record<string, string> = {}): NodeJS.ProcessEnv 
     NEXT_DIST_DIR: BENCH.distDir,
     S3_ENDPOINT: `http://127.0.0.1:${BENCH.s3Port}`,
     S3_BUCKET: BENCH.bucket,
+    SMTP_HOST: "127.0.0.1",
+    SMTP_PORT: String(BENCH.smtpPort),
+    MAIL_INBOX_PORT: String(BENCH.inboxPort),
     UPLOAD_DIR: BENCH.uploadDir,
     FAKES_DATA: BENCH.fakesData,
     ...extra,
@@ -97,6 +103,8 @@ async function assertPortFree(port: number, what: string): Promise<void> {
 /** Starts the storage fake and `next start` (node directly, so its pid is the server's). */
 export async function startApp(logPath: string, nodeFlags: string[]): Promise<RunningApp> {
   await assertPortFree(BENCH.s3Port, "storage fake");
+  await assertPortFree(BENCH.smtpPort, "mail fake");
+  await assertPortFree(BENCH.inboxPort, "mail inbox");
   await assertPortFree(BENCH.appPort, "app");
   const env = benchEnv();
   const fakes = startService("storage fake", path.join(ROOT, "node_modules/.bin/tsx"), ["lib/fakes/run-fakes.ts"], env, logPath);

@@ -9,11 +9,12 @@ import { ROOT, run, startService, type Service } from "./processes";
  * runs them (binary log off is the only change: durability, innodb_flush_log_at_trx_commit=1, kept).
  */
 export class PrivateMariaDb {
-  readonly dataDir = path.join(ROOT, ".data/mariadb-load");
-  readonly socket = path.join(this.dataDir, "mariadbd.sock");
+  readonly socket: string;
   private service: Service | null = null;
 
-  constructor(readonly port: number, private readonly logPath: string) {}
+  constructor(readonly port: number, private readonly logPath: string, readonly dataDir = path.join(ROOT, ".data/mariadb-load")) {
+    this.socket = path.join(dataDir, "mariadbd.sock");
+  }
 
   private client(args: string[], input?: string) {
     return run("mariadb", ["--no-defaults", `--socket=${this.socket}`, "-uroot", ...args], process.env, input);

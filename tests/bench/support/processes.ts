@@ -18,8 +18,10 @@ export interface Service {
 export function startService(name: string, command: string, args: string[], env: NodeJS.ProcessEnv, logPath: string): Service {
   const log = createWriteStream(logPath, { flags: "a" });
   const child = spawn(command, args, { cwd: ROOT, env, stdio: ["ignore", "pipe", "pipe"], detached: true });
-  child.stdout?.pipe(log);
-  child.stderr?.pipe(log);
+  // end: false — a killed server's helpers (a Galera node's state-transfer scripts) may still write
+  // to stderr after stdout has closed; ending the log then would crash the harness.
+  child.stdout?.pipe(log, { end: false });
+  child.stderr?.pipe(log, { end: false });
   if (child.pid === undefined) throw new Error(`${name}: could not start ${command}`);
   const exited = once(child, "exit").then(([code]) => code as number | null);
   return { name, child, pid: child.pid, exited };

@@ -59,6 +59,8 @@ export const ROUTE_MATRIX: MatrixRow[] = [
   { route: "PUT /api/firm/methodology", expect: firmAdmin(400) },
   { route: "PATCH /api/users/[userId]", expect: firmAdmin(400) },
   { route: "POST /api/users/[userId]/password", expect: firmAdmin(400) },
+  { route: "GET /api/firm/mail-outbox", expect: firmAdmin(200) },
+  { route: "GET /api/health", expect: everyone(200) },
 
   // The client's side (issue 9): a client contact's own request lists; nothing here exists for the probe's list id.
   // Everyone signed in may ask for "my request lists" (an auditor has none); a list id not addressed to the caller is 404 to all.
