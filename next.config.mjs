@@ -9,7 +9,17 @@ export const COMMON_SECURITY_HEADERS = [
 
 /** @type {import('next').NextConfig} */
 const nextConfig = {
-  serverExternalPackages: ["knex", "mysql2", "@react-pdf/renderer", "exceljs", "bcryptjs", "@aws-sdk/client-s3", "nodemailer", "papaparse", "iconv-lite"],
+  serverExternalPackages: [
+    "knex",
+    "mysql2",
+    "@react-pdf/renderer",
+    "exceljs",
+    "bcryptjs",
+    "@aws-sdk/client-s3",
+    "nodemailer",
+    "papaparse",
+    "iconv-lite",
+  ],
   // NEXT_DIST_DIR lets parallel builds (e.g. a benchmark) use their own output folder.
   distDir: process.env.NEXT_DIST_DIR ?? ".next",
   poweredByHeader: false,
@@ -19,7 +29,10 @@ const nextConfig = {
     return [
       { source: "/:path*", headers: COMMON_SECURITY_HEADERS },
       // API answers are data, never documents: nothing to run, nothing to frame.
-      { source: "/api/:path*", headers: [{ key: "Content-Security-Policy", value: "default-src 'none'; frame-ancestors 'none'; sandbox" }] },
+      {
+        source: "/api/:path*",
+        headers: [{ key: "Content-Security-Policy", value: "default-src 'none'; frame-ancestors 'none'; sandbox" }],
+      },
     ];
   },
   experimental: { serverActions: { bodySizeLimit: "2mb" } },

@@ -12,7 +12,6 @@ const isPublicPage = (pathname: string) => pathname === "/sign-in" || pathname.s
  * writes in lib/auth/with-role.ts instead. Authorisation itself happens in every handler and page.
  */
 export async function proxy(req: NextRequest) {
-
   const nonce = Buffer.from(crypto.randomUUID()).toString("base64");
   const csp = pageContentSecurityPolicy(nonce, { dev: process.env.NODE_ENV === "development" });
   const isPublic = isPublicPage(req.nextUrl.pathname);

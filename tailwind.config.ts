@@ -18,8 +18,14 @@ export default {
         slate: { 50: "#f0f3f7", 100: "#dfe5ee", 500: "#5a6b85", 700: "#37445a" },
         // Chart series that the palette above has no colour for (the advisor's estimators), and chart rules.
         chart: {
-          "mean-per-unit": "#55606e", regression: "#6b4f9e", "hartley-ross": "#2f6f8f", "jackknife-ratio": "#8a6d1f",
-          "beale-ratio": "#a0522d", "tin-ratio": "#4d7a6a", grid: "#e6e1d5", truth: "#1f2328",
+          "mean-per-unit": "#55606e",
+          regression: "#6b4f9e",
+          "hartley-ross": "#2f6f8f",
+          "jackknife-ratio": "#8a6d1f",
+          "beale-ratio": "#a0522d",
+          "tin-ratio": "#4d7a6a",
+          grid: "#e6e1d5",
+          truth: "#1f2328",
         },
       },
       borderRadius: { card: "10px" },

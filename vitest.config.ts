@@ -2,7 +2,10 @@ import { defineConfig } from "vitest/config";
 import path from "node:path";
 import { timeoutScale } from "./tests/integration/test-env";
 
-const alias = { "@": import.meta.dirname, "server-only": path.join(import.meta.dirname, "tests/support/server-only-stub.ts") };
+const alias = {
+  "@": import.meta.dirname,
+  "server-only": path.join(import.meta.dirname, "tests/support/server-only-stub.ts"),
+};
 
 export default defineConfig({
   resolve: { alias },

@@ -8,7 +8,11 @@ import { buildKnexConfig } from "./knex-config";
 let currentStream: (() => Readable) | null = null;
 
 function refuse(): Readable {
-  return new Readable({ read() { this.destroy(new Error("LOAD DATA LOCAL refused: no upload is being loaded")); } });
+  return new Readable({
+    read() {
+      this.destroy(new Error("LOAD DATA LOCAL refused: no upload is being loaded"));
+    },
+  });
 }
 
 const globalForBulk = globalThis as unknown as { sondageBulkDb?: Knex };
@@ -19,7 +23,11 @@ export function getBulkLoadDb(): Knex {
     globalForBulk.sondageBulkDb = knex({
       ...config,
       // mysql2 reads infileStreamFactory from its connection options; knex's types do not list it.
-      connection: { ...(config.connection as object), flags: "+LOCAL_FILES", infileStreamFactory: () => (currentStream ?? refuse)() } as unknown as Knex.MySql2ConnectionConfig,
+      connection: {
+        ...(config.connection as object),
+        flags: "+LOCAL_FILES",
+        infileStreamFactory: () => (currentStream ?? refuse)(),
+      } as unknown as Knex.MySql2ConnectionConfig,
       pool: { min: 0, max: 1 },
       // Loads queue for the one connection: wait as long as a load may run (maxDuration 600 s).
       acquireConnectionTimeout: 600_000,

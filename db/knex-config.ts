@@ -16,7 +16,8 @@ export function buildKnexConfig(env: NodeJS.ProcessEnv = process.env): Knex.Conf
       charset: "utf8mb4",
       timezone: "Z",
       // Calendar dates (period ends) stay "YYYY-MM-DD" strings; timestamps become Dates (UTC).
-      typeCast: (field: { type: string; string(): string | null }, next: () => unknown) => (field.type === "DATE" ? field.string() : next()),
+      typeCast: (field: { type: string; string(): string | null }, next: () => unknown) =>
+        field.type === "DATE" ? field.string() : next(),
       supportBigNumbers: true,
       bigNumberStrings: true,
     },

@@ -9,7 +9,9 @@ async function main() {
   const db = knex(buildKnexConfig());
   try {
     const result = await seedDemo(db);
-    console.log(result === "seeded" ? "seed: demo firm, clients and people loaded" : "seed: data already present, left alone");
+    console.log(
+      result === "seeded" ? "seed: demo firm, clients and people loaded" : "seed: data already present, left alone",
+    );
   } finally {
     await db.destroy();
   }

@@ -14,7 +14,10 @@ export class AppError extends Error {
   }
 
   toResponse(): Response {
-    return Response.json({ error: { code: this.code, message: this.message, fields: this.fields } }, { status: this.status });
+    return Response.json(
+      { error: { code: this.code, message: this.message, fields: this.fields } },
+      { status: this.status },
+    );
   }
 }
 
@@ -30,43 +33,69 @@ export function validationError(error: z.ZodError): AppError {
     const key = issue.path.length ? issue.path.join(".") : "(body)";
     (fields[key] ??= []).push(issue.message);
   }
-  const summary = Object.entries(fields).map(([field, messages]) => `${field}: ${messages[0]}`).join("; ");
+  const summary = Object.entries(fields)
+    .map(([field, messages]) => `${field}: ${messages[0]}`)
+    .join("; ");
   return new AppError(400, "invalid_input", `Invalid input — ${summary}`, fields);
 }
 
 // mysql2 codes meaning the database server cannot be reached or went away mid-request. Socket
 // codes count only on mysql2's own fatal errors (an S3 or SMTP socket reset is not the database).
-const DATABASE_DOWN_CODES = new Set(["PROTOCOL_CONNECTION_LOST", "ER_SERVER_SHUTDOWN", "ER_CON_COUNT_ERROR", "ER_SERVER_GONE_ERROR", "CR_SERVER_LOST", "CR_CONNECTION_ERROR"]);
+const DATABASE_DOWN_CODES = new Set([
+  "PROTOCOL_CONNECTION_LOST",
+  "ER_SERVER_SHUTDOWN",
+  "ER_CON_COUNT_ERROR",
+  "ER_SERVER_GONE_ERROR",
+  "CR_SERVER_LOST",
+  "CR_CONNECTION_ERROR",
+]);
 const SOCKET_CODES = new Set(["ECONNREFUSED", "ECONNRESET", "EPIPE", "ETIMEDOUT", "EHOSTUNREACH"]);
 
 /** True when an error says the database is unreachable (not that a query was wrong). */
 export function isDatabaseUnavailable(err: unknown): boolean {
   for (let e: unknown = err, depth = 0; e && depth < 4; depth++) {
     const { code, fatal, name } = e as { code?: unknown; fatal?: unknown; name?: unknown };
-    if (typeof code === "string" && (DATABASE_DOWN_CODES.has(code) || (fatal === true && SOCKET_CODES.has(code)))) return true;
+    if (typeof code === "string" && (DATABASE_DOWN_CODES.has(code) || (fatal === true && SOCKET_CODES.has(code))))
+      return true;
     if (name === "KnexTimeoutError") return true; // no connection could be had from the pool in time
     // A Galera node that is not in the primary component, or still catching up after a restart, answers 1047.
     if ((e as { errno?: unknown }).errno === 1047 && /WSREP/i.test(e instanceof Error ? e.message : "")) return true;
     const message = e instanceof Error ? e.message : "";
-    if (/Connection lost: The server closed the connection|Can't add new command when connection is in closed state/.test(message)) return true;
+    if (
+      /Connection lost: The server closed the connection|Can't add new command when connection is in closed state/.test(
+        message,
+      )
+    )
+      return true;
     e = (e as { cause?: unknown }).cause;
   }
   return false;
 }
 
 export const databaseUnavailable = () =>
-  new AppError(503, "database_unavailable", "The database is not answering just now, so nothing was saved. Try again in a minute; if it goes on, tell your firm's administrator.");
+  new AppError(
+    503,
+    "database_unavailable",
+    "The database is not answering just now, so nothing was saved. Try again in a minute; if it goes on, tell your firm's administrator.",
+  );
 
 /** Turns anything thrown in a handler into a Response; unexpected errors are logged, never echoed. */
 export function errorToResponse(err: unknown): Response {
   if (err instanceof AppError) return err.toResponse();
   const code = (err as { code?: unknown } | null)?.code;
   if (code === "ER_LOCK_DEADLOCK" || code === "ER_LOCK_WAIT_TIMEOUT") {
-    return new AppError(409, "busy", "Someone else was saving a change to the same record at the same moment; nothing of yours was saved. Try again.").toResponse();
+    return new AppError(
+      409,
+      "busy",
+      "Someone else was saving a change to the same record at the same moment; nothing of yours was saved. Try again.",
+    ).toResponse();
   }
   if (isDatabaseUnavailable(err)) {
     console.error("[sondage] database unavailable", (err as { code?: string }).code ?? (err as Error).message);
-    return new Response(databaseUnavailable().toResponse().body, { status: 503, headers: { "content-type": "application/json", "retry-after": "30" } });
+    return new Response(databaseUnavailable().toResponse().body, {
+      status: 503,
+      headers: { "content-type": "application/json", "retry-after": "30" },
+    });
   }
   if (err instanceof z.ZodError) return validationError(err).toResponse();
   if (err instanceof EngineInputError) return engineInputError(err).toResponse();

@@ -6,7 +6,10 @@ declare module "jstat" {
   }
   export const jStat: {
     normal: { inv(p: number, mean: number, sd: number): number; cdf(x: number, mean: number, sd: number): number };
-    gamma: { inv(p: number, shape: number, scale: number): number; cdf(x: number, shape: number, scale: number): number };
+    gamma: {
+      inv(p: number, shape: number, scale: number): number;
+      cdf(x: number, shape: number, scale: number): number;
+    };
     beta: { inv(p: number, a: number, b: number): number; cdf(x: number, a: number, b: number): number };
     binomial: { cdf(k: number, n: number, p: number): number; pdf(k: number, n: number, p: number): number };
     studentt: Distribution;

@@ -13,7 +13,9 @@ export default async function WorkspaceLayout({ children }: { children: React.Re
       {/* A page that marks itself data-wide (the sample workspace) gets the width its grid needs. */}
       <main className="mx-auto w-full max-w-6xl flex-1 px-6 py-8 has-[[data-wide]]:max-w-[120rem]">{children}</main>
       <footer className="border-t border-ink-line">
-        <div className="mx-auto max-w-6xl px-6 py-4"><JudgementNote /></div>
+        <div className="mx-auto max-w-6xl px-6 py-4">
+          <JudgementNote />
+        </div>
       </footer>
     </div>
   );

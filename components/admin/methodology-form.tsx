@@ -196,10 +196,7 @@ export function MethodologyForm({ initial }: { initial: MethodologyVersion }) {
             </Select>
           </Field>
           <Field label="Hypergeometric attribute plans below (items)" error={errors.hypergeometricBelow?.message}>
-            <Input
-              type="number"
-              {...register("hypergeometricBelow", num)}
-            />
+            <Input type="number" {...register("hypergeometricBelow", num)} />
           </Field>
         </div>
         <table className="mt-2 text-sm" aria-label="Control frequency table">
@@ -249,18 +246,13 @@ export function MethodologyForm({ initial }: { initial: MethodologyVersion }) {
             error={errors.nonstatistical?.expectedMisstatementAdjustment?.message}
             hint="The Guide's formula ignores it (and warns when EM > 0); some firms divide by TM − EM instead"
           >
-            <Select
-              {...register("nonstatistical.expectedMisstatementAdjustment")}
-            >
+            <Select {...register("nonstatistical.expectedMisstatementAdjustment")}>
               <option value="none">None (warn when EM &gt; 0)</option>
               <option value="subtract-from-tolerable">Subtract it from tolerable misstatement</option>
             </Select>
           </Field>
           <Field label="Minimum nonstatistical sample size" error={errors.nonstatistical?.minimumSampleSize?.message}>
-            <Input
-              type="number"
-              {...register("nonstatistical.minimumSampleSize", num)}
-            />
+            <Input type="number" {...register("nonstatistical.minimumSampleSize", num)} />
           </Field>
           <Field
             label="“Well below” tolerable misstatement means"
@@ -276,11 +268,7 @@ export function MethodologyForm({ initial }: { initial: MethodologyVersion }) {
             error={errors.nonstatistical?.wellBelowShare?.message}
             hint="Used only with the share basis, e.g. 0.5"
           >
-            <Input
-              type="number"
-              step="0.01"
-              {...register("nonstatistical.wellBelowShare", num)}
-            />
+            <Input type="number" step="0.01" {...register("nonstatistical.wellBelowShare", num)} />
           </Field>
         </div>
         <label className="mt-2 flex items-start gap-2 text-sm">

@@ -21,16 +21,32 @@ export function EstimateZoom({ cells, truth }: { cells: AdvisorCell[]; truth: nu
     <div className="mt-3 grid gap-3 sm:grid-cols-3">
       <fieldset className="text-sm">
         <legend className="mb-1 font-medium text-ink">Zoom on one estimator</legend>
-        <p className="mb-2 text-xs text-ink-soft">Its own scale: the dashed line is the true audited total, the solid line its mean estimate — the gap is the bias, the width the spread.</p>
+        <p className="mb-2 text-xs text-ink-soft">
+          Its own scale: the dashed line is the true audited total, the solid line its mean estimate — the gap is the
+          bias, the width the spread.
+        </p>
         {cells.map((c) => (
           <label key={c.estimator} className="flex items-center gap-2 py-0.5">
-            <input type="radio" name="zoom-estimator" value={c.estimator} checked={c.estimator === cell.estimator} onChange={() => setChosen(c.estimator)} />
+            <input
+              type="radio"
+              name="zoom-estimator"
+              value={c.estimator}
+              checked={c.estimator === cell.estimator}
+              onChange={() => setChosen(c.estimator)}
+            />
             {ADVISED_ESTIMATOR_LABELS[c.estimator]}
           </label>
         ))}
       </fieldset>
       <div className="sm:col-span-2" data-testid="estimate-zoom">
-        <EstimateHistogram estimator={cell.estimator} bins={bins} truth={truth} from={from - pad} to={to + pad} mean={mean} />
+        <EstimateHistogram
+          estimator={cell.estimator}
+          bins={bins}
+          truth={truth}
+          from={from - pad}
+          to={to + pad}
+          mean={mean}
+        />
       </div>
     </div>
   );

@@ -13,13 +13,21 @@ type Form = z.input<typeof SignInSchema>;
 
 export function SignInForm({ callbackUrl }: { callbackUrl: string }) {
   const [failure, setFailure] = useState<string | null>(null);
-  const { register, handleSubmit, formState: { errors, isSubmitting } } = useForm<Form, unknown, z.output<typeof SignInSchema>>({ resolver: zodResolver(SignInSchema) });
+  const {
+    register,
+    handleSubmit,
+    formState: { errors, isSubmitting },
+  } = useForm<Form, unknown, z.output<typeof SignInSchema>>({ resolver: zodResolver(SignInSchema) });
 
   const onSubmit = handleSubmit(async (values) => {
     setFailure(null);
     const result = await signIn("credentials", { ...values, redirect: false });
     if (!result || result.error) {
-      setFailure(result?.error && result.error !== "CredentialsSignin" ? result.error : "That e-mail and password do not match an account.");
+      setFailure(
+        result?.error && result.error !== "CredentialsSignin"
+          ? result.error
+          : "That e-mail and password do not match an account.",
+      );
       return;
     }
     window.location.assign(callbackUrl);
@@ -34,7 +42,9 @@ export function SignInForm({ callbackUrl }: { callbackUrl: string }) {
       <Field label="Password" error={errors.password?.message}>
         <Input type="password" autoComplete="current-password" {...register("password")} />
       </Field>
-      <Button type="submit" className="w-full" disabled={isSubmitting}>{isSubmitting ? "Signing in…" : "Sign in"}</Button>
+      <Button type="submit" className="w-full" disabled={isSubmitting}>
+        {isSubmitting ? "Signing in…" : "Sign in"}
+      </Button>
     </form>
   );
 }

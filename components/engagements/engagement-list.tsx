@@ -13,7 +13,8 @@ import { formatDate } from "@/lib/format/date";
 
 const columns: ColumnDef<EngagementForUser, unknown>[] = [
   {
-    accessorKey: "clientName", header: "Client",
+    accessorKey: "clientName",
+    header: "Client",
     cell: ({ row }) => (
       <Link href={`/engagements/${row.original.id}`} className="font-medium text-ink hover:text-ledger-600 link">
         {row.original.clientName}
@@ -21,15 +22,34 @@ const columns: ColumnDef<EngagementForUser, unknown>[] = [
       </Link>
     ),
   },
-  { accessorKey: "periodEnd", header: "Period end", cell: ({ getValue }) => <span className="whitespace-nowrap">{formatDate(String(getValue()))}</span> },
   {
-    accessorKey: "performanceMateriality", header: "Performance materiality", meta: { align: "right" },
+    accessorKey: "periodEnd",
+    header: "Period end",
+    cell: ({ getValue }) => <span className="whitespace-nowrap">{formatDate(String(getValue()))}</span>,
+  },
+  {
+    accessorKey: "performanceMateriality",
+    header: "Performance materiality",
+    meta: { align: "right" },
     sortingFn: (a, b) => Number(a.original.performanceMateriality) - Number(b.original.performanceMateriality),
     cell: ({ row }) => <Amount value={row.original.performanceMateriality} currency={row.original.currency} />,
   },
-  { accessorKey: "status", header: "Status", cell: ({ row }) => <Badge tone={statusTone(row.original.status)}>{STATUS_LABELS[row.original.status]}</Badge> },
-  { accessorKey: "myRole", header: "Your role", cell: ({ getValue }) => <span className="capitalize">{String(getValue())}</span> },
-  { accessorKey: "teamSize", header: "Team", meta: { align: "right" }, cell: ({ getValue }) => <span className="figures">{String(getValue())}</span> },
+  {
+    accessorKey: "status",
+    header: "Status",
+    cell: ({ row }) => <Badge tone={statusTone(row.original.status)}>{STATUS_LABELS[row.original.status]}</Badge>,
+  },
+  {
+    accessorKey: "myRole",
+    header: "Your role",
+    cell: ({ getValue }) => <span className="capitalize">{String(getValue())}</span>,
+  },
+  {
+    accessorKey: "teamSize",
+    header: "Team",
+    meta: { align: "right" },
+    cell: ({ getValue }) => <span className="figures">{String(getValue())}</span>,
+  },
 ];
 
 export function EngagementList() {
@@ -39,8 +59,15 @@ export function EngagementList() {
   if (!data) return <div aria-busy="true" className="h-40 animate-pulse rounded-card bg-paper-sunk" />;
   return (
     <DataTable
-      data={data} columns={columns} label="Engagements" filterPlaceholder="Filter by client, period, status…"
-      empty={<EmptyState title="You are not on any engagement yet">A manager or partner adds you to an engagement&rsquo;s team.</EmptyState>}
+      data={data}
+      columns={columns}
+      label="Engagements"
+      filterPlaceholder="Filter by client, period, status…"
+      empty={
+        <EmptyState title="You are not on any engagement yet">
+          A manager or partner adds you to an engagement&rsquo;s team.
+        </EmptyState>
+      }
     />
   );
 }

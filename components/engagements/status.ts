@@ -1,7 +1,10 @@
 import type { EngagementRecord } from "@/lib/data/engagements";
 
 export const STATUS_LABELS: Record<EngagementRecord["status"], string> = {
-  planning: "Planning", fieldwork: "Fieldwork", completion: "Completion", archived: "Archived",
+  planning: "Planning",
+  fieldwork: "Fieldwork",
+  completion: "Completion",
+  archived: "Archived",
 };
 
 export function statusTone(status: EngagementRecord["status"]) {

@@ -12,20 +12,60 @@ export function SettingsForm({ engagementId, materiality }: { engagementId: numb
   const [trivial, setTrivial] = useState(materiality.clearlyTrivial);
   const [share, setShare] = useState(String(Math.round(materiality.approachingShare * 10000) / 100));
   const [errors, setErrors] = useState<Record<string, string>>({});
-  const save = () => void act("/settings", { method: "PUT", body: { clearlyTrivial: trivial, approachingShare: Number(share) / 100 } }, "Thresholds saved.", (err) => {
-    const fields = (err as { fields?: Record<string, string[]> }).fields ?? {};
-    setErrors(Object.fromEntries(Object.entries(fields).map(([k, v]) => [k, v[0]])));
-  });
+  const save = () =>
+    void act(
+      "/settings",
+      { method: "PUT", body: { clearlyTrivial: trivial, approachingShare: Number(share) / 100 } },
+      "Thresholds saved.",
+      (err) => {
+        const fields = (err as { fields?: Record<string, string[]> }).fields ?? {};
+        setErrors(Object.fromEntries(Object.entries(fields).map(([k, v]) => [k, v[0]])));
+      },
+    );
   return (
-    <form onSubmit={(e) => { e.preventDefault(); setErrors({}); save(); }} className="grid gap-x-6 sm:grid-cols-[1fr_1fr_auto] sm:items-start" aria-label="Thresholds">
-      {message && <div className="sm:col-span-3"><Alert tone={message.tone}>{message.text}</Alert></div>}
-      <Field label="Clearly trivial threshold" error={errors.clearlyTrivial} hint="Entries below it are listed but not accumulated (AU-C 450 / ISA 450).">
-        <Input inputMode="decimal" className="figures text-right" value={trivial} onChange={(e) => setTrivial(e.target.value)} />
+    <form
+      onSubmit={(e) => {
+        e.preventDefault();
+        setErrors({});
+        save();
+      }}
+      className="grid gap-x-6 sm:grid-cols-[1fr_1fr_auto] sm:items-start"
+      aria-label="Thresholds"
+    >
+      {message && (
+        <div className="sm:col-span-3">
+          <Alert tone={message.tone}>{message.text}</Alert>
+        </div>
+      )}
+      <Field
+        label="Clearly trivial threshold"
+        error={errors.clearlyTrivial}
+        hint="Entries below it are listed but not accumulated (AU-C 450 / ISA 450)."
+      >
+        <Input
+          inputMode="decimal"
+          className="figures text-right"
+          value={trivial}
+          onChange={(e) => setTrivial(e.target.value)}
+        />
       </Field>
-      <Field label="Approaching above (% of performance materiality)" error={errors.approachingShare} hint="Default 75 % (common practice).">
-        <Input inputMode="decimal" className="figures text-right" value={share} onChange={(e) => setShare(e.target.value)} />
+      <Field
+        label="Approaching above (% of performance materiality)"
+        error={errors.approachingShare}
+        hint="Default 75 % (common practice)."
+      >
+        <Input
+          inputMode="decimal"
+          className="figures text-right"
+          value={share}
+          onChange={(e) => setShare(e.target.value)}
+        />
       </Field>
-      <div className="pt-6"><Button type="submit" variant="secondary" disabled={busy}>Save thresholds</Button></div>
+      <div className="pt-6">
+        <Button type="submit" variant="secondary" disabled={busy}>
+          Save thresholds
+        </Button>
+      </div>
     </form>
   );
 }

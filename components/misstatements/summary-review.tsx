@@ -23,57 +23,179 @@ export function SummaryReview({ view, role }: { view: SummaryView; role: Engagem
   const line = (label: string, s: SummaryView["review"]["preparer"]) => (
     <div className="flex items-baseline justify-between gap-4 border-b border-ink-line/60 py-2 text-sm">
       <span className="text-ink-soft">{label}</span>
-      {s ? <span><span className="font-medium">{s.name}</span> <span className="text-ink-faint">· {s.role} · {when(s.at)}</span></span> : <span className="text-ink-faint">not signed</span>}
+      {s ? (
+        <span>
+          <span className="font-medium">{s.name}</span>{" "}
+          <span className="text-ink-faint">
+            · {s.role} · {when(s.at)}
+          </span>
+        </span>
+      ) : (
+        <span className="text-ink-faint">not signed</span>
+      )}
     </div>
   );
   const unlock = () => {
     const reason = window.prompt("Why must the locked summary change? (kept in the audit trail)");
-    if (reason) void act("/unlock", { body: { reason } }, "Unlocked. The reviewer sign-off was cleared; the earlier workpaper stays on record.");
+    if (reason)
+      void act(
+        "/unlock",
+        { body: { reason } },
+        "Unlocked. The reviewer sign-off was cleared; the earlier workpaper stays on record.",
+      );
   };
   return (
-    <Card title="Review and sign-off" action={locked ? <Badge tone="green">Locked — final</Badge> : r.reviewer ? <Badge tone="blue">Reviewed</Badge> : r.preparer ? <Badge tone="amber">Awaiting review</Badge> : <Badge>In preparation</Badge>}>
+    <Card
+      title="Review and sign-off"
+      action={
+        locked ? (
+          <Badge tone="green">Locked — final</Badge>
+        ) : r.reviewer ? (
+          <Badge tone="blue">Reviewed</Badge>
+        ) : r.preparer ? (
+          <Badge tone="amber">Awaiting review</Badge>
+        ) : (
+          <Badge>In preparation</Badge>
+        )
+      }
+    >
       <div className="space-y-4">
         {message && <Alert tone={message.tone}>{message.text}</Alert>}
-        {r.staleSignOffs && <Alert tone="info">A sample&apos;s results changed after the sign-offs: they no longer apply. Sign off again.</Alert>}
+        {r.staleSignOffs && (
+          <Alert tone="info">
+            A sample&apos;s results changed after the sign-offs: they no longer apply. Sign off again.
+          </Alert>
+        )}
         <div>
           {line("Prepared by", r.preparer)}
           {line("Reviewed by", r.reviewer)}
-          {r.lock && <div className="py-2 text-sm"><span className="text-ink-soft">Locked by</span> <span className="font-medium">{r.lock.name}</span> <span className="text-ink-faint">· {when(r.lock.at)}</span><div className="break-all text-xs text-ink-faint">PDF SHA-256 {r.lock.workpaperSha256}</div></div>}
+          {r.lock && (
+            <div className="py-2 text-sm">
+              <span className="text-ink-soft">Locked by</span> <span className="font-medium">{r.lock.name}</span>{" "}
+              <span className="text-ink-faint">· {when(r.lock.at)}</span>
+              <div className="break-all text-xs text-ink-faint">PDF SHA-256 {r.lock.workpaperSha256}</div>
+            </div>
+          )}
         </div>
         {!locked && (
           <div className="flex flex-wrap gap-2">
-            {(role === "staff" || role === "senior") && <Button variant="secondary" disabled={busy} onClick={() => void act("/sign-off", { body: { as: "preparer" } }, "Signed off as preparer.")}>Sign off as preparer</Button>}
-            {isReviewer && <Button variant="secondary" disabled={busy} onClick={() => void act("/sign-off", { body: { as: "reviewer" } }, "Signed off as reviewer.")}>Sign off as reviewer</Button>}
-            {isReviewer && <Button disabled={busy || !r.lockable.ok} onClick={() => void act("/lock", { body: {} }, "Locked: the workpaper is final and stored with its SHA-256.")}>Lock the summary</Button>}
+            {(role === "staff" || role === "senior") && (
+              <Button
+                variant="secondary"
+                disabled={busy}
+                onClick={() => void act("/sign-off", { body: { as: "preparer" } }, "Signed off as preparer.")}
+              >
+                Sign off as preparer
+              </Button>
+            )}
+            {isReviewer && (
+              <Button
+                variant="secondary"
+                disabled={busy}
+                onClick={() => void act("/sign-off", { body: { as: "reviewer" } }, "Signed off as reviewer.")}
+              >
+                Sign off as reviewer
+              </Button>
+            )}
+            {isReviewer && (
+              <Button
+                disabled={busy || !r.lockable.ok}
+                onClick={() =>
+                  void act("/lock", { body: {} }, "Locked: the workpaper is final and stored with its SHA-256.")
+                }
+              >
+                Lock the summary
+              </Button>
+            )}
           </div>
         )}
-        {!locked && isReviewer && !r.lockable.ok && <ul className="list-disc pl-5 text-xs text-ink-soft">{r.lockable.reasons.map((x) => <li key={x}>{x}</li>)}</ul>}
-        {locked && role === "partner" && <Button variant="danger" disabled={busy} onClick={unlock}>Unlock (partner)</Button>}
+        {!locked && isReviewer && !r.lockable.ok && (
+          <ul className="list-disc pl-5 text-xs text-ink-soft">
+            {r.lockable.reasons.map((x) => (
+              <li key={x}>{x}</li>
+            ))}
+          </ul>
+        )}
+        {locked && role === "partner" && (
+          <Button variant="danger" disabled={busy} onClick={unlock}>
+            Unlock (partner)
+          </Button>
+        )}
         <section aria-label="Review notes" className="space-y-3 border-t border-ink-line pt-4">
           <h3 className="text-sm font-semibold">Review notes</h3>
           {view.notes.length === 0 && <p className="text-sm text-ink-faint">No review notes.</p>}
           <ol className="space-y-3">
             {view.notes.map((n) => (
               <li key={n.id} className="rounded-md border border-ink-line bg-paper px-3 py-2 text-sm">
-                <div className="flex items-start justify-between gap-2"><p>{n.text}</p><Badge tone={NOTE_TONE[n.status]}>{n.status}</Badge></div>
-                <p className="text-xs text-ink-faint">Raised by {n.raisedBy}, {when(n.raisedAt)}</p>
-                {n.answer && <p className="mt-1 border-l-2 border-ink-line pl-2">{n.answer} <span className="text-xs text-ink-faint">— {n.answeredBy}</span></p>}
+                <div className="flex items-start justify-between gap-2">
+                  <p>{n.text}</p>
+                  <Badge tone={NOTE_TONE[n.status]}>{n.status}</Badge>
+                </div>
+                <p className="text-xs text-ink-faint">
+                  Raised by {n.raisedBy}, {when(n.raisedAt)}
+                </p>
+                {n.answer && (
+                  <p className="mt-1 border-l-2 border-ink-line pl-2">
+                    {n.answer} <span className="text-xs text-ink-faint">— {n.answeredBy}</span>
+                  </p>
+                )}
                 {!locked && n.status !== "cleared" && hasAtLeastRole(role, "staff") && (
                   <div className="mt-2 flex gap-2">
-                    <label className="sr-only" htmlFor={`answer-${n.id}`}>Answer</label>
-                    <input id={`answer-${n.id}`} className="flex-1 rounded-md border border-ink-line bg-paper-raised px-2 py-1 text-sm" value={answers[n.id] ?? ""} onChange={(e) => setAnswers({ ...answers, [n.id]: e.target.value })} />
-                    <Button variant="secondary" className="px-2 py-1 text-xs" disabled={busy} onClick={() => void act(`/notes/${n.id}/answer`, { body: { answer: answers[n.id] ?? "" } }, "Answered.")}>Answer</Button>
-                    {isReviewer && n.status === "answered" && <Button variant="secondary" className="px-2 py-1 text-xs" disabled={busy} onClick={() => void act(`/notes/${n.id}/clear`, { body: {} }, "Cleared.")}>Clear</Button>}
+                    <label className="sr-only" htmlFor={`answer-${n.id}`}>
+                      Answer
+                    </label>
+                    <input
+                      id={`answer-${n.id}`}
+                      className="flex-1 rounded-md border border-ink-line bg-paper-raised px-2 py-1 text-sm"
+                      value={answers[n.id] ?? ""}
+                      onChange={(e) => setAnswers({ ...answers, [n.id]: e.target.value })}
+                    />
+                    <Button
+                      variant="secondary"
+                      className="px-2 py-1 text-xs"
+                      disabled={busy}
+                      onClick={() =>
+                        void act(`/notes/${n.id}/answer`, { body: { answer: answers[n.id] ?? "" } }, "Answered.")
+                      }
+                    >
+                      Answer
+                    </Button>
+                    {isReviewer && n.status === "answered" && (
+                      <Button
+                        variant="secondary"
+                        className="px-2 py-1 text-xs"
+                        disabled={busy}
+                        onClick={() => void act(`/notes/${n.id}/clear`, { body: {} }, "Cleared.")}
+                      >
+                        Clear
+                      </Button>
+                    )}
                   </div>
                 )}
               </li>
             ))}
           </ol>
           {!locked && isReviewer && (
-            <form className="flex gap-2" onSubmit={(e) => { e.preventDefault(); void act("/notes", { body: { text: note } }, "Note raised.").then((ok) => ok && setNote("")); }}>
-              <label className="sr-only" htmlFor="summary-note">New review note</label>
-              <input id="summary-note" placeholder="Raise a review note" className="flex-1 rounded-md border border-ink-line bg-paper-raised px-3 py-2 text-sm" value={note} onChange={(e) => setNote(e.target.value)} />
-              <Button type="submit" variant="secondary" disabled={busy}>Raise</Button>
+            <form
+              className="flex gap-2"
+              onSubmit={(e) => {
+                e.preventDefault();
+                void act("/notes", { body: { text: note } }, "Note raised.").then((ok) => ok && setNote(""));
+              }}
+            >
+              <label className="sr-only" htmlFor="summary-note">
+                New review note
+              </label>
+              <input
+                id="summary-note"
+                placeholder="Raise a review note"
+                className="flex-1 rounded-md border border-ink-line bg-paper-raised px-3 py-2 text-sm"
+                value={note}
+                onChange={(e) => setNote(e.target.value)}
+              />
+              <Button type="submit" variant="secondary" disabled={busy}>
+                Raise
+              </Button>
             </form>
           )}
         </section>

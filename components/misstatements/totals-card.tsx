@@ -5,9 +5,13 @@ import { Table, THead, Th, Td } from "@/components/ui/table";
 
 function Line({ label, value, strong }: { label: string; value: string; strong?: boolean }) {
   return (
-    <div className={`flex items-baseline justify-between gap-4 border-b border-ink-line/60 py-1.5 text-sm ${strong ? "font-semibold" : ""}`}>
+    <div
+      className={`flex items-baseline justify-between gap-4 border-b border-ink-line/60 py-1.5 text-sm ${strong ? "font-semibold" : ""}`}
+    >
       <dt className={strong ? "" : "text-ink-soft"}>{label}</dt>
-      <dd className="text-right"><Amount value={value} /></dd>
+      <dd className="text-right">
+        <Amount value={value} />
+      </dd>
     </div>
   );
 }
@@ -15,7 +19,8 @@ function Line({ label, value, strong }: { label: string; value: string; strong?:
 /** Totals against overall and performance materiality, both prior-period approaches side by side, and the allowances. */
 export function TotalsCard({ view }: { view: SummaryView }) {
   const { totals: t, materiality: m } = view;
-  const is = t.incomeStatementApproach, bs = t.balanceSheetApproach;
+  const is = t.incomeStatementApproach,
+    bs = t.balanceSheetApproach;
   const both: [string, string, string, boolean?][] = [
     ["Uncorrected, current year", t.uncorrected.currentYear, t.uncorrected.currentYear],
     ["Prior-period effect", is.priorPeriod, bs.priorPeriod],
@@ -40,26 +45,43 @@ export function TotalsCard({ view }: { view: SummaryView }) {
         </dl>
         <div className="space-y-4">
           <Table density="compact">
-            <caption className="mb-2 text-left text-sm font-semibold">Prior-period misstatements: two approaches, never mixed</caption>
+            <caption className="mb-2 text-left text-sm font-semibold">
+              Prior-period misstatements: two approaches, never mixed
+            </caption>
             <THead>
               <tr className="border-b border-ink-line text-xs uppercase tracking-wider text-ink-soft">
-                <Th className="font-medium"><span className="sr-only">Figure</span></Th>
-                <Th numeric className="font-medium">Income statement (rollover)</Th>
-                <Th numeric className="font-medium">Balance sheet (iron curtain)</Th>
+                <Th className="font-medium">
+                  <span className="sr-only">Figure</span>
+                </Th>
+                <Th numeric className="font-medium">
+                  Income statement (rollover)
+                </Th>
+                <Th numeric className="font-medium">
+                  Balance sheet (iron curtain)
+                </Th>
               </tr>
             </THead>
             <tbody>
               {both.map(([label, a, b, strong]) => (
                 <tr key={label} className={`border-b border-ink-line/60 ${strong ? "font-semibold" : ""}`}>
-                  <Th scope="row" className={`py-1.5 text-left ${strong ? "" : "font-normal text-ink-soft"}`}>{label}</Th>
-                  <Td className="text-right"><Amount value={a} /></Td>
-                  <Td className="text-right"><Amount value={b} /></Td>
+                  <Th scope="row" className={`py-1.5 text-left ${strong ? "" : "font-normal text-ink-soft"}`}>
+                    {label}
+                  </Th>
+                  <Td className="text-right">
+                    <Amount value={a} />
+                  </Td>
+                  <Td className="text-right">
+                    <Amount value={b} />
+                  </Td>
                 </tr>
               ))}
             </tbody>
           </Table>
           <dl>
-            <Line label={`Sum of sampling allowances (${t.allowance.samples} sample${t.allowance.samples === 1 ? "" : "s"}, conservative)`} value={t.allowance.sum} />
+            <Line
+              label={`Sum of sampling allowances (${t.allowance.samples} sample${t.allowance.samples === 1 ? "" : "s"}, conservative)`}
+              value={t.allowance.sum}
+            />
             <Line label="Larger total + allowances" value={t.upperEstimate} />
           </dl>
           <p className="text-xs text-ink-soft">{t.allowance.note}</p>

@@ -8,7 +8,12 @@ export function useSummaryAction(engagementId: number) {
   const router = useRouter();
   const [message, setMessage] = useState<{ tone: "error" | "success"; text: string } | null>(null);
   const [busy, setBusy] = useState(false);
-  async function act(path: string, init: { method?: string; body?: unknown }, done: string, onError?: (err: unknown) => void): Promise<boolean> {
+  async function act(
+    path: string,
+    init: { method?: string; body?: unknown },
+    done: string,
+    onError?: (err: unknown) => void,
+  ): Promise<boolean> {
     setBusy(true);
     setMessage(null);
     try {

@@ -1,6 +1,7 @@
 /** First header whose name suggests the role, for the mapping screen's starting choices. */
 const PATTERNS = {
-  itemRef: /^(item|invoice|inv|document|doc|reference|ref|voucher|entry|id|number|no\.?|r[ée]f[ée]rence|n[°o]|pi[eè]ce|beleg)\b|ref(erence)?$|\b(no|number|id)$/i,
+  itemRef:
+    /^(item|invoice|inv|document|doc|reference|ref|voucher|entry|id|number|no\.?|r[ée]f[ée]rence|n[°o]|pi[eè]ce|beleg)\b|ref(erence)?$|\b(no|number|id)$/i,
   bookValue: /amount|book value|balance|value|total|montant|solde|betrag|importe|net/i,
   description: /customer|client|supplier|vendor|description|name|narrative|memo|libell[ée]|tiers/i,
   date: /date|posted|due|[ée]ch[ée]ance|datum/i,

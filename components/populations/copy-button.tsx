@@ -14,7 +14,12 @@ export function CopyButton({ text, label }: { text: string; label: string }) {
     }
   };
   return (
-    <button type="button" onClick={copy} aria-label={label} className="rounded border border-ink-line bg-paper-raised px-2 py-0.5 text-xs font-medium text-ink-soft hover:bg-paper-sunk hover:text-ink">
+    <button
+      type="button"
+      onClick={copy}
+      aria-label={label}
+      className="rounded border border-ink-line bg-paper-raised px-2 py-0.5 text-xs font-medium text-ink-soft hover:bg-paper-sunk hover:text-ink"
+    >
       <span aria-live="polite">{copied ? "Copied" : "Copy"}</span>
     </button>
   );

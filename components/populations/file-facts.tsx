@@ -19,7 +19,9 @@ const DELIMITER_NAMES = { ",": "comma", ";": "semicolon", "\t": "tab", "|": "pip
 export function FileFacts({ upload }: { upload: UploadView }) {
   const i = upload.inspection;
   const facts = [
-    i.kind === "xlsx" ? "Excel workbook" : `CSV, ${ENCODING_LABELS[i.encoding ?? "utf-8"]}, ${DELIMITER_NAMES[i.delimiter ?? ","]}-separated`,
+    i.kind === "xlsx"
+      ? "Excel workbook"
+      : `CSV, ${ENCODING_LABELS[i.encoding ?? "utf-8"]}, ${DELIMITER_NAMES[i.delimiter ?? ","]}-separated`,
     formatBytes(upload.sizeBytes),
     `${formatCount(i.headers.length)} columns`,
   ];
@@ -27,7 +29,9 @@ export function FileFacts({ upload }: { upload: UploadView }) {
     <div className="flex flex-wrap items-baseline gap-x-4 gap-y-1 rounded-md bg-paper-sunk/60 px-3 py-2 text-sm">
       <span className="font-medium text-ink">{upload.fileName}</span>
       <span className="text-ink-soft">{facts.join(" · ")}</span>
-      <span className="figures truncate text-xs text-ink-faint" title={upload.sha256}>SHA-256 {upload.sha256.slice(0, 16)}…</span>
+      <span className="figures truncate text-xs text-ink-faint" title={upload.sha256}>
+        SHA-256 {upload.sha256.slice(0, 16)}…
+      </span>
     </div>
   );
 }

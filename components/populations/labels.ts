@@ -8,6 +8,11 @@ export const POPULATION_STATUS_LABELS: Record<PopulationStatus, string> = {
 };
 
 export function populationStatusTone(status: PopulationStatus): "amber" | "green" | "neutral" | "blue" {
-  return status === "reconciled" ? "green" : status === "unreconciled" ? "amber" : status === "loading" ? "blue" : "neutral";
+  return status === "reconciled"
+    ? "green"
+    : status === "unreconciled"
+      ? "amber"
+      : status === "loading"
+        ? "blue"
+        : "neutral";
 }
-

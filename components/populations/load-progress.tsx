@@ -19,15 +19,26 @@ export function LoadProgress({ progress, totalBytes }: { progress: Progress | nu
   return (
     <div className="space-y-4">
       <ProgressBar
-        label={current > 0 ? "All rows checked" : "Checking rows"} value={fraction}
-        detail={checking
-          ? `${formatCount(checking.rowsRead)} rows read · ${formatBytes(checking.bytesRead)} of ${formatBytes(checking.totalBytes)}`
-          : current > 0 ? "Every row read cleanly" : `Starting · ${formatBytes(totalBytes)} to read`}
+        label={current > 0 ? "All rows checked" : "Checking rows"}
+        value={fraction}
+        detail={
+          checking
+            ? `${formatCount(checking.rowsRead)} rows read · ${formatBytes(checking.bytesRead)} of ${formatBytes(checking.totalBytes)}`
+            : current > 0
+              ? "Every row read cleanly"
+              : `Starting · ${formatBytes(totalBytes)} to read`
+        }
       />
       <ol className="space-y-1.5 text-sm">
         {STEPS.map(([key, label], i) => (
-          <li key={key} className={`flex items-center gap-2 ${i < current ? "text-ledger-700" : i === current ? "font-medium text-ink" : "text-ink-faint"}`}>
-            <span aria-hidden className={`inline-flex h-5 w-5 items-center justify-center rounded-full text-xs ${i < current ? "bg-ledger-100" : i === current ? "bg-amber-100 text-amber-700" : "bg-paper-sunk"}`}>
+          <li
+            key={key}
+            className={`flex items-center gap-2 ${i < current ? "text-ledger-700" : i === current ? "font-medium text-ink" : "text-ink-faint"}`}
+          >
+            <span
+              aria-hidden
+              className={`inline-flex h-5 w-5 items-center justify-center rounded-full text-xs ${i < current ? "bg-ledger-100" : i === current ? "bg-amber-100 text-amber-700" : "bg-paper-sunk"}`}
+            >
               {i < current ? "✓" : i + 1}
             </span>
             {label}

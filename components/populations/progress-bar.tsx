@@ -1,5 +1,13 @@
 /** A determinate bar (value 0–1) with its label and the figures underneath; indeterminate when value is null. */
-export function ProgressBar({ label, value, detail }: { label: string; value: number | null; detail?: React.ReactNode }) {
+export function ProgressBar({
+  label,
+  value,
+  detail,
+}: {
+  label: string;
+  value: number | null;
+  detail?: React.ReactNode;
+}) {
   const percent = value === null ? null : Math.round(Math.min(1, Math.max(0, value)) * 100);
   return (
     <div className="space-y-1.5">
@@ -8,7 +16,11 @@ export function ProgressBar({ label, value, detail }: { label: string; value: nu
         {percent !== null && <span className="figures text-ink-soft">{percent}%</span>}
       </div>
       <div
-        role="progressbar" aria-label={label} aria-valuemin={0} aria-valuemax={100} aria-valuenow={percent ?? undefined}
+        role="progressbar"
+        aria-label={label}
+        aria-valuemin={0}
+        aria-valuemax={100}
+        aria-valuenow={percent ?? undefined}
         className="h-2.5 overflow-hidden rounded-full bg-paper-sunk ring-1 ring-inset ring-ink-line/60"
       >
         <div
@@ -16,7 +28,11 @@ export function ProgressBar({ label, value, detail }: { label: string; value: nu
           style={percent === null ? undefined : { width: `${percent}%` }}
         />
       </div>
-      {detail && <p className="figures text-xs text-ink-soft" aria-live="polite">{detail}</p>}
+      {detail && (
+        <p className="figures text-xs text-ink-soft" aria-live="polite">
+          {detail}
+        </p>
+      )}
     </div>
   );
 }

@@ -20,7 +20,11 @@ export async function runLoad(url: string, body: unknown, onEvent: (event: LoadE
   }
   const last = await readNdjson<LoadEvent>(stream, onEvent);
   if (last === null) {
-    const event: LoadEvent = { type: "error", status: 0, message: "The connection closed before the load finished. Nothing was stored; try again." };
+    const event: LoadEvent = {
+      type: "error",
+      status: 0,
+      message: "The connection closed before the load finished. Nothing was stored; try again.",
+    };
     onEvent(event);
     return event;
   }

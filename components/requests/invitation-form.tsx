@@ -10,13 +10,20 @@ import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { Field, Input } from "@/components/ui/field";
 
-const FormSchema = AcceptInvitationSchema.extend({ confirm: z.string() }).refine((v) => v.password === v.confirm, { message: "The two passwords differ", path: ["confirm"] });
+const FormSchema = AcceptInvitationSchema.extend({ confirm: z.string() }).refine((v) => v.password === v.confirm, {
+  message: "The two passwords differ",
+  path: ["confirm"],
+});
 type FormValues = z.infer<typeof FormSchema>;
 
 export function InvitationForm({ token, client }: { token: string; client: boolean }) {
   const router = useRouter();
   const [failure, setFailure] = useState<string | null>(null);
-  const { register, handleSubmit, formState: { errors, isSubmitting } } = useForm<FormValues>({ resolver: zodResolver(FormSchema) });
+  const {
+    register,
+    handleSubmit,
+    formState: { errors, isSubmitting },
+  } = useForm<FormValues>({ resolver: zodResolver(FormSchema) });
   const submit = handleSubmit(async ({ password }) => {
     setFailure(null);
     try {
@@ -35,7 +42,9 @@ export function InvitationForm({ token, client }: { token: string; client: boole
       <Field label="Repeat the password" error={errors.confirm?.message}>
         <Input type="password" autoComplete="new-password" {...register("confirm")} />
       </Field>
-      <Button type="submit" disabled={isSubmitting} className="w-full">{isSubmitting ? "Saving…" : "Save my password"}</Button>
+      <Button type="submit" disabled={isSubmitting} className="w-full">
+        {isSubmitting ? "Saving…" : "Save my password"}
+      </Button>
     </form>
   );
 }

@@ -8,7 +8,16 @@ export function ChangeList({ changes }: { changes: ReadableChange["changes"] }) 
       {changes.map((c) => (
         <div key={c.field} className="flex flex-wrap gap-x-1.5">
           <dt className="font-medium text-ink-soft">{c.field}:</dt>
-          <dd className="min-w-0 [overflow-wrap:anywhere]">{c.before === "—" && c.after !== "—" ? c.after : <>{c.before} <span aria-hidden>→</span><span className="sr-only">changed to</span> {c.after}</>}</dd>
+          <dd className="min-w-0 [overflow-wrap:anywhere]">
+            {c.before === "—" && c.after !== "—" ? (
+              c.after
+            ) : (
+              <>
+                {c.before} <span aria-hidden>→</span>
+                <span className="sr-only">changed to</span> {c.after}
+              </>
+            )}
+          </dd>
         </div>
       ))}
     </dl>

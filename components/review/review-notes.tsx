@@ -11,13 +11,24 @@ import { NOTE_STATUS_LABELS, NOTE_STATUS_TONES } from "./note-labels";
 import { formatDateTime } from "@/lib/format/date";
 import { Textarea } from "@/components/ui/field";
 
-export interface NoteItem { id: number; itemRef: string }
+export interface NoteItem {
+  id: number;
+  itemRef: string;
+}
 
-interface Props { engagementId: number; sampleId: number; role: EngagementRole; notes: ReviewNote[]; locked: boolean; items: NoteItem[]; onChanged: () => void }
-
+interface Props {
+  engagementId: number;
+  sampleId: number;
+  role: EngagementRole;
+  notes: ReviewNote[];
+  locked: boolean;
+  items: NoteItem[];
+  onChanged: () => void;
+}
 
 /** The plain words of a refusal: a field's own message rather than "Invalid input — answer: …". */
-const plain = (err: unknown) => (err instanceof ApiError && err.fields ? Object.values(err.fields)[0]?.[0] ?? err.message : (err as Error).message);
+const plain = (err: unknown) =>
+  err instanceof ApiError && err.fields ? (Object.values(err.fields)[0]?.[0] ?? err.message) : (err as Error).message;
 
 export function ReviewNotes({ engagementId, sampleId, role, notes, locked, items, onChanged }: Props) {
   const [text, setText] = useState("");
@@ -43,15 +54,21 @@ export function ReviewNotes({ engagementId, sampleId, role, notes, locked, items
   async function sendAnswer(n: ReviewNote, i: number) {
     const checked = AnswerNoteSchema.safeParse({ answer: answers[n.id] ?? "" });
     if (!checked.success) return setError(`Note ${i + 1}: ${checked.error.issues[0].message}`);
-    if (await run(() => apiFetch(`${base}/${n.id}/answer`, { body: checked.data }))) setAnswers((a) => ({ ...a, [n.id]: "" }));
+    if (await run(() => apiFetch(`${base}/${n.id}/answer`, { body: checked.data })))
+      setAnswers((a) => ({ ...a, [n.id]: "" }));
   }
 
   async function raise() {
-    const item = itemRef.trim() ? items.find((i) => i.itemRef.toLowerCase() === itemRef.trim().toLowerCase()) : undefined;
+    const item = itemRef.trim()
+      ? items.find((i) => i.itemRef.toLowerCase() === itemRef.trim().toLowerCase())
+      : undefined;
     if (itemRef.trim() && !item) return setError(`No item ${itemRef.trim()} in this sample's current draw.`);
     const checked = RaiseNoteSchema.safeParse({ text, itemId: item?.id });
     if (!checked.success) return setError(checked.error.issues[0].message);
-    if (await run(() => apiFetch(base, { body: checked.data }))) { setText(""); setItemRef(""); }
+    if (await run(() => apiFetch(base, { body: checked.data }))) {
+      setText("");
+      setItemRef("");
+    }
   }
 
   return (
@@ -61,27 +78,59 @@ export function ReviewNotes({ engagementId, sampleId, role, notes, locked, items
       {notes.length === 0 && <p className="text-sm text-ink-soft">No review notes.</p>}
       <ol className="space-y-3">
         {notes.map((n, i) => (
-          <li key={n.id} className="rounded-md border border-ink-line bg-paper px-3 py-2 text-sm" data-testid={`review-note-${i + 1}`}>
+          <li
+            key={n.id}
+            className="rounded-md border border-ink-line bg-paper px-3 py-2 text-sm"
+            data-testid={`review-note-${i + 1}`}
+          >
             <div className="flex items-center justify-between gap-2">
-              <span className="font-medium">Note {i + 1}{n.itemRef ? ` · item ${n.itemRef}` : ""}</span>
+              <span className="font-medium">
+                Note {i + 1}
+                {n.itemRef ? ` · item ${n.itemRef}` : ""}
+              </span>
               <Badge tone={NOTE_STATUS_TONES[n.status]}>{NOTE_STATUS_LABELS[n.status]}</Badge>
             </div>
             <p className="mt-1 whitespace-pre-wrap">{n.text}</p>
-            <p className="text-xs text-ink-soft">Raised by {n.raisedBy} · {formatDateTime(n.raisedAt)}</p>
+            <p className="text-xs text-ink-soft">
+              Raised by {n.raisedBy} · {formatDateTime(n.raisedAt)}
+            </p>
             {n.answer && (
               <div className="mt-2 border-l-2 border-ledger-500 pl-2">
                 <p className="whitespace-pre-wrap">{n.answer}</p>
-                <p className="text-xs text-ink-soft">Answered by {n.answeredBy}{n.answeredAt ? ` · ${formatDateTime(n.answeredAt)}` : ""}</p>
+                <p className="text-xs text-ink-soft">
+                  Answered by {n.answeredBy}
+                  {n.answeredAt ? ` · ${formatDateTime(n.answeredAt)}` : ""}
+                </p>
               </div>
             )}
-            {n.clearedBy && <p className="mt-1 text-xs text-ledger-700">Cleared by {n.clearedBy}{n.clearedAt ? ` · ${formatDateTime(n.clearedAt)}` : ""}</p>}
+            {n.clearedBy && (
+              <p className="mt-1 text-xs text-ledger-700">
+                Cleared by {n.clearedBy}
+                {n.clearedAt ? ` · ${formatDateTime(n.clearedAt)}` : ""}
+              </p>
+            )}
             {!locked && n.status !== "cleared" && canAnswer && (
               <div className="mt-2 space-y-2">
-                <Textarea aria-label={`Answer to note ${i + 1}`} value={answers[n.id] ?? ""} rows={2} onChange={(e) => setAnswers({ ...answers, [n.id]: e.target.value })}
-                  placeholder={n.answer ? "Add to the answer…" : "Answer the note…"} />
+                <Textarea
+                  aria-label={`Answer to note ${i + 1}`}
+                  value={answers[n.id] ?? ""}
+                  rows={2}
+                  onChange={(e) => setAnswers({ ...answers, [n.id]: e.target.value })}
+                  placeholder={n.answer ? "Add to the answer…" : "Answer the note…"}
+                />
                 <div className="flex gap-2">
-                  <Button variant="secondary" className="px-2.5 py-1 text-xs" onClick={() => void sendAnswer(n, i)}>Send answer</Button>
-                  {isReviewer && n.status === "answered" && <Button variant="secondary" className="px-2.5 py-1 text-xs" onClick={() => void run(() => apiFetch(`${base}/${n.id}/clear`, { body: {} }))}>Clear</Button>}
+                  <Button variant="secondary" className="px-2.5 py-1 text-xs" onClick={() => void sendAnswer(n, i)}>
+                    Send answer
+                  </Button>
+                  {isReviewer && n.status === "answered" && (
+                    <Button
+                      variant="secondary"
+                      className="px-2.5 py-1 text-xs"
+                      onClick={() => void run(() => apiFetch(`${base}/${n.id}/clear`, { body: {} }))}
+                    >
+                      Clear
+                    </Button>
+                  )}
                 </div>
               </div>
             )}
@@ -89,14 +138,40 @@ export function ReviewNotes({ engagementId, sampleId, role, notes, locked, items
         ))}
       </ol>
       {!locked && isReviewer && (
-        <form className="space-y-2" aria-label="Raise a review note" onSubmit={(e) => { e.preventDefault(); void raise(); }}>
-          <Textarea aria-label="New review note" value={text} onChange={(e) => setText(e.target.value)} rows={3} placeholder="Raise a review note for the preparer…" />
+        <form
+          className="space-y-2"
+          aria-label="Raise a review note"
+          onSubmit={(e) => {
+            e.preventDefault();
+            void raise();
+          }}
+        >
+          <Textarea
+            aria-label="New review note"
+            value={text}
+            onChange={(e) => setText(e.target.value)}
+            rows={3}
+            placeholder="Raise a review note for the preparer…"
+          />
           <div className="flex flex-wrap items-center gap-2">
-            <label className="inline-flex items-center gap-2 text-sm text-ink-soft">About item (optional)
-              <input list={`note-items-${sampleId}`} value={itemRef} onChange={(e) => setItemRef(e.target.value)} placeholder="reference" className="w-36 rounded-md border border-ink-line bg-paper-raised px-2 py-1 text-sm" />
+            <label className="inline-flex items-center gap-2 text-sm text-ink-soft">
+              About item (optional)
+              <input
+                list={`note-items-${sampleId}`}
+                value={itemRef}
+                onChange={(e) => setItemRef(e.target.value)}
+                placeholder="reference"
+                className="w-36 rounded-md border border-ink-line bg-paper-raised px-2 py-1 text-sm"
+              />
             </label>
-            <datalist id={`note-items-${sampleId}`}>{items.map((i) => <option key={i.id} value={i.itemRef} />)}</datalist>
-            <Button type="submit" className="ml-auto">Raise note</Button>
+            <datalist id={`note-items-${sampleId}`}>
+              {items.map((i) => (
+                <option key={i.id} value={i.itemRef} />
+              ))}
+            </datalist>
+            <Button type="submit" className="ml-auto">
+              Raise note
+            </Button>
           </div>
         </form>
       )}

@@ -19,7 +19,6 @@ interface Props {
   onChanged: () => void;
 }
 
-
 /**
  * Misstatements that may be anomalous (ISA 530 ¶13, AU-C 530.13): a preparer proposes one with a written
  * justification of the extremely rare circumstances; it counts only once a manager or partner accepts it.
@@ -87,7 +86,9 @@ export function AnomalyPanel({ base, method, refreshKey, mayMark, mayAccept, all
                     <Button
                       type="button"
                       onClick={() =>
-                        void act(() => apiFetch(`${base}/items/${i.id}/anomaly/acceptance`, { body: { confirm: true } }))
+                        void act(() =>
+                          apiFetch(`${base}/items/${i.id}/anomaly/acceptance`, { body: { confirm: true } }),
+                        )
                       }
                     >
                       Accept the anomaly
@@ -124,12 +125,7 @@ export function AnomalyPanel({ base, method, refreshKey, mayMark, mayAccept, all
                   <label className="block font-medium" htmlFor={`anomaly-${i.id}`}>
                     Why is this misstatement not representative of the population? (extremely rare circumstances)
                   </label>
-                  <Textarea
-                    id={`anomaly-${i.id}`}
-                    rows={3}
-                    value={text}
-                    onChange={(e) => setText(e.target.value)}
-                  />
+                  <Textarea id={`anomaly-${i.id}`} rows={3} value={text} onChange={(e) => setText(e.target.value)} />
                   <div className="flex gap-2">
                     <Button type="submit">Propose</Button>
                     <Button type="button" variant="secondary" onClick={() => setOpen(null)}>

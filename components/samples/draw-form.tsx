@@ -15,7 +15,11 @@ type In = z.input<typeof DrawSchema>;
 type Out = z.output<typeof DrawSchema>;
 
 interface Props {
-  engagementId: number; sampleId: number; currentVersion: number | null; populationReady: boolean; onDrawn: (view: SampleView) => void;
+  engagementId: number;
+  sampleId: number;
+  currentVersion: number | null;
+  populationReady: boolean;
+  onDrawn: (view: SampleView) => void;
   /** A haphazard selection has no seed (the server refuses one): no seed field then. */
   seeded?: boolean;
 }
@@ -24,13 +28,24 @@ interface Props {
 export function DrawForm({ engagementId, sampleId, currentVersion, populationReady, onDrawn, seeded = true }: Props) {
   const [failure, setFailure] = useState<string | null>(null);
   const [confirming, setConfirming] = useState(false);
-  const { register, handleSubmit, reset, setError, formState: { errors, isSubmitting } } = useForm<In, unknown, Out>({ resolver: zodResolver(DrawSchema), defaultValues: { seed: "" } });
+  const {
+    register,
+    handleSubmit,
+    reset,
+    setError,
+    formState: { errors, isSubmitting },
+  } = useForm<In, unknown, Out>({ resolver: zodResolver(DrawSchema), defaultValues: { seed: "" } });
 
   const onSubmit = handleSubmit(async ({ seed }) => {
-    if (currentVersion !== null && !confirming) { setConfirming(true); return; }
+    if (currentVersion !== null && !confirming) {
+      setConfirming(true);
+      return;
+    }
     setFailure(null);
     try {
-      const view = await apiFetch<SampleView>(`/api/engagements/${engagementId}/samples/${sampleId}/draw`, { body: seed === undefined || !seeded ? {} : { seed } });
+      const view = await apiFetch<SampleView>(`/api/engagements/${engagementId}/samples/${sampleId}/draw`, {
+        body: seed === undefined || !seeded ? {} : { seed },
+      });
       setConfirming(false);
       reset({ seed: "" });
       onDrawn(view);
@@ -44,24 +59,48 @@ export function DrawForm({ engagementId, sampleId, currentVersion, populationRea
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-3">
       {failure && <Alert>{failure}</Alert>}
-      {!populationReady && <Alert tone="info">The population is not reconciled yet; the server will refuse the draw until it is.</Alert>}
+      {!populationReady && (
+        <Alert tone="info">The population is not reconciled yet; the server will refuse the draw until it is.</Alert>
+      )}
       {seeded ? (
-        <Field label="Seed (optional)" error={errors.seed?.message} hint="Leave blank for a seed generated on the server. Enter one (0 to 4294967295) to re-perform a selection made elsewhere.">
-          <Input inputMode="numeric" className="figures max-w-56" {...register("seed", { setValueAs: (v: unknown) => (textOf(v).trim() === "" ? undefined : v) })} />
+        <Field
+          label="Seed (optional)"
+          error={errors.seed?.message}
+          hint="Leave blank for a seed generated on the server. Enter one (0 to 4294967295) to re-perform a selection made elsewhere."
+        >
+          <Input
+            inputMode="numeric"
+            className="figures max-w-56"
+            {...register("seed", { setValueAs: (v: unknown) => (textOf(v).trim() === "" ? undefined : v) })}
+          />
         </Field>
       ) : (
-        <p className="text-sm text-ink-soft">A haphazard selection has no seed: drawing sets the key items, then you pick the rest from the population on this tab.</p>
+        <p className="text-sm text-ink-soft">
+          A haphazard selection has no seed: drawing sets the key items, then you pick the rest from the population on
+          this tab.
+        </p>
       )}
       {confirming && (
         <Alert tone="info">
-          Drawing again creates version {next}. Version {currentVersion} and any results recorded on it are kept for the record; fieldwork continues on version {next}.
+          Drawing again creates version {next}. Version {currentVersion} and any results recorded on it are kept for the
+          record; fieldwork continues on version {next}.
         </Alert>
       )}
       <div className="flex gap-2">
         <Button type="submit" disabled={isSubmitting}>
-          {isSubmitting ? "Drawing…" : currentVersion === null ? "Draw the sample" : confirming ? `Confirm: draw version ${next}` : "Draw again…"}
+          {isSubmitting
+            ? "Drawing…"
+            : currentVersion === null
+              ? "Draw the sample"
+              : confirming
+                ? `Confirm: draw version ${next}`
+                : "Draw again…"}
         </Button>
-        {confirming && <Button type="button" variant="ghost" onClick={() => setConfirming(false)}>Keep version {currentVersion}</Button>}
+        {confirming && (
+          <Button type="button" variant="ghost" onClick={() => setConfirming(false)}>
+            Keep version {currentVersion}
+          </Button>
+        )}
       </div>
     </form>
   );

@@ -1,6 +1,11 @@
 import { apiFetch, withFileName } from "@/components/ui/api";
 
-export interface Problem { row: number; column: string | null; cell?: string; reason: string }
+export interface Problem {
+  row: number;
+  column: string | null;
+  cell?: string;
+  reason: string;
+}
 
 /** The file types the evidence route accepts (it checks the content, not the name). */
 export const EVIDENCE_ACCEPT = ".pdf,.png,.jpg,.jpeg,.gif,.webp,.tif,.tiff,.xlsx,.xls,.docx,.doc,.csv,.txt,.eml,.msg";

@@ -13,14 +13,33 @@ type In = z.input<typeof ExtendSchema>;
 type Out = z.output<typeof ExtendSchema>;
 
 /** Adds items to a random or attribute sample, continuing down the same random-number ranking. */
-export function ExtendForm({ engagementId, sampleId, onExtended }: { engagementId: number; sampleId: number; onExtended: () => void }) {
+export function ExtendForm({
+  engagementId,
+  sampleId,
+  onExtended,
+}: {
+  engagementId: number;
+  sampleId: number;
+  onExtended: () => void;
+}) {
   const [outcome, setOutcome] = useState<{ tone: "success" | "error"; text: string } | null>(null);
-  const { register, handleSubmit, reset, formState: { errors, isSubmitting } } = useForm<In, unknown, Out>({ resolver: zodResolver(ExtendSchema), defaultValues: { additional: "", reason: "" } });
+  const {
+    register,
+    handleSubmit,
+    reset,
+    formState: { errors, isSubmitting },
+  } = useForm<In, unknown, Out>({ resolver: zodResolver(ExtendSchema), defaultValues: { additional: "", reason: "" } });
   const onSubmit = handleSubmit(async (body) => {
     setOutcome(null);
     try {
-      const { extension } = await apiFetch<{ extension: { added: number; streamPosition: number } }>(`/api/engagements/${engagementId}/samples/${sampleId}/extend`, { body });
-      setOutcome({ tone: "success", text: `${extension.added} items added, continuing the random numbers after rank ${extension.streamPosition}.` });
+      const { extension } = await apiFetch<{ extension: { added: number; streamPosition: number } }>(
+        `/api/engagements/${engagementId}/samples/${sampleId}/extend`,
+        { body },
+      );
+      setOutcome({
+        tone: "success",
+        text: `${extension.added} items added, continuing the random numbers after rank ${extension.streamPosition}.`,
+      });
       reset({ additional: "", reason: "" });
       onExtended();
     } catch (err) {
@@ -29,7 +48,11 @@ export function ExtendForm({ engagementId, sampleId, onExtended }: { engagementI
   });
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-1">
-      {outcome && <div className="mb-2"><Alert tone={outcome.tone}>{outcome.text}</Alert></div>}
+      {outcome && (
+        <div className="mb-2">
+          <Alert tone={outcome.tone}>{outcome.text}</Alert>
+        </div>
+      )}
       <div className="grid gap-x-4 sm:grid-cols-3">
         <Field label="Items to add" error={errors.additional?.message}>
           <Input inputMode="numeric" className="figures text-right" {...register("additional")} />
@@ -40,7 +63,9 @@ export function ExtendForm({ engagementId, sampleId, onExtended }: { engagementI
           </Field>
         </div>
       </div>
-      <Button type="submit" variant="secondary" disabled={isSubmitting}>{isSubmitting ? "Adding…" : "Extend the sample"}</Button>
+      <Button type="submit" variant="secondary" disabled={isSubmitting}>
+        {isSubmitting ? "Adding…" : "Extend the sample"}
+      </Button>
     </form>
   );
 }

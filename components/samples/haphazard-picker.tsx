@@ -67,7 +67,8 @@ export function HaphazardPicker({
     () => ({
       status: (row) => byRow.get(row) ?? null,
       disabled: busy || full || !mayPick,
-      onPick: (item: PopulationItem) => void act(() => apiFetch(`${base}/picks`, { body: { rowNumber: item.rowNumber } })),
+      onPick: (item: PopulationItem) =>
+        void act(() => apiFetch(`${base}/picks`, { body: { rowNumber: item.rowNumber } })),
     }),
     [byRow, busy, full, mayPick, act, base],
   );

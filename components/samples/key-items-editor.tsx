@@ -31,23 +31,15 @@ export function KeyItemsEditor({
         error={e?.keyItemThreshold?.message}
         hint="Blank: no threshold. Every item at or above it is examined in full and kept out of the sample."
       >
-        <Input
-          inputMode="decimal"
-          className="figures text-right"
-          {...register("params.keyItemThreshold")}
-        />
+        <Input inputMode="decimal" className="figures text-right" {...register("params.keyItemThreshold")} />
       </Field>
       {fields.map((f, i) => (
         <div key={f.id} className="grid gap-x-3 rounded-md border border-ink-line/60 p-3 sm:grid-cols-[10rem_1fr_auto]">
           <Field label={`Key item ${i + 1}: reference`} error={e?.keyItems?.[i]?.itemRef?.message}>
-            <Input
-              {...register(`params.keyItems.${i}.itemRef`)}
-            />
+            <Input {...register(`params.keyItems.${i}.itemRef`)} />
           </Field>
           <Field label={`Key item ${i + 1}: why it is examined in full`} error={e?.keyItems?.[i]?.reason?.message}>
-            <Input
-              {...register(`params.keyItems.${i}.reason`)}
-            />
+            <Input {...register(`params.keyItems.${i}.reason`)} />
           </Field>
           <div className="self-center">
             <Button type="button" variant="secondary" onClick={() => remove(i)} aria-label={`Remove key item ${i + 1}`}>

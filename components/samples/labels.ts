@@ -8,19 +8,33 @@ export { METHOD_LABELS };
 
 /** Short names for lists, where the full method label is too long. */
 export const METHOD_SHORT: Record<SampleMethod, string> = {
-  mus: "Monetary-unit (PPS)", random: "Simple random", systematic: "Systematic", stratified: "Stratified random", attribute: "Attribute", nonstatistical: "Nonstatistical",
+  mus: "Monetary-unit (PPS)",
+  random: "Simple random",
+  systematic: "Systematic",
+  stratified: "Stratified random",
+  attribute: "Attribute",
+  nonstatistical: "Nonstatistical",
 };
 
 export const ESTIMATOR_LABELS: Record<string, string> = {
-  "mean-per-unit": "Mean-per-unit", difference: "Difference", ratio: "Ratio", regression: "Regression",
-  "separate-ratio": "Separate ratio", "combined-ratio": "Combined ratio",
+  "mean-per-unit": "Mean-per-unit",
+  difference: "Difference",
+  ratio: "Ratio",
+  regression: "Regression",
+  "separate-ratio": "Separate ratio",
+  "combined-ratio": "Combined ratio",
 };
 
 export const DIRECTION_LABELS: Record<SampleRecord["direction"], string> = {
-  overstatement: "Overstatement", understatement: "Understatement", both: "Both directions",
+  overstatement: "Overstatement",
+  understatement: "Understatement",
+  both: "Both directions",
 };
 
-export const SAMPLE_STATUS_LABELS: Record<SampleRecord["status"], string> = { planned: "Planned, not drawn", drawn: "Drawn" };
+export const SAMPLE_STATUS_LABELS: Record<SampleRecord["status"], string> = {
+  planned: "Planned, not drawn",
+  drawn: "Drawn",
+};
 
 export const ITEM_STATUS_LABELS: Record<SampleItemRecord["status"], string> = SHARED_ITEM_STATUS_LABELS;
 
@@ -38,4 +52,3 @@ export function percentToFraction(text: unknown): number | null {
 export function fractionToPercent(fraction: number | undefined): string {
   return fraction === undefined ? "" : String(Number((fraction * 100).toPrecision(12)));
 }
-

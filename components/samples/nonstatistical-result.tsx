@@ -32,9 +32,15 @@ export function NonstatisticalResult({ n }: { n: NonstatisticalEvaluationBlock }
       amt(n.keyItems.misstatement),
       "ns-key-items",
     ],
-    [`Accepted anomalous misstatements at actual (${n.anomalies.count})`, amt(n.anomalies.misstatement), "ns-anomalies"],
+    [
+      `Accepted anomalous misstatements at actual (${n.anomalies.count})`,
+      amt(n.anomalies.misstatement),
+      "ns-anomalies",
+    ],
     ["Total projected misstatement", amt(n.totalProjected), "ns-total"],
-    ...(n.comparedAmount !== n.totalProjected ? [[`Compared with tolerable misstatement (${n.direction})`, amt(n.comparedAmount)] as [string, React.ReactNode]] : []),
+    ...(n.comparedAmount !== n.totalProjected
+      ? [[`Compared with tolerable misstatement (${n.direction})`, amt(n.comparedAmount)] as [string, React.ReactNode]]
+      : []),
     ["Tolerable misstatement", amt(n.tolerableMisstatement)],
     ["Expected misstatement used in planning", amt(n.expectedMisstatement)],
     [`“Well below” tolerable misstatement means at most`, amt(n.wellBelowAmount)],
@@ -55,7 +61,9 @@ export function NonstatisticalResult({ n }: { n: NonstatisticalEvaluationBlock }
           ))}
         </tbody>
       </Table>
-      <p className="text-sm" data-testid="ns-statement">{n.statement}</p>
+      <p className="text-sm" data-testid="ns-statement">
+        {n.statement}
+      </p>
       {n.responses.length > 0 && (
         <div
           className="rounded-md border border-amber-100 bg-amber-50 p-3 text-sm text-amber-800"

@@ -7,12 +7,24 @@ import type { PlanFormIn, PlanFormOut } from "./plan-values";
 
 /** Attribute plans: a statistical size, or the firm's minimum for a manual control by how often it operates. */
 export function PlanAttributeMode({ form }: { form: UseFormReturn<PlanFormIn, unknown, PlanFormOut> }) {
-  const { register, watch, formState: { errors } } = form;
+  const {
+    register,
+    watch,
+    formState: { errors },
+  } = form;
   const e = errors.params;
   const byFrequency = watch("params.attributeMode") === "control-frequency";
   return (
     <>
-      <Field label="Size set by" error={e?.attributeMode?.message} hint={byFrequency ? "The firm's control-frequency table (methodology settings)" : "Risk of overreliance and deviation rates"}>
+      <Field
+        label="Size set by"
+        error={e?.attributeMode?.message}
+        hint={
+          byFrequency
+            ? "The firm's control-frequency table (methodology settings)"
+            : "Risk of overreliance and deviation rates"
+        }
+      >
         <Select {...register("params.attributeMode")}>
           <option value="statistical">Statistical attribute plan</option>
           <option value="control-frequency">Control frequency (manual control)</option>
@@ -22,7 +34,11 @@ export function PlanAttributeMode({ form }: { form: UseFormReturn<PlanFormIn, un
         <Field label="How often the control operates" error={e?.controlFrequency?.message}>
           <Select {...register("params.controlFrequency")}>
             <option value="">Choose…</option>
-            {CONTROL_FREQUENCIES.map((f) => <option key={f} value={f}>{CONTROL_FREQUENCY_LABELS[f]}</option>)}
+            {CONTROL_FREQUENCIES.map((f) => (
+              <option key={f} value={f}>
+                {CONTROL_FREQUENCY_LABELS[f]}
+              </option>
+            ))}
           </Select>
         </Field>
       )}

@@ -21,14 +21,34 @@ import { usePlanPreview } from "./use-plan-preview";
 import { RiskSizingFields } from "./risk-sizing-fields";
 import { KeyItemsEditor } from "./key-items-editor";
 import { KEY_ITEM_METHODS } from "@/lib/validation/sample";
-import { defaultPlanValues, formFieldOf, suggestedBounds, toRequest, type PlanFormIn, type PlanFormOut, type PopulationChoice } from "./plan-values";
+import {
+  defaultPlanValues,
+  formFieldOf,
+  suggestedBounds,
+  toRequest,
+  type PlanFormIn,
+  type PlanFormOut,
+  type PopulationChoice,
+} from "./plan-values";
 
 const schemaResolver = zodResolver(PlanSampleSchema);
-const resolver: Resolver<PlanFormIn, unknown, PlanFormOut> = (values, context, options) => schemaResolver(toRequest(values), context, options);
-const ASSERTIONS = ["Existence", "Occurrence", "Valuation and allocation", "Accuracy", "Completeness", "Cut-off", "Rights and obligations"];
+const resolver: Resolver<PlanFormIn, unknown, PlanFormOut> = (values, context, options) =>
+  schemaResolver(toRequest(values), context, options);
+const ASSERTIONS = [
+  "Existence",
+  "Occurrence",
+  "Valuation and allocation",
+  "Accuracy",
+  "Completeness",
+  "Cut-off",
+  "Rights and obligations",
+];
 
 interface Props {
-  engagementId: number; currency: string; performanceMateriality: string; populations: PopulationChoice[];
+  engagementId: number;
+  currency: string;
+  performanceMateriality: string;
+  populations: PopulationChoice[];
   /** When editing a plan not yet drawn. */
   editing?: { sampleId: number; values: PlanFormIn };
   initialPopulationId?: number;
@@ -37,11 +57,29 @@ interface Props {
 }
 
 /** Plans a sample: what is tested, the method and its parameters, with the size computed live by the server. */
-export function PlanForm({ engagementId, currency, performanceMateriality, populations, editing, initialPopulationId, earlierSamples }: Props) {
+export function PlanForm({
+  engagementId,
+  currency,
+  performanceMateriality,
+  populations,
+  editing,
+  initialPopulationId,
+  earlierSamples,
+}: Props) {
   const router = useRouter();
   const [failure, setFailure] = useState<string | null>(null);
-  const form = useForm<PlanFormIn, unknown, PlanFormOut>({ resolver, defaultValues: editing?.values ?? defaultPlanValues(performanceMateriality, initialPopulationId) });
-  const { register, handleSubmit, watch, setValue, setError, formState: { errors, isSubmitting } } = form;
+  const form = useForm<PlanFormIn, unknown, PlanFormOut>({
+    resolver,
+    defaultValues: editing?.values ?? defaultPlanValues(performanceMateriality, initialPopulationId),
+  });
+  const {
+    register,
+    handleSubmit,
+    watch,
+    setValue,
+    setError,
+    formState: { errors, isSubmitting },
+  } = form;
   const values = watch();
   const preview = usePlanPreview(engagementId, toRequest(values));
   const population = populations.find((p) => p.id === Number(values.populationId));
@@ -52,7 +90,8 @@ export function PlanForm({ engagementId, currency, performanceMateriality, popul
   useEffect(() => {
     for (const f of previewErrors.current) clearErrors(f as FieldPath<PlanFormIn>);
     previewErrors.current = Object.keys(preview.fields ?? {}).map(formFieldOf);
-    for (const [k, m] of Object.entries(preview.fields ?? {})) setError(formFieldOf(k) as FieldPath<PlanFormIn>, { type: "server", message: m[0] });
+    for (const [k, m] of Object.entries(preview.fields ?? {}))
+      setError(formFieldOf(k) as FieldPath<PlanFormIn>, { type: "server", message: m[0] });
   }, [preview.fields, clearErrors, setError]);
 
   const onMethod = (method: string) => {
@@ -60,18 +99,23 @@ export function PlanForm({ engagementId, currency, performanceMateriality, popul
     if (method === "stratified") {
       if (!values.params.strataBounds?.length) setValue("params.strataBounds", suggestedBounds(population));
       if (estimator === "ratio" || estimator === "regression") setValue("params.estimator", undefined);
-    } else if (estimator === "separate-ratio" || estimator === "combined-ratio") setValue("params.estimator", undefined);
+    } else if (estimator === "separate-ratio" || estimator === "combined-ratio")
+      setValue("params.estimator", undefined);
   };
 
   const onSubmit = handleSubmit(async (body) => {
     setFailure(null);
     try {
-      const path = editing ? `/api/engagements/${engagementId}/samples/${editing.sampleId}` : `/api/engagements/${engagementId}/samples`;
+      const path = editing
+        ? `/api/engagements/${engagementId}/samples/${editing.sampleId}`
+        : `/api/engagements/${engagementId}/samples`;
       const { sample } = await apiFetch<{ sample: SampleRecord }>(path, { method: editing ? "PATCH" : "POST", body });
       router.push(`/engagements/${engagementId}/samples/${sample.id}`);
       router.refresh();
     } catch (err) {
-      if (err instanceof ApiError && err.fields) for (const [k, m] of Object.entries(err.fields)) setError(formFieldOf(k) as FieldPath<PlanFormIn>, { message: m[0] });
+      if (err instanceof ApiError && err.fields)
+        for (const [k, m] of Object.entries(err.fields))
+          setError(formFieldOf(k) as FieldPath<PlanFormIn>, { message: m[0] });
       setFailure(err instanceof Error ? err.message : "The plan could not be saved");
     }
   });
@@ -92,22 +136,46 @@ export function PlanForm({ engagementId, currency, performanceMateriality, popul
           <div className="grid gap-x-4 sm:grid-cols-2">
             <Field label="Assertion" error={errors.assertion?.message}>
               <Input list="assertion-suggestions" {...register("assertion")} />
-              <datalist id="assertion-suggestions">{ASSERTIONS.map((a) => <option key={a} value={a} />)}</datalist>
+              <datalist id="assertion-suggestions">
+                {ASSERTIONS.map((a) => (
+                  <option key={a} value={a} />
+                ))}
+              </datalist>
             </Field>
             {method !== "attribute" && (
               <Field label="Misstatement tested for" error={errors.direction?.message}>
-                <Select {...register("direction")}>{DIRECTIONS.map((d) => <option key={d} value={d}>{DIRECTION_LABELS[d]}</option>)}</Select>
+                <Select {...register("direction")}>
+                  {DIRECTIONS.map((d) => (
+                    <option key={d} value={d}>
+                      {DIRECTION_LABELS[d]}
+                    </option>
+                  ))}
+                </Select>
               </Field>
             )}
           </div>
         </Card>
         <Card title="Method and parameters">
           <Field label="Sampling method" error={errors.params?.method?.message}>
-            <Select {...register("params.method", { onChange: (e: React.ChangeEvent<HTMLSelectElement>) => onMethod(e.target.value) })}>
-              {SAMPLE_METHODS.map((m) => <option key={m} value={m}>{METHOD_LABELS[m]}</option>)}
+            <Select
+              {...register("params.method", {
+                onChange: (e: React.ChangeEvent<HTMLSelectElement>) => onMethod(e.target.value),
+              })}
+            >
+              {SAMPLE_METHODS.map((m) => (
+                <option key={m} value={m}>
+                  {METHOD_LABELS[m]}
+                </option>
+              ))}
             </Select>
           </Field>
-          <PlanParameters form={form} plan={preview.plan} currency={currency} performanceMateriality={performanceMateriality} earlierSamples={earlierSamples} />
+          <PlanParameters
+            form={form}
+            plan={preview.plan}
+            currency={currency}
+            performanceMateriality={performanceMateriality}
+            earlierSamples={earlierSamples}
+          />
         </Card>
         <Card title="Risk assessment">
           <RiskSizingFields form={form} plan={preview.plan} />
@@ -121,8 +189,15 @@ export function PlanForm({ engagementId, currency, performanceMateriality, popul
           <SizeChoice form={form} plan={preview.plan} />
         </Card>
         <div className="flex items-center gap-3">
-          <Button type="submit" disabled={isSubmitting}>{isSubmitting ? "Saving…" : editing ? "Save the changed plan" : "Save the plan"}</Button>
-          <Link href={editing ? `/engagements/${engagementId}/samples/${editing.sampleId}` : `/engagements/${engagementId}`} className="text-sm text-ink-soft link">Cancel</Link>
+          <Button type="submit" disabled={isSubmitting}>
+            {isSubmitting ? "Saving…" : editing ? "Save the changed plan" : "Save the plan"}
+          </Button>
+          <Link
+            href={editing ? `/engagements/${engagementId}/samples/${editing.sampleId}` : `/engagements/${engagementId}`}
+            className="text-sm text-ink-soft link"
+          >
+            Cancel
+          </Link>
         </div>
       </div>
       <div className="lg:sticky lg:top-6 lg:col-span-2">

@@ -35,13 +35,33 @@ export function suggestedBounds(p: PopulationChoice | undefined): string[] {
 export function defaultPlanValues(performanceMateriality: string, populationId?: number): PlanFormIn {
   return {
     populationId: populationId ?? "",
-    name: "", objective: "", assertion: "", direction: "overstatement",
+    name: "",
+    objective: "",
+    assertion: "",
+    direction: "overstatement",
     params: {
-      method: "mus", estimator: undefined, confidence: "95", tolerableMisstatement: performanceMateriality, expectedMisstatement: "0.00",
-      riskOfIncorrectRejection: "10", tolerableRate: "5", expectedRate: "0", topStratumThreshold: "", attributePlan: "fixed", attributeMode: "statistical",
-      strataBounds: undefined, sampleSize: "", sizeReason: "",
-      sizingBasis: "risk-assessment", assessedRisk: undefined, otherProceduresRisk: undefined, confidenceReason: "",
-      keyItemThreshold: "", keyItems: [], selection: "random", projection: "ratio",
+      method: "mus",
+      estimator: undefined,
+      confidence: "95",
+      tolerableMisstatement: performanceMateriality,
+      expectedMisstatement: "0.00",
+      riskOfIncorrectRejection: "10",
+      tolerableRate: "5",
+      expectedRate: "0",
+      topStratumThreshold: "",
+      attributePlan: "fixed",
+      attributeMode: "statistical",
+      strataBounds: undefined,
+      sampleSize: "",
+      sizeReason: "",
+      sizingBasis: "risk-assessment",
+      assessedRisk: undefined,
+      otherProceduresRisk: undefined,
+      confidenceReason: "",
+      keyItemThreshold: "",
+      keyItems: [],
+      selection: "random",
+      projection: "ratio",
     },
   };
 }
@@ -55,19 +75,62 @@ const blank = (v: unknown) => textOf(v).trim() === "";
  */
 export function toRequest(values: PlanFormIn): PlanFormIn {
   const p = { ...values.params } as Record<string, unknown>;
-  for (const f of PERCENT_FIELDS) p[f] = blank(p[f]) ? undefined : percentToFraction(p[f]) ?? p[f];
+  for (const f of PERCENT_FIELDS) p[f] = blank(p[f]) ? undefined : (percentToFraction(p[f]) ?? p[f]);
   for (const [k, v] of Object.entries(p)) if (blank(v)) delete p[k];
   if (Array.isArray(p.keyItems) && p.keyItems.length === 0) delete p.keyItems;
   const method = p.method;
-  const sizing = ["sizingBasis", "assessedRisk", "otherProceduresRisk", ...(p.sizingBasis === "confidence-override" ? ["confidenceReason"] : [])];
+  const sizing = [
+    "sizingBasis",
+    "assessedRisk",
+    "otherProceduresRisk",
+    ...(p.sizingBasis === "confidence-override" ? ["confidenceReason"] : []),
+  ];
   const keyItems = ["keyItemThreshold", "keyItems"];
   const keep: Record<string, string[]> = {
-    nonstatistical: ["confidence", "tolerableMisstatement", "expectedMisstatement", "selection", "projection", ...keyItems, ...sizing],
+    nonstatistical: [
+      "confidence",
+      "tolerableMisstatement",
+      "expectedMisstatement",
+      "selection",
+      "projection",
+      ...keyItems,
+      ...sizing,
+    ],
     mus: ["confidence", "tolerableMisstatement", "expectedMisstatement", "topStratumThreshold", ...sizing],
-    attribute: p.attributeMode === "control-frequency" ? ["attributeMode", "controlFrequency"] : ["confidence", "tolerableRate", "expectedRate", "attributePlan", "attributeMode", ...sizing],
-    stratified: ["estimator", "confidence", "tolerableMisstatement", "expectedMisstatement", "riskOfIncorrectRejection", "strataBounds", ...keyItems, ...sizing],
-    random: ["estimator", "confidence", "tolerableMisstatement", "expectedMisstatement", "riskOfIncorrectRejection", ...SPREAD_FIELDS, ...keyItems, ...sizing],
-    systematic: ["estimator", "confidence", "tolerableMisstatement", "expectedMisstatement", "riskOfIncorrectRejection", ...SPREAD_FIELDS, ...keyItems, ...sizing],
+    attribute:
+      p.attributeMode === "control-frequency"
+        ? ["attributeMode", "controlFrequency"]
+        : ["confidence", "tolerableRate", "expectedRate", "attributePlan", "attributeMode", ...sizing],
+    stratified: [
+      "estimator",
+      "confidence",
+      "tolerableMisstatement",
+      "expectedMisstatement",
+      "riskOfIncorrectRejection",
+      "strataBounds",
+      ...keyItems,
+      ...sizing,
+    ],
+    random: [
+      "estimator",
+      "confidence",
+      "tolerableMisstatement",
+      "expectedMisstatement",
+      "riskOfIncorrectRejection",
+      ...SPREAD_FIELDS,
+      ...keyItems,
+      ...sizing,
+    ],
+    systematic: [
+      "estimator",
+      "confidence",
+      "tolerableMisstatement",
+      "expectedMisstatement",
+      "riskOfIncorrectRejection",
+      ...SPREAD_FIELDS,
+      ...keyItems,
+      ...sizing,
+    ],
   };
   const allowed = new Set(["method", "sampleSize", "sizeReason", ...(keep[String(method)] ?? [])]);
   for (const k of Object.keys(p)) if (!allowed.has(k)) delete p[k];
@@ -81,20 +144,34 @@ export function fromStored(values: PlanFormOut): PlanFormIn {
   return {
     ...values,
     params: {
-      ...p, confidence: fractionToPercent(p.confidence), riskOfIncorrectRejection: fractionToPercent(p.riskOfIncorrectRejection),
-      tolerableRate: fractionToPercent(p.tolerableRate), expectedRate: fractionToPercent(p.expectedRate),
-      topStratumThreshold: p.topStratumThreshold ?? "", sampleSize: p.sampleSize ?? "", sizeReason: p.sizeReason ?? "",
-      sizingBasis: p.sizingBasis ?? "confidence-override", confidenceReason: p.confidenceReason ?? (p.sizingBasis ? "" : "Planned with a typed confidence before risk-based sizing existed"),
-      keyItemThreshold: p.keyItemThreshold ?? "", keyItems: p.keyItems ?? [], selection: p.selection ?? "random", projection: p.projection ?? "ratio",
-      attributeMode: p.attributeMode ?? "statistical", spreadBasis: p.spreadBasis ?? undefined, spreadSampleId: p.spreadSampleId ?? "",
-      expectedStdDev: p.expectedStdDev ?? "", spreadReason: p.spreadReason ?? "",
+      ...p,
+      confidence: fractionToPercent(p.confidence),
+      riskOfIncorrectRejection: fractionToPercent(p.riskOfIncorrectRejection),
+      tolerableRate: fractionToPercent(p.tolerableRate),
+      expectedRate: fractionToPercent(p.expectedRate),
+      topStratumThreshold: p.topStratumThreshold ?? "",
+      sampleSize: p.sampleSize ?? "",
+      sizeReason: p.sizeReason ?? "",
+      sizingBasis: p.sizingBasis ?? "confidence-override",
+      confidenceReason:
+        p.confidenceReason ?? (p.sizingBasis ? "" : "Planned with a typed confidence before risk-based sizing existed"),
+      keyItemThreshold: p.keyItemThreshold ?? "",
+      keyItems: p.keyItems ?? [],
+      selection: p.selection ?? "random",
+      projection: p.projection ?? "ratio",
+      attributeMode: p.attributeMode ?? "statistical",
+      spreadBasis: p.spreadBasis ?? undefined,
+      spreadSampleId: p.spreadSampleId ?? "",
+      expectedStdDev: p.expectedStdDev ?? "",
+      spreadReason: p.spreadReason ?? "",
     },
   };
 }
 
 /** Server field keys ("sampleSize", "params.confidence") as form field names. */
 export function formFieldOf(key: string): string {
-  if (key.startsWith("params.") || ["populationId", "name", "objective", "assertion", "direction"].includes(key)) return key;
+  if (key.startsWith("params.") || ["populationId", "name", "objective", "assertion", "direction"].includes(key))
+    return key;
   if (key === "params" || key === "(body)") return "params.method";
   return `params.${key}`;
 }

@@ -13,8 +13,21 @@ const WHY: Record<string, string> = {
 };
 
 /** Populations to sample from; only reconciled ones can be chosen, the others say why not. */
-export function PopulationPicker({ form, populations, engagementId, currency }: { form: UseFormReturn<PlanFormIn, unknown, PlanFormOut>; populations: PopulationChoice[]; engagementId: number; currency: string }) {
-  const { register, formState: { errors } } = form;
+export function PopulationPicker({
+  form,
+  populations,
+  engagementId,
+  currency,
+}: {
+  form: UseFormReturn<PlanFormIn, unknown, PlanFormOut>;
+  populations: PopulationChoice[];
+  engagementId: number;
+  currency: string;
+}) {
+  const {
+    register,
+    formState: { errors },
+  } = form;
   const blocked = populations.filter((p) => p.status !== "reconciled" && p.status !== "superseded");
   return (
     <div>
@@ -29,19 +42,33 @@ export function PopulationPicker({ form, populations, engagementId, currency }: 
         </Select>
       </Field>
       {blocked.length > 0 && (
-        <div className="-mt-2 mb-3 rounded-md bg-paper-sunk/60 p-3 text-xs text-ink-soft" data-testid="blocked-populations">
+        <div
+          className="-mt-2 mb-3 rounded-md bg-paper-sunk/60 p-3 text-xs text-ink-soft"
+          data-testid="blocked-populations"
+        >
           <p className="font-medium text-ink">Not available until reconciled</p>
           <ul className="mt-1 space-y-0.5">
             {blocked.map((p) => (
               <li key={p.id}>
-                <Link href={`/engagements/${engagementId}/populations/${p.id}`} className="text-ledger-600 link">{p.name}</Link>{" "}
-                ({formatCount(p.rowCount)} items, <Amount value={p.total} currency={currency} />) is {WHY[p.status]}: record its control total and count first.
+                <Link href={`/engagements/${engagementId}/populations/${p.id}`} className="text-ledger-600 link">
+                  {p.name}
+                </Link>{" "}
+                ({formatCount(p.rowCount)} items, <Amount value={p.total} currency={currency} />) is {WHY[p.status]}:
+                record its control total and count first.
               </li>
             ))}
           </ul>
         </div>
       )}
-      {populations.length === 0 && <p className="-mt-2 mb-3 text-xs text-ink-soft">No population is loaded on this engagement yet. <Link href={`/engagements/${engagementId}/populations/new`} className="text-ledger-600 link">Load a ledger</Link> first.</p>}
+      {populations.length === 0 && (
+        <p className="-mt-2 mb-3 text-xs text-ink-soft">
+          No population is loaded on this engagement yet.{" "}
+          <Link href={`/engagements/${engagementId}/populations/new`} className="text-ledger-600 link">
+            Load a ledger
+          </Link>{" "}
+          first.
+        </p>
+      )}
     </div>
   );
 }

@@ -33,7 +33,8 @@ const orNull = (v: string) => (v.trim() === "" ? null : v.trim());
 /** The PATCH body for a row: blanks as null, the version the row was read at. */
 export function saveBodyOf(v: RowValues, version: number, attribute: boolean): SaveBody {
   return {
-    version, status: v.status,
+    version,
+    status: v.status,
     auditedValue: attribute || v.status === "not-auditable" ? null : orNull(v.auditedValue),
     cause: attribute ? null : ((orNull(v.cause) as SaveBody["cause"]) ?? null),
     causeNote: attribute ? null : orNull(v.causeNote),

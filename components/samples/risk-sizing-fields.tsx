@@ -8,8 +8,14 @@ import type { PlanFormIn, PlanFormOut } from "./plan-values";
 import { formatPercent } from "@/lib/format/number";
 
 const riskOptions = [
-  <option key="" value="">Choose…</option>,
-  ...RISK_LEVELS.map((r) => <option key={r} value={r}>{RISK_LEVEL_LABELS[r]}</option>),
+  <option key="" value="">
+    Choose…
+  </option>,
+  ...RISK_LEVELS.map((r) => (
+    <option key={r} value={r}>
+      {RISK_LEVEL_LABELS[r]}
+    </option>
+  )),
 ];
 
 /**
@@ -82,19 +88,14 @@ export function RiskSizingFields({
               method === "attribute" ? "1 − risk of overreliance on the control" : "1 − risk of incorrect acceptance"
             }
           >
-            <PercentInput
-              {...register("params.confidence")}
-            />
+            <PercentInput {...register("params.confidence")} />
           </Field>
           <Field
             label="Reason for typing the confidence"
             error={e?.confidenceReason?.message}
             hint="Kept with the plan; printed in the workpaper."
           >
-            <Textarea
-              rows={2}
-              {...register("params.confidenceReason")}
-            />
+            <Textarea rows={2} {...register("params.confidenceReason")} />
           </Field>
         </>
       )}

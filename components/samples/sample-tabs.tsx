@@ -1,10 +1,22 @@
 "use client";
 import { useEffect, useId, useRef } from "react";
 
-export interface TabDef { id: string; label: string; badge?: React.ReactNode }
+export interface TabDef {
+  id: string;
+  label: string;
+  badge?: React.ReactNode;
+}
 
 /** Accessible tabs (arrow keys move between them); the chosen tab is kept in the address's hash. */
-export function SampleTabs({ tabs, current, onChange }: { tabs: TabDef[]; current: string; onChange: (id: string) => void }) {
+export function SampleTabs({
+  tabs,
+  current,
+  onChange,
+}: {
+  tabs: TabDef[];
+  current: string;
+  onChange: (id: string) => void;
+}) {
   const base = useId();
   const refs = useRef<(HTMLButtonElement | null)[]>([]);
   const arrived = useRef(false);
@@ -30,10 +42,23 @@ export function SampleTabs({ tabs, current, onChange }: { tabs: TabDef[]; curren
       {tabs.map((t, i) => {
         const selected = t.id === current;
         return (
-          <button key={t.id} ref={(el) => { refs.current[i] = el; }} role="tab" type="button" id={`${base}-${t.id}`} aria-selected={selected} aria-controls={`panel-${t.id}`} tabIndex={selected ? 0 : -1}
-            onClick={() => choose(t.id)} onKeyDown={(e) => onKey(e, i)}
-            className={`-mb-px inline-flex items-center gap-2 border-b-2 px-4 py-2.5 text-sm font-medium transition-colors ${selected ? "border-ledger-600 text-ink" : "border-transparent text-ink-soft hover:text-ink"}`}>
-            {t.label}{t.badge}
+          <button
+            key={t.id}
+            ref={(el) => {
+              refs.current[i] = el;
+            }}
+            role="tab"
+            type="button"
+            id={`${base}-${t.id}`}
+            aria-selected={selected}
+            aria-controls={`panel-${t.id}`}
+            tabIndex={selected ? 0 : -1}
+            onClick={() => choose(t.id)}
+            onKeyDown={(e) => onKey(e, i)}
+            className={`-mb-px inline-flex items-center gap-2 border-b-2 px-4 py-2.5 text-sm font-medium transition-colors ${selected ? "border-ledger-600 text-ink" : "border-transparent text-ink-soft hover:text-ink"}`}
+          >
+            {t.label}
+            {t.badge}
           </button>
         );
       })}

@@ -23,7 +23,11 @@ export interface PreviewState {
  */
 export function usePlanPreview(engagementId: number, request: PlanFormIn, delayMs = 350): PreviewState {
   // The direction decides the sides of z_α for classical variables sizes (issue 13): one-sided for one direction.
-  const key = JSON.stringify({ populationId: request.populationId, direction: request.direction, params: request.params });
+  const key = JSON.stringify({
+    populationId: request.populationId,
+    direction: request.direction,
+    params: request.params,
+  });
   const parsed = useMemo(() => PreviewPlanSchema.safeParse(JSON.parse(key)), [key]);
   // The last complete request the auditor stopped changing: only it is sent, and only its answer is shown.
   const settled = useSettled(parsed.success ? key : null, delayMs);
@@ -40,7 +44,7 @@ export function usePlanPreview(engagementId: number, request: PlanFormIn, delayM
     return { plan, problem: issue ? issue.message : "Complete the plan", fields: null, busy: false };
   }
   const problem = error ? error.message || "The size could not be computed" : null;
-  const fields = error instanceof ApiError ? error.fields ?? null : null;
+  const fields = error instanceof ApiError ? (error.fields ?? null) : null;
   return { plan, problem, fields, busy: settled !== key || isValidating };
 }
 

@@ -28,7 +28,13 @@ export async function readErrorAnswer(res: Response): Promise<ErrorAnswer> {
 
 async function toApiError(res: Response): Promise<ApiError> {
   const { error } = await readErrorAnswer(res);
-  return new ApiError(res.status, error?.message ?? `Request failed (${res.status})`, error?.fields, error?.code, error?.problems);
+  return new ApiError(
+    res.status,
+    error?.message ?? `Request failed (${res.status})`,
+    error?.fields,
+    error?.code,
+    error?.problems,
+  );
 }
 
 export interface ApiInit {

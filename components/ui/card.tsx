@@ -1,4 +1,14 @@
-export function Card({ title, action, children, className = "" }: { title?: string; action?: React.ReactNode; children: React.ReactNode; className?: string }) {
+export function Card({
+  title,
+  action,
+  children,
+  className = "",
+}: {
+  title?: string;
+  action?: React.ReactNode;
+  children: React.ReactNode;
+  className?: string;
+}) {
   return (
     <section className={`rounded-card border border-ink-line bg-paper-raised shadow-card ${className}`}>
       {(title || action) && (

@@ -1,4 +1,14 @@
-export function PageHeader({ eyebrow, title, children, actions }: { eyebrow?: string; title: string; children?: React.ReactNode; actions?: React.ReactNode }) {
+export function PageHeader({
+  eyebrow,
+  title,
+  children,
+  actions,
+}: {
+  eyebrow?: string;
+  title: string;
+  children?: React.ReactNode;
+  actions?: React.ReactNode;
+}) {
   return (
     <div className="mb-6 flex flex-wrap items-end justify-between gap-4 border-b border-ink-line pb-5">
       <div>

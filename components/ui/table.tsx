@@ -20,7 +20,9 @@ interface TableProps extends ComponentPropsWithoutRef<"table"> {
 /** A hand-laid table (the data grids have their own): full width, small text unless told, named for assistive technology. */
 export function Table({ label, density, className = "", ...props }: TableProps) {
   const size = /(^|\s)text-(xs|sm|base)(\s|$)/.test(className) ? "" : "text-sm";
-  return <table aria-label={label} className={`w-full ${size} ${density ? DENSITY[density] : ""} ${className}`} {...props} />;
+  return (
+    <table aria-label={label} className={`w-full ${size} ${density ? DENSITY[density] : ""} ${className}`} {...props} />
+  );
 }
 
 /** Column headers: small capitals in the soft ink. */
@@ -44,18 +46,35 @@ const hasWeight = (className: string) => /(^|\s)font-(normal|medium|semibold|bol
 export function Th({ numeric = false, sort, scope = "col", className = "", children, ...props }: ThProps) {
   const classes = `${hasWeight(className) ? "" : "font-semibold"} ${numeric ? "text-right" : "text-left"} ${className}`;
   return (
-    <th scope={scope} aria-sort={sort?.direction ? ARIA_SORT[sort.direction] : undefined} className={classes} {...props}>
+    <th
+      scope={scope}
+      aria-sort={sort?.direction ? ARIA_SORT[sort.direction] : undefined}
+      className={classes}
+      {...props}
+    >
       {sort ? (
-        <button type="button" onClick={sort.onToggle} className="inline-flex items-center gap-1 uppercase hover:text-ink">
+        <button
+          type="button"
+          onClick={sort.onToggle}
+          className="inline-flex items-center gap-1 uppercase hover:text-ink"
+        >
           {children}
-          <span aria-hidden className="text-ink-faint">{sort.direction === "asc" ? "▲" : sort.direction === "desc" ? "▼" : "↕"}</span>
+          <span aria-hidden className="text-ink-faint">
+            {sort.direction === "asc" ? "▲" : sort.direction === "desc" ? "▼" : "↕"}
+          </span>
         </button>
-      ) : children}
+      ) : (
+        children
+      )}
     </th>
   );
 }
 
 /** A body cell; `numeric` sets figures in tabular type, right-aligned. */
-export function Td({ numeric = false, className = "", ...props }: ComponentPropsWithoutRef<"td"> & { numeric?: boolean }) {
+export function Td({
+  numeric = false,
+  className = "",
+  ...props
+}: ComponentPropsWithoutRef<"td"> & { numeric?: boolean }) {
   return <td className={`${numeric ? "figures text-right" : ""} ${className}`} {...props} />;
 }

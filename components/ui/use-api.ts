@@ -6,7 +6,11 @@ import { apiFetch } from "./api";
 export const apiFetcher = <T>(url: string) => apiFetch<T>(url);
 
 /** How every read behaves: no refetch on focus or reconnect (screens refetch after their own writes), no retries. */
-export const API_READ_OPTIONS = { revalidateOnFocus: false, revalidateOnReconnect: false, shouldRetryOnError: false } as const;
+export const API_READ_OPTIONS = {
+  revalidateOnFocus: false,
+  revalidateOnReconnect: false,
+  shouldRetryOnError: false,
+} as const;
 
 export interface ApiRead<T> {
   data: T | undefined;

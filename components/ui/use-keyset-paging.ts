@@ -2,8 +2,16 @@
 import { useCallback, useMemo, useState } from "react";
 
 type Seek = { after: string } | { before: string } | { last: true } | null;
-interface State { pageIndex: number; pageSize: number; seek: Seek }
-interface Cursors { nextCursor?: string | null; prevCursor?: string | null; total: number }
+interface State {
+  pageIndex: number;
+  pageSize: number;
+  seek: Seek;
+}
+interface Cursors {
+  nextCursor?: string | null;
+  prevCursor?: string | null;
+  total: number;
+}
 
 /**
  * Paging by key through an API that answers `nextCursor` / `prevCursor` (lib/validation/keyset.ts):
@@ -35,8 +43,24 @@ export function useKeysetPaging(initialPageSize: number) {
     canPrevious: (page: Cursors | null) => state.pageIndex > 0 && !!page?.prevCursor,
     canNext: (page: Cursors | null) => !!page?.nextCursor,
     first: reset,
-    previous: (page: Cursors | null) => { if (page?.prevCursor) setState((s) => ({ ...s, pageIndex: Math.max(0, s.pageIndex - 1), seek: s.pageIndex <= 1 ? null : { before: page.prevCursor! } })); },
-    next: (page: Cursors | null) => { if (page?.nextCursor) setState((s) => ({ ...s, pageIndex: s.pageIndex + 1, seek: { after: page.nextCursor! } })); },
-    last: (page: Cursors | null) => { if (page) setState((s) => ({ ...s, pageIndex: Math.max(0, Math.ceil(page.total / s.pageSize) - 1), seek: { last: true } })); },
+    previous: (page: Cursors | null) => {
+      if (page?.prevCursor)
+        setState((s) => ({
+          ...s,
+          pageIndex: Math.max(0, s.pageIndex - 1),
+          seek: s.pageIndex <= 1 ? null : { before: page.prevCursor! },
+        }));
+    },
+    next: (page: Cursors | null) => {
+      if (page?.nextCursor) setState((s) => ({ ...s, pageIndex: s.pageIndex + 1, seek: { after: page.nextCursor! } }));
+    },
+    last: (page: Cursors | null) => {
+      if (page)
+        setState((s) => ({
+          ...s,
+          pageIndex: Math.max(0, Math.ceil(page.total / s.pageSize) - 1),
+          seek: { last: true },
+        }));
+    },
   };
 }

@@ -46,6 +46,20 @@ export async function down(knex: Knex): Promise<void> {
     t.dropForeign(["preparer_signed_by"]);
     t.dropForeign(["reviewer_signed_by"]);
     t.dropForeign(["locked_by"]);
-    for (const c of ["preparer_signed_by", "preparer_signed_role", "preparer_signed_at", "reviewer_signed_by", "reviewer_signed_role", "reviewer_signed_at", "locked_by", "locked_at", "workpaper_object_key", "workpaper_sha256", "workpaper_size_bytes", "workpaper_reference"]) t.dropColumn(c);
+    for (const c of [
+      "preparer_signed_by",
+      "preparer_signed_role",
+      "preparer_signed_at",
+      "reviewer_signed_by",
+      "reviewer_signed_role",
+      "reviewer_signed_at",
+      "locked_by",
+      "locked_at",
+      "workpaper_object_key",
+      "workpaper_sha256",
+      "workpaper_size_bytes",
+      "workpaper_reference",
+    ])
+      t.dropColumn(c);
   });
 }

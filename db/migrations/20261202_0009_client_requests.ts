@@ -10,7 +10,9 @@ const AUDITOR_ROLES = "'viewer','staff','senior','manager','partner'";
 export async function up(knex: Knex): Promise<void> {
   await knex.raw(`alter table engagement_members modify role enum(${AUDITOR_ROLES},'client') not null`);
   // Client staff used to sit on teams as viewers; from now on they are client contacts, who see only their requests.
-  await knex.raw("update engagement_members m join users u on u.id = m.user_id set m.role = 'client' where u.grade = 'client'");
+  await knex.raw(
+    "update engagement_members m join users u on u.id = m.user_id set m.role = 'client' where u.grade = 'client'",
+  );
 
   await knex.schema.createTable("request_lists", (t) => {
     t.increments("id").primary();

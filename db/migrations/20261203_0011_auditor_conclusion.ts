@@ -1,6 +1,12 @@
 import type { Knex } from "knex";
 
-const COLUMNS = ["auditor_conclusion", "auditor_responses_json", "auditor_conclusion_by", "auditor_conclusion_role", "auditor_conclusion_at"];
+const COLUMNS = [
+  "auditor_conclusion",
+  "auditor_responses_json",
+  "auditor_conclusion_by",
+  "auditor_conclusion_role",
+  "auditor_conclusion_at",
+];
 
 /** The auditor's own conclusion and response on a sample, apart from the result Sondage computes (issue 13). */
 export async function up(knex: Knex): Promise<void> {

@@ -96,7 +96,14 @@ export async function up(knex: Knex): Promise<void> {
 }
 
 export async function down(knex: Knex): Promise<void> {
-  for (const table of ["misstatement_sample_snapshots", "misstatement_notes", "misstatement_corrections", "misstatement_entry_evidence", "misstatement_entries", "misstatement_summaries"]) {
+  for (const table of [
+    "misstatement_sample_snapshots",
+    "misstatement_notes",
+    "misstatement_corrections",
+    "misstatement_entry_evidence",
+    "misstatement_entries",
+    "misstatement_summaries",
+  ]) {
     await knex.schema.dropTable(table);
   }
 }

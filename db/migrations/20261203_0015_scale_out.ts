@@ -16,7 +16,9 @@ const UPLOAD_STATUSES = ["inspected", "loading", "rejected", "loaded", "expired"
  * - sample_items (draw_id, selection_order): the key the sample grid pages by.
  */
 export async function up(knex: Knex): Promise<void> {
-  await knex.raw(`ALTER TABLE population_uploads MODIFY status ENUM(${[...UPLOAD_STATUSES, "failed"].map((s) => `'${s}'`).join(", ")}) NOT NULL DEFAULT 'inspected'`);
+  await knex.raw(
+    `ALTER TABLE population_uploads MODIFY status ENUM(${[...UPLOAD_STATUSES, "failed"].map((s) => `'${s}'`).join(", ")}) NOT NULL DEFAULT 'inspected'`,
+  );
   await knex.schema.alterTable("population_uploads", (t) => {
     t.string("object_key", 300).nullable();
     t.text("failure_message").nullable();
@@ -80,5 +82,7 @@ export async function down(knex: Knex): Promise<void> {
     t.dropColumn("failure_message");
   });
   await knex("population_uploads").where({ status: "failed" }).update({ status: "rejected" });
-  await knex.raw(`ALTER TABLE population_uploads MODIFY status ENUM(${UPLOAD_STATUSES.map((s) => `'${s}'`).join(", ")}) NOT NULL DEFAULT 'inspected'`);
+  await knex.raw(
+    `ALTER TABLE population_uploads MODIFY status ENUM(${UPLOAD_STATUSES.map((s) => `'${s}'`).join(", ")}) NOT NULL DEFAULT 'inspected'`,
+  );
 }

@@ -12,9 +12,8 @@ cd "$SONDAGE_ROOT"
 echo "== lint (eslint)"
 npm run lint
 
-# The format check joins once the repository's one formatting commit has landed (issue 18, end of session).
-# echo "== format (prettier --check)"
-# npm run format:check
+echo "== format (prettier --check)"
+npm run format:check
 
 echo "== types (tsc --noEmit, the whole project including tests/)"
 npm run typecheck

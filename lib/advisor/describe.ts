@@ -10,12 +10,20 @@ export function scenarioInWords(request: Pick<AdvisorRequest, "scenario" | "scen
   if (scenario.kind === "pattern") {
     return `${pct(scenario.misstatedShare)} of items misstated; ${TAINTING_PATTERN_LABELS[scenario.tainting].toLowerCase()}; ${pct(scenario.overstatementShare)} of them overstated.`;
   }
-  const from = scenarioSource.kind === "previous-sample" ? `"${scenarioSource.sampleName}" (${scenarioSource.results} results)` : "an earlier sample";
+  const from =
+    scenarioSource.kind === "previous-sample"
+      ? `"${scenarioSource.sampleName}" (${scenarioSource.results} results)`
+      : "an earlier sample";
   return `Misstatements as found in ${from}: ${pct(scenario.misstatedShare)} of items misstated, taintings drawn from the ${scenario.taintings.length} seen.`;
 }
 
 export function boundInWords(request: Pick<AdvisorRequest, "confidence" | "sides">): string {
-  const side = request.sides === "two" ? "two-sided" : request.sides === "lower" ? "lower bound on audited value (overstatement)" : "upper bound on audited value (understatement)";
+  const side =
+    request.sides === "two"
+      ? "two-sided"
+      : request.sides === "lower"
+        ? "lower bound on audited value (overstatement)"
+        : "upper bound on audited value (understatement)";
   return `${pct(request.confidence)} ${side}`;
 }
 
@@ -43,9 +51,14 @@ export function methodRationaleBlock(run: AdvisorRunRecord & { keptReason?: stri
     keptReason: run.keptReason ?? null,
     reasons: rec.verdicts.map((v) => v.reason),
     rows: result.cells.map((c) => ({
-      sampleSize: c.sampleSize, estimator: ADVISED_ESTIMATOR_LABELS[c.estimator], recommended: c.sampleSize === rec.sampleSize && c.estimator === rec.recommended,
-      bias: c.performance.bias.toFixed(2), standardDeviation: c.performance.standardDeviation.toFixed(2), rmse: c.performance.rmse.toFixed(2),
-      coverage: c.performance.coverage, meanAllowance: c.performance.meanAllowance.toFixed(2),
+      sampleSize: c.sampleSize,
+      estimator: ADVISED_ESTIMATOR_LABELS[c.estimator],
+      recommended: c.sampleSize === rec.sampleSize && c.estimator === rec.recommended,
+      bias: c.performance.bias.toFixed(2),
+      standardDeviation: c.performance.standardDeviation.toFixed(2),
+      rmse: c.performance.rmse.toFixed(2),
+      coverage: c.performance.coverage,
+      meanAllowance: c.performance.meanAllowance.toFixed(2),
     })),
     coverageFloor: rec.coverageFloor,
     planChanged: run.planVersion !== planVersion,

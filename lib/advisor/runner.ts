@@ -3,7 +3,9 @@ import { Worker } from "node:worker_threads";
 import type { AdvisorJob, AdvisorResult } from "./compute";
 
 export class AdvisorCancelled extends Error {
-  constructor() { super("The advisor run was cancelled."); }
+  constructor() {
+    super("The advisor run was cancelled.");
+  }
 }
 export class AdvisorInputError extends Error {}
 
@@ -34,7 +36,10 @@ const fromSource = !process.env.NEXT_RUNTIME;
 function spawnWorker(job: AdvisorJob): Worker {
   if (fromSource) {
     const source = JSON.stringify(import.meta.url.replace(/runner\.ts$/, "worker.ts"));
-    return new Worker(`import("tsx/esm/api").then(({ tsImport }) => tsImport(${source}, ${source}))`, { eval: true, workerData: job });
+    return new Worker(`import("tsx/esm/api").then(({ tsImport }) => tsImport(${source}, ${source}))`, {
+      eval: true,
+      workerData: job,
+    });
   }
   return new Worker(new URL("./worker.ts", import.meta.url), { workerData: job });
 }
@@ -44,7 +49,11 @@ function spawnWorker(job: AdvisorJob): Worker {
  * result, or rejects with AdvisorCancelled (cancelAdvisorRun), AdvisorInputError (the engine
  * refused the input) or an Error.
  */
-export function runInWorker(runId: number, job: AdvisorJob, onProgress: (done: number, total: number) => void): Promise<AdvisorResult> {
+export function runInWorker(
+  runId: number,
+  job: AdvisorJob,
+  onProgress: (done: number, total: number) => void,
+): Promise<AdvisorResult> {
   return new Promise((resolve, reject) => {
     const worker = spawnWorker(job);
     running.set(runId, worker);
@@ -55,15 +64,32 @@ export function runInWorker(runId: number, job: AdvisorJob, onProgress: (done: n
       running.delete(runId);
       fn();
     };
-    worker.on("message", (m: { type: string; done?: number; total?: number; result?: AdvisorResult; message?: string; range?: boolean }) => {
-      if (m.type === "progress") onProgress(m.done!, m.total!);
-      else if (m.type === "result") settle(() => resolve(m.result!));
-      else if (m.type === "error") settle(() => reject(m.range ? new AdvisorInputError(m.message) : new Error(m.message)));
-    });
+    worker.on(
+      "message",
+      (m: {
+        type: string;
+        done?: number;
+        total?: number;
+        result?: AdvisorResult;
+        message?: string;
+        range?: boolean;
+      }) => {
+        if (m.type === "progress") onProgress(m.done!, m.total!);
+        else if (m.type === "result") settle(() => resolve(m.result!));
+        else if (m.type === "error")
+          settle(() => reject(m.range ? new AdvisorInputError(m.message) : new Error(m.message)));
+      },
+    );
     worker.on("error", (err) => settle(() => reject(err)));
-    worker.on("exit", (code) => settle(() => {
-      const wasCancelled = cancelled.delete(runId);
-      reject(wasCancelled ? new AdvisorCancelled() : new Error(`The advisor worker stopped unexpectedly (exit code ${code}).`));
-    }));
+    worker.on("exit", (code) =>
+      settle(() => {
+        const wasCancelled = cancelled.delete(runId);
+        reject(
+          wasCancelled
+            ? new AdvisorCancelled()
+            : new Error(`The advisor worker stopped unexpectedly (exit code ${code}).`),
+        );
+      }),
+    );
   });
 }

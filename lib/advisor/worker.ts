@@ -14,5 +14,9 @@ try {
   });
   parentPort!.postMessage({ type: "result", result });
 } catch (err) {
-  parentPort!.postMessage({ type: "error", message: err instanceof Error ? err.message : String(err), range: err instanceof EngineInputError });
+  parentPort!.postMessage({
+    type: "error",
+    message: err instanceof Error ? err.message : String(err),
+    range: err instanceof EngineInputError,
+  });
 }

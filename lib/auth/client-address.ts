@@ -13,10 +13,15 @@ import "server-only";
  * only its users' machines reach it, and the rightmost entry (Next's socket address when the client
  * sent no header) is used. Either way the per-account limit holds regardless of the header.
  */
-export function clientAddress(headers: Record<string, unknown> | undefined, trustedProxies = parseTrustedProxies(process.env.TRUSTED_PROXY)): string {
+export function clientAddress(
+  headers: Record<string, unknown> | undefined,
+  trustedProxies = parseTrustedProxies(process.env.TRUSTED_PROXY),
+): string {
   const raw = headers?.["x-forwarded-for"];
   const chain = (Array.isArray(raw) ? raw.join(",") : typeof raw === "string" ? raw : "")
-    .split(",").map((a) => normalise(a.trim())).filter(Boolean);
+    .split(",")
+    .map((a) => normalise(a.trim()))
+    .filter(Boolean);
   for (let i = chain.length - 1; i >= 0; i--) {
     if (!trustedProxies.has(chain[i])) return chain[i];
   }
@@ -24,7 +29,12 @@ export function clientAddress(headers: Record<string, unknown> | undefined, trus
 }
 
 export function parseTrustedProxies(setting: string | undefined): Set<string> {
-  return new Set((setting ?? "").split(",").map((a) => normalise(a.trim())).filter(Boolean));
+  return new Set(
+    (setting ?? "")
+      .split(",")
+      .map((a) => normalise(a.trim()))
+      .filter(Boolean),
+  );
 }
 
 /** "::ffff:127.0.0.1" and "127.0.0.1" are one address. */

@@ -11,7 +11,9 @@ export const SESSION_MAX_AGE_SECONDS = 8 * 60 * 60; // one working day
 /** True when the user's sessions issued at `issuedAtSeconds` (the JWT's iat) were ended by a password reset. */
 export async function sessionEnded(userId: number, issuedAtSeconds: number): Promise<boolean> {
   if (!Number.isFinite(userId) || !Number.isFinite(issuedAtSeconds)) return true;
-  const row = await getDb()("users").where({ id: userId }).first<{ sessions_valid_after: Date | string | null } | undefined>("sessions_valid_after");
+  const row = await getDb()("users")
+    .where({ id: userId })
+    .first<{ sessions_valid_after: Date | string | null } | undefined>("sessions_valid_after");
   const validAfter = row?.sessions_valid_after ? new Date(row.sessions_valid_after).getTime() : null;
   return validAfter !== null && issuedAtSeconds * 1000 < Math.floor(validAfter / 1000) * 1000;
 }
@@ -21,7 +23,10 @@ export async function sessionEnded(userId: number, issuedAtSeconds: number): Pro
  * restart): a blip must neither sign the person out (next-auth clears the cookie when a callback
  * throws) nor let an ended session through — getSessionUserId answers 503 instead.
  */
-export async function sessionState(userId: number, issuedAtSeconds: number): Promise<"valid" | "ended" | "unavailable"> {
+export async function sessionState(
+  userId: number,
+  issuedAtSeconds: number,
+): Promise<"valid" | "ended" | "unavailable"> {
   try {
     return (await sessionEnded(userId, issuedAtSeconds)) ? "ended" : "valid";
   } catch (err) {
@@ -49,7 +54,8 @@ export const authOptions: NextAuthOptions = {
     async jwt({ token, user }) {
       if (user) token.uid = Number(user.id);
       // An ended session must not come back when its token is re-issued (with a fresh iat): drop the user from it.
-      else if (token.uid !== undefined && (await sessionState(Number(token.uid), Number(token.iat))) === "ended") delete token.uid;
+      else if (token.uid !== undefined && (await sessionState(Number(token.uid), Number(token.iat))) === "ended")
+        delete token.uid;
       return token;
     },
     async session({ session, token }) {

@@ -17,7 +17,10 @@ const loadSessionUser = cache(async (): Promise<UserRecord | null> => {
 /** The user's role on an engagement and the engagement, read once per request (React cache). */
 const loadEngagementAccess = cache(async (engagementId: number, userId: number) => {
   const db = getDb();
-  const [role, engagement] = await Promise.all([getMembershipRole(db, { engagementId, userId }), getEngagementById(db, { engagementId })]);
+  const [role, engagement] = await Promise.all([
+    getMembershipRole(db, { engagementId, userId }),
+    getEngagementById(db, { engagementId }),
+  ]);
   return { role, engagement };
 });
 
@@ -46,7 +49,11 @@ export async function requireClientPageUser(): Promise<UserRecord> {
  * For engagement pages: the engagement and the user's auditor role on it; not-found for
  * non-members and for client contacts alike (the same rule as decideEngagementAccess).
  */
-export async function requireEngagementPage(engagementIdParam: string): Promise<{ user: UserRecord; role: EngagementRole; engagement: NonNullable<Awaited<ReturnType<typeof getEngagementById>>> }> {
+export async function requireEngagementPage(engagementIdParam: string): Promise<{
+  user: UserRecord;
+  role: EngagementRole;
+  engagement: NonNullable<Awaited<ReturnType<typeof getEngagementById>>>;
+}> {
   const user = await requirePageUser();
   const engagementId = Number(engagementIdParam);
   if (!Number.isSafeInteger(engagementId) || engagementId <= 0) notFound();

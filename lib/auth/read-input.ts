@@ -7,7 +7,10 @@ export const MAX_JSON_BODY_BYTES = 256 * 1024;
 /** Deeper JSON than any schema of ours describes is refused before it reaches zod. */
 export const MAX_JSON_DEPTH = 32;
 
-const tooLarge = () => new AppError(413, "body_too_large", `body: the request body is over ${MAX_JSON_BODY_BYTES / 1024} kB`, { body: ["Too large"] });
+const tooLarge = () =>
+  new AppError(413, "body_too_large", `body: the request body is over ${MAX_JSON_BODY_BYTES / 1024} kB`, {
+    body: ["Too large"],
+  });
 
 async function readCappedText(req: Request): Promise<string> {
   const body = await readCappedBody(req, MAX_JSON_BODY_BYTES, tooLarge);
@@ -16,7 +19,9 @@ async function readCappedText(req: Request): Promise<string> {
 
 /** Nesting depth of a JSON text, counted on the brackets outside strings (no recursion). */
 export function jsonDepth(text: string): number {
-  let depth = 0, max = 0, inString = false;
+  let depth = 0,
+    max = 0,
+    inString = false;
   for (let i = 0; i < text.length; i++) {
     const c = text[i];
     if (inString) {
@@ -37,7 +42,9 @@ export async function readInput(req: Request): Promise<unknown> {
   const text = await readCappedText(req);
   if (text.trim() === "") return {};
   if (jsonDepth(text) > MAX_JSON_DEPTH) {
-    throw new AppError(400, "too_deep", `body: JSON nested deeper than ${MAX_JSON_DEPTH} levels`, { body: ["Nested too deeply"] });
+    throw new AppError(400, "too_deep", `body: JSON nested deeper than ${MAX_JSON_DEPTH} levels`, {
+      body: ["Nested too deeply"],
+    });
   }
   try {
     return JSON.parse(text);

@@ -14,7 +14,13 @@ export const GRADES = ["staff", "senior", "manager", "partner", "client"] as con
 export type Grade = (typeof GRADES)[number];
 
 /** Grades as people say them. */
-export const GRADE_LABELS: Record<Grade, string> = { staff: "Staff", senior: "Senior", manager: "Manager", partner: "Partner", client: "Client contact" };
+export const GRADE_LABELS: Record<Grade, string> = {
+  staff: "Staff",
+  senior: "Senior",
+  manager: "Manager",
+  partner: "Partner",
+  client: "Client contact",
+};
 
 export const FIRM_ROLES = ["admin", "member"] as const;
 export type FirmRole = (typeof FIRM_ROLES)[number];

@@ -17,7 +17,9 @@ export async function verifyCredentials(db: Knex, raw: unknown, ip: string): Pro
   if (block) {
     await recordSignInAttempt(db, { email, ip, succeeded: false, reason: `blocked-${block.scope}` });
     const who = block.scope === "account" ? "this account" : "this network address";
-    throw new SignInError(`Too many failed sign-ins for ${who}. Try again in ${block.retryAfterMinutes} minute${block.retryAfterMinutes === 1 ? "" : "s"}.`);
+    throw new SignInError(
+      `Too many failed sign-ins for ${who}. Try again in ${block.retryAfterMinutes} minute${block.retryAfterMinutes === 1 ? "" : "s"}.`,
+    );
   }
 
   const found = await getUserCredentialsByEmail(db, { email });

@@ -10,8 +10,14 @@ import { getSessionUserId } from "./session-user";
 type RouteParams = { params: Promise<Record<string, string>> };
 
 /** What every route handler gets before its access rule has run. */
-export interface RequestContext { db: Knex; req: Request; params: Record<string, string> }
-export interface UserContext extends RequestContext { user: UserRecord }
+export interface RequestContext {
+  db: Knex;
+  req: Request;
+  params: Record<string, string>;
+}
+export interface UserContext extends RequestContext {
+  user: UserRecord;
+}
 
 /**
  * Who may call a route: from the request, the context the handler works with, or a thrown 401, 403
@@ -29,7 +35,12 @@ export type InputSource = "body" | "query";
  * field) → handler → JSON answer (204 when the handler returns nothing). Anything thrown becomes the
  * error answer `{ error: { code, message, fields? } }`.
  */
-export function withAccess<S extends z.ZodType, C>(rule: AccessRule<C>, schema: S, handler: Handler<S, C>, source: InputSource = "body") {
+export function withAccess<S extends z.ZodType, C>(
+  rule: AccessRule<C>,
+  schema: S,
+  handler: Handler<S, C>,
+  source: InputSource = "body",
+) {
   return async (req: Request, route: RouteParams): Promise<Response> => {
     try {
       assertSameSite(req);

@@ -6,7 +6,9 @@ import { parseIdParam } from "./access";
 import { signedInUser, withAccess, type AccessRule, type Handler, type UserContext } from "./with-access";
 
 export type ClientContext = UserContext;
-export interface ClientRequestContext extends ClientContext { list: RequestListRow }
+export interface ClientRequestContext extends ClientContext {
+  list: RequestListRow;
+}
 
 /**
  * Access rule of the client's side of Sondage: session (401) → the request list named by `listId`,
@@ -15,7 +17,10 @@ export interface ClientRequestContext extends ClientContext { list: RequestListR
  */
 export const clientRequestList: AccessRule<ClientRequestContext> = async (request) => {
   const ctx = await signedInUser()(request);
-  const list = await getRequestListRowForContact(ctx.db, { listId: parseIdParam(ctx.params.listId, "request list"), contactUserId: ctx.user.id });
+  const list = await getRequestListRowForContact(ctx.db, {
+    listId: parseIdParam(ctx.params.listId, "request list"),
+    contactUserId: ctx.user.id,
+  });
   if (!list) throw notFound("No such request list");
   return { ...ctx, list };
 };
@@ -25,7 +30,10 @@ export function withClientRequest<S extends z.ZodType>(schema: S, handler: Handl
 }
 
 /** The same checks for uploads, whose body the handler reads itself; the query string is validated. */
-export function withClientRequestStreaming<S extends z.ZodType>(querySchema: S, handler: Handler<S, ClientRequestContext>) {
+export function withClientRequestStreaming<S extends z.ZodType>(
+  querySchema: S,
+  handler: Handler<S, ClientRequestContext>,
+) {
   return withAccess(clientRequestList, querySchema, handler, "query");
 }
 

@@ -10,7 +10,10 @@ import { signedInUser, withAccess, type AccessRule, type Handler, type UserConte
 
 export { assertSameSite, type UserContext } from "./with-access";
 
-export interface EngagementContext extends UserContext { engagementId: number; role: EngagementRole }
+export interface EngagementContext extends UserContext {
+  engagementId: number;
+  role: EngagementRole;
+}
 
 /**
  * Access rule of every engagement route: session (401) → membership (404) → role (403). The
@@ -21,7 +24,10 @@ export function engagementRole(leastRole: EngagementRole): AccessRule<Engagement
     const userId = await getSessionUserId();
     if (userId === null) throw unauthorised();
     const engagementId = parseIdParam(request.params.engagementId, "engagement");
-    const [user, membershipRole] = await Promise.all([getUserById(request.db, { userId }), getMembershipRole(request.db, { engagementId, userId })]);
+    const [user, membershipRole] = await Promise.all([
+      getUserById(request.db, { userId }),
+      getMembershipRole(request.db, { engagementId, userId }),
+    ]);
     const role = decideEngagementAccess({ userId, userActive: Boolean(user?.active), membershipRole }, leastRole);
     return { ...request, user: user!, engagementId, role };
   };
@@ -34,20 +40,40 @@ export function withUser<S extends z.ZodType>(schema: S, handler: Handler<S, Use
 
 /** A signed-in firm administrator. */
 export function withFirmAdmin<S extends z.ZodType>(schema: S, handler: Handler<S, UserContext>) {
-  return withAccess(signedInUser((user) => { if (user.firmRole !== "admin") throw forbidden("Only firm administrators may do this."); }), schema, handler);
+  return withAccess(
+    signedInUser((user) => {
+      if (user.firmRole !== "admin") throw forbidden("Only firm administrators may do this.");
+    }),
+    schema,
+    handler,
+  );
 }
 
 /** A signed-in member of the audit firm: client staff (grade client) are refused with 403. */
 export function withAuditor<S extends z.ZodType>(schema: S, handler: Handler<S, UserContext>) {
-  return withAccess(signedInUser((user) => { if (user.grade === "client") throw forbidden("Client contacts see only their own request lists."); }), schema, handler);
+  return withAccess(
+    signedInUser((user) => {
+      if (user.grade === "client") throw forbidden("Client contacts see only their own request lists.");
+    }),
+    schema,
+    handler,
+  );
 }
 
 /** An engagement route: session (401) → membership (404) → role (403) → input (400 naming the field) → handler. */
-export function withEngagementRole<S extends z.ZodType>(schema: S, leastRole: EngagementRole, handler: Handler<S, EngagementContext>) {
+export function withEngagementRole<S extends z.ZodType>(
+  schema: S,
+  leastRole: EngagementRole,
+  handler: Handler<S, EngagementContext>,
+) {
   return withAccess(engagementRole(leastRole), schema, handler);
 }
 
 /** The same checks for handlers that read the request body themselves (file uploads); the query string is validated. */
-export function withEngagementRoleStreaming<S extends z.ZodType>(querySchema: S, leastRole: EngagementRole, handler: Handler<S, EngagementContext>) {
+export function withEngagementRoleStreaming<S extends z.ZodType>(
+  querySchema: S,
+  leastRole: EngagementRole,
+  handler: Handler<S, EngagementContext>,
+) {
   return withAccess(engagementRole(leastRole), querySchema, handler, "query");
 }

@@ -38,13 +38,25 @@ export interface AuditRow {
   after: unknown;
 }
 
-export async function listAuditByEngagementId(db: Knex, { engagementId, limit = 200 }: { engagementId: number; limit?: number }): Promise<AuditRow[]> {
+export async function listAuditByEngagementId(
+  db: Knex,
+  { engagementId, limit = 200 }: { engagementId: number; limit?: number },
+): Promise<AuditRow[]> {
   const rows = await db("audit_log as a")
     .leftJoin("users as u", "u.id", "a.actor_user_id")
     .where("a.engagement_id", engagementId)
     .orderBy("a.id", "desc")
     .limit(limit)
-    .select("a.id", "a.at", "u.name as actorName", "a.entity", "a.entity_id as entityId", "a.action", "a.before_json", "a.after_json");
+    .select(
+      "a.id",
+      "a.at",
+      "u.name as actorName",
+      "a.entity",
+      "a.entity_id as entityId",
+      "a.action",
+      "a.before_json",
+      "a.after_json",
+    );
   return rows.map((r) => ({
     id: Number(r.id),
     at: new Date(r.at).toISOString(),

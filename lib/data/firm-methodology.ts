@@ -12,7 +12,10 @@ export interface MethodologyVersion {
 }
 
 /** The firm's current methodology settings: its latest saved version, or the defaults as version 0. */
-export async function getMethodologyByFirmId(db: Knex | Knex.Transaction, { firmId }: { firmId: number }): Promise<MethodologyVersion> {
+export async function getMethodologyByFirmId(
+  db: Knex | Knex.Transaction,
+  { firmId }: { firmId: number },
+): Promise<MethodologyVersion> {
   const row = await db("firm_methodology as m")
     .leftJoin("users as u", "u.id", "m.created_by")
     .where("m.firm_id", firmId)
@@ -38,7 +41,12 @@ export async function saveMethodologyForFirm(
     await trx("firms").where({ id: firmId }).forUpdate().first("id"); // one writer of the next version at a time
     const latest = await trx("firm_methodology").where({ firm_id: firmId }).max({ v: "version" }).first();
     const version = Number(latest?.v ?? 0) + 1;
-    await trx("firm_methodology").insert({ firm_id: firmId, version, settings_json: JSON.stringify(settings), created_by: actorId });
+    await trx("firm_methodology").insert({
+      firm_id: firmId,
+      version,
+      settings_json: JSON.stringify(settings),
+      created_by: actorId,
+    });
     await recordAudit(trx, {
       actorUserId: actorId,
       entity: "firm_methodology",
@@ -51,28 +59,49 @@ export async function saveMethodologyForFirm(
   });
 }
 
-export interface MethodologyChange { version: number; changedBy: string | null; changedAt: string; changes: { field: string; from: string; to: string }[] }
+export interface MethodologyChange {
+  version: number;
+  changedBy: string | null;
+  changedAt: string;
+  changes: { field: string; from: string; to: string }[];
+}
 
 /** Flattens settings to "path → value" so two versions can be compared field by field. */
 function flatten(value: unknown, path = ""): Map<string, string> {
   const out = new Map<string, string>();
   if (value !== null && typeof value === "object") {
-    for (const [k, v] of Object.entries(value as Record<string, unknown>)) for (const [p, x] of flatten(v, path ? `${path}.${k}` : k)) out.set(p, x);
+    for (const [k, v] of Object.entries(value as Record<string, unknown>))
+      for (const [p, x] of flatten(v, path ? `${path}.${k}` : k)) out.set(p, x);
   } else out.set(path, JSON.stringify(value));
   return out;
 }
 
 /** Every saved version of the firm's settings, newest first, with who saved it, when, and what changed from the one before. */
-export async function listMethodologyChangesByFirmId(db: Knex, { firmId }: { firmId: number }): Promise<MethodologyChange[]> {
-  const rows: { version: number; settings_json: unknown; created_at: string; created_by_name: string | null }[] = await db("firm_methodology as m")
-    .leftJoin("users as u", "u.id", "m.created_by").where("m.firm_id", firmId).orderBy("m.version", "asc")
-    .select("m.version", "m.settings_json", "m.created_at", "u.name as created_by_name");
+export async function listMethodologyChangesByFirmId(
+  db: Knex,
+  { firmId }: { firmId: number },
+): Promise<MethodologyChange[]> {
+  const rows: { version: number; settings_json: unknown; created_at: string; created_by_name: string | null }[] =
+    await db("firm_methodology as m")
+      .leftJoin("users as u", "u.id", "m.created_by")
+      .where("m.firm_id", firmId)
+      .orderBy("m.version", "asc")
+      .select("m.version", "m.settings_json", "m.created_at", "u.name as created_by_name");
   let previous = flatten(DEFAULT_METHODOLOGY);
   const changes: MethodologyChange[] = [];
   for (const r of rows) {
-    const current = flatten(withMethodologyDefaults(typeof r.settings_json === "string" ? JSON.parse(r.settings_json) : r.settings_json));
-    const diff = [...current].filter(([k, v]) => previous.get(k) !== v).map(([field, to]) => ({ field, from: previous.get(field) ?? "—", to }));
-    changes.push({ version: Number(r.version), changedBy: r.created_by_name ?? null, changedAt: new Date(r.created_at).toISOString(), changes: diff });
+    const current = flatten(
+      withMethodologyDefaults(typeof r.settings_json === "string" ? JSON.parse(r.settings_json) : r.settings_json),
+    );
+    const diff = [...current]
+      .filter(([k, v]) => previous.get(k) !== v)
+      .map(([field, to]) => ({ field, from: previous.get(field) ?? "—", to }));
+    changes.push({
+      version: Number(r.version),
+      changedBy: r.created_by_name ?? null,
+      changedAt: new Date(r.created_at).toISOString(),
+      changes: diff,
+    });
     previous = current;
   }
   return changes.reverse();

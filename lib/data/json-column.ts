@@ -9,7 +9,9 @@ export function parseJsonColumn<S extends z.ZodType>(schema: S, value: unknown, 
   const data: unknown = typeof value === "string" ? JSON.parse(value) : value;
   const parsed = schema.safeParse(data);
   if (!parsed.success) {
-    throw new Error(`${column}: the stored JSON does not fit its schema (${parsed.error.issues.map((i) => `${i.path.join(".") || "(root)"}: ${i.message}`).join("; ")})`);
+    throw new Error(
+      `${column}: the stored JSON does not fit its schema (${parsed.error.issues.map((i) => `${i.path.join(".") || "(root)"}: ${i.message}`).join("; ")})`,
+    );
   }
   return parsed.data;
 }

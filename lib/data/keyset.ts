@@ -3,7 +3,11 @@ import type { Knex } from "knex";
 import { encodeCursor, type Cursor, type CursorValue } from "@/lib/validation/keyset";
 
 /** How a grid is ordered: a sort column, and a unique key that breaks ties (it may be the same column). */
-export interface SeekOrder { column: string; key: string; dir: "asc" | "desc" }
+export interface SeekOrder {
+  column: string;
+  key: string;
+  dir: "asc" | "desc";
+}
 
 /** Where a page starts: the first page, after/before a cursor, the last page (with its row count), or a plain offset. */
 export type SeekFrom =
@@ -14,7 +18,10 @@ export type SeekFrom =
   | { kind: "offset"; offset: number };
 
 /** Where the page starts, from the query: a cursor, the last page, or (no cursor) the page number as an offset. */
-export function seekFromQuery(query: { after?: Cursor; before?: Cursor; last: boolean; page: number; pageSize: number }, total: number): SeekFrom {
+export function seekFromQuery(
+  query: { after?: Cursor; before?: Cursor; last: boolean; page: number; pageSize: number },
+  total: number,
+): SeekFrom {
   if (query.after) return { kind: "after", cursor: query.after };
   if (query.before) return { kind: "before", cursor: query.before };
   if (query.last) {
@@ -33,17 +40,28 @@ function beyond(query: Knex.QueryBuilder, order: SeekOrder, dir: "asc" | "desc",
     query.andWhere(order.key, op, cursor.key);
     return;
   }
-  query.andWhere(order.column, `${op}=`, cursor.value)
-    .andWhere((w) => { w.where(order.column, op, cursor.value).orWhere(order.key, op, cursor.key); });
+  query.andWhere(order.column, `${op}=`, cursor.value).andWhere((w) => {
+    w.where(order.column, op, cursor.value).orWhere(order.key, op, cursor.key);
+  });
 }
 
-export interface SeekResult<R> { rows: R[]; nextCursor: string | null; prevCursor: string | null }
+export interface SeekResult<R> {
+  rows: R[];
+  nextCursor: string | null;
+  prevCursor: string | null;
+}
 
 /**
  * One page of `query` by keyset: the query must already hold its filters and select; this adds the
  * seek condition, the order and the limit. `cursorOf` reads a row's sort value and key.
  */
-export async function seekPage<R>(query: Knex.QueryBuilder, order: SeekOrder, from: SeekFrom, pageSize: number, cursorOf: (row: R) => { value: CursorValue; key: number }): Promise<SeekResult<R>> {
+export async function seekPage<R>(
+  query: Knex.QueryBuilder,
+  order: SeekOrder,
+  from: SeekFrom,
+  pageSize: number,
+  cursorOf: (row: R) => { value: CursorValue; key: number },
+): Promise<SeekResult<R>> {
   const backward = from.kind === "before" || from.kind === "last";
   const dir = backward ? flip(order.dir) : order.dir;
   if (from.kind === "after") beyond(query, order, dir, from.cursor);
@@ -60,7 +78,11 @@ export async function seekPage<R>(query: Knex.QueryBuilder, order: SeekOrder, fr
   const cursor = (row: R | undefined) => (row === undefined ? null : encodeCursor(cursorOf(row)));
   if (backward) {
     const hasPrev = from.kind === "before" ? more : from.hasEarlier;
-    return { rows, prevCursor: hasPrev ? cursor(rows[0]) : null, nextCursor: from.kind === "before" ? cursor(rows.at(-1)) : null };
+    return {
+      rows,
+      prevCursor: hasPrev ? cursor(rows[0]) : null,
+      nextCursor: from.kind === "before" ? cursor(rows.at(-1)) : null,
+    };
   }
   const hasPrev = from.kind === "after" || (from.kind === "offset" && from.offset > 0);
   return { rows, nextCursor: more ? cursor(rows.at(-1)) : null, prevCursor: hasPrev ? cursor(rows[0]) : null };

@@ -14,77 +14,153 @@ export interface MemberRecord {
   addedAt: string;
 }
 
-export async function getMembershipRole(db: Knex, { engagementId, userId }: { engagementId: number; userId: number }): Promise<MembershipRole | null> {
+export async function getMembershipRole(
+  db: Knex,
+  { engagementId, userId }: { engagementId: number; userId: number },
+): Promise<MembershipRole | null> {
   const row = await db("engagement_members").where({ engagement_id: engagementId, user_id: userId }).first("role");
   return row ? row.role : null;
 }
 
 /** The audit team; client contacts are listed apart (lib/requests/contacts.ts). */
-export async function listMembersByEngagementId(db: Knex, { engagementId }: { engagementId: number }): Promise<MemberRecord[]> {
+export async function listMembersByEngagementId(
+  db: Knex,
+  { engagementId }: { engagementId: number },
+): Promise<MemberRecord[]> {
   const rows = await db("engagement_members as m")
     .join("users as u", "u.id", "m.user_id")
     .where("m.engagement_id", engagementId)
     .whereNot("m.role", CLIENT_ROLE)
     .orderByRaw("field(m.role, 'partner','manager','senior','staff','viewer'), u.name")
     .select("u.id as userId", "u.name", "u.email", "u.grade", "u.active", "m.role", "m.added_at as addedAt");
-  return rows.map((r) => ({ ...r, userId: Number(r.userId), active: Boolean(r.active), addedAt: new Date(r.addedAt).toISOString() }));
+  return rows.map((r) => ({
+    ...r,
+    userId: Number(r.userId),
+    active: Boolean(r.active),
+    addedAt: new Date(r.addedAt).toISOString(),
+  }));
 }
 
-interface MemberChange { engagementId: number; actorId: number; actorRole: EngagementRole; userId: number }
+interface MemberChange {
+  engagementId: number;
+  actorId: number;
+  actorRole: EngagementRole;
+  userId: number;
+}
 
 function assertMayGrant(actorRole: EngagementRole, role: MembershipRole) {
   if (role === CLIENT_ROLE) throw clientOnTeam();
   if (!hasAtLeastRole(actorRole, role)) throw forbidden(`A ${actorRole} cannot give the ${role} role`);
 }
 
-const clientOnTeam = () => fieldError("userId",
-  "client staff are not part of the audit team; invite them as a client contact from a sample's client requests",
-  "Client staff join as client contacts, from a sample's client requests");
+const clientOnTeam = () =>
+  fieldError(
+    "userId",
+    "client staff are not part of the audit team; invite them as a client contact from a sample's client requests",
+    "Client staff join as client contacts, from a sample's client requests",
+  );
 
 /** Keeps at least one manager or partner on every engagement, so someone can always review and lock. */
 async function assertReviewerRemains(trx: Knex.Transaction, engagementId: number, exceptUserId: number) {
   const row = await trx("engagement_members")
-    .where({ engagement_id: engagementId }).whereIn("role", ["manager", "partner"]).whereNot({ user_id: exceptUserId })
-    .count({ n: "*" }).first();
-  if (Number(row?.n ?? 0) === 0) throw new AppError(409, "last_reviewer", "An engagement needs at least one manager or partner");
+    .where({ engagement_id: engagementId })
+    .whereIn("role", ["manager", "partner"])
+    .whereNot({ user_id: exceptUserId })
+    .count({ n: "*" })
+    .first();
+  if (Number(row?.n ?? 0) === 0)
+    throw new AppError(409, "last_reviewer", "An engagement needs at least one manager or partner");
 }
 
 /** Adds a member; `inTransaction` runs before the commit (the invitation is queued there, so it commits with the addition). */
-export async function addMember(db: Knex, { engagementId, actorId, actorRole, userId, role, firmId, inTransaction }: MemberChange & { role: EngagementRole; firmId: number; inTransaction?: (trx: Knex.Transaction) => Promise<unknown> }) {
+export async function addMember(
+  db: Knex,
+  {
+    engagementId,
+    actorId,
+    actorRole,
+    userId,
+    role,
+    firmId,
+    inTransaction,
+  }: MemberChange & {
+    role: EngagementRole;
+    firmId: number;
+    inTransaction?: (trx: Knex.Transaction) => Promise<unknown>;
+  },
+) {
   assertMayGrant(actorRole, role);
   return db.transaction(async (trx) => {
     const user = await trx("users").where({ id: userId, firm_id: firmId, active: true }).first("id", "grade");
-    if (!user) throw fieldError("userId", "no active user with that id in your firm", "No active user with that id in your firm");
+    if (!user)
+      throw fieldError(
+        "userId",
+        "no active user with that id in your firm",
+        "No active user with that id in your firm",
+      );
     if (user.grade === "client") throw clientOnTeam();
-    const existing = await trx("engagement_members").where({ engagement_id: engagementId, user_id: userId }).first("role");
+    const existing = await trx("engagement_members")
+      .where({ engagement_id: engagementId, user_id: userId })
+      .first("role");
     if (existing) throw new AppError(409, "already_member", "That person is already on the team");
     await trx("engagement_members").insert({ engagement_id: engagementId, user_id: userId, role });
-    await recordAudit(trx, { actorUserId: actorId, engagementId, entity: "engagement_member", entityId: `${engagementId}:${userId}`, action: "add", after: { userId, role } });
+    await recordAudit(trx, {
+      actorUserId: actorId,
+      engagementId,
+      entity: "engagement_member",
+      entityId: `${engagementId}:${userId}`,
+      action: "add",
+      after: { userId, role },
+    });
     await inTransaction?.(trx);
   });
 }
 
-export async function changeMemberRole(db: Knex, { engagementId, actorId, actorRole, userId, role }: MemberChange & { role: EngagementRole }) {
+export async function changeMemberRole(
+  db: Knex,
+  { engagementId, actorId, actorRole, userId, role }: MemberChange & { role: EngagementRole },
+) {
   assertMayGrant(actorRole, role);
   return db.transaction(async (trx) => {
-    const existing = await trx("engagement_members as m").join("users as u", "u.id", "m.user_id")
-      .where({ "m.engagement_id": engagementId, "m.user_id": userId }).forUpdate().first("m.role", "u.grade");
+    const existing = await trx("engagement_members as m")
+      .join("users as u", "u.id", "m.user_id")
+      .where({ "m.engagement_id": engagementId, "m.user_id": userId })
+      .forUpdate()
+      .first("m.role", "u.grade");
     if (!existing) throw notFound("That person is not on the team");
     assertMayGrant(actorRole, existing.role);
     if (existing.role === CLIENT_ROLE || existing.grade === "client") throw clientOnTeam();
     if (!hasAtLeastRole(role, "manager")) await assertReviewerRemains(trx, engagementId, userId);
     await trx("engagement_members").where({ engagement_id: engagementId, user_id: userId }).update({ role });
-    await recordAudit(trx, { actorUserId: actorId, engagementId, entity: "engagement_member", entityId: `${engagementId}:${userId}`, action: "change-role", before: { role: existing.role }, after: { role } });
+    await recordAudit(trx, {
+      actorUserId: actorId,
+      engagementId,
+      entity: "engagement_member",
+      entityId: `${engagementId}:${userId}`,
+      action: "change-role",
+      before: { role: existing.role },
+      after: { role },
+    });
   });
 }
 
 export async function removeMember(db: Knex, { engagementId, actorId, actorRole, userId }: MemberChange) {
   return db.transaction(async (trx) => {
-    const existing = await trx("engagement_members").where({ engagement_id: engagementId, user_id: userId }).forUpdate().first("role");
+    const existing = await trx("engagement_members")
+      .where({ engagement_id: engagementId, user_id: userId })
+      .forUpdate()
+      .first("role");
     if (!existing) throw notFound("That person is not on the team");
     if (existing.role !== CLIENT_ROLE) assertMayGrant(actorRole, existing.role);
     await assertReviewerRemains(trx, engagementId, userId);
     await trx("engagement_members").where({ engagement_id: engagementId, user_id: userId }).delete();
-    await recordAudit(trx, { actorUserId: actorId, engagementId, entity: "engagement_member", entityId: `${engagementId}:${userId}`, action: "remove", before: { userId, role: existing.role } });
+    await recordAudit(trx, {
+      actorUserId: actorId,
+      engagementId,
+      entity: "engagement_member",
+      entityId: `${engagementId}:${userId}`,
+      action: "remove",
+      before: { userId, role: existing.role },
+    });
   });
 }

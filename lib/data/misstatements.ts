@@ -10,7 +10,14 @@ export interface SummarySettingsRecord {
   preparer: { id: number; name: string; role: string; at: string } | null;
   reviewer: { id: number; name: string; role: string; at: string } | null;
   signedRowsSha256: string | null;
-  lock: { name: string; at: string; workpaperSha256: string; workpaperBytes: number; reference: string; objectKey: string } | null;
+  lock: {
+    name: string;
+    at: string;
+    workpaperSha256: string;
+    workpaperBytes: number;
+    reference: string;
+    objectKey: string;
+  } | null;
   lockedView: unknown;
 }
 
@@ -22,62 +29,142 @@ export interface EntryRecord extends EntryInput {
 }
 
 const iso = (v: unknown) => (v ? new Date(v as string).toISOString() : null);
-const ymd = (v: unknown) => (v instanceof Date ? `${v.getFullYear()}-${String(v.getMonth() + 1).padStart(2, "0")}-${String(v.getDate()).padStart(2, "0")}` : String(v).slice(0, 10));
+const ymd = (v: unknown) =>
+  v instanceof Date
+    ? `${v.getFullYear()}-${String(v.getMonth() + 1).padStart(2, "0")}-${String(v.getDate()).padStart(2, "0")}`
+    : String(v).slice(0, 10);
 const json = (v: unknown) => (typeof v === "string" ? JSON.parse(v) : v) as unknown;
 
 /** The summary's settings, sign-offs and lock; defaults (nothing signed, 0 clearly trivial, 75 %) before its first write. */
-export async function getSummaryByEngagementId(db: Knex, { engagementId }: { engagementId: number }): Promise<SummarySettingsRecord> {
-  const r = await db("misstatement_summaries as m").leftJoin("users as p", "p.id", "m.preparer_signed_by").leftJoin("users as v", "v.id", "m.reviewer_signed_by").leftJoin("users as l", "l.id", "m.locked_by")
-    .where("m.engagement_id", engagementId).first("m.*", "p.name as p_name", "v.name as v_name", "l.name as l_name");
-  if (!r) return { clearlyTrivial: "0.00", approachingShare: 0.75, preparer: null, reviewer: null, signedRowsSha256: null, lock: null, lockedView: null };
+export async function getSummaryByEngagementId(
+  db: Knex,
+  { engagementId }: { engagementId: number },
+): Promise<SummarySettingsRecord> {
+  const r = await db("misstatement_summaries as m")
+    .leftJoin("users as p", "p.id", "m.preparer_signed_by")
+    .leftJoin("users as v", "v.id", "m.reviewer_signed_by")
+    .leftJoin("users as l", "l.id", "m.locked_by")
+    .where("m.engagement_id", engagementId)
+    .first("m.*", "p.name as p_name", "v.name as v_name", "l.name as l_name");
+  if (!r)
+    return {
+      clearlyTrivial: "0.00",
+      approachingShare: 0.75,
+      preparer: null,
+      reviewer: null,
+      signedRowsSha256: null,
+      lock: null,
+      lockedView: null,
+    };
   return {
-    clearlyTrivial: String(r.clearly_trivial), approachingShare: Number(r.approaching_share),
-    preparer: r.preparer_signed_at ? { id: r.preparer_signed_by, name: r.p_name, role: r.preparer_signed_role, at: iso(r.preparer_signed_at)! } : null,
-    reviewer: r.reviewer_signed_at ? { id: r.reviewer_signed_by, name: r.v_name, role: r.reviewer_signed_role, at: iso(r.reviewer_signed_at)! } : null,
+    clearlyTrivial: String(r.clearly_trivial),
+    approachingShare: Number(r.approaching_share),
+    preparer: r.preparer_signed_at
+      ? { id: r.preparer_signed_by, name: r.p_name, role: r.preparer_signed_role, at: iso(r.preparer_signed_at)! }
+      : null,
+    reviewer: r.reviewer_signed_at
+      ? { id: r.reviewer_signed_by, name: r.v_name, role: r.reviewer_signed_role, at: iso(r.reviewer_signed_at)! }
+      : null,
     signedRowsSha256: r.signed_rows_sha256 ?? null,
-    lock: r.locked_at ? { name: r.l_name, at: iso(r.locked_at)!, workpaperSha256: r.workpaper_sha256, workpaperBytes: Number(r.workpaper_size_bytes), reference: r.workpaper_reference, objectKey: r.workpaper_object_key } : null,
+    lock: r.locked_at
+      ? {
+          name: r.l_name,
+          at: iso(r.locked_at)!,
+          workpaperSha256: r.workpaper_sha256,
+          workpaperBytes: Number(r.workpaper_size_bytes),
+          reference: r.workpaper_reference,
+          objectKey: r.workpaper_object_key,
+        }
+      : null,
     lockedView: r.locked_view_json ? json(r.locked_view_json) : null,
   };
 }
 
 function toEntry(r: Record<string, unknown>): EntryRecord {
   return {
-    id: Number(r.id), kind: r.kind as EntryRecord["kind"], account: String(r.account), assertion: String(r.assertion), description: String(r.description),
-    amount: String(r.amount), incomeEffect: String(r.income_effect), balanceEffect: String(r.balance_effect),
+    id: Number(r.id),
+    kind: r.kind as EntryRecord["kind"],
+    account: String(r.account),
+    assertion: String(r.assertion),
+    description: String(r.description),
+    amount: String(r.amount),
+    incomeEffect: String(r.income_effect),
+    balanceEffect: String(r.balance_effect),
     corrected: r.corrected ? { on: ymd(r.corrected_on), reference: String(r.correction_reference ?? "") } : null,
-    evidenceCount: Number(r.evidence_count ?? 0), version: Number(r.version), createdByName: String(r.created_by_name ?? ""), createdAt: iso(r.created_at)!, updatedAt: iso(r.updated_at),
+    evidenceCount: Number(r.evidence_count ?? 0),
+    version: Number(r.version),
+    createdByName: String(r.created_by_name ?? ""),
+    createdAt: iso(r.created_at)!,
+    updatedAt: iso(r.updated_at),
   };
 }
 
-const entryQuery = (db: Knex) => db("misstatement_entries as e").join("users as u", "u.id", "e.created_by").whereNull("e.deleted_at")
-  .select("e.*", "u.name as created_by_name", db.raw("(select count(*) from misstatement_entry_evidence v where v.entry_id = e.id and v.deleted_at is null) as evidence_count"));
+const entryQuery = (db: Knex) =>
+  db("misstatement_entries as e")
+    .join("users as u", "u.id", "e.created_by")
+    .whereNull("e.deleted_at")
+    .select(
+      "e.*",
+      "u.name as created_by_name",
+      db.raw(
+        "(select count(*) from misstatement_entry_evidence v where v.entry_id = e.id and v.deleted_at is null) as evidence_count",
+      ),
+    );
 
-export async function listEntriesByEngagementId(db: Knex, { engagementId }: { engagementId: number }): Promise<EntryRecord[]> {
+export async function listEntriesByEngagementId(
+  db: Knex,
+  { engagementId }: { engagementId: number },
+): Promise<EntryRecord[]> {
   return (await entryQuery(db).where("e.engagement_id", engagementId).orderBy("e.id")).map(toEntry);
 }
 
-export async function getEntryById(db: Knex, { engagementId, entryId }: { engagementId: number; entryId: number }): Promise<EntryRecord> {
+export async function getEntryById(
+  db: Knex,
+  { engagementId, entryId }: { engagementId: number; entryId: number },
+): Promise<EntryRecord> {
   const row = await entryQuery(db).where({ "e.engagement_id": engagementId, "e.id": entryId }).first();
   if (!row) throw notFound("No such misstatement entry");
   return toEntry(row);
 }
 
-export async function listCorrectionsByEngagementId(db: Knex, { engagementId }: { engagementId: number }): Promise<CorrectionInput[]> {
+export async function listCorrectionsByEngagementId(
+  db: Knex,
+  { engagementId }: { engagementId: number },
+): Promise<CorrectionInput[]> {
   const rows = await db("misstatement_corrections").where({ engagement_id: engagementId }).orderBy("id");
-  return rows.map((r) => ({ sampleId: Number(r.sample_id), part: r.part, on: ymd(r.corrected_on), reference: String(r.reference) }));
+  return rows.map((r) => ({
+    sampleId: Number(r.sample_id),
+    part: r.part,
+    on: ymd(r.corrected_on),
+    reference: String(r.reference),
+  }));
 }
 
 /** Samples of the engagement with their lock time and, when locked, the contribution frozen at lock. */
 export async function listSampleLocksByEngagementId(db: Knex, { engagementId }: { engagementId: number }) {
-  const rows = await db("samples as s").leftJoin("misstatement_sample_snapshots as z", "z.sample_id", "s.id").where("s.engagement_id", engagementId)
-    .orderBy("s.id").select("s.id", "s.locked_at", "z.contribution_json");
-  return rows.map((r) => ({ sampleId: Number(r.id), lockedAt: iso(r.locked_at), frozen: r.contribution_json ? (json(r.contribution_json) as SampleContribution) : null }));
+  const rows = await db("samples as s")
+    .leftJoin("misstatement_sample_snapshots as z", "z.sample_id", "s.id")
+    .where("s.engagement_id", engagementId)
+    .orderBy("s.id")
+    .select("s.id", "s.locked_at", "z.contribution_json");
+  return rows.map((r) => ({
+    sampleId: Number(r.id),
+    lockedAt: iso(r.locked_at),
+    frozen: r.contribution_json ? (json(r.contribution_json) as SampleContribution) : null,
+  }));
 }
 
 /** Stores what a sample contributes as it stands at its lock (inside the lock's transaction). */
-export async function freezeSampleContribution(trx: Knex.Transaction, { engagementId, contribution }: { engagementId: number; contribution: SampleContribution }) {
+export async function freezeSampleContribution(
+  trx: Knex.Transaction,
+  { engagementId, contribution }: { engagementId: number; contribution: SampleContribution },
+) {
   await trx("misstatement_sample_snapshots").where({ sample_id: contribution.sampleId }).delete();
-  await trx("misstatement_sample_snapshots").insert({ sample_id: contribution.sampleId, engagement_id: engagementId, contribution_json: JSON.stringify(contribution) });
+  await trx("misstatement_sample_snapshots").insert({
+    sample_id: contribution.sampleId,
+    engagement_id: engagementId,
+    contribution_json: JSON.stringify(contribution),
+  });
 }
 
 /** On unlock the sample's row is live again. */

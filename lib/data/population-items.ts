@@ -16,9 +16,13 @@ export interface PopulationItem {
 }
 
 const toItem = (r: Record<string, unknown> | PopulationItemsRow): PopulationItem => ({
-  rowNumber: Number(r.row_number), itemRef: String(r.item_ref), description: (r.description as string | null) ?? null,
-  bookValue: String(r.book_value), itemDate: (r.item_date as string | null) ?? null,
-  extra: r.extra === null ? null : ((typeof r.extra === "string" ? JSON.parse(r.extra) : r.extra) as Record<string, string>),
+  rowNumber: Number(r.row_number),
+  itemRef: String(r.item_ref),
+  description: (r.description as string | null) ?? null,
+  bookValue: String(r.book_value),
+  itemDate: (r.item_date as string | null) ?? null,
+  extra:
+    r.extra === null ? null : ((typeof r.extra === "string" ? JSON.parse(r.extra) : r.extra) as Record<string, string>),
 });
 
 const SORT_COLUMNS = { row: "row_number", ref: "item_ref", book: "book_value" } as const;
@@ -29,21 +33,46 @@ const SORT_COLUMNS = { row: "row_number", ref: "item_ref", book: "book_value" } 
  * so a deep page costs what the first does. Unsearched, the total is the population's row count
  * stored at load (no COUNT over a million rows).
  */
-export async function listItemsByPopulationId(db: Knex, { populationId, query }: { populationId: number; query: ItemsQuery }): Promise<KeysetPage<PopulationItem>> {
+export async function listItemsByPopulationId(
+  db: Knex,
+  { populationId, query }: { populationId: number; query: ItemsQuery },
+): Promise<KeysetPage<PopulationItem>> {
   const base = db("population_items").where({ population_id: populationId });
   if (query.q) {
     const like = containsPattern(query.q);
-    base.andWhere((w) => { w.where("item_ref", "like", like).orWhere("description", "like", like); });
+    base.andWhere((w) => {
+      w.where("item_ref", "like", like).orWhere("description", "like", like);
+    });
   }
   const total = query.q
     ? Number((await base.clone().count({ n: "*" }).first())?.n ?? 0)
     : Number((await db("populations").where({ id: populationId }).first("row_count"))?.row_count ?? 0);
   const column = SORT_COLUMNS[query.sort];
   const rows = base.clone().select("row_number", "item_ref", "description", "book_value", "item_date", "extra");
-  const page = await seekPage<Record<string, unknown>>(rows, { column, key: "row_number", dir: query.dir }, seekFromQuery(query, total), query.pageSize,
-    (r) => ({ value: column === "book_value" ? String(r.book_value) : column === "item_ref" ? String(r.item_ref) : Number(r.row_number), key: Number(r.row_number) }));
+  const page = await seekPage<Record<string, unknown>>(
+    rows,
+    { column, key: "row_number", dir: query.dir },
+    seekFromQuery(query, total),
+    query.pageSize,
+    (r) => ({
+      value:
+        column === "book_value"
+          ? String(r.book_value)
+          : column === "item_ref"
+            ? String(r.item_ref)
+            : Number(r.row_number),
+      key: Number(r.row_number),
+    }),
+  );
   const pageNumber = query.last ? Math.max(1, Math.ceil(total / query.pageSize)) : query.page;
-  return { items: page.rows.map(toItem), total, page: pageNumber, pageSize: query.pageSize, nextCursor: page.nextCursor, prevCursor: page.prevCursor };
+  return {
+    items: page.rows.map(toItem),
+    total,
+    page: pageNumber,
+    pageSize: query.pageSize,
+    nextCursor: page.nextCursor,
+    prevCursor: page.prevCursor,
+  };
 }
 
 export interface PopulationProfile {
@@ -62,30 +91,59 @@ function bandLabel(exponent: number): { label: string; from: string; to: string 
   return { label: `${fmt(from)} – ${fmt(to)}`, from: from.toFixed(2), to: to.toFixed(2) };
 }
 
-export async function getPopulationProfile(db: Knex, { populationId, threshold }: { populationId: number; threshold?: string }): Promise<PopulationProfile> {
+export async function getPopulationProfile(
+  db: Knex,
+  { populationId, threshold }: { populationId: number; threshold?: string },
+): Promise<PopulationProfile> {
   const items = () => db("population_items").where({ population_id: populationId });
   const [largest, duplicates, duplicateCount, bands, signs, above] = await Promise.all([
     items().orderBy("book_value", "desc").limit(10).select("*"),
-    items().groupBy("item_ref").havingRaw("count(*) > 1").orderByRaw("count(*) desc, item_ref").limit(50)
-      .select("item_ref").count({ n: "*" }).sum({ total: "book_value" }),
+    items()
+      .groupBy("item_ref")
+      .havingRaw("count(*) > 1")
+      .orderByRaw("count(*) desc, item_ref")
+      .limit(50)
+      .select("item_ref")
+      .count({ n: "*" })
+      .sum({ total: "book_value" }),
     db.from(items().groupBy("item_ref").havingRaw("count(*) > 1").select("item_ref").as("d")).count({ n: "*" }).first(),
-    items().where("book_value", ">", 0).groupByRaw("floor(log10(book_value))").orderByRaw("floor(log10(book_value))")
-      .select(db.raw("floor(log10(book_value)) as e")).count({ n: "*" }).sum({ total: "book_value" }),
-    items().where("book_value", "<=", 0).groupByRaw("sign(book_value)").select(db.raw("sign(book_value) as s")).count({ n: "*" }).sum({ total: "book_value" }),
-    threshold ? items().where("book_value", ">=", threshold).count({ n: "*" }).sum({ total: "book_value" }).first() : Promise.resolve(null),
+    items()
+      .where("book_value", ">", 0)
+      .groupByRaw("floor(log10(book_value))")
+      .orderByRaw("floor(log10(book_value))")
+      .select(db.raw("floor(log10(book_value)) as e"))
+      .count({ n: "*" })
+      .sum({ total: "book_value" }),
+    items()
+      .where("book_value", "<=", 0)
+      .groupByRaw("sign(book_value)")
+      .select(db.raw("sign(book_value) as s"))
+      .count({ n: "*" })
+      .sum({ total: "book_value" }),
+    threshold
+      ? items().where("book_value", ">=", threshold).count({ n: "*" }).sum({ total: "book_value" }).first()
+      : Promise.resolve(null),
   ]);
   const strata: PopulationProfile["strata"] = [];
   for (const s of signs as Record<string, unknown>[]) {
-    strata.push(Number(s.s) < 0
-      ? { label: "Negative (credits)", from: null, to: "0.00", count: Number(s.n), total: String(s.total) }
-      : { label: "Zero", from: "0.00", to: "0.00", count: Number(s.n), total: "0.00" });
+    strata.push(
+      Number(s.s) < 0
+        ? { label: "Negative (credits)", from: null, to: "0.00", count: Number(s.n), total: String(s.total) }
+        : { label: "Zero", from: "0.00", to: "0.00", count: Number(s.n), total: "0.00" },
+    );
   }
-  for (const b of bands as Record<string, unknown>[]) strata.push({ ...bandLabel(Number(b.e)), count: Number(b.n), total: String(b.total) });
+  for (const b of bands as Record<string, unknown>[])
+    strata.push({ ...bandLabel(Number(b.e)), count: Number(b.n), total: String(b.total) });
   return {
     largest: largest.map(toItem),
-    duplicates: (duplicates as Record<string, unknown>[]).map((d) => ({ itemRef: String(d.item_ref), count: Number(d.n), total: String(d.total) })),
+    duplicates: (duplicates as Record<string, unknown>[]).map((d) => ({
+      itemRef: String(d.item_ref),
+      count: Number(d.n),
+      total: String(d.total),
+    })),
     duplicateRefCount: Number((duplicateCount as { n?: unknown } | undefined)?.n ?? 0),
     strata,
-    threshold: threshold && above ? { amount: threshold, count: Number(above.n), total: String(above.total ?? "0.00") } : null,
+    threshold:
+      threshold && above ? { amount: threshold, count: Number(above.n), total: String(above.total ?? "0.00") } : null,
   };
 }

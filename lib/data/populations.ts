@@ -42,24 +42,36 @@ function toPopulation(r: Record<string, unknown>): PopulationRecord {
   const controlTotal = r.control_total === null ? null : String(r.control_total);
   const controlCount = r.control_count === null ? null : Number(r.control_count);
   return {
-    id: Number(r.id), engagementId: Number(r.engagement_id), name: String(r.name), sourceFileName: String(r.source_file_name),
-    sourceSizeBytes: Number(r.source_size_bytes), sourceSha256: String(r.source_sha256), sourceObjectKey: String(r.source_object_key),
+    id: Number(r.id),
+    engagementId: Number(r.engagement_id),
+    name: String(r.name),
+    sourceFileName: String(r.source_file_name),
+    sourceSizeBytes: Number(r.source_size_bytes),
+    sourceSha256: String(r.source_sha256),
+    sourceObjectKey: String(r.source_object_key),
     mapping: parseJsonColumn(populationMappingSchema, r.mapping_json, "populations.mapping_json"),
-    rowCount: Number(r.row_count), total: String(r.total),
+    rowCount: Number(r.row_count),
+    total: String(r.total),
     positive: { count: Number(r.positive_count), total: String(r.positive_total) },
     zero: { count: Number(r.zero_count) },
     negative: { count: Number(r.negative_count), total: String(r.negative_total) },
-    controlTotal, controlCount,
-    difference: controlTotal === null || controlCount === null ? null : {
-      total: centsToDecimal(decimalToCents(controlTotal) - decimalToCents(String(r.total))),
-      count: controlCount - Number(r.row_count),
-    },
+    controlTotal,
+    controlCount,
+    difference:
+      controlTotal === null || controlCount === null
+        ? null
+        : {
+            total: centsToDecimal(decimalToCents(controlTotal) - decimalToCents(String(r.total))),
+            count: controlCount - Number(r.row_count),
+          },
     reconciliationExplanation: (r.reconciliation_explanation as string | null) ?? null,
     reconciledAt: r.reconciled_at ? new Date(r.reconciled_at as string).toISOString() : null,
     reconciledByName: (r.reconciled_by_name as string | null) ?? null,
-    status: r.status as PopulationStatus, supersedesId: r.supersedes_id === null ? null : Number(r.supersedes_id),
+    status: r.status as PopulationStatus,
+    supersedesId: r.supersedes_id === null ? null : Number(r.supersedes_id),
     archivedAt: r.archived_at ? new Date(r.archived_at as string).toISOString() : null,
-    createdAt: new Date(r.created_at as string).toISOString(), createdByName: String(r.created_by_name ?? ""),
+    createdAt: new Date(r.created_at as string).toISOString(),
+    createdByName: String(r.created_by_name ?? ""),
   };
 }
 
@@ -72,10 +84,15 @@ function basePopulationQuery(db: Knex) {
 }
 
 export async function listPopulationsByEngagementId(db: Knex, { engagementId }: { engagementId: number }) {
-  return (await basePopulationQuery(db).where("p.engagement_id", engagementId).orderBy("p.id", "desc")).map(toPopulation);
+  return (await basePopulationQuery(db).where("p.engagement_id", engagementId).orderBy("p.id", "desc")).map(
+    toPopulation,
+  );
 }
 
-export async function getPopulationById(db: Knex, { engagementId, populationId }: { engagementId: number; populationId: number }) {
+export async function getPopulationById(
+  db: Knex,
+  { engagementId, populationId }: { engagementId: number; populationId: number },
+) {
   const row = await basePopulationQuery(db).where({ "p.id": populationId, "p.engagement_id": engagementId }).first();
   if (!row) throw notFound("No such population");
   return toPopulation(row);
@@ -85,29 +102,68 @@ export async function getPopulationById(db: Knex, { engagementId, populationId }
  * Records the ledger's control total and count. The population is reconciled when both agree, or
  * when the auditor explains the difference (kept in the audit log); otherwise it stays unreconciled.
  */
-export async function reconcilePopulation(db: Knex, { engagementId, populationId, actorId, input }: { engagementId: number; populationId: number; actorId: number; input: Reconcile }) {
+export async function reconcilePopulation(
+  db: Knex,
+  {
+    engagementId,
+    populationId,
+    actorId,
+    input,
+  }: { engagementId: number; populationId: number; actorId: number; input: Reconcile },
+) {
   return db.transaction(async (trx) => {
-    const before = await trx("populations").where({ id: populationId, engagement_id: engagementId }).whereNot("status", "loading").forUpdate().first();
+    const before = await trx("populations")
+      .where({ id: populationId, engagement_id: engagementId })
+      .whereNot("status", "loading")
+      .forUpdate()
+      .first();
     if (!before) throw notFound("No such population");
-    if (before.status === "superseded") throw conflict("This population has been superseded by a corrected file; reconcile the new one.");
-    const agrees = decimalToCents(input.controlTotal) === decimalToCents(String(before.total)) && input.controlCount === Number(before.row_count);
+    if (before.status === "superseded")
+      throw conflict("This population has been superseded by a corrected file; reconcile the new one.");
+    const agrees =
+      decimalToCents(input.controlTotal) === decimalToCents(String(before.total)) &&
+      input.controlCount === Number(before.row_count);
     const status: PopulationStatus = agrees || input.explanation ? "reconciled" : "unreconciled";
     const patch = {
-      control_total: input.controlTotal, control_count: input.controlCount, reconciliation_explanation: agrees ? null : input.explanation ?? null,
-      status, reconciled_by: status === "reconciled" ? actorId : null, reconciled_at: status === "reconciled" ? trx.fn.now(3) : null,
+      control_total: input.controlTotal,
+      control_count: input.controlCount,
+      reconciliation_explanation: agrees ? null : (input.explanation ?? null),
+      status,
+      reconciled_by: status === "reconciled" ? actorId : null,
+      reconciled_at: status === "reconciled" ? trx.fn.now(3) : null,
     };
     await trx("populations").where({ id: populationId }).update(patch);
     await recordAudit(trx, {
-      actorUserId: actorId, engagementId, entity: "population", entityId: populationId, action: "reconcile",
-      before: { controlTotal: before.control_total, controlCount: before.control_count, explanation: before.reconciliation_explanation, status: before.status },
-      after: { controlTotal: input.controlTotal, controlCount: input.controlCount, explanation: patch.reconciliation_explanation, status },
+      actorUserId: actorId,
+      engagementId,
+      entity: "population",
+      entityId: populationId,
+      action: "reconcile",
+      before: {
+        controlTotal: before.control_total,
+        controlCount: before.control_count,
+        explanation: before.reconciliation_explanation,
+        status: before.status,
+      },
+      after: {
+        controlTotal: input.controlTotal,
+        controlCount: input.controlCount,
+        explanation: patch.reconciliation_explanation,
+        status,
+      },
     });
     return getPopulationById(trx, { engagementId, populationId });
   });
 }
 
 /** The population that replaced this one (loaded with `supersedesId` = it), or null. */
-export async function getSupersedingPopulation(db: Knex, { engagementId, populationId }: { engagementId: number; populationId: number }) {
-  const row = await basePopulationQuery(db).where({ "p.supersedes_id": populationId, "p.engagement_id": engagementId }).orderBy("p.id", "desc").first();
+export async function getSupersedingPopulation(
+  db: Knex,
+  { engagementId, populationId }: { engagementId: number; populationId: number },
+) {
+  const row = await basePopulationQuery(db)
+    .where({ "p.supersedes_id": populationId, "p.engagement_id": engagementId })
+    .orderBy("p.id", "desc")
+    .first();
   return row ? toPopulation(row) : null;
 }

@@ -11,9 +11,14 @@ export interface ReviewNote {
   itemRef: string | null;
   text: string;
   status: "open" | "answered" | "cleared";
-  raisedBy: string; raisedById: number; raisedAt: string;
-  answer: string | null; answeredBy: string | null; answeredAt: string | null;
-  clearedBy: string | null; clearedAt: string | null;
+  raisedBy: string;
+  raisedById: number;
+  raisedAt: string;
+  answer: string | null;
+  answeredBy: string | null;
+  answeredAt: string | null;
+  clearedBy: string | null;
+  clearedAt: string | null;
 }
 
 const iso = (v: unknown) => (v ? new Date(v as string).toISOString() : null);
@@ -21,44 +26,105 @@ const iso = (v: unknown) => (v ? new Date(v as string).toISOString() : null);
 export async function listNotesBySampleId(db: Knex, { sampleId }: { sampleId: number }): Promise<ReviewNote[]> {
   const rows = await db("review_notes as n")
     .leftJoin("sample_items as i", "i.id", "n.sample_item_id")
-    .join("users as r", "r.id", "n.raised_by").leftJoin("users as a", "a.id", "n.answered_by").leftJoin("users as c", "c.id", "n.cleared_by")
-    .where("n.sample_id", sampleId).orderBy("n.id")
+    .join("users as r", "r.id", "n.raised_by")
+    .leftJoin("users as a", "a.id", "n.answered_by")
+    .leftJoin("users as c", "c.id", "n.cleared_by")
+    .where("n.sample_id", sampleId)
+    .orderBy("n.id")
     .select("n.*", "i.item_ref", "r.name as raised_name", "a.name as answered_name", "c.name as cleared_name");
   return rows.map((r) => ({
-    id: r.id, itemId: r.sample_item_id, itemRef: r.item_ref ?? null, text: r.text, status: r.status,
-    raisedBy: r.raised_name, raisedById: r.raised_by, raisedAt: iso(r.raised_at)!, answer: r.answer, answeredBy: r.answered_name ?? null,
-    answeredAt: iso(r.answered_at), clearedBy: r.cleared_name ?? null, clearedAt: iso(r.cleared_at),
+    id: r.id,
+    itemId: r.sample_item_id,
+    itemRef: r.item_ref ?? null,
+    text: r.text,
+    status: r.status,
+    raisedBy: r.raised_name,
+    raisedById: r.raised_by,
+    raisedAt: iso(r.raised_at)!,
+    answer: r.answer,
+    answeredBy: r.answered_name ?? null,
+    answeredAt: iso(r.answered_at),
+    clearedBy: r.cleared_name ?? null,
+    clearedAt: iso(r.cleared_at),
   }));
 }
 
-export async function raiseNote(db: Knex, { sample, actorId, text, itemId }: { sample: SampleRecord; actorId: number; text: string; itemId?: number }) {
+export async function raiseNote(
+  db: Knex,
+  { sample, actorId, text, itemId }: { sample: SampleRecord; actorId: number; text: string; itemId?: number },
+) {
   return db.transaction(async (trx) => {
     await assertSampleUnlocked(trx, sample.id);
-    if (itemId !== undefined && !(await trx("sample_items").where({ id: itemId, sample_id: sample.id }).first("id"))) throw notFound("No such item in this sample");
-    const [id] = await trx("review_notes").insert({ sample_id: sample.id, sample_item_id: itemId ?? null, text, raised_by: actorId });
-    await recordAudit(trx, { actorUserId: actorId, engagementId: sample.engagementId, sampleId: sample.id, entity: "review_note", entityId: id, action: "raise", after: { text, itemId: itemId ?? null } });
+    if (itemId !== undefined && !(await trx("sample_items").where({ id: itemId, sample_id: sample.id }).first("id")))
+      throw notFound("No such item in this sample");
+    const [id] = await trx("review_notes").insert({
+      sample_id: sample.id,
+      sample_item_id: itemId ?? null,
+      text,
+      raised_by: actorId,
+    });
+    await recordAudit(trx, {
+      actorUserId: actorId,
+      engagementId: sample.engagementId,
+      sampleId: sample.id,
+      entity: "review_note",
+      entityId: id,
+      action: "raise",
+      after: { text, itemId: itemId ?? null },
+    });
     return id;
   });
 }
 
-export async function answerNote(db: Knex, { sample, actorId, noteId, answer }: { sample: SampleRecord; actorId: number; noteId: number; answer: string }) {
+export async function answerNote(
+  db: Knex,
+  { sample, actorId, noteId, answer }: { sample: SampleRecord; actorId: number; noteId: number; answer: string },
+) {
   await db.transaction(async (trx) => {
     await assertSampleUnlocked(trx, sample.id);
     const note = await trx("review_notes").where({ id: noteId, sample_id: sample.id }).forUpdate().first();
     if (!note) throw notFound("No such review note");
     if (note.status === "cleared") throw conflict("This note is already cleared.");
-    await trx("review_notes").where({ id: noteId }).update({ status: "answered", answer, answered_by: actorId, answered_at: trx.fn.now(3) });
-    await recordAudit(trx, { actorUserId: actorId, engagementId: sample.engagementId, sampleId: sample.id, entity: "review_note", entityId: noteId, action: "answer", before: { status: note.status, answer: note.answer }, after: { status: "answered", answer } });
+    await trx("review_notes")
+      .where({ id: noteId })
+      .update({ status: "answered", answer, answered_by: actorId, answered_at: trx.fn.now(3) });
+    await recordAudit(trx, {
+      actorUserId: actorId,
+      engagementId: sample.engagementId,
+      sampleId: sample.id,
+      entity: "review_note",
+      entityId: noteId,
+      action: "answer",
+      before: { status: note.status, answer: note.answer },
+      after: { status: "answered", answer },
+    });
   });
 }
 
-export async function clearNote(db: Knex, { sample, actorId, noteId }: { sample: SampleRecord; actorId: number; noteId: number }) {
+export async function clearNote(
+  db: Knex,
+  { sample, actorId, noteId }: { sample: SampleRecord; actorId: number; noteId: number },
+) {
   await db.transaction(async (trx) => {
     await assertSampleUnlocked(trx, sample.id);
     const note = await trx("review_notes").where({ id: noteId, sample_id: sample.id }).forUpdate().first();
     if (!note) throw notFound("No such review note");
-    if (note.status !== "answered") throw conflict(note.status === "cleared" ? "This note is already cleared." : "The preparer has not answered this note yet.");
-    await trx("review_notes").where({ id: noteId }).update({ status: "cleared", cleared_by: actorId, cleared_at: trx.fn.now(3) });
-    await recordAudit(trx, { actorUserId: actorId, engagementId: sample.engagementId, sampleId: sample.id, entity: "review_note", entityId: noteId, action: "clear", before: { status: "answered" }, after: { status: "cleared" } });
+    if (note.status !== "answered")
+      throw conflict(
+        note.status === "cleared" ? "This note is already cleared." : "The preparer has not answered this note yet.",
+      );
+    await trx("review_notes")
+      .where({ id: noteId })
+      .update({ status: "cleared", cleared_by: actorId, cleared_at: trx.fn.now(3) });
+    await recordAudit(trx, {
+      actorUserId: actorId,
+      engagementId: sample.engagementId,
+      sampleId: sample.id,
+      entity: "review_note",
+      entityId: noteId,
+      action: "clear",
+      before: { status: "answered" },
+      after: { status: "cleared" },
+    });
   });
 }

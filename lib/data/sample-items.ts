@@ -30,7 +30,13 @@ export interface SampleItemRecord {
   pickedByName: string | null;
   pickedAt: string | null;
   /** An anomalous misstatement: the justification, who marked it, and the manager's or partner's acceptance. */
-  anomaly: { justification: string; markedByName: string | null; markedAt: string | null; acceptedByName: string | null; acceptedAt: string | null } | null;
+  anomaly: {
+    justification: string;
+    markedByName: string | null;
+    markedAt: string | null;
+    acceptedByName: string | null;
+    acceptedAt: string | null;
+  } | null;
   replacesItemId: number | null;
   status: "not-started" | "done" | "not-auditable" | "void";
   auditedValue: string | null;
@@ -57,29 +63,58 @@ export function misstatementOf(status: string, book: string, audited: string | n
 }
 
 function toItem(r: Record<string, unknown>): SampleItemRecord {
-  const points = r.hit_points === null ? null : ((typeof r.hit_points === "string" ? JSON.parse(r.hit_points) : r.hit_points) as number[]);
+  const points =
+    r.hit_points === null
+      ? null
+      : ((typeof r.hit_points === "string" ? JSON.parse(r.hit_points) : r.hit_points) as number[]);
   const audited = r.audited_value === null ? null : String(r.audited_value);
   return {
-    id: Number(r.id), selectionOrder: Number(r.selection_order), populationRowNumber: Number(r.population_row_number), itemRef: String(r.item_ref),
-    description: (r.description as string | null) ?? null, bookValue: String(r.book_value), hitPoints: points, topStratum: Boolean(r.top_stratum),
-    stratum: r.stratum === null ? null : Number(r.stratum), origin: r.origin as SampleItemRecord["origin"], replacesItemId: r.replaces_item_id === null ? null : Number(r.replaces_item_id),
-    status: r.status as SampleItemRecord["status"], auditedValue: audited, misstatement: misstatementOf(String(r.status), String(r.book_value), audited),
-    cause: (r.cause as string | null) ?? null, causeNote: (r.cause_note as string | null) ?? null,
-    deviation: r.deviation === null ? null : Boolean(r.deviation), deviationNature: (r.deviation_nature as string | null) ?? null,
-    comment: (r.comment as string | null) ?? null, voidReason: (r.void_reason as string | null) ?? null,
-    keyItem: Boolean(r.key_item), keyReason: (r.key_reason as string | null) ?? null,
-    pickedByName: (r.picked_by_name as string | null) ?? null, pickedAt: r.picked_at ? new Date(r.picked_at as string).toISOString() : null,
-    anomaly: r.anomaly_justification ? {
-      justification: String(r.anomaly_justification), markedByName: (r.anomaly_marked_by_name as string | null) ?? null, markedAt: r.anomaly_marked_at ? new Date(r.anomaly_marked_at as string).toISOString() : null,
-      acceptedByName: (r.anomaly_accepted_by_name as string | null) ?? null, acceptedAt: r.anomaly_accepted_at ? new Date(r.anomaly_accepted_at as string).toISOString() : null,
-    } : null,
-    evidenceCount: Number(r.evidence_count ?? 0), requestStatus: (r.request_status as SampleItemRecord["requestStatus"]) ?? null, version: Number(r.version),
-    updatedAt: r.updated_at ? new Date(r.updated_at as string).toISOString() : null, updatedByName: (r.updated_by_name as string | null) ?? null,
+    id: Number(r.id),
+    selectionOrder: Number(r.selection_order),
+    populationRowNumber: Number(r.population_row_number),
+    itemRef: String(r.item_ref),
+    description: (r.description as string | null) ?? null,
+    bookValue: String(r.book_value),
+    hitPoints: points,
+    topStratum: Boolean(r.top_stratum),
+    stratum: r.stratum === null ? null : Number(r.stratum),
+    origin: r.origin as SampleItemRecord["origin"],
+    replacesItemId: r.replaces_item_id === null ? null : Number(r.replaces_item_id),
+    status: r.status as SampleItemRecord["status"],
+    auditedValue: audited,
+    misstatement: misstatementOf(String(r.status), String(r.book_value), audited),
+    cause: (r.cause as string | null) ?? null,
+    causeNote: (r.cause_note as string | null) ?? null,
+    deviation: r.deviation === null ? null : Boolean(r.deviation),
+    deviationNature: (r.deviation_nature as string | null) ?? null,
+    comment: (r.comment as string | null) ?? null,
+    voidReason: (r.void_reason as string | null) ?? null,
+    keyItem: Boolean(r.key_item),
+    keyReason: (r.key_reason as string | null) ?? null,
+    pickedByName: (r.picked_by_name as string | null) ?? null,
+    pickedAt: r.picked_at ? new Date(r.picked_at as string).toISOString() : null,
+    anomaly: r.anomaly_justification
+      ? {
+          justification: String(r.anomaly_justification),
+          markedByName: (r.anomaly_marked_by_name as string | null) ?? null,
+          markedAt: r.anomaly_marked_at ? new Date(r.anomaly_marked_at as string).toISOString() : null,
+          acceptedByName: (r.anomaly_accepted_by_name as string | null) ?? null,
+          acceptedAt: r.anomaly_accepted_at ? new Date(r.anomaly_accepted_at as string).toISOString() : null,
+        }
+      : null,
+    evidenceCount: Number(r.evidence_count ?? 0),
+    requestStatus: (r.request_status as SampleItemRecord["requestStatus"]) ?? null,
+    version: Number(r.version),
+    updatedAt: r.updated_at ? new Date(r.updated_at as string).toISOString() : null,
+    updatedByName: (r.updated_by_name as string | null) ?? null,
   };
 }
 
 /** Files attached to the item and not deleted (item_evidence). */
-const evidenceCount = (db: Knex) => db.raw("(select count(*) from item_evidence e where e.sample_item_id = i.id and e.deleted_at is null) as evidence_count");
+const evidenceCount = (db: Knex) =>
+  db.raw(
+    "(select count(*) from item_evidence e where e.sample_item_id = i.id and e.deleted_at is null) as evidence_count",
+  );
 
 /** Names of the people behind a pick and an anomaly mark (users). */
 const peopleNames = (db: Knex) => [
@@ -89,27 +124,62 @@ const peopleNames = (db: Knex) => [
 ];
 
 /** The newest request on the item (request_items). */
-const requestStatus = (db: Knex) => db.raw("(select r.status from request_items r where r.sample_item_id = i.id order by r.id desc limit 1) as request_status");
+const requestStatus = (db: Knex) =>
+  db.raw(
+    "(select r.status from request_items r where r.sample_item_id = i.id order by r.id desc limit 1) as request_status",
+  );
 
 function itemQuery(db: Knex, drawId: number) {
-  const q = db("sample_items as i").leftJoin("users as u", "u.id", "i.updated_by").where("i.draw_id", drawId).select("i.*", "u.name as updated_by_name", evidenceCount(db), requestStatus(db), ...peopleNames(db));
+  const q = db("sample_items as i")
+    .leftJoin("users as u", "u.id", "i.updated_by")
+    .where("i.draw_id", drawId)
+    .select("i.*", "u.name as updated_by_name", evidenceCount(db), requestStatus(db), ...peopleNames(db));
   return q;
 }
 
-interface ItemsPageQuery { page?: number; pageSize?: number; status?: string; q?: string; after?: Cursor; before?: Cursor; last?: boolean }
+interface ItemsPageQuery {
+  page?: number;
+  pageSize?: number;
+  status?: string;
+  q?: string;
+  after?: Cursor;
+  before?: Cursor;
+  last?: boolean;
+}
 
 /** A draw's items in selection order, filtered, paged by key (selection order plus id); without paging, all of them. */
-export async function listItemsByDrawId(db: Knex, { drawId, page = 1, pageSize = 100000, status = "all", q, after, before, last }: { drawId: number } & ItemsPageQuery): Promise<KeysetPage<SampleItemRecord>> {
+export async function listItemsByDrawId(
+  db: Knex,
+  { drawId, page = 1, pageSize = 100000, status = "all", q, after, before, last }: { drawId: number } & ItemsPageQuery,
+): Promise<KeysetPage<SampleItemRecord>> {
   const base = db("sample_items as i").where("i.draw_id", drawId);
   if (status !== "all") base.andWhere("i.status", status);
-  if (q) base.andWhere((w) => { w.where("i.item_ref", "like", containsPattern(q)).orWhere("i.description", "like", containsPattern(q)); });
+  if (q)
+    base.andWhere((w) => {
+      w.where("i.item_ref", "like", containsPattern(q)).orWhere("i.description", "like", containsPattern(q));
+    });
   const total = Number((await base.clone().count({ n: "*" }).first())?.n ?? 0);
-  const rows = base.clone().leftJoin("users as u", "u.id", "i.updated_by").select("i.*", "u.name as updated_by_name", evidenceCount(db), requestStatus(db), ...peopleNames(db));
+  const rows = base
+    .clone()
+    .leftJoin("users as u", "u.id", "i.updated_by")
+    .select("i.*", "u.name as updated_by_name", evidenceCount(db), requestStatus(db), ...peopleNames(db));
   const from = seekFromQuery({ after, before, last: last ?? false, page, pageSize }, total);
-  const seek = await seekPage<Record<string, unknown>>(rows, { column: "i.selection_order", key: "i.id", dir: "asc" }, from, pageSize,
-    (r) => ({ value: Number(r.selection_order), key: Number(r.id) }));
+  const seek = await seekPage<Record<string, unknown>>(
+    rows,
+    { column: "i.selection_order", key: "i.id", dir: "asc" },
+    from,
+    pageSize,
+    (r) => ({ value: Number(r.selection_order), key: Number(r.id) }),
+  );
   const pageNumber = last ? Math.max(1, Math.ceil(total / pageSize)) : page;
-  return { items: seek.rows.map(toItem), total, page: pageNumber, pageSize, nextCursor: seek.nextCursor, prevCursor: seek.prevCursor };
+  return {
+    items: seek.rows.map(toItem),
+    total,
+    page: pageNumber,
+    pageSize,
+    nextCursor: seek.nextCursor,
+    prevCursor: seek.prevCursor,
+  };
 }
 
 export async function getItemById(db: Knex, { drawId, itemId }: { drawId: number; itemId: number }) {
@@ -118,36 +188,75 @@ export async function getItemById(db: Knex, { drawId, itemId }: { drawId: number
   return toItem(row);
 }
 
-type ResultWrite = { engagementId: number; sampleId: number; drawId: number; itemId: number; actorId: number; input: SaveResult };
+type ResultWrite = {
+  engagementId: number;
+  sampleId: number;
+  drawId: number;
+  itemId: number;
+  actorId: number;
+  input: SaveResult;
+};
 
 /**
  * Writes one item's result inside the caller's transaction (after `beginResultWrite`), if nobody
  * changed it since the caller read it (optimistic concurrency): a stale version gets 409 naming who
  * changed it and when, and nothing is overwritten. One audit row per item.
  */
-export async function applyItemResult(trx: Knex.Transaction, { engagementId, sampleId, drawId, itemId, actorId, input }: ResultWrite): Promise<SampleItemRecord> {
+export async function applyItemResult(
+  trx: Knex.Transaction,
+  { engagementId, sampleId, drawId, itemId, actorId, input }: ResultWrite,
+): Promise<SampleItemRecord> {
   const before = await itemQuery(trx, drawId).andWhere("i.id", itemId).forUpdate().first();
   if (!before) throw notFound("No such item in this sample");
-  if (before.status === "void") throw new AppError(409, "void_item", "This item was voided and replaced; record the result on its replacement.");
+  if (before.status === "void")
+    throw new AppError(409, "void_item", "This item was voided and replaced; record the result on its replacement.");
   if (Number(before.version) !== input.version) {
     const when = before.updated_at ? `on ${formatDateTime(new Date(before.updated_at))}` : "recently";
-    throw new AppError(409, "stale", `${before.updated_by_name ?? "Someone"} changed this item ${when}, after you opened it. Reload to see their change; yours was not saved.`, undefined);
+    throw new AppError(
+      409,
+      "stale",
+      `${before.updated_by_name ?? "Someone"} changed this item ${when}, after you opened it. Reload to see their change; yours was not saved.`,
+      undefined,
+    );
   }
   const patch = {
     status: input.status,
-    audited_value: input.status === "not-auditable" ? null : input.auditedValue ?? null,
-    cause: input.cause ?? null, cause_note: input.causeNote ?? null, deviation: input.deviation ?? null,
-    deviation_nature: input.deviationNature ?? null, comment: input.comment ?? null,
-    version: input.version + 1, updated_by: actorId, updated_at: trx.fn.now(3),
+    audited_value: input.status === "not-auditable" ? null : (input.auditedValue ?? null),
+    cause: input.cause ?? null,
+    cause_note: input.causeNote ?? null,
+    deviation: input.deviation ?? null,
+    deviation_nature: input.deviationNature ?? null,
+    comment: input.comment ?? null,
+    version: input.version + 1,
+    updated_by: actorId,
+    updated_at: trx.fn.now(3),
   };
   // A later change of the result clears an anomaly mark and its acceptance (they judged the earlier figures).
   const amountText = (v: unknown) => (v === null || v === undefined ? "" : Number(v).toFixed(2));
-  const resultChanged = before.status !== input.status || amountText(before.audited_value) !== amountText(patch.audited_value);
+  const resultChanged =
+    before.status !== input.status || amountText(before.audited_value) !== amountText(patch.audited_value);
   const anomalyCleared = Boolean(before.anomaly_justification) && resultChanged;
-  await trx("sample_items").where({ id: itemId }).update(anomalyCleared ? { ...patch, ...ANOMALY_CLEARED } : patch);
+  await trx("sample_items")
+    .where({ id: itemId })
+    .update(anomalyCleared ? { ...patch, ...ANOMALY_CLEARED } : patch);
   const after = await getItemById(trx, { drawId, itemId });
-  const view = (i: SampleItemRecord) => ({ status: i.status, auditedValue: i.auditedValue, cause: i.cause, deviation: i.deviation, comment: i.comment });
-  await recordAudit(trx, { actorUserId: actorId, engagementId, sampleId, entity: "sample_item", entityId: itemId, action: "record-result", before: view(toItem(before)), after: anomalyCleared ? { ...view(after), anomalyCleared: true } : view(after) });
+  const view = (i: SampleItemRecord) => ({
+    status: i.status,
+    auditedValue: i.auditedValue,
+    cause: i.cause,
+    deviation: i.deviation,
+    comment: i.comment,
+  });
+  await recordAudit(trx, {
+    actorUserId: actorId,
+    engagementId,
+    sampleId,
+    entity: "sample_item",
+    entityId: itemId,
+    action: "record-result",
+    before: view(toItem(before)),
+    after: anomalyCleared ? { ...view(after), anomalyCleared: true } : view(after),
+  });
   return after;
 }
 
@@ -155,7 +264,11 @@ export async function applyItemResult(trx: Knex.Transaction, { engagementId, sam
 export async function saveItemResult(db: Knex, write: ResultWrite) {
   // A deadlock (or a Galera certification conflict) re-runs the whole save, version check included.
   return transactionWithRetry(db, async (trx) => {
-    const signOffsCleared = await beginResultWrite(trx, { sampleId: write.sampleId, actorId: write.actorId, what: "an item's result" });
+    const signOffsCleared = await beginResultWrite(trx, {
+      sampleId: write.sampleId,
+      actorId: write.actorId,
+      what: "an item's result",
+    });
     const item = await applyItemResult(trx, write);
     // samples.updated_at is not touched here: that would take the sample row exclusively and queue every save behind every other.
     return { item, signOffsCleared };

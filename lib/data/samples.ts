@@ -58,28 +58,51 @@ const iso = (v: unknown) => (v ? new Date(v as string).toISOString() : null);
 
 function toSample(r: Record<string, unknown>): SampleRecord {
   return {
-    id: Number(r.id), engagementId: Number(r.engagement_id), populationId: Number(r.population_id), name: String(r.name),
-    objective: String(r.objective), assertion: String(r.assertion), direction: r.direction as SampleRecord["direction"],
-    method: r.method as SampleRecord["method"], estimator: (r.estimator as string | null) ?? null,
-    params: json<SampleParams>(r.params_json), plan: json<SamplePlan>(r.plan_json),
-    computedSize: Number(r.computed_size), chosenSize: Number(r.chosen_size), sizeReason: (r.size_reason as string | null) ?? null,
-    status: r.status as SampleRecord["status"], planVersion: Number(r.plan_version),
+    id: Number(r.id),
+    engagementId: Number(r.engagement_id),
+    populationId: Number(r.population_id),
+    name: String(r.name),
+    objective: String(r.objective),
+    assertion: String(r.assertion),
+    direction: r.direction as SampleRecord["direction"],
+    method: r.method as SampleRecord["method"],
+    estimator: (r.estimator as string | null) ?? null,
+    params: json<SampleParams>(r.params_json),
+    plan: json<SamplePlan>(r.plan_json),
+    computedSize: Number(r.computed_size),
+    chosenSize: Number(r.chosen_size),
+    sizeReason: (r.size_reason as string | null) ?? null,
+    status: r.status as SampleRecord["status"],
+    planVersion: Number(r.plan_version),
     methodology: withMethodologyDefaults(r.methodology_json ? json<unknown>(r.methodology_json) : null),
-    methodologyVersion: r.methodology_version === null || r.methodology_version === undefined ? null : Number(r.methodology_version), createdAt: iso(r.created_at)!, createdByName: String(r.created_by_name ?? ""),
+    methodologyVersion:
+      r.methodology_version === null || r.methodology_version === undefined ? null : Number(r.methodology_version),
+    createdAt: iso(r.created_at)!,
+    createdByName: String(r.created_by_name ?? ""),
   };
 }
 
 function toDraw(r: Record<string, unknown>): DrawRecord {
   return {
-    id: Number(r.id), version: Number(r.version), seed: Number(r.seed), seedSource: r.seed_source as DrawRecord["seedSource"],
-    algorithm: String(r.algorithm), algorithmVersion: String(r.algorithm_version), populationSha256: String(r.population_sha256),
-    inputs: json<SelectionInputs>(r.inputs_json), selectionSha256: String(r.selection_sha256), drawnAt: iso(r.drawn_at)!,
-    drawnByName: String(r.drawn_by_name ?? ""), current: Boolean(r.current), reperformedAt: iso(r.reperformed_at),
+    id: Number(r.id),
+    version: Number(r.version),
+    seed: Number(r.seed),
+    seedSource: r.seed_source as DrawRecord["seedSource"],
+    algorithm: String(r.algorithm),
+    algorithmVersion: String(r.algorithm_version),
+    populationSha256: String(r.population_sha256),
+    inputs: json<SelectionInputs>(r.inputs_json),
+    selectionSha256: String(r.selection_sha256),
+    drawnAt: iso(r.drawn_at)!,
+    drawnByName: String(r.drawn_by_name ?? ""),
+    current: Boolean(r.current),
+    reperformedAt: iso(r.reperformed_at),
     reperformMatches: r.reperform_matches === null ? null : Boolean(r.reperform_matches),
   };
 }
 
-const sampleQuery = (db: Knex) => db("samples as s").join("users as u", "u.id", "s.created_by").select("s.*", "u.name as created_by_name");
+const sampleQuery = (db: Knex) =>
+  db("samples as s").join("users as u", "u.id", "s.created_by").select("s.*", "u.name as created_by_name");
 
 export async function listSamplesByEngagementId(db: Knex, { engagementId }: { engagementId: number }) {
   return (await sampleQuery(db).where("s.engagement_id", engagementId).orderBy("s.id", "desc")).map(toSample);
@@ -95,46 +118,115 @@ export async function getSampleById(db: Knex, { engagementId, sampleId }: { enga
 async function methodologyStamp(trx: Knex.Transaction, engagementId: number, given?: MethodologyVersion) {
   let m = given;
   if (!m) {
-    const engagement = mustExist(await trx("engagements").where({ id: engagementId }).first("firm_id"), `engagement ${engagementId}`);
+    const engagement = mustExist(
+      await trx("engagements").where({ id: engagementId }).first("firm_id"),
+      `engagement ${engagementId}`,
+    );
     m = await getMethodologyByFirmId(trx, { firmId: Number(engagement.firm_id) });
   }
   return { methodology_json: JSON.stringify(m.settings), methodology_version: m.version };
 }
 
-export async function createSample(db: Knex, { engagementId, actorId, input, plan, methodology }: { engagementId: number; actorId: number; input: PlanSample; plan: SamplePlan; methodology?: MethodologyVersion }) {
+export async function createSample(
+  db: Knex,
+  {
+    engagementId,
+    actorId,
+    input,
+    plan,
+    methodology,
+  }: { engagementId: number; actorId: number; input: PlanSample; plan: SamplePlan; methodology?: MethodologyVersion },
+) {
   return db.transaction(async (trx) => {
     const [id] = await trx("samples").insert({
       ...(await methodologyStamp(trx, engagementId, methodology)),
-      engagement_id: engagementId, population_id: input.populationId, name: input.name, objective: input.objective, assertion: input.assertion,
-      direction: input.direction, method: input.params.method, estimator: input.params.estimator ?? null,
-      params_json: JSON.stringify(input.params), plan_json: JSON.stringify(plan), computed_size: plan.computedSize, chosen_size: plan.chosenSize,
-      size_reason: input.params.sizeReason ?? null, created_by: actorId,
+      engagement_id: engagementId,
+      population_id: input.populationId,
+      name: input.name,
+      objective: input.objective,
+      assertion: input.assertion,
+      direction: input.direction,
+      method: input.params.method,
+      estimator: input.params.estimator ?? null,
+      params_json: JSON.stringify(input.params),
+      plan_json: JSON.stringify(plan),
+      computed_size: plan.computedSize,
+      chosen_size: plan.chosenSize,
+      size_reason: input.params.sizeReason ?? null,
+      created_by: actorId,
     });
-    await recordAudit(trx, { actorUserId: actorId, engagementId, sampleId: id, entity: "sample", entityId: id, action: "plan", after: { ...input, computedSize: plan.computedSize, chosenSize: plan.chosenSize } });
+    await recordAudit(trx, {
+      actorUserId: actorId,
+      engagementId,
+      sampleId: id,
+      entity: "sample",
+      entityId: id,
+      action: "plan",
+      after: { ...input, computedSize: plan.computedSize, chosenSize: plan.chosenSize },
+    });
     return getSampleById(trx, { engagementId, sampleId: id });
   });
 }
 
 /** Changes the plan of a sample not yet drawn; a drawn sample keeps its plan (draw again to change it). */
-export async function updateSamplePlan(db: Knex, { engagementId, sampleId, actorId, input, plan, methodology }: { engagementId: number; sampleId: number; actorId: number; input: PlanSample; plan: SamplePlan; methodology?: MethodologyVersion }) {
+export async function updateSamplePlan(
+  db: Knex,
+  {
+    engagementId,
+    sampleId,
+    actorId,
+    input,
+    plan,
+    methodology,
+  }: {
+    engagementId: number;
+    sampleId: number;
+    actorId: number;
+    input: PlanSample;
+    plan: SamplePlan;
+    methodology?: MethodologyVersion;
+  },
+) {
   return db.transaction(async (trx) => {
     const before = await trx("samples").where({ id: sampleId, engagement_id: engagementId }).forUpdate().first();
     if (!before) throw notFound("No such sample");
-    if (before.status !== "planned") throw conflict("The sample has been drawn; its plan is final. Plan a new sample instead.");
+    if (before.status !== "planned")
+      throw conflict("The sample has been drawn; its plan is final. Plan a new sample instead.");
     await beginSampleWrite(trx, { sampleId, actorId, what: "the plan" });
-    await trx("samples").where({ id: sampleId }).update({
-      name: input.name, objective: input.objective, assertion: input.assertion, direction: input.direction, method: input.params.method,
-      estimator: input.params.estimator ?? null, params_json: JSON.stringify(input.params), plan_json: JSON.stringify(plan),
-      computed_size: plan.computedSize, chosen_size: plan.chosenSize, size_reason: input.params.sizeReason ?? null,
-      plan_version: before.plan_version + 1, updated_at: trx.fn.now(3), ...(await methodologyStamp(trx, engagementId, methodology)),
+    await trx("samples")
+      .where({ id: sampleId })
+      .update({
+        name: input.name,
+        objective: input.objective,
+        assertion: input.assertion,
+        direction: input.direction,
+        method: input.params.method,
+        estimator: input.params.estimator ?? null,
+        params_json: JSON.stringify(input.params),
+        plan_json: JSON.stringify(plan),
+        computed_size: plan.computedSize,
+        chosen_size: plan.chosenSize,
+        size_reason: input.params.sizeReason ?? null,
+        plan_version: before.plan_version + 1,
+        updated_at: trx.fn.now(3),
+        ...(await methodologyStamp(trx, engagementId, methodology)),
+      });
+    await recordAudit(trx, {
+      actorUserId: actorId,
+      engagementId,
+      sampleId,
+      entity: "sample",
+      entityId: sampleId,
+      action: "replan",
+      before: { params: json(before.params_json), chosenSize: before.chosen_size },
+      after: { params: input.params, chosenSize: plan.chosenSize },
     });
-    await recordAudit(trx, { actorUserId: actorId, engagementId, sampleId, entity: "sample", entityId: sampleId, action: "replan",
-      before: { params: json(before.params_json), chosenSize: before.chosen_size }, after: { params: input.params, chosenSize: plan.chosenSize } });
     return getSampleById(trx, { engagementId, sampleId });
   });
 }
 
-const drawQuery = (db: Knex) => db("sample_draws as d").join("users as u", "u.id", "d.drawn_by").select("d.*", "u.name as drawn_by_name");
+const drawQuery = (db: Knex) =>
+  db("sample_draws as d").join("users as u", "u.id", "d.drawn_by").select("d.*", "u.name as drawn_by_name");
 
 export async function listDrawsBySampleId(db: Knex, { sampleId }: { sampleId: number }) {
   return (await drawQuery(db).where("d.sample_id", sampleId).orderBy("d.version", "desc")).map(toDraw);

@@ -914,7 +914,10 @@ declare module "knex/types/tables" {
     misstatement_entries: Knex.CompositeTableType<MisstatementEntriesRow, MisstatementEntriesWrite>;
     misstatement_entry_evidence: Knex.CompositeTableType<MisstatementEntryEvidenceRow, MisstatementEntryEvidenceWrite>;
     misstatement_notes: Knex.CompositeTableType<MisstatementNotesRow, MisstatementNotesWrite>;
-    misstatement_sample_snapshots: Knex.CompositeTableType<MisstatementSampleSnapshotsRow, MisstatementSampleSnapshotsWrite>;
+    misstatement_sample_snapshots: Knex.CompositeTableType<
+      MisstatementSampleSnapshotsRow,
+      MisstatementSampleSnapshotsWrite
+    >;
     misstatement_summaries: Knex.CompositeTableType<MisstatementSummariesRow, MisstatementSummariesWrite>;
     populations: Knex.CompositeTableType<PopulationsRow, PopulationsWrite>;
     population_items: Knex.CompositeTableType<PopulationItemsRow, PopulationItemsWrite>;

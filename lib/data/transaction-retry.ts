@@ -35,7 +35,9 @@ export async function transactionWithRetry<T>(db: Knex, work: (trx: Knex.Transac
     } catch (err) {
       if (!isDeadlock(err) || attempt >= DEADLOCK_ATTEMPTS) throw err;
       counter.sondageDeadlockRetries = deadlockRetries() + 1;
-      console.warn(`[sondage] deadlock retry: transaction re-run after 1213 (attempt ${attempt + 1} of ${DEADLOCK_ATTEMPTS})`);
+      console.warn(
+        `[sondage] deadlock retry: transaction re-run after 1213 (attempt ${attempt + 1} of ${DEADLOCK_ATTEMPTS})`,
+      );
       await new Promise((r) => setTimeout(r, 5 + Math.random() * 20 * attempt));
     }
   }

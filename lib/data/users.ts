@@ -35,37 +35,66 @@ function toUser(r: Pick<UsersRow, (typeof columns)[number]>): UserRecord {
 export const BCRYPT_COST = 10;
 
 export async function getUserById(db: Knex, { userId }: { userId: number }): Promise<UserRecord | null> {
-  const row = await db("users").where({ id: userId }).first(...columns);
+  const row = await db("users")
+    .where({ id: userId })
+    .first(...columns);
   return row ? toUser(row) : null;
 }
 
 /** The user and their hash, for sign-in only. */
 export async function getUserCredentialsByEmail(db: Knex, { email }: { email: string }) {
-  const row = await db("users").where({ email: email.toLowerCase() }).first(...columns, "password_hash");
+  const row = await db("users")
+    .where({ email: email.toLowerCase() })
+    .first(...columns, "password_hash");
   return row ? { user: toUser(row), passwordHash: String(row.password_hash) } : null;
 }
 
-export async function listUsersByFirmId(db: Knex, { firmId, activeOnly = false }: { firmId: number; activeOnly?: boolean }) {
+export async function listUsersByFirmId(
+  db: Knex,
+  { firmId, activeOnly = false }: { firmId: number; activeOnly?: boolean },
+) {
   const q = db("users").where({ firm_id: firmId }).orderBy("name");
   if (activeOnly) q.andWhere({ active: true });
   return (await q.select(...columns)).map(toUser);
 }
 
 /** A new person of the firm, inside the caller's transaction; the hash is of a password nobody knows until they choose theirs with an invitation. */
-export async function createUser(trx: Knex.Transaction, { firmId, actorId, input, passwordHash }: { firmId: number; actorId: number; input: CreateUser; passwordHash: string }) {
+export async function createUser(
+  trx: Knex.Transaction,
+  {
+    firmId,
+    actorId,
+    input,
+    passwordHash,
+  }: { firmId: number; actorId: number; input: CreateUser; passwordHash: string },
+) {
   const taken = await trx("users").where({ email: input.email }).first("id");
-  if (taken) throw new AppError(409, "email_taken", `A user with e-mail ${input.email} already exists`, { email: ["Already in use"] });
+  if (taken)
+    throw new AppError(409, "email_taken", `A user with e-mail ${input.email} already exists`, {
+      email: ["Already in use"],
+    });
   const [id] = await trx("users").insert({
-    firm_id: firmId, email: input.email, name: input.name, grade: input.grade, firm_role: input.firmRole, password_hash: passwordHash,
+    firm_id: firmId,
+    email: input.email,
+    name: input.name,
+    grade: input.grade,
+    firm_role: input.firmRole,
+    password_hash: passwordHash,
   });
   const after = { email: input.email, name: input.name, grade: input.grade, firmRole: input.firmRole, active: true };
   await recordAudit(trx, { actorUserId: actorId, entity: "user", entityId: id, action: "create", after });
   return (await getUserById(trx, { userId: id }))!;
 }
 
-export async function updateUser(db: Knex, { firmId, actorId, userId, input }: { firmId: number; actorId: number; userId: number; input: UpdateUser }) {
+export async function updateUser(
+  db: Knex,
+  { firmId, actorId, userId, input }: { firmId: number; actorId: number; userId: number; input: UpdateUser },
+) {
   return db.transaction(async (trx) => {
-    const before = await trx("users").where({ id: userId, firm_id: firmId }).forUpdate().first(...columns);
+    const before = await trx("users")
+      .where({ id: userId, firm_id: firmId })
+      .forUpdate()
+      .first(...columns);
     if (!before) throw notFound("No such user");
     if (userId === actorId && (input.active === false || input.firmRole === "member"))
       throw new AppError(409, "self_lockout", "You cannot deactivate yourself or remove your own admin role");
@@ -78,7 +107,14 @@ export async function updateUser(db: Knex, { firmId, actorId, userId, input }: {
     const after = (await getUserById(trx, { userId }))!;
     const { createdAt: _c, ...beforeView } = toUser(before);
     const { createdAt: _d, ...afterView } = after;
-    await recordAudit(trx, { actorUserId: actorId, entity: "user", entityId: userId, action: "update", before: beforeView, after: afterView });
+    await recordAudit(trx, {
+      actorUserId: actorId,
+      entity: "user",
+      entityId: userId,
+      action: "update",
+      before: beforeView,
+      after: afterView,
+    });
     return after;
   });
 }
@@ -87,9 +123,20 @@ export async function updateUser(db: Knex, { firmId, actorId, userId, input }: {
  * Inside the caller's transaction: the person's password stops working (replaced by one nobody knows)
  * and every session they have open ends (sessions issued before this instant are refused, lib/auth/options.ts).
  */
-export async function revokePassword(trx: Knex.Transaction, { firmId, actorId, userId, passwordHash }: { firmId: number; actorId: number; userId: number; passwordHash: string }) {
-  const updated = await trx("users").where({ id: userId, firm_id: firmId }).update({ password_hash: passwordHash, sessions_valid_after: trx.fn.now(3), updated_at: trx.fn.now(3) });
+export async function revokePassword(
+  trx: Knex.Transaction,
+  { firmId, actorId, userId, passwordHash }: { firmId: number; actorId: number; userId: number; passwordHash: string },
+) {
+  const updated = await trx("users")
+    .where({ id: userId, firm_id: firmId })
+    .update({ password_hash: passwordHash, sessions_valid_after: trx.fn.now(3), updated_at: trx.fn.now(3) });
   if (!updated) throw notFound("No such user");
-  await recordAudit(trx, { actorUserId: actorId, entity: "user", entityId: userId, action: "reset-password", after: { openSessions: "ended", newPassword: "chosen by the person with a one-time link" } });
+  await recordAudit(trx, {
+    actorUserId: actorId,
+    entity: "user",
+    entityId: userId,
+    action: "reset-password",
+    after: { openSessions: "ended", newPassword: "chosen by the person with a one-time link" },
+  });
   return (await getUserById(trx, { userId }))!;
 }

@@ -14,10 +14,12 @@ const AMOUNT_TEXT = /^-?\d{1,16}(\.\d{1,2})?$/;
 /** An amount in exact cents as a decimal string ("1250.00"); numbers with more than 2 decimals are refused, not rounded. */
 export function readAmount(cell: SheetCell): Read<string | null> {
   switch (cell.kind) {
-    case "empty": return ok(null);
+    case "empty":
+      return ok(null);
     case "number": {
       const cents = Math.round(cell.value * 100);
-      if (!Number.isFinite(cell.value) || Math.abs(cell.value * 100 - cents) > 1e-6 * Math.max(1, Math.abs(cents))) return fail(`${cell.value} has more than 2 decimals.`);
+      if (!Number.isFinite(cell.value) || Math.abs(cell.value * 100 - cents) > 1e-6 * Math.max(1, Math.abs(cents)))
+        return fail(`${cell.value} has more than 2 decimals.`);
       if (!Number.isSafeInteger(cents)) return fail(`${cell.value} is too large.`);
       return ok(centsToDecimal(BigInt(cents)));
     }
@@ -25,35 +27,50 @@ export function readAmount(cell: SheetCell): Read<string | null> {
       const text = cell.value.trim().replace(/[\s,]/g, "");
       const negative = /^\(.*\)$/.test(text);
       const digits = negative ? `-${text.slice(1, -1)}` : text;
-      if (!AMOUNT_TEXT.test(digits)) return fail(`Text in an amount cell: ${quote(cell.value)} is not an amount (enter a number such as 1250.00).`);
+      if (!AMOUNT_TEXT.test(digits))
+        return fail(`Text in an amount cell: ${quote(cell.value)} is not an amount (enter a number such as 1250.00).`);
       return ok(digits.includes(".") ? digits.replace(/\.(\d)$/, (_m, d: string) => `.${d}0`) : `${digits}.00`);
     }
-    case "formula": return fail(FORMULA_REASON);
-    case "date": return fail("A date in an amount cell; enter the amount.");
-    case "boolean": return fail("TRUE/FALSE in an amount cell; enter the amount.");
-    case "error": return fail(`The cell shows the error ${cell.value}; enter the amount.`);
+    case "formula":
+      return fail(FORMULA_REASON);
+    case "date":
+      return fail("A date in an amount cell; enter the amount.");
+    case "boolean":
+      return fail("TRUE/FALSE in an amount cell; enter the amount.");
+    case "error":
+      return fail(`The cell shows the error ${cell.value}; enter the amount.`);
   }
 }
 
 /** Free text; a formula-looking text stays text. Empty text is null. */
 export function readText(cell: SheetCell, maxLength: number): Read<string | null> {
   switch (cell.kind) {
-    case "empty": return ok(null);
+    case "empty":
+      return ok(null);
     case "text": {
       const text = cell.value.trim();
       if (text.length > maxLength) return fail(`The text is ${text.length} characters; at most ${maxLength}.`);
       return ok(text === "" ? null : text);
     }
-    case "number": return ok(String(cell.value));
-    case "boolean": return ok(cell.value ? "TRUE" : "FALSE");
-    case "date": return ok(cell.value.toISOString().slice(0, 10));
-    case "formula": return fail(FORMULA_REASON);
-    case "error": return fail(`The cell shows the error ${cell.value}.`);
+    case "number":
+      return ok(String(cell.value));
+    case "boolean":
+      return ok(cell.value ? "TRUE" : "FALSE");
+    case "date":
+      return ok(cell.value.toISOString().slice(0, 10));
+    case "formula":
+      return fail(FORMULA_REASON);
+    case "error":
+      return fail(`The cell shows the error ${cell.value}.`);
   }
 }
 
 /** A choice from a list, as its label or code; `from` maps the typed text to the code. */
-export function readChoice<T>(cell: SheetCell, from: (text: string) => T | undefined, allowed: string[]): Read<T | null> {
+export function readChoice<T>(
+  cell: SheetCell,
+  from: (text: string) => T | undefined,
+  allowed: string[],
+): Read<T | null> {
   const text = readText(cell, 200);
   if (!text.ok || text.value === null) return text as Read<null>;
   const value = from(text.value);
@@ -65,7 +82,10 @@ const NO = new Set(["no", "n", "false", "0"]);
 
 export function readYesNo(cell: SheetCell): Read<boolean | null> {
   if (cell.kind === "boolean") return ok(cell.value);
-  return readChoice(cell, (t) => (YES.has(t.toLowerCase()) ? true : NO.has(t.toLowerCase()) ? false : undefined), ["Yes", "No"]);
+  return readChoice(cell, (t) => (YES.has(t.toLowerCase()) ? true : NO.has(t.toLowerCase()) ? false : undefined), [
+    "Yes",
+    "No",
+  ]);
 }
 
 /** A whole number from a hidden column (item id, version). */

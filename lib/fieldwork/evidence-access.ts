@@ -12,5 +12,6 @@ export function mayWriteEvidence(role: EngagementRole): boolean {
 }
 
 export function assertMayWriteEvidence(role: EngagementRole) {
-  if (!mayWriteEvidence(role)) throw forbidden(`Adding or removing evidence needs the staff role or above; you are ${role}.`);
+  if (!mayWriteEvidence(role))
+    throw forbidden(`Adding or removing evidence needs the staff role or above; you are ${role}.`);
 }

@@ -4,5 +4,8 @@ import { uploadFileName } from "@/lib/validation/file-name";
 export const EvidenceUploadQuerySchema = z.object({ fileName: uploadFileName });
 
 export const EvidenceListQuerySchema = z.object({
-  includeDeleted: z.enum(["true", "false"]).default("false").transform((v) => v === "true"),
+  includeDeleted: z
+    .enum(["true", "false"])
+    .default("false")
+    .transform((v) => v === "true"),
 });

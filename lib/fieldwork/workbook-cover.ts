@@ -30,8 +30,15 @@ function instructions(kind: WorkbookKind): string[] {
     "If someone changed an item in Sondage after this workbook was exported, the import refuses your change to that row: export a fresh workbook.",
   ];
   return kind === "amounts"
-    ? [...common, "Audited value: the amount you audited (2 decimals at most). Misstatement = book value − audited value; an item you could not audit counts as fully misstated.", "Cause: pick from the list; for Other, describe it in Cause detail."]
-    : [...common, "Deviation: Yes or No for each item tested; describe any deviation in Nature of deviation. An item you could not test counts as a deviation."];
+    ? [
+        ...common,
+        "Audited value: the amount you audited (2 decimals at most). Misstatement = book value − audited value; an item you could not audit counts as fully misstated.",
+        "Cause: pick from the list; for Other, describe it in Cause detail.",
+      ]
+    : [
+        ...common,
+        "Deviation: Yes or No for each item tested; describe any deviation in Nature of deviation. An item you could not test counts as a deviation.",
+      ];
 }
 
 /** The cover sheet: what the workbook is for, where the selection came from, how to fill it, and the judgement caution. */
@@ -40,17 +47,35 @@ export async function writeCoverSheet(wb: ExcelJS.Workbook, f: CoverFacts) {
   const ws = wb.addWorksheet(COVER_SHEET);
   ws.columns = [{ width: 28 }, { width: 90 }];
   const rows: [string, string | number][] = [
-    ["Engagement", `${f.engagement.clientName} — ${f.engagement.name} (period end ${formatDate(f.engagement.periodEnd)})`],
+    [
+      "Engagement",
+      `${f.engagement.clientName} — ${f.engagement.name} (period end ${formatDate(f.engagement.periodEnd)})`,
+    ],
     ["Sample", f.sample.name],
     ["Objective", f.sample.objective],
     ["Assertion", f.sample.assertion],
     ["Method", METHOD_LABELS[f.sample.method] + (f.sample.estimator ? `, ${f.sample.estimator}` : "")],
     ["Confidence", `${Math.round(f.sample.params.confidence * 1000) / 10}%`],
     ["Seed", String(f.draw.seed)],
-    ...(randomStart === null ? [] : [[`Random start (${f.engagement.currency})`, formatMoney(randomStart.toFixed(2))] as [string, string]]),
-    ...(f.draw.inputs.interval && f.sample.method === "mus" ? [[`Sampling interval (${f.engagement.currency})`, formatMoney(f.draw.inputs.interval.toFixed(2))] as [string, string]] : []),
-    ["Draw", `version ${f.draw.version}, ${f.draw.algorithm} ${f.draw.algorithmVersion}, drawn ${formatDateTime(f.draw.drawnAt)} by ${f.draw.drawnByName}`],
-    ["Population", `${f.population.name} (${countOf(f.population.rowCount, "item")}, total ${formatMoney(f.population.total)})`],
+    ...(randomStart === null
+      ? []
+      : [[`Random start (${f.engagement.currency})`, formatMoney(randomStart.toFixed(2))] as [string, string]]),
+    ...(f.draw.inputs.interval && f.sample.method === "mus"
+      ? [
+          [`Sampling interval (${f.engagement.currency})`, formatMoney(f.draw.inputs.interval.toFixed(2))] as [
+            string,
+            string,
+          ],
+        ]
+      : []),
+    [
+      "Draw",
+      `version ${f.draw.version}, ${f.draw.algorithm} ${f.draw.algorithmVersion}, drawn ${formatDateTime(f.draw.drawnAt)} by ${f.draw.drawnByName}`,
+    ],
+    [
+      "Population",
+      `${f.population.name} (${countOf(f.population.rowCount, "item")}, total ${formatMoney(f.population.total)})`,
+    ],
     ["Population SHA-256", f.draw.populationSha256],
     ["Selection SHA-256", f.draw.selectionSha256],
     ["Items in this workbook", f.itemCount],
@@ -59,7 +84,8 @@ export async function writeCoverSheet(wb: ExcelJS.Workbook, f: CoverFacts) {
   const title = ws.addRow(["Fieldwork workbook"]);
   title.font = { bold: true, size: 14 };
   ws.addRow([]);
-  for (const [label, value] of rows) ws.addRow([label, typeof value === "string" ? safeCellText(value) : value]).getCell(1).font = { bold: true };
+  for (const [label, value] of rows)
+    ws.addRow([label, typeof value === "string" ? safeCellText(value) : value]).getCell(1).font = { bold: true };
   ws.addRow([]);
   ws.addRow(["Instructions"]).font = { bold: true };
   for (const line of instructions(f.kind)) ws.addRow(["", line]);

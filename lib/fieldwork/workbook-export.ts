@@ -9,8 +9,14 @@ import { CAUSE_LABELS, MISSTATEMENT_CAUSES } from "@/lib/validation/sample";
 import { safeCellText } from "./cell-text";
 import { writeCoverSheet } from "./workbook-cover";
 import {
-  columnsFor, ITEMS_SHEET, resultFingerprint, STATUS_LABELS, workbookKindFor,
-  type ColumnKey, type RowResult, type WorkbookKind,
+  columnsFor,
+  ITEMS_SHEET,
+  resultFingerprint,
+  STATUS_LABELS,
+  workbookKindFor,
+  type ColumnKey,
+  type RowResult,
+  type WorkbookKind,
 } from "./workbook-layout";
 
 const MONEY_FORMAT = "#,##0.00;-#,##0.00";
@@ -20,34 +26,81 @@ const text = (v: string | null) => (v ? safeCellText(v) : null);
 export function resultOfItem(item: SampleItemRecord): RowResult {
   return {
     status: item.status === "void" ? "not-started" : item.status,
-    auditedValue: item.auditedValue, cause: (item.cause as RowResult["cause"]) ?? null, causeNote: item.causeNote || null,
-    deviation: item.deviation, deviationNature: item.deviationNature || null, comment: item.comment || null,
+    auditedValue: item.auditedValue,
+    cause: (item.cause as RowResult["cause"]) ?? null,
+    causeNote: item.causeNote || null,
+    deviation: item.deviation,
+    deviationNature: item.deviationNature || null,
+    comment: item.comment || null,
   };
 }
 
 /** How the item came into the sample: a key item (examined 100 %) with its reason, a haphazard pick, or the sample. */
 export function selectedAsText(item: Pick<SampleItemRecord, "keyItem" | "keyReason" | "pickedAt">): string {
-  if (item.keyItem) return item.keyReason ? `Key item (examined 100 %): ${item.keyReason}` : "Key item (examined 100 %)";
+  if (item.keyItem)
+    return item.keyReason ? `Key item (examined 100 %): ${item.keyReason}` : "Key item (examined 100 %)";
   return item.pickedAt ? "Haphazard pick" : "Sample";
 }
 
-function cellValues(kind: WorkbookKind, item: SampleItemRecord, letter: (k: ColumnKey) => string, row: number): Partial<Record<ColumnKey, ExcelJS.CellValue>> {
+function cellValues(
+  kind: WorkbookKind,
+  item: SampleItemRecord,
+  letter: (k: ColumnKey) => string,
+  row: number,
+): Partial<Record<ColumnKey, ExcelJS.CellValue>> {
   const r = resultOfItem(item);
-  const misstatementFormula = kind === "deviations" ? "" : `IF(${letter("status")}${row}="${STATUS_LABELS["not-auditable"]}",${letter("bookValue")}${row},IF(${letter("auditedValue")}${row}="","",${letter("bookValue")}${row}-${letter("auditedValue")}${row}))`;
+  const misstatementFormula =
+    kind === "deviations"
+      ? ""
+      : `IF(${letter("status")}${row}="${STATUS_LABELS["not-auditable"]}",${letter("bookValue")}${row},IF(${letter("auditedValue")}${row}="","",${letter("bookValue")}${row}-${letter("auditedValue")}${row}))`;
   return {
-    order: item.selectionOrder, itemRef: safeCellText(item.itemRef), description: text(item.description), bookValue: Number(item.bookValue), selectedAs: text(selectedAsText(item)),
-    auditedValue: r.auditedValue === null ? null : Number(r.auditedValue), status: STATUS_LABELS[r.status],
-    cause: r.cause ? CAUSE_LABELS[r.cause] : null, causeNote: text(r.causeNote), comment: text(r.comment),
-    deviation: r.deviation === null ? null : r.deviation ? "Yes" : "No", deviationNature: text(r.deviationNature),
-    misstatement: kind === "deviations" ? null : { formula: misstatementFormula, result: item.misstatement === null ? "" : Number(item.misstatement) },
-    itemId: item.id, version: item.version, exported: resultFingerprint(kind, r),
+    order: item.selectionOrder,
+    itemRef: safeCellText(item.itemRef),
+    description: text(item.description),
+    bookValue: Number(item.bookValue),
+    selectedAs: text(selectedAsText(item)),
+    auditedValue: r.auditedValue === null ? null : Number(r.auditedValue),
+    status: STATUS_LABELS[r.status],
+    cause: r.cause ? CAUSE_LABELS[r.cause] : null,
+    causeNote: text(r.causeNote),
+    comment: text(r.comment),
+    deviation: r.deviation === null ? null : r.deviation ? "Yes" : "No",
+    deviationNature: text(r.deviationNature),
+    misstatement:
+      kind === "deviations"
+        ? null
+        : { formula: misstatementFormula, result: item.misstatement === null ? "" : Number(item.misstatement) },
+    itemId: item.id,
+    version: item.version,
+    exported: resultFingerprint(kind, r),
   };
 }
 
 const VALIDATIONS: Partial<Record<ColumnKey, ExcelJS.DataValidation>> = {
-  status: { type: "list", allowBlank: true, formulae: listOf(Object.values(STATUS_LABELS)), showErrorMessage: true, errorTitle: "Status", error: `Choose ${Object.values(STATUS_LABELS).join(", ")}.` },
-  cause: { type: "list", allowBlank: true, formulae: listOf(MISSTATEMENT_CAUSES.map((c) => CAUSE_LABELS[c])), showErrorMessage: true, errorTitle: "Cause", error: "Choose a cause from the list." },
-  deviation: { type: "list", allowBlank: true, formulae: listOf(["Yes", "No"]), showErrorMessage: true, errorTitle: "Deviation", error: "Answer Yes or No." },
+  status: {
+    type: "list",
+    allowBlank: true,
+    formulae: listOf(Object.values(STATUS_LABELS)),
+    showErrorMessage: true,
+    errorTitle: "Status",
+    error: `Choose ${Object.values(STATUS_LABELS).join(", ")}.`,
+  },
+  cause: {
+    type: "list",
+    allowBlank: true,
+    formulae: listOf(MISSTATEMENT_CAUSES.map((c) => CAUSE_LABELS[c])),
+    showErrorMessage: true,
+    errorTitle: "Cause",
+    error: "Choose a cause from the list.",
+  },
+  deviation: {
+    type: "list",
+    allowBlank: true,
+    formulae: listOf(["Yes", "No"]),
+    showErrorMessage: true,
+    errorTitle: "Deviation",
+    error: "Answer Yes or No.",
+  },
 };
 
 function writeItemsSheet(wb: ExcelJS.Workbook, kind: WorkbookKind, items: SampleItemRecord[]) {
@@ -78,17 +131,33 @@ function writeItemsSheet(wb: ExcelJS.Workbook, kind: WorkbookKind, items: Sample
 }
 
 /** The fieldwork workbook of a drawn sample: a cover sheet and the Items sheet to fill. */
-export async function buildFieldworkWorkbook(db: Knex, { engagementId, sampleId, exportedBy }: { engagementId: number; sampleId: number; exportedBy: string }) {
+export async function buildFieldworkWorkbook(
+  db: Knex,
+  { engagementId, sampleId, exportedBy }: { engagementId: number; sampleId: number; exportedBy: string },
+) {
   const view = await loadSampleView(db, { engagementId, sampleId });
-  if (!view.currentDraw) throw conflict("The sample has not been drawn yet; draw it before exporting the fieldwork workbook.");
+  if (!view.currentDraw)
+    throw conflict("The sample has not been drawn yet; draw it before exporting the fieldwork workbook.");
   const items = (await listItemsByDrawId(db, { drawId: view.currentDraw.id })).items.filter((i) => i.status !== "void");
   const kind = workbookKindFor(view.sample.method);
   const wb = new ExcelJS.Workbook();
   wb.creator = "Sondage";
   wb.created = new Date();
-  await writeCoverSheet(wb, { ...view, draw: view.currentDraw, kind, itemCount: items.length, exportedBy, caution: JUDGEMENT_CAUTION });
+  await writeCoverSheet(wb, {
+    ...view,
+    draw: view.currentDraw,
+    kind,
+    itemCount: items.length,
+    exportedBy,
+    caution: JUDGEMENT_CAUTION,
+  });
   writeItemsSheet(wb, kind, items);
   const bytes = Buffer.from(await wb.xlsx.writeBuffer());
-  const slug = view.sample.name.toLowerCase().replace(/[^a-z0-9]+/g, "-").replace(/^-|-$/g, "").slice(0, 40) || "sample";
+  const slug =
+    view.sample.name
+      .toLowerCase()
+      .replace(/[^a-z0-9]+/g, "-")
+      .replace(/^-|-$/g, "")
+      .slice(0, 40) || "sample";
   return { bytes, fileName: `fieldwork-${slug}-${sampleId}.xlsx` };
 }

@@ -8,8 +8,22 @@ import { ITEM_STATUS_ALIASES, ITEM_STATUS_LABELS } from "./field-labels";
 export type WorkbookKind = "amounts" | "deviations";
 
 export type ColumnKey =
-  | "order" | "itemRef" | "description" | "bookValue" | "selectedAs" | "auditedValue" | "status" | "cause" | "causeNote"
-  | "deviation" | "deviationNature" | "comment" | "misstatement" | "itemId" | "version" | "exported";
+  | "order"
+  | "itemRef"
+  | "description"
+  | "bookValue"
+  | "selectedAs"
+  | "auditedValue"
+  | "status"
+  | "cause"
+  | "causeNote"
+  | "deviation"
+  | "deviationNature"
+  | "comment"
+  | "misstatement"
+  | "itemId"
+  | "version"
+  | "exported";
 
 export interface ColumnSpec {
   key: ColumnKey;
@@ -68,7 +82,11 @@ export function columnsFor(kind: WorkbookKind): ColumnSpec[] {
 export type ItemStatus = (typeof ITEM_STATUSES)[number];
 export type Cause = (typeof MISSTATEMENT_CAUSES)[number];
 
-export const STATUS_LABELS: Record<ItemStatus, string> = { "not-started": ITEM_STATUS_LABELS["not-started"], done: ITEM_STATUS_LABELS.done, "not-auditable": ITEM_STATUS_LABELS["not-auditable"] };
+export const STATUS_LABELS: Record<ItemStatus, string> = {
+  "not-started": ITEM_STATUS_LABELS["not-started"],
+  done: ITEM_STATUS_LABELS.done,
+  "not-auditable": ITEM_STATUS_LABELS["not-auditable"],
+};
 
 const byLabel = <T extends string>(labels: Record<T, string>) => {
   const map = new Map<string, T>();
@@ -101,6 +119,9 @@ export interface RowResult {
  * values still match it was not touched, so a stale version on an untouched row is no conflict.
  */
 export function resultFingerprint(kind: WorkbookKind, r: RowResult): string {
-  const fields = kind === "amounts" ? [r.status, r.auditedValue, r.cause, r.causeNote, r.comment] : [r.status, r.deviation, r.deviationNature, r.comment];
+  const fields =
+    kind === "amounts"
+      ? [r.status, r.auditedValue, r.cause, r.causeNote, r.comment]
+      : [r.status, r.deviation, r.deviationNature, r.comment];
   return createHash("sha256").update(JSON.stringify(fields)).digest("hex").slice(0, 16);
 }

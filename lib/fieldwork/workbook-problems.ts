@@ -12,12 +12,23 @@ export interface WorkbookProblem {
 
 /** A workbook refused as a whole: 422 with every problem found, nothing applied. */
 export class WorkbookProblemsError extends AppError {
-  constructor(readonly problems: WorkbookProblem[], message?: string) {
+  constructor(
+    readonly problems: WorkbookProblem[],
+    message?: string,
+  ) {
     const rows = new Set(problems.map((p) => p.row)).size;
-    super(422, "workbook_rejected", message ?? `The workbook was not imported: ${problems.length} problem${problems.length === 1 ? "" : "s"} in ${rows} row${rows === 1 ? "" : "s"}. Nothing was changed; correct the rows listed and import again.`);
+    super(
+      422,
+      "workbook_rejected",
+      message ??
+        `The workbook was not imported: ${problems.length} problem${problems.length === 1 ? "" : "s"} in ${rows} row${rows === 1 ? "" : "s"}. Nothing was changed; correct the rows listed and import again.`,
+    );
   }
 
   toResponse(): Response {
-    return Response.json({ error: { code: this.code, message: this.message, problems: this.problems } }, { status: this.status });
+    return Response.json(
+      { error: { code: this.code, message: this.message, problems: this.problems } },
+      { status: this.status },
+    );
   }
 }

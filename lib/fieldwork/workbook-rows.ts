@@ -1,7 +1,15 @@
 import "server-only";
 import { CAUSE_LABELS, MISSTATEMENT_CAUSES, SaveResultSchema, type SaveResult } from "@/lib/validation/sample";
 import { readAmount, readChoice, readRef, readText, readWhole, readYesNo, type Read } from "./cell-values";
-import { causeFromText, resultFingerprint, STATUS_LABELS, statusFromText, type ColumnKey, type RowResult, type WorkbookKind } from "./workbook-layout";
+import {
+  causeFromText,
+  resultFingerprint,
+  STATUS_LABELS,
+  statusFromText,
+  type ColumnKey,
+  type RowResult,
+  type WorkbookKind,
+} from "./workbook-layout";
 import type { WorkbookProblem } from "./workbook-problems";
 import type { ItemsSheet, SheetRow } from "./workbook-read";
 import { formatDateTime } from "@/lib/format/date";
@@ -18,12 +26,33 @@ export interface ItemFacts {
   result: RowResult;
 }
 
-export interface RowChange { row: number; itemId: number; input: SaveResult }
-export interface ImportPlan { changes: RowChange[]; unchanged: number; problems: WorkbookProblem[] }
+export interface RowChange {
+  row: number;
+  itemId: number;
+  input: SaveResult;
+}
+export interface ImportPlan {
+  changes: RowChange[];
+  unchanged: number;
+  problems: WorkbookProblem[];
+}
 
-const SCHEMA_FIELD_TO_COLUMN: Record<string, ColumnKey> = { auditedValue: "auditedValue", status: "status", cause: "cause", causeNote: "causeNote", deviation: "deviation", deviationNature: "deviationNature", comment: "comment" };
+const SCHEMA_FIELD_TO_COLUMN: Record<string, ColumnKey> = {
+  auditedValue: "auditedValue",
+  status: "status",
+  cause: "cause",
+  causeNote: "causeNote",
+  deviation: "deviation",
+  deviationNature: "deviationNature",
+  comment: "comment",
+};
 
-function parseResult(kind: WorkbookKind, sr: SheetRow, current: RowResult, report: (key: ColumnKey, reason: string) => void): RowResult | null {
+function parseResult(
+  kind: WorkbookKind,
+  sr: SheetRow,
+  current: RowResult,
+  report: (key: ColumnKey, reason: string) => void,
+): RowResult | null {
   let bad = false;
   const take = <T>(key: ColumnKey, read: Read<T>, fallback: T): T => {
     if (read.ok) return read.value;
@@ -37,7 +66,15 @@ function parseResult(kind: WorkbookKind, sr: SheetRow, current: RowResult, repor
   r.comment = take("comment", readText(c.comment, 4000), null);
   if (kind === "amounts") {
     r.auditedValue = take("auditedValue", readAmount(c.auditedValue), null);
-    r.cause = take("cause", readChoice(c.cause, causeFromText, MISSTATEMENT_CAUSES.map((k) => CAUSE_LABELS[k])), null);
+    r.cause = take(
+      "cause",
+      readChoice(
+        c.cause,
+        causeFromText,
+        MISSTATEMENT_CAUSES.map((k) => CAUSE_LABELS[k]),
+      ),
+      null,
+    );
     r.causeNote = take("causeNote", readText(c.causeNote, 2000), null);
   } else {
     r.deviation = take("deviation", readYesNo(c.deviation), null);
@@ -47,9 +84,23 @@ function parseResult(kind: WorkbookKind, sr: SheetRow, current: RowResult, repor
   const answered = kind === "amounts" ? r.auditedValue !== null : r.deviation !== null;
   r.status = status ?? (answered ? "done" : "not-started");
   const resultKey: ColumnKey = kind === "amounts" ? "auditedValue" : "deviation";
-  if (r.status === "not-started" && answered) report("status", `Status is ${STATUS_LABELS["not-started"]} but a result is entered: set Status to ${STATUS_LABELS.done}, or clear the result.`);
-  else if (r.status === "done" && !answered) report(resultKey, kind === "amounts" ? "Done without an audited value: enter the audited value, or change the status." : "Done without a deviation answer: enter Yes or No, or change the status.");
-  else if (r.status === "not-auditable" && kind === "amounts" && r.auditedValue !== null) report("auditedValue", `${STATUS_LABELS["not-auditable"]} with an audited value: clear the value, or set Status to ${STATUS_LABELS.done}.`);
+  if (r.status === "not-started" && answered)
+    report(
+      "status",
+      `Status is ${STATUS_LABELS["not-started"]} but a result is entered: set Status to ${STATUS_LABELS.done}, or clear the result.`,
+    );
+  else if (r.status === "done" && !answered)
+    report(
+      resultKey,
+      kind === "amounts"
+        ? "Done without an audited value: enter the audited value, or change the status."
+        : "Done without a deviation answer: enter Yes or No, or change the status.",
+    );
+  else if (r.status === "not-auditable" && kind === "amounts" && r.auditedValue !== null)
+    report(
+      "auditedValue",
+      `${STATUS_LABELS["not-auditable"]} with an audited value: clear the value, or set Status to ${STATUS_LABELS.done}.`,
+    );
   else return r;
   return null;
 }
@@ -73,32 +124,66 @@ export function planWorkbookImport(kind: WorkbookKind, sheet: ItemsSheet, items:
     const before = plan.problems.length;
     const report = (key: ColumnKey, reason: string) => {
       const place = sheet.columns[key];
-      plan.problems.push({ row: sr.row, column: place?.header ?? key, cell: place ? `${place.letter}${sr.row}` : undefined, reason });
+      plan.problems.push({
+        row: sr.row,
+        column: place?.header ?? key,
+        cell: place ? `${place.letter}${sr.row}` : undefined,
+        reason,
+      });
     };
     const ref = readRef(sr.cells.itemRef);
     const itemId = readWhole(sr.cells.itemId);
     const version = readWhole(sr.cells.version);
-    if (ref === null) { report("itemRef", "The item reference is empty."); continue; }
+    if (ref === null) {
+      report("itemRef", "The item reference is empty.");
+      continue;
+    }
     const candidates = byRef.get(ref) ?? [];
-    if (candidates.length === 0) { report("itemRef", `Unknown reference: no item "${ref}" in this sample's current selection.`); continue; }
+    if (candidates.length === 0) {
+      report("itemRef", `Unknown reference: no item "${ref}" in this sample's current selection.`);
+      continue;
+    }
     const item = itemId !== null ? byId.get(itemId) : candidates.length === 1 ? candidates[0] : undefined;
-    if (!item || item.itemRef !== ref) { report("itemRef", `The hidden item id does not match the reference "${ref}" (rows moved, pasted or typed in?): export a fresh workbook.`); continue; }
-    if (version === null) { report("version", "The hidden Version column is empty or changed: export a fresh workbook."); continue; }
+    if (!item || item.itemRef !== ref) {
+      report(
+        "itemRef",
+        `The hidden item id does not match the reference "${ref}" (rows moved, pasted or typed in?): export a fresh workbook.`,
+      );
+      continue;
+    }
+    if (version === null) {
+      report("version", "The hidden Version column is empty or changed: export a fresh workbook.");
+      continue;
+    }
     const firstRow = seen.get(item.id);
-    if (firstRow !== undefined) { report("itemRef", `Item "${ref}" appears twice (first at row ${firstRow}).`); continue; }
+    if (firstRow !== undefined) {
+      report("itemRef", `Item "${ref}" appears twice (first at row ${firstRow}).`);
+      continue;
+    }
     seen.set(item.id, sr.row);
-    if (item.status === "void") { report("itemRef", `Item "${ref}" was voided and replaced; record the result on its replacement.`); continue; }
+    if (item.status === "void") {
+      report("itemRef", `Item "${ref}" was voided and replaced; record the result on its replacement.`);
+      continue;
+    }
     const book = readAmount(sr.cells.bookValue);
-    if (!book.ok || book.value !== item.bookValue) report("bookValue", `The book value was changed; it is fixed by the selection at ${item.bookValue}.`);
+    if (!book.ok || book.value !== item.bookValue)
+      report("bookValue", `The book value was changed; it is fixed by the selection at ${item.bookValue}.`);
     const result = parseResult(kind, sr, item.result, report);
     if (!result || plan.problems.length > before) continue;
     const exported = sr.cells.exported.kind === "text" ? sr.cells.exported.value : null;
     const fingerprint = resultFingerprint(kind, result);
-    if (fingerprint === exported || fingerprint === resultFingerprint(kind, item.result)) { plan.unchanged++; continue; }
-    if (version !== item.version) { report("itemRef", staleReason(item, version)); continue; }
+    if (fingerprint === exported || fingerprint === resultFingerprint(kind, item.result)) {
+      plan.unchanged++;
+      continue;
+    }
+    if (version !== item.version) {
+      report("itemRef", staleReason(item, version));
+      continue;
+    }
     const parsed = SaveResultSchema.safeParse({ version, ...result });
     if (!parsed.success) {
-      for (const issue of parsed.error.issues) report(SCHEMA_FIELD_TO_COLUMN[String(issue.path[0])] ?? "status", issue.message);
+      for (const issue of parsed.error.issues)
+        report(SCHEMA_FIELD_TO_COLUMN[String(issue.path[0])] ?? "status", issue.message);
       continue;
     }
     plan.changes.push({ row: sr.row, itemId: item.id, input: parsed.data });

@@ -15,7 +15,13 @@ const MAGIC: [MagicFormat, number[][]][] = [
   ["png", [[0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]]], // PNG (W3C / ISO/IEC 15948) §5.2 "PNG signature"
   ["jpeg", [[0xff, 0xd8, 0xff]]], //                           ISO/IEC 10918-1 Annex B: SOI marker FFD8, then a marker
   ["gif", [ascii("GIF87a"), ascii("GIF89a")]], //              GIF89a specification §17 "Header"
-  ["tiff", [[0x49, 0x49, 0x2a, 0x00], [0x4d, 0x4d, 0x00, 0x2a]]], // TIFF 6.0 §2 "Image File Header" (II*\0, MM\0*)
+  [
+    "tiff",
+    [
+      [0x49, 0x49, 0x2a, 0x00],
+      [0x4d, 0x4d, 0x00, 0x2a],
+    ],
+  ], // TIFF 6.0 §2 "Image File Header" (II*\0, MM\0*)
   ["zip", [ZIP_MAGIC]],
   ["cfb", [CFB_MAGIC]],
 ];

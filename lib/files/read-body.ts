@@ -28,8 +28,15 @@ export async function readCappedBody(req: Request, maxBytes: number, tooLarge: (
 }
 
 /** An uploaded file as bytes: 413 naming the limit when it is larger than `maxBytes`, 400 when empty. */
-export async function readBodyBytes(req: Request, { maxBytes, what }: { maxBytes: number; what: string }): Promise<Buffer> {
-  const body = await readCappedBody(req, maxBytes, () => new AppError(413, "file_too_large", `The file is larger than the ${megabytes(maxBytes)} limit for ${what}.`));
+export async function readBodyBytes(
+  req: Request,
+  { maxBytes, what }: { maxBytes: number; what: string },
+): Promise<Buffer> {
+  const body = await readCappedBody(
+    req,
+    maxBytes,
+    () => new AppError(413, "file_too_large", `The file is larger than the ${megabytes(maxBytes)} limit for ${what}.`),
+  );
   if (!body || body.length === 0) throw new AppError(400, "empty_file", "file: the upload was empty");
   return body;
 }

@@ -17,9 +17,16 @@ const OPTIONS: Options = { lazyEntries: true, autoClose: false, validateEntrySiz
 type Source = string | Uint8Array;
 
 const openZip = (source: Source): Promise<ZipFile> =>
-  typeof source === "string" ? openPromise(source, OPTIONS) : fromBufferPromise(Buffer.from(source.buffer, source.byteOffset, source.byteLength), OPTIONS);
+  typeof source === "string"
+    ? openPromise(source, OPTIONS)
+    : fromBufferPromise(Buffer.from(source.buffer, source.byteOffset, source.byteLength), OPTIONS);
 
-const entryOf = (e: Entry): ZipEntry => ({ name: e.fileName, method: e.compressionMethod, compressedSize: e.compressedSize, size: e.uncompressedSize });
+const entryOf = (e: Entry): ZipEntry => ({
+  name: e.fileName,
+  method: e.compressionMethod,
+  compressedSize: e.compressedSize,
+  size: e.uncompressedSize,
+});
 
 /** A file system error (the file is missing, say) is not the archive's fault: it is thrown, not read as "not a zip". */
 const isFileSystemError = (err: unknown) => typeof (err as { code?: unknown } | null)?.code === "string";

@@ -21,7 +21,8 @@ function toDate(value: Date | string, field: string): Date {
 /** "2026-12-31" (a calendar date, no time zone shift) or an instant → "31 Dec 2026"; nothing → "—". */
 export function formatDate(value: When, field = "date"): string {
   if (value == null || value === "") return "—";
-  if (typeof value === "string" && !YMD.test(value) && !/T/.test(value)) throw new RangeError(`${field} must be YYYY-MM-DD, got "${value}"`);
+  if (typeof value === "string" && !YMD.test(value) && !/T/.test(value))
+    throw new RangeError(`${field} must be YYYY-MM-DD, got "${value}"`);
   const d = toDate(value, field);
   return `${d.getUTCDate()} ${MONTHS[d.getUTCMonth()]} ${d.getUTCFullYear()}`;
 }

@@ -5,7 +5,11 @@
  */
 export const MINUS = "\u2212";
 
-const MONEY = new Intl.NumberFormat("en-US", { minimumFractionDigits: 2, maximumFractionDigits: 2, signDisplay: "negative" });
+const MONEY = new Intl.NumberFormat("en-US", {
+  minimumFractionDigits: 2,
+  maximumFractionDigits: 2,
+  signDisplay: "negative",
+});
 const COUNT = new Intl.NumberFormat("en-US", { maximumFractionDigits: 0 });
 const DECIMAL_TEXT = /^-?\d+(?:\.\d*)?$/;
 

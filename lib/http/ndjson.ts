@@ -2,7 +2,11 @@
  * The one NDJSON writer: a streamed answer of one JSON object per line, for the long operations
  * (population load, advisor run) that report progress while they work.
  */
-export const NDJSON_HEADERS = { "content-type": "application/x-ndjson; charset=utf-8", "cache-control": "no-store", "x-accel-buffering": "no" } as const;
+export const NDJSON_HEADERS = {
+  "content-type": "application/x-ndjson; charset=utf-8",
+  "cache-control": "no-store",
+  "x-accel-buffering": "no",
+} as const;
 
 const encoder = new TextEncoder();
 
@@ -35,7 +39,11 @@ export function ndjsonStream<E>(produce: (send: (event: E) => void) => Promise<v
       } finally {
         if (!closed) {
           closed = true;
-          try { controller.close(); } catch { /* already closed */ }
+          try {
+            controller.close();
+          } catch {
+            /* already closed */
+          }
         }
       }
     },

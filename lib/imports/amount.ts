@@ -5,9 +5,7 @@ export type NumberFormat = "dot-decimal" | "comma-decimal";
 
 export type AmountProblemKind = "blank" | "not-a-number" | "too-many-decimals" | "out-of-range";
 
-export type AmountResult =
-  | { ok: true; cents: bigint }
-  | { ok: false; kind: AmountProblemKind; detail: string };
+export type AmountResult = { ok: true; cents: bigint } | { ok: false; kind: AmountProblemKind; detail: string };
 
 /** DECIMAL(18,2): 16 integer digits, 2 decimals. */
 export const MAX_INTEGER_DIGITS = 16;
@@ -90,12 +88,20 @@ export function parseAmountToCents(raw: string, format: NumberFormat): AmountRes
   let fraction = match[2] ?? "";
   if (fraction.length > 2) {
     if (/[^0]/.test(fraction.slice(2))) {
-      return { ok: false, kind: "too-many-decimals", detail: `has ${fraction.length} decimal places; at most 2 are allowed` };
+      return {
+        ok: false,
+        kind: "too-many-decimals",
+        detail: `has ${fraction.length} decimal places; at most 2 are allowed`,
+      };
     }
     fraction = fraction.slice(0, 2);
   }
   if (integer.length > MAX_INTEGER_DIGITS) {
-    return { ok: false, kind: "out-of-range", detail: "is larger than 9,999,999,999,999,999.99, the largest amount accepted" };
+    return {
+      ok: false,
+      kind: "out-of-range",
+      detail: "is larger than 9,999,999,999,999,999.99, the largest amount accepted",
+    };
   }
   const magnitude = BigInt(integer + fraction.padEnd(2, "0"));
   return { ok: true, cents: parts.negative ? -magnitude : magnitude };

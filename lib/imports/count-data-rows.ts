@@ -12,14 +12,21 @@ import { formatCount } from "@/lib/format/number";
  * is refused at once, naming the limit and the row, before anything is stored — rather than after
  * a load has written a million rows and rolled them back. Returns the count when within the limit.
  */
-export async function countDataRowsWithinLimit(filePath: string, inspection: UploadInspection, maxRows: number): Promise<number> {
+export async function countDataRowsWithinLimit(
+  filePath: string,
+  inspection: UploadInspection,
+  maxRows: number,
+): Promise<number> {
   let count = 0;
   for await (const batch of sourceOf(filePath, inspection)) {
     for (const row of batch.rows) {
       if (row.rowNumber <= inspection.headerRow || isBlankSourceRow(row.cells)) continue;
       count += 1;
       if (count > maxRows) {
-        throw new ImportError("too-many-rows", `Row ${formatCount(row.rowNumber)} is data row ${formatCount(count)}: a population holds at most ${formatCount(maxRows)} data rows. Split the file and import each part.`);
+        throw new ImportError(
+          "too-many-rows",
+          `Row ${formatCount(row.rowNumber)} is data row ${formatCount(count)}: a population holds at most ${formatCount(maxRows)} data rows. Split the file and import each part.`,
+        );
       }
     }
   }
@@ -31,5 +38,9 @@ function sourceOf(filePath: string, inspection: UploadInspection): AsyncGenerato
   if (!inspection.encoding || !inspection.delimiter || !inspection.newline) {
     throw new ImportError("invalid-mapping", "The inspection of this CSV is incomplete; inspect the file again.");
   }
-  return readCsvRows(filePath, { encoding: inspection.encoding, delimiter: inspection.delimiter, newline: inspection.newline });
+  return readCsvRows(filePath, {
+    encoding: inspection.encoding,
+    delimiter: inspection.delimiter,
+    newline: inspection.newline,
+  });
 }

@@ -62,7 +62,11 @@ function parseBatch(text: string, dialect: CsvDialect, more: boolean, rowsBefore
 }
 
 /** The first `maxBytes` of a CSV decoded, and whether the file goes on beyond them. */
-export async function readCsvHead(filePath: string, encoding: TextEncoding, maxBytes: number): Promise<{ text: string; truncated: boolean }> {
+export async function readCsvHead(
+  filePath: string,
+  encoding: TextEncoding,
+  maxBytes: number,
+): Promise<{ text: string; truncated: boolean }> {
   const handle = await open(filePath, "r");
   try {
     const { size } = await handle.stat();

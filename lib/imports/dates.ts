@@ -46,7 +46,9 @@ const YEAR_LAST = /^(\d{1,2})[/.-](\d{1,2})[/.-](\d{4})(?: [\d:.]+)?$/;
  */
 export function parseDateText(text: string, order: DateOrder): string | null {
   if (PLAIN_ISO.test(text)) {
-    return isoIfValid(Number(text.slice(0, 4)), Number(text.slice(5, 7)), Number(text.slice(8, 10))) === null ? null : text;
+    return isoIfValid(Number(text.slice(0, 4)), Number(text.slice(5, 7)), Number(text.slice(8, 10))) === null
+      ? null
+      : text;
   }
   const s = text.trim();
   let m = ISO.exec(s) ?? YEAR_FIRST.exec(s);
@@ -54,9 +56,7 @@ export function parseDateText(text: string, order: DateOrder): string | null {
   m = YEAR_LAST.exec(s);
   if (!m) return null;
   const [first, second] = [Number(m[1]), Number(m[2])];
-  return order === "day-first"
-    ? isoIfValid(Number(m[3]), second, first)
-    : isoIfValid(Number(m[3]), first, second);
+  return order === "day-first" ? isoIfValid(Number(m[3]), second, first) : isoIfValid(Number(m[3]), first, second);
 }
 
 const DAYS_IN_MONTH = [31, 28, 31, 30, 31, 30, 31, 31, 30, 31, 30, 31];
@@ -92,6 +92,9 @@ export function detectDateOrder(values: Iterable<string>): DateOrder | null {
  */
 export function isDateNumberFormat(format: string | undefined): boolean {
   if (!format) return false;
-  const bare = format.replace(/"[^"]*"/g, "").replace(/\\./g, "").replace(/\[[^\]]*\]/g, "");
+  const bare = format
+    .replace(/"[^"]*"/g, "")
+    .replace(/\\./g, "")
+    .replace(/\[[^\]]*\]/g, "");
   return /[dmy]/i.test(bare) && !/^general$/i.test(bare.trim());
 }

@@ -68,7 +68,10 @@ export function findHeaderRow(rows: readonly TextRow[]): HeaderRow {
   }
   const valueLike = labels.filter(looksLikeValue).length;
   if (valueLike * 2 >= labels.length) {
-    const sample = labels.slice(0, 3).map((cell) => `"${cell.trim()}"`).join(", ");
+    const sample = labels
+      .slice(0, 3)
+      .map((cell) => `"${cell.trim()}"`)
+      .join(", ");
     throw new ImportError(
       "no-header-row",
       `No header row: row ${candidate.rowNumber} looks like data (${sample}). Add a first row naming the columns, e.g. Reference, Amount.`,

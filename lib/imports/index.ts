@@ -26,9 +26,21 @@ import "server-only";
  * report merged ranges; trailing blank header cells are dropped.
  */
 export { ImportError, isImportError, type ImportErrorReason } from "./import-error";
-export { DEFAULT_LIMITS, MAX_DATA_ROWS, MAX_PROBLEM_DETAILS, MAX_UPLOAD_BYTES, PREVIEW_ROWS, type ImportLimits } from "./limits";
+export {
+  DEFAULT_LIMITS,
+  MAX_DATA_ROWS,
+  MAX_PROBLEM_DETAILS,
+  MAX_UPLOAD_BYTES,
+  PREVIEW_ROWS,
+  type ImportLimits,
+} from "./limits";
 export { inspectUpload, type UploadInspection } from "./inspect-upload";
-export { PopulationImport, type PopulationBatch, type PopulationImportOptions, type PopulationSummary } from "./population-import";
+export {
+  PopulationImport,
+  type PopulationBatch,
+  type PopulationImportOptions,
+  type PopulationSummary,
+} from "./population-import";
 export type { RowProblem, ValidatedRow } from "./row-validator";
 export type { PopulationTotals } from "./population-totals";
 export { formatCents, parseAmountToCents, type NumberFormat } from "./amount";

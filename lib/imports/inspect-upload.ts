@@ -75,10 +75,14 @@ async function inspectWorkbook(filePath: string, size: number, wanted: string | 
   const { sheets, date1904 } = await readWorkbookInfo(filePath);
   const sheet = wanted ?? sheets[0];
   if (sheet === undefined || !sheets.includes(sheet)) {
-    throw new ImportError("sheet-not-found", `The workbook has no sheet named "${wanted ?? ""}". Its sheets are: ${sheets.join(", ")}.`);
+    throw new ImportError(
+      "sheet-not-found",
+      `The workbook has no sheet named "${wanted ?? ""}". Its sheets are: ${sheets.join(", ")}.`,
+    );
   }
   const fast = await readHeadRowsFast(filePath, sheet);
-  if (fast) return { kind: "xlsx", size, sheets, sheet, date1904, ...describeRows(fast, fast.length < SAMPLE_ROWS, false) };
+  if (fast)
+    return { kind: "xlsx", size, sheets, sheet, date1904, ...describeRows(fast, fast.length < SAMPLE_ROWS, false) };
   const rows: TextRow[] = [];
   let complete = true;
   for await (const batch of readXlsxRows(filePath, sheet)) {
@@ -108,7 +112,10 @@ export async function readHeadRowsFast(filePath: string, sheet: string): Promise
 function describeRows(rows: TextRow[], complete: boolean, isCsv: boolean) {
   const header = findHeaderRow(rows);
   if (header.headers.length > MAX_COLUMNS) {
-    throw new ImportError("too-many-columns", `Row ${header.headerRow} has ${formatCount(header.headers.length)} columns; a ledger may have at most ${MAX_COLUMNS}. Remove the columns you do not need and upload again.`);
+    throw new ImportError(
+      "too-many-columns",
+      `Row ${header.headerRow} has ${formatCount(header.headers.length)} columns; a ledger may have at most ${MAX_COLUMNS}. Remove the columns you do not need and upload again.`,
+    );
   }
   const data = rows.filter((row) => row.rowNumber > header.headerRow && !isBlankRow(row.cells));
   if (data.length === 0 && complete) {
@@ -127,7 +134,12 @@ function describeRows(rows: TextRow[], complete: boolean, isCsv: boolean) {
     headerFieldCount: isCsv ? header.fieldCount : null,
     preview: preview.map((row) => Array.from({ length: width }, (_, i) => row.cells[i] ?? "")),
     previewRowNumbers: preview.map((row) => row.rowNumber),
-    detectedNumberFormat: decided.length === 0 ? null : commaColumns * 2 > decided.length ? ("comma-decimal" as const) : ("dot-decimal" as const),
+    detectedNumberFormat:
+      decided.length === 0
+        ? null
+        : commaColumns * 2 > decided.length
+          ? ("comma-decimal" as const)
+          : ("dot-decimal" as const),
     columnNumberFormats,
     detectedDateOrder: detectDateOrder(data.flatMap((row) => row.cells)),
   };

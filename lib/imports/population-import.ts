@@ -53,9 +53,19 @@ export class PopulationImport {
     private readonly options: PopulationImportOptions = {},
   ) {
     this.limits = resolveLimits(options.limits);
-    this.state = { headerRow: inspection.headerRow, rowsRead: 0, totals: emptyTotals(), problemCount: 0, problems: [], problemsTruncated: false };
+    this.state = {
+      headerRow: inspection.headerRow,
+      rowsRead: 0,
+      totals: emptyTotals(),
+      problemCount: 0,
+      problems: [],
+      problemsTruncated: false,
+    };
     if (mapping.sheet !== undefined && mapping.sheet !== inspection.sheet) {
-      throw new ImportError("invalid-mapping", `Sheet "${mapping.sheet}" was chosen but sheet "${inspection.sheet ?? ""}" was inspected; inspect the chosen sheet first.`);
+      throw new ImportError(
+        "invalid-mapping",
+        `Sheet "${mapping.sheet}" was chosen but sheet "${inspection.sheet ?? ""}" was inspected; inspect the chosen sheet first.`,
+      );
     }
   }
 
@@ -72,7 +82,11 @@ export class PopulationImport {
     const { inspection, state, limits } = this;
     let headerSeen = false;
     for await (const batch of this.source()) {
-      const problems: RowProblem[] = batch.quoteProblems.map(({ rowNumber, reason }) => ({ row: rowNumber, column: null, reason }));
+      const problems: RowProblem[] = batch.quoteProblems.map(({ rowNumber, reason }) => ({
+        row: rowNumber,
+        column: null,
+        reason,
+      }));
       const quoted = new Set(batch.quoteProblems.map((problem) => problem.rowNumber));
       const rows: ValidatedRow[] = [];
       for (const row of batch.rows) {
@@ -84,7 +98,10 @@ export class PopulationImport {
         if (isBlankSourceRow(row.cells)) continue;
         state.rowsRead += 1;
         if (state.rowsRead > limits.maxRows) {
-          throw new ImportError("too-many-rows", `The file has more than ${formatCount(limits.maxRows)} data rows, the most accepted in one population. Split it and import each part.`);
+          throw new ImportError(
+            "too-many-rows",
+            `The file has more than ${formatCount(limits.maxRows)} data rows, the most accepted in one population. Split it and import each part.`,
+          );
         }
         const valid = quoted.has(row.rowNumber) ? null : validateRow(row, compiled, problems);
         if (valid) {
@@ -96,8 +113,13 @@ export class PopulationImport {
       this.options.onProgress?.(state.rowsRead, batch.bytesRead, size);
       yield { rows, problems };
     }
-    if (!headerSeen) throw new ImportError("invalid-mapping", "The file changed since it was inspected: its header row is missing. Upload it again.");
-    if (state.rowsRead === 0) throw new ImportError("header-only", `The file has a header row (row ${inspection.headerRow}) but no data rows.`);
+    if (!headerSeen)
+      throw new ImportError(
+        "invalid-mapping",
+        "The file changed since it was inspected: its header row is missing. Upload it again.",
+      );
+    if (state.rowsRead === 0)
+      throw new ImportError("header-only", `The file has a header row (row ${inspection.headerRow}) but no data rows.`);
   }
 
   /** Validate-only pass: reads everything, stores nothing, returns the summary. */
@@ -129,9 +151,15 @@ export class PopulationImport {
 
   private compile(): CompiledMapping {
     const { inspection, mapping } = this;
-    const index = inspection.headers.findIndex((header) => header.toLowerCase() === mapping.bookValueColumn.toLowerCase());
+    const index = inspection.headers.findIndex(
+      (header) => header.toLowerCase() === mapping.bookValueColumn.toLowerCase(),
+    );
     return compileMapping(inspection.headers, mapping, {
-      numberFormat: mapping.numberFormat ?? inspection.columnNumberFormats[index] ?? inspection.detectedNumberFormat ?? "dot-decimal",
+      numberFormat:
+        mapping.numberFormat ??
+        inspection.columnNumberFormats[index] ??
+        inspection.detectedNumberFormat ??
+        "dot-decimal",
       dateOrder: mapping.dateOrder ?? inspection.detectedDateOrder ?? "day-first",
       fieldCount: inspection.headerFieldCount,
       date1904: inspection.date1904 === true,
@@ -144,6 +172,10 @@ export class PopulationImport {
     if (!inspection.encoding || !inspection.delimiter || !inspection.newline) {
       throw new ImportError("invalid-mapping", "The inspection of this CSV is incomplete; inspect the file again.");
     }
-    return readCsvRows(filePath, { encoding: inspection.encoding, delimiter: inspection.delimiter, newline: inspection.newline });
+    return readCsvRows(filePath, {
+      encoding: inspection.encoding,
+      delimiter: inspection.delimiter,
+      newline: inspection.newline,
+    });
   }
 }

@@ -19,7 +19,11 @@ export function problemsToCsv(problems: readonly RowProblem[], totalCount = prob
     lines.push([String(problem.row), problem.column ?? "", problem.reason].map(csvField).join(","));
   }
   if (totalCount > problems.length) {
-    lines.push(["", "", `${totalCount - problems.length} more problems not listed; fix the ones above and upload again`].map(csvField).join(","));
+    lines.push(
+      ["", "", `${totalCount - problems.length} more problems not listed; fix the ones above and upload again`]
+        .map(csvField)
+        .join(","),
+    );
   }
   return `\uFEFF${lines.join("\r\n")}\r\n`;
 }

@@ -59,7 +59,10 @@ export function compileMapping(
     bookValue: indexOf(mapping.bookValueColumn) as number,
     description: indexOf(mapping.descriptionColumn),
     date: indexOf(mapping.dateColumn),
-    extras: mapping.extraColumns.map((name) => ({ index: indexOf(name) as number, name: headers[indexOf(name) as number] })),
+    extras: mapping.extraColumns.map((name) => ({
+      index: indexOf(name) as number,
+      name: headers[indexOf(name) as number],
+    })),
     ...settings,
   };
 }
@@ -68,7 +71,13 @@ function quote(value: string): string {
   return `"${value.length > 60 ? `${value.slice(0, 57)}...` : value}"`;
 }
 
-function addProblem(problems: RowProblem[], row: SourceRow, m: CompiledMapping, column: number | null, reason: string): void {
+function addProblem(
+  problems: RowProblem[],
+  row: SourceRow,
+  m: CompiledMapping,
+  column: number | null,
+  reason: string,
+): void {
   problems.push({ row: row.rowNumber, column: column === null ? null : m.headers[column], reason });
 }
 
@@ -77,16 +86,24 @@ export function validateRow(row: SourceRow, m: CompiledMapping, problems: RowPro
   const before = problems.length;
   const { cells } = row;
   if (m.fieldCount !== null && cells.length !== m.fieldCount) {
-    addProblem(problems, row, m, null, `Row has ${cells.length} field${cells.length === 1 ? "" : "s"}; the header row has ${m.fieldCount}`);
+    addProblem(
+      problems,
+      row,
+      m,
+      null,
+      `Row has ${cells.length} field${cells.length === 1 ? "" : "s"}; the header row has ${m.fieldCount}`,
+    );
     return null;
   }
   for (let i = m.headers.length; i < cells.length; i += 1) {
     const text = cellText(cells[i] ?? null);
-    if (text.trim() !== "") addProblem(problems, row, m, null, `Value ${quote(text)} is in column ${columnLetter(i)}, which has no header`);
+    if (text.trim() !== "")
+      addProblem(problems, row, m, null, `Value ${quote(text)} is in column ${columnLetter(i)}, which has no header`);
   }
   const itemRef = cellText(cells[m.itemRef] ?? null).trim();
   if (itemRef === "") addProblem(problems, row, m, m.itemRef, "Item reference is blank");
-  else if (itemRef.length > MAX_ITEM_REF_LENGTH) addProblem(problems, row, m, m.itemRef, `Item reference is longer than ${MAX_ITEM_REF_LENGTH} characters`);
+  else if (itemRef.length > MAX_ITEM_REF_LENGTH)
+    addProblem(problems, row, m, m.itemRef, `Item reference is longer than ${MAX_ITEM_REF_LENGTH} characters`);
   const cents = bookValueCents(cells[m.bookValue] ?? null, m.numberFormat);
   if (typeof cents === "string") addProblem(problems, row, m, m.bookValue, cents);
   let date: string | null = null;
@@ -105,7 +122,14 @@ export function validateRow(row: SourceRow, m: CompiledMapping, problems: RowPro
       if (text !== "") extra[name] = text;
     }
   }
-  return { rowNumber: row.rowNumber, itemRef, description: descriptionText.trim() === "" ? null : descriptionText, bookValueCents: cents, date, extra };
+  return {
+    rowNumber: row.rowNumber,
+    itemRef,
+    description: descriptionText.trim() === "" ? null : descriptionText,
+    bookValueCents: cents,
+    date,
+    extra,
+  };
 }
 
 /** Cents, or the reason the cell is not an acceptable book value. */
@@ -121,9 +145,11 @@ function bookValueCents(cell: RawCell, format: NumberFormat): bigint | string {
 function readDate(cell: RawCell, m: CompiledMapping): string | null {
   if (cell === null || (typeof cell === "string" && cell.trim() === "")) return null;
   const iso =
-    cell instanceof Date ? dateToIsoDate(cell)
-    : typeof cell === "number" ? excelSerialToIsoDate(cell, m.date1904)
-    : parseDateText(cell, m.dateOrder);
+    cell instanceof Date
+      ? dateToIsoDate(cell)
+      : typeof cell === "number"
+        ? excelSerialToIsoDate(cell, m.date1904)
+        : parseDateText(cell, m.dateOrder);
   return iso ?? "";
 }
 

@@ -42,10 +42,17 @@ export async function sniffFile(filePath: string, limits: Pick<ImportLimits, "ma
   const format = magicFormat(head);
   if (format === "zip") {
     if (await hasWorkbookPart(filePath)) return { kind: "xlsx", size };
-    throw new ImportError("not-a-workbook", "The file is a zip archive but not an Excel workbook (.xlsx). Upload an .xlsx or a CSV file.");
+    throw new ImportError(
+      "not-a-workbook",
+      "The file is a zip archive but not an Excel workbook (.xlsx). Upload an .xlsx or a CSV file.",
+    );
   }
-  if (format === "cfb") { // the Excel 97-2003 .xls container
-    throw new ImportError("unsupported-format", "The file is in the old Excel 97-2003 (.xls) format. Save it as .xlsx or as CSV UTF-8 and upload again.");
+  if (format === "cfb") {
+    // the Excel 97-2003 .xls container
+    throw new ImportError(
+      "unsupported-format",
+      "The file is in the old Excel 97-2003 (.xls) format. Save it as .xlsx or as CSV UTF-8 and upload again.",
+    );
   }
   return { kind: "csv", encoding: detectTextEncoding(head, size > head.length), size };
 }
@@ -53,10 +60,16 @@ export async function sniffFile(filePath: string, limits: Pick<ImportLimits, "ma
 /** Encoding of a text file's first bytes; `truncated` when more of the file follows. */
 export function detectTextEncoding(head: Uint8Array, truncated: boolean): TextEncoding {
   if (startsWithBytes(head, [0xff, 0xfe]) || startsWithBytes(head, [0xfe, 0xff])) {
-    throw new ImportError("unsupported-encoding", "The file is encoded as UTF-16 (or UTF-32), which is not supported. Save it as CSV UTF-8 and upload again.");
+    throw new ImportError(
+      "unsupported-encoding",
+      "The file is encoded as UTF-16 (or UTF-32), which is not supported. Save it as CSV UTF-8 and upload again.",
+    );
   }
   if (startsWithBytes(head, [0, 0, 0xfe, 0xff])) {
-    throw new ImportError("unsupported-encoding", "The file is encoded as UTF-32, which is not supported. Save it as CSV UTF-8 and upload again.");
+    throw new ImportError(
+      "unsupported-encoding",
+      "The file is encoded as UTF-32, which is not supported. Save it as CSV UTF-8 and upload again.",
+    );
   }
   rejectBinary(head);
   const hasBom = startsWithBytes(head, [0xef, 0xbb, 0xbf]);
@@ -65,7 +78,10 @@ export function detectTextEncoding(head: Uint8Array, truncated: boolean): TextEn
     return hasBom ? "utf-8-bom" : "utf-8";
   } catch {
     if (hasBom) {
-      throw new ImportError("unsupported-encoding", "The file starts with a UTF-8 byte-order mark but holds bytes that are not valid UTF-8.");
+      throw new ImportError(
+        "unsupported-encoding",
+        "The file starts with a UTF-8 byte-order mark but holds bytes that are not valid UTF-8.",
+      );
     }
   }
   const undefinedAt = head.findIndex((byte) => UNDEFINED_IN_1252.has(byte));
@@ -81,13 +97,19 @@ export function detectTextEncoding(head: Uint8Array, truncated: boolean): TextEn
 function rejectBinary(head: Uint8Array): void {
   const nulAt = head.indexOf(0);
   if (nulAt >= 0) {
-    throw new ImportError("binary-file", `The file is not text: it holds a NUL byte at position ${nulAt + 1}. Upload a CSV or .xlsx file.`);
+    throw new ImportError(
+      "binary-file",
+      `The file is not text: it holds a NUL byte at position ${nulAt + 1}. Upload a CSV or .xlsx file.`,
+    );
   }
   let controls = 0;
   for (const byte of head) {
     if ((byte < 0x09 || (byte > 0x0d && byte < 0x20)) && byte !== 0x1a) controls += 1;
   }
   if (controls > Math.max(8, head.length / 100)) {
-    throw new ImportError("binary-file", `The file is not text: ${controls} control bytes in its first ${head.length} bytes. Upload a CSV or .xlsx file.`);
+    throw new ImportError(
+      "binary-file",
+      `The file is not text: ${controls} control bytes in its first ${head.length} bytes. Upload a CSV or .xlsx file.`,
+    );
   }
 }

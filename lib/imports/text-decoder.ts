@@ -21,7 +21,10 @@ export function createChunkDecoder(encoding: TextEncoding): ChunkDecoder {
   const decoder = new TextDecoder("utf-8", { fatal: true });
   let offset = 0;
   const fail = (): never => {
-    throw new ImportError("unsupported-encoding", `The file is not valid UTF-8: a bad byte sequence after byte ${offset}. Save it as CSV UTF-8 and upload again.`);
+    throw new ImportError(
+      "unsupported-encoding",
+      `The file is not valid UTF-8: a bad byte sequence after byte ${offset}. Save it as CSV UTF-8 and upload again.`,
+    );
   };
   return {
     write(bytes) {

@@ -23,13 +23,15 @@ export function normalizeValue(value: CellValue, numFmt: string | undefined, dat
   if ("richText" in value) return value.richText.map((run) => run.text ?? "").join("");
   if ("error" in value) return value.error;
   if ("formula" in value || "sharedFormula" in value) {
-    const formula = "formula" in value && value.formula ? value.formula : "sharedFormula" in value ? value.sharedFormula : "";
+    const formula =
+      "formula" in value && value.formula ? value.formula : "sharedFormula" in value ? value.sharedFormula : "";
     return formulaResult(value.result, formula ?? "", numFmt, date1904);
   }
   if ("text" in value) {
     const text: unknown = value.text;
     if (typeof text === "string") return text;
-    if (text && typeof text === "object" && "richText" in text) return normalizeValue(text as CellValue, numFmt, date1904);
+    if (text && typeof text === "object" && "richText" in text)
+      return normalizeValue(text as CellValue, numFmt, date1904);
   }
   return null;
 }

@@ -8,9 +8,20 @@ import { UnsupportedXlsxError, XmlTokenizer, type XmlToken } from "./xml-tokens"
 import { xmlTokens } from "./xlsx-parts";
 import { streamZipEntryText } from "./zip-entry-stream";
 
-interface OpenCell { column: number; style: number; type?: string; formula?: string; value?: string; texts: number }
+interface OpenCell {
+  column: number;
+  style: number;
+  type?: string;
+  formula?: string;
+  value?: string;
+  texts: number;
+}
 type Pending = CellValue | { sharedIndex: number };
-interface PendingRow { rowNumber: number; rowFormat?: string; cells: { column: number; value: Pending; format?: string }[] }
+interface PendingRow {
+  rowNumber: number;
+  rowFormat?: string;
+  cells: { column: number; value: Pending; format?: string }[];
+}
 
 /** exceljs's date-format test and serial conversion (utils.isDateFmt / excelToDate), kept as is so both paths agree. */
 function exceljsIsDateFormat(format: string | undefined): boolean {
@@ -20,7 +31,13 @@ function exceljsDate(serial: number, date1904: boolean): Date {
   return new Date(Math.round((serial - 25569 + (date1904 ? 1462 : 0)) * 86_400_000));
 }
 
-const EXCELJS_ENTITIES: Record<string, string> = { "&lt;": "<", "&gt;": ">", "&amp;": "&", "&apos;": "'", "&quot;": '"' };
+const EXCELJS_ENTITIES: Record<string, string> = {
+  "&lt;": "<",
+  "&gt;": ">",
+  "&amp;": "&",
+  "&apos;": "'",
+  "&quot;": '"',
+};
 /** exceljs decodes str/inlineStr text a second time (utils.xmlDecode). */
 function exceljsXmlDecode(text: string): string {
   return text.replace(/&([a-z]*);/g, (entity) => EXCELJS_ENTITIES[entity] ?? entity);
@@ -35,7 +52,8 @@ function columnNumber(ref: string | undefined): number {
 /** A cell's value as exceljs's streaming worksheet reader sets it (worksheet-reader.js). */
 function cellValue(c: OpenCell, format: string | undefined, date1904: boolean): Pending | undefined {
   if (c.formula !== undefined) {
-    const result = c.value === undefined ? undefined : c.type === "str" ? exceljsXmlDecode(c.value) : parseFloat(c.value);
+    const result =
+      c.value === undefined ? undefined : c.type === "str" ? exceljsXmlDecode(c.value) : parseFloat(c.value);
     return { formula: c.formula, result };
   }
   if (c.value === undefined) return undefined;
@@ -75,7 +93,8 @@ class SheetRowParser {
     const format = own ? own.format : row.rowFormat;
     const value = cellValue(cell, format, this.parts.date1904);
     if (value !== undefined) row.cells.push({ column: cell.column, value, format });
-    if (value && typeof value === "object" && "sharedIndex" in value) this.lastShared = Math.max(this.lastShared, value.sharedIndex);
+    if (value && typeof value === "object" && "sharedIndex" in value)
+      this.lastShared = Math.max(this.lastShared, value.sharedIndex);
     [this.cell, this.capture] = [null, null];
   }
 
@@ -109,7 +128,12 @@ class SheetRowParser {
         if (token.selfClosing) out.push(row);
         else this.row = row;
       } else if (name === "c" && this.row) {
-        this.cell = { column: columnNumber(token.attrs.r), style: parseInt(token.attrs.s, 10) || 0, type: token.attrs.t, texts: 0 };
+        this.cell = {
+          column: columnNumber(token.attrs.r),
+          style: parseInt(token.attrs.s, 10) || 0,
+          type: token.attrs.t,
+          texts: 0,
+        };
         if (token.selfClosing) this.closeCell();
       } else if (cell && (name === "f" || name === "v")) {
         this.capture = token.selfClosing ? null : name === "f" ? "formula" : "value";
@@ -146,7 +170,9 @@ export async function readXlsxHeadRows(filePath: string, sheetName: string, maxR
     if (parser.finished || rows.length >= maxRows) break;
   }
   if (parser.lastShared >= 0 && !stringsEntry) throw new UnsupportedXlsxError("no shared strings part");
-  const strings: SharedString[] = stringsEntry ? await readSharedStrings(filePath, stringsEntry, parser.lastShared) : [];
+  const strings: SharedString[] = stringsEntry
+    ? await readSharedStrings(filePath, stringsEntry, parser.lastShared)
+    : [];
   return rows.map((pending) => toSourceRow(pending, strings, parts.date1904));
 }
 
@@ -157,16 +183,24 @@ export async function readXlsxHeadRows(filePath: string, sheetName: string, maxR
  * batches) on anything it does not understand, so the caller can carry on with exceljs.
  * `bytesRead` is the share of the sheet part inflated so far, scaled to the file's size.
  */
-export async function* readXlsxRowsFast(filePath: string, sheetName: string, fileSize: number, batchRows: number): AsyncGenerator<SourceBatch> {
+export async function* readXlsxRowsFast(
+  filePath: string,
+  sheetName: string,
+  fileSize: number,
+  batchRows: number,
+): AsyncGenerator<SourceBatch> {
   const { parts, sheet, strings: stringsEntry } = await openSheet(filePath, sheetName);
-  const strings: SharedString[] = stringsEntry ? await readSharedStrings(filePath, stringsEntry, Number.MAX_SAFE_INTEGER) : [];
+  const strings: SharedString[] = stringsEntry
+    ? await readSharedStrings(filePath, stringsEntry, Number.MAX_SAFE_INTEGER)
+    : [];
   const parser = new SheetRowParser(parts);
   const tokenizer = new XmlTokenizer();
   const sheetChars = Math.max(1, sheet.size);
   let chars = 0;
   let pending: PendingRow[] = [];
   const batch = () => {
-    if (parser.lastShared >= strings.length) throw new UnsupportedXlsxError(`shared string ${parser.lastShared} missing`);
+    if (parser.lastShared >= strings.length)
+      throw new UnsupportedXlsxError(`shared string ${parser.lastShared} missing`);
     const rows = pending.map((p) => toSourceRow(p, strings, parts.date1904));
     pending = [];
     return { rows, quoteProblems: [], bytesRead: Math.min(fileSize, Math.round((fileSize * chars) / sheetChars)) };
@@ -184,7 +218,8 @@ export async function* readXlsxRowsFast(filePath: string, sheetName: string, fil
 function toSourceRow(pending: PendingRow, strings: SharedString[], date1904: boolean): SourceRow {
   const cells: RawCell[] = [];
   for (const { column, value, format } of pending.cells) {
-    const resolved = value && typeof value === "object" && "sharedIndex" in value ? (strings[value.sharedIndex] ?? null) : value;
+    const resolved =
+      value && typeof value === "object" && "sharedIndex" in value ? (strings[value.sharedIndex] ?? null) : value;
     const normalized = normalizeValue(resolved, format, date1904);
     if (normalized === null) continue;
     while (cells.length < column - 1) cells.push(null);

@@ -6,11 +6,34 @@ import { UnsupportedXlsxError, XmlTokenizer, type XmlToken } from "./xml-tokens"
 // Built-in number formats by id (ECMA-376 Part 1, §18.8.30), as exceljs 4.4 reads them; ids
 // 27–36 and 50–58 are locale-dependent and exceljs gives them no format, so neither do we.
 const BUILT_IN_FORMATS: Record<number, string> = {
-  0: "General", 1: "0", 2: "0.00", 3: "#,##0", 4: "#,##0.00", 9: "0%", 10: "0.00%", 11: "0.00E+00",
-  12: "# ?/?", 13: "# ??/??", 14: "mm-dd-yy", 15: "d-mmm-yy", 16: "d-mmm", 17: "mmm-yy",
-  18: "h:mm AM/PM", 19: "h:mm:ss AM/PM", 20: "h:mm", 21: "h:mm:ss", 22: 'm/d/yy "h":mm',
-  37: "#,##0 ;(#,##0)", 38: "#,##0 ;[Red](#,##0)", 39: "#,##0.00 ;(#,##0.00)", 40: "#,##0.00 ;[Red](#,##0.00)",
-  45: "mm:ss", 46: "[h]:mm:ss", 47: "mmss.0", 48: "##0.0E+0", 49: "@",
+  0: "General",
+  1: "0",
+  2: "0.00",
+  3: "#,##0",
+  4: "#,##0.00",
+  9: "0%",
+  10: "0.00%",
+  11: "0.00E+00",
+  12: "# ?/?",
+  13: "# ??/??",
+  14: "mm-dd-yy",
+  15: "d-mmm-yy",
+  16: "d-mmm",
+  17: "mmm-yy",
+  18: "h:mm AM/PM",
+  19: "h:mm:ss AM/PM",
+  20: "h:mm",
+  21: "h:mm:ss",
+  22: 'm/d/yy "h":mm',
+  37: "#,##0 ;(#,##0)",
+  38: "#,##0 ;[Red](#,##0)",
+  39: "#,##0.00 ;(#,##0.00)",
+  40: "#,##0.00 ;[Red](#,##0.00)",
+  45: "mm:ss",
+  46: "[h]:mm:ss",
+  47: "mmss.0",
+  48: "##0.0E+0",
+  49: "@",
 };
 
 /** Tokens of one zip entry, chunk by chunk; stop iterating to stop inflating. */
@@ -59,15 +82,23 @@ export async function readWorkbookParts(filePath: string, sheetName: string): Pr
   }
   const sheetTargets = [...targets.values()].filter((target) => /^worksheets\/sheet\d+\.xml$/.test(target ?? ""));
   const sheetParts = list.filter((entry) => /^xl\/worksheets\/sheet\d+\.xml$/.test(entry.name));
-  if (sheetParts.some((entry) => !sheetTargets.includes(entry.name.slice(3)))) throw new UnsupportedXlsxError("worksheet without relationship");
-  const sheet = workbook.find((token) => token.kind === "open" && token.name === "sheet" && token.attrs.name === sheetName);
+  if (sheetParts.some((entry) => !sheetTargets.includes(entry.name.slice(3))))
+    throw new UnsupportedXlsxError("worksheet without relationship");
+  const sheet = workbook.find(
+    (token) => token.kind === "open" && token.name === "sheet" && token.attrs.name === sheetName,
+  );
   if (!sheet || sheet.kind !== "open" || sheetName.includes("&")) throw new UnsupportedXlsxError("sheet not resolved");
   const target = targets.get(sheet.attrs["r:id"] ?? "");
   if (!target || !sheetTargets.includes(target)) throw new UnsupportedXlsxError("sheet target not understood");
   const properties = workbook.find((token) => token.kind === "open" && token.name === "workbookPr");
   const date1904 = properties?.kind === "open" && properties.attrs.date1904 === "1";
   const styles = entries.get("xl/styles.xml");
-  return { entries, sheetPath: `xl/${target}`, date1904, styleFormats: styles ? await readStyleFormats(filePath, styles) : [] };
+  return {
+    entries,
+    sheetPath: `xl/${target}`,
+    date1904,
+    styleFormats: styles ? await readStyleFormats(filePath, styles) : [],
+  };
 }
 
 async function readStyleFormats(filePath: string, entry: ZipEntry): Promise<(string | undefined)[]> {

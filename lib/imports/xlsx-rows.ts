@@ -57,7 +57,10 @@ export async function* readXlsxRows(filePath: string, sheetName: string): AsyncG
     }
   } catch (error) {
     if (error instanceof ImportError) throw error;
-    throw new ImportError("unreadable-file", `The workbook could not be read: ${error instanceof Error ? error.message : String(error)}`);
+    throw new ImportError(
+      "unreadable-file",
+      `The workbook could not be read: ${error instanceof Error ? error.message : String(error)}`,
+    );
   } finally {
     input.destroy();
   }
@@ -70,7 +73,11 @@ export async function* readXlsxRows(filePath: string, sheetName: string): AsyncG
  * not understand, exceljs carries on from the row after the last one already given. Refusals
  * (ImportError: a zip bomb, a missing sheet) are not retried.
  */
-export async function* readXlsxRowsForLoad(filePath: string, sheetName: string, onFallback?: (reason: string) => void): AsyncGenerator<SourceBatch> {
+export async function* readXlsxRowsForLoad(
+  filePath: string,
+  sheetName: string,
+  onFallback?: (reason: string) => void,
+): AsyncGenerator<SourceBatch> {
   let lastRow = 0;
   try {
     const { size } = await stat(filePath);

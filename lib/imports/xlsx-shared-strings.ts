@@ -8,7 +8,22 @@ export type SharedString = string | { richText: { text: string }[] } | null;
 
 // Elements that may appear inside <si> (ECMA-376 Part 1, §18.4.8) and change only formatting.
 const RUN_PROPERTIES = new Set([
-  "rPr", "b", "i", "u", "strike", "sz", "color", "rFont", "family", "charset", "scheme", "vertAlign", "outline", "shadow", "condense", "extend",
+  "rPr",
+  "b",
+  "i",
+  "u",
+  "strike",
+  "sz",
+  "color",
+  "rFont",
+  "family",
+  "charset",
+  "scheme",
+  "vertAlign",
+  "outline",
+  "shadow",
+  "condense",
+  "extend",
 ]);
 
 /**

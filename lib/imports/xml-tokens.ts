@@ -69,8 +69,10 @@ export class XmlTokenizer {
       const close = text.indexOf("-->", lt + 4);
       return close < 0 ? -1 : close + 2;
     }
-    if (text.startsWith("<![CDATA[", lt) || text.startsWith("<!DOCTYPE", lt)) throw new UnsupportedXlsxError("CDATA or DOCTYPE");
-    if (text.length - lt < 9 && ("<![CDATA[".startsWith(text.slice(lt)) || "<!DOCTYPE".startsWith(text.slice(lt)))) return -1;
+    if (text.startsWith("<![CDATA[", lt) || text.startsWith("<!DOCTYPE", lt))
+      throw new UnsupportedXlsxError("CDATA or DOCTYPE");
+    if (text.length - lt < 9 && ("<![CDATA[".startsWith(text.slice(lt)) || "<!DOCTYPE".startsWith(text.slice(lt))))
+      return -1;
     let quote = "";
     for (let i = lt + 1; i < text.length; i += 1) {
       const ch = text[i];
@@ -92,7 +94,8 @@ export class XmlTokenizer {
     const body = tag.slice(1, selfClosing ? -2 : -1);
     const nameEnd = body.search(/[\s/]|$/);
     const attrs: Record<string, string> = {};
-    for (const match of body.slice(nameEnd).matchAll(ATTRIBUTE)) attrs[match[1]] = decodeXmlEntities(match[2] ?? match[3] ?? "");
+    for (const match of body.slice(nameEnd).matchAll(ATTRIBUTE))
+      attrs[match[1]] = decodeXmlEntities(match[2] ?? match[3] ?? "");
     tokens.push({ kind: "open", name: localName(body.slice(0, nameEnd)), attrs, selfClosing });
   }
 

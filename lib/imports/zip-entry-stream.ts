@@ -14,7 +14,8 @@ const DEFLATED = 8; // PKWARE APPNOTE.TXT 4.4.5: the only methods a workbook use
  * unsupported; what the entry really inflates to is held to the caps (its declared size can lie).
  */
 export async function* streamZipEntryText(filePath: string, entry: ZipEntry): AsyncGenerator<string> {
-  if (entry.method !== STORED && entry.method !== DEFLATED) throw new UnsupportedXlsxError(`${entry.name}: compression method ${entry.method}`);
+  if (entry.method !== STORED && entry.method !== DEFLATED)
+    throw new UnsupportedXlsxError(`${entry.name}: compression method ${entry.method}`);
   if (entry.compressedSize === 0) return;
   const decoder = new StringDecoder("utf8");
   let first = true;
@@ -36,13 +37,18 @@ export async function* streamZipEntryText(filePath: string, entry: ZipEntry): As
 /** Reads one (small) stored or deflated entry in full; one that inflates past `maxBytes` is refused as a likely zip bomb. */
 export async function readZipEntry(filePath: string, entry: ZipEntry, maxBytes = 32 * 1024 * 1024): Promise<Buffer> {
   if (entry.size > maxBytes) throw new RangeError(`zip entry ${entry.name} is larger than ${maxBytes} bytes`);
-  if (entry.method !== STORED && entry.method !== DEFLATED) throw new RangeError(`zip entry ${entry.name} uses unsupported compression method ${entry.method}`);
+  if (entry.method !== STORED && entry.method !== DEFLATED)
+    throw new RangeError(`zip entry ${entry.name} uses unsupported compression method ${entry.method}`);
   const chunks: Buffer[] = [];
   let size = 0;
   for await (const chunk of zipEntryChunks(filePath, entry)) {
     size += chunk.length;
     // The declared size lied: the part inflates past what we read in full.
-    if (size > maxBytes) throw new ImportError("file-too-large", `The workbook part ${entry.name} expands to more than ${maxBytes / 1024 / 1024} MB; it is refused as a likely zip bomb.`);
+    if (size > maxBytes)
+      throw new ImportError(
+        "file-too-large",
+        `The workbook part ${entry.name} expands to more than ${maxBytes / 1024 / 1024} MB; it is refused as a likely zip bomb.`,
+      );
     chunks.push(chunk);
   }
   return Buffer.concat(chunks, size);

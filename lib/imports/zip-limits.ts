@@ -13,12 +13,16 @@ export const MAX_COMPRESSION_RATIO = 400;
 const RATIO_CHECK_AFTER = 32 * 1024 * 1024;
 
 function refuse(name: string, why: string): ImportError {
-  return new ImportError("file-too-large", `The workbook part ${name} ${why}; it is refused as a likely zip bomb. Save the sheet again from your spreadsheet program, or upload it as CSV.`);
+  return new ImportError(
+    "file-too-large",
+    `The workbook part ${name} ${why}; it is refused as a likely zip bomb. Save the sheet again from your spreadsheet program, or upload it as CSV.`,
+  );
 }
 
 /** Checks what a part has inflated to so far (or declares it will) against both caps. */
 export function assertInflationWithinLimits(name: string, inflatedBytes: number, compressedBytes: number): void {
-  if (inflatedBytes > MAX_INFLATED_PART_BYTES) throw refuse(name, `expands to more than ${MAX_INFLATED_PART_BYTES / 1024 / 1024} MB`);
+  if (inflatedBytes > MAX_INFLATED_PART_BYTES)
+    throw refuse(name, `expands to more than ${MAX_INFLATED_PART_BYTES / 1024 / 1024} MB`);
   if (inflatedBytes > RATIO_CHECK_AFTER && inflatedBytes / Math.max(1, compressedBytes) > MAX_COMPRESSION_RATIO) {
     throw refuse(name, `expands more than ${MAX_COMPRESSION_RATIO} times its stored size`);
   }
@@ -44,7 +48,10 @@ export async function assertZipInflationWithinLimits(filePath: string, entries: 
       }
     } catch (err) {
       if (err instanceof ImportError) throw err;
-      throw new ImportError("unreadable-file", `The workbook part ${entry.name} could not be read: ${err instanceof Error ? err.message : String(err)}`);
+      throw new ImportError(
+        "unreadable-file",
+        `The workbook part ${entry.name} could not be read: ${err instanceof Error ? err.message : String(err)}`,
+      );
     }
   }
 }

@@ -11,10 +11,12 @@ export function appUrl(path: string): string {
 
 export const engagementUrl = (engagementId: number) => appUrl(`/engagements/${engagementId}`);
 
-export const sampleUrl = (engagementId: number, sampleId: number) => appUrl(`/engagements/${engagementId}/samples/${sampleId}`);
+export const sampleUrl = (engagementId: number, sampleId: number) =>
+  appUrl(`/engagements/${engagementId}/samples/${sampleId}`);
 
 export const clientRequestUrl = (listId: number) => appUrl(`/requests/${listId}`);
 
-export const teamRequestUrl = (engagementId: number, sampleId: number, listId: number) => appUrl(`/engagements/${engagementId}/samples/${sampleId}/requests/${listId}`);
+export const teamRequestUrl = (engagementId: number, sampleId: number, listId: number) =>
+  appUrl(`/engagements/${engagementId}/samples/${sampleId}/requests/${listId}`);
 
 export const invitationUrl = (token: string) => appUrl(`/invitation/${token}`);

@@ -11,10 +11,18 @@ import { sendMail, type MailResult } from "./send";
  */
 export async function notifyEngagementInvitation(
   db: Knex,
-  { engagementId, userId, role, invitedBy }: { engagementId: number; userId: number; role: string; invitedBy: { name: string } },
+  {
+    engagementId,
+    userId,
+    role,
+    invitedBy,
+  }: { engagementId: number; userId: number; role: string; invitedBy: { name: string } },
 ): Promise<MailResult | null> {
   try {
-    const [engagement, person] = await Promise.all([getEngagementById(db, { engagementId }), getUserById(db, { userId })]);
+    const [engagement, person] = await Promise.all([
+      getEngagementById(db, { engagementId }),
+      getUserById(db, { userId }),
+    ]);
     if (!engagement || !person) return null;
     return await sendMail(db, {
       to: { name: person.name, email: person.email },
@@ -29,7 +37,9 @@ export async function notifyEngagementInvitation(
       },
     });
   } catch (err) {
-    console.error(`mail: engagement-invitation for user ${userId} not sent — ${err instanceof Error ? err.message : String(err)}`);
+    console.error(
+      `mail: engagement-invitation for user ${userId} not sent — ${err instanceof Error ? err.message : String(err)}`,
+    );
     return { sent: false, to: `user ${userId}`, reason: err instanceof Error ? err.message : String(err) };
   }
 }

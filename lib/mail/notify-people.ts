@@ -5,13 +5,30 @@ import { invitationUrl } from "./links";
 import { sendMail, type MailResult } from "./send";
 
 /** A member of the firm gets the one-time link to choose a password; sent after the write has committed, never throws. */
-export async function notifyStaffInvitation(db: Knex, a: { person: { name: string; email: string }; token: string; invitedBy: { name: string }; firmId: number; reason: "new" | "reset" }): Promise<MailResult> {
+export async function notifyStaffInvitation(
+  db: Knex,
+  a: {
+    person: { name: string; email: string };
+    token: string;
+    invitedBy: { name: string };
+    firmId: number;
+    reason: "new" | "reset";
+  },
+): Promise<MailResult> {
   try {
     const firm = await db("firms").where({ id: a.firmId }).first("name");
-    return await sendMail(db, { to: a.person, template: "staff-invitation", data: {
-      recipient: { name: a.person.name }, invitedBy: a.invitedBy, firmName: String(firm?.name ?? "Your firm"), reason: a.reason,
-      actionUrl: invitationUrl(a.token), expiresInDays: INVITATION_DAYS,
-    } });
+    return await sendMail(db, {
+      to: a.person,
+      template: "staff-invitation",
+      data: {
+        recipient: { name: a.person.name },
+        invitedBy: a.invitedBy,
+        firmName: String(firm?.name ?? "Your firm"),
+        reason: a.reason,
+        actionUrl: invitationUrl(a.token),
+        expiresInDays: INVITATION_DAYS,
+      },
+    });
   } catch (err) {
     const reason = err instanceof Error ? err.message : String(err);
     console.error(`mail: staff-invitation to ${a.person.email} not sent — ${reason}`);

@@ -25,36 +25,91 @@ async function safely(what: string, send: () => Promise<MailResult>): Promise<Ma
 }
 
 /** A new client contact gets the one-time link to choose a password; an existing one, the sign-in page. */
-export function notifyClientInvitation(db: Knex, a: { engagementId: number; contact: { name: string; email: string }; token: string | null; invitedBy: { name: string }; firmId: number }) {
+export function notifyClientInvitation(
+  db: Knex,
+  a: {
+    engagementId: number;
+    contact: { name: string; email: string };
+    token: string | null;
+    invitedBy: { name: string };
+    firmId: number;
+  },
+) {
   return safely(`client-invitation to ${a.contact.email}`, async () => {
-    const [engagement, firm] = await Promise.all([engagementRef(db, a.engagementId), db("firms").where({ id: a.firmId }).first("name")]);
-    return sendMail(db, { to: a.contact, template: "client-invitation", data: {
-      recipient: { name: a.contact.name }, invitedBy: a.invitedBy, firmName: String(firm?.name ?? "Your auditors"), engagement,
-      actionUrl: a.token ? invitationUrl(a.token) : appUrl("/sign-in"), needsPassword: Boolean(a.token), expiresInDays: INVITATION_DAYS,
-    } });
+    const [engagement, firm] = await Promise.all([
+      engagementRef(db, a.engagementId),
+      db("firms").where({ id: a.firmId }).first("name"),
+    ]);
+    return sendMail(db, {
+      to: a.contact,
+      template: "client-invitation",
+      data: {
+        recipient: { name: a.contact.name },
+        invitedBy: a.invitedBy,
+        firmName: String(firm?.name ?? "Your auditors"),
+        engagement,
+        actionUrl: a.token ? invitationUrl(a.token) : appUrl("/sign-in"),
+        needsPassword: Boolean(a.token),
+        expiresInDays: INVITATION_DAYS,
+      },
+    });
   });
 }
 
 export function notifyRequestListSent(db: Knex, a: { list: RequestListRow; itemCount: number }) {
-  return safely(`request-list-sent to ${a.list.contactEmail}`, async () => sendMail(db, {
-    to: { name: a.list.contactName, email: a.list.contactEmail }, template: "request-list-sent",
-    data: { recipient: { name: a.list.contactName }, sentBy: { name: a.list.createdByName }, engagement: await engagementRef(db, a.list.engagementId), title: a.list.title,
-      itemCount: a.itemCount, dueDate: a.list.dueDate, message: a.list.message, listUrl: clientRequestUrl(a.list.id) },
-  }));
+  return safely(`request-list-sent to ${a.list.contactEmail}`, async () =>
+    sendMail(db, {
+      to: { name: a.list.contactName, email: a.list.contactEmail },
+      template: "request-list-sent",
+      data: {
+        recipient: { name: a.list.contactName },
+        sentBy: { name: a.list.createdByName },
+        engagement: await engagementRef(db, a.list.engagementId),
+        title: a.list.title,
+        itemCount: a.itemCount,
+        dueDate: a.list.dueDate,
+        message: a.list.message,
+        listUrl: clientRequestUrl(a.list.id),
+      },
+    }),
+  );
 }
 
-export function notifyRequestFileReturned(db: Knex, a: { list: RequestListRow; returnedBy: { name: string }; itemRef: string; fileName: string; reason: string }) {
-  return safely(`request-file-returned to ${a.list.contactEmail}`, async () => sendMail(db, {
-    to: { name: a.list.contactName, email: a.list.contactEmail }, template: "request-file-returned",
-    data: { recipient: { name: a.list.contactName }, returnedBy: a.returnedBy, engagement: await engagementRef(db, a.list.engagementId), title: a.list.title,
-      itemRef: a.itemRef, fileName: a.fileName, reason: a.reason, listUrl: clientRequestUrl(a.list.id) },
-  }));
+export function notifyRequestFileReturned(
+  db: Knex,
+  a: { list: RequestListRow; returnedBy: { name: string }; itemRef: string; fileName: string; reason: string },
+) {
+  return safely(`request-file-returned to ${a.list.contactEmail}`, async () =>
+    sendMail(db, {
+      to: { name: a.list.contactName, email: a.list.contactEmail },
+      template: "request-file-returned",
+      data: {
+        recipient: { name: a.list.contactName },
+        returnedBy: a.returnedBy,
+        engagement: await engagementRef(db, a.list.engagementId),
+        title: a.list.title,
+        itemRef: a.itemRef,
+        fileName: a.fileName,
+        reason: a.reason,
+        listUrl: clientRequestUrl(a.list.id),
+      },
+    }),
+  );
 }
 
 /** The contact of a list closed by the lock of its sample is told it takes no more files. */
 export function notifyRequestListClosed(db: Knex, a: { list: RequestListRow; reason: string }) {
-  return safely(`request-list-closed to ${a.list.contactEmail}`, async () => sendMail(db, {
-    to: { name: a.list.contactName, email: a.list.contactEmail }, template: "request-list-closed",
-    data: { recipient: { name: a.list.contactName }, engagement: await engagementRef(db, a.list.engagementId), title: a.list.title, reason: a.reason, listUrl: clientRequestUrl(a.list.id) },
-  }));
+  return safely(`request-list-closed to ${a.list.contactEmail}`, async () =>
+    sendMail(db, {
+      to: { name: a.list.contactName, email: a.list.contactEmail },
+      template: "request-list-closed",
+      data: {
+        recipient: { name: a.list.contactName },
+        engagement: await engagementRef(db, a.list.engagementId),
+        title: a.list.title,
+        reason: a.reason,
+        listUrl: clientRequestUrl(a.list.id),
+      },
+    }),
+  );
 }

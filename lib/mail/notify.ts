@@ -17,10 +17,17 @@ export interface SampleNotice {
   sampleUrl?: string;
 }
 
-export interface ReviewNoteNotice extends SampleNotice { note: { text: string } }
-export interface ReviewNoteAnsweredNotice extends ReviewNoteNotice { answer: { text: string } }
+export interface ReviewNoteNotice extends SampleNotice {
+  note: { text: string };
+}
+export interface ReviewNoteAnsweredNotice extends ReviewNoteNotice {
+  answer: { text: string };
+}
 
-type SampleTemplate = Exclude<EmailTemplateName, "engagement-invitation" | "client-invitation" | "request-list-sent" | "request-file-returned" | "request-reminders">;
+type SampleTemplate = Exclude<
+  EmailTemplateName,
+  "engagement-invitation" | "client-invitation" | "request-list-sent" | "request-file-returned" | "request-reminders"
+>;
 
 /** Each recipient once, never the actor. */
 function audience(notice: SampleNotice): Recipient[] {
@@ -38,7 +45,12 @@ function refuse(template: SampleTemplate, notice: SampleNotice, reason: string):
   return audience(notice).map((r) => ({ sent: false, to: r.email, reason }));
 }
 
-async function notifyEach<K extends SampleTemplate>(db: Knex, template: K, notice: SampleNotice, dataFor: (event: SampleEventData) => EmailTemplateData[K]): Promise<MailResult[]> {
+async function notifyEach<K extends SampleTemplate>(
+  db: Knex,
+  template: K,
+  notice: SampleNotice,
+  dataFor: (event: SampleEventData) => EmailTemplateData[K],
+): Promise<MailResult[]> {
   let link: string;
   try {
     link = notice.sampleUrl ?? sampleUrl(notice.engagement.id, notice.sample.id);
@@ -52,8 +64,11 @@ async function notifyEach<K extends SampleTemplate>(db: Knex, template: K, notic
     sampleUrl: link,
     at: notice.at ?? new Date(),
   };
-  return Promise.all(audience(notice).map((to) =>
-    sendMail(db, { to, template, data: dataFor({ ...event, recipient: { name: to.name } }) })));
+  return Promise.all(
+    audience(notice).map((to) =>
+      sendMail(db, { to, template, data: dataFor({ ...event, recipient: { name: to.name } }) }),
+    ),
+  );
 }
 
 /** The preparer sent a sample for review: tell its reviewers. */
@@ -64,10 +79,21 @@ export function notifySampleReadyForReview(db: Knex, notice: SampleNotice): Prom
 /** A review note was raised, answered (with the answer's text) or cleared. */
 export function notifyReviewNote(db: Knex, kind: "raised" | "cleared", notice: ReviewNoteNotice): Promise<MailResult[]>;
 export function notifyReviewNote(db: Knex, kind: "answered", notice: ReviewNoteAnsweredNotice): Promise<MailResult[]>;
-export function notifyReviewNote(db: Knex, kind: "raised" | "answered" | "cleared", notice: ReviewNoteNotice | ReviewNoteAnsweredNotice): Promise<MailResult[]> {
+export function notifyReviewNote(
+  db: Knex,
+  kind: "raised" | "answered" | "cleared",
+  notice: ReviewNoteNotice | ReviewNoteAnsweredNotice,
+): Promise<MailResult[]> {
   if (kind === "answered") {
-    if (!("answer" in notice)) return Promise.resolve(refuse("review-note-answered", notice, "answer: an answered review note needs the answer's text"));
-    return notifyEach(db, "review-note-answered", notice, (event) => ({ ...event, note: notice.note, answer: notice.answer }));
+    if (!("answer" in notice))
+      return Promise.resolve(
+        refuse("review-note-answered", notice, "answer: an answered review note needs the answer's text"),
+      );
+    return notifyEach(db, "review-note-answered", notice, (event) => ({
+      ...event,
+      note: notice.note,
+      answer: notice.answer,
+    }));
   }
   return notifyEach(db, `review-note-${kind}`, notice, (event) => ({ ...event, note: notice.note }));
 }

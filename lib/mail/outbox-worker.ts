@@ -15,12 +15,20 @@ export async function deliverDueMail(db: Knex): Promise<{ sent: number; refused:
   const holder = instanceId();
   const abandoned = await markAbandonedSends(db);
   const due = await claimDueMail(db, { holder, limit: BATCH });
-  let sent = 0, refused = 0;
+  let sent = 0,
+    refused = 0;
   for (const m of due) {
     try {
       const { transporter, from } = getMailer();
       const messageId = `<outbox-${m.id}@sondage.mail>`;
-      await transporter.sendMail({ from, to: { name: m.toName, address: m.toEmail }, subject: m.subject, text: m.text, html: m.html, messageId });
+      await transporter.sendMail({
+        from,
+        to: { name: m.toName, address: m.toEmail },
+        subject: m.subject,
+        text: m.text,
+        html: m.html,
+        messageId,
+      });
       await markMailSent(db, { id: m.id, holder, messageId });
       sent++;
     } catch (err) {
@@ -33,7 +41,9 @@ export async function deliverDueMail(db: Knex): Promise<{ sent: number; refused:
   return { sent, refused, abandoned };
 }
 
-export interface MailWorker { stop(): Promise<void> }
+export interface MailWorker {
+  stop(): Promise<void>;
+}
 
 /**
  * Polls the outbox every `intervalMs` in this process. Every app server runs one (started by
@@ -47,7 +57,9 @@ export function startMailWorker(db: () => Knex, { intervalMs = 2_000 }: { interv
     if (stopped) return;
     running = deliverDueMail(db())
       .catch((err: unknown) => console.error("mail: outbox worker —", err instanceof Error ? err.message : String(err)))
-      .finally(() => { if (!stopped) timer = setTimeout(tick, intervalMs).unref(); });
+      .finally(() => {
+        if (!stopped) timer = setTimeout(tick, intervalMs).unref();
+      });
   };
   timer = setTimeout(tick, 0).unref();
   return {

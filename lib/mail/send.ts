@@ -3,7 +3,10 @@ import type { Knex } from "knex";
 import { enqueueMail } from "@/lib/data/mail-outbox";
 import { renderEmailTemplate, type EmailTemplateData, type EmailTemplateName } from "@/templates/email";
 
-export interface Recipient { name: string; email: string }
+export interface Recipient {
+  name: string;
+  email: string;
+}
 
 /** `sent` means accepted into the outbox; the worker (lib/mail/outbox-worker.ts) delivers it. */
 export type MailResult = { sent: true; to: string; outboxId: number } | { sent: false; to: string; reason: string };
@@ -15,11 +18,22 @@ export type MailResult = { sent: true; to: string; outboxId: number } | { sent: 
  * throws: a message that cannot be queued (bad template data) is logged and reported.
  * The outbox row carries the recipient's firm (when they have an account) for the admin's view.
  */
-export async function sendMail<K extends EmailTemplateName>(db: Knex, { to, template, data }: { to: Recipient; template: K; data: EmailTemplateData[K] }): Promise<MailResult> {
+export async function sendMail<K extends EmailTemplateName>(
+  db: Knex,
+  { to, template, data }: { to: Recipient; template: K; data: EmailTemplateData[K] },
+): Promise<MailResult> {
   try {
     const { subject, text, html } = renderEmailTemplate(template, data);
     const account = await db("users").where({ email: to.email }).first("firm_id");
-    const outboxId = await enqueueMail(db, { firmId: account ? Number(account.firm_id) : null, template, toName: to.name, toEmail: to.email, subject, text, html });
+    const outboxId = await enqueueMail(db, {
+      firmId: account ? Number(account.firm_id) : null,
+      template,
+      toName: to.name,
+      toEmail: to.email,
+      subject,
+      text,
+      html,
+    });
     return { sent: true, to: to.email, outboxId };
   } catch (err) {
     const reason = err instanceof Error ? err.message : String(err);

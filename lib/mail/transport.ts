@@ -7,13 +7,25 @@ import { z } from "zod";
 const MailEnv = z.object({
   SMTP_HOST: z.string().trim().min(1, "SMTP_HOST is required"),
   SMTP_PORT: z.coerce.number().int().min(1).max(65535),
-  SMTP_SECURE: z.enum(["true", "false"]).default("false").transform((v) => v === "true"),
+  SMTP_SECURE: z
+    .enum(["true", "false"])
+    .default("false")
+    .transform((v) => v === "true"),
   SMTP_USER: z.string().min(1).optional(),
   SMTP_PASSWORD: z.string().optional(),
-  MAIL_FROM: z.string().trim().regex(/^(?:[^<>]*<[^<>\s@]+@[^<>\s@]+>|[^<>\s@]+@[^<>\s@]+)$/, "MAIL_FROM must be an address such as Sondage <no-reply@example.com>"),
+  MAIL_FROM: z
+    .string()
+    .trim()
+    .regex(
+      /^(?:[^<>]*<[^<>\s@]+@[^<>\s@]+>|[^<>\s@]+@[^<>\s@]+)$/,
+      "MAIL_FROM must be an address such as Sondage <no-reply@example.com>",
+    ),
 });
 
-export interface Mailer { transporter: Transporter; from: string }
+export interface Mailer {
+  transporter: Transporter;
+  from: string;
+}
 
 const globalForMail = globalThis as unknown as { sondageMailer?: Mailer };
 

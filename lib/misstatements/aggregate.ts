@@ -23,7 +23,11 @@ export const DEFAULT_APPROACHING_SHARE = 0.75; // common practice
 export const ALLOWANCE_NOTE =
   "The allowances for sampling risk are added here as a conservative figure. Allowances do not add linearly: each is an upper-bound margin at its own sample's confidence, and their sum overstates the combined sampling risk of the samples taken together. No combined (pooled) bound is computed: Sondage applies no pooling method it can cite, so the conservative sum is shown alone.";
 
-export interface Aggregate { rows: SummaryRow[]; totals: SummaryTotals; status: SummaryStatus }
+export interface Aggregate {
+  rows: SummaryRow[];
+  totals: SummaryTotals;
+  status: SummaryStatus;
+}
 
 const CURRENT_ENTRY_KINDS: RowKind[] = ["factual", "judgemental"];
 
@@ -31,14 +35,27 @@ const CURRENT_ENTRY_KINDS: RowKind[] = ["factual", "judgemental"];
 export function classifyRows(rows: RowInput[], clearlyTrivial: string): SummaryRow[] {
   const trivial = cents(clearlyTrivial);
   return rows.map((r) => {
-    const isTrivial = r.source === "entry" && CURRENT_ENTRY_KINDS.includes(r.kind) && r.corrected === null && abs(cents(r.amount)) < trivial;
-    return { ...r, clearlyTrivial: isTrivial, accumulated: r.kind !== "prior-period" && r.corrected === null && !isTrivial };
+    const isTrivial =
+      r.source === "entry" &&
+      CURRENT_ENTRY_KINDS.includes(r.kind) &&
+      r.corrected === null &&
+      abs(cents(r.amount)) < trivial;
+    return {
+      ...r,
+      clearlyTrivial: isTrivial,
+      accumulated: r.kind !== "prior-period" && r.corrected === null && !isTrivial,
+    };
   });
 }
 
 function approach(current: bigint, prior: bigint, m: SummaryMateriality): ApproachTotal {
   const total = current + prior;
-  return { total: dec(total), priorPeriod: dec(prior), marginToPerformance: dec(cents(m.performance) - abs(total)), marginToOverall: dec(cents(m.overall) - abs(total)) };
+  return {
+    total: dec(total),
+    priorPeriod: dec(prior),
+    marginToPerformance: dec(cents(m.performance) - abs(total)),
+    marginToOverall: dec(cents(m.overall) - abs(total)),
+  };
 }
 
 export function totalsOf(rows: SummaryRow[], m: SummaryMateriality): SummaryTotals {
@@ -57,10 +74,20 @@ export function totalsOf(rows: SummaryRow[], m: SummaryMateriality): SummaryTota
   const bs = approach(current, priorBalance, m);
   const larger = abs(cents(is.total)) > abs(cents(bs.total)) ? abs(cents(is.total)) : abs(cents(bs.total));
   return {
-    uncorrected: { factual: dec(ofKind("factual")), judgemental: dec(ofKind("judgemental")), projected: dec(ofKind("projected")), currentYear: dec(current), gross: dec(sum(acc.map((r) => abs(cents(r.amount))))), count: acc.length },
+    uncorrected: {
+      factual: dec(ofKind("factual")),
+      judgemental: dec(ofKind("judgemental")),
+      projected: dec(ofKind("projected")),
+      currentYear: dec(current),
+      gross: dec(sum(acc.map((r) => abs(cents(r.amount))))),
+      count: acc.length,
+    },
     corrected: { total: dec(sum(corrected.map((r) => cents(r.amount)))), count: corrected.length },
     clearlyTrivial: { total: dec(sum(trivial.map((r) => cents(r.amount)))), count: trivial.length },
-    entryEffects: { income: dec(sum(entries.map((r) => cents(r.incomeEffect ?? "0")))), balance: dec(sum(entries.map((r) => cents(r.balanceEffect ?? "0")))) },
+    entryEffects: {
+      income: dec(sum(entries.map((r) => cents(r.incomeEffect ?? "0")))),
+      balance: dec(sum(entries.map((r) => cents(r.balanceEffect ?? "0")))),
+    },
     incomeStatementApproach: is,
     balanceSheetApproach: bs,
     allowance: { sum: dec(allowanceSum), samples: allowances.length, note: ALLOWANCE_NOTE },
@@ -96,20 +123,59 @@ export function statusOf(totals: SummaryTotals, m: SummaryMateriality): SummaryS
   // The share is held to 4 decimals (0.7500): scale by 10,000 to stay in integers.
   const threshold = (performance * BigInt(Math.round(m.approachingShare * 10000))) / 10000n;
   const share = formatShare(m.approachingShare);
-  const base = { measure: dec(measure), threshold: dec(threshold), approachingShare: m.approachingShare, approachingShareSource: m.approachingShare === DEFAULT_APPROACHING_SHARE ? "default, common practice" : "set on this engagement" };
-  const allowanceWarning = cents(totals.upperEstimate) > overall
-    ? "With the conservative sum of the sampling allowances added, the uncorrected misstatement could exceed overall materiality: the risk that the financial statements are materially misstated may be unacceptably high."
-    : null;
+  const base = {
+    measure: dec(measure),
+    threshold: dec(threshold),
+    approachingShare: m.approachingShare,
+    approachingShareSource:
+      m.approachingShare === DEFAULT_APPROACHING_SHARE ? "default, common practice" : "set on this engagement",
+  };
+  const allowanceWarning =
+    cents(totals.upperEstimate) > overall
+      ? "With the conservative sum of the sampling allowances added, the uncorrected misstatement could exceed overall materiality: the risk that the financial statements are materially misstated may be unacceptably high."
+      : null;
   if (measure > overall) {
-    return { ...base, level: "exceeds-overall", label: "Exceeds overall materiality", words: `Uncorrected misstatement of ${words(measure)} exceeds overall materiality of ${wordsOf(m.overall)}. Unless corrected, the misstatements are material to the financial statements.`, responses: [RESPONSES_APPROACHING[2], "Evaluate the effect on the auditor's report if management declines to correct them (ISA 450 ¶11; ISA 705).", RESPONSES_APPROACHING[3]], allowanceWarning };
+    return {
+      ...base,
+      level: "exceeds-overall",
+      label: "Exceeds overall materiality",
+      words: `Uncorrected misstatement of ${words(measure)} exceeds overall materiality of ${wordsOf(m.overall)}. Unless corrected, the misstatements are material to the financial statements.`,
+      responses: [
+        RESPONSES_APPROACHING[2],
+        "Evaluate the effect on the auditor's report if management declines to correct them (ISA 450 ¶11; ISA 705).",
+        RESPONSES_APPROACHING[3],
+      ],
+      allowanceWarning,
+    };
   }
   if (measure > performance) {
-    return { ...base, level: "exceeds-performance", label: "Exceeds performance materiality", words: `Uncorrected misstatement of ${words(measure)} exceeds performance materiality of ${wordsOf(m.performance)} (overall materiality ${wordsOf(m.overall)}).`, responses: RESPONSES_APPROACHING, allowanceWarning };
+    return {
+      ...base,
+      level: "exceeds-performance",
+      label: "Exceeds performance materiality",
+      words: `Uncorrected misstatement of ${words(measure)} exceeds performance materiality of ${wordsOf(m.performance)} (overall materiality ${wordsOf(m.overall)}).`,
+      responses: RESPONSES_APPROACHING,
+      allowanceWarning,
+    };
   }
   if (measure > threshold) {
-    return { ...base, level: "approaching", label: "Approaching materiality", words: `Uncorrected misstatement of ${words(measure)} is above ${share} of performance materiality (${words(threshold)}) and approaching it.`, responses: RESPONSES_APPROACHING, allowanceWarning };
+    return {
+      ...base,
+      level: "approaching",
+      label: "Approaching materiality",
+      words: `Uncorrected misstatement of ${words(measure)} is above ${share} of performance materiality (${words(threshold)}) and approaching it.`,
+      responses: RESPONSES_APPROACHING,
+      allowanceWarning,
+    };
   }
-  return { ...base, level: "well-within", label: "Well within materiality", words: `Uncorrected misstatement of ${words(measure)} is at or below ${share} of performance materiality (${words(threshold)}).`, responses: [], allowanceWarning };
+  return {
+    ...base,
+    level: "well-within",
+    label: "Well within materiality",
+    words: `Uncorrected misstatement of ${words(measure)} is at or below ${share} of performance materiality (${words(threshold)}).`,
+    responses: [],
+    allowanceWarning,
+  };
 }
 
 /** Rows classified, totals and status: what the view model carries. */

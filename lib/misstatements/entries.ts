@@ -10,67 +10,196 @@ import { beginSummaryWrite } from "./guard";
 import { mustExist } from "@/lib/data/must-exist";
 
 const columnsOf = (e: Entry) => ({
-  kind: e.kind, account: e.account, assertion: e.assertion, description: e.description, amount: e.amount, income_effect: e.incomeEffect, balance_effect: e.balanceEffect,
-  corrected: e.corrected !== null, corrected_on: e.corrected?.on ?? null, correction_reference: e.corrected?.reference ?? null,
+  kind: e.kind,
+  account: e.account,
+  assertion: e.assertion,
+  description: e.description,
+  amount: e.amount,
+  income_effect: e.incomeEffect,
+  balance_effect: e.balanceEffect,
+  corrected: e.corrected !== null,
+  corrected_on: e.corrected?.on ?? null,
+  correction_reference: e.corrected?.reference ?? null,
 });
 
-export async function createEntry(db: Knex, { engagementId, actorId, input }: { engagementId: number; actorId: number; input: Entry }) {
+export async function createEntry(
+  db: Knex,
+  { engagementId, actorId, input }: { engagementId: number; actorId: number; input: Entry },
+) {
   return db.transaction(async (trx) => {
     const signOffsCleared = await beginSummaryWrite(trx, { engagementId, actorId, what: "a misstatement entered" });
-    const [id] = await trx("misstatement_entries").insert({ engagement_id: engagementId, ...columnsOf(input), created_by: actorId });
-    await recordAudit(trx, { actorUserId: actorId, engagementId, entity: "misstatement_entry", entityId: id, action: "create", after: input });
+    const [id] = await trx("misstatement_entries").insert({
+      engagement_id: engagementId,
+      ...columnsOf(input),
+      created_by: actorId,
+    });
+    await recordAudit(trx, {
+      actorUserId: actorId,
+      engagementId,
+      entity: "misstatement_entry",
+      entityId: id,
+      action: "create",
+      after: input,
+    });
     return { entry: await getEntryById(trx, { engagementId, entryId: id }), signOffsCleared };
   });
 }
 
 /** Optimistic: the caller sends the version it edited; a stale version answers 409 and changes nothing. */
-export async function updateEntry(db: Knex, { engagementId, entryId, actorId, input }: { engagementId: number; entryId: number; actorId: number; input: Entry & { version: number } }) {
+export async function updateEntry(
+  db: Knex,
+  {
+    engagementId,
+    entryId,
+    actorId,
+    input,
+  }: { engagementId: number; entryId: number; actorId: number; input: Entry & { version: number } },
+) {
   return db.transaction(async (trx) => {
     const signOffsCleared = await beginSummaryWrite(trx, { engagementId, actorId, what: `entry ${entryId} changed` });
-    const before = await trx("misstatement_entries").where({ id: entryId, engagement_id: engagementId }).whereNull("deleted_at").forUpdate().first();
+    const before = await trx("misstatement_entries")
+      .where({ id: entryId, engagement_id: engagementId })
+      .whereNull("deleted_at")
+      .forUpdate()
+      .first();
     if (!before) throw notFound("No such misstatement entry");
-    if (before.version !== input.version) throw new AppError(409, "stale", "Someone changed this entry after you opened it; reload it and apply your change again.");
+    if (before.version !== input.version)
+      throw new AppError(
+        409,
+        "stale",
+        "Someone changed this entry after you opened it; reload it and apply your change again.",
+      );
     const { version: _v, ...fields } = input;
-    await trx("misstatement_entries").where({ id: entryId }).update({ ...columnsOf(fields), version: before.version + 1, updated_by: actorId, updated_at: trx.fn.now(3) });
-    await recordAudit(trx, { actorUserId: actorId, engagementId, entity: "misstatement_entry", entityId: entryId, action: "update",
-      before: { kind: before.kind, account: before.account, assertion: before.assertion, description: before.description, amount: before.amount, incomeEffect: before.income_effect, balanceEffect: before.balance_effect, corrected: Boolean(before.corrected), correctedOn: before.corrected_on, correctionReference: before.correction_reference },
-      after: fields });
+    await trx("misstatement_entries")
+      .where({ id: entryId })
+      .update({ ...columnsOf(fields), version: before.version + 1, updated_by: actorId, updated_at: trx.fn.now(3) });
+    await recordAudit(trx, {
+      actorUserId: actorId,
+      engagementId,
+      entity: "misstatement_entry",
+      entityId: entryId,
+      action: "update",
+      before: {
+        kind: before.kind,
+        account: before.account,
+        assertion: before.assertion,
+        description: before.description,
+        amount: before.amount,
+        incomeEffect: before.income_effect,
+        balanceEffect: before.balance_effect,
+        corrected: Boolean(before.corrected),
+        correctedOn: before.corrected_on,
+        correctionReference: before.correction_reference,
+      },
+      after: fields,
+    });
     return { entry: await getEntryById(trx, { engagementId, entryId }), signOffsCleared };
   });
 }
 
 /** Soft delete: the row stays for the audit trail. */
-export async function deleteEntry(db: Knex, { engagementId, entryId, actorId }: { engagementId: number; entryId: number; actorId: number }) {
+export async function deleteEntry(
+  db: Knex,
+  { engagementId, entryId, actorId }: { engagementId: number; entryId: number; actorId: number },
+) {
   await db.transaction(async (trx) => {
     await beginSummaryWrite(trx, { engagementId, actorId, what: `entry ${entryId} removed` });
-    const before = await trx("misstatement_entries").where({ id: entryId, engagement_id: engagementId }).whereNull("deleted_at").forUpdate().first();
+    const before = await trx("misstatement_entries")
+      .where({ id: entryId, engagement_id: engagementId })
+      .whereNull("deleted_at")
+      .forUpdate()
+      .first();
     if (!before) throw notFound("No such misstatement entry");
-    await trx("misstatement_entries").where({ id: entryId }).update({ deleted_at: trx.fn.now(3), deleted_by: actorId });
-    await recordAudit(trx, { actorUserId: actorId, engagementId, entity: "misstatement_entry", entityId: entryId, action: "delete", before: { account: before.account, amount: before.amount, kind: before.kind }, after: { deleted: true } });
+    await trx("misstatement_entries")
+      .where({ id: entryId })
+      .update({ deleted_at: trx.fn.now(3), deleted_by: actorId });
+    await recordAudit(trx, {
+      actorUserId: actorId,
+      engagementId,
+      entity: "misstatement_entry",
+      entityId: entryId,
+      action: "delete",
+      before: { account: before.account, amount: before.amount, kind: before.kind },
+      after: { deleted: true },
+    });
   });
 }
 
-export async function saveSummarySettings(db: Knex, { engagementId, actorId, input }: { engagementId: number; actorId: number; input: z.output<typeof SummarySettingsSchema> }) {
+export async function saveSummarySettings(
+  db: Knex,
+  {
+    engagementId,
+    actorId,
+    input,
+  }: { engagementId: number; actorId: number; input: z.output<typeof SummarySettingsSchema> },
+) {
   await db.transaction(async (trx) => {
-    await beginSummaryWrite(trx, { engagementId, actorId, what: "the clearly trivial threshold or the approaching share" });
-    const before = mustExist(await trx("misstatement_summaries").where({ engagement_id: engagementId }).first("clearly_trivial", "approaching_share"), `summary of engagement ${engagementId}`);
-    await trx("misstatement_summaries").where({ engagement_id: engagementId }).update({ clearly_trivial: input.clearlyTrivial, approaching_share: input.approachingShare, updated_at: trx.fn.now(3) });
-    await recordAudit(trx, { actorUserId: actorId, engagementId, entity: "misstatement_summary", entityId: engagementId, action: "settings",
-      before: { clearlyTrivial: String(before.clearly_trivial), approachingShare: Number(before.approaching_share) }, after: input });
+    await beginSummaryWrite(trx, {
+      engagementId,
+      actorId,
+      what: "the clearly trivial threshold or the approaching share",
+    });
+    const before = mustExist(
+      await trx("misstatement_summaries")
+        .where({ engagement_id: engagementId })
+        .first("clearly_trivial", "approaching_share"),
+      `summary of engagement ${engagementId}`,
+    );
+    await trx("misstatement_summaries")
+      .where({ engagement_id: engagementId })
+      .update({
+        clearly_trivial: input.clearlyTrivial,
+        approaching_share: input.approachingShare,
+        updated_at: trx.fn.now(3),
+      });
+    await recordAudit(trx, {
+      actorUserId: actorId,
+      engagementId,
+      entity: "misstatement_summary",
+      entityId: engagementId,
+      action: "settings",
+      before: { clearlyTrivial: String(before.clearly_trivial), approachingShare: Number(before.approaching_share) },
+      after: input,
+    });
   });
 }
 
 /** Marks (or unmarks, with `corrected: null`) one part of a sample's row as corrected by the client. */
-export async function saveSampleCorrection(db: Knex, { engagementId, actorId, input }: { engagementId: number; actorId: number; input: z.output<typeof SampleCorrectionSchema> }) {
+export async function saveSampleCorrection(
+  db: Knex,
+  {
+    engagementId,
+    actorId,
+    input,
+  }: { engagementId: number; actorId: number; input: z.output<typeof SampleCorrectionSchema> },
+) {
   await db.transaction(async (trx) => {
-    if (!(await trx("samples").where({ id: input.sampleId, engagement_id: engagementId }).first("id"))) throw fieldError("sampleId", "no such sample on this engagement");
+    if (!(await trx("samples").where({ id: input.sampleId, engagement_id: engagementId }).first("id")))
+      throw fieldError("sampleId", "no such sample on this engagement");
     await beginSummaryWrite(trx, { engagementId, actorId, what: `correction of sample ${input.sampleId}` });
-    const before = await trx("misstatement_corrections").where({ sample_id: input.sampleId, part: input.part }).forUpdate().first();
+    const before = await trx("misstatement_corrections")
+      .where({ sample_id: input.sampleId, part: input.part })
+      .forUpdate()
+      .first();
     await trx("misstatement_corrections").where({ sample_id: input.sampleId, part: input.part }).delete();
     if (input.corrected) {
-      await trx("misstatement_corrections").insert({ engagement_id: engagementId, sample_id: input.sampleId, part: input.part, corrected_on: input.corrected.on, reference: input.corrected.reference, created_by: actorId });
+      await trx("misstatement_corrections").insert({
+        engagement_id: engagementId,
+        sample_id: input.sampleId,
+        part: input.part,
+        corrected_on: input.corrected.on,
+        reference: input.corrected.reference,
+        created_by: actorId,
+      });
     }
-    await recordAudit(trx, { actorUserId: actorId, engagementId, entity: "misstatement_correction", entityId: `${input.sampleId}:${input.part}`, action: input.corrected ? "mark-corrected" : "unmark-corrected",
-      before: before ? { on: before.corrected_on, reference: before.reference } : null, after: input.corrected });
+    await recordAudit(trx, {
+      actorUserId: actorId,
+      engagementId,
+      entity: "misstatement_correction",
+      entityId: `${input.sampleId}:${input.part}`,
+      action: input.corrected ? "mark-corrected" : "unmark-corrected",
+      before: before ? { on: before.corrected_on, reference: before.reference } : null,
+      after: input.corrected,
+    });
   });
 }

@@ -4,12 +4,16 @@ import { recordAudit } from "@/lib/data/audit-log";
 import { AppError } from "@/lib/errors";
 import { mustExist } from "@/lib/data/must-exist";
 
-export const SUMMARY_LOCKED_MESSAGE = "The summary of misstatements is locked: its workpaper is final. A partner can unlock it, with a reason, if a change is needed.";
+export const SUMMARY_LOCKED_MESSAGE =
+  "The summary of misstatements is locked: its workpaper is final. A partner can unlock it, with a reason, if a change is needed.";
 
 /** The summary's row, created on first use, held FOR UPDATE for the rest of the transaction. */
 export async function lockSummaryRow(trx: Knex.Transaction, engagementId: number) {
   await trx.raw("INSERT IGNORE INTO misstatement_summaries (engagement_id) VALUES (?)", [engagementId]);
-  return mustExist(await trx("misstatement_summaries").where({ engagement_id: engagementId }).forUpdate().first(), `summary of engagement ${engagementId}`);
+  return mustExist(
+    await trx("misstatement_summaries").where({ engagement_id: engagementId }).forUpdate().first(),
+    `summary of engagement ${engagementId}`,
+  );
 }
 
 /**
@@ -17,16 +21,30 @@ export async function lockSummaryRow(trx: Knex.Transaction, engagementId: number
  * transaction: 409 when locked, and any sign-off is cleared and recorded, because what was signed is
  * no longer what is there.
  */
-export async function beginSummaryWrite(trx: Knex.Transaction, { engagementId, actorId, what }: { engagementId: number; actorId: number; what: string }): Promise<boolean> {
+export async function beginSummaryWrite(
+  trx: Knex.Transaction,
+  { engagementId, actorId, what }: { engagementId: number; actorId: number; what: string },
+): Promise<boolean> {
   const row = await lockSummaryRow(trx, engagementId);
   if (row.locked_at) throw new AppError(409, "locked", SUMMARY_LOCKED_MESSAGE);
   if (!row.preparer_signed_at && !row.reviewer_signed_at) return false;
   await trx("misstatement_summaries").where({ engagement_id: engagementId }).update({
-    preparer_signed_by: null, preparer_signed_role: null, preparer_signed_at: null, reviewer_signed_by: null, reviewer_signed_role: null, reviewer_signed_at: null, signed_rows_sha256: null,
+    preparer_signed_by: null,
+    preparer_signed_role: null,
+    preparer_signed_at: null,
+    reviewer_signed_by: null,
+    reviewer_signed_role: null,
+    reviewer_signed_at: null,
+    signed_rows_sha256: null,
   });
   await recordAudit(trx, {
-    actorUserId: actorId, engagementId, entity: "misstatement_summary", entityId: engagementId, action: "sign-offs-cleared",
-    before: { preparerSignedAt: row.preparer_signed_at, reviewerSignedAt: row.reviewer_signed_at }, after: { reason: `changed after sign-off: ${what}` },
+    actorUserId: actorId,
+    engagementId,
+    entity: "misstatement_summary",
+    entityId: engagementId,
+    action: "sign-offs-cleared",
+    before: { preparerSignedAt: row.preparer_signed_at, reviewerSignedAt: row.reviewer_signed_at },
+    after: { reason: `changed after sign-off: ${what}` },
   });
   return true;
 }

@@ -2,7 +2,12 @@
 import type { RowKind, SummaryRow } from "./types";
 import { formatDate } from "@/lib/format/date";
 
-export const KIND_LABELS: Record<RowKind, string> = { factual: "Factual", judgemental: "Judgemental", projected: "Projected", "prior-period": "Prior period" };
+export const KIND_LABELS: Record<RowKind, string> = {
+  factual: "Factual",
+  judgemental: "Judgemental",
+  projected: "Projected",
+  "prior-period": "Prior period",
+};
 
 export function treatmentOf(r: SummaryRow): string {
   if (r.corrected) return `Corrected ${formatDate(r.corrected.on, "corrected.on")} (${r.corrected.reference})`;

@@ -2,7 +2,12 @@ import "server-only";
 import { createHash } from "node:crypto";
 import type { Knex } from "knex";
 import { getEngagementById } from "@/lib/data/engagements";
-import { getSummaryByEngagementId, listCorrectionsByEngagementId, listEntriesByEngagementId, listSampleLocksByEngagementId } from "@/lib/data/misstatements";
+import {
+  getSummaryByEngagementId,
+  listCorrectionsByEngagementId,
+  listEntriesByEngagementId,
+  listSampleLocksByEngagementId,
+} from "@/lib/data/misstatements";
 import { notFound } from "@/lib/errors";
 import { aggregate, type RowInput } from "./aggregate";
 import type { SampleContribution } from "./contribution";
@@ -32,14 +37,27 @@ async function contributions(db: Knex, engagementId: number) {
   const out: { c: SampleContribution; frozen: boolean; locked: boolean }[] = [];
   for (const l of locks) {
     if (l.lockedAt && l.frozen) out.push({ c: l.frozen, frozen: true, locked: true });
-    else out.push({ c: await loadSampleContribution(db, { engagementId, sampleId: l.sampleId, lockedAt: l.lockedAt }), frozen: false, locked: l.lockedAt !== null });
+    else
+      out.push({
+        c: await loadSampleContribution(db, { engagementId, sampleId: l.sampleId, lockedAt: l.lockedAt }),
+        frozen: false,
+        locked: l.lockedAt !== null,
+      });
   }
   return out;
 }
 
 /** What a sign-off vouches for: the figures and their treatment (not whether a sample's row is frozen yet, which its lock changes). */
 export const rowsFingerprint = (v: Pick<SummaryView, "rows" | "totals" | "materiality">) =>
-  createHash("sha256").update(JSON.stringify({ rows: v.rows.map(({ frozen: _frozen, ...r }) => r), totals: v.totals, materiality: v.materiality })).digest("hex");
+  createHash("sha256")
+    .update(
+      JSON.stringify({
+        rows: v.rows.map(({ frozen: _frozen, ...r }) => r),
+        totals: v.totals,
+        materiality: v.materiality,
+      }),
+    )
+    .digest("hex");
 
 /** The summary as it stands now (live), whether or not it is locked. */
 export async function buildLiveSummary(db: Knex, { engagementId }: { engagementId: number }): Promise<SummaryView> {
@@ -54,33 +72,89 @@ export async function buildLiveSummary(db: Knex, { engagementId }: { engagementI
     listSummaryTrail(db, { engagementId }),
     contributions(db, engagementId),
   ]);
-  const materiality = { overall: engagement.overallMateriality, performance: engagement.performanceMateriality, clearlyTrivial: settings.clearlyTrivial, approachingShare: settings.approachingShare, currency: engagement.currency };
-  const inputs: RowInput[] = [...feed.flatMap((f) => sampleRows(f.c, corrections, engagementId, f.frozen)), ...entries.map((e) => entryRow(e, engagementId))];
+  const materiality = {
+    overall: engagement.overallMateriality,
+    performance: engagement.performanceMateriality,
+    clearlyTrivial: settings.clearlyTrivial,
+    approachingShare: settings.approachingShare,
+    currency: engagement.currency,
+  };
+  const inputs: RowInput[] = [
+    ...feed.flatMap((f) => sampleRows(f.c, corrections, engagementId, f.frozen)),
+    ...entries.map((e) => entryRow(e, engagementId)),
+  ];
   const { rows, totals, status } = aggregate(inputs, materiality);
   const samples: SummarySampleLine[] = feed.map(({ c, frozen, locked }) => ({
-    sampleId: c.sampleId, reference: sampleReference(c.sampleId), name: c.name, link: `/engagements/${engagementId}/samples/${c.sampleId}`, method: c.method, state: c.state, reason: c.reason, locked, frozen,
+    sampleId: c.sampleId,
+    reference: sampleReference(c.sampleId),
+    name: c.name,
+    link: `/engagements/${engagementId}/samples/${c.sampleId}`,
+    method: c.method,
+    state: c.state,
+    reason: c.reason,
+    locked,
+    frozen,
   }));
   const rowsSha256 = rowsFingerprint({ rows, totals, materiality });
   const staleSignOffs = settings.signedRowsSha256 !== null && settings.signedRowsSha256 !== rowsSha256;
   const openNotes = notes.filter((n) => n.status !== "cleared").length;
   const sign = (s: typeof settings.preparer) => (s && !staleSignOffs ? { name: s.name, role: s.role, at: s.at } : null);
   const review: SummaryReview = {
-    preparer: sign(settings.preparer), reviewer: sign(settings.reviewer), staleSignOffs,
-    lock: settings.lock ? { name: settings.lock.name, at: settings.lock.at, workpaperSha256: settings.lock.workpaperSha256, workpaperBytes: settings.lock.workpaperBytes, reference: settings.lock.reference } : null,
-    openNotes, lockable: lockability(samples, openNotes, sign(settings.reviewer) !== null),
+    preparer: sign(settings.preparer),
+    reviewer: sign(settings.reviewer),
+    staleSignOffs,
+    lock: settings.lock
+      ? {
+          name: settings.lock.name,
+          at: settings.lock.at,
+          workpaperSha256: settings.lock.workpaperSha256,
+          workpaperBytes: settings.lock.workpaperBytes,
+          reference: settings.lock.reference,
+        }
+      : null,
+    openNotes,
+    lockable: lockability(samples, openNotes, sign(settings.reviewer) !== null),
   };
   return {
-    engagement: { id: engagement.id, clientName: engagement.clientName, name: engagement.name, periodEnd: engagement.periodEnd, currency: engagement.currency },
-    firmName: firm?.name ?? "", workpaperReference: summaryReferenceFor(engagementId), generatedAt: new Date().toISOString(), materiality, rows, totals, status, samples,
-    entries: entries.map((e) => ({ id: e.id, version: e.version, reference: entryReference(e.id), createdByName: e.createdByName, createdAt: e.createdAt, updatedAt: e.updatedAt })),
-    review, notes, trail, rowsSha256, conventions: CONVENTIONS, caution: SUMMARY_CAUTION,
+    engagement: {
+      id: engagement.id,
+      clientName: engagement.clientName,
+      name: engagement.name,
+      periodEnd: engagement.periodEnd,
+      currency: engagement.currency,
+    },
+    firmName: firm?.name ?? "",
+    workpaperReference: summaryReferenceFor(engagementId),
+    generatedAt: new Date().toISOString(),
+    materiality,
+    rows,
+    totals,
+    status,
+    samples,
+    entries: entries.map((e) => ({
+      id: e.id,
+      version: e.version,
+      reference: entryReference(e.id),
+      createdByName: e.createdByName,
+      createdAt: e.createdAt,
+      updatedAt: e.updatedAt,
+    })),
+    review,
+    notes,
+    trail,
+    rowsSha256,
+    conventions: CONVENTIONS,
+    caution: SUMMARY_CAUTION,
   };
 }
 
 function lockability(samples: SummarySampleLine[], openNotes: number, reviewed: boolean) {
   const reasons: string[] = [];
   const unlocked = samples.filter((s) => s.state === "contributes" && !s.locked);
-  if (unlocked.length) reasons.push(`Every sample feeding the summary must be locked first: ${unlocked.map((s) => s.reference).join(", ")} ${unlocked.length === 1 ? "is" : "are"} not.`);
+  if (unlocked.length)
+    reasons.push(
+      `Every sample feeding the summary must be locked first: ${unlocked.map((s) => s.reference).join(", ")} ${unlocked.length === 1 ? "is" : "are"} not.`,
+    );
   if (openNotes) reasons.push(`${openNotes} review note${openNotes === 1 ? " is" : "s are"} not cleared.`);
   if (!reviewed) reasons.push("A manager or partner must sign off as reviewer.");
   return { ok: reasons.length === 0, reasons };
@@ -92,7 +166,10 @@ export async function loadSummaryView(db: Knex, { engagementId }: { engagementId
   if (settings.lock && settings.lockedView) {
     const frozen = settings.lockedView as SummaryView;
     const { objectKey: _k, ...lock } = settings.lock;
-    return { ...frozen, review: { ...frozen.review, lock, lockable: { ok: false, reasons: ["The summary is locked."] } } };
+    return {
+      ...frozen,
+      review: { ...frozen.review, lock, lockable: { ok: false, reasons: ["The summary is locked."] } },
+    };
   }
   return buildLiveSummary(db, { engagementId });
 }

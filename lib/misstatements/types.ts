@@ -46,7 +46,14 @@ export interface ApproachTotal {
 }
 
 export interface SummaryTotals {
-  uncorrected: { factual: string; judgemental: string; projected: string; currentYear: string; gross: string; count: number };
+  uncorrected: {
+    factual: string;
+    judgemental: string;
+    projected: string;
+    currentYear: string;
+    gross: string;
+    count: number;
+  };
   corrected: { total: string; count: number };
   clearlyTrivial: { total: string; count: number };
   entryEffects: { income: string; balance: string };
@@ -89,14 +96,33 @@ export interface SummarySampleLine {
   frozen: boolean;
 }
 
-export interface SummaryEntryLine { id: number; version: number; reference: string; createdByName: string; createdAt: string; updatedAt: string | null }
-
-export interface SummaryNote {
-  id: number; text: string; status: "open" | "answered" | "cleared";
-  raisedBy: string; raisedAt: string; answer: string | null; answeredBy: string | null; answeredAt: string | null; clearedBy: string | null; clearedAt: string | null;
+export interface SummaryEntryLine {
+  id: number;
+  version: number;
+  reference: string;
+  createdByName: string;
+  createdAt: string;
+  updatedAt: string | null;
 }
 
-export interface SummarySignOff { name: string; role: string; at: string }
+export interface SummaryNote {
+  id: number;
+  text: string;
+  status: "open" | "answered" | "cleared";
+  raisedBy: string;
+  raisedAt: string;
+  answer: string | null;
+  answeredBy: string | null;
+  answeredAt: string | null;
+  clearedBy: string | null;
+  clearedAt: string | null;
+}
+
+export interface SummarySignOff {
+  name: string;
+  role: string;
+  at: string;
+}
 
 export interface SummaryReview {
   preparer: SummarySignOff | null;
@@ -108,7 +134,14 @@ export interface SummaryReview {
   lockable: { ok: boolean; reasons: string[] };
 }
 
-export interface SummaryTrailEntry { at: string; who: string; action: string; subject: string; before: string | null; after: string | null }
+export interface SummaryTrailEntry {
+  at: string;
+  who: string;
+  action: string;
+  subject: string;
+  before: string | null;
+  after: string | null;
+}
 
 export interface SummaryView {
   engagement: { id: number; clientName: string; name: string; periodEnd: string; currency: string };

@@ -17,15 +17,24 @@ function writeOverview(wb: ExcelJS.Workbook, v: SummaryView) {
     if (money) row.getCell(2).numFmt = MONEY_FORMAT;
     return row;
   };
-  ws.addRow([t(`Summary of misstatements — ${v.engagement.clientName} · ${v.engagement.name}`)]).font = { bold: true, size: 13 };
+  ws.addRow([t(`Summary of misstatements — ${v.engagement.clientName} · ${v.engagement.name}`)]).font = {
+    bold: true,
+    size: 13,
+  };
   line("Period ended", formatDate(v.engagement.periodEnd));
-  line("Workpaper", `${v.workpaperReference}${v.review.lock ? ` (locked ${formatDateTime(v.review.lock.at)}, SHA-256 ${v.review.lock.workpaperSha256})` : " (draft, not locked)"}`);
+  line(
+    "Workpaper",
+    `${v.workpaperReference}${v.review.lock ? ` (locked ${formatDateTime(v.review.lock.at)}, SHA-256 ${v.review.lock.workpaperSha256})` : " (draft, not locked)"}`,
+  );
   line("Currency", v.materiality.currency);
   ws.addRow([]);
   line("Overall materiality", n(v.materiality.overall), true);
   line("Performance materiality", n(v.materiality.performance), true);
   line("Clearly trivial threshold", n(v.materiality.clearlyTrivial), true);
-  line(`Approaching above this share of performance materiality (${v.status.approachingShareSource})`, `${Math.round(v.materiality.approachingShare * 10000) / 100} %`);
+  line(
+    `Approaching above this share of performance materiality (${v.status.approachingShareSource})`,
+    `${Math.round(v.materiality.approachingShare * 10000) / 100} %`,
+  );
   ws.addRow([]);
   const u = v.totals.uncorrected;
   line("Uncorrected factual", n(u.factual), true);
@@ -37,8 +46,13 @@ function writeOverview(wb: ExcelJS.Workbook, v: SummaryView) {
   line("Clearly trivial (listed, not accumulated)", n(v.totals.clearlyTrivial.total), true);
   ws.addRow([]);
   ws.addRow([t("Approach"), t("Income statement (rollover)"), t("Balance sheet (iron curtain)")]).font = { bold: true };
-  const both = (label: string, a: string, b: string) => { const r = ws.addRow([t(label), n(a), n(b)]); r.getCell(2).numFmt = MONEY_FORMAT; r.getCell(3).numFmt = MONEY_FORMAT; };
-  const is = v.totals.incomeStatementApproach, bs = v.totals.balanceSheetApproach;
+  const both = (label: string, a: string, b: string) => {
+    const r = ws.addRow([t(label), n(a), n(b)]);
+    r.getCell(2).numFmt = MONEY_FORMAT;
+    r.getCell(3).numFmt = MONEY_FORMAT;
+  };
+  const is = v.totals.incomeStatementApproach,
+    bs = v.totals.balanceSheetApproach;
   both("Prior-period effect", is.priorPeriod, bs.priorPeriod);
   both("Total uncorrected misstatement", is.total, bs.total);
   both("Margin to performance materiality", is.marginToPerformance, bs.marginToPerformance);
@@ -61,16 +75,36 @@ function writeOverview(wb: ExcelJS.Workbook, v: SummaryView) {
 function writeRows(wb: ExcelJS.Workbook, v: SummaryView) {
   const ws = wb.addWorksheet("Rows", { views: [{ state: "frozen", ySplit: 1 }] });
   ws.columns = [
-    { header: "Reference", key: "reference", width: 11 }, { header: "Kind", key: "kind", width: 13 }, { header: "Account / population", key: "account", width: 30 },
-    { header: "Assertion", key: "assertion", width: 14 }, { header: "Description", key: "description", width: 60 }, { header: "Amount", key: "amount", width: 16 },
-    { header: "Income-statement effect", key: "income", width: 16 }, { header: "Balance-sheet effect", key: "balance", width: 16 }, { header: "Sampling allowance", key: "allowance", width: 16 },
-    { header: "Treatment", key: "treatment", width: 34 }, { header: "Frozen at sample lock", key: "frozen", width: 10 }, { header: "Evidence files", key: "evidence", width: 10 }, { header: "Source (Sondage path)", key: "link", width: 40 },
+    { header: "Reference", key: "reference", width: 11 },
+    { header: "Kind", key: "kind", width: 13 },
+    { header: "Account / population", key: "account", width: 30 },
+    { header: "Assertion", key: "assertion", width: 14 },
+    { header: "Description", key: "description", width: 60 },
+    { header: "Amount", key: "amount", width: 16 },
+    { header: "Income-statement effect", key: "income", width: 16 },
+    { header: "Balance-sheet effect", key: "balance", width: 16 },
+    { header: "Sampling allowance", key: "allowance", width: 16 },
+    { header: "Treatment", key: "treatment", width: 34 },
+    { header: "Frozen at sample lock", key: "frozen", width: 10 },
+    { header: "Evidence files", key: "evidence", width: 10 },
+    { header: "Source (Sondage path)", key: "link", width: 40 },
   ];
   ws.getRow(1).font = { bold: true };
   for (const r of v.rows) {
     const row = ws.addRow({
-      reference: t(r.reference), kind: t(KIND_LABELS[r.kind]), account: t(r.account), assertion: t(r.assertion), description: t(r.allowanceNote ? `${r.description} ${r.allowanceNote}` : r.description),
-      amount: n(r.amount), income: n(r.incomeEffect), balance: n(r.balanceEffect), allowance: n(r.allowance), treatment: t(treatmentOf(r)), frozen: r.frozen ? "Yes" : "No", evidence: r.evidenceCount, link: t(r.link),
+      reference: t(r.reference),
+      kind: t(KIND_LABELS[r.kind]),
+      account: t(r.account),
+      assertion: t(r.assertion),
+      description: t(r.allowanceNote ? `${r.description} ${r.allowanceNote}` : r.description),
+      amount: n(r.amount),
+      income: n(r.incomeEffect),
+      balance: n(r.balanceEffect),
+      allowance: n(r.allowance),
+      treatment: t(treatmentOf(r)),
+      frozen: r.frozen ? "Yes" : "No",
+      evidence: r.evidenceCount,
+      link: t(r.link),
     });
     for (const k of ["amount", "income", "balance", "allowance"]) row.getCell(k).numFmt = MONEY_FORMAT;
   }

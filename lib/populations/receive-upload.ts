@@ -3,18 +3,46 @@ import type { Knex } from "knex";
 import { ImportError, MAX_DATA_ROWS, inspectUpload, type UploadInspection } from "@/lib/imports";
 import { countDataRowsWithinLimit } from "@/lib/imports/count-data-rows";
 import { hasWorkbookPart, readWorkbookInfo } from "@/lib/imports/xlsx-sheets";
-import { assertNoLoadRunning, createUpload, failDeadLoads, getUploadById, updateUploadInspection } from "@/lib/data/population-uploads";
-import { fetchUploadToTempFile, receiveToTempFile, removeTempFile, storeUploadObject, uploadObjectKey } from "./upload-files";
+import {
+  assertNoLoadRunning,
+  createUpload,
+  failDeadLoads,
+  getUploadById,
+  updateUploadInspection,
+} from "@/lib/data/population-uploads";
+import {
+  fetchUploadToTempFile,
+  receiveToTempFile,
+  removeTempFile,
+  storeUploadObject,
+  uploadObjectKey,
+} from "./upload-files";
 import { randomUUID } from "node:crypto";
 import type { UploadRecord } from "@/lib/data/population-uploads";
 
-export interface UploadView { id: number; fileName: string; sizeBytes: number; sha256: string; inspection: UploadInspection; failureMessage?: string | null }
+export interface UploadView {
+  id: number;
+  fileName: string;
+  sizeBytes: number;
+  sha256: string;
+  inspection: UploadInspection;
+  failureMessage?: string | null;
+}
 
 /**
  * Receives a ledger file to a private temporary file, inspects its head, stores the bytes in object
  * storage (so another app server can load them) and records the upload; the temporary file goes.
  */
-export async function receiveUpload(db: Knex, a: { engagementId: number; actorId: number; fileName: string; body: ReadableStream<Uint8Array> | null; declaredLength: number | null }): Promise<UploadView> {
+export async function receiveUpload(
+  db: Knex,
+  a: {
+    engagementId: number;
+    actorId: number;
+    fileName: string;
+    body: ReadableStream<Uint8Array> | null;
+    declaredLength: number | null;
+  },
+): Promise<UploadView> {
   await assertNoLoadRunning(db, { userId: a.actorId });
   const file = await receiveToTempFile(a.body, a.declaredLength);
   let inspection: UploadInspection;
@@ -25,7 +53,16 @@ export async function receiveUpload(db: Knex, a: { engagementId: number; actorId
   } finally {
     await removeTempFile(file.tempPath);
   }
-  const id = await createUpload(db, { engagementId: a.engagementId, actorId: a.actorId, fileName: a.fileName, sizeBytes: file.size, sha256: file.sha256, tempPath: file.tempPath, objectKey, inspection });
+  const id = await createUpload(db, {
+    engagementId: a.engagementId,
+    actorId: a.actorId,
+    fileName: a.fileName,
+    sizeBytes: file.size,
+    sha256: file.sha256,
+    tempPath: file.tempPath,
+    objectKey,
+    inspection,
+  });
   return { id, fileName: a.fileName, sizeBytes: file.size, sha256: file.sha256, inspection };
 }
 
@@ -56,7 +93,10 @@ async function inspectFirstUsableSheet(path: string): Promise<UploadInspection> 
 }
 
 /** Inspects another sheet of an uploaded workbook (the mapping must be made on the sheet that loads). */
-export async function reinspectUpload(db: Knex, { engagementId, uploadId, sheet }: { engagementId: number; uploadId: number; sheet?: string }): Promise<UploadView> {
+export async function reinspectUpload(
+  db: Knex,
+  { engagementId, uploadId, sheet }: { engagementId: number; uploadId: number; sheet?: string },
+): Promise<UploadView> {
   await failDeadLoads(db);
   const upload = await getUploadById(db, { engagementId, uploadId });
   let inspection = upload.inspection;
@@ -64,11 +104,21 @@ export async function reinspectUpload(db: Knex, { engagementId, uploadId, sheet 
     inspection = await withUploadFile(upload, async (path) => withRowCount(path, await inspectUpload(path, { sheet })));
     await updateUploadInspection(db, { uploadId, inspection });
   }
-  return { id: upload.id, fileName: upload.fileName, sizeBytes: upload.sizeBytes, sha256: upload.sha256, inspection, failureMessage: upload.failureMessage };
+  return {
+    id: upload.id,
+    fileName: upload.fileName,
+    sizeBytes: upload.sizeBytes,
+    sha256: upload.sha256,
+    inspection,
+    failureMessage: upload.failureMessage,
+  };
 }
 
 /** Runs `work` on a local copy of the upload's bytes, fetched from object storage, and removes the copy after. */
-export async function withUploadFile<T>(upload: Pick<UploadRecord, "objectKey" | "sha256" | "tempPath">, work: (path: string) => Promise<T>): Promise<T> {
+export async function withUploadFile<T>(
+  upload: Pick<UploadRecord, "objectKey" | "sha256" | "tempPath">,
+  work: (path: string) => Promise<T>,
+): Promise<T> {
   if (!upload.objectKey) return work(upload.tempPath); // received before uploads went to object storage
   const path = await fetchUploadToTempFile({ objectKey: upload.objectKey, sha256: upload.sha256 });
   try {

@@ -11,10 +11,24 @@ async function usesOf(trx: Knex.Transaction, populationId: number) {
   return { samples: samples.map((s) => s.name), replaced: Number(replacements[0]?.n ?? 0) > 0 };
 }
 
-interface PopulationRow { name: string; row_count: number | string; total: string | number; source_file_name: string; source_sha256: string; archived_at: Date | string | null }
+interface PopulationRow {
+  name: string;
+  row_count: number | string;
+  total: string | number;
+  source_file_name: string;
+  source_sha256: string;
+  archived_at: Date | string | null;
+}
 
-async function lockPopulation(trx: Knex.Transaction, engagementId: number, populationId: number): Promise<PopulationRow> {
-  const row = await trx("populations").where({ id: populationId, engagement_id: engagementId }).whereNot("status", "loading").forUpdate()
+async function lockPopulation(
+  trx: Knex.Transaction,
+  engagementId: number,
+  populationId: number,
+): Promise<PopulationRow> {
+  const row = await trx("populations")
+    .where({ id: populationId, engagement_id: engagementId })
+    .whereNot("status", "loading")
+    .forUpdate()
     .first<PopulationRow | undefined>("name", "row_count", "total", "source_file_name", "source_sha256", "archived_at");
   if (!row) throw notFound("No such population");
   return row;
@@ -25,29 +39,67 @@ async function lockPopulation(trx: Knex.Transaction, engagementId: number, popul
  * items go, the stored source file stays in storage, and the audit row keeps its name, size and
  * SHA-256. A population in use is refused (409) naming the samples: archive it instead.
  */
-export async function deleteUnusedPopulation(db: Knex, { engagementId, populationId, actorId }: { engagementId: number; populationId: number; actorId: number }) {
+export async function deleteUnusedPopulation(
+  db: Knex,
+  { engagementId, populationId, actorId }: { engagementId: number; populationId: number; actorId: number },
+) {
   await db.transaction(async (trx) => {
     const row = await lockPopulation(trx, engagementId, populationId);
     const uses = await usesOf(trx, populationId);
     if (uses.samples.length) {
-      throw new AppError(409, "population_in_use", `"${row.name}" is used by ${uses.samples.length === 1 ? "the sample" : `${uses.samples.length} samples`} ${uses.samples.map((n) => `"${n}"`).join(", ")}, so it cannot be deleted: archive it instead.`);
+      throw new AppError(
+        409,
+        "population_in_use",
+        `"${row.name}" is used by ${uses.samples.length === 1 ? "the sample" : `${uses.samples.length} samples`} ${uses.samples.map((n) => `"${n}"`).join(", ")}, so it cannot be deleted: archive it instead.`,
+      );
     }
-    if (uses.replaced) throw conflict(`"${row.name}" was replaced by a corrected file and stays on record: archive it instead.`);
+    if (uses.replaced)
+      throw conflict(`"${row.name}" was replaced by a corrected file and stays on record: archive it instead.`);
     await trx("population_items").where({ population_id: populationId }).delete();
     await trx("populations").where({ id: populationId }).delete();
     await recordAudit(trx, {
-      actorUserId: actorId, engagementId, entity: "population", entityId: populationId, action: "delete",
-      before: { name: row.name, rowCount: Number(row.row_count), total: String(row.total), sourceFileName: row.source_file_name, sourceSha256: row.source_sha256 },
+      actorUserId: actorId,
+      engagementId,
+      entity: "population",
+      entityId: populationId,
+      action: "delete",
+      before: {
+        name: row.name,
+        rowCount: Number(row.row_count),
+        total: String(row.total),
+        sourceFileName: row.source_file_name,
+        sourceSha256: row.source_sha256,
+      },
     });
   });
 }
 
 /** Archives (or brings back) a population: kept whole, with its samples, but out of the lists and pickers. */
-export async function setPopulationArchived(db: Knex, { engagementId, populationId, actorId, archived }: { engagementId: number; populationId: number; actorId: number; archived: boolean }) {
+export async function setPopulationArchived(
+  db: Knex,
+  {
+    engagementId,
+    populationId,
+    actorId,
+    archived,
+  }: { engagementId: number; populationId: number; actorId: number; archived: boolean },
+) {
   await db.transaction(async (trx) => {
     const row = await lockPopulation(trx, engagementId, populationId);
     if (Boolean(row.archived_at) === archived) return;
-    await trx("populations").where({ id: populationId }).update(archived ? { archived_at: trx.fn.now(3), archived_by: actorId } : { archived_at: null, archived_by: null });
-    await recordAudit(trx, { actorUserId: actorId, engagementId, entity: "population", entityId: populationId, action: archived ? "archive" : "restore", before: { archived: !archived }, after: { archived } });
+    await trx("populations")
+      .where({ id: populationId })
+      .update(
+        archived ? { archived_at: trx.fn.now(3), archived_by: actorId } : { archived_at: null, archived_by: null },
+      );
+    await recordAudit(trx, {
+      actorUserId: actorId,
+      engagementId,
+      entity: "population",
+      entityId: populationId,
+      action: archived ? "archive" : "restore",
+      before: { archived: !archived },
+      after: { archived },
+    });
   });
 }

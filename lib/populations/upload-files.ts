@@ -15,14 +15,22 @@ export function uploadDirectory(): string {
 const megabytes = (bytes: number) => `${Math.round(bytes / 1024 / 1024)} MB`;
 
 export function tooLarge(maxBytes: number): AppError {
-  return new AppError(413, "file_too_large", `The file is larger than the ${megabytes(maxBytes)} limit for a population file. Split the ledger or remove columns you do not need.`);
+  return new AppError(
+    413,
+    "file_too_large",
+    `The file is larger than the ${megabytes(maxBytes)} limit for a population file. Split the ledger or remove columns you do not need.`,
+  );
 }
 
 /**
  * Streams a request body to a private temporary file, hashing it (SHA-256 of the bytes as received)
  * and stopping as soon as it passes the size limit. Never holds the file in memory.
  */
-export async function receiveToTempFile(body: ReadableStream<Uint8Array> | null, declaredLength: number | null, maxBytes = MAX_UPLOAD_BYTES) {
+export async function receiveToTempFile(
+  body: ReadableStream<Uint8Array> | null,
+  declaredLength: number | null,
+  maxBytes = MAX_UPLOAD_BYTES,
+) {
   if (declaredLength !== null && declaredLength > maxBytes) throw tooLarge(maxBytes);
   if (!body) throw new AppError(400, "empty_file", "file: the upload was empty");
   const dir = uploadDirectory();
@@ -39,7 +47,11 @@ export async function receiveToTempFile(body: ReadableStream<Uint8Array> | null,
     },
   });
   try {
-    await pipeline(Readable.fromWeb(body as import("node:stream/web").ReadableStream<Uint8Array>), meter, fs.createWriteStream(tempPath, { mode: 0o600 }));
+    await pipeline(
+      Readable.fromWeb(body as import("node:stream/web").ReadableStream<Uint8Array>),
+      meter,
+      fs.createWriteStream(tempPath, { mode: 0o600 }),
+    );
   } catch (err) {
     await fs.promises.rm(tempPath, { force: true });
     throw err;
@@ -64,12 +76,23 @@ export async function storeUploadObject({ key, tempPath, size }: { key: string; 
  * (the workbook reader needs random access), checking the SHA-256 against the one taken on
  * receipt. The caller removes the file when done.
  */
-export async function fetchUploadToTempFile({ objectKey, sha256 }: { objectKey: string; sha256: string }): Promise<string> {
+export async function fetchUploadToTempFile({
+  objectKey,
+  sha256,
+}: {
+  objectKey: string;
+  sha256: string;
+}): Promise<string> {
   const dir = uploadDirectory();
   await fs.promises.mkdir(dir, { recursive: true, mode: 0o700 });
   const tempPath = path.join(dir, `${randomUUID()}.fetched`);
   const hash = createHash("sha256");
-  const meter = new Transform({ transform(chunk: Buffer, _enc, done) { hash.update(chunk); done(null, chunk); } });
+  const meter = new Transform({
+    transform(chunk: Buffer, _enc, done) {
+      hash.update(chunk);
+      done(null, chunk);
+    },
+  });
   try {
     const { body } = await getObjectStream({ key: objectKey });
     await pipeline(body, meter, fs.createWriteStream(tempPath, { mode: 0o600 }));
@@ -79,7 +102,11 @@ export async function fetchUploadToTempFile({ objectKey, sha256 }: { objectKey: 
   }
   if (hash.digest("hex") !== sha256) {
     await fs.promises.rm(tempPath, { force: true });
-    throw new AppError(500, "upload_corrupt", "The stored copy of this upload does not match the file received; upload it again.");
+    throw new AppError(
+      500,
+      "upload_corrupt",
+      "The stored copy of this upload does not match the file received; upload it again.",
+    );
   }
   return tempPath;
 }

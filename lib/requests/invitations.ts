@@ -16,27 +16,62 @@ export const unusablePasswordHash = () => bcrypt.hash(randomBytes(32).toString("
 
 /** Any earlier link of the person stops working (a new one is about to be sent). */
 export async function withdrawInvitations(trx: Knex.Transaction, { userId }: { userId: number }) {
-  await trx("user_invitations").where({ user_id: userId }).whereNull("used_at").where("expires_at", ">", trx.fn.now(3)).update({ expires_at: trx.fn.now(3) });
+  await trx("user_invitations")
+    .where({ user_id: userId })
+    .whereNull("used_at")
+    .where("expires_at", ">", trx.fn.now(3))
+    .update({ expires_at: trx.fn.now(3) });
 }
 
 /** A one-time link token for the user; only its SHA-256 is stored, so the database never holds a usable link. */
-export async function createInvitation(trx: Knex.Transaction, { userId, actorId }: { userId: number; actorId: number }): Promise<string> {
+export async function createInvitation(
+  trx: Knex.Transaction,
+  { userId, actorId }: { userId: number; actorId: number },
+): Promise<string> {
   const token = randomBytes(32).toString("base64url");
   const expiresAt = new Date(Date.now() + INVITATION_DAYS * 24 * 3600 * 1000);
-  const [id] = await trx("user_invitations").insert({ user_id: userId, token_sha256: digest(token), expires_at: expiresAt, created_by: actorId });
-  await recordAudit(trx, { actorUserId: actorId, entity: "user_invitation", entityId: id, action: "create", after: { userId, expiresAt: expiresAt.toISOString() } });
+  const [id] = await trx("user_invitations").insert({
+    user_id: userId,
+    token_sha256: digest(token),
+    expires_at: expiresAt,
+    created_by: actorId,
+  });
+  await recordAudit(trx, {
+    actorUserId: actorId,
+    entity: "user_invitation",
+    entityId: id,
+    action: "create",
+    after: { userId, expiresAt: expiresAt.toISOString() },
+  });
   return token;
 }
 
-const invalid = () => new AppError(404, "invitation_invalid", "This invitation link is not valid any more (used, expired or mistyped). Ask the audit team to invite you again.");
+const invalid = () =>
+  new AppError(
+    404,
+    "invitation_invalid",
+    "This invitation link is not valid any more (used, expired or mistyped). Ask the audit team to invite you again.",
+  );
 
 /** The person an unused, unexpired invitation is for; null otherwise. */
 export async function getInvitationByToken(db: Knex, { token }: { token: string }) {
   if (!/^[A-Za-z0-9_-]{20,100}$/.test(token)) return null;
-  const row = await db("user_invitations as i").join("users as u", "u.id", "i.user_id")
-    .where("i.token_sha256", digest(token)).whereNull("i.used_at").where("i.expires_at", ">", db.fn.now(3)).where("u.active", true)
+  const row = await db("user_invitations as i")
+    .join("users as u", "u.id", "i.user_id")
+    .where("i.token_sha256", digest(token))
+    .whereNull("i.used_at")
+    .where("i.expires_at", ">", db.fn.now(3))
+    .where("u.active", true)
     .first("i.id", "u.id as user_id", "u.name", "u.email", "u.grade");
-  return row ? { id: Number(row.id), userId: Number(row.user_id), name: String(row.name), email: String(row.email), grade: String(row.grade) } : null;
+  return row
+    ? {
+        id: Number(row.id),
+        userId: Number(row.user_id),
+        name: String(row.name),
+        email: String(row.email),
+        grade: String(row.grade),
+      }
+    : null;
 }
 
 /** Sets the invited person's password and spends the link (404 when it is not valid). */
@@ -45,10 +80,21 @@ export async function acceptInvitation(db: Knex, { token, password }: { token: s
   return db.transaction(async (trx) => {
     const invitation = await getInvitationByToken(trx, { token });
     if (!invitation) throw invalid();
-    const spent = await trx("user_invitations").where({ id: invitation.id }).whereNull("used_at").update({ used_at: trx.fn.now(3) });
+    const spent = await trx("user_invitations")
+      .where({ id: invitation.id })
+      .whereNull("used_at")
+      .update({ used_at: trx.fn.now(3) });
     if (!spent) throw invalid();
-    await trx("users").where({ id: invitation.userId }).update({ password_hash: hash, updated_at: trx.fn.now(3) });
-    await recordAudit(trx, { actorUserId: invitation.userId, entity: "user_invitation", entityId: invitation.id, action: "accept", after: { userId: invitation.userId } });
+    await trx("users")
+      .where({ id: invitation.userId })
+      .update({ password_hash: hash, updated_at: trx.fn.now(3) });
+    await recordAudit(trx, {
+      actorUserId: invitation.userId,
+      entity: "user_invitation",
+      entityId: invitation.id,
+      action: "accept",
+      after: { userId: invitation.userId },
+    });
     return { email: invitation.email };
   });
 }

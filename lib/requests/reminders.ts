@@ -6,22 +6,75 @@ import { sendMail, type MailResult } from "@/lib/mail/send";
 import type { OverdueList } from "@/templates/email/client-requests";
 import { utcDay } from "./status";
 
-interface Claimed { id: number; engagementId: number; sampleId: number; title: string; dueDate: string; contact: Person; senior: Person; clientName: string; engagementName: string; itemRefs: string[] }
-interface Person { id: number; name: string; email: string }
+interface Claimed {
+  id: number;
+  engagementId: number;
+  sampleId: number;
+  title: string;
+  dueDate: string;
+  contact: Person;
+  senior: Person;
+  clientName: string;
+  engagementName: string;
+  itemRefs: string[];
+}
+interface Person {
+  id: number;
+  name: string;
+  email: string;
+}
 interface OverdueRow {
-  id: number; engagement_id: number; sample_id: number; title: string; due_date: string; item_ref: string; cid: number; cname: string; cemail: string;
-  sid: number; sname: string; semail: string; sactive: number; client_name: string; ename: string;
+  id: number;
+  engagement_id: number;
+  sample_id: number;
+  title: string;
+  due_date: string;
+  item_ref: string;
+  cid: number;
+  cname: string;
+  cemail: string;
+  sid: number;
+  sname: string;
+  semail: string;
+  sactive: number;
+  client_name: string;
+  ename: string;
 }
 
 /** Open lists past due with items still awaiting the client, not yet reminded today. */
 async function findOverdue(db: Knex, today: string) {
-  return db("request_lists as l").join("request_items as r", "r.request_list_id", "l.id").join("sample_items as i", "i.id", "r.sample_item_id")
-    .join("users as c", "c.id", "l.contact_user_id").join("users as s", "s.id", "l.created_by").join("engagements as e", "e.id", "l.engagement_id")
-    .where("l.status", "open").where("l.due_date", "<", today).whereIn("r.status", ["requested", "needs-more"])
-    .where((w) => { w.whereNull("l.last_reminded_on").orWhere("l.last_reminded_on", "<", today); }).where("c.active", true)
-    .orderBy("l.id").orderBy("r.position")
-    .select("l.id", "l.engagement_id", "l.sample_id", "l.title", "l.due_date", "i.item_ref", "c.id as cid", "c.name as cname", "c.email as cemail",
-      "s.id as sid", "s.name as sname", "s.email as semail", "s.active as sactive", "e.client_name", "e.name as ename");
+  return db("request_lists as l")
+    .join("request_items as r", "r.request_list_id", "l.id")
+    .join("sample_items as i", "i.id", "r.sample_item_id")
+    .join("users as c", "c.id", "l.contact_user_id")
+    .join("users as s", "s.id", "l.created_by")
+    .join("engagements as e", "e.id", "l.engagement_id")
+    .where("l.status", "open")
+    .where("l.due_date", "<", today)
+    .whereIn("r.status", ["requested", "needs-more"])
+    .where((w) => {
+      w.whereNull("l.last_reminded_on").orWhere("l.last_reminded_on", "<", today);
+    })
+    .where("c.active", true)
+    .orderBy("l.id")
+    .orderBy("r.position")
+    .select(
+      "l.id",
+      "l.engagement_id",
+      "l.sample_id",
+      "l.title",
+      "l.due_date",
+      "i.item_ref",
+      "c.id as cid",
+      "c.name as cname",
+      "c.email as cemail",
+      "s.id as sid",
+      "s.name as sname",
+      "s.email as semail",
+      "s.active as sactive",
+      "e.client_name",
+      "e.name as ename",
+    );
 }
 
 /** Marks each list reminded today (so a second run the same day sends nothing) and logs it, in one transaction. */
@@ -30,19 +83,44 @@ async function claim(db: Knex, today: string): Promise<Claimed[]> {
     const byList = new Map<number, Claimed>();
     for (const r of (await findOverdue(trx, today)) as OverdueRow[]) {
       const list = byList.get(r.id) ?? {
-        id: r.id, engagementId: r.engagement_id, sampleId: r.sample_id, title: r.title, dueDate: r.due_date, clientName: r.client_name, engagementName: r.ename,
-        contact: { id: r.cid, name: r.cname, email: r.cemail }, senior: { id: r.sactive ? r.sid : 0, name: r.sname, email: r.semail }, itemRefs: [],
+        id: r.id,
+        engagementId: r.engagement_id,
+        sampleId: r.sample_id,
+        title: r.title,
+        dueDate: r.due_date,
+        clientName: r.client_name,
+        engagementName: r.ename,
+        contact: { id: r.cid, name: r.cname, email: r.cemail },
+        senior: { id: r.sactive ? r.sid : 0, name: r.sname, email: r.semail },
+        itemRefs: [],
       };
       list.itemRefs.push(String(r.item_ref));
       byList.set(r.id, list);
     }
     const claimed: Claimed[] = [];
     for (const list of byList.values()) {
-      const won = await trx("request_lists").where({ id: list.id }).where((w) => { w.whereNull("last_reminded_on").orWhere("last_reminded_on", "<", today); }).update({ last_reminded_on: today });
+      const won = await trx("request_lists")
+        .where({ id: list.id })
+        .where((w) => {
+          w.whereNull("last_reminded_on").orWhere("last_reminded_on", "<", today);
+        })
+        .update({ last_reminded_on: today });
       if (!won) continue;
       claimed.push(list);
-      await recordAudit(trx, { actorUserId: null, engagementId: list.engagementId, sampleId: list.sampleId, entity: "request_list", entityId: list.id, action: "overdue-reminder",
-        after: { today, dueDate: list.dueDate, overdueItems: list.itemRefs, to: [list.contact.email, ...(list.senior.id ? [list.senior.email] : [])] } });
+      await recordAudit(trx, {
+        actorUserId: null,
+        engagementId: list.engagementId,
+        sampleId: list.sampleId,
+        entity: "request_list",
+        entityId: list.id,
+        action: "overdue-reminder",
+        after: {
+          today,
+          dueDate: list.dueDate,
+          overdueItems: list.itemRefs,
+          to: [list.contact.email, ...(list.senior.id ? [list.senior.email] : [])],
+        },
+      });
     }
     return claimed;
   });
@@ -54,7 +132,13 @@ function digestBy(lists: Claimed[], who: (l: Claimed) => Person, url: (l: Claime
     const p = who(l);
     if (!p.id) continue;
     const entry = byPerson.get(p.id) ?? { person: p, lists: [] };
-    entry.lists.push({ title: l.title, dueDate: l.dueDate, itemRefs: l.itemRefs, url: url(l), engagement: { clientName: l.clientName, name: l.engagementName } });
+    entry.lists.push({
+      title: l.title,
+      dueDate: l.dueDate,
+      itemRefs: l.itemRefs,
+      url: url(l),
+      engagement: { clientName: l.clientName, name: l.engagementName },
+    });
     byPerson.set(p.id, entry);
   }
   return [...byPerson.values()];
@@ -64,12 +148,31 @@ function digestBy(lists: Claimed[], who: (l: Claimed) => Person, url: (l: Claime
  * The daily job: one digest of overdue items to each client contact and one to each senior who
  * sent a list (see `npm run job:request-reminders`). `today` is a UTC day, YYYY-MM-DD.
  */
-export async function runRequestReminders(db: Knex, { today = utcDay() }: { today?: string } = {}): Promise<{ lists: number; messages: MailResult[] }> {
+export async function runRequestReminders(
+  db: Knex,
+  { today = utcDay() }: { today?: string } = {},
+): Promise<{ lists: number; messages: MailResult[] }> {
   const lists = await claim(db, today);
   const sends = [
-    ...digestBy(lists, (l) => l.contact, (l) => clientRequestUrl(l.id)).map((d) => ({ ...d, audience: "client" as const })),
-    ...digestBy(lists, (l) => l.senior, (l) => teamRequestUrl(l.engagementId, l.sampleId, l.id)).map((d) => ({ ...d, audience: "team" as const })),
+    ...digestBy(
+      lists,
+      (l) => l.contact,
+      (l) => clientRequestUrl(l.id),
+    ).map((d) => ({ ...d, audience: "client" as const })),
+    ...digestBy(
+      lists,
+      (l) => l.senior,
+      (l) => teamRequestUrl(l.engagementId, l.sampleId, l.id),
+    ).map((d) => ({ ...d, audience: "team" as const })),
   ];
-  const messages = await Promise.all(sends.map((d) => sendMail(db, { to: d.person, template: "request-reminders", data: { recipient: { name: d.person.name }, audience: d.audience, lists: d.lists, today } })));
+  const messages = await Promise.all(
+    sends.map((d) =>
+      sendMail(db, {
+        to: d.person,
+        template: "request-reminders",
+        data: { recipient: { name: d.person.name }, audience: d.audience, lists: d.lists, today },
+      }),
+    ),
+  );
   return { lists: lists.length, messages };
 }

@@ -8,7 +8,11 @@ export type RequestEvent = "client-upload" | "file-accepted" | "file-returned";
  * file makes it "needs more" unless another of the client's files still awaits the team.
  * @throws RangeError when the client uploads to an item already accepted.
  */
-export function itemStatusAfter(current: RequestItemStatus, event: RequestEvent, { pendingLeft }: { pendingLeft: number }): RequestItemStatus {
+export function itemStatusAfter(
+  current: RequestItemStatus,
+  event: RequestEvent,
+  { pendingLeft }: { pendingLeft: number },
+): RequestItemStatus {
   if (event === "client-upload") {
     if (current === "accepted") throw new RangeError("status: this item was accepted; nothing more is needed for it");
     return "provided";
@@ -21,7 +25,10 @@ export function itemStatusAfter(current: RequestItemStatus, event: RequestEvent,
 export const awaitsClient = (status: RequestItemStatus) => status === "requested" || status === "needs-more";
 
 /** Overdue on `today` (YYYY-MM-DD): an open list past its due date with the item still awaiting the client. */
-export function isOverdue({ listOpen, dueDate, status }: { listOpen: boolean; dueDate: string; status: RequestItemStatus }, today: string): boolean {
+export function isOverdue(
+  { listOpen, dueDate, status }: { listOpen: boolean; dueDate: string; status: RequestItemStatus },
+  today: string,
+): boolean {
   return listOpen && dueDate < today && awaitsClient(status);
 }
 

@@ -16,12 +16,22 @@ export async function teamListView(db: Knex, list: RequestListRow) {
  * of the sample's results, evaluation, review notes or the team's comments.
  */
 export async function clientListView(db: Knex, list: RequestListRow) {
-  const [engagement, items] = await Promise.all([getEngagementById(db, { engagementId: list.engagementId }), listRequestItems(db, { listId: list.id, withBookValues: list.showBookValues })]);
+  const [engagement, items] = await Promise.all([
+    getEngagementById(db, { engagementId: list.engagementId }),
+    listRequestItems(db, { listId: list.id, withBookValues: list.showBookValues }),
+  ]);
   if (!engagement) throw notFound("No such request list");
   return {
     list: {
-      id: list.id, title: list.title, message: list.message, dueDate: list.dueDate, status: list.status, closedReason: list.closedReason,
-      showBookValues: list.showBookValues, sentBy: list.createdByName, createdAt: list.createdAt,
+      id: list.id,
+      title: list.title,
+      message: list.message,
+      dueDate: list.dueDate,
+      status: list.status,
+      closedReason: list.closedReason,
+      showBookValues: list.showBookValues,
+      sentBy: list.createdByName,
+      createdAt: list.createdAt,
       engagement: { clientName: engagement.clientName, name: engagement.name, currency: engagement.currency },
     },
     items: items.map(({ sampleItemId: _s, files, ...item }) => ({

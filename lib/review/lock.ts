@@ -12,19 +12,37 @@ import { freezeSampleContribution, thawSampleContribution } from "@/lib/data/mis
 import { loadSampleContribution } from "@/lib/misstatements/from-sample";
 import { mustExist } from "@/lib/data/must-exist";
 
-export type RenderFinalWorkpaper = (lockInfo: { lockedById: number; role: EngagementRole; lockedAt: Date; reference: string }) => Promise<Buffer>;
+export type RenderFinalWorkpaper = (lockInfo: {
+  lockedById: number;
+  role: EngagementRole;
+  lockedAt: Date;
+  reference: string;
+}) => Promise<Buffer>;
 
-export const workpaperReferenceFor = (sample: SampleRecord) => `WP-${sample.engagementId}-S${String(sample.id).padStart(3, "0")}`;
+export const workpaperReferenceFor = (sample: SampleRecord) =>
+  `WP-${sample.engagementId}-S${String(sample.id).padStart(3, "0")}`;
 
 /**
  * Locks a reviewer-signed sample: the final workpaper is rendered ONCE, stored in object storage
  * with its SHA-256, and from then on every write to the sample answers 409 and downloads serve
  * exactly those bytes (AS 1215 / ISA 230: documentation assembled and not changed afterwards).
  */
-export async function lockSample(db: Knex, { sample, actorId, role, render }: { sample: SampleRecord; actorId: number; role: EngagementRole; render: RenderFinalWorkpaper }) {
-  const row = mustExist(await db("samples").where({ id: sample.id }).first("locked_at", "reviewer_signed_at"), `sample ${sample.id}`);
+export async function lockSample(
+  db: Knex,
+  {
+    sample,
+    actorId,
+    role,
+    render,
+  }: { sample: SampleRecord; actorId: number; role: EngagementRole; render: RenderFinalWorkpaper },
+) {
+  const row = mustExist(
+    await db("samples").where({ id: sample.id }).first("locked_at", "reviewer_signed_at"),
+    `sample ${sample.id}`,
+  );
   if (row.locked_at) throw lockedError();
-  if (!row.reviewer_signed_at) throw conflict("A manager or partner must sign off as reviewer before the sample is locked.");
+  if (!row.reviewer_signed_at)
+    throw conflict("A manager or partner must sign off as reviewer before the sample is locked.");
   const lockedAt = new Date();
   const reference = workpaperReferenceFor(sample);
   const pdf = await render({ lockedById: actorId, role, lockedAt, reference });
@@ -32,31 +50,86 @@ export async function lockSample(db: Knex, { sample, actorId, role, render }: { 
   const key = `engagements/${sample.engagementId}/samples/${sample.id}/workpaper-${lockedAt.getTime()}-${sha256.slice(0, 12)}.pdf`;
   await putObjectBytes({ key, bytes: pdf, contentType: "application/pdf" });
   // What the sample carries to the summary of misstatements, frozen as it stands at the lock.
-  const contribution = await loadSampleContribution(db, { engagementId: sample.engagementId, sampleId: sample.id, lockedAt: lockedAt.toISOString() });
+  const contribution = await loadSampleContribution(db, {
+    engagementId: sample.engagementId,
+    sampleId: sample.id,
+    lockedAt: lockedAt.toISOString(),
+  });
   const closedListIds = await db.transaction(async (trx) => {
-    const current = mustExist(await trx("samples").where({ id: sample.id }).forUpdate().first("locked_at", "reviewer_signed_at"), `sample ${sample.id}`);
+    const current = mustExist(
+      await trx("samples").where({ id: sample.id }).forUpdate().first("locked_at", "reviewer_signed_at"),
+      `sample ${sample.id}`,
+    );
     if (current.locked_at) throw lockedError();
-    if (!current.reviewer_signed_at) throw conflict("The reviewer sign-off was cleared while the workpaper was being rendered; sign off again.");
-    await trx("samples").where({ id: sample.id }).update({ locked_by: actorId, locked_at: lockedAt, workpaper_object_key: key, workpaper_sha256: sha256, workpaper_size_bytes: pdf.length, workpaper_reference: reference });
-    await recordAudit(trx, { actorUserId: actorId, engagementId: sample.engagementId, sampleId: sample.id, entity: "sample", entityId: sample.id, action: "lock", after: { role, workpaperSha256: sha256, bytes: pdf.length, reference } });    // The workpaper is final, so the client is asked for nothing more on this sample.
+    if (!current.reviewer_signed_at)
+      throw conflict("The reviewer sign-off was cleared while the workpaper was being rendered; sign off again.");
+    await trx("samples").where({ id: sample.id }).update({
+      locked_by: actorId,
+      locked_at: lockedAt,
+      workpaper_object_key: key,
+      workpaper_sha256: sha256,
+      workpaper_size_bytes: pdf.length,
+      workpaper_reference: reference,
+    });
+    await recordAudit(trx, {
+      actorUserId: actorId,
+      engagementId: sample.engagementId,
+      sampleId: sample.id,
+      entity: "sample",
+      entityId: sample.id,
+      action: "lock",
+      after: { role, workpaperSha256: sha256, bytes: pdf.length, reference },
+    }); // The workpaper is final, so the client is asked for nothing more on this sample.
     await freezeSampleContribution(trx, { engagementId: sample.engagementId, contribution });
-    return closeRequestListsOfSample(trx, { sampleId: sample.id, engagementId: sample.engagementId, actorId, reason: CLOSED_BY_LOCK });
+    return closeRequestListsOfSample(trx, {
+      sampleId: sample.id,
+      engagementId: sample.engagementId,
+      actorId,
+      reason: CLOSED_BY_LOCK,
+    });
   });
   return { sha256, bytes: pdf.length, reference, closedListIds };
 }
 
 /** Unlocks a locked sample: partners only, with a reason; the stored workpaper stays on record in the log. */
-export async function unlockSample(db: Knex, { sample, actorId, role, reason }: { sample: SampleRecord; actorId: number; role: EngagementRole; reason: string }) {
+export async function unlockSample(
+  db: Knex,
+  { sample, actorId, role, reason }: { sample: SampleRecord; actorId: number; role: EngagementRole; reason: string },
+) {
   if (role !== "partner") throw new AppError(403, "forbidden", "Only a partner can unlock a locked sample.");
   await db.transaction(async (trx) => {
-    const row = mustExist(await trx("samples").where({ id: sample.id }).forUpdate().first("locked_at", "workpaper_sha256", "workpaper_object_key"), `sample ${sample.id}`);
+    const row = mustExist(
+      await trx("samples")
+        .where({ id: sample.id })
+        .forUpdate()
+        .first("locked_at", "workpaper_sha256", "workpaper_object_key"),
+      `sample ${sample.id}`,
+    );
     if (!row.locked_at) throw conflict("The sample is not locked.");
     await trx("samples").where({ id: sample.id }).update({
-      locked_by: null, locked_at: null, workpaper_object_key: null, workpaper_sha256: null, workpaper_size_bytes: null,
-      reviewer_signed_by: null, reviewer_signed_role: null, reviewer_signed_at: null,
+      locked_by: null,
+      locked_at: null,
+      workpaper_object_key: null,
+      workpaper_sha256: null,
+      workpaper_size_bytes: null,
+      reviewer_signed_by: null,
+      reviewer_signed_role: null,
+      reviewer_signed_at: null,
     });
     await thawSampleContribution(trx, { sampleId: sample.id });
-    await recordAudit(trx, { actorUserId: actorId, engagementId: sample.engagementId, sampleId: sample.id, entity: "sample", entityId: sample.id, action: "unlock",
-      before: { lockedAt: row.locked_at, workpaperSha256: row.workpaper_sha256, workpaperObjectKey: row.workpaper_object_key }, after: { reason, reviewerSignOff: "cleared" } });
+    await recordAudit(trx, {
+      actorUserId: actorId,
+      engagementId: sample.engagementId,
+      sampleId: sample.id,
+      entity: "sample",
+      entityId: sample.id,
+      action: "unlock",
+      before: {
+        lockedAt: row.locked_at,
+        workpaperSha256: row.workpaper_sha256,
+        workpaperObjectKey: row.workpaper_object_key,
+      },
+      after: { reason, reviewerSignOff: "cleared" },
+    });
   });
 }

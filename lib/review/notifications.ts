@@ -8,29 +8,73 @@ import type { EngagementRole } from "@/lib/auth/roles";
 // Mail is queued in the outbox after the change has committed and sent by the outbox worker; a mail failure never undoes the change.
 
 async function teamWithRoles(db: Knex, engagementId: number, roles: EngagementRole[]) {
-  return db("engagement_members as m").join("users as u", "u.id", "m.user_id")
-    .where({ "m.engagement_id": engagementId, "u.active": true }).whereIn("m.role", roles).select("u.name", "u.email") as Promise<{ name: string; email: string }[]>;
+  return db("engagement_members as m")
+    .join("users as u", "u.id", "m.user_id")
+    .where({ "m.engagement_id": engagementId, "u.active": true })
+    .whereIn("m.role", roles)
+    .select("u.name", "u.email") as Promise<{ name: string; email: string }[]>;
 }
 
 async function base(db: Knex, sample: SampleRecord, actor: { name: string; email: string }) {
   const engagement = (await getEngagementById(db, { engagementId: sample.engagementId }))!;
-  return { actor, engagement: { id: engagement.id, clientName: engagement.clientName, name: engagement.name }, sample: { id: sample.id, name: sample.name } };
+  return {
+    actor,
+    engagement: { id: engagement.id, clientName: engagement.clientName, name: engagement.name },
+    sample: { id: sample.id, name: sample.name },
+  };
 }
 
-export async function notifyReadyForReview(db: Knex, { sample, preparer }: { sample: SampleRecord; preparer: { name: string; email: string } }) {
-  await notifySampleReadyForReview(db, { ...(await base(db, sample, preparer)), recipients: await teamWithRoles(db, sample.engagementId, ["manager", "partner"]) });
+export async function notifyReadyForReview(
+  db: Knex,
+  { sample, preparer }: { sample: SampleRecord; preparer: { name: string; email: string } },
+) {
+  await notifySampleReadyForReview(db, {
+    ...(await base(db, sample, preparer)),
+    recipients: await teamWithRoles(db, sample.engagementId, ["manager", "partner"]),
+  });
 }
 
-export async function notifyNote(db: Knex, { sample, noteId, kind, actor }: { sample: SampleRecord; noteId: number; kind: "raised" | "answered" | "cleared"; actor: { name: string; email: string } }) {
-  const note = await db("review_notes as n").join("users as r", "r.id", "n.raised_by").where("n.id", noteId).first("n.text", "n.answer", "r.name", "r.email");
+export async function notifyNote(
+  db: Knex,
+  {
+    sample,
+    noteId,
+    kind,
+    actor,
+  }: {
+    sample: SampleRecord;
+    noteId: number;
+    kind: "raised" | "answered" | "cleared";
+    actor: { name: string; email: string };
+  },
+) {
+  const note = await db("review_notes as n")
+    .join("users as r", "r.id", "n.raised_by")
+    .where("n.id", noteId)
+    .first("n.text", "n.answer", "r.name", "r.email");
   const common = await base(db, sample, actor);
   if (kind === "answered") {
-    await notifyReviewNote(db, "answered", { ...common, recipients: [{ name: note.name, email: note.email }], note: { text: note.text }, answer: { text: note.answer ?? "" } });
+    await notifyReviewNote(db, "answered", {
+      ...common,
+      recipients: [{ name: note.name, email: note.email }],
+      note: { text: note.text },
+      answer: { text: note.answer ?? "" },
+    });
   } else {
-    await notifyReviewNote(db, kind, { ...common, recipients: await teamWithRoles(db, sample.engagementId, ["staff", "senior"]), note: { text: note.text } });
+    await notifyReviewNote(db, kind, {
+      ...common,
+      recipients: await teamWithRoles(db, sample.engagementId, ["staff", "senior"]),
+      note: { text: note.text },
+    });
   }
 }
 
-export async function notifyLocked(db: Knex, { sample, actor }: { sample: SampleRecord; actor: { name: string; email: string } }) {
-  await notifySampleLocked(db, { ...(await base(db, sample, actor)), recipients: await teamWithRoles(db, sample.engagementId, ["staff", "senior", "manager", "partner"]) });
+export async function notifyLocked(
+  db: Knex,
+  { sample, actor }: { sample: SampleRecord; actor: { name: string; email: string } },
+) {
+  await notifySampleLocked(db, {
+    ...(await base(db, sample, actor)),
+    recipients: await teamWithRoles(db, sample.engagementId, ["staff", "senior", "manager", "partner"]),
+  });
 }

@@ -18,7 +18,8 @@ export function preparerSignOffBlocker(f: PreparerFacts): string | null {
   if (!f.drawn) return "Draw the sample and record its results first.";
   if (!f.complete) return "Record a result for every item first.";
   if (!f.concluded) return "Record the auditor's conclusion first.";
-  if (f.responseNeeded && f.concluded.responses.length === 0) return "Record the response the computed result calls for first.";
+  if (f.responseNeeded && f.concluded.responses.length === 0)
+    return "Record the response the computed result calls for first.";
   return null;
 }
 
@@ -31,6 +32,9 @@ export interface ReviewerFacts {
 export function reviewerSignOffBlocker(f: ReviewerFacts): string | null {
   if (!f.preparerSigned) return "The preparer signs off first.";
   if (!f.concluded) return "The preparer records the auditor's conclusion first.";
-  if (f.openNotes > 0) return f.openNotes === 1 ? "Clear the open review note first." : `Clear the ${f.openNotes} open review notes first.`;
+  if (f.openNotes > 0)
+    return f.openNotes === 1
+      ? "Clear the open review note first."
+      : `Clear the ${f.openNotes} open review notes first.`;
   return null;
 }

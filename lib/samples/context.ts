@@ -21,16 +21,35 @@ import { getReviewState } from "@/lib/review/review-state";
  * hypergeometric threshold, the control-frequency table). `input.params` is what to store: the
  * confidence the risk assessment maps to replaces a typed one.
  */
-export async function planFor<T extends PreviewPlan>(db: Knex, { engagementId, input }: { engagementId: number; input: T }) {
-  const [engagement, population] = await Promise.all([getEngagementById(db, { engagementId }), getPopulationById(db, { engagementId, populationId: input.populationId })]);
+export async function planFor<T extends PreviewPlan>(
+  db: Knex,
+  { engagementId, input }: { engagementId: number; input: T },
+) {
+  const [engagement, population] = await Promise.all([
+    getEngagementById(db, { engagementId }),
+    getPopulationById(db, { engagementId, populationId: input.populationId }),
+  ]);
   if (!engagement) throw notFound("No such engagement");
-  const [frame, methodology] = await Promise.all([loadFrame(db, { populationId: population.id }), getMethodologyByFirmId(db, { firmId: engagement.firmId })]);
+  const [frame, methodology] = await Promise.all([
+    loadFrame(db, { populationId: population.id }),
+    getMethodologyByFirmId(db, { firmId: engagement.firmId }),
+  ]);
   const params = input.params;
   const classical = params.method === "random" || params.method === "systematic";
-  const priorSpread = classical && params.spreadBasis === "prior-sample" && params.spreadSampleId !== undefined
-    ? await loadPriorSpread(db, { engagementId, sampleId: params.spreadSampleId, estimator: (params.estimator ?? "mean-per-unit") as Estimator })
-    : undefined;
-  const plan = computePlan(frame, params, engagement.performanceMateriality, { methodology: methodology.settings, methodologyVersion: methodology.version, priorSpread, direction: input.direction ?? "both" });
+  const priorSpread =
+    classical && params.spreadBasis === "prior-sample" && params.spreadSampleId !== undefined
+      ? await loadPriorSpread(db, {
+          engagementId,
+          sampleId: params.spreadSampleId,
+          estimator: (params.estimator ?? "mean-per-unit") as Estimator,
+        })
+      : undefined;
+  const plan = computePlan(frame, params, engagement.performanceMateriality, {
+    methodology: methodology.settings,
+    methodologyVersion: methodology.version,
+    priorSpread,
+    direction: input.direction ?? "both",
+  });
   const normalised: T = { ...input, params: { ...params, confidence: plan.risk?.confidence ?? params.confidence } };
   return { plan, population, engagement, methodology, input: normalised };
 }
@@ -43,16 +62,30 @@ export async function loadSampleView(db: Knex, { engagementId, sampleId }: { eng
     getEngagementById(db, { engagementId }),
     getReviewState(db, { sampleId }),
   ]);
-  return { sample, population, draws, currentDraw: draws.find((d) => d.current) ?? null, engagement: engagement!, review };
+  return {
+    sample,
+    population,
+    draws,
+    currentDraw: draws.find((d) => d.current) ?? null,
+    engagement: engagement!,
+    review,
+  };
 }
 
 export type SampleView = Awaited<ReturnType<typeof loadSampleView>>;
 
 /** The view, every item of its current draw, and the evaluation of those items — one read of each. */
-export async function loadSampleWithEvaluation(db: Knex, { engagementId, sampleId }: { engagementId: number; sampleId: number }) {
+export async function loadSampleWithEvaluation(
+  db: Knex,
+  { engagementId, sampleId }: { engagementId: number; sampleId: number },
+) {
   const view = await loadSampleView(db, { engagementId, sampleId });
   const items = view.currentDraw ? (await listItemsByDrawId(db, { drawId: view.currentDraw.id })).items : [];
-  return { view, items, evaluation: evaluateSample(view.sample, view.population, items, view.engagement.performanceMateriality) };
+  return {
+    view,
+    items,
+    evaluation: evaluateSample(view.sample, view.population, items, view.engagement.performanceMateriality),
+  };
 }
 
 export async function evaluationFor(db: Knex, { engagementId, sampleId }: { engagementId: number; sampleId: number }) {

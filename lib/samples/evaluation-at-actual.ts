@@ -24,9 +24,18 @@ const units = (c: bigint) => Number(c) / 100;
  * anomalies' misstatement; projected misstatement and both bounds move with it; the standard error
  * is the remainder's (items at actual carry no sampling error).
  */
-export function addAtActual<T extends VariablesEvaluation>(r: T, remainder: { size: number; bookValue: Money }, at: AtActualInput | undefined) {
+export function addAtActual<T extends VariablesEvaluation>(
+  r: T,
+  remainder: { size: number; bookValue: Money },
+  at: AtActualInput | undefined,
+) {
   if (!at) {
-    return { result: r, figures: null as AtActualFigures | null, populationSize: remainder.size, populationBookValue: remainder.bookValue };
+    return {
+      result: r,
+      figures: null as AtActualFigures | null,
+      populationSize: remainder.size,
+      populationBookValue: remainder.bookValue,
+    };
   }
   const keyBook = sum(at.keyItems.map((i) => cents(i.bookValue)));
   const keyAudited = sum(at.keyItems.map((i) => cents(i.auditedValue)));
@@ -39,15 +48,28 @@ export function addAtActual<T extends VariablesEvaluation>(r: T, remainder: { si
     projectedMisstatement: r.projectedMisstatement + added,
     lowerBound: r.lowerBound + shift,
     upperBound: r.upperBound + shift,
-    warnings: [...r.warnings, `Key items and accepted anomalies add ${centsToDecimal(keyBook - keyAudited + anomalyMis)} of actual misstatement to the remainder's projection and move both limits by it.`],
+    warnings: [
+      ...r.warnings,
+      `Key items and accepted anomalies add ${centsToDecimal(keyBook - keyAudited + anomalyMis)} of actual misstatement to the remainder's projection and move both limits by it.`,
+    ],
   };
   const figures: AtActualFigures = {
     remainderSize: remainder.size,
     remainderBookValue: remainder.bookValue,
     remainderEstimatedAuditedValue: centsToDecimal(BigInt(Math.round(r.estimatedAuditedValue * 100))),
     remainderProjectedMisstatement: centsToDecimal(BigInt(Math.round(r.projectedMisstatement * 100))),
-    keyItems: { count: at.keyItems.length, bookValue: centsToDecimal(keyBook), auditedValue: centsToDecimal(keyAudited), misstatement: centsToDecimal(keyBook - keyAudited) },
+    keyItems: {
+      count: at.keyItems.length,
+      bookValue: centsToDecimal(keyBook),
+      auditedValue: centsToDecimal(keyAudited),
+      misstatement: centsToDecimal(keyBook - keyAudited),
+    },
     anomalies: { count: at.anomalies.length, misstatement: centsToDecimal(anomalyMis) },
   };
-  return { result, figures, populationSize: remainder.size + at.keyItems.length, populationBookValue: centsToDecimal(cents(remainder.bookValue) + keyBook) };
+  return {
+    result,
+    figures,
+    populationSize: remainder.size + at.keyItems.length,
+    populationBookValue: centsToDecimal(cents(remainder.bookValue) + keyBook),
+  };
 }

@@ -14,5 +14,9 @@ export interface EvaluationSettings {
  */
 export function evaluationSettingsOf(sample: SampleRecord): EvaluationSettings {
   const m = methodologyOfSample(sample);
-  return { classicalDistribution: m.classicalDistribution, musLimits: m.musLimits, factorMode: factorModeOfSample(sample) };
+  return {
+    classicalDistribution: m.classicalDistribution,
+    musLimits: m.musLimits,
+    factorMode: factorModeOfSample(sample),
+  };
 }

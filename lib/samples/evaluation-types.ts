@@ -3,7 +3,14 @@
  * engine's results and printed as they are by the sample page, `GET …/evaluation` and the PDF
  * workpaper (templates compute nothing). Money is a decimal string with 2 places ("1234.56").
  */
-import type { ClassicalDistribution, Estimator, FactorMode, Sides, StratifiedEstimator, TestDirection } from "@/lib/sampling";
+import type {
+  ClassicalDistribution,
+  Estimator,
+  FactorMode,
+  Sides,
+  StratifiedEstimator,
+  TestDirection,
+} from "@/lib/sampling";
 
 export type { Estimator, StratifiedEstimator };
 
@@ -191,9 +198,13 @@ export interface AttributesEvaluationBlock {
   allowanceForSamplingRisk: number;
   /** A planned two-stage plan decides by its own rule (the deviation limit above is shown for information). */
   twoStage: {
-    firstStageSize: number; secondStageSize: number; riskOfOverreliance: number;
-    firstStageDeviations: number; secondStageDeviations: number | null;
-    stage: 1 | 2; decision: "accept" | "reject" | "continue";
+    firstStageSize: number;
+    secondStageSize: number;
+    riskOfOverreliance: number;
+    firstStageDeviations: number;
+    secondStageDeviations: number | null;
+    stage: 1 | 2;
+    decision: "accept" | "reject" | "continue";
   } | null;
   supported: boolean;
   statement: string;

@@ -18,8 +18,10 @@ export const MUS_UNDERSTATEMENT_CAUTION =
   "Understatement tested by monetary-unit sampling: an item is selected in proportion to its recorded amount, so understated items are less likely to be selected than their true amounts warrant, omitted items and zero balances cannot be selected at all, and negative balances are outside the frame. Consider a test from a complete independent source (e.g. subsequent receipts or payments) for understatement.";
 
 export const UNAUDITABLE_TREATMENT: Record<"overstatement" | "understatement" | "both" | "attribute", string> = {
-  overstatement: "An item that could not be audited counts as fully misstated in the direction tested: audited value 0, a 100% overstatement.",
-  understatement: "An item that could not be audited counts as fully misstated in the direction tested: an understatement equal to its book value (audited value twice the book value), never as audited 0.",
+  overstatement:
+    "An item that could not be audited counts as fully misstated in the direction tested: audited value 0, a 100% overstatement.",
+  understatement:
+    "An item that could not be audited counts as fully misstated in the direction tested: an understatement equal to its book value (audited value twice the book value), never as audited 0.",
   both: "An item that could not be audited counts as fully misstated: audited value 0, a 100% overstatement (the direction that affects the bound tested most for a recorded balance); consider its understatement risk separately.",
   attribute: "An item that could not be audited counts as a deviation.",
 };
@@ -35,14 +37,27 @@ export const UNAUDITABLE_ON_ROW: Record<keyof typeof UNAUDITABLE_TREATMENT, stri
 const rate = (v: number) => `${(v * 100).toFixed(v * 1000 === Math.round(v * 1000) ? 1 : 2).replace(/\.0$/, "")}%`;
 
 /** The classical decision rule in words, with the figures substituted. */
-export function describeClassicalRule(d: Omit<ClassicalDecisionFigures, "rule"> & { estimatedAuditedValue: Money; standardError: Money; bookValue: Money; tolerableMisstatement: Money }): string {
+export function describeClassicalRule(
+  d: Omit<ClassicalDecisionFigures, "rule"> & {
+    estimatedAuditedValue: Money;
+    standardError: Money;
+    bookValue: Money;
+    tolerableMisstatement: Money;
+  },
+): string {
   const coef = d.distribution === "t" ? `t_α (Student, ${d.degreesOfFreedom?.toFixed(1)} df)` : "z_α";
   const sides = d.coefficientSides === "two" ? `two-sided, at 1 − α/2` : `one-sided, at 1 − α`;
   const a = `A′ = ${coef} · SE = ${d.coefficient.toFixed(4)} × ${moneyWords(d.standardError)} = ${moneyWords(d.achievedAllowance)} (α = ${rate(d.riskOfIncorrectRejection)} risk of incorrect rejection, ${sides})`;
-  const cmp = d.adjustedAllowance === null
-    ? `A′ ≤ A (planned ${moneyWords(d.plannedAllowance)}), so the interval is Ŷ ± A′`
-    : `A′ > A (planned ${moneyWords(d.plannedAllowance)}), so the interval uses the adjusted allowance A″ = A′ + TM · (1 − A′/A) = ${moneyWords(d.adjustedAllowance)}, which keeps the risk of incorrect acceptance at ${rate(d.riskOfIncorrectAcceptance)}`;
-  const limits = [d.lowerLimit === null ? null : `lower limit ${moneyWords(d.lowerLimit)}`, d.upperLimit === null ? null : `upper limit ${moneyWords(d.upperLimit)}`].filter(Boolean).join(", ");
+  const cmp =
+    d.adjustedAllowance === null
+      ? `A′ ≤ A (planned ${moneyWords(d.plannedAllowance)}), so the interval is Ŷ ± A′`
+      : `A′ > A (planned ${moneyWords(d.plannedAllowance)}), so the interval uses the adjusted allowance A″ = A′ + TM · (1 − A′/A) = ${moneyWords(d.adjustedAllowance)}, which keeps the risk of incorrect acceptance at ${rate(d.riskOfIncorrectAcceptance)}`;
+  const limits = [
+    d.lowerLimit === null ? null : `lower limit ${moneyWords(d.lowerLimit)}`,
+    d.upperLimit === null ? null : `upper limit ${moneyWords(d.upperLimit)}`,
+  ]
+    .filter(Boolean)
+    .join(", ");
   const tested = d.direction === "both" ? "both directions" : `${d.direction} only`;
   const verdict = d.supported
     ? `The recorded amount ${moneyWords(d.bookValue)} lies within the interval on the side${d.direction === "both" ? "s" : ""} tested (${tested}).`
@@ -51,8 +66,16 @@ export function describeClassicalRule(d: Omit<ClassicalDecisionFigures, "rule"> 
 }
 
 /** The MUS comparison with TM in words, naming the gross/net convention. */
-export function describeMusLimits(o: { compared: { overstatement: Money | null; understatement: Money | null }; limits: "gross" | "net"; tolerable: Money; supported: boolean }): string {
-  const convention = o.limits === "gross" ? "gross upper limits (each direction as it stands; the firm's convention)" : "net upper limits (less the other direction's projected misstatement; the firm's convention)";
+export function describeMusLimits(o: {
+  compared: { overstatement: Money | null; understatement: Money | null };
+  limits: "gross" | "net";
+  tolerable: Money;
+  supported: boolean;
+}): string {
+  const convention =
+    o.limits === "gross"
+      ? "gross upper limits (each direction as it stands; the firm's convention)"
+      : "net upper limits (less the other direction's projected misstatement; the firm's convention)";
   const parts = (["overstatement", "understatement"] as const).flatMap((d) => {
     const v = o.compared[d];
     if (v === null) return [];

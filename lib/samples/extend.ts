@@ -8,49 +8,95 @@ import { computeSelection, type SelectionInputs } from "./select";
 import { insertSelectedItems } from "./draw";
 import { beginSampleWrite } from "./guard";
 
-const NOT_EXTENDABLE = "Monetary-unit and systematic selections are not extended or replaced item by item in Sondage: plan a further sample, or record the item as could not be audited (treated as fully misstated).";
+const NOT_EXTENDABLE =
+  "Monetary-unit and systematic selections are not extended or replaced item by item in Sondage: plan a further sample, or record the item as could not be audited (treated as fully misstated).";
 
-export const UNPLANNED_ATTRIBUTE_EXTENSION = "An attribute sample of fixed size is not extended once results exist: extending after a deviation and then evaluating the total as one fixed sample is unplanned sequential sampling, whose real risk of overreliance exceeds the planned one (59 items at 5% tolerable, one deviation, extended to 93: about 7.5%, not 5%). Evaluate the sample as planned, or plan a two-stage attribute sample.";
+export const UNPLANNED_ATTRIBUTE_EXTENSION =
+  "An attribute sample of fixed size is not extended once results exist: extending after a deviation and then evaluating the total as one fixed sample is unplanned sequential sampling, whose real risk of overreliance exceeds the planned one (59 items at 5% tolerable, one deviation, extended to 93: about 7.5%, not 5%). Evaluate the sample as planned, or plan a two-stage attribute sample.";
 
 /** Whether an attribute sample may grow now: a fixed plan only before any result; a two-stage plan only into its stage 2 after exactly one stage-1 deviation. */
 async function assertAttributeExtension(db: Knex, sample: SampleRecord, drawId: number, additional: number) {
-  const items = await db("sample_items").where({ draw_id: drawId }).whereNot("status", "void").select<{ status: string; deviation: number | null; origin: string }[]>("status", "deviation", "origin");
+  const items = await db("sample_items")
+    .where({ draw_id: drawId })
+    .whereNot("status", "void")
+    .select<{ status: string; deviation: number | null; origin: string }[]>("status", "deviation", "origin");
   const twoStage = sample.plan.twoStage;
   if (!twoStage) {
     if (items.some((i) => i.status !== "not-started")) throw conflict(UNPLANNED_ATTRIBUTE_EXTENSION);
     return;
   }
-  if (items.some((i) => i.origin === "extension")) throw conflict("Stage 2 of this two-stage plan has been drawn already; the plan has no further stage.");
-  if (items.some((i) => i.status === "not-started")) throw conflict("Finish stage 1 first: stage 2 is drawn only when every stage-1 item has a result and exactly one deviates.");
+  if (items.some((i) => i.origin === "extension"))
+    throw conflict("Stage 2 of this two-stage plan has been drawn already; the plan has no further stage.");
+  if (items.some((i) => i.status === "not-started"))
+    throw conflict(
+      "Finish stage 1 first: stage 2 is drawn only when every stage-1 item has a result and exactly one deviates.",
+    );
   const deviations = items.filter((i) => Boolean(i.deviation) || i.status === "not-auditable").length;
-  if (deviations !== 1) throw conflict(`Stage 1 found ${deviations} deviations: the plan ${deviations === 0 ? "accepts" : "rejects"} at stage 1, with no stage 2.`);
-  if (additional !== twoStage.secondStageSize) throw conflict(`Stage 2 of this plan is exactly ${twoStage.secondStageSize} items (asked: ${additional}).`);
+  if (deviations !== 1)
+    throw conflict(
+      `Stage 1 found ${deviations} deviations: the plan ${deviations === 0 ? "accepts" : "rejects"} at stage 1, with no stage 2.`,
+    );
+  if (additional !== twoStage.secondStageSize)
+    throw conflict(`Stage 2 of this plan is exactly ${twoStage.secondStageSize} items (asked: ${additional}).`);
 }
 
 /** Adds items to a drawn random or attribute sample by continuing down the same random-number ranking. */
-export async function extendSample(db: Knex, { sample, actorId, additional, reason }: { sample: SampleRecord; actorId: number; additional: number; reason: string }) {
+export async function extendSample(
+  db: Knex,
+  {
+    sample,
+    actorId,
+    additional,
+    reason,
+  }: { sample: SampleRecord; actorId: number; additional: number; reason: string },
+) {
   if (sample.method !== "random" && sample.method !== "attribute") throw conflict(NOT_EXTENDABLE);
   const draw = await getCurrentDraw(db, { sampleId: sample.id });
   if (!draw) throw conflict("Draw the sample before extending it.");
   if (sample.method === "attribute") await assertAttributeExtension(db, sample, draw.id, additional);
   const frame = await loadFrame(db, { populationId: sample.populationId });
   const from = draw.inputs.ranks!;
-  if (from + additional > frame.bookValues.length) throw conflict(`Only ${frame.bookValues.length - from} items are left to add.`);
+  if (from + additional > frame.bookValues.length)
+    throw conflict(`Only ${frame.bookValues.length - from} items are left to add.`);
   const inputs: SelectionInputs = { ...draw.inputs, ranks: from + additional };
-  const added = computeSelection(frame, inputs, draw.seed).filter((it) => !it.keyItem).slice(from);
+  const added = computeSelection(frame, inputs, draw.seed)
+    .filter((it) => !it.keyItem)
+    .slice(from);
   await db.transaction(async (trx) => {
     await beginSampleWrite(trx, { sampleId: sample.id, actorId, what: "an extension" });
     if (sample.method === "attribute") await assertAttributeExtension(trx, sample, draw.id, additional); // again, under the sample lock
-    await trx("sample_draws").where({ id: draw.id }).update({ inputs_json: JSON.stringify(inputs) });
-    await insertSelectedItems(trx, { sampleId: sample.id, drawId: draw.id, populationId: sample.populationId, frame, items: added, origin: "extension" });
-    await recordAudit(trx, { actorUserId: actorId, engagementId: sample.engagementId, sampleId: sample.id, entity: "sample", entityId: sample.id, action: "extend", before: { ranks: from }, after: { ranks: from + additional, reason, streamPosition: from } });
+    await trx("sample_draws")
+      .where({ id: draw.id })
+      .update({ inputs_json: JSON.stringify(inputs) });
+    await insertSelectedItems(trx, {
+      sampleId: sample.id,
+      drawId: draw.id,
+      populationId: sample.populationId,
+      frame,
+      items: added,
+      origin: "extension",
+    });
+    await recordAudit(trx, {
+      actorUserId: actorId,
+      engagementId: sample.engagementId,
+      sampleId: sample.id,
+      entity: "sample",
+      entityId: sample.id,
+      action: "extend",
+      before: { ranks: from },
+      after: { ranks: from + additional, reason, streamPosition: from },
+    });
   });
   return { added: added.length, streamPosition: from };
 }
 
 /** Voids an unusable item (with the reason) and selects its replacement from the same random stream. */
-export async function replaceItem(db: Knex, { sample, actorId, itemId, reason }: { sample: SampleRecord; actorId: number; itemId: number; reason: string }) {
-  if (sample.method !== "random" && sample.method !== "attribute" && sample.method !== "stratified") throw conflict(NOT_EXTENDABLE);
+export async function replaceItem(
+  db: Knex,
+  { sample, actorId, itemId, reason }: { sample: SampleRecord; actorId: number; itemId: number; reason: string },
+) {
+  if (sample.method !== "random" && sample.method !== "attribute" && sample.method !== "stratified")
+    throw conflict(NOT_EXTENDABLE);
   const draw = await getCurrentDraw(db, { sampleId: sample.id });
   if (!draw) throw conflict("Draw the sample first.");
   const item = await db("sample_items").where({ id: itemId, sample_id: sample.id, draw_id: draw.id }).first();
@@ -64,16 +110,47 @@ export async function replaceItem(db: Knex, { sample, actorId, itemId, reason }:
     inputs.stratumRanks = draw.inputs.stratumRanks!.map((n, i) => (i === h ? n + 1 : n));
   } else inputs.ranks = draw.inputs.ranks! + 1;
   const before = new Set(await db("sample_items").where({ draw_id: draw.id }).pluck("population_row_number"));
-  const replacement = computeSelection(frame, inputs, draw.seed).find((it) => !before.has(frame.rowNumbers[it.position]));
+  const replacement = computeSelection(frame, inputs, draw.seed).find(
+    (it) => !before.has(frame.rowNumbers[it.position]),
+  );
   if (!replacement) throw conflict("No item is left to replace it with.");
-  const maxOrder = Number((await db("sample_items").where({ draw_id: draw.id }).max({ m: "selection_order" }).first())?.m ?? 0);
+  const maxOrder = Number(
+    (await db("sample_items").where({ draw_id: draw.id }).max({ m: "selection_order" }).first())?.m ?? 0,
+  );
   const order = sample.method === "stratified" ? maxOrder + 1 : replacement.order;
   await db.transaction(async (trx) => {
     await beginSampleWrite(trx, { sampleId: sample.id, actorId, what: "a replaced item" });
-    await trx("sample_items").where({ id: itemId }).update({ status: "void", void_reason: reason, version: item.version + 1, updated_by: actorId, updated_at: trx.fn.now(3) });
-    await trx("sample_draws").where({ id: draw.id }).update({ inputs_json: JSON.stringify(inputs) });
-    await insertSelectedItems(trx, { sampleId: sample.id, drawId: draw.id, populationId: sample.populationId, frame, items: [{ ...replacement, order }], origin: "replacement", replacesItemId: itemId });
-    await recordAudit(trx, { actorUserId: actorId, engagementId: sample.engagementId, sampleId: sample.id, entity: "sample_item", entityId: itemId, action: "void-and-replace", before: { status: item.status }, after: { status: "void", reason, replacementRow: frame.rowNumbers[replacement.position] } });
+    await trx("sample_items")
+      .where({ id: itemId })
+      .update({
+        status: "void",
+        void_reason: reason,
+        version: item.version + 1,
+        updated_by: actorId,
+        updated_at: trx.fn.now(3),
+      });
+    await trx("sample_draws")
+      .where({ id: draw.id })
+      .update({ inputs_json: JSON.stringify(inputs) });
+    await insertSelectedItems(trx, {
+      sampleId: sample.id,
+      drawId: draw.id,
+      populationId: sample.populationId,
+      frame,
+      items: [{ ...replacement, order }],
+      origin: "replacement",
+      replacesItemId: itemId,
+    });
+    await recordAudit(trx, {
+      actorUserId: actorId,
+      engagementId: sample.engagementId,
+      sampleId: sample.id,
+      entity: "sample_item",
+      entityId: itemId,
+      action: "void-and-replace",
+      before: { status: item.status },
+      after: { status: "void", reason, replacementRow: frame.rowNumbers[replacement.position] },
+    });
   });
   return { replacementRow: frame.rowNumbers[replacement.position] };
 }

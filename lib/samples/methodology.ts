@@ -13,7 +13,9 @@ export function methodologyOfSample(sample: Pick<SampleRecord, "methodology">): 
  * factors: the stamped methodology's. A plan saved before plans were stamped (no methodology
  * version) chose its own mode among its parameters, and keeps it.
  */
-export function factorModeOfSample(sample: Pick<SampleRecord, "methodology" | "methodologyVersion" | "params">): FactorMode {
+export function factorModeOfSample(
+  sample: Pick<SampleRecord, "methodology" | "methodologyVersion" | "params">,
+): FactorMode {
   const legacy = (sample.params as { factorMode?: unknown }).factorMode;
   if (sample.methodologyVersion === null && (legacy === "exact" || legacy === "table")) return legacy;
   return methodologyOfSample(sample).factorMode;

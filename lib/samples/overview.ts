@@ -32,15 +32,39 @@ export interface SampleOverview {
   deviations: number;
 }
 
-export async function listSampleOverviews(db: Knex, { engagementId, samples }: { engagementId: number; samples: SampleRecord[] }): Promise<Record<number, SampleOverview>> {
-  const entries = await Promise.all(samples.map(async (s): Promise<[number, SampleOverview]> => {
-    const blank = { sampleId: s.id, items: null, withResult: 0, projectedMisstatement: null, bound: null, supported: null, complete: false, attribute: s.method === "attribute", deviations: 0 };
-    if (s.status !== "drawn") return [s.id, blank];
-    const e = await evaluationFor(db, { engagementId, sampleId: s.id });
-    return [s.id, {
-      ...blank, items: e.progress.total, withResult: e.progress.done + e.progress.notAuditable,
-      projectedMisstatement: e.projectedMisstatement, bound: boundOf(e.block), supported: e.computed.supported, complete: e.complete, deviations: e.progress.deviations,
-    }];
-  }));
+export async function listSampleOverviews(
+  db: Knex,
+  { engagementId, samples }: { engagementId: number; samples: SampleRecord[] },
+): Promise<Record<number, SampleOverview>> {
+  const entries = await Promise.all(
+    samples.map(async (s): Promise<[number, SampleOverview]> => {
+      const blank = {
+        sampleId: s.id,
+        items: null,
+        withResult: 0,
+        projectedMisstatement: null,
+        bound: null,
+        supported: null,
+        complete: false,
+        attribute: s.method === "attribute",
+        deviations: 0,
+      };
+      if (s.status !== "drawn") return [s.id, blank];
+      const e = await evaluationFor(db, { engagementId, sampleId: s.id });
+      return [
+        s.id,
+        {
+          ...blank,
+          items: e.progress.total,
+          withResult: e.progress.done + e.progress.notAuditable,
+          projectedMisstatement: e.projectedMisstatement,
+          bound: boundOf(e.block),
+          supported: e.computed.supported,
+          complete: e.complete,
+          deviations: e.progress.deviations,
+        },
+      ];
+    }),
+  );
   return Object.fromEntries(entries);
 }

@@ -66,7 +66,10 @@ export async function addHaphazardPick(
       origin: "haphazard",
       pickedBy: actorId,
     });
-    const row = mustExist(await trx("sample_items").where({ draw_id: draw.id, population_row_number: rowNumber }).first("id"), `picked row ${rowNumber}`);
+    const row = mustExist(
+      await trx("sample_items").where({ draw_id: draw.id, population_row_number: rowNumber }).first("id"),
+      `picked row ${rowNumber}`,
+    );
     await recordAudit(trx, {
       actorUserId: actorId,
       engagementId: sample.engagementId,

@@ -45,7 +45,10 @@ export function planNonstatistical(
   const keyTotal = Number(a.keyItems?.total ?? "0");
   const bookValue = Number(centsToDecimal(frame.totalCents));
   if (!(bookValue > 0))
-    throw new EngineInputError("bookValue", "bookValue: the population's book value must be above zero for a nonstatistical size");
+    throw new EngineInputError(
+      "bookValue",
+      "bookValue: the population's book value must be above zero for a nonstatistical size",
+    );
   const r = nonstatisticalSampleSize({
     bookValue,
     keyItemsBookValue: keyTotal,

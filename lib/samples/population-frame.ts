@@ -20,7 +20,9 @@ export async function loadFrame(db: Knex, { populationId }: { populationId: numb
   const hit = cache.get(populationId);
   if (hit) return hit;
   const rows: { row_number: number; item_ref: string; book_value: string }[] = await db("population_items")
-    .where({ population_id: populationId }).orderBy("row_number").select("row_number", "item_ref", "book_value");
+    .where({ population_id: populationId })
+    .orderBy("row_number")
+    .select("row_number", "item_ref", "book_value");
   const frame: Frame = {
     populationId,
     rowNumbers: Int32Array.from(rows, (r) => r.row_number),

@@ -27,9 +27,18 @@ export function reproductionRecipe(ctx: RecipeContext, inputs: SelectionInputs):
     "",
     "   import numpy as np",
     "   # refs, cents: the item references and book values in cents, in file order",
-    ...(inputs.method === "nonstatistical" && inputs.selection === "haphazard" ? [] : [`   rs = np.random.RandomState(${ctx.seed})   # MT19937, init_genrand(${ctx.seed})`]),
+    ...(inputs.method === "nonstatistical" && inputs.selection === "haphazard"
+      ? []
+      : [`   rs = np.random.RandomState(${ctx.seed})   # MT19937, init_genrand(${ctx.seed})`]),
   ];
-  return [...head, ...keyItemSteps(inputs), ...methodSteps(inputs, ctx.seed), "", "Selection order is 1-based; row numbers are those of the file (header = row 1).", ""].join("\n");
+  return [
+    ...head,
+    ...keyItemSteps(inputs),
+    ...methodSteps(inputs, ctx.seed),
+    "",
+    "Selection order is 1-based; row numbers are those of the file (header = row 1).",
+    "",
+  ].join("\n");
 }
 
 /** Key items come first and are removed from the frame; the method then runs on what remains, in file order. */
@@ -43,7 +52,10 @@ function keyItemSteps(inputs: SelectionInputs): string[] {
     );
   }
   if (inputs.method === "nonstatistical" && inputs.selection === "haphazard") {
-    lines.push("   # HAPHAZARD SELECTION: the other items were picked by the auditor on the population grid.", "   # No seed re-performs them; the workpaper lists each pick with who made it and when.");
+    lines.push(
+      "   # HAPHAZARD SELECTION: the other items were picked by the auditor on the population grid.",
+      "   # No seed re-performs them; the workpaper lists each pick with who made it and when.",
+    );
   }
   return lines;
 }
@@ -51,7 +63,14 @@ function keyItemSteps(inputs: SelectionInputs): string[] {
 function methodSteps(inputs: SelectionInputs, seed: number): string[] {
   if (inputs.method === "nonstatistical") {
     if (inputs.selection === "haphazard") return [];
-    return methodSteps({ ...inputs, method: inputs.selection === "systematic" ? "systematic" : "random", frameSize: inputs.frameSize - (inputs.keyRows?.length ?? 0) }, seed);
+    return methodSteps(
+      {
+        ...inputs,
+        method: inputs.selection === "systematic" ? "systematic" : "random",
+        frameSize: inputs.frameSize - (inputs.keyRows?.length ?? 0),
+      },
+      seed,
+    );
   }
   switch (inputs.method) {
     case "mus": {

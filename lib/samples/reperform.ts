@@ -18,30 +18,57 @@ export interface ReperformResult {
 }
 
 /** Recomputes the current draw from its stored seed and inputs and compares it item by item. */
-export async function reperformDraw(db: Knex, { sample, actorId }: { sample: SampleRecord; actorId: number }): Promise<ReperformResult> {
+export async function reperformDraw(
+  db: Knex,
+  { sample, actorId }: { sample: SampleRecord; actorId: number },
+): Promise<ReperformResult> {
   const draw = await getCurrentDraw(db, { sampleId: sample.id });
   if (!draw) throw conflict("The sample has not been drawn yet.");
   const frame = await loadFrame(db, { populationId: sample.populationId });
   const recomputed = computeSelection(frame, draw.inputs, draw.seed);
-  const stored: { population_row_number: number; selection_order: number; hit_points: unknown; stratum: number | null }[] =
-    await db("sample_items").where({ draw_id: draw.id }).whereNot({ origin: "haphazard" }).orderBy("selection_order").select("population_row_number", "selection_order", "hit_points", "stratum");
+  const stored: {
+    population_row_number: number;
+    selection_order: number;
+    hit_points: unknown;
+    stratum: number | null;
+  }[] = await db("sample_items")
+    .where({ draw_id: draw.id })
+    .whereNot({ origin: "haphazard" })
+    .orderBy("selection_order")
+    .select("population_row_number", "selection_order", "hit_points", "stratum");
 
   const key = (row: number, stratum: number | null, order: number, points: number[] | null) =>
     `${stratum ?? "-"}|${row}|${sample.method === "stratified" ? "" : order}|${(points ?? []).map((p) => p.toFixed(2)).join(";")}`;
   const want = new Set(recomputed.map((it) => key(frame.rowNumbers[it.position], it.stratum, it.order, it.hitPoints)));
-  const have = new Set(stored.map((s) => key(s.population_row_number, s.stratum, s.selection_order, parsePoints(s.hit_points))));
+  const have = new Set(
+    stored.map((s) => key(s.population_row_number, s.stratum, s.selection_order, parsePoints(s.hit_points))),
+  );
   const differences = [
     ...[...have].filter((k) => !want.has(k)).map((k) => `stored but not recomputed: ${describe(k)}`),
     ...[...want].filter((k) => !have.has(k)).map((k) => `recomputed but not stored: ${describe(k)}`),
   ];
   const result: ReperformResult = {
-    matches: differences.length === 0, checkedAt: new Date().toISOString(), storedItems: stored.length, recomputedItems: recomputed.length,
-    recomputedSha256: sha256(selectionFingerprint(frame, recomputed)), differences: differences.slice(0, 20),
+    matches: differences.length === 0,
+    checkedAt: new Date().toISOString(),
+    storedItems: stored.length,
+    recomputedItems: recomputed.length,
+    recomputedSha256: sha256(selectionFingerprint(frame, recomputed)),
+    differences: differences.slice(0, 20),
   };
   await db.transaction(async (trx) => {
     await assertSampleUnlocked(trx, sample.id);
-    await trx("sample_draws").where({ id: draw.id }).update({ reperformed_at: new Date(result.checkedAt), reperform_matches: result.matches });
-    await recordAudit(trx, { actorUserId: actorId, engagementId: sample.engagementId, sampleId: sample.id, entity: "sample", entityId: sample.id, action: "reperform", after: { version: draw.version, matches: result.matches, differences: differences.length } });
+    await trx("sample_draws")
+      .where({ id: draw.id })
+      .update({ reperformed_at: new Date(result.checkedAt), reperform_matches: result.matches });
+    await recordAudit(trx, {
+      actorUserId: actorId,
+      engagementId: sample.engagementId,
+      sampleId: sample.id,
+      entity: "sample",
+      entityId: sample.id,
+      action: "reperform",
+      after: { version: draw.version, matches: result.matches, differences: differences.length },
+    });
   });
   return result;
 }

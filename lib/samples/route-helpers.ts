@@ -5,5 +5,8 @@ import { getSampleById } from "@/lib/data/samples";
 
 /** The sample named by the route's `sampleId`, on the route's engagement (404 otherwise). */
 export function sampleOf(ctx: EngagementContext) {
-  return getSampleById(ctx.db, { engagementId: ctx.engagementId, sampleId: parseIdParam(ctx.params.sampleId, "sample") });
+  return getSampleById(ctx.db, {
+    engagementId: ctx.engagementId,
+    sampleId: parseIdParam(ctx.params.sampleId, "sample"),
+  });
 }

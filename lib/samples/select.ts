@@ -57,23 +57,41 @@ export function algorithmName(method: SampleMethod, selection?: SelectionInputs[
 export function computeSelection(frame: Frame, inputs: SelectionInputs, seed: number): SelectedItem[] {
   const keyRows = inputs.keyRows ?? [];
   if (keyRows.length === 0 && inputs.method !== "nonstatistical") return selectFromFrame(frame, inputs, seed);
-  const keyItems: SelectedItem[] = positionsOfRows(frame, keyRows).map((position, i) => ({ position, order: i + 1, hitPoints: null, topStratum: false, stratum: null, keyItem: true }));
+  const keyItems: SelectedItem[] = positionsOfRows(frame, keyRows).map((position, i) => ({
+    position,
+    order: i + 1,
+    hitPoints: null,
+    topStratum: false,
+    stratum: null,
+    keyItem: true,
+  }));
   const rest = remainderFrame(frame, keyRows);
-  const method = inputs.method === "nonstatistical" ? (inputs.selection === "systematic" ? "systematic" : "random") : inputs.method;
-  const drawn = inputs.method === "nonstatistical" && inputs.selection === "haphazard" ? [] : selectFromFrame(rest.frame, { ...inputs, method }, seed);
-  return [...keyItems, ...drawn.map((it) => ({ ...it, position: rest.positions[it.position], order: it.order + keyItems.length }))];
+  const method =
+    inputs.method === "nonstatistical" ? (inputs.selection === "systematic" ? "systematic" : "random") : inputs.method;
+  const drawn =
+    inputs.method === "nonstatistical" && inputs.selection === "haphazard"
+      ? []
+      : selectFromFrame(rest.frame, { ...inputs, method }, seed);
+  return [
+    ...keyItems,
+    ...drawn.map((it) => ({ ...it, position: rest.positions[it.position], order: it.order + keyItems.length })),
+  ];
 }
 
 function selectFromFrame(frame: Frame, inputs: SelectionInputs, seed: number): SelectedItem[] {
   switch (inputs.method) {
-    case "mus": return selectMus(frame, inputs, seed);
+    case "mus":
+      return selectMus(frame, inputs, seed);
     case "systematic":
-      return selectSystematic({ populationSize: frame.bookValues.length, sampleSize: inputs.sampleSize!, seed })
-        .map((position, i) => ({ position, order: i + 1, hitPoints: null, topStratum: false, stratum: null }));
-    case "stratified": return selectStratified(frame, inputs, seed);
+      return selectSystematic({ populationSize: frame.bookValues.length, sampleSize: inputs.sampleSize!, seed }).map(
+        (position, i) => ({ position, order: i + 1, hitPoints: null, topStratum: false, stratum: null }),
+      );
+    case "stratified":
+      return selectStratified(frame, inputs, seed);
     default:
-      return selectRandom({ populationSize: frame.bookValues.length, sampleSize: inputs.ranks!, seed })
-        .map((position, i) => ({ position, order: i + 1, hitPoints: null, topStratum: false, stratum: null }));
+      return selectRandom({ populationSize: frame.bookValues.length, sampleSize: inputs.ranks!, seed }).map(
+        (position, i) => ({ position, order: i + 1, hitPoints: null, topStratum: false, stratum: null }),
+      );
   }
 }
 
@@ -81,25 +99,48 @@ function selectMus(frame: Frame, inputs: SelectionInputs, seed: number): Selecte
   const threshold = inputs.topStratumThreshold ?? inputs.interval!;
   const selection = selectPps({ bookValues: frame.bookValues, interval: inputs.interval!, seed });
   const items: SelectedItem[] = selection.hits.map((hit, i) => ({
-    position: hit.index, order: i + 1, hitPoints: hit.hitPoints, topStratum: frame.bookValues[hit.index] >= threshold, stratum: null,
+    position: hit.index,
+    order: i + 1,
+    hitPoints: hit.hitPoints,
+    topStratum: frame.bookValues[hit.index] >= threshold,
+    stratum: null,
   }));
   // With a threshold below the interval, top-stratum items the points missed are added: all are examined.
   const hit = new Set(selection.hits.map((h) => h.index));
   frame.bookValues.forEach((v, position) => {
-    if (v >= threshold && !hit.has(position)) items.push({ position, order: items.length + 1, hitPoints: [], topStratum: true, stratum: null });
+    if (v >= threshold && !hit.has(position))
+      items.push({ position, order: items.length + 1, hitPoints: [], topStratum: true, stratum: null });
   });
   return items;
 }
 
 function selectStratified(frame: Frame, inputs: SelectionInputs, seed: number): SelectedItem[] {
   const strata = stratifyFrame(frame, inputs.strataBounds!);
-  const picks = selectStratifiedRandom({ strata: strata.map((s, h) => ({ populationSize: s.members.length, sampleSize: inputs.stratumRanks![h] })), seed });
+  const picks = selectStratifiedRandom({
+    strata: strata.map((s, h) => ({ populationSize: s.members.length, sampleSize: inputs.stratumRanks![h] })),
+    seed,
+  });
   const items: SelectedItem[] = [];
-  picks.forEach((indexes, h) => indexes.forEach((k) => items.push({ position: strata[h].members[k], order: items.length + 1, hitPoints: null, topStratum: false, stratum: h + 1 })));
+  picks.forEach((indexes, h) =>
+    indexes.forEach((k) =>
+      items.push({
+        position: strata[h].members[k],
+        order: items.length + 1,
+        hitPoints: null,
+        topStratum: false,
+        stratum: h + 1,
+      }),
+    ),
+  );
   return items;
 }
 
 /** A canonical text of a selection, hashed so two selections can be compared at a glance. */
 export function selectionFingerprint(frame: Frame, items: SelectedItem[]): string {
-  return items.map((it) => `${it.order},${frame.rowNumbers[it.position]},${frame.itemRefs[it.position]},${frame.bookValues[it.position].toFixed(2)},${(it.hitPoints ?? []).map((p) => p.toFixed(2)).join(";")},${it.stratum ?? ""}`).join("\n");
+  return items
+    .map(
+      (it) =>
+        `${it.order},${frame.rowNumbers[it.position]},${frame.itemRefs[it.position]},${frame.bookValues[it.position].toFixed(2)},${(it.hitPoints ?? []).map((p) => p.toFixed(2)).join(";")},${it.stratum ?? ""}`,
+    )
+    .join("\n");
 }

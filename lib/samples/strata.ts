@@ -17,7 +17,12 @@ export function stratifyFrame(frame: Frame, bounds: number[]): FrameStratum[] {
     number: h + 1,
     lowerExclusive: h === 0 ? null : bounds[h - 1],
     upperInclusive: upper,
-    label: h === 0 ? `up to ${bounds[0].toLocaleString("en-US")}` : upper === null ? `above ${bounds[h - 1].toLocaleString("en-US")}` : `${bounds[h - 1].toLocaleString("en-US")} – ${upper.toLocaleString("en-US")}`,
+    label:
+      h === 0
+        ? `up to ${bounds[0].toLocaleString("en-US")}`
+        : upper === null
+          ? `above ${bounds[h - 1].toLocaleString("en-US")}`
+          : `${bounds[h - 1].toLocaleString("en-US")} – ${upper.toLocaleString("en-US")}`,
     members: [],
     bookCents: 0n,
   }));

@@ -21,9 +21,14 @@ export const ADVISED_ESTIMATOR_LABELS: Record<AdvisedEstimator, string> = {
 };
 
 /** Shown for comparison only: the evaluation does not offer them, so they are never recommended. */
-export const isComparisonEstimator = (e: AdvisedEstimator) => (CORRECTED_RATIO_ESTIMATORS as readonly string[]).includes(e);
+export const isComparisonEstimator = (e: AdvisedEstimator) =>
+  (CORRECTED_RATIO_ESTIMATORS as readonly string[]).includes(e);
 
-export interface AdvisorCell { estimator: AdvisedEstimator; sampleSize: number; performance: EstimatorPerformance }
+export interface AdvisorCell {
+  estimator: AdvisedEstimator;
+  sampleSize: number;
+  performance: EstimatorPerformance;
+}
 
 export interface Verdict {
   estimator: AdvisedEstimator;
@@ -61,7 +66,11 @@ const times = (v: number) => formatNumber(v, v >= 10 ? 0 : 1);
  *   are expected for the difference, ratio and regression estimators.
  */
 export function recommendEstimator(o: {
-  cells: AdvisorCell[]; confidence: number; trials: number; atSize?: number; misstatedShare?: number;
+  cells: AdvisorCell[];
+  confidence: number;
+  trials: number;
+  atSize?: number;
+  misstatedShare?: number;
 }): Recommendation {
   const sizes = [...new Set(o.cells.map((c) => c.sampleSize))].sort((a, b) => a - b);
   if (sizes.length === 0) throw new EngineInputError("cells", "cells must hold at least one result");
@@ -69,7 +78,10 @@ export function recommendEstimator(o: {
   const cells = o.cells.filter((c) => c.sampleSize === sampleSize);
   const coverageFloor = o.confidence - 2 * Math.sqrt((o.confidence * (1 - o.confidence)) / o.trials);
   const eligible = cells.filter((c) => !isComparisonEstimator(c.estimator) && c.performance.coverage >= coverageFloor);
-  const best = eligible.reduce<AdvisorCell | null>((b, c) => (b === null || c.performance.rmse < b.performance.rmse ? c : b), null);
+  const best = eligible.reduce<AdvisorCell | null>(
+    (b, c) => (b === null || c.performance.rmse < b.performance.rmse ? c : b),
+    null,
+  );
   const expectedDifferences = o.misstatedShare === undefined ? null : o.misstatedShare * sampleSize;
 
   const verdicts: Verdict[] = cells.map((c) => {
@@ -77,26 +89,45 @@ export function recommendEstimator(o: {
     const label = ADVISED_ESTIMATOR_LABELS[c.estimator];
     if (isComparisonEstimator(c.estimator)) return comparisonVerdict(c, cells);
     if (c === best) {
-      return { estimator: c.estimator, verdict: "recommended", reason: `${label}: the lowest RMSE (${money(p.rmse)}) among the estimators whose bound held the truth in at least ${pct(coverageFloor)} of trials (${pct(p.coverage)}).` };
+      return {
+        estimator: c.estimator,
+        verdict: "recommended",
+        reason: `${label}: the lowest RMSE (${money(p.rmse)}) among the estimators whose bound held the truth in at least ${pct(coverageFloor)} of trials (${pct(p.coverage)}).`,
+      };
     }
     if (p.coverage < coverageFloor) {
-      const few = DIFFERENCE_TYPE.includes(c.estimator) && expectedDifferences !== null && expectedDifferences < FEW_DIFFERENCES
-        ? ` — too few misstatements expected (about ${formatNumber(expectedDifferences, expectedDifferences < 1 ? 1 : 0)} in the sample)` : "";
-      return { estimator: c.estimator, verdict: "short-coverage", reason: `${label}: coverage ${pct(p.coverage)} at n = ${sampleSize}, below the ${pct(o.confidence)} confidence${few}.` };
+      const few =
+        DIFFERENCE_TYPE.includes(c.estimator) && expectedDifferences !== null && expectedDifferences < FEW_DIFFERENCES
+          ? ` — too few misstatements expected (about ${formatNumber(expectedDifferences, expectedDifferences < 1 ? 1 : 0)} in the sample)`
+          : "";
+      return {
+        estimator: c.estimator,
+        verdict: "short-coverage",
+        reason: `${label}: coverage ${pct(p.coverage)} at n = ${sampleSize}, below the ${pct(o.confidence)} confidence${few}.`,
+      };
     }
     const b = best!.performance;
     const biasShare = p.rmse > 0 ? Math.abs(p.bias) / p.rmse : 0;
-    const reason = biasShare > 0.5
-      ? `${label}: biased by ${money(p.bias)} (${pct(biasShare)} of its RMSE); RMSE ${times(p.rmse / b.rmse)} times the ${ADVISED_ESTIMATOR_LABELS[best!.estimator].toLowerCase()}'s.`
-      : `${label}: ${biasShare < 0.1 ? "unbiased" : "slightly biased"} but its spread is ${times(p.standardDeviation / Math.max(b.standardDeviation, Number.MIN_VALUE))} times wider (RMSE ${money(p.rmse)} against ${money(b.rmse)}).`;
+    const reason =
+      biasShare > 0.5
+        ? `${label}: biased by ${money(p.bias)} (${pct(biasShare)} of its RMSE); RMSE ${times(p.rmse / b.rmse)} times the ${ADVISED_ESTIMATOR_LABELS[best!.estimator].toLowerCase()}'s.`
+        : `${label}: ${biasShare < 0.1 ? "unbiased" : "slightly biased"} but its spread is ${times(p.standardDeviation / Math.max(b.standardDeviation, Number.MIN_VALUE))} times wider (RMSE ${money(p.rmse)} against ${money(b.rmse)}).`;
     return { estimator: c.estimator, verdict: "wider", reason };
   });
   verdicts.sort((a, b) => (a.verdict === "recommended" ? -1 : b.verdict === "recommended" ? 1 : 0));
 
-  const summary = best === null
-    ? `No estimator's bound held the truth in at least ${pct(coverageFloor)} of trials at n = ${sampleSize}: consider a larger sample or another method.`
-    : `At n = ${sampleSize}, ${ADVISED_ESTIMATOR_LABELS[best.estimator].toLowerCase()} gives the most accurate estimate under the assumed misstatements while its bound still holds at the stated confidence.`;
-  return { sampleSize, recommended: best?.estimator ?? null, coverageFloor, verdicts, summary, tradeOff: tradeOffLine(cells) };
+  const summary =
+    best === null
+      ? `No estimator's bound held the truth in at least ${pct(coverageFloor)} of trials at n = ${sampleSize}: consider a larger sample or another method.`
+      : `At n = ${sampleSize}, ${ADVISED_ESTIMATOR_LABELS[best.estimator].toLowerCase()} gives the most accurate estimate under the assumed misstatements while its bound still holds at the stated confidence.`;
+  return {
+    sampleSize,
+    recommended: best?.estimator ?? null,
+    coverageFloor,
+    verdicts,
+    summary,
+    tradeOff: tradeOffLine(cells),
+  };
 }
 
 function comparisonVerdict(c: AdvisorCell, cells: AdvisorCell[]): Verdict {
@@ -105,7 +136,11 @@ function comparisonVerdict(c: AdvisorCell, cells: AdvisorCell[]): Verdict {
   const label = ADVISED_ESTIMATOR_LABELS[c.estimator];
   const against = ratio ? `; the plain ratio estimator: bias ${money(ratio.bias)}, RMSE ${money(ratio.rmse)}` : "";
   const undefinedNote = p.undefinedTrials ? `; undefined in ${p.undefinedTrials} trials` : "";
-  return { estimator: c.estimator, verdict: "comparison", reason: `${label} (for comparison): bias ${money(p.bias)}, RMSE ${money(p.rmse)}, coverage ${pct(p.coverage)}${against}${undefinedNote}.` };
+  return {
+    estimator: c.estimator,
+    verdict: "comparison",
+    reason: `${label} (for comparison): bias ${money(p.bias)}, RMSE ${money(p.rmse)}, coverage ${pct(p.coverage)}${against}${undefinedNote}.`,
+  };
 }
 
 /**
@@ -115,7 +150,12 @@ function comparisonVerdict(c: AdvisorCell, cells: AdvisorCell[]): Verdict {
 function tradeOffLine(cells: AdvisorCell[]): string | null {
   const ratio = cells.find((c) => c.estimator === "ratio")?.performance;
   if (!ratio || !Number.isFinite(ratio.rmse)) return null;
-  const worse = cells.filter((c) => isComparisonEstimator(c.estimator) && Math.abs(c.performance.bias) < Math.abs(ratio.bias) && c.performance.rmse > ratio.rmse);
+  const worse = cells.filter(
+    (c) =>
+      isComparisonEstimator(c.estimator) &&
+      Math.abs(c.performance.bias) < Math.abs(ratio.bias) &&
+      c.performance.rmse > ratio.rmse,
+  );
   if (worse.length === 0) return null;
   const names = worse.map((c) => ADVISED_ESTIMATOR_LABELS[c.estimator].replace(/ \(.*\)$/, "")).join(", ");
   return `${names} ${worse.length === 1 ? "removes" : "remove"} most of the ratio estimator's bias (${money(ratio.bias)}) but ${worse.length === 1 ? "its" : "their"} extra spread costs more than the bias removed: RMSE ${worse.map((c) => money(c.performance.rmse)).join(", ")} against ${money(ratio.rmse)}. On this population the plain ratio estimator is the better choice of the ratio forms.`;

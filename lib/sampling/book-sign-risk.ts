@@ -34,18 +34,31 @@ export interface BookSignRisk {
  * @example
  * bookSignRisk({ bookValues: [100, 120, -30, 90], sampleSize: 2 }).materialShare // → true (1 of 4 items)
  */
-export function bookSignRisk(o: { bookValues: ArrayLike<number>; sampleSize: number; tolerableMisstatement?: number }): BookSignRisk {
+export function bookSignRisk(o: {
+  bookValues: ArrayLike<number>;
+  sampleSize: number;
+  tolerableMisstatement?: number;
+}): BookSignRisk {
   requireObject("options", o);
   const values = Array.isArray(o.bookValues) ? requireArray<number>("bookValues", o.bookValues) : o.bookValues;
   const N = values.length;
   const n = requireInteger("sampleSize", o.sampleSize, 1, Math.max(1, N));
-  const tolerable = o.tolerableMisstatement === undefined ? undefined : requirePositive("tolerableMisstatement", o.tolerableMisstatement);
-  let zeroCount = 0, negativeCount = 0, negativeTotal = 0, sum = 0;
+  const tolerable =
+    o.tolerableMisstatement === undefined
+      ? undefined
+      : requirePositive("tolerableMisstatement", o.tolerableMisstatement);
+  let zeroCount = 0,
+    negativeCount = 0,
+    negativeTotal = 0,
+    sum = 0;
   for (let i = 0; i < N; i++) {
     const v = values[i]!;
     sum += v;
     if (v === 0) zeroCount++;
-    else if (v < 0) { negativeCount++; negativeTotal += v; }
+    else if (v < 0) {
+      negativeCount++;
+      negativeTotal += v;
+    }
   }
   const mean = N > 0 ? sum / N : 0;
   let squares = 0;
@@ -53,14 +66,21 @@ export function bookSignRisk(o: { bookValues: ArrayLike<number>; sampleSize: num
   const sd = N > 1 ? Math.sqrt(squares / (N - 1)) : 0;
   const standardError = sd * Math.sqrt(Math.max(0, 1 - n / N) / n);
   const nonPositive = zeroCount + negativeCount;
-  const materialShare = nonPositive > 0 && (nonPositive / Math.max(N, 1) >= MATERIAL_NON_POSITIVE_SHARE || (tolerable !== undefined && -negativeTotal >= tolerable));
+  const materialShare =
+    nonPositive > 0 &&
+    (nonPositive / Math.max(N, 1) >= MATERIAL_NON_POSITIVE_SHARE ||
+      (tolerable !== undefined && -negativeTotal >= tolerable));
   const nearZeroTotal = N > 0 && mean <= NEAR_ZERO_STANDARD_ERRORS * standardError;
   const warnings: string[] = [];
   if (materialShare) {
-    warnings.push(`${formatCount(nonPositive)} of ${formatCount(N)} items are zero or negative (credits ${formatMoney(Math.abs(negativeTotal))}): a material share for the ratio and regression estimators. Consider testing credit balances as their own population.`);
+    warnings.push(
+      `${formatCount(nonPositive)} of ${formatCount(N)} items are zero or negative (credits ${formatMoney(Math.abs(negativeTotal))}): a material share for the ratio and regression estimators. Consider testing credit balances as their own population.`,
+    );
   }
   if (nearZeroTotal) {
-    warnings.push(`At n = ${n} the sample's book total can come near zero (mean book value ${formatMoney(mean)} is within ${NEAR_ZERO_STANDARD_ERRORS} standard errors of zero): the ratio and regression estimates become unstable. Test credit balances as their own population, or use the difference or mean-per-unit estimator.`);
+    warnings.push(
+      `At n = ${n} the sample's book total can come near zero (mean book value ${formatMoney(mean)} is within ${NEAR_ZERO_STANDARD_ERRORS} standard errors of zero): the ratio and regression estimates become unstable. Test credit balances as their own population, or use the difference or mean-per-unit estimator.`,
+    );
   }
   return { zeroCount, negativeCount, negativeTotal, materialShare, nearZeroTotal, warnings };
 }

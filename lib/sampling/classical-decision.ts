@@ -31,7 +31,12 @@ export interface ClassicalDecision {
   beyond: "upper" | "lower" | null;
 }
 
-function coefficientFor(alpha: number, sides: "two" | "one", distribution: ClassicalDistribution, df: number | null): number {
+function coefficientFor(
+  alpha: number,
+  sides: "two" | "one",
+  distribution: ClassicalDistribution,
+  df: number | null,
+): number {
   const p = sides === "two" ? 1 - alpha / 2 : 1 - alpha;
   return distribution === "t" ? studentQuantile(p, df!) : normalQuantile(p);
 }
@@ -79,9 +84,15 @@ export function classicalDecision(o: {
   const planned = requirePositive("plannedAllowance", o.plannedAllowance);
   const alpha = requireOpenFraction("riskOfIncorrectRejection", o.riskOfIncorrectRejection);
   const direction = requireOneOf("direction", o.direction, TEST_DIRECTIONS);
-  const distribution = o.distribution === undefined ? "z" : requireOneOf("distribution", o.distribution, CLASSICAL_DISTRIBUTIONS);
+  const distribution =
+    o.distribution === undefined ? "z" : requireOneOf("distribution", o.distribution, CLASSICAL_DISTRIBUTIONS);
   const df = distribution === "t" ? requirePositive("degreesOfFreedom", o.degreesOfFreedom) : null;
-  const coefficientSides = o.plannedSides === undefined ? (direction === "both" ? "two" : "one") : requireOneOf("plannedSides", o.plannedSides, ["two", "one"] as const);
+  const coefficientSides =
+    o.plannedSides === undefined
+      ? direction === "both"
+        ? "two"
+        : "one"
+      : requireOneOf("plannedSides", o.plannedSides, ["two", "one"] as const);
   const coefficient = coefficientFor(alpha, coefficientSides, distribution, df);
   const achieved = coefficient * se;
   const adjusted = achieved > planned ? achieved + tm * (1 - achieved / planned) : null;
@@ -92,8 +103,17 @@ export function classicalDecision(o: {
   const underBy = lowerLimit - bookValue;
   const beyond = overBy > 0 ? "upper" : underBy > 0 ? "lower" : null;
   return {
-    coefficient, distribution, degreesOfFreedom: df, coefficientSides,
-    achievedAllowance: achieved, adjustedAllowance: adjusted, allowance, lowerLimit, upperLimit,
-    supported: beyond === null, beyondLimit: beyond === "upper" ? overBy : beyond === "lower" ? underBy : 0, beyond,
+    coefficient,
+    distribution,
+    degreesOfFreedom: df,
+    coefficientSides,
+    achievedAllowance: achieved,
+    adjustedAllowance: adjusted,
+    allowance,
+    lowerLimit,
+    upperLimit,
+    supported: beyond === null,
+    beyondLimit: beyond === "upper" ? overBy : beyond === "lower" ? underBy : 0,
+    beyond,
   };
 }

@@ -80,7 +80,11 @@ export function pairedMoments(x: ArrayLike<number>, y: ArrayLike<number>): Paire
   const meanX = sumX / n;
   const meanY = sumY / n;
   const meanD = (sumY - sumX) / n;
-  let sxx = 0, syy = 0, sdd = 0, sxy = 0, sxd = 0;
+  let sxx = 0,
+    syy = 0,
+    sdd = 0,
+    sxy = 0,
+    sxd = 0;
   for (let i = 0; i < n; i++) {
     const dx = x[i]! - meanX;
     const dy = y[i]! - meanY;
@@ -93,8 +97,17 @@ export function pairedMoments(x: ArrayLike<number>, y: ArrayLike<number>): Paire
   }
   const df = n - 1;
   return {
-    n, sumX, sumY, meanX, meanY, meanD,
-    varX: sxx / df, varY: syy / df, varD: sdd / df, covXY: sxy / df, covXD: sxd / df,
+    n,
+    sumX,
+    sumY,
+    meanX,
+    meanY,
+    meanD,
+    varX: sxx / df,
+    varY: syy / df,
+    varD: sdd / df,
+    covXY: sxy / df,
+    covXD: sxd / df,
     nonZeroDifferences: nonZero,
   };
 }

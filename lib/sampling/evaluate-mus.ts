@@ -53,7 +53,14 @@ function side(taintings: number[], topCents: number, interval: number, factors: 
   const basicPrecision = factors[0]! * interval;
   const projected = sumT * interval + topCents / 100;
   const incrementalAllowance = incremental * interval;
-  return { basicPrecision, projected, incrementalAllowance, upperLimit: basicPrecision + projected + incrementalAllowance, taintings: sorted, topStratumMisstatement: topCents / 100 };
+  return {
+    basicPrecision,
+    projected,
+    incrementalAllowance,
+    upperLimit: basicPrecision + projected + incrementalAllowance,
+    taintings: sorted,
+    topStratumMisstatement: topCents / 100,
+  };
 }
 
 /**
@@ -89,7 +96,8 @@ export function evaluateMus(o: {
   const interval = requirePositive("interval", o.interval);
   toCents("interval", interval);
   const confidence = requireOpenFraction("confidence", o.confidence);
-  if (confidence < MUS_MIN_CONFIDENCE) throw new EngineInputError("confidence", `${MUS_CONFIDENCE_MESSAGE} (got ${confidence})`);
+  if (confidence < MUS_MIN_CONFIDENCE)
+    throw new EngineInputError("confidence", `${MUS_CONFIDENCE_MESSAGE} (got ${confidence})`);
   const factorMode = o.factors === undefined ? "exact" : requireOneOf("factors", o.factors, FACTOR_MODES);
   const sample = sampleToCents("sample", o.sample, 0);
   const top = sampleToCents("topStratum", o.topStratum ?? [], 0);
@@ -99,12 +107,20 @@ export function evaluateMus(o: {
   const under: number[] = [];
   for (let i = 0; i < sample.book.length; i++) {
     const book = sample.book[i]!;
-    if (book <= 0) throw new EngineInputError(`sample[${i}].bookValue`, `sample[${i}].bookValue must be greater than zero: PPS hits have positive book values`);
-    if (book >= interval * 100) warnings.push(`sample[${i}] has a book value at or above the interval: it belongs in the top stratum.`);
+    if (book <= 0)
+      throw new EngineInputError(
+        `sample[${i}].bookValue`,
+        `sample[${i}].bookValue must be greater than zero: PPS hits have positive book values`,
+      );
+    if (book >= interval * 100)
+      warnings.push(`sample[${i}] has a book value at or above the interval: it belongs in the top stratum.`);
     const t = (book - sample.audited[i]!) / book;
     if (t > 0) over.push(t);
     if (t < 0) under.push(-t);
-    if (Math.abs(t) > 1) warnings.push(`sample[${i}] has a tainting of ${formatFactor(Math.abs(t))} (above 1): kept uncapped, but the Stringer bound assumes taintings between 0 and 1.`);
+    if (Math.abs(t) > 1)
+      warnings.push(
+        `sample[${i}] has a tainting of ${formatFactor(Math.abs(t))} (above 1): kept uncapped, but the Stringer bound assumes taintings between 0 and 1.`,
+      );
   }
   let topOver = 0;
   let topUnder = 0;

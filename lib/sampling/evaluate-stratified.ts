@@ -2,10 +2,26 @@
  * Stratified classical variables evaluation: variances add across independent strata.
  */
 import { pairedMoments, type PairedMoments } from "./descriptive";
-import { boundsFrom, distributionOption, fewMisstatementsWarning, MIN_MISSTATEMENTS, SMALL_SAMPLE, smallSampleWarning, zFor } from "./evaluate-variables";
+import {
+  boundsFrom,
+  distributionOption,
+  fewMisstatementsWarning,
+  MIN_MISSTATEMENTS,
+  SMALL_SAMPLE,
+  smallSampleWarning,
+  zFor,
+} from "./evaluate-variables";
 import { toCents } from "./money";
 import { sampleToCents } from "./sample-input";
-import { SIDES, STRATIFIED_ESTIMATORS, type ClassicalDistribution, type SampledItem, type Sides, type StratifiedEstimator, type VariablesEvaluation } from "./types";
+import {
+  SIDES,
+  STRATIFIED_ESTIMATORS,
+  type ClassicalDistribution,
+  type SampledItem,
+  type Sides,
+  type StratifiedEstimator,
+  type VariablesEvaluation,
+} from "./types";
 import { estimateTotal } from "./variables-core";
 import { requireArray, requireInteger, requireObject, requireOneOf, requireOpenFraction } from "./validate";
 import { EngineInputError } from "./errors";
@@ -27,7 +43,11 @@ export interface StratumInput {
   sample: SampledItem[];
 }
 
-interface ParsedStratum { N: number; bookCents: number; m: PairedMoments }
+interface ParsedStratum {
+  N: number;
+  bookCents: number;
+  m: PairedMoments;
+}
 
 function parseStrata(value: unknown): ParsedStratum[] {
   const strata = requireArray<StratumInput>("strata", value);
@@ -42,14 +62,21 @@ function parseStrata(value: unknown): ParsedStratum[] {
 }
 
 /** Combined ratio (Cochran 1977 §6.11): R_c = Ŷ_st / X̂_st, e = y − R_c x within each stratum. */
-function combinedRatio(strata: ParsedStratum[], totalBook: number): { estimate: number; variance: number; perStratum: { estimate: number; variance: number }[] } {
+function combinedRatio(
+  strata: ParsedStratum[],
+  totalBook: number,
+): { estimate: number; variance: number; perStratum: { estimate: number; variance: number }[] } {
   let yst = 0;
   let xst = 0;
   for (const { N, m } of strata) {
     yst += N * m.meanY;
     xst += N * m.meanX;
   }
-  if (xst === 0) throw new EngineInputError("strata", "strata sample bookValue totals must not be zero for the combined ratio estimator");
+  if (xst === 0)
+    throw new EngineInputError(
+      "strata",
+      "strata sample bookValue totals must not be zero for the combined ratio estimator",
+    );
   const rc = yst / xst;
   const q = 1 - rc;
   const perStratum = strata.map(({ N, m, bookCents }) => {
@@ -94,7 +121,8 @@ export function evaluateStratified(o: {
   const sides = requireOneOf("sides", o.sides, SIDES);
   const distribution = distributionOption(o.distribution);
   const totalBook = strata.reduce((sum, s) => sum + s.bookCents, 0);
-  if (!Number.isSafeInteger(totalBook)) throw new EngineInputError("strata", "strata populationBookValue total exceeds the exact range in cents");
+  if (!Number.isSafeInteger(totalBook))
+    throw new EngineInputError("strata", "strata populationBookValue total exceeds the exact range in cents");
 
   let pooled: { estimate: number; variance: number; perStratum: { estimate: number; variance: number }[] };
   if (estimator === "combined-ratio") {
@@ -102,7 +130,11 @@ export function evaluateStratified(o: {
   } else {
     const core = estimator === "separate-ratio" ? "ratio" : estimator;
     const perStratum = strata.map((s, h) => {
-      if (core === "ratio" && s.m.sumX === 0) throw new EngineInputError(`strata[${h}].sample`, `strata[${h}].sample bookValue total must not be zero for the ratio estimator`);
+      if (core === "ratio" && s.m.sumX === 0)
+        throw new EngineInputError(
+          `strata[${h}].sample`,
+          `strata[${h}].sample bookValue total must not be zero for the ratio estimator`,
+        );
       return estimateTotal(core, s.m, s.N, s.bookCents);
     });
     const estimate = perStratum.reduce((sum, s) => sum + s.estimate, 0);
@@ -110,7 +142,9 @@ export function evaluateStratified(o: {
     pooled = { estimate, variance, perStratum };
   }
 
-  const degreesOfFreedom = satterthwaite(pooled.perStratum.map((s, h) => ({ variance: s.variance, n: strata[h]!.m.n })));
+  const degreesOfFreedom = satterthwaite(
+    pooled.perStratum.map((s, h) => ({ variance: s.variance, n: strata[h]!.m.n })),
+  );
   const z = zFor(confidence, sides, distribution === "t" ? degreesOfFreedom : null);
   const result = boundsFrom(pooled.estimate, pooled.variance, totalBook, z, sides);
   const misstatements = strata.reduce((sum, s) => sum + s.m.nonZeroDifferences, 0);
@@ -118,12 +152,18 @@ export function evaluateStratified(o: {
   const n = strata.reduce((sum, s) => sum + s.m.n, 0);
   if (n < SMALL_SAMPLE) warnings.push(smallSampleWarning(n, distribution));
   strata.forEach((s, h) => {
-    if (s.m.n < SMALL_STRATUM) warnings.push(`Stratum ${h + 1} has only ${s.m.n} sampled items: below ${SMALL_STRATUM} per stratum the normal approximation is weak (common practice).`);
+    if (s.m.n < SMALL_STRATUM)
+      warnings.push(
+        `Stratum ${h + 1} has only ${s.m.n} sampled items: below ${SMALL_STRATUM} per stratum the normal approximation is weak (common practice).`,
+      );
   });
-  if (estimator !== "mean-per-unit" && misstatements < MIN_MISSTATEMENTS) warnings.push(fewMisstatementsWarning(estimator, misstatements));
+  if (estimator !== "mean-per-unit" && misstatements < MIN_MISSTATEMENTS)
+    warnings.push(fewMisstatementsWarning(estimator, misstatements));
   const smallStrata = strata.flatMap((s, h) => (s.m.n < MIN_MISSTATEMENTS ? [h + 1] : []));
   if (estimator === "separate-ratio" && smallStrata.length > 0) {
-    warnings.push(`The separate ratio estimator's bias adds up across strata and stratum ${smallStrata.join(", ")} ha${smallStrata.length === 1 ? "s" : "ve"} fewer than ${MIN_MISSTATEMENTS} sampled items: consider the combined ratio estimator (Cochran 1977 §6.11).`);
+    warnings.push(
+      `The separate ratio estimator's bias adds up across strata and stratum ${smallStrata.join(", ")} ha${smallStrata.length === 1 ? "s" : "ve"} fewer than ${MIN_MISSTATEMENTS} sampled items: consider the combined ratio estimator (Cochran 1977 §6.11).`,
+    );
   }
   return {
     ...result,
@@ -132,6 +172,9 @@ export function evaluateStratified(o: {
     zValue: z,
     distribution,
     degreesOfFreedom,
-    strata: pooled.perStratum.map((s) => ({ estimatedAuditedValue: s.estimate / 100, standardError: Math.sqrt(s.variance) / 100 })),
+    strata: pooled.perStratum.map((s) => ({
+      estimatedAuditedValue: s.estimate / 100,
+      standardError: Math.sqrt(s.variance) / 100,
+    })),
   };
 }

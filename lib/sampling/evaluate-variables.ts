@@ -6,7 +6,16 @@ import { pairedMoments } from "./descriptive";
 import { toCents } from "./money";
 import { normalQuantile, studentQuantile } from "./quantiles";
 import { sampleToCents } from "./sample-input";
-import { CLASSICAL_DISTRIBUTIONS, ESTIMATORS, SIDES, type ClassicalDistribution, type Estimator, type SampledItem, type Sides, type VariablesEvaluation } from "./types";
+import {
+  CLASSICAL_DISTRIBUTIONS,
+  ESTIMATORS,
+  SIDES,
+  type ClassicalDistribution,
+  type Estimator,
+  type SampledItem,
+  type Sides,
+  type VariablesEvaluation,
+} from "./types";
 import { estimateTotal } from "./variables-core";
 import { requireInteger, requireObject, requireOneOf, requireOpenFraction } from "./validate";
 import { EngineInputError } from "./errors";
@@ -37,7 +46,11 @@ export function distributionOption(value: unknown): ClassicalDistribution {
 
 /** Assembles bounds, allowance and projected misstatement from an estimate in cents. */
 export function boundsFrom(
-  estimateCents: number, varianceCents: number, bookCents: number, z: number, sides: Sides,
+  estimateCents: number,
+  varianceCents: number,
+  bookCents: number,
+  z: number,
+  sides: Sides,
 ): Omit<VariablesEvaluation, "misstatementsInSample" | "warnings" | "zValue" | "distribution" | "degreesOfFreedom"> {
   const standardError = Math.sqrt(varianceCents) / 100;
   const estimate = estimateCents / 100;
@@ -97,8 +110,10 @@ export function evaluateVariables(o: {
   const sides = requireOneOf("sides", o.sides, SIDES);
   const distribution = distributionOption(o.distribution);
   const m = pairedMoments(book, audited);
-  if (estimator === "ratio" && m.sumX === 0) throw new EngineInputError("sample", "sample bookValue total must not be zero for the ratio estimator");
-  if (estimator === "regression" && !(m.varX > 0)) throw new EngineInputError("sample", "sample bookValue must vary for the regression estimator");
+  if (estimator === "ratio" && m.sumX === 0)
+    throw new EngineInputError("sample", "sample bookValue total must not be zero for the ratio estimator");
+  if (estimator === "regression" && !(m.varX > 0))
+    throw new EngineInputError("sample", "sample bookValue must vary for the regression estimator");
 
   const core = estimateTotal(estimator, m, populationSize, bookCents);
   const degreesOfFreedom = m.n - (estimator === "regression" ? 2 : 1);
@@ -111,7 +126,17 @@ export function evaluateVariables(o: {
   }
   const bias = core.ratioBias / 100;
   if (estimator === "ratio" && Math.abs(bias) > MATERIAL_BIAS_SHARE * result.allowance) {
-    warnings.push(`The ratio estimator's estimated bias (${formatMoney(bias)}) exceeds ${formatPercent(MATERIAL_BIAS_SHARE)} of the allowance (${formatMoney(result.allowance)}): enlarge the sample or use the difference estimator.`);
+    warnings.push(
+      `The ratio estimator's estimated bias (${formatMoney(bias)}) exceeds ${formatPercent(MATERIAL_BIAS_SHARE)} of the allowance (${formatMoney(result.allowance)}): enlarge the sample or use the difference estimator.`,
+    );
   }
-  return { ...result, misstatementsInSample: m.nonZeroDifferences, warnings, zValue: z, distribution, degreesOfFreedom, estimatedRatioBias: bias };
+  return {
+    ...result,
+    misstatementsInSample: m.nonZeroDifferences,
+    warnings,
+    zValue: z,
+    distribution,
+    degreesOfFreedom,
+    estimatedRatioBias: bias,
+  };
 }

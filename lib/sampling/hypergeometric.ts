@@ -51,7 +51,13 @@ function logFirstTerm(N: number, M: number, n: number, lo: number): number {
  * Smallest n with P(X <= k(n) | N, M, n) <= risk, searching upward from `start` (the criterion is
  * not monotone when k grows with n), or null when no n up to N qualifies.
  */
-export function smallestHypergeometricSize(o: { N: number; M: number; risk: number; allowed: (n: number) => number; start?: number }): { n: number; k: number } | null {
+export function smallestHypergeometricSize(o: {
+  N: number;
+  M: number;
+  risk: number;
+  allowed: (n: number) => number;
+  start?: number;
+}): { n: number; k: number } | null {
   for (let n = Math.max(1, o.start ?? 1); n <= o.N; n++) {
     const k = o.allowed(n);
     if (k >= n) continue;

@@ -52,7 +52,8 @@ export function toCentsFast(value: unknown, fieldOf: (index: number) => string, 
     const scaled = value * 100;
     const cents = Math.round(scaled);
     const diff = scaled - cents;
-    if (diff <= 1e-6 && diff >= -1e-6 && cents <= Number.MAX_SAFE_INTEGER && cents >= -Number.MAX_SAFE_INTEGER) return cents;
+    if (diff <= 1e-6 && diff >= -1e-6 && cents <= Number.MAX_SAFE_INTEGER && cents >= -Number.MAX_SAFE_INTEGER)
+      return cents;
   }
   return toCents(fieldOf(index), value);
 }

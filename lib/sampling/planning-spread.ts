@@ -33,22 +33,38 @@ export function planningSpread(o: { estimator: Estimator; sample: SampledItem[] 
   const sample = requireArray<SampledItem>("sample", o.sample);
   const n = sample.length;
   const min = estimator === "regression" ? 3 : 2;
-  if (n < min) throw new EngineInputError("sample", `sample must hold at least ${min} items with results for the ${estimator} estimator's spread (got ${n})`);
+  if (n < min)
+    throw new EngineInputError(
+      "sample",
+      `sample must hold at least ${min} items with results for the ${estimator} estimator's spread (got ${n})`,
+    );
   const x = sample.map((s, i) => toCents(`sample[${i}].bookValue`, s.bookValue) / 100);
   const y = sample.map((s, i) => toCents(`sample[${i}].auditedValue`, s.auditedValue) / 100);
   const mean = (v: number[]) => v.reduce((a, b) => a + b, 0) / v.length;
-  const sumSq = (v: number[]) => { const m = mean(v); return v.reduce((a, b) => a + (b - m) ** 2, 0); };
-  if (estimator === "mean-per-unit") return { standardDeviation: Math.sqrt(sumSq(y) / (n - 1)), symbol: "s_y", items: n };
-  if (estimator === "difference") return { standardDeviation: Math.sqrt(sumSq(y.map((v, i) => v - x[i]!)) / (n - 1)), symbol: "s_d", items: n };
+  const sumSq = (v: number[]) => {
+    const m = mean(v);
+    return v.reduce((a, b) => a + (b - m) ** 2, 0);
+  };
+  if (estimator === "mean-per-unit")
+    return { standardDeviation: Math.sqrt(sumSq(y) / (n - 1)), symbol: "s_y", items: n };
+  if (estimator === "difference")
+    return { standardDeviation: Math.sqrt(sumSq(y.map((v, i) => v - x[i]!)) / (n - 1)), symbol: "s_d", items: n };
   if (estimator === "ratio") {
     const bookTotal = x.reduce((a, b) => a + b, 0);
-    if (bookTotal === 0) throw new EngineInputError("sample", "sample book total is zero: the ratio estimator is not defined for it");
+    if (bookTotal === 0)
+      throw new EngineInputError("sample", "sample book total is zero: the ratio estimator is not defined for it");
     const r = y.reduce((a, b) => a + b, 0) / bookTotal;
-    return { standardDeviation: Math.sqrt(y.reduce((a, v, i) => a + (v - r * x[i]!) ** 2, 0) / (n - 1)), symbol: "s_e", items: n };
+    return {
+      standardDeviation: Math.sqrt(y.reduce((a, v, i) => a + (v - r * x[i]!) ** 2, 0) / (n - 1)),
+      symbol: "s_e",
+      items: n,
+    };
   }
-  const xBar = mean(x), yBar = mean(y);
+  const xBar = mean(x),
+    yBar = mean(y);
   const sxx = sumSq(x);
-  if (sxx === 0) throw new EngineInputError("sample", "sample book values have no spread: the regression slope is not defined");
+  if (sxx === 0)
+    throw new EngineInputError("sample", "sample book values have no spread: the regression slope is not defined");
   const b = x.reduce((a, v, i) => a + (v - xBar) * (y[i]! - yBar), 0) / sxx;
   const residuals = y.reduce((a, v, i) => a + (v - yBar - b * (x[i]! - xBar)) ** 2, 0);
   return { standardDeviation: Math.sqrt(residuals / (n - 2)), symbol: "s_e", items: n };

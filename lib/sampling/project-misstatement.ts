@@ -96,6 +96,7 @@ function divideRounded(a: bigint, b: bigint): number {
     absB = b < 0n ? -b : b;
   const q = (2n * absA + absB) / (2n * absB);
   const result = Number(negative ? -q : q);
-  if (!Number.isSafeInteger(result)) throw new EngineInputError("remainderBookValue", "projectedMisstatement exceeds the exact range in cents");
+  if (!Number.isSafeInteger(result))
+    throw new EngineInputError("remainderBookValue", "projectedMisstatement exceeds the exact range in cents");
   return result;
 }

@@ -13,7 +13,12 @@ import { requireArray, requireInteger, requireObject, requirePositive } from "./
 import { EngineInputError } from "./errors";
 
 export type CorrectedRatioEstimator = "hartley-ross" | "jackknife-ratio" | "beale-ratio" | "tin-ratio";
-export const CORRECTED_RATIO_ESTIMATORS: readonly CorrectedRatioEstimator[] = ["hartley-ross", "jackknife-ratio", "beale-ratio", "tin-ratio"];
+export const CORRECTED_RATIO_ESTIMATORS: readonly CorrectedRatioEstimator[] = [
+  "hartley-ross",
+  "jackknife-ratio",
+  "beale-ratio",
+  "tin-ratio",
+];
 
 /** Per-item quantities the moments do not carry: r̄ = mean of y_i/x_i and the leave-one-out ratios. */
 export interface RatioItemStats {
@@ -26,19 +31,33 @@ export interface RatioItemStats {
 }
 
 /** r̄ and the leave-one-out ratios over `x[idx[j]]`, j < n (the sample positions in a frame). */
-export function ratioItemStats(x: ArrayLike<number>, y: ArrayLike<number>, idx: ArrayLike<number>, n: number, sumX: number, sumY: number): RatioItemStats {
+export function ratioItemStats(
+  x: ArrayLike<number>,
+  y: ArrayLike<number>,
+  idx: ArrayLike<number>,
+  n: number,
+  sumX: number,
+  sumY: number,
+): RatioItemStats {
   const R = sumY / sumX;
-  let ratios = 0, shifted = 0, shiftedSquares = 0;
+  let ratios = 0,
+    shifted = 0,
+    shiftedSquares = 0;
   for (let j = 0; j < n; j++) {
     const i = idx[j]!;
-    const xi = x[i]!, yi = y[i]!;
+    const xi = x[i]!,
+      yi = y[i]!;
     ratios += yi / xi;
     const loo = (sumY - yi) / (sumX - xi) - R; // shifted by R̂ to keep the squares well conditioned
     shifted += loo;
     shiftedSquares += loo * loo;
   }
   const jackknifeShift = shifted / n;
-  return { meanRatio: ratios / n, jackknifeMean: R + jackknifeShift, jackknifeSquares: Math.max(0, shiftedSquares - n * jackknifeShift * jackknifeShift) };
+  return {
+    meanRatio: ratios / n,
+    jackknifeMean: R + jackknifeShift,
+    jackknifeSquares: Math.max(0, shiftedSquares - n * jackknifeShift * jackknifeShift),
+  };
 }
 
 /**
@@ -53,7 +72,13 @@ export function ratioItemStats(x: ArrayLike<number>, y: ArrayLike<number>, idx: 
  * - Tin (Cochran §6.9): R̂_T = R̂(1 + θ(c_xy − c_xx)).
  *   Beale and Tin use the ratio estimator's variance (Cochran eq. 6.9): they differ from it by O(1/n²).
  */
-export function correctedRatioTotal(kind: CorrectedRatioEstimator, m: PairedMoments, stats: RatioItemStats, N: number, bookCents: number): { estimate: number; variance: number } {
+export function correctedRatioTotal(
+  kind: CorrectedRatioEstimator,
+  m: PairedMoments,
+  stats: RatioItemStats,
+  N: number,
+  bookCents: number,
+): { estimate: number; variance: number } {
   const n = m.n;
   const f = n / N;
   const R = m.sumY / m.sumX;
@@ -66,14 +91,18 @@ export function correctedRatioTotal(kind: CorrectedRatioEstimator, m: PairedMome
     }
     case "jackknife-ratio": {
       const rq = n * R - (n - 1) * stats.jackknifeMean;
-      return { estimate: rq * bookCents, variance: bookCents * bookCents * (1 - f) * ((n - 1) / n) * stats.jackknifeSquares };
+      return {
+        estimate: rq * bookCents,
+        variance: bookCents * bookCents * (1 - f) * ((n - 1) / n) * stats.jackknifeSquares,
+      };
     }
     case "beale-ratio":
     case "tin-ratio": {
       const theta = (1 - f) / n;
       const cxy = m.covXY / (m.meanX * m.meanY);
       const cxx = m.varX / (m.meanX * m.meanX);
-      const corrected = kind === "beale-ratio" ? (R * (1 + theta * cxy)) / (1 + theta * cxx) : R * (1 + theta * (cxy - cxx));
+      const corrected =
+        kind === "beale-ratio" ? (R * (1 + theta * cxy)) / (1 + theta * cxx) : R * (1 + theta * (cxy - cxx));
       return { estimate: corrected * bookCents, variance: estimateTotal("ratio", m, N, bookCents).variance };
     }
   }
@@ -90,20 +119,32 @@ export function correctedRatioTotal(kind: CorrectedRatioEstimator, m: PairedMome
  * correctedRatioEstimates({ sample, populationSize: 10, populationBookValue: 1000 })["hartley-ross"]
  * // → { estimate: …, standardError: … }
  */
-export function correctedRatioEstimates(o: { sample: SampledItem[]; populationSize: number; populationBookValue: number }): Record<CorrectedRatioEstimator | "ratio", { estimate: number; standardError: number } | null> {
+export function correctedRatioEstimates(o: {
+  sample: SampledItem[];
+  populationSize: number;
+  populationBookValue: number;
+}): Record<CorrectedRatioEstimator | "ratio", { estimate: number; standardError: number } | null> {
   requireObject("options", o);
   const sample = requireArray<SampledItem>("sample", o.sample);
-  if (sample.length < 2) throw new EngineInputError("sample", `sample must hold at least 2 items (got ${sample.length})`);
+  if (sample.length < 2)
+    throw new EngineInputError("sample", `sample must hold at least 2 items (got ${sample.length})`);
   const N = requireInteger("populationSize", o.populationSize, sample.length, 2 ** 31 - 1);
   const X = toCents("populationBookValue", requirePositive("populationBookValue", o.populationBookValue));
   const x = Float64Array.from(sample, (s, i) => toCents(`sample[${i}].bookValue`, s.bookValue));
   const y = Float64Array.from(sample, (s, i) => toCents(`sample[${i}].auditedValue`, s.auditedValue));
   const m = pairedMoments(x, y);
-  const out = { ratio: null, "hartley-ross": null, "jackknife-ratio": null, "beale-ratio": null, "tin-ratio": null } as Record<CorrectedRatioEstimator | "ratio", { estimate: number; standardError: number } | null>;
+  const out = {
+    ratio: null,
+    "hartley-ross": null,
+    "jackknife-ratio": null,
+    "beale-ratio": null,
+    "tin-ratio": null,
+  } as Record<CorrectedRatioEstimator | "ratio", { estimate: number; standardError: number } | null>;
   if (m.sumX === 0) return out;
   const idx = Int32Array.from({ length: sample.length }, (_, i) => i);
   const stats = ratioItemStats(x, y, idx, sample.length, m.sumX, m.sumY);
-  const inUnits = (r: { estimate: number; variance: number }) => (Number.isFinite(r.estimate) ? { estimate: r.estimate / 100, standardError: Math.sqrt(r.variance) / 100 } : null);
+  const inUnits = (r: { estimate: number; variance: number }) =>
+    Number.isFinite(r.estimate) ? { estimate: r.estimate / 100, standardError: Math.sqrt(r.variance) / 100 } : null;
   out.ratio = inUnits(estimateTotal("ratio", m, N, X));
   for (const kind of CORRECTED_RATIO_ESTIMATORS) out[kind] = inUnits(correctedRatioTotal(kind, m, stats, N, X));
   return out;

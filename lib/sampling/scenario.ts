@@ -61,7 +61,11 @@ function patternTainting(pattern: TaintingPattern, u: () => number): number {
  *   scenario: { kind: "pattern", misstatedShare: 1, tainting: "whole-amount", overstatementShare: 1 } })
  * // → [0, 0]
  */
-export function assumeAuditedValues(o: { bookValues: number[]; scenario: MisstatementScenario; seed: number }): number[] {
+export function assumeAuditedValues(o: {
+  bookValues: number[];
+  scenario: MisstatementScenario;
+  seed: number;
+}): number[] {
   requireObject("options", o);
   const bookValues = requireArray<number>("bookValues", o.bookValues);
   const scenario = requireObject("scenario", o.scenario) as MisstatementScenario;
@@ -80,11 +84,19 @@ export function assumeAuditedValues(o: { bookValues: number[]; scenario: Misstat
       return u() < over ? t : -t;
     };
   } else {
-    const taintings = requireArray<number>("scenario.taintings", (scenario as Extract<MisstatementScenario, { kind: "observed" }>).taintings);
+    const taintings = requireArray<number>(
+      "scenario.taintings",
+      (scenario as Extract<MisstatementScenario, { kind: "observed" }>).taintings,
+    );
     taintings.forEach((t, i) => {
-      if (typeof t !== "number" || !Number.isFinite(t)) throw new EngineInputError(`scenario.taintings[${i}]`, `scenario.taintings[${i}] must be a finite number`);
+      if (typeof t !== "number" || !Number.isFinite(t))
+        throw new EngineInputError(`scenario.taintings[${i}]`, `scenario.taintings[${i}] must be a finite number`);
     });
-    if (share > 0 && taintings.length === 0) throw new EngineInputError("scenario.taintings", "scenario.taintings must hold at least one tainting when misstatedShare is above 0");
+    if (share > 0 && taintings.length === 0)
+      throw new EngineInputError(
+        "scenario.taintings",
+        "scenario.taintings must hold at least one tainting when misstatedShare is above 0",
+      );
     draw = () => taintings[Math.floor(u() * taintings.length)]!;
   }
 
@@ -98,8 +110,13 @@ export function assumeAuditedValues(o: { bookValues: number[]; scenario: Misstat
 }
 
 /** Signed taintings (book − audited)/book of the misstated items among recorded results. */
-export function observedTaintings(items: { bookValue: number; auditedValue: number }[]): { taintings: number[]; misstatedShare: number } {
+export function observedTaintings(items: { bookValue: number; auditedValue: number }[]): {
+  taintings: number[];
+  misstatedShare: number;
+} {
   const withBook = items.filter((it) => it.bookValue !== 0);
-  const taintings = withBook.filter((it) => it.auditedValue !== it.bookValue).map((it) => (it.bookValue - it.auditedValue) / it.bookValue);
+  const taintings = withBook
+    .filter((it) => it.auditedValue !== it.bookValue)
+    .map((it) => (it.bookValue - it.auditedValue) / it.bookValue);
   return { taintings, misstatedShare: withBook.length === 0 ? 0 : taintings.length / withBook.length };
 }

@@ -73,17 +73,27 @@ export function selectPps(o: { bookValues: number[]; interval: number; seed: num
       continue;
     }
     cumulative += cents;
-    if (!Number.isSafeInteger(cumulative)) throw new EngineInputError("bookValues", "bookValues total exceeds the exact range in cents");
+    if (!Number.isSafeInteger(cumulative))
+      throw new EngineInputError("bookValues", "bookValues total exceeds the exact range in cents");
     if (point > cumulative) continue;
     const hitPoints: number[] = [];
     while (point <= cumulative) {
       hitPoints.push(point / 100);
       point += intervalCents;
       if (++pointCount > MAX_SELECTION_POINTS) {
-        throw new EngineInputError("interval", `interval (${o.interval}) is too small for this population: more than ${MAX_SELECTION_POINTS} selection points`);
+        throw new EngineInputError(
+          "interval",
+          `interval (${o.interval}) is too small for this population: more than ${MAX_SELECTION_POINTS} selection points`,
+        );
       }
     }
     hits.push({ index: i, hitPoints });
   }
-  return { hits, excluded, frameTotal: cumulative / 100, intervalUsed: intervalCents / 100, randomStart: startCents / 100 };
+  return {
+    hits,
+    excluded,
+    frameTotal: cumulative / 100,
+    intervalUsed: intervalCents / 100,
+    randomStart: startCents / 100,
+  };
 }

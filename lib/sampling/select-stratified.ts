@@ -30,9 +30,14 @@ export function selectStratifiedRandom(o: {
     requireObject(`strata[${i}]`, stratum);
     const stratumSeed = (seed + i + 1) % 4294967296;
     try {
-      return selectRandom({ populationSize: stratum.populationSize, sampleSize: stratum.sampleSize, seed: stratumSeed });
+      return selectRandom({
+        populationSize: stratum.populationSize,
+        sampleSize: stratum.sampleSize,
+        seed: stratumSeed,
+      });
     } catch (error) {
-      if (error instanceof EngineInputError) throw new EngineInputError(`strata[${i}].${error.field}`, `strata[${i}].${error.message}`);
+      if (error instanceof EngineInputError)
+        throw new EngineInputError(`strata[${i}].${error.field}`, `strata[${i}].${error.message}`);
       if (error instanceof RangeError) throw new RangeError(`strata[${i}].${error.message}`);
       if (error instanceof TypeError) throw new TypeError(`strata[${i}].${error.message}`);
       throw error;

@@ -7,7 +7,14 @@ import { createRng } from "./rng";
 import { PROGRESS_EVERY, summariseTrials, type EstimatorPerformance } from "./simulate";
 import { SIDES, type FactorMode, FACTOR_MODES, type SampledItem, type Sides } from "./types";
 import { toCentsFast } from "./money";
-import { requireArray, requireInteger, requireObject, requireOneOf, requireOpenFraction, requireSeed } from "./validate";
+import {
+  requireArray,
+  requireInteger,
+  requireObject,
+  requireOneOf,
+  requireOpenFraction,
+  requireSeed,
+} from "./validate";
 import { EngineInputError } from "./errors";
 
 export interface StringerPerformance extends EstimatorPerformance {
@@ -63,12 +70,19 @@ function sortDescending(values: Float64Array, count: number): void {
  *   outside 1..positive items, trials outside 1..1,000,000, unknown sides or factors mode.
  */
 export function simulateStringer(o: {
-  population: SampledItem[]; sampleSize: number; trials: number; seed: number; confidence: number;
-  sides?: Sides; factors?: FactorMode; onProgress?: (trialsDone: number) => void;
+  population: SampledItem[];
+  sampleSize: number;
+  trials: number;
+  seed: number;
+  confidence: number;
+  sides?: Sides;
+  factors?: FactorMode;
+  onProgress?: (trialsDone: number) => void;
 }): StringerPerformance {
   requireObject("options", o);
   const population = requireArray<SampledItem>("population", o.population);
-  if (population.length < 2) throw new EngineInputError("population", `population must hold at least 2 items (got ${population.length})`);
+  if (population.length < 2)
+    throw new EngineInputError("population", `population must hold at least 2 items (got ${population.length})`);
   const confidence = requireOpenFraction("confidence", o.confidence);
   const sides = o.sides === undefined ? "lower" : requireOneOf("sides", o.sides, SIDES);
   const factorMode = o.factors === undefined ? "exact" : requireOneOf("factors", o.factors, FACTOR_MODES);
@@ -88,10 +102,19 @@ export function simulateStringer(o: {
     y[i] = toCentsFast(item.auditedValue, (j) => `population[${j}].auditedValue`, i);
     bookCents += x[i]!;
     truthCents += y[i]!;
-    if (x[i]! > 0) { frameIndex.push(i); frameCents += x[i]!; frameMisstatement += x[i]! - y[i]!; }
+    if (x[i]! > 0) {
+      frameIndex.push(i);
+      frameCents += x[i]!;
+      frameMisstatement += x[i]! - y[i]!;
+    }
   }
-  if (!Number.isSafeInteger(bookCents) || !Number.isSafeInteger(truthCents) || !Number.isSafeInteger(frameCents)) throw new EngineInputError("population", "population totals exceed the exact range in cents");
-  if (frameIndex.length === 0) throw new EngineInputError("population", "population must hold at least one item with a positive book value for monetary-unit sampling");
+  if (!Number.isSafeInteger(bookCents) || !Number.isSafeInteger(truthCents) || !Number.isSafeInteger(frameCents))
+    throw new EngineInputError("population", "population totals exceed the exact range in cents");
+  if (frameIndex.length === 0)
+    throw new EngineInputError(
+      "population",
+      "population must hold at least one item with a positive book value for monetary-unit sampling",
+    );
   const sampleSize = requireInteger("sampleSize", o.sampleSize, 1, frameIndex.length);
   const J = Math.floor(frameCents / sampleSize);
   if (J < 1) throw new EngineInputError("sampleSize", `sampleSize (${sampleSize}) gives an interval below one cent`);
@@ -112,7 +135,8 @@ export function simulateStringer(o: {
       top[f] = 1;
       topStratumItems++;
       const d = x[i]! - y[i]!;
-      if (d > 0) topOver += d; else topUnder -= d;
+      if (d > 0) topOver += d;
+      else topUnder -= d;
     }
   });
 
@@ -126,14 +150,22 @@ export function simulateStringer(o: {
   let allowanceSum = 0;
   for (let t = 0; t < trials; t++) {
     let point = 1 + Math.floor(rng.nextDouble() * J);
-    let nOver = 0, nUnder = 0, sumOver = 0, sumUnder = 0;
+    let nOver = 0,
+      nUnder = 0,
+      sumOver = 0,
+      sumUnder = 0;
     let from = 0;
     while (point <= frameCents) {
       const f = findHit(cumulative, point, from);
       if (!top[f]) {
         const tk = taint[f]!;
-        if (tk > 0) { over[nOver++] = tk; sumOver += tk; }
-        else if (tk < 0) { under[nUnder++] = -tk; sumUnder -= tk; }
+        if (tk > 0) {
+          over[nOver++] = tk;
+          sumOver += tk;
+        } else if (tk < 0) {
+          under[nUnder++] = -tk;
+          sumUnder -= tk;
+        }
       }
       from = f;
       point += J;
@@ -148,15 +180,22 @@ export function simulateStringer(o: {
     estimates[t] = bookCents - mostLikely - outsideFrameMisstatement;
     const overHolds = frameMisstatement <= netOverLimit;
     const underHolds = -frameMisstatement <= netUnderLimit;
-    if ((sides === "lower" && overHolds) || (sides === "upper" && underHolds) || (sides === "two" && overHolds && underHolds)) covered++;
+    if (
+      (sides === "lower" && overHolds) ||
+      (sides === "upper" && underHolds) ||
+      (sides === "two" && overHolds && underHolds)
+    )
+      covered++;
     const overAllowance = netOverLimit - mostLikely;
     const underAllowance = netUnderLimit + mostLikely;
-    allowanceSum += sides === "lower" ? overAllowance : sides === "upper" ? underAllowance : Math.max(overAllowance, underAllowance);
+    allowanceSum +=
+      sides === "lower" ? overAllowance : sides === "upper" ? underAllowance : Math.max(overAllowance, underAllowance);
     if (o.onProgress && (t + 1) % PROGRESS_EVERY === 0) o.onProgress(t + 1);
   }
 
   return {
     ...summariseTrials(estimates, truthCents, covered, allowanceSum),
-    interval: J / 100, topStratumItems,
+    interval: J / 100,
+    topStratumItems,
   };
 }

@@ -8,15 +8,31 @@ import { createRng, type Rng } from "./rng";
 import { ESTIMATORS, SIDES, type Estimator, type SampledItem, type Sides } from "./types";
 import { zFor } from "./evaluate-variables";
 import { estimateTotal } from "./variables-core";
-import { CORRECTED_RATIO_ESTIMATORS, correctedRatioTotal, ratioItemStats, type CorrectedRatioEstimator } from "./ratio-corrected";
-import { requireArray, requireInteger, requireObject, requireOneOf, requireOpenFraction, requireSeed } from "./validate";
+import {
+  CORRECTED_RATIO_ESTIMATORS,
+  correctedRatioTotal,
+  ratioItemStats,
+  type CorrectedRatioEstimator,
+} from "./ratio-corrected";
+import {
+  requireArray,
+  requireInteger,
+  requireObject,
+  requireOneOf,
+  requireOpenFraction,
+  requireSeed,
+} from "./validate";
 import { EngineInputError } from "./errors";
 
 /** Everything `simulateEstimators` compares: the four evaluation estimators and the bias-corrected ratio forms. */
 export type SimulatedEstimator = Estimator | CorrectedRatioEstimator;
 export const SIMULATED_ESTIMATORS: readonly SimulatedEstimator[] = [...ESTIMATORS, ...CORRECTED_RATIO_ESTIMATORS];
 
-export interface HistogramBin { from: number; to: number; count: number }
+export interface HistogramBin {
+  from: number;
+  to: number;
+  count: number;
+}
 export interface EstimatorPerformance {
   meanEstimate: number;
   /** meanEstimate − true audited total. */
@@ -55,20 +71,36 @@ export function drawSimpleRandomSample(rng: Rng, permutation: Int32Array, sample
 function histogram(values: Float64Array): HistogramBin[] {
   let min = Infinity;
   let max = -Infinity;
-  for (const v of values) { if (v < min) min = v; if (v > max) max = v; }
+  for (const v of values) {
+    if (v < min) min = v;
+    if (v > max) max = v;
+  }
   if (!(max >= min)) return [];
   const bins = max > min ? HISTOGRAM_BINS : 1;
   const width = (max - min) / bins;
   const counts = new Array<number>(bins).fill(0);
   for (const v of values) counts[bins === 1 ? 0 : Math.min(bins - 1, Math.floor((v - min) / width))]!++;
-  return counts.map((count, b) => ({ from: (min + b * width) / 100, to: (b === bins - 1 ? max : min + (b + 1) * width) / 100, count }));
+  return counts.map((count, b) => ({
+    from: (min + b * width) / 100,
+    to: (b === bins - 1 ? max : min + (b + 1) * width) / 100,
+    count,
+  }));
 }
 
 /** Bias, spread, RMSE, coverage, mean allowance and histogram of one estimator's trial estimates (all in cents). */
-export function summariseTrials(all: Float64Array, truthCents: number, coveredTrials: number, allowanceSumCents: number): EstimatorPerformance {
+export function summariseTrials(
+  all: Float64Array,
+  truthCents: number,
+  coveredTrials: number,
+  allowanceSumCents: number,
+): EstimatorPerformance {
   const trials = all.length;
   let estimates = all;
-  for (const v of all) if (!Number.isFinite(v)) { estimates = all.filter(Number.isFinite); break; }
+  for (const v of all)
+    if (!Number.isFinite(v)) {
+      estimates = all.filter(Number.isFinite);
+      break;
+    }
   const defined = estimates.length;
   let sum = 0;
   for (const v of estimates) sum += v;
@@ -78,22 +110,32 @@ export function summariseTrials(all: Float64Array, truthCents: number, coveredTr
   const bias = (meanEstimate - truthCents) / 100;
   const standardDeviation = Math.sqrt(squares / defined) / 100;
   return {
-    meanEstimate: meanEstimate / 100, bias, standardDeviation, rmse: Math.sqrt(bias * bias + standardDeviation * standardDeviation),
-    coverage: coveredTrials / trials, meanAllowance: defined > 0 ? allowanceSumCents / defined / 100 : NaN, histogram: histogram(estimates),
+    meanEstimate: meanEstimate / 100,
+    bias,
+    standardDeviation,
+    rmse: Math.sqrt(bias * bias + standardDeviation * standardDeviation),
+    coverage: coveredTrials / trials,
+    meanAllowance: defined > 0 ? allowanceSumCents / defined / 100 : NaN,
+    histogram: histogram(estimates),
     ...(defined < trials ? { undefinedTrials: trials - defined } : {}),
   };
 }
 
 function parsePopulation(value: unknown, needNonZeroBook: boolean): { x: Float64Array; y: Float64Array } {
   const population = requireArray<SampledItem>("population", value);
-  if (population.length < 2) throw new EngineInputError("population", `population must hold at least 2 items (got ${population.length})`);
+  if (population.length < 2)
+    throw new EngineInputError("population", `population must hold at least 2 items (got ${population.length})`);
   const x = new Float64Array(population.length);
   const y = new Float64Array(population.length);
   for (let i = 0; i < population.length; i++) {
     const item = requireObject(`population[${i}]`, population[i]);
     x[i] = toCents(`population[${i}].bookValue`, item.bookValue);
     y[i] = toCents(`population[${i}].auditedValue`, item.auditedValue);
-    if (needNonZeroBook && x[i] === 0) throw new EngineInputError(`population[${i}].bookValue`, `population[${i}].bookValue is zero: the Hartley–Ross estimator needs every y/x defined`);
+    if (needNonZeroBook && x[i] === 0)
+      throw new EngineInputError(
+        `population[${i}].bookValue`,
+        `population[${i}].bookValue is zero: the Hartley–Ross estimator needs every y/x defined`,
+      );
   }
   return { x, y };
 }
@@ -122,8 +164,14 @@ function parsePopulation(value: unknown, needNonZeroBook: boolean): { x: Float64
  * // → { "mean-per-unit": { bias: …, rmse: …, coverage: 0.95…, … }, ratio: { … } }
  */
 export function simulateEstimators<E extends SimulatedEstimator>(o: {
-  population: SampledItem[]; sampleSize: number; trials: number; seed: number; confidence: number; estimators: E[];
-  sides?: Sides; onProgress?: (trialsDone: number) => void;
+  population: SampledItem[];
+  sampleSize: number;
+  trials: number;
+  seed: number;
+  confidence: number;
+  estimators: E[];
+  sides?: Sides;
+  onProgress?: (trialsDone: number) => void;
 }): Record<E, EstimatorPerformance> {
   requireObject("options", o);
   const estimators = requireArray<E>("estimators", o.estimators);
@@ -144,15 +192,23 @@ export function simulateEstimators<E extends SimulatedEstimator>(o: {
 
   let bookCents = 0;
   let truthCents = 0;
-  for (let i = 0; i < N; i++) { bookCents += x[i]!; truthCents += y[i]!; }
-  if (!Number.isSafeInteger(bookCents) || !Number.isSafeInteger(truthCents)) throw new EngineInputError("population", "population totals exceed the exact range in cents");
+  for (let i = 0; i < N; i++) {
+    bookCents += x[i]!;
+    truthCents += y[i]!;
+  }
+  if (!Number.isSafeInteger(bookCents) || !Number.isSafeInteger(truthCents))
+    throw new EngineInputError("population", "population totals exceed the exact range in cents");
   const xBar = bookCents / N;
   const dBar = (truthCents - bookCents) / N;
   // One record of four doubles per item (x − x̄, d − d̄, x, y): a random draw touches one cache line per item.
   const packed = new Float64Array(4 * N);
   for (let i = 0; i < N; i++) {
-    const xi = x[i]!, yi = y[i]!;
-    packed[4 * i] = xi - xBar; packed[4 * i + 1] = yi - xi - dBar; packed[4 * i + 2] = xi; packed[4 * i + 3] = yi;
+    const xi = x[i]!,
+      yi = y[i]!;
+    packed[4 * i] = xi - xBar;
+    packed[4 * i + 1] = yi - xi - dBar;
+    packed[4 * i + 2] = xi;
+    packed[4 * i + 3] = yi;
   }
   const sampleX = new Float64Array(sampleSize);
   const sampleY = new Float64Array(sampleX.length);
@@ -163,16 +219,44 @@ export function simulateEstimators<E extends SimulatedEstimator>(o: {
   const covered = new Float64Array(estimators.length);
   const allowanceSum = new Float64Array(estimators.length);
   const n = sampleSize;
-  const m: PairedMoments = { n, sumX: 0, sumY: 0, meanX: 0, meanY: 0, meanD: 0, varX: 0, varY: 0, varD: 0, covXY: 0, covXD: 0, nonZeroDifferences: 0 };
+  const m: PairedMoments = {
+    n,
+    sumX: 0,
+    sumY: 0,
+    meanX: 0,
+    meanY: 0,
+    meanD: 0,
+    varX: 0,
+    varY: 0,
+    varD: 0,
+    covXY: 0,
+    covXD: 0,
+    nonZeroDifferences: 0,
+  };
   for (let t = 0; t < trials; t++) {
     drawSimpleRandomSample(rng, permutation, n);
-    let sx = 0, sd = 0, sxx = 0, sdd = 0, sxd = 0, rawX = 0, rawY = 0;
+    let sx = 0,
+      sd = 0,
+      sxx = 0,
+      sdd = 0,
+      sxd = 0,
+      rawX = 0,
+      rawY = 0;
     for (let j = 0; j < n; j++) {
       const k = 4 * permutation[j]!;
-      const a = packed[k]!, b = packed[k + 1]!, bx = packed[k + 2]!, by = packed[k + 3]!;
-      sx += a; sd += b; sxx += a * a; sdd += b * b; sxd += a * b;
-      rawX += bx; rawY += by;
-      sampleX[j] = bx; sampleY[j] = by;
+      const a = packed[k]!,
+        b = packed[k + 1]!,
+        bx = packed[k + 2]!,
+        by = packed[k + 3]!;
+      sx += a;
+      sd += b;
+      sxx += a * a;
+      sdd += b * b;
+      sxd += a * b;
+      rawX += bx;
+      rawY += by;
+      sampleX[j] = bx;
+      sampleY[j] = by;
     }
     m.meanX = xBar + sx / n;
     m.meanD = dBar + sd / n;
@@ -186,13 +270,23 @@ export function simulateEstimators<E extends SimulatedEstimator>(o: {
     m.varY = Math.max(0, m.varX + m.varD + 2 * m.covXD);
     const stats = anyCorrected ? ratioItemStats(sampleX, sampleY, positions, n, m.sumX, m.sumY) : null;
     for (let e = 0; e < estimators.length; e++) {
-      const r = corrected[e] ? correctedRatioTotal(estimators[e] as CorrectedRatioEstimator, m, stats!, N, bookCents) : estimateTotal(estimators[e] as Estimator, m, N, bookCents);
+      const r = corrected[e]
+        ? correctedRatioTotal(estimators[e] as CorrectedRatioEstimator, m, stats!, N, bookCents)
+        : estimateTotal(estimators[e] as Estimator, m, N, bookCents);
       const allowance = z * Math.sqrt(r.variance);
-      if (!Number.isFinite(r.estimate) || !Number.isFinite(allowance)) { estimates[e]![t] = NaN; continue; }
+      if (!Number.isFinite(r.estimate) || !Number.isFinite(allowance)) {
+        estimates[e]![t] = NaN;
+        continue;
+      }
       estimates[e]![t] = r.estimate;
       allowanceSum[e]! += allowance;
       const error = r.estimate - truthCents;
-      if ((sides !== "lower" || error <= allowance) && (sides !== "upper" || -error <= allowance) && (sides !== "two" || Math.abs(error) <= allowance)) covered[e]!++;
+      if (
+        (sides !== "lower" || error <= allowance) &&
+        (sides !== "upper" || -error <= allowance) &&
+        (sides !== "two" || Math.abs(error) <= allowance)
+      )
+        covered[e]!++;
     }
     if (o.onProgress && (t + 1) % PROGRESS_EVERY === 0) o.onProgress(t + 1);
   }

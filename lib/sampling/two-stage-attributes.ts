@@ -48,7 +48,12 @@ function smallestSecondStage(n1: number, tolerableRate: number, risk: number): n
 
 function planOf(n1: number, n2: number, tolerableRate: number, expectedRate: number): TwoStageAttributePlan {
   const [, b1Expected] = noneAndOne(n1, expectedRate);
-  return { firstStageSize: n1, secondStageSize: n2, riskOfOverreliance: twoStageRisk(n1, n2, tolerableRate), expectedSampleSize: n1 + b1Expected * n2 };
+  return {
+    firstStageSize: n1,
+    secondStageSize: n2,
+    riskOfOverreliance: twoStageRisk(n1, n2, tolerableRate),
+    expectedSampleSize: n1 + b1Expected * n2,
+  };
 }
 
 /**
@@ -69,16 +74,29 @@ function planOf(n1: number, n2: number, tolerableRate: number, expectedRate: num
  * twoStageAttributePlan({ tolerableRate: 0.05, expectedRate: 0, confidence: 0.95 })
  * // → { firstStageSize: 59, secondStageSize: 90, riskOfOverreliance: 0.04999…, expectedSampleSize: 59 }
  */
-export function twoStageAttributePlan(o: { tolerableRate: number; expectedRate: number; confidence: number; firstStageSize?: number }): TwoStageAttributePlan {
+export function twoStageAttributePlan(o: {
+  tolerableRate: number;
+  expectedRate: number;
+  confidence: number;
+  firstStageSize?: number;
+}): TwoStageAttributePlan {
   requireObject("options", o);
   const tolerableRate = requireOpenFraction("tolerableRate", o.tolerableRate);
   const expectedRate = requireFiniteNumber("expectedRate", o.expectedRate);
-  if (expectedRate < 0 || expectedRate >= tolerableRate) throw new EngineInputError("expectedRate", `expectedRate must be at least 0 and below tolerableRate (${tolerableRate}) (got ${expectedRate})`);
+  if (expectedRate < 0 || expectedRate >= tolerableRate)
+    throw new EngineInputError(
+      "expectedRate",
+      `expectedRate must be at least 0 and below tolerableRate (${tolerableRate}) (got ${expectedRate})`,
+    );
   const risk = 1 - requireOpenFraction("confidence", o.confidence);
   if (o.firstStageSize !== undefined) {
     const n1 = requireInteger("firstStageSize", o.firstStageSize, 1, MAX_FIRST_STAGE);
     const n2 = smallestSecondStage(n1, tolerableRate, risk);
-    if (n2 === null) throw new EngineInputError("firstStageSize", `firstStageSize must exceed ${Math.ceil(Math.log(risk) / Math.log1p(-tolerableRate)) - 1}: with ${n1} items, stage 1 alone leaves a risk of overreliance above ${risk}`);
+    if (n2 === null)
+      throw new EngineInputError(
+        "firstStageSize",
+        `firstStageSize must exceed ${Math.ceil(Math.log(risk) / Math.log1p(-tolerableRate)) - 1}: with ${n1} items, stage 1 alone leaves a risk of overreliance above ${risk}`,
+      );
     return planOf(n1, n2, tolerableRate, expectedRate);
   }
   let best: TwoStageAttributePlan | null = null;
@@ -90,7 +108,11 @@ export function twoStageAttributePlan(o: { tolerableRate: number; expectedRate: 
     const [b0, b1] = noneAndOne(n1, tolerableRate);
     if (b0 + b1 <= risk) break; // a larger n₁ is a single-stage plan that accepts one deviation
   }
-  if (!best) throw new EngineInputError("tolerableRate", `tolerableRate ${tolerableRate} needs a first stage above ${MAX_FIRST_STAGE} items`);
+  if (!best)
+    throw new EngineInputError(
+      "tolerableRate",
+      `tolerableRate ${tolerableRate} needs a first stage above ${MAX_FIRST_STAGE} items`,
+    );
   return best;
 }
 
@@ -105,7 +127,11 @@ export function twoStageAttributePlan(o: { tolerableRate: number; expectedRate: 
  * evaluateTwoStageAttributes({ plan, firstStageDeviations: 1 })                            // → { stage: 1, decision: "continue", … }
  * evaluateTwoStageAttributes({ plan, firstStageDeviations: 1, secondStageDeviations: 0 })  // → { stage: 2, decision: "accept", … }
  */
-export function evaluateTwoStageAttributes(o: { plan: TwoStageAttributePlan; firstStageDeviations: number; secondStageDeviations?: number }): TwoStageEvaluation {
+export function evaluateTwoStageAttributes(o: {
+  plan: TwoStageAttributePlan;
+  firstStageDeviations: number;
+  secondStageDeviations?: number;
+}): TwoStageEvaluation {
   requireObject("options", o);
   const plan = requireObject("plan", o.plan) as unknown as TwoStageAttributePlan;
   const n1 = requireInteger("plan.firstStageSize", plan.firstStageSize, 1, MAX_FIRST_STAGE);
@@ -113,7 +139,11 @@ export function evaluateTwoStageAttributes(o: { plan: TwoStageAttributePlan; fir
   const riskOfOverreliance = requireOpenFraction("plan.riskOfOverreliance", plan.riskOfOverreliance);
   const k1 = requireInteger("firstStageDeviations", o.firstStageDeviations, 0, n1);
   if (k1 !== 1) {
-    if (o.secondStageDeviations !== undefined) throw new EngineInputError("secondStageDeviations", `secondStageDeviations must not be given: stage 1 ${k1 === 0 ? "accepted" : "rejected"} with ${k1} deviations`);
+    if (o.secondStageDeviations !== undefined)
+      throw new EngineInputError(
+        "secondStageDeviations",
+        `secondStageDeviations must not be given: stage 1 ${k1 === 0 ? "accepted" : "rejected"} with ${k1} deviations`,
+      );
     return { stage: 1, decision: k1 === 0 ? "accept" : "reject", riskOfOverreliance };
   }
   if (o.secondStageDeviations === undefined) return { stage: 1, decision: "continue", riskOfOverreliance };

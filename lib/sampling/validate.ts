@@ -43,7 +43,10 @@ export function requireOpenFraction(field: string, value: unknown): number {
 export function requirePositive(field: string, value: unknown, allowZero = false): number {
   const v = requireFiniteNumber(field, value);
   if (allowZero ? v < 0 : v <= 0) {
-    throw new EngineInputError(field, `${field} must be ${allowZero ? "zero or greater" : "greater than zero"} (got ${v})`);
+    throw new EngineInputError(
+      field,
+      `${field} must be ${allowZero ? "zero or greater" : "greater than zero"} (got ${v})`,
+    );
   }
   return v;
 }
@@ -65,7 +68,10 @@ export function requireObject(field: string, value: unknown): Record<string, unk
 /** Throws a RangeError unless `value` is one of `options`. */
 export function requireOneOf<T extends string>(field: string, value: unknown, options: readonly T[]): T {
   if (typeof value !== "string" || !(options as readonly string[]).includes(value)) {
-    throw new EngineInputError(field, `${field} must be one of ${options.map((o) => `"${o}"`).join(", ")} (got ${describe(value)})`);
+    throw new EngineInputError(
+      field,
+      `${field} must be one of ${options.map((o) => `"${o}"`).join(", ")} (got ${describe(value)})`,
+    );
   }
   return value as T;
 }

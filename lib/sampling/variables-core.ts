@@ -21,7 +21,12 @@ export interface StratumEstimate {
  * Estimates the audited total of one stratum (or an unstratified population).
  * @param N population size; @param bookCents population book total X in cents.
  */
-export function estimateTotal(estimator: CoreEstimator, m: PairedMoments, N: number, bookCents: number): StratumEstimate {
+export function estimateTotal(
+  estimator: CoreEstimator,
+  m: PairedMoments,
+  N: number,
+  bookCents: number,
+): StratumEstimate {
   const n = m.n;
   const scale = (N * N * (1 - n / N)) / n;
   switch (estimator) {

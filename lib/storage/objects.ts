@@ -22,20 +22,58 @@ function ensureBucket(): Promise<void> {
 }
 
 /** Stores a file from disk under `key`, streaming (never read whole into memory). */
-export async function putObjectFromFile({ key, path, contentType, size }: { key: string; path: string; contentType: string; size: number }) {
+export async function putObjectFromFile({
+  key,
+  path,
+  contentType,
+  size,
+}: {
+  key: string;
+  path: string;
+  contentType: string;
+  size: number;
+}) {
   await ensureBucket();
   const { client, bucket } = getStorage();
-  await client.send(new PutObjectCommand({ Bucket: bucket, Key: key, Body: fs.createReadStream(path), ContentType: contentType, ContentLength: size }));
+  await client.send(
+    new PutObjectCommand({
+      Bucket: bucket,
+      Key: key,
+      Body: fs.createReadStream(path),
+      ContentType: contentType,
+      ContentLength: size,
+    }),
+  );
 }
 
-export async function putObjectBytes({ key, bytes, contentType }: { key: string; bytes: Uint8Array; contentType: string }) {
+export async function putObjectBytes({
+  key,
+  bytes,
+  contentType,
+}: {
+  key: string;
+  bytes: Uint8Array;
+  contentType: string;
+}) {
   await ensureBucket();
   const { client, bucket } = getStorage();
-  await client.send(new PutObjectCommand({ Bucket: bucket, Key: key, Body: bytes, ContentType: contentType, ContentLength: bytes.byteLength }));
+  await client.send(
+    new PutObjectCommand({
+      Bucket: bucket,
+      Key: key,
+      Body: bytes,
+      ContentType: contentType,
+      ContentLength: bytes.byteLength,
+    }),
+  );
 }
 
 /** The object's bytes as a Node stream with its length and type. */
-export async function getObjectStream({ key }: { key: string }): Promise<{ body: Readable; length?: number; contentType?: string }> {
+export async function getObjectStream({
+  key,
+}: {
+  key: string;
+}): Promise<{ body: Readable; length?: number; contentType?: string }> {
   const { client, bucket } = getStorage();
   const out = await client.send(new GetObjectCommand({ Bucket: bucket, Key: key }));
   return { body: out.Body as Readable, length: out.ContentLength, contentType: out.ContentType };

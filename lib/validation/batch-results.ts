@@ -6,6 +6,9 @@ import { z } from "zod";
  * names the item; this schema only fixes the envelope.
  */
 export const BatchResultsSchema = z.object({
-  rows: z.array(z.object({ itemId: z.coerce.number().int().positive() }).catchall(z.unknown())).min(1, "Send at least one row").max(500, "Send at most 500 rows at a time"),
+  rows: z
+    .array(z.object({ itemId: z.coerce.number().int().positive() }).catchall(z.unknown()))
+    .min(1, "Send at least one row")
+    .max(500, "Send at most 500 rows at a time"),
 });
 export type BatchResults = z.output<typeof BatchResultsSchema>;

@@ -24,7 +24,11 @@ const engagementFields = {
   clientName: z.string().trim().min(2, "Client name needs at least 2 characters").max(200),
   name: z.string().trim().min(2, "Engagement name needs at least 2 characters").max(200),
   periodEnd: isoDate,
-  currency: z.string().trim().toUpperCase().regex(/^[A-Z]{3}$/, "Use a 3-letter ISO 4217 code such as USD"),
+  currency: z
+    .string()
+    .trim()
+    .toUpperCase()
+    .regex(/^[A-Z]{3}$/, "Use a 3-letter ISO 4217 code such as USD"),
   overallMateriality: moneyInput,
   performanceMateriality: moneyInput,
 };
@@ -35,10 +39,14 @@ function centsOf(amount: string): bigint {
 }
 
 const materialityOrder = (v: { overallMateriality?: string; performanceMateriality?: string }) =>
-  v.overallMateriality === undefined || v.performanceMateriality === undefined ||
+  v.overallMateriality === undefined ||
+  v.performanceMateriality === undefined ||
   centsOf(v.performanceMateriality) <= centsOf(v.overallMateriality);
 
-const materialityIssue = { message: "Performance materiality cannot exceed overall materiality", path: ["performanceMateriality"] };
+const materialityIssue = {
+  message: "Performance materiality cannot exceed overall materiality",
+  path: ["performanceMateriality"],
+};
 
 export const CreateEngagementSchema = z.object(engagementFields).refine(materialityOrder, materialityIssue);
 export type CreateEngagementInput = z.input<typeof CreateEngagementSchema>;

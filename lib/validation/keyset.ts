@@ -7,7 +7,10 @@ import { z } from "zod";
  * where OFFSET would walk every row before it.
  */
 export type CursorValue = string | number;
-export interface Cursor { value: CursorValue; key: number }
+export interface Cursor {
+  value: CursorValue;
+  key: number;
+}
 
 /** Opaque to callers: base64url of `[value, key]`. */
 export function encodeCursor(cursor: Cursor): string {
@@ -26,7 +29,8 @@ export function decodeCursor(text: string): Cursor | null {
     const parsed: unknown = JSON.parse(json);
     if (!Array.isArray(parsed) || parsed.length !== 2) return null;
     const [value, key] = parsed as unknown[];
-    if ((typeof value !== "string" && typeof value !== "number") || !Number.isSafeInteger(key) || (key as number) < 0) return null;
+    if ((typeof value !== "string" && typeof value !== "number") || !Number.isSafeInteger(key) || (key as number) < 0)
+      return null;
     if (typeof value === "string" && value.length > 300) return null;
     return { value, key: key as number };
   } catch {
@@ -35,20 +39,26 @@ export function decodeCursor(text: string): Cursor | null {
 }
 
 /** A query-string field holding a cursor; refuses text that does not decode. */
-export const cursorParam = z.string().max(600).transform((text, ctx) => {
-  const cursor = decodeCursor(text);
-  if (!cursor) {
-    ctx.addIssue({ code: "custom", message: "Not a paging cursor from this API; start again from the first page" });
-    return z.NEVER;
-  }
-  return cursor;
-});
+export const cursorParam = z
+  .string()
+  .max(600)
+  .transform((text, ctx) => {
+    const cursor = decodeCursor(text);
+    if (!cursor) {
+      ctx.addIssue({ code: "custom", message: "Not a paging cursor from this API; start again from the first page" });
+      return z.NEVER;
+    }
+    return cursor;
+  });
 
 /** `after` (the page following a row), `before` (the page preceding it) or `last` (the final page). */
 export const keysetFields = {
   after: cursorParam.optional(),
   before: cursorParam.optional(),
-  last: z.enum(["true", "false"]).optional().transform((v) => v === "true"),
+  last: z
+    .enum(["true", "false"])
+    .optional()
+    .transform((v) => v === "true"),
 };
 
 export interface KeysetPage<T> {

@@ -11,7 +11,14 @@ export const RISK_LEVEL_LABELS: Record<RiskLevel, string> = {
 };
 
 /** How often a manual control operates, for control tests sized from the firm's frequency table. */
-export const CONTROL_FREQUENCIES = ["annual", "quarterly", "monthly", "weekly", "daily", "several-times-daily"] as const;
+export const CONTROL_FREQUENCIES = [
+  "annual",
+  "quarterly",
+  "monthly",
+  "weekly",
+  "daily",
+  "several-times-daily",
+] as const;
 export type ControlFrequency = (typeof CONTROL_FREQUENCIES)[number];
 
 /** Confidence an assurance factor stands for under the Poisson model: 1 − e^(−factor) (3.0 ≈ 95 %, common practice). */
@@ -67,13 +74,20 @@ export const DEFAULT_CONTROL_FREQUENCIES: MethodologySettings["controlFrequencie
 ];
 
 export const DEFAULT_METHODOLOGY: MethodologySettings = {
-  assuranceFactors: DEFAULT_ASSURANCE_FACTORS.map((row) => row.map((factor) => ({ factor, confidence: confidenceForFactor(factor) }))),
+  assuranceFactors: DEFAULT_ASSURANCE_FACTORS.map((row) =>
+    row.map((factor) => ({ factor, confidence: confidenceForFactor(factor) })),
+  ),
   musSizeMethod: "confidence-factor",
   factorMode: "exact",
   classicalDistribution: "z",
   musLimits: "gross",
   controlFrequencies: DEFAULT_CONTROL_FREQUENCIES,
-  nonstatistical: { expectedMisstatementAdjustment: "none", minimumSampleSize: 0, wellBelowBasis: "expected-misstatement", wellBelowShare: 0.5 },
+  nonstatistical: {
+    expectedMisstatementAdjustment: "none",
+    minimumSampleSize: 0,
+    wellBelowBasis: "expected-misstatement",
+    wellBelowShare: 0.5,
+  },
   anomaliesAllowed: true,
   hypergeometricBelow: 5000,
 };

@@ -1,3 +1,5 @@
 import { z } from "zod";
 
-export const ArchivePopulationSchema = z.object({ archived: z.boolean({ error: "Say whether the population is archived (true or false)" }) });
+export const ArchivePopulationSchema = z.object({
+  archived: z.boolean({ error: "Say whether the population is archived (true or false)" }),
+});

@@ -30,8 +30,17 @@ export type LoadPopulation = z.output<typeof LoadPopulationSchema>;
 
 export const ReconcileSchema = z.object({
   controlTotal: signedMoneyInput,
-  controlCount: z.coerce.number({ error: "Enter the item count from the ledger" }).int("Whole items only").min(0).max(100_000_000),
-  explanation: z.string().trim().max(4000).optional().transform((v) => (v ? v : undefined)),
+  controlCount: z.coerce
+    .number({ error: "Enter the item count from the ledger" })
+    .int("Whole items only")
+    .min(0)
+    .max(100_000_000),
+  explanation: z
+    .string()
+    .trim()
+    .max(4000)
+    .optional()
+    .transform((v) => (v ? v : undefined)),
 });
 export type ReconcileInput = z.input<typeof ReconcileSchema>;
 export type Reconcile = z.output<typeof ReconcileSchema>;
@@ -43,14 +52,19 @@ export const ITEM_SORTS = ["row", "ref", "book"] as const;
  * page by key; `page` alone (no cursor) is the page number shown, and still seeks by offset for
  * callers that jump straight to page n.
  */
-export const ItemsQuerySchema = z.object({
-  page: z.coerce.number().int().min(1).default(1),
-  pageSize: z.coerce.number().int().min(10).max(200).default(50),
-  sort: z.enum(ITEM_SORTS).default("row"),
-  dir: z.enum(["asc", "desc"]).default("asc"),
-  q: z.string().trim().max(100).optional(),
-  ...keysetFields,
-}).refine((q) => [q.after, q.before, q.last || undefined].filter(Boolean).length <= 1, { path: ["after"], message: "Give one of after, before or last" });
+export const ItemsQuerySchema = z
+  .object({
+    page: z.coerce.number().int().min(1).default(1),
+    pageSize: z.coerce.number().int().min(10).max(200).default(50),
+    sort: z.enum(ITEM_SORTS).default("row"),
+    dir: z.enum(["asc", "desc"]).default("asc"),
+    q: z.string().trim().max(100).optional(),
+    ...keysetFields,
+  })
+  .refine((q) => [q.after, q.before, q.last || undefined].filter(Boolean).length <= 1, {
+    path: ["after"],
+    message: "Give one of after, before or last",
+  });
 export type ItemsQuery = z.output<typeof ItemsQuerySchema>;
 
 export const ProfileQuerySchema = z.object({ threshold: moneyInput.optional() });

@@ -2,7 +2,15 @@ import { z } from "zod";
 import { passwordInput } from "./user";
 
 /** What the audit team can ask for on an item; "other" is described in the free text. */
-export const REQUEST_NEEDS = ["invoice", "remittance", "confirmation", "delivery-note", "contract", "bank-statement", "other"] as const;
+export const REQUEST_NEEDS = [
+  "invoice",
+  "remittance",
+  "confirmation",
+  "delivery-note",
+  "contract",
+  "bank-statement",
+  "other",
+] as const;
 export type RequestNeed = (typeof REQUEST_NEEDS)[number];
 
 export const REQUEST_NEED_LABELS: Record<RequestNeed, string> = {
@@ -25,22 +33,44 @@ export const REQUEST_STATUS_LABELS: Record<RequestItemStatus, string> = {
   "needs-more": "Needs more",
 };
 
-const isoDay = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, "Use the date form YYYY-MM-DD")
-  .refine((v) => { const d = new Date(`${v}T00:00:00Z`); return !Number.isNaN(d.getTime()) && d.toISOString().startsWith(v); }, "Not a real date");
+const isoDay = z
+  .string()
+  .regex(/^\d{4}-\d{2}-\d{2}$/, "Use the date form YYYY-MM-DD")
+  .refine((v) => {
+    const d = new Date(`${v}T00:00:00Z`);
+    return !Number.isNaN(d.getTime()) && d.toISOString().startsWith(v);
+  }, "Not a real date");
 
-const optionalText = (max: number) => z.string().trim().max(max, `At most ${max} characters`).optional().transform((v) => (v ? v : undefined));
+const optionalText = (max: number) =>
+  z
+    .string()
+    .trim()
+    .max(max, `At most ${max} characters`)
+    .optional()
+    .transform((v) => (v ? v : undefined));
 
-export const CreateRequestListSchema = z.object({
-  title: z.string().trim().min(3, "Give the list a title of at least 3 characters").max(200, "At most 200 characters"),
-  contactUserId: z.coerce.number().int().positive("Choose the client contact"),
-  dueDate: isoDay,
-  showBookValues: z.boolean().default(false),
-  message: optionalText(4000),
-  /** "all" asks for every selected item (void ones excepted); otherwise the chosen item ids. */
-  items: z.union([z.literal("all"), z.array(z.coerce.number().int().positive()).min(1, "Choose at least one item")]),
-  needs: z.array(z.enum(REQUEST_NEEDS, "Choose what is needed from the list")).min(1, "Choose at least one thing that is needed"),
-  needsNote: optionalText(2000),
-}).refine((v) => !v.needs.includes("other") || Boolean(v.needsNote), { message: "Describe what else is needed", path: ["needsNote"] });
+export const CreateRequestListSchema = z
+  .object({
+    title: z
+      .string()
+      .trim()
+      .min(3, "Give the list a title of at least 3 characters")
+      .max(200, "At most 200 characters"),
+    contactUserId: z.coerce.number().int().positive("Choose the client contact"),
+    dueDate: isoDay,
+    showBookValues: z.boolean().default(false),
+    message: optionalText(4000),
+    /** "all" asks for every selected item (void ones excepted); otherwise the chosen item ids. */
+    items: z.union([z.literal("all"), z.array(z.coerce.number().int().positive()).min(1, "Choose at least one item")]),
+    needs: z
+      .array(z.enum(REQUEST_NEEDS, "Choose what is needed from the list"))
+      .min(1, "Choose at least one thing that is needed"),
+    needsNote: optionalText(2000),
+  })
+  .refine((v) => !v.needs.includes("other") || Boolean(v.needsNote), {
+    message: "Describe what else is needed",
+    path: ["needsNote"],
+  });
 export type CreateRequestListInput = z.input<typeof CreateRequestListSchema>;
 export type CreateRequestList = z.output<typeof CreateRequestListSchema>;
 
@@ -51,7 +81,11 @@ export const InviteClientContactSchema = z.object({
 export type InviteClientContactInput = z.input<typeof InviteClientContactSchema>;
 
 export const ReturnFileSchema = z.object({
-  reason: z.string().trim().min(5, "Say what is missing or wrong, in at least 5 characters").max(2000, "At most 2000 characters"),
+  reason: z
+    .string()
+    .trim()
+    .min(5, "Say what is missing or wrong, in at least 5 characters")
+    .max(2000, "At most 2000 characters"),
 });
 
 export const ClientNoteSchema = z.object({

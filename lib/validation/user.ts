@@ -16,7 +16,12 @@ export type CreateUserInput = z.input<typeof CreateUserSchema>;
 export type CreateUser = z.output<typeof CreateUserSchema>;
 
 export const UpdateUserSchema = z
-  .object({ active: z.boolean(), grade: z.enum(GRADES), firmRole: z.enum(FIRM_ROLES), name: CreateUserSchema.shape.name })
+  .object({
+    active: z.boolean(),
+    grade: z.enum(GRADES),
+    firmRole: z.enum(FIRM_ROLES),
+    name: CreateUserSchema.shape.name,
+  })
   .partial()
   .refine((v) => Object.keys(v).length > 0, "Send at least one field to change");
 export type UpdateUser = z.output<typeof UpdateUserSchema>;

@@ -21,14 +21,20 @@ export function engagementInvitation(d: EngagementInvitationData): RenderedEmail
     greeting: `Hello ${d.recipient.name},`,
     blocks: [
       { kind: "paragraph", text: `${d.invitedBy.name} added you to the team of ${label} in Sondage, as ${d.role}.` },
-      { kind: "facts", rows: [
-        ["Client", d.engagement.clientName],
-        ["Engagement", d.engagement.name],
-        ["Period end", formatDate(d.engagement.periodEnd)],
-        ["Your role", d.role],
-        ["Added by", `${d.invitedBy.name}, ${formatDateTime(d.addedAt, "addedAt")}`],
-      ] },
-      { kind: "paragraph", text: "Sign in with your firm account to see the engagement's populations, samples and review notes." },
+      {
+        kind: "facts",
+        rows: [
+          ["Client", d.engagement.clientName],
+          ["Engagement", d.engagement.name],
+          ["Period end", formatDate(d.engagement.periodEnd)],
+          ["Your role", d.role],
+          ["Added by", `${d.invitedBy.name}, ${formatDateTime(d.addedAt, "addedAt")}`],
+        ],
+      },
+      {
+        kind: "paragraph",
+        text: "Sign in with your firm account to see the engagement's populations, samples and review notes.",
+      },
     ],
     action: { label: "Open the engagement", url: d.engagementUrl },
     judgementCaution: false,

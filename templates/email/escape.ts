@@ -15,7 +15,8 @@ export function safeUrl(value: string, field: string): string {
   } catch {
     throw new TypeError(`${field}: not an absolute URL (${JSON.stringify(value)})`);
   }
-  if (url.protocol !== "http:" && url.protocol !== "https:") throw new TypeError(`${field}: links must use http or https`);
+  if (url.protocol !== "http:" && url.protocol !== "https:")
+    throw new TypeError(`${field}: links must use http or https`);
   return url.href;
 }
 

@@ -5,7 +5,16 @@ import { reviewNoteCleared, type ReviewNoteClearedData } from "./review-note-cle
 import { reviewNoteRaised, type ReviewNoteRaisedData } from "./review-note-raised";
 import { sampleLocked, type SampleLockedData } from "./sample-locked";
 import { sampleReadyForReview, type SampleReadyForReviewData } from "./sample-ready-for-review";
-import { clientInvitation, requestFileReturned, requestListSent, requestReminders, type ClientInvitationData, type RequestFileReturnedData, type RequestListSentData, type RequestRemindersData } from "./client-requests";
+import {
+  clientInvitation,
+  requestFileReturned,
+  requestListSent,
+  requestReminders,
+  type ClientInvitationData,
+  type RequestFileReturnedData,
+  type RequestListSentData,
+  type RequestRemindersData,
+} from "./client-requests";
 import { requestListClosed, type RequestListClosedData } from "./client-requests";
 import { staffInvitation, type StaffInvitationData } from "./staff-invitation";
 import type { RenderedEmail } from "./types";

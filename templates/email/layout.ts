@@ -25,7 +25,17 @@ export const JUDGEMENT_CAUTION =
   "The sample's figures support, and never replace, the auditor's professional judgement, the applicable " +
   "standards (AU-C 530, ISA 530, AS 2315) and the firm's methodology; its conclusions rest on the engagement team's judgement.";
 
-const COLOURS = { paper: "#f6f4ee", raised: "#fffdf8", ink: "#1d2430", soft: "#4a5363", faint: "#7b8494", line: "#d9d4c7", ledger: "#24663f", ledgerDark: "#1b5132", ledgerWash: "#eef6f1" };
+const COLOURS = {
+  paper: "#f6f4ee",
+  raised: "#fffdf8",
+  ink: "#1d2430",
+  soft: "#4a5363",
+  faint: "#7b8494",
+  line: "#d9d4c7",
+  ledger: "#24663f",
+  ledgerDark: "#1b5132",
+  ledgerWash: "#eef6f1",
+};
 const FONT = "-apple-system,'Segoe UI',Roboto,Helvetica,Arial,sans-serif";
 
 function textBlock(block: Block): string {
@@ -47,12 +57,22 @@ function htmlBlock(block: Block): string {
     case "paragraph":
       return `<p style="${p}">${escapeHtml(block.text)}</p>`;
     case "facts":
-      return `<table role="presentation" cellpadding="0" cellspacing="0" style="margin:0 0 16px;border-collapse:collapse;font:14px/1.5 ${FONT}">` +
-        block.rows.map(([label, value]) => `<tr><td style="padding:3px 16px 3px 0;color:${COLOURS.soft};white-space:nowrap;vertical-align:top">${escapeHtml(label)}</td>` +
-          `<td style="padding:3px 0;color:${COLOURS.ink}">${escapeHtml(oneLine(value))}</td></tr>`).join("") + `</table>`;
+      return (
+        `<table role="presentation" cellpadding="0" cellspacing="0" style="margin:0 0 16px;border-collapse:collapse;font:14px/1.5 ${FONT}">` +
+        block.rows
+          .map(
+            ([label, value]) =>
+              `<tr><td style="padding:3px 16px 3px 0;color:${COLOURS.soft};white-space:nowrap;vertical-align:top">${escapeHtml(label)}</td>` +
+              `<td style="padding:3px 0;color:${COLOURS.ink}">${escapeHtml(oneLine(value))}</td></tr>`,
+          )
+          .join("") +
+        `</table>`
+      );
     case "quote":
-      return `<p style="margin:0 0 6px;font:600 13px/1.4 ${FONT};color:${COLOURS.soft}">${escapeHtml(block.label)}</p>` +
-        `<div style="margin:0 0 16px;padding:10px 14px;border-left:3px solid ${COLOURS.ledger};background:${COLOURS.ledgerWash};font:15px/1.55 ${FONT};color:${COLOURS.ink};white-space:pre-wrap">${escapeHtml(block.text)}</div>`;
+      return (
+        `<p style="margin:0 0 6px;font:600 13px/1.4 ${FONT};color:${COLOURS.soft}">${escapeHtml(block.label)}</p>` +
+        `<div style="margin:0 0 16px;padding:10px 14px;border-left:3px solid ${COLOURS.ledger};background:${COLOURS.ledgerWash};font:15px/1.55 ${FONT};color:${COLOURS.ink};white-space:pre-wrap">${escapeHtml(block.text)}</div>`
+      );
   }
 }
 
@@ -72,8 +92,10 @@ function renderHtml(c: EmailContent, subject: string, url: string): string {
   const href = escapeHtml(url);
   const small = `margin:0 0 12px;font:13px/1.5 ${FONT};color:${COLOURS.soft}`;
   const caution = c.judgementCaution
-    ? `<p style="${small};border-top:1px solid ${COLOURS.line};padding-top:14px">${escapeHtml(JUDGEMENT_CAUTION)}</p>` : "";
-  return `<!doctype html><html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width,initial-scale=1">` +
+    ? `<p style="${small};border-top:1px solid ${COLOURS.line};padding-top:14px">${escapeHtml(JUDGEMENT_CAUTION)}</p>`
+    : "";
+  return (
+    `<!doctype html><html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width,initial-scale=1">` +
     `<title>${escapeHtml(subject)}</title></head><body style="margin:0;padding:0;background:${COLOURS.paper}">` +
     `<div style="display:none;max-height:0;overflow:hidden">${escapeHtml(c.preview)}</div>` +
     `<table role="presentation" width="100%" cellpadding="0" cellspacing="0" style="background:${COLOURS.paper}"><tr><td align="center" style="padding:28px 12px">` +
@@ -87,7 +109,8 @@ function renderHtml(c: EmailContent, subject: string, url: string): string {
     caution +
     `</td></tr></table>` +
     `<p style="max-width:580px;margin:14px auto 0;font:12px/1.5 ${FONT};color:${COLOURS.faint}">${escapeHtml(c.footer)}</p>` +
-    `</td></tr></table></body></html>`;
+    `</td></tr></table></body></html>`
+  );
 }
 
 /** Both parts of a message from one description; the subject is kept to one line. */

@@ -18,11 +18,14 @@ export function reviewNoteAnswered(d: ReviewNoteAnsweredData): RenderedEmail {
       { kind: "paragraph", text: `${d.actor.name} answered a review note on the sample "${d.sample.name}".` },
       { kind: "quote", label: "The note", text: d.note.text },
       { kind: "quote", label: `${d.actor.name} answered`, text: d.answer.text },
-      { kind: "facts", rows: [
-        ["Engagement", label],
-        ["Sample", d.sample.name],
-        ["Answered", formatDateTime(d.at)],
-      ] },
+      {
+        kind: "facts",
+        rows: [
+          ["Engagement", label],
+          ["Sample", d.sample.name],
+          ["Answered", formatDateTime(d.at)],
+        ],
+      },
       { kind: "paragraph", text: "Clear the note if the answer settles it, or reply to keep it open." },
     ],
     action: { label: "Review the answer", url: d.sampleUrl },

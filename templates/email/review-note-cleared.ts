@@ -16,11 +16,14 @@ export function reviewNoteCleared(d: ReviewNoteClearedData): RenderedEmail {
     blocks: [
       { kind: "paragraph", text: `${d.actor.name} cleared a review note on the sample "${d.sample.name}".` },
       { kind: "quote", label: "The note", text: d.note.text },
-      { kind: "facts", rows: [
-        ["Engagement", label],
-        ["Sample", d.sample.name],
-        ["Cleared by", `${d.actor.name}, ${formatDateTime(d.at)}`],
-      ] },
+      {
+        kind: "facts",
+        rows: [
+          ["Engagement", label],
+          ["Sample", d.sample.name],
+          ["Cleared by", `${d.actor.name}, ${formatDateTime(d.at)}`],
+        ],
+      },
     ],
     action: { label: "Open the sample", url: d.sampleUrl },
     judgementCaution: true,

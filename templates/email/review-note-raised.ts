@@ -16,11 +16,14 @@ export function reviewNoteRaised(d: ReviewNoteRaisedData): RenderedEmail {
     blocks: [
       { kind: "paragraph", text: `${d.actor.name} raised a review note on the sample "${d.sample.name}".` },
       { kind: "quote", label: `${d.actor.name} wrote`, text: d.note.text },
-      { kind: "facts", rows: [
-        ["Engagement", label],
-        ["Sample", d.sample.name],
-        ["Raised", formatDateTime(d.at)],
-      ] },
+      {
+        kind: "facts",
+        rows: [
+          ["Engagement", label],
+          ["Sample", d.sample.name],
+          ["Raised", formatDateTime(d.at)],
+        ],
+      },
       { kind: "paragraph", text: "Answer the note in Sondage so the reviewer can clear it." },
     ],
     action: { label: "Answer the note", url: d.sampleUrl },

@@ -12,12 +12,18 @@ export function sampleLocked(d: SampleLockedData): RenderedEmail {
     preview: `${d.actor.name} signed off and locked ${d.sample.name}.`,
     greeting: `Hello ${d.recipient.name},`,
     blocks: [
-      { kind: "paragraph", text: `${d.actor.name} signed off and locked the sample "${d.sample.name}". Its selections, audited values and evaluation can no longer be changed, and its workpaper is final.` },
-      { kind: "facts", rows: [
-        ["Engagement", label],
-        ["Sample", d.sample.name],
-        ["Locked by", `${d.actor.name}, ${formatDateTime(d.at)}`],
-      ] },
+      {
+        kind: "paragraph",
+        text: `${d.actor.name} signed off and locked the sample "${d.sample.name}". Its selections, audited values and evaluation can no longer be changed, and its workpaper is final.`,
+      },
+      {
+        kind: "facts",
+        rows: [
+          ["Engagement", label],
+          ["Sample", d.sample.name],
+          ["Locked by", `${d.actor.name}, ${formatDateTime(d.at)}`],
+        ],
+      },
     ],
     action: { label: "Open the locked sample", url: d.sampleUrl },
     judgementCaution: true,

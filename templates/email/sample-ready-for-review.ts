@@ -13,12 +13,18 @@ export function sampleReadyForReview(d: SampleReadyForReviewData): RenderedEmail
     greeting: `Hello ${d.recipient.name},`,
     blocks: [
       { kind: "paragraph", text: `${d.actor.name} marked the sample "${d.sample.name}" ready for review.` },
-      { kind: "facts", rows: [
-        ["Engagement", label],
-        ["Sample", d.sample.name],
-        ["Sent by", `${d.actor.name}, ${formatDateTime(d.at)}`],
-      ] },
-      { kind: "paragraph", text: "Review the selections, the audited values and the evaluation, then raise notes or sign off." },
+      {
+        kind: "facts",
+        rows: [
+          ["Engagement", label],
+          ["Sample", d.sample.name],
+          ["Sent by", `${d.actor.name}, ${formatDateTime(d.at)}`],
+        ],
+      },
+      {
+        kind: "paragraph",
+        text: "Review the selections, the audited values and the evaluation, then raise notes or sign off.",
+      },
     ],
     action: { label: "Review the sample", url: d.sampleUrl },
     judgementCaution: true,

@@ -8,7 +8,9 @@ import { formatDateTime } from "@/lib/format/date";
 export function AuditTrailAppendix({ data }: { data: WorkpaperData }) {
   return (
     <Section number="A" title="Appendix — audit trail">
-      <Text style={[s.soft, { marginBottom: 4 }]}>Every change to the sample, in time order, as recorded by Sondage.</Text>
+      <Text style={[s.soft, { marginBottom: 4 }]}>
+        Every change to the sample, in time order, as recorded by Sondage.
+      </Text>
       <Table
         columns={[
           { label: "When", width: 96 },

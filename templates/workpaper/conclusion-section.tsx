@@ -11,7 +11,13 @@ import type { WorkpaperData } from "./workpaper-data";
 import { formatMoney } from "@/lib/format/number";
 import { formatDateTime } from "@/lib/format/date";
 
-const VERDICT = { supported: "Supports the recorded amount", "not-supported": "Does not support the recorded amount", provisional: "Provisional", "no-results": "No results yet", "not-evaluable": "Not evaluable yet" } as const;
+const VERDICT = {
+  supported: "Supports the recorded amount",
+  "not-supported": "Does not support the recorded amount",
+  provisional: "Provisional",
+  "no-results": "No results yet",
+  "not-evaluable": "Not evaluable yet",
+} as const;
 
 export function ConclusionSection({ data }: { data: WorkpaperData }) {
   const c = data.conclusion;
@@ -21,16 +27,30 @@ export function ConclusionSection({ data }: { data: WorkpaperData }) {
       <SubHead>Computed by Sondage</SubHead>
       <Text style={[s.bold, { color: tone, marginBottom: 2 }]}>{VERDICT[c.computed.status]}</Text>
       <Paragraph>{c.computed.statement}</Paragraph>
-      {c.computed.rule !== "" && <Text style={[s.small, s.soft, { marginBottom: 3 }]}>{`Rule: ${c.computed.rule}`}</Text>}
-      {c.notes.map((n, i) => <Text key={i} style={[s.small, s.soft]}>{n}</Text>)}
+      {c.computed.rule !== "" && (
+        <Text style={[s.small, s.soft, { marginBottom: 3 }]}>{`Rule: ${c.computed.rule}`}</Text>
+      )}
+      {c.notes.map((n, i) => (
+        <Text key={i} style={[s.small, s.soft]}>
+          {n}
+        </Text>
+      ))}
       <SubHead>{"Auditor's conclusion and response"}</SubHead>
       {c.auditor ? (
         <View>
-          <Text style={s.faint}>{`Written by ${c.auditor.writtenBy} (${c.auditor.role}), ${formatDateTime(c.auditor.writtenAt)}`}</Text>
+          <Text
+            style={s.faint}
+          >{`Written by ${c.auditor.writtenBy} (${c.auditor.role}), ${formatDateTime(c.auditor.writtenAt)}`}</Text>
           <Paragraph>{c.auditor.conclusion}</Paragraph>
-          {c.auditor.responses.length === 0 ? <Text style={s.soft}>No response recorded (none called for by the computed result).</Text> : c.auditor.responses.map((r, i) => (
-            <Text key={i}>{`• ${r.label}${r.amount === null ? "" : `: ${data.currency} ${formatMoney(r.amount)}`}${r.note ? ` — ${r.note}` : ""}`}</Text>
-          ))}
+          {c.auditor.responses.length === 0 ? (
+            <Text style={s.soft}>No response recorded (none called for by the computed result).</Text>
+          ) : (
+            c.auditor.responses.map((r, i) => (
+              <Text
+                key={i}
+              >{`• ${r.label}${r.amount === null ? "" : `: ${data.currency} ${formatMoney(r.amount)}`}${r.note ? ` — ${r.note}` : ""}`}</Text>
+            ))
+          )}
         </View>
       ) : (
         <Paragraph>{"No auditor's conclusion has been recorded yet."}</Paragraph>

@@ -34,10 +34,24 @@ export function NonstatisticalEvaluation({ e, currency }: { e: NonstatisticalEva
             ],
           },
           { cells: ["Projected misstatement of the remainder", METHOD[e.projection], m(e.projectedMisstatement)] },
-          { cells: [`Key items, at actual (${e.keyItems.evaluated} of ${e.keyItems.planned} with a result)`, "examined 100 %", m(e.keyItems.misstatement)] },
-          { cells: [`Accepted anomalous misstatements, at actual (${e.anomalies.count})`, "ISA 530 ¶13", m(e.anomalies.misstatement)] },
+          {
+            cells: [
+              `Key items, at actual (${e.keyItems.evaluated} of ${e.keyItems.planned} with a result)`,
+              "examined 100 %",
+              m(e.keyItems.misstatement),
+            ],
+          },
+          {
+            cells: [
+              `Accepted anomalous misstatements, at actual (${e.anomalies.count})`,
+              "ISA 530 ¶13",
+              m(e.anomalies.misstatement),
+            ],
+          },
           { total: true, cells: ["Total projected misstatement", "", m(e.totalProjected)] },
-          ...(e.comparedAmount !== e.totalProjected ? [{ cells: [`Compared with TM (${e.direction})`, "", m(e.comparedAmount)] }] : []),
+          ...(e.comparedAmount !== e.totalProjected
+            ? [{ cells: [`Compared with TM (${e.direction})`, "", m(e.comparedAmount)] }]
+            : []),
           { cells: ["Tolerable misstatement", "TM", m(e.tolerableMisstatement)] },
           { cells: ["Expected misstatement used in planning", "EM", m(e.expectedMisstatement)] },
           { cells: ["“Well below” TM means at most", e.wellBelowBasis, m(e.wellBelowAmount)] },

@@ -10,11 +10,16 @@ import type { EvaluationBlock, WorkpaperData } from "./workpaper-data";
 
 function Body({ e, currency }: { e: EvaluationBlock; currency: string }) {
   switch (e.method) {
-    case "mus": return <MusEvaluation e={e} currency={currency} />;
-    case "variables": return <VariablesEvaluation e={e} currency={currency} />;
-    case "stratified": return <StratifiedEvaluation e={e} currency={currency} />;
-    case "attributes": return <AttributesEvaluation e={e} />;
-    case "nonstatistical": return <NonstatisticalEvaluation e={e} currency={currency} />;
+    case "mus":
+      return <MusEvaluation e={e} currency={currency} />;
+    case "variables":
+      return <VariablesEvaluation e={e} currency={currency} />;
+    case "stratified":
+      return <StratifiedEvaluation e={e} currency={currency} />;
+    case "attributes":
+      return <AttributesEvaluation e={e} />;
+    case "nonstatistical":
+      return <NonstatisticalEvaluation e={e} currency={currency} />;
   }
 }
 
@@ -30,7 +35,11 @@ export function EvaluationSection({ data }: { data: WorkpaperData }) {
   return (
     <Section number="6" title="Evaluation">
       <Body e={e} currency={data.currency} />
-      {e.warnings.map((w, i) => <Callout key={i} tone="warning">{w}</Callout>)}
+      {e.warnings.map((w, i) => (
+        <Callout key={i} tone="warning">
+          {w}
+        </Callout>
+      ))}
       <View wrap={false}>
         <SubHead>Formula references</SubHead>
         {e.formulaReferences.map((ref, i) => (

@@ -24,40 +24,91 @@ const VARIANCE_FORMULA: Record<string, string> = {
   "combined-ratio": "v = Σ_h N_h²(1−f_h)/n_h · s²(y − R_c x)_h",
 };
 
-const DIRECTION_WORDS = { overstatement: "overstatement only", understatement: "understatement only", both: "both directions" } as const;
+const DIRECTION_WORDS = {
+  overstatement: "overstatement only",
+  understatement: "understatement only",
+  both: "both directions",
+} as const;
 
 /** Key items and accepted anomalies taken at actual outside the estimator (AS 2315.26; ISA 530 ¶13). */
 function atActualRows(e: VariablesEvaluationBlock | StratifiedEvaluationBlock, estimator: string): TableRow[] {
   const a = e.atActual;
   if (!a) return [];
   return [
-    { cells: [`Remainder (${a.remainderSize.toLocaleString("en-US")} items outside the key items): book value`, "X_r", formatMoney(a.remainderBookValue)] },
-    { cells: ["Remainder: estimated audited value", `Ŷ_r, ${ESTIMATE_FORMULA[estimator]} on the remainder`, formatMoney(a.remainderEstimatedAuditedValue)] },
+    {
+      cells: [
+        `Remainder (${a.remainderSize.toLocaleString("en-US")} items outside the key items): book value`,
+        "X_r",
+        formatMoney(a.remainderBookValue),
+      ],
+    },
+    {
+      cells: [
+        "Remainder: estimated audited value",
+        `Ŷ_r, ${ESTIMATE_FORMULA[estimator]} on the remainder`,
+        formatMoney(a.remainderEstimatedAuditedValue),
+      ],
+    },
     { cells: ["Remainder: projected misstatement", "X_r − Ŷ_r", formatMoney(a.remainderProjectedMisstatement)] },
-    { cells: [`Key items at actual (${a.keyItems.count}): book value`, "examined 100 %", formatMoney(a.keyItems.bookValue)] },
+    {
+      cells: [
+        `Key items at actual (${a.keyItems.count}): book value`,
+        "examined 100 %",
+        formatMoney(a.keyItems.bookValue),
+      ],
+    },
     { cells: ["Key items: audited value", "", formatMoney(a.keyItems.auditedValue)] },
     { cells: ["Key items: misstatement", "book − audited", formatMoney(a.keyItems.misstatement)] },
-    { cells: [`Accepted anomalies at actual (${a.anomalies.count})`, "misstatement, ISA 530 ¶13", formatMoney(a.anomalies.misstatement)] },
+    {
+      cells: [
+        `Accepted anomalies at actual (${a.anomalies.count})`,
+        "misstatement, ISA 530 ¶13",
+        formatMoney(a.anomalies.misstatement),
+      ],
+    },
   ];
 }
 
-function figureRows(e: VariablesEvaluationBlock | StratifiedEvaluationBlock, estimator: string, bookValue: string): TableRow[] {
+function figureRows(
+  e: VariablesEvaluationBlock | StratifiedEvaluationBlock,
+  estimator: string,
+  bookValue: string,
+): TableRow[] {
   const d = e.decision;
   const coef = d.distribution === "t" ? `Student t_α (${d.degreesOfFreedom?.toFixed(1)} df)` : "Normal quantile z_α";
   const rows: TableRow[] = [
     ...atActualRows(e, estimator),
-    { cells: ["Estimated audited value", e.atActual ? "Ŷ_r + key items' audited value − anomalies" : ESTIMATE_FORMULA[estimator], formatMoney(e.estimatedAuditedValue)] },
+    {
+      cells: [
+        "Estimated audited value",
+        e.atActual ? "Ŷ_r + key items' audited value − anomalies" : ESTIMATE_FORMULA[estimator],
+        formatMoney(e.estimatedAuditedValue),
+      ],
+    },
     { cells: ["Projected misstatement", "X − Ŷ", formatMoney(e.projectedMisstatement)] },
     { cells: ["Standard error", `√v,  ${VARIANCE_FORMULA[estimator]}`, formatMoney(e.standardError)] },
-    { cells: [`${coef}, ${d.coefficientSides === "two" ? "two-sided" : "one-sided"}`, `risk of incorrect rejection ${formatRate(d.riskOfIncorrectRejection, 1)}`, formatFactor(d.coefficient)] },
+    {
+      cells: [
+        `${coef}, ${d.coefficientSides === "two" ? "two-sided" : "one-sided"}`,
+        `risk of incorrect rejection ${formatRate(d.riskOfIncorrectRejection, 1)}`,
+        formatFactor(d.coefficient),
+      ],
+    },
     { cells: ["Planned allowance A", "(TM − EM) · z_α / (z_α + z_β)", formatMoney(d.plannedAllowance)] },
     { cells: ["Achieved allowance A′", "z_α · SE", formatMoney(d.achievedAllowance)] },
   ];
-  if (d.adjustedAllowance !== null) rows.push({ cells: ["Adjusted allowance A″ (A′ > A)", "A′ + TM · (1 − A′/A)", formatMoney(d.adjustedAllowance)] });
+  if (d.adjustedAllowance !== null)
+    rows.push({ cells: ["Adjusted allowance A″ (A′ > A)", "A′ + TM · (1 − A′/A)", formatMoney(d.adjustedAllowance)] });
   if (d.lowerLimit !== null) rows.push({ cells: ["Lower limit", "Ŷ − allowance", formatMoney(d.lowerLimit)] });
   if (d.upperLimit !== null) rows.push({ cells: ["Upper limit", "Ŷ + allowance", formatMoney(d.upperLimit)] });
   rows.push({ total: true, cells: ["Recorded book value", "X", formatMoney(bookValue)] });
-  rows.push({ cells: ["Beyond the nearest limit", d.beyond === null ? "within the interval" : d.beyond === "upper" ? "X − upper limit" : "lower limit − X", formatMoney(d.beyondLimit)] });
+  rows.push({
+    cells: [
+      "Beyond the nearest limit",
+      d.beyond === null ? "within the interval" : d.beyond === "upper" ? "X − upper limit" : "lower limit − X",
+      formatMoney(d.beyondLimit),
+    ],
+  });
   return rows;
 }
 
@@ -65,7 +116,11 @@ function Against({ e }: { e: VariablesResultFigures }) {
   return <Callout>{e.decision.rule}</Callout>;
 }
 
-const FIGURE_COLUMNS = [{ label: "Measure", flex: 1 }, { label: "Formula", width: 200 }, { label: "Amount", width: 100, align: "right" as const }];
+const FIGURE_COLUMNS = [
+  { label: "Measure", flex: 1 },
+  { label: "Formula", width: 200 },
+  { label: "Amount", width: 100, align: "right" as const },
+];
 
 export function VariablesEvaluation({ e, currency }: { e: VariablesEvaluationBlock; currency: string }) {
   return (
@@ -73,9 +128,18 @@ export function VariablesEvaluation({ e, currency }: { e: VariablesEvaluationBlo
       <Facts
         facts={[
           { label: "Estimator", value: estimatorName(e.estimator) },
-          { label: "Confidence", value: `${formatRate(e.confidence, 0)} (risk of incorrect acceptance ${formatRate(e.decision.riskOfIncorrectAcceptance, 0)}), ${DIRECTION_WORDS[e.decision.direction]}` },
-          { label: "Population", value: `N = ${formatCount(e.populationSize)} items, X = ${currency} ${formatMoney(e.populationBookValue)}` },
-          { label: "Sample", value: `n = ${e.sampleSize}, book ${formatMoney(e.sampleBookValue)}, audited ${formatMoney(e.sampleAuditedValue)}` },
+          {
+            label: "Confidence",
+            value: `${formatRate(e.confidence, 0)} (risk of incorrect acceptance ${formatRate(e.decision.riskOfIncorrectAcceptance, 0)}), ${DIRECTION_WORDS[e.decision.direction]}`,
+          },
+          {
+            label: "Population",
+            value: `N = ${formatCount(e.populationSize)} items, X = ${currency} ${formatMoney(e.populationBookValue)}`,
+          },
+          {
+            label: "Sample",
+            value: `n = ${e.sampleSize}, book ${formatMoney(e.sampleBookValue)}, audited ${formatMoney(e.sampleAuditedValue)}`,
+          },
           { label: "Items with a misstatement", value: String(e.misstatementsInSample) },
         ]}
       />
@@ -92,8 +156,14 @@ export function StratifiedEvaluation({ e, currency }: { e: StratifiedEvaluationB
       <Facts
         facts={[
           { label: "Estimator", value: `${estimatorName(e.estimator)} (stratified)` },
-          { label: "Confidence", value: `${formatRate(e.confidence, 0)} (risk of incorrect acceptance ${formatRate(e.decision.riskOfIncorrectAcceptance, 0)}), ${DIRECTION_WORDS[e.decision.direction]}` },
-          { label: "Population", value: `N = ${formatCount(e.populationSize)} items, X = ${currency} ${formatMoney(e.populationBookValue)}` },
+          {
+            label: "Confidence",
+            value: `${formatRate(e.confidence, 0)} (risk of incorrect acceptance ${formatRate(e.decision.riskOfIncorrectAcceptance, 0)}), ${DIRECTION_WORDS[e.decision.direction]}`,
+          },
+          {
+            label: "Population",
+            value: `N = ${formatCount(e.populationSize)} items, X = ${currency} ${formatMoney(e.populationBookValue)}`,
+          },
           { label: "Items with a misstatement", value: String(e.misstatementsInSample) },
         ]}
       />
@@ -112,10 +182,23 @@ export function StratifiedEvaluation({ e, currency }: { e: StratifiedEvaluationB
           { label: "SE_h", width: 54, align: "right" },
         ]}
         rows={e.strata.map((st) => ({
-          cells: [String(st.number), st.label, formatCount(st.populationSize), formatMoney(st.populationBookValue), String(st.sampleSize), formatMoney(st.sampleBookValue), formatMoney(st.sampleAuditedValue), String(st.misstatementsInSample), formatMoney(st.estimatedAuditedValue), formatMoney(st.standardError)],
+          cells: [
+            String(st.number),
+            st.label,
+            formatCount(st.populationSize),
+            formatMoney(st.populationBookValue),
+            String(st.sampleSize),
+            formatMoney(st.sampleBookValue),
+            formatMoney(st.sampleAuditedValue),
+            String(st.misstatementsInSample),
+            formatMoney(st.estimatedAuditedValue),
+            formatMoney(st.standardError),
+          ],
         }))}
       />
-      <Text style={[s.small, s.faint, { marginTop: 2 }]}>Standard errors combine as √(Σ SE_h²): the strata are sampled independently.</Text>
+      <Text style={[s.small, s.faint, { marginTop: 2 }]}>
+        Standard errors combine as √(Σ SE_h²): the strata are sampled independently.
+      </Text>
       <SubHead>{`Evaluation (${currency})`}</SubHead>
       <Table repeatHeader={false} columns={FIGURE_COLUMNS} rows={figureRows(e, e.estimator, e.populationBookValue)} />
       <Against e={e} />

@@ -9,7 +9,9 @@ export function EvidenceIndexSection({ data }: { data: WorkpaperData }) {
   const rows = data.evidence ?? [];
   return (
     <Section number="B" title="Appendix — evidence index">
-      <Text style={[s.soft, { marginBottom: 4 }]}>Every file attached to an item of the current draw, with the SHA-256 of the bytes kept.</Text>
+      <Text style={[s.soft, { marginBottom: 4 }]}>
+        Every file attached to an item of the current draw, with the SHA-256 of the bytes kept.
+      </Text>
       <Table
         columns={[
           { label: "Item", width: 70 },
@@ -18,7 +20,9 @@ export function EvidenceIndexSection({ data }: { data: WorkpaperData }) {
           { label: "Attached by", width: 70 },
           { label: "When", width: 80 },
         ]}
-        rows={rows.map((e) => ({ cells: [e.reference, e.fileName, e.sha256, e.uploadedBy, formatDateTime(e.uploadedAt)] }))}
+        rows={rows.map((e) => ({
+          cells: [e.reference, e.fileName, e.sha256, e.uploadedBy, formatDateTime(e.uploadedAt)],
+        }))}
       />
       {rows.length === 0 && <Text style={s.soft}>No evidence files are attached.</Text>}
     </Section>

@@ -18,7 +18,8 @@ export function fontDirectory(): string {
     path.join(import.meta.dirname ?? "", "..", "..", "node_modules", "dejavu-fonts-ttf", "ttf"),
   ];
   const found = candidates.find((dir) => fs.existsSync(path.join(dir, "DejaVuSans.ttf")));
-  if (!found) throw new Error(`Workpaper fonts not found: looked in ${candidates.join(", ")} (is dejavu-fonts-ttf installed?)`);
+  if (!found)
+    throw new Error(`Workpaper fonts not found: looked in ${candidates.join(", ")} (is dejavu-fonts-ttf installed?)`);
   return found;
 }
 
@@ -37,10 +38,7 @@ export function registerWorkpaperFonts(): void {
   });
   Font.register({
     family: MONO,
-    fonts: [
-      { src: file("DejaVuSansMono.ttf") },
-      { src: file("DejaVuSansMono-Bold.ttf"), fontWeight: "bold" },
-    ],
+    fonts: [{ src: file("DejaVuSansMono.ttf") }, { src: file("DejaVuSansMono-Bold.ttf"), fontWeight: "bold" }],
   });
   // Words stay whole, except long unbroken tokens (SHA-256 digests, file names) which break every 16
   // characters so they wrap inside their column instead of running off the page.

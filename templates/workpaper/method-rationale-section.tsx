@@ -14,20 +14,34 @@ export function MethodRationale({ data }: { data: WorkpaperData }) {
     <View>
       <SubHead>Rationale for the method: estimator advisor (run {r.runId})</SubHead>
       <Paragraph>
-        Before the sample was drawn, each estimator was simulated on this population&rsquo;s book values with audited values made up from assumed
-        misstatements. The figures describe the assumption, not evidence.
+        Before the sample was drawn, each estimator was simulated on this population&rsquo;s book values with audited
+        values made up from assumed misstatements. The figures describe the assumption, not evidence.
       </Paragraph>
       <Facts
         facts={[
           { label: "Assumed misstatements", value: r.scenario },
-          { label: `True audited total under it (${c})`, value: `${formatMoney(r.trueAuditedTotal)} (misstatement ${formatMoney(r.trueMisstatement)})` },
-          { label: "Trials and seed", value: `${formatCount(r.trials)} per sample size; seed ${r.seed} (${r.seedSource})`, mono: true },
+          {
+            label: `True audited total under it (${c})`,
+            value: `${formatMoney(r.trueAuditedTotal)} (misstatement ${formatMoney(r.trueMisstatement)})`,
+          },
+          {
+            label: "Trials and seed",
+            value: `${formatCount(r.trials)} per sample size; seed ${r.seed} (${r.seedSource})`,
+            mono: true,
+          },
           { label: "Bound tested", value: r.bound },
           { label: "Run", value: `${formatDateTime(r.ranAt)} by ${r.ranBy}` },
-          { label: "Recommended", value: r.recommended ? `${r.recommended} at n = ${r.atSize}` : `none at n = ${r.atSize}` },
+          {
+            label: "Recommended",
+            value: r.recommended ? `${r.recommended} at n = ${r.atSize}` : `none at n = ${r.atSize}`,
+          },
         ]}
       />
-      {r.keptReason && <Callout tone="warning"><Text>Kept as the rationale with this reason: {r.keptReason}</Text></Callout>}
+      {r.keptReason && (
+        <Callout tone="warning">
+          <Text>Kept as the rationale with this reason: {r.keptReason}</Text>
+        </Callout>
+      )}
       <Table
         columns={[
           { label: "n", width: 36, align: "right" },
@@ -39,20 +53,39 @@ export function MethodRationale({ data }: { data: WorkpaperData }) {
           { label: "Mean allowance", width: 76, align: "right" },
         ]}
         rows={r.rows.map((row) => ({
-          cells: [String(row.sampleSize), row.recommended ? `${row.estimator} (recommended)` : row.estimator, formatMoney(row.bias), formatMoney(row.standardDeviation), formatMoney(row.rmse), formatRate(row.coverage, 1), formatMoney(row.meanAllowance)],
+          cells: [
+            String(row.sampleSize),
+            row.recommended ? `${row.estimator} (recommended)` : row.estimator,
+            formatMoney(row.bias),
+            formatMoney(row.standardDeviation),
+            formatMoney(row.rmse),
+            formatRate(row.coverage, 1),
+            formatMoney(row.meanAllowance),
+          ],
           total: row.recommended,
         }))}
       />
       <Text style={[s.small, s.faint, { marginTop: 2 }]}>
-        Coverage: share of trials whose bound held the true audited total; below {formatRate(r.coverageFloor, 1)} (the confidence less two Monte Carlo standard errors) counts as short. RMSE² = bias² + standard deviation².
+        Coverage: share of trials whose bound held the true audited total; below {formatRate(r.coverageFloor, 1)} (the
+        confidence less two Monte Carlo standard errors) counts as short. RMSE² = bias² + standard deviation².
       </Text>
       <Callout>
         <Text>{r.summary}</Text>
-        {r.reasons.map((reason, i) => <Text key={i}>• {reason}</Text>)}
+        {r.reasons.map((reason, i) => (
+          <Text key={i}>• {reason}</Text>
+        ))}
         {r.tradeOff && <Text>{r.tradeOff}</Text>}
       </Callout>
-      {r.planChanged && <Callout tone="warning">The plan was changed after this run; the figures were simulated for the plan as it was then.</Callout>}
-      {r.notes.map((n, i) => <Text key={i} style={[s.small, s.faint]}>{n}</Text>)}
+      {r.planChanged && (
+        <Callout tone="warning">
+          The plan was changed after this run; the figures were simulated for the plan as it was then.
+        </Callout>
+      )}
+      {r.notes.map((n, i) => (
+        <Text key={i} style={[s.small, s.faint]}>
+          {n}
+        </Text>
+      ))}
     </View>
   );
 }

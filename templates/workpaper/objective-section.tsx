@@ -3,7 +3,11 @@ import { Text } from "@react-pdf/renderer";
 import { Facts, Paragraph, Section } from "./primitives";
 import type { WorkpaperData } from "./workpaper-data";
 
-const DIRECTIONS = { overstatement: "Overstatement", understatement: "Understatement", both: "Overstatement and understatement" } as const;
+const DIRECTIONS = {
+  overstatement: "Overstatement",
+  understatement: "Understatement",
+  both: "Overstatement and understatement",
+} as const;
 
 export function ObjectiveSection({ data }: { data: WorkpaperData }) {
   const o = data.objective;
@@ -14,7 +18,14 @@ export function ObjectiveSection({ data }: { data: WorkpaperData }) {
         facts={[
           { label: "Assertion", value: o.assertion },
           { label: "Direction tested", value: DIRECTIONS[o.direction] },
-          ...(o.misstatementDefinition ? [{ label: data.plan.method === "attribute" ? "Deviation is" : "Misstatement is", value: o.misstatementDefinition }] : []),
+          ...(o.misstatementDefinition
+            ? [
+                {
+                  label: data.plan.method === "attribute" ? "Deviation is" : "Misstatement is",
+                  value: o.misstatementDefinition,
+                },
+              ]
+            : []),
         ]}
       />
       <Text> </Text>

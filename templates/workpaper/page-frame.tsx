@@ -14,7 +14,10 @@ const FOOTER_TOP = 841.89 - 20 - 30;
 export const DRAFT_MARK = "DRAFT — NOT SIGNED OFF";
 
 /** What the frame prints: any workpaper (the sample's, the summary of misstatements) can supply it. */
-export type PageFrameData = Pick<WorkpaperData, "firmName" | "clientName" | "engagementName" | "periodEnd" | "workpaperReference" | "draft"> & { caution?: string };
+export type PageFrameData = Pick<
+  WorkpaperData,
+  "firmName" | "clientName" | "engagementName" | "periodEnd" | "workpaperReference" | "draft"
+> & { caution?: string };
 
 export function RunningHeader({ data }: { data: PageFrameData }) {
   return (
@@ -33,9 +36,21 @@ export function RunningHeader({ data }: { data: PageFrameData }) {
       </View>
       <View style={{ height: 1.6, backgroundColor: colours.ledger, marginTop: 5 }} />
       {data.draft && (
-        <View style={{ flexDirection: "row", backgroundColor: colours.draftTint, paddingVertical: 2, paddingHorizontal: 6, marginTop: 2 }}>
-          <Text style={{ fontSize: 7, fontWeight: "bold", color: colours.draft, letterSpacing: 0.8 }}>{DRAFT_MARK}</Text>
-          <Text style={{ fontSize: 7, color: colours.draft, marginLeft: 8 }}>Preview before lock — not for reliance</Text>
+        <View
+          style={{
+            flexDirection: "row",
+            backgroundColor: colours.draftTint,
+            paddingVertical: 2,
+            paddingHorizontal: 6,
+            marginTop: 2,
+          }}
+        >
+          <Text style={{ fontSize: 7, fontWeight: "bold", color: colours.draft, letterSpacing: 0.8 }}>
+            {DRAFT_MARK}
+          </Text>
+          <Text style={{ fontSize: 7, color: colours.draft, marginLeft: 8 }}>
+            Preview before lock — not for reliance
+          </Text>
         </View>
       )}
     </View>
@@ -45,13 +60,21 @@ export function RunningHeader({ data }: { data: PageFrameData }) {
 export function Footer({ data }: { data: PageFrameData }) {
   return (
     // Positioned from the top with a fixed height: an auto-height bottom-anchored fixed view drifts on long documents (react-pdf #3416).
-    <View fixed style={{ position: "absolute", top: FOOTER_TOP, height: 30, left: PAGE_MARGIN_X, right: PAGE_MARGIN_X }}>
+    <View
+      fixed
+      style={{ position: "absolute", top: FOOTER_TOP, height: 30, left: PAGE_MARGIN_X, right: PAGE_MARGIN_X }}
+    >
       <View style={{ height: 0.5, backgroundColor: colours.hairline, marginBottom: 4 }} />
       <View style={{ flexDirection: "row" }}>
         <Text style={[s.faint, { flex: 1, fontSize: 6.5, paddingRight: 16 }]}>{data.caution ?? CAUTION}</Text>
         <View style={{ alignItems: "flex-end", width: 120 }}>
-          <Text style={{ fontSize: 7.5 }} render={({ pageNumber, totalPages }) => `Page ${pageNumber} of ${totalPages}`} />
-          <Text style={[s.faint, { fontSize: 6.5 }]}>{`Workpaper ${data.workpaperReference}${data.draft ? " · draft" : ""}`}</Text>
+          <Text
+            style={{ fontSize: 7.5 }}
+            render={({ pageNumber, totalPages }) => `Page ${pageNumber} of ${totalPages}`}
+          />
+          <Text
+            style={[s.faint, { fontSize: 6.5 }]}
+          >{`Workpaper ${data.workpaperReference}${data.draft ? " · draft" : ""}`}</Text>
         </View>
       </View>
     </View>

@@ -33,8 +33,14 @@ function SizeComputation({ plan }: { plan: PlanBlock }) {
       </View>
       <Table
         repeatHeader={false}
-        columns={[{ label: "Symbol", width: 60 }, { label: "Meaning", flex: 1 }, { label: "Value", width: 110, align: "right" }]}
-        rows={plan.formula.inputs.map((input) => ({ cells: [input.symbol, input.meaning, formatByKind(input.kind, input.value)] }))}
+        columns={[
+          { label: "Symbol", width: 60 },
+          { label: "Meaning", flex: 1 },
+          { label: "Value", width: 110, align: "right" },
+        ]}
+        rows={plan.formula.inputs.map((input) => ({
+          cells: [input.symbol, input.meaning, formatByKind(input.kind, input.value)],
+        }))}
       />
     </View>
   );
@@ -54,7 +60,13 @@ function StrataPlan({ plan, currency }: { plan: PlanBlock; currency: string }) {
           { label: "Sample", width: 55, align: "right" },
         ]}
         rows={plan.strata.map((st) => ({
-          cells: [String(st.number), st.label, formatCount(st.populationSize), formatMoney(st.bookValue), String(st.sampleSize)],
+          cells: [
+            String(st.number),
+            st.label,
+            formatCount(st.populationSize),
+            formatMoney(st.bookValue),
+            String(st.sampleSize),
+          ],
         }))}
       />
     </View>
@@ -67,10 +79,21 @@ export function PlanSection({ data }: { data: WorkpaperData }) {
   const sizeFacts = [
     { label: "Computed sample size", value: formatCount(plan.computedSize) },
     { label: "Chosen sample size", value: formatCount(plan.chosenSize) },
-    ...(plan.allowedDeviations !== null ? [{ label: "Deviations allowed by the plan", value: String(plan.allowedDeviations) }] : []),
+    ...(plan.allowedDeviations !== null
+      ? [{ label: "Deviations allowed by the plan", value: String(plan.allowedDeviations) }]
+      : []),
     ...(plan.interval !== null ? [{ label: `Sampling interval (${c})`, value: formatMoney(plan.interval) }] : []),
-    ...(plan.topStratumThreshold !== null ? [{ label: `Top stratum from (${c})`, value: formatMoney(plan.topStratumThreshold) }] : []),
-    ...(plan.topStratum ? [{ label: "Top stratum", value: `${plan.topStratum.count} items, ${c} ${formatMoney(plan.topStratum.total)}, examined 100%` }] : []),
+    ...(plan.topStratumThreshold !== null
+      ? [{ label: `Top stratum from (${c})`, value: formatMoney(plan.topStratumThreshold) }]
+      : []),
+    ...(plan.topStratum
+      ? [
+          {
+            label: "Top stratum",
+            value: `${plan.topStratum.count} items, ${c} ${formatMoney(plan.topStratum.total)}, examined 100%`,
+          },
+        ]
+      : []),
   ];
   return (
     <Section number="3" title="Method and sample size">
@@ -92,7 +115,11 @@ export function PlanSection({ data }: { data: WorkpaperData }) {
         </Callout>
       )}
       <StrataPlan plan={plan} currency={c} />
-      {plan.warnings.map((w, i) => <Callout key={i} tone="warning">{w}</Callout>)}
+      {plan.warnings.map((w, i) => (
+        <Callout key={i} tone="warning">
+          {w}
+        </Callout>
+      ))}
       <MethodRationale data={data} />
     </Section>
   );

@@ -21,13 +21,25 @@ function Reconciliation({ p, currency }: { p: PopulationBlock; currency: string 
       <Facts
         facts={[
           { label: `Population total (${currency})`, value: formatMoney(p.total) },
-          { label: `Control total (${currency})`, value: r.controlTotal === null ? "—" : `${formatMoney(r.controlTotal)}${r.controlSource ? ` — ${r.controlSource}` : ""}` },
+          {
+            label: `Control total (${currency})`,
+            value:
+              r.controlTotal === null
+                ? "—"
+                : `${formatMoney(r.controlTotal)}${r.controlSource ? ` — ${r.controlSource}` : ""}`,
+          },
           { label: `Difference (${currency})`, value: formatMoney(r.difference) },
           { label: "Status", value: RECONCILIATION[r.status] },
         ]}
       />
-      {r.explanation && <Callout tone={r.status === "unreconciled" ? "warning" : "note"}>{`Explanation: ${r.explanation}`}</Callout>}
-      {r.status === "unreconciled" && !r.explanation && <Callout tone="warning">The population does not agree to its control total and no explanation is recorded.</Callout>}
+      {r.explanation && (
+        <Callout tone={r.status === "unreconciled" ? "warning" : "note"}>{`Explanation: ${r.explanation}`}</Callout>
+      )}
+      {r.status === "unreconciled" && !r.explanation && (
+        <Callout tone="warning">
+          The population does not agree to its control total and no explanation is recorded.
+        </Callout>
+      )}
     </View>
   );
 }
@@ -55,11 +67,18 @@ export function PopulationSection({ data }: { data: WorkpaperData }) {
           <Facts
             facts={[
               { label: "Zero book values", value: `${p.excluded.zeroCount} items` },
-              { label: "Negative book values", value: `${p.excluded.negativeCount} items, ${c} ${formatMoney(p.excluded.negativeTotal)}` },
+              {
+                label: "Negative book values",
+                value: `${p.excluded.negativeCount} items, ${c} ${formatMoney(p.excluded.negativeTotal)}`,
+              },
               { label: "How they are addressed", value: p.excluded.treatment ?? "Not recorded" },
             ]}
           />
-          {!p.excluded.treatment && <Text style={[s.small, s.faint]}>Excluded items are never selected by this sample; they need a procedure of their own.</Text>}
+          {!p.excluded.treatment && (
+            <Text style={[s.small, s.faint]}>
+              Excluded items are never selected by this sample; they need a procedure of their own.
+            </Text>
+          )}
         </View>
       )}
     </Section>

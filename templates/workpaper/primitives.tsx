@@ -5,7 +5,17 @@ import type { Style } from "./styles";
 import { s } from "./styles";
 
 /** A numbered section; `keepTogether` moves it whole to the next page rather than splitting it. */
-export function Section({ number, title, children, keepTogether }: { number: string; title: string; children: ReactNode; keepTogether?: boolean }) {
+export function Section({
+  number,
+  title,
+  children,
+  keepTogether,
+}: {
+  number: string;
+  title: string;
+  children: ReactNode;
+  keepTogether?: boolean;
+}) {
   return (
     <View style={s.section} wrap={!keepTogether}>
       <View style={s.sectionHead} minPresenceAhead={60} wrap={false}>
@@ -18,10 +28,18 @@ export function Section({ number, title, children, keepTogether }: { number: str
 }
 
 export function SubHead({ children }: { children: ReactNode }) {
-  return <Text style={s.subHead} minPresenceAhead={30}>{children}</Text>;
+  return (
+    <Text style={s.subHead} minPresenceAhead={30}>
+      {children}
+    </Text>
+  );
 }
 
-export interface Fact { label: string; value: ReactNode; mono?: boolean }
+export interface Fact {
+  label: string;
+  value: ReactNode;
+  mono?: boolean;
+}
 
 export function Facts({ facts }: { facts: Fact[] }) {
   return (
@@ -29,9 +47,11 @@ export function Facts({ facts }: { facts: Fact[] }) {
       {facts.map((fact) => (
         <View key={fact.label} style={s.factRow} wrap={false}>
           <Text style={s.factLabel}>{fact.label}</Text>
-          {typeof fact.value === "string" || typeof fact.value === "number"
-            ? <Text style={[s.factValue, fact.mono ? s.mono : {}]}>{fact.value}</Text>
-            : <View style={s.factValue}>{fact.value}</View>}
+          {typeof fact.value === "string" || typeof fact.value === "number" ? (
+            <Text style={[s.factValue, fact.mono ? s.mono : {}]}>{fact.value}</Text>
+          ) : (
+            <View style={s.factValue}>{fact.value}</View>
+          )}
         </View>
       ))}
     </View>
@@ -62,12 +82,22 @@ function cellStyle(column: Column): Style[] {
 }
 
 /** A table whose header row repeats on every page it spans (fixed inside the wrapping table). */
-export function Table({ columns, rows, repeatHeader = true }: { columns: Column[]; rows: TableRow[]; repeatHeader?: boolean }) {
+export function Table({
+  columns,
+  rows,
+  repeatHeader = true,
+}: {
+  columns: Column[];
+  rows: TableRow[];
+  repeatHeader?: boolean;
+}) {
   return (
     <View style={s.table}>
       <View style={s.headRow} fixed={repeatHeader}>
         {columns.map((column, i) => (
-          <Text key={i} style={[...cellStyle(column), s.headCell]}>{column.label}</Text>
+          <Text key={i} style={[...cellStyle(column), s.headCell]}>
+            {column.label}
+          </Text>
         ))}
       </View>
       {rows.map((row, r) => (
@@ -78,9 +108,15 @@ export function Table({ columns, rows, repeatHeader = true }: { columns: Column[
             if (column.mono) extra.push(s.mono);
             if (row.total) extra.push(s.bold);
             if (row.muted) extra.push(s.faint);
-            return typeof cell === "string" || typeof cell === "number" || cell === null
-              ? <Text key={c} style={[...cellStyle(column), ...extra]}>{cell ?? ""}</Text>
-              : <View key={c} style={cellStyle(column)}>{cell}</View>;
+            return typeof cell === "string" || typeof cell === "number" || cell === null ? (
+              <Text key={c} style={[...cellStyle(column), ...extra]}>
+                {cell ?? ""}
+              </Text>
+            ) : (
+              <View key={c} style={cellStyle(column)}>
+                {cell}
+              </View>
+            );
           })}
         </View>
       ))}

@@ -23,7 +23,8 @@ const lines = (text: string | null | undefined, perLine: number) => (text ? Math
 export function estimateRowHeight(item: WorkpaperItem): number {
   const tags = `row ${item.rowNumber}${item.hitPoints.length ? ` · hit at ${item.hitPoints.join(", ")}` : ""}${item.topStratum ? " · top stratum" : ""}`;
   const reference = lines(`${item.reference}  ${item.description ?? ""}`, REFERENCE_CHARS) + lines(tags, TAG_CHARS);
-  const note = lines(item.deviationNature, NOTE_CHARS) + lines(item.cause, NOTE_CHARS) + lines(item.comment, NOTE_CHARS);
+  const note =
+    lines(item.deviationNature, NOTE_CHARS) + lines(item.cause, NOTE_CHARS) + lines(item.comment, NOTE_CHARS);
   return ROW_PADDING + LINE * Math.max(1, reference, note);
 }
 

@@ -8,7 +8,13 @@ import type { WorkpaperData, WorkpaperItem } from "./workpaper-data";
 import { formatMoney } from "@/lib/format/number";
 
 const STATUS = ITEM_STATUS_LABELS;
-const ORIGIN = { selection: "", extension: "extension", replacement: "replacement", "key-item": "key item (100 %)", haphazard: "haphazard pick" } as const;
+const ORIGIN = {
+  selection: "",
+  extension: "extension",
+  replacement: "replacement",
+  "key-item": "key item (100 %)",
+  haphazard: "haphazard pick",
+} as const;
 
 function ReferenceCell({ item, showHits }: { item: WorkpaperItem; showHits: boolean }) {
   const tags = [
@@ -16,7 +22,9 @@ function ReferenceCell({ item, showHits }: { item: WorkpaperItem; showHits: bool
     showHits && item.hitPoints.length > 0 ? `hit at ${item.hitPoints.map(formatMoney).join(", ")}` : "",
     item.topStratum ? "top stratum" : "",
     ORIGIN[item.origin],
-  ].filter(Boolean).join(" · ");
+  ]
+    .filter(Boolean)
+    .join(" · ");
   return (
     <View>
       <Text style={{ fontSize: 7.5 }}>
@@ -33,7 +41,11 @@ function NoteCell({ parts }: { parts: (string | null)[] }) {
   return (
     <View>
       {first && <Text style={{ fontSize: 7.2 }}>{first}</Text>}
-      {rest.map((p, i) => <Text key={i} style={[s.soft, { fontSize: 6.8 }]}>{p}</Text>)}
+      {rest.map((p, i) => (
+        <Text key={i} style={[s.soft, { fontSize: 6.8 }]}>
+          {p}
+        </Text>
+      ))}
     </View>
   );
 }
@@ -42,7 +54,11 @@ function sum(values: (string | null)[]): string {
   return centsToDecimal(values.reduce<bigint>((acc, v) => (v === null ? acc : acc + decimalToCents(v)), 0n));
 }
 
-function monetaryTable(data: WorkpaperData, items: WorkpaperItem[], live: WorkpaperItem[] | null): { columns: Column[]; rows: TableRow[] } {
+function monetaryTable(
+  data: WorkpaperData,
+  items: WorkpaperItem[],
+  live: WorkpaperItem[] | null,
+): { columns: Column[]; rows: TableRow[] } {
   const stratified = data.plan.method === "stratified";
   const columns: Column[] = [
     { label: "#", width: 22, align: "right" },
@@ -85,7 +101,11 @@ function monetaryTable(data: WorkpaperData, items: WorkpaperItem[], live: Workpa
   return { columns, rows };
 }
 
-function attributeTable(data: WorkpaperData, items: WorkpaperItem[], live: WorkpaperItem[] | null): { columns: Column[]; rows: TableRow[] } {
+function attributeTable(
+  data: WorkpaperData,
+  items: WorkpaperItem[],
+  live: WorkpaperItem[] | null,
+): { columns: Column[]; rows: TableRow[] } {
   const columns: Column[] = [
     { label: "#", width: 22, align: "right" },
     { label: "Reference and description", flex: 1.3 },
@@ -107,7 +127,17 @@ function attributeTable(data: WorkpaperData, items: WorkpaperItem[], live: Workp
   }));
   if (!live) return { columns, rows };
   const deviations = live.filter((i) => i.deviation === true).length;
-  rows.push({ total: true, cells: ["", `Total — ${live.length} items`, formatMoney(sum(live.map((i) => i.bookValue))), `${deviations}`, "", ""] });
+  rows.push({
+    total: true,
+    cells: [
+      "",
+      `Total — ${live.length} items`,
+      formatMoney(sum(live.map((i) => i.bookValue))),
+      `${deviations}`,
+      "",
+      "",
+    ],
+  });
   return { columns, rows };
 }
 
@@ -115,13 +145,29 @@ function attributeTable(data: WorkpaperData, items: WorkpaperItem[], live: Workp
  * Section 5. `items` is one page-sized run of the sample (see results-pages.ts): the first run
  * carries the heading, the last the totals; the others continue the table under its header row.
  */
-export function ResultsSection({ data, items, first, last }: { data: WorkpaperData; items: WorkpaperItem[]; first: boolean; last: boolean }) {
+export function ResultsSection({
+  data,
+  items,
+  first,
+  last,
+}: {
+  data: WorkpaperData;
+  items: WorkpaperItem[];
+  first: boolean;
+  last: boolean;
+}) {
   const live = data.items.filter((i) => i.status !== "void");
   const build = data.plan.method === "attribute" ? attributeTable : monetaryTable;
   const { columns, rows } = build(data, items, last ? live : null);
   const open = live.filter((i) => i.status === "not-started").length;
   const table = <Table columns={columns} rows={rows} />;
-  if (!first) return <View>{table}{last && open > 0 && <NotAudited open={open} />}</View>;
+  if (!first)
+    return (
+      <View>
+        {table}
+        {last && open > 0 && <NotAudited open={open} />}
+      </View>
+    );
   return (
     <Section number="5" title="Results">
       <Text style={[s.soft, { marginBottom: 4 }]}>
@@ -135,5 +181,9 @@ export function ResultsSection({ data, items, first, last }: { data: WorkpaperDa
 }
 
 function NotAudited({ open }: { open: number }) {
-  return <Text style={{ color: colours.warn, marginTop: 4 }}>{open} item{open === 1 ? " is" : "s are"} not yet audited.</Text>;
+  return (
+    <Text style={{ color: colours.warn, marginTop: 4 }}>
+      {open} item{open === 1 ? " is" : "s are"} not yet audited.
+    </Text>
+  );
 }

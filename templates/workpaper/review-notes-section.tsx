@@ -8,7 +8,10 @@ import { formatDateTime } from "@/lib/format/date";
 function Note({ note }: { note: ReviewNote }) {
   const cleared = note.clearedAt !== null;
   return (
-    <View style={{ flexDirection: "row", borderBottomWidth: 0.4, borderBottomColor: colours.hairline, paddingVertical: 4 }} wrap={false}>
+    <View
+      style={{ flexDirection: "row", borderBottomWidth: 0.4, borderBottomColor: colours.hairline, paddingVertical: 4 }}
+      wrap={false}
+    >
       <Text style={[s.bold, { width: 22, color: colours.ledger }]}>{`R${note.number}`}</Text>
       <View style={{ flex: 1 }}>
         <Text>{note.text}</Text>
@@ -22,7 +25,11 @@ function Note({ note }: { note: ReviewNote }) {
       </View>
       <View style={{ width: 150, alignItems: "flex-end" }}>
         <Text style={[s.bold, { color: cleared ? colours.ledger : colours.warn }]}>{cleared ? "Cleared" : "Open"}</Text>
-        {cleared && <Text style={[s.faint, s.small, s.right]}>{`${note.clearedBy ?? ""}, ${formatDateTime(note.clearedAt)}`}</Text>}
+        {cleared && (
+          <Text
+            style={[s.faint, s.small, s.right]}
+          >{`${note.clearedBy ?? ""}, ${formatDateTime(note.clearedAt)}`}</Text>
+        )}
       </View>
     </View>
   );
@@ -36,8 +43,12 @@ export function ReviewNotesSection({ data }: { data: WorkpaperData }) {
         <Text style={s.soft}>No review notes were raised.</Text>
       ) : (
         <View>
-          <Text style={[s.soft, { marginBottom: 3 }]}>{`${data.reviewNotes.length} note${data.reviewNotes.length === 1 ? "" : "s"}, ${open} open.`}</Text>
-          {data.reviewNotes.map((note) => <Note key={note.number} note={note} />)}
+          <Text
+            style={[s.soft, { marginBottom: 3 }]}
+          >{`${data.reviewNotes.length} note${data.reviewNotes.length === 1 ? "" : "s"}, ${open} open.`}</Text>
+          {data.reviewNotes.map((note) => (
+            <Note key={note.number} note={note} />
+          ))}
         </View>
       )}
     </Section>

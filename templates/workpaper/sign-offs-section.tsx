@@ -7,7 +7,15 @@ import { formatDateTime } from "@/lib/format/date";
 
 function Box({ title, signOff }: { title: string; signOff: SignOff | null }) {
   return (
-    <View style={{ flex: 1, borderTopWidth: 1.2, borderTopColor: signOff ? colours.ledger : colours.hairline, paddingTop: 5, marginRight: 14 }}>
+    <View
+      style={{
+        flex: 1,
+        borderTopWidth: 1.2,
+        borderTopColor: signOff ? colours.ledger : colours.hairline,
+        paddingTop: 5,
+        marginRight: 14,
+      }}
+    >
       <Text style={[s.faint, { fontSize: 6.5, letterSpacing: 0.6 }]}>{title.toUpperCase()}</Text>
       {signOff ? (
         <View>
@@ -28,7 +36,14 @@ export function SignOffsSection({ data }: { data: WorkpaperData }) {
       <View style={{ flexDirection: "row" }} wrap={false}>
         <Box title="Prepared by" signOff={data.signOffs.preparer} />
         <Box title="Reviewed by" signOff={data.signOffs.reviewer} />
-        <View style={{ flex: 1, borderTopWidth: 1.2, borderTopColor: data.lock ? colours.ledger : colours.hairline, paddingTop: 5 }}>
+        <View
+          style={{
+            flex: 1,
+            borderTopWidth: 1.2,
+            borderTopColor: data.lock ? colours.ledger : colours.hairline,
+            paddingTop: 5,
+          }}
+        >
           <Text style={[s.faint, { fontSize: 6.5, letterSpacing: 0.6 }]}>LOCKED</Text>
           {data.lock ? (
             <View>

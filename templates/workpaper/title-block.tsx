@@ -32,9 +32,22 @@ export function TitleBlock({ data }: { data: WorkpaperData }) {
     : "Draft — not signed off, not locked";
   return (
     <View style={{ marginBottom: 4 }}>
-      <Text style={[s.faint, { fontSize: 7.5, letterSpacing: 0.8 }]}>{methodTitle(data.plan.method).toUpperCase()}</Text>
-      <Text style={{ fontSize: 17, lineHeight: 1.2, fontWeight: "bold", marginTop: 2, marginBottom: 8 }}>{data.sampleName}</Text>
-      <View style={{ flexDirection: "row", flexWrap: "wrap", borderTopWidth: 0.5, borderBottomWidth: 0.5, borderColor: colours.hairline, paddingVertical: 2 }}>
+      <Text style={[s.faint, { fontSize: 7.5, letterSpacing: 0.8 }]}>
+        {methodTitle(data.plan.method).toUpperCase()}
+      </Text>
+      <Text style={{ fontSize: 17, lineHeight: 1.2, fontWeight: "bold", marginTop: 2, marginBottom: 8 }}>
+        {data.sampleName}
+      </Text>
+      <View
+        style={{
+          flexDirection: "row",
+          flexWrap: "wrap",
+          borderTopWidth: 0.5,
+          borderBottomWidth: 0.5,
+          borderColor: colours.hairline,
+          paddingVertical: 2,
+        }}
+      >
         <Cell label="Client" value={data.clientName} width="34%" />
         <Cell label="Engagement" value={data.engagementName} width="33%" />
         <Cell label="Period end" value={formatDate(data.periodEnd)} width="33%" />
@@ -42,7 +55,9 @@ export function TitleBlock({ data }: { data: WorkpaperData }) {
         <Cell label="Currency" value={data.currency} width="33%" />
         <Cell label="Generated" value={formatDateTime(data.generatedAt)} width="33%" />
       </View>
-      <Text style={[{ marginTop: 5, fontSize: 8 }, data.lock ? { color: colours.ledger } : { color: colours.draft }]}>{state}</Text>
+      <Text style={[{ marginTop: 5, fontSize: 8 }, data.lock ? { color: colours.ledger } : { color: colours.draft }]}>
+        {state}
+      </Text>
     </View>
   );
 }

@@ -12,7 +12,13 @@
  * - Optional facts are `null`, never omitted, so a missing value is visible in review.
  */
 import type { MethodRationaleBlock } from "@/lib/advisor/describe";
-import type { EvaluationBlock, Estimator, Money, ComputedResult, StratifiedEstimator } from "@/lib/samples/evaluation-types";
+import type {
+  EvaluationBlock,
+  Estimator,
+  Money,
+  ComputedResult,
+  StratifiedEstimator,
+} from "@/lib/samples/evaluation-types";
 
 export type { MethodRationaleBlock };
 export type * from "@/lib/samples/evaluation-types";
@@ -61,7 +67,13 @@ export interface WorkpaperData {
   evidence?: EvidenceIndexRow[];
 }
 
-export interface EvidenceIndexRow { reference: string; fileName: string; sha256: string; uploadedBy: string; uploadedAt: IsoTime }
+export interface EvidenceIndexRow {
+  reference: string;
+  fileName: string;
+  sha256: string;
+  uploadedBy: string;
+  uploadedAt: IsoTime;
+}
 
 export interface ObjectiveBlock {
   /** The test objective in the auditor's words. */
@@ -172,13 +184,26 @@ export interface SizingBlock {
 
 export interface KeyItemsBlock {
   threshold: Money | null;
-  items: { reference: string; rowNumber: number; bookValue: Money; basis: "threshold" | "chosen"; reason: string | null; misstatement: Money | null }[];
+  items: {
+    reference: string;
+    rowNumber: number;
+    bookValue: Money;
+    basis: "threshold" | "chosen";
+    reason: string | null;
+    misstatement: Money | null;
+  }[];
   count: number;
   total: Money;
   remainder: { count: number; total: Money };
 }
 
-export interface HaphazardPick { reference: string; rowNumber: number; bookValue: Money; pickedBy: string | null; pickedAt: IsoTime | null }
+export interface HaphazardPick {
+  reference: string;
+  rowNumber: number;
+  bookValue: Money;
+  pickedBy: string | null;
+  pickedAt: IsoTime | null;
+}
 
 export interface AnomalyRow {
   reference: string;
@@ -241,7 +266,6 @@ export interface WorkpaperItem {
   deviationNature: string | null;
 }
 
-
 export interface AuditorResponseLine {
   kind: string;
   /** The response in words ("Ask the client to adjust (amount)"). */
@@ -257,7 +281,13 @@ export interface ConclusionBlock {
   /** How items that could not be audited were treated, and the method's cautions. */
   notes: string[];
   /** The auditor's conclusion and response in their words; null while not yet written. */
-  auditor: { conclusion: string; responses: AuditorResponseLine[]; writtenBy: string; role: string; writtenAt: IsoTime } | null;
+  auditor: {
+    conclusion: string;
+    responses: AuditorResponseLine[];
+    writtenBy: string;
+    role: string;
+    writtenAt: IsoTime;
+  } | null;
 }
 
 export interface ReviewNote {

@@ -19,10 +19,17 @@ import { loadLocalEnv } from "../../db/load-env";
 import { generateLedgerCsv } from "./generate-ledger";
 import { readFile } from "node:fs/promises";
 import { runAdvisorJob } from "../../lib/advisor/compute";
-import { APP_URL, ROOT, buildIfNeeded, ensureDatabaseServer, prepareDatabase, startApp, type RunningApp } from "./support/bench-app";
+import {
+  APP_URL,
+  ROOT,
+  buildIfNeeded,
+  ensureDatabaseServer,
+  prepareDatabase,
+  startApp,
+  type RunningApp,
+} from "./support/bench-app";
 import { HttpSession } from "./support/http-session";
 import { formatTable, median } from "./support/stats";
-
 
 const GOALS = { runS: 2, p95Ms: 250 };
 const SCENARIO = { kind: "pattern", misstatedPercent: 10, tainting: "mostly-small", overstatementPercent: 90 } as const;
@@ -57,7 +64,13 @@ function pollLatencies(session: HttpSession, path: string, everyMs: number) {
       await new Promise((r) => setTimeout(r, everyMs));
     }
   })();
-  return { async stop() { running = false; await loop; return { latencies: [...latencies].sort((a, b) => a - b), failures }; } };
+  return {
+    async stop() {
+      running = false;
+      await loop;
+      return { latencies: [...latencies].sort((a, b) => a - b), failures };
+    },
+  };
 }
 
 async function main(): Promise<void> {
@@ -84,12 +97,25 @@ async function main(): Promise<void> {
     let estimatorCount = 0;
     for (let i = 0; i < 3; i++) {
       const t = performance.now();
-      const result = runAdvisorJob({ bookValues, scenario: { kind: "pattern", misstatedShare: 0.1, tainting: "mostly-small", overstatementShare: 0.9 }, sampleSizes: [n], trials, seed: 11 + i, confidence: 0.95, sides: "lower", plannedSize: n, includeStringer: false, factors: "exact" });
+      const result = runAdvisorJob({
+        bookValues,
+        scenario: { kind: "pattern", misstatedShare: 0.1, tainting: "mostly-small", overstatementShare: 0.9 },
+        sampleSizes: [n],
+        trials,
+        seed: 11 + i,
+        confidence: 0.95,
+        sides: "lower",
+        plannedSize: n,
+        includeStringer: false,
+        factors: "exact",
+      });
       inProcess.push((performance.now() - t) / 1000);
       if (result.cells.length !== 8) throw new Error(`expected 8 estimators, got ${result.cells.length}`);
       estimatorCount = result.cells.length;
     }
-    log(`in process: ${trials.toLocaleString("en-US")} trials × all variables estimators (${estimatorCount}) × n = ${n} on ${rows.toLocaleString("en-US")} items: ${inProcess.map((s) => s.toFixed(2)).join(" / ")} s`);
+    log(
+      `in process: ${trials.toLocaleString("en-US")} trials × all variables estimators (${estimatorCount}) × n = ${n} on ${rows.toLocaleString("en-US")} items: ${inProcess.map((s) => s.toFixed(2)).join(" / ")} s`,
+    );
 
     await ensureDatabaseServer();
     await prepareDatabase();
@@ -101,25 +127,55 @@ async function main(): Promise<void> {
     await senior.signIn("senior@marrow-quill.example", "sondage-demo-2026");
     const other = new HttpSession(APP_URL);
     await other.signIn("manager@marrow-quill.example", "sondage-demo-2026");
-    const { engagements } = await senior.json<{ engagements: { id: number; clientName: string }[] }>("/api/engagements");
+    const { engagements } = await senior.json<{ engagements: { id: number; clientName: string }[] }>(
+      "/api/engagements",
+    );
     const engagementId = engagements.find((e) => e.clientName.startsWith("Tessaly"))!.id;
 
     const base = `/api/engagements/${engagementId}/populations`;
     const up = await senior.uploadFile<{ upload: { id: number } }>(`${base}/uploads?fileName=advisor-ledger.csv`, csv);
     if (up.status !== 201) throw new Error(`upload answered ${up.status}`);
     let loaded: { type: string; populationId: number; total: string; rowCount: number } | undefined;
-    await senior.ndjson<{ type: string; populationId: number; total: string; rowCount: number }>(`${base}/uploads/${up.body.upload.id}/load`, { name: "Advisor bench ledger", mapping: { itemRefColumn: "Invoice", bookValueColumn: "Amount" } }, (e) => { if (e.type !== "progress") loaded = e; });
+    await senior.ndjson<{ type: string; populationId: number; total: string; rowCount: number }>(
+      `${base}/uploads/${up.body.upload.id}/load`,
+      { name: "Advisor bench ledger", mapping: { itemRefColumn: "Invoice", bookValueColumn: "Amount" } },
+      (e) => {
+        if (e.type !== "progress") loaded = e;
+      },
+    );
     if (loaded?.type !== "loaded") throw new Error(`load ended with ${JSON.stringify(loaded)}`);
-    await senior.json(`${base}/${loaded.populationId}/reconciliation`, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify({ controlTotal: loaded.total, controlCount: loaded.rowCount }) });
+    await senior.json(`${base}/${loaded.populationId}/reconciliation`, {
+      method: "POST",
+      headers: { "content-type": "application/json" },
+      body: JSON.stringify({ controlTotal: loaded.total, controlCount: loaded.rowCount }),
+    });
     const { sample } = await senior.json<{ sample: { id: number } }>(`/api/engagements/${engagementId}/samples`, {
-      method: "POST", headers: { "content-type": "application/json" },
-      body: JSON.stringify({ populationId: loaded.populationId, name: "Advisor bench", objective: "Benchmark the estimator advisor", assertion: "Valuation", direction: "overstatement",
-        params: { method: "random", estimator: "ratio", confidence: 0.95, tolerableMisstatement: "5000000", sampleSize: n, sizeReason: "benchmark" } }),
+      method: "POST",
+      headers: { "content-type": "application/json" },
+      body: JSON.stringify({
+        populationId: loaded.populationId,
+        name: "Advisor bench",
+        objective: "Benchmark the estimator advisor",
+        assertion: "Valuation",
+        direction: "overstatement",
+        params: {
+          method: "random",
+          estimator: "ratio",
+          confidence: 0.95,
+          tolerableMisstatement: "5000000",
+          sampleSize: n,
+          sizeReason: "benchmark",
+        },
+      }),
     });
     const samplePath = `/api/engagements/${engagementId}/samples/${sample.id}`;
     // Warm both routes (first-request compilation, the population frame cache).
     await other.fetch(samplePath).then((r) => r.arrayBuffer());
-    await senior.ndjson(`${samplePath}/advisor`, { scenario: SCENARIO, sampleSizes: [n], trials: 200, seed: 1 }, () => {});
+    await senior.ndjson(
+      `${samplePath}/advisor`,
+      { scenario: SCENARIO, sampleSizes: [n], trials: 200, seed: 1 },
+      () => {},
+    );
 
     const idle = pollLatencies(other, samplePath, 20);
     await new Promise((r) => setTimeout(r, 2000));
@@ -131,10 +187,14 @@ async function main(): Promise<void> {
       const t = performance.now();
       let result: { type: string } | undefined;
       let progressEvents = 0;
-      await senior.ndjson<{ type: string }>(`${samplePath}/advisor`, { scenario: SCENARIO, sampleSizes: [n], trials, seed: 100 + i }, (e) => {
-        if (e.type === "progress") progressEvents++;
-        else if (e.type !== "started") result = e;
-      });
+      await senior.ndjson<{ type: string }>(
+        `${samplePath}/advisor`,
+        { scenario: SCENARIO, sampleSizes: [n], trials, seed: 100 + i },
+        (e) => {
+          if (e.type === "progress") progressEvents++;
+          else if (e.type !== "started") result = e;
+        },
+      );
       const seconds = (performance.now() - t) / 1000;
       const stats = await poll.stop();
       if (result?.type !== "result") throw new Error(`the advisor run ended with ${JSON.stringify(result)}`);
@@ -145,27 +205,63 @@ async function main(): Promise<void> {
     const longPoll = pollLatencies(other, samplePath, 20);
     const longStart = performance.now();
     let longResult: { type: string } | undefined;
-    await senior.ndjson<{ type: string }>(`${samplePath}/advisor`, { scenario: SCENARIO, sampleSizes: [n, 2 * n, 5 * n], trials: 50_000, seed: 500 }, (e) => { if (e.type !== "progress" && e.type !== "started") longResult = e; });
+    await senior.ndjson<{ type: string }>(
+      `${samplePath}/advisor`,
+      { scenario: SCENARIO, sampleSizes: [n, 2 * n, 5 * n], trials: 50_000, seed: 500 },
+      (e) => {
+        if (e.type !== "progress" && e.type !== "started") longResult = e;
+      },
+    );
     const longSeconds = (performance.now() - longStart) / 1000;
     const long = await longPoll.stop();
     if (longResult?.type !== "result") throw new Error(`the long advisor run ended with ${JSON.stringify(longResult)}`);
 
-    const all = runs.flatMap((r) => r.latencies).concat(long.latencies).sort((a, b) => a - b);
+    const all = runs
+      .flatMap((r) => r.latencies)
+      .concat(long.latencies)
+      .sort((a, b) => a - b);
     const failures = runs.flatMap((r) => r.failures).concat(long.failures);
     const medianRun = median(runs.map((r) => r.seconds));
-    console.log(`\nSondage estimator-advisor benchmark — Node ${process.version}, ${rows.toLocaleString("en-US")} items, ${trials.toLocaleString("en-US")} trials × all variables estimators (${estimatorCount}) × n = ${n}`);
-    console.log(formatTable(["measure", "value"], [
-      ["in process (runAdvisorJob), median of 3", `${median(inProcess).toFixed(3)} s · ${Math.round(trials / median(inProcess)).toLocaleString("en-US")} trials/s (every variables estimator, corrected ratio forms included)`],
-      ["through POST …/advisor (worker thread), each run", runs.map((r) => `${r.seconds.toFixed(3)} s`).join(" / ")],
-      ["through the route, median", `${medianRun.toFixed(3)} s · ${Math.round(trials / medianRun).toLocaleString("en-US")} trials/s`],
-      ["progress events per run", runs.map((r) => String(r.progressEvents)).join(" / ")],
-      ["other requests (GET sample) while idle: p50 / p95 / max", `${quantile(idleStats.latencies, 0.5).toFixed(1)} / ${quantile(idleStats.latencies, 0.95).toFixed(1)} / ${quantile(idleStats.latencies, 1).toFixed(1)} ms (${idleStats.latencies.length} requests)`],
-      [`long run: 50,000 trials × all variables estimators (${estimatorCount}) × n = ${n}, ${2 * n}, ${5 * n}`, `${longSeconds.toFixed(2)} s; other requests p50 / p95 / max ${quantile(long.latencies, 0.5).toFixed(1)} / ${quantile(long.latencies, 0.95).toFixed(1)} / ${quantile(long.latencies, 1).toFixed(1)} ms (${long.latencies.length} requests)`],
-      ["other requests during all runs: p50 / p95 / max", `${quantile(all, 0.5).toFixed(1)} / ${quantile(all, 0.95).toFixed(1)} / ${quantile(all, 1).toFixed(1)} ms (${all.length} requests, ${failures.length} failed)`],
-    ]));
+    console.log(
+      `\nSondage estimator-advisor benchmark — Node ${process.version}, ${rows.toLocaleString("en-US")} items, ${trials.toLocaleString("en-US")} trials × all variables estimators (${estimatorCount}) × n = ${n}`,
+    );
+    console.log(
+      formatTable(
+        ["measure", "value"],
+        [
+          [
+            "in process (runAdvisorJob), median of 3",
+            `${median(inProcess).toFixed(3)} s · ${Math.round(trials / median(inProcess)).toLocaleString("en-US")} trials/s (every variables estimator, corrected ratio forms included)`,
+          ],
+          [
+            "through POST …/advisor (worker thread), each run",
+            runs.map((r) => `${r.seconds.toFixed(3)} s`).join(" / "),
+          ],
+          [
+            "through the route, median",
+            `${medianRun.toFixed(3)} s · ${Math.round(trials / medianRun).toLocaleString("en-US")} trials/s`,
+          ],
+          ["progress events per run", runs.map((r) => String(r.progressEvents)).join(" / ")],
+          [
+            "other requests (GET sample) while idle: p50 / p95 / max",
+            `${quantile(idleStats.latencies, 0.5).toFixed(1)} / ${quantile(idleStats.latencies, 0.95).toFixed(1)} / ${quantile(idleStats.latencies, 1).toFixed(1)} ms (${idleStats.latencies.length} requests)`,
+          ],
+          [
+            `long run: 50,000 trials × all variables estimators (${estimatorCount}) × n = ${n}, ${2 * n}, ${5 * n}`,
+            `${longSeconds.toFixed(2)} s; other requests p50 / p95 / max ${quantile(long.latencies, 0.5).toFixed(1)} / ${quantile(long.latencies, 0.95).toFixed(1)} / ${quantile(long.latencies, 1).toFixed(1)} ms (${long.latencies.length} requests)`,
+          ],
+          [
+            "other requests during all runs: p50 / p95 / max",
+            `${quantile(all, 0.5).toFixed(1)} / ${quantile(all, 0.95).toFixed(1)} / ${quantile(all, 1).toFixed(1)} ms (${all.length} requests, ${failures.length} failed)`,
+          ],
+        ],
+      ),
+    );
     const okRun = medianRun < GOALS.runS;
     const okP95 = quantile(all, 0.95) < GOALS.p95Ms && failures.length === 0;
-    console.log(`goal: run < ${GOALS.runS} s — ${okRun ? "met" : "MISSED"}; other requests all answered, p95 < ${GOALS.p95Ms} ms — ${okP95 ? "met" : "MISSED"}`);
+    console.log(
+      `goal: run < ${GOALS.runS} s — ${okRun ? "met" : "MISSED"}; other requests all answered, p95 < ${GOALS.p95Ms} ms — ${okP95 ? "met" : "MISSED"}`,
+    );
     if (!okRun || !okP95) process.exitCode = 1;
   } finally {
     await app?.stop();
@@ -174,6 +270,6 @@ async function main(): Promise<void> {
 }
 
 main().catch((err: unknown) => {
-  console.error("[advisor bench] failed:", err instanceof Error ? err.stack ?? err.message : err);
+  console.error("[advisor bench] failed:", err instanceof Error ? (err.stack ?? err.message) : err);
   process.exit(1);
 });

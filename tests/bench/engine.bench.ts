@@ -16,7 +16,14 @@ import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import {
-  attributeSampleSize, createRng, musConfidenceFactor, selectPps, selectRandom, simulateEstimators, SIMULATED_ESTIMATORS, type SampledItem,
+  attributeSampleSize,
+  createRng,
+  musConfidenceFactor,
+  selectPps,
+  selectRandom,
+  simulateEstimators,
+  SIMULATED_ESTIMATORS,
+  type SampledItem,
 } from "../../lib/sampling";
 import { gammaQuantile } from "../../lib/sampling/quantiles";
 
@@ -90,11 +97,18 @@ function main(): void {
       const file = path.join(dir, "book.f64");
       writeFileSync(file, Buffer.from(new Float64Array(book).buffer));
       const script = path.join(import.meta.dirname, "engine-numpy.py");
-      const out = JSON.parse(execFileSync(python, [script, file, String(SEED), String(SAMPLE_SIZE), String(interval), String(RUNS)], { encoding: "utf8", maxBuffer: 64 * 1024 * 1024 }));
+      const out = JSON.parse(
+        execFileSync(python, [script, file, String(SEED), String(SAMPLE_SIZE), String(interval), String(RUNS)], {
+          encoding: "utf8",
+          maxBuffer: 64 * 1024 * 1024,
+        }),
+      );
       const sameRandom = JSON.stringify(out.random) === JSON.stringify(random.result);
       const ourItems = pps.result.hits.map((h) => h.index);
       const ourCounts = pps.result.hits.map((h) => h.hitPoints.length);
-      const samePps = JSON.stringify(out.ppsItems) === JSON.stringify(ourItems) && JSON.stringify(out.ppsCounts) === JSON.stringify(ourCounts);
+      const samePps =
+        JSON.stringify(out.ppsItems) === JSON.stringify(ourItems) &&
+        JSON.stringify(out.ppsCounts) === JSON.stringify(ourCounts);
       rows[1][3] = `numpy ${out.ppsMs.toFixed(2)} ms, ours/numpy ${(pps.ms / out.ppsMs).toFixed(2)}, same hits: ${samePps}`;
       rows[2][3] = `numpy ${out.randomMs.toFixed(2)} ms, ours/numpy ${(random.ms / out.randomMs).toFixed(2)}, same sample: ${sameRandom}`;
       numpyNote = `numpy ${out.numpy} via ${python} (RandomState.random_sample + argpartition; cumsum + searchsorted)`;
@@ -107,15 +121,46 @@ function main(): void {
   const rng = createRng(11);
   const population: SampledItem[] = Array.from({ length: 100_000 }, () => {
     const bookValue = Math.round((20 + 5000 * rng.nextDouble() ** 2) * 100) / 100;
-    const auditedValue = rng.nextDouble() < 0.1 ? Math.round(bookValue * (0.5 + 0.5 * rng.nextDouble()) * 100) / 100 : bookValue;
+    const auditedValue =
+      rng.nextDouble() < 0.1 ? Math.round(bookValue * (0.5 + 0.5 * rng.nextDouble()) * 100) / 100 : bookValue;
     return { bookValue, auditedValue };
   });
-  const four = time(() => simulateEstimators({ population, sampleSize: 200, trials: 10_000, seed: SEED, confidence: 0.95,
-    estimators: ["mean-per-unit", "difference", "ratio", "regression"] }), 3);
-  const simulation = time(() => simulateEstimators({ population, sampleSize: 200, trials: 10_000, seed: SEED, confidence: 0.95, estimators: [...SIMULATED_ESTIMATORS] }), 3);
-  rows.push(["simulateEstimators (100k items, 10,000 trials × 4 × n = 200)", four.ms, "", "reference: the four evaluation estimators"]);
-  rows.push([`simulateEstimators (100k items, 10,000 trials × ${SIMULATED_ESTIMATORS.length} × n = 200)`, simulation.ms, "",
-    `× the 4-estimator run ${(simulation.ms / four.ms).toFixed(2)}; goal < 2000 ms: ${simulation.ms < 2000 ? "met" : "NOT met"}`]);
+  const four = time(
+    () =>
+      simulateEstimators({
+        population,
+        sampleSize: 200,
+        trials: 10_000,
+        seed: SEED,
+        confidence: 0.95,
+        estimators: ["mean-per-unit", "difference", "ratio", "regression"],
+      }),
+    3,
+  );
+  const simulation = time(
+    () =>
+      simulateEstimators({
+        population,
+        sampleSize: 200,
+        trials: 10_000,
+        seed: SEED,
+        confidence: 0.95,
+        estimators: [...SIMULATED_ESTIMATORS],
+      }),
+    3,
+  );
+  rows.push([
+    "simulateEstimators (100k items, 10,000 trials × 4 × n = 200)",
+    four.ms,
+    "",
+    "reference: the four evaluation estimators",
+  ]);
+  rows.push([
+    `simulateEstimators (100k items, 10,000 trials × ${SIMULATED_ESTIMATORS.length} × n = 200)`,
+    simulation.ms,
+    "",
+    `× the 4-estimator run ${(simulation.ms / four.ms).toFixed(2)}; goal < 2000 ms: ${simulation.ms < 2000 ? "met" : "NOT met"}`,
+  ]);
   rows.push(...planningRows());
 
   console.log(`Sondage engine benchmark — Node ${process.version}, median of ${RUNS} runs (simulation: 3)`);
@@ -123,7 +168,8 @@ function main(): void {
   console.log("-".repeat(130));
   console.log(`${"case".padEnd(62)}${"ms".padStart(10)}${"× base".padStart(9)}  comparison`);
   console.log("-".repeat(130));
-  for (const [name, ms, ratio, note] of rows) console.log(`${name.padEnd(62)}${ms.toFixed(2).padStart(10)}${ratio.padStart(9)}  ${note}`);
+  for (const [name, ms, ratio, note] of rows)
+    console.log(`${name.padEnd(62)}${ms.toFixed(2).padStart(10)}${ratio.padStart(9)}  ${note}`);
 }
 
 /** musConfidenceFactor over 1,000 cells and a hypergeometric size at N = 5,000, each beside a reference from the same run. */
@@ -132,7 +178,8 @@ function planningRows(): [string, number, string, string][] {
   const ratios = Array.from({ length: 25 }, (_, j) => (0.9 * j) / 25);
   const factors = time(() => {
     let sum = 0;
-    for (const confidence of confidences) for (const expectedToTolerable of ratios) sum += musConfidenceFactor({ confidence, expectedToTolerable });
+    for (const confidence of confidences)
+      for (const expectedToTolerable of ratios) sum += musConfidenceFactor({ confidence, expectedToTolerable });
     return sum;
   });
   const quantiles = time(() => {
@@ -140,13 +187,25 @@ function planningRows(): [string, number, string, string][] {
     for (const confidence of confidences) for (const r of ratios) sum += gammaQuantile(confidence, 1 + 3 * r);
     return sum;
   });
-  const hyper = time(() => attributeSampleSize({ tolerableRate: 0.05, expectedRate: 0.01, confidence: 0.95, populationSize: 5000 }));
+  const hyper = time(() =>
+    attributeSampleSize({ tolerableRate: 0.05, expectedRate: 0.01, confidence: 0.95, populationSize: 5000 }),
+  );
   const binomial = time(() => attributeSampleSize({ tolerableRate: 0.05, expectedRate: 0.01, confidence: 0.95 }));
   return [
     ["reference: 1,000 gamma quantiles (one per cell)", quantiles.ms, "", ""],
-    ["musConfidenceFactor, 1,000 ratio × confidence cells (exact root)", factors.ms, "", `× one quantile per cell ${(factors.ms / quantiles.ms).toFixed(1)}`],
+    [
+      "musConfidenceFactor, 1,000 ratio × confidence cells (exact root)",
+      factors.ms,
+      "",
+      `× one quantile per cell ${(factors.ms / quantiles.ms).toFixed(1)}`,
+    ],
     [`reference: binomial attribute size (TDR 5%, EDR 1%, 95%) → ${binomial.result.sampleSize}`, binomial.ms, "", ""],
-    [`hypergeometric attribute size, N = 5,000 (same inputs) → ${hyper.result.sampleSize}`, hyper.ms, "", `× the binomial size ${(hyper.ms / binomial.ms).toFixed(1)}`],
+    [
+      `hypergeometric attribute size, N = 5,000 (same inputs) → ${hyper.result.sampleSize}`,
+      hyper.ms,
+      "",
+      `× the binomial size ${(hyper.ms / binomial.ms).toFixed(1)}`,
+    ],
   ];
 }
 

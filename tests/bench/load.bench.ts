@@ -46,23 +46,47 @@ const SENIOR = "senior@marrow-quill.example";
 const LOG = path.join(ROOT, ".data/load-bench.log");
 const log = (line: string) => console.log(`[load bench] ${line}`);
 const figures: string[] = [];
-const report = (line: string) => { figures.push(line); log(line); };
+const report = (line: string) => {
+  figures.push(line);
+  log(line);
+};
 
 const env = (): NodeJS.ProcessEnv => ({
-  ...process.env, DB_HOST: "127.0.0.1", DB_PORT: String(PORTS.db), DB_NAME, NEXTAUTH_URL: APP, NEXT_DIST_DIR: DIST,
-  S3_ENDPOINT: `http://127.0.0.1:${PORTS.s3}`, S3_BUCKET: "sondage-load", SMTP_HOST: "127.0.0.1", SMTP_PORT: String(PORTS.smtp),
-  MAIL_INBOX_PORT: String(PORTS.inbox), UPLOAD_DIR: ".data/uploads-load", FAKES_DATA: "fakes-load", NEXT_TELEMETRY_DISABLED: "1",
+  ...process.env,
+  DB_HOST: "127.0.0.1",
+  DB_PORT: String(PORTS.db),
+  DB_NAME,
+  NEXTAUTH_URL: APP,
+  NEXT_DIST_DIR: DIST,
+  S3_ENDPOINT: `http://127.0.0.1:${PORTS.s3}`,
+  S3_BUCKET: "sondage-load",
+  SMTP_HOST: "127.0.0.1",
+  SMTP_PORT: String(PORTS.smtp),
+  MAIL_INBOX_PORT: String(PORTS.inbox),
+  UPLOAD_DIR: ".data/uploads-load",
+  FAKES_DATA: "fakes-load",
+  NEXT_TELEMETRY_DISABLED: "1",
 });
 const database = (): Knex => knex(buildKnexConfig(env()));
 
 async function startAppServer(): Promise<Service> {
-  const server = startService("next start", process.execPath, ["node_modules/next/dist/bin/next", "start", "-H", "127.0.0.1", "-p", String(PORTS.app)], env(), LOG);
+  const server = startService(
+    "next start",
+    process.execPath,
+    ["node_modules/next/dist/bin/next", "start", "-H", "127.0.0.1", "-p", String(PORTS.app)],
+    env(),
+    LOG,
+  );
   await waitForHttp(`${APP}/api/auth/csrf`, server);
   return server;
 }
 
 async function hardKill(service: Service): Promise<void> {
-  try { process.kill(-service.pid, "SIGKILL"); } catch { /* gone */ }
+  try {
+    process.kill(-service.pid, "SIGKILL");
+  } catch {
+    /* gone */
+  }
   await service.exited;
 }
 
@@ -75,30 +99,53 @@ async function addUsers(engagementId: number): Promise<string[]> {
   }
 }
 
-const loadFile = (senior: HttpSession, base: string, rows: number, name: string) => uploadLedger(senior, base, rows, name, log);
+const loadFile = (senior: HttpSession, base: string, rows: number, name: string) =>
+  uploadLedger(senior, base, rows, name, log);
 
-async function loadPopulation(senior: HttpSession, base: string, rows: number, name: string, attempt = 1): Promise<number> {
+async function loadPopulation(
+  senior: HttpSession,
+  base: string,
+  rows: number,
+  name: string,
+  attempt = 1,
+): Promise<number> {
   const { uploadId } = await loadFile(senior, base, rows, name);
   const { done } = startLoad(senior, base, uploadId, name);
   const result = await done;
   if (result.last?.type !== "loaded") {
     if (attempt >= 2) throw new Error(`load of ${rows} rows: ${JSON.stringify(result)}`);
-    report(`NOTE: the load of ${rows.toLocaleString("en-US")} rows failed once (${JSON.stringify(result.last ?? result.error)}); loading it again`);
+    report(
+      `NOTE: the load of ${rows.toLocaleString("en-US")} rows failed once (${JSON.stringify(result.last ?? result.error)}); loading it again`,
+    );
     return loadPopulation(senior, base, rows, name, attempt + 1);
   }
   const populationId = result.last.populationId!;
-  const pop = await senior.json<{ population: { total: string; rowCount: number } }>(`${base}/populations/${populationId}`);
-  await senior.json(`${base}/populations/${populationId}/reconciliation`, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify({ controlTotal: pop.population.total, controlCount: pop.population.rowCount }) });
+  const pop = await senior.json<{ population: { total: string; rowCount: number } }>(
+    `${base}/populations/${populationId}`,
+  );
+  await senior.json(`${base}/populations/${populationId}/reconciliation`, {
+    method: "POST",
+    headers: { "content-type": "application/json" },
+    body: JSON.stringify({ controlTotal: pop.population.total, controlCount: pop.population.rowCount }),
+  });
   log(`loaded ${rows.toLocaleString("en-US")} rows in ${(result.ms / 1000).toFixed(1)} s (population ${populationId})`);
   return populationId;
 }
 
 /** One credentials sign-in try; the error text next-auth passes back in the redirect, or "ok". */
-async function trySignIn(email: string, password: string, headers: Record<string, string> = {}): Promise<{ ok: boolean; error: string; ms: number }> {
+async function trySignIn(
+  email: string,
+  password: string,
+  headers: Record<string, string> = {},
+): Promise<{ ok: boolean; error: string; ms: number }> {
   const s = new HttpSession(APP);
   const { csrfToken } = await s.json<{ csrfToken: string }>("/api/auth/csrf");
   const started = performance.now();
-  const res = await s.fetch("/api/auth/callback/credentials", { method: "POST", headers: { "content-type": "application/x-www-form-urlencoded", ...headers }, body: new URLSearchParams({ csrfToken, email, password, json: "true" }).toString() });
+  const res = await s.fetch("/api/auth/callback/credentials", {
+    method: "POST",
+    headers: { "content-type": "application/x-www-form-urlencoded", ...headers },
+    body: new URLSearchParams({ csrfToken, email, password, json: "true" }).toString(),
+  });
   const ms = performance.now() - started;
   const location = res.headers.get("location") ?? (await res.text());
   const error = decodeURIComponent(/error=([^&"]+)/.exec(location)?.[1] ?? "").replace(/\+/g, " ");
@@ -111,14 +158,20 @@ async function measureSignInThrottle(emails: string[]) {
   for (let i = 0; i < 7; i++) tries.push(await trySignIn(target, "wrong-password-" + i));
   const right = await trySignIn(target, LOAD_PASSWORD);
   const firstBlocked = tries.findIndex((t) => /Too many/.test(t.error)) + 1;
-  report(`sign-in throttle, one account: failures answered "${tries[0].error}" in ${tries[0].ms.toFixed(0)} ms each (bcrypt); try ${firstBlocked} was refused: "${tries[firstBlocked - 1]?.error}"; the right password then: ${right.ok ? "accepted (NOT throttled)" : `refused ("${right.error}")`}`);
+  report(
+    `sign-in throttle, one account: failures answered "${tries[0].error}" in ${tries[0].ms.toFixed(0)} ms each (bcrypt); try ${firstBlocked} was refused: "${tries[firstBlocked - 1]?.error}"; the right password then: ${right.ok ? "accepted (NOT throttled)" : `refused ("${right.error}")`}`,
+  );
   // The per-address limit (20 in 15 min) keys on X-Forwarded-For: from one address it holds; a caller who sets the header freely gets a fresh bucket each time.
   const sameAddress = [];
-  for (let i = 0; i < 21; i++) sameAddress.push(await trySignIn(`nobody${i}@nowhere.example`, "x", { "x-forwarded-for": "198.51.100.7" }));
+  for (let i = 0; i < 21; i++)
+    sameAddress.push(await trySignIn(`nobody${i}@nowhere.example`, "x", { "x-forwarded-for": "198.51.100.7" }));
   const ipBlocked = sameAddress.findIndex((t) => /network address/.test(t.error)) + 1;
   const spoofed = [];
-  for (let i = 0; i < 21; i++) spoofed.push(await trySignIn(`ghost${i}@nowhere.example`, "x", { "x-forwarded-for": `203.0.113.${i}` }));
-  report(`sign-in throttle, one address: try ${ipBlocked || "none"} of 21 refused for the address; with a new X-Forwarded-For per try: ${spoofed.filter((t) => /network address/.test(t.error)).length} of 21 refused (the per-address limit needs a proxy that overwrites the header; the per-account limit holds regardless)`);
+  for (let i = 0; i < 21; i++)
+    spoofed.push(await trySignIn(`ghost${i}@nowhere.example`, "x", { "x-forwarded-for": `203.0.113.${i}` }));
+  report(
+    `sign-in throttle, one address: try ${ipBlocked || "none"} of 21 refused for the address; with a new X-Forwarded-For per try: ${spoofed.filter((t) => /network address/.test(t.error)).length} of 21 refused (the per-address limit needs a proxy that overwrites the header; the per-account limit holds regardless)`,
+  );
 }
 
 /** A cursor at a random place of the generated ledger (rows 2…1,000,001, refs INV-/CN-100001…, amounts mostly 50–5,000). */
@@ -144,7 +197,9 @@ async function comparePageDepths(session: HttpSession, itemsUrl: string) {
   const first = await time("sort=ref&pageSize=50");
   const deepCursor = await time(`sort=ref&pageSize=50&after=${encodeCursor({ value: "INV-1000000", key: 0 })}`);
   const deepOffset = await time("sort=ref&pageSize=50&page=18000");
-  report(`one user, median of 15, sort by reference: first page ${first.toFixed(1)} ms; page ~18,000 by cursor ${deepCursor.toFixed(1)} ms (${(deepCursor / first).toFixed(2)}× the first); the same depth by page number (OFFSET) ${deepOffset.toFixed(1)} ms (${(deepOffset / first).toFixed(2)}×)`);
+  report(
+    `one user, median of 15, sort by reference: first page ${first.toFixed(1)} ms; page ~18,000 by cursor ${deepCursor.toFixed(1)} ms (${(deepCursor / first).toFixed(2)}× the first); the same depth by page number (OFFSET) ${deepOffset.toFixed(1)} ms (${(deepOffset / first).toFixed(2)}×)`,
+  );
 }
 
 async function main() {
@@ -164,13 +219,17 @@ async function main() {
     await run("npx", ["tsx", "db/migrate.ts", "latest"], env());
     await run("npx", ["tsx", "db/seed.ts"], env());
     rmSync(path.join(ROOT, ".data/uploads-load"), { recursive: true, force: true });
-    services.push(startService("fakes", path.join(ROOT, "node_modules/.bin/tsx"), ["lib/fakes/run-fakes.ts"], env(), LOG));
+    services.push(
+      startService("fakes", path.join(ROOT, "node_modules/.bin/tsx"), ["lib/fakes/run-fakes.ts"], env(), LOG),
+    );
     await waitForHttp(`http://127.0.0.1:${PORTS.s3}/`, services[0]);
     app = await startAppServer();
 
     const senior = new HttpSession(APP);
     await senior.signIn(SENIOR, "sondage-demo-2026");
-    const { engagements } = await senior.json<{ engagements: { id: number; clientName: string }[] }>("/api/engagements");
+    const { engagements } = await senior.json<{ engagements: { id: number; clientName: string }[] }>(
+      "/api/engagements",
+    );
     const engagementId = engagements.find((e) => e.clientName.startsWith("Tessaly"))!.id;
     const base = `/api/engagements/${engagementId}`;
     const emails = await addUsers(engagementId);
@@ -187,39 +246,69 @@ async function main() {
     const tracker = new SaveTracker(items);
     let nextUser = 0;
     const saves = await hammer({
-      url: APP, connections: USERS, durationS: SAVE_S, ok: (s) => s === 200 || s === 409,
+      url: APP,
+      connections: USERS,
+      durationS: SAVE_S,
+      ok: (s) => s === 200 || s === 409,
       setup: (ctx) => {
         ctx.cookie ??= sessions[nextUser++ % sessions.length].cookieHeader();
         const save = tracker.next();
         ctx.save = save;
-        return { method: "PATCH", path: `${base}/samples/${sampleId}/items/${save.itemId}`, headers: { cookie: ctx.cookie as string, "content-type": "application/json" }, body: save.body };
+        return {
+          method: "PATCH",
+          path: `${base}/samples/${sampleId}/items/${save.itemId}`,
+          headers: { cookie: ctx.cookie as string, "content-type": "application/json" },
+          body: save.body,
+        };
       },
       onAnswer: (status, body, ctx) => tracker.answer(status, body, ctx.save as { itemId: number; value: string }),
     });
     const db1 = database();
-    const checked = await verifySaves(db1, { sampleId, initial: new Map(items.map((i) => [i.id, i.version])), acks: tracker.ledger.acks }).finally(() => db1.destroy());
+    const checked = await verifySaves(db1, {
+      sampleId,
+      initial: new Map(items.map((i) => [i.id, i.version])),
+      acks: tracker.ledger.acks,
+    }).finally(() => db1.destroy());
     report(`saves, ${USERS} users × ${SAVE_S} s on one sample of ${items.length} items: ${fmt(saves)}`);
-    report(`saves verified: ${checked.acked} acknowledged (200), ${tracker.ledger.conflicts} conflicts (409), lost ${checked.lost}, duplicate versions ${checked.duplicateVersions}, wrong final values ${checked.wrongFinal}, audit rows ${checked.auditRows}`);
+    report(
+      `saves verified: ${checked.acked} acknowledged (200), ${tracker.ledger.conflicts} conflicts (409), lost ${checked.lost}, duplicate versions ${checked.duplicateVersions}, wrong final values ${checked.wrongFinal}, audit rows ${checked.auditRows}`,
+    );
 
     // 1b. The same closed loop against a bare handler doing the same single-row transaction.
-    const bare = startService("bare save handler", path.join(ROOT, "node_modules/.bin/tsx"), ["tests/bench/load/bare-save-server.ts", String(PORTS.bare)], env(), LOG);
+    const bare = startService(
+      "bare save handler",
+      path.join(ROOT, "node_modules/.bin/tsx"),
+      ["tests/bench/load/bare-save-server.ts", String(PORTS.bare)],
+      env(),
+      LOG,
+    );
     services.push(bare);
     await waitForHttp(`http://127.0.0.1:${PORTS.bare}/health`, bare);
     const bareItems = await sampleItems(senior, base, sampleId);
     const bareTracker = new SaveTracker(bareItems);
     const bareSaves = await hammer({
-      url: `http://127.0.0.1:${PORTS.bare}`, connections: USERS, durationS: SAVE_S, ok: (s) => s === 200 || s === 409,
+      url: `http://127.0.0.1:${PORTS.bare}`,
+      connections: USERS,
+      durationS: SAVE_S,
+      ok: (s) => s === 200 || s === 409,
       setup: (ctx) => {
         const save = bareTracker.next();
         ctx.save = save;
-        return { method: "PATCH", path: `/items/${save.itemId}`, headers: { "content-type": "application/json" }, body: save.body };
+        return {
+          method: "PATCH",
+          path: `/items/${save.itemId}`,
+          headers: { "content-type": "application/json" },
+          body: save.body,
+        };
       },
       onAnswer: (status, body, ctx) => bareTracker.answer(status, body, ctx.save as { itemId: number; value: string }),
     });
     await stopService(bare);
     services.splice(services.indexOf(bare), 1);
     report(`bare handler, same closed loop (${USERS} connections × ${SAVE_S} s, same items): ${fmt(bareSaves)}`);
-    report(`saturation ours / bare: throughput ${(saves.rps / bareSaves.rps).toFixed(2)}× (${saves.rps.toFixed(0)} vs ${bareSaves.rps.toFixed(0)} req/s), p95 ${(saves.p95 / bareSaves.p95).toFixed(2)}× (${saves.p95.toFixed(0)} vs ${bareSaves.p95.toFixed(0)} ms), p50 ${(saves.p50 / bareSaves.p50).toFixed(2)}×`);
+    report(
+      `saturation ours / bare: throughput ${(saves.rps / bareSaves.rps).toFixed(2)}× (${saves.rps.toFixed(0)} vs ${bareSaves.rps.toFixed(0)} req/s), p95 ${(saves.p95 / bareSaves.p95).toFixed(2)}× (${saves.p95.toFixed(0)} vs ${bareSaves.p95.toFixed(0)} ms), p50 ${(saves.p50 / bareSaves.p50).toFixed(2)}×`,
+    );
 
     // 1c. Open loop: people saving at their own pace, each on items of their own.
     const openSample = await drawSample(senior, base, smallPopulation, 200);
@@ -228,19 +317,31 @@ async function main() {
     const versions = new Map(openItems.map((i) => [i.id, i.version]));
     const inFlight = new Set<number>();
     const openAcks: { itemId: number; version: number; value: string }[] = [];
-    let saveNo = 0, openConflicts = 0;
+    let saveNo = 0,
+      openConflicts = 0;
     const open = await openLoop({
-      users: USERS, meanGapMs: 2_000, durationMs: OPEN_S * 1000,
+      users: USERS,
+      meanGapMs: 2_000,
+      durationMs: OPEN_S * 1000,
       send: async (u) => {
-        const mine = openItems.slice(u * perUser, (u + 1) * perUser).map((i) => i.id).filter((id) => !inFlight.has(id));
+        const mine = openItems
+          .slice(u * perUser, (u + 1) * perUser)
+          .map((i) => i.id)
+          .filter((id) => !inFlight.has(id));
         const itemId = mine[Math.floor(Math.random() * mine.length)] ?? openItems[u * perUser].id;
         const n = ++saveNo;
         const value = `${2000 + Math.floor(n / 100)}.${String(n % 100).padStart(2, "0")}`;
         inFlight.add(itemId);
         try {
           const res = await fetch(`${APP}${base}/samples/${openSample}/items/${itemId}`, {
-            method: "PATCH", headers: { cookie: sessions[u].cookieHeader(), "content-type": "application/json" },
-            body: JSON.stringify({ version: versions.get(itemId), status: "done", auditedValue: value, comment: `open-loop save ${n}` }),
+            method: "PATCH",
+            headers: { cookie: sessions[u].cookieHeader(), "content-type": "application/json" },
+            body: JSON.stringify({
+              version: versions.get(itemId),
+              status: "done",
+              auditedValue: value,
+              comment: `open-loop save ${n}`,
+            }),
           });
           const text = await res.text();
           if (res.status === 200) {
@@ -255,17 +356,28 @@ async function main() {
       },
     });
     const db2 = database();
-    const openChecked = await verifySaves(db2, { sampleId: openSample, initial: new Map(openItems.map((i) => [i.id, i.version])), acks: openAcks }).finally(() => db2.destroy());
+    const openChecked = await verifySaves(db2, {
+      sampleId: openSample,
+      initial: new Map(openItems.map((i) => [i.id, i.version])),
+      acks: openAcks,
+    }).finally(() => db2.destroy());
     const openErrors = open.sent - (open.statuses["200"] ?? 0);
-    report(`saves, open loop: ${USERS} users × Poisson arrivals averaging one save per 2 s × ${OPEN_S} s (${(USERS / 2).toFixed(0)} saves/s offered): ${open.sent} sent, ${open.answered} answered, latency from the scheduled arrival p50 ${open.p50.toFixed(1)} ms · p95 ${open.p95.toFixed(1)} ms · p99 ${open.p99.toFixed(1)} ms · max ${open.max.toFixed(0)} ms, statuses ${JSON.stringify(open.statuses)}, transport errors ${open.transportErrors}, conflicts ${openConflicts}, late starts ${open.lateStarts}`);
-    report(`open loop verified: ${openChecked.acked} acknowledged, lost ${openChecked.lost}, duplicate versions ${openChecked.duplicateVersions}, wrong final values ${openChecked.wrongFinal}; goal p95 ≤ 100 ms, 0 errors, 0 lost → ${open.p95 <= 100 && openErrors === 0 && openChecked.lost === 0 ? "met" : "NOT met"}`);
+    report(
+      `saves, open loop: ${USERS} users × Poisson arrivals averaging one save per 2 s × ${OPEN_S} s (${(USERS / 2).toFixed(0)} saves/s offered): ${open.sent} sent, ${open.answered} answered, latency from the scheduled arrival p50 ${open.p50.toFixed(1)} ms · p95 ${open.p95.toFixed(1)} ms · p99 ${open.p99.toFixed(1)} ms · max ${open.max.toFixed(0)} ms, statuses ${JSON.stringify(open.statuses)}, transport errors ${open.transportErrors}, conflicts ${openConflicts}, late starts ${open.lateStarts}`,
+    );
+    report(
+      `open loop verified: ${openChecked.acked} acknowledged, lost ${openChecked.lost}, duplicate versions ${openChecked.duplicateVersions}, wrong final values ${openChecked.wrongFinal}; goal p95 ≤ 100 ms, 0 errors, 0 lost → ${open.p95 <= 100 && openErrors === 0 && openChecked.lost === 0 ? "met" : "NOT met"}`,
+    );
 
     // 2. Paging a 1,000,000-row population.
     const bigPopulation = await loadPopulation(senior, base, 1_000_000, "load-ledger-1m");
     const itemsUrl = `${base}/populations/${bigPopulation}/items`;
     await comparePageDepths(senior, itemsUrl);
     const paging = await hammer({
-      url: APP, connections: USERS, durationS: PAGE_S, ok: (s) => s === 200,
+      url: APP,
+      connections: USERS,
+      durationS: PAGE_S,
+      ok: (s) => s === 200,
       setup: (ctx) => {
         ctx.cookie ??= sessions[nextUser++ % sessions.length].cookieHeader();
         // A user reads a run of up to 10 pages from a random place (a jump, as a search or a sort
@@ -277,13 +389,19 @@ async function main() {
           ctx.run = 0;
         }
         ctx.run = (ctx.run as number) + 1;
-        return { path: `${itemsUrl}?${ctx.query as string}&after=${ctx.next as string}`, headers: { cookie: ctx.cookie as string } };
+        return {
+          path: `${itemsUrl}?${ctx.query as string}&after=${ctx.next as string}`,
+          headers: { cookie: ctx.cookie as string },
+        };
       },
       onAnswer: (status, body, ctx) => {
-        ctx.next = status === 200 ? ((JSON.parse(body) as { nextCursor: string | null }).nextCursor ?? undefined) : undefined;
+        ctx.next =
+          status === 200 ? ((JSON.parse(body) as { nextCursor: string | null }).nextCursor ?? undefined) : undefined;
       },
     });
-    report(`paging by key, ${USERS} users × ${PAGE_S} s over 1,000,000 items (runs of 10 pages from random places, sort row/ref/book, asc/desc): ${fmt(paging)}; goal 0 × 503 and p95 ≤ 300 ms → ${(paging.statuses["503"] ?? 0) === 0 && paging.p95 <= 300 ? "met" : "NOT met"}`);
+    report(
+      `paging by key, ${USERS} users × ${PAGE_S} s over 1,000,000 items (runs of 10 pages from random places, sort row/ref/book, asc/desc): ${fmt(paging)}; goal 0 × 503 and p95 ≤ 300 ms → ${(paging.statuses["503"] ?? 0) === 0 && paging.p95 <= 300 ? "met" : "NOT met"}`,
+    );
     // The queries autocannon left behind keep the pool busy for a while: wait until a write gets a connection again.
     const drained = await until(senior, `${base}/populations`, 200, 120_000);
     await new Promise((r) => setTimeout(r, 15_000));
@@ -301,19 +419,37 @@ async function main() {
     await dbServer.kill();
     const outcome = await load.done;
     const probe = await until(senior, "/api/me", 503, 20_000);
-    report(`DB killed ${2.5} s into a 1M-row import (last event then: ${phaseAtKill}): the load answered ${outcome.last?.type} ${outcome.last?.status ?? ""} "${outcome.last?.message ?? outcome.error}" ${((performance.now() - killedAt) / 1000).toFixed(1)} s after the kill; /api/me answered 503 after ${probe.ms.toFixed(0)} ms: ${probe.body.slice(0, 160)}`);
+    report(
+      `DB killed ${2.5} s into a 1M-row import (last event then: ${phaseAtKill}): the load answered ${outcome.last?.type} ${outcome.last?.status ?? ""} "${outcome.last?.message ?? outcome.error}" ${((performance.now() - killedAt) / 1000).toFixed(1)} s after the kill; /api/me answered 503 after ${probe.ms.toFixed(0)} ms: ${probe.body.slice(0, 160)}`,
+    );
     await dbServer.start();
     const back = await until(senior, "/api/me", 200, 60_000);
     db = database();
     const partial = await populationsSince(db, engagementId, beforeMax);
     await db.destroy();
-    report(`DB restarted: the app answered 200 again after ${back.ms.toFixed(0)} ms; populations created by the killed import: ${JSON.stringify(partial)} (must be [])`);
+    report(
+      `DB restarted: the app answered 200 again after ${back.ms.toFixed(0)} ms; populations created by the killed import: ${JSON.stringify(partial)} (must be [])`,
+    );
 
     // 3b. Database killed during a burst of saves.
     const burstItems = await sampleItems(senior, base, sampleId);
-    const burst = await burstWithKill({ sessions, base, sampleId, items: burstItems, dbServer, db: database, totalMs: 9_000, killAtMs: 2_500, restartAtMs: 5_000 });
-    report(`DB killed during a burst of saves (${USERS} users, kill at 2.5 s, restart at 5.0 s, 9 s in all): ${burst.verification.acked} acknowledged, ${burst.ledger.conflicts} conflicts, ${burst.ledger.unavailable} answered 503 (first ${burst.firstUnavailableMs.toFixed(0)} ms after the kill, median ${burst.outageAnswerP50.toFixed(0)} ms each), other statuses ${JSON.stringify(burst.ledger.other)}, transport errors ${burst.networkErrors}; first 200 ${burst.firstOkAfterRestartMs.toFixed(0)} ms after the restart`);
-    report(`burst verified: lost ${burst.verification.lost}, duplicate versions ${burst.verification.duplicateVersions}, wrong final values ${burst.verification.wrongFinal}, committed but unacknowledged ${burst.verification.unacknowledgedCommits}`);
+    const burst = await burstWithKill({
+      sessions,
+      base,
+      sampleId,
+      items: burstItems,
+      dbServer,
+      db: database,
+      totalMs: 9_000,
+      killAtMs: 2_500,
+      restartAtMs: 5_000,
+    });
+    report(
+      `DB killed during a burst of saves (${USERS} users, kill at 2.5 s, restart at 5.0 s, 9 s in all): ${burst.verification.acked} acknowledged, ${burst.ledger.conflicts} conflicts, ${burst.ledger.unavailable} answered 503 (first ${burst.firstUnavailableMs.toFixed(0)} ms after the kill, median ${burst.outageAnswerP50.toFixed(0)} ms each), other statuses ${JSON.stringify(burst.ledger.other)}, transport errors ${burst.networkErrors}; first 200 ${burst.firstOkAfterRestartMs.toFixed(0)} ms after the restart`,
+    );
+    report(
+      `burst verified: lost ${burst.verification.lost}, duplicate versions ${burst.verification.duplicateVersions}, wrong final values ${burst.verification.wrongFinal}, committed but unacknowledged ${burst.verification.unacknowledgedCommits}`,
+    );
 
     // 3c. App killed and restarted in the middle of an import.
     db = database();
@@ -337,21 +473,31 @@ async function main() {
     const killedAt2 = performance.now();
     let view: { upload: { failureMessage?: string | null } } | null = null;
     while (performance.now() - killedAt2 < 90_000) {
-      view = await other.json<{ upload: { failureMessage?: string | null } }>(`${base}/populations/uploads/${second.uploadId}`);
+      view = await other.json<{ upload: { failureMessage?: string | null } }>(
+        `${base}/populations/uploads/${second.uploadId}`,
+      );
       if (view.upload.failureMessage) break;
       await new Promise((r) => setTimeout(r, 2_000));
     }
     const failedAfterS = (performance.now() - killedAt2) / 1000;
     const again = startLoad(other, base, second.uploadId, "Retry after restart");
     const retried = await again.done;
-    report(`app SIGKILLed 2.5 s into a 1M-row import (last event: ${phaseAtAppKill}; the client saw ${cut.error ? "the connection cut" : cut.last?.type}); after restart, populations from it: ${JSON.stringify(afterRestart)} (complete = 1,000,000 rows, or absent); the upload's status then: ${uploadRow?.status}; marked failed ${failedAfterS.toFixed(0)} s after the restart with "${view?.upload.failureMessage ?? "(no message)"}"; loading it again: ${retried.last?.type} ${retried.last?.rowCount ?? retried.last?.message ?? ""}`);
+    report(
+      `app SIGKILLed 2.5 s into a 1M-row import (last event: ${phaseAtAppKill}; the client saw ${cut.error ? "the connection cut" : cut.last?.type}); after restart, populations from it: ${JSON.stringify(afterRestart)} (complete = 1,000,000 rows, or absent); the upload's status then: ${uploadRow?.status}; marked failed ${failedAfterS.toFixed(0)} s after the restart with "${view?.upload.failureMessage ?? "(no message)"}"; loading it again: ${retried.last?.type} ${retried.last?.rowCount ?? retried.last?.message ?? ""}`,
+    );
   } finally {
     if (app) await stopService(app);
     for (const s of services) await stopService(s);
     await dbServer.stop();
     const retries = (readFileSync(LOG, "utf8").match(/\[sondage\] deadlock retry/g) ?? []).length;
-    figures.push(`transactions re-run after a deadlock / certification conflict (1213), counted in the app's log: ${retries}`);
-    console.log(`\n== bench:load figures (load average at the end: ${loadavg().map((l) => l.toFixed(2)).join(", ")} on ${cpus().length} cores)\n` + figures.map((f) => `- ${f}`).join("\n"));
+    figures.push(
+      `transactions re-run after a deadlock / certification conflict (1213), counted in the app's log: ${retries}`,
+    );
+    console.log(
+      `\n== bench:load figures (load average at the end: ${loadavg()
+        .map((l) => l.toFixed(2))
+        .join(", ")} on ${cpus().length} cores)\n` + figures.map((f) => `- ${f}`).join("\n"),
+    );
   }
 }
 

@@ -11,7 +11,10 @@ const BENCHES = ["tests/bench/engine.bench.ts", "tests/bench/advisor.bench.ts", 
 
 function runBench(file: string): Promise<number> {
   return new Promise((resolve) => {
-    const child = spawn(path.join(ROOT, "node_modules/.bin/tsx"), [file, ...process.argv.slice(2)], { cwd: ROOT, stdio: "inherit" });
+    const child = spawn(path.join(ROOT, "node_modules/.bin/tsx"), [file, ...process.argv.slice(2)], {
+      cwd: ROOT,
+      stdio: "inherit",
+    });
     child.on("error", (err) => {
       console.error(`bench: could not start ${file}: ${err.message}`);
       resolve(1);

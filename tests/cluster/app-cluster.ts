@@ -21,7 +21,10 @@ import { killOneServer } from "./app-kill";
 
 loadLocalEnv();
 const args = process.argv.slice(2);
-const flag = (name: string) => { const i = args.indexOf(name); return i >= 0 ? args[i + 1] : undefined; };
+const flag = (name: string) => {
+  const i = args.indexOf(name);
+  return i >= 0 ? args[i + 1] : undefined;
+};
 const underPlaywright = flag("--front") !== undefined;
 const FRONT = Number(flag("--front") ?? 3290);
 // Two ports per front door: slot n (front 3100+n) gets 3500+2n and 3501+2n, so slots never share one.
@@ -32,19 +35,31 @@ const LOG = path.join(DATA, "cluster-app.log");
 const log = (line: string) => console.log(`[cluster:app] ${line}`);
 
 const standaloneEnv = (): Record<string, string> => ({
-  DB_NAME: "sondage_clusterapp", S3_ENDPOINT: "http://127.0.0.1:4790", S3_BUCKET: "sondage-cluster-app", SMTP_HOST: "127.0.0.1",
-  SMTP_PORT: "2790", MAIL_INBOX_PORT: "2791", UPLOAD_DIR: ".data/uploads-cluster-app", FAKES_DATA: "fakes-cluster-app",
+  DB_NAME: "sondage_clusterapp",
+  S3_ENDPOINT: "http://127.0.0.1:4790",
+  S3_BUCKET: "sondage-cluster-app",
+  SMTP_HOST: "127.0.0.1",
+  SMTP_PORT: "2790",
+  MAIL_INBOX_PORT: "2791",
+  UPLOAD_DIR: ".data/uploads-cluster-app",
+  FAKES_DATA: "fakes-cluster-app",
 });
 
 async function main() {
   mkdirSync(DATA, { recursive: true });
   ensureHaproxy();
   const env: NodeJS.ProcessEnv = {
-    ...process.env, ...(underPlaywright ? {} : standaloneEnv()),
-    NEXTAUTH_URL: `http://127.0.0.1:${FRONT}`, NEXT_DIST_DIR: DIST, TRUSTED_PROXY: "127.0.0.1", NEXT_TELEMETRY_DISABLED: "1",
+    ...process.env,
+    ...(underPlaywright ? {} : standaloneEnv()),
+    NEXTAUTH_URL: `http://127.0.0.1:${FRONT}`,
+    NEXT_DIST_DIR: DIST,
+    TRUSTED_PROXY: "127.0.0.1",
+    NEXT_TELEMETRY_DISABLED: "1",
   };
   const services: Service[] = [];
-  const stopAll = async () => { for (const s of services.reverse()) await stopService(s); };
+  const stopAll = async () => {
+    for (const s of services.reverse()) await stopService(s);
+  };
   process.on("SIGINT", () => void stopAll().then(() => process.exit(0)));
   process.on("SIGTERM", () => void stopAll().then(() => process.exit(0)));
   try {
@@ -53,31 +68,68 @@ async function main() {
       await run("npx", ["tsx", "db/migrate.ts", "recreate"], env);
       await run("npx", ["tsx", "db/seed.ts"], env);
       await run("bash", ["db/scripts/build-app.sh"], env);
-      services.push(startService("fakes", path.join(ROOT, "node_modules/.bin/tsx"), ["lib/fakes/run-fakes.ts"], env, LOG));
+      services.push(
+        startService("fakes", path.join(ROOT, "node_modules/.bin/tsx"), ["lib/fakes/run-fakes.ts"], env, LOG),
+      );
       await waitForHttp(`${env.S3_ENDPOINT}/`, services[0]);
     }
     for (const port of SERVERS) {
-      services.push(startService(`next start :${port}`, process.execPath, ["node_modules/next/dist/bin/next", "start", "-H", "127.0.0.1", "-p", String(port)], env, LOG));
+      services.push(
+        startService(
+          `next start :${port}`,
+          process.execPath,
+          ["node_modules/next/dist/bin/next", "start", "-H", "127.0.0.1", "-p", String(port)],
+          env,
+          LOG,
+        ),
+      );
     }
-    for (const [i, port] of SERVERS.entries()) await waitForHttp(`http://127.0.0.1:${port}/api/health`, services[services.length - SERVERS.length + i]);
+    for (const [i, port] of SERVERS.entries())
+      await waitForHttp(`http://127.0.0.1:${port}/api/health`, services[services.length - SERVERS.length + i]);
     const cfg = path.join(DATA, "haproxy.cfg");
     writeConfig(cfg, appFrontDoorConfig({ frontPort: FRONT, servers: SERVERS }));
     const haproxy = startService("haproxy", "haproxy", ["-f", cfg, "-db"], env, LOG);
     services.push(haproxy);
     await waitForHttp(`http://127.0.0.1:${FRONT}/api/health`, haproxy);
     const pids = new Set<number>();
-    for (let i = 0; i < 4; i++) pids.add(((await (await fetch(`http://127.0.0.1:${FRONT}/api/health`)).json()) as { pid: number }).pid);
-    log(`front door http://127.0.0.1:${FRONT} → app servers ${SERVERS.join(", ")} (round-robin; 4 health answers came from ${pids.size} processes); log ${path.relative(ROOT, LOG)}`);
+    for (let i = 0; i < 4; i++)
+      pids.add(((await (await fetch(`http://127.0.0.1:${FRONT}/api/health`)).json()) as { pid: number }).pid);
+    log(
+      `front door http://127.0.0.1:${FRONT} → app servers ${SERVERS.join(", ")} (round-robin; 4 health answers came from ${pids.size} processes); log ${path.relative(ROOT, LOG)}`,
+    );
     if (!underPlaywright) {
-      await run("npx", ["tsx", "db/seeds/demo-fieldwork.ts", `http://127.0.0.1:${FRONT}`], env).catch((err: unknown) => log(`demo fieldwork not loaded: ${String(err).slice(0, 300)}`));
+      await run("npx", ["tsx", "db/seeds/demo-fieldwork.ts", `http://127.0.0.1:${FRONT}`], env).catch((err: unknown) =>
+        log(`demo fieldwork not loaded: ${String(err).slice(0, 300)}`),
+      );
       if (args.includes("--kill-one")) {
         const appIndex = services.length - SERVERS.length - 1;
-        const restart = () => startService(`next start :${SERVERS[0]}`, process.execPath, ["node_modules/next/dist/bin/next", "start", "-H", "127.0.0.1", "-p", String(SERVERS[0])], env, LOG);
-        services[appIndex] = await killOneServer({ front: `http://127.0.0.1:${FRONT}`, victim: services[appIndex], victimHealthUrl: `http://127.0.0.1:${SERVERS[0]}/api/health`, restart, log });
+        const restart = () =>
+          startService(
+            `next start :${SERVERS[0]}`,
+            process.execPath,
+            ["node_modules/next/dist/bin/next", "start", "-H", "127.0.0.1", "-p", String(SERVERS[0])],
+            env,
+            LOG,
+          );
+        services[appIndex] = await killOneServer({
+          front: `http://127.0.0.1:${FRONT}`,
+          victim: services[appIndex],
+          victimHealthUrl: `http://127.0.0.1:${SERVERS[0]}/api/health`,
+          restart,
+          log,
+        });
       }
-      log(`Sondage on http://127.0.0.1:${FRONT} — sign in as manager@marrow-quill.example / sondage-demo-2026. Ctrl-C stops it.`);
+      log(
+        `Sondage on http://127.0.0.1:${FRONT} — sign in as manager@marrow-quill.example / sondage-demo-2026. Ctrl-C stops it.`,
+      );
     }
-    await Promise.race(services.map((s) => s.exited.then((code) => { throw new Error(`${s.name} exited (${code})`); })));
+    await Promise.race(
+      services.map((s) =>
+        s.exited.then((code) => {
+          throw new Error(`${s.name} exited (${code})`);
+        }),
+      ),
+    );
   } catch (err) {
     console.error("[cluster:app]", err instanceof Error ? err.message : err);
     await stopAll();

@@ -37,16 +37,41 @@ type Say = (line: string) => void;
 
 const url = (port: number) => `http://127.0.0.1:${port}`;
 const env = (dbPort: number, appPort: number): NodeJS.ProcessEnv => ({
-  ...process.env, DB_HOST: "127.0.0.1", DB_PORT: String(dbPort), DB_NAME, NEXTAUTH_URL: url(appPort), NEXT_DIST_DIR: DIST,
-  S3_ENDPOINT: url(PORTS.s3), S3_BUCKET: "sondage-cluster", SMTP_HOST: "127.0.0.1", SMTP_PORT: String(PORTS.smtp),
-  MAIL_INBOX_PORT: String(PORTS.inbox), UPLOAD_DIR: ".data/uploads-cluster", FAKES_DATA: "fakes-cluster", NEXT_TELEMETRY_DISABLED: "1",
+  ...process.env,
+  DB_HOST: "127.0.0.1",
+  DB_PORT: String(dbPort),
+  DB_NAME,
+  NEXTAUTH_URL: url(appPort),
+  NEXT_DIST_DIR: DIST,
+  S3_ENDPOINT: url(PORTS.s3),
+  S3_BUCKET: "sondage-cluster",
+  SMTP_HOST: "127.0.0.1",
+  SMTP_PORT: String(PORTS.smtp),
+  MAIL_INBOX_PORT: String(PORTS.inbox),
+  UPLOAD_DIR: ".data/uploads-cluster",
+  FAKES_DATA: "fakes-cluster",
+  NEXT_TELEMETRY_DISABLED: "1",
 });
 
 /** Rows of each population above `afterId` as node n holds them (read on the node itself, not through the front door). */
 function populationsOnNode(n: number, afterId: number): string {
-  const out = client(n, `SELECT p.id, p.row_count, (SELECT COUNT(*) FROM ${DB_NAME}.population_items i WHERE i.population_id = p.id) FROM ${DB_NAME}.populations p WHERE p.id > ${afterId} ORDER BY p.id`);
-  const rows = out.trim().split("\n").filter(Boolean).map((l) => l.split("\t").map(Number));
-  return rows.length ? rows.map(([id, declared, items]) => `#${id}: ${items.toLocaleString("en-US")} of ${declared.toLocaleString("en-US")} rows`).join(", ") : "none";
+  const out = client(
+    n,
+    `SELECT p.id, p.row_count, (SELECT COUNT(*) FROM ${DB_NAME}.population_items i WHERE i.population_id = p.id) FROM ${DB_NAME}.populations p WHERE p.id > ${afterId} ORDER BY p.id`,
+  );
+  const rows = out
+    .trim()
+    .split("\n")
+    .filter(Boolean)
+    .map((l) => l.split("\t").map(Number));
+  return rows.length
+    ? rows
+        .map(
+          ([id, declared, items]) =>
+            `#${id}: ${items.toLocaleString("en-US")} of ${declared.toLocaleString("en-US")} rows`,
+        )
+        .join(", ")
+    : "none";
 }
 
 /**
@@ -55,13 +80,15 @@ function populationsOnNode(n: number, afterId: number): string {
  * the node's last committed seqno reaches the writer's, up to 5 minutes. Says how long that took.
  */
 async function populationsOnNodeApplied(n: number, afterId: number, writer = 1): Promise<string> {
-  const seqno = (k: number) => Number(client(k, "SHOW GLOBAL STATUS LIKE 'wsrep_last_committed'").trim().split("\t")[1]);
+  const seqno = (k: number) =>
+    Number(client(k, "SHOW GLOBAL STATUS LIKE 'wsrep_last_committed'").trim().split("\t")[1]);
   const target = seqno(writer);
   const started = performance.now();
   while (seqno(n) < target && performance.now() - started < 300_000) await new Promise((r) => setTimeout(r, 500));
   return `${populationsOnNode(n, afterId)} (applied ${((performance.now() - started) / 1000).toFixed(1)} s after the writer's commit)`;
 }
-const maxPopulationOnNode = (n: number) => Number(client(n, `SELECT COALESCE(MAX(id), 0) FROM ${DB_NAME}.populations`).trim());
+const maxPopulationOnNode = (n: number) =>
+  Number(client(n, `SELECT COALESCE(MAX(id), 0) FROM ${DB_NAME}.populations`).trim());
 
 async function prepareDatabase(e: NodeJS.ProcessEnv, recreate: boolean): Promise<void> {
   await run("npx", ["tsx", "db/migrate.ts", recreate ? "recreate" : "latest"], e);
@@ -69,7 +96,13 @@ async function prepareDatabase(e: NodeJS.ProcessEnv, recreate: boolean): Promise
 }
 
 async function startApp(port: number, e: NodeJS.ProcessEnv, logPath: string): Promise<Service> {
-  const app = startService(`next start :${port}`, process.execPath, ["node_modules/next/dist/bin/next", "start", "-H", "127.0.0.1", "-p", String(port)], e, logPath);
+  const app = startService(
+    `next start :${port}`,
+    process.execPath,
+    ["node_modules/next/dist/bin/next", "start", "-H", "127.0.0.1", "-p", String(port)],
+    e,
+    logPath,
+  );
   await waitForHttp(`${url(port)}/api/auth/csrf`, app, 120_000);
   return app;
 }
@@ -91,15 +124,30 @@ async function timedLoad(senior: HttpSession, base: string, rows: number, name: 
 }
 
 /** Starts a load and SIGKILLs node `victim` once `atRows` rows have been read; the load's outcome. */
-async function loadWithKill(senior: HttpSession, base: string, name: string, victim: number, atRows: number, cluster: ClusterControl, log: Say) {
+async function loadWithKill(
+  senior: HttpSession,
+  base: string,
+  name: string,
+  victim: number,
+  atRows: number,
+  cluster: ClusterControl,
+  log: Say,
+) {
   const { uploadId } = await uploadLedger(senior, base, MILLION, name, log);
   const load = startLoad(senior, base, uploadId, name);
   const deadline = performance.now() + 300_000;
-  while (performance.now() < deadline && !load.events.some((e) => (e.rowsRead ?? 0) >= atRows || e.type !== "progress")) await new Promise((r) => setTimeout(r, 100));
+  while (performance.now() < deadline && !load.events.some((e) => (e.rowsRead ?? 0) >= atRows || e.type !== "progress"))
+    await new Promise((r) => setTimeout(r, 100));
   const at = load.events.at(-1);
   await cluster.kill(victim);
   const outcome = await load.done;
-  return { at: at?.phase === "checking" ? `${(at.rowsRead ?? 0).toLocaleString("en-US")} rows read` : (at?.phase ?? at?.type ?? "nothing yet"), outcome };
+  return {
+    at:
+      at?.phase === "checking"
+        ? `${(at.rowsRead ?? 0).toLocaleString("en-US")} rows read`
+        : (at?.phase ?? at?.type ?? "nothing yet"),
+    outcome,
+  };
 }
 
 /** After a node has come back (HAProxy closes the sessions a backup held): until the app answers 200 three times running. */
@@ -125,7 +173,15 @@ export async function runAppFaults(cluster: ClusterControl, report: Say, log: Sa
     await single.createDatabase(DB_NAME);
     await prepareDatabase(env(PORTS.singleDb, PORTS.single), false);
     await prepareDatabase(env(FRONT_PORT, PORTS.cluster), true);
-    services.push(startService("fakes", path.join(ROOT, "node_modules/.bin/tsx"), ["lib/fakes/run-fakes.ts"], env(FRONT_PORT, PORTS.cluster), logPath));
+    services.push(
+      startService(
+        "fakes",
+        path.join(ROOT, "node_modules/.bin/tsx"),
+        ["lib/fakes/run-fakes.ts"],
+        env(FRONT_PORT, PORTS.cluster),
+        logPath,
+      ),
+    );
     await waitForHttp(`${url(PORTS.s3)}/`, services[0]);
     services.push(await startApp(PORTS.single, env(PORTS.singleDb, PORTS.single), logPath));
     services.push(await startApp(PORTS.cluster, env(FRONT_PORT, PORTS.cluster), clusterLog));
@@ -136,8 +192,14 @@ export async function runAppFaults(cluster: ClusterControl, report: Say, log: Sa
     const ref = await timedLoad(one.senior, one.base, MILLION, "cluster-ref-single", log);
     const before = maxPopulationOnNode(1);
     const onCluster = await timedLoad(many.senior, many.base, MILLION, "cluster-ref-galera", log);
-    const nodes = [`node 1 ${populationsOnNode(1, before)}`, `node 2 ${await populationsOnNodeApplied(2, before)}`, `node 3 ${await populationsOnNodeApplied(3, before)}`].join("; ");
-    report(`1,000,000-row CSV load (one transaction, one write set, wsrep_max_ws_size 2 GB, no streaming): single server ${(ref.ms / 1000).toFixed(1)} s (${ref.last?.type}), Galera through the front door ${(onCluster.ms / 1000).toFixed(1)} s (${onCluster.last?.type}) → cluster / single ${(onCluster.ms / ref.ms).toFixed(2)}×; rows on each node: ${nodes}`);
+    const nodes = [
+      `node 1 ${populationsOnNode(1, before)}`,
+      `node 2 ${await populationsOnNodeApplied(2, before)}`,
+      `node 3 ${await populationsOnNodeApplied(3, before)}`,
+    ].join("; ");
+    report(
+      `1,000,000-row CSV load (one transaction, one write set, wsrep_max_ws_size 2 GB, no streaming): single server ${(ref.ms / 1000).toFixed(1)} s (${ref.last?.type}), Galera through the front door ${(onCluster.ms / 1000).toFixed(1)} s (${onCluster.last?.type}) → cluster / single ${(onCluster.ms / ref.ms).toFixed(2)}×; rows on each node: ${nodes}`,
+    );
 
     // 2. The writer killed during a burst of saves.
     const db = knex(buildKnexConfig(env(FRONT_PORT, PORTS.cluster)));
@@ -145,15 +207,35 @@ export async function runAppFaults(cluster: ClusterControl, report: Say, log: Sa
     const sessions = await signInAll(url(PORTS.cluster), emails);
     const small = await timedLoad(many.senior, many.base, 5_000, "cluster-saves-5k", log);
     const smallId = small.last!.populationId!;
-    const { population } = await many.senior.json<{ population: { total: string; rowCount: number } }>(`${many.base}/populations/${smallId}`);
-    await many.senior.json(`${many.base}/populations/${smallId}/reconciliation`, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify({ controlTotal: population.total, controlCount: population.rowCount }) });
+    const { population } = await many.senior.json<{ population: { total: string; rowCount: number } }>(
+      `${many.base}/populations/${smallId}`,
+    );
+    await many.senior.json(`${many.base}/populations/${smallId}/reconciliation`, {
+      method: "POST",
+      headers: { "content-type": "application/json" },
+      body: JSON.stringify({ controlTotal: population.total, controlCount: population.rowCount }),
+    });
     const sampleId = await drawSample(many.senior, many.base, smallId, 100);
     const items = await sampleItems(many.senior, many.base, sampleId);
     const writer: KillableDatabase = { kill: () => cluster.kill(1), start: () => cluster.start(1) };
-    const burst = await burstWithKill({ sessions, base: many.base, sampleId, items, dbServer: writer, db: () => knex(buildKnexConfig(env(FRONT_PORT, PORTS.cluster))), totalMs: 15_000, killAtMs: 3_000, restartAtMs: 15_000 });
+    const burst = await burstWithKill({
+      sessions,
+      base: many.base,
+      sampleId,
+      items,
+      dbServer: writer,
+      db: () => knex(buildKnexConfig(env(FRONT_PORT, PORTS.cluster))),
+      totalMs: 15_000,
+      killAtMs: 3_000,
+      restartAtMs: 15_000,
+    });
     const other = Object.keys(burst.ledger.other).length ? JSON.stringify(burst.ledger.other) : "none";
-    report(`writer (node 1) SIGKILLed 3 s into a burst of saves (${USERS} staff, 15 s; node 1 restarted after it): ${burst.verification.acked} acknowledged, ${burst.ledger.conflicts} × 409, ${burst.ledger.unavailable} × 503 (first ${burst.firstUnavailableMs.toFixed(0)} ms after the kill), other statuses ${other}, transport errors ${burst.networkErrors}`);
-    report(`burst verified through the front door: lost ${burst.verification.lost}, duplicate versions ${burst.verification.duplicateVersions}, wrong final values ${burst.verification.wrongFinal}, committed but unacknowledged ${burst.verification.unacknowledgedCommits}`);
+    report(
+      `writer (node 1) SIGKILLed 3 s into a burst of saves (${USERS} staff, 15 s; node 1 restarted after it): ${burst.verification.acked} acknowledged, ${burst.ledger.conflicts} × 409, ${burst.ledger.unavailable} × 503 (first ${burst.firstUnavailableMs.toFixed(0)} ms after the kill), other statuses ${other}, transport errors ${burst.networkErrors}`,
+    );
+    report(
+      `burst verified through the front door: lost ${burst.verification.lost}, duplicate versions ${burst.verification.duplicateVersions}, wrong final values ${burst.verification.wrongFinal}, committed but unacknowledged ${burst.verification.unacknowledgedCommits}`,
+    );
 
     // 3. A node killed in the middle of a 1M-row load: the writer, then a backup.
     await settle(many.senior);
@@ -162,18 +244,26 @@ export async function runAppFaults(cluster: ClusterControl, report: Say, log: Sa
     const survivors = `node 2 ${populationsOnNode(2, mark)}, node 3 ${populationsOnNode(3, mark)}`;
     await cluster.start(1);
     await settle(many.senior);
-    report(`writer (node 1) SIGKILLed during a 1M-row load (at ${writerCut.at}): the load answered ${writerCut.outcome.last?.type} ${writerCut.outcome.last?.status ?? ""} "${writerCut.outcome.last?.message ?? writerCut.outcome.error}"; populations from it — ${survivors}; node 1 after rejoining ${populationsOnNode(1, mark)} (absent on every node is the right answer)`);
+    report(
+      `writer (node 1) SIGKILLed during a 1M-row load (at ${writerCut.at}): the load answered ${writerCut.outcome.last?.type} ${writerCut.outcome.last?.status ?? ""} "${writerCut.outcome.last?.message ?? writerCut.outcome.error}"; populations from it — ${survivors}; node 1 after rejoining ${populationsOnNode(1, mark)} (absent on every node is the right answer)`,
+    );
     mark = maxPopulationOnNode(1);
     const backupCut = await loadWithKill(many.senior, many.base, "cluster-kill-backup", 3, 400_000, cluster, log);
     const whileDown = `node 1 ${populationsOnNode(1, mark)}; node 2 ${await populationsOnNodeApplied(2, mark)}`;
     const started = performance.now();
     await cluster.start(3);
     await settle(many.senior);
-    report(`backup (node 3) SIGKILLed during a 1M-row load (at ${backupCut.at}): the load answered ${backupCut.outcome.last?.type} ${backupCut.outcome.last?.rowCount ?? backupCut.outcome.last?.message ?? backupCut.outcome.error ?? ""}; ${whileDown}; node 3 restarted and Synced by state transfer in ${((performance.now() - started) / 1000).toFixed(1)} s, then holds ${populationsOnNode(3, mark)}`);
+    report(
+      `backup (node 3) SIGKILLed during a 1M-row load (at ${backupCut.at}): the load answered ${backupCut.outcome.last?.type} ${backupCut.outcome.last?.rowCount ?? backupCut.outcome.last?.message ?? backupCut.outcome.error ?? ""}; ${whileDown}; node 3 restarted and Synced by state transfer in ${((performance.now() - started) / 1000).toFixed(1)} s, then holds ${populationsOnNode(3, mark)}`,
+    );
   } finally {
     for (const s of services.reverse()) await stopService(s);
     await single.stop();
-    const retries = existsSync(clusterLog) ? (readFileSync(clusterLog, "utf8").match(/\[sondage\] deadlock retry/g) ?? []).length : 0;
-    report(`transactions re-run after a deadlock / certification conflict (1213) by the app on the cluster, counted in its log: ${retries}`);
+    const retries = existsSync(clusterLog)
+      ? (readFileSync(clusterLog, "utf8").match(/\[sondage\] deadlock retry/g) ?? []).length
+      : 0;
+    report(
+      `transactions re-run after a deadlock / certification conflict (1213) by the app on the cluster, counted in its log: ${retries}`,
+    );
   }
 }

@@ -7,7 +7,11 @@ export function ensureHaproxy(): void {
     execFileSync("haproxy", ["-v"], { stdio: "ignore" });
   } catch {
     const sudo = process.getuid?.() === 0 ? [] : ["sudo"];
-    const sh = (args: string[]) => execFileSync(sudo[0] ?? args[0], sudo.length ? args : args.slice(1), { stdio: "inherit", env: { ...process.env, DEBIAN_FRONTEND: "noninteractive" } });
+    const sh = (args: string[]) =>
+      execFileSync(sudo[0] ?? args[0], sudo.length ? args : args.slice(1), {
+        stdio: "inherit",
+        env: { ...process.env, DEBIAN_FRONTEND: "noninteractive" },
+      });
     sh(["apt-get", "update", "-qq"]);
     sh(["apt-get", "install", "-y", "-qq", "--no-install-recommends", "haproxy"]);
   }

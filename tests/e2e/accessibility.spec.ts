@@ -18,7 +18,13 @@ async function as(page: Page, role: DemoRole) {
 async function expectNoViolations(page: Page, label: string) {
   await page.waitForLoadState("networkidle");
   const { violations } = await new AxeBuilder({ page }).withTags(WCAG_AA_TAGS).analyze();
-  const report = violations.map((v) => `${v.id} (${v.impact}): ${v.help}\n${v.nodes.slice(0, 5).map((n) => `   ${n.target.join(" ")} — ${n.failureSummary?.split("\n").slice(1, 2).join("")}`).join("\n")}${v.nodes.length > 5 ? `\n   … and ${v.nodes.length - 5} more` : ""}`);
+  const report = violations.map(
+    (v) =>
+      `${v.id} (${v.impact}): ${v.help}\n${v.nodes
+        .slice(0, 5)
+        .map((n) => `   ${n.target.join(" ")} — ${n.failureSummary?.split("\n").slice(1, 2).join("")}`)
+        .join("\n")}${v.nodes.length > 5 ? `\n   … and ${v.nodes.length - 5} more` : ""}`,
+  );
   expect.soft(report, `${label}: WCAG 2.1 A/AA violations`).toEqual([]);
 }
 
@@ -30,7 +36,9 @@ async function scan(page: Page, path: string, label: string) {
 
 const CONTACT = { name: "Ines Okafor", email: "ines.okafor@tessaly-outdoor.example", password: "ines-chose-this-2026" };
 
-test("every page meets WCAG 2.1 A/AA as axe-core checks it (auditor, administrator and client screens)", async ({ page }) => {
+test("every page meets WCAG 2.1 A/AA as axe-core checks it (auditor, administrator and client screens)", async ({
+  page,
+}) => {
   test.setTimeout(300_000);
   await page.setViewportSize({ width: 1440, height: 900 });
 
@@ -41,23 +49,56 @@ test("every page meets WCAG 2.1 A/AA as axe-core checks it (auditor, administrat
   // Data to look at: a reconciled ledger, a drawn sample with a first result, and a request list.
   await as(page, "senior");
   const engagementId = await engagementIdByClient(page.request, "Tessaly Outdoor Supply Inc.");
-  const population = await loadReconciledLedger(page.request, { engagementId, path: test.info().outputPath("ledger.csv"), rows: 200, seed: 404, name: "Receivables for the accessibility scan" });
+  const population = await loadReconciledLedger(page.request, {
+    engagementId,
+    path: test.info().outputPath("ledger.csv"),
+    rows: 200,
+    seed: 404,
+    name: "Receivables for the accessibility scan",
+  });
   const planned = await page.request.post(`/api/engagements/${engagementId}/samples`, {
-    data: { populationId: population.id, name: "Receivables existence (accessibility)", objective: "Confirm recorded receivables exist at the period end.", assertion: "Existence", direction: "overstatement", params: { method: "mus", confidence: 0.95, tolerableMisstatement: (Number(population.positiveTotal) / 6).toFixed(2), factorMode: "table" } },
+    data: {
+      populationId: population.id,
+      name: "Receivables existence (accessibility)",
+      objective: "Confirm recorded receivables exist at the period end.",
+      assertion: "Existence",
+      direction: "overstatement",
+      params: {
+        method: "mus",
+        confidence: 0.95,
+        tolerableMisstatement: (Number(population.positiveTotal) / 6).toFixed(2),
+        factorMode: "table",
+      },
+    },
   });
   expect(planned.status(), await planned.text()).toBe(201);
   const sampleId = (await planned.json()).sample.id as number;
-  expect((await page.request.post(`/api/engagements/${engagementId}/samples/${sampleId}/draw`, { data: { seed: 4040 } })).status()).toBe(201);
+  expect(
+    (
+      await page.request.post(`/api/engagements/${engagementId}/samples/${sampleId}/draw`, { data: { seed: 4040 } })
+    ).status(),
+  ).toBe(201);
   const api = `/api/engagements/${engagementId}/samples/${sampleId}`;
   const { items } = await (await page.request.get(`${api}/items?pageSize=200`)).json();
   const first = items[0] as { id: number; version: number; bookValue: string; itemRef: string };
-  expect((await page.request.patch(`${api}/items/${first.id}`, { data: { version: first.version, status: "done", auditedValue: first.bookValue } })).status()).toBe(200);
+  expect(
+    (
+      await page.request.patch(`${api}/items/${first.id}`, {
+        data: { version: first.version, status: "done", auditedValue: first.bookValue },
+      })
+    ).status(),
+  ).toBe(200);
   const sampleUrl = `/engagements/${engagementId}/samples/${sampleId}`;
   await page.goto(`${sampleUrl}/requests/new`);
   await expectNoViolations(page, "new request list");
   const form = new NewRequestListPage(page);
   await form.inviteContact(CONTACT.name, CONTACT.email);
-  await form.send({ title: "Accessibility scan — documents", itemRefs: [first.itemRef], needs: ["Remittance advice or proof of payment"], message: "Please send what you have." });
+  await form.send({
+    title: "Accessibility scan — documents",
+    itemRefs: [first.itemRef],
+    needs: ["Remittance advice or proof of payment"],
+    message: "Please send what you have.",
+  });
   await expect(page.getByRole("heading", { name: "Accessibility scan — documents" })).toBeVisible();
   const teamListUrl = new URL(page.url()).pathname;
 

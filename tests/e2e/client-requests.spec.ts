@@ -2,34 +2,72 @@ import { expect, test, type Page } from "@playwright/test";
 import { SignInPage, type DemoRole } from "./pages/sign-in-page";
 import { SamplePage } from "./pages/samples-pages";
 import { engagementIdByClient, loadReconciledLedger } from "./pages/samples-population";
-import { ClientRequestPage, NewRequestListPage, signInWith, TeamRequestPage, waitForMail } from "./pages/requests-pages";
+import {
+  ClientRequestPage,
+  NewRequestListPage,
+  signInWith,
+  TeamRequestPage,
+  waitForMail,
+} from "./pages/requests-pages";
 
 test.describe.configure({ mode: "serial" });
 
-const shot = (page: Page, name: string) => page.screenshot({ path: test.info().outputPath(`${name}.png`), fullPage: true });
+const shot = (page: Page, name: string) =>
+  page.screenshot({ path: test.info().outputPath(`${name}.png`), fullPage: true });
 
 async function as(page: Page, role: DemoRole) {
   await page.context().clearCookies();
   await new SignInPage(page).signInAndWait(role);
 }
 
-const CONTACT = { name: "Dana Whitlock", email: "dana.whitlock@tessaly-outdoor.example", password: "dana-chose-this-2026" };
+const CONTACT = {
+  name: "Dana Whitlock",
+  email: "dana.whitlock@tessaly-outdoor.example",
+  password: "dana-chose-this-2026",
+};
 // ISO 32000-1:2008 §7.5.2: a PDF file begins with "%PDF-1.n".
-const pdf = (text: string) => Buffer.from(`%PDF-1.7\n% ${text}\n1 0 obj\n<< /Type /Catalog >>\nendobj\ntrailer\n<< /Root 1 0 R >>\n%%EOF\n`);
+const pdf = (text: string) =>
+  Buffer.from(`%PDF-1.7\n% ${text}\n1 0 obj\n<< /Type /Catalog >>\nendobj\ntrailer\n<< /Root 1 0 R >>\n%%EOF\n`);
 
-test("invite a client contact, who uploads per item; the team sends one file back and accepts another as evidence", async ({ page }) => {
+test("invite a client contact, who uploads per item; the team sends one file back and accepts another as evidence", async ({
+  page,
+}) => {
   test.setTimeout(180_000);
   // Set-up through the API as the senior: a reconciled ledger and a drawn monetary-unit sample.
   await as(page, "senior");
   const engagementId = await engagementIdByClient(page.request, "Tessaly Outdoor Supply Inc.");
-  const population = await loadReconciledLedger(page.request, { engagementId, path: test.info().outputPath("ledger.csv"), rows: 300, seed: 91, name: "Receivables for client requests" });
+  const population = await loadReconciledLedger(page.request, {
+    engagementId,
+    path: test.info().outputPath("ledger.csv"),
+    rows: 300,
+    seed: 91,
+    name: "Receivables for client requests",
+  });
   const planned = await page.request.post(`/api/engagements/${engagementId}/samples`, {
-    data: { populationId: population.id, name: "Receivables existence (client requests)", objective: "Confirm recorded receivables exist at the period end.", assertion: "Existence", direction: "overstatement", params: { method: "mus", confidence: 0.95, tolerableMisstatement: (Number(population.positiveTotal) / 6).toFixed(2), factorMode: "table" } },
+    data: {
+      populationId: population.id,
+      name: "Receivables existence (client requests)",
+      objective: "Confirm recorded receivables exist at the period end.",
+      assertion: "Existence",
+      direction: "overstatement",
+      params: {
+        method: "mus",
+        confidence: 0.95,
+        tolerableMisstatement: (Number(population.positiveTotal) / 6).toFixed(2),
+        factorMode: "table",
+      },
+    },
   });
   expect(planned.status(), await planned.text()).toBe(201);
   const sampleId = (await planned.json()).sample.id as number;
-  expect((await page.request.post(`/api/engagements/${engagementId}/samples/${sampleId}/draw`, { data: { seed: 20261203 } })).status()).toBe(201);
-  const { items } = await (await page.request.get(`/api/engagements/${engagementId}/samples/${sampleId}/items?pageSize=200`)).json();
+  expect(
+    (
+      await page.request.post(`/api/engagements/${engagementId}/samples/${sampleId}/draw`, { data: { seed: 20261203 } })
+    ).status(),
+  ).toBe(201);
+  const { items } = await (
+    await page.request.get(`/api/engagements/${engagementId}/samples/${sampleId}/items?pageSize=200`)
+  ).json();
   const [first, second] = items as { itemRef: string; bookValue: string }[];
   const sampleUrl = `/engagements/${engagementId}/samples/${sampleId}`;
 
@@ -39,7 +77,12 @@ test("invite a client contact, who uploads per item; the team sends one file bac
   await expect(page.getByRole("heading", { name: "Ask the client for evidence" })).toBeVisible();
   const form = new NewRequestListPage(page);
   await form.inviteContact(CONTACT.name, CONTACT.email);
-  await form.send({ title: "Year-end receivables — documents", itemRefs: [first.itemRef, second.itemRef], needs: ["Remittance advice or proof of payment"], message: "Please send what you have by the due date." });
+  await form.send({
+    title: "Year-end receivables — documents",
+    itemRefs: [first.itemRef, second.itemRef],
+    needs: ["Remittance advice or proof of payment"],
+    message: "Please send what you have by the due date.",
+  });
   await expect(page.getByRole("heading", { name: "Year-end receivables — documents" })).toBeVisible();
   await expect(new TeamRequestPage(page).row(first.itemRef).getByText("Requested")).toBeVisible();
   await shot(page, "1-senior-sent-list");
@@ -99,6 +142,8 @@ test("invite a client contact, who uploads per item; the team sends one file bac
   await expect(grid.getByRole("row").filter({ hasText: first.itemRef }).getByText("Accepted")).toBeVisible();
   await expect(grid.getByRole("row").filter({ hasText: second.itemRef }).getByText("Requested")).toBeVisible();
   await shot(page, "5-grid-request-status");
-  const evidence = await (await page.request.get(`/api/engagements/${engagementId}/samples/${sampleId}/items/${items[0].id}/evidence`)).json();
+  const evidence = await (
+    await page.request.get(`/api/engagements/${engagementId}/samples/${sampleId}/items/${items[0].id}/evidence`)
+  ).json();
   expect(evidence.evidence.map((e: { fileName: string }) => e.fileName)).toEqual(["remittance-march.pdf"]);
 });

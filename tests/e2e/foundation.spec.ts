@@ -46,7 +46,9 @@ for (const role of Object.keys(VISIBLE) as (keyof typeof VISIBLE)[]) {
   });
 }
 
-test("the client contact lands on their own requests and is shown not-found anywhere in the audit workspace", async ({ page }) => {
+test("the client contact lands on their own requests and is shown not-found anywhere in the audit workspace", async ({
+  page,
+}) => {
   const signIn = new SignInPage(page);
   await signIn.signInAndWait("client");
   await expect(page).toHaveURL(/\/requests$/);
@@ -86,7 +88,9 @@ test("staff cannot create an engagement", async ({ page }) => {
   await expect(page.getByRole("link", { name: "New engagement" })).toHaveCount(0);
   await page.goto("/engagements/new");
   // By role: Next can keep a hidden copy of the previous render in the DOM for a moment.
-  await expect(page.getByRole("alert").filter({ hasText: "Only managers and partners can create engagements." })).toBeVisible();
+  await expect(
+    page.getByRole("alert").filter({ hasText: "Only managers and partners can create engagements." }),
+  ).toBeVisible();
   await expect(page.getByRole("button", { name: "Create engagement" })).toHaveCount(0);
   await page.screenshot({ path: test.info().outputPath("staff-cannot-create.png"), fullPage: true });
 });

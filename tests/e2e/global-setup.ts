@@ -12,7 +12,8 @@ export default async function globalSetup() {
   execFileSync("npx", ["tsx", "db/seed.ts"], { env, stdio: "inherit" });
   // Only the message files: the folder stays, since a running fake writes each new message into it.
   const mail = path.join(process.cwd(), ".data", `fakes-${dbName}`, "mail");
-  for (const f of existsSync(mail) ? readdirSync(mail) : []) if (f.endsWith(".json")) rmSync(path.join(mail, f), { force: true });
+  for (const f of existsSync(mail) ? readdirSync(mail) : [])
+    if (f.endsWith(".json")) rmSync(path.join(mail, f), { force: true });
   // The fakes (a webServer of playwright.config.ts) may already hold the old mail in memory.
   await fetch(`http://127.0.0.1:${2695 + slot * 10}/messages`, { method: "DELETE" }).catch(() => undefined);
 }

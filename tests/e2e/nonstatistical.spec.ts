@@ -124,7 +124,10 @@ test("a senior plans a nonstatistical sample from the risk assessment, picks ite
   await shot(page, "4-evaluation");
   const review = new ReviewPanelPage(page);
   // The auditor's own conclusion and response come before the sign-off (the computed result is not it).
-  await review.conclude("The cut-off misstatement found is isolated; with the client's adjustment the balance is not materially misstated.", [{ label: "Perform alternative procedures" }]);
+  await review.conclude(
+    "The cut-off misstatement found is isolated; with the client's adjustment the balance is not materially misstated.",
+    [{ label: "Perform alternative procedures" }],
+  );
   await review.signOff("preparer");
 
   // The manager signs off, locks, and reads the PDF.

@@ -3,10 +3,13 @@ import { SignInPage } from "./pages/sign-in-page";
 import { signInWith, waitForMail } from "./pages/requests-pages";
 
 // Issue 19: firm staff choose their own password with an e-mailed link; a reset sends a new link and ends their sessions.
-const shot = (page: Page, name: string) => page.screenshot({ path: test.info().outputPath(`${name}.png`), fullPage: true });
+const shot = (page: Page, name: string) =>
+  page.screenshot({ path: test.info().outputPath(`${name}.png`), fullPage: true });
 const linkIn = (text: string) => new URL(/(http\S+\/invitation\/[A-Za-z0-9_-]+)/.exec(text)![1]).pathname;
 
-test("the administrator invites a person, who chooses a password with the e-mailed link; a reset sends a new one", async ({ page }) => {
+test("the administrator invites a person, who chooses a password with the e-mailed link; a reset sends a new one", async ({
+  page,
+}) => {
   const email = `noor-${Date.now()}@marrow-quill.example`;
   await new SignInPage(page).signInAndWait("admin");
   await expect(page).toHaveURL(/\/admin\/users$/);
@@ -20,7 +23,9 @@ test("the administrator invites a person, who chooses a password with the e-mail
     await shot(page, `new-person-${width}`);
   }
   await page.getByRole("button", { name: "Invite by e-mail" }).click();
-  await expect(page.getByRole("status").filter({ hasText: "Noor Achterberg was added and e-mailed a link" })).toBeVisible();
+  await expect(
+    page.getByRole("status").filter({ hasText: "Noor Achterberg was added and e-mailed a link" }),
+  ).toBeVisible();
   await expect(page.getByRole("table", { name: "People" }).getByText(email)).toBeVisible();
   await shot(page, "people-after-invite");
 
@@ -39,9 +44,17 @@ test("the administrator invites a person, who chooses a password with the e-mail
   // The administrator resets it: no password typed, the person gets a new link.
   await page.context().clearCookies();
   await new SignInPage(page).signInAndWait("admin");
-  page.once("dialog", (d) => { expect(d.message()).toContain("open sessions end"); void d.accept(); });
-  await page.getByRole("row", { name: new RegExp(email) }).getByRole("button", { name: "Reset password" }).click();
-  await expect(page.getByRole("status").filter({ hasText: "They were e-mailed a link to choose a new one" })).toBeVisible();
+  page.once("dialog", (d) => {
+    expect(d.message()).toContain("open sessions end");
+    void d.accept();
+  });
+  await page
+    .getByRole("row", { name: new RegExp(email) })
+    .getByRole("button", { name: "Reset password" })
+    .click();
+  await expect(
+    page.getByRole("status").filter({ hasText: "They were e-mailed a link to choose a new one" }),
+  ).toBeVisible();
   await shot(page, "people-after-reset");
   const reset = await waitForMail(email, /choose a new Sondage password/);
   expect(linkIn(reset.text)).not.toBe(linkIn(invitation.text));

@@ -36,7 +36,8 @@ async function openTessaly(page: Page) {
 const shot = (page: Page, name: string) => page.screenshot({ path: test.info().outputPath(name), fullPage: true });
 /** One panel only, so the picture shows what the step is about. */
 const shotOf = (locator: Locator, name: string) => locator.screenshot({ path: test.info().outputPath(name) });
-const card = (page: Page, title: string) => page.locator("section").filter({ has: page.getByRole("heading", { name: title, exact: true }) });
+const card = (page: Page, title: string) =>
+  page.locator("section").filter({ has: page.getByRole("heading", { name: title, exact: true }) });
 
 test("a senior loads a ledger, reconciles it and reviews its profile", async ({ page }) => {
   test.setTimeout(120_000);
@@ -53,16 +54,33 @@ test("a senior loads a ledger, reconciles it and reviews its profile", async ({ 
 
   // Upload throttled to 40 KB/s so the byte-count bar can be seen moving.
   const cdp = await page.context().newCDPSession(page);
-  await cdp.send("Network.emulateNetworkConditions", { offline: false, latency: 0, downloadThroughput: -1, uploadThroughput: 40 * 1024 });
+  await cdp.send("Network.emulateNetworkConditions", {
+    offline: false,
+    latency: 0,
+    downloadThroughput: -1,
+    uploadThroughput: 40 * 1024,
+  });
   await page.getByLabel("Ledger file").setInputFiles(file);
   const uploading = page.getByRole("progressbar", { name: /^Uploading tessaly-receivables\.csv/ });
   await expect(uploading).toBeVisible();
   await expect(page.getByText(/ KB of 129 KB$/)).toBeVisible();
   await shot(page, "01b-uploading.png");
   await expect(page.getByRole("table", { name: "File preview" })).toBeVisible({ timeout: 20_000 });
-  await cdp.send("Network.emulateNetworkConditions", { offline: false, latency: 0, downloadThroughput: -1, uploadThroughput: -1 });
+  await cdp.send("Network.emulateNetworkConditions", {
+    offline: false,
+    latency: 0,
+    downloadThroughput: -1,
+    uploadThroughput: -1,
+  });
   await expect(page.getByText("tessaly-receivables.csv")).toBeVisible();
-  await loader.mapColumns({ itemRef: "Invoice", bookValue: "Amount", description: "Customer", date: "Posted", keep: ["Currency"], name: "Trade receivables at 30 Sep 2026" });
+  await loader.mapColumns({
+    itemRef: "Invoice",
+    bookValue: "Amount",
+    description: "Customer",
+    date: "Posted",
+    keep: ["Currency"],
+    name: "Trade receivables at 30 Sep 2026",
+  });
   await expect(page.getByLabel("Number format")).toHaveValue("dot-decimal");
   await shot(page, "02-mapping.png");
   // A 2,000-row load is over in a blink: record what the progress panel showed on the way.
@@ -76,7 +94,9 @@ test("a senior loads a ledger, reconciles it and reviews its profile", async ({ 
   await loader.load();
   await expect(page.getByText(`Loaded ${ROWS.toLocaleString("en-US")} items, total`)).toBeVisible({ timeout: 30_000 });
   const seen = await page.evaluate(() => (window as unknown as { __progressSeen: string[] }).__progressSeen);
-  expect(seen.some((text) => text.includes("Reading and checking every row") && text.includes("Committing the population"))).toBe(true);
+  expect(
+    seen.some((text) => text.includes("Reading and checking every row") && text.includes("Committing the population")),
+  ).toBe(true);
   await expect(page.getByRole("status").filter({ hasText: "Loaded" })).toContainText(shown(facts.total));
   await shot(page, "03-loaded.png");
 
@@ -97,7 +117,9 @@ test("a senior loads a ledger, reconciles it and reviews its profile", async ({ 
   await expect(profile.status()).toContainText("Unreconciled");
   await shotOf(card(page, "Reconciliation to the ledger"), "05-difference.png");
 
-  await page.getByLabel("Explanation of the difference").fill("Unapplied cash of 100.00 held in the suspense account; agreed to the client's bank reconciliation.");
+  await page
+    .getByLabel("Explanation of the difference")
+    .fill("Unapplied cash of 100.00 held in the suspense account; agreed to the client's bank reconciliation.");
   await page.getByRole("button", { name: "Record again" }).click();
   await expect(page.getByText(/^Reconciled by Priya Nair/)).toBeVisible();
   await expect(profile.status()).toContainText("Reconciled");
@@ -107,7 +129,9 @@ test("a senior loads a ledger, reconciles it and reviews its profile", async ({ 
   const cut = 500_000n; // 5,000.00
   const above = facts.rows.filter((r) => r.cents >= cut);
   const result = await profile.countAtOrAbove("5000");
-  await expect(result).toContainText(`${above.length.toLocaleString("en-US")} of ${ROWS.toLocaleString("en-US")} items`);
+  await expect(result).toContainText(
+    `${above.length.toLocaleString("en-US")} of ${ROWS.toLocaleString("en-US")} items`,
+  );
   await expect(result).toContainText(shown(above.reduce((s, r) => s + r.cents, 0n)));
   await shotOf(card(page, "Items at or above an amount"), "07-threshold.png");
 
@@ -135,14 +159,33 @@ test("a senior loads a ledger, reconciles it and reviews its profile", async ({ 
 
 test("a file with bad rows is refused row by row and nothing is stored", async ({ page }) => {
   const file = test.info().outputPath("bad-receivables.csv");
-  await writeFile(file, ["Invoice,Customer,Amount", "INV-1,Alder Ltd,100.00", ",Birch & Co,200.00", "INV-3,Cedar Row,twelve", "INV-4,Dunmore,40.00", ""].join("\n"));
+  await writeFile(
+    file,
+    [
+      "Invoice,Customer,Amount",
+      "INV-1,Alder Ltd,100.00",
+      ",Birch & Co,200.00",
+      "INV-3,Cedar Row,twelve",
+      "INV-4,Dunmore,40.00",
+      "",
+    ].join("\n"),
+  );
   await new SignInPage(page).signInAndWait("senior");
   await openTessaly(page);
-  const before = await page.getByRole("table", { name: "Populations" }).getByRole("row").count().catch(() => 0);
+  const before = await page
+    .getByRole("table", { name: "Populations" })
+    .getByRole("row")
+    .count()
+    .catch(() => 0);
   const loader = new LoadLedgerPage(page);
   await loader.openFromEngagement();
   await loader.chooseFile(file);
-  await loader.mapColumns({ itemRef: "Invoice", bookValue: "Amount", description: "Customer", name: "Receivables (bad file)" });
+  await loader.mapColumns({
+    itemRef: "Invoice",
+    bookValue: "Amount",
+    description: "Customer",
+    name: "Receivables (bad file)",
+  });
   await loader.load();
   await expect(page.getByText("2 problems were found in bad-receivables.csv. Nothing was stored.")).toBeVisible();
   const rows = loader.problems().getByRole("row");
@@ -152,7 +195,10 @@ test("a file with bad rows is refused row by row and nothing is stored", async (
   await expect(rows.nth(2)).toContainText("twelve");
   await shot(page, "10-problems.png");
 
-  const [download] = await Promise.all([page.waitForEvent("download"), page.getByRole("link", { name: "Download all problems (CSV)" }).click()]);
+  const [download] = await Promise.all([
+    page.waitForEvent("download"),
+    page.getByRole("link", { name: "Download all problems (CSV)" }).click(),
+  ]);
   const csv = (await readFile(await download.path(), "utf8")).replace(/^\uFEFF/, ""); // a BOM, so spreadsheet programs read UTF-8
   expect(csv.split(/\r?\n/)[0]).toBe("Row,Column,Problem");
   expect(csv).toMatch(/^3,Invoice,/m);
@@ -207,7 +253,12 @@ test("a workbook is read from the chosen sheet", async ({ page }) => {
   await expect(page.getByRole("main").getByRole("alert")).toContainText("Row 1 has only one column");
   await page.getByLabel("Sheet").selectOption("Payables");
   await expect(page.getByRole("table", { name: "File preview" })).toContainText("PI-2003");
-  await loader.mapColumns({ itemRef: "Document", bookValue: "Balance", description: "Supplier", name: "Trade payables at 30 Sep 2026" });
+  await loader.mapColumns({
+    itemRef: "Document",
+    bookValue: "Balance",
+    description: "Supplier",
+    name: "Trade payables at 30 Sep 2026",
+  });
   await shot(page, "13-workbook-mapping.png");
   await loader.load();
   await expect(page.getByText("Loaded 3 items, total")).toBeVisible();

@@ -7,7 +7,8 @@ import { NewRequestListPage, waitForMail } from "./pages/requests-pages";
 
 test.describe.configure({ mode: "serial" });
 
-const shot = (page: Page, name: string) => page.screenshot({ path: test.info().outputPath(`${name}.png`), fullPage: true });
+const shot = (page: Page, name: string) =>
+  page.screenshot({ path: test.info().outputPath(`${name}.png`), fullPage: true });
 const WIDTHS = [1280, 1440, 1920];
 
 async function as(page: Page, role: DemoRole) {
@@ -17,13 +18,33 @@ async function as(page: Page, role: DemoRole) {
 
 const CONTACT = { name: "Ruth Calloway", email: "ruth.calloway@tessaly-outdoor.example" };
 
-test("the manager's inbox counts the sample awaiting review; lock asks first, naming the open request list, and the contact is told it closed", async ({ page }) => {
+test("the manager's inbox counts the sample awaiting review; lock asks first, naming the open request list, and the contact is told it closed", async ({
+  page,
+}) => {
   test.setTimeout(240_000);
   await as(page, "senior");
   const engagementId = await engagementIdByClient(page.request, "Tessaly Outdoor Supply Inc.");
-  const population = await loadReconciledLedger(page.request, { engagementId, path: test.info().outputPath("ledger.csv"), rows: 200, seed: 1920, name: "Receivables for the inbox" });
+  const population = await loadReconciledLedger(page.request, {
+    engagementId,
+    path: test.info().outputPath("ledger.csv"),
+    rows: 200,
+    seed: 1920,
+    name: "Receivables for the inbox",
+  });
   const planned = await page.request.post(`/api/engagements/${engagementId}/samples`, {
-    data: { populationId: population.id, name: "Receivables existence (inbox and lock)", objective: "Confirm recorded receivables exist at the period end.", assertion: "Existence", direction: "overstatement", params: { method: "mus", confidence: 0.95, tolerableMisstatement: (Number(population.positiveTotal) / 6).toFixed(2), factorMode: "table" } },
+    data: {
+      populationId: population.id,
+      name: "Receivables existence (inbox and lock)",
+      objective: "Confirm recorded receivables exist at the period end.",
+      assertion: "Existence",
+      direction: "overstatement",
+      params: {
+        method: "mus",
+        confidence: 0.95,
+        tolerableMisstatement: (Number(population.positiveTotal) / 6).toFixed(2),
+        factorMode: "table",
+      },
+    },
   });
   expect(planned.status(), await planned.text()).toBe(201);
   const sampleId = (await planned.json()).sample.id as number;
@@ -36,12 +57,27 @@ test("the manager's inbox counts the sample awaiting review; lock asks first, na
   await page.goto(`${url}/requests/new`);
   const form = new NewRequestListPage(page);
   await form.inviteContact(CONTACT.name, CONTACT.email);
-  await form.send({ title: "Inbox run — remittances", itemRefs: [items[0].itemRef], needs: ["Remittance advice or proof of payment"], message: "Please send what you have." });
+  await form.send({
+    title: "Inbox run — remittances",
+    itemRefs: [items[0].itemRef],
+    needs: ["Remittance advice or proof of payment"],
+    message: "Please send what you have.",
+  });
   await expect(page.getByRole("heading", { name: "Inbox run — remittances" })).toBeVisible();
-  const rows = items.map((it: { id: number; version: number; bookValue: string }) => ({ itemId: it.id, version: it.version, status: "done", auditedValue: it.bookValue }));
+  const rows = items.map((it: { id: number; version: number; bookValue: string }) => ({
+    itemId: it.id,
+    version: it.version,
+    status: "done",
+    auditedValue: it.bookValue,
+  }));
   expect((await page.request.post(`${api}/results`, { data: { rows } })).status()).toBe(200);
   // Issue 13: the auditor's conclusion is recorded before the preparer signs off.
-  const concluded = await page.request.put(`${api}/conclusion`, { data: { conclusion: "No misstatement found; the balance is fairly stated.", responses: [{ kind: "alternative-procedures", note: "Subsequent receipts agreed" }] } });
+  const concluded = await page.request.put(`${api}/conclusion`, {
+    data: {
+      conclusion: "No misstatement found; the balance is fairly stated.",
+      responses: [{ kind: "alternative-procedures", note: "Subsequent receipts agreed" }],
+    },
+  });
   expect(concluded.status(), await concluded.text()).toBe(200);
   expect((await page.request.post(`${api}/sign-off`, { data: { as: "preparer" } })).status()).toBe(200);
 
@@ -52,7 +88,10 @@ test("the manager's inbox counts the sample awaiting review; lock asks first, na
   const waiting = Number(await page.getByTestId("inbox-count").textContent());
   expect(waiting).toBeGreaterThanOrEqual(1);
   await page.getByRole("link", { name: /^Inbox/ }).click();
-  const entry = page.getByRole("table", { name: "Samples waiting for you" }).getByRole("row").filter({ hasText: "Receivables existence (inbox and lock)" });
+  const entry = page
+    .getByRole("table", { name: "Samples waiting for you" })
+    .getByRole("row")
+    .filter({ hasText: "Receivables existence (inbox and lock)" });
   await expect(entry).toContainText("Review and sign off");
   await expect(entry).toContainText("Tessaly Outdoor Supply Inc.");
   for (const width of WIDTHS) {
@@ -69,7 +108,9 @@ test("the manager's inbox counts the sample awaiting review; lock asks first, na
   await expect(page.getByRole("button", { name: "Signed off as reviewer" })).toBeDisabled();
   const dialog = await review.openLockDialog();
   await expect(dialog).toContainText("render the signed-off workpaper (PDF) once");
-  await expect(dialog.getByTestId("lists-to-close")).toContainText(`“Inbox run — remittances” (sent to ${CONTACT.name})`);
+  await expect(dialog.getByTestId("lists-to-close")).toContainText(
+    `“Inbox run — remittances” (sent to ${CONTACT.name})`,
+  );
   for (const width of WIDTHS) {
     await page.setViewportSize({ width, height: 900 });
     await shot(page, `2-lock-confirmation-${width}`);
@@ -86,13 +127,33 @@ test("the manager's inbox counts the sample awaiting review; lock asks first, na
   await expect(page.getByRole("main").getByText("Receivables existence (inbox and lock)")).toHaveCount(0);
 });
 
-test("replacing a population that a sample uses warns first, naming the sample, and the sample then shows a superseded banner", async ({ page }) => {
+test("replacing a population that a sample uses warns first, naming the sample, and the sample then shows a superseded banner", async ({
+  page,
+}) => {
   test.setTimeout(240_000);
   await as(page, "senior");
   const engagementId = await engagementIdByClient(page.request, "Tessaly Outdoor Supply Inc.");
-  const population = await loadReconciledLedger(page.request, { engagementId, path: test.info().outputPath("ledger.csv"), rows: 120, seed: 1921, name: "Receivables to be corrected" });
+  const population = await loadReconciledLedger(page.request, {
+    engagementId,
+    path: test.info().outputPath("ledger.csv"),
+    rows: 120,
+    seed: 1921,
+    name: "Receivables to be corrected",
+  });
   const planned = await page.request.post(`/api/engagements/${engagementId}/samples`, {
-    data: { populationId: population.id, name: "Receivables cut-off (superseded run)", objective: "Test cut-off of receivables.", assertion: "Cut-off", direction: "overstatement", params: { method: "mus", confidence: 0.95, tolerableMisstatement: (Number(population.positiveTotal) / 6).toFixed(2), factorMode: "table" } },
+    data: {
+      populationId: population.id,
+      name: "Receivables cut-off (superseded run)",
+      objective: "Test cut-off of receivables.",
+      assertion: "Cut-off",
+      direction: "overstatement",
+      params: {
+        method: "mus",
+        confidence: 0.95,
+        tolerableMisstatement: (Number(population.positiveTotal) / 6).toFixed(2),
+        factorMode: "table",
+      },
+    },
   });
   expect(planned.status(), await planned.text()).toBe(201);
   const sampleId = (await planned.json()).sample.id as number;
@@ -101,8 +162,15 @@ test("replacing a population that a sample uses warns first, naming the sample, 
   await page.goto(`/engagements/${engagementId}/populations/new`);
   const loader = new LoadLedgerPage(page);
   await loader.chooseFile(test.info().outputPath("ledger.csv"));
-  await loader.mapColumns({ itemRef: LEDGER_MAPPING.itemRefColumn, bookValue: LEDGER_MAPPING.bookValueColumn, description: LEDGER_MAPPING.descriptionColumn, name: "Receivables, corrected file" });
-  await page.getByLabel("Replaces a population").selectOption({ label: `Yes — replaces “Receivables to be corrected” (120 items)` });
+  await loader.mapColumns({
+    itemRef: LEDGER_MAPPING.itemRefColumn,
+    bookValue: LEDGER_MAPPING.bookValueColumn,
+    description: LEDGER_MAPPING.descriptionColumn,
+    name: "Receivables, corrected file",
+  });
+  await page
+    .getByLabel("Replaces a population")
+    .selectOption({ label: `Yes — replaces “Receivables to be corrected” (120 items)` });
   const warning = page.getByTestId("supersede-warning");
   await expect(warning).toContainText("“Receivables to be corrected” is used by 1 sample:");
   await expect(warning).toContainText("Receivables cut-off (superseded run)");

@@ -10,7 +10,8 @@ import { engagementIdByClient, loadReconciledLedger } from "./pages/samples-popu
 
 test.describe.configure({ mode: "serial" });
 
-const shot = (page: Page, name: string) => page.screenshot({ path: test.info().outputPath(`${name}.png`), fullPage: true });
+const shot = (page: Page, name: string) =>
+  page.screenshot({ path: test.info().outputPath(`${name}.png`), fullPage: true });
 
 async function as(page: Page, role: DemoRole) {
   await page.context().clearCookies();
@@ -19,18 +20,42 @@ async function as(page: Page, role: DemoRole) {
 
 const CONCLUSION = "Receivables are not materially overstated; the pricing difference is carried to the summary.";
 
-test("the whole job: results, preparer sign-off, a review note answered and cleared, reviewer sign-off, lock and the PDF", async ({ page }) => {
+test("the whole job: results, preparer sign-off, a review note answered and cleared, reviewer sign-off, lock and the PDF", async ({
+  page,
+}) => {
   test.setTimeout(180_000);
   // Set-up through the API as the senior: a reconciled ledger and a drawn monetary-unit sample.
   await as(page, "senior");
   const engagementId = await engagementIdByClient(page.request, "Tessaly Outdoor Supply Inc.");
-  const population = await loadReconciledLedger(page.request, { engagementId, path: test.info().outputPath("ledger.csv"), rows: 300, seed: 77, name: "Receivables for review" });
+  const population = await loadReconciledLedger(page.request, {
+    engagementId,
+    path: test.info().outputPath("ledger.csv"),
+    rows: 300,
+    seed: 77,
+    name: "Receivables for review",
+  });
   const planned = await page.request.post(`/api/engagements/${engagementId}/samples`, {
-    data: { populationId: population.id, name: "Receivables existence (review run)", objective: "Confirm recorded receivables exist at the period end.", assertion: "Existence", direction: "overstatement", params: { method: "mus", confidence: 0.95, tolerableMisstatement: (Number(population.positiveTotal) / 6).toFixed(2), factorMode: "table" } },
+    data: {
+      populationId: population.id,
+      name: "Receivables existence (review run)",
+      objective: "Confirm recorded receivables exist at the period end.",
+      assertion: "Existence",
+      direction: "overstatement",
+      params: {
+        method: "mus",
+        confidence: 0.95,
+        tolerableMisstatement: (Number(population.positiveTotal) / 6).toFixed(2),
+        factorMode: "table",
+      },
+    },
   });
   expect(planned.status(), await planned.text()).toBe(201);
   const sampleId = (await planned.json()).sample.id as number;
-  expect((await page.request.post(`/api/engagements/${engagementId}/samples/${sampleId}/draw`, { data: { seed: 20261202 } })).status()).toBe(201);
+  expect(
+    (
+      await page.request.post(`/api/engagements/${engagementId}/samples/${sampleId}/draw`, { data: { seed: 20261202 } })
+    ).status(),
+  ).toBe(201);
   const url = `/engagements/${engagementId}/samples/${sampleId}`;
   const base = `/api${url}`;
 
@@ -42,9 +67,15 @@ test("the whole job: results, preparer sign-off, a review note answered and clea
   const { items } = await (await page.request.get(`${base}/items?pageSize=200`)).json();
   const misstated = items.find((i: { topStratum: boolean }) => !i.topStratum) ?? items[0];
   const audited = (Number(misstated.bookValue) * 0.75).toFixed(2);
-  await sample.record(misstated.itemRef, { status: "Done", audited, cause: "Pricing or rate", comment: "Price list applied wrongly" }, "Jonah Lindqvist");
+  await sample.record(
+    misstated.itemRef,
+    { status: "Done", audited, cause: "Pricing or rate", comment: "Price list applied wrongly" },
+    "Jonah Lindqvist",
+  );
   for (const it of items.filter((i: { id: number }) => i.id !== misstated.id)) {
-    const r = await page.request.patch(`${base}/items/${it.id}`, { data: { version: it.version, status: "done", auditedValue: it.bookValue } });
+    const r = await page.request.patch(`${base}/items/${it.id}`, {
+      data: { version: it.version, status: "done", auditedValue: it.bookValue },
+    });
     expect(r.status()).toBe(200);
   }
   await page.reload();
@@ -110,7 +141,8 @@ test("the whole job: results, preparer sign-off, a review note answered and clea
   expect(fs.readdirSync(test.info().outputDir).filter((f) => f.startsWith("workpaper-page")).length).toBeGreaterThan(1);
   const text = execFileSync("pdftotext", ["-layout", pdfPath, "-"]).toString();
   const { evaluation } = await (await page.request.get(`${base}/evaluation`)).json();
-  const grouped = (v: string) => Number(v).toLocaleString("en-US", { minimumFractionDigits: 2, maximumFractionDigits: 2 });
+  const grouped = (v: string) =>
+    Number(v).toLocaleString("en-US", { minimumFractionDigits: 2, maximumFractionDigits: 2 });
   expect(text).toContain("20261202");
   expect(text).toContain(misstated.itemRef);
   expect(text).toContain(grouped(evaluation.block.overstatement.upperLimit));
@@ -122,7 +154,9 @@ test("the whole job: results, preparer sign-off, a review note answered and clea
   expect(text).not.toContain("DRAFT");
 
   // Locked means read-only, in the API as on screen.
-  const write = await page.request.patch(`${base}/items/${misstated.id}`, { data: { version: 99, status: "done", auditedValue: "1.00" } });
+  const write = await page.request.patch(`${base}/items/${misstated.id}`, {
+    data: { version: 99, status: "done", auditedValue: "1.00" },
+  });
   expect(write.status()).toBe(409);
   expect((await write.json()).error.code).toBe("locked");
   await as(page, "staff");

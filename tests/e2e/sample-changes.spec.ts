@@ -5,14 +5,35 @@ import { engagementIdByClient, loadReconciledLedger } from "./pages/samples-popu
 
 const shot = (page: Page, name: string) => page.screenshot({ path: test.info().outputPath(name), fullPage: true });
 
-test("a senior edits a plan before the draw, then extends the drawn sample and replaces a void item", async ({ page }) => {
+test("a senior edits a plan before the draw, then extends the drawn sample and replaces a void item", async ({
+  page,
+}) => {
   test.setTimeout(180_000);
   await new SignInPage(page).signInAndWait("senior");
   const engagementId = await engagementIdByClient(page.request, "Tessaly Outdoor Supply Inc.");
-  const population = await loadReconciledLedger(page.request, { engagementId, path: test.info().outputPath("ledger.csv"), rows: 500, seed: 424242, name: "Ledger for plan changes (e2e)" });
+  const population = await loadReconciledLedger(page.request, {
+    engagementId,
+    path: test.info().outputPath("ledger.csv"),
+    rows: 500,
+    seed: 424242,
+    name: "Ledger for plan changes (e2e)",
+  });
   const planned = await page.request.post(`/api/engagements/${engagementId}/samples`, {
-    data: { populationId: population.id, name: "Valuation — first plan", objective: "Estimate the audited value of receivables.", assertion: "Valuation", direction: "both",
-      params: { method: "random", estimator: "mean-per-unit", confidence: 0.9, tolerableMisstatement: (Number(population.positiveTotal) * 0.1).toFixed(2), sampleSize: 30, sizeReason: "first pass" } },
+    data: {
+      populationId: population.id,
+      name: "Valuation — first plan",
+      objective: "Estimate the audited value of receivables.",
+      assertion: "Valuation",
+      direction: "both",
+      params: {
+        method: "random",
+        estimator: "mean-per-unit",
+        confidence: 0.9,
+        tolerableMisstatement: (Number(population.positiveTotal) * 0.1).toFixed(2),
+        sampleSize: 30,
+        sizeReason: "first pass",
+      },
+    },
   });
   expect(planned.status(), await planned.text()).toBe(201);
   const { sample } = await planned.json();
@@ -46,7 +67,9 @@ test("a senior edits a plan before the draw, then extends the drawn sample and r
     await page.getByRole("button", { name: "Extend the sample" }).click();
     await expect(page.getByText(/^5 items added, continuing the random numbers after rank 25\./)).toBeVisible();
     await shot(page, "02-extended.png");
-    const { items } = await (await page.request.get(`${base}/items?pageSize=100`)).json() as { items: { origin: string }[] };
+    const { items } = (await (await page.request.get(`${base}/items?pageSize=100`)).json()) as {
+      items: { origin: string }[];
+    };
     expect(items).toHaveLength(30);
     expect(items.filter((i) => i.origin === "extension")).toHaveLength(5);
   });
@@ -61,8 +84,12 @@ test("a senior edits a plan before the draw, then extends the drawn sample and r
     await shot(page, "03-replace-dialog.png");
     await dialog.getByRole("button", { name: "Void and replace" }).click();
     await expect(dialog).toBeHidden();
-    const { items } = await (await page.request.get(`${base}/items?pageSize=100&status=all`)).json() as { items: { itemRef: string; origin: string; status: string; voidReason: string | null }[] };
-    expect(items.filter((i) => i.status === "void")).toEqual([expect.objectContaining({ voidReason: "Document voided before the period end" })]);
+    const { items } = (await (await page.request.get(`${base}/items?pageSize=100&status=all`)).json()) as {
+      items: { itemRef: string; origin: string; status: string; voidReason: string | null }[];
+    };
+    expect(items.filter((i) => i.status === "void")).toEqual([
+      expect.objectContaining({ voidReason: "Document voided before the period end" }),
+    ]);
     expect(items.filter((i) => i.origin === "replacement")).toHaveLength(1);
     expect(ref.length).toBeGreaterThan(0);
     await shot(page, "04-replaced.png");

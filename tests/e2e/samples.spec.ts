@@ -15,9 +15,18 @@ const shown = (n: number | string) => {
   return `${String(n).startsWith("-") ? "−" : ""}${whole.replace(/\B(?=(\d{3})+(?!\d))/g, ",")}.${frac}`;
 };
 
-interface ApiItem { id: number; itemRef: string; bookValue: string; topStratum: boolean; version: number }
+interface ApiItem {
+  id: number;
+  itemRef: string;
+  bookValue: string;
+  topStratum: boolean;
+  version: number;
+}
 
-test("a senior plans and draws a PPS sample; staff record results and the Stringer bound updates; a stale save is refused", async ({ page, browser }) => {
+test("a senior plans and draws a PPS sample; staff record results and the Stringer bound updates; a stale save is refused", async ({
+  page,
+  browser,
+}) => {
   test.setTimeout(240_000);
   const sample = new SamplePage(page);
   let engagementId = 0;
@@ -27,16 +36,30 @@ test("a senior plans and draws a PPS sample; staff record results and the String
   await test.step("the senior loads and reconciles a ledger through the API", async () => {
     await new SignInPage(page).signInAndWait("senior");
     engagementId = await engagementIdByClient(page.request, TESSALY);
-    const population = await loadReconciledLedger(page.request, { engagementId, path: test.info().outputPath("receivables.csv"), rows: 600, seed: 20260930, name: "Receivables at 30 Sep 2026 (e2e)" });
+    const population = await loadReconciledLedger(page.request, {
+      engagementId,
+      path: test.info().outputPath("receivables.csv"),
+      rows: 600,
+      seed: 20260930,
+      name: "Receivables at 30 Sep 2026 (e2e)",
+    });
     // About 75 items: n = ⌈BV × 3.0 / TM⌉ with TM at 4% of the book value.
-    tolerable = (Math.round(Number(population.positiveTotal) * 0.04)).toFixed(2);
+    tolerable = Math.round(Number(population.positiveTotal) * 0.04).toFixed(2);
     await page.goto(`/engagements/${engagementId}`);
-    await expect(page.getByRole("table", { name: "Populations" }).getByText("Receivables at 30 Sep 2026 (e2e)")).toBeVisible();
+    await expect(
+      page.getByRole("table", { name: "Populations" }).getByText("Receivables at 30 Sep 2026 (e2e)"),
+    ).toBeVisible();
     await shot(page, "01-overview-before-sample.png");
 
     const plan = new PlanSamplePage(page);
     await plan.openFromEngagement();
-    await plan.describe({ populationId: population.id, name: SAMPLE_NAME, objective: "Confirm that recorded trade receivables exist at the period end.", assertion: "Existence", direction: "overstatement" });
+    await plan.describe({
+      populationId: population.id,
+      name: SAMPLE_NAME,
+      objective: "Confirm that recorded trade receivables exist at the period end.",
+      assertion: "Existence",
+      direction: "overstatement",
+    });
     await expect(plan.field(/Tolerable misstatement/)).toHaveValue("900000.00"); // the engagement's performance materiality
     // A typed confidence is an override of the risk assessment, with its reason (issue 15).
     await plan.field("Confidence from").selectOption({ label: "A typed confidence (override, with a reason)" });
@@ -46,7 +69,9 @@ test("a senior plans and draws a PPS sample; staff record results and the String
     // The firm's default methodology: confidence factors (AICPA Guide, 2008 and later), n = ⌈R × BV / TM⌉.
     await expect(plan.sizePanel().getByText("n = ⌈R × BV / TM⌉", { exact: false })).toBeVisible();
     await expect(page.getByTestId("mus-methodology")).toContainText("Sized with confidence factors (current Guide)");
-    await expect(plan.sizePanel().getByRole("table", { name: "Inputs to the size" }).getByText(shown(tolerable))).toBeVisible();
+    await expect(
+      plan.sizePanel().getByRole("table", { name: "Inputs to the size" }).getByText(shown(tolerable)),
+    ).toBeVisible();
     const computed = Number(await plan.chosenSize().textContent());
     expect(computed).toBeGreaterThan(40);
     await shot(page, "02-plan-live-size.png");
@@ -90,23 +115,43 @@ test("a senior plans and draws a PPS sample; staff record results and the String
     const below = items.filter((it) => !it.topStratum);
     expect(below.length).toBeGreaterThan(5);
     const [clean, misstated, unauditable, clean2] = below;
-    await sample.record(clean.itemRef, { audited: clean.bookValue, comment: "Agreed to the customer's confirmation" }, DEMO.staff.name);
+    await sample.record(
+      clean.itemRef,
+      { audited: clean.bookValue, comment: "Agreed to the customer's confirmation" },
+      DEMO.staff.name,
+    );
     const half = (Number(misstated.bookValue) / 2).toFixed(2);
     const row = sample.row(misstated.itemRef);
     await row.getByLabel(`Audited value of ${misstated.itemRef}`).fill(half);
     // The misstatement is shown as typed, before saving.
-    await expect(row.getByTestId("row-misstatement")).toHaveText(shown((Number(misstated.bookValue) - Number(half)).toFixed(2)));
-    await sample.record(misstated.itemRef, { cause: "Pricing or rate", causeNote: "Invoiced at the list price, not the contract price" }, DEMO.staff.name);
+    await expect(row.getByTestId("row-misstatement")).toHaveText(
+      shown((Number(misstated.bookValue) - Number(half)).toFixed(2)),
+    );
+    await sample.record(
+      misstated.itemRef,
+      { cause: "Pricing or rate", causeNote: "Invoiced at the list price, not the contract price" },
+      DEMO.staff.name,
+    );
     // Choosing the status says on the row, before any save, how the evaluation counts the item (an overstatement test: audited 0).
     const unauditableRow = sample.row(unauditable.itemRef);
     await expect(unauditableRow.getByTestId("row-unauditable-treatment")).toHaveCount(0);
     await unauditableRow.getByLabel(`Status of ${unauditable.itemRef}`).selectOption({ label: "Could not be audited" });
-    await expect(unauditableRow.getByTestId("row-unauditable-treatment")).toHaveText("Evaluated as audited 0: misstated by its whole book value (100% overstatement).");
-    await expect(unauditableRow.getByLabel(`Status of ${unauditable.itemRef}`)).toHaveAccessibleDescription(/Evaluated as audited 0/);
-    await sample.record(unauditable.itemRef, { status: "Could not be audited", comment: "No confirmation reply and no subsequent receipt" }, DEMO.staff.name);
+    await expect(unauditableRow.getByTestId("row-unauditable-treatment")).toHaveText(
+      "Evaluated as audited 0: misstated by its whole book value (100% overstatement).",
+    );
+    await expect(unauditableRow.getByLabel(`Status of ${unauditable.itemRef}`)).toHaveAccessibleDescription(
+      /Evaluated as audited 0/,
+    );
+    await sample.record(
+      unauditable.itemRef,
+      { status: "Could not be audited", comment: "No confirmation reply and no subsequent receipt" },
+      DEMO.staff.name,
+    );
     await expect(unauditableRow.getByTestId("row-unauditable-treatment")).toBeVisible();
     await sample.record(clean2.itemRef, { audited: clean2.bookValue }, DEMO.staff.name);
-    await expect(sample.progress("done")).toHaveText("4 of " + (await (await page.request.get(`${apiBase()}/evaluation`)).json()).evaluation.progress.total);
+    await expect(sample.progress("done")).toHaveText(
+      "4 of " + (await (await page.request.get(`${apiBase()}/evaluation`)).json()).evaluation.progress.total,
+    );
     await expect(sample.progress("not-auditable")).toHaveText("1");
     await expect(sample.progress("misstatements")).toHaveText("2");
     await shot(page, "06-results-keyed-in.png");
@@ -126,7 +171,9 @@ test("a senior plans and draws a PPS sample; staff record results and the String
     expect(over.rows).toHaveLength(2);
     expect(over.rows[0].tainting).toBe(1);
     expect(over.rows[1].tainting).toBeCloseTo(0.5, 3);
-    await expect(panel.getByRole("table", { name: "Stringer bound — overstatement" }).getByRole("row", { name: /Rank 2/ })).toContainText(`${(over.rows[1].tainting * 100).toFixed(2)}%`);
+    await expect(
+      panel.getByRole("table", { name: "Stringer bound — overstatement" }).getByRole("row", { name: /Rank 2/ }),
+    ).toContainText(`${(over.rows[1].tainting * 100).toFixed(2)}%`);
     await expect(panel.getByTestId("conclusion")).toContainText("Provisional");
     await expect(panel.getByTestId("judgement-caution")).toContainText("AU-C 530, ISA 530, AS 2315");
     await shotOf(panel, "07-evaluation-panel.png");
@@ -142,7 +189,11 @@ test("a senior plans and draws a PPS sample; staff record results and the String
     await new SignInPage(seniorPage).signInAndWait("senior");
     await seniorPage.goto(sampleUrl);
     const seniorSample = new SamplePage(seniorPage);
-    await seniorSample.record(target.itemRef, { audited: target.bookValue, comment: "Agreed to cash received after the period end" }, DEMO.senior.name);
+    await seniorSample.record(
+      target.itemRef,
+      { audited: target.bookValue, comment: "Agreed to cash received after the period end" },
+      DEMO.senior.name,
+    );
     await shot(seniorPage, "08-second-user-saved.png");
 
     await sample.record(target.itemRef, { audited: (Number(target.bookValue) - 1).toFixed(2) });
@@ -151,7 +202,9 @@ test("a senior plans and draws a PPS sample; staff record results and the String
     await shot(page, "09-stale-save-refused.png");
     await sample.conflict().getByRole("button", { name: "Reload the item" }).click();
     await expect(sample.row(target.itemRef).getByText(`saved by ${DEMO.senior.name}`)).toBeVisible();
-    await expect(sample.row(target.itemRef).getByLabel(`Audited value of ${target.itemRef}`)).toHaveValue(target.bookValue);
+    await expect(sample.row(target.itemRef).getByLabel(`Audited value of ${target.itemRef}`)).toHaveValue(
+      target.bookValue,
+    );
     await shot(page, "10-after-reload.png");
     await other.close();
   });
@@ -166,14 +219,27 @@ test("a senior plans and draws a PPS sample; staff record results and the String
   });
 });
 
-test("a senior sees the Neyman allocation while editing strata, and an attribute sample evaluates deviations", async ({ page }) => {
+test("a senior sees the Neyman allocation while editing strata, and an attribute sample evaluates deviations", async ({
+  page,
+}) => {
   test.setTimeout(180_000);
   await new SignInPage(page).signInAndWait("senior");
   const engagementId = await engagementIdByClient(page.request, TESSALY);
-  const population = await loadReconciledLedger(page.request, { engagementId, path: test.info().outputPath("ledger.csv"), rows: 400, seed: 7, name: "Sales invoices Q3 (e2e)" });
+  const population = await loadReconciledLedger(page.request, {
+    engagementId,
+    path: test.info().outputPath("ledger.csv"),
+    rows: 400,
+    seed: 7,
+    name: "Sales invoices Q3 (e2e)",
+  });
   await page.goto(`/engagements/${engagementId}/samples/new`);
   const plan = new PlanSamplePage(page);
-  await plan.describe({ populationId: population.id, name: "Receivables valuation — stratified", objective: "Estimate the audited value of receivables by book-value band.", assertion: "Valuation and allocation" });
+  await plan.describe({
+    populationId: population.id,
+    name: "Receivables valuation — stratified",
+    objective: "Estimate the audited value of receivables by book-value band.",
+    assertion: "Valuation and allocation",
+  });
   await plan.method("Stratified random, classical variables");
   // Sized from the risk assessment (issue 15): the firm's table maps the two risks to the confidence.
   await plan.field("Assessed risk of material misstatement").selectOption({ label: "Maximum" });
@@ -187,7 +253,9 @@ test("a senior sees the Neyman allocation while editing strata, and an attribute
   await expect(allocation.getByRole("row")).toHaveCount(1 + 3 + 1); // header, three bands, total
   // Cochran, Sampling Techniques (1977), eq. 5.26 (Neyman allocation): n_h = n · N_h S_h / Σ N_h S_h, to within
   // rounding; a stratum whose share would exceed N_h is taken in full and the rest shared out again (Cochran §5.8).
-  const cells = await allocation.locator("tbody tr").evaluateAll((trs) => trs.map((tr) => Array.from(tr.querySelectorAll("td")).map((td) => td.textContent ?? "")));
+  const cells = await allocation
+    .locator("tbody tr")
+    .evaluateAll((trs) => trs.map((tr) => Array.from(tr.querySelectorAll("td")).map((td) => td.textContent ?? "")));
   const figures = (t: string) => Number(t.replace(/[,\s]/g, ""));
   const bands = cells.slice(0, -1).map((c) => ({ N: figures(c[1]), S: figures(c[3]), n: figures(c[4]) }));
   const shared = bands.filter((b) => b.n < b.N);
@@ -232,22 +300,36 @@ test("a senior sees the Neyman allocation while editing strata, and an attribute
   await plan.field("Size set by").selectOption({ label: "Statistical attribute plan" });
   await expect(plan.chosenSize()).toHaveText("55");
   await plan.field("Sample name").fill("Credit approval on sales invoices");
-  await plan.field("Objective of the test").fill("Test that each invoice above the credit limit was approved before dispatch.");
+  await plan
+    .field("Objective of the test")
+    .fill("Test that each invoice above the credit limit was approved before dispatch.");
   await page.getByLabel("Assertion", { exact: true }).fill("Occurrence");
   await plan.save();
   await expect(page.getByRole("heading", { name: "Credit approval on sales invoices" })).toBeVisible();
   const sample = new SamplePage(page);
   await sample.draw("20260930");
   await expect(sample.grid()).toBeVisible();
-  const items: ApiItem[] = (await (await page.request.get(`${new URL(page.url()).pathname.replace(/^\/engagements/, "/api/engagements")}/items?pageSize=10`)).json()).items;
+  const items: ApiItem[] = (
+    await (
+      await page.request.get(
+        `${new URL(page.url()).pathname.replace(/^\/engagements/, "/api/engagements")}/items?pageSize=10`,
+      )
+    ).json()
+  ).items;
   const [first, second] = items;
   const row = sample.row(first.itemRef);
   await row.getByLabel(`Deviation found in ${first.itemRef}`).selectOption({ label: "Deviation" });
   await row.getByLabel(`Nature of the deviation in ${first.itemRef}`).fill("Dispatched before approval");
   await row.getByRole("button", { name: `Save ${first.itemRef}` }).click();
   await expect(row.getByText(`saved by ${DEMO.senior.name}`)).toBeVisible();
-  await sample.row(second.itemRef).getByLabel(`Deviation found in ${second.itemRef}`).selectOption({ label: "No deviation" });
-  await sample.row(second.itemRef).getByRole("button", { name: `Save ${second.itemRef}` }).click();
+  await sample
+    .row(second.itemRef)
+    .getByLabel(`Deviation found in ${second.itemRef}`)
+    .selectOption({ label: "No deviation" });
+  await sample
+    .row(second.itemRef)
+    .getByRole("button", { name: `Save ${second.itemRef}` })
+    .click();
   await expect(sample.row(second.itemRef).getByText(`saved by ${DEMO.senior.name}`)).toBeVisible();
   const panel = sample.evaluation();
   await expect(panel.getByTestId("deviations")).toHaveText("1");

@@ -19,9 +19,14 @@ function nextAuthSecret(): string {
   return secret;
 }
 
-test("pages carry a nonce CSP, frame-ancestors none, nosniff and a referrer policy, and still run with it", async ({ page, request }) => {
+test("pages carry a nonce CSP, frame-ancestors none, nosniff and a referrer policy, and still run with it", async ({
+  page,
+  request,
+}) => {
   const violations: string[] = [];
-  page.on("console", (m) => { if (/Content Security Policy|Refused to/.test(m.text())) violations.push(m.text()); });
+  page.on("console", (m) => {
+    if (/Content Security Policy|Refused to/.test(m.text())) violations.push(m.text());
+  });
   const res = await request.get("/sign-in");
   const csp = res.headers()["content-security-policy"];
   expect(csp).toMatch(/script-src 'self' 'nonce-[A-Za-z0-9+/=]+' 'strict-dynamic'/);
@@ -51,12 +56,20 @@ test("API answers carry a no-content CSP and nosniff, and error bodies leak no s
   const s = new HttpSession(test.info().project.use.baseURL!);
   await s.signIn(DEMO.manager.email, DEMO_PASSWORD);
   const answers = await Promise.all([
-    s.fetch("/api/engagements", { method: "POST", headers: JSON_HEADERS, body: "{\"clientName\": " }),
-    s.fetch("/api/engagements", { method: "POST", headers: JSON_HEADERS, body: JSON.stringify({ clientName: "x' OR 1=1 --", name: 5 }) }),
+    s.fetch("/api/engagements", { method: "POST", headers: JSON_HEADERS, body: '{"clientName": ' }),
+    s.fetch("/api/engagements", {
+      method: "POST",
+      headers: JSON_HEADERS,
+      body: JSON.stringify({ clientName: "x' OR 1=1 --", name: 5 }),
+    }),
     s.fetch("/api/engagements/99999999999999999999"),
     s.fetch("/api/engagements/1%27%20OR%201=1/samples"),
     s.fetch("/api/engagements", { method: "POST", headers: JSON_HEADERS, body: "[".repeat(5000) + "]".repeat(5000) }),
-    s.fetch("/api/engagements", { method: "POST", headers: JSON_HEADERS, body: JSON.stringify({ clientName: "x".repeat(400_000) }) }),
+    s.fetch("/api/engagements", {
+      method: "POST",
+      headers: JSON_HEADERS,
+      body: JSON.stringify({ clientName: "x".repeat(400_000) }),
+    }),
   ]);
   expect(answers.map((a) => a.status)).toEqual([400, 400, 404, 404, 400, 413]);
   for (const a of answers) expect(await a.text()).not.toMatch(LEAK);
@@ -66,23 +79,45 @@ test("API answers carry a no-content CSP and nosniff, and error bodies leak no s
 test("writes from another site are refused; same-site writes pass", async ({ baseURL }) => {
   const s = new HttpSession(baseURL!);
   await s.signIn(DEMO.manager.email, DEMO_PASSWORD);
-  const body = JSON.stringify({ clientName: "Cross-site", name: "Must not exist", periodEnd: "2026-12-31", currency: "USD", overallMateriality: "10", performanceMateriality: "5" });
-  const evil = await s.fetch("/api/engagements", { method: "POST", headers: { ...JSON_HEADERS, origin: "https://evil.example" }, body });
+  const body = JSON.stringify({
+    clientName: "Cross-site",
+    name: "Must not exist",
+    periodEnd: "2026-12-31",
+    currency: "USD",
+    overallMateriality: "10",
+    performanceMateriality: "5",
+  });
+  const evil = await s.fetch("/api/engagements", {
+    method: "POST",
+    headers: { ...JSON_HEADERS, origin: "https://evil.example" },
+    body,
+  });
   expect(evil.status).toBe(403);
   expect(await evil.json()).toMatchObject({ error: { code: "cross_site" } });
-  const fetchSite = await s.fetch("/api/engagements", { method: "POST", headers: { ...JSON_HEADERS, "sec-fetch-site": "cross-site" }, body });
+  const fetchSite = await s.fetch("/api/engagements", {
+    method: "POST",
+    headers: { ...JSON_HEADERS, "sec-fetch-site": "cross-site" },
+    body,
+  });
   expect(fetchSite.status).toBe(403);
-  const own = await s.fetch("/api/engagements", { method: "POST", headers: { ...JSON_HEADERS, origin: baseURL! }, body: "[]" });
+  const own = await s.fetch("/api/engagements", {
+    method: "POST",
+    headers: { ...JSON_HEADERS, origin: baseURL! },
+    body: "[]",
+  });
   expect(own.status).toBe(400);
   const { engagements } = await s.json<{ engagements: { clientName: string }[] }>("/api/engagements");
   expect(engagements.map((e) => e.clientName)).not.toContain("Cross-site");
 });
 
-test("the session cookie is httpOnly and SameSite=Lax; an expired or forged session is refused", async ({ baseURL }) => {
+test("the session cookie is httpOnly and SameSite=Lax; an expired or forged session is refused", async ({
+  baseURL,
+}) => {
   const s = new HttpSession(baseURL!);
   const { csrfToken } = await s.json<{ csrfToken: string }>("/api/auth/csrf");
   const res = await s.fetch("/api/auth/callback/credentials", {
-    method: "POST", headers: { "content-type": "application/x-www-form-urlencoded" },
+    method: "POST",
+    headers: { "content-type": "application/x-www-form-urlencoded" },
     body: new URLSearchParams({ csrfToken, email: DEMO.staff.email, password: DEMO_PASSWORD }).toString(),
   });
   const cookie = res.headers.getSetCookie().find((c) => c.startsWith("next-auth.session-token="));
@@ -94,7 +129,8 @@ test("the session cookie is httpOnly and SameSite=Lax; an expired or forged sess
 
   const secret = nextAuthSecret();
   const staff = await s.json<{ user: { id: number } }>("/api/me");
-  const ask = async (token: string) => (await fetch(`${baseURL}/api/me`, { headers: { cookie: `next-auth.session-token=${token}` } })).status;
+  const ask = async (token: string) =>
+    (await fetch(`${baseURL}/api/me`, { headers: { cookie: `next-auth.session-token=${token}` } })).status;
   const fresh = await encode({ token: { uid: staff.user.id, email: DEMO.staff.email }, secret, maxAge: 600 });
   expect(await ask(fresh), "a well-formed session (control)").toBe(200);
   const expired = await encode({ token: { uid: staff.user.id, email: DEMO.staff.email }, secret, maxAge: -120 });
@@ -105,14 +141,22 @@ test("the session cookie is httpOnly and SameSite=Lax; an expired or forged sess
 
 /** The administrator adds a person; the person chooses a password with the e-mailed link (issue 19: no password typed by the admin). */
 async function addPerson(admin: HttpSession, baseURL: string, name: string, email: string, password: string) {
-  const created = await admin.json<{ user: { id: number } }>("/api/users", { method: "POST", headers: JSON_HEADERS, body: JSON.stringify({ name, email, grade: "staff" }) });
+  const created = await admin.json<{ user: { id: number } }>("/api/users", {
+    method: "POST",
+    headers: JSON_HEADERS,
+    body: JSON.stringify({ name, email, grade: "staff" }),
+  });
   await choosePassword(baseURL, email, /choose your Sondage password/, password);
   return created;
 }
 
 async function choosePassword(baseURL: string, email: string, subject: RegExp, password: string) {
   const token = /\/invitation\/([A-Za-z0-9_-]+)/.exec((await waitForMail(email, subject)).text)![1];
-  const res = await fetch(`${baseURL}/api/invitations/${token}`, { method: "POST", headers: { ...JSON_HEADERS, origin: baseURL }, body: JSON.stringify({ password }) });
+  const res = await fetch(`${baseURL}/api/invitations/${token}`, {
+    method: "POST",
+    headers: { ...JSON_HEADERS, origin: baseURL },
+    body: JSON.stringify({ password }),
+  });
   expect(res.status).toBe(200);
 }
 
@@ -126,7 +170,11 @@ test("a deactivated user's open session stops working at the next request", asyn
   expect((await leaver.fetch("/api/me")).status).toBe(200);
   expect((await leaver.fetch("/engagements")).status).toBe(200);
 
-  await admin.json(`/api/users/${created.user.id}`, { method: "PATCH", headers: JSON_HEADERS, body: JSON.stringify({ active: false }) });
+  await admin.json(`/api/users/${created.user.id}`, {
+    method: "PATCH",
+    headers: JSON_HEADERS,
+    body: JSON.stringify({ active: false }),
+  });
   expect((await leaver.fetch("/api/me")).status).toBe(401);
   expect((await leaver.fetch("/api/engagements")).status).toBe(401);
   const page = await leaver.fetch("/engagements");
@@ -134,7 +182,9 @@ test("a deactivated user's open session stops working at the next request", asyn
   expect(page.headers.get("location")).toContain("/sign-in");
 });
 
-test("a password reset ends the person's open sessions; the password chosen with the e-mailed link signs in (issue 19)", async ({ baseURL }) => {
+test("a password reset ends the person's open sessions; the password chosen with the e-mailed link signs in (issue 19)", async ({
+  baseURL,
+}) => {
   const admin = new HttpSession(baseURL!);
   await admin.signIn(DEMO.admin.email, DEMO_PASSWORD);
   const email = `reset-${Date.now()}@marrow-quill.example`;
@@ -144,11 +194,17 @@ test("a password reset ends the person's open sessions; the password chosen with
   expect((await open.fetch("/api/me")).status).toBe(200);
   await new Promise((r) => setTimeout(r, 1100)); // the session's issue time is kept in whole seconds (JWT iat)
 
-  const reset = await admin.fetch(`/api/users/${created.user.id}/password`, { method: "POST", headers: JSON_HEADERS, body: JSON.stringify({}) });
+  const reset = await admin.fetch(`/api/users/${created.user.id}/password`, {
+    method: "POST",
+    headers: JSON_HEADERS,
+    body: JSON.stringify({}),
+  });
   expect(reset.status).toBe(200);
   expect((await open.fetch("/api/me")).status, "the session opened before the reset").toBe(401);
   expect((await open.fetch("/api/auth/session")).status).toBe(200);
-  expect((await open.fetch("/api/me")).status, "and it does not come back when next-auth re-issues the cookie").toBe(401);
+  expect((await open.fetch("/api/me")).status, "and it does not come back when next-auth re-issues the cookie").toBe(
+    401,
+  );
   await choosePassword(baseURL!, email, /choose a new Sondage password/, "second-password-2026");
   const again = new HttpSession(baseURL!);
   await again.signIn(email, "second-password-2026");
@@ -167,7 +223,10 @@ test("a ledger upload larger than 10 MB arrives whole (no proxy buffers API bodi
   const file = path.join(os.tmpdir(), `big-upload-${process.pid}.csv`);
   writeFileSync(file, body);
   try {
-    const up = await senior.uploadFile<{ upload: { sizeBytes: number; sha256: string } }>(`/api/engagements/${tessaly.id}/populations/uploads?fileName=big.csv`, file);
+    const up = await senior.uploadFile<{ upload: { sizeBytes: number; sha256: string } }>(
+      `/api/engagements/${tessaly.id}/populations/uploads?fileName=big.csv`,
+      file,
+    );
     expect(up.status).toBe(201);
     expect(up.body.upload.sizeBytes).toBe(body.length);
     expect(up.body.upload.sha256).toBe(createHash("sha256").update(body).digest("hex"));

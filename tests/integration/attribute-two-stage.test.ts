@@ -19,39 +19,77 @@ vi.mock("@/lib/auth/session-user", async () => (await import("./support/session"
 let staff: number, senior: number, engagement: number, populationId: number;
 
 /** 400 invented control executions (common practice: a population of transactions for a test of controls). */
-const CSV = "id,amount\n" + Array.from({ length: 400 }, (_, i) => `TX${String(i + 1).padStart(4, "0")},${(100 + (i * 37) % 900).toFixed(2)}`).join("\n") + "\n";
+const CSV =
+  "id,amount\n" +
+  Array.from(
+    { length: 400 },
+    (_, i) => `TX${String(i + 1).padStart(4, "0")},${(100 + ((i * 37) % 900)).toFixed(2)}`,
+  ).join("\n") +
+  "\n";
 
 beforeAll(async () => {
   const firm = await makeFirm();
   [staff, senior] = await Promise.all([makeUser(firm, "staff"), makeUser(firm, "senior")]);
   const manager = await makeUser(firm, "manager");
-  engagement = await makeEngagement(firm, manager, [[manager, "manager"], [senior, "senior"], [staff, "staff"]]);
-  const { loaded } = await uploadAndLoad(senior, engagement, "controls.csv", CSV, { itemRefColumn: "id", bookValueColumn: "amount" });
+  engagement = await makeEngagement(firm, manager, [
+    [manager, "manager"],
+    [senior, "senior"],
+    [staff, "staff"],
+  ]);
+  const { loaded } = await uploadAndLoad(senior, engagement, "controls.csv", CSV, {
+    itemRefColumn: "id",
+    bookValueColumn: "amount",
+  });
   populationId = loaded!.last.populationId as number;
-  await call(reconcile.POST, "POST", { as: senior, params: { engagementId: String(engagement), populationId: String(populationId) }, body: { controlTotal: loaded!.last.total, controlCount: loaded!.last.rowCount } });
+  await call(reconcile.POST, "POST", {
+    as: senior,
+    params: { engagementId: String(engagement), populationId: String(populationId) },
+    body: { controlTotal: loaded!.last.total, controlCount: loaded!.last.rowCount },
+  });
 });
 
 afterAll(async () => {
   await getDb().destroy();
 });
 
-async function record(sampleId: number, deviating: (index: number) => boolean, only?: (it: { status: string }) => boolean) {
+async function record(
+  sampleId: number,
+  deviating: (index: number) => boolean,
+  only?: (it: { status: string }) => boolean,
+) {
   const items = await listSampleItems(staff, engagement, sampleId);
   let k = 0;
   for (const it of items) {
     if (only && !only(it)) continue;
     const deviation = deviating(k++);
-    expect((await saveResult(staff, engagement, sampleId, it.id, { version: it.version, status: "done", deviation, deviationNature: deviation ? "Approval missing" : null })).status).toBe(200);
+    expect(
+      (
+        await saveResult(staff, engagement, sampleId, it.id, {
+          version: it.version,
+          status: "done",
+          deviation,
+          deviationNature: deviation ? "Approval missing" : null,
+        })
+      ).status,
+    ).toBe(200);
   }
 }
 
 describe("attribute extension", () => {
   it("refuses to extend a fixed attribute sample once results exist, naming why (409)", async () => {
-    const r = await planSample(senior, engagement, { populationId, direction: "both", params: { method: "attribute", tolerableRate: 0.05, expectedRate: 0, confidence: 0.95 } });
+    const r = await planSample(senior, engagement, {
+      populationId,
+      direction: "both",
+      params: { method: "attribute", tolerableRate: 0.05, expectedRate: 0, confidence: 0.95 },
+    });
     const id = r.json.sample.id as number;
     await drawSample(senior, engagement, id, 77);
     await record(id, (k) => k === 3);
-    const ext = await call(extend.POST, "POST", { as: senior, params: { engagementId: String(engagement), sampleId: String(id) }, body: { additional: 34, reason: "One deviation found" } });
+    const ext = await call(extend.POST, "POST", {
+      as: senior,
+      params: { engagementId: String(engagement), sampleId: String(id) },
+      body: { additional: 34, reason: "One deviation found" },
+    });
     expect(ext.status).toBe(409);
     expect(ext.json.error.message).toMatch(/unplanned sequential sampling.*about 7\.5%/);
     // N 400 is under the firm's default hypergeometric threshold (5,000): M = ⌈0.05 × 400⌉ = 20, and the smallest n with
@@ -63,7 +101,17 @@ describe("attribute extension", () => {
   });
 
   it("plans two stages, continues the same ranking for stage 2 after exactly one deviation, and re-performs both", async () => {
-    const r = await planSample(senior, engagement, { populationId, direction: "both", params: { method: "attribute", attributePlan: "two-stage", tolerableRate: 0.05, expectedRate: 0.01, confidence: 0.95 } });
+    const r = await planSample(senior, engagement, {
+      populationId,
+      direction: "both",
+      params: {
+        method: "attribute",
+        attributePlan: "two-stage",
+        tolerableRate: 0.05,
+        expectedRate: 0.01,
+        confidence: 0.95,
+      },
+    });
     expect(r.status).toBe(201);
     const plan = r.json.sample.plan;
     // scipy.stats.binom (issue 13 rule): n₁ 65, n₂ 42, risk 0.04979236455930694, expected size 79.349.
@@ -79,11 +127,21 @@ describe("attribute extension", () => {
     let ev = await getEvaluation(staff, engagement, id);
     expect(ev.block.twoStage).toMatchObject({ stage: 1, decision: "continue", firstStageDeviations: 1 });
     expect(ev.computed.status).toBe("provisional");
-    expect((await call(extend.POST, "POST", { as: senior, params, body: { additional: 10, reason: "Stage 2" } })).status).toBe(409);
-    const ext = await call(extend.POST, "POST", { as: senior, params, body: { additional: 42, reason: "Stage 2 of the plan" } });
+    expect(
+      (await call(extend.POST, "POST", { as: senior, params, body: { additional: 10, reason: "Stage 2" } })).status,
+    ).toBe(409);
+    const ext = await call(extend.POST, "POST", {
+      as: senior,
+      params,
+      body: { additional: 42, reason: "Stage 2 of the plan" },
+    });
     expect(ext.status).toBe(200);
     expect(await listSampleItems(staff, engagement, id)).toHaveLength(107);
-    await record(id, () => false, (it) => it.status === "not-started");
+    await record(
+      id,
+      () => false,
+      (it) => it.status === "not-started",
+    );
     ev = await getEvaluation(staff, engagement, id);
     expect(ev.block.twoStage).toMatchObject({ stage: 2, decision: "accept", secondStageDeviations: 0 });
     expect(ev.computed.status).toBe("supported");

@@ -13,7 +13,14 @@ import { buildKnexConfig } from "@/db/knex-config";
 import { getObjectStream } from "@/lib/storage/objects";
 import { call } from "./support/call";
 import { makeEngagement, makeFirm, makeUser } from "./support/factory";
-import { drawSample, listSampleItems, loadCanonicalPopulation, planSample, saveResult, concludeSample } from "./support/samples";
+import {
+  drawSample,
+  listSampleItems,
+  loadCanonicalPopulation,
+  planSample,
+  saveResult,
+  concludeSample,
+} from "./support/samples";
 import * as signOff from "@/app/api/engagements/[engagementId]/samples/[sampleId]/sign-off/route";
 import * as lock from "@/app/api/engagements/[engagementId]/samples/[sampleId]/lock/route";
 
@@ -25,13 +32,30 @@ let sampleId: number;
 
 beforeAll(async () => {
   const firm = await makeFirm();
-  const [staff, senior, manager] = await Promise.all([makeUser(firm, "staff"), makeUser(firm, "senior"), makeUser(firm, "manager")]);
-  const engagement = await makeEngagement(firm, manager, [[manager, "manager"], [senior, "senior"], [staff, "staff"]]);
+  const [staff, senior, manager] = await Promise.all([
+    makeUser(firm, "staff"),
+    makeUser(firm, "senior"),
+    makeUser(firm, "manager"),
+  ]);
+  const engagement = await makeEngagement(firm, manager, [
+    [manager, "manager"],
+    [senior, "senior"],
+    [staff, "staff"],
+  ]);
   const { populationId } = await loadCanonicalPopulation(senior, engagement);
-  sampleId = (await planSample(senior, engagement, { populationId, params: { method: "mus", tolerableMisstatement: "15000", factorMode: "table" } })).json.sample.id;
+  sampleId = (
+    await planSample(senior, engagement, {
+      populationId,
+      params: { method: "mus", tolerableMisstatement: "15000", factorMode: "table" },
+    })
+  ).json.sample.id;
   await drawSample(senior, engagement, sampleId, 20261202);
   for (const it of await listSampleItems(staff, engagement, sampleId)) {
-    await saveResult(staff, engagement, sampleId, it.id, { version: it.version, status: "done", auditedValue: it.bookValue });
+    await saveResult(staff, engagement, sampleId, it.id, {
+      version: it.version,
+      status: "done",
+      auditedValue: it.bookValue,
+    });
   }
   const p = { engagementId: String(engagement), sampleId: String(sampleId) };
   expect((await concludeSample(staff, engagement, sampleId)).status).toBe(200);
@@ -46,7 +70,10 @@ afterAll(() => {
 });
 
 async function fingerprint(db: Knex): Promise<Record<string, { rows: number; checksum: string }>> {
-  const tables = (await db("information_schema.tables").where({ table_schema: DATABASE, table_type: "BASE TABLE" }).orderBy("table_name").pluck("table_name")) as string[];
+  const tables = (await db("information_schema.tables")
+    .where({ table_schema: DATABASE, table_type: "BASE TABLE" })
+    .orderBy("table_name")
+    .pluck("table_name")) as string[];
   const out: Record<string, { rows: number; checksum: string }> = {};
   for (const table of tables) {
     const [count] = await db(table).count({ n: "*" });
@@ -56,7 +83,11 @@ async function fingerprint(db: Knex): Promise<Record<string, { rows: number; che
   return out;
 }
 
-const script = (name: string, args: string[]) => execFileSync("bash", [path.join("db/scripts", name), ...args], { encoding: "utf8", stdio: ["ignore", "pipe", "pipe"] });
+const script = (name: string, args: string[]) =>
+  execFileSync("bash", [path.join("db/scripts", name), ...args], {
+    encoding: "utf8",
+    stdio: ["ignore", "pipe", "pipe"],
+  });
 
 describe("db:backup and db:restore", () => {
   it("restore after a wipe gives back every table with the same rows and checksums, and the locked workpaper still matches its hash", async () => {
@@ -78,7 +109,9 @@ describe("db:backup and db:restore", () => {
     db = knex(buildKnexConfig());
     try {
       expect(await fingerprint(db)).toEqual(before);
-      const sample = (await db("samples").where({ id: sampleId }).first("locked_at", "workpaper_object_key", "workpaper_sha256"))!;
+      const sample = (await db("samples")
+        .where({ id: sampleId })
+        .first("locked_at", "workpaper_object_key", "workpaper_sha256"))!;
       expect(sample.locked_at).not.toBeNull();
       const object = await getObjectStream({ key: sample.workpaper_object_key! });
       const hash = createHash("sha256");
@@ -92,7 +125,9 @@ describe("db:backup and db:restore", () => {
   it("refuses a file that is not a complete backup and changes nothing", async () => {
     const broken = `${FILE}.broken`;
     fs.writeFileSync(broken, fs.readFileSync(FILE).subarray(0, 200));
-    expect(() => script("db-restore.sh", [broken, "--database", DATABASE, "--yes"])).toThrow(/not a complete gzip file/);
+    expect(() => script("db-restore.sh", [broken, "--database", DATABASE, "--yes"])).toThrow(
+      /not a complete gzip file/,
+    );
     fs.rmSync(broken);
     const db = knex(buildKnexConfig());
     try {

@@ -16,9 +16,19 @@ beforeAll(async () => {
   const firm = await makeFirm();
   const [manager, senior] = await Promise.all([makeUser(firm, "manager"), makeUser(firm, "senior")]);
   [staff, viewer] = await Promise.all([makeUser(firm, "staff"), makeUser(firm, "staff")]);
-  engagement = await makeEngagement(firm, manager, [[manager, "manager"], [senior, "senior"], [staff, "staff"], [viewer, "viewer"]]);
+  engagement = await makeEngagement(firm, manager, [
+    [manager, "manager"],
+    [senior, "senior"],
+    [staff, "staff"],
+    [viewer, "viewer"],
+  ]);
   const { populationId } = await loadCanonicalPopulation(senior, engagement);
-  sampleId = (await planSample(senior, engagement, { populationId, params: { method: "mus", tolerableMisstatement: "15000", factorMode: "table" } })).json.sample.id;
+  sampleId = (
+    await planSample(senior, engagement, {
+      populationId,
+      params: { method: "mus", tolerableMisstatement: "15000", factorMode: "table" },
+    })
+  ).json.sample.id;
   await drawSample(senior, engagement, sampleId, 190190);
 });
 
@@ -33,7 +43,13 @@ describe("POST …/results", () => {
     const items = (await listSampleItems(staff, engagement, sampleId)).slice(0, 3);
     const before = await audits();
     const pasted = ["100.00", "1,250.50", "0"];
-    const r = await call(results.POST, "POST", { as: staff, params: p(), body: { rows: items.map((it, i) => ({ itemId: it.id, version: it.version, status: "done", auditedValue: pasted[i] })) } });
+    const r = await call(results.POST, "POST", {
+      as: staff,
+      params: p(),
+      body: {
+        rows: items.map((it, i) => ({ itemId: it.id, version: it.version, status: "done", auditedValue: pasted[i] })),
+      },
+    });
     expect(r.status, JSON.stringify(r.json)).toBe(200);
     expect(r.json.items.map((i: { auditedValue: string }) => i.auditedValue)).toEqual(["100.00", "1250.50", "0.00"]);
     expect(r.json.items.every((i: { version: number }, k: number) => i.version === items[k].version + 1)).toBe(true);
@@ -50,7 +66,9 @@ describe("POST …/results", () => {
     ];
     const r = await call(results.POST, "POST", { as: staff, params: p(), body: { rows } });
     expect(r.status).toBe(400);
-    expect(r.json.error.message).toContain(`Nothing was saved. 2 rows were refused — ${items[1].itemRef}: Audited value:`);
+    expect(r.json.error.message).toContain(
+      `Nothing was saved. 2 rows were refused — ${items[1].itemRef}: Audited value:`,
+    );
     expect(r.json.error.message).toContain(`${items[2].itemRef}: Audited value:`);
     expect(r.json.error.fields["rows.1"][0]).toMatch(new RegExp(`^${items[1].itemRef}: Audited value`));
     expect(await audits()).toBe(before);
@@ -67,7 +85,9 @@ describe("POST …/results", () => {
     expect(r.status).toBe(409);
     expect(r.json.error.message).toContain(items[0].itemRef);
     expect(await audits()).toBe(before);
-    expect((await listSampleItems(staff, engagement, sampleId)).find((i) => i.id === items[1].id)?.version).toBe(items[1].version);
+    expect((await listSampleItems(staff, engagement, sampleId)).find((i) => i.id === items[1].id)?.version).toBe(
+      items[1].version,
+    );
   });
 
   it("refuses an item of another draw or sent twice, a viewer, and an empty batch", async () => {
@@ -76,7 +96,11 @@ describe("POST …/results", () => {
     const twice = await call(results.POST, "POST", { as: staff, params: p(), body: { rows: [row, row] } });
     expect(twice.status).toBe(400);
     expect(twice.json.error.message).toContain(`${it.itemRef}: the item appears twice`);
-    const foreign = await call(results.POST, "POST", { as: staff, params: p(), body: { rows: [{ ...row, itemId: 2147483000 }] } });
+    const foreign = await call(results.POST, "POST", {
+      as: staff,
+      params: p(),
+      body: { rows: [{ ...row, itemId: 2147483000 }] },
+    });
     expect(foreign.json.error.message).toContain("item 2147483000: no such item in the current draw");
     expect((await call(results.POST, "POST", { as: viewer, params: p(), body: { rows: [row] } })).status).toBe(403);
     expect((await call(results.POST, "POST", { as: staff, params: p(), body: { rows: [] } })).status).toBe(400);

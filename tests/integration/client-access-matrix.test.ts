@@ -60,24 +60,69 @@ const ids: Record<string, string> = {};
 
 beforeAll(async () => {
   const firm = await makeFirm();
-  const [manager, senior, staff] = await Promise.all([makeUser(firm, "manager"), makeUser(firm, "senior"), makeUser(firm, "staff")]);
+  const [manager, senior, staff] = await Promise.all([
+    makeUser(firm, "manager"),
+    makeUser(firm, "senior"),
+    makeUser(firm, "staff"),
+  ]);
   client = await makeUser(firm, "client");
-  engagement = await makeEngagement(firm, manager, [[manager, "manager"], [senior, "senior"], [staff, "staff"], [client, "client"]]);
+  engagement = await makeEngagement(firm, manager, [
+    [manager, "manager"],
+    [senior, "senior"],
+    [staff, "staff"],
+    [client, "client"],
+  ]);
   const { populationId } = await loadCanonicalPopulation(senior, engagement);
-  const sampleId = (await planSample(senior, engagement, { populationId, params: { method: "random", estimator: "difference", tolerableMisstatement: "5000", sampleSize: 4, sizeReason: "test" } })).json.sample.id;
+  const sampleId = (
+    await planSample(senior, engagement, {
+      populationId,
+      params: {
+        method: "random",
+        estimator: "difference",
+        tolerableMisstatement: "5000",
+        sampleSize: 4,
+        sizeReason: "test",
+      },
+    })
+  ).json.sample.id;
   await drawSample(senior, engagement, sampleId, 11);
   const items = await listSampleItems(senior, engagement, sampleId);
   const e = { engagementId: String(engagement), sampleId: String(sampleId) };
-  const evidence = await call(evidenceList.POST, "POST", { as: staff, params: { ...e, itemId: String(items[0].id) }, query: { fileName: "a.pdf" }, file: PDF });
+  const evidence = await call(evidenceList.POST, "POST", {
+    as: staff,
+    params: { ...e, itemId: String(items[0].id) },
+    query: { fileName: "a.pdf" },
+    file: PDF,
+  });
   const note = await call(notes.POST, "POST", { as: manager, params: e, body: { text: "Check the cut-off" } });
   const pending = await upload(senior, engagement, "pending.csv", "id,book_value\nA,1.00\n");
-  const list = await call(teamLists.POST, "POST", { as: senior, params: e, body: { title: "Docs", contactUserId: client, dueDate: "2099-01-01", needs: ["invoice"], items: "all" } });
+  const list = await call(teamLists.POST, "POST", {
+    as: senior,
+    params: e,
+    body: { title: "Docs", contactUserId: client, dueDate: "2099-01-01", needs: ["invoice"], items: "all" },
+  });
   const listId = String(list.json.requestList.id);
-  const requestItemId = String((await call(clientList.GET, "GET", { as: client, params: { listId } })).json.items[0].id);
-  const file = await call(clientFiles.POST, "POST", { as: client, params: { listId, requestItemId }, query: { fileName: "inv.pdf" }, file: PDF });
+  const requestItemId = String(
+    (await call(clientList.GET, "GET", { as: client, params: { listId } })).json.items[0].id,
+  );
+  const file = await call(clientFiles.POST, "POST", {
+    as: client,
+    params: { listId, requestItemId },
+    query: { fileName: "inv.pdf" },
+    file: PDF,
+  });
   Object.assign(ids, {
-    ...e, populationId: String(populationId), itemId: String(items[0].id), evidenceId: String(evidence.json.evidence.id), noteId: String(note.json.notes[0].id),
-    uploadId: String(pending.json.upload.id), userId: String(senior), listId, requestItemId, fileId: String(file.json.file.id), token: "an-unknown-invitation-link-0000",
+    ...e,
+    populationId: String(populationId),
+    itemId: String(items[0].id),
+    evidenceId: String(evidence.json.evidence.id),
+    noteId: String(note.json.notes[0].id),
+    uploadId: String(pending.json.upload.id),
+    userId: String(senior),
+    listId,
+    requestItemId,
+    fileId: String(file.json.file.id),
+    token: "an-unknown-invitation-link-0000",
   });
 });
 
@@ -85,7 +130,9 @@ afterAll(async () => {
   await getDb().destroy();
 });
 
-const routes = routeFiles(API).map((file) => ({ file, url: "/api/" + path.relative(API, path.dirname(file)).split(path.sep).join("/") })).sort((a, b) => a.url.localeCompare(b.url));
+const routes = routeFiles(API)
+  .map((file) => ({ file, url: "/api/" + path.relative(API, path.dirname(file)).split(path.sep).join("/") }))
+  .sort((a, b) => a.url.localeCompare(b.url));
 
 describe("a client contact against every route handler", () => {
   it("finds the route files, and every row of the table names a handler that exists", async () => {
@@ -94,7 +141,9 @@ describe("a client contact against every route handler", () => {
       const [method, url] = key.split(" ");
       const route = routes.find((r) => r.url === url);
       expect(route, `${key}: no such route file`).toBeDefined();
-      expect(typeof ((await import(route!.file)) as Record<string, unknown>)[method], `${key}: no such handler`).toBe("function");
+      expect(typeof ((await import(route!.file)) as Record<string, unknown>)[method], `${key}: no such handler`).toBe(
+        "function",
+      );
     }
   });
 
@@ -108,17 +157,30 @@ describe("a client contact against every route handler", () => {
         const expected = url.startsWith("/api/engagements/[engagementId]") ? 404 : CLIENT_ROWS[key];
         expect(expected, `${key} has no row in the client matrix: add one`).toBeDefined();
         if (expected === "skip") continue;
-        const params = Object.fromEntries([...url.matchAll(/\[([^\]]+)\]/g)].map(([, name]) => [name, ids[name] ?? "1"]));
+        const params = Object.fromEntries(
+          [...url.matchAll(/\[([^\]]+)\]/g)].map(([, name]) => [name, ids[name] ?? "1"]),
+        );
         const handler = mod[method] as Parameters<typeof callRaw>[0];
         const isUpload = method === "POST" && /\/files$|\/uploads$|\/evidence$|\/original$|\/workbook$/.test(url);
         const res = await callRaw(handler, method, {
-          as: client, params,
-          ...(method === "GET" || method === "HEAD" || method === "DELETE" ? {} : isUpload ? { query: { fileName: "x.pdf" }, file: PDF } : { body: method === "PATCH" && url.startsWith("/api/requests") ? { note: "A note" } : { password: "a-long-enough-password" } }),
+          as: client,
+          params,
+          ...(method === "GET" || method === "HEAD" || method === "DELETE"
+            ? {}
+            : isUpload
+              ? { query: { fileName: "x.pdf" }, file: PDF }
+              : {
+                  body:
+                    method === "PATCH" && url.startsWith("/api/requests")
+                      ? { note: "A note" }
+                      : { password: "a-long-enough-password" },
+                }),
         });
         const text = await res.text();
         expect({ key, status: res.status }, text.slice(0, 300)).toEqual({ key, status: expected });
         if (key === "GET /api/engagements") expect(JSON.parse(text).engagements).toEqual([]);
-        if (expected === 404 && url.startsWith("/api/engagements")) expect(text).not.toMatch(/INV0\d\d|Check the cut-off|book_?value/i);
+        if (expected === 404 && url.startsWith("/api/engagements"))
+          expect(text).not.toMatch(/INV0\d\d|Check the cut-off|book_?value/i);
       }
     });
   }
@@ -127,7 +189,9 @@ describe("a client contact against every route handler", () => {
 describe("page guards", () => {
   it("show a client contact not-found on the engagement's pages and send them from the workspace to their requests", async () => {
     actAs(client);
-    await expect(requireEngagementPage(String(engagement))).rejects.toMatchObject({ digest: expect.stringContaining("404") });
+    await expect(requireEngagementPage(String(engagement))).rejects.toMatchObject({
+      digest: expect.stringContaining("404"),
+    });
     await expect(requireWorkspaceUser()).rejects.toMatchObject({ digest: expect.stringContaining("/requests") });
   });
 });

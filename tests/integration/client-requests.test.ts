@@ -7,7 +7,14 @@ import { runRequestReminders } from "@/lib/requests/reminders";
 import { call, callRaw } from "./support/call";
 import { auditCount, makeEngagement, makeFirm, makeUser } from "./support/factory";
 import { addressedTo, clearInbox, readInbox, waitForMessage } from "./support/inbox";
-import { drawSample, listSampleItems, loadCanonicalPopulation, planSample, saveResult, concludeSample } from "./support/samples";
+import {
+  drawSample,
+  listSampleItems,
+  loadCanonicalPopulation,
+  planSample,
+  saveResult,
+  concludeSample,
+} from "./support/samples";
 import * as contacts from "@/app/api/engagements/[engagementId]/client-contacts/route";
 import * as teamLists from "@/app/api/engagements/[engagementId]/samples/[sampleId]/requests/route";
 import * as teamList from "@/app/api/engagements/[engagementId]/samples/[sampleId]/requests/[listId]/route";
@@ -37,20 +44,61 @@ const sha = (b: Uint8Array) => createHash("sha256").update(b).digest("hex");
 const PDF = ascii("%PDF-1.7\n1 0 obj\n<< /Type /Catalog >>\nendobj\ntrailer\n<< /Root 1 0 R >>\n%%EOF\n");
 const CSV = ascii("invoice,paid\nINV001,1250.00\n");
 
-const sp = (extra: Record<string, string> = {}) => ({ engagementId: String(engagement), sampleId: String(sampleId), ...extra });
+const sp = (extra: Record<string, string> = {}) => ({
+  engagementId: String(engagement),
+  sampleId: String(sampleId),
+  ...extra,
+});
 const dueIn = (days: number) => new Date(Date.now() + days * 86400_000).toISOString().slice(0, 10);
-const createList = (as: number, body: Record<string, unknown>) => call(teamLists.POST, "POST", { as, params: sp(), body: { title: "Receivables — supporting documents", dueDate: dueIn(10), needs: ["invoice", "remittance"], items: "all", ...body } });
+const createList = (as: number, body: Record<string, unknown>) =>
+  call(teamLists.POST, "POST", {
+    as,
+    params: sp(),
+    body: {
+      title: "Receivables — supporting documents",
+      dueDate: dueIn(10),
+      needs: ["invoice", "remittance"],
+      items: "all",
+      ...body,
+    },
+  });
 const clientUpload = (as: number, listId: number, requestItemId: number, fileName: string, file: Uint8Array) =>
-  call(myFiles.POST, "POST", { as, params: { listId: String(listId), requestItemId: String(requestItemId) }, query: { fileName }, file });
+  call(myFiles.POST, "POST", {
+    as,
+    params: { listId: String(listId), requestItemId: String(requestItemId) },
+    query: { fileName },
+    file,
+  });
 const clientView = (as: number, listId: number) => call(myList.GET, "GET", { as, params: { listId: String(listId) } });
 
 beforeAll(async () => {
   firm = await makeFirm();
-  [manager, senior, staff, otherClient] = await Promise.all([makeUser(firm, "manager"), makeUser(firm, "senior"), makeUser(firm, "staff"), makeUser(firm, "client")]);
-  engagement = await makeEngagement(firm, manager, [[manager, "manager"], [senior, "senior"], [staff, "staff"], [otherClient, "client"]]);
+  [manager, senior, staff, otherClient] = await Promise.all([
+    makeUser(firm, "manager"),
+    makeUser(firm, "senior"),
+    makeUser(firm, "staff"),
+    makeUser(firm, "client"),
+  ]);
+  engagement = await makeEngagement(firm, manager, [
+    [manager, "manager"],
+    [senior, "senior"],
+    [staff, "staff"],
+    [otherClient, "client"],
+  ]);
   seniorEmail = (await getDb()("users").where({ id: senior }).first("email"))!.email;
   const { populationId } = await loadCanonicalPopulation(senior, engagement);
-  sampleId = (await planSample(senior, engagement, { populationId, params: { method: "random", estimator: "difference", tolerableMisstatement: "5000", sampleSize: 6, sizeReason: "test" } })).json.sample.id;
+  sampleId = (
+    await planSample(senior, engagement, {
+      populationId,
+      params: {
+        method: "random",
+        estimator: "difference",
+        tolerableMisstatement: "5000",
+        sampleSize: 6,
+        sizeReason: "test",
+      },
+    })
+  ).json.sample.id;
   await drawSample(senior, engagement, sampleId, 7);
   items = await listSampleItems(senior, engagement, sampleId);
 });
@@ -68,34 +116,73 @@ runMailWorkerDuringTests();
 
 describe("inviting a client contact", () => {
   it("lets a senior invite; the contact gets a one-time link, chooses a password with it, and the link is then spent", async () => {
-    expect((await call(contacts.POST, "POST", { as: staff, params: { engagementId: String(engagement) }, body: { name: "Carla Mendes", email: "carla@client-a.example" } })).status).toBe(403);
-    const r = await call(contacts.POST, "POST", { as: senior, params: { engagementId: String(engagement) }, body: { name: "Carla Mendes", email: "Carla@Client-A.example" } });
+    expect(
+      (
+        await call(contacts.POST, "POST", {
+          as: staff,
+          params: { engagementId: String(engagement) },
+          body: { name: "Carla Mendes", email: "carla@client-a.example" },
+        })
+      ).status,
+    ).toBe(403);
+    const r = await call(contacts.POST, "POST", {
+      as: senior,
+      params: { engagementId: String(engagement) },
+      body: { name: "Carla Mendes", email: "Carla@Client-A.example" },
+    });
     expect(r.status).toBe(201);
-    expect(r.json.contact).toMatchObject({ name: "Carla Mendes", email: "carla@client-a.example", invitationSent: true });
+    expect(r.json.contact).toMatchObject({
+      name: "Carla Mendes",
+      email: "carla@client-a.example",
+      invitationSent: true,
+    });
     carla = { userId: r.json.contact.userId, email: "carla@client-a.example" };
     const user = await getDb()("users").where({ id: carla.userId }).first();
     expect(user).toMatchObject({ grade: "client", firm_role: "member" });
-    expect(await getDb()("engagement_members").where({ engagement_id: engagement, user_id: carla.userId }).first("role")).toEqual({ role: "client" });
+    expect(
+      await getDb()("engagement_members").where({ engagement_id: engagement, user_id: carla.userId }).first("role"),
+    ).toEqual({ role: "client" });
 
     const mail = await waitForMessage(addressedTo(carla.email));
     expect(mail.subject).toMatch(/invites you to share audit evidence/);
     const token = /\/invitation\/([A-Za-z0-9_-]+)/.exec(mail.text)?.[1];
     expect(token).toBeTruthy();
-    expect((await call(invitation.POST, "POST", { as: null, params: { token: token! }, body: { password: "short" } })).status).toBe(400);
-    const ok = await call(invitation.POST, "POST", { as: null, params: { token: token! }, body: { password: "carla-chooses-this-1" } });
+    expect(
+      (await call(invitation.POST, "POST", { as: null, params: { token: token! }, body: { password: "short" } }))
+        .status,
+    ).toBe(400);
+    const ok = await call(invitation.POST, "POST", {
+      as: null,
+      params: { token: token! },
+      body: { password: "carla-chooses-this-1" },
+    });
     expect(ok).toMatchObject({ status: 200, json: { email: carla.email } });
     const stored = (await getDb()("users").where({ id: carla.userId }).first("password_hash"))!;
     expect(await bcrypt.compare("carla-chooses-this-1", stored.password_hash)).toBe(true);
-    expect((await call(invitation.POST, "POST", { as: null, params: { token: token! }, body: { password: "someone-else-again" } })).status).toBe(404);
+    expect(
+      (
+        await call(invitation.POST, "POST", {
+          as: null,
+          params: { token: token! },
+          body: { password: "someone-else-again" },
+        })
+      ).status,
+    ).toBe(404);
     expect(await auditCount({ entity: "user_invitation", action: "accept" })).toBeGreaterThanOrEqual(1);
   });
 
   it("refuses an e-mail that belongs to an auditor, and lists the contacts", async () => {
     const auditorEmail = (await getDb()("users").where({ id: staff }).first("email"))!.email;
-    const r = await call(contacts.POST, "POST", { as: senior, params: { engagementId: String(engagement) }, body: { name: "Not a client", email: auditorEmail } });
+    const r = await call(contacts.POST, "POST", {
+      as: senior,
+      params: { engagementId: String(engagement) },
+      body: { name: "Not a client", email: auditorEmail },
+    });
     expect(r.status).toBe(409);
     const listed = await call(contacts.GET, "GET", { as: staff, params: { engagementId: String(engagement) } });
-    expect(listed.json.contacts.map((c: { userId: number }) => c.userId).sort()).toEqual([otherClient, carla.userId].sort());
+    expect(listed.json.contacts.map((c: { userId: number }) => c.userId).sort()).toEqual(
+      [otherClient, carla.userId].sort(),
+    );
   });
 });
 
@@ -111,7 +198,12 @@ describe("request lists", () => {
     expect(notContact.status).toBe(400);
     expect(notContact.json.error.fields.contactUserId[0]).toMatch(/client contact/);
 
-    const r = await createList(senior, { contactUserId: carla.userId, items: [items[0].id, items[1].id, items[2].id], needsNote: "Remittance advice showing the bank reference", message: "Thank you for your help." });
+    const r = await createList(senior, {
+      contactUserId: carla.userId,
+      items: [items[0].id, items[1].id, items[2].id],
+      needsNote: "Remittance advice showing the bank reference",
+      message: "Thank you for your help.",
+    });
     expect(r.status).toBe(201);
     listId = r.json.requestList.id;
     expect(r.json.requestList).toMatchObject({ itemCount: 3, showBookValues: false, status: "open" });
@@ -121,7 +213,12 @@ describe("request lists", () => {
     expect(mail.text).toContain("Thank you for your help.");
     expect(await auditCount({ entity: "request_list", entity_id: String(listId), action: "create" })).toBe(1);
 
-    const shown = await createList(senior, { title: "With amounts", contactUserId: carla.userId, items: [items[3].id], showBookValues: true });
+    const shown = await createList(senior, {
+      title: "With amounts",
+      contactUserId: carla.userId,
+      items: [items[3].id],
+      showBookValues: true,
+    });
     shownListId = shown.json.requestList.id;
   });
 
@@ -132,11 +229,17 @@ describe("request lists", () => {
 
     const hidden = await clientView(carla.userId, listId);
     expect(hidden.status).toBe(200);
-    expect(hidden.json.items.map((i: { itemRef: string }) => i.itemRef)).toEqual(items.slice(0, 3).map((i) => i.itemRef));
+    expect(hidden.json.items.map((i: { itemRef: string }) => i.itemRef)).toEqual(
+      items.slice(0, 3).map((i) => i.itemRef),
+    );
     for (const item of hidden.json.items) expect(item).not.toHaveProperty("bookValue");
     const body = JSON.stringify(hidden.json);
     for (const i of items.slice(0, 3)) expect(body).not.toContain(`"${i.bookValue}"`);
-    expect(hidden.json.items[0]).toMatchObject({ status: "requested", needs: ["invoice", "remittance"], needsNote: "Remittance advice showing the bank reference" });
+    expect(hidden.json.items[0]).toMatchObject({
+      status: "requested",
+      needs: ["invoice", "remittance"],
+      needsNote: "Remittance advice showing the bank reference",
+    });
 
     const shown = await clientView(carla.userId, shownListId);
     expect(shown.json.items[0].bookValue).toBe(items[3].bookValue);
@@ -153,19 +256,42 @@ describe("request lists", () => {
     const b = await clientUpload(carla.userId, listId, first.id, "remittance.csv", CSV);
     expect([a.status, b.status]).toEqual([201, 201]);
     expect(a.json.file).toMatchObject({ contentType: "application/pdf", sha256: sha(PDF), itemStatus: "provided" });
-    const exe = await clientUpload(carla.userId, listId, first.id, "invoice.pdf", new Uint8Array([0x4d, 0x5a, 0x90, 0x00, 0x03, 0x00]));
+    const exe = await clientUpload(
+      carla.userId,
+      listId,
+      first.id,
+      "invoice.pdf",
+      new Uint8Array([0x4d, 0x5a, 0x90, 0x00, 0x03, 0x00]),
+    );
     expect(exe.status).toBe(415);
     expect((await clientUpload(otherClient, listId, first.id, "x.pdf", PDF)).status).toBe(404);
     const strayItem = (await clientView(carla.userId, shownListId)).json.items[0].id;
     expect((await clientUpload(carla.userId, listId, strayItem, "x.pdf", PDF)).status).toBe(404);
 
-    expect((await call(myItem.PATCH, "PATCH", { as: carla.userId, params: { listId: String(listId), requestItemId: String(second.id) }, body: { note: "This invoice was cancelled; credit note to follow." } })).status).toBe(204);
+    expect(
+      (
+        await call(myItem.PATCH, "PATCH", {
+          as: carla.userId,
+          params: { listId: String(listId), requestItemId: String(second.id) },
+          body: { note: "This invoice was cancelled; credit note to follow." },
+        })
+      ).status,
+    ).toBe(204);
     const after = await clientView(carla.userId, listId);
     expect(after.json.items[0]).toMatchObject({ status: "provided" });
-    expect(after.json.items[0].files.map((f: { fileName: string }) => f.fileName)).toEqual(["INV-remittance.pdf", "remittance.csv"]);
-    expect(after.json.items[1]).toMatchObject({ status: "requested", clientNote: "This invoice was cancelled; credit note to follow." });
+    expect(after.json.items[0].files.map((f: { fileName: string }) => f.fileName)).toEqual([
+      "INV-remittance.pdf",
+      "remittance.csv",
+    ]);
+    expect(after.json.items[1]).toMatchObject({
+      status: "requested",
+      clientNote: "This invoice was cancelled; credit note to follow.",
+    });
 
-    const download = await callRaw(myFile.GET, "GET", { as: carla.userId, params: { listId: String(listId), fileId: String(a.json.file.id) } });
+    const download = await callRaw(myFile.GET, "GET", {
+      as: carla.userId,
+      params: { listId: String(listId), fileId: String(a.json.file.id) },
+    });
     expect(sha(new Uint8Array(await download.arrayBuffer()))).toBe(sha(PDF));
     expect(await auditCount({ entity: "request_file", action: "client-upload" })).toBe(2);
   });
@@ -174,12 +300,21 @@ describe("request lists", () => {
     const team = await call(teamList.GET, "GET", { as: staff, params: sp({ listId: String(listId) }) });
     expect(team.json.items[0].bookValue).toBe(items[0].bookValue);
     const [pdf, csv] = team.json.items[0].files;
-    const teamDownload = await callRaw(teamFile.GET, "GET", { as: staff, params: sp({ listId: String(listId), fileId: String(pdf.id) }) });
+    const teamDownload = await callRaw(teamFile.GET, "GET", {
+      as: staff,
+      params: sp({ listId: String(listId), fileId: String(pdf.id) }),
+    });
     expect(teamDownload.headers.get("x-content-sha256")).toBe(sha(PDF));
 
     const fileParams = (id: number) => sp({ listId: String(listId), fileId: String(id) });
-    expect((await call(sendBack.POST, "POST", { as: staff, params: fileParams(csv.id), body: { reason: "no" } })).status).toBe(400);
-    const returned = await call(sendBack.POST, "POST", { as: staff, params: fileParams(csv.id), body: { reason: "The extract does not show the payment date; please send the bank statement line." } });
+    expect(
+      (await call(sendBack.POST, "POST", { as: staff, params: fileParams(csv.id), body: { reason: "no" } })).status,
+    ).toBe(400);
+    const returned = await call(sendBack.POST, "POST", {
+      as: staff,
+      params: fileParams(csv.id),
+      body: { reason: "The extract does not show the payment date; please send the bank statement line." },
+    });
     expect(returned.json).toMatchObject({ itemStatus: "provided", mailSent: true });
     // Matched by subject: the outbox may deliver an earlier step's message to the same person later.
     const mail = await waitForMessage((m) => addressedTo(carla.email)(m) && m.subject.startsWith("More needed for"));
@@ -192,8 +327,18 @@ describe("request lists", () => {
     expect((await call(accept.POST, "POST", { as: staff, params: fileParams(pdf.id) })).status).toBe(409);
 
     const evidence = await call(evidenceList.GET, "GET", { as: staff, params: sp({ itemId: String(items[0].id) }) });
-    expect(evidence.json.evidence).toEqual([expect.objectContaining({ id: accepted.json.evidenceId, fileName: "INV-remittance.pdf", sha256: sha(PDF), uploadedById: carla.userId })]);
-    const rows = await getDb()("request_files as f").join("item_evidence as e", "e.id", "f.evidence_id").where("f.id", pdf.id).first("f.object_key as a", "e.object_key as b");
+    expect(evidence.json.evidence).toEqual([
+      expect.objectContaining({
+        id: accepted.json.evidenceId,
+        fileName: "INV-remittance.pdf",
+        sha256: sha(PDF),
+        uploadedById: carla.userId,
+      }),
+    ]);
+    const rows = await getDb()("request_files as f")
+      .join("item_evidence as e", "e.id", "f.evidence_id")
+      .where("f.id", pdf.id)
+      .first("f.object_key as a", "e.object_key as b");
     expect(rows.a).toBe(rows.b);
 
     const grid = await listSampleItems(staff, engagement, sampleId);
@@ -214,7 +359,9 @@ describe("request lists", () => {
     expect(first.lists).toBe(1);
     expect(first.messages.every((m) => m.sent)).toBe(true);
     const toClient = await waitForMessage((m) => addressedTo(carla.email)(m) && m.subject.startsWith("Reminder:"));
-    const toSenior = await waitForMessage((m) => addressedTo(seniorEmail)(m) && m.subject.startsWith("Client requests overdue:"));
+    const toSenior = await waitForMessage(
+      (m) => addressedTo(seniorEmail)(m) && m.subject.startsWith("Client requests overdue:"),
+    );
     expect(toClient.subject).toBe("Reminder: 2 requested items overdue");
     expect(toSenior.subject).toBe("Client requests overdue: 2 items");
     // item 1 was accepted; items 2 and 3 still await the client
@@ -233,25 +380,50 @@ describe("request lists", () => {
 
   it("close when the sample is locked: the client's uploads get 409 with a clear message", async () => {
     for (const it of await listSampleItems(staff, engagement, sampleId)) {
-      if (it.status === "not-started") await saveResult(staff, engagement, sampleId, it.id, { version: it.version, status: "done", auditedValue: it.bookValue });
+      if (it.status === "not-started")
+        await saveResult(staff, engagement, sampleId, it.id, {
+          version: it.version,
+          status: "done",
+          auditedValue: it.bookValue,
+        });
     }
     expect((await concludeSample(staff, engagement, sampleId)).status).toBe(200);
     expect((await call(signOff.POST, "POST", { as: staff, params: sp(), body: { as: "preparer" } })).status).toBe(200);
-    expect((await call(signOff.POST, "POST", { as: manager, params: sp(), body: { as: "reviewer" } })).status).toBe(200);
+    expect((await call(signOff.POST, "POST", { as: manager, params: sp(), body: { as: "reviewer" } })).status).toBe(
+      200,
+    );
     expect((await call(lock.POST, "POST", { as: manager, params: sp() })).status).toBe(200);
 
     const view = await clientView(carla.userId, listId);
-    expect(view.json.list).toMatchObject({ status: "closed", closedReason: "The sample was locked: its workpaper is final." });
+    expect(view.json.list).toMatchObject({
+      status: "closed",
+      closedReason: "The sample was locked: its workpaper is final.",
+    });
     const refused = await clientUpload(carla.userId, listId, view.json.items[1].id, "late.pdf", PDF);
     expect(refused.status).toBe(409);
-    expect(refused.json.error.message).toMatch(/This request list is closed \(The sample was locked: its workpaper is final\)/);
-    expect((await call(myItem.PATCH, "PATCH", { as: carla.userId, params: { listId: String(listId), requestItemId: String(view.json.items[1].id) }, body: { note: "late" } })).status).toBe(409);
+    expect(refused.json.error.message).toMatch(
+      /This request list is closed \(The sample was locked: its workpaper is final\)/,
+    );
+    expect(
+      (
+        await call(myItem.PATCH, "PATCH", {
+          as: carla.userId,
+          params: { listId: String(listId), requestItemId: String(view.json.items[1].id) },
+          body: { note: "late" },
+        })
+      ).status,
+    ).toBe(409);
     expect(await auditCount({ entity: "request_list", action: "close" })).toBe(2);
     expect((await createList(senior, { contactUserId: carla.userId })).status).toBe(409);
     const inbox = await readInbox();
     expect(inbox.some((m) => addressedTo(carla.email)(m) && /locked/i.test(m.subject))).toBe(false);
     // Issue 19: the contact is told each list the lock closed (not the team's lock notice itself).
-    const closed = await waitForMessage((m) => addressedTo(carla.email)(m) && /^Request list closed: /.test(m.subject) && m.text.includes(`/requests/${listId}`));
+    const closed = await waitForMessage(
+      (m) =>
+        addressedTo(carla.email)(m) &&
+        /^Request list closed: /.test(m.subject) &&
+        m.text.includes(`/requests/${listId}`),
+    );
     expect(closed.text.replace(/\s+/g, " ")).toContain("no longer takes files on it");
   });
 });

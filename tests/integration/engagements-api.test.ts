@@ -10,8 +10,12 @@ import * as member from "@/app/api/engagements/[engagementId]/members/[userId]/r
 vi.mock("@/lib/auth/session-user", async () => (await import("./support/session")).sessionModule);
 
 const newEngagement = {
-  clientName: "Kestrel Ridge Cooperative", name: "Year-end audit", periodEnd: "2026-12-31", currency: "USD",
-  overallMateriality: "250000", performanceMateriality: "187500",
+  clientName: "Kestrel Ridge Cooperative",
+  name: "Year-end audit",
+  periodEnd: "2026-12-31",
+  currency: "USD",
+  overallMateriality: "250000",
+  performanceMateriality: "187500",
 };
 
 let firm: number, manager: number, partner: number, staff: number, senior: number, outsider: number, inactive: number;
@@ -20,11 +24,23 @@ let engagementA: number, engagementB: number;
 beforeAll(async () => {
   firm = await makeFirm();
   [manager, partner, staff, senior, outsider] = await Promise.all([
-    makeUser(firm, "manager"), makeUser(firm, "partner"), makeUser(firm, "staff"), makeUser(firm, "senior"), makeUser(firm, "manager"),
+    makeUser(firm, "manager"),
+    makeUser(firm, "partner"),
+    makeUser(firm, "staff"),
+    makeUser(firm, "senior"),
+    makeUser(firm, "manager"),
   ]);
   inactive = await makeUser(firm, "manager", { active: false });
-  engagementA = await makeEngagement(firm, manager, [[manager, "manager"], [staff, "staff"], [senior, "senior"], [inactive, "manager"]]);
-  engagementB = await makeEngagement(firm, outsider, [[outsider, "manager"], [partner, "partner"]]);
+  engagementA = await makeEngagement(firm, manager, [
+    [manager, "manager"],
+    [staff, "staff"],
+    [senior, "senior"],
+    [inactive, "manager"],
+  ]);
+  engagementB = await makeEngagement(firm, outsider, [
+    [outsider, "manager"],
+    [partner, "partner"],
+  ]);
 });
 
 afterAll(async () => {
@@ -54,7 +70,9 @@ describe("engagement isolation", () => {
     expect((await call(one.GET, "GET", { as: staff, params })).status).toBe(404);
     expect((await call(one.PATCH, "PATCH", { as: manager, params, body: { status: "fieldwork" } })).status).toBe(404);
     expect((await call(members.GET, "GET", { as: manager, params })).status).toBe(404);
-    expect((await call(members.POST, "POST", { as: manager, params, body: { userId: staff, role: "staff" } })).status).toBe(404);
+    expect(
+      (await call(members.POST, "POST", { as: manager, params, body: { userId: staff, role: "staff" } })).status,
+    ).toBe(404);
   });
 
   it("answers 404 for an engagement that does not exist, the same as one the user is not on", async () => {
@@ -69,7 +87,12 @@ describe("POST /api/engagements", () => {
     const before = await auditCount({ entity: "engagement", action: "create" });
     const r = await call(list.POST, "POST", { as: manager, body: newEngagement });
     expect(r.status).toBe(201);
-    expect(r.json.engagement).toMatchObject({ clientName: "Kestrel Ridge Cooperative", overallMateriality: "250000.00", performanceMateriality: "187500.00", status: "planning" });
+    expect(r.json.engagement).toMatchObject({
+      clientName: "Kestrel Ridge Cooperative",
+      overallMateriality: "250000.00",
+      performanceMateriality: "187500.00",
+      status: "planning",
+    });
     const id = r.json.engagement.id;
     expect(await auditCount({ entity: "engagement", action: "create" })).toBe(before + 1);
     expect(await auditCount({ entity: "engagement_member", entity_id: `${id}:${manager}`, action: "add" })).toBe(1);
@@ -94,7 +117,10 @@ describe("POST /api/engagements", () => {
   });
 
   it("answers 400 naming each missing or bad field", async () => {
-    const r = await call(list.POST, "POST", { as: manager, body: { ...newEngagement, clientName: undefined, periodEnd: "2026-13-01" } });
+    const r = await call(list.POST, "POST", {
+      as: manager,
+      body: { ...newEngagement, clientName: undefined, periodEnd: "2026-13-01" },
+    });
     expect(r.status).toBe(400);
     expect(Object.keys(r.json.error.fields).sort()).toEqual(["clientName", "periodEnd"]);
     expect(r.json.error.message).toMatch(/clientName/);
@@ -108,13 +134,18 @@ describe("PATCH /api/engagements/:id", () => {
     const r = await call(one.PATCH, "PATCH", { as: manager, params: params(), body: { status: "fieldwork" } });
     expect(r.status).toBe(200);
     expect(r.json.engagement.status).toBe("fieldwork");
-    const row = (await getDb()("audit_log").where({ entity: "engagement", entity_id: String(engagementA), action: "update" }).orderBy("id", "desc").first())!;
+    const row = (await getDb()("audit_log")
+      .where({ entity: "engagement", entity_id: String(engagementA), action: "update" })
+      .orderBy("id", "desc")
+      .first())!;
     expect(json(row.before_json)).toEqual({ status: "planning" });
     expect(json(row.after_json)).toEqual({ status: "fieldwork" });
   });
 
   it("refuses a senior with 403", async () => {
-    expect((await call(one.PATCH, "PATCH", { as: senior, params: params(), body: { status: "completion" } })).status).toBe(403);
+    expect(
+      (await call(one.PATCH, "PATCH", { as: senior, params: params(), body: { status: "completion" } })).status,
+    ).toBe(403);
   });
 
   it("refuses an empty change with 400", async () => {
@@ -127,28 +158,48 @@ describe("team management", () => {
 
   it("adds, re-roles and removes a member, each with an audit row", async () => {
     const newcomer = await makeUser(firm, "staff");
-    const add = await call(members.POST, "POST", { as: manager, params: params(), body: { userId: newcomer, role: "staff" } });
+    const add = await call(members.POST, "POST", {
+      as: manager,
+      params: params(),
+      body: { userId: newcomer, role: "staff" },
+    });
     expect(add.status).toBe(201);
     const mp = { ...params(), userId: String(newcomer) };
-    expect((await call(member.PATCH, "PATCH", { as: manager, params: mp, body: { role: "senior" } })).json.members).toContainEqual(expect.objectContaining({ userId: newcomer, role: "senior" }));
+    expect(
+      (await call(member.PATCH, "PATCH", { as: manager, params: mp, body: { role: "senior" } })).json.members,
+    ).toContainEqual(expect.objectContaining({ userId: newcomer, role: "senior" }));
     expect((await call(member.DELETE, "DELETE", { as: manager, params: mp })).status).toBe(200);
-    const actions = await getDb()("audit_log").where({ entity: "engagement_member", entity_id: `${engagementA}:${newcomer}` }).orderBy("id").pluck("action");
+    const actions = await getDb()("audit_log")
+      .where({ entity: "engagement_member", entity_id: `${engagementA}:${newcomer}` })
+      .orderBy("id")
+      .pluck("action");
     expect(actions).toEqual(["add", "change-role", "remove"]);
   });
 
   it("does not let a manager grant partner", async () => {
-    const r = await call(members.POST, "POST", { as: manager, params: params(), body: { userId: partner, role: "partner" } });
+    const r = await call(members.POST, "POST", {
+      as: manager,
+      params: params(),
+      body: { userId: partner, role: "partner" },
+    });
     expect(r.status).toBe(403);
   });
 
   it("does not let staff change the team", async () => {
-    const r = await call(member.PATCH, "PATCH", { as: staff, params: { ...params(), userId: String(senior) }, body: { role: "staff" } });
+    const r = await call(member.PATCH, "PATCH", {
+      as: staff,
+      params: { ...params(), userId: String(senior) },
+      body: { role: "staff" },
+    });
     expect(r.status).toBe(403);
   });
 
   it("keeps at least one manager or partner", async () => {
     const solo = await makeEngagement(firm, manager, [[manager, "manager"]]);
-    const r = await call(member.DELETE, "DELETE", { as: manager, params: { engagementId: String(solo), userId: String(manager) } });
+    const r = await call(member.DELETE, "DELETE", {
+      as: manager,
+      params: { engagementId: String(solo), userId: String(manager) },
+    });
     expect(r.status).toBe(409);
     expect(r.json.error.message).toMatch(/at least one manager or partner/);
   });
@@ -156,7 +207,11 @@ describe("team management", () => {
   it("refuses a user from another firm with 400 naming userId", async () => {
     const otherFirm = await makeFirm();
     const stranger = await makeUser(otherFirm, "staff");
-    const r = await call(members.POST, "POST", { as: manager, params: params(), body: { userId: stranger, role: "staff" } });
+    const r = await call(members.POST, "POST", {
+      as: manager,
+      params: params(),
+      body: { userId: stranger, role: "staff" },
+    });
     expect(r.status).toBe(400);
     expect(r.json.error.fields).toHaveProperty("userId");
   });

@@ -16,7 +16,15 @@ import { EvaluationPanel } from "@/components/samples/evaluation-panel";
 import type { SampleEvaluation } from "@/lib/samples/evaluate";
 import { callRaw } from "./support/call";
 import { makeEngagement, makeFirm, makeUser } from "./support/factory";
-import { concludeSample, drawSample, getEvaluation, listSampleItems, loadCanonicalPopulation, planSample, saveResult } from "./support/samples";
+import {
+  concludeSample,
+  drawSample,
+  getEvaluation,
+  listSampleItems,
+  loadCanonicalPopulation,
+  planSample,
+  saveResult,
+} from "./support/samples";
 import * as workpaper from "@/app/api/engagements/[engagementId]/samples/[sampleId]/workpaper/route";
 import { formatFactor, formatMoney, formatRate } from "@/lib/format/number";
 
@@ -28,7 +36,11 @@ beforeAll(async () => {
   const firm = await makeFirm();
   [staff, senior] = await Promise.all([makeUser(firm, "staff"), makeUser(firm, "senior")]);
   const manager = await makeUser(firm, "manager");
-  engagement = await makeEngagement(firm, manager, [[manager, "manager"], [senior, "senior"], [staff, "staff"]]);
+  engagement = await makeEngagement(firm, manager, [
+    [manager, "manager"],
+    [senior, "senior"],
+    [staff, "staff"],
+  ]);
   populationId = (await loadCanonicalPopulation(senior, engagement)).populationId;
 });
 
@@ -47,12 +59,24 @@ function amounts(value: unknown, at = "block"): [string, string][] {
 }
 
 const squash = (t: string) => t.replace(/\s+/g, " ");
-const htmlText = (html: string) => squash(html.replace(/<[^>]+>/g, " ").replace(/&amp;/g, "&").replace(/&#x27;|&apos;/g, "'").replace(/&quot;/g, '"'));
+const htmlText = (html: string) =>
+  squash(
+    html
+      .replace(/<[^>]+>/g, " ")
+      .replace(/&amp;/g, "&")
+      .replace(/&#x27;|&apos;/g, "'")
+      .replace(/&quot;/g, '"'),
+  );
 
 async function printouts(sampleId: number, direction: SampleEvaluation["direction"]) {
   const api = (await getEvaluation(staff, engagement, sampleId)) as SampleEvaluation;
-  const page = htmlText(renderToStaticMarkup(createElement(EvaluationPanel, { evaluation: api, direction, loading: false })));
-  const res = await callRaw(workpaper.GET, "GET", { as: staff, params: { engagementId: String(engagement), sampleId: String(sampleId) } });
+  const page = htmlText(
+    renderToStaticMarkup(createElement(EvaluationPanel, { evaluation: api, direction, loading: false })),
+  );
+  const res = await callRaw(workpaper.GET, "GET", {
+    as: staff,
+    params: { engagementId: String(engagement), sampleId: String(sampleId) },
+  });
   expect(res.status).toBe(200);
   const file = path.join(os.tmpdir(), `printouts-${sampleId}.pdf`);
   fs.writeFileSync(file, Buffer.from(await res.arrayBuffer()));
@@ -75,12 +99,25 @@ function expectSameFigures({ api, page, pdf }: Awaited<ReturnType<typeof printou
 
 describe("one evaluation, printed three times", () => {
   it("a monetary-unit sample tested both ways: the Stringer rows, limits and statement agree", async () => {
-    const r = await planSample(senior, engagement, { populationId, direction: "both", params: { method: "mus", tolerableMisstatement: "15000", factorMode: "table" } });
+    const r = await planSample(senior, engagement, {
+      populationId,
+      direction: "both",
+      params: { method: "mus", tolerableMisstatement: "15000", factorMode: "table" },
+    });
     const id = r.json.sample.id as number;
     await drawSample(senior, engagement, id, 1206281);
     for (const it of await listSampleItems(staff, engagement, id)) {
       const audited = it.itemRef === "INV011" ? "3690.00" : it.itemRef === "INV018" ? "2887.50" : it.bookValue;
-      expect((await saveResult(staff, engagement, id, it.id, { version: it.version, status: "done", auditedValue: audited, cause: audited === it.bookValue ? null : "pricing" })).status).toBe(200);
+      expect(
+        (
+          await saveResult(staff, engagement, id, it.id, {
+            version: it.version,
+            status: "done",
+            auditedValue: audited,
+            cause: audited === it.bookValue ? null : "pricing",
+          })
+        ).status,
+      ).toBe(200);
     }
     expect((await concludeSample(staff, engagement, id)).status).toBe(200);
     const out = await printouts(id, "both");
@@ -88,7 +125,11 @@ describe("one evaluation, printed three times", () => {
     if (b.method !== "mus") throw new Error("expected a monetary-unit block");
     const rows = [...b.overstatement.rows, ...b.understatement.rows];
     expect(rows.length).toBe(2);
-    const factors = rows.flatMap((row) => [formatFactor(row.factor), formatFactor(row.factorIncrement), formatRate(row.tainting)]);
+    const factors = rows.flatMap((row) => [
+      formatFactor(row.factor),
+      formatFactor(row.factorIncrement),
+      formatRate(row.tainting),
+    ]);
     expectSameFigures(out, [...factors, formatFactor(b.overstatement.basicPrecisionFactor)]);
     expect(out.page).toContain(b.statement);
     expect(out.pdf).toContain(squash(b.statement));
@@ -96,12 +137,24 @@ describe("one evaluation, printed three times", () => {
   });
 
   it("a classical variables sample: Ŷ, SE, A, A′, A″ and the limits agree, with the rule in words", async () => {
-    const r = await planSample(senior, engagement, { populationId, direction: "both", params: { method: "random", estimator: "difference", tolerableMisstatement: "30000", riskOfIncorrectRejection: 0.1 } });
+    const r = await planSample(senior, engagement, {
+      populationId,
+      direction: "both",
+      params: {
+        method: "random",
+        estimator: "difference",
+        tolerableMisstatement: "30000",
+        riskOfIncorrectRejection: 0.1,
+      },
+    });
     const id = r.json.sample.id as number;
     await drawSample(senior, engagement, id, 5489);
     for (const it of await listSampleItems(staff, engagement, id)) {
       const audited = it.itemRef === "INV004" ? "3425.75" : it.itemRef === "INV011" ? "3900.00" : it.bookValue;
-      expect((await saveResult(staff, engagement, id, it.id, { version: it.version, status: "done", auditedValue: audited })).status).toBe(200);
+      expect(
+        (await saveResult(staff, engagement, id, it.id, { version: it.version, status: "done", auditedValue: audited }))
+          .status,
+      ).toBe(200);
     }
     const out = await printouts(id, "both");
     const b = out.api.block!;
@@ -112,18 +165,38 @@ describe("one evaluation, printed three times", () => {
   });
 
   it("a nonstatistical sample with key items: projection, key items at actual, total and the verdict agree (issue 15)", async () => {
-    const r = await planSample(senior, engagement, { populationId, direction: "overstatement", params: {
-      method: "nonstatistical", sizingBasis: "risk-assessment", assessedRisk: "maximum", otherProceduresRisk: "moderate", tolerableMisstatement: "5000", expectedMisstatement: "0",
-      projection: "ratio", selection: "random", keyItemThreshold: "4000", keyItems: [{ itemRef: "INV004", reason: "Credit note raised after the period end" }],
-    } });
+    const r = await planSample(senior, engagement, {
+      populationId,
+      direction: "overstatement",
+      params: {
+        method: "nonstatistical",
+        sizingBasis: "risk-assessment",
+        assessedRisk: "maximum",
+        otherProceduresRisk: "moderate",
+        tolerableMisstatement: "5000",
+        expectedMisstatement: "0",
+        projection: "ratio",
+        selection: "random",
+        keyItemThreshold: "4000",
+        keyItems: [{ itemRef: "INV004", reason: "Credit note raised after the period end" }],
+      },
+    });
     expect(r.status).toBe(201);
     const id = r.json.sample.id as number;
     await drawSample(senior, engagement, id, 5489);
     const items = await listSampleItems(staff, engagement, id);
     const sampled = items.find((i) => !(i as unknown as { keyItem: boolean }).keyItem)!;
     for (const it of items) {
-      const audited = it.itemRef === "INV004" ? (Number(it.bookValue) - 75).toFixed(2) : it.id === sampled.id ? (Number(it.bookValue) - 40).toFixed(2) : it.bookValue;
-      expect((await saveResult(staff, engagement, id, it.id, { version: it.version, status: "done", auditedValue: audited })).status).toBe(200);
+      const audited =
+        it.itemRef === "INV004"
+          ? (Number(it.bookValue) - 75).toFixed(2)
+          : it.id === sampled.id
+            ? (Number(it.bookValue) - 40).toFixed(2)
+            : it.bookValue;
+      expect(
+        (await saveResult(staff, engagement, id, it.id, { version: it.version, status: "done", auditedValue: audited }))
+          .status,
+      ).toBe(200);
     }
     const out = await printouts(id, "overstatement");
     const b = out.api.block!;
@@ -135,13 +208,27 @@ describe("one evaluation, printed three times", () => {
   });
 
   it("a classical sample with key items: the remainder's estimate and the key items at actual agree", async () => {
-    const r = await planSample(senior, engagement, { populationId, direction: "overstatement", params: { method: "random", estimator: "difference", tolerableMisstatement: "6000", sampleSize: 8, sizeReason: "test", keyItemThreshold: "4000" } });
+    const r = await planSample(senior, engagement, {
+      populationId,
+      direction: "overstatement",
+      params: {
+        method: "random",
+        estimator: "difference",
+        tolerableMisstatement: "6000",
+        sampleSize: 8,
+        sizeReason: "test",
+        keyItemThreshold: "4000",
+      },
+    });
     expect(r.status).toBe(201);
     const id = r.json.sample.id as number;
     await drawSample(senior, engagement, id, 5489);
     for (const it of await listSampleItems(staff, engagement, id)) {
       const audited = it.itemRef === "INV011" ? "4000.00" : it.bookValue;
-      expect((await saveResult(staff, engagement, id, it.id, { version: it.version, status: "done", auditedValue: audited })).status).toBe(200);
+      expect(
+        (await saveResult(staff, engagement, id, it.id, { version: it.version, status: "done", auditedValue: audited }))
+          .status,
+      ).toBe(200);
     }
     const out = await printouts(id, "overstatement");
     const b = out.api.block!;
@@ -151,12 +238,19 @@ describe("one evaluation, printed three times", () => {
   });
 
   it("a draft before the first result: the workpaper prints the plan and says why there is no evaluation yet", async () => {
-    const r = await planSample(senior, engagement, { populationId, direction: "overstatement", params: { method: "mus", tolerableMisstatement: "15000" } });
+    const r = await planSample(senior, engagement, {
+      populationId,
+      direction: "overstatement",
+      params: { method: "mus", tolerableMisstatement: "15000" },
+    });
     const id = r.json.sample.id as number;
     await drawSample(senior, engagement, id, 77);
     const api = (await getEvaluation(staff, engagement, id)) as SampleEvaluation;
     expect(api.block).toBeNull();
-    const res = await callRaw(workpaper.GET, "GET", { as: staff, params: { engagementId: String(engagement), sampleId: String(id) } });
+    const res = await callRaw(workpaper.GET, "GET", {
+      as: staff,
+      params: { engagementId: String(engagement), sampleId: String(id) },
+    });
     expect(res.status).toBe(200);
     const file = path.join(os.tmpdir(), `printouts-draft-${id}.pdf`);
     fs.writeFileSync(file, Buffer.from(await res.arrayBuffer()));

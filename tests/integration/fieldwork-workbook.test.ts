@@ -28,10 +28,23 @@ const LEDGER = [
 
 beforeAll(async () => {
   const firm = await makeFirm();
-  [senior, staff, viewer, outsider] = await Promise.all([makeUser(firm, "senior"), makeUser(firm, "staff"), makeUser(firm, "staff"), makeUser(firm, "senior")]);
+  [senior, staff, viewer, outsider] = await Promise.all([
+    makeUser(firm, "senior"),
+    makeUser(firm, "staff"),
+    makeUser(firm, "staff"),
+    makeUser(firm, "senior"),
+  ]);
   const manager = await makeUser(firm, "manager");
-  engagement = await makeEngagement(firm, manager, [[manager, "manager"], [senior, "senior"], [staff, "staff"], [viewer, "viewer"]]);
-  await makeEngagement(firm, manager, [[manager, "manager"], [outsider, "senior"]]);
+  engagement = await makeEngagement(firm, manager, [
+    [manager, "manager"],
+    [senior, "senior"],
+    [staff, "staff"],
+    [viewer, "viewer"],
+  ]);
+  await makeEngagement(firm, manager, [
+    [manager, "manager"],
+    [outsider, "senior"],
+  ]);
 });
 
 afterAll(async () => {
@@ -41,10 +54,15 @@ afterAll(async () => {
 async function drawnSample(method: "random" | "attribute") {
   const { loaded } = await uploadAndLoad(senior, engagement, "ledger.csv", LEDGER, RECEIVABLES_MAPPING);
   const populationId = loaded!.last.populationId;
-  await call(reconcile.POST, "POST", { as: senior, params: { engagementId: String(engagement), populationId: String(populationId) }, body: { controlTotal: loaded!.last.total, controlCount: loaded!.last.rowCount } });
-  const params = method === "random"
-    ? { method, estimator: "difference", tolerableMisstatement: "5000", sampleSize: 8, sizeReason: "every invoice" }
-    : { method, tolerableRate: 0.1, sampleSize: 8, sizeReason: "every invoice" };
+  await call(reconcile.POST, "POST", {
+    as: senior,
+    params: { engagementId: String(engagement), populationId: String(populationId) },
+    body: { controlTotal: loaded!.last.total, controlCount: loaded!.last.rowCount },
+  });
+  const params =
+    method === "random"
+      ? { method, estimator: "difference", tolerableMisstatement: "5000", sampleSize: 8, sizeReason: "every invoice" }
+      : { method, tolerableRate: 0.1, sampleSize: 8, sizeReason: "every invoice" };
   const plan = await planSample(senior, engagement, { populationId, params });
   expect(plan.status).toBe(201);
   const sampleId = plan.json.sample.id as number;
@@ -65,7 +83,9 @@ async function exportWorkbook(sampleId: number, as = staff) {
 
 function columnsOf(ws: ExcelJS.Worksheet) {
   const cols: Record<string, number> = {};
-  ws.getRow(1).eachCell((cell, col) => { cols[cell.text] = col; });
+  ws.getRow(1).eachCell((cell, col) => {
+    cols[cell.text] = col;
+  });
   return cols;
 }
 
@@ -81,7 +101,10 @@ async function importWorkbook(sampleId: number, wb: ExcelJS.Workbook, as = staff
 }
 
 const itemsState = async (sampleId: number) =>
-  (await getDb()("sample_items").where({ sample_id: sampleId }).orderBy("id").select("id", "status", "audited_value", "comment", "version"));
+  await getDb()("sample_items")
+    .where({ sample_id: sampleId })
+    .orderBy("id")
+    .select("id", "status", "audited_value", "comment", "version");
 
 describe("the fieldwork workbook export", () => {
   it("has a cover sheet, an Items sheet people may sort and filter with only the fill-in columns unlocked, lists, and no formula but the misstatement", async () => {
@@ -97,29 +120,52 @@ describe("the fieldwork workbook export", () => {
 
     const ws = wb.getWorksheet("Items")!;
     const cols = columnsOf(ws);
-    expect(Object.keys(cols)).toEqual(["Order", "Item reference", "Description", "Book value", "Selected as", "Audited value", "Status", "Cause", "Cause detail", "Comment", "Misstatement (book − audited)", "Item id", "Version", "Exported values"]);
+    expect(Object.keys(cols)).toEqual([
+      "Order",
+      "Item reference",
+      "Description",
+      "Book value",
+      "Selected as",
+      "Audited value",
+      "Status",
+      "Cause",
+      "Cause detail",
+      "Comment",
+      "Misstatement (book − audited)",
+      "Item id",
+      "Version",
+      "Exported values",
+    ]);
     expect(ws.rowCount).toBe(9);
     // Issue 19: unprotected (Excel will not sort a protected range holding locked cells), with filters on the header row.
     expect((ws as unknown as { sheetProtection?: { sheet?: boolean } }).sheetProtection?.sheet ?? false).toBe(false); // not in the typings
     expect(ws.autoFilter).toBeTruthy();
-    for (const hidden of ["Item id", "Version", "Exported values"]) expect(ws.getColumn(cols[hidden]).hidden).toBe(true);
+    for (const hidden of ["Item id", "Version", "Exported values"])
+      expect(ws.getColumn(cols[hidden]).hidden).toBe(true);
     const fill = new Set(["Audited value", "Status", "Cause", "Cause detail", "Comment"]);
     const row = ws.getRow(2);
-    for (const [header, col] of Object.entries(cols)) expect(row.getCell(col).protection?.locked === false).toBe(fill.has(header));
-    expect(row.getCell(cols.Status).dataValidation).toMatchObject({ type: "list", formulae: ['"Not started,Done,Could not be audited"'] });
+    for (const [header, col] of Object.entries(cols))
+      expect(row.getCell(col).protection?.locked === false).toBe(fill.has(header));
+    expect(row.getCell(cols.Status).dataValidation).toMatchObject({
+      type: "list",
+      formulae: ['"Not started,Done,Could not be audited"'],
+    });
     expect(row.getCell(cols.Cause).dataValidation?.type).toBe("list");
 
     // No cell anywhere runs a formula except the misstatement column (OWASP "CSV Injection").
     for (const sheet of wb.worksheets) {
-      sheet.eachRow((r) => r.eachCell((cell, col) => {
-        if (cell.type === ExcelJS.ValueType.Formula) expect([sheet.name, col]).toEqual(["Items", cols["Misstatement (book − audited)"]]);
-      }));
+      sheet.eachRow((r) =>
+        r.eachCell((cell, col) => {
+          if (cell.type === ExcelJS.ValueType.Formula)
+            expect([sheet.name, col]).toEqual(["Items", cols["Misstatement (book − audited)"]]);
+        }),
+      );
     }
     expect(row.getCell(cols["Misstatement (book − audited)"]).formula).toMatch(/D2-F2/);
     // Issue 15: how each item came into the sample; a random draw without key items holds only "Sample" rows.
     for (let r = 2; r <= ws.rowCount; r++) expect(ws.getRow(r).getCell(cols["Selected as"]).value).toBe("Sample");
     // Formula-looking descriptions are text with the apostrophe prefix.
-    expect(rowOf(ws, "INV-01").getCell(cols.Description).value).toBe("'=HYPERLINK(\"http://x.example\",\"click\")");
+    expect(rowOf(ws, "INV-01").getCell(cols.Description).value).toBe('\'=HYPERLINK("http://x.example","click")');
     expect(rowOf(ws, "INV-02").getCell(cols.Description).value).toBe("'+SUM(A1:A9)");
     expect(rowOf(ws, "INV-03").getCell(cols.Description).value).toBe("'-2+3");
     expect(rowOf(ws, "INV-04").getCell(cols.Description).value).toBe("'@cmd");
@@ -132,7 +178,10 @@ describe("the fieldwork workbook export", () => {
     expect((await callRaw(workbook.GET, "GET", { as: viewer, params: params(sampleId) })).status).toBe(200);
     expect((await callRaw(workbook.GET, "GET", { as: outsider, params: params(sampleId) })).status).toBe(404);
     const sample = (await getDb()("samples").where({ id: sampleId }).first())!;
-    const planned = await planSample(senior, engagement, { populationId: sample.population_id, params: { method: "random", estimator: "difference", tolerableMisstatement: "5000" } });
+    const planned = await planSample(senior, engagement, {
+      populationId: sample.population_id,
+      params: { method: "random", estimator: "difference", tolerableMisstatement: "5000" },
+    });
     const undrawn = await call(workbook.GET, "GET", { as: staff, params: params(planned.json.sample.id) });
     expect(undrawn.status).toBe(409);
     expect(undrawn.json.error.message).toMatch(/not been drawn/);
@@ -140,7 +189,7 @@ describe("the fieldwork workbook export", () => {
 });
 
 describe("the fieldwork workbook import", () => {
-  it("still reads a workbook exported before the read-only \"Selected as\" column existed", async () => {
+  it('still reads a workbook exported before the read-only "Selected as" column existed', async () => {
     const sampleId = await drawnSample("random");
     const wb = await exportWorkbook(sampleId);
     const ws = wb.getWorksheet("Items")!;
@@ -167,11 +216,18 @@ describe("the fieldwork workbook import", () => {
       for (const [h, v] of Object.entries(values)) r.getCell(cols[h]).value = v;
     };
     fillRow("INV-01", { "Audited value": 1250, Status: "Done" });
-    fillRow("INV-05", { "Audited value": 12000, Status: "Done", Cause: "Pricing or rate", Comment: "=1+2 seen on the invoice" });
+    fillRow("INV-05", {
+      "Audited value": 12000,
+      Status: "Done",
+      Cause: "Pricing or rate",
+      Comment: "=1+2 seen on the invoice",
+    });
     fillRow("INV-06", { "Audited value": "155.00" }); // status left "Not started" → refused below, then fixed
     let res = await importWorkbook(sampleId, wb);
     expect(res.status).toBe(422);
-    expect(res.json.error.problems).toEqual([expect.objectContaining({ row: rowOf(ws, "INV-06").number, column: "Status" })]);
+    expect(res.json.error.problems).toEqual([
+      expect.objectContaining({ row: rowOf(ws, "INV-06").number, column: "Status" }),
+    ]);
     expect((await itemsState(sampleId)).every((i) => i.status === "not-started" && i.version === 1)).toBe(true);
 
     fillRow("INV-06", { Status: "Done" });
@@ -184,13 +240,34 @@ describe("the fieldwork workbook import", () => {
     expect(await auditCount({ entity: "sample", entity_id: String(sampleId), action: "import-workbook" })).toBe(1);
 
     const items = await listSampleItems(staff, engagement, sampleId);
-    const byRef = Object.fromEntries(items.map((i) => [i.itemRef, i])) as Record<string, (typeof items)[number] & { auditedValue: string | null; misstatement: string | null; comment: string | null; cause: string | null }>;
-    expect(byRef["INV-05"]).toMatchObject({ status: "done", auditedValue: "12000.00", misstatement: "500.00", cause: "pricing", version: 2, comment: "=1+2 seen on the invoice" });
+    const byRef = Object.fromEntries(items.map((i) => [i.itemRef, i])) as Record<
+      string,
+      (typeof items)[number] & {
+        auditedValue: string | null;
+        misstatement: string | null;
+        comment: string | null;
+        cause: string | null;
+      }
+    >;
+    expect(byRef["INV-05"]).toMatchObject({
+      status: "done",
+      auditedValue: "12000.00",
+      misstatement: "500.00",
+      cause: "pricing",
+      version: 2,
+      comment: "=1+2 seen on the invoice",
+    });
     expect(byRef["INV-07"]).toMatchObject({ status: "not-auditable", misstatement: "2300.10", version: 2 });
     expect(byRef["INV-02"]).toMatchObject({ status: "not-started", version: 1 });
 
     const after = await getEvaluation(staff, engagement, sampleId);
-    expect(after.progress).toMatchObject({ done: 3, notAuditable: 1, notStarted: 4, misstatements: 2, misstatementTotal: "2800.10" });
+    expect(after.progress).toMatchObject({
+      done: 3,
+      notAuditable: 1,
+      notStarted: 4,
+      misstatements: 2,
+      misstatementTotal: "2800.10",
+    });
 
     // The same workbook imported again changes nothing: every row still matches what it exported or what is saved.
     res = await importWorkbook(sampleId, wb);
@@ -203,9 +280,15 @@ describe("the fieldwork workbook import", () => {
     const ws = wb.getWorksheet("Items")!;
     const cols = columnsOf(ws);
     const width = Object.keys(cols).length;
-    const data = Array.from({ length: ws.rowCount - 1 }, (_, i) => Array.from({ length: width }, (_c, c) => ws.getRow(i + 2).getCell(c + 1).value));
+    const data = Array.from({ length: ws.rowCount - 1 }, (_, i) =>
+      Array.from({ length: width }, (_c, c) => ws.getRow(i + 2).getCell(c + 1).value),
+    );
     const refsBefore = data.map((values) => values[cols["Item reference"] - 1]);
-    data.reverse().forEach((values, i) => values.forEach((v, c) => { ws.getRow(i + 2).getCell(c + 1).value = v; }));
+    data.reverse().forEach((values, i) =>
+      values.forEach((v, c) => {
+        ws.getRow(i + 2).getCell(c + 1).value = v;
+      }),
+    );
     const refsAfter = data.map((_v, i) => ws.getRow(i + 2).getCell(cols["Item reference"]).value);
     expect(refsAfter).toEqual(refsBefore.slice().reverse());
     rowOf(ws, "INV-02").getCell(cols["Audited value"]).value = 800;
@@ -231,7 +314,7 @@ describe("the fieldwork workbook import", () => {
     text.getCell(cols.Status).value = "Done";
     const formula = rowOf(ws, "INV-04");
     formula.getCell(cols["Audited value"]).value = { formula: "D5*0.9" };
-    formula.getCell(cols.Comment).value = "=HYPERLINK(\"http://evil.example\")"; // text that looks like a formula: kept as text, no problem
+    formula.getCell(cols.Comment).value = '=HYPERLINK("http://evil.example")'; // text that looks like a formula: kept as text, no problem
     const status = rowOf(ws, "INV-05");
     status.getCell(cols.Status).value = "Finished";
     const before = await itemsState(sampleId);
@@ -240,12 +323,34 @@ describe("the fieldwork workbook import", () => {
     expect(res.json.error.message).toMatch(/Nothing was changed/);
     const problems = res.json.error.problems as { row: number; column: string; cell: string; reason: string }[];
     const letter = (h: string) => ws.getColumn(cols[h]).letter;
-    expect([...problems].sort((a, b) => a.row - b.row)).toEqual([
-      { row: wrong.number, column: "Item reference", cell: `${letter("Item reference")}${wrong.number}`, reason: expect.stringMatching(/Unknown reference.*INV-99/) },
-      { row: text.number, column: "Audited value", cell: `${letter("Audited value")}${text.number}`, reason: expect.stringMatching(/Text in an amount cell: "about three thousand"/) },
-      { row: formula.number, column: "Audited value", cell: `${letter("Audited value")}${formula.number}`, reason: expect.stringMatching(/formula/) },
-      { row: status.number, column: "Status", cell: `${letter("Status")}${status.number}`, reason: expect.stringMatching(/"Finished" is not in the list/) },
-    ].sort((a, b) => a.row - b.row));
+    expect([...problems].sort((a, b) => a.row - b.row)).toEqual(
+      [
+        {
+          row: wrong.number,
+          column: "Item reference",
+          cell: `${letter("Item reference")}${wrong.number}`,
+          reason: expect.stringMatching(/Unknown reference.*INV-99/),
+        },
+        {
+          row: text.number,
+          column: "Audited value",
+          cell: `${letter("Audited value")}${text.number}`,
+          reason: expect.stringMatching(/Text in an amount cell: "about three thousand"/),
+        },
+        {
+          row: formula.number,
+          column: "Audited value",
+          cell: `${letter("Audited value")}${formula.number}`,
+          reason: expect.stringMatching(/formula/),
+        },
+        {
+          row: status.number,
+          column: "Status",
+          cell: `${letter("Status")}${status.number}`,
+          reason: expect.stringMatching(/"Finished" is not in the list/),
+        },
+      ].sort((a, b) => a.row - b.row),
+    );
     expect(await itemsState(sampleId)).toEqual(before);
   });
 
@@ -254,8 +359,24 @@ describe("the fieldwork workbook import", () => {
     const wb = await exportWorkbook(sampleId);
     const items = await listSampleItems(staff, engagement, sampleId);
     const [first, second] = [items.find((i) => i.itemRef === "INV-01")!, items.find((i) => i.itemRef === "INV-02")!];
-    expect((await saveResult(senior, engagement, sampleId, first.id, { version: first.version, status: "done", auditedValue: "1250.00" })).status).toBe(200);
-    expect((await saveResult(senior, engagement, sampleId, second.id, { version: second.version, status: "done", auditedValue: "480.50" })).status).toBe(200);
+    expect(
+      (
+        await saveResult(senior, engagement, sampleId, first.id, {
+          version: first.version,
+          status: "done",
+          auditedValue: "1250.00",
+        })
+      ).status,
+    ).toBe(200);
+    expect(
+      (
+        await saveResult(senior, engagement, sampleId, second.id, {
+          version: second.version,
+          status: "done",
+          auditedValue: "480.50",
+        })
+      ).status,
+    ).toBe(200);
     const ws = wb.getWorksheet("Items")!;
     const cols = columnsOf(ws);
     const stale = rowOf(ws, "INV-01");
@@ -266,10 +387,19 @@ describe("the fieldwork workbook import", () => {
     const res = await importWorkbook(sampleId, wb);
     expect(res.status).toBe(422);
     const seniorName = (await getDb()("users").where({ id: senior }).first())!.name;
-    expect(res.json.error.problems).toEqual([{ row: stale.number, column: "Item reference", cell: expect.any(String), reason: expect.stringContaining(`Version conflict: ${seniorName} changed this item`) }]);
+    expect(res.json.error.problems).toEqual([
+      {
+        row: stale.number,
+        column: "Item reference",
+        cell: expect.any(String),
+        reason: expect.stringContaining(`Version conflict: ${seniorName} changed this item`),
+      },
+    ]);
     const saved = (await getDb()("sample_items").where({ id: first.id }).first())!;
     expect([saved.audited_value, saved.version]).toEqual(["1250.00", 2]);
-    expect((await getDb()("sample_items").where({ sample_id: sampleId, item_ref: "INV-03" }).first())!.status).toBe("not-started");
+    expect((await getDb()("sample_items").where({ sample_id: sampleId, item_ref: "INV-03" }).first())!.status).toBe(
+      "not-started",
+    );
   });
 
   it("checks the file by content and size, and needs staff", async () => {
@@ -277,14 +407,25 @@ describe("the fieldwork workbook import", () => {
     const wb = await exportWorkbook(sampleId);
     expect((await importWorkbook(sampleId, wb, viewer)).status).toBe(403);
     expect((await importWorkbook(sampleId, wb, outsider)).status).toBe(404);
-    await getDb()("samples").where({ id: sampleId }).update({ locked_at: getDb().fn.now(3) }); // the lock itself is tested with the review routes
+    await getDb()("samples")
+      .where({ id: sampleId })
+      .update({ locked_at: getDb().fn.now(3) }); // the lock itself is tested with the review routes
     const locked = await importWorkbook(sampleId, wb);
     await getDb()("samples").where({ id: sampleId }).update({ locked_at: null });
     expect([locked.status, locked.json.error.code]).toEqual([409, "locked"]);
-    const csv = await call(workbook.POST, "POST", { as: staff, params: params(sampleId), file: new TextEncoder().encode("Item reference,Audited value\nINV-01,5\n"), query: { fileName: "filled.xlsx" } });
+    const csv = await call(workbook.POST, "POST", {
+      as: staff,
+      params: params(sampleId),
+      file: new TextEncoder().encode("Item reference,Audited value\nINV-01,5\n"),
+      query: { fileName: "filled.xlsx" },
+    });
     expect(csv.status).toBe(415);
     expect(csv.json.error.message).toMatch(/not an Excel workbook/);
-    const big = await call(workbook.POST, "POST", { as: staff, params: params(sampleId), file: new Uint8Array(20 * 1024 * 1024 + 1) });
+    const big = await call(workbook.POST, "POST", {
+      as: staff,
+      params: params(sampleId),
+      file: new Uint8Array(20 * 1024 * 1024 + 1),
+    });
     expect(big.status).toBe(413);
     expect(big.json.error.message).toMatch(/20 MB limit/);
   });
@@ -294,7 +435,20 @@ describe("the fieldwork workbook import", () => {
     const wb = await exportWorkbook(sampleId);
     const ws = wb.getWorksheet("Items")!;
     const cols = columnsOf(ws);
-    expect(Object.keys(cols)).toEqual(["Order", "Item reference", "Description", "Book value", "Selected as", "Status", "Deviation (yes/no)", "Nature of deviation", "Comment", "Item id", "Version", "Exported values"]);
+    expect(Object.keys(cols)).toEqual([
+      "Order",
+      "Item reference",
+      "Description",
+      "Book value",
+      "Selected as",
+      "Status",
+      "Deviation (yes/no)",
+      "Nature of deviation",
+      "Comment",
+      "Item id",
+      "Version",
+      "Exported values",
+    ]);
     for (let r = 2; r <= ws.rowCount; r++) {
       ws.getRow(r).getCell(cols["Deviation (yes/no)"]).value = r === 3 ? "Yes" : "No";
       ws.getRow(r).getCell(cols.Status).value = "Done";

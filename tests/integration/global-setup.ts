@@ -25,7 +25,10 @@ export default async function setup() {
   const s3Dir = path.join(import.meta.dirname, `../../.data/s3-${TEST_ENV.DB_NAME}`);
   fs.rmSync(s3Dir, { recursive: true, force: true });
   const s3 = await startS3Fake({ port: Number(new URL(TEST_ENV.S3_ENDPOINT).port), directory: s3Dir });
-  const mail = await startSmtpFake({ smtpPort: Number(TEST_ENV.SMTP_PORT), inboxPort: Number(TEST_ENV.MAIL_INBOX_PORT) });
+  const mail = await startSmtpFake({
+    smtpPort: Number(TEST_ENV.SMTP_PORT),
+    inboxPort: Number(TEST_ENV.MAIL_INBOX_PORT),
+  });
   return async () => {
     await Promise.all([s3.close(), mail.close()]);
   };

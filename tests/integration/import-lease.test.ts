@@ -21,7 +21,10 @@ beforeAll(async () => {
   const firm = await makeFirm();
   senior = await makeUser(firm, "senior");
   const manager = await makeUser(firm, "manager");
-  engagement = await makeEngagement(firm, manager, [[manager, "manager"], [senior, "senior"]]);
+  engagement = await makeEngagement(firm, manager, [
+    [manager, "manager"],
+    [senior, "senior"],
+  ]);
 });
 
 afterAll(async () => {
@@ -29,7 +32,11 @@ afterAll(async () => {
 });
 
 const loadAgain = (uploadId: number) =>
-  callEvents(load.POST, "POST", { as: senior, params: { engagementId: String(engagement), uploadId: String(uploadId) }, body: { name: "Receivables", mapping: RECEIVABLES_MAPPING } });
+  callEvents(load.POST, "POST", {
+    as: senior,
+    params: { engagementId: String(engagement), uploadId: String(uploadId) },
+    body: { name: "Receivables", mapping: RECEIVABLES_MAPPING },
+  });
 
 describe("an upload's bytes live in object storage", () => {
   it("stores the bytes before the inspection answers, keeps no file on this server, and the stored copy hashes as received", async () => {
@@ -58,14 +65,21 @@ describe("a load whose server died", () => {
     expect(JSON.stringify(blocked.json)).toMatch(/already have a ledger loading/);
 
     // The lease runs out (moved back rather than waiting LEASE_SECONDS).
-    await getDb()("population_upload_leases").where({ upload_id: uploadId }).update({ expires_at: getDb().raw("NOW(3) - INTERVAL 1 SECOND") });
-    const view = await call(inspect.GET, "GET", { as: senior, params: { engagementId: String(engagement), uploadId: String(uploadId) } });
-    expect(view.json.upload.failureMessage).toMatch(/server loading dead-server\.csv stopped before the load finished\. Nothing was stored/);
+    await getDb()("population_upload_leases")
+      .where({ upload_id: uploadId })
+      .update({ expires_at: getDb().raw("NOW(3) - INTERVAL 1 SECOND") });
+    const view = await call(inspect.GET, "GET", {
+      as: senior,
+      params: { engagementId: String(engagement), uploadId: String(uploadId) },
+    });
+    expect(view.json.upload.failureMessage).toMatch(
+      /server loading dead-server\.csv stopped before the load finished\. Nothing was stored/,
+    );
     expect((await getDb()("population_uploads").where({ id: uploadId }).first("status"))!.status).toBe("failed");
 
     const again = await loadAgain(uploadId);
     expect(again.last).toMatchObject({ type: "loaded", rowCount: 3 });
-    expect((await getDb()("population_uploads").where({ id: uploadId }).first("status"))).toEqual({ status: "loaded" });
+    expect(await getDb()("population_uploads").where({ id: uploadId }).first("status")).toEqual({ status: "loaded" });
     expect(await getDb()("population_upload_leases").where({ upload_id: uploadId }).first()).toBeUndefined();
   });
 
@@ -76,10 +90,19 @@ describe("a load whose server died", () => {
     await getDb()("population_upload_leases").where({ upload_id: uploadId }).update({ holder: "other-server" });
     const before = await populationState();
     const record = await getUploadById(getDb(), { engagementId: engagement, uploadId });
-    await expect(loadPopulation(getDb(), { upload: record, actorId: senior, holder: "slow-server", input: LoadPopulationSchema.parse({ name: "Taken over", mapping: RECEIVABLES_MAPPING }), onProgress: () => undefined }))
-      .rejects.toThrow(/lost its claim/);
+    await expect(
+      loadPopulation(getDb(), {
+        upload: record,
+        actorId: senior,
+        holder: "slow-server",
+        input: LoadPopulationSchema.parse({ name: "Taken over", mapping: RECEIVABLES_MAPPING }),
+        onProgress: () => undefined,
+      }),
+    ).rejects.toThrow(/lost its claim/);
     expect(await populationState()).toEqual(before);
-    expect((await getDb()("population_uploads").where({ id: uploadId }).first("status"))).toEqual({ status: "loading" });
-    expect((await getDb()("population_upload_leases").where({ upload_id: uploadId }).first("holder"))).toEqual({ holder: "other-server" });
+    expect(await getDb()("population_uploads").where({ id: uploadId }).first("status")).toEqual({ status: "loading" });
+    expect(await getDb()("population_upload_leases").where({ upload_id: uploadId }).first("holder")).toEqual({
+      holder: "other-server",
+    });
   });
 });

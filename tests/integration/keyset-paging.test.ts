@@ -11,8 +11,16 @@ import * as reconcile from "@/app/api/engagements/[engagementId]/populations/[po
 vi.mock("@/lib/auth/session-user", async () => (await import("./support/session")).sessionModule);
 
 // 57 rows with repeated references and repeated amounts, so every sort has ties the row number must break.
-const ROWS = Array.from({ length: 57 }, (_, i) => ({ ref: `R-${String(i % 20).padStart(2, "0")}`, amount: ((i * 37) % 11) * 10 + 0.25, row: i + 2 }));
-const CSV = ["Invoice,Customer,Amount", ...ROWS.map((r) => `${r.ref},Customer ${r.row},${r.amount.toFixed(2)}`), ""].join("\n");
+const ROWS = Array.from({ length: 57 }, (_, i) => ({
+  ref: `R-${String(i % 20).padStart(2, "0")}`,
+  amount: ((i * 37) % 11) * 10 + 0.25,
+  row: i + 2,
+}));
+const CSV = [
+  "Invoice,Customer,Amount",
+  ...ROWS.map((r) => `${r.ref},Customer ${r.row},${r.amount.toFixed(2)}`),
+  "",
+].join("\n");
 
 let senior: number, engagement: number, populationId: number;
 type Item = { rowNumber: number; itemRef: string; bookValue: string };
@@ -22,7 +30,10 @@ beforeAll(async () => {
   const firm = await makeFirm();
   senior = await makeUser(firm, "senior");
   const manager = await makeUser(firm, "manager");
-  engagement = await makeEngagement(firm, manager, [[manager, "manager"], [senior, "senior"]]);
+  engagement = await makeEngagement(firm, manager, [
+    [manager, "manager"],
+    [senior, "senior"],
+  ]);
   const { loaded } = await uploadAndLoad(senior, engagement, "keyset.csv", CSV);
   if (loaded?.last?.type !== "loaded") throw new Error(JSON.stringify(loaded?.last));
   populationId = loaded.last.populationId as number;
@@ -33,7 +44,11 @@ afterAll(async () => {
 });
 
 const popPage = async (query: Record<string, string>) => {
-  const r = await call(populationItems.GET, "GET", { as: senior, params: { engagementId: String(engagement), populationId: String(populationId) }, query });
+  const r = await call(populationItems.GET, "GET", {
+    as: senior,
+    params: { engagementId: String(engagement), populationId: String(populationId) },
+    query,
+  });
   return { status: r.status, body: r.json as Page };
 };
 
@@ -41,7 +56,8 @@ const popPage = async (query: Record<string, string>) => {
 function expectedOrder(sort: "row" | "ref" | "book", dir: "asc" | "desc"): number[] {
   const value = (r: (typeof ROWS)[number]) => (sort === "ref" ? r.ref : sort === "book" ? r.amount : r.row);
   const sorted = [...ROWS].sort((a, b) => {
-    const va = value(a), vb = value(b);
+    const va = value(a),
+      vb = value(b);
     const c = va < vb ? -1 : va > vb ? 1 : a.row - b.row;
     return dir === "asc" ? c : -c;
   });
@@ -108,13 +124,37 @@ describe("population items paged by key", () => {
 
 describe("sample items paged by key", () => {
   it("walks a drawn sample in selection order, forwards and back", async () => {
-    await call(reconcile.POST, "POST", { as: senior, params: { engagementId: String(engagement), populationId: String(populationId) }, body: { controlTotal: ROWS.reduce((s, r) => s + r.amount, 0).toFixed(2), controlCount: 57 } });
-    const planned = await planSample(senior, engagement, { populationId, params: { method: "random", estimator: "difference", tolerableMisstatement: "500", sampleSize: 23, sizeReason: "paging test" } });
+    await call(reconcile.POST, "POST", {
+      as: senior,
+      params: { engagementId: String(engagement), populationId: String(populationId) },
+      body: { controlTotal: ROWS.reduce((s, r) => s + r.amount, 0).toFixed(2), controlCount: 57 },
+    });
+    const planned = await planSample(senior, engagement, {
+      populationId,
+      params: {
+        method: "random",
+        estimator: "difference",
+        tolerableMisstatement: "500",
+        sampleSize: 23,
+        sizeReason: "paging test",
+      },
+    });
     expect(planned.status).toBe(201);
     const sampleId = planned.json.sample.id as number;
     expect((await drawSample(senior, engagement, sampleId, 7)).status).toBe(201);
     const get = async (query: Record<string, string>) =>
-      (await call(sampleItems.GET, "GET", { as: senior, params: { engagementId: String(engagement), sampleId: String(sampleId) }, query })).json as { items: { id: number; selectionOrder: number }[]; total: number; nextCursor: string | null; prevCursor: string | null };
+      (
+        await call(sampleItems.GET, "GET", {
+          as: senior,
+          params: { engagementId: String(engagement), sampleId: String(sampleId) },
+          query,
+        })
+      ).json as {
+        items: { id: number; selectionOrder: number }[];
+        total: number;
+        nextCursor: string | null;
+        prevCursor: string | null;
+      };
     const all = (await get({ pageSize: "500" })).items.map((i) => i.id);
     expect(all).toHaveLength(23);
     const walked: number[] = [];

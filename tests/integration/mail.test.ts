@@ -16,7 +16,11 @@ vi.mock("@/lib/auth/session-user", async () => (await import("./support/session"
 
 // Links are built from NEXTAUTH_URL; a base path checks that it is kept.
 const APP_URL = "https://sondage.test/audit";
-const saved = { NEXTAUTH_URL: process.env.NEXTAUTH_URL, SMTP_PORT: process.env.SMTP_PORT, MAIL_FROM: process.env.MAIL_FROM };
+const saved = {
+  NEXTAUTH_URL: process.env.NEXTAUTH_URL,
+  SMTP_PORT: process.env.SMTP_PORT,
+  MAIL_FROM: process.env.MAIL_FROM,
+};
 
 let firm: number, manager: number, admin: number, engagement: number;
 const emailOf = async (userId: number) => (await getDb()("users").where({ id: userId }).first("email"))!.email;
@@ -32,7 +36,11 @@ async function closedPort(): Promise<number> {
 }
 
 function addMember(engagementId: number, userId: number, role = "staff") {
-  return call(members.POST, "POST", { as: manager, params: { engagementId: String(engagementId) }, body: { userId, role } });
+  return call(members.POST, "POST", {
+    as: manager,
+    params: { engagementId: String(engagementId) },
+    body: { userId, role },
+  });
 }
 
 beforeAll(async () => {
@@ -70,7 +78,9 @@ describe("invitation when a member is added", () => {
     const r = await addMember(engagement, newcomer, "senior");
     expect(r.status).toBe(201);
     // Queued in the addition's transaction; the worker sends it.
-    expect(Number((await getDb()("mail_outbox").where({ to_email: email, status: "pending" }).count({ n: "*" }).first())?.n)).toBe(1);
+    expect(
+      Number((await getDb()("mail_outbox").where({ to_email: email, status: "pending" }).count({ n: "*" }).first())?.n),
+    ).toBe(1);
     expect(await deliverDueMail(getDb())).toMatchObject({ sent: 1, refused: 0 });
 
     const m = await waitForMessage(addressedTo(email));
@@ -97,7 +107,16 @@ describe("invitation when a member is added", () => {
     expect(again.status).toBe(409);
     await deliverDueMail(getDb());
     expect(await readInbox()).toEqual([]);
-    expect(Number((await getDb()("mail_outbox").where({ to_email: await emailOf(existing) }).count({ n: "*" }).first())?.n)).toBe(1); // the first addition's only
+    expect(
+      Number(
+        (
+          await getDb()("mail_outbox")
+            .where({ to_email: await emailOf(existing) })
+            .count({ n: "*" })
+            .first()
+        )?.n,
+      ),
+    ).toBe(1); // the first addition's only
   });
 
   it("still adds the member when the SMTP server is down; the worker logs the failure, backs off, and sends once the relay is back", async () => {
@@ -111,26 +130,44 @@ describe("invitation when a member is added", () => {
 
     expect(r.status).toBe(201);
     expect(r.json.members.map((x: { userId: number }) => x.userId)).toContain(person);
-    expect(await auditCount({ entity: "engagement_member", entity_id: `${engagement}:${person}`, action: "add" })).toBe(1);
+    expect(await auditCount({ entity: "engagement_member", entity_id: `${engagement}:${person}`, action: "add" })).toBe(
+      1,
+    );
     expect(await deliverDueMail(getDb())).toMatchObject({ sent: 0, refused: 1 });
-    expect(errors).toHaveBeenCalledWith(expect.stringMatching(new RegExp(`^mail: engagement-invitation to ${email} not sent \\(attempt 1\\) — .*ECONNREFUSED`)));
+    expect(errors).toHaveBeenCalledWith(
+      expect.stringMatching(
+        new RegExp(`^mail: engagement-invitation to ${email} not sent \\(attempt 1\\) — .*ECONNREFUSED`),
+      ),
+    );
     expect((await readInbox()).filter(addressedTo(email))).toEqual([]);
     const row = (await getDb()("mail_outbox").where({ to_email: email }).first())!;
     expect(row).toMatchObject({ status: "pending", attempts: 1 });
     expect(new Date(row.next_attempt_at).getTime() - new Date(row.created_at).getTime()).toBeGreaterThanOrEqual(29_000); // 30 s backoff
     const seen = await call(outbox.GET, "GET", { as: admin });
-    expect(seen.json.messages).toContainEqual(expect.objectContaining({ toEmail: email, status: "pending", attempts: 1, lastError: expect.stringContaining("ECONNREFUSED") }));
+    expect(seen.json.messages).toContainEqual(
+      expect.objectContaining({
+        toEmail: email,
+        status: "pending",
+        attempts: 1,
+        lastError: expect.stringContaining("ECONNREFUSED"),
+      }),
+    );
 
     // Nothing is due before the backoff; then the relay is back and the time has come.
     expect(await deliverDueMail(getDb())).toMatchObject({ sent: 0, refused: 0 });
     process.env.SMTP_PORT = saved.SMTP_PORT;
     closeMailer();
-    await getDb()("mail_outbox").where({ id: row.id }).update({ next_attempt_at: getDb().fn.now(3) });
+    await getDb()("mail_outbox")
+      .where({ id: row.id })
+      .update({ next_attempt_at: getDb().fn.now(3) });
     expect(await deliverDueMail(getDb())).toMatchObject({ sent: 1 });
     await waitForMessage(addressedTo(email));
     expect(await deliverDueMail(getDb())).toMatchObject({ sent: 0 });
     expect((await readInbox()).filter(addressedTo(email))).toHaveLength(1);
-    expect(await getDb()("mail_outbox").where({ id: row.id }).first("status", "attempts")).toEqual({ status: "sent", attempts: 2 });
+    expect(await getDb()("mail_outbox").where({ id: row.id }).first("status", "attempts")).toEqual({
+      status: "sent",
+      attempts: 2,
+    });
   });
 
   it("still adds the member when the mail settings are wrong, naming the setting in the log", async () => {
@@ -151,14 +188,20 @@ describe("sample notices", () => {
   const reviewer = { name: "Tomás Reyes", email: "tomas.reyes@marrow-quill.test" };
   const partner = { name: "Helena Brandt", email: "helena.brandt@marrow-quill.test" };
   const notice = (over: Partial<SampleNotice> = {}): SampleNotice => ({
-    recipients: [reviewer, partner], actor: preparer,
-    engagement: { id: 12, clientName: "Tessaly Outdoor", name: "Year-end audit 2026" }, sample,
-    at: new Date("2026-12-02T09:05:00Z"), ...over,
+    recipients: [reviewer, partner],
+    actor: preparer,
+    engagement: { id: 12, clientName: "Tessaly Outdoor", name: "Year-end audit 2026" },
+    sample,
+    at: new Date("2026-12-02T09:05:00Z"),
+    ...over,
   });
   const sampleLink = `${APP_URL}/engagements/12/samples/34`;
 
   it("ready for review reaches each reviewer once, not the preparer, linking to the sample", async () => {
-    const results = await notifySampleReadyForReview(getDb(), notice({ recipients: [reviewer, partner, { ...reviewer, email: reviewer.email.toUpperCase() }, preparer] }));
+    const results = await notifySampleReadyForReview(
+      getDb(),
+      notice({ recipients: [reviewer, partner, { ...reviewer, email: reviewer.email.toUpperCase() }, preparer] }),
+    );
     expect(results.map((r) => r.sent)).toEqual([true, true]);
     await deliverDueMail(getDb());
     await waitForMessage(addressedTo(partner.email));
@@ -176,7 +219,10 @@ describe("sample notices", () => {
 
   it("a raised note arrives with the note's text escaped in HTML and quoted in text", async () => {
     const text = `Item 14 <script>alert("x")</script> disagrees.`;
-    await notifyReviewNote(getDb(), "raised", { ...notice({ actor: reviewer, recipients: [preparer] }), note: { text } });
+    await notifyReviewNote(getDb(), "raised", {
+      ...notice({ actor: reviewer, recipients: [preparer] }),
+      note: { text },
+    });
     await deliverDueMail(getDb());
     const m = await waitForMessage(addressedTo(preparer.email));
     expect(m.subject).toBe("Review note on Receivables MUS (Tessaly Outdoor)");
@@ -186,7 +232,11 @@ describe("sample notices", () => {
   });
 
   it("an answered note reaches the reviewer with the answer", async () => {
-    await notifyReviewNote(getDb(), "answered", { ...notice({ recipients: [reviewer] }), note: { text: "Explain item 14." }, answer: { text: "Credit note CN-0042." } });
+    await notifyReviewNote(getDb(), "answered", {
+      ...notice({ recipients: [reviewer] }),
+      note: { text: "Explain item 14." },
+      answer: { text: "Credit note CN-0042." },
+    });
     await deliverDueMail(getDb());
     const m = await waitForMessage(addressedTo(reviewer.email));
     expect(m.subject).toBe("Review note answered: Receivables MUS (Tessaly Outdoor)");
@@ -195,7 +245,10 @@ describe("sample notices", () => {
   });
 
   it("a cleared note reaches the preparer", async () => {
-    await notifyReviewNote(getDb(), "cleared", { ...notice({ actor: reviewer, recipients: [preparer] }), note: { text: "Explain item 14." } });
+    await notifyReviewNote(getDb(), "cleared", {
+      ...notice({ actor: reviewer, recipients: [preparer] }),
+      note: { text: "Explain item 14." },
+    });
     await deliverDueMail(getDb());
     const m = await waitForMessage(addressedTo(preparer.email));
     expect(m.subject).toBe("Review note cleared: Receivables MUS (Tessaly Outdoor)");
@@ -233,14 +286,28 @@ describe("sample notices", () => {
 
 describe("the outbox", () => {
   const person = { name: "Ola Lind", email: "ola.lind@marrow-quill.test" };
-  const queue = (db = getDb()) => sendMail(db, { to: person, template: "sample-locked", data: { recipient: { name: person.name }, actor: { name: "A" }, engagement: { clientName: "C", name: "E" }, sample: { name: "S" }, sampleUrl: `${APP_URL}/x`, at: new Date() } });
+  const queue = (db = getDb()) =>
+    sendMail(db, {
+      to: person,
+      template: "sample-locked",
+      data: {
+        recipient: { name: person.name },
+        actor: { name: "A" },
+        engagement: { clientName: "C", name: "E" },
+        sample: { name: "S" },
+        sampleUrl: `${APP_URL}/x`,
+        at: new Date(),
+      },
+    });
 
   it("writes nothing when the change's transaction rolls back", async () => {
     const before = await getDb()("mail_outbox").count({ n: "*" }).first();
-    await expect(getDb().transaction(async (trx) => {
-      expect((await queue(trx)).sent).toBe(true);
-      throw new Error("the change failed");
-    })).rejects.toThrow("the change failed");
+    await expect(
+      getDb().transaction(async (trx) => {
+        expect((await queue(trx)).sent).toBe(true);
+        throw new Error("the change failed");
+      }),
+    ).rejects.toThrow("the change failed");
     expect(await getDb()("mail_outbox").count({ n: "*" }).first()).toEqual(before);
   });
 
@@ -252,7 +319,9 @@ describe("the outbox", () => {
     const [claimed] = await claimDueMail(getDb(), { holder: "worker-that-crashed", limit: 1 });
     expect(claimed.id).toBe(queued.outboxId);
     // The crashed worker's claim runs out (moved back rather than waiting CLAIM_SECONDS).
-    await getDb()("mail_outbox").where({ id: claimed.id }).update({ claimed_until: getDb().raw("NOW(3) - INTERVAL 1 SECOND") });
+    await getDb()("mail_outbox")
+      .where({ id: claimed.id })
+      .update({ claimed_until: getDb().raw("NOW(3) - INTERVAL 1 SECOND") });
     expect(await deliverDueMail(getDb())).toMatchObject({ sent: 0, abandoned: 1 });
     expect(await deliverDueMail(getDb())).toMatchObject({ sent: 0, abandoned: 0 });
     expect((await readInbox()).filter(addressedTo(person.email))).toEqual([]);
@@ -262,9 +331,19 @@ describe("the outbox", () => {
   it("gives a message up as failed after the last attempt", async () => {
     const queued = await queue();
     if (!queued.sent) throw new Error(queued.reason);
-    await getDb()("mail_outbox").where({ id: queued.outboxId }).update({ status: "sending", claimed_by: "w", attempts: MAX_ATTEMPTS });
-    await markMailRefused(getDb(), { id: queued.outboxId, holder: "w", attempts: MAX_ATTEMPTS, error: "550 mailbox unavailable" });
-    expect(await getDb()("mail_outbox").where({ id: queued.outboxId }).first("status", "last_error")).toEqual({ status: "failed", last_error: "550 mailbox unavailable" });
+    await getDb()("mail_outbox")
+      .where({ id: queued.outboxId })
+      .update({ status: "sending", claimed_by: "w", attempts: MAX_ATTEMPTS });
+    await markMailRefused(getDb(), {
+      id: queued.outboxId,
+      holder: "w",
+      attempts: MAX_ATTEMPTS,
+      error: "550 mailbox unavailable",
+    });
+    expect(await getDb()("mail_outbox").where({ id: queued.outboxId }).first("status", "last_error")).toEqual({
+      status: "failed",
+      last_error: "550 mailbox unavailable",
+    });
   });
 
   it("lets two workers claim at once without sharing a message (SKIP LOCKED)", async () => {
@@ -274,8 +353,12 @@ describe("the outbox", () => {
       const q = await queue();
       if (q.sent) ids.push(q.outboxId);
     }
-    const [a, b] = await Promise.all([claimDueMail(getDb(), { holder: "server-a", limit: 6 }), claimDueMail(getDb(), { holder: "server-b", limit: 6 })]);
-    const claimedA = a.map((m) => m.id), claimedB = b.map((m) => m.id);
+    const [a, b] = await Promise.all([
+      claimDueMail(getDb(), { holder: "server-a", limit: 6 }),
+      claimDueMail(getDb(), { holder: "server-b", limit: 6 }),
+    ]);
+    const claimedA = a.map((m) => m.id),
+      claimedB = b.map((m) => m.id);
     expect(claimedA.filter((id) => claimedB.includes(id))).toEqual([]);
     expect([...claimedA, ...claimedB].sort((x, y) => x - y)).toEqual(ids);
     await getDb()("mail_outbox").whereIn("id", ids).update({ status: "sent" });

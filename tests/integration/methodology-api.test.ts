@@ -16,14 +16,18 @@ beforeAll(async () => {
   admin = await makeUser(firm, "staff", { admin: true });
   manager = await makeUser(firm, "manager");
   senior = await makeUser(firm, "senior");
-  engagement = await makeEngagement(firm, manager, [[manager, "manager"], [senior, "senior"]]);
+  engagement = await makeEngagement(firm, manager, [
+    [manager, "manager"],
+    [senior, "senior"],
+  ]);
 });
 
 afterAll(async () => {
   await getDb().destroy();
 });
 
-const storedVersions = async () => Number((await getDb()("firm_methodology").where({ firm_id: firm }).count({ n: "*" }).first())?.n);
+const storedVersions = async () =>
+  Number((await getDb()("firm_methodology").where({ firm_id: firm }).count({ n: "*" }).first())?.n);
 
 const changed = (): MethodologySettings => ({ ...DEFAULT_METHODOLOGY, classicalDistribution: "t", musLimits: "net" });
 
@@ -47,7 +51,9 @@ describe("firm methodology settings", () => {
 
   it("refuses a bad table naming the cell, and keeps what was stored", async () => {
     const bad = changed();
-    bad.assuranceFactors = bad.assuranceFactors.map((row, i) => row.map((cell, j) => (i === 1 && j === 2 ? { ...cell, factor: -1 } : cell)));
+    bad.assuranceFactors = bad.assuranceFactors.map((row, i) =>
+      row.map((cell, j) => (i === 1 && j === 2 ? { ...cell, factor: -1 } : cell)),
+    );
     const r = await call(methodology.PUT, "PUT", { as: admin, body: bad });
     expect(r.status).toBe(400);
     expect(Object.keys(r.json.error.fields)).toContain("assuranceFactors.1.2.factor");
@@ -56,15 +62,24 @@ describe("firm methodology settings", () => {
 
   it("saves a new audited version and stamps the version in force on each plan; a later change leaves the plan alone", async () => {
     const { populationId } = await loadCanonicalPopulation(senior, engagement);
-    const before = await planSample(senior, engagement, { populationId, params: { method: "mus", confidence: 0.95, tolerableMisstatement: "15000", expectedMisstatement: "0" } });
+    const before = await planSample(senior, engagement, {
+      populationId,
+      params: { method: "mus", confidence: 0.95, tolerableMisstatement: "15000", expectedMisstatement: "0" },
+    });
     expect(before.status).toBe(201);
 
     const saved = await call(methodology.PUT, "PUT", { as: admin, body: changed() });
     expect(saved.status).toBe(200);
-    expect(saved.json.methodology).toMatchObject({ version: 1, settings: { classicalDistribution: "t", musLimits: "net" } });
+    expect(saved.json.methodology).toMatchObject({
+      version: 1,
+      settings: { classicalDistribution: "t", musLimits: "net" },
+    });
     expect(await auditCount({ entity: "firm_methodology", entity_id: String(firm), action: "update" })).toBe(1);
 
-    const after = await planSample(senior, engagement, { populationId, params: { method: "mus", confidence: 0.95, tolerableMisstatement: "15000", expectedMisstatement: "0" } });
+    const after = await planSample(senior, engagement, {
+      populationId,
+      params: { method: "mus", confidence: 0.95, tolerableMisstatement: "15000", expectedMisstatement: "0" },
+    });
     const first = await getSampleById(getDb(), { engagementId: engagement, sampleId: before.json.sample.id as number });
     const second = await getSampleById(getDb(), { engagementId: engagement, sampleId: after.json.sample.id as number });
     expect([first.methodologyVersion, first.methodology.musLimits]).toEqual([0, "gross"]);

@@ -12,7 +12,10 @@ afterAll(async () => {
 
 async function tables(conn: ReturnType<typeof knex>): Promise<string[]> {
   const [rows] = await conn.raw("SHOW TABLES");
-  return (rows as Record<string, string>[]).map((r) => Object.values(r)[0]).filter((t) => !t.startsWith("knex_")).sort();
+  return (rows as Record<string, string>[])
+    .map((r) => Object.values(r)[0])
+    .filter((t) => !t.startsWith("knex_"))
+    .sort();
 }
 
 describe("migrations", () => {
@@ -20,7 +23,36 @@ describe("migrations", () => {
     await recreateDatabase(NAME);
     db = knex(buildKnexConfig({ ...process.env, DB_NAME: NAME }));
     await db.migrate.latest();
-    expect(await tables(db)).toEqual(["advisor_runs", "audit_log", "engagement_members", "engagements", "firm_methodology", "firms", "item_evidence", "mail_outbox", "misstatement_corrections", "misstatement_entries", "misstatement_entry_evidence", "misstatement_notes", "misstatement_sample_snapshots", "misstatement_summaries", "population_items", "population_upload_leases", "population_uploads", "populations", "request_files", "request_items", "request_lists", "review_notes", "sample_draws", "sample_items", "samples", "sign_in_attempts", "user_invitations", "users"]);
+    expect(await tables(db)).toEqual([
+      "advisor_runs",
+      "audit_log",
+      "engagement_members",
+      "engagements",
+      "firm_methodology",
+      "firms",
+      "item_evidence",
+      "mail_outbox",
+      "misstatement_corrections",
+      "misstatement_entries",
+      "misstatement_entry_evidence",
+      "misstatement_notes",
+      "misstatement_sample_snapshots",
+      "misstatement_summaries",
+      "population_items",
+      "population_upload_leases",
+      "population_uploads",
+      "populations",
+      "request_files",
+      "request_items",
+      "request_lists",
+      "review_notes",
+      "sample_draws",
+      "sample_items",
+      "samples",
+      "sign_in_attempts",
+      "user_invitations",
+      "users",
+    ]);
     await db.migrate.rollback(undefined, true);
     expect(await tables(db)).toEqual([]);
     await db.migrate.latest();
@@ -29,7 +61,13 @@ describe("migrations", () => {
     expect(cols[0].Type).toBe("decimal(18,2)");
     // 0011: the auditor's conclusion and response live beside the sample's sign-offs.
     const [conclusionCols] = await db.raw("SHOW COLUMNS FROM samples WHERE Field LIKE 'auditor_%'");
-    expect((conclusionCols as { Field: string }[]).map((c) => c.Field).sort()).toEqual(["auditor_conclusion", "auditor_conclusion_at", "auditor_conclusion_by", "auditor_conclusion_role", "auditor_responses_json"]);
+    expect((conclusionCols as { Field: string }[]).map((c) => c.Field).sort()).toEqual([
+      "auditor_conclusion",
+      "auditor_conclusion_at",
+      "auditor_conclusion_by",
+      "auditor_conclusion_role",
+      "auditor_responses_json",
+    ]);
     const [reason] = await db.raw("SHOW COLUMNS FROM samples WHERE Field = 'advisor_run_reason'"); // 0012
     expect(reason[0].Type).toBe("text");
     // 0016 (issue 19): sessions ended by a password reset; archived populations.
@@ -40,7 +78,9 @@ describe("migrations", () => {
     // 0013: nonstatistical samples, key items, haphazard picks and anomalies
     const [method] = await db.raw("SHOW COLUMNS FROM samples WHERE Field = 'method'");
     expect(method[0].Type).toContain("'nonstatistical'");
-    const [itemCols] = await db.raw("SHOW COLUMNS FROM sample_items WHERE Field IN ('key_item', 'key_reason', 'picked_by', 'picked_at', 'anomaly_justification', 'anomaly_accepted_by')");
+    const [itemCols] = await db.raw(
+      "SHOW COLUMNS FROM sample_items WHERE Field IN ('key_item', 'key_reason', 'picked_by', 'picked_at', 'anomaly_justification', 'anomaly_accepted_by')",
+    );
     expect(itemCols).toHaveLength(6);
   });
 });

@@ -4,7 +4,14 @@ import normalQuantile from "@stdlib/stats-base-dists-normal-quantile";
 import { getDb } from "@/db/knex";
 import { call } from "./support/call";
 import { makeEngagement, makeFirm, makeUser } from "./support/factory";
-import { CANONICAL_CSV, drawSample, listSampleItems, loadCanonicalPopulation, planSample, saveResult } from "./support/samples";
+import {
+  CANONICAL_CSV,
+  drawSample,
+  listSampleItems,
+  loadCanonicalPopulation,
+  planSample,
+  saveResult,
+} from "./support/samples";
 import * as methodology from "@/app/api/firm/methodology/route";
 import * as preview from "@/app/api/engagements/[engagementId]/samples/plan-preview/route";
 import { DEFAULT_METHODOLOGY, type MethodologySettings } from "@/lib/validation/methodology";
@@ -13,7 +20,10 @@ vi.mock("@/lib/auth/session-user", async () => (await import("./support/session"
 
 let admin: number, senior: number, staff: number, engagement: number, populationId: number;
 const BV = 37959.96; // the canonical population's positive items (zero and negative excluded from the MUS frame)
-const book = CANONICAL_CSV.trim().split("\n").slice(1).map((l) => Number(l.split(",")[1]));
+const book = CANONICAL_CSV.trim()
+  .split("\n")
+  .slice(1)
+  .map((l) => Number(l.split(",")[1]));
 const N = book.length;
 
 beforeAll(async () => {
@@ -21,7 +31,11 @@ beforeAll(async () => {
   admin = await makeUser(firm, "staff", { admin: true });
   [senior, staff] = await Promise.all([makeUser(firm, "senior"), makeUser(firm, "staff")]);
   const manager = await makeUser(firm, "manager");
-  engagement = await makeEngagement(firm, manager, [[manager, "manager"], [senior, "senior"], [staff, "staff"]]);
+  engagement = await makeEngagement(firm, manager, [
+    [manager, "manager"],
+    [senior, "senior"],
+    [staff, "staff"],
+  ]);
   populationId = (await loadCanonicalPopulation(senior, engagement)).populationId;
 });
 
@@ -30,14 +44,26 @@ afterAll(async () => {
 });
 
 const setMethodology = async (settings: Partial<MethodologySettings>) =>
-  expect((await call(methodology.PUT, "PUT", { as: admin, body: { ...DEFAULT_METHODOLOGY, ...settings } })).status).toBe(200);
+  expect(
+    (await call(methodology.PUT, "PUT", { as: admin, body: { ...DEFAULT_METHODOLOGY, ...settings } })).status,
+  ).toBe(200);
 const previewPlan = (params: Record<string, unknown>) =>
-  call(preview.POST, "POST", { as: staff, params: { engagementId: String(engagement) }, body: { populationId, params: { confidence: 0.95, ...params } } });
-const sd = (v: number[]) => { const m = v.reduce((a, b) => a + b, 0) / v.length; return Math.sqrt(v.reduce((a, b) => a + (b - m) ** 2, 0) / (v.length - 1)); };
+  call(preview.POST, "POST", {
+    as: staff,
+    params: { engagementId: String(engagement) },
+    body: { populationId, params: { confidence: 0.95, ...params } },
+  });
+const sd = (v: number[]) => {
+  const m = v.reduce((a, b) => a + b, 0) / v.length;
+  return Math.sqrt(v.reduce((a, b) => a + (b - m) ** 2, 0) / (v.length - 1));
+};
 
 describe("monetary-unit sizes follow the firm's methodology", () => {
   it("sizes with the confidence factor by default: n = ⌈R·BV/TM⌉, R the gamma root, and says so", async () => {
-    const r = await planSample(senior, engagement, { populationId, params: { method: "mus", confidence: 0.95, tolerableMisstatement: "15000", expectedMisstatement: "3000" } });
+    const r = await planSample(senior, engagement, {
+      populationId,
+      params: { method: "mus", confidence: 0.95, tolerableMisstatement: "15000", expectedMisstatement: "3000" },
+    });
     expect(r.status).toBe(201);
     const plan = r.json.sample.plan;
     // scipy 1.17.1 brentq root of R = gamma.ppf(0.95, 1 + 0.2R) = 4.620162; ⌈4.620162 × 37,959.96 / 15,000⌉ = ⌈11.69⌉ = 12.
@@ -56,11 +82,24 @@ describe("monetary-unit sizes follow the firm's methodology", () => {
 
   it("uses the older expansion-factor method and table factors when the firm's methodology says so, and stamps them", async () => {
     await setMethodology({ musSizeMethod: "expansion-factor", factorMode: "table" });
-    const r = await planSample(senior, engagement, { populationId, params: { method: "mus", confidence: 0.95, tolerableMisstatement: "15000", expectedMisstatement: "5000", factorMode: "exact" } });
+    const r = await planSample(senior, engagement, {
+      populationId,
+      params: {
+        method: "mus",
+        confidence: 0.95,
+        tolerableMisstatement: "15000",
+        expectedMisstatement: "5000",
+        factorMode: "exact",
+      },
+    });
     expect(r.status).toBe(201);
     const { plan, params, methodology: stamped } = r.json.sample;
     // AICPA Guide (older presentation): ⌈37,959.96 × 3.00 / (15,000 − 5,000 × 1.6)⌉ = ⌈16.27⌉ = 17 (RF 3.00 in table mode, EF 1.6 from memory).
-    expect(plan).toMatchObject({ sizeMethod: "expansion-factor", factorMode: "table", computedSize: Math.ceil((BV * 3) / (15000 - 8000)) });
+    expect(plan).toMatchObject({
+      sizeMethod: "expansion-factor",
+      factorMode: "table",
+      computedSize: Math.ceil((BV * 3) / (15000 - 8000)),
+    });
     expect(plan.inputs).toMatchObject({ RF: 3, EF: 1.6 });
     expect(plan.notes.join(" ")).toMatch(/older presentation/);
     expect(params).not.toHaveProperty("factorMode"); // no per-plan choice: the stamped mode governs R and the evaluation factors
@@ -79,10 +118,17 @@ describe("attribute plans: hypergeometric below the firm's threshold, and by con
   });
 
   it("sizes a manual control from the firm's frequency table and prints the row used", async () => {
-    const r = await previewPlan({ method: "attribute", attributeMode: "control-frequency", controlFrequency: "weekly" });
+    const r = await previewPlan({
+      method: "attribute",
+      attributeMode: "control-frequency",
+      controlFrequency: "weekly",
+    });
     expect(r.status).toBe(200);
     // Shipped default (common practice, from memory): weekly → 5.
-    expect(r.json.plan).toMatchObject({ computedSize: 5, controlFrequencyRow: { frequency: "weekly", minimumSampleSize: 5 } });
+    expect(r.json.plan).toMatchObject({
+      computedSize: 5,
+      controlFrequencyRow: { frequency: "weekly", minimumSampleSize: 5 },
+    });
     expect(r.json.plan.notes[0]).toMatch(/Row used: Weekly → 5 items/);
   });
 
@@ -102,30 +148,61 @@ describe("planning spread per estimator", () => {
   });
 
   it("refuses an entered figure without a reason, naming spreadReason", async () => {
-    const r = await previewPlan({ method: "random", estimator: "difference", tolerableMisstatement: "30000", spreadBasis: "entered", expectedStdDev: "150" });
+    const r = await previewPlan({
+      method: "random",
+      estimator: "difference",
+      tolerableMisstatement: "30000",
+      spreadBasis: "entered",
+      expectedStdDev: "150",
+    });
     expect(r.status).toBe(400);
     expect(r.json.error.fields).toHaveProperty(["params.spreadReason"]);
   });
 
   it("sizes with an entered figure and prints it with its reason", async () => {
-    const r = await previewPlan({ method: "random", estimator: "ratio", tolerableMisstatement: "3000", spreadBasis: "entered", expectedStdDev: "150", spreadReason: "Prior-year residuals" });
-    const za = normalQuantile(0.95, 0, 1), zb = normalQuantile(0.95, 0, 1);
+    const r = await previewPlan({
+      method: "random",
+      estimator: "ratio",
+      tolerableMisstatement: "3000",
+      spreadBasis: "entered",
+      expectedStdDev: "150",
+      spreadReason: "Prior-year residuals",
+    });
+    const za = normalQuantile(0.95, 0, 1),
+      zb = normalQuantile(0.95, 0, 1);
     const n1 = ((N * za * 150) / ((3000 * za) / (za + zb))) ** 2; // AICPA classical variables with S = 150
     expect(r.json.plan.computedSize).toBe(Math.min(N, Math.ceil(n1 / (1 + n1 / N) - 1e-9)));
     expect(r.json.plan.inputs["spread basis"]).toMatch(/S = 150.00, entered by the planner: Prior-year residuals/);
   });
 
   it("takes s_d from an earlier sample's results of the same engagement", async () => {
-    const planned = await planSample(senior, engagement, { populationId, params: { method: "random", estimator: "mean-per-unit", tolerableMisstatement: "30000", confidence: 0.95 } });
+    const planned = await planSample(senior, engagement, {
+      populationId,
+      params: { method: "random", estimator: "mean-per-unit", tolerableMisstatement: "30000", confidence: 0.95 },
+    });
     const priorId = planned.json.sample.id as number;
     expect((await drawSample(senior, engagement, priorId, 5489)).status).toBe(201);
     const differences: number[] = [];
     for (const [k, it] of (await listSampleItems(staff, engagement, priorId)).entries()) {
       const audited = Number(it.bookValue) - (k % 2 === 0 ? 25 : 0); // invented results: every other item overstated by 25
       differences.push(audited - Number(it.bookValue));
-      expect((await saveResult(staff, engagement, priorId, it.id, { version: it.version, status: "done", auditedValue: audited.toFixed(2) })).status).toBe(200);
+      expect(
+        (
+          await saveResult(staff, engagement, priorId, it.id, {
+            version: it.version,
+            status: "done",
+            auditedValue: audited.toFixed(2),
+          })
+        ).status,
+      ).toBe(200);
     }
-    const r = await previewPlan({ method: "random", estimator: "difference", tolerableMisstatement: "300", spreadBasis: "prior-sample", spreadSampleId: priorId });
+    const r = await previewPlan({
+      method: "random",
+      estimator: "difference",
+      tolerableMisstatement: "300",
+      spreadBasis: "prior-sample",
+      spreadSampleId: priorId,
+    });
     expect(r.status).toBe(200);
     // s_d by hand: sample standard deviation (n − 1) of the recorded differences (Cochran 1977 §7.2, b = 1).
     expect(r.json.plan.spread.symbol).toBe("s_d");
@@ -135,8 +212,17 @@ describe("planning spread per estimator", () => {
   });
 
   it("refuses an earlier sample that has no results, naming spreadSampleId", async () => {
-    const planned = await planSample(senior, engagement, { populationId, params: { method: "random", estimator: "mean-per-unit", tolerableMisstatement: "30000" } });
-    const r = await previewPlan({ method: "random", estimator: "difference", tolerableMisstatement: "300", spreadBasis: "prior-sample", spreadSampleId: planned.json.sample.id });
+    const planned = await planSample(senior, engagement, {
+      populationId,
+      params: { method: "random", estimator: "mean-per-unit", tolerableMisstatement: "30000" },
+    });
+    const r = await previewPlan({
+      method: "random",
+      estimator: "difference",
+      tolerableMisstatement: "300",
+      spreadBasis: "prior-sample",
+      spreadSampleId: planned.json.sample.id,
+    });
     expect(r.status).toBe(400);
     expect(r.json.error.fields).toHaveProperty("spreadSampleId");
   });
@@ -147,7 +233,9 @@ describe("zero and negative book values at planning", () => {
     // 2 of 20 items (INV003 at zero, INV008 at −420) = 10 % ≥ 5 % (common practice threshold).
     const r = await previewPlan({ method: "random", estimator: "ratio", tolerableMisstatement: "30000" });
     expect(r.status).toBe(200);
-    expect(r.json.plan.warnings.join(" ")).toMatch(/2 of 20 items are zero or negative .* test(ing)? credit balances as their own population/);
+    expect(r.json.plan.warnings.join(" ")).toMatch(
+      /2 of 20 items are zero or negative .* test(ing)? credit balances as their own population/,
+    );
     expect(book.filter((v) => v <= 0)).toHaveLength(2);
   });
 });

@@ -16,7 +16,11 @@ beforeAll(async () => {
   const firm = await makeFirm();
   const manager = await makeUser(firm, "manager");
   [senior, staff] = await Promise.all([makeUser(firm, "senior"), makeUser(firm, "staff")]);
-  engagement = await makeEngagement(firm, manager, [[manager, "manager"], [senior, "senior"], [staff, "staff"]]);
+  engagement = await makeEngagement(firm, manager, [
+    [manager, "manager"],
+    [senior, "senior"],
+    [staff, "staff"],
+  ]);
 });
 
 afterAll(async () => {
@@ -30,25 +34,45 @@ describe("deleting and archiving a population", () => {
     const r = await call(one.DELETE, "DELETE", { as: senior, params: p(populationId) });
     expect(r.status).toBe(204);
     expect(await getDb()("populations").where({ id: populationId }).first()).toBeUndefined();
-    expect(Number((await getDb()("population_items").where({ population_id: populationId }).count({ n: "*" }).first())?.n)).toBe(0);
+    expect(
+      Number((await getDb()("population_items").where({ population_id: populationId }).count({ n: "*" }).first())?.n),
+    ).toBe(0);
     expect(await auditCount({ entity: "population", entity_id: String(populationId), action: "delete" })).toBe(1);
     expect((await call(one.GET, "GET", { as: senior, params: p(populationId) })).status).toBe(404);
   });
 
   it("refuses to delete a population a sample uses, naming the sample, and archives it instead", async () => {
     const { populationId } = await loadCanonicalPopulation(senior, engagement);
-    expect((await planSample(senior, engagement, { populationId, name: "Uses the population", params: { method: "mus", tolerableMisstatement: "15000", factorMode: "table" } })).status).toBe(201);
+    expect(
+      (
+        await planSample(senior, engagement, {
+          populationId,
+          name: "Uses the population",
+          params: { method: "mus", tolerableMisstatement: "15000", factorMode: "table" },
+        })
+      ).status,
+    ).toBe(201);
     const refused = await call(one.DELETE, "DELETE", { as: senior, params: p(populationId) });
     expect(refused.status).toBe(409);
     expect(refused.json.error.message).toContain("archive it instead");
     expect(await getDb()("populations").where({ id: populationId }).first()).toBeDefined();
 
-    const archived = await call(archive.POST, "POST", { as: senior, params: p(populationId), body: { archived: true } });
+    const archived = await call(archive.POST, "POST", {
+      as: senior,
+      params: p(populationId),
+      body: { archived: true },
+    });
     expect(archived.status).toBe(200);
     expect(archived.json.population.archivedAt).toMatch(/^\d{4}-\d{2}-\d{2}T/);
     expect(await auditCount({ entity: "population", entity_id: String(populationId), action: "archive" })).toBe(1);
-    const restored = await call(archive.POST, "POST", { as: senior, params: p(populationId), body: { archived: false } });
+    const restored = await call(archive.POST, "POST", {
+      as: senior,
+      params: p(populationId),
+      body: { archived: false },
+    });
     expect(restored.json.population.archivedAt).toBeNull();
-    expect((await call(archive.POST, "POST", { as: senior, params: p(populationId), body: { archived: "yes" } })).status).toBe(400);
+    expect(
+      (await call(archive.POST, "POST", { as: senior, params: p(populationId), body: { archived: "yes" } })).status,
+    ).toBe(400);
   });
 });

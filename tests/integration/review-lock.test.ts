@@ -9,7 +9,14 @@ import { runMailWorkerDuringTests } from "./support/mail-worker";
 import { call, callRaw } from "./support/call";
 import { makeEngagement, makeFirm, makeUser } from "./support/factory";
 import { addressedTo, waitForMessage } from "./support/inbox";
-import { drawSample, listSampleItems, loadCanonicalPopulation, planSample, saveResult, concludeSample } from "./support/samples";
+import {
+  drawSample,
+  listSampleItems,
+  loadCanonicalPopulation,
+  planSample,
+  saveResult,
+  concludeSample,
+} from "./support/samples";
 import * as one from "@/app/api/engagements/[engagementId]/samples/[sampleId]/route";
 import * as draw from "@/app/api/engagements/[engagementId]/samples/[sampleId]/draw/route";
 import * as reperform from "@/app/api/engagements/[engagementId]/samples/[sampleId]/reperform/route";
@@ -27,17 +34,44 @@ import * as audit from "@/app/api/engagements/[engagementId]/samples/[sampleId]/
 
 vi.mock("@/lib/auth/session-user", async () => (await import("./support/session")).sessionModule);
 
-let staff: number, senior: number, manager: number, partner: number, engagement: number, populationId: number, sampleId: number;
+let staff: number,
+  senior: number,
+  manager: number,
+  partner: number,
+  engagement: number,
+  populationId: number,
+  sampleId: number;
 let managerEmail: string, staffEmail: string;
-const p = (extra: Record<string, string> = {}) => ({ engagementId: String(engagement), sampleId: String(sampleId), ...extra });
+const p = (extra: Record<string, string> = {}) => ({
+  engagementId: String(engagement),
+  sampleId: String(sampleId),
+  ...extra,
+});
 
 beforeAll(async () => {
   const firm = await makeFirm();
-  [staff, senior, manager, partner] = await Promise.all([makeUser(firm, "staff"), makeUser(firm, "senior"), makeUser(firm, "manager"), makeUser(firm, "partner")]);
-  engagement = await makeEngagement(firm, manager, [[manager, "manager"], [partner, "partner"], [senior, "senior"], [staff, "staff"]]);
-  [managerEmail, staffEmail] = await Promise.all([manager, staff].map(async (id) => (await getDb()("users").where({ id }).first("email"))!.email));
+  [staff, senior, manager, partner] = await Promise.all([
+    makeUser(firm, "staff"),
+    makeUser(firm, "senior"),
+    makeUser(firm, "manager"),
+    makeUser(firm, "partner"),
+  ]);
+  engagement = await makeEngagement(firm, manager, [
+    [manager, "manager"],
+    [partner, "partner"],
+    [senior, "senior"],
+    [staff, "staff"],
+  ]);
+  [managerEmail, staffEmail] = await Promise.all(
+    [manager, staff].map(async (id) => (await getDb()("users").where({ id }).first("email"))!.email),
+  );
   populationId = (await loadCanonicalPopulation(senior, engagement)).populationId;
-  sampleId = (await planSample(senior, engagement, { populationId, params: { method: "mus", tolerableMisstatement: "15000", factorMode: "table" } })).json.sample.id;
+  sampleId = (
+    await planSample(senior, engagement, {
+      populationId,
+      params: { method: "mus", tolerableMisstatement: "15000", factorMode: "table" },
+    })
+  ).json.sample.id;
   await drawSample(senior, engagement, sampleId, 1206281);
 });
 
@@ -51,7 +85,12 @@ runMailWorkerDuringTests();
 async function recordEverything() {
   for (const it of await listSampleItems(staff, engagement, sampleId)) {
     if (it.status !== "not-started") continue;
-    await saveResult(staff, engagement, sampleId, it.id, { version: it.version, status: "done", auditedValue: it.itemRef === "INV011" ? "3690.00" : it.bookValue, cause: it.itemRef === "INV011" ? "cut-off" : null });
+    await saveResult(staff, engagement, sampleId, it.id, {
+      version: it.version,
+      status: "done",
+      auditedValue: it.itemRef === "INV011" ? "3690.00" : it.bookValue,
+      cause: it.itemRef === "INV011" ? "cut-off" : null,
+    });
   }
 }
 
@@ -81,7 +120,12 @@ describe("sign-offs", () => {
 
   it("clears the sign-offs when a result changes afterwards, and says so", async () => {
     const [first] = await listSampleItems(staff, engagement, sampleId);
-    const r = await saveResult(staff, engagement, sampleId, first.id, { version: first.version, status: "done", auditedValue: first.bookValue, comment: "Re-checked" });
+    const r = await saveResult(staff, engagement, sampleId, first.id, {
+      version: first.version,
+      status: "done",
+      auditedValue: first.bookValue,
+      comment: "Re-checked",
+    });
     expect(r.json.signOffsCleared).toBe(true);
     const view = await call(one.GET, "GET", { as: staff, params: p() });
     expect(view.json.review.preparer).toBeNull();
@@ -95,8 +139,14 @@ describe("sign-offs", () => {
 describe("review notes", () => {
   let noteId: number;
   it("are raised by a reviewer only, and block the reviewer's sign-off until cleared", async () => {
-    expect((await call(notes.POST, "POST", { as: senior, params: p(), body: { text: "Explain INV011" } })).status).toBe(403);
-    const raised = await call(notes.POST, "POST", { as: manager, params: p(), body: { text: "Explain the cut-off difference on INV011 <b>and</b> attach the dispatch note." } });
+    expect((await call(notes.POST, "POST", { as: senior, params: p(), body: { text: "Explain INV011" } })).status).toBe(
+      403,
+    );
+    const raised = await call(notes.POST, "POST", {
+      as: manager,
+      params: p(),
+      body: { text: "Explain the cut-off difference on INV011 <b>and</b> attach the dispatch note." },
+    });
     expect(raised.status).toBe(201);
     noteId = raised.json.notes[0].id;
     await waitForMessage((m) => addressedTo(staffEmail)(m) && /note/i.test(m.subject));
@@ -107,7 +157,15 @@ describe("review notes", () => {
   });
 
   it("are answered by the preparer and cleared by the reviewer, who can then sign off", async () => {
-    expect((await call(answer.POST, "POST", { as: staff, params: p({ noteId: String(noteId) }), body: { answer: "Goods shipped 2 October; invoice belongs to the next period." } })).status).toBe(200);
+    expect(
+      (
+        await call(answer.POST, "POST", {
+          as: staff,
+          params: p({ noteId: String(noteId) }),
+          body: { answer: "Goods shipped 2 October; invoice belongs to the next period." },
+        })
+      ).status,
+    ).toBe(200);
     await waitForMessage((m) => addressedTo(managerEmail)(m) && /answered/i.test(m.subject));
     expect((await call(clear.POST, "POST", { as: staff, params: p({ noteId: String(noteId) }) })).status).toBe(403);
     const cleared = await call(clear.POST, "POST", { as: manager, params: p({ noteId: String(noteId) }) });
@@ -146,12 +204,46 @@ describe("lock", () => {
   it("answers every kind of write with 409 locked", async () => {
     const items = await listSampleItems(staff, engagement, sampleId);
     const writes: [string, () => Promise<{ status: number; json: { error?: { code: string } } }>][] = [
-      ["replan", () => call(one.PATCH, "PATCH", { as: senior, params: p(), body: { populationId, name: "Changed", objective: "Changed objective", assertion: "Existence", direction: "overstatement", params: { method: "mus" } } })],
+      [
+        "replan",
+        () =>
+          call(one.PATCH, "PATCH", {
+            as: senior,
+            params: p(),
+            body: {
+              populationId,
+              name: "Changed",
+              objective: "Changed objective",
+              assertion: "Existence",
+              direction: "overstatement",
+              params: { method: "mus" },
+            },
+          }),
+      ],
       ["redraw", () => call(draw.POST, "POST", { as: senior, params: p(), body: { seed: 1 } })],
       ["re-perform", () => call(reperform.POST, "POST", { as: staff, params: p() })],
-      ["extend", () => call(extend.POST, "POST", { as: senior, params: p(), body: { additional: 1, reason: "More work" } })],
-      ["replace", () => call(replace.POST, "POST", { as: senior, params: p({ itemId: String(items[0].id) }), body: { reason: "Voided" } })],
-      ["record a result", () => call(item.PATCH, "PATCH", { as: staff, params: p({ itemId: String(items[0].id) }), body: { version: items[0].version, status: "done", auditedValue: "1.00" } })],
+      [
+        "extend",
+        () => call(extend.POST, "POST", { as: senior, params: p(), body: { additional: 1, reason: "More work" } }),
+      ],
+      [
+        "replace",
+        () =>
+          call(replace.POST, "POST", {
+            as: senior,
+            params: p({ itemId: String(items[0].id) }),
+            body: { reason: "Voided" },
+          }),
+      ],
+      [
+        "record a result",
+        () =>
+          call(item.PATCH, "PATCH", {
+            as: staff,
+            params: p({ itemId: String(items[0].id) }),
+            body: { version: items[0].version, status: "done", auditedValue: "1.00" },
+          }),
+      ],
       ["preparer sign-off", () => call(signOff.POST, "POST", { as: staff, params: p(), body: { as: "preparer" } })],
       ["reviewer sign-off", () => call(signOff.POST, "POST", { as: manager, params: p(), body: { as: "reviewer" } })],
       ["raise a note", () => call(notes.POST, "POST", { as: manager, params: p(), body: { text: "One more thing" } })],
@@ -159,7 +251,11 @@ describe("lock", () => {
     ];
     for (const [what, write] of writes) {
       const r = await write();
-      expect({ what, status: r.status, code: r.json.error?.code }).toEqual({ what, status: 409, code: expect.stringMatching(/locked|conflict/) });
+      expect({ what, status: r.status, code: r.json.error?.code }).toEqual({
+        what,
+        status: 409,
+        code: expect.stringMatching(/locked|conflict/),
+      });
     }
     // the replan conflict is "drawn"; every other write names the lock
     const redraw = await call(draw.POST, "POST", { as: senior, params: p(), body: { seed: 1 } });
@@ -167,9 +263,21 @@ describe("lock", () => {
   });
 
   it("unlocks only for a partner with a reason, and the trail shows lock and unlock", async () => {
-    expect((await call(unlock.POST, "POST", { as: manager, params: p(), body: { reason: "Need to fix a typo in a comment" } })).status).toBe(403);
+    expect(
+      (
+        await call(unlock.POST, "POST", {
+          as: manager,
+          params: p(),
+          body: { reason: "Need to fix a typo in a comment" },
+        })
+      ).status,
+    ).toBe(403);
     expect((await call(unlock.POST, "POST", { as: partner, params: p(), body: { reason: "short" } })).status).toBe(400);
-    const r = await call(unlock.POST, "POST", { as: partner, params: p(), body: { reason: "Client sent revised dispatch records" } });
+    const r = await call(unlock.POST, "POST", {
+      as: partner,
+      params: p(),
+      body: { reason: "Client sent revised dispatch records" },
+    });
     expect(r.json.review).toMatchObject({ lock: null, reviewer: null });
     const trail = await call(audit.GET, "GET", { as: staff, params: p(), query: { kind: "lock" } });
     expect(trail.json.entries.map((e: { action: string }) => e.action)).toEqual(["unlock", "lock"]);

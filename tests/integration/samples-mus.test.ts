@@ -3,7 +3,16 @@ import gammaQuantile from "@stdlib/stats-base-dists-gamma-quantile";
 import { getDb } from "@/db/knex";
 import { call, callRaw } from "./support/call";
 import { makeEngagement, makeFirm, makeUser } from "./support/factory";
-import { CANONICAL_CSV, CANONICAL_SHA256, drawSample, getEvaluation, listSampleItems, loadCanonicalPopulation, planSample, saveResult } from "./support/samples";
+import {
+  CANONICAL_CSV,
+  CANONICAL_SHA256,
+  drawSample,
+  getEvaluation,
+  listSampleItems,
+  loadCanonicalPopulation,
+  planSample,
+  saveResult,
+} from "./support/samples";
 import * as reperform from "@/app/api/engagements/[engagementId]/samples/[sampleId]/reperform/route";
 import * as recipe from "@/app/api/engagements/[engagementId]/samples/[sampleId]/recipe/route";
 import * as one from "@/app/api/engagements/[engagementId]/samples/[sampleId]/route";
@@ -12,23 +21,45 @@ import { DEFAULT_METHODOLOGY } from "@/lib/validation/methodology";
 
 vi.mock("@/lib/auth/session-user", async () => (await import("./support/session")).sessionModule);
 
-let senior: number, staff: number, outsider: number, engagement: number, populationId: number, sampleId: number, admin: number;
+let senior: number,
+  staff: number,
+  outsider: number,
+  engagement: number,
+  populationId: number,
+  sampleId: number,
+  admin: number;
 // The factor mode is the firm's methodology setting (stamped on each plan), not a per-plan choice.
 const useFactorMode = async (factorMode: "exact" | "table") =>
-  expect((await call(methodology.PUT, "PUT", { as: admin, body: { ...DEFAULT_METHODOLOGY, factorMode } })).status).toBe(200);
+  expect((await call(methodology.PUT, "PUT", { as: admin, body: { ...DEFAULT_METHODOLOGY, factorMode } })).status).toBe(
+    200,
+  );
 
 // The canonical population's positive book values in cents, in file order (zero and negative excluded from PPS).
-const rows = CANONICAL_CSV.trim().split("\n").slice(1).map((l, i) => ({ ref: l.split(",")[0], row: i + 2, cents: BigInt(l.split(",")[1].replace(".", "")) }));
+const rows = CANONICAL_CSV.trim()
+  .split("\n")
+  .slice(1)
+  .map((l, i) => ({ ref: l.split(",")[0], row: i + 2, cents: BigInt(l.split(",")[1].replace(".", "")) }));
 const positives = rows.filter((r) => r.cents > 0n);
 const BV_CENTS = positives.reduce((a, r) => a + r.cents, 0n); // 3,795,996 cents
 
 beforeAll(async () => {
   const firm = await makeFirm();
-  [senior, staff, outsider] = await Promise.all([makeUser(firm, "senior"), makeUser(firm, "staff"), makeUser(firm, "senior")]);
+  [senior, staff, outsider] = await Promise.all([
+    makeUser(firm, "senior"),
+    makeUser(firm, "staff"),
+    makeUser(firm, "senior"),
+  ]);
   const manager = await makeUser(firm, "manager");
   admin = await makeUser(firm, "staff", { admin: true });
-  engagement = await makeEngagement(firm, manager, [[manager, "manager"], [senior, "senior"], [staff, "staff"]]);
-  await makeEngagement(firm, manager, [[manager, "manager"], [outsider, "senior"]]);
+  engagement = await makeEngagement(firm, manager, [
+    [manager, "manager"],
+    [senior, "senior"],
+    [staff, "staff"],
+  ]);
+  await makeEngagement(firm, manager, [
+    [manager, "manager"],
+    [outsider, "senior"],
+  ]);
   await useFactorMode("table");
   const loaded = await loadCanonicalPopulation(senior, engagement);
   populationId = loaded.populationId;
@@ -43,7 +74,16 @@ const params = () => ({ engagementId: String(engagement), sampleId: String(sampl
 
 describe("monetary-unit sample: plan", () => {
   it("computes n = ⌈BV·RF/(TM − EM·EF)⌉ and J = ⌊BV/n⌋, excluding zero and negative items", async () => {
-    const r = await planSample(senior, engagement, { populationId, params: { method: "mus", confidence: 0.95, tolerableMisstatement: "15000", expectedMisstatement: "0", factorMode: "table" } });
+    const r = await planSample(senior, engagement, {
+      populationId,
+      params: {
+        method: "mus",
+        confidence: 0.95,
+        tolerableMisstatement: "15000",
+        expectedMisstatement: "0",
+        factorMode: "table",
+      },
+    });
     expect(r.status).toBe(201);
     sampleId = r.json.sample.id;
     const plan = r.json.sample.plan;
@@ -64,7 +104,10 @@ describe("monetary-unit sample: plan", () => {
   });
 
   it("will not lower the size below the computed one without a reason", async () => {
-    const r = await planSample(senior, engagement, { populationId, params: { method: "mus", tolerableMisstatement: "15000", sampleSize: 5 } });
+    const r = await planSample(senior, engagement, {
+      populationId,
+      params: { method: "mus", tolerableMisstatement: "15000", sampleSize: 5 },
+    });
     expect(r.status).toBe(400);
     expect(r.json.error.fields).toHaveProperty("sampleSize");
   });
@@ -75,7 +118,12 @@ describe("monetary-unit sample: draw, re-perform, recipe", () => {
     expect((await drawSample(staff, engagement, sampleId, 1206281)).status).toBe(403); // staff cannot draw
     const r = await drawSample(senior, engagement, sampleId, 1206281);
     expect(r.status).toBe(201);
-    expect(r.json.currentDraw).toMatchObject({ version: 1, seed: 1206281, seedSource: "entered", populationSha256: CANONICAL_SHA256 });
+    expect(r.json.currentDraw).toMatchObject({
+      version: 1,
+      seed: 1206281,
+      seedSource: "entered",
+      populationSha256: CANONICAL_SHA256,
+    });
     // numpy 1.24 RandomState(1206281).random_sample() = 0.6547467429185535 (MT19937 init_genrand + genrand_res53);
     // selection rule: r = 1 + ⌊u·J⌋ cents, points r + jJ, item i hit when c(i−1) < p ≤ c(i) (lib/sampling/README.md §2).
     const J = 474400n;
@@ -85,7 +133,10 @@ describe("monetary-unit sample: draw, re-perform, recipe", () => {
     let p = start;
     for (const item of positives) {
       cum += item.cents;
-      while (p <= cum) { expected.set(item.ref, (expected.get(item.ref) ?? 0) + 1); p += J; }
+      while (p <= cum) {
+        expected.set(item.ref, (expected.get(item.ref) ?? 0) + 1);
+        p += J;
+      }
     }
     const items = await listSampleItems(staff, engagement, sampleId);
     expect(new Map(items.map((i) => [i.itemRef, i.hitPoints?.length ?? 0]))).toEqual(expected);
@@ -109,12 +160,20 @@ describe("monetary-unit sample: draw, re-perform, recipe", () => {
   it("drawing again creates version 2 with a different selection for a different seed, keeping version 1", async () => {
     const before = (await listSampleItems(staff, engagement, sampleId)).map((i) => i.itemRef).join();
     const second = await drawSample(senior, engagement, sampleId, 121285);
-    expect(second.json.draws.map((d: { version: number; current: boolean }) => [d.version, d.current])).toEqual([[2, true], [1, false]]);
+    expect(second.json.draws.map((d: { version: number; current: boolean }) => [d.version, d.current])).toEqual([
+      [2, true],
+      [1, false],
+    ]);
     const after = await listSampleItems(staff, engagement, sampleId);
     // numpy RandomState(121285).random_sample() = 3.999558920275703e-06 → r = 2 cents: 9 points, not 8.
     expect(after.reduce((n, i) => n + (i.hitPoints?.length ?? 0), 0)).toBe(9);
     expect(after.map((i) => i.itemRef).join()).not.toBe(before);
-    const old = await getDb()("sample_items").where("sample_items.sample_id", sampleId).join("sample_draws as d", "d.id", "sample_items.draw_id").where("d.version", 1).count({ n: "*" }).first();
+    const old = await getDb()("sample_items")
+      .where("sample_items.sample_id", sampleId)
+      .join("sample_draws as d", "d.id", "sample_items.draw_id")
+      .where("d.version", 1)
+      .count({ n: "*" })
+      .first();
     expect(Number(old?.n)).toBeGreaterThan(0);
     // The same seed again gives the same selection as version 1.
     await drawSample(senior, engagement, sampleId, 1206281);
@@ -122,7 +181,18 @@ describe("monetary-unit sample: draw, re-perform, recipe", () => {
   });
 
   it("refuses to change the plan once drawn", async () => {
-    const r = await call(one.PATCH, "PATCH", { as: senior, params: params(), body: { populationId, name: "Changed", objective: "Test existence", assertion: "Existence", direction: "overstatement", params: { method: "mus" } } });
+    const r = await call(one.PATCH, "PATCH", {
+      as: senior,
+      params: params(),
+      body: {
+        populationId,
+        name: "Changed",
+        objective: "Test existence",
+        assertion: "Existence",
+        direction: "overstatement",
+        params: { method: "mus" },
+      },
+    });
     expect(r.status).toBe(409);
   });
 });
@@ -140,7 +210,10 @@ describe("monetary-unit sample: fieldwork and the Stringer bound", () => {
       INV018: { status: "done", auditedValue: "2887.50", cause: "classification" }, // understatement, tainting 0.05
     };
     const notAuditable = [...byRef.keys()].find((ref) => !(ref in audited) && !byRef.get(ref)!.topStratum)!;
-    audited[notAuditable] = { status: "not-auditable", comment: "Customer confirmation not returned; no alternative evidence" }; // tainting 1
+    audited[notAuditable] = {
+      status: "not-auditable",
+      comment: "Customer confirmation not returned; no alternative evidence",
+    }; // tainting 1
     for (const [ref, patch] of Object.entries({ ...results, ...audited })) {
       const it = byRef.get(ref);
       if (!it) continue;
@@ -168,7 +241,9 @@ describe("monetary-unit sample: fieldwork and the Stringer bound", () => {
     expect(Number(b.netUpperLimits.overstatement)).toBeCloseTo(basic + projectedOver + allowanceOver - 0.05 * J, 2);
     expect(b.overstatement.rows.map((r: { factor: number }) => r.factor)).toEqual(RF.slice(1, over.length + 1));
     // One meaning of the increment everywhere: RF(k) − RF(k−1).
-    expect(b.overstatement.rows.map((r: { factorIncrement: number }) => r.factorIncrement)).toEqual([RF[1] - RF[0], RF[2] - RF[1]].map((x) => expect.closeTo(x, 9)));
+    expect(b.overstatement.rows.map((r: { factorIncrement: number }) => r.factorIncrement)).toEqual(
+      [RF[1] - RF[0], RF[2] - RF[1]].map((x) => expect.closeTo(x, 9)),
+    );
     expect(ev.complete).toBe(true);
     // Gross by default (issue 13 §3): the overstatement test compares the gross upper limit with TM.
     expect(b.limits).toBe("gross");
@@ -183,25 +258,42 @@ describe("monetary-unit sample: fieldwork and the Stringer bound", () => {
   it("answers a stale save with 409 naming who changed the item, and keeps their value", async () => {
     const [first] = await listSampleItems(staff, engagement, sampleId);
     const staleVersion = first.version - 1;
-    const r = await saveResult(senior, engagement, sampleId, first.id, { version: staleVersion, status: "done", auditedValue: "1.00" });
+    const r = await saveResult(senior, engagement, sampleId, first.id, {
+      version: staleVersion,
+      status: "done",
+      auditedValue: "1.00",
+    });
     expect(r.status).toBe(409);
-    expect(r.json.error.message).toMatch(/Person \d+ \(staff\) changed this item on \d{1,2} [A-Z][a-z]{2} \d{4}, \d{2}:\d{2} UTC, after you opened it/);
+    expect(r.json.error.message).toMatch(
+      /Person \d+ \(staff\) changed this item on \d{1,2} [A-Z][a-z]{2} \d{4}, \d{2}:\d{2} UTC, after you opened it/,
+    );
     const [again] = await listSampleItems(staff, engagement, sampleId);
     expect(again.version).toBe(first.version);
   });
 
   it("computes exact factors from the gamma quantile when the firm's methodology asks for them", async () => {
     await useFactorMode("exact");
-    const r = await planSample(senior, engagement, { populationId, params: { method: "mus", tolerableMisstatement: "15000", factorMode: "exact" } });
+    const r = await planSample(senior, engagement, {
+      populationId,
+      params: { method: "mus", tolerableMisstatement: "15000", factorMode: "exact" },
+    });
     const id = r.json.sample.id;
     await drawSample(senior, engagement, id, 1206281);
     const items = await listSampleItems(staff, engagement, id);
-    for (const it of items) await saveResult(staff, engagement, id, it.id, { version: it.version, status: "done", auditedValue: it.itemRef === "INV011" ? "3690.00" : it.bookValue });
+    for (const it of items)
+      await saveResult(staff, engagement, id, it.id, {
+        version: it.version,
+        status: "done",
+        auditedValue: it.itemRef === "INV011" ? "3690.00" : it.bookValue,
+      });
     const ev = await getEvaluation(staff, engagement, id);
     // @stdlib gamma quantile (shape k+1, rate 1) as an independent implementation of the Poisson upper limit.
     const rf0 = gammaQuantile(0.95, 1, 1);
     const rf1 = gammaQuantile(0.95, 2, 1);
     expect(rf0).toBeCloseTo(2.995732, 6); // −ln(0.05)
-    expect(Number(ev.block.overstatement.upperLimit)).toBeCloseTo(rf0 * 4744 + 0.1 * 4744 + (rf1 - rf0 - 1) * 0.1 * 4744, 2);
+    expect(Number(ev.block.overstatement.upperLimit)).toBeCloseTo(
+      rf0 * 4744 + 0.1 * 4744 + (rf1 - rf0 - 1) * 0.1 * 4744,
+      2,
+    );
   });
 });

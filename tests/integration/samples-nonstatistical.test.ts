@@ -185,7 +185,11 @@ describe("nonstatistical samples", () => {
     const header = (sheet.getRow(1).values as unknown[]).map(String);
     const selectedAs = new Map<string, string>();
     sheet.eachRow((row, n) => {
-      if (n > 1) selectedAs.set(row.getCell(header.indexOf("Item reference")).text, row.getCell(header.indexOf("Selected as")).text);
+      if (n > 1)
+        selectedAs.set(
+          row.getCell(header.indexOf("Item reference")).text,
+          row.getCell(header.indexOf("Selected as")).text,
+        );
     });
     expect(selectedAs.get("INV004")).toBe("Key item (examined 100 %): Credit note raised after the period end");
     expect(selectedAs.get("INV006")).toBe("Key item (examined 100 %)");
@@ -441,7 +445,11 @@ describe("key items for classical plans (issue 14 §4)", () => {
     expect(e.block.projectedMisstatement).toBe("100.00");
     expect(e.block.estimatedAuditedValue).toBe((37539.96 - 100).toFixed(2));
     expect(e.block.populationBookValue).toBe("37539.96");
-    expect(e.block.atActual).toMatchObject({ remainderSize: 17, keyItems: { count: 3, misstatement: "100.00" }, anomalies: { count: 0 } });
+    expect(e.block.atActual).toMatchObject({
+      remainderSize: 17,
+      keyItems: { count: 3, misstatement: "100.00" },
+      anomalies: { count: 0 },
+    });
     expect(e.warnings.join(" ")).toMatch(/Key items and accepted anomalies add 100.00/);
   });
 });

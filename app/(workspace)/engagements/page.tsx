@@ -13,8 +13,15 @@ export default async function EngagementsPage() {
   return (
     <>
       <PageHeader
-        eyebrow="Workspace" title="Engagements"
-        actions={gradeMayCreateEngagement(user.grade) ? <Link href="/engagements/new" className={buttonClass()}>New engagement</Link> : undefined}
+        eyebrow="Workspace"
+        title="Engagements"
+        actions={
+          gradeMayCreateEngagement(user.grade) ? (
+            <Link href="/engagements/new" className={buttonClass()}>
+              New engagement
+            </Link>
+          ) : undefined
+        }
       >
         The audits you are on. Only engagements whose team includes you are listed.
       </PageHeader>

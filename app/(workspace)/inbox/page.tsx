@@ -13,7 +13,8 @@ export default async function InboxPage() {
   return (
     <>
       <PageHeader eyebrow="Workspace" title="Inbox">
-        Samples waiting for you, across your engagements: a sign-off to review, a reviewed sample to lock, review notes to answer or to clear. Oldest first.
+        Samples waiting for you, across your engagements: a sign-off to review, a reviewed sample to lock, review notes
+        to answer or to clear. Oldest first.
       </PageHeader>
       <InboxList inbox={inbox} />
     </>

@@ -14,6 +14,12 @@ export const GET = withAuditor(z.object({}), async (_input, { db, user }) => {
 /** An administrator adds a person, who is e-mailed a one-time link to choose their own password. */
 export const POST = withFirmAdmin(CreateUserSchema, async (input, { db, user }) => {
   const { user: created, token } = await inviteFirmPerson(db, { firmId: user.firmId, actorId: user.id, input });
-  const mail = await notifyStaffInvitation(db, { person: created, token, invitedBy: { name: user.name }, firmId: user.firmId, reason: "new" });
+  const mail = await notifyStaffInvitation(db, {
+    person: created,
+    token,
+    invitedBy: { name: user.name },
+    firmId: user.firmId,
+    reason: "new",
+  });
   return Response.json({ user: created, invitationSent: mail.sent }, { status: 201 });
 });

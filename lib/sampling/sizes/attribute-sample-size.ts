@@ -48,13 +48,20 @@ export interface AttributeSampleSize {
  * attributeSampleSize({ tolerableRate: 0.05, expectedRate: 0, confidence: 0.95, populationSize: 100 })
  * // → { sampleSize: 45, allowedDeviations: 0, model: "hypergeometric", populationDeviations: 5 }
  */
-export function attributeSampleSize(o: { tolerableRate: number; expectedRate: number; confidence: number; populationSize?: number }): AttributeSampleSize {
+export function attributeSampleSize(o: {
+  tolerableRate: number;
+  expectedRate: number;
+  confidence: number;
+  populationSize?: number;
+}): AttributeSampleSize {
   requireObject("options", o);
   const tolerableRate = requireOpenFraction("tolerableRate", o.tolerableRate);
   const expectedRate = requireFiniteNumber("expectedRate", o.expectedRate);
   const confidence = requireOpenFraction("confidence", o.confidence);
   if (expectedRate < 0 || expectedRate >= tolerableRate) {
-    throw new EngineInputError("expectedRate", `expectedRate must be at least 0 and below tolerableRate (${tolerableRate}) (got ${expectedRate})`,
+    throw new EngineInputError(
+      "expectedRate",
+      `expectedRate must be at least 0 and below tolerableRate (${tolerableRate}) (got ${expectedRate})`,
     );
   }
   const risk = 1 - confidence;
@@ -77,6 +84,8 @@ export function attributeSampleSize(o: { tolerableRate: number; expectedRate: nu
     if (k >= n) continue;
     if (binomialCdf(k, n, tolerableRate) <= risk) return { sampleSize: n, allowedDeviations: k, model: "binomial" };
   }
-  throw new EngineInputError("tolerableRate", `no attribute sample size up to ${MAX_ATTRIBUTE_SAMPLE_SIZE} meets tolerableRate ${tolerableRate} with expectedRate ${expectedRate}: raise tolerableRate or lower expectedRate`,
+  throw new EngineInputError(
+    "tolerableRate",
+    `no attribute sample size up to ${MAX_ATTRIBUTE_SAMPLE_SIZE} meets tolerableRate ${tolerableRate} with expectedRate ${expectedRate}: raise tolerableRate or lower expectedRate`,
   );
 }

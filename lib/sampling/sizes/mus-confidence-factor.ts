@@ -42,7 +42,10 @@ export function musConfidenceFactor(o: { confidence: number; expectedToTolerable
   const ratio = requireFiniteNumber("expectedToTolerable", o.expectedToTolerable);
   const mode = o.mode === undefined ? "exact" : requireOneOf("mode", o.mode, FACTOR_MODES);
   if (ratio < 0 || ratio >= 1) {
-    throw new EngineInputError("expectedToTolerable", `expectedToTolerable must be at least 0 and below 1 (got ${ratio}): expected misstatement must be below tolerable misstatement`);
+    throw new EngineInputError(
+      "expectedToTolerable",
+      `expectedToTolerable must be at least 0 and below 1 (got ${ratio}): expected misstatement must be below tolerable misstatement`,
+    );
   }
   const exact = ratio === 0 ? -Math.log1p(-confidence) : solveConfidenceFactor(confidence, ratio);
   return mode === "exact" ? exact : roundUpToCents(exact);

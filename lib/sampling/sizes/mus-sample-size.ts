@@ -82,22 +82,39 @@ export function musSampleSize(o: {
   const method = o.method === undefined ? "confidence-factor" : requireOneOf("method", o.method, MUS_SIZE_METHODS);
   const mode = o.mode === undefined ? "exact" : requireOneOf("mode", o.mode, FACTOR_MODES);
   if (tolerable > bookValue) {
-    throw new EngineInputError("tolerableMisstatement", `tolerableMisstatement (${tolerable}) must not exceed bookValue (${bookValue})`);
+    throw new EngineInputError(
+      "tolerableMisstatement",
+      `tolerableMisstatement (${tolerable}) must not exceed bookValue (${bookValue})`,
+    );
   }
   const reliabilityFactor = poissonFactor(0, confidence, mode);
-  const sized = method === "confidence-factor"
-    ? byConfidenceFactor(confidence, expected, tolerable, mode, reliabilityFactor)
-    : byExpansionFactor(confidence, expected, tolerable, reliabilityFactor);
+  const sized =
+    method === "confidence-factor"
+      ? byConfidenceFactor(confidence, expected, tolerable, mode, reliabilityFactor)
+      : byExpansionFactor(confidence, expected, tolerable, reliabilityFactor);
   const sampleSize = Math.ceil((sized.confidenceFactor * bookValue) / tolerable - 1e-9);
   const interval = Math.floor(bookValue / sampleSize + 1e-9);
-  if (interval < 1) throw new EngineInputError("bookValue", `bookValue (${bookValue}) is too small for a sampling interval of at least 1`);
+  if (interval < 1)
+    throw new EngineInputError(
+      "bookValue",
+      `bookValue (${bookValue}) is too small for a sampling interval of at least 1`,
+    );
   return { sampleSize, interval, method, mode, reliabilityFactor, ...sized };
 }
 
-function byConfidenceFactor(confidence: number, expected: number, tolerable: number, mode: FactorMode, reliabilityFactor: number) {
+function byConfidenceFactor(
+  confidence: number,
+  expected: number,
+  tolerable: number,
+  mode: FactorMode,
+  reliabilityFactor: number,
+) {
   const ratio = expected / tolerable;
   if (ratio >= 1) {
-    throw new EngineInputError("expectedMisstatement", `expectedMisstatement (${expected}) must be below tolerableMisstatement (${tolerable})`);
+    throw new EngineInputError(
+      "expectedMisstatement",
+      `expectedMisstatement (${expected}) must be below tolerableMisstatement (${tolerable})`,
+    );
   }
   if (ratio === 0) return { confidenceFactor: reliabilityFactor };
   try {

@@ -68,7 +68,10 @@ export function nonstatisticalSampleSize(o: {
   );
   const minimum = requireInteger("minimumSampleSize", o.minimumSampleSize ?? 0, 0, 100000);
   if (key > book)
-    throw new EngineInputError("keyItemsBookValue", `keyItemsBookValue must not exceed bookValue (${o.bookValue}); got ${o.keyItemsBookValue}`);
+    throw new EngineInputError(
+      "keyItemsBookValue",
+      `keyItemsBookValue must not exceed bookValue (${o.bookValue}); got ${o.keyItemsBookValue}`,
+    );
   const effective = adjustment === "subtract-from-tolerable" ? tm - em : tm;
   if (effective <= 0n)
     throw new EngineInputError(

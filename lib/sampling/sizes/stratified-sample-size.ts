@@ -13,7 +13,10 @@ export interface PlanningStratum {
   standardDeviation: number;
 }
 
-interface Parsed { N: number; S: number }
+interface Parsed {
+  N: number;
+  S: number;
+}
 
 function parse(value: unknown): Parsed[] {
   const strata = requireArray<PlanningStratum>("strata", value);
@@ -38,12 +41,16 @@ function exactAllocation(strata: Parsed[], n: number): number[] {
     const sizeOfFree = free.reduce((sum, h) => sum + strata[h]!.N, 0);
     let capped = false;
     for (const h of free) {
-      const w = weight > 0 ? strata[h]!.N * strata[h]!.S / weight : strata[h]!.N / sizeOfFree;
+      const w = weight > 0 ? (strata[h]!.N * strata[h]!.S) / weight : strata[h]!.N / sizeOfFree;
       out[h] = remaining * w;
       if (out[h] > strata[h]!.N) capped = true;
     }
     if (!capped) return out;
-    for (const h of free) if (out[h]! > strata[h]!.N) { full.add(h); out[h] = strata[h]!.N; }
+    for (const h of free)
+      if (out[h]! > strata[h]!.N) {
+        full.add(h);
+        out[h] = strata[h]!.N;
+      }
   }
 }
 
@@ -51,12 +58,18 @@ function exactAllocation(strata: Parsed[], n: number): number[] {
 function roundAllocation(strata: Parsed[], exact: number[], n: number): number[] {
   const alloc = exact.map((x) => Math.floor(x + 1e-9));
   let left = n - alloc.reduce((a, b) => a + b, 0);
-  const order = exact.map((_, h) => h).sort((a, b) => (exact[b]! - alloc[b]!) - (exact[a]! - alloc[a]!) || a - b);
-  for (const h of order) if (left > 0 && alloc[h]! < strata[h]!.N) { alloc[h]!++; left--; }
+  const order = exact.map((_, h) => h).sort((a, b) => exact[b]! - alloc[b]! - (exact[a]! - alloc[a]!) || a - b);
+  for (const h of order)
+    if (left > 0 && alloc[h]! < strata[h]!.N) {
+      alloc[h]!++;
+      left--;
+    }
   for (let h = 0; h < strata.length; h++) {
     while (alloc[h]! < Math.min(2, strata[h]!.N)) {
-      const donor = alloc.map((_, j) => j).filter((j) => alloc[j]! > Math.min(2, strata[j]!.N))
-        .sort((a, b) => (alloc[b]! - exact[b]!) - (alloc[a]! - exact[a]!) || alloc[b]! - alloc[a]!)[0];
+      const donor = alloc
+        .map((_, j) => j)
+        .filter((j) => alloc[j]! > Math.min(2, strata[j]!.N))
+        .sort((a, b) => alloc[b]! - exact[b]! - (alloc[a]! - exact[a]!) || alloc[b]! - alloc[a]!)[0];
       alloc[h]!++;
       if (donor !== undefined) alloc[donor]!--;
     }
@@ -66,7 +79,9 @@ function roundAllocation(strata: Parsed[], exact: number[], n: number): number[]
 
 function standardError(strata: Parsed[], sizes: number[]): number {
   let v = 0;
-  strata.forEach(({ N, S }, h) => { if (sizes[h]! > 0) v += N * N * (1 - sizes[h]! / N) * S * S / sizes[h]!; });
+  strata.forEach(({ N, S }, h) => {
+    if (sizes[h]! > 0) v += (N * N * (1 - sizes[h]! / N) * S * S) / sizes[h]!;
+  });
   return Math.sqrt(v);
 }
 
@@ -86,7 +101,10 @@ function standardError(strata: Parsed[], sizes: number[]): number {
  * // → { allocation: [63, 50, 37], exactAllocation: [62.5, 50, 37.5], standardError: 32594.478…, … }
  */
 export function neymanAllocation(o: { strata: PlanningStratum[]; sampleSize: number }): {
-  allocation: number[]; exactAllocation: number[]; standardError: number; allocatedStandardError: number;
+  allocation: number[];
+  exactAllocation: number[];
+  standardError: number;
+  allocatedStandardError: number;
 } {
   requireObject("options", o);
   const strata = parse(o.strata);
@@ -95,7 +113,12 @@ export function neymanAllocation(o: { strata: PlanningStratum[]; sampleSize: num
   const n = requireInteger("sampleSize", o.sampleSize, minimum, total);
   const exact = exactAllocation(strata, n);
   const allocation = roundAllocation(strata, exact, n);
-  return { allocation, exactAllocation: exact, standardError: standardError(strata, exact), allocatedStandardError: standardError(strata, allocation) };
+  return {
+    allocation,
+    exactAllocation: exact,
+    standardError: standardError(strata, exact),
+    allocatedStandardError: standardError(strata, allocation),
+  };
 }
 
 /**
@@ -113,13 +136,17 @@ export function neymanAllocation(o: { strata: PlanningStratum[]; sampleSize: num
  * // → { sampleSize: 164, exactSampleSize: 163.318…, allocation: [68, 55, 41], … }
  */
 export function stratifiedSampleSize(o: {
-  strata: PlanningStratum[]; plannedAllowance: number; confidence: number; sides?: "two" | "one";
+  strata: PlanningStratum[];
+  plannedAllowance: number;
+  confidence: number;
+  sides?: "two" | "one";
 }): { sampleSize: number; exactSampleSize: number; allocation: number[]; allocatedStandardError: number } {
   requireObject("options", o);
   const strata = parse(o.strata);
   const allowance = requirePositive("plannedAllowance", o.plannedAllowance);
   const confidence = requireOpenFraction("confidence", o.confidence);
-  if (o.sides !== undefined && o.sides !== "two" && o.sides !== "one") throw new EngineInputError("sides", `sides must be "two" or "one" (got ${String(o.sides)})`);
+  if (o.sides !== undefined && o.sides !== "two" && o.sides !== "one")
+    throw new EngineInputError("sides", `sides must be "two" or "one" (got ${String(o.sides)})`);
   const z = normalQuantile(o.sides === "one" ? confidence : (1 + confidence) / 2);
   const targetSe = allowance / z;
   const sumNS = strata.reduce((sum, s) => sum + s.N * s.S, 0);
@@ -133,5 +160,10 @@ export function stratifiedSampleSize(o: {
     n++;
     plan = neymanAllocation({ strata: o.strata, sampleSize: n });
   }
-  return { sampleSize: n, exactSampleSize, allocation: plan.allocation, allocatedStandardError: plan.allocatedStandardError };
+  return {
+    sampleSize: n,
+    exactSampleSize,
+    allocation: plan.allocation,
+    allocatedStandardError: plan.allocatedStandardError,
+  };
 }

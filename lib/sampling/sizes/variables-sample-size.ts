@@ -32,18 +32,28 @@ export function variablesSampleSize(o: {
   riskOfIncorrectAcceptance: number;
   riskOfIncorrectRejection: number;
   sides?: "two" | "one";
-}): { sampleSize: number; uncorrectedSampleSize: number; uncorrectedSampleSizeExact: number; plannedAllowance: number } {
+}): {
+  sampleSize: number;
+  uncorrectedSampleSize: number;
+  uncorrectedSampleSizeExact: number;
+  plannedAllowance: number;
+} {
   requireObject("options", o);
   const populationSize = requireInteger("populationSize", o.populationSize, 1, 2 ** 31 - 1);
   const sd = requirePositive("estimatedStdDev", o.estimatedStdDev);
   const tolerable = requirePositive("tolerableMisstatement", o.tolerableMisstatement);
-  const expected = o.expectedMisstatement === undefined ? 0 : requireFiniteNumber("expectedMisstatement", o.expectedMisstatement);
+  const expected =
+    o.expectedMisstatement === undefined ? 0 : requireFiniteNumber("expectedMisstatement", o.expectedMisstatement);
   if (expected < 0 || expected >= tolerable) {
-    throw new EngineInputError("expectedMisstatement", `expectedMisstatement must be at least 0 and below tolerableMisstatement (${tolerable}) (got ${expected})`);
+    throw new EngineInputError(
+      "expectedMisstatement",
+      `expectedMisstatement must be at least 0 and below tolerableMisstatement (${tolerable}) (got ${expected})`,
+    );
   }
   const ria = requireOpenFraction("riskOfIncorrectAcceptance", o.riskOfIncorrectAcceptance);
   const rir = requireOpenFraction("riskOfIncorrectRejection", o.riskOfIncorrectRejection);
-  if (o.sides !== undefined && o.sides !== "two" && o.sides !== "one") throw new RangeError(`sides must be "two" or "one" (got ${String(o.sides)})`);
+  if (o.sides !== undefined && o.sides !== "two" && o.sides !== "one")
+    throw new RangeError(`sides must be "two" or "one" (got ${String(o.sides)})`);
   const zA = normalQuantile(o.sides === "one" ? 1 - rir : 1 - rir / 2);
   const zB = normalQuantile(1 - ria);
   const plannedAllowance = ((tolerable - expected) * zA) / (zA + zB);

@@ -12,14 +12,30 @@ import { buildKnexConfig } from "../../../db/knex-config";
 const port = Number(process.argv[2]);
 const db = knex(buildKnexConfig(process.env));
 
-async function save(itemId: number, input: { version: number; status: "not-started" | "done" | "not-auditable"; auditedValue: string; comment?: string }) {
+async function save(
+  itemId: number,
+  input: { version: number; status: "not-started" | "done" | "not-auditable"; auditedValue: string; comment?: string },
+) {
   return db.transaction(async (trx) => {
     const before = await trx("sample_items").where({ id: itemId }).forUpdate().first("version");
     if (!before) return { status: 404, body: { error: "no such item" } };
     if (Number(before.version) !== input.version) return { status: 409, body: { error: "stale" } };
-    await trx("sample_items").where({ id: itemId }).update({ status: input.status, audited_value: input.auditedValue, comment: input.comment ?? null, version: input.version + 1, updated_at: trx.fn.now(3) });
+    await trx("sample_items")
+      .where({ id: itemId })
+      .update({
+        status: input.status,
+        audited_value: input.auditedValue,
+        comment: input.comment ?? null,
+        version: input.version + 1,
+        updated_at: trx.fn.now(3),
+      });
     const after = (await trx("sample_items").where({ id: itemId }).first("id", "version", "audited_value"))!;
-    return { status: 200, body: { item: { id: Number(after.id), version: Number(after.version), auditedValue: String(after.audited_value) } } };
+    return {
+      status: 200,
+      body: {
+        item: { id: Number(after.id), version: Number(after.version), auditedValue: String(after.audited_value) },
+      },
+    };
   });
 }
 
@@ -34,10 +50,20 @@ const server = http.createServer((req, res) => {
   req.on("data", (c: Buffer) => chunks.push(c));
   req.on("end", () => {
     save(Number(match[1]), JSON.parse(Buffer.concat(chunks).toString("utf8")) as Parameters<typeof save>[1]).then(
-      (r) => { res.statusCode = r.status; res.setHeader("content-type", "application/json"); res.end(JSON.stringify(r.body)); },
-      (err: unknown) => { res.statusCode = 500; res.end(String(err)); },
+      (r) => {
+        res.statusCode = r.status;
+        res.setHeader("content-type", "application/json");
+        res.end(JSON.stringify(r.body));
+      },
+      (err: unknown) => {
+        res.statusCode = 500;
+        res.end(String(err));
+      },
     );
   });
 });
 server.listen(port, "127.0.0.1");
-process.on("SIGTERM", () => { server.close(); void db.destroy(); });
+process.on("SIGTERM", () => {
+  server.close();
+  void db.destroy();
+});

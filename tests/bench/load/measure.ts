@@ -1,13 +1,27 @@
 import autocannon from "autocannon";
 
-export interface Figures { requests: number; rps: number; p50: number; p95: number; p99: number; max: number; errors: number; statuses: Record<string, number> }
+export interface Figures {
+  requests: number;
+  rps: number;
+  p50: number;
+  p95: number;
+  p99: number;
+  max: number;
+  errors: number;
+  statuses: Record<string, number>;
+}
 
 export function percentile(sorted: number[], p: number): number {
   if (sorted.length === 0) return Number.NaN;
   return sorted[Math.min(sorted.length - 1, Math.ceil((p / 100) * sorted.length) - 1)];
 }
 
-export type Setup = (context: Record<string, unknown>) => { path: string; method?: string; headers: Record<string, string>; body?: string };
+export type Setup = (context: Record<string, unknown>) => {
+  path: string;
+  method?: string;
+  headers: Record<string, string>;
+  body?: string;
+};
 export type OnAnswer = (status: number, body: string, context: Record<string, unknown>) => void;
 
 /**
@@ -15,7 +29,14 @@ export type OnAnswer = (status: number, body: string, context: Record<string, un
  * (each connection keeps its own context: its user's cookie). Latency per answer is measured here
  * from the moment the request is prepared (pipelining 1: it is written at once), so p95 exists.
  */
-export async function hammer(a: { url: string; connections: number; durationS: number; setup: Setup; onAnswer?: OnAnswer; ok: (status: number) => boolean }): Promise<Figures> {
+export async function hammer(a: {
+  url: string;
+  connections: number;
+  durationS: number;
+  setup: Setup;
+  onAnswer?: OnAnswer;
+  ok: (status: number) => boolean;
+}): Promise<Figures> {
   const latencies: number[] = [];
   const statuses: Record<string, number> = {};
   const result = await autocannon({
@@ -24,25 +45,34 @@ export async function hammer(a: { url: string; connections: number; durationS: n
     duration: a.durationS,
     pipelining: 1,
     timeout: 20,
-    requests: [{
-      setupRequest: (req: Record<string, unknown>, context: Record<string, unknown>) => {
-        const r = a.setup(context);
-        context.sentAt = performance.now();
-        return { ...req, method: r.method ?? "GET", path: r.path, headers: r.headers, body: r.body };
+    requests: [
+      {
+        setupRequest: (req: Record<string, unknown>, context: Record<string, unknown>) => {
+          const r = a.setup(context);
+          context.sentAt = performance.now();
+          return { ...req, method: r.method ?? "GET", path: r.path, headers: r.headers, body: r.body };
+        },
+        onResponse: (status: number, body: string, context: Record<string, unknown>) => {
+          latencies.push(performance.now() - (context.sentAt as number));
+          statuses[status] = (statuses[status] ?? 0) + 1;
+          a.onAnswer?.(status, body, context);
+        },
       },
-      onResponse: (status: number, body: string, context: Record<string, unknown>) => {
-        latencies.push(performance.now() - (context.sentAt as number));
-        statuses[status] = (statuses[status] ?? 0) + 1;
-        a.onAnswer?.(status, body, context);
-      },
-    }],
+    ],
   } as unknown as autocannon.Options);
   latencies.sort((x, y) => x - y);
-  const bad = Object.entries(statuses).filter(([s]) => !a.ok(Number(s))).reduce((n, [, c]) => n + c, 0);
+  const bad = Object.entries(statuses)
+    .filter(([s]) => !a.ok(Number(s)))
+    .reduce((n, [, c]) => n + c, 0);
   return {
-    requests: latencies.length, rps: latencies.length / a.durationS,
-    p50: percentile(latencies, 50), p95: percentile(latencies, 95), p99: percentile(latencies, 99), max: latencies.at(-1) ?? Number.NaN,
-    errors: bad + result.errors + result.timeouts, statuses,
+    requests: latencies.length,
+    rps: latencies.length / a.durationS,
+    p50: percentile(latencies, 50),
+    p95: percentile(latencies, 95),
+    p99: percentile(latencies, 99),
+    max: latencies.at(-1) ?? Number.NaN,
+    errors: bad + result.errors + result.timeouts,
+    statuses,
   };
 }
 

@@ -1,7 +1,16 @@
 import type { Knex } from "knex";
 
-export interface Ack { itemId: number; version: number; value: string }
-export interface SaveLedger { acks: Ack[]; conflicts: number; unavailable: number; other: Record<string, number> }
+export interface Ack {
+  itemId: number;
+  version: number;
+  value: string;
+}
+export interface SaveLedger {
+  acks: Ack[];
+  conflicts: number;
+  unavailable: number;
+  other: Record<string, number>;
+}
 
 /** Shared between connections: the newest version each item is known to have, and what happened. */
 export class SaveTracker {
@@ -19,7 +28,16 @@ export class SaveTracker {
     const itemId = ids[Math.floor(Math.random() * ids.length)];
     const n = ++this.counter;
     const value = `${1000 + Math.floor(n / 100)}.${String(n % 100).padStart(2, "0")}`;
-    return { itemId, value, body: JSON.stringify({ version: this.known.get(itemId), status: "done", auditedValue: value, comment: `load save ${n}` }) };
+    return {
+      itemId,
+      value,
+      body: JSON.stringify({
+        version: this.known.get(itemId),
+        status: "done",
+        auditedValue: value,
+        comment: `load save ${n}`,
+      }),
+    };
   }
 
   answer(status: number, body: string, sent: { itemId: number; value: string }): void {
@@ -34,23 +52,42 @@ export class SaveTracker {
 }
 
 /** `unacknowledgedCommits`: saves the database committed whose answer never reached the caller (the connection died after COMMIT) — not lost, just unconfirmed. */
-export interface Verification { acked: number; lost: number; duplicateVersions: number; wrongFinal: number; unacknowledgedCommits: number; auditRows: number }
+export interface Verification {
+  acked: number;
+  lost: number;
+  duplicateVersions: number;
+  wrongFinal: number;
+  unacknowledgedCommits: number;
+  auditRows: number;
+}
 
 /**
  * Every acknowledged save must be in the database: its value in the item's audit trail at its
  * version, no two acknowledgements of one item share a version (that would be a lost update the
  * 409 check let through), and each item's final value is the newest acknowledgement's.
  */
-export async function verifySaves(db: Knex, { sampleId, initial, acks }: { sampleId: number; initial: Map<number, number>; acks: Ack[] }): Promise<Verification> {
-  const rows = await db("sample_items").whereIn("id", [...initial.keys()]).select("id", "version", "audited_value");
-  const audits = await db("audit_log").where({ sample_id: sampleId, entity: "sample_item", action: "record-result" }).select("entity_id", "after_json");
-  const audited = new Set(audits.map((a) => {
-    const after = typeof a.after_json === "string" ? JSON.parse(a.after_json) : a.after_json;
-    return `${a.entity_id}:${after.auditedValue}`;
-  }));
+export async function verifySaves(
+  db: Knex,
+  { sampleId, initial, acks }: { sampleId: number; initial: Map<number, number>; acks: Ack[] },
+): Promise<Verification> {
+  const rows = await db("sample_items")
+    .whereIn("id", [...initial.keys()])
+    .select("id", "version", "audited_value");
+  const audits = await db("audit_log")
+    .where({ sample_id: sampleId, entity: "sample_item", action: "record-result" })
+    .select("entity_id", "after_json");
+  const audited = new Set(
+    audits.map((a) => {
+      const after = typeof a.after_json === "string" ? JSON.parse(a.after_json) : a.after_json;
+      return `${a.entity_id}:${after.auditedValue}`;
+    }),
+  );
   const byItem = new Map<number, Ack[]>();
   for (const ack of acks) byItem.set(ack.itemId, [...(byItem.get(ack.itemId) ?? []), ack]);
-  let lost = 0, duplicateVersions = 0, wrongFinal = 0, unacknowledgedCommits = 0;
+  let lost = 0,
+    duplicateVersions = 0,
+    wrongFinal = 0,
+    unacknowledgedCommits = 0;
   for (const ack of acks) if (!audited.has(`${ack.itemId}:${ack.value}`)) lost++;
   for (const row of rows) {
     const list = (byItem.get(Number(row.id)) ?? []).sort((x, y) => x.version - y.version);

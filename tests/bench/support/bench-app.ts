@@ -68,7 +68,11 @@ function newestSourceMtime(dir: string): number {
 /** Builds into .next-bench when there is no build or a source file is newer than it. */
 export async function buildIfNeeded(log: (line: string) => void): Promise<void> {
   const buildId = path.join(ROOT, BENCH.distDir, "BUILD_ID");
-  const sources = Math.max(...["app", "lib", "db", "components", "templates"].filter((d) => existsSync(path.join(ROOT, d))).map((d) => newestSourceMtime(path.join(ROOT, d))));
+  const sources = Math.max(
+    ...["app", "lib", "db", "components", "templates"]
+      .filter((d) => existsSync(path.join(ROOT, d)))
+      .map((d) => newestSourceMtime(path.join(ROOT, d))),
+  );
   if (existsSync(buildId) && statSync(buildId).mtimeMs > sources && process.env.BENCH_REBUILD !== "1") return;
   log(`building the app into ${BENCH.distDir} (next build)…`);
   // next build rewrites tsconfig.json to add its dist folder's type paths: put it back afterwards.
@@ -79,7 +83,9 @@ export async function buildIfNeeded(log: (line: string) => void): Promise<void> 
   } catch (err) {
     // The tree is shared: someone's half-finished file can break the build. Say so and measure the last build.
     if (!existsSync(buildId)) throw err;
-    log(`WARNING: next build failed; measuring the previous build of ${statSync(buildId).mtime.toISOString()}:\n${String(err).slice(-1500)}`);
+    log(
+      `WARNING: next build failed; measuring the previous build of ${statSync(buildId).mtime.toISOString()}:\n${String(err).slice(-1500)}`,
+    );
   } finally {
     if (readFileSync(tsconfig, "utf8") !== saved) writeFileSync(tsconfig, saved);
   }
@@ -95,7 +101,11 @@ export interface RunningApp {
 async function assertPortFree(port: number, what: string): Promise<void> {
   await new Promise<void>((resolve, reject) => {
     const probe = net.createServer();
-    probe.once("error", () => reject(new Error(`port ${port} (${what}) is already in use on 127.0.0.1; stop what holds it or set BENCH_S3_PORT`)));
+    probe.once("error", () =>
+      reject(
+        new Error(`port ${port} (${what}) is already in use on 127.0.0.1; stop what holds it or set BENCH_S3_PORT`),
+      ),
+    );
     probe.listen(port, "127.0.0.1", () => probe.close(() => resolve()));
   });
 }
@@ -107,8 +117,20 @@ export async function startApp(logPath: string, nodeFlags: string[]): Promise<Ru
   await assertPortFree(BENCH.inboxPort, "mail inbox");
   await assertPortFree(BENCH.appPort, "app");
   const env = benchEnv();
-  const fakes = startService("storage fake", path.join(ROOT, "node_modules/.bin/tsx"), ["lib/fakes/run-fakes.ts"], env, logPath);
-  const server = startService("next start", process.execPath, [...nodeFlags, "node_modules/next/dist/bin/next", "start", "-H", "127.0.0.1", "-p", String(BENCH.appPort)], env, logPath);
+  const fakes = startService(
+    "storage fake",
+    path.join(ROOT, "node_modules/.bin/tsx"),
+    ["lib/fakes/run-fakes.ts"],
+    env,
+    logPath,
+  );
+  const server = startService(
+    "next start",
+    process.execPath,
+    [...nodeFlags, "node_modules/next/dist/bin/next", "start", "-H", "127.0.0.1", "-p", String(BENCH.appPort)],
+    env,
+    logPath,
+  );
   const app = {
     server,
     fakes,

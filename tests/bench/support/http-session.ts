@@ -52,14 +52,23 @@ export class HttpSession {
    * answer and when the last byte left (transferEndMs) and the answer arrived (responseMs), both
    * relative to the start.
    */
-  uploadFile<T>(path: string, filePath: string): Promise<{ status: number; body: T; transferEndMs: number; responseMs: number }> {
+  uploadFile<T>(
+    path: string,
+    filePath: string,
+  ): Promise<{ status: number; body: T; transferEndMs: number; responseMs: number }> {
     const url = new URL(this.baseUrl + path);
     const size = statSync(filePath).size;
     const start = performance.now();
     return new Promise((resolve, reject) => {
       let transferEndMs = Number.NaN;
       const req = http.request(
-        { host: url.hostname, port: url.port, path: url.pathname + url.search, method: "POST", headers: { cookie: this.cookieHeader(), "content-type": "text/csv", "content-length": size } },
+        {
+          host: url.hostname,
+          port: url.port,
+          path: url.pathname + url.search,
+          method: "POST",
+          headers: { cookie: this.cookieHeader(), "content-type": "text/csv", "content-length": size },
+        },
         (res) => {
           const chunks: Buffer[] = [];
           res.on("data", (c: Buffer) => chunks.push(c));
@@ -67,7 +76,12 @@ export class HttpSession {
             const responseMs = performance.now() - start;
             const text = Buffer.concat(chunks).toString("utf8");
             try {
-              resolve({ status: res.statusCode ?? 0, body: JSON.parse(text) as T, transferEndMs: Number.isNaN(transferEndMs) ? responseMs : transferEndMs, responseMs });
+              resolve({
+                status: res.statusCode ?? 0,
+                body: JSON.parse(text) as T,
+                transferEndMs: Number.isNaN(transferEndMs) ? responseMs : transferEndMs,
+                responseMs,
+              });
             } catch {
               reject(new Error(`upload answered ${res.statusCode}: ${text.slice(0, 500)}`));
             }
@@ -77,15 +91,22 @@ export class HttpSession {
       );
       req.on("finish", () => (transferEndMs = performance.now() - start));
       req.on("error", reject);
-      createReadStream(filePath, { highWaterMark: 1 << 20 }).on("error", reject).pipe(req);
+      createReadStream(filePath, { highWaterMark: 1 << 20 })
+        .on("error", reject)
+        .pipe(req);
     });
   }
 
   /** POSTs JSON and reads an NDJSON answer line by line, calling `onEvent` with each line's time. */
   async ndjson<E>(path: string, body: unknown, onEvent: (event: E, atMs: number) => void): Promise<void> {
     const start = performance.now();
-    const res = await this.fetch(path, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify(body) });
-    if (!res.ok || !res.body) throw new Error(`POST ${path} answered ${res.status}: ${(await res.text()).slice(0, 500)}`);
+    const res = await this.fetch(path, {
+      method: "POST",
+      headers: { "content-type": "application/json" },
+      body: JSON.stringify(body),
+    });
+    if (!res.ok || !res.body)
+      throw new Error(`POST ${path} answered ${res.status}: ${(await res.text()).slice(0, 500)}`);
     const decoder = new TextDecoder();
     let pending = "";
     for await (const chunk of res.body as unknown as AsyncIterable<Uint8Array>) {

@@ -22,7 +22,10 @@ function amountToCents(text: string): bigint {
  * the second field from the right of every line.
  */
 export async function readLedgerTotals(filePath: string): Promise<LedgerTotals> {
-  const lines = createInterface({ input: createReadStream(filePath, { encoding: "utf8", highWaterMark: 1 << 20 }), crlfDelay: Infinity });
+  const lines = createInterface({
+    input: createReadStream(filePath, { encoding: "utf8", highWaterMark: 1 << 20 }),
+    crlfDelay: Infinity,
+  });
   let header: string[] | null = null;
   let rows = 0;
   let totalCents = 0n;

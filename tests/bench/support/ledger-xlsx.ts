@@ -9,7 +9,11 @@ import Papa from "papaparse";
  * same totals from either file.
  */
 export async function csvToXlsx(csvPath: string, xlsxPath: string): Promise<number> {
-  const workbook = new ExcelJS.stream.xlsx.WorkbookWriter({ filename: xlsxPath, useSharedStrings: true, useStyles: true });
+  const workbook = new ExcelJS.stream.xlsx.WorkbookWriter({
+    filename: xlsxPath,
+    useSharedStrings: true,
+    useStyles: true,
+  });
   const sheet = workbook.addWorksheet("Ledger");
   let header: string[] | null = null;
   let rows = 0;

@@ -15,7 +15,13 @@ export interface Service {
 }
 
 /** Starts a long-running process in its own process group, its output appended to `logPath`. */
-export function startService(name: string, command: string, args: string[], env: NodeJS.ProcessEnv, logPath: string): Service {
+export function startService(
+  name: string,
+  command: string,
+  args: string[],
+  env: NodeJS.ProcessEnv,
+  logPath: string,
+): Service {
   const log = createWriteStream(logPath, { flags: "a" });
   const child = spawn(command, args, { cwd: ROOT, env, stdio: ["ignore", "pipe", "pipe"], detached: true });
   // end: false — a killed server's helpers (a Galera node's state-transfer scripts) may still write
@@ -47,7 +53,8 @@ export async function stopService(service: Service, graceMs = 5000): Promise<voi
 export async function waitForHttp(url: string, service: Service, timeoutMs = 60_000): Promise<void> {
   const deadline = Date.now() + timeoutMs;
   while (Date.now() < deadline) {
-    if (service.child.exitCode !== null) throw new Error(`${service.name} exited with code ${service.child.exitCode} before answering ${url}`);
+    if (service.child.exitCode !== null)
+      throw new Error(`${service.name} exited with code ${service.child.exitCode} before answering ${url}`);
     try {
       const res = await fetch(url, { redirect: "manual" });
       await res.arrayBuffer();
@@ -61,7 +68,12 @@ export async function waitForHttp(url: string, service: Service, timeoutMs = 60_
 }
 
 /** Runs a command to completion, throwing with its output when it fails. */
-export async function run(command: string, args: string[], env: NodeJS.ProcessEnv = process.env, input?: string): Promise<string> {
+export async function run(
+  command: string,
+  args: string[],
+  env: NodeJS.ProcessEnv = process.env,
+  input?: string,
+): Promise<string> {
   const child = spawn(command, args, { cwd: ROOT, env, stdio: ["pipe", "pipe", "pipe"] });
   let out = "";
   child.stdout.on("data", (d: Buffer) => (out += d.toString()));

@@ -11,7 +11,22 @@ export interface MariaDbClient {
 
 /** Runs SQL through Debian's mariadb client on the private server's socket (password via MYSQL_PWD). */
 export function mariadb(c: MariaDbClient, sql: string, extraArgs: string[] = []): Promise<string> {
-  return run("mariadb", ["--no-defaults", ...extraArgs, `--socket=${c.socket}`, "-u", c.user, "--batch", "--skip-column-names", c.database, "-e", sql], { ...process.env, MYSQL_PWD: c.password });
+  return run(
+    "mariadb",
+    [
+      "--no-defaults",
+      ...extraArgs,
+      `--socket=${c.socket}`,
+      "-u",
+      c.user,
+      "--batch",
+      "--skip-column-names",
+      c.database,
+      "-e",
+      sql,
+    ],
+    { ...process.env, MYSQL_PWD: c.password },
+  );
 }
 
 /** Same column types and indexes as population_items (db/migrations/20261202_0004_populations.ts). */
@@ -35,7 +50,12 @@ const SCRATCH_TABLE = `
  * scratch table, storing the same fields our import stores (ref, description, date, amount, and
  * the other two columns as JSON). Returns seconds (and the server's CPU seconds) for the LOAD DATA statement alone, and its row count.
  */
-export async function rawLoad(c: MariaDbClient, csvPath: string, lineEnding: "\n" | "\r\n", dbPid: number): Promise<{ seconds: number; dbCpuS: number; rows: number; warnings: string }> {
+export async function rawLoad(
+  c: MariaDbClient,
+  csvPath: string,
+  lineEnding: "\n" | "\r\n",
+  dbPid: number,
+): Promise<{ seconds: number; dbCpuS: number; rows: number; warnings: string }> {
   await mariadb(c, SCRATCH_TABLE);
   const file = path.resolve(csvPath).replace(/\\/g, "\\\\").replace(/'/g, "\\'");
   const lines = lineEnding === "\r\n" ? "\\r\\n" : "\\n";

@@ -6,6 +6,7 @@ export function median(values: number[]): number {
 /** A fixed-width text table, first column left-aligned and the rest right-aligned. */
 export function formatTable(head: string[], rows: string[][]): string {
   const widths = head.map((h, i) => Math.max(h.length, ...rows.map((r) => r[i].length)));
-  const line = (cells: string[]) => cells.map((c, i) => (i === 0 ? c.padEnd(widths[i]) : c.padStart(widths[i]))).join("  ");
+  const line = (cells: string[]) =>
+    cells.map((c, i) => (i === 0 ? c.padEnd(widths[i]) : c.padStart(widths[i]))).join("  ");
   return [line(head), widths.map((w) => "-".repeat(w)).join("  "), ...rows.map(line)].join("\n");
 }

@@ -4,7 +4,10 @@ import { expect, type Locator, type Page } from "@playwright/test";
 export class AdvisorPanel {
   readonly root: Locator;
   constructor(private readonly page: Page) {
-    this.root = page.getByRole("region", { name: "Estimator advisor" }).or(page.locator("section").filter({ has: page.getByRole("heading", { name: "Estimator advisor" }) })).first();
+    this.root = page
+      .getByRole("region", { name: "Estimator advisor" })
+      .or(page.locator("section").filter({ has: page.getByRole("heading", { name: "Estimator advisor" }) }))
+      .first();
   }
 
   field(label: string | RegExp) {

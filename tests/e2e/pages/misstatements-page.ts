@@ -6,7 +6,10 @@ export class MisstatementsPage {
 
   async openFromEngagement(engagementId: number) {
     await this.page.goto(`/engagements/${engagementId}`);
-    await this.page.getByRole("navigation", { name: "Engagement" }).getByRole("link", { name: "Summary of misstatements" }).click();
+    await this.page
+      .getByRole("navigation", { name: "Engagement" })
+      .getByRole("link", { name: "Summary of misstatements" })
+      .click();
     await expect(this.page.getByRole("heading", { level: 1, name: "Summary of misstatements" })).toBeVisible();
   }
 
@@ -14,7 +17,15 @@ export class MisstatementsPage {
     return this.page.getByTestId("summary-status");
   }
 
-  async addMisstatement(v: { kind: string; account: string; assertion: string; description: string; amount: string; incomeEffect: string; balanceEffect: string }) {
+  async addMisstatement(v: {
+    kind: string;
+    account: string;
+    assertion: string;
+    description: string;
+    amount: string;
+    incomeEffect: string;
+    balanceEffect: string;
+  }) {
     const form = this.page.getByRole("form", { name: "Add a misstatement" });
     await form.getByLabel("Kind").selectOption({ label: v.kind });
     await form.getByLabel("Account").fill(v.account);

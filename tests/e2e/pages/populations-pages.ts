@@ -14,7 +14,14 @@ export class LoadLedgerPage {
     await expect(this.page.getByRole("table", { name: "File preview" })).toBeVisible();
   }
 
-  async mapColumns(m: { itemRef: string; bookValue: string; description?: string; date?: string; keep?: string[]; name: string }) {
+  async mapColumns(m: {
+    itemRef: string;
+    bookValue: string;
+    description?: string;
+    date?: string;
+    keep?: string[];
+    name: string;
+  }) {
     await this.page.getByLabel("Item reference").selectOption(m.itemRef);
     await this.page.getByLabel("Book value").selectOption(m.bookValue);
     await this.page.getByLabel("Description").selectOption(m.description ?? "");

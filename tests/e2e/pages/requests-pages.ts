@@ -3,16 +3,25 @@ import { expect, type Page } from "@playwright/test";
 const SLOT = Number(process.env.E2E_SLOT ?? 0);
 const INBOX = `http://127.0.0.1:${2695 + SLOT * 10}/messages`; // the e2e server's SMTP fake (playwright.config.ts)
 
-interface Message { to: string[]; subject: string; text: string }
+interface Message {
+  to: string[];
+  subject: string;
+  text: string;
+}
 
 /** Polls the e2e server's fake inbox for a message to `email` whose subject matches. */
 export async function waitForMail(email: string, subject: RegExp, timeoutMs = 10_000): Promise<Message> {
   const deadline = Date.now() + timeoutMs;
   for (;;) {
     const messages = (await (await fetch(INBOX)).json()) as Message[];
-    const found = messages.find((m) => m.to.some((t) => t.toLowerCase() === email.toLowerCase()) && subject.test(m.subject));
+    const found = messages.find(
+      (m) => m.to.some((t) => t.toLowerCase() === email.toLowerCase()) && subject.test(m.subject),
+    );
     if (found) return found;
-    if (Date.now() > deadline) throw new Error(`no mail to ${email} matching ${subject}; inbox: ${messages.map((m) => `${m.to.join(", ")}: ${m.subject}`).join("; ")}`);
+    if (Date.now() > deadline)
+      throw new Error(
+        `no mail to ${email} matching ${subject}; inbox: ${messages.map((m) => `${m.to.join(", ")}: ${m.subject}`).join("; ")}`,
+      );
     await new Promise((r) => setTimeout(r, 200));
   }
 }
@@ -54,14 +63,18 @@ export class ClientRequestPage {
   constructor(private readonly page: Page) {}
 
   item(itemRef: string) {
-    return this.page.getByRole("listitem").filter({ has: this.page.getByRole("heading", { name: new RegExp(itemRef) }) });
+    return this.page
+      .getByRole("listitem")
+      .filter({ has: this.page.getByRole("heading", { name: new RegExp(itemRef) }) });
   }
 
   async upload(itemRef: string, files: { name: string; mimeType: string; buffer: Buffer }[]) {
     const item = this.item(itemRef);
     await item.getByLabel(`Files for ${itemRef}`).setInputFiles(files);
     await item.getByRole("button", { name: files.length > 1 ? `Upload ${files.length} files` : "Upload" }).click();
-    await expect(item.getByText(`${files.length} file${files.length === 1 ? "" : "s"} sent to the audit team.`)).toBeVisible();
+    await expect(
+      item.getByText(`${files.length} file${files.length === 1 ? "" : "s"} sent to the audit team.`),
+    ).toBeVisible();
   }
 
   async note(itemRef: string, text: string) {

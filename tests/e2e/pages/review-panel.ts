@@ -22,7 +22,12 @@ export class ReviewPanelPage {
   async signOff(as: "preparer" | "reviewer") {
     await this.page.getByRole("button", { name: `Sign off as ${as}` }).click();
     // The panel's own message (the button then reads "Signed off as …", disabled, with why beside it).
-    await expect(this.page.getByRole("status").filter({ hasText: as === "preparer" ? "Signed off as preparer; the reviewers have been told." : /^Signed off as reviewer\.$/ })).toBeVisible();
+    await expect(
+      this.page.getByRole("status").filter({
+        hasText:
+          as === "preparer" ? "Signed off as preparer; the reviewers have been told." : /^Signed off as reviewer\.$/,
+      }),
+    ).toBeVisible();
   }
 
   async raiseNote(text: string) {

@@ -70,7 +70,11 @@ export class SamplePage {
   }
 
   /** Keys in one item's result and saves it, waiting until the row shows who saved it. */
-  async record(itemRef: string, r: { audited?: string; status?: string; cause?: string; causeNote?: string; comment?: string }, savedBy?: string) {
+  async record(
+    itemRef: string,
+    r: { audited?: string; status?: string; cause?: string; causeNote?: string; comment?: string },
+    savedBy?: string,
+  ) {
     const row = this.row(itemRef);
     if (r.status) await row.getByLabel(`Status of ${itemRef}`).selectOption({ label: r.status });
     if (r.audited !== undefined) await row.getByLabel(`Audited value of ${itemRef}`).fill(r.audited);

@@ -26,7 +26,13 @@ export function exportedMethods(source: string): string[] {
   const found = new Set<string>();
   for (const m of source.matchAll(/export\s+(?:const|let|async\s+function|function)\s+([A-Z]+)\b/g)) found.add(m[1]);
   for (const m of source.matchAll(/export\s*\{([^}]*)\}/g)) {
-    for (const part of m[1].split(",")) found.add(part.split(/\s+as\s+/).pop()!.trim());
+    for (const part of m[1].split(","))
+      found.add(
+        part
+          .split(/\s+as\s+/)
+          .pop()!
+          .trim(),
+      );
   }
   return HTTP_METHODS.filter((method) => found.has(method));
 }
@@ -34,7 +40,9 @@ export function exportedMethods(source: string): string[] {
 /** Every route handler under app/ as "METHOD /url/[param]". */
 export function discoverRouteHandlers(): string[] {
   const files = walk(path.join(ROOT, "app"), (f) => /[\\/]route\.(ts|tsx|js|mjs)$/.test(f));
-  return files.flatMap((file) => exportedMethods(readFileSync(file, "utf8")).map((method) => `${method} ${urlPatternOf(file)}`)).sort();
+  return files
+    .flatMap((file) => exportedMethods(readFileSync(file, "utf8")).map((method) => `${method} ${urlPatternOf(file)}`))
+    .sort();
 }
 
 /** Every server action: each export of a "use server" module, and each function marked "use server" inline. */
@@ -49,7 +57,9 @@ export function discoverServerActions(): string[] {
     const moduleLevel = /^\s*(?:\/\/.*\n|\/\*[\s\S]*?\*\/\s*)*["']use server["']/.test(source);
     const names = moduleLevel
       ? [...source.matchAll(/export\s+(?:const|async\s+function|function)\s+(\w+)/g)].map((m) => m[1])
-      : [...source.matchAll(/(?:async\s+function\s+(\w+)|const\s+(\w+)\s*=\s*async)[^{]*\{\s*["']use server["']/g)].map((m) => m[1] ?? m[2]);
+      : [...source.matchAll(/(?:async\s+function\s+(\w+)|const\s+(\w+)\s*=\s*async)[^{]*\{\s*["']use server["']/g)].map(
+          (m) => m[1] ?? m[2],
+        );
     actions.push(...names.map((name) => `action ${rel}#${name}`));
   }
   return actions.sort();

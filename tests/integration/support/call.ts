@@ -18,7 +18,11 @@ function buildRequest(method: string, { body, rawBody, file, headers = {}, query
   const init: RequestInit & { duplex?: string } = { method, headers: { ...headers } };
   if (file !== undefined) {
     init.body = file as Uint8Array<ArrayBuffer>;
-    init.headers = { "content-type": "application/octet-stream", "content-length": String(file.byteLength), ...headers };
+    init.headers = {
+      "content-type": "application/octet-stream",
+      "content-length": String(file.byteLength),
+      ...headers,
+    };
   } else if (rawBody !== undefined || body !== undefined) {
     init.body = rawBody ?? JSON.stringify(body);
     init.headers = { "content-type": "application/json", ...headers };
@@ -43,7 +47,11 @@ export async function call(handler: RouteHandler, method: string, options: CallO
 export async function callEvents(handler: RouteHandler, method: string, options: CallOptions) {
   const res = await callRaw(handler, method, options);
   const text = await res.text();
-  if (!res.headers.get("content-type")?.includes("ndjson")) return { status: res.status, events: [], json: text ? JSON.parse(text) : null };
-  const events = text.split("\n").filter(Boolean).map((line) => JSON.parse(line));
+  if (!res.headers.get("content-type")?.includes("ndjson"))
+    return { status: res.status, events: [], json: text ? JSON.parse(text) : null };
+  const events = text
+    .split("\n")
+    .filter(Boolean)
+    .map((line) => JSON.parse(line));
   return { status: res.status, events, json: null, last: events.at(-1) };
 }

@@ -16,8 +16,13 @@ export async function makeFirm() {
 export async function makeUser(firmId: number, grade: Grade, opts: { admin?: boolean; active?: boolean } = {}) {
   const n = ++counter;
   const [id] = await getDb()("users").insert({
-    firm_id: firmId, email: `u${n}-${run}-${grade}@test.example`, name: `Person ${n} (${grade})`, grade,
-    firm_role: opts.admin ? "admin" : "member", active: opts.active ?? true, password_hash: hash,
+    firm_id: firmId,
+    email: `u${n}-${run}-${grade}@test.example`,
+    name: `Person ${n} (${grade})`,
+    grade,
+    firm_role: opts.admin ? "admin" : "member",
+    active: opts.active ?? true,
+    password_hash: hash,
   });
   return id;
 }
@@ -25,10 +30,17 @@ export async function makeUser(firmId: number, grade: Grade, opts: { admin?: boo
 export async function makeEngagement(firmId: number, createdBy: number, team: [number, MembershipRole][]) {
   const db = getDb();
   const [id] = await db("engagements").insert({
-    firm_id: firmId, client_name: `Client ${++counter}`, name: "Audit", period_end: "2026-12-31", currency: "USD",
-    overall_materiality: "100000.00", performance_materiality: "75000.00", created_by: createdBy,
+    firm_id: firmId,
+    client_name: `Client ${++counter}`,
+    name: "Audit",
+    period_end: "2026-12-31",
+    currency: "USD",
+    overall_materiality: "100000.00",
+    performance_materiality: "75000.00",
+    created_by: createdBy,
   });
-  for (const [userId, role] of team) await db("engagement_members").insert({ engagement_id: id, user_id: userId, role });
+  for (const [userId, role] of team)
+    await db("engagement_members").insert({ engagement_id: id, user_id: userId, role });
   return id;
 }
 

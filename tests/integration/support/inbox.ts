@@ -16,7 +16,10 @@ export async function clearInbox(): Promise<void> {
 }
 
 /** Polls the inbox until a message matches; fails naming what did arrive. */
-export async function waitForMessage(predicate: (m: CaughtMessage) => boolean, timeoutMs = 5_000): Promise<CaughtMessage> {
+export async function waitForMessage(
+  predicate: (m: CaughtMessage) => boolean,
+  timeoutMs = 5_000,
+): Promise<CaughtMessage> {
   const deadline = Date.now() + timeoutMs;
   for (;;) {
     const messages = await readInbox();
@@ -31,4 +34,5 @@ export async function waitForMessage(predicate: (m: CaughtMessage) => boolean, t
 }
 
 /** Messages addressed to one person. */
-export const addressedTo = (email: string) => (m: CaughtMessage) => m.to.some((a) => a.toLowerCase() === email.toLowerCase());
+export const addressedTo = (email: string) => (m: CaughtMessage) =>
+  m.to.some((a) => a.toLowerCase() === email.toLowerCase());

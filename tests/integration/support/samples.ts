@@ -20,32 +20,95 @@ export const CANONICAL_SHA256 = "5952c03fa993e6c3f9ced11c4e18a47b10b687fbc16908b
 
 /** Loads and reconciles the canonical population; returns its id. */
 export async function loadCanonicalPopulation(as: number, engagementId: number) {
-  const { up, loaded } = await uploadAndLoad(as, engagementId, "canonical.csv", CANONICAL_CSV, { itemRefColumn: "id", bookValueColumn: "book_value" });
+  const { up, loaded } = await uploadAndLoad(as, engagementId, "canonical.csv", CANONICAL_CSV, {
+    itemRefColumn: "id",
+    bookValueColumn: "book_value",
+  });
   if (loaded?.last?.type !== "loaded") throw new Error(`load failed: ${JSON.stringify(loaded?.last ?? up.json)}`);
   const populationId = loaded.last.populationId as number;
-  const r = await call(reconcile.POST, "POST", { as, params: { engagementId: String(engagementId), populationId: String(populationId) }, body: { controlTotal: loaded.last.total, controlCount: loaded.last.rowCount } });
+  const r = await call(reconcile.POST, "POST", {
+    as,
+    params: { engagementId: String(engagementId), populationId: String(populationId) },
+    body: { controlTotal: loaded.last.total, controlCount: loaded.last.rowCount },
+  });
   if (r.status !== 200) throw new Error(`reconcile failed: ${JSON.stringify(r.json)}`);
   return { populationId, sha256: up.json.upload.sha256 as string };
 }
 
 export const planSample = (as: number, engagementId: number, body: Record<string, unknown>) =>
-  call(samples.POST, "POST", { as, params: { engagementId: String(engagementId) }, body: { name: "Test sample", objective: "Test the existence of receivables", assertion: "Existence", direction: "overstatement", ...body } });
+  call(samples.POST, "POST", {
+    as,
+    params: { engagementId: String(engagementId) },
+    body: {
+      name: "Test sample",
+      objective: "Test the existence of receivables",
+      assertion: "Existence",
+      direction: "overstatement",
+      ...body,
+    },
+  });
 
 export const drawSample = (as: number, engagementId: number, sampleId: number, seed?: number) =>
-  call(draw.POST, "POST", { as, params: { engagementId: String(engagementId), sampleId: String(sampleId) }, body: seed === undefined ? {} : { seed } });
+  call(draw.POST, "POST", {
+    as,
+    params: { engagementId: String(engagementId), sampleId: String(sampleId) },
+    body: seed === undefined ? {} : { seed },
+  });
 
 export async function listSampleItems(as: number, engagementId: number, sampleId: number) {
-  const r = await call(items.GET, "GET", { as, params: { engagementId: String(engagementId), sampleId: String(sampleId) }, query: { pageSize: "500" } });
-  return r.json.items as { id: number; itemRef: string; bookValue: string; version: number; topStratum: boolean; selectionOrder: number; hitPoints: number[] | null; populationRowNumber: number; status: string }[];
+  const r = await call(items.GET, "GET", {
+    as,
+    params: { engagementId: String(engagementId), sampleId: String(sampleId) },
+    query: { pageSize: "500" },
+  });
+  return r.json.items as {
+    id: number;
+    itemRef: string;
+    bookValue: string;
+    version: number;
+    topStratum: boolean;
+    selectionOrder: number;
+    hitPoints: number[] | null;
+    populationRowNumber: number;
+    status: string;
+  }[];
 }
 
-export const saveResult = (as: number, engagementId: number, sampleId: number, itemId: number, body: Record<string, unknown>) =>
-  call(item.PATCH, "PATCH", { as, params: { engagementId: String(engagementId), sampleId: String(sampleId), itemId: String(itemId) }, body });
+export const saveResult = (
+  as: number,
+  engagementId: number,
+  sampleId: number,
+  itemId: number,
+  body: Record<string, unknown>,
+) =>
+  call(item.PATCH, "PATCH", {
+    as,
+    params: { engagementId: String(engagementId), sampleId: String(sampleId), itemId: String(itemId) },
+    body,
+  });
 
 export async function getEvaluation(as: number, engagementId: number, sampleId: number) {
-  return (await call(evaluation.GET, "GET", { as, params: { engagementId: String(engagementId), sampleId: String(sampleId) } })).json.evaluation;
+  return (
+    await call(evaluation.GET, "GET", {
+      as,
+      params: { engagementId: String(engagementId), sampleId: String(sampleId) },
+    })
+  ).json.evaluation;
 }
 
 /** The preparer records the auditor's conclusion (with a response, valid whether or not one is called for). */
-export const concludeSample = (as: number, engagementId: number, sampleId: number, body: Record<string, unknown> = {}) =>
-  call(conclusion.PUT, "PUT", { as, params: { engagementId: String(engagementId), sampleId: String(sampleId) }, body: { conclusion: "Based on this sample and our judgement, the balance is not materially misstated.", responses: [{ kind: "alternative-procedures", note: "Subsequent receipts agreed" }], ...body } });
+export const concludeSample = (
+  as: number,
+  engagementId: number,
+  sampleId: number,
+  body: Record<string, unknown> = {},
+) =>
+  call(conclusion.PUT, "PUT", {
+    as,
+    params: { engagementId: String(engagementId), sampleId: String(sampleId) },
+    body: {
+      conclusion: "Based on this sample and our judgement, the balance is not materially misstated.",
+      responses: [{ kind: "alternative-procedures", note: "Subsequent receipts agreed" }],
+      ...body,
+    },
+  });

@@ -15,11 +15,23 @@ export function buildZip(entries: { name: string; data: Buffer; declaredSize?: n
     const crc = crc32(e.data);
     const size = e.declaredSize ?? e.data.length;
     const local = Buffer.alloc(30);
-    local.writeUInt32LE(0x04034b50, 0); local.writeUInt16LE(20, 4); local.writeUInt16LE(0, 6); local.writeUInt16LE(8, 8);
-    local.writeUInt32LE(crc, 14); local.writeUInt32LE(compressed.length, 18); local.writeUInt32LE(size, 22); local.writeUInt16LE(name.length, 26);
+    local.writeUInt32LE(0x04034b50, 0);
+    local.writeUInt16LE(20, 4);
+    local.writeUInt16LE(0, 6);
+    local.writeUInt16LE(8, 8);
+    local.writeUInt32LE(crc, 14);
+    local.writeUInt32LE(compressed.length, 18);
+    local.writeUInt32LE(size, 22);
+    local.writeUInt16LE(name.length, 26);
     const central = Buffer.alloc(46);
-    central.writeUInt32LE(0x02014b50, 0); central.writeUInt16LE(20, 4); central.writeUInt16LE(20, 6); central.writeUInt16LE(8, 10);
-    central.writeUInt32LE(crc, 16); central.writeUInt32LE(compressed.length, 20); central.writeUInt32LE(size, 24); central.writeUInt16LE(name.length, 28);
+    central.writeUInt32LE(0x02014b50, 0);
+    central.writeUInt16LE(20, 4);
+    central.writeUInt16LE(20, 6);
+    central.writeUInt16LE(8, 10);
+    central.writeUInt32LE(crc, 16);
+    central.writeUInt32LE(compressed.length, 20);
+    central.writeUInt32LE(size, 24);
+    central.writeUInt16LE(name.length, 28);
     central.writeUInt32LE(offset, 42);
     locals.push(local, name, compressed);
     centrals.push(central, name);
@@ -27,8 +39,11 @@ export function buildZip(entries: { name: string; data: Buffer; declaredSize?: n
   }
   const directory = Buffer.concat(centrals);
   const end = Buffer.alloc(22);
-  end.writeUInt32LE(0x06054b50, 0); end.writeUInt16LE(entries.length, 8); end.writeUInt16LE(entries.length, 10);
-  end.writeUInt32LE(directory.length, 12); end.writeUInt32LE(offset, 16);
+  end.writeUInt32LE(0x06054b50, 0);
+  end.writeUInt16LE(entries.length, 8);
+  end.writeUInt16LE(entries.length, 10);
+  end.writeUInt32LE(directory.length, 12);
+  end.writeUInt32LE(offset, 16);
   return Buffer.concat([...locals, directory, end]);
 }
 
@@ -38,7 +53,10 @@ const WORKBOOK = `<?xml version="1.0" encoding="UTF-8"?><workbook xmlns="http://
 const WORKBOOK_RELS = `<?xml version="1.0" encoding="UTF-8"?><Relationships xmlns="http://schemas.openxmlformats.org/package/2006/relationships"><Relationship Id="rId1" Type="http://schemas.openxmlformats.org/officeDocument/2006/relationships/worksheet" Target="worksheets/sheet1.xml"/></Relationships>`;
 
 /** An .xlsx whose one sheet is `sheetXml` (an OOXML package per ECMA-376 Part 2). */
-export function buildXlsx(sheetXml: Buffer, { sharedStrings, declaredSheetSize }: { sharedStrings?: Buffer; declaredSheetSize?: number } = {}): Buffer {
+export function buildXlsx(
+  sheetXml: Buffer,
+  { sharedStrings, declaredSheetSize }: { sharedStrings?: Buffer; declaredSheetSize?: number } = {},
+): Buffer {
   return buildZip([
     { name: "[Content_Types].xml", data: Buffer.from(CONTENT_TYPES) },
     { name: "_rels/.rels", data: Buffer.from(ROOT_RELS) },

@@ -17,7 +17,11 @@ describe("clientAddress", () => {
   });
 
   it("a client cannot change its bucket by rotating the header: the rightmost untrusted entry stays its own", () => {
-    const seen = new Set(Array.from({ length: 21 }, (_, i) => clientAddress({ "x-forwarded-for": `203.0.113.${i}, 198.51.100.7` }, frontDoor)));
+    const seen = new Set(
+      Array.from({ length: 21 }, (_, i) =>
+        clientAddress({ "x-forwarded-for": `203.0.113.${i}, 198.51.100.7` }, frontDoor),
+      ),
+    );
     expect([...seen]).toEqual(["198.51.100.7"]);
   });
 

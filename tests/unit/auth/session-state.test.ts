@@ -6,11 +6,17 @@ vi.mock("@/db/knex", () => ({ getDb: () => () => ({ where: () => ({ first: () =>
 
 const { authOptions, sessionState } = await import("@/lib/auth/options");
 
-const lost = () => Object.assign(new Error("Connection lost: The server closed the connection."), { code: "PROTOCOL_CONNECTION_LOST", fatal: true });
+const lost = () =>
+  Object.assign(new Error("Connection lost: The server closed the connection."), {
+    code: "PROTOCOL_CONNECTION_LOST",
+    fatal: true,
+  });
 const iat = Math.floor(Date.UTC(2026, 11, 3, 9) / 1000);
 
 describe("sessionState (a session checked against a password reset)", () => {
-  beforeEach(() => { lookup.result = () => Promise.resolve({ sessions_valid_after: null }); });
+  beforeEach(() => {
+    lookup.result = () => Promise.resolve({ sessions_valid_after: null });
+  });
 
   it("is valid without a reset, ended for a token issued before one", async () => {
     expect(await sessionState(7, iat)).toBe("valid");

@@ -8,9 +8,16 @@ const ctx = { itemRefs: new Map([["41", "INV-100218"]]) };
 
 describe("describeChange", () => {
   it("names the item, the field by its label and the values as the grid shows them", () => {
-    const r = describeChange({ entity: "sample_item", entityId: "41", action: "record-result",
-      before: { status: "not-started", auditedValue: null, cause: null, deviation: null, comment: null },
-      after: { status: "done", auditedValue: "1623.5", cause: "pricing", deviation: null, comment: "Price list" } }, ctx);
+    const r = describeChange(
+      {
+        entity: "sample_item",
+        entityId: "41",
+        action: "record-result",
+        before: { status: "not-started", auditedValue: null, cause: null, deviation: null, comment: null },
+        after: { status: "done", auditedValue: "1623.5", cause: "pricing", deviation: null, comment: "Price list" },
+      },
+      ctx,
+    );
     expect(r.what).toBe("Recorded a result");
     expect(r.subject).toBe("Item INV-100218");
     expect(r.changes).toEqual([
@@ -22,21 +29,51 @@ describe("describeChange", () => {
   });
 
   it("prints nested plan figures as words, never JSON", () => {
-    const r = describeChange({ entity: "sample", entityId: "7", action: "plan", before: null,
-      after: { name: "Receivables", params: { method: "mus", confidence: 0.95, tolerableMisstatement: "15000.00" } } }, ctx);
+    const r = describeChange(
+      {
+        entity: "sample",
+        entityId: "7",
+        action: "plan",
+        before: null,
+        after: { name: "Receivables", params: { method: "mus", confidence: 0.95, tolerableMisstatement: "15000.00" } },
+      },
+      ctx,
+    );
     expect(r.what).toBe("Planned the sample");
-    expect(r.changes).toContainEqual({ field: "Plan", before: "—", after: `Method ${METHOD_LABELS.mus}; Confidence 95%; Tolerable misstatement 15,000.00` });
+    expect(r.changes).toContainEqual({
+      field: "Plan",
+      before: "—",
+      after: `Method ${METHOD_LABELS.mus}; Confidence 95%; Tolerable misstatement 15,000.00`,
+    });
     expect(r.changes.filter((c) => /[{}"]/.test(c.after))).toEqual([]);
   });
 
   it("names the item of a note and falls back to words for an unknown action", () => {
-    expect(describeChange({ entity: "review_note", entityId: "3", action: "raise", before: null, after: { text: "Explain", itemId: 41 } }, ctx).changes)
-      .toEqual([{ field: "Note", before: "—", after: "Explain" }, { field: "Item", before: "—", after: "INV-100218" }]);
-    expect(describeChange({ entity: "sample", entityId: "1", action: "archive-thing", before: null, after: null }, ctx).what).toBe("Archive thing");
+    expect(
+      describeChange(
+        { entity: "review_note", entityId: "3", action: "raise", before: null, after: { text: "Explain", itemId: 41 } },
+        ctx,
+      ).changes,
+    ).toEqual([
+      { field: "Note", before: "—", after: "Explain" },
+      { field: "Item", before: "—", after: "INV-100218" },
+    ]);
+    expect(
+      describeChange({ entity: "sample", entityId: "1", action: "archive-thing", before: null, after: null }, ctx).what,
+    ).toBe("Archive thing");
   });
 
   it("prints a request list's due date, needs and contact as people read them, not as stored", () => {
-    const r = describeChange({ entity: "request_list", entityId: "5", action: "create", before: null, after: { title: "Invoices", contactUserId: 7, dueDate: "2026-12-13", needs: ["invoice", "delivery-note"] } }, ctx);
+    const r = describeChange(
+      {
+        entity: "request_list",
+        entityId: "5",
+        action: "create",
+        before: null,
+        after: { title: "Invoices", contactUserId: 7, dueDate: "2026-12-13", needs: ["invoice", "delivery-note"] },
+      },
+      ctx,
+    );
     expect(r.subject).toBe("Client request list");
     expect(r.changes).toEqual([
       { field: "Title", before: "—", after: "Invoices" },

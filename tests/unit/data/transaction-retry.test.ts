@@ -4,7 +4,11 @@ import { DEADLOCK_ATTEMPTS, deadlockRetries, isDeadlock, transactionWithRetry } 
 
 // MariaDB error 1213 ER_LOCK_DEADLOCK, "Deadlock found when trying to get lock; try restarting
 // transaction" (MariaDB error codes reference); Galera reports a certification conflict with it.
-const deadlock = () => Object.assign(new Error("Deadlock found when trying to get lock; try restarting transaction"), { errno: 1213, code: "ER_LOCK_DEADLOCK" });
+const deadlock = () =>
+  Object.assign(new Error("Deadlock found when trying to get lock; try restarting transaction"), {
+    errno: 1213,
+    code: "ER_LOCK_DEADLOCK",
+  });
 
 /** A stand-in for knex whose transaction() runs the work with failures queued up front. */
 function fakeDb(failures: Error[], isTransaction = false) {

@@ -25,24 +25,39 @@ describe("readAmount", () => {
   });
 
   it("refuses more than 2 decimals, text, formulas and dates with the reason", () => {
-    expect(readAmount({ kind: "number", value: 100.005 })).toMatchObject({ ok: false, reason: expect.stringMatching(/more than 2 decimals/) });
-    expect(readAmount({ kind: "text", value: "about 3000" })).toMatchObject({ ok: false, reason: expect.stringMatching(/^Text in an amount cell: "about 3000"/) });
-    expect(readAmount({ kind: "formula", formula: "D2*0.9" })).toMatchObject({ ok: false, reason: expect.stringMatching(/formula/) });
+    expect(readAmount({ kind: "number", value: 100.005 })).toMatchObject({
+      ok: false,
+      reason: expect.stringMatching(/more than 2 decimals/),
+    });
+    expect(readAmount({ kind: "text", value: "about 3000" })).toMatchObject({
+      ok: false,
+      reason: expect.stringMatching(/^Text in an amount cell: "about 3000"/),
+    });
+    expect(readAmount({ kind: "formula", formula: "D2*0.9" })).toMatchObject({
+      ok: false,
+      reason: expect.stringMatching(/formula/),
+    });
     expect(readAmount({ kind: "date", value: new Date("2026-12-31") })).toMatchObject({ ok: false });
   });
 });
 
 describe("readText and readYesNo", () => {
   it("keeps formula-looking text as text, refuses a real formula", () => {
-    expect(readText({ kind: "text", value: "=HYPERLINK(\"x\")" }, 100)).toEqual({ ok: true, value: "=HYPERLINK(\"x\")" });
+    expect(readText({ kind: "text", value: '=HYPERLINK("x")' }, 100)).toEqual({ ok: true, value: '=HYPERLINK("x")' });
     expect(readText({ kind: "formula", formula: "A1" }, 100)).toMatchObject({ ok: false });
-    expect(readText({ kind: "text", value: "x".repeat(101) }, 100)).toMatchObject({ ok: false, reason: expect.stringMatching(/at most 100/) });
+    expect(readText({ kind: "text", value: "x".repeat(101) }, 100)).toMatchObject({
+      ok: false,
+      reason: expect.stringMatching(/at most 100/),
+    });
   });
 
   it("reads yes/no answers", () => {
     expect(readYesNo({ kind: "text", value: "Yes" })).toEqual({ ok: true, value: true });
     expect(readYesNo({ kind: "text", value: "n" })).toEqual({ ok: true, value: false });
     expect(readYesNo({ kind: "boolean", value: true })).toEqual({ ok: true, value: true });
-    expect(readYesNo({ kind: "text", value: "maybe" })).toMatchObject({ ok: false, reason: expect.stringMatching(/not in the list \(Yes, No\)/) });
+    expect(readYesNo({ kind: "text", value: "maybe" })).toMatchObject({
+      ok: false,
+      reason: expect.stringMatching(/not in the list \(Yes, No\)/),
+    });
   });
 });

@@ -5,7 +5,8 @@ import { sniffEvidence, looksLikeEmail } from "@/lib/files/sniff-evidence";
 import { cfbEntryNames } from "@/lib/files/cfb-names";
 
 const ascii = (s: string) => new TextEncoder().encode(s);
-const bytes = (...parts: (number[] | string)[]) => new Uint8Array(parts.flatMap((p) => (typeof p === "string" ? [...ascii(p)] : p)));
+const bytes = (...parts: (number[] | string)[]) =>
+  new Uint8Array(parts.flatMap((p) => (typeof p === "string" ? [...ascii(p)] : p)));
 const kindOf = async (b: Uint8Array, name?: string) => {
   const s = await sniffEvidence(b, name);
   return s.ok ? s.kind : `refused: ${s.reason}`;
@@ -92,13 +93,27 @@ describe("sniffEvidence: Office Open XML packages (ECMA-376 Part 2, Open Packagi
   });
 
   it("a package with word/document.xml is a Word document", async () => {
-    expect(await kindOf(await zipOf({ "[Content_Types].xml": "<Types/>", "_rels/.rels": "<Relationships/>", "word/document.xml": "<w:document/>" }))).toBe("docx");
+    expect(
+      await kindOf(
+        await zipOf({
+          "[Content_Types].xml": "<Types/>",
+          "_rels/.rels": "<Relationships/>",
+          "word/document.xml": "<w:document/>",
+        }),
+      ),
+    ).toBe("docx");
   });
 
   it("refuses a package with macros, a plain zip, and a package of another kind", async () => {
-    expect(await kindOf(await zipOf({ "[Content_Types].xml": "<Types/>", "xl/workbook.xml": "<workbook/>", "xl/vbaProject.bin": "x" }))).toMatch(/contains macros/);
+    expect(
+      await kindOf(
+        await zipOf({ "[Content_Types].xml": "<Types/>", "xl/workbook.xml": "<workbook/>", "xl/vbaProject.bin": "x" }),
+      ),
+    ).toMatch(/contains macros/);
     expect(await kindOf(await zipOf({ "invoice.pdf": "%PDF-1.7" }))).toMatch(/zip archive, not an Office document/);
-    expect(await kindOf(await zipOf({ "[Content_Types].xml": "<Types/>", "ppt/presentation.xml": "<p/>" }))).toMatch(/neither an Excel workbook nor a Word document/);
+    expect(await kindOf(await zipOf({ "[Content_Types].xml": "<Types/>", "ppt/presentation.xml": "<p/>" }))).toMatch(
+      /neither an Excel workbook nor a Word document/,
+    );
   });
 
   it("refuses a truncated zip", async () => {
@@ -109,11 +124,22 @@ describe("sniffEvidence: Office Open XML packages (ECMA-376 Part 2, Open Packagi
 
 describe("sniffEvidence: compound files (MS-CFB signature D0 CF 11 E0 A1 B1 1A E1)", () => {
   it("reads the directory of a compound file", () => {
-    expect(cfbEntryNames(compoundFile(["Workbook", "\u0005SummaryInformation"]))).toEqual(["Root Entry", "Workbook", "\u0005SummaryInformation"]);
+    expect(cfbEntryNames(compoundFile(["Workbook", "\u0005SummaryInformation"]))).toEqual([
+      "Root Entry",
+      "Workbook",
+      "\u0005SummaryInformation",
+    ]);
   });
 
   it("follows the directory chain past its first sector", async () => {
-    const names = ["\u0005SummaryInformation", "\u0005DocumentSummaryInformation", "1Table", "Data", "CompObj", "WordDocument"];
+    const names = [
+      "\u0005SummaryInformation",
+      "\u0005DocumentSummaryInformation",
+      "1Table",
+      "Data",
+      "CompObj",
+      "WordDocument",
+    ];
     expect(cfbEntryNames(compoundFile(names))).toContain("WordDocument");
     expect(await kindOf(compoundFile(names))).toBe("doc");
   });
@@ -122,19 +148,24 @@ describe("sniffEvidence: compound files (MS-CFB signature D0 CF 11 E0 A1 B1 1A E
     expect(await kindOf(compoundFile(["Workbook"]))).toBe("xls");
     expect(await kindOf(compoundFile(["Book"]))).toBe("xls");
     expect(await kindOf(compoundFile(["WordDocument", "1Table"]))).toBe("doc");
-    expect(await kindOf(compoundFile(["__properties_version1.0", "__substg1.0_0037001F", "__recip_version1.0_#00000000"]))).toBe("msg");
+    expect(
+      await kindOf(compoundFile(["__properties_version1.0", "__substg1.0_0037001F", "__recip_version1.0_#00000000"])),
+    ).toBe("msg");
   });
 
   it("refuses macros, encrypted packages and other compound files", async () => {
     expect(await kindOf(compoundFile(["Workbook", "_VBA_PROJECT_CUR"]))).toMatch(/contains macros/);
     expect(await kindOf(compoundFile(["EncryptionInfo", "EncryptedPackage"]))).toMatch(/password-protected/);
-    expect(await kindOf(compoundFile(["PowerPoint Document"]))).toMatch(/neither an Excel workbook, a Word document nor an Outlook message/);
+    expect(await kindOf(compoundFile(["PowerPoint Document"]))).toMatch(
+      /neither an Excel workbook, a Word document nor an Outlook message/,
+    );
     expect(await kindOf(compoundFile(["Workbook"]).subarray(0, 600))).toMatch(/cannot be read/);
   });
 });
 
 // RFC 5322 Appendix A.1.1, "A Message from One Person to Another with Simple Addressing".
-const RFC5322_A11 = "From: John Doe <jdoe@machine.example>\r\nTo: Mary Smith <mary@example.net>\r\nSubject: Saying Hello\r\nDate: Fri, 21 Nov 1997 09:55:06 -0600\r\nMessage-ID: <1234@local.machine.example>\r\n\r\nThis is a message just to say hello.\r\nSo, \"Hello\".\r\n";
+const RFC5322_A11 =
+  'From: John Doe <jdoe@machine.example>\r\nTo: Mary Smith <mary@example.net>\r\nSubject: Saying Hello\r\nDate: Fri, 21 Nov 1997 09:55:06 -0600\r\nMessage-ID: <1234@local.machine.example>\r\n\r\nThis is a message just to say hello.\r\nSo, "Hello".\r\n';
 
 describe("sniffEvidence: e-mail messages (RFC 5322)", () => {
   it("recognises the RFC's own example message", async () => {
@@ -142,13 +173,16 @@ describe("sniffEvidence: e-mail messages (RFC 5322)", () => {
   });
 
   it("accepts folded header lines (§2.2.3) and an 8-bit body in another charset", async () => {
-    const folded = "Received: from x.example\r\n\tby y.example; Fri, 21 Nov 1997 09:55:06 -0600\r\nFrom: a@x.example\r\nDate: Fri, 21 Nov 1997 09:55:06 -0600\r\n\r\n";
+    const folded =
+      "Received: from x.example\r\n\tby y.example; Fri, 21 Nov 1997 09:55:06 -0600\r\nFrom: a@x.example\r\nDate: Fri, 21 Nov 1997 09:55:06 -0600\r\n\r\n";
     expect(await kindOf(new Uint8Array([...ascii(folded), 0x43, 0x61, 0x66, 0xe9, 0x0d, 0x0a]))).toBe("eml"); // "Café" in ISO-8859-1
   });
 
   it("needs both required fields (§3.6: Date and From) and only header lines before the blank line", async () => {
     expect(looksLikeEmail("From: a@x.example\r\nSubject: hi\r\n\r\nbody")).toBe(false);
-    expect(looksLikeEmail("From: a@x.example\r\nDate: Fri, 21 Nov 1997 09:55:06 -0600\r\nnot a header line\r\n\r\n")).toBe(false);
+    expect(
+      looksLikeEmail("From: a@x.example\r\nDate: Fri, 21 Nov 1997 09:55:06 -0600\r\nnot a header line\r\n\r\n"),
+    ).toBe(false);
     expect(await kindOf(ascii("Subject: notes\nDate: today\n\ntext"), "notes.txt")).toBe("text");
   });
 });
@@ -161,14 +195,19 @@ describe("sniffEvidence: text and refusals", () => {
   });
 
   it("refuses text that is not UTF-8, or holds NUL or many control bytes", async () => {
-    expect(await kindOf(new Uint8Array([0x43, 0x61, 0x66, 0xe9, 0x0a]), "latin1.txt")).toMatch(/^refused: .*begins with the bytes 43 61 66 E9/);
+    expect(await kindOf(new Uint8Array([0x43, 0x61, 0x66, 0xe9, 0x0a]), "latin1.txt")).toMatch(
+      /^refused: .*begins with the bytes 43 61 66 E9/,
+    );
     expect(await kindOf(bytes("abc", [0], "def"))).toMatch(/NUL byte at position 4/);
     expect(await kindOf(new Uint8Array(200).fill(1))).toMatch(/control characters/);
   });
 
   it("refuses programs and archives whatever their names, and says what is accepted", async () => {
     const exe = await sniffEvidence(bytes("MZ", [0x90, 0, 3, 0]), "invoice.pdf");
-    expect(exe).toEqual({ ok: false, reason: expect.stringMatching(/Windows program, whatever its name\. Accepted evidence: PDF, PNG/) });
+    expect(exe).toEqual({
+      ok: false,
+      reason: expect.stringMatching(/Windows program, whatever its name\. Accepted evidence: PDF, PNG/),
+    });
     expect(await kindOf(bytes([0x7f], "ELF", [2, 1, 1]))).toMatch(/Linux program/);
     expect(await kindOf(bytes([0x1f, 0x8b, 8, 0]))).toMatch(/gzip archive/);
     expect(await kindOf(bytes("Rar!", [0x1a, 7, 0]))).toMatch(/RAR archive/);

@@ -1,6 +1,14 @@
 import { describe, expect, it } from "vitest";
 import { formatDate, formatDateTime } from "@/lib/format/date";
-import { formatBytes, formatCount, formatFactor, formatMoney, formatPercent, formatRate, isNegative } from "@/lib/format/number";
+import {
+  formatBytes,
+  formatCount,
+  formatFactor,
+  formatMoney,
+  formatPercent,
+  formatRate,
+  isNegative,
+} from "@/lib/format/number";
 
 describe("one formatting module (screens, workbook text, PDF and e-mail print alike)", () => {
   it("groups thousands on the decimal text, with a true minus sign", () => {
@@ -45,7 +53,8 @@ describe("one formatting module (screens, workbook text, PDF and e-mail print al
 
   it("has one style for dates and one for instants, whatever name an older caller uses", () => {
     expect(formatDateTime("2026-12-02T09:05:00Z")).toBe("2 Dec 2026, 09:05 UTC");
-    for (const older of [formatDateTime, formatDateTime]) expect(older("2026-12-02T09:05:00Z")).toBe(formatDateTime("2026-12-02T09:05:00Z"));
+    for (const older of [formatDateTime, formatDateTime])
+      expect(older("2026-12-02T09:05:00Z")).toBe(formatDateTime("2026-12-02T09:05:00Z"));
     expect(formatDate("2026-12-31")).toBe(formatDate("2026-12-31"));
   });
 
@@ -53,8 +62,11 @@ describe("one formatting module (screens, workbook text, PDF and e-mail print al
     expect(formatDate("2026-01-01")).toBe("1 Jan 2026");
     expect(formatDate("2026-09-30")).toBe("30 Sep 2026"); // not ICU's en-GB "Sept", which differs between Node and browsers
     expect(formatDate("2026-12-31T23:59:59.999Z")).toBe("31 Dec 2026");
-    expect(["01", "02", "03", "04", "05", "06", "07", "08", "09", "10", "11", "12"].map((m) => formatDate(`2027-${m}-15`).split(" ")[1]))
-      .toEqual(["Jan", "Feb", "Mar", "Apr", "May", "Jun", "Jul", "Aug", "Sep", "Oct", "Nov", "Dec"]);
+    expect(
+      ["01", "02", "03", "04", "05", "06", "07", "08", "09", "10", "11", "12"].map(
+        (m) => formatDate(`2027-${m}-15`).split(" ")[1],
+      ),
+    ).toEqual(["Jan", "Feb", "Mar", "Apr", "May", "Jun", "Jul", "Aug", "Sep", "Oct", "Nov", "Dec"]);
   });
 
   it("shows a dash for nothing, and refuses what is not a date, naming it", () => {

@@ -23,7 +23,10 @@ describe("the NDJSON writer and reader (one of each)", () => {
     const bytes = new Uint8Array(await res.arrayBuffer());
     const accentAt = bytes.indexOf(0xc3); // first byte of "é"
     const seen: number[] = [];
-    const last = await readNdjson<{ n: number; text: string }>(chunked(bytes, [accentAt + 1, accentAt + 30, bytes.length - 2]), (e) => seen.push(e.n));
+    const last = await readNdjson<{ n: number; text: string }>(
+      chunked(bytes, [accentAt + 1, accentAt + 30, bytes.length - 2]),
+      (e) => seen.push(e.n),
+    );
     expect(seen).toEqual([1, 2, 3]);
     expect(last).toEqual({ n: 3, text: "Société Générale − 3" });
   });
@@ -37,11 +40,18 @@ describe("the NDJSON writer and reader (one of each)", () => {
   it("tells the producer's owner when the reader goes away, and drops later sends", async () => {
     let cancelled = false;
     let release: () => void = () => undefined;
-    const res = ndjsonStream<number>(async (send) => {
-      send(1);
-      await new Promise<void>((r) => { release = r; });
-      send(2);
-    }, () => { cancelled = true; });
+    const res = ndjsonStream<number>(
+      async (send) => {
+        send(1);
+        await new Promise<void>((r) => {
+          release = r;
+        });
+        send(2);
+      },
+      () => {
+        cancelled = true;
+      },
+    );
     const reader = res.body!.getReader();
     await reader.read();
     await reader.cancel();

@@ -51,7 +51,7 @@ describe("parseAmountToCents", () => {
     ["1,234.5678", "too-many-decimals"],
     ["10000000000000000.00", "out-of-range"],
     ["abc", "not-a-number"],
-    ["=HYPERLINK(\"http://x\",\"1\")", "not-a-number"],
+    ['=HYPERLINK("http://x","1")', "not-a-number"],
     ["=1+2", "not-a-number"],
     ["@SUM(A1)", "not-a-number"],
     ["-foo", "not-a-number"],
@@ -70,7 +70,11 @@ describe("parseAmountToCents", () => {
 
   it("names the decimal places it refuses", () => {
     const result = parseAmountToCents("1.005", "dot-decimal");
-    expect(result).toEqual({ ok: false, kind: "too-many-decimals", detail: "has 3 decimal places; at most 2 are allowed" });
+    expect(result).toEqual({
+      ok: false,
+      kind: "too-many-decimals",
+      detail: "has 3 decimal places; at most 2 are allowed",
+    });
   });
 });
 

@@ -15,7 +15,10 @@ async function count(file: string, maxRows: number) {
 }
 
 async function refusal(promise: Promise<unknown>): Promise<ImportError> {
-  const error = await promise.then(() => null, (e: unknown) => e);
+  const error = await promise.then(
+    () => null,
+    (e: unknown) => e,
+  );
   expect(error).toBeInstanceOf(ImportError);
   return error as ImportError;
 }
@@ -23,7 +26,17 @@ async function refusal(promise: Promise<unknown>): Promise<ImportError> {
 // The reference is the load's own pass (PopulationImport.summary().rowsRead): the upload's count
 // must agree with it, so a file the count lets through is never refused by the load for its rows.
 describe("countDataRowsWithinLimit", () => {
-  const csv = ["Ledger export FY2024", "", "Invoice,Amount,Note", "INV-1,10.00,plain", "", ",,", 'INV-2,20.00,"two', 'lines"', "INV-3,30.00,last"].join("\n");
+  const csv = [
+    "Ledger export FY2024",
+    "",
+    "Invoice,Amount,Note",
+    "INV-1,10.00,plain",
+    "",
+    ",,",
+    'INV-2,20.00,"two',
+    'lines"',
+    "INV-3,30.00,last",
+  ].join("\n");
 
   it("counts the rows after the header row, skipping blank ones and keeping a quoted line break in its row, as the load does", async () => {
     const file = write("preamble.csv", csv);
@@ -44,7 +57,9 @@ describe("countDataRowsWithinLimit", () => {
     expect(error.reason).toBe("too-many-rows");
     expect(error.status).toBe(413);
     // Data row 3 is INV-3, the file's row 8 (the quoted field's line break keeps INV-2 one row, row 7).
-    expect(error.message).toBe("Row 8 is data row 3: a population holds at most 2 data rows. Split the file and import each part.");
+    expect(error.message).toBe(
+      "Row 8 is data row 3: a population holds at most 2 data rows. Split the file and import each part.",
+    );
   });
 
   it("counts a workbook's inspected sheet the same way", async () => {
@@ -56,6 +71,8 @@ describe("countDataRowsWithinLimit", () => {
     sheet.addRow(["INV-6", 60]);
     const file = write("ledger.xlsx", new Uint8Array(await workbook.xlsx.writeBuffer()));
     expect(await count(file, 6)).toBe(6);
-    expect((await refusal(count(file, 5))).message).toMatch(/^Row 8 is data row 6: a population holds at most 5 data rows/);
+    expect((await refusal(count(file, 5))).message).toMatch(
+      /^Row 8 is data row 6: a population holds at most 5 data rows/,
+    );
   });
 });

@@ -17,7 +17,10 @@ async function summarise(file: string) {
 
 describe("CSV edge cases", () => {
   it("drops the UTF-8 byte-order mark from the first header", async () => {
-    const file = write("bom.csv", Buffer.concat([Buffer.from([0xef, 0xbb, 0xbf]), Buffer.from("Invoice,Amount\nA,1\n")]));
+    const file = write(
+      "bom.csv",
+      Buffer.concat([Buffer.from([0xef, 0xbb, 0xbf]), Buffer.from("Invoice,Amount\nA,1\n")]),
+    );
     const inspection = await inspectUpload(file);
     expect(inspection.encoding).toBe("utf-8-bom");
     expect(inspection.headers[0]).toBe("Invoice");
@@ -26,8 +29,14 @@ describe("CSV edge cases", () => {
 
   it("refuses invalid UTF-8 found after the sniffed first 64 KB", async () => {
     const body = `Invoice,Amount\n${"A,1\n".repeat(30_000)}`;
-    const file = write("late-bad.csv", Buffer.concat([Buffer.from(body), Buffer.from([0x42, 0xc3, 0x28, 0x2c, 0x31, 0x0a])]));
-    const error = await summarise(file).then(() => null, (e: unknown) => e);
+    const file = write(
+      "late-bad.csv",
+      Buffer.concat([Buffer.from(body), Buffer.from([0x42, 0xc3, 0x28, 0x2c, 0x31, 0x0a])]),
+    );
+    const error = await summarise(file).then(
+      () => null,
+      (e: unknown) => e,
+    );
     expect(error).toBeInstanceOf(ImportError);
     expect((error as ImportError).message).toMatch(/not valid UTF-8/);
   });
@@ -41,7 +50,9 @@ describe("CSV edge cases", () => {
 
   it("skips blank lines without renumbering the rows after them", async () => {
     const summary = await summarise(write("gaps.csv", "Invoice,Amount\r\n\r\nA,x\r\n,\r\nB,2\r\n"));
-    expect(summary.problems).toEqual([{ row: 3, column: "Amount", reason: 'Book value "x" is not a number in the dot-decimal format' }]);
+    expect(summary.problems).toEqual([
+      { row: 3, column: "Amount", reason: 'Book value "x" is not a number in the dot-decimal format' },
+    ]);
     expect(summary.rowsRead).toBe(2);
   });
 });
@@ -55,9 +66,16 @@ describe("generateLedgerCsv (bench and demo data)", () => {
     expect(readFileSync(first)).toEqual(readFileSync(second));
     const inspection = await inspectUpload(first);
     expect(inspection.headers).toEqual(["Invoice", "Customer", "Posted", "Due", "Amount", "Currency"]);
-    const job = new PopulationImport(first, inspection, populationMappingSchema.parse({
-      itemRefColumn: "Invoice", bookValueColumn: "Amount", descriptionColumn: "Customer", dateColumn: "Posted",
-    }));
+    const job = new PopulationImport(
+      first,
+      inspection,
+      populationMappingSchema.parse({
+        itemRefColumn: "Invoice",
+        bookValueColumn: "Amount",
+        descriptionColumn: "Customer",
+        dateColumn: "Posted",
+      }),
+    );
     const summary = await job.validateOnly();
     expect(summary.problemCount).toBe(0);
     expect(summary.totals.rowCount).toBe(2_000);

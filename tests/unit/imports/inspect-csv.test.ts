@@ -6,13 +6,20 @@ import { fixtureFolder } from "./temp-files";
 const write = fixtureFolder();
 
 async function refusal(promise: Promise<unknown>): Promise<ImportError> {
-  const error = await promise.then(() => null, (e: unknown) => e);
+  const error = await promise.then(
+    () => null,
+    (e: unknown) => e,
+  );
   expect(error).toBeInstanceOf(ImportError);
   return error as ImportError;
 }
 
 const ledger = (d: string) =>
-  [["Invoice", "Customer", "Amount", "Date"], ["INV-1", "Atelier Brume", "1,204.50", "2024-01-31"], ["INV-2", "Verger Nord", "(80.00)", "2024-02-01"]]
+  [
+    ["Invoice", "Customer", "Amount", "Date"],
+    ["INV-1", "Atelier Brume", "1,204.50", "2024-01-31"],
+    ["INV-2", "Verger Nord", "(80.00)", "2024-02-01"],
+  ]
     .map((row) => row.join(d))
     .join("\r\n");
 
@@ -43,13 +50,17 @@ describe("inspectUpload (CSV)", () => {
   });
 
   it("skips blank lines and a one-cell title line above the header", async () => {
-    const inspection = await inspectUpload(write("titled.csv", "\nReceivables at 31 December 2024,,\nRef,Name,Amount\nA,B,1\n"));
+    const inspection = await inspectUpload(
+      write("titled.csv", "\nReceivables at 31 December 2024,,\nRef,Name,Amount\nA,B,1\n"),
+    );
     expect(inspection.headerRow).toBe(3);
     expect(inspection.headers).toEqual(["Ref", "Name", "Amount"]);
   });
 
   it('reports "no header row" when the first row looks like data', async () => {
-    const error = await refusal(inspectUpload(write("noheader.csv", "INV-1,1204.50,2024-01-31\nINV-2,80.00,2024-02-01\n")));
+    const error = await refusal(
+      inspectUpload(write("noheader.csv", "INV-1,1204.50,2024-01-31\nINV-2,80.00,2024-02-01\n")),
+    );
     expect(error.reason).toBe("no-header-row");
     expect(error.message).toMatch(/^No header row: row 1 looks like data \("INV-1", "1204.50", "2024-01-31"\)/);
   });

@@ -27,21 +27,36 @@ describe("LOAD DATA escaping", () => {
 
   it("round-trips any string, and an escaped field never holds a raw tab, newline or return", () => {
     fc.assert(
-      fc.property(fc.string({ unit: fc.constantFrom("a", "é", "€", "\\", "\t", "\n", "\r", "\0", "N", " ", '"') }), (value) => {
-        const escaped = escapeLoadDataField(value);
-        expect(escaped).not.toMatch(/[\t\n\r\0]/);
-        expect(unescapeLoadDataField(escaped)).toBe(value);
-      }),
+      fc.property(
+        fc.string({ unit: fc.constantFrom("a", "é", "€", "\\", "\t", "\n", "\r", "\0", "N", " ", '"') }),
+        (value) => {
+          const escaped = escapeLoadDataField(value);
+          expect(escaped).not.toMatch(/[\t\n\r\0]/);
+          expect(unescapeLoadDataField(escaped)).toBe(value);
+        },
+      ),
     );
   });
 
   it("lays out one row as six tab-separated fields ending in a newline", () => {
     const line = rowToLoadDataLine({
-      rowNumber: 12, itemRef: "INV\t7", description: null, bookValueCents: -123456n, date: "2024-01-31", extra: { Note: 'a\\b "c"\nd' },
+      rowNumber: 12,
+      itemRef: "INV\t7",
+      description: null,
+      bookValueCents: -123456n,
+      date: "2024-01-31",
+      extra: { Note: 'a\\b "c"\nd' },
     });
     expect(line.endsWith("\n")).toBe(true);
     const fields = line.slice(0, -1).split("\t");
     expect(fields).toHaveLength(6);
-    expect(fields.map(unescapeLoadDataField)).toEqual(["12", "INV\t7", null, "-1234.56", "2024-01-31", JSON.stringify({ Note: 'a\\b "c"\nd' })]);
+    expect(fields.map(unescapeLoadDataField)).toEqual([
+      "12",
+      "INV\t7",
+      null,
+      "-1234.56",
+      "2024-01-31",
+      JSON.stringify({ Note: 'a\\b "c"\nd' }),
+    ]);
   });
 });

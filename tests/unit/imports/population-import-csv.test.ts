@@ -10,10 +10,20 @@ import { fixtureFolder } from "./temp-files";
 const write = fixtureFolder();
 const baseMapping: PopulationMappingInput = { itemRefColumn: "Invoice", bookValueColumn: "Amount" };
 
-async function run(name: string, content: string | Buffer, mapping: PopulationMappingInput = baseMapping, maxRows?: number) {
+async function run(
+  name: string,
+  content: string | Buffer,
+  mapping: PopulationMappingInput = baseMapping,
+  maxRows?: number,
+) {
   const file = write(name, content);
   const inspection = await inspectUpload(file);
-  const job = new PopulationImport(file, inspection, populationMappingSchema.parse(mapping), maxRows ? { limits: { maxRows } } : {});
+  const job = new PopulationImport(
+    file,
+    inspection,
+    populationMappingSchema.parse(mapping),
+    maxRows ? { limits: { maxRows } } : {},
+  );
   const rows: ValidatedRow[] = [];
   const problems: RowProblem[] = [];
   for await (const batch of job.batches()) {
@@ -25,7 +35,8 @@ async function run(name: string, content: string | Buffer, mapping: PopulationMa
 
 describe("PopulationImport over CSV", () => {
   it("keeps quoted fields with commas, quotes and line breaks (RFC 4180 §2 rules 5–7)", async () => {
-    const csv = 'Invoice,Customer,Amount\r\nINV-1,"Brume, Atelier",12.00\r\nINV-2,"Line one\r\nline two ""quoted""","1,000.00"\r\nINV-3,Nord,3\r\n';
+    const csv =
+      'Invoice,Customer,Amount\r\nINV-1,"Brume, Atelier",12.00\r\nINV-2,"Line one\r\nline two ""quoted""","1,000.00"\r\nINV-3,Nord,3\r\n';
     const { rows, problems } = await run("quoted.csv", csv, { ...baseMapping, descriptionColumn: "Customer" });
     expect(problems).toEqual([]);
     expect(rows.map((r) => [r.rowNumber, r.description, r.bookValueCents])).toEqual([
@@ -68,12 +79,23 @@ describe("PopulationImport over CSV", () => {
       { row: 3, column: "Invoice", reason: "Item reference is blank" },
       { row: 4, column: "Amount", reason: 'Book value "abc" is not a number in the dot-decimal format' },
       { row: 5, column: "Amount", reason: 'Book value "1.234" has 3 decimal places; at most 2 are allowed' },
-      { row: 6, column: "Amount", reason: 'Book value "99999999999999999" is larger than 9,999,999,999,999,999.99, the largest amount accepted' },
+      {
+        row: 6,
+        column: "Amount",
+        reason: 'Book value "99999999999999999" is larger than 9,999,999,999,999,999.99, the largest amount accepted',
+      },
       { row: 7, column: "Date", reason: 'Date "2024-02-30" is not a valid date (expected YYYY-MM-DD or DD/MM/YYYY)' },
       { row: 8, column: null, reason: "Row has 2 fields; the header row has 3" },
-      { row: 9, column: "Amount", reason: 'Book value "=HYPERLINK("http://x.test","9")" is not a number in the dot-decimal format' },
+      {
+        row: 9,
+        column: "Amount",
+        reason: 'Book value "=HYPERLINK("http://x.test","9")" is not a number in the dot-decimal format',
+      },
     ]);
-    expect(rows.map((r) => [r.rowNumber, r.date])).toEqual([[2, "2024-01-31"], [11, "2024-01-31"]]);
+    expect(rows.map((r) => [r.rowNumber, r.date])).toEqual([
+      [2, "2024-01-31"],
+      [11, "2024-01-31"],
+    ]);
     expect(summary.rowsRead).toBe(9);
   });
 
@@ -86,8 +108,13 @@ describe("PopulationImport over CSV", () => {
 
   it("decodes Windows-1252 (0x80 = €, 0xE9 = é; CP1252.TXT) and reads comma decimals", async () => {
     const bytes = Buffer.concat([
-      Buffer.from("Invoice;Libell"), Buffer.from([0xe9]), Buffer.from(";Amount\r\nF-1;Caf"), Buffer.from([0xe9]),
-      Buffer.from(";1.234,56 "), Buffer.from([0x80]), Buffer.from("\r\n"),
+      Buffer.from("Invoice;Libell"),
+      Buffer.from([0xe9]),
+      Buffer.from(";Amount\r\nF-1;Caf"),
+      Buffer.from([0xe9]),
+      Buffer.from(";1.234,56 "),
+      Buffer.from([0x80]),
+      Buffer.from("\r\n"),
     ]);
     const { rows, inspection } = await run("cp1252.csv", bytes, { ...baseMapping, descriptionColumn: "Libellé" });
     expect(inspection.encoding).toBe("windows-1252");
@@ -95,14 +122,20 @@ describe("PopulationImport over CSV", () => {
   });
 
   it("lets the user override the detected number format", async () => {
-    const { problems, rows } = await run("override.csv", "Invoice,Amount\nA,\"1,234\"\n", { ...baseMapping, numberFormat: "comma-decimal" });
+    const { problems, rows } = await run("override.csv", 'Invoice,Amount\nA,"1,234"\n', {
+      ...baseMapping,
+      numberFormat: "comma-decimal",
+    });
     expect(rows).toEqual([]);
     expect(problems[0].reason).toBe('Book value "1,234" has 3 decimal places; at most 2 are allowed');
   });
 
   it("stops at the row limit, naming it", async () => {
     const csv = `Invoice,Amount\n${Array.from({ length: 6 }, (_, i) => `R${i},1`).join("\n")}\n`;
-    const error = await run("limit.csv", csv, baseMapping, 5).then(() => null, (e: unknown) => e);
+    const error = await run("limit.csv", csv, baseMapping, 5).then(
+      () => null,
+      (e: unknown) => e,
+    );
     expect(error).toBeInstanceOf(ImportError);
     expect((error as ImportError).status).toBe(413);
     expect((error as ImportError).message).toMatch(/more than 5 data rows/);
@@ -110,8 +143,13 @@ describe("PopulationImport over CSV", () => {
   });
 
   it("keeps the first problems in detail and counts the rest", async () => {
-    const file = write("many-bad.csv", `Invoice,Amount\n${Array.from({ length: 30 }, (_, i) => `R${i},x`).join("\n")}\n`);
-    const job = new PopulationImport(file, await inspectUpload(file), populationMappingSchema.parse(baseMapping), { limits: { maxProblemDetails: 10 } });
+    const file = write(
+      "many-bad.csv",
+      `Invoice,Amount\n${Array.from({ length: 30 }, (_, i) => `R${i},x`).join("\n")}\n`,
+    );
+    const job = new PopulationImport(file, await inspectUpload(file), populationMappingSchema.parse(baseMapping), {
+      limits: { maxProblemDetails: 10 },
+    });
     const summary = await job.validateOnly();
     expect(summary.problemCount).toBe(30);
     expect(summary.problems).toHaveLength(10);
@@ -120,12 +158,20 @@ describe("PopulationImport over CSV", () => {
 
   it("streams a file larger than one read chunk, with progress, and emits LOAD DATA lines", async () => {
     const count = 40_000;
-    const lines = Array.from({ length: count }, (_, i) => `INV-${i},"Client ${i}\tA\\B",${i}.${String(i % 100).padStart(2, "0")}`);
+    const lines = Array.from(
+      { length: count },
+      (_, i) => `INV-${i},"Client ${i}\tA\\B",${i}.${String(i % 100).padStart(2, "0")}`,
+    );
     const file = write("large.csv", `Invoice,Customer,Amount\n${lines.join("\n")}\n`);
     const progress: number[][] = [];
-    const job = new PopulationImport(file, await inspectUpload(file), populationMappingSchema.parse({ ...baseMapping, descriptionColumn: "Customer" }), {
-      onProgress: (rowsRead, bytesRead, totalBytes) => progress.push([rowsRead, bytesRead, totalBytes]),
-    });
+    const job = new PopulationImport(
+      file,
+      await inspectUpload(file),
+      populationMappingSchema.parse({ ...baseMapping, descriptionColumn: "Customer" }),
+      {
+        onProgress: (rowsRead, bytesRead, totalBytes) => progress.push([rowsRead, bytesRead, totalBytes]),
+      },
+    );
     let tsv = "";
     for await (const chunk of job.toLoadDataStream()) tsv += String(chunk);
     const out = tsv.trimEnd().split("\n");

@@ -22,7 +22,14 @@ beforeAll(async () => {
   const ledger = workbook.addWorksheet("Receivables");
   ledger.addRow(["Invoice", "Customer", "Amount", "", "Posted", "Region"]);
   ledger.mergeCells("C1:D1"); // "Amount" merged across C and D
-  ledger.addRow(["INV-1", { richText: [{ text: "Atelier " }, { text: "Brume", font: { bold: true } }] }, 1204.5, "EUR", new Date(Date.UTC(2024, 0, 31)), "North"]);
+  ledger.addRow([
+    "INV-1",
+    { richText: [{ text: "Atelier " }, { text: "Brume", font: { bold: true } }] },
+    1204.5,
+    "EUR",
+    new Date(Date.UTC(2024, 0, 31)),
+    "North",
+  ]);
   ledger.addRow(["INV-2", "Verger Nord", { formula: "C2*2", result: 2409 }, "EUR", 45292, "South"]);
   ledger.getCell("E3").numFmt = "yyyy-mm-dd";
   ledger.addRow(["INV-3", "Quai Ouest", { formula: "0.1+0.2", result: 0.30000000000000004 }, "EUR", 45293, "West"]);
@@ -36,7 +43,12 @@ beforeAll(async () => {
 async function readAll(sheet?: string) {
   const inspection = await inspectUpload(file, { sheet });
   const mapping = populationMappingSchema.parse({
-    itemRefColumn: "Invoice", bookValueColumn: "Amount", descriptionColumn: "Customer", dateColumn: "Posted", extraColumns: ["Column D", "Region"], sheet,
+    itemRefColumn: "Invoice",
+    bookValueColumn: "Amount",
+    descriptionColumn: "Customer",
+    dateColumn: "Posted",
+    extraColumns: ["Column D", "Region"],
+    sheet,
   });
   const job = new PopulationImport(file, inspection, mapping);
   const rows: ValidatedRow[] = [];
@@ -54,7 +66,10 @@ describe("XLSX imports", () => {
   });
 
   it("refuses a sheet that does not exist, listing those that do", async () => {
-    const error = await inspectUpload(file, { sheet: "Payables" }).then(() => null, (e: unknown) => e);
+    const error = await inspectUpload(file, { sheet: "Payables" }).then(
+      () => null,
+      (e: unknown) => e,
+    );
     expect(error).toBeInstanceOf(ImportError);
     expect((error as ImportError).message).toMatch(/no sheet named "Payables".*Notes, Receivables/);
   });
@@ -79,12 +94,18 @@ describe("XLSX imports", () => {
     ]);
     expect(rows[0].extra).toEqual({ "Column D": "EUR", Region: "North" });
     expect(rows[3].extra).toEqual({ "Column D": "EUR" });
-    expect(summary.problems).toEqual([{ row: 7, column: "Amount", reason: 'Book value "n/a" is not a number in the dot-decimal format' }]);
+    expect(summary.problems).toEqual([
+      { row: 7, column: "Amount", reason: 'Book value "n/a" is not a number in the dot-decimal format' },
+    ]);
   });
 
   it("refuses a mapping whose sheet differs from the inspected one", async () => {
     const inspection = await inspectUpload(file);
-    const mapping = populationMappingSchema.parse({ itemRefColumn: "Invoice", bookValueColumn: "Amount", sheet: "Receivables" });
+    const mapping = populationMappingSchema.parse({
+      itemRefColumn: "Invoice",
+      bookValueColumn: "Amount",
+      sheet: "Receivables",
+    });
     expect(() => new PopulationImport(file, inspection, mapping)).toThrow(/inspect the chosen sheet first/);
   });
 });

@@ -22,24 +22,42 @@ describe("problemsToCsv", () => {
 
   it("says how many problems were left out", () => {
     const csv = problemsToCsv([{ row: 2, column: "Amount", reason: "Book value is blank" }], 12_001);
-    expect(csv.trimEnd().split("\r\n").at(-1)).toBe(",,12000 more problems not listed; fix the ones above and upload again");
+    expect(csv.trimEnd().split("\r\n").at(-1)).toBe(
+      ",,12000 more problems not listed; fix the ones above and upload again",
+    );
   });
 });
 
 describe("populationMappingSchema", () => {
   it("accepts a full mapping and turns empty optional selects into undefined", () => {
     const mapping = populationMappingSchema.parse({
-      itemRefColumn: " Invoice ", bookValueColumn: "Amount", descriptionColumn: "", dateColumn: "Posted",
-      extraColumns: ["Region"], numberFormat: "", dateOrder: "month-first", sheet: "Receivables",
+      itemRefColumn: " Invoice ",
+      bookValueColumn: "Amount",
+      descriptionColumn: "",
+      dateColumn: "Posted",
+      extraColumns: ["Region"],
+      numberFormat: "",
+      dateOrder: "month-first",
+      sheet: "Receivables",
     });
     expect(mapping).toEqual({
-      itemRefColumn: "Invoice", bookValueColumn: "Amount", descriptionColumn: undefined, dateColumn: "Posted",
-      extraColumns: ["Region"], numberFormat: undefined, dateOrder: "month-first", sheet: "Receivables",
+      itemRefColumn: "Invoice",
+      bookValueColumn: "Amount",
+      descriptionColumn: undefined,
+      dateColumn: "Posted",
+      extraColumns: ["Region"],
+      numberFormat: undefined,
+      dateOrder: "month-first",
+      sheet: "Receivables",
     });
   });
 
   it("refuses one column in two roles, naming the field", () => {
-    const result = populationMappingSchema.safeParse({ itemRefColumn: "Ref", bookValueColumn: "ref", extraColumns: ["Ref"] });
+    const result = populationMappingSchema.safeParse({
+      itemRefColumn: "Ref",
+      bookValueColumn: "ref",
+      extraColumns: ["Ref"],
+    });
     expect(result.success).toBe(false);
     const paths = result.error?.issues.map((issue) => issue.path.join("."));
     expect(paths).toEqual(["bookValueColumn", "extraColumns.0"]);
@@ -48,6 +66,10 @@ describe("populationMappingSchema", () => {
   it("requires the item reference and book value columns and a known number format", () => {
     const result = populationMappingSchema.safeParse({ itemRefColumn: "", numberFormat: "swiss" });
     expect(result.success).toBe(false);
-    expect(result.error?.issues.map((issue) => issue.path[0])).toEqual(["itemRefColumn", "bookValueColumn", "numberFormat"]);
+    expect(result.error?.issues.map((issue) => issue.path[0])).toEqual([
+      "itemRefColumn",
+      "bookValueColumn",
+      "numberFormat",
+    ]);
   });
 });

@@ -9,7 +9,10 @@ const write = fixtureFolder();
 const limits = { maxBytes: MAX_UPLOAD_BYTES };
 
 async function refusal(promise: Promise<unknown>): Promise<ImportError> {
-  const error = await promise.then(() => null, (e: unknown) => e);
+  const error = await promise.then(
+    () => null,
+    (e: unknown) => e,
+  );
   expect(error).toBeInstanceOf(ImportError);
   return error as ImportError;
 }
@@ -23,15 +26,29 @@ describe("limits", () => {
 
 describe("sniffFile", () => {
   it("detects UTF-8 with and without BOM", async () => {
-    expect(await sniffFile(write("plain.csv", "Ref,Amount\nA-1,12.00\n"), limits)).toMatchObject({ kind: "csv", encoding: "utf-8" });
+    expect(await sniffFile(write("plain.csv", "Ref,Amount\nA-1,12.00\n"), limits)).toMatchObject({
+      kind: "csv",
+      encoding: "utf-8",
+    });
     const bom = Buffer.concat([Buffer.from([0xef, 0xbb, 0xbf]), Buffer.from("Réf,Montant\nA,1\n")]);
     expect(await sniffFile(write("bom.csv", bom), limits)).toMatchObject({ kind: "csv", encoding: "utf-8-bom" });
   });
 
   it("detects Windows-1252 from é (0xE9) and € (0x80)", async () => {
     // Code page 1252: 0x80 = U+20AC EURO SIGN, 0xE9 = U+00E9 (unicode.org MAPPINGS/VENDORS/MICSFT/WINDOWS/CP1252.TXT).
-    const bytes = Buffer.from([...Buffer.from("Ref;Libell"), 0xe9, ...Buffer.from(";Montant\nA;Caf"), 0xe9, ...Buffer.from(";12,00 "), 0x80, 0x0a]);
-    expect(await sniffFile(write("cp1252.csv", bytes), limits)).toMatchObject({ kind: "csv", encoding: "windows-1252" });
+    const bytes = Buffer.from([
+      ...Buffer.from("Ref;Libell"),
+      0xe9,
+      ...Buffer.from(";Montant\nA;Caf"),
+      0xe9,
+      ...Buffer.from(";12,00 "),
+      0x80,
+      0x0a,
+    ]);
+    expect(await sniffFile(write("cp1252.csv", bytes), limits)).toMatchObject({
+      kind: "csv",
+      encoding: "windows-1252",
+    });
   });
 
   it("refuses UTF-16 with its BOM, naming the encoding", async () => {
@@ -75,6 +92,8 @@ describe("sniffFile", () => {
     const error = await refusal(inspectUpload(write("blank-lines.csv", "\n,,\n\n")));
     const response = error.toResponse();
     expect(response.status).toBe(422);
-    expect(await response.json()).toEqual({ error: { code: "empty-file", message: "The file has no rows with values." } });
+    expect(await response.json()).toEqual({
+      error: { code: "empty-file", message: "The file has no rows with values." },
+    });
   });
 });

@@ -20,7 +20,9 @@ function fillLedger(sheet: ExcelJS.Worksheet, rows: number, richText = true) {
   for (let i = 1; i <= rows; i += 1) {
     const row = sheet.addRow([
       `INV-${i}`,
-      richText && i % 3 === 0 ? { richText: [{ text: "Atelier " }, { text: `Brume ${i}`, font: { bold: true } }] } : `Client & Co <${i % 7}>`,
+      richText && i % 3 === 0
+        ? { richText: [{ text: "Atelier " }, { text: `Brume ${i}`, font: { bold: true } }] }
+        : `Client & Co <${i % 7}>`,
       i % 4 === 0 ? { formula: `${i}*2`, result: i * 2 + 0.25 } : i * 10.5,
       i % 5 === 0 ? { formula: `"EUR"&""`, result: "EUR" } : "EUR",
       i % 2 === 0 ? new Date(Date.UTC(2024, i % 12, (i % 27) + 1)) : 45292 + i,
@@ -46,7 +48,11 @@ beforeAll(async () => {
   fillLedger(shared.addWorksheet("Big"), XLSX_BATCH_ROWS + 300);
   await shared.xlsx.writeFile(file("shared.xlsx"));
 
-  const streamed = new ExcelJS.stream.xlsx.WorkbookWriter({ filename: file("inline.xlsx"), useSharedStrings: false, useStyles: true });
+  const streamed = new ExcelJS.stream.xlsx.WorkbookWriter({
+    filename: file("inline.xlsx"),
+    useSharedStrings: false,
+    useStyles: true,
+  });
   fillLedger(streamed.addWorksheet("Ledger"), 40, false);
   fillLedger(streamed.addWorksheet("Rich"), 5);
   streamed.addWorksheet("Second").addRow(["A", "B"]).commit();

@@ -18,7 +18,9 @@ function fillLedger(sheet: ExcelJS.Worksheet, rows: number, richAt: (i: number) 
   for (let i = 1; i <= rows; i += 1) {
     const row = sheet.addRow([
       `INV-${i}`,
-      richAt(i) ? { richText: [{ text: "Atelier " }, { text: `Brume ${i}`, font: { bold: true } }] } : `Client & Co <${i % 7}>`,
+      richAt(i)
+        ? { richText: [{ text: "Atelier " }, { text: `Brume ${i}`, font: { bold: true } }] }
+        : `Client & Co <${i % 7}>`,
       i % 4 === 0 ? { formula: `${i}*2`, result: i * 2 + 0.25 } : i * 10.5,
       i % 5 === 0 ? { formula: `"EUR"&""`, result: "EUR" } : "EUR",
       i % 2 === 0 ? new Date(Date.UTC(2024, i % 12, (i % 27) + 1)) : 45292 + i,
@@ -43,7 +45,11 @@ beforeAll(async () => {
   await shared.xlsx.writeFile(file("shared.xlsx"));
 
   // Inline strings; one rich inline string (which the fast reader leaves to exceljs) well after the first batch.
-  const streamed = new ExcelJS.stream.xlsx.WorkbookWriter({ filename: file("inline.xlsx"), useSharedStrings: false, useStyles: true });
+  const streamed = new ExcelJS.stream.xlsx.WorkbookWriter({
+    filename: file("inline.xlsx"),
+    useSharedStrings: false,
+    useStyles: true,
+  });
   fillLedger(streamed.addWorksheet("Late"), XLSX_BATCH_ROWS + 700, (i) => i === XLSX_BATCH_ROWS + 500);
   await streamed.commit();
 }, 120_000);
@@ -65,7 +71,9 @@ describe("full XLSX load reader", () => {
   }, 60_000);
 
   it("reads a short sheet the same way", async () => {
-    expect(await all(readXlsxRowsForLoad(file("shared.xlsx"), "Short"))).toEqual(await all(readXlsxRows(file("shared.xlsx"), "Short")));
+    expect(await all(readXlsxRowsForLoad(file("shared.xlsx"), "Short"))).toEqual(
+      await all(readXlsxRows(file("shared.xlsx"), "Short")),
+    );
   }, 60_000);
 
   it("hands over to exceljs from the row after the last one given when it meets what it cannot read", async () => {

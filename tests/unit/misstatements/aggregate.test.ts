@@ -29,20 +29,55 @@ import type { SummaryMateriality } from "@/lib/misstatements/types";
  *  measure = max(26,699.75, 40,699.75) = 40,699.75 ≤ 56,250.00 → well within
  *  allowances 41,250.00 + 9,000.10 = 50,250.10; upper estimate 40,699.75 + 50,250.10 = 90,949.85 ≤ 100,000.00
  */
-const M: SummaryMateriality = { overall: "100000.00", performance: "75000.00", clearlyTrivial: "2000.00", approachingShare: 0.75, currency: "USD" };
+const M: SummaryMateriality = {
+  overall: "100000.00",
+  performance: "75000.00",
+  clearlyTrivial: "2000.00",
+  approachingShare: 0.75,
+  currency: "USD",
+};
 
 const contribution = (id: number, factual: string, projectedTotal: string, allowance: string): SampleContribution => ({
-  sampleId: id, name: `Sample ${id}`, account: "Receivables", assertion: "Existence", direction: "overstatement", method: "mus", state: "contributes", reason: null,
-  factual, projectedTotal, allowance, allowanceNote: null, upperLimit: null, confidence: 0.95, basis: "monetary-unit (Stringer bound)", complete: true, lockedAt: null,
+  sampleId: id,
+  name: `Sample ${id}`,
+  account: "Receivables",
+  assertion: "Existence",
+  direction: "overstatement",
+  method: "mus",
+  state: "contributes",
+  reason: null,
+  factual,
+  projectedTotal,
+  allowance,
+  allowanceNote: null,
+  upperLimit: null,
+  confidence: 0.95,
+  basis: "monetary-unit (Stringer bound)",
+  complete: true,
+  lockedAt: null,
 });
 const entry = (id: number, kind: EntryInput["kind"], amount: string, income: string, balance: string): EntryInput => ({
-  id, kind, account: "Accruals", assertion: "Accuracy", description: `Entry ${id}`, amount, incomeEffect: income, balanceEffect: balance, corrected: null, evidenceCount: 0,
+  id,
+  kind,
+  account: "Accruals",
+  assertion: "Accuracy",
+  description: `Entry ${id}`,
+  amount,
+  incomeEffect: income,
+  balanceEffect: balance,
+  corrected: null,
+  evidenceCount: 0,
 });
 
 function exampleRows(): RowInput[] {
   return [
     ...sampleRows(contribution(1, "3000.00", "30500.00", "41250.00"), [], 7, false),
-    ...sampleRows(contribution(2, "-1200.50", "-6000.75", "9000.10"), [{ sampleId: 2, part: "factual", on: "2026-10-15", reference: "AJE 14" }], 7, false),
+    ...sampleRows(
+      contribution(2, "-1200.50", "-6000.75", "9000.10"),
+      [{ sampleId: 2, part: "factual", on: "2026-10-15", reference: "AJE 14" }],
+      7,
+      false,
+    ),
     entryRow(entry(1, "factual", "1999.99", "1999.99", "1999.99"), 7),
     entryRow(entry(2, "judgemental", "12000.00", "12000.00", "12000.00"), 7),
     entryRow(entry(3, "factual", "-2000.00", "-2000.00", "-2000.00"), 7),
@@ -70,13 +105,30 @@ describe("summary of misstatements — the worked example", () => {
   });
 
   it("totals the uncorrected current-year misstatement by kind, exact to the cent", () => {
-    expect(totals.uncorrected).toEqual({ factual: "1000.00", judgemental: "12000.00", projected: "22699.75", currentYear: "35699.75", gross: "49300.25", count: 5 });
+    expect(totals.uncorrected).toEqual({
+      factual: "1000.00",
+      judgemental: "12000.00",
+      projected: "22699.75",
+      currentYear: "35699.75",
+      gross: "49300.25",
+      count: 5,
+    });
     expect(totals.entryEffects).toEqual({ income: "10000.00", balance: "10000.00" });
   });
 
   it("carries prior-period misstatements under each approach separately, never mixed", () => {
-    expect(totals.incomeStatementApproach).toEqual({ total: "26699.75", priorPeriod: "-9000.00", marginToPerformance: "48300.25", marginToOverall: "73300.25" });
-    expect(totals.balanceSheetApproach).toEqual({ total: "40699.75", priorPeriod: "5000.00", marginToPerformance: "34300.25", marginToOverall: "59300.25" });
+    expect(totals.incomeStatementApproach).toEqual({
+      total: "26699.75",
+      priorPeriod: "-9000.00",
+      marginToPerformance: "48300.25",
+      marginToOverall: "73300.25",
+    });
+    expect(totals.balanceSheetApproach).toEqual({
+      total: "40699.75",
+      priorPeriod: "5000.00",
+      marginToPerformance: "34300.25",
+      marginToOverall: "59300.25",
+    });
   });
 
   it("sums the allowances conservatively and says they do not add linearly", () => {
@@ -87,12 +139,19 @@ describe("summary of misstatements — the worked example", () => {
   });
 
   it("is well within: 40,699.75 against the 56,250.00 threshold", () => {
-    expect(status).toMatchObject({ level: "well-within", measure: "40699.75", threshold: "56250.00", responses: [], allowanceWarning: null });
+    expect(status).toMatchObject({
+      level: "well-within",
+      measure: "40699.75",
+      threshold: "56250.00",
+      responses: [],
+      allowanceWarning: null,
+    });
   });
 });
 
 describe("summary of misstatements — status as the total moves", () => {
-  const withJudgement = (amount: string) => aggregate([...exampleRows(), entryRow(entry(9, "judgemental", amount, amount, amount), 7)], M);
+  const withJudgement = (amount: string) =>
+    aggregate([...exampleRows(), entryRow(entry(9, "judgemental", amount, amount, amount), 7)], M);
 
   it("approaching above 75 % of performance materiality, with the responses the standards expect", () => {
     // 40,699.75 + 16,000.00 = 56,699.75 > 56,250.00
@@ -120,11 +179,18 @@ describe("summary of misstatements — status as the total moves", () => {
 
   it("uses the engagement's own share when the manager sets one", () => {
     const { status } = aggregate(exampleRows(), { ...M, approachingShare: 0.5 });
-    expect(status).toMatchObject({ level: "approaching", threshold: "37500.00", approachingShareSource: "set on this engagement" });
+    expect(status).toMatchObject({
+      level: "approaching",
+      threshold: "37500.00",
+      approachingShareSource: "set on this engagement",
+    });
   });
 
   it("a corrected entry leaves every total", () => {
-    const corrected = { ...entry(2, "judgemental", "12000.00", "12000.00", "12000.00"), corrected: { on: "2026-10-20", reference: "AJE 15" } };
+    const corrected = {
+      ...entry(2, "judgemental", "12000.00", "12000.00", "12000.00"),
+      corrected: { on: "2026-10-20", reference: "AJE 15" },
+    };
     const rows = exampleRows().map((r) => (r.key === "e2" ? entryRow(corrected, 7) : r));
     const { totals } = aggregate(rows, M);
     expect(totals.uncorrected.currentYear).toBe("23699.75");

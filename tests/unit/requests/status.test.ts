@@ -15,7 +15,8 @@ describe("itemStatusAfter", () => {
   });
 
   it("accepts from any state, and nothing later undoes an acceptance", () => {
-    for (const s of REQUEST_ITEM_STATUSES) expect(itemStatusAfter(s, "file-accepted", { pendingLeft: 0 })).toBe("accepted");
+    for (const s of REQUEST_ITEM_STATUSES)
+      expect(itemStatusAfter(s, "file-accepted", { pendingLeft: 0 })).toBe("accepted");
     expect(itemStatusAfter("accepted", "file-returned", { pendingLeft: 0 })).toBe("accepted");
   });
 

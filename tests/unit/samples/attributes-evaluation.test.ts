@@ -12,7 +12,13 @@ describe("attribute evaluation block: small populations and control-frequency pl
     // @stdlib hypergeometric-cdf(x, N, K, n) gives the same two values:
     expect(hypergeometricCdf(1, 20, 6, 10)).toBeCloseTo(0.0704, 4);
     expect(hypergeometricCdf(1, 20, 7, 10)).toBeCloseTo(0.0286, 4);
-    expect(b).toMatchObject({ model: "hypergeometric", populationSize: 20, upperDeviations: 6, controlFrequency: null, supported: false });
+    expect(b).toMatchObject({
+      model: "hypergeometric",
+      populationSize: 20,
+      upperDeviations: 6,
+      controlFrequency: null,
+      supported: false,
+    });
     expect(b.upperDeviationLimit).toBeCloseTo(0.3, 12);
     expect(b.formulaReferences.join(" ")).toMatch(/hypergeometric/i);
   });
@@ -26,14 +32,26 @@ describe("attribute evaluation block: small populations and control-frequency pl
 
   it("judges a control-frequency plan on no deviation, with the limit for information only", () => {
     const row = { frequency: "Daily", minimumSampleSize: 25 };
-    const clean = buildAttributesEvaluation({ ...common, tolerableRate: 0, sampleSize: 25, deviations: 0, controlFrequency: row });
+    const clean = buildAttributesEvaluation({
+      ...common,
+      tolerableRate: 0,
+      sampleSize: 25,
+      deviations: 0,
+      controlFrequency: row,
+    });
     // k = 0: Beta⁻¹(0.95; 1, 25) = 1 − 0.05^(1/25) = 0.1129 (closed form; @stdlib beta quantile).
     expect(clean.upperDeviationLimit).toBeCloseTo(betaQuantile(0.95, 1, 25), 12);
     expect(clean.upperDeviationLimit).toBeCloseTo(1 - 0.05 ** (1 / 25), 12);
     expect(clean).toMatchObject({ supported: true, controlFrequency: row, model: "binomial" });
     expect(clean.statement).toMatch(/No deviation in 25 occurrences tested .* Daily → 25/);
     expect(clean.warnings.join(" ")).toMatch(/for information only/);
-    const one = buildAttributesEvaluation({ ...common, tolerableRate: 0, sampleSize: 25, deviations: 1, controlFrequency: row });
+    const one = buildAttributesEvaluation({
+      ...common,
+      tolerableRate: 0,
+      sampleSize: 25,
+      deviations: 1,
+      controlFrequency: row,
+    });
     expect(one.supported).toBe(false);
     expect(one.statement).toMatch(/expects none/);
   });

@@ -1,5 +1,9 @@
 import { describe, expect, it } from "vitest";
-import { buildNonstatisticalEvaluation, NONSTATISTICAL_RESPONSES, type NonstatisticalItem } from "@/lib/samples/evaluation-block-nonstatistical";
+import {
+  buildNonstatisticalEvaluation,
+  NONSTATISTICAL_RESPONSES,
+  type NonstatisticalItem,
+} from "@/lib/samples/evaluation-block-nonstatistical";
 import { computedResultOf } from "@/lib/samples/computed-result";
 
 /**
@@ -8,12 +12,24 @@ import { computedResultOf } from "@/lib/samples/computed-result";
  */
 function evaluate(sample: NonstatisticalItem[], o: Partial<Parameters<typeof buildNonstatisticalEvaluation>[0]> = {}) {
   return buildNonstatisticalEvaluation({
-    projection: "difference", direction: "overstatement", sample, keyItems: [], keyItemsPlanned: 0,
-    remainder: { count: 1000, bookValue: "1000000.00" }, tolerableMisstatement: "50000.00", expectedMisstatement: "0.00",
-    wellBelow: { basis: "share-of-tolerable", share: 0.5, amount: "25000.00" }, haphazard: false, ...o,
+    projection: "difference",
+    direction: "overstatement",
+    sample,
+    keyItems: [],
+    keyItemsPlanned: 0,
+    remainder: { count: 1000, bookValue: "1000000.00" },
+    tolerableMisstatement: "50000.00",
+    expectedMisstatement: "0.00",
+    wellBelow: { basis: "share-of-tolerable", share: 0.5, amount: "25000.00" },
+    haphazard: false,
+    ...o,
   });
 }
-const item = (book: number, audited: number, anomaly = false): NonstatisticalItem => ({ bookValue: book.toFixed(2), auditedValue: audited.toFixed(2), anomaly });
+const item = (book: number, audited: number, anomaly = false): NonstatisticalItem => ({
+  bookValue: book.toFixed(2),
+  auditedValue: audited.toFixed(2),
+  anomaly,
+});
 /** 50 items of 1,000 with the given overstatements on the first ones. */
 const fifty = (over: number[]) => Array.from({ length: 50 }, (_, i) => item(1000, 1000 - (over[i] ?? 0)));
 const progress = { total: 50, done: 50, notAuditable: 0 };
@@ -28,7 +44,11 @@ describe("buildNonstatisticalEvaluation", () => {
     expect(b.supported).toBe(false);
     expect(b.statement).toMatch(/sampling risk is unacceptably high/);
     expect(b.responses).toEqual(NONSTATISTICAL_RESPONSES);
-    expect(computedResultOf({ block: b, progress, complete: true })).toMatchObject({ status: "not-supported", supported: false, responseNeeded: true });
+    expect(computedResultOf({ block: b, progress, complete: true })).toMatchObject({
+      status: "not-supported",
+      supported: false,
+      responseNeeded: true,
+    });
   });
 
   it("AS 2315.26: the ratio method gives the same $60,000 when every item has the same book value", () => {
@@ -42,7 +62,11 @@ describe("buildNonstatisticalEvaluation", () => {
     expect(b.totalProjected).toBe("10000.00");
     expect(b.verdict).toBe("supports");
     expect(b.responses).toEqual([]);
-    expect(computedResultOf({ block: b, progress, complete: true })).toMatchObject({ status: "supported", supported: true, responseNeeded: false });
+    expect(computedResultOf({ block: b, progress, complete: true })).toMatchObject({
+      status: "supported",
+      supported: true,
+      responseNeeded: false,
+    });
   });
 
   it("AS 2315.26: a total close to TM — an unacceptably high risk, not supported", () => {
@@ -52,22 +76,33 @@ describe("buildNonstatisticalEvaluation", () => {
     expect(b.verdict).toBe("approaches");
     expect(b.supported).toBe(false);
     expect(b.statement).toMatch(/not well below it/);
-    expect(computedResultOf({ block: b, progress, complete: true }).statement).toMatch(/does not support the recorded amount — a nonstatistical evaluation, which claims no confidence level: the total projected misstatement is below tolerable misstatement but not well below it/);
+    expect(computedResultOf({ block: b, progress, complete: true }).statement).toMatch(
+      /does not support the recorded amount — a nonstatistical evaluation, which claims no confidence level: the total projected misstatement is below tolerable misstatement but not well below it/,
+    );
   });
 
   it("the default rule compares the total with the expected misstatement used in planning", () => {
     // AICPA Audit Guide "Audit Sampling", nonstatistical evaluation (from memory): a total below the expected
     // misstatement used in planning generally gives an acceptably low sampling risk.
-    const em = (amount: string) => ({ expectedMisstatement: amount, wellBelow: { basis: "expected-misstatement" as const, share: 0.5, amount } });
+    const em = (amount: string) => ({
+      expectedMisstatement: amount,
+      wellBelow: { basis: "expected-misstatement" as const, share: 0.5, amount },
+    });
     expect(evaluate(fifty([500]), em("12000.00")).verdict).toBe("supports");
     expect(evaluate(fifty([500]), em("8000.00")).verdict).toBe("approaches");
-    expect(evaluate(fifty([500]), em("8000.00")).wellBelowBasis).toBe("the expected misstatement used in planning, 8,000.00");
+    expect(evaluate(fifty([500]), em("8000.00")).wellBelowBasis).toBe(
+      "the expected misstatement used in planning, 8,000.00",
+    );
   });
 
   it("adds key items at actual and takes an accepted anomaly out of the projection (ISA 530 ¶13, AS 2315.26)", () => {
     const sample = fifty([500]);
     sample[0] = item(1000, 500, true);
-    const b = evaluate(sample, { keyItems: [item(200000, 199000)], keyItemsPlanned: 2, remainder: { count: 1000, bookValue: "1000000.00" } });
+    const b = evaluate(sample, {
+      keyItems: [item(200000, 199000)],
+      keyItemsPlanned: 2,
+      remainder: { count: 1000, bookValue: "1000000.00" },
+    });
     expect(b.projectedMisstatement).toBe("0.00");
     expect(b.anomalies).toEqual({ count: 1, misstatement: "500.00" });
     expect(b.keyItems).toEqual({ planned: 2, evaluated: 1, misstatement: "1000.00" });

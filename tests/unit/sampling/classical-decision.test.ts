@@ -7,8 +7,13 @@ describe("classicalDecision", () => {
   // directions); the rule is the AICPA Audit Guide "Audit Sampling" classical variables decision:
   // A′ = z_α·SE, A″ = A′ + TM·(1 − A′/A) when A′ > A. SE is quoted rounded to cents, hence 1-decimal tolerance.
   const example = {
-    bookValue: 4006960.42, estimatedAuditedValue: 4006960.42 - 35907.6, standardError: 35607.11,
-    tolerableMisstatement: 100000, plannedAllowance: 50000, riskOfIncorrectRejection: 0.1, direction: "both" as const,
+    bookValue: 4006960.42,
+    estimatedAuditedValue: 4006960.42 - 35907.6,
+    standardError: 35607.11,
+    tolerableMisstatement: 100000,
+    plannedAllowance: 50000,
+    riskOfIncorrectRejection: 0.1,
+    direction: "both" as const,
   };
 
   it("supports the worked example under the adjusted allowance", () => {
@@ -38,11 +43,21 @@ describe("classicalDecision", () => {
   });
 
   it("tests one side only, with a one-sided z_α", () => {
-    const over = classicalDecision({ ...example, direction: "overstatement", standardError: 10000, estimatedAuditedValue: example.bookValue + 1e6 });
+    const over = classicalDecision({
+      ...example,
+      direction: "overstatement",
+      standardError: 10000,
+      estimatedAuditedValue: example.bookValue + 1e6,
+    });
     expect(over.coefficient).toBeCloseTo(1.281552, 6); // scipy.stats.norm.ppf(0.90) = 1.2815515655446004
     expect(over.lowerLimit).toBe(-Infinity);
     expect(over.supported).toBe(true); // BV far below Ŷ: an understatement, not tested
-    const under = classicalDecision({ ...example, direction: "understatement", standardError: 10000, estimatedAuditedValue: example.bookValue + 1e6 });
+    const under = classicalDecision({
+      ...example,
+      direction: "understatement",
+      standardError: 10000,
+      estimatedAuditedValue: example.bookValue + 1e6,
+    });
     expect(under.supported).toBe(false);
     expect(under.beyond).toBe("lower");
   });
@@ -67,7 +82,11 @@ describe("classicalDecision", () => {
  * MT19937 uniforms through the normal quantile (inverse transform).
  */
 describe("achieved risks of the decision rule (seeded simulation)", () => {
-  const TM = 100000, RIA = 0.05, RIR = 0.1, BV = 5_000_000, TRIALS = 40000;
+  const TM = 100000,
+    RIA = 0.05,
+    RIR = 0.1,
+    BV = 5_000_000,
+    TRIALS = 40000;
   for (const direction of ["overstatement", "understatement", "both"] as const) {
     it(`keeps RIR ${RIR} and RIA ${RIA} within ±1 point for ${direction}`, () => {
       const sides = direction === "both" ? "two" : "one";
@@ -75,17 +94,41 @@ describe("achieved risks of the decision rule (seeded simulation)", () => {
       const zBeta = normalQuantile(1 - RIA);
       const A = (TM * zAlpha) / (zAlpha + zBeta);
       // The planning form sizes so that z_α·SE = A: check that variablesSampleSize uses the same sides.
-      const sized = variablesSampleSize({ populationSize: 1e6, estimatedStdDev: 100, tolerableMisstatement: TM, riskOfIncorrectAcceptance: RIA, riskOfIncorrectRejection: RIR, sides });
+      const sized = variablesSampleSize({
+        populationSize: 1e6,
+        estimatedStdDev: 100,
+        tolerableMisstatement: TM,
+        riskOfIncorrectAcceptance: RIA,
+        riskOfIncorrectRejection: RIR,
+        sides,
+      });
       expect(sized.plannedAllowance).toBeCloseTo(A, 6);
       const SE = A / zAlpha;
       const rng = createRng(20261203);
       const normal = () => normalQuantile(Math.min(1 - 2 ** -53, Math.max(2 ** -53, rng.nextDouble())));
       const sign = direction === "understatement" ? -1 : 1; // misstatement direction tested (for "both": overstatement)
-      let rejections = 0, acceptances = 0;
+      let rejections = 0,
+        acceptances = 0;
       for (let i = 0; i < TRIALS; i++) {
-        const correct = classicalDecision({ bookValue: BV, estimatedAuditedValue: BV + SE * normal(), standardError: SE, tolerableMisstatement: TM, plannedAllowance: A, riskOfIncorrectRejection: RIR, direction });
+        const correct = classicalDecision({
+          bookValue: BV,
+          estimatedAuditedValue: BV + SE * normal(),
+          standardError: SE,
+          tolerableMisstatement: TM,
+          plannedAllowance: A,
+          riskOfIncorrectRejection: RIR,
+          direction,
+        });
         if (!correct.supported) rejections++;
-        const misstated = classicalDecision({ bookValue: BV, estimatedAuditedValue: BV - sign * TM + SE * normal(), standardError: SE, tolerableMisstatement: TM, plannedAllowance: A, riskOfIncorrectRejection: RIR, direction });
+        const misstated = classicalDecision({
+          bookValue: BV,
+          estimatedAuditedValue: BV - sign * TM + SE * normal(),
+          standardError: SE,
+          tolerableMisstatement: TM,
+          plannedAllowance: A,
+          riskOfIncorrectRejection: RIR,
+          direction,
+        });
         if (misstated.supported) acceptances++;
       }
       expect(Math.abs(rejections / TRIALS - RIR)).toBeLessThan(0.01);

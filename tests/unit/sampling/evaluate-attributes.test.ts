@@ -21,7 +21,10 @@ describe("evaluateAttributes (one-sided Clopper–Pearson)", () => {
 
   it("matches R binom.test(1, 93, alternative = 'less')$conf.int[2] = 0.04999397839", () => {
     // R 4.2.2: binom.test(1, 93, alternative="less")$conf.int[2] → 0.04999397839
-    expect(evaluateAttributes({ sampleSize: 93, deviations: 1, confidence: 0.95 }).upperLimit).toBeCloseTo(0.04999397839, 10);
+    expect(evaluateAttributes({ sampleSize: 93, deviations: 1, confidence: 0.95 }).upperLimit).toBeCloseTo(
+      0.04999397839,
+      10,
+    );
   });
 
   it("satisfies F_Bin(k; n, UDL) = 1 − confidence and agrees with @stdlib beta quantile", () => {
@@ -35,7 +38,10 @@ describe("evaluateAttributes (one-sided Clopper–Pearson)", () => {
   });
 
   it("uses 1 − β^(1/n) for zero deviations and 1 for k = n", () => {
-    expect(evaluateAttributes({ sampleSize: 59, deviations: 0, confidence: 0.95 }).upperLimit).toBeCloseTo(1 - 0.05 ** (1 / 59), 14);
+    expect(evaluateAttributes({ sampleSize: 59, deviations: 0, confidence: 0.95 }).upperLimit).toBeCloseTo(
+      1 - 0.05 ** (1 / 59),
+      14,
+    );
     expect(evaluateAttributes({ sampleSize: 12, deviations: 12, confidence: 0.95 }).upperLimit).toBe(1);
   });
 
@@ -54,13 +60,23 @@ describe("evaluateAttributes (one-sided Clopper–Pearson)", () => {
     expect(r.mode).toBe("table");
   });
 
-  it("reports the sample rate k/n", () => expect(evaluateAttributes({ sampleSize: 150, deviations: 3, confidence: 0.95 }).sampleRate).toBe(0.02));
+  it("reports the sample rate k/n", () =>
+    expect(evaluateAttributes({ sampleSize: 150, deviations: 3, confidence: 0.95 }).sampleRate).toBe(0.02));
 
   describe("rejects bad input", () => {
-    it("deviations above sampleSize", () => expect(() => evaluateAttributes({ sampleSize: 10, deviations: 11, confidence: 0.95 })).toThrow(/deviations must be an integer between 0 and 10/));
-    it("negative deviations", () => expect(() => evaluateAttributes({ sampleSize: 10, deviations: -1, confidence: 0.95 })).toThrow(/deviations/));
-    it("sampleSize 0", () => expect(() => evaluateAttributes({ sampleSize: 0, deviations: 0, confidence: 0.95 })).toThrow(/sampleSize/));
-    it("confidence 0", () => expect(() => evaluateAttributes({ sampleSize: 10, deviations: 0, confidence: 0 })).toThrow(/confidence/));
-    it("an unknown mode", () => expect(() => evaluateAttributes({ sampleSize: 10, deviations: 0, confidence: 0.9, mode: "rounded" as "table" })).toThrow(/mode/));
+    it("deviations above sampleSize", () =>
+      expect(() => evaluateAttributes({ sampleSize: 10, deviations: 11, confidence: 0.95 })).toThrow(
+        /deviations must be an integer between 0 and 10/,
+      ));
+    it("negative deviations", () =>
+      expect(() => evaluateAttributes({ sampleSize: 10, deviations: -1, confidence: 0.95 })).toThrow(/deviations/));
+    it("sampleSize 0", () =>
+      expect(() => evaluateAttributes({ sampleSize: 0, deviations: 0, confidence: 0.95 })).toThrow(/sampleSize/));
+    it("confidence 0", () =>
+      expect(() => evaluateAttributes({ sampleSize: 10, deviations: 0, confidence: 0 })).toThrow(/confidence/));
+    it("an unknown mode", () =>
+      expect(() =>
+        evaluateAttributes({ sampleSize: 10, deviations: 0, confidence: 0.9, mode: "rounded" as "table" }),
+      ).toThrow(/mode/));
   });
 });

@@ -43,34 +43,71 @@ describe("evaluateStratified on the R survey stratified sample (N_A 60, N_B 440)
 });
 
 describe("evaluateStratified properties", () => {
-  const item = fc.record({ bookValue: fc.integer({ min: 100, max: 5000000 }), diff: fc.integer({ min: -10000, max: 10000 }) })
+  const item = fc
+    .record({ bookValue: fc.integer({ min: 100, max: 5000000 }), diff: fc.integer({ min: -10000, max: 10000 }) })
     .map(({ bookValue, diff }) => ({ bookValue: bookValue / 100, auditedValue: (bookValue + diff) / 100 }));
   const pairs: [StratifiedEstimator, "mean-per-unit" | "difference" | "ratio"][] = [
-    ["mean-per-unit", "mean-per-unit"], ["difference", "difference"], ["separate-ratio", "ratio"], ["combined-ratio", "ratio"],
+    ["mean-per-unit", "mean-per-unit"],
+    ["difference", "difference"],
+    ["separate-ratio", "ratio"],
+    ["combined-ratio", "ratio"],
   ];
   it("one stratum equals the unstratified evaluation", () => {
     fc.assert(
-      fc.property(fc.array(item, { minLength: 2, maxLength: 40 }), fc.constantFrom(...pairs), (sample, [stratified, plain]) => {
-        const stratum = { populationSize: 500, populationBookValue: 250000, sample };
-        const a = evaluateStratified({ estimator: stratified, strata: [stratum], confidence: 0.9, sides: "two" });
-        const b = evaluateVariables({ estimator: plain, ...stratum, confidence: 0.9, sides: "two" });
-        expect(a.estimatedAuditedValue).toBeCloseTo(b.estimatedAuditedValue, 5);
-        expect(a.standardError).toBeCloseTo(b.standardError, 5);
-      }),
+      fc.property(
+        fc.array(item, { minLength: 2, maxLength: 40 }),
+        fc.constantFrom(...pairs),
+        (sample, [stratified, plain]) => {
+          const stratum = { populationSize: 500, populationBookValue: 250000, sample };
+          const a = evaluateStratified({ estimator: stratified, strata: [stratum], confidence: 0.9, sides: "two" });
+          const b = evaluateVariables({ estimator: plain, ...stratum, confidence: 0.9, sides: "two" });
+          expect(a.estimatedAuditedValue).toBeCloseTo(b.estimatedAuditedValue, 5);
+          expect(a.standardError).toBeCloseTo(b.standardError, 5);
+        },
+      ),
       { numRuns: 150 },
     );
   });
 });
 
 describe("evaluateStratified rejects bad input", () => {
-  it("an unknown estimator", () => expect(() => evaluateStratified({ ...base, estimator: "ratio" as StratifiedEstimator })).toThrow(/estimator must be one of/));
-  it("an empty strata list", () => expect(() => evaluateStratified({ ...base, strata: [], estimator: "difference" })).toThrow(/strata must contain/));
+  it("an unknown estimator", () =>
+    expect(() => evaluateStratified({ ...base, estimator: "ratio" as StratifiedEstimator })).toThrow(
+      /estimator must be one of/,
+    ));
+  it("an empty strata list", () =>
+    expect(() => evaluateStratified({ ...base, strata: [], estimator: "difference" })).toThrow(/strata must contain/));
   it("a stratum with one sampled item, naming the stratum", () =>
-    expect(() => evaluateStratified({ ...base, strata: [STRATUM_A, { ...STRATUM_B, sample: STRATUM_B.sample.slice(0, 1) }], estimator: "difference" })).toThrow(/strata\[1\]\.sample must hold at least 2/));
+    expect(() =>
+      evaluateStratified({
+        ...base,
+        strata: [STRATUM_A, { ...STRATUM_B, sample: STRATUM_B.sample.slice(0, 1) }],
+        estimator: "difference",
+      }),
+    ).toThrow(/strata\[1\]\.sample must hold at least 2/));
   it("a stratum whose sample exceeds its population", () =>
-    expect(() => evaluateStratified({ ...base, strata: [{ ...STRATUM_A, populationSize: 5 }], estimator: "difference" })).toThrow(/strata\[0\]\.sample must hold at least 2 and at most 5/));
+    expect(() =>
+      evaluateStratified({ ...base, strata: [{ ...STRATUM_A, populationSize: 5 }], estimator: "difference" }),
+    ).toThrow(/strata\[0\]\.sample must hold at least 2 and at most 5/));
   it("a stratum book value with 3 decimals", () =>
-    expect(() => evaluateStratified({ ...base, strata: [{ ...STRATUM_A, populationBookValue: 1.234 }], estimator: "difference" })).toThrow(/strata\[0\]\.populationBookValue/));
+    expect(() =>
+      evaluateStratified({ ...base, strata: [{ ...STRATUM_A, populationBookValue: 1.234 }], estimator: "difference" }),
+    ).toThrow(/strata\[0\]\.populationBookValue/));
   it("a zero stratum book total for the separate ratio", () =>
-    expect(() => evaluateStratified({ ...base, strata: [{ populationSize: 10, populationBookValue: 0, sample: [{ bookValue: 5, auditedValue: 5 }, { bookValue: -5, auditedValue: 0 }] }], estimator: "separate-ratio" })).toThrow(/strata\[0\]\.sample bookValue total must not be zero/));
+    expect(() =>
+      evaluateStratified({
+        ...base,
+        strata: [
+          {
+            populationSize: 10,
+            populationBookValue: 0,
+            sample: [
+              { bookValue: 5, auditedValue: 5 },
+              { bookValue: -5, auditedValue: 0 },
+            ],
+          },
+        ],
+        estimator: "separate-ratio",
+      }),
+    ).toThrow(/strata\[0\]\.sample bookValue total must not be zero/));
 });

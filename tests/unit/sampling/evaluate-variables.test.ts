@@ -66,7 +66,13 @@ describe("evaluateVariables on Cochran's 49 cities (R boot::bigcity)", () => {
   it("ratio estimate of the 1930 total with X = 22,919 (N = 196)", () => {
     // R 4.2.2 boot 1.3-28.1: R*X = 28397.0673; N*sqrt((1-f)/n)*s_e = 604.0362 (N form); MPU N*ybar = 25048,
     // SE 2985.5307. X = 22,919 for all 196 cities is from memory (Cochran 1977 ch. 6); 28,397 matches Cochran's figure.
-    const input = { populationSize: 196, populationBookValue: 22919, sample: BIGCITY, confidence: 0.95, sides: "two" as const };
+    const input = {
+      populationSize: 196,
+      populationBookValue: 22919,
+      sample: BIGCITY,
+      confidence: 0.95,
+      sides: "two" as const,
+    };
     const ratio = evaluateVariables({ ...input, estimator: "ratio" });
     expect(ratio.estimatedAuditedValue).toBeCloseTo(28397.0673, 3);
     expect(ratio.standardError).toBeCloseTo(604.0362, 3);
@@ -77,49 +83,119 @@ describe("evaluateVariables on Cochran's 49 cities (R boot::bigcity)", () => {
 });
 
 describe("evaluateVariables properties", () => {
-  const item = fc.record({ bookValue: fc.integer({ min: 100, max: 10000000 }), diff: fc.integer({ min: -20000, max: 20000 }) })
+  const item = fc
+    .record({ bookValue: fc.integer({ min: 100, max: 10000000 }), diff: fc.integer({ min: -20000, max: 20000 }) })
     .map(({ bookValue, diff }) => ({ bookValue: bookValue / 100, auditedValue: (bookValue + diff) / 100 }));
   it("estimates do not depend on the order of the sample", () => {
     fc.assert(
-      fc.property(fc.array(item, { minLength: 3, maxLength: 40 }), fc.constantFrom<Estimator>("mean-per-unit", "difference", "ratio", "regression"), (sample, estimator) => {
-        fc.pre(new Set(sample.map((s) => s.bookValue)).size > 1);
-        const input = { estimator, populationSize: 1000, populationBookValue: 1e6, confidence: 0.9, sides: "two" as const };
-        const a = evaluateVariables({ ...input, sample });
-        const b = evaluateVariables({ ...input, sample: [...sample].reverse() });
-        expect(b.estimatedAuditedValue).toBeCloseTo(a.estimatedAuditedValue, 4);
-        expect(b.standardError).toBeCloseTo(a.standardError, 4);
-      }),
+      fc.property(
+        fc.array(item, { minLength: 3, maxLength: 40 }),
+        fc.constantFrom<Estimator>("mean-per-unit", "difference", "ratio", "regression"),
+        (sample, estimator) => {
+          fc.pre(new Set(sample.map((s) => s.bookValue)).size > 1);
+          const input = {
+            estimator,
+            populationSize: 1000,
+            populationBookValue: 1e6,
+            confidence: 0.9,
+            sides: "two" as const,
+          };
+          const a = evaluateVariables({ ...input, sample });
+          const b = evaluateVariables({ ...input, sample: [...sample].reverse() });
+          expect(b.estimatedAuditedValue).toBeCloseTo(a.estimatedAuditedValue, 4);
+          expect(b.standardError).toBeCloseTo(a.standardError, 4);
+        },
+      ),
       { numRuns: 150 },
     );
   });
   it("a sample with no misstatement gives the book value and zero SE for difference and ratio", () => {
-    const sample = [{ bookValue: 10, auditedValue: 10 }, { bookValue: 25.5, auditedValue: 25.5 }, { bookValue: 7, auditedValue: 7 }];
+    const sample = [
+      { bookValue: 10, auditedValue: 10 },
+      { bookValue: 25.5, auditedValue: 25.5 },
+      { bookValue: 7, auditedValue: 7 },
+    ];
     for (const estimator of ["difference", "ratio"] as const) {
-      const r = evaluateVariables({ estimator, populationSize: 100, populationBookValue: 1234.56, sample, confidence: 0.95, sides: "two" });
+      const r = evaluateVariables({
+        estimator,
+        populationSize: 100,
+        populationBookValue: 1234.56,
+        sample,
+        confidence: 0.95,
+        sides: "two",
+      });
       expect(r.estimatedAuditedValue).toBeCloseTo(1234.56, 8);
       expect(r.standardError).toBeCloseTo(0, 8);
     }
   });
   it("the finite population correction zeroes the variance of a census", () => {
-    const sample = [{ bookValue: 10, auditedValue: 9 }, { bookValue: 20, auditedValue: 20 }];
-    const r = evaluateVariables({ estimator: "mean-per-unit", populationSize: 2, populationBookValue: 30, sample, confidence: 0.95, sides: "two" });
+    const sample = [
+      { bookValue: 10, auditedValue: 9 },
+      { bookValue: 20, auditedValue: 20 },
+    ];
+    const r = evaluateVariables({
+      estimator: "mean-per-unit",
+      populationSize: 2,
+      populationBookValue: 30,
+      sample,
+      confidence: 0.95,
+      sides: "two",
+    });
     expect(r.estimatedAuditedValue).toBe(29);
     expect(r.standardError).toBe(0);
   });
 });
 
 describe("evaluateVariables rejects bad input", () => {
-  it("an unknown estimator", () => expect(() => evaluateVariables({ ...base, estimator: "median" as Estimator })).toThrow(/estimator must be one of/));
-  it("a sample larger than the population", () => expect(() => evaluateVariables({ ...base, estimator: "difference", populationSize: 20 })).toThrow(/sample must hold at least 2 and at most 20 items/));
-  it("a single-item sample", () => expect(() => evaluateVariables({ ...base, estimator: "difference", sample: [base.sample[0]] })).toThrow(/sample must hold at least 2/));
-  it("two items for regression", () => expect(() => evaluateVariables({ ...base, estimator: "regression", sample: base.sample.slice(0, 2) })).toThrow(/at least 3/));
+  it("an unknown estimator", () =>
+    expect(() => evaluateVariables({ ...base, estimator: "median" as Estimator })).toThrow(/estimator must be one of/));
+  it("a sample larger than the population", () =>
+    expect(() => evaluateVariables({ ...base, estimator: "difference", populationSize: 20 })).toThrow(
+      /sample must hold at least 2 and at most 20 items/,
+    ));
+  it("a single-item sample", () =>
+    expect(() => evaluateVariables({ ...base, estimator: "difference", sample: [base.sample[0]] })).toThrow(
+      /sample must hold at least 2/,
+    ));
+  it("two items for regression", () =>
+    expect(() => evaluateVariables({ ...base, estimator: "regression", sample: base.sample.slice(0, 2) })).toThrow(
+      /at least 3/,
+    ));
   it("a zero sample book total for the ratio estimator", () =>
-    expect(() => evaluateVariables({ ...base, estimator: "ratio", sample: [{ bookValue: 10, auditedValue: 5 }, { bookValue: -10, auditedValue: 0 }] })).toThrow(/must not be zero for the ratio estimator/));
+    expect(() =>
+      evaluateVariables({
+        ...base,
+        estimator: "ratio",
+        sample: [
+          { bookValue: 10, auditedValue: 5 },
+          { bookValue: -10, auditedValue: 0 },
+        ],
+      }),
+    ).toThrow(/must not be zero for the ratio estimator/));
   it("constant book values for regression", () =>
-    expect(() => evaluateVariables({ ...base, estimator: "regression", sample: [1, 2, 3].map((a) => ({ bookValue: 10, auditedValue: a })) })).toThrow(/must vary for the regression estimator/));
+    expect(() =>
+      evaluateVariables({
+        ...base,
+        estimator: "regression",
+        sample: [1, 2, 3].map((a) => ({ bookValue: 10, auditedValue: a })),
+      }),
+    ).toThrow(/must vary for the regression estimator/));
   it("an item with a non-numeric audited value, naming it", () =>
-    expect(() => evaluateVariables({ ...base, estimator: "difference", sample: [base.sample[0], { bookValue: 1, auditedValue: "n/a" as unknown as number }] })).toThrow(/sample\[1\]\.auditedValue must be a number/));
-  it("a population book value with 3 decimals", () => expect(() => evaluateVariables({ ...base, estimator: "difference", populationBookValue: 1.005 })).toThrow(/populationBookValue must have at most 2 decimals/));
-  it("an unknown sides value", () => expect(() => evaluateVariables({ ...base, estimator: "difference", sides: "both" as "two" })).toThrow(/sides must be one of/));
-  it("confidence 1", () => expect(() => evaluateVariables({ ...base, estimator: "difference", confidence: 1 })).toThrow(/confidence/));
+    expect(() =>
+      evaluateVariables({
+        ...base,
+        estimator: "difference",
+        sample: [base.sample[0], { bookValue: 1, auditedValue: "n/a" as unknown as number }],
+      }),
+    ).toThrow(/sample\[1\]\.auditedValue must be a number/));
+  it("a population book value with 3 decimals", () =>
+    expect(() => evaluateVariables({ ...base, estimator: "difference", populationBookValue: 1.005 })).toThrow(
+      /populationBookValue must have at most 2 decimals/,
+    ));
+  it("an unknown sides value", () =>
+    expect(() => evaluateVariables({ ...base, estimator: "difference", sides: "both" as "two" })).toThrow(
+      /sides must be one of/,
+    ));
+  it("confidence 1", () =>
+    expect(() => evaluateVariables({ ...base, estimator: "difference", confidence: 1 })).toThrow(/confidence/));
 });

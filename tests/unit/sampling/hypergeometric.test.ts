@@ -67,8 +67,9 @@ describe("hypergeometric attribute sample sizes", () => {
 
   it("attributeSampleSize with populationSize: N 100, TDR 5%, EDR 0, 95% → 45 (M 5), not the fpc shortcut's 37.1", () => {
     // Methods reference test T8 (scipy): hypergeom.cdf(0, 100, 5, 45) = 0.0462 <= 0.05, n = 44 gives 0.0512.
-    expect(attributeSampleSize({ tolerableRate: 0.05, expectedRate: 0, confidence: 0.95, populationSize: 100 }))
-      .toEqual({ sampleSize: 45, allowedDeviations: 0, model: "hypergeometric", populationDeviations: 5 });
+    expect(
+      attributeSampleSize({ tolerableRate: 0.05, expectedRate: 0, confidence: 0.95, populationSize: 100 }),
+    ).toEqual({ sampleSize: 45, allowedDeviations: 0, model: "hypergeometric", populationDeviations: 5 });
   });
 
   it("with an expected rate, k = ceil(EDR·n) as in the binomial search (scipy search quoted)", () => {
@@ -82,25 +83,41 @@ describe("hypergeometric attribute sample sizes", () => {
       [300, 0.08, 0.04, 0.9, 91, 4, 24],
     ];
     for (const [N, tdr, edr, confidence, n, k, M] of cases) {
-      expect(attributeSampleSize({ tolerableRate: tdr, expectedRate: edr, confidence, populationSize: N }))
-        .toEqual({ sampleSize: n, allowedDeviations: k, model: "hypergeometric", populationDeviations: M });
+      expect(attributeSampleSize({ tolerableRate: tdr, expectedRate: edr, confidence, populationSize: N })).toEqual({
+        sampleSize: n,
+        allowedDeviations: k,
+        model: "hypergeometric",
+        populationDeviations: M,
+      });
     }
   });
 
   it("is never larger than the binomial size and equals it at N = 100,000 (TDR 5%, EDR 1%, 95%: 93)", () => {
     for (const N of [50, 300, 2500, 100000]) {
-      const hyper = attributeSampleSize({ tolerableRate: 0.05, expectedRate: 0.01, confidence: 0.95, populationSize: N });
+      const hyper = attributeSampleSize({
+        tolerableRate: 0.05,
+        expectedRate: 0.01,
+        confidence: 0.95,
+        populationSize: N,
+      });
       expect(hyper.sampleSize).toBeLessThanOrEqual(93);
     }
-    expect(attributeSampleSize({ tolerableRate: 0.05, expectedRate: 0.01, confidence: 0.95, populationSize: 100000 }).sampleSize).toBe(93);
+    expect(
+      attributeSampleSize({ tolerableRate: 0.05, expectedRate: 0.01, confidence: 0.95, populationSize: 100000 })
+        .sampleSize,
+    ).toBe(93);
   });
 
   it("refuses a population with no size that meets the risk, naming populationSize and tolerableRate", () =>
     // N 20, TDR 5% → M 1; k = ceil(0.01·n) = 1 can never be rejected (methods reference "None").
-    expect(() => attributeSampleSize({ tolerableRate: 0.05, expectedRate: 0.01, confidence: 0.95, populationSize: 20 })).toThrow(/populationSize \(20\) with tolerableRate 0.05 \(1 deviations assumed\) has no sample size/));
+    expect(() =>
+      attributeSampleSize({ tolerableRate: 0.05, expectedRate: 0.01, confidence: 0.95, populationSize: 20 }),
+    ).toThrow(/populationSize \(20\) with tolerableRate 0.05 \(1 deviations assumed\) has no sample size/));
 
   it("refuses a non-integer population size", () =>
-    expect(() => attributeSampleSize({ tolerableRate: 0.05, expectedRate: 0, confidence: 0.95, populationSize: 10.5 })).toThrow(/populationSize must be an integer/));
+    expect(() =>
+      attributeSampleSize({ tolerableRate: 0.05, expectedRate: 0, confidence: 0.95, populationSize: 10.5 }),
+    ).toThrow(/populationSize must be an integer/));
 });
 
 describe("hypergeometric attribute evaluation", () => {
@@ -126,7 +143,13 @@ describe("hypergeometric attribute evaluation", () => {
   it("table mode rounds the rate up to 0.1 percentage point", () => {
     // N 300, n 40, k 1 → M_U / N; rounded up to the next 0.001.
     const exact = evaluateAttributes({ sampleSize: 40, deviations: 1, confidence: 0.95, populationSize: 300 });
-    const table = evaluateAttributes({ sampleSize: 40, deviations: 1, confidence: 0.95, populationSize: 300, mode: "table" });
+    const table = evaluateAttributes({
+      sampleSize: 40,
+      deviations: 1,
+      confidence: 0.95,
+      populationSize: 300,
+      mode: "table",
+    });
     expect(table.upperLimit).toBe(Math.ceil(exact.upperLimit * 1000 - 1e-9) / 1000);
   });
 
@@ -138,5 +161,7 @@ describe("hypergeometric attribute evaluation", () => {
   });
 
   it("refuses a population smaller than the sample", () =>
-    expect(() => evaluateAttributes({ sampleSize: 59, deviations: 0, confidence: 0.95, populationSize: 50 })).toThrow(/populationSize must be an integer between 59/));
+    expect(() => evaluateAttributes({ sampleSize: 59, deviations: 0, confidence: 0.95, populationSize: 50 })).toThrow(
+      /populationSize must be an integer between 59/,
+    ));
 });

@@ -38,7 +38,9 @@ const TABLE = [
 
 describe("poissonFactor", () => {
   it("exact mode matches the gamma quantile table to 6 decimals (k = 0..10)", () => {
-    EXACT.forEach((row, k) => row.forEach((value, j) => expect(poissonFactor(k, CONFIDENCES[j])).toBeCloseTo(value, 6)));
+    EXACT.forEach((row, k) =>
+      row.forEach((value, j) => expect(poissonFactor(k, CONFIDENCES[j])).toBeCloseTo(value, 6)),
+    );
   });
 
   it("table mode reproduces the published rounded-up factors exactly (k = 0..10)", () => {
@@ -69,10 +71,12 @@ describe("poissonFactor", () => {
   it("uses −ln(1 − c) for zero errors", () => expect(poissonFactor(0, 0.95)).toBeCloseTo(-Math.log(0.05), 14));
 
   describe("rejects bad input", () => {
-    it("negative errors", () => expect(() => poissonFactor(-1, 0.95)).toThrow(/errors must be an integer between 0 and 10000/));
+    it("negative errors", () =>
+      expect(() => poissonFactor(-1, 0.95)).toThrow(/errors must be an integer between 0 and 10000/));
     it("fractional errors", () => expect(() => poissonFactor(1.5, 0.95)).toThrow(/errors/));
     it("confidence 1", () => expect(() => poissonFactor(1, 1)).toThrow(/confidence must be strictly between 0 and 1/));
-    it("an unknown mode", () => expect(() => poissonFactor(1, 0.95, "nearest" as "table")).toThrow(/mode must be one of/));
+    it("an unknown mode", () =>
+      expect(() => poissonFactor(1, 0.95, "nearest" as "table")).toThrow(/mode must be one of/));
     it("a string confidence", () => expect(() => poissonFactor(1, "95%" as unknown as number)).toThrow(TypeError));
   });
 });

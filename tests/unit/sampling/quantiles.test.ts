@@ -66,7 +66,8 @@ describe("binomialCdf against @stdlib binomial cdf", () => {
     }
   });
   it("jStat's binomial.cdf (rounded to 1e-10 by design) agrees to 1e-9 absolute", () => {
-    for (const [k, n, p] of grid) expect(Math.abs(jStat.binomial.cdf(k, n, p) - stdlibBinomialCdf(k, n, p))).toBeLessThan(1e-9);
+    for (const [k, n, p] of grid)
+      expect(Math.abs(jStat.binomial.cdf(k, n, p) - stdlibBinomialCdf(k, n, p))).toBeLessThan(1e-9);
   });
   it("handles the edges k < 0, k >= n, p = 0 and p = 1", () => {
     expect(binomialCdf(-1, 10, 0.3)).toBe(0);

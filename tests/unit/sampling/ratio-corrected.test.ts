@@ -39,12 +39,20 @@ describe("bias-corrected ratio estimators on a fixed sample (numpy 2.4.6 computa
     const by = [48, 120, 70, 310, 45, 190];
     const X = bx.reduce((a, b) => a + b, 0);
     const Y = by.reduce((a, b) => a + b, 0);
-    let hr = 0, ratio = 0, jack = 0, count = 0;
-    for (let a = 0; a < 6; a++) for (let b = a + 1; b < 6; b++) for (let c = b + 1; c < 6; c++) {
-      const s = [a, b, c].map((i) => ({ bookValue: bx[i], auditedValue: by[i] }));
-      const e = correctedRatioEstimates({ sample: s, populationSize: 6, populationBookValue: X });
-      hr += e["hartley-ross"]!.estimate; ratio += e.ratio!.estimate; jack += e["jackknife-ratio"]!.estimate; count++;
-    }
+    let hr = 0,
+      ratio = 0,
+      jack = 0,
+      count = 0;
+    for (let a = 0; a < 6; a++)
+      for (let b = a + 1; b < 6; b++)
+        for (let c = b + 1; c < 6; c++) {
+          const s = [a, b, c].map((i) => ({ bookValue: bx[i], auditedValue: by[i] }));
+          const e = correctedRatioEstimates({ sample: s, populationSize: 6, populationBookValue: X });
+          hr += e["hartley-ross"]!.estimate;
+          ratio += e.ratio!.estimate;
+          jack += e["jackknife-ratio"]!.estimate;
+          count++;
+        }
     expect(count).toBe(20);
     expect(hr / count).toBeCloseTo(Y, 9);
     expect(Math.abs(ratio / count - Y)).toBeGreaterThan(0.01); // the plain ratio estimator is biased here
@@ -52,10 +60,21 @@ describe("bias-corrected ratio estimators on a fixed sample (numpy 2.4.6 computa
   });
 
   it("leaves Hartley–Ross undefined (null) when a sampled book value is zero, and every ratio form when the sample's book total is zero", () => {
-    const withZero = correctedRatioEstimates({ sample: [{ bookValue: 0, auditedValue: 0 }, ...sample], populationSize: 40, populationBookValue: 4200 });
+    const withZero = correctedRatioEstimates({
+      sample: [{ bookValue: 0, auditedValue: 0 }, ...sample],
+      populationSize: 40,
+      populationBookValue: 4200,
+    });
     expect(withZero["hartley-ross"]).toBeNull();
     expect(withZero["jackknife-ratio"]).not.toBeNull();
-    const zeroTotal = correctedRatioEstimates({ sample: [{ bookValue: 100, auditedValue: 90 }, { bookValue: -100, auditedValue: -100 }], populationSize: 40, populationBookValue: 4200 });
+    const zeroTotal = correctedRatioEstimates({
+      sample: [
+        { bookValue: 100, auditedValue: 90 },
+        { bookValue: -100, auditedValue: -100 },
+      ],
+      populationSize: 40,
+      populationBookValue: 4200,
+    });
     expect(zeroTotal.ratio).toBeNull();
     expect(zeroTotal["tin-ratio"]).toBeNull();
   });

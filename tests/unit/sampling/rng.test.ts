@@ -15,14 +15,18 @@ describe("createRng (MT19937, init_genrand)", () => {
     // numpy 2.4.6 MT19937 with _legacy_seeding(5489), random_raw(5) → 3499211612, 581869302,
     // 3890346734, 3586334585, 545404204 (same as mt19937ar.c genrand_int32 after init_genrand(5489)).
     const rng = createRng(5489);
-    expect([1, 2, 3, 4, 5].map(() => rng.nextUint32())).toEqual([3499211612, 581869302, 3890346734, 3586334585, 545404204]);
+    expect([1, 2, 3, 4, 5].map(() => rng.nextUint32())).toEqual([
+      3499211612, 581869302, 3890346734, 3586334585, 545404204,
+    ]);
   });
 
   it("gives numpy's RandomState(5489).random_sample(3) bit for bit (genrand_res53)", () => {
     // numpy 2.4.6: numpy.random.RandomState(5489).random_sample(3)
     // → 0.8147236863931789, 0.9057919370756192, 0.12698681629350606
     const rng = createRng(5489);
-    expect([rng.nextDouble(), rng.nextDouble(), rng.nextDouble()]).toEqual([0.8147236863931789, 0.9057919370756192, 0.12698681629350606]);
+    expect([rng.nextDouble(), rng.nextDouble(), rng.nextDouble()]).toEqual([
+      0.8147236863931789, 0.9057919370756192, 0.12698681629350606,
+    ]);
   });
 
   it.each([
@@ -49,12 +53,15 @@ describe("createRng (MT19937, init_genrand)", () => {
 
   it("gives doubles in [0, 1) as multiples of 2^-53", () => {
     const rng = createRng(7);
-    const bad = Array.from({ length: 10000 }, () => rng.nextDouble()).filter((u) => !(u >= 0 && u < 1) || !Number.isInteger(u * 2 ** 53));
+    const bad = Array.from({ length: 10000 }, () => rng.nextDouble()).filter(
+      (u) => !(u >= 0 && u < 1) || !Number.isInteger(u * 2 ** 53),
+    );
     expect(bad).toEqual([]);
   });
 
   describe("rejects bad seeds", () => {
-    it("rejects a negative seed", () => expect(() => createRng(-1)).toThrow(/seed must be an integer between 0 and 4294967295/));
+    it("rejects a negative seed", () =>
+      expect(() => createRng(-1)).toThrow(/seed must be an integer between 0 and 4294967295/));
     it("rejects a seed above 2^32 - 1", () => expect(() => createRng(4294967296)).toThrow(RangeError));
     it("rejects a fractional seed", () => expect(() => createRng(1.5)).toThrow(RangeError));
     it("rejects NaN with a TypeError", () => expect(() => createRng(Number.NaN)).toThrow(TypeError));

@@ -3,8 +3,10 @@ import fc from "fast-check";
 import { createRng, selectPps } from "@/lib/sampling";
 
 /** Canonical 20-item invoice population (ids INV001..INV020), book values in currency units. */
-const INVOICES = [1250.0, 480.5, 0.0, 3625.75, 910.2, 12500.0, 155.0, -420.0, 2300.1, 777.77, 4100.0, 59.99, 1823.45, 960.0,
-  3333.33, 1200.0, 645.0, 2750.0, 199.99, 888.88];
+const INVOICES = [
+  1250.0, 480.5, 0.0, 3625.75, 910.2, 12500.0, 155.0, -420.0, 2300.1, 777.77, 4100.0, 59.99, 1823.45, 960.0, 3333.33,
+  1200.0, 645.0, 2750.0, 199.99, 888.88,
+];
 
 /** Independent re-performance: list every point, then find its item by a linear scan of cumulative cents. */
 function byPoints(bookValues: number[], intervalCents: number, startCents: number): Map<number, number[]> {
@@ -37,7 +39,14 @@ describe("selectPps (systematic monetary-unit selection)", () => {
     // RandomState(1206281).random_sample() = 0.6547467429185535 → 1 + floor(u · 474,499) = 310,677.
     const r = selectPps({ bookValues: INVOICES, interval: 4744.99, seed: 1206281 });
     expect(r.randomStart).toBe(3106.77);
-    expect(r.hits.map((h) => [h.index, h.hitPoints.length])).toEqual([[3, 1], [5, 3], [10, 1], [12, 1], [14, 1], [17, 1]]);
+    expect(r.hits.map((h) => [h.index, h.hitPoints.length])).toEqual([
+      [3, 1],
+      [5, 3],
+      [10, 1],
+      [12, 1],
+      [14, 1],
+      [17, 1],
+    ]);
     expect(r.hits[1].hitPoints).toEqual([7851.76, 12596.75, 17341.74]);
   });
 
@@ -61,7 +70,9 @@ describe("selectPps (systematic monetary-unit selection)", () => {
 
   it("uses r = 1 + floor(u_0 J) with J the interval in cents", () => {
     const u0 = createRng(77).nextDouble();
-    expect(selectPps({ bookValues: INVOICES, interval: 4744.99, seed: 77 }).randomStart).toBe((1 + Math.floor(u0 * 474499)) / 100);
+    expect(selectPps({ bookValues: INVOICES, interval: 4744.99, seed: 77 }).randomStart).toBe(
+      (1 + Math.floor(u0 * 474499)) / 100,
+    );
   });
 
   it("hits nothing when the frame total is below the start", () => {
@@ -72,36 +83,54 @@ describe("selectPps (systematic monetary-unit selection)", () => {
   it("property: hits agree with point-by-point re-performance; hit count = number of points; items >= interval always hit", () => {
     const cents = fc.integer({ min: -50000, max: 2000000 }).map((c) => c / 100);
     fc.assert(
-      fc.property(fc.array(cents, { minLength: 1, maxLength: 60 }), fc.integer({ min: 50000, max: 3000000 }), fc.integer({ min: 0, max: 4294967295 }), (values, intervalCents, seed) => {
-        const r = selectPps({ bookValues: values, interval: intervalCents / 100, seed });
-        const start = Math.round(r.randomStart * 100);
-        const total = Math.round(r.frameTotal * 100);
-        const points = total >= start ? Math.floor((total - start) / intervalCents) + 1 : 0;
-        expect(r.hits.reduce((sum, h) => sum + h.hitPoints.length, 0)).toBe(points);
-        expect(new Map(r.hits.map((h) => [h.index, h.hitPoints]))).toEqual(byPoints(values, intervalCents, start));
-        values.forEach((v, i) => {
-          if (Math.round(v * 100) >= intervalCents) expect(r.hits.some((h) => h.index === i)).toBe(true);
-          if (Math.round(v * 100) <= 0) expect(r.excluded).toContain(i);
-        });
-        const indices = r.hits.map((h) => h.index);
-        expect(new Set(indices).size).toBe(indices.length);
-        expect([...indices].sort((a, b) => a - b)).toEqual(indices);
-      }),
+      fc.property(
+        fc.array(cents, { minLength: 1, maxLength: 60 }),
+        fc.integer({ min: 50000, max: 3000000 }),
+        fc.integer({ min: 0, max: 4294967295 }),
+        (values, intervalCents, seed) => {
+          const r = selectPps({ bookValues: values, interval: intervalCents / 100, seed });
+          const start = Math.round(r.randomStart * 100);
+          const total = Math.round(r.frameTotal * 100);
+          const points = total >= start ? Math.floor((total - start) / intervalCents) + 1 : 0;
+          expect(r.hits.reduce((sum, h) => sum + h.hitPoints.length, 0)).toBe(points);
+          expect(new Map(r.hits.map((h) => [h.index, h.hitPoints]))).toEqual(byPoints(values, intervalCents, start));
+          values.forEach((v, i) => {
+            if (Math.round(v * 100) >= intervalCents) expect(r.hits.some((h) => h.index === i)).toBe(true);
+            if (Math.round(v * 100) <= 0) expect(r.excluded).toContain(i);
+          });
+          const indices = r.hits.map((h) => h.index);
+          expect(new Set(indices).size).toBe(indices.length);
+          expect([...indices].sort((a, b) => a - b)).toEqual(indices);
+        },
+      ),
       { numRuns: 300 },
     );
   });
 
   describe("rejects bad input", () => {
     it("a book value with more than 2 decimals, naming the item", () =>
-      expect(() => selectPps({ bookValues: [10, 12.345], interval: 5, seed: 1 })).toThrow(/bookValues\[1\] must have at most 2 decimals/));
-    it("a non-numeric book value", () => expect(() => selectPps({ bookValues: [10, "x" as unknown as number], interval: 5, seed: 1 })).toThrow(TypeError));
-    it("an infinite book value", () => expect(() => selectPps({ bookValues: [Infinity], interval: 5, seed: 1 })).toThrow(/bookValues\[0\] must be finite/));
-    it("a zero interval", () => expect(() => selectPps({ bookValues: [10], interval: 0, seed: 1 })).toThrow(/interval must be greater than zero/));
-    it("an interval below one cent", () => expect(() => selectPps({ bookValues: [10], interval: 0.004, seed: 1 })).toThrow(/interval/));
-    it("bookValues that is not an array", () => expect(() => selectPps({ bookValues: 5 as unknown as number[], interval: 1, seed: 1 })).toThrow(TypeError));
+      expect(() => selectPps({ bookValues: [10, 12.345], interval: 5, seed: 1 })).toThrow(
+        /bookValues\[1\] must have at most 2 decimals/,
+      ));
+    it("a non-numeric book value", () =>
+      expect(() => selectPps({ bookValues: [10, "x" as unknown as number], interval: 5, seed: 1 })).toThrow(TypeError));
+    it("an infinite book value", () =>
+      expect(() => selectPps({ bookValues: [Infinity], interval: 5, seed: 1 })).toThrow(
+        /bookValues\[0\] must be finite/,
+      ));
+    it("a zero interval", () =>
+      expect(() => selectPps({ bookValues: [10], interval: 0, seed: 1 })).toThrow(
+        /interval must be greater than zero/,
+      ));
+    it("an interval below one cent", () =>
+      expect(() => selectPps({ bookValues: [10], interval: 0.004, seed: 1 })).toThrow(/interval/));
+    it("bookValues that is not an array", () =>
+      expect(() => selectPps({ bookValues: 5 as unknown as number[], interval: 1, seed: 1 })).toThrow(TypeError));
     it("a total beyond the exact range in cents", () =>
       expect(() => selectPps({ bookValues: [5e13, 5e13], interval: 1e12, seed: 1 })).toThrow(/exact range/));
     it("an interval giving more than 1,000,000 selection points", () =>
-      expect(() => selectPps({ bookValues: [20000], interval: 0.01, seed: 1 })).toThrow(/too small for this population/));
+      expect(() => selectPps({ bookValues: [20000], interval: 0.01, seed: 1 })).toThrow(
+        /too small for this population/,
+      ));
   });
 });

@@ -6,7 +6,10 @@ import { createRng, selectRandom } from "@/lib/sampling";
 function bySort(populationSize: number, sampleSize: number, seed: number): number[] {
   const rng = createRng(seed);
   const u = Array.from({ length: populationSize }, () => rng.nextDouble());
-  return u.map((_, i) => i).sort((a, b) => u[a] - u[b] || a - b).slice(0, sampleSize);
+  return u
+    .map((_, i) => i)
+    .sort((a, b) => u[a] - u[b] || a - b)
+    .slice(0, sampleSize);
 }
 
 describe("selectRandom (random-number sort)", () => {
@@ -16,7 +19,9 @@ describe("selectRandom (random-number sort)", () => {
   });
 
   it("equals the full sort of the random-number column for a larger population", () => {
-    expect(selectRandom({ populationSize: 5000, sampleSize: 120, seed: 20240101 })).toEqual(bySort(5000, 120, 20240101));
+    expect(selectRandom({ populationSize: 5000, sampleSize: 120, seed: 20240101 })).toEqual(
+      bySort(5000, 120, 20240101),
+    );
   });
 
   it("returns the whole population when n = N, in u order", () => {
@@ -25,14 +30,19 @@ describe("selectRandom (random-number sort)", () => {
 
   it("property: no duplicates, all in range, length n, and equal to the full sort", () => {
     fc.assert(
-      fc.property(fc.integer({ min: 1, max: 400 }), fc.integer({ min: 0, max: 4294967295 }), fc.double({ min: 0, max: 1, noNaN: true }), (N, seed, share) => {
-        const n = Math.max(1, Math.round(share * N));
-        const picks = selectRandom({ populationSize: N, sampleSize: n, seed });
-        expect(picks).toHaveLength(n);
-        expect(new Set(picks).size).toBe(n);
-        expect(picks.every((i) => Number.isInteger(i) && i >= 0 && i < N)).toBe(true);
-        expect(picks).toEqual(bySort(N, n, seed));
-      }),
+      fc.property(
+        fc.integer({ min: 1, max: 400 }),
+        fc.integer({ min: 0, max: 4294967295 }),
+        fc.double({ min: 0, max: 1, noNaN: true }),
+        (N, seed, share) => {
+          const n = Math.max(1, Math.round(share * N));
+          const picks = selectRandom({ populationSize: N, sampleSize: n, seed });
+          expect(picks).toHaveLength(n);
+          expect(new Set(picks).size).toBe(n);
+          expect(picks.every((i) => Number.isInteger(i) && i >= 0 && i < N)).toBe(true);
+          expect(picks).toEqual(bySort(N, n, seed));
+        },
+      ),
       { numRuns: 150 },
     );
   });
@@ -50,11 +60,20 @@ describe("selectRandom (random-number sort)", () => {
 
   describe("rejects bad input", () => {
     it("sampleSize above populationSize", () =>
-      expect(() => selectRandom({ populationSize: 10, sampleSize: 11, seed: 1 })).toThrow(/sampleSize must be an integer between 1 and 10/));
-    it("sampleSize 0", () => expect(() => selectRandom({ populationSize: 10, sampleSize: 0, seed: 1 })).toThrow(RangeError));
-    it("fractional populationSize", () => expect(() => selectRandom({ populationSize: 10.5, sampleSize: 2, seed: 1 })).toThrow(/populationSize/));
-    it("negative seed", () => expect(() => selectRandom({ populationSize: 10, sampleSize: 2, seed: -3 })).toThrow(/seed/));
-    it("missing options object", () => expect(() => selectRandom(null as unknown as Parameters<typeof selectRandom>[0])).toThrow(TypeError));
-    it("string sampleSize", () => expect(() => selectRandom({ populationSize: 10, sampleSize: "2" as unknown as number, seed: 1 })).toThrow(TypeError));
+      expect(() => selectRandom({ populationSize: 10, sampleSize: 11, seed: 1 })).toThrow(
+        /sampleSize must be an integer between 1 and 10/,
+      ));
+    it("sampleSize 0", () =>
+      expect(() => selectRandom({ populationSize: 10, sampleSize: 0, seed: 1 })).toThrow(RangeError));
+    it("fractional populationSize", () =>
+      expect(() => selectRandom({ populationSize: 10.5, sampleSize: 2, seed: 1 })).toThrow(/populationSize/));
+    it("negative seed", () =>
+      expect(() => selectRandom({ populationSize: 10, sampleSize: 2, seed: -3 })).toThrow(/seed/));
+    it("missing options object", () =>
+      expect(() => selectRandom(null as unknown as Parameters<typeof selectRandom>[0])).toThrow(TypeError));
+    it("string sampleSize", () =>
+      expect(() => selectRandom({ populationSize: 10, sampleSize: "2" as unknown as number, seed: 1 })).toThrow(
+        TypeError,
+      ));
   });
 });

@@ -3,7 +3,11 @@ import { selectRandom, selectStratifiedRandom } from "@/lib/sampling";
 
 describe("selectStratifiedRandom", () => {
   it("draws stratum h with selectRandom and seed + h (strata numbered from 1)", () => {
-    const strata = [{ populationSize: 100, sampleSize: 10 }, { populationSize: 40, sampleSize: 5 }, { populationSize: 7, sampleSize: 7 }];
+    const strata = [
+      { populationSize: 100, sampleSize: 10 },
+      { populationSize: 40, sampleSize: 5 },
+      { populationSize: 7, sampleSize: 7 },
+    ];
     const result = selectStratifiedRandom({ strata, seed: 1000 });
     expect(result).toEqual(strata.map((s, i) => selectRandom({ ...s, seed: 1000 + i + 1 })));
   });
@@ -14,9 +18,19 @@ describe("selectStratifiedRandom", () => {
   });
 
   describe("rejects bad input", () => {
-    it("an empty strata list", () => expect(() => selectStratifiedRandom({ strata: [], seed: 1 })).toThrow(/strata must contain/));
+    it("an empty strata list", () =>
+      expect(() => selectStratifiedRandom({ strata: [], seed: 1 })).toThrow(/strata must contain/));
     it("a stratum with sampleSize above its populationSize, naming the stratum", () =>
-      expect(() => selectStratifiedRandom({ strata: [{ populationSize: 5, sampleSize: 2 }, { populationSize: 3, sampleSize: 4 }], seed: 1 })).toThrow(/strata\[1\]\.sampleSize/));
-    it("strata that is not an array", () => expect(() => selectStratifiedRandom({ strata: {} as never, seed: 1 })).toThrow(TypeError));
+      expect(() =>
+        selectStratifiedRandom({
+          strata: [
+            { populationSize: 5, sampleSize: 2 },
+            { populationSize: 3, sampleSize: 4 },
+          ],
+          seed: 1,
+        }),
+      ).toThrow(/strata\[1\]\.sampleSize/));
+    it("strata that is not an array", () =>
+      expect(() => selectStratifiedRandom({ strata: {} as never, seed: 1 })).toThrow(TypeError));
   });
 });

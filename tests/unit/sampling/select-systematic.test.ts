@@ -15,25 +15,33 @@ describe("selectSystematic", () => {
 
   it("property: ascending, distinct, in range, gaps of floor(k) or ceil(k)", () => {
     fc.assert(
-      fc.property(fc.integer({ min: 1, max: 5000 }), fc.integer({ min: 0, max: 4294967295 }), fc.double({ min: 0, max: 1, noNaN: true }), (N, seed, share) => {
-        const n = Math.max(1, Math.round(share * N));
-        const picks = selectSystematic({ populationSize: N, sampleSize: n, seed });
-        const k = N / n;
-        expect(picks).toHaveLength(n);
-        expect(picks[0]).toBe(Math.floor(createRng(seed).nextDouble() * k));
-        for (let j = 1; j < n; j++) {
-          const gap = picks[j] - picks[j - 1];
-          expect(gap === Math.floor(k) || gap === Math.ceil(k)).toBe(true);
-        }
-        expect(picks[n - 1]).toBeLessThan(N);
-      }),
+      fc.property(
+        fc.integer({ min: 1, max: 5000 }),
+        fc.integer({ min: 0, max: 4294967295 }),
+        fc.double({ min: 0, max: 1, noNaN: true }),
+        (N, seed, share) => {
+          const n = Math.max(1, Math.round(share * N));
+          const picks = selectSystematic({ populationSize: N, sampleSize: n, seed });
+          const k = N / n;
+          expect(picks).toHaveLength(n);
+          expect(picks[0]).toBe(Math.floor(createRng(seed).nextDouble() * k));
+          for (let j = 1; j < n; j++) {
+            const gap = picks[j] - picks[j - 1];
+            expect(gap === Math.floor(k) || gap === Math.ceil(k)).toBe(true);
+          }
+          expect(picks[n - 1]).toBeLessThan(N);
+        },
+      ),
       { numRuns: 200 },
     );
   });
 
   describe("rejects bad input", () => {
-    it("sampleSize above populationSize", () => expect(() => selectSystematic({ populationSize: 5, sampleSize: 6, seed: 1 })).toThrow(/sampleSize/));
-    it("populationSize 0", () => expect(() => selectSystematic({ populationSize: 0, sampleSize: 1, seed: 1 })).toThrow(/populationSize/));
-    it("seed above 2^32 - 1", () => expect(() => selectSystematic({ populationSize: 5, sampleSize: 1, seed: 2 ** 32 })).toThrow(/seed/));
+    it("sampleSize above populationSize", () =>
+      expect(() => selectSystematic({ populationSize: 5, sampleSize: 6, seed: 1 })).toThrow(/sampleSize/));
+    it("populationSize 0", () =>
+      expect(() => selectSystematic({ populationSize: 0, sampleSize: 1, seed: 1 })).toThrow(/populationSize/));
+    it("seed above 2^32 - 1", () =>
+      expect(() => selectSystematic({ populationSize: 5, sampleSize: 1, seed: 2 ** 32 })).toThrow(/seed/));
   });
 });

@@ -1,10 +1,24 @@
 import { describe, expect, it } from "vitest";
-import { assumeAuditedValues, createRng, evaluateMus, selectPps, simulateStringer, type SampledItem } from "@/lib/sampling";
+import {
+  assumeAuditedValues,
+  createRng,
+  evaluateMus,
+  selectPps,
+  simulateStringer,
+  type SampledItem,
+} from "@/lib/sampling";
 
 const rng = createRng(77);
 const BOOK = Array.from({ length: 5000 }, () => Math.round((20 + 3000 * rng.nextDouble() ** 3) * 100) / 100);
-const withAudited = (audited: number[]): SampledItem[] => BOOK.map((b, i) => ({ bookValue: b, auditedValue: audited[i] }));
-const MISSTATED = withAudited(assumeAuditedValues({ bookValues: BOOK, seed: 21, scenario: { kind: "pattern", misstatedShare: 0.04, tainting: "spread", overstatementShare: 1 } }));
+const withAudited = (audited: number[]): SampledItem[] =>
+  BOOK.map((b, i) => ({ bookValue: b, auditedValue: audited[i] }));
+const MISSTATED = withAudited(
+  assumeAuditedValues({
+    bookValues: BOOK,
+    seed: 21,
+    scenario: { kind: "pattern", misstatedShare: 0.04, tainting: "spread", overstatementShare: 1 },
+  }),
+);
 const bookTotal = BOOK.reduce((s, b) => s + Math.round(b * 100), 0) / 100;
 
 describe("simulateStringer", () => {
@@ -38,7 +52,8 @@ describe("simulateStringer", () => {
   });
 
   it("rmse² = bias² + sd², the same seed gives the same figures, histograms count every trial", () => {
-    const run = () => simulateStringer({ population: MISSTATED, sampleSize: 60, trials: 700, seed: 3, confidence: 0.95 });
+    const run = () =>
+      simulateStringer({ population: MISSTATED, sampleSize: 60, trials: 700, seed: 3, confidence: 0.95 });
     const r = run();
     expect(r.rmse / Math.hypot(r.bias, r.standardDeviation)).toBeCloseTo(1, 12);
     expect(run()).toEqual(r);
@@ -47,7 +62,14 @@ describe("simulateStringer", () => {
 
   it("reports progress every 500 trials", () => {
     const seen: number[] = [];
-    simulateStringer({ population: MISSTATED, sampleSize: 30, trials: 1200, seed: 3, confidence: 0.95, onProgress: (d) => seen.push(d) });
+    simulateStringer({
+      population: MISSTATED,
+      sampleSize: 30,
+      trials: 1200,
+      seed: 3,
+      confidence: 0.95,
+      onProgress: (d) => seen.push(d),
+    });
     expect(seen).toEqual([500, 1000]);
   });
 
@@ -56,6 +78,14 @@ describe("simulateStringer", () => {
     expect(() => simulateStringer({ ...ok, sampleSize: 0 })).toThrow(/sampleSize/);
     expect(() => simulateStringer({ ...ok, trials: 0 })).toThrow(/trials/);
     expect(() => simulateStringer({ ...ok, sides: "both" as "two" })).toThrow(/sides must be one of/);
-    expect(() => simulateStringer({ ...ok, population: [{ bookValue: -1, auditedValue: -1 }, { bookValue: 0, auditedValue: 0 }] })).toThrow(/positive book value/);
+    expect(() =>
+      simulateStringer({
+        ...ok,
+        population: [
+          { bookValue: -1, auditedValue: -1 },
+          { bookValue: 0, auditedValue: 0 },
+        ],
+      }),
+    ).toThrow(/positive book value/);
   });
 });

@@ -20,12 +20,21 @@ describe("Student t option (issue 13 §5)", () => {
     const reg = evaluateVariables({ ...base, estimator: "regression" });
     expect(reg.degreesOfFreedom).toBe(28);
     expect(reg.zValue).toBeCloseTo(2.0484071417952454, 6); // scipy.stats.t.ppf(0.975, 28)
-    expect(evaluateVariables({ ...base, distribution: "z", estimator: "mean-per-unit" }).zValue).toBeCloseTo(1.959963984540054, 10);
+    expect(evaluateVariables({ ...base, distribution: "z", estimator: "mean-per-unit" }).zValue).toBeCloseTo(
+      1.959963984540054,
+      10,
+    );
   });
 
   it("uses Satterthwaite's degrees of freedom for strata, and warns on n < 30 and on each stratum with n_h < 10", () => {
     // numpy/scipy: v_h = N_h²(1 − f_h)s_h²/n_h; ν = (Σv_h)²/Σ(v_h²/(n_h − 1)) = 13.693375252431373; t.ppf(0.975, ν) = 2.14930112374242
-    const r = evaluateStratified({ strata: [STRATUM_A, STRATUM_B], confidence: 0.95, sides: "two", estimator: "mean-per-unit", distribution: "t" });
+    const r = evaluateStratified({
+      strata: [STRATUM_A, STRATUM_B],
+      confidence: 0.95,
+      sides: "two",
+      estimator: "mean-per-unit",
+      distribution: "t",
+    });
     expect(r.degreesOfFreedom).toBeCloseTo(13.693375252431373, 8);
     expect(r.zValue).toBeCloseTo(2.14930112374242, 7);
     expect(r.warnings.join(" ")).toMatch(/Only 20 items in the sample: below 30/);
@@ -34,6 +43,14 @@ describe("Student t option (issue 13 §5)", () => {
   });
 
   it("names the field for an unknown distribution", () => {
-    expect(() => evaluateVariables({ ...UNSTRATIFIED, confidence: 0.95, sides: "two", estimator: "difference", distribution: "w" as "z" })).toThrow(/^distribution/);
+    expect(() =>
+      evaluateVariables({
+        ...UNSTRATIFIED,
+        confidence: 0.95,
+        sides: "two",
+        estimator: "difference",
+        distribution: "w" as "z",
+      }),
+    ).toThrow(/^distribution/);
   });
 });

@@ -1,7 +1,14 @@
 import { describe, expect, it } from "vitest";
 import { EntrySchema, SummarySettingsSchema } from "@/lib/validation/misstatements";
 
-const base = { kind: "factual", account: "Accrued liabilities", assertion: "Completeness", description: "Unrecorded freight invoice", incomeEffect: "0", balanceEffect: "0" };
+const base = {
+  kind: "factual",
+  account: "Accrued liabilities",
+  assertion: "Completeness",
+  description: "Unrecorded freight invoice",
+  incomeEffect: "0",
+  balanceEffect: "0",
+};
 
 describe("a misstatement entry's input", () => {
   it("keeps signed amounts as exact decimal strings, accepting a typographic minus and thousands separators", () => {
@@ -25,7 +32,10 @@ describe("a misstatement entry's input", () => {
 
 describe("the summary's thresholds", () => {
   it("takes the approaching share as a fraction between 5 % and 100 %", () => {
-    expect(SummarySettingsSchema.parse({ clearlyTrivial: "60000", approachingShare: "0.75" })).toEqual({ clearlyTrivial: "60000.00", approachingShare: 0.75 });
+    expect(SummarySettingsSchema.parse({ clearlyTrivial: "60000", approachingShare: "0.75" })).toEqual({
+      clearlyTrivial: "60000.00",
+      approachingShare: 0.75,
+    });
     expect(SummarySettingsSchema.safeParse({ clearlyTrivial: "1", approachingShare: 75 }).success).toBe(false);
     expect(SummarySettingsSchema.safeParse({ clearlyTrivial: "-1", approachingShare: 0.5 }).success).toBe(false);
   });

@@ -23,9 +23,17 @@ describe("other user schemas", () => {
     expect(passwordInput.safeParse("123456789012").success).toBe(true);
   });
   it("CreateUserSchema carries no password: the person chooses it with a link", () => {
-    expect(CreateUserSchema.parse({ name: "Ada Quill", email: "ada@example.com", grade: "staff", password: "typed by an admin" })).not.toHaveProperty("password");
+    expect(
+      CreateUserSchema.parse({
+        name: "Ada Quill",
+        email: "ada@example.com",
+        grade: "staff",
+        password: "typed by an admin",
+      }),
+    ).not.toHaveProperty("password");
   });
-  it("UpdateUserSchema takes a deactivation", () => expect(UpdateUserSchema.parse({ active: false })).toEqual({ active: false }));
+  it("UpdateUserSchema takes a deactivation", () =>
+    expect(UpdateUserSchema.parse({ active: false })).toEqual({ active: false }));
   it("UpdateUserSchema refuses an empty change", () => expect(UpdateUserSchema.safeParse({}).success).toBe(false));
   it("SignInSchema asks for both fields", () => {
     const r = SignInSchema.safeParse({ email: "", password: "" });

@@ -18,10 +18,20 @@ export default async function InvitationPage({ params }: { params: Promise<{ tok
         {invitation ? (
           <>
             <h1 className="text-xl font-semibold">Welcome, {invitation.name}</h1>
-            <p className="mb-6 mt-1 text-sm text-ink-soft">Choose a password for {invitation.email}. {invitation.grade === "client" ? "You will use it to sign in and send documents to your auditors." : "You will use it to sign in to your firm\u2019s Sondage workspace."}</p>
+            <p className="mb-6 mt-1 text-sm text-ink-soft">
+              Choose a password for {invitation.email}.{" "}
+              {invitation.grade === "client"
+                ? "You will use it to sign in and send documents to your auditors."
+                : "You will use it to sign in to your firm\u2019s Sondage workspace."}
+            </p>
             <InvitationForm token={token} client={invitation.grade === "client"} />
           </>
-        ) : <Alert>This invitation link is not valid any more (used, expired or mistyped). Ask the audit team to invite you again.</Alert>}
+        ) : (
+          <Alert>
+            This invitation link is not valid any more (used, expired or mistyped). Ask the audit team to invite you
+            again.
+          </Alert>
+        )}
       </div>
     </main>
   );

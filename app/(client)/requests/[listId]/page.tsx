@@ -20,7 +20,11 @@ export default async function ClientRequestPage({ params }: { params: Promise<{ 
   const view = await clientListView(db, list);
   return (
     <>
-      <p className="mb-2 text-sm"><Link href="/requests" className="text-ink-soft link">← My requests</Link></p>
+      <p className="mb-2 text-sm">
+        <Link href="/requests" className="text-ink-soft link">
+          ← My requests
+        </Link>
+      </p>
       <ClientRequestList initial={view} />
     </>
   );

@@ -38,7 +38,11 @@ export default async function EngagementPage({ params }: { params: Promise<{ eng
   ];
   return (
     <>
-      <PageHeader eyebrow={engagement.clientName} title={engagement.name} actions={<Badge tone={statusTone(engagement.status)}>{STATUS_LABELS[engagement.status]}</Badge>}>
+      <PageHeader
+        eyebrow={engagement.clientName}
+        title={engagement.name}
+        actions={<Badge tone={statusTone(engagement.status)}>{STATUS_LABELS[engagement.status]}</Badge>}
+      >
         Period ended {formatDate(engagement.periodEnd)}
       </PageHeader>
       <EngagementTabs engagementId={engagement.id} current="overview" />
@@ -53,7 +57,16 @@ export default async function EngagementPage({ params }: { params: Promise<{ eng
             ))}
           </dl>
         </Card>
-        <Card title="Team" action={hasAtLeastRole(role, "manager") && <Link href={`/engagements/${engagement.id}/team`} className="text-sm font-medium text-ledger-600 link">Manage</Link>}>
+        <Card
+          title="Team"
+          action={
+            hasAtLeastRole(role, "manager") && (
+              <Link href={`/engagements/${engagement.id}/team`} className="text-sm font-medium text-ledger-600 link">
+                Manage
+              </Link>
+            )
+          }
+        >
           <ul className="space-y-2">
             {members.map((m) => (
               <li key={m.userId} className="flex items-center justify-between text-sm">
@@ -64,16 +77,46 @@ export default async function EngagementPage({ params }: { params: Promise<{ eng
           </ul>
         </Card>
         <Card
-          title="Populations" className="lg:col-span-3"
-          action={hasAtLeastRole(role, "senior") && <Link href={`/engagements/${engagement.id}/populations/new`} className="text-sm font-medium text-ledger-600 link">Load a ledger</Link>}
+          title="Populations"
+          className="lg:col-span-3"
+          action={
+            hasAtLeastRole(role, "senior") && (
+              <Link
+                href={`/engagements/${engagement.id}/populations/new`}
+                className="text-sm font-medium text-ledger-600 link"
+              >
+                Load a ledger
+              </Link>
+            )
+          }
         >
-          <PopulationList engagementId={engagement.id} populations={populations.filter((p) => !p.archivedAt)} currency={engagement.currency} mayLoad={hasAtLeastRole(role, "senior")} />
+          <PopulationList
+            engagementId={engagement.id}
+            populations={populations.filter((p) => !p.archivedAt)}
+            currency={engagement.currency}
+            mayLoad={hasAtLeastRole(role, "senior")}
+          />
         </Card>
         <Card
-          title="Samples" className="lg:col-span-3"
-          action={hasAtLeastRole(role, "senior") && <Link href={`/engagements/${engagement.id}/samples/new`} className="text-sm font-medium text-ledger-600 link">Plan a sample</Link>}
+          title="Samples"
+          className="lg:col-span-3"
+          action={
+            hasAtLeastRole(role, "senior") && (
+              <Link
+                href={`/engagements/${engagement.id}/samples/new`}
+                className="text-sm font-medium text-ledger-600 link"
+              >
+                Plan a sample
+              </Link>
+            )
+          }
         >
-          <SampleList engagementId={engagement.id} samples={samples} overviews={overviews} mayPlan={hasAtLeastRole(role, "senior")} />
+          <SampleList
+            engagementId={engagement.id}
+            samples={samples}
+            overviews={overviews}
+            mayPlan={hasAtLeastRole(role, "senior")}
+          />
         </Card>
       </div>
     </>

@@ -16,7 +16,9 @@ export default async function NewEngagementPage() {
         You join the team as its {user.grade === "partner" ? "partner" : "manager"}; add the rest of the team next.
       </PageHeader>
       {gradeMayCreateEngagement(user.grade) ? (
-        <Card><EngagementForm /></Card>
+        <Card>
+          <EngagementForm />
+        </Card>
       ) : (
         <Alert>Only managers and partners can create engagements. Ask a manager on your team to set it up.</Alert>
       )}

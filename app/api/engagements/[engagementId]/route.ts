@@ -8,6 +8,10 @@ export const GET = withEngagementRole(z.object({}), "viewer", async (_input, { d
   myRole: role,
 }));
 
-export const PATCH = withEngagementRole(UpdateEngagementSchema, "manager", async (input, { db, engagementId, user }) => ({
-  engagement: await updateEngagement(db, { engagementId, actorId: user.id, input }),
-}));
+export const PATCH = withEngagementRole(
+  UpdateEngagementSchema,
+  "manager",
+  async (input, { db, engagementId, user }) => ({
+    engagement: await updateEngagement(db, { engagementId, actorId: user.id, input }),
+  }),
+);

@@ -52,18 +52,24 @@ const TABLE_10 = `
 7.00 - - - - - - 1300(91) 385(27) 199(14) 52(4) 25(2)`;
 
 function cells(table: string, confidence: number) {
-  return table.trim().split("\n").flatMap((line) => {
-    const [edr, ...entries] = line.trim().split(/\s+/);
-    return entries.flatMap((entry, j) => {
-      if (entry === "-") return [];
-      const [, n, k] = /^(\d+)\((\d+)\)$/.exec(entry)!;
-      return [{ tolerableRate: TDR[j], expectedRate: Number(edr) / 100, confidence, n: Number(n), k: Number(k) }];
+  return table
+    .trim()
+    .split("\n")
+    .flatMap((line) => {
+      const [edr, ...entries] = line.trim().split(/\s+/);
+      return entries.flatMap((entry, j) => {
+        if (entry === "-") return [];
+        const [, n, k] = /^(\d+)\((\d+)\)$/.exec(entry)!;
+        return [{ tolerableRate: TDR[j], expectedRate: Number(edr) / 100, confidence, n: Number(n), k: Number(k) }];
+      });
     });
-  });
 }
 
 describe("attributeSampleSize reproduces the ceil-convention tables", () => {
-  it.each([["5% risk", TABLE_5, 0.95], ["10% risk", TABLE_10, 0.9]] as const)("every cell at %s", (_label, table, confidence) => {
+  it.each([
+    ["5% risk", TABLE_5, 0.95],
+    ["10% risk", TABLE_10, 0.9],
+  ] as const)("every cell at %s", (_label, table, confidence) => {
     const got = cells(table, confidence).map((c) => {
       const r = attributeSampleSize(c);
       return `${c.expectedRate}/${c.tolerableRate}: ${r.sampleSize}(${r.allowedDeviations})`;
@@ -73,7 +79,11 @@ describe("attributeSampleSize reproduces the ceil-convention tables", () => {
 
   it("gives 90 (0) at 1% risk, 5% tolerable: ceil(ln 0.01 / ln 0.95) = ceil(89.78)", () => {
     // Closed form for zero deviations, n = ceil(ln β / ln(1 − TDR)) (binomial; hand computation).
-    expect(attributeSampleSize({ tolerableRate: 0.05, expectedRate: 0, confidence: 0.99 })).toEqual({ sampleSize: 90, allowedDeviations: 0, model: "binomial" });
+    expect(attributeSampleSize({ tolerableRate: 0.05, expectedRate: 0, confidence: 0.99 })).toEqual({
+      sampleSize: 90,
+      allowedDeviations: 0,
+      model: "binomial",
+    });
   });
 
   it("keeps an exact product whole: EDR 7%, TDR 20% passes at n = 100 with k = 7, not 8", () => {
@@ -82,7 +92,11 @@ describe("attributeSampleSize reproduces the ceil-convention tables", () => {
     // check here is on k alone: the search must see k = 7 at n = 100 (hand computation).
     expect(Math.ceil(0.07 * 100)).toBe(8);
     expect(Math.ceil(0.07 * 100 - 1e-9)).toBe(7);
-    expect(attributeSampleSize({ tolerableRate: 0.2, expectedRate: 0.07, confidence: 0.95 })).toEqual({ sampleSize: 37, allowedDeviations: 3, model: "binomial" });
+    expect(attributeSampleSize({ tolerableRate: 0.2, expectedRate: 0.07, confidence: 0.95 })).toEqual({
+      sampleSize: 37,
+      allowedDeviations: 3,
+      model: "binomial",
+    });
   });
 
   it("sizes that pass the criterion have an upper deviation limit at or below the tolerable rate", () => {
@@ -95,13 +109,28 @@ describe("attributeSampleSize reproduces the ceil-convention tables", () => {
 
   describe("rejects bad input", () => {
     it("expectedRate at the tolerable rate", () =>
-      expect(() => attributeSampleSize({ tolerableRate: 0.05, expectedRate: 0.05, confidence: 0.95 })).toThrow(/expectedRate must be at least 0 and below tolerableRate/));
-    it("a negative expectedRate", () => expect(() => attributeSampleSize({ tolerableRate: 0.05, expectedRate: -0.01, confidence: 0.95 })).toThrow(/expectedRate/));
-    it("tolerableRate 0", () => expect(() => attributeSampleSize({ tolerableRate: 0, expectedRate: 0, confidence: 0.95 })).toThrow(/tolerableRate must be strictly between 0 and 1/));
-    it("confidence 1", () => expect(() => attributeSampleSize({ tolerableRate: 0.05, expectedRate: 0, confidence: 1 })).toThrow(/confidence/));
+      expect(() => attributeSampleSize({ tolerableRate: 0.05, expectedRate: 0.05, confidence: 0.95 })).toThrow(
+        /expectedRate must be at least 0 and below tolerableRate/,
+      ));
+    it("a negative expectedRate", () =>
+      expect(() => attributeSampleSize({ tolerableRate: 0.05, expectedRate: -0.01, confidence: 0.95 })).toThrow(
+        /expectedRate/,
+      ));
+    it("tolerableRate 0", () =>
+      expect(() => attributeSampleSize({ tolerableRate: 0, expectedRate: 0, confidence: 0.95 })).toThrow(
+        /tolerableRate must be strictly between 0 and 1/,
+      ));
+    it("confidence 1", () =>
+      expect(() => attributeSampleSize({ tolerableRate: 0.05, expectedRate: 0, confidence: 1 })).toThrow(/confidence/));
     // The search walks every size to the limit (about 3 s alone): a generous harness timeout, not a speed check.
     it("a size beyond the search limit", { timeout: 30_000 }, () =>
-      expect(() => attributeSampleSize({ tolerableRate: 0.02, expectedRate: 0.0199, confidence: 0.95 })).toThrow(/no attribute sample size up to 100000/));
-    it("a non-numeric rate", () => expect(() => attributeSampleSize({ tolerableRate: "5%" as unknown as number, expectedRate: 0, confidence: 0.95 })).toThrow(TypeError));
+      expect(() => attributeSampleSize({ tolerableRate: 0.02, expectedRate: 0.0199, confidence: 0.95 })).toThrow(
+        /no attribute sample size up to 100000/,
+      ),
+    );
+    it("a non-numeric rate", () =>
+      expect(() =>
+        attributeSampleSize({ tolerableRate: "5%" as unknown as number, expectedRate: 0, confidence: 0.95 }),
+      ).toThrow(TypeError));
   });
 });

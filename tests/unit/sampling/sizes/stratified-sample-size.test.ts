@@ -23,20 +23,38 @@ describe("neymanAllocation", () => {
 
   it("takes a stratum 100% when its share exceeds its size and reallocates the rest", () => {
     // Share of stratum 1: 50 × 50,000/60,000 = 41.7 > 10 → n_1 = 10, the remaining 40 go to stratum 2.
-    const r = neymanAllocation({ strata: [{ populationSize: 10, standardDeviation: 5000 }, { populationSize: 1000, standardDeviation: 10 }], sampleSize: 50 });
+    const r = neymanAllocation({
+      strata: [
+        { populationSize: 10, standardDeviation: 5000 },
+        { populationSize: 1000, standardDeviation: 10 },
+      ],
+      sampleSize: 50,
+    });
     expect(r.allocation).toEqual([10, 40]);
   });
 
   it("keeps at least 2 per stratum so each has a variance estimate", () => {
-    const r = neymanAllocation({ strata: [{ populationSize: 1000, standardDeviation: 1000 }, { populationSize: 1000, standardDeviation: 1 }], sampleSize: 40 });
+    const r = neymanAllocation({
+      strata: [
+        { populationSize: 1000, standardDeviation: 1000 },
+        { populationSize: 1000, standardDeviation: 1 },
+      ],
+      sampleSize: 40,
+    });
     expect(r.allocation).toEqual([38, 2]);
   });
 
   describe("rejects bad input", () => {
-    it("a sample smaller than 2 per stratum", () => expect(() => neymanAllocation({ strata: STRATA, sampleSize: 5 })).toThrow(/sampleSize must be an integer between 6 and 2000/));
+    it("a sample smaller than 2 per stratum", () =>
+      expect(() => neymanAllocation({ strata: STRATA, sampleSize: 5 })).toThrow(
+        /sampleSize must be an integer between 6 and 2000/,
+      ));
     it("a negative standard deviation, naming the stratum", () =>
-      expect(() => neymanAllocation({ strata: [{ populationSize: 10, standardDeviation: -1 }], sampleSize: 2 })).toThrow(/strata\[0\]\.standardDeviation/));
-    it("an empty strata list", () => expect(() => neymanAllocation({ strata: [], sampleSize: 2 })).toThrow(/strata must contain/));
+      expect(() =>
+        neymanAllocation({ strata: [{ populationSize: 10, standardDeviation: -1 }], sampleSize: 2 }),
+      ).toThrow(/strata\[0\]\.standardDeviation/));
+    it("an empty strata list", () =>
+      expect(() => neymanAllocation({ strata: [], sampleSize: 2 })).toThrow(/strata must contain/));
   });
 });
 
@@ -50,7 +68,12 @@ describe("stratifiedSampleSize", () => {
     expect(r.allocatedStandardError).toBeLessThanOrEqual(60000 / 1.959963984540054);
   });
 
-  it("rejects a zero allowance", () => expect(() => stratifiedSampleSize({ strata: STRATA, plannedAllowance: 0, confidence: 0.95 })).toThrow(/plannedAllowance/));
+  it("rejects a zero allowance", () =>
+    expect(() => stratifiedSampleSize({ strata: STRATA, plannedAllowance: 0, confidence: 0.95 })).toThrow(
+      /plannedAllowance/,
+    ));
   it("rejects an unknown sides value", () =>
-    expect(() => stratifiedSampleSize({ strata: STRATA, plannedAllowance: 100, confidence: 0.95, sides: "upper" as "one" })).toThrow(/sides/));
+    expect(() =>
+      stratifiedSampleSize({ strata: STRATA, plannedAllowance: 100, confidence: 0.95, sides: "upper" as "one" }),
+    ).toThrow(/sides/));
 });

@@ -27,17 +27,25 @@ describe("engagement invitation", () => {
     const m = engagementInvitation(data);
     for (const part of [m.text, m.html].map((p) => p.replace(/\s+/g, " "))) {
       expect(part).toContain("Hello Jonah Lindqvist,");
-      expect(part).toContain("Tomás Reyes added you to the team of Tessaly Outdoor — Year-end audit 2026 in Sondage, as staff.");
+      expect(part).toContain(
+        "Tomás Reyes added you to the team of Tessaly Outdoor — Year-end audit 2026 in Sondage, as staff.",
+      );
       expect(part).toContain("31 Dec 2026");
       expect(part).toContain("30 Nov 2026, 15:40 UTC");
     }
   });
 
   it("escapes names and engagement labels in the HTML part", () => {
-    const m = engagementInvitation({ ...data, invitedBy: { name: HOSTILE }, engagement: { ...data.engagement, clientName: HOSTILE } });
+    const m = engagementInvitation({
+      ...data,
+      invitedBy: { name: HOSTILE },
+      engagement: { ...data.engagement, clientName: HOSTILE },
+    });
     expect(m.html).not.toContain("<script>");
     expect(m.html).not.toContain("<img");
-    expect(m.html).toContain("&lt;script&gt;alert(&quot;x&quot;)&lt;/script&gt; &amp; &lt;img src=x onerror=alert(1)&gt;");
+    expect(m.html).toContain(
+      "&lt;script&gt;alert(&quot;x&quot;)&lt;/script&gt; &amp; &lt;img src=x onerror=alert(1)&gt;",
+    );
     expect(m.text).toContain(HOSTILE); // plain text carries it as typed; no mail client runs it
   });
 

@@ -5,7 +5,9 @@ import { wrapText } from "@/templates/email/wrap-text";
 
 describe("escapeHtml", () => {
   it("escapes the five characters that matter in content and quoted attributes", () => {
-    expect(escapeHtml(`<a href="x" title='y'>&</a>`)).toBe("&lt;a href=&quot;x&quot; title=&#39;y&#39;&gt;&amp;&lt;/a&gt;");
+    expect(escapeHtml(`<a href="x" title='y'>&</a>`)).toBe(
+      "&lt;a href=&quot;x&quot; title=&#39;y&#39;&gt;&amp;&lt;/a&gt;",
+    );
   });
 
   it("escapes an ampersand once, so existing entities show as typed", () => {

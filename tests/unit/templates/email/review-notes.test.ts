@@ -21,7 +21,9 @@ describe("review note raised", () => {
   });
 
   it("quotes the note in the plain-text part, line by line", () => {
-    expect(m.text).toContain(`Tomás Reyes wrote:\n> Item 14: the confirmation disagrees by 1,250.00.\n> ${HOSTILE}\n> Please explain.`);
+    expect(m.text).toContain(
+      `Tomás Reyes wrote:\n> Item 14: the confirmation disagrees by 1,250.00.\n> ${HOSTILE}\n> Please explain.`,
+    );
   });
 
   it("links to the sample in both parts", () => {

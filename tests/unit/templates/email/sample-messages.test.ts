@@ -10,15 +10,28 @@ const ANSWER = { text: "Credit note CN-0042 posted after year end; reply attache
 const render = {
   "sample-ready-for-review": () => renderEmailTemplate("sample-ready-for-review", sampleEvent()),
   "review-note-raised": () => renderEmailTemplate("review-note-raised", { ...sampleEvent(), note: NOTE }),
-  "review-note-answered": () => renderEmailTemplate("review-note-answered", { ...sampleEvent(), note: NOTE, answer: ANSWER }),
+  "review-note-answered": () =>
+    renderEmailTemplate("review-note-answered", { ...sampleEvent(), note: NOTE, answer: ANSWER }),
   "review-note-cleared": () => renderEmailTemplate("review-note-cleared", { ...sampleEvent(), note: NOTE }),
   "sample-locked": () => renderEmailTemplate("sample-locked", sampleEvent()),
 };
 
 describe("every sample message", () => {
   it("covers every template but the invitations and the client-request messages (client-requests.test.ts)", () => {
-    const notSample = ["engagement-invitation", "client-invitation", "staff-invitation", "request-list-sent", "request-file-returned", "request-reminders", "request-list-closed"];
-    expect(Object.keys(render).sort()).toEqual(Object.keys(EMAIL_TEMPLATES).filter((k) => !notSample.includes(k)).sort());
+    const notSample = [
+      "engagement-invitation",
+      "client-invitation",
+      "staff-invitation",
+      "request-list-sent",
+      "request-file-returned",
+      "request-reminders",
+      "request-list-closed",
+    ];
+    expect(Object.keys(render).sort()).toEqual(
+      Object.keys(EMAIL_TEMPLATES)
+        .filter((k) => !notSample.includes(k))
+        .sort(),
+    );
   });
 
   for (const [name, make] of Object.entries(render)) {
@@ -60,7 +73,10 @@ describe("every sample message", () => {
   }
 
   it("escapes a hostile sample name and actor everywhere in the HTML", () => {
-    const m = renderEmailTemplate("sample-locked", sampleEvent({ sample: { name: HOSTILE }, actor: { name: "<b>Tom</b>" } }));
+    const m = renderEmailTemplate(
+      "sample-locked",
+      sampleEvent({ sample: { name: HOSTILE }, actor: { name: "<b>Tom</b>" } }),
+    );
     expect(m.html).not.toMatch(/<script|<img|<b>/);
     expect(m.html).toContain("&lt;b&gt;Tom&lt;/b&gt;");
     expect(m.subject).toBe(`Locked: ${HOSTILE} (Tessaly Outdoor)`);

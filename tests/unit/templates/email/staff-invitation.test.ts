@@ -1,7 +1,13 @@
 import { describe, expect, it } from "vitest";
 import { staffInvitation } from "@/templates/email/staff-invitation";
 
-const base = { recipient: { name: "Ada Quill" }, invitedBy: { name: "Ines Halvorsen" }, firmName: "Marrow & Quill", actionUrl: "https://sondage.example/invitation/abcdefghijklmnopqrstuvwxyz", expiresInDays: 14 };
+const base = {
+  recipient: { name: "Ada Quill" },
+  invitedBy: { name: "Ines Halvorsen" },
+  firmName: "Marrow & Quill",
+  actionUrl: "https://sondage.example/invitation/abcdefghijklmnopqrstuvwxyz",
+  expiresInDays: 14,
+};
 
 describe("staff invitation", () => {
   it("gives a new person the one-time link and how long it works", () => {
@@ -14,7 +20,9 @@ describe("staff invitation", () => {
   it("tells a person whose password was reset that the old one and their sessions have ended", () => {
     const m = staffInvitation({ ...base, reason: "reset" });
     expect(m.subject).toBe("Marrow & Quill: choose a new Sondage password");
-    expect(m.text.replace(/\s+/g, " ")).toContain("Your previous password no longer works and any session you had open has ended.");
+    expect(m.text.replace(/\s+/g, " ")).toContain(
+      "Your previous password no longer works and any session you had open has ended.",
+    );
     expect(m.html).toContain("Choose a new password");
   });
 });

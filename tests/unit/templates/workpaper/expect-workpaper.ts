@@ -21,7 +21,8 @@ export const SECTION_TITLES = [
 export function expectCommonContent(pdf: RenderedPdf, data: WorkpaperData): void {
   const text = squash(pdf.text);
   for (const title of SECTION_TITLES) expect(text).toContain(title);
-  for (const fact of [data.firmName, data.clientName, data.workpaperReference, "period ended 31 Dec 2026"]) expect(text).toContain(fact);
+  for (const fact of [data.firmName, data.clientName, data.workpaperReference, "period ended 31 Dec 2026"])
+    expect(text).toContain(fact);
   expect(text).toContain(String(data.selection.seed));
   expect(text).toContain(data.population.sha256);
   expect(text).toContain(data.selection.selectionSha256);
@@ -48,7 +49,8 @@ export function expectCommonContent(pdf: RenderedPdf, data: WorkpaperData): void
   expect(text).toContain("Computed by Sondage");
   expect(squash(data.conclusion.computed.statement).length).toBeGreaterThan(0);
   expect(text).toContain(squash(data.conclusion.computed.statement));
-  if (data.conclusion.auditor) expect(text).toContain(`Written by ${data.conclusion.auditor.writtenBy} (${data.conclusion.auditor.role})`);
+  if (data.conclusion.auditor)
+    expect(text).toContain(`Written by ${data.conclusion.auditor.writtenBy} (${data.conclusion.auditor.role})`);
 }
 
 export function expectDraftState(pdf: RenderedPdf, draft: boolean): void {

@@ -19,7 +19,13 @@ describe("monetary-unit workpaper", () => {
     const text = squash(pdf.text);
     expect(text).toContain("Upper misstatement limit");
     expect(text).toContain("Net upper misstatement limit");
-    for (const amount of [e.overstatement.basicPrecision, e.overstatement.upperLimit, e.understatement.upperLimit, e.netUpperLimits.overstatement, e.mostLikelyMisstatement]) {
+    for (const amount of [
+      e.overstatement.basicPrecision,
+      e.overstatement.upperLimit,
+      e.understatement.upperLimit,
+      e.netUpperLimits.overstatement,
+      e.mostLikelyMisstatement,
+    ]) {
       expect(text).toContain(formatMoney(amount));
     }
     for (const row of e.overstatement.rows) expect(text).toContain(row.reference);
@@ -33,9 +39,19 @@ describe("monetary-unit workpaper", () => {
     const data = musFixture({ draft: true });
     const e = data.evaluation as MusEvaluationBlock;
     // Re-evaluate from the printed items, independently of the fixture's builder.
-    const sample = data.items.filter((i) => !i.topStratum).map((i) => ({ bookValue: Number(i.bookValue), auditedValue: Number(i.auditedValue) }));
-    const top = data.items.filter((i) => i.topStratum).map((i) => ({ bookValue: Number(i.bookValue), auditedValue: Number(i.auditedValue) }));
-    const direct = evaluateMus({ interval: Number(e.interval), confidence: e.confidence, sample, topStratum: top, factors: e.factorMode });
+    const sample = data.items
+      .filter((i) => !i.topStratum)
+      .map((i) => ({ bookValue: Number(i.bookValue), auditedValue: Number(i.auditedValue) }));
+    const top = data.items
+      .filter((i) => i.topStratum)
+      .map((i) => ({ bookValue: Number(i.bookValue), auditedValue: Number(i.auditedValue) }));
+    const direct = evaluateMus({
+      interval: Number(e.interval),
+      confidence: e.confidence,
+      sample,
+      topStratum: top,
+      factors: e.factorMode,
+    });
     expect(Number(e.overstatement.upperLimit)).toBeCloseTo(direct.overstatement.upperLimit, 2);
     expect(Number(e.netUpperLimits.understatement)).toBeCloseTo(direct.netUpperLimits.understatement, 2);
     // Basic precision: RF(0) = −ln(0.05) = 2.9957 at 95% (Poisson; the AICPA guide tabulates 3.0).

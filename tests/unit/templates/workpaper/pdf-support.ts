@@ -41,7 +41,11 @@ export function previewPngs(file: string, name: string): string[] {
   fs.mkdirSync(out, { recursive: true });
   for (const old of fs.readdirSync(out).filter((f) => f.startsWith(`${name}-`))) fs.rmSync(path.join(out, old));
   execFileSync("pdftoppm", ["-png", "-r", "60", file, path.join(out, name)]);
-  return fs.readdirSync(out).filter((f) => f.startsWith(`${name}-`)).sort().map((f) => path.join(out, f));
+  return fs
+    .readdirSync(out)
+    .filter((f) => f.startsWith(`${name}-`))
+    .sort()
+    .map((f) => path.join(out, f));
 }
 
 /** Collapses runs of spaces so phrases wrapped by -layout columns can be matched. */
@@ -54,7 +58,9 @@ export function squash(text: string): string {
  * a 30 dpi PPM rendering; the draft banner at the top is outside the band.
  */
 export function watermarkPixels(file: string, page: number): number {
-  const ppm = execFileSync("pdftoppm", ["-r", "30", "-f", String(page), "-l", String(page), file], { maxBuffer: 1 << 26 });
+  const ppm = execFileSync("pdftoppm", ["-r", "30", "-f", String(page), "-l", String(page), file], {
+    maxBuffer: 1 << 26,
+  });
   const header = /^P6\s+(\d+)\s+(\d+)\s+255\s/.exec(ppm.subarray(0, 40).toString("latin1"));
   if (!header) throw new Error("pdftoppm did not return a P6 image");
   const [width, height] = [Number(header[1]), Number(header[2])];

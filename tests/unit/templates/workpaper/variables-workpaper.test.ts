@@ -19,14 +19,30 @@ describe("classical variables workpaper", () => {
     const e = data.evaluation as VariablesEvaluationBlock;
     // The printed figures are the engine's, re-computed here from the printed items.
     const direct = evaluateVariables({
-      estimator: "difference", populationSize: e.populationSize, populationBookValue: Number(e.populationBookValue),
-      sample: data.items.map((i) => ({ bookValue: Number(i.bookValue), auditedValue: Number(i.auditedValue) })), confidence: e.confidence, sides: e.sides,
+      estimator: "difference",
+      populationSize: e.populationSize,
+      populationBookValue: Number(e.populationBookValue),
+      sample: data.items.map((i) => ({ bookValue: Number(i.bookValue), auditedValue: Number(i.auditedValue) })),
+      confidence: e.confidence,
+      sides: e.sides,
     });
     expect(Number(e.standardError)).toBeCloseTo(direct.standardError, 2);
     // AICPA Audit Guide decision rule: A′ = z_α·SE with z_α two-sided at 1 − RIR/2 (both directions tested).
-    expect(Number(e.decision.achievedAllowance)).toBeCloseTo(normalQuantile(1 - e.decision.riskOfIncorrectRejection / 2) * direct.standardError, 2);
+    expect(Number(e.decision.achievedAllowance)).toBeCloseTo(
+      normalQuantile(1 - e.decision.riskOfIncorrectRejection / 2) * direct.standardError,
+      2,
+    );
     const text = squash(pdf.text);
-    for (const amount of [e.estimatedAuditedValue, e.projectedMisstatement, e.standardError, e.decision.plannedAllowance, e.decision.achievedAllowance, e.decision.allowance, e.decision.lowerLimit!, e.decision.upperLimit!]) {
+    for (const amount of [
+      e.estimatedAuditedValue,
+      e.projectedMisstatement,
+      e.standardError,
+      e.decision.plannedAllowance,
+      e.decision.achievedAllowance,
+      e.decision.allowance,
+      e.decision.lowerLimit!,
+      e.decision.upperLimit!,
+    ]) {
       expect(text).toContain(formatMoney(amount));
     }
     expect(text).toContain("Ŷ = X + N · d̄");
@@ -45,7 +61,8 @@ describe("classical variables workpaper", () => {
     expect(pdf.pageCount).toBeGreaterThan(1);
     const resultPages = pdf.pages.filter((page) => /^\s*\d+\s+INV-\d{5}/m.test(page));
     expect(resultPages.length).toBeGreaterThan(3);
-    for (const page of resultPages) expect(squash(page)).toContain("# Reference and description Book (EUR) Audited (EUR) Misstatement");
+    for (const page of resultPages)
+      expect(squash(page)).toContain("# Reference and description Book (EUR) Audited (EUR) Misstatement");
     // Every item is printed once, in selection order.
     const orders = pdf.pages.flatMap((page) => [...page.matchAll(/^\s*(\d+)\s+INV-\d{5}/gm)].map((m) => Number(m[1])));
     expect(orders).toEqual(Array.from({ length: 300 }, (_, i) => i + 1));

@@ -11,7 +11,9 @@ export default async function NewUserPage() {
   return (
     <>
       <PageHeader eyebrow="Firm administration" title="New user" />
-      <Card><CreateUserForm /></Card>
+      <Card>
+        <CreateUserForm />
+      </Card>
     </>
   );
 }

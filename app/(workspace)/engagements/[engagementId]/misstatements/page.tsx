@@ -28,19 +28,40 @@ export default async function MisstatementsPage({ params }: { params: Promise<{ 
   const api = `/api/engagements/${engagement.id}/misstatements`;
   return (
     <>
-      <PageHeader eyebrow={engagement.clientName} title="Summary of misstatements"
-        actions={<><a href={`${api}/workbook`} className={buttonClass("secondary")}>Export workbook (.xlsx)</a><a href={`${api}/workpaper`} className={buttonClass("secondary")}>{locked ? "Workpaper (PDF)" : "Draft workpaper (PDF)"}</a></>}>
-        <Link href={`/engagements/${engagement.id}`} className="hover:underline">{engagement.name}</Link> · every sample&apos;s result and the team&apos;s entries, against materiality (AU-C 450 / ISA 450; AS 2810)
+      <PageHeader
+        eyebrow={engagement.clientName}
+        title="Summary of misstatements"
+        actions={
+          <>
+            <a href={`${api}/workbook`} className={buttonClass("secondary")}>
+              Export workbook (.xlsx)
+            </a>
+            <a href={`${api}/workpaper`} className={buttonClass("secondary")}>
+              {locked ? "Workpaper (PDF)" : "Draft workpaper (PDF)"}
+            </a>
+          </>
+        }
+      >
+        <Link href={`/engagements/${engagement.id}`} className="hover:underline">
+          {engagement.name}
+        </Link>{" "}
+        · every sample&apos;s result and the team&apos;s entries, against materiality (AU-C 450 / ISA 450; AS 2810)
       </PageHeader>
       <EngagementTabs engagementId={engagement.id} current="misstatements" />
       <div className="grid gap-6">
         <div className="grid gap-6 lg:grid-cols-2">
           <StatusCard view={view} />
-          <Card title="Build-up against materiality"><BuildUpChart view={view} /></Card>
+          <Card title="Build-up against materiality">
+            <BuildUpChart view={view} />
+          </Card>
         </div>
         <TotalsCard view={view} />
         <Card title="Schedule">
-          <ul className="mb-4 list-disc space-y-1 pl-5 text-xs text-ink-soft">{view.conventions.map((c) => <li key={c}>{c}</li>)}</ul>
+          <ul className="mb-4 list-disc space-y-1 pl-5 text-xs text-ink-soft">
+            {view.conventions.map((c) => (
+              <li key={c}>{c}</li>
+            ))}
+          </ul>
           <RowsTable view={view} mayEdit={mayEdit} />
         </Card>
         <Card title="Samples feeding the summary">
@@ -48,14 +69,32 @@ export default async function MisstatementsPage({ params }: { params: Promise<{ 
             {view.samples.length === 0 && <li className="py-2 text-ink-soft">No samples planned yet.</li>}
             {view.samples.map((s) => (
               <li key={s.sampleId} className="flex flex-wrap items-baseline justify-between gap-2 py-2">
-                <Link href={s.link} className="font-medium text-ledger-700 underline">{s.reference} · {s.name}</Link>
-                <span className="text-ink-soft">{s.state === "contributes" ? (s.locked ? (s.frozen ? "Locked — row frozen at lock" : "Locked") : "Live — results still open") : s.reason}</span>
+                <Link href={s.link} className="font-medium text-ledger-700 underline">
+                  {s.reference} · {s.name}
+                </Link>
+                <span className="text-ink-soft">
+                  {s.state === "contributes"
+                    ? s.locked
+                      ? s.frozen
+                        ? "Locked — row frozen at lock"
+                        : "Locked"
+                      : "Live — results still open"
+                    : s.reason}
+                </span>
               </li>
             ))}
           </ul>
         </Card>
-        {mayEdit && <Card title="Add a misstatement found outside sampling"><EntryForm engagementId={engagement.id} /></Card>}
-        {!locked && hasAtLeastRole(role, "manager") && <Card title="Thresholds"><SettingsForm engagementId={engagement.id} materiality={view.materiality} /></Card>}
+        {mayEdit && (
+          <Card title="Add a misstatement found outside sampling">
+            <EntryForm engagementId={engagement.id} />
+          </Card>
+        )}
+        {!locked && hasAtLeastRole(role, "manager") && (
+          <Card title="Thresholds">
+            <SettingsForm engagementId={engagement.id} materiality={view.materiality} />
+          </Card>
+        )}
         <SummaryReview view={view} role={role} />
         <TrailCard view={view} />
       </div>

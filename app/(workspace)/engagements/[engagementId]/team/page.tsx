@@ -17,10 +17,15 @@ export default async function TeamPage({ params }: { params: Promise<{ engagemen
   return (
     <>
       <PageHeader eyebrow={engagement.clientName} title="Team">
-        <Link href={`/engagements/${engagement.id}`} className="link">{engagement.name}</Link> · managers and partners change the team; no one can give a role above their own.
+        <Link href={`/engagements/${engagement.id}`} className="link">
+          {engagement.name}
+        </Link>{" "}
+        · managers and partners change the team; no one can give a role above their own.
       </PageHeader>
       <EngagementTabs engagementId={engagement.id} current="team" />
-      <Card><TeamManager engagementId={engagement.id} myRole={role} myUserId={user.id} initialMembers={members} /></Card>
+      <Card>
+        <TeamManager engagementId={engagement.id} myRole={role} myUserId={user.id} initialMembers={members} />
+      </Card>
     </>
   );
 }

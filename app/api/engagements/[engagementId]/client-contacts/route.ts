@@ -9,8 +9,24 @@ export const GET = withEngagementRole(z.object({}), "viewer", async (_input, { d
 }));
 
 /** A senior or above invites a client contact to this engagement (a new account gets a one-time link to choose a password). */
-export const POST = withEngagementRole(InviteClientContactSchema, "senior", async (input, { db, engagementId, user }) => {
-  const invited = await inviteClientContact(db, { engagementId, firmId: user.firmId, actorId: user.id, input });
-  const mail = await notifyClientInvitation(db, { engagementId, contact: { name: invited.name, email: invited.email }, token: invited.token, invitedBy: { name: user.name }, firmId: user.firmId });
-  return Response.json({ contact: { userId: invited.userId, name: invited.name, email: invited.email, invitationSent: mail.sent }, contacts: await listClientContactsByEngagementId(db, { engagementId }) }, { status: 201 });
-});
+export const POST = withEngagementRole(
+  InviteClientContactSchema,
+  "senior",
+  async (input, { db, engagementId, user }) => {
+    const invited = await inviteClientContact(db, { engagementId, firmId: user.firmId, actorId: user.id, input });
+    const mail = await notifyClientInvitation(db, {
+      engagementId,
+      contact: { name: invited.name, email: invited.email },
+      token: invited.token,
+      invitedBy: { name: user.name },
+      firmId: user.firmId,
+    });
+    return Response.json(
+      {
+        contact: { userId: invited.userId, name: invited.name, email: invited.email, invitationSent: mail.sent },
+        contacts: await listClientContactsByEngagementId(db, { engagementId }),
+      },
+      { status: 201 },
+    );
+  },
+);

@@ -10,6 +10,12 @@ export const GET = withEngagementRole(z.object({}), "viewer", async (_input, { d
 
 export const POST = withEngagementRole(PlanSampleSchema, "senior", async (input, { db, engagementId, user }) => {
   const planned = await planFor(db, { engagementId, input });
-  const sample = await createSample(db, { engagementId, actorId: user.id, input: planned.input, plan: planned.plan, methodology: planned.methodology });
+  const sample = await createSample(db, {
+    engagementId,
+    actorId: user.id,
+    input: planned.input,
+    plan: planned.plan,
+    methodology: planned.methodology,
+  });
   return Response.json({ sample }, { status: 201 });
 });

@@ -17,21 +17,35 @@ export default async function NewPopulationPage({ params }: { params: Promise<{ 
   const { engagement, role } = await requireEngagementPage(engagementId);
   const mayLoad = hasAtLeastRole(role, "senior");
   const [populations, samples] = mayLoad
-    ? await Promise.all([listPopulationsByEngagementId(getDb(), { engagementId: engagement.id }), listSamplesByEngagementId(getDb(), { engagementId: engagement.id })])
+    ? await Promise.all([
+        listPopulationsByEngagementId(getDb(), { engagementId: engagement.id }),
+        listSamplesByEngagementId(getDb(), { engagementId: engagement.id }),
+      ])
     : [[], []];
-  const replaceable = populations.filter((p) => p.status !== "superseded").map((p) => ({
-    id: p.id, name: p.name, rowCount: p.rowCount, samples: samples.filter((s) => s.populationId === p.id).map((s) => s.name),
-  }));
+  const replaceable = populations
+    .filter((p) => p.status !== "superseded")
+    .map((p) => ({
+      id: p.id,
+      name: p.name,
+      rowCount: p.rowCount,
+      samples: samples.filter((s) => s.populationId === p.id).map((s) => s.name),
+    }));
   return (
     <>
       <PageHeader eyebrow={engagement.clientName} title="Load a ledger population">
-        <Link href={`/engagements/${engagement.id}`} className="link">{engagement.name}</Link> · the file is kept exactly as received, with its SHA-256, beside the population.
+        <Link href={`/engagements/${engagement.id}`} className="link">
+          {engagement.name}
+        </Link>{" "}
+        · the file is kept exactly as received, with its SHA-256, beside the population.
       </PageHeader>
       {mayLoad ? (
-        <Card><UploadFlow engagementId={engagement.id} currency={engagement.currency} replaceable={replaceable} /></Card>
+        <Card>
+          <UploadFlow engagementId={engagement.id} currency={engagement.currency} replaceable={replaceable} />
+        </Card>
       ) : (
         <Alert>
-          Loading a population needs the senior role (or above) on this engagement; you are {ROLE_LABELS[role].toLowerCase()}. Ask the senior or manager on the team to load the ledger.
+          Loading a population needs the senior role (or above) on this engagement; you are{" "}
+          {ROLE_LABELS[role].toLowerCase()}. Ask the senior or manager on the team to load the ledger.
         </Alert>
       )}
     </>

@@ -35,40 +35,117 @@ export default async function SamplePage({ params }: { params: Promise<{ engagem
   const advised = ADVISED_METHODS.includes(sample.method);
   const [notes, advisor, requestLists, replacement] = await Promise.all([
     listNotesBySampleId(getDb(), { sampleId: sample.id }),
-    advised ? listAdvisorRunsBySampleId(getDb(), { sampleId: sample.id }).then((runs) => loadAdvisorState(getDb(), sample, runs)) : null,
+    advised
+      ? listAdvisorRunsBySampleId(getDb(), { sampleId: sample.id }).then((runs) =>
+          loadAdvisorState(getDb(), sample, runs),
+        )
+      : null,
     listRequestListsBySampleId(getDb(), { sampleId: sample.id }),
-    population.status === "superseded" ? getSupersedingPopulation(getDb(), { engagementId: engagement.id, populationId: population.id }) : null,
+    population.status === "superseded"
+      ? getSupersedingPopulation(getDb(), { engagementId: engagement.id, populationId: population.id })
+      : null,
   ]);
   const items = drawnItems.filter((i) => i.status !== "void").map((i) => ({ id: i.id, itemRef: i.itemRef }));
   const notesByItem = notesOnItems(notes);
-  const editHref = senior && sample.status === "planned" ? `/engagements/${engagement.id}/samples/${sample.id}/edit` : null;
+  const editHref =
+    senior && sample.status === "planned" ? `/engagements/${engagement.id}/samples/${sample.id}/edit` : null;
   return (
     <div data-wide>
-      <PageHeader eyebrow={engagement.clientName} title={sample.name}
-        actions={locked ? <Badge tone="green">Locked — final</Badge> : <Badge tone={sample.status === "drawn" ? "green" : "blue"}>{SAMPLE_STATUS_LABELS[sample.status]}</Badge>}>
-        <Link href={`/engagements/${engagement.id}`} className="link">{engagement.name}</Link>
-        {" · "}{METHOD_SHORT[sample.method]}
-        {" · from "}<Link href={`/engagements/${engagement.id}/populations/${population.id}`} className="link">{population.name}</Link>
+      <PageHeader
+        eyebrow={engagement.clientName}
+        title={sample.name}
+        actions={
+          locked ? (
+            <Badge tone="green">Locked — final</Badge>
+          ) : (
+            <Badge tone={sample.status === "drawn" ? "green" : "blue"}>{SAMPLE_STATUS_LABELS[sample.status]}</Badge>
+          )
+        }
+      >
+        <Link href={`/engagements/${engagement.id}`} className="link">
+          {engagement.name}
+        </Link>
+        {" · "}
+        {METHOD_SHORT[sample.method]}
+        {" · from "}
+        <Link href={`/engagements/${engagement.id}/populations/${population.id}`} className="link">
+          {population.name}
+        </Link>
       </PageHeader>
-      {population.status === "superseded" && <SupersededBanner engagementId={engagement.id} population={population} replacement={replacement} />}
+      {population.status === "superseded" && (
+        <SupersededBanner engagementId={engagement.id} population={population} replacement={replacement} />
+      )}
       <SampleWorkspace
-        key={sample.id} engagementId={engagement.id} initialView={view} initialEvaluation={evaluation}
-        may={{ record: hasAtLeastRole(role, "staff") && !locked, draw: senior, acceptAnomaly: hasAtLeastRole(role, "manager") && !locked }} notesByItem={notesByItem}
+        key={sample.id}
+        engagementId={engagement.id}
+        initialView={view}
+        initialEvaluation={evaluation}
+        may={{
+          record: hasAtLeastRole(role, "staff") && !locked,
+          draw: senior,
+          acceptAnomaly: hasAtLeastRole(role, "manager") && !locked,
+        }}
+        notesByItem={notesByItem}
         anomaliesAllowed={sample.methodology.anomaliesAllowed}
-        planSummary={<PlanSummary sample={sample} currency={engagement.currency} performanceMateriality={engagement.performanceMateriality} editHref={editHref} />}
+        planSummary={
+          <PlanSummary
+            sample={sample}
+            currency={engagement.currency}
+            performanceMateriality={engagement.performanceMateriality}
+            editHref={editHref}
+          />
+        }
       />
       {advisor && (sample.status === "planned" || advisor.adopted) && (
         <div className="mt-6">
-          <AdvisorPanel engagementId={engagement.id} sampleId={sample.id} initial={advisor} mayRun={senior} currency={engagement.currency}
-            plannedSize={sample.chosenSize} populationItems={population.rowCount} />
+          <AdvisorPanel
+            engagementId={engagement.id}
+            sampleId={sample.id}
+            initial={advisor}
+            mayRun={senior}
+            currency={engagement.currency}
+            plannedSize={sample.chosenSize}
+            populationItems={population.rowCount}
+          />
         </div>
       )}
-      {locked && <div className="mt-6"><Alert tone="info">This sample is locked. Its workpaper is final and every part of it is read-only; a partner can unlock it with a reason.</Alert></div>}
+      {locked && (
+        <div className="mt-6">
+          <Alert tone="info">
+            This sample is locked. Its workpaper is final and every part of it is read-only; a partner can unlock it
+            with a reason.
+          </Alert>
+        </div>
+      )}
       <div className="mt-6 grid gap-6 lg:grid-cols-2">
-        <ReviewPanel engagementId={engagement.id} sampleId={sample.id} role={role} review={view.review} notes={notes} items={items} drawn={Boolean(view.currentDraw)} computed={evaluation.computed} complete={evaluation.complete}
-          openLists={requestLists.filter((l) => l.status === "open").map((l) => ({ id: l.id, title: l.title, contactName: l.contactName }))} />
-        {view.currentDraw && <RequestListsCard base={`/engagements/${engagement.id}/samples/${sample.id}`} lists={requestLists} mayCreate={senior} />}
-        {view.currentDraw && <FieldworkFiles engagementId={engagement.id} sampleId={sample.id} mayWrite={!locked && hasAtLeastRole(role, "staff")} />}
+        <ReviewPanel
+          engagementId={engagement.id}
+          sampleId={sample.id}
+          role={role}
+          review={view.review}
+          notes={notes}
+          items={items}
+          drawn={Boolean(view.currentDraw)}
+          computed={evaluation.computed}
+          complete={evaluation.complete}
+          openLists={requestLists
+            .filter((l) => l.status === "open")
+            .map((l) => ({ id: l.id, title: l.title, contactName: l.contactName }))}
+        />
+        {view.currentDraw && (
+          <RequestListsCard
+            base={`/engagements/${engagement.id}/samples/${sample.id}`}
+            lists={requestLists}
+            mayCreate={senior}
+          />
+        )}
+        {view.currentDraw && (
+          <FieldworkFiles
+            engagementId={engagement.id}
+            sampleId={sample.id}
+            mayWrite={!locked && hasAtLeastRole(role, "staff")}
+          />
+        )}
       </div>
     </div>
   );

@@ -11,25 +11,51 @@ import { PlanForm } from "@/components/samples/plan-form";
 
 export const metadata: Metadata = { title: "Plan a sample" };
 
-export default async function NewSamplePage({ params, searchParams }: { params: Promise<{ engagementId: string }>; searchParams: Promise<{ population?: string }> }) {
+export default async function NewSamplePage({
+  params,
+  searchParams,
+}: {
+  params: Promise<{ engagementId: string }>;
+  searchParams: Promise<{ population?: string }>;
+}) {
   const [{ engagementId }, query] = await Promise.all([params, searchParams]);
   const { engagement, role } = await requireEngagementPage(engagementId);
   const mayPlan = hasAtLeastRole(role, "senior");
   const [populations, samples] = mayPlan
-    ? await Promise.all([listPopulationsByEngagementId(getDb(), { engagementId: engagement.id }), listSamplesByEngagementId(getDb(), { engagementId: engagement.id })])
+    ? await Promise.all([
+        listPopulationsByEngagementId(getDb(), { engagementId: engagement.id }),
+        listSamplesByEngagementId(getDb(), { engagementId: engagement.id }),
+      ])
     : [[], []];
-  const earlierSamples = samples.filter((s) => s.status === "drawn" && s.method !== "attribute").map(({ id, name }) => ({ id, name }));
-  const choices = populations.filter((p) => !p.archivedAt).map(({ id, name, rowCount, total, status, positive }) => ({ id, name, rowCount, total, status, positive }));
+  const earlierSamples = samples
+    .filter((s) => s.status === "drawn" && s.method !== "attribute")
+    .map(({ id, name }) => ({ id, name }));
+  const choices = populations
+    .filter((p) => !p.archivedAt)
+    .map(({ id, name, rowCount, total, status, positive }) => ({ id, name, rowCount, total, status, positive }));
   const preset = choices.find((p) => p.id === Number(query.population) && p.status === "reconciled")?.id;
   return (
     <>
       <PageHeader eyebrow={engagement.clientName} title="Plan a sample">
-        <Link href={`/engagements/${engagement.id}`} className="link">{engagement.name}</Link> · the size is computed on the server as you type, from the population as loaded.
+        <Link href={`/engagements/${engagement.id}`} className="link">
+          {engagement.name}
+        </Link>{" "}
+        · the size is computed on the server as you type, from the population as loaded.
       </PageHeader>
       {mayPlan ? (
-        <PlanForm engagementId={engagement.id} currency={engagement.currency} performanceMateriality={engagement.performanceMateriality} populations={choices} initialPopulationId={preset} earlierSamples={earlierSamples} />
+        <PlanForm
+          engagementId={engagement.id}
+          currency={engagement.currency}
+          performanceMateriality={engagement.performanceMateriality}
+          populations={choices}
+          initialPopulationId={preset}
+          earlierSamples={earlierSamples}
+        />
       ) : (
-        <Alert>Planning a sample needs the senior role (or above) on this engagement; you are {ROLE_LABELS[role].toLowerCase()}.</Alert>
+        <Alert>
+          Planning a sample needs the senior role (or above) on this engagement; you are{" "}
+          {ROLE_LABELS[role].toLowerCase()}.
+        </Alert>
       )}
     </>
   );

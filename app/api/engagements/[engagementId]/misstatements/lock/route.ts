@@ -8,6 +8,11 @@ export const maxDuration = 120;
 
 /** Manager+, once every sample feeding the summary is locked: the PDF is rendered once and stored with its SHA-256. */
 export const POST = withEngagementRole(z.object({}), "manager", async (_input, ctx) => {
-  const locked = await lockSummary(ctx.db, { engagementId: ctx.engagementId, actor: { id: ctx.user.id, name: ctx.user.name }, role: ctx.role, render: (view) => renderSummaryWorkpaper(view, { draft: false }) });
+  const locked = await lockSummary(ctx.db, {
+    engagementId: ctx.engagementId,
+    actor: { id: ctx.user.id, name: ctx.user.name },
+    role: ctx.role,
+    render: (view) => renderSummaryWorkpaper(view, { draft: false }),
+  });
   return { locked, summary: await loadSummaryView(ctx.db, { engagementId: ctx.engagementId }) };
 });

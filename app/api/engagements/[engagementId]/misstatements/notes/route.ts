@@ -3,7 +3,9 @@ import { withEngagementRole } from "@/lib/auth/with-role";
 import { listSummaryNotes, raiseSummaryNote } from "@/lib/misstatements/notes";
 import { SummaryNoteSchema } from "@/lib/validation/misstatements";
 
-export const GET = withEngagementRole(z.object({}), "viewer", async (_input, ctx) => ({ notes: await listSummaryNotes(ctx.db, { engagementId: ctx.engagementId }) }));
+export const GET = withEngagementRole(z.object({}), "viewer", async (_input, ctx) => ({
+  notes: await listSummaryNotes(ctx.db, { engagementId: ctx.engagementId }),
+}));
 
 /** Reviewers (manager, partner) raise notes on the summary. */
 export const POST = withEngagementRole(SummaryNoteSchema, "manager", async ({ text }, ctx) => {

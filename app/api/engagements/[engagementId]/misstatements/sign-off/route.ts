@@ -6,7 +6,8 @@ import { loadSummaryView } from "@/lib/misstatements/summary-view";
 import { SummarySignOffSchema } from "@/lib/validation/misstatements";
 
 export const POST = withEngagementRole(SummarySignOffSchema, "staff", async ({ as }, ctx) => {
-  if (as === "preparer") await signSummaryAsPreparer(ctx.db, { engagementId: ctx.engagementId, actorId: ctx.user.id, role: ctx.role });
+  if (as === "preparer")
+    await signSummaryAsPreparer(ctx.db, { engagementId: ctx.engagementId, actorId: ctx.user.id, role: ctx.role });
   else {
     if (!hasAtLeastRole(ctx.role, "manager")) throw forbidden("Reviewer sign-off needs the manager or partner role.");
     await signSummaryAsReviewer(ctx.db, { engagementId: ctx.engagementId, actorId: ctx.user.id, role: ctx.role });

@@ -10,7 +10,8 @@ export const GET = withEngagementRole(z.object({}), "viewer", async (_input, ctx
   return new Response(new Uint8Array(bytes), {
     headers: {
       "content-type": "application/vnd.openxmlformats-officedocument.spreadsheetml.sheet",
-      "content-disposition": `attachment; filename="${view.workpaperReference}${view.review.lock ? "" : "-DRAFT"}.xlsx"`, "cache-control": "no-store",
+      "content-disposition": `attachment; filename="${view.workpaperReference}${view.review.lock ? "" : "-DRAFT"}.xlsx"`,
+      "cache-control": "no-store",
     },
   });
 });

@@ -14,10 +14,21 @@ export const GET = withEngagementRole(z.object({}), "viewer", async (_input, ctx
   if (settings.lock) {
     const object = await getObjectStream({ key: settings.lock.objectKey });
     return new Response(Readable.toWeb(object.body) as ReadableStream, {
-      headers: { "content-type": "application/pdf", "content-disposition": `attachment; filename="${settings.lock.reference}.pdf"`, "x-content-sha256": settings.lock.workpaperSha256, ...(object.length ? { "content-length": String(object.length) } : {}) },
+      headers: {
+        "content-type": "application/pdf",
+        "content-disposition": `attachment; filename="${settings.lock.reference}.pdf"`,
+        "x-content-sha256": settings.lock.workpaperSha256,
+        ...(object.length ? { "content-length": String(object.length) } : {}),
+      },
     });
   }
   const view = await loadSummaryView(ctx.db, { engagementId: ctx.engagementId });
   const pdf = await renderSummaryWorkpaper(view, { draft: true });
-  return new Response(new Uint8Array(pdf), { headers: { "content-type": "application/pdf", "content-disposition": `attachment; filename="${view.workpaperReference}-DRAFT.pdf"`, "cache-control": "no-store" } });
+  return new Response(new Uint8Array(pdf), {
+    headers: {
+      "content-type": "application/pdf",
+      "content-disposition": `attachment; filename="${view.workpaperReference}-DRAFT.pdf"`,
+      "cache-control": "no-store",
+    },
+  });
 });

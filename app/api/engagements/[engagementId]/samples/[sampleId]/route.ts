@@ -13,7 +13,17 @@ export const GET = withEngagementRole(z.object({}), "viewer", async (_input, ctx
 
 export const PATCH = withEngagementRole(PlanSampleSchema, "senior", async (input, ctx) => {
   const sample = await sampleOf(ctx);
-  if (sample.status !== "planned") throw conflict("The sample has been drawn; its plan is final. Plan a new sample instead.");
+  if (sample.status !== "planned")
+    throw conflict("The sample has been drawn; its plan is final. Plan a new sample instead.");
   const planned = await planFor(ctx.db, { engagementId: ctx.engagementId, input });
-  return { sample: await updateSamplePlan(ctx.db, { engagementId: ctx.engagementId, sampleId: sample.id, actorId: ctx.user.id, input: planned.input, plan: planned.plan, methodology: planned.methodology }) };
+  return {
+    sample: await updateSamplePlan(ctx.db, {
+      engagementId: ctx.engagementId,
+      sampleId: sample.id,
+      actorId: ctx.user.id,
+      input: planned.input,
+      plan: planned.plan,
+      methodology: planned.methodology,
+    }),
+  };
 });

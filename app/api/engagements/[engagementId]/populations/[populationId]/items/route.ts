@@ -5,6 +5,9 @@ import { listItemsByPopulationId } from "@/lib/data/population-items";
 import { ItemsQuerySchema } from "@/lib/validation/population";
 
 export const GET = withEngagementRole(ItemsQuerySchema, "viewer", async (query, { db, engagementId, params }) => {
-  const population = await getPopulationById(db, { engagementId, populationId: parseIdParam(params.populationId, "population") });
+  const population = await getPopulationById(db, {
+    engagementId,
+    populationId: parseIdParam(params.populationId, "population"),
+  });
   return listItemsByPopulationId(db, { populationId: population.id, query });
 });

@@ -7,7 +7,10 @@ import { getObjectStream } from "@/lib/storage/objects";
 
 /** The ledger file exactly as received (its SHA-256 is on the population). */
 export const GET = withEngagementRole(z.object({}), "viewer", async (_input, { db, engagementId, params }) => {
-  const population = await getPopulationById(db, { engagementId, populationId: parseIdParam(params.populationId, "population") });
+  const population = await getPopulationById(db, {
+    engagementId,
+    populationId: parseIdParam(params.populationId, "population"),
+  });
   const object = await getObjectStream({ key: population.sourceObjectKey });
   const fileName = population.sourceFileName.replace(/["\\\r\n]/g, "_");
   return new Response(Readable.toWeb(object.body) as ReadableStream, {

@@ -11,4 +11,6 @@ export const GET = withEngagementRole(z.object({}), "viewer", async (_input, ctx
   return loadAdvisorState(ctx.db, sample, await listAdvisorRunsBySampleId(ctx.db, { sampleId: sample.id }));
 });
 
-export const POST = withEngagementRole(AdvisorRunSchema, "senior", async (input, ctx) => startAdvisorRun(ctx, await sampleOf(ctx), input));
+export const POST = withEngagementRole(AdvisorRunSchema, "senior", async (input, ctx) =>
+  startAdvisorRun(ctx, await sampleOf(ctx), input),
+);

@@ -16,6 +16,9 @@ export const GET = withEngagementRole(z.object({}), "viewer", async (_input, ctx
 export const PUT = withEngagementRole(AuditorConclusionSchema, "staff", async (input, ctx) => {
   const sample = await sampleOf(ctx);
   await recordAuditorConclusion(ctx.db, { sample, actorId: ctx.user.id, role: ctx.role, input });
-  const [conclusion, review] = await Promise.all([getAuditorConclusionBySampleId(ctx.db, { sampleId: sample.id }), getReviewState(ctx.db, { sampleId: sample.id })]);
+  const [conclusion, review] = await Promise.all([
+    getAuditorConclusionBySampleId(ctx.db, { sampleId: sample.id }),
+    getReviewState(ctx.db, { sampleId: sample.id }),
+  ]);
   return { conclusion, review };
 });

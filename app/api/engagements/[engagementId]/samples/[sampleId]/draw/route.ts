@@ -7,5 +7,7 @@ import { DrawSchema } from "@/lib/validation/sample";
 export const POST = withEngagementRole(DrawSchema, "senior", async ({ seed }, ctx) => {
   const sample = await sampleOf(ctx);
   await drawSample(ctx.db, { sample, actorId: ctx.user.id, seed });
-  return Response.json(await loadSampleView(ctx.db, { engagementId: ctx.engagementId, sampleId: sample.id }), { status: 201 });
+  return Response.json(await loadSampleView(ctx.db, { engagementId: ctx.engagementId, sampleId: sample.id }), {
+    status: 201,
+  });
 });

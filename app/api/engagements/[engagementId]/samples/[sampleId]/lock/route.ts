@@ -14,8 +14,18 @@ export const maxDuration = 120;
 export const POST = withEngagementRole(z.object({}), "manager", async (_input, ctx) => {
   const sample = await sampleOf(ctx);
   const locked = await lockSample(ctx.db, {
-    sample, actorId: ctx.user.id, role: ctx.role,
-    render: async (lock) => renderWorkpaper(await assembleWorkpaper(ctx.db, { engagementId: ctx.engagementId, sampleId: sample.id, draft: false, lock: { lockedByName: ctx.user.name, role: lock.role, lockedAt: lock.lockedAt, reference: lock.reference } })),
+    sample,
+    actorId: ctx.user.id,
+    role: ctx.role,
+    render: async (lock) =>
+      renderWorkpaper(
+        await assembleWorkpaper(ctx.db, {
+          engagementId: ctx.engagementId,
+          sampleId: sample.id,
+          draft: false,
+          lock: { lockedByName: ctx.user.name, role: lock.role, lockedAt: lock.lockedAt, reference: lock.reference },
+        }),
+      ),
   });
   await notifyLocked(ctx.db, { sample, actor: ctx.user });
   // Each contact whose list the lock closed is told it takes no more files (after the commit; never throws).

@@ -15,7 +15,9 @@ export const POST = withEngagementRole(CreateRequestListSchema, "senior", async 
   const sample = await sampleOf(ctx);
   const listId = await createRequestList(ctx.db, { sample, actorId: ctx.user.id, input });
   const list = await getRequestListRow(ctx.db, { engagementId: ctx.engagementId, sampleId: sample.id, listId });
-  const itemCount = Number((await ctx.db("request_items").where({ request_list_id: listId }).count({ n: "*" }).first())?.n ?? 0);
+  const itemCount = Number(
+    (await ctx.db("request_items").where({ request_list_id: listId }).count({ n: "*" }).first())?.n ?? 0,
+  );
   const mail = await notifyRequestListSent(ctx.db, { list, itemCount });
   return Response.json({ requestList: { ...list, itemCount }, mailSent: mail.sent }, { status: 201 });
 });

@@ -10,5 +10,11 @@ export const POST = withEngagementRole(BatchResultsSchema, "staff", async (input
   const sample = await sampleOf(ctx);
   const draw = await getCurrentDraw(ctx.db, { sampleId: sample.id });
   if (!draw) throw conflict("The sample has not been drawn yet.");
-  return saveItemResults(ctx.db, { engagementId: ctx.engagementId, sampleId: sample.id, drawId: draw.id, actorId: ctx.user.id, batch: input });
+  return saveItemResults(ctx.db, {
+    engagementId: ctx.engagementId,
+    sampleId: sample.id,
+    drawId: draw.id,
+    actorId: ctx.user.id,
+    batch: input,
+  });
 });

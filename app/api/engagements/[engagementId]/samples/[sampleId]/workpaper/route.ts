@@ -14,13 +14,29 @@ export const maxDuration = 120;
 export const GET = withEngagementRole(z.object({}), "viewer", async (_input, ctx) => {
   const sample = await sampleOf(ctx);
   const review = await getReviewState(ctx.db, { sampleId: sample.id });
-  const row = mustExist(await ctx.db("samples").where({ id: sample.id }).first("workpaper_object_key"), `sample ${sample.id}`);
+  const row = mustExist(
+    await ctx.db("samples").where({ id: sample.id }).first("workpaper_object_key"),
+    `sample ${sample.id}`,
+  );
   if (review.lock && row.workpaper_object_key) {
     const object = await getObjectStream({ key: row.workpaper_object_key });
     return new Response(Readable.toWeb(object.body) as ReadableStream, {
-      headers: { "content-type": "application/pdf", "content-disposition": `attachment; filename="${review.lock.reference}.pdf"`, "x-content-sha256": review.lock.workpaperSha256, ...(object.length ? { "content-length": String(object.length) } : {}) },
+      headers: {
+        "content-type": "application/pdf",
+        "content-disposition": `attachment; filename="${review.lock.reference}.pdf"`,
+        "x-content-sha256": review.lock.workpaperSha256,
+        ...(object.length ? { "content-length": String(object.length) } : {}),
+      },
     });
   }
-  const pdf = await renderWorkpaper(await assembleWorkpaper(ctx.db, { engagementId: ctx.engagementId, sampleId: sample.id, draft: true }));
-  return new Response(new Uint8Array(pdf), { headers: { "content-type": "application/pdf", "content-disposition": `attachment; filename="sample-${sample.id}-DRAFT.pdf"`, "cache-control": "no-store" } });
+  const pdf = await renderWorkpaper(
+    await assembleWorkpaper(ctx.db, { engagementId: ctx.engagementId, sampleId: sample.id, draft: true }),
+  );
+  return new Response(new Uint8Array(pdf), {
+    headers: {
+      "content-type": "application/pdf",
+      "content-disposition": `attachment; filename="sample-${sample.id}-DRAFT.pdf"`,
+      "cache-control": "no-store",
+    },
+  });
 });

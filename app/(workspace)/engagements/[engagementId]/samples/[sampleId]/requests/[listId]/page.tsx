@@ -22,7 +22,10 @@ async function load(engagementId: number, sampleIdParam: string, listIdParam: st
   const db = getDb();
   try {
     const sample = await getSampleById(db, { engagementId, sampleId });
-    const [list, review] = await Promise.all([getRequestListRow(db, { engagementId, sampleId, listId }), getReviewState(db, { sampleId })]);
+    const [list, review] = await Promise.all([
+      getRequestListRow(db, { engagementId, sampleId, listId }),
+      getReviewState(db, { sampleId }),
+    ]);
     return { sample, review, view: await teamListView(db, list) };
   } catch (err) {
     if (err instanceof AppError && err.status === 404) notFound();
@@ -30,7 +33,11 @@ async function load(engagementId: number, sampleIdParam: string, listIdParam: st
   }
 }
 
-export default async function TeamRequestListPage({ params }: { params: Promise<{ engagementId: string; sampleId: string; listId: string }> }) {
+export default async function TeamRequestListPage({
+  params,
+}: {
+  params: Promise<{ engagementId: string; sampleId: string; listId: string }>;
+}) {
   const { engagementId, sampleId, listId } = await params;
   const { engagement, role } = await requireEngagementPage(engagementId);
   const { sample, review, view } = await load(engagement.id, sampleId, listId);
@@ -38,11 +45,23 @@ export default async function TeamRequestListPage({ params }: { params: Promise<
   const mayDecide = hasAtLeastRole(role, "staff") && list.status === "open" && !review.lock;
   return (
     <>
-      <PageHeader eyebrow={engagement.clientName} title={list.title} actions={list.status === "closed" ? <Badge>Closed</Badge> : <Badge tone="blue">Open</Badge>}>
-        <Link href={`/engagements/${engagement.id}/samples/${sample.id}`} className="link">{sample.name}</Link>
+      <PageHeader
+        eyebrow={engagement.clientName}
+        title={list.title}
+        actions={list.status === "closed" ? <Badge>Closed</Badge> : <Badge tone="blue">Open</Badge>}
+      >
+        <Link href={`/engagements/${engagement.id}/samples/${sample.id}`} className="link">
+          {sample.name}
+        </Link>
         {` · to ${list.contactName} (${list.contactEmail}) · due ${formatDate(list.dueDate)} · book values ${list.showBookValues ? "shown to the client" : "hidden from the client"} · sent by ${list.createdByName}`}
       </PageHeader>
-      <TeamRequestList engagementId={engagement.id} sampleId={sample.id} initial={view} mayDecide={mayDecide} currency={engagement.currency} />
+      <TeamRequestList
+        engagementId={engagement.id}
+        sampleId={sample.id}
+        initial={view}
+        mayDecide={mayDecide}
+        currency={engagement.currency}
+      />
     </>
   );
 }

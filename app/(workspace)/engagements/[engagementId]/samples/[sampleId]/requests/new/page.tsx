@@ -11,23 +11,46 @@ import { loadSamplePage } from "../../load-sample";
 
 export const metadata: Metadata = { title: "Ask the client for evidence" };
 
-export default async function NewRequestListPage({ params }: { params: Promise<{ engagementId: string; sampleId: string }> }) {
+export default async function NewRequestListPage({
+  params,
+}: {
+  params: Promise<{ engagementId: string; sampleId: string }>;
+}) {
   const { engagementId, sampleId } = await params;
   const { engagement, role } = await requireEngagementPage(engagementId);
-  const [{ view, items }, contacts] = await Promise.all([loadSamplePage(engagement.id, sampleId), listClientContactsByEngagementId(getDb(), { engagementId: engagement.id })]);
+  const [{ view, items }, contacts] = await Promise.all([
+    loadSamplePage(engagement.id, sampleId),
+    listClientContactsByEngagementId(getDb(), { engagementId: engagement.id }),
+  ]);
   const back = `/engagements/${engagement.id}/samples/${view.sample.id}`;
-  const blocked = !hasAtLeastRole(role, "senior") ? "A senior, manager or partner on the engagement sends request lists to the client."
-    : view.review.lock ? "The sample is locked: its workpaper is final, so nothing more is asked of the client."
-    : !view.currentDraw ? "Draw the sample first: requests are for its selected items." : null;
+  const blocked = !hasAtLeastRole(role, "senior")
+    ? "A senior, manager or partner on the engagement sends request lists to the client."
+    : view.review.lock
+      ? "The sample is locked: its workpaper is final, so nothing more is asked of the client."
+      : !view.currentDraw
+        ? "Draw the sample first: requests are for its selected items."
+        : null;
   const defaultDue = dateInTwoWeeks();
   return (
     <>
       <PageHeader eyebrow={engagement.clientName} title="Ask the client for evidence">
-        <Link href={back} className="link">{view.sample.name}</Link> · the client contact sees only this list&rsquo;s items, never results, comments or other samples.
+        <Link href={back} className="link">
+          {view.sample.name}
+        </Link>{" "}
+        · the client contact sees only this list&rsquo;s items, never results, comments or other samples.
       </PageHeader>
-      {blocked ? <Alert tone="info">{blocked}</Alert> : (
-        <RequestListForm engagementId={engagement.id} sampleId={view.sample.id} contacts={contacts} defaultDue={defaultDue}
-          items={items.filter((i) => i.status !== "void").map((i) => ({ id: i.id, itemRef: i.itemRef, description: i.description, bookValue: i.bookValue }))} />
+      {blocked ? (
+        <Alert tone="info">{blocked}</Alert>
+      ) : (
+        <RequestListForm
+          engagementId={engagement.id}
+          sampleId={view.sample.id}
+          contacts={contacts}
+          defaultDue={defaultDue}
+          items={items
+            .filter((i) => i.status !== "void")
+            .map((i) => ({ id: i.id, itemRef: i.itemRef, description: i.description, bookValue: i.bookValue }))}
+        />
       )}
     </>
   );

@@ -8,6 +8,9 @@ export const GET = withEngagementRole(z.object({}), "senior", async (_input, { d
   const upload = await getUploadById(db, { engagementId, uploadId: parseIdParam(params.uploadId, "upload") });
   const name = upload.fileName.replace(/\.[^.]+$/, "").replace(/[^\w.-]+/g, "_");
   return new Response(problemsToCsv(upload.problems, upload.problemCount), {
-    headers: { "content-type": "text/csv; charset=utf-8", "content-disposition": `attachment; filename="${name}-problems.csv"` },
+    headers: {
+      "content-type": "text/csv; charset=utf-8",
+      "content-disposition": `attachment; filename="${name}-problems.csv"`,
+    },
   });
 });

@@ -1,7 +1,12 @@
 import { z } from "zod";
 import { withEngagementRole } from "@/lib/auth/with-role";
 import { parseIdParam } from "@/lib/auth/access";
-import { getAdvisorRunById, isAdvisorRunOrphaned, markAdvisorRunInterrupted, requestAdvisorCancel } from "@/lib/data/advisor-runs";
+import {
+  getAdvisorRunById,
+  isAdvisorRunOrphaned,
+  markAdvisorRunInterrupted,
+  requestAdvisorCancel,
+} from "@/lib/data/advisor-runs";
 import { instanceId } from "@/lib/workers/instance-id";
 import { cancelAdvisorRun, isAdvisorRunning } from "@/lib/advisor/runner";
 import { sampleOf } from "@/lib/samples/route-helpers";
@@ -11,7 +16,15 @@ export const GET = withEngagementRole(z.object({}), "viewer", async (_input, ctx
   const sample = await sampleOf(ctx);
   const runId = parseIdParam(ctx.params.runId, "advisor run");
   const run = await getAdvisorRunById(ctx.db, { sampleId: sample.id, runId });
-  if (run.status !== "running" || !(await isAdvisorRunOrphaned(ctx.db, { runId: run.id, serverId: instanceId(), runningHere: isAdvisorRunning(run.id) }))) return { run };
+  if (
+    run.status !== "running" ||
+    !(await isAdvisorRunOrphaned(ctx.db, {
+      runId: run.id,
+      serverId: instanceId(),
+      runningHere: isAdvisorRunning(run.id),
+    }))
+  )
+    return { run };
   await markAdvisorRunInterrupted(ctx.db, { runId: run.id });
   return { run: await getAdvisorRunById(ctx.db, { sampleId: sample.id, runId }) };
 });
@@ -22,8 +35,12 @@ export const GET = withEngagementRole(z.object({}), "viewer", async (_input, ctx
  */
 export const DELETE = withEngagementRole(z.object({}), "senior", async (_input, ctx) => {
   const sample = await sampleOf(ctx);
-  const run = await getAdvisorRunById(ctx.db, { sampleId: sample.id, runId: parseIdParam(ctx.params.runId, "advisor run") });
-  if (run.status !== "running" || !(await requestAdvisorCancel(ctx.db, { runId: run.id }))) throw conflict(`This advisor run is not running (it is ${run.status}).`);
+  const run = await getAdvisorRunById(ctx.db, {
+    sampleId: sample.id,
+    runId: parseIdParam(ctx.params.runId, "advisor run"),
+  });
+  if (run.status !== "running" || !(await requestAdvisorCancel(ctx.db, { runId: run.id })))
+    throw conflict(`This advisor run is not running (it is ${run.status}).`);
   cancelAdvisorRun(run.id);
   return undefined;
 });

@@ -11,5 +11,12 @@ export const PATCH = withEngagementRole(SaveResultSchema, "staff", async (input,
   const sample = await sampleOf(ctx);
   const draw = await getCurrentDraw(ctx.db, { sampleId: sample.id });
   if (!draw) throw conflict("The sample has not been drawn yet.");
-  return saveItemResult(ctx.db, { engagementId: ctx.engagementId, sampleId: sample.id, drawId: draw.id, itemId: parseIdParam(ctx.params.itemId, "item"), actorId: ctx.user.id, input });
+  return saveItemResult(ctx.db, {
+    engagementId: ctx.engagementId,
+    sampleId: sample.id,
+    drawId: draw.id,
+    itemId: parseIdParam(ctx.params.itemId, "item"),
+    actorId: ctx.user.id,
+    input,
+  });
 });

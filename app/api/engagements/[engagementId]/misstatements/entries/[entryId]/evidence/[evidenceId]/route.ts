@@ -7,11 +7,24 @@ import { storedFileResponse } from "@/lib/files/download";
 import { deleteEntryEvidence, getEntryEvidence } from "@/lib/misstatements/evidence";
 
 export const GET = withEngagementRole(z.object({}), "viewer", async (_input, ctx) => {
-  const entry = await getEntryById(ctx.db, { engagementId: ctx.engagementId, entryId: parseIdParam(ctx.params.entryId, "misstatement entry") });
-  return storedFileResponse(await getEntryEvidence(ctx.db, { entryId: entry.id, evidenceId: parseIdParam(ctx.params.evidenceId, "evidence file") }));
+  const entry = await getEntryById(ctx.db, {
+    engagementId: ctx.engagementId,
+    entryId: parseIdParam(ctx.params.entryId, "misstatement entry"),
+  });
+  return storedFileResponse(
+    await getEntryEvidence(ctx.db, {
+      entryId: entry.id,
+      evidenceId: parseIdParam(ctx.params.evidenceId, "evidence file"),
+    }),
+  );
 });
 
 export const DELETE = withEngagementRole(z.object({}), "viewer", async (_input, ctx) => {
   assertMayWriteEvidence(ctx.role);
-  await deleteEntryEvidence(ctx.db, { engagementId: ctx.engagementId, entryId: parseIdParam(ctx.params.entryId, "misstatement entry"), evidenceId: parseIdParam(ctx.params.evidenceId, "evidence file"), actorId: ctx.user.id });
+  await deleteEntryEvidence(ctx.db, {
+    engagementId: ctx.engagementId,
+    entryId: parseIdParam(ctx.params.entryId, "misstatement entry"),
+    evidenceId: parseIdParam(ctx.params.evidenceId, "evidence file"),
+    actorId: ctx.user.id,
+  });
 });

@@ -5,5 +5,10 @@ import { sampleOf } from "@/lib/samples/route-helpers";
 import { ReplaceItemSchema } from "@/lib/validation/sample";
 
 export const POST = withEngagementRole(ReplaceItemSchema, "senior", async ({ reason }, ctx) => ({
-  replacement: await replaceItem(ctx.db, { sample: await sampleOf(ctx), actorId: ctx.user.id, itemId: parseIdParam(ctx.params.itemId, "item"), reason }),
+  replacement: await replaceItem(ctx.db, {
+    sample: await sampleOf(ctx),
+    actorId: ctx.user.id,
+    itemId: parseIdParam(ctx.params.itemId, "item"),
+    reason,
+  }),
 }));

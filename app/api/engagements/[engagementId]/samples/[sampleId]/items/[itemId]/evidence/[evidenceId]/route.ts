@@ -10,7 +10,10 @@ import { sampleOf } from "@/lib/samples/route-helpers";
 export const GET = withEngagementRole(z.object({}), "viewer", async (_input, ctx) => {
   const sample = await sampleOf(ctx);
   const item = await getItemOfSample(ctx.db, { sampleId: sample.id, itemId: parseIdParam(ctx.params.itemId, "item") });
-  const evidence = await getEvidenceById(ctx.db, { itemId: item.id, evidenceId: parseIdParam(ctx.params.evidenceId, "evidence file") });
+  const evidence = await getEvidenceById(ctx.db, {
+    itemId: item.id,
+    evidenceId: parseIdParam(ctx.params.evidenceId, "evidence file"),
+  });
   return storedFileResponse(evidence);
 });
 
@@ -19,7 +22,11 @@ export const DELETE = withEngagementRole(z.object({}), "viewer", async (_input, 
   assertMayWriteEvidence(ctx.role);
   const sample = await sampleOf(ctx);
   await deleteItemEvidence(ctx.db, {
-    engagementId: ctx.engagementId, sampleId: sample.id, itemId: parseIdParam(ctx.params.itemId, "item"),
-    evidenceId: parseIdParam(ctx.params.evidenceId, "evidence file"), actorId: ctx.user.id, role: ctx.role,
+    engagementId: ctx.engagementId,
+    sampleId: sample.id,
+    itemId: parseIdParam(ctx.params.itemId, "item"),
+    evidenceId: parseIdParam(ctx.params.evidenceId, "evidence file"),
+    actorId: ctx.user.id,
+    role: ctx.role,
   });
 });
