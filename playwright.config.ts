@@ -8,11 +8,11 @@ const baseURL = `http://127.0.0.1:${PORT}`;
 
 // The e2e server's own fakes of hosted services, on ports apart from `npm start`'s.
 const E2E_SERVICES = {
-  S3_ENDPOINT: `http://127.0.0.1:${4689 + SLOT * 10}`,
+  S3_ENDPOINT: `http://127.0.0.1:${4584 + SLOT * 10}`,
   S3_BUCKET: "sondage-e2e",
   SMTP_HOST: "127.0.0.1",
-  SMTP_PORT: String(2645 + SLOT * 10),
-  MAIL_INBOX_PORT: String(2695 + SLOT * 10),
+  SMTP_PORT: String(2537 + SLOT * 10),
+  MAIL_INBOX_PORT: String(2538 + SLOT * 10),
   UPLOAD_DIR: `.data/uploads-${E2E_DB_NAME}`,
 };
 

@@ -14,7 +14,7 @@ export const TEST_ENV = {
   S3_SECRET_ACCESS_KEY: "S3RVER",
   SMTP_HOST: "127.0.0.1",
   SMTP_PORT: String(2535 + slot * 10),
-  MAIL_INBOX_PORT: String(2585 + slot * 10),
+  MAIL_INBOX_PORT: String(2536 + slot * 10),
   UPLOAD_DIR: path.join(import.meta.dirname, `../../.data/uploads-integration${suffix}`),
 };
 
