@@ -1,20 +1,9 @@
 import { defineConfig } from "@playwright/test";
+import { E2E_DB_NAME, E2E_PORT, E2E_SERVICES, E2E_SLOT } from "./tests/e2e/slot";
 
-// E2E_SLOT lets several e2e runs share the machine; CI and `npm test` use slot 0.
-const SLOT = Number(process.env.E2E_SLOT ?? 0);
-const PORT = 3100 + SLOT;
-export const E2E_DB_NAME = SLOT === 0 ? "sondage_e2e" : `sondage_e2e${SLOT}`;
+const SLOT = E2E_SLOT;
+const PORT = E2E_PORT;
 const baseURL = `http://127.0.0.1:${PORT}`;
-
-// The e2e server's own fakes of hosted services, on ports apart from `npm start`'s.
-const E2E_SERVICES = {
-  S3_ENDPOINT: `http://127.0.0.1:${4584 + SLOT * 10}`,
-  S3_BUCKET: "sondage-e2e",
-  SMTP_HOST: "127.0.0.1",
-  SMTP_PORT: String(2537 + SLOT * 10),
-  MAIL_INBOX_PORT: String(2538 + SLOT * 10),
-  UPLOAD_DIR: `.data/uploads-${E2E_DB_NAME}`,
-};
 
 export default defineConfig({
   testDir: "tests/e2e",

@@ -4,7 +4,7 @@ import path from "node:path";
 import { ROOT, startService, stopService, type Service } from "../bench/support/processes";
 
 /** Node n (1…3): its MariaDB port, Galera replication, IST and SST ports, on loopback. */
-// Replication ports 4910/4920/4930 (+1 IST, +2 SST): clear of the test slots' storage fakes (4579 + 10·slot, 4689 + 10·slot).
+// Replication ports 4910/4920/4930 (+1 IST, +2 SST): clear of the test slots' storage fakes (tests/integration/test-env.ts, tests/e2e/slot.ts).
 export const node = (n: number) => ({
   n,
   port: 4870 + n,

@@ -7,7 +7,7 @@ export { ROOT };
 export const BENCH = {
   database: "sondage_bench",
   appPort: 3200,
-  // Not 4699: the e2e storage fake of E2E_SLOT=1 listens there (playwright.config.ts: 4689 + 10·slot).
+  // Not a port of an e2e or integration slot (tests/e2e/slot.ts, tests/integration/test-env.ts).
   s3Port: Number(process.env.BENCH_S3_PORT ?? 4694),
   // Mail fakes of its own too: the demo (npm start) holds 2525/2580, and integration/e2e slots use 2535–2725 (+10 per slot)
   smtpPort: Number(process.env.BENCH_SMTP_PORT ?? 2894),

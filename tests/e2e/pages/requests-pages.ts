@@ -1,7 +1,5 @@
 import { expect, type Page } from "@playwright/test";
-
-const SLOT = Number(process.env.E2E_SLOT ?? 0);
-const INBOX = `http://127.0.0.1:${2695 + SLOT * 10}/messages`; // the e2e server's SMTP fake (playwright.config.ts)
+import { E2E_INBOX_URL } from "../slot";
 
 interface Message {
   to: string[];
@@ -13,7 +11,7 @@ interface Message {
 export async function waitForMail(email: string, subject: RegExp, timeoutMs = 10_000): Promise<Message> {
   const deadline = Date.now() + timeoutMs;
   for (;;) {
-    const messages = (await (await fetch(INBOX)).json()) as Message[];
+    const messages = (await (await fetch(E2E_INBOX_URL)).json()) as Message[];
     const found = messages.find(
       (m) => m.to.some((t) => t.toLowerCase() === email.toLowerCase()) && subject.test(m.subject),
     );
