@@ -22,16 +22,17 @@ export interface SampleResponseRecord extends AuditorConclusionRecord {
 }
 
 const iso = (v: unknown) => new Date(v as string).toISOString();
-const parse = (v: unknown): AuditorResponse[] =>
+/** samples.auditor_responses_json read back (null when no conclusion is recorded). */
+export const parseAuditorResponses = (v: unknown, sampleId: number): AuditorResponse[] | null =>
   v === null || v === undefined
-    ? []
-    : parseJsonColumn(z.array(StoredAuditorResponseSchema), v, "samples.auditor_responses_json");
+    ? null
+    : parseJsonColumn(z.array(StoredAuditorResponseSchema), v, "samples.auditor_responses_json", sampleId);
 
 function toRecord(r: Record<string, unknown>): AuditorConclusionRecord {
   return {
     sampleId: Number(r.id),
     conclusion: String(r.auditor_conclusion),
-    responses: parse(r.auditor_responses_json),
+    responses: parseAuditorResponses(r.auditor_responses_json, Number(r.id)) ?? [],
     writtenBy: {
       id: Number(r.auditor_conclusion_by),
       name: String(r.writer_name),

@@ -147,3 +147,26 @@ export async function getPopulationProfile(
       threshold && above ? { amount: threshold, count: Number(above.n), total: String(above.total ?? "0.00") } : null,
   };
 }
+
+/** The sampling frame's columns of every item, in file order (row number). */
+export async function listFrameRowsByPopulationId(
+  db: Knex | Knex.Transaction,
+  { populationId }: { populationId: number },
+): Promise<Pick<PopulationItemsRow, "row_number" | "item_ref" | "book_value">[]> {
+  return db("population_items")
+    .where({ population_id: populationId })
+    .orderBy("row_number")
+    .select("row_number", "item_ref", "book_value");
+}
+
+/** The descriptions of the given rows, by row number (rows without one map to null). */
+export async function listDescriptionsByRowNumbers(
+  db: Knex | Knex.Transaction,
+  { populationId, rowNumbers }: { populationId: number; rowNumbers: number[] },
+): Promise<Map<number, string | null>> {
+  const rows = await db("population_items")
+    .where({ population_id: populationId })
+    .whereIn("row_number", rowNumbers)
+    .select("row_number", "description");
+  return new Map(rows.map((r) => [r.row_number, r.description]));
+}

@@ -1,7 +1,10 @@
 import "server-only";
 import type { Knex } from "knex";
 import type { SaveResult } from "@/lib/validation/sample";
+import { z } from "zod";
 import { recordAudit } from "./audit-log";
+import { parseJsonColumn } from "./json-column";
+import type { SampleItemsRow } from "./tables";
 import { containsPattern } from "./like";
 import { seekFromQuery, seekPage } from "./keyset";
 import { transactionWithRetry } from "./transaction-retry";
@@ -62,11 +65,14 @@ export function misstatementOf(status: string, book: string, audited: string | n
   return centsToDecimal(decimalToCents(book) - decimalToCents(audited));
 }
 
+const HitPointsSchema = z.array(z.number()).nullable();
+
+/** sample_items.hit_points read back: the MUS hit points of the item, or null for other selections. */
+const parseHitPoints = (v: unknown, itemId: number) =>
+  parseJsonColumn(HitPointsSchema, v ?? null, "sample_items.hit_points", itemId);
+
 function toItem(r: Record<string, unknown>): SampleItemRecord {
-  const points =
-    r.hit_points === null
-      ? null
-      : ((typeof r.hit_points === "string" ? JSON.parse(r.hit_points) : r.hit_points) as number[]);
+  const points = parseHitPoints(r.hit_points, Number(r.id));
   const audited = r.audited_value === null ? null : String(r.audited_value);
   return {
     id: Number(r.id),
@@ -273,4 +279,149 @@ export async function saveItemResult(db: Knex, write: ResultWrite) {
     // samples.updated_at is not touched here: that would take the sample row exclusively and queue every save behind every other.
     return { item, signOffsCleared };
   });
+}
+
+type SampleItemPatch = Knex.ResolveTableType<Knex.TableType<"sample_items">, "update">;
+
+/** One item of a draw as stored, optionally under a row lock to the end of the transaction (and only if it belongs to the sample, when given). */
+export async function getSampleItemRowById(
+  db: Knex | Knex.Transaction,
+  { drawId, itemId, sampleId, lock }: { drawId: number; itemId: number; sampleId?: number; lock?: boolean },
+): Promise<SampleItemsRow | undefined> {
+  const q = db("sample_items").where({ id: itemId, draw_id: drawId });
+  if (sampleId !== undefined) q.andWhere({ sample_id: sampleId });
+  if (lock) q.forUpdate();
+  return q.first();
+}
+
+/** Whether the item belongs to the sample (in any draw). */
+export async function hasSampleItemById(db: Knex, { sampleId, itemId }: { sampleId: number; itemId: number }) {
+  return Boolean(await db("sample_items").where({ id: itemId, sample_id: sampleId }).first("id"));
+}
+
+/** The draw's item on a population row, if it is in the sample. */
+export async function getSampleItemByRowNumber(
+  db: Knex | Knex.Transaction,
+  { drawId, rowNumber }: { drawId: number; rowNumber: number },
+): Promise<Pick<SampleItemsRow, "id" | "key_item"> | undefined> {
+  return db("sample_items").where({ draw_id: drawId, population_row_number: rowNumber }).first("id", "key_item");
+}
+
+/** The population rows already in the draw. */
+export async function listRowNumbersByDrawId(db: Knex | Knex.Transaction, { drawId }: { drawId: number }) {
+  return db("sample_items").where({ draw_id: drawId }).pluck("population_row_number");
+}
+
+/** The draw's items that are not key items and not void (haphazard picks count against the plan's size). */
+export async function countPickedItemsByDrawId(db: Knex | Knex.Transaction, { drawId }: { drawId: number }) {
+  const row = await db("sample_items")
+    .where({ draw_id: drawId, key_item: false })
+    .whereNot({ status: "void" })
+    .count({ n: "*" })
+    .first();
+  return Number(row?.n ?? 0);
+}
+
+/** The highest selection order in the draw (0 when empty). */
+export async function getMaxSelectionOrderByDrawId(db: Knex | Knex.Transaction, { drawId }: { drawId: number }) {
+  const row = await db("sample_items").where({ draw_id: drawId }).max({ m: "selection_order" }).first();
+  return Number(row?.m ?? 0);
+}
+
+/** Status, deviation and origin of the draw's items that are not void. */
+export async function listItemStatesByDrawId(
+  db: Knex | Knex.Transaction,
+  { drawId }: { drawId: number },
+): Promise<Pick<SampleItemsRow, "status" | "deviation" | "origin">[]> {
+  return db("sample_items")
+    .where({ draw_id: drawId })
+    .whereNot("status", "void")
+    .select("status", "deviation", "origin");
+}
+
+/** The draw's seeded items (haphazard picks left out) in selection order, with their hit points. */
+export async function listSeededItemsByDrawId(db: Knex, { drawId }: { drawId: number }) {
+  const rows = await db("sample_items")
+    .where({ draw_id: drawId })
+    .whereNot({ origin: "haphazard" })
+    .orderBy("selection_order")
+    .select("id", "population_row_number", "selection_order", "hit_points", "stratum");
+  return rows.map((r) => ({
+    populationRowNumber: r.population_row_number,
+    selectionOrder: r.selection_order,
+    hitPoints: parseHitPoints(r.hit_points, r.id),
+    stratum: r.stratum,
+  }));
+}
+
+/** Locks the draw's item rows to the end of the transaction (a whole-workbook import writes them all). */
+export async function lockItemsByDrawId(trx: Knex.Transaction, { drawId }: { drawId: number }) {
+  await trx("sample_items").where({ draw_id: drawId }).forUpdate().select("id");
+}
+
+/** The item references of the given items of the draw, by id (ids not in the draw are left out). */
+export async function listItemRefsByIds(db: Knex, { drawId, itemIds }: { drawId: number; itemIds: number[] }) {
+  const rows = await db("sample_items").where({ draw_id: drawId }).whereIn("id", itemIds).select("id", "item_ref");
+  return new Map(rows.map((r) => [r.id, r.item_ref]));
+}
+
+export async function updateSampleItemById(
+  trx: Knex.Transaction,
+  { itemId, patch }: { itemId: number; patch: SampleItemPatch },
+) {
+  await trx("sample_items").where({ id: itemId }).update(patch);
+}
+
+/** Whether anything hangs on the item: evidence files (even deleted ones) or a client request. */
+export async function isSampleItemReferencedById(trx: Knex.Transaction, { itemId }: { itemId: number }) {
+  const evidence = await trx("item_evidence").where({ sample_item_id: itemId }).count({ n: "*" }).first();
+  if (Number(evidence?.n ?? 0) > 0) return true;
+  return Boolean(await trx("request_items").where({ sample_item_id: itemId }).first("id"));
+}
+
+export async function deleteSampleItemById(trx: Knex.Transaction, { itemId }: { itemId: number }) {
+  await trx("sample_items").where({ id: itemId }).delete();
+}
+
+/** A selected item as the draw writes it (its description copied from the population). */
+export interface NewSampleItem {
+  selectionOrder: number;
+  populationRowNumber: number;
+  itemRef: string;
+  description: string | null;
+  bookValue: string;
+  hitPoints: number[] | null;
+  topStratum: boolean;
+  stratum: number | null;
+  origin: SampleItemRecord["origin"];
+  replacesItemId: number | null;
+  keyItem: boolean;
+  keyReason: string | null;
+  pickedBy?: number;
+}
+
+/** Inserts one batch of a draw's items (the caller batches: about 1000 a statement). */
+export async function insertSampleItems(
+  trx: Knex.Transaction,
+  { sampleId, drawId, items }: { sampleId: number; drawId: number; items: NewSampleItem[] },
+) {
+  await trx("sample_items").insert(
+    items.map((it) => ({
+      sample_id: sampleId,
+      draw_id: drawId,
+      selection_order: it.selectionOrder,
+      population_row_number: it.populationRowNumber,
+      item_ref: it.itemRef,
+      description: it.description,
+      book_value: it.bookValue,
+      hit_points: it.hitPoints ? JSON.stringify(it.hitPoints) : null,
+      top_stratum: it.topStratum,
+      stratum: it.stratum,
+      origin: it.origin,
+      replaces_item_id: it.replacesItemId,
+      key_item: it.keyItem,
+      key_reason: it.keyReason,
+      ...(it.pickedBy !== undefined ? { picked_by: it.pickedBy, picked_at: trx.fn.now(3) } : {}),
+    })),
+  );
 }

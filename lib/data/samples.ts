@@ -9,6 +9,8 @@ import { conflict, notFound } from "@/lib/errors";
 import { withMethodologyDefaults, type MethodologySettings } from "@/lib/validation/methodology";
 import { getMethodologyByFirmId, type MethodologyVersion } from "./firm-methodology";
 import { mustExist } from "./must-exist";
+import { CLEARED_CONCLUSION, parseAuditorResponses } from "./auditor-conclusions";
+import type { AuditorResponse } from "@/lib/validation/conclusion";
 
 export interface SampleRecord {
   id: number;
@@ -235,4 +237,76 @@ export async function listDrawsBySampleId(db: Knex, { sampleId }: { sampleId: nu
 export async function getCurrentDraw(db: Knex, { sampleId }: { sampleId: number }): Promise<DrawRecord | null> {
   const row = await drawQuery(db).where({ "d.sample_id": sampleId, "d.current": true }).first();
   return row ? toDraw(row) : null;
+}
+
+/** What a write to a sample checks first: its lock, its sign-offs and the auditor's conclusion. */
+export interface SampleWriteState {
+  engagementId: number;
+  lockedAt: Date | null;
+  preparerSignedAt: Date | null;
+  reviewerSignedAt: Date | null;
+  auditorConclusion: string | null;
+  auditorResponses: AuditorResponse[] | null;
+  auditorConclusionAt: Date | null;
+}
+
+/**
+ * The sample's write state, read plainly or under a row lock held to the end of the transaction:
+ * "update" (exclusive) or "share" (other shared readers go on; exclusive writers wait). Null when no such sample.
+ */
+export async function getSampleWriteStateById(
+  db: Knex | Knex.Transaction,
+  { sampleId, lock }: { sampleId: number; lock?: "update" | "share" },
+): Promise<SampleWriteState | null> {
+  const q = db("samples").where({ id: sampleId });
+  if (lock === "update") q.forUpdate();
+  if (lock === "share") q.forShare();
+  const row = await q.first(
+    "engagement_id",
+    "locked_at",
+    "preparer_signed_at",
+    "reviewer_signed_at",
+    "auditor_conclusion",
+    "auditor_responses_json",
+    "auditor_conclusion_at",
+  );
+  if (!row) return null;
+  return {
+    engagementId: row.engagement_id,
+    lockedAt: row.locked_at,
+    preparerSignedAt: row.preparer_signed_at,
+    reviewerSignedAt: row.reviewer_signed_at,
+    auditorConclusion: row.auditor_conclusion,
+    auditorResponses: parseAuditorResponses(row.auditor_responses_json, sampleId),
+    auditorConclusionAt: row.auditor_conclusion_at,
+  };
+}
+
+/** Clears the auditor's conclusion and response (the caller records why). */
+export async function clearSampleConclusionById(trx: Knex.Transaction, { sampleId }: { sampleId: number }) {
+  await trx("samples").where({ id: sampleId }).update(CLEARED_CONCLUSION);
+}
+
+/** Clears the preparer's and reviewer's sign-offs (the caller records why). */
+export async function clearSampleSignOffsById(trx: Knex.Transaction, { sampleId }: { sampleId: number }) {
+  await trx("samples").where({ id: sampleId }).update({
+    preparer_signed_by: null,
+    preparer_signed_role: null,
+    preparer_signed_at: null,
+    reviewer_signed_by: null,
+    reviewer_signed_role: null,
+    reviewer_signed_at: null,
+  });
+}
+
+/** Marks the sample drawn (after a draw's items are in). */
+export async function markSampleDrawnById(trx: Knex.Transaction, { sampleId }: { sampleId: number }) {
+  await trx("samples")
+    .where({ id: sampleId })
+    .update({ status: "drawn", updated_at: trx.fn.now(3) });
+}
+
+/** The sample's status (planned or drawn), or undefined when no such sample. */
+export async function getSampleStatusById(db: Knex | Knex.Transaction, { sampleId }: { sampleId: number }) {
+  return (await db("samples").where({ id: sampleId }).first("status"))?.status;
 }

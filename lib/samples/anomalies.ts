@@ -2,13 +2,14 @@ import "server-only";
 import type { Knex } from "knex";
 import { recordAudit } from "@/lib/data/audit-log";
 import { getCurrentDraw, type SampleRecord } from "@/lib/data/samples";
+import { getSampleItemRowById, updateSampleItemById } from "@/lib/data/sample-items";
 import { conflict, notFound } from "@/lib/errors";
 import { beginSampleWrite } from "./guard";
 import { methodologyOfSample } from "./methodology";
 
 async function itemOf(trx: Knex.Transaction, sample: SampleRecord, itemId: number) {
   const draw = await getCurrentDraw(trx, { sampleId: sample.id });
-  const item = draw ? await trx("sample_items").where({ id: itemId, draw_id: draw.id }).forUpdate().first() : undefined;
+  const item = draw ? await getSampleItemRowById(trx, { drawId: draw.id, itemId, lock: true }) : undefined;
   if (!item) throw notFound("No such item in this sample");
   return item;
 }
@@ -44,16 +45,17 @@ export async function markAnomaly(
       (item.status === "done" && item.audited_value !== null && Number(item.audited_value) !== Number(item.book_value));
     if (!misstated) throw conflict("Only an item with a recorded misstatement can be marked anomalous.");
     await beginSampleWrite(trx, { sampleId: sample.id, actorId, what: "an anomaly mark" });
-    await trx("sample_items")
-      .where({ id: itemId })
-      .update({
+    await updateSampleItemById(trx, {
+      itemId,
+      patch: {
         anomaly_justification: justification,
         anomaly_marked_by: actorId,
         anomaly_marked_at: trx.fn.now(3),
         anomaly_accepted_by: null,
         anomaly_accepted_at: null,
         version: item.version + 1,
-      });
+      },
+    });
     await recordAudit(trx, {
       actorUserId: actorId,
       engagementId: sample.engagementId,
@@ -79,9 +81,10 @@ export async function acceptAnomaly(
     if (!item.anomaly_justification) throw conflict("The item is not marked anomalous.");
     if (item.anomaly_accepted_at) throw conflict("The anomaly is already accepted.");
     await beginSampleWrite(trx, { sampleId: sample.id, actorId, what: "an anomaly acceptance" });
-    await trx("sample_items")
-      .where({ id: itemId })
-      .update({ anomaly_accepted_by: actorId, anomaly_accepted_at: trx.fn.now(3), version: item.version + 1 });
+    await updateSampleItemById(trx, {
+      itemId,
+      patch: { anomaly_accepted_by: actorId, anomaly_accepted_at: trx.fn.now(3), version: item.version + 1 },
+    });
     await recordAudit(trx, {
       actorUserId: actorId,
       engagementId: sample.engagementId,
@@ -103,9 +106,7 @@ export async function clearAnomaly(
     const item = await itemOf(trx, sample, itemId);
     if (!item.anomaly_justification) throw conflict("The item is not marked anomalous.");
     await beginSampleWrite(trx, { sampleId: sample.id, actorId, what: "an anomaly withdrawn" });
-    await trx("sample_items")
-      .where({ id: itemId })
-      .update({ ...ANOMALY_CLEARED, version: item.version + 1 });
+    await updateSampleItemById(trx, { itemId, patch: { ...ANOMALY_CLEARED, version: item.version + 1 } });
     await recordAudit(trx, {
       actorUserId: actorId,
       engagementId: sample.engagementId,

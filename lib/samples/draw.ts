@@ -3,7 +3,10 @@ import { createHash, randomInt } from "node:crypto";
 import type { Knex } from "knex";
 import { recordAudit } from "@/lib/data/audit-log";
 import { getPopulationById } from "@/lib/data/populations";
-import type { DrawRecord, SampleRecord } from "@/lib/data/samples";
+import { getSampleStatusById, markSampleDrawnById, type DrawRecord, type SampleRecord } from "@/lib/data/samples";
+import { insertSampleDraw } from "@/lib/data/sample-draws";
+import { insertSampleItems } from "@/lib/data/sample-items";
+import { listDescriptionsByRowNumbers } from "@/lib/data/population-items";
 import { conflict, engineInputError, fieldError } from "@/lib/errors";
 import { EngineInputError } from "@/lib/sampling";
 import { beginSampleWrite } from "./guard";
@@ -85,34 +88,32 @@ export async function insertSelectedItems(
   const origin = a.origin ?? "selection";
   for (let start = 0; start < a.items.length; start += 1000) {
     const chunk = a.items.slice(start, start + 1000);
-    const rowNumbers = chunk.map((it) => a.frame.rowNumbers[it.position]);
-    const descriptions = new Map<number, string | null>(
-      (
-        await trx("population_items")
-          .where({ population_id: a.populationId })
-          .whereIn("row_number", rowNumbers)
-          .select("row_number", "description")
-      ).map((r: { row_number: number; description: string | null }) => [r.row_number, r.description]),
-    );
-    await trx("sample_items").insert(
-      chunk.map((it) => ({
-        sample_id: a.sampleId,
-        draw_id: a.drawId,
-        selection_order: it.order,
-        population_row_number: a.frame.rowNumbers[it.position],
-        item_ref: a.frame.itemRefs[it.position],
-        description: descriptions.get(a.frame.rowNumbers[it.position]) ?? null,
-        book_value: a.frame.bookValues[it.position].toFixed(2),
-        hit_points: it.hitPoints ? JSON.stringify(it.hitPoints) : null,
-        top_stratum: it.topStratum,
-        stratum: it.stratum,
-        origin: it.keyItem ? "key-item" : origin,
-        replaces_item_id: a.replacesItemId ?? null,
-        key_item: Boolean(it.keyItem),
-        key_reason: it.keyItem ? (a.keyReasons?.get(a.frame.rowNumbers[it.position]) ?? null) : null,
-        ...(a.pickedBy !== undefined ? { picked_by: a.pickedBy, picked_at: trx.fn.now(3) } : {}),
-      })),
-    );
+    const descriptions = await listDescriptionsByRowNumbers(trx, {
+      populationId: a.populationId,
+      rowNumbers: chunk.map((it) => a.frame.rowNumbers[it.position]),
+    });
+    await insertSampleItems(trx, {
+      sampleId: a.sampleId,
+      drawId: a.drawId,
+      items: chunk.map((it) => {
+        const rowNumber = a.frame.rowNumbers[it.position];
+        return {
+          selectionOrder: it.order,
+          populationRowNumber: rowNumber,
+          itemRef: a.frame.itemRefs[it.position],
+          description: descriptions.get(rowNumber) ?? null,
+          bookValue: a.frame.bookValues[it.position].toFixed(2),
+          hitPoints: it.hitPoints,
+          topStratum: it.topStratum,
+          stratum: it.stratum,
+          origin: it.keyItem ? "key-item" : origin,
+          replacesItemId: a.replacesItemId ?? null,
+          keyItem: Boolean(it.keyItem),
+          keyReason: it.keyItem ? (a.keyReasons?.get(rowNumber) ?? null) : null,
+          pickedBy: a.pickedBy,
+        };
+      }),
+    });
   }
 }
 
@@ -145,21 +146,19 @@ export async function drawSample(
   }
   return db.transaction(async (trx) => {
     await beginSampleWrite(trx, { sampleId: sample.id, actorId, what: "a new draw" });
-    const locked = await trx("samples").where({ id: sample.id }).first("status");
-    const previous = await trx("sample_draws").where({ sample_id: sample.id }).max({ v: "version" }).first();
-    const version = Number(previous?.v ?? 0) + 1;
-    await trx("sample_draws").where({ sample_id: sample.id }).update({ current: false });
-    const [drawId] = await trx("sample_draws").insert({
-      sample_id: sample.id,
-      version,
-      seed,
-      seed_source: seedSource,
-      algorithm: algorithmName(sample.method, inputs.selection),
-      algorithm_version: ALGORITHM_VERSION,
-      population_sha256: population.sourceSha256,
-      inputs_json: JSON.stringify(inputs),
-      selection_sha256: sha256(selectionFingerprint(frame, items)),
-      drawn_by: actorId,
+    const statusBefore = await getSampleStatusById(trx, { sampleId: sample.id });
+    const { drawId, version } = await insertSampleDraw(trx, {
+      sampleId: sample.id,
+      draw: {
+        seed,
+        seedSource,
+        algorithm: algorithmName(sample.method, inputs.selection),
+        algorithmVersion: ALGORITHM_VERSION,
+        populationSha256: population.sourceSha256,
+        inputs,
+        selectionSha256: sha256(selectionFingerprint(frame, items)),
+        drawnBy: actorId,
+      },
     });
     const keyReasons = new Map((sample.plan.keyItems?.items ?? []).map((k) => [k.rowNumber, k.reason] as const));
     await insertSelectedItems(trx, {
@@ -170,9 +169,7 @@ export async function drawSample(
       items,
       keyReasons,
     });
-    await trx("samples")
-      .where({ id: sample.id })
-      .update({ status: "drawn", updated_at: trx.fn.now(3) });
+    await markSampleDrawnById(trx, { sampleId: sample.id });
     await recordAudit(trx, {
       actorUserId: actorId,
       engagementId: sample.engagementId,
@@ -180,7 +177,7 @@ export async function drawSample(
       entity: "sample",
       entityId: sample.id,
       action: version === 1 ? "draw" : "redraw",
-      before: locked?.status === "drawn" ? { version: version - 1 } : undefined,
+      before: statusBefore === "drawn" ? { version: version - 1 } : undefined,
       after: {
         version,
         seed: haphazard ? null : seed,

@@ -2,6 +2,14 @@ import "server-only";
 import type { Knex } from "knex";
 import { recordAudit } from "@/lib/data/audit-log";
 import { getCurrentDraw, type SampleRecord } from "@/lib/data/samples";
+import { updateDrawInputsById } from "@/lib/data/sample-draws";
+import {
+  getMaxSelectionOrderByDrawId,
+  getSampleItemRowById,
+  listItemStatesByDrawId,
+  listRowNumbersByDrawId,
+  updateSampleItemById,
+} from "@/lib/data/sample-items";
 import { conflict, notFound } from "@/lib/errors";
 import { loadFrame } from "./population-frame";
 import { computeSelection, type SelectionInputs } from "./select";
@@ -16,10 +24,7 @@ export const UNPLANNED_ATTRIBUTE_EXTENSION =
 
 /** Whether an attribute sample may grow now: a fixed plan only before any result; a two-stage plan only into its stage 2 after exactly one stage-1 deviation. */
 async function assertAttributeExtension(db: Knex, sample: SampleRecord, drawId: number, additional: number) {
-  const items = await db("sample_items")
-    .where({ draw_id: drawId })
-    .whereNot("status", "void")
-    .select<{ status: string; deviation: number | null; origin: string }[]>("status", "deviation", "origin");
+  const items = await listItemStatesByDrawId(db, { drawId });
   const twoStage = sample.plan.twoStage;
   if (!twoStage) {
     if (items.some((i) => i.status !== "not-started")) throw conflict(UNPLANNED_ATTRIBUTE_EXTENSION);
@@ -65,9 +70,7 @@ export async function extendSample(
   await db.transaction(async (trx) => {
     await beginSampleWrite(trx, { sampleId: sample.id, actorId, what: "an extension" });
     if (sample.method === "attribute") await assertAttributeExtension(trx, sample, draw.id, additional); // again, under the sample lock
-    await trx("sample_draws")
-      .where({ id: draw.id })
-      .update({ inputs_json: JSON.stringify(inputs) });
+    await updateDrawInputsById(trx, { drawId: draw.id, inputs });
     await insertSelectedItems(trx, {
       sampleId: sample.id,
       drawId: draw.id,
@@ -99,7 +102,7 @@ export async function replaceItem(
     throw conflict(NOT_EXTENDABLE);
   const draw = await getCurrentDraw(db, { sampleId: sample.id });
   if (!draw) throw conflict("Draw the sample first.");
-  const item = await db("sample_items").where({ id: itemId, sample_id: sample.id, draw_id: draw.id }).first();
+  const item = await getSampleItemRowById(db, { drawId: draw.id, itemId, sampleId: sample.id });
   if (!item) throw notFound("No such item in the current draw");
   if (item.status === "void") throw conflict("That item is already void.");
   if (item.status === "done") throw conflict("That item has a result; clear it before replacing the item.");
@@ -109,29 +112,26 @@ export async function replaceItem(
     const h = Number(item.stratum) - 1;
     inputs.stratumRanks = draw.inputs.stratumRanks!.map((n, i) => (i === h ? n + 1 : n));
   } else inputs.ranks = draw.inputs.ranks! + 1;
-  const before = new Set(await db("sample_items").where({ draw_id: draw.id }).pluck("population_row_number"));
+  const before = new Set(await listRowNumbersByDrawId(db, { drawId: draw.id }));
   const replacement = computeSelection(frame, inputs, draw.seed).find(
     (it) => !before.has(frame.rowNumbers[it.position]),
   );
   if (!replacement) throw conflict("No item is left to replace it with.");
-  const maxOrder = Number(
-    (await db("sample_items").where({ draw_id: draw.id }).max({ m: "selection_order" }).first())?.m ?? 0,
-  );
+  const maxOrder = await getMaxSelectionOrderByDrawId(db, { drawId: draw.id });
   const order = sample.method === "stratified" ? maxOrder + 1 : replacement.order;
   await db.transaction(async (trx) => {
     await beginSampleWrite(trx, { sampleId: sample.id, actorId, what: "a replaced item" });
-    await trx("sample_items")
-      .where({ id: itemId })
-      .update({
+    await updateSampleItemById(trx, {
+      itemId,
+      patch: {
         status: "void",
         void_reason: reason,
         version: item.version + 1,
         updated_by: actorId,
         updated_at: trx.fn.now(3),
-      });
-    await trx("sample_draws")
-      .where({ id: draw.id })
-      .update({ inputs_json: JSON.stringify(inputs) });
+      },
+    });
+    await updateDrawInputsById(trx, { drawId: draw.id, inputs });
     await insertSelectedItems(trx, {
       sampleId: sample.id,
       drawId: draw.id,

@@ -2,8 +2,8 @@ import "server-only";
 import type { Knex } from "knex";
 import { recordAudit } from "@/lib/data/audit-log";
 import { AppError, notFound } from "@/lib/errors";
-import { CLEARED_CONCLUSION } from "@/lib/data/auditor-conclusions";
 import { mustExist } from "@/lib/data/must-exist";
+import { clearSampleConclusionById, clearSampleSignOffsById, getSampleWriteStateById } from "@/lib/data/samples";
 
 export const LOCKED_MESSAGE =
   "This sample is locked: its workpaper is final. A partner can unlock it, with a reason, if a change is needed.";
@@ -11,21 +11,9 @@ export const LOCKED_MESSAGE =
 export const lockedError = () => new AppError(409, "locked", LOCKED_MESSAGE);
 
 async function lockRow(trx: Knex.Transaction, sampleId: number) {
-  const row = await trx("samples")
-    .where({ id: sampleId })
-    .forUpdate()
-    .first(
-      "id",
-      "engagement_id",
-      "locked_at",
-      "preparer_signed_at",
-      "reviewer_signed_at",
-      "auditor_conclusion",
-      "auditor_responses_json",
-      "auditor_conclusion_at",
-    );
+  const row = await getSampleWriteStateById(trx, { sampleId, lock: "update" });
   if (!row) throw notFound("No such sample");
-  if (row.locked_at) throw lockedError();
+  if (row.lockedAt) throw lockedError();
   return row;
 }
 
@@ -45,41 +33,34 @@ export async function beginSampleWrite(
   { sampleId, actorId, what }: { sampleId: number; actorId: number; what: string },
 ): Promise<boolean> {
   const row = await lockRow(trx, sampleId);
-  const concluded = Boolean(row.auditor_conclusion_at);
+  const concluded = Boolean(row.auditorConclusionAt);
   if (concluded) {
-    await trx("samples").where({ id: sampleId }).update(CLEARED_CONCLUSION);
+    await clearSampleConclusionById(trx, { sampleId });
     await recordAudit(trx, {
       actorUserId: actorId,
-      engagementId: row.engagement_id,
+      engagementId: row.engagementId,
       sampleId,
       entity: "sample",
       entityId: sampleId,
       action: "auditor-conclusion-cleared",
       before: {
-        conclusion: row.auditor_conclusion,
-        responses: row.auditor_responses_json,
-        at: row.auditor_conclusion_at,
+        conclusion: row.auditorConclusion,
+        responses: row.auditorResponses,
+        at: row.auditorConclusionAt,
       },
       after: { reason: `changed after the conclusion: ${what}` },
     });
   }
-  if (!row.preparer_signed_at && !row.reviewer_signed_at) return concluded;
-  await trx("samples").where({ id: sampleId }).update({
-    preparer_signed_by: null,
-    preparer_signed_role: null,
-    preparer_signed_at: null,
-    reviewer_signed_by: null,
-    reviewer_signed_role: null,
-    reviewer_signed_at: null,
-  });
+  if (!row.preparerSignedAt && !row.reviewerSignedAt) return concluded;
+  await clearSampleSignOffsById(trx, { sampleId });
   await recordAudit(trx, {
     actorUserId: actorId,
-    engagementId: row.engagement_id,
+    engagementId: row.engagementId,
     sampleId,
     entity: "sample",
     entityId: sampleId,
     action: "sign-offs-cleared",
-    before: { preparerSignedAt: row.preparer_signed_at, reviewerSignedAt: row.reviewer_signed_at },
+    before: { preparerSignedAt: row.preparerSignedAt, reviewerSignedAt: row.reviewerSignedAt },
     after: { reason: `changed after sign-off: ${what}` },
   });
   return true;
@@ -96,21 +77,16 @@ export async function beginResultWrite(
   trx: Knex.Transaction,
   a: { sampleId: number; actorId: number; what: string },
 ): Promise<boolean> {
-  const peek = await trx("samples")
-    .where({ id: a.sampleId })
-    .first("locked_at", "preparer_signed_at", "reviewer_signed_at", "auditor_conclusion_at");
+  const peek = await getSampleWriteStateById(trx, { sampleId: a.sampleId });
   if (!peek) throw notFound("No such sample");
-  if (peek.locked_at) throw lockedError();
-  if (peek.preparer_signed_at || peek.reviewer_signed_at || peek.auditor_conclusion_at) return beginSampleWrite(trx, a);
+  if (peek.lockedAt) throw lockedError();
+  if (peek.preparerSignedAt || peek.reviewerSignedAt || peek.auditorConclusionAt) return beginSampleWrite(trx, a);
   const row = mustExist(
-    await trx("samples")
-      .where({ id: a.sampleId })
-      .forShare()
-      .first("locked_at", "preparer_signed_at", "reviewer_signed_at", "auditor_conclusion_at"),
+    await getSampleWriteStateById(trx, { sampleId: a.sampleId, lock: "share" }),
     `sample ${a.sampleId}`,
   );
-  if (row.locked_at) throw lockedError();
+  if (row.lockedAt) throw lockedError();
   // Signed or concluded between the peek and the shared lock (rare): upgrade; InnoDB resolves a clash of two such upgrades as a deadlock (answered 409).
-  if (row.preparer_signed_at || row.reviewer_signed_at || row.auditor_conclusion_at) return beginSampleWrite(trx, a);
+  if (row.preparerSignedAt || row.reviewerSignedAt || row.auditorConclusionAt) return beginSampleWrite(trx, a);
   return false;
 }

@@ -2,6 +2,15 @@ import "server-only";
 import type { Knex } from "knex";
 import { recordAudit } from "@/lib/data/audit-log";
 import { getCurrentDraw, type SampleRecord } from "@/lib/data/samples";
+import {
+  countPickedItemsByDrawId,
+  deleteSampleItemById,
+  getMaxSelectionOrderByDrawId,
+  getSampleItemByRowNumber,
+  getSampleItemRowById,
+  hasSampleItemById,
+  isSampleItemReferencedById,
+} from "@/lib/data/sample-items";
 import { AppError, conflict, notFound } from "@/lib/errors";
 import { insertSelectedItems, isHaphazard } from "./draw";
 import { beginSampleWrite } from "./guard";
@@ -34,29 +43,17 @@ export async function addHaphazardPick(
     });
   return db.transaction(async (trx) => {
     await beginSampleWrite(trx, { sampleId: sample.id, actorId, what: "a haphazard pick" });
-    const existing = await trx("sample_items")
-      .where({ draw_id: draw.id, population_row_number: rowNumber })
-      .first("id", "key_item");
+    const existing = await getSampleItemByRowNumber(trx, { drawId: draw.id, rowNumber });
     if (existing)
       throw conflict(
         existing.key_item ? "That item is a key item: it is examined in full already." : "That item is already picked.",
       );
-    const picked = Number(
-      (
-        await trx("sample_items")
-          .where({ draw_id: draw.id, key_item: false })
-          .whereNot({ status: "void" })
-          .count({ n: "*" })
-          .first()
-      )?.n ?? 0,
-    );
+    const picked = await countPickedItemsByDrawId(trx, { drawId: draw.id });
     if (picked >= sample.plan.chosenSize)
       throw conflict(
         `The plan's ${sample.plan.chosenSize} items are all picked. Change the plan before drawing to pick more, or remove a pick without a result.`,
       );
-    const maxOrder = Number(
-      (await trx("sample_items").where({ draw_id: draw.id }).max({ m: "selection_order" }).first())?.m ?? 0,
-    );
+    const maxOrder = await getMaxSelectionOrderByDrawId(trx, { drawId: draw.id });
     await insertSelectedItems(trx, {
       sampleId: sample.id,
       drawId: draw.id,
@@ -67,7 +64,7 @@ export async function addHaphazardPick(
       pickedBy: actorId,
     });
     const row = mustExist(
-      await trx("sample_items").where({ draw_id: draw.id, population_row_number: rowNumber }).first("id"),
+      await getSampleItemByRowNumber(trx, { drawId: draw.id, rowNumber }),
       `picked row ${rowNumber}`,
     );
     await recordAudit(trx, {
@@ -93,22 +90,17 @@ export async function removeHaphazardPick(
   db: Knex,
   { sample, actorId, itemId }: { sample: SampleRecord; actorId: number; itemId: number },
 ) {
-  if (!(await db("sample_items").where({ id: itemId, sample_id: sample.id }).first("id")))
-    throw notFound("No such item in this sample");
+  if (!(await hasSampleItemById(db, { sampleId: sample.id, itemId }))) throw notFound("No such item in this sample");
   const draw = await haphazardDraw(db, sample);
   await db.transaction(async (trx) => {
     await beginSampleWrite(trx, { sampleId: sample.id, actorId, what: "a removed pick" });
-    const item = await trx("sample_items").where({ id: itemId, draw_id: draw.id }).forUpdate().first();
+    const item = await getSampleItemRowById(trx, { drawId: draw.id, itemId, lock: true });
     if (!item) throw notFound("No such item in this sample");
     if (item.origin !== "haphazard") throw conflict("Only haphazard picks can be removed.");
     if (item.status !== "not-started") throw conflict("The item has a result: clear it before removing the pick.");
-    if (
-      Number((await trx("item_evidence").where({ sample_item_id: itemId }).count({ n: "*" }).first())?.n ?? 0) > 0 ||
-      (await trx("request_items").where({ sample_item_id: itemId }).first("id"))
-    ) {
+    if (await isSampleItemReferencedById(trx, { itemId }))
       throw conflict("The item has evidence or a client request: it stays in the sample.");
-    }
-    await trx("sample_items").where({ id: itemId }).delete();
+    await deleteSampleItemById(trx, { itemId });
     await recordAudit(trx, {
       actorUserId: actorId,
       engagementId: sample.engagementId,

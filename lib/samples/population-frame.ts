@@ -1,6 +1,7 @@
 import "server-only";
 import type { Knex } from "knex";
 import { decimalToCents } from "@/lib/money";
+import { listFrameRowsByPopulationId } from "@/lib/data/population-items";
 
 /** A population's items in file order — the sampling frame every selection is drawn from. */
 export interface Frame {
@@ -19,16 +20,13 @@ const CACHE_SIZE = 4;
 export async function loadFrame(db: Knex, { populationId }: { populationId: number }): Promise<Frame> {
   const hit = cache.get(populationId);
   if (hit) return hit;
-  const rows: { row_number: number; item_ref: string; book_value: string }[] = await db("population_items")
-    .where({ population_id: populationId })
-    .orderBy("row_number")
-    .select("row_number", "item_ref", "book_value");
+  const rows = await listFrameRowsByPopulationId(db, { populationId });
   const frame: Frame = {
     populationId,
     rowNumbers: Int32Array.from(rows, (r) => r.row_number),
     itemRefs: rows.map((r) => r.item_ref),
     bookValues: rows.map((r) => Number(r.book_value)),
-    bookCents: rows.map((r) => decimalToCents(String(r.book_value))),
+    bookCents: rows.map((r) => decimalToCents(r.book_value)),
     totalCents: 0n,
   };
   frame.totalCents = frame.bookCents.reduce((a, b) => a + b, 0n);

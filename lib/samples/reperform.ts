@@ -2,6 +2,8 @@ import "server-only";
 import type { Knex } from "knex";
 import { recordAudit } from "@/lib/data/audit-log";
 import { getCurrentDraw, type SampleRecord } from "@/lib/data/samples";
+import { updateDrawReperformById } from "@/lib/data/sample-draws";
+import { listSeededItemsByDrawId } from "@/lib/data/sample-items";
 import { conflict } from "@/lib/errors";
 import { loadFrame } from "./population-frame";
 import { computeSelection, selectionFingerprint } from "./select";
@@ -26,23 +28,12 @@ export async function reperformDraw(
   if (!draw) throw conflict("The sample has not been drawn yet.");
   const frame = await loadFrame(db, { populationId: sample.populationId });
   const recomputed = computeSelection(frame, draw.inputs, draw.seed);
-  const stored: {
-    population_row_number: number;
-    selection_order: number;
-    hit_points: unknown;
-    stratum: number | null;
-  }[] = await db("sample_items")
-    .where({ draw_id: draw.id })
-    .whereNot({ origin: "haphazard" })
-    .orderBy("selection_order")
-    .select("population_row_number", "selection_order", "hit_points", "stratum");
+  const stored = await listSeededItemsByDrawId(db, { drawId: draw.id });
 
   const key = (row: number, stratum: number | null, order: number, points: number[] | null) =>
     `${stratum ?? "-"}|${row}|${sample.method === "stratified" ? "" : order}|${(points ?? []).map((p) => p.toFixed(2)).join(";")}`;
   const want = new Set(recomputed.map((it) => key(frame.rowNumbers[it.position], it.stratum, it.order, it.hitPoints)));
-  const have = new Set(
-    stored.map((s) => key(s.population_row_number, s.stratum, s.selection_order, parsePoints(s.hit_points))),
-  );
+  const have = new Set(stored.map((s) => key(s.populationRowNumber, s.stratum, s.selectionOrder, s.hitPoints)));
   const differences = [
     ...[...have].filter((k) => !want.has(k)).map((k) => `stored but not recomputed: ${describe(k)}`),
     ...[...want].filter((k) => !have.has(k)).map((k) => `recomputed but not stored: ${describe(k)}`),
@@ -57,9 +48,11 @@ export async function reperformDraw(
   };
   await db.transaction(async (trx) => {
     await assertSampleUnlocked(trx, sample.id);
-    await trx("sample_draws")
-      .where({ id: draw.id })
-      .update({ reperformed_at: new Date(result.checkedAt), reperform_matches: result.matches });
+    await updateDrawReperformById(trx, {
+      drawId: draw.id,
+      checkedAt: new Date(result.checkedAt),
+      matches: result.matches,
+    });
     await recordAudit(trx, {
       actorUserId: actorId,
       engagementId: sample.engagementId,
@@ -71,11 +64,6 @@ export async function reperformDraw(
     });
   });
   return result;
-}
-
-function parsePoints(v: unknown): number[] | null {
-  if (v === null || v === undefined) return null;
-  return (typeof v === "string" ? JSON.parse(v) : v) as number[];
 }
 
 function describe(k: string): string {
