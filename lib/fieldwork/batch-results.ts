@@ -1,6 +1,6 @@
 import "server-only";
 import type { Knex } from "knex";
-import { applyItemResult, type SampleItemRecord } from "@/lib/data/sample-items";
+import { applyItemResult, listItemRefsByIds, type SampleItemRecord } from "@/lib/data/sample-items";
 import { beginResultWrite } from "@/lib/samples/guard";
 import { AppError } from "@/lib/errors";
 import { SaveResultSchema, type SaveResult } from "@/lib/validation/sample";
@@ -47,11 +47,7 @@ export async function saveItemResults(
   { engagementId, sampleId, drawId, actorId, batch }: BatchWrite,
 ): Promise<{ items: SampleItemRecord[]; signOffsCleared: boolean }> {
   const ids = batch.rows.map((r) => r.itemId);
-  const refs = new Map<number, string>(
-    (await db("sample_items").where({ draw_id: drawId }).whereIn("id", ids).select("id", "item_ref")).map(
-      (r: { id: number; item_ref: string }) => [Number(r.id), String(r.item_ref)],
-    ),
-  );
+  const refs = await listItemRefsByIds(db, { drawId, itemIds: ids });
   const { problems, parsed } = checkRows(batch, refs);
   if (problems.length) throw refusal(400, "invalid_rows", problems);
   return db.transaction(async (trx) => {

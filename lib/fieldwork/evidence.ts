@@ -9,49 +9,18 @@ import { AppError, notFound } from "@/lib/errors";
 import { putObjectBytes } from "@/lib/storage/objects";
 import { beginSampleWrite } from "@/lib/samples/guard";
 import { sniffEvidence } from "@/lib/files/sniff-evidence";
+import {
+  findEvidenceById,
+  insertItemEvidence,
+  lockLiveEvidenceById,
+  markEvidenceDeletedById,
+  type EvidenceRecord,
+} from "@/lib/data/item-evidence";
+
+export { listEvidenceByItemId, type EvidenceRecord } from "@/lib/data/item-evidence";
 
 /** Largest evidence file accepted. */
 export const MAX_EVIDENCE_BYTES = 25 * 1024 * 1024;
-
-export interface EvidenceRecord {
-  id: number;
-  sampleItemId: number;
-  fileName: string;
-  contentType: string;
-  sizeBytes: number;
-  sha256: string;
-  objectKey: string;
-  uploadedById: number;
-  uploadedByName: string;
-  uploadedAt: string;
-  deletedAt: string | null;
-  deletedByName: string | null;
-}
-
-const iso = (v: unknown) => (v ? new Date(v as string).toISOString() : null);
-
-function toEvidence(r: Record<string, unknown>): EvidenceRecord {
-  return {
-    id: Number(r.id),
-    sampleItemId: Number(r.sample_item_id),
-    fileName: String(r.file_name),
-    contentType: String(r.content_type),
-    sizeBytes: Number(r.size_bytes),
-    sha256: String(r.sha256),
-    objectKey: String(r.object_key),
-    uploadedById: Number(r.uploaded_by),
-    uploadedByName: String(r.uploaded_by_name ?? ""),
-    uploadedAt: iso(r.uploaded_at)!,
-    deletedAt: iso(r.deleted_at),
-    deletedByName: (r.deleted_by_name as string | null) ?? null,
-  };
-}
-
-const evidenceQuery = (db: Knex) =>
-  db("item_evidence as e")
-    .join("users as u", "u.id", "e.uploaded_by")
-    .leftJoin("users as d", "d.id", "e.deleted_by")
-    .select("e.*", "u.name as uploaded_by_name", "d.name as deleted_by_name");
 
 /** The item, when it belongs to the sample's current draw (404 otherwise). */
 export async function getItemOfSample(db: Knex, { sampleId, itemId }: { sampleId: number; itemId: number }) {
@@ -60,22 +29,10 @@ export async function getItemOfSample(db: Knex, { sampleId, itemId }: { sampleId
   return getItemById(db, { drawId: draw.id, itemId });
 }
 
-export async function listEvidenceByItemId(
-  db: Knex,
-  { itemId, includeDeleted = false }: { itemId: number; includeDeleted?: boolean },
-) {
-  const q = evidenceQuery(db).where("e.sample_item_id", itemId).orderBy("e.id");
-  if (!includeDeleted) q.whereNull("e.deleted_at");
-  return (await q).map(toEvidence);
-}
-
 export async function getEvidenceById(db: Knex, { itemId, evidenceId }: { itemId: number; evidenceId: number }) {
-  const row = await evidenceQuery(db)
-    .where({ "e.id": evidenceId, "e.sample_item_id": itemId })
-    .whereNull("e.deleted_at")
-    .first();
-  if (!row) throw notFound("No such evidence file");
-  return toEvidence(row);
+  const evidence = await findEvidenceById(db, { itemId, evidenceId });
+  if (!evidence) throw notFound("No such evidence file");
+  return evidence;
 }
 
 const auditView = (e: EvidenceRecord) => ({
@@ -132,24 +89,14 @@ export async function insertEvidenceRow(
     audit: { action: string; [extra: string]: unknown };
   },
 ): Promise<EvidenceRecord> {
-  const [id] = await trx("item_evidence").insert({
-    sample_item_id: a.itemId,
-    file_name: a.fileName,
-    content_type: a.contentType,
-    size_bytes: a.sizeBytes,
-    sha256: a.sha256,
-    object_key: a.objectKey,
-    uploaded_by: a.uploadedBy,
-  });
-  const [row] = await evidenceQuery(trx).where("e.id", id);
-  const evidence = toEvidence(row);
+  const evidence = await insertItemEvidence(trx, a);
   const { action, ...extra } = a.audit;
   await recordAudit(trx, {
     actorUserId: a.actorId,
     engagementId: a.engagementId,
     sampleId: a.sampleId,
     entity: "item_evidence",
-    entityId: id,
+    entityId: evidence.id,
     action,
     after: { ...auditView(evidence), ...extra },
   });
@@ -174,15 +121,9 @@ export async function deleteItemEvidence(
   await db.transaction(async (trx) => {
     await beginSampleWrite(trx, { sampleId: a.sampleId, actorId: a.actorId, what: "evidence removed" });
     await getItemOfSample(trx, { sampleId: a.sampleId, itemId: a.itemId });
-    const row = await trx("item_evidence")
-      .where({ id: a.evidenceId, sample_item_id: a.itemId })
-      .whereNull("deleted_at")
-      .forUpdate()
-      .first();
+    const row = await lockLiveEvidenceById(trx, { itemId: a.itemId, evidenceId: a.evidenceId });
     if (!row) throw notFound("No such evidence file");
-    await trx("item_evidence")
-      .where({ id: a.evidenceId })
-      .update({ deleted_at: trx.fn.now(3), deleted_by: a.actorId });
+    await markEvidenceDeletedById(trx, { evidenceId: a.evidenceId, actorId: a.actorId });
     const before = {
       sampleItemId: a.itemId,
       fileName: row.file_name,

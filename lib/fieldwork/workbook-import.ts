@@ -3,7 +3,7 @@ import { createHash } from "node:crypto";
 import type { Knex } from "knex";
 import { recordAudit } from "@/lib/data/audit-log";
 import { getCurrentDraw, getSampleById } from "@/lib/data/samples";
-import { listItemsByDrawId, saveItemResult, type SampleItemRecord } from "@/lib/data/sample-items";
+import { listItemsByDrawId, lockItemsByDrawId, saveItemResult, type SampleItemRecord } from "@/lib/data/sample-items";
 import { conflict } from "@/lib/errors";
 import { assertSampleUnlocked } from "@/lib/samples/guard";
 import { resultOfItem } from "./workbook-export";
@@ -53,7 +53,7 @@ export async function importFieldworkWorkbook(
     ]);
   return db.transaction(async (trx) => {
     await assertSampleUnlocked(trx, sample.id); // each saved row then clears any sign-off, as on screen
-    await trx("sample_items").where({ draw_id: draw.id }).forUpdate().select("id");
+    await lockItemsByDrawId(trx, { drawId: draw.id });
     const items = (await listItemsByDrawId(trx, { drawId: draw.id })).items;
     const plan = planWorkbookImport(kind, sheet, items.map(factsOf));
     if (plan.problems.length) throw new WorkbookProblemsError(plan.problems);

@@ -11,7 +11,7 @@ import { factorModeOfSample } from "@/lib/samples/methodology";
 import { workpaperReferenceFor } from "@/lib/review/lock";
 import { money } from "@/lib/samples/evaluation-blocks";
 import type { SampleEvaluation } from "@/lib/samples/evaluate";
-import type { EvidenceIndexRow, PlanBlock, WorkpaperData, WorkpaperItem } from "@/templates/workpaper/workpaper-data";
+import type { PlanBlock, WorkpaperData, WorkpaperItem } from "@/templates/workpaper/workpaper-data";
 import { AppError } from "@/lib/errors";
 import { getAuditorConclusionBySampleId } from "@/lib/data/auditor-conclusions";
 import { RESPONSE_LABELS } from "@/lib/validation/conclusion";
@@ -20,25 +20,8 @@ import { CAUSE_LABELS } from "@/lib/validation/sample";
 import { describeChange } from "@/lib/review/describe-change";
 import { loadChangeContext } from "@/lib/review/audit-trail";
 import { randomStartOf } from "@/lib/samples/random-start";
-
-/** Files attached to the draw's items and not removed, in item order (item_evidence). */
-async function listEvidenceIndex(db: Knex, { drawId }: { drawId: number }): Promise<EvidenceIndexRow[]> {
-  const rows = await db("item_evidence as e")
-    .join("sample_items as i", "i.id", "e.sample_item_id")
-    .join("users as u", "u.id", "e.uploaded_by")
-    .where("i.draw_id", drawId)
-    .whereNull("e.deleted_at")
-    .orderBy("i.selection_order")
-    .orderBy("e.id")
-    .select("i.item_ref", "e.file_name", "e.sha256", "u.name", "e.uploaded_at");
-  return rows.map((r: Record<string, unknown>) => ({
-    reference: String(r.item_ref),
-    fileName: String(r.file_name),
-    sha256: String(r.sha256),
-    uploadedBy: String(r.name),
-    uploadedAt: new Date(r.uploaded_at as string).toISOString(),
-  }));
-}
+import { listEvidenceIndexByDrawId } from "@/lib/data/item-evidence";
+import { getFirmNameById } from "@/lib/data/firms";
 
 const moneyOrNull = (v: number | null) => (v === null ? null : money(v));
 const causeLabel = (cause: string) => CAUSE_LABELS[cause as keyof typeof CAUSE_LABELS] ?? cause;
@@ -100,14 +83,14 @@ export async function assembleWorkpaper(
   const { view, items, evaluation } = await loadSampleWithEvaluation(db, { engagementId, sampleId });
   const { sample, population, engagement, currentDraw, review } = view;
   const [firm, notes, trail, recipe, adoptedRun, concluded, changeContext, evidence] = await Promise.all([
-    db("firms").where({ id: engagement.firmId }).first("name"),
+    getFirmNameById(db, { firmId: engagement.firmId }),
     listNotesBySampleId(db, { sampleId }),
     listSampleAuditTrail(db, { sampleId, query: { kind: "all" } }),
     currentDraw ? recipeForSample(db, { sample }) : Promise.resolve(""),
     getAdoptedAdvisorRun(db, { sampleId }),
     getAuditorConclusionBySampleId(db, { sampleId }),
     loadChangeContext(db, { sampleId }),
-    currentDraw ? listEvidenceIndex(db, { drawId: currentDraw.id }) : Promise.resolve([]),
+    currentDraw ? listEvidenceIndexByDrawId(db, { drawId: currentDraw.id }) : Promise.resolve([]),
   ]);
   const tolerable = money(Number(sample.params.tolerableMisstatement ?? engagement.performanceMateriality));
   const active = items.filter((i) => i.status !== "void");
@@ -115,7 +98,7 @@ export async function assembleWorkpaper(
   return {
     draft,
     workpaperReference: lock?.reference ?? workpaperReferenceFor(sample),
-    firmName: firm?.name ?? "",
+    firmName: firm ?? "",
     clientName: engagement.clientName,
     engagementName: engagement.name,
     periodEnd: engagement.periodEnd,
