@@ -27,6 +27,30 @@ export async function recordAudit(trx: Knex | Knex.Transaction, entry: AuditEntr
   });
 }
 
+/** The engagement's recorded changes to the given entities, oldest first (at most `limit`), before/after as stored text. */
+export async function listAuditTextByEntities(
+  db: Knex,
+  { engagementId, entities, limit = 2000 }: { engagementId: number; entities: string[]; limit?: number },
+) {
+  return db("audit_log as a")
+    .leftJoin("users as u", "u.id", "a.actor_user_id")
+    .where("a.engagement_id", engagementId)
+    .whereIn("a.entity", entities)
+    .orderBy("a.id")
+    .limit(limit)
+    .select<
+      {
+        at: Date;
+        name: string | null;
+        entity: string;
+        entity_id: string;
+        action: string;
+        before_json: string | null;
+        after_json: string | null;
+      }[]
+    >("a.at", "u.name", "a.entity", "a.entity_id", "a.action", "a.before_json", "a.after_json");
+}
+
 export interface AuditRow {
   id: number;
   at: string;

@@ -3,6 +3,8 @@ import type { Knex } from "knex";
 import type { EntryInput, CorrectionInput } from "@/lib/misstatements/rows";
 import type { SampleContribution } from "@/lib/misstatements/contribution";
 import { notFound } from "@/lib/errors";
+import type { Entry } from "@/lib/validation/misstatements";
+import type { MisstatementCorrectionsRow, MisstatementEntriesRow } from "./tables";
 
 export interface SummarySettingsRecord {
   clearlyTrivial: string;
@@ -170,4 +172,98 @@ export async function freezeSampleContribution(
 /** On unlock the sample's row is live again. */
 export async function thawSampleContribution(trx: Knex.Transaction, { sampleId }: { sampleId: number }) {
   await trx("misstatement_sample_snapshots").where({ sample_id: sampleId }).delete();
+}
+
+const entryColumns = (e: Entry) => ({
+  kind: e.kind,
+  account: e.account,
+  assertion: e.assertion,
+  description: e.description,
+  amount: e.amount,
+  income_effect: e.incomeEffect,
+  balance_effect: e.balanceEffect,
+  corrected: e.corrected !== null,
+  corrected_on: e.corrected?.on ?? null,
+  correction_reference: e.corrected?.reference ?? null,
+});
+
+export async function insertEntry(
+  trx: Knex.Transaction,
+  { engagementId, input, actorId }: { engagementId: number; input: Entry; actorId: number },
+): Promise<number> {
+  const [id] = await trx("misstatement_entries").insert({
+    engagement_id: engagementId,
+    ...entryColumns(input),
+    created_by: actorId,
+  });
+  return id;
+}
+
+/** The entry, not removed, locked to the end of the transaction; undefined when the engagement has none such. */
+export async function lockLiveEntryById(
+  trx: Knex.Transaction,
+  { engagementId, entryId }: { engagementId: number; entryId: number },
+): Promise<MisstatementEntriesRow | undefined> {
+  return trx("misstatement_entries")
+    .where({ id: entryId, engagement_id: engagementId })
+    .whereNull("deleted_at")
+    .forUpdate()
+    .first();
+}
+
+/** Writes the entry's fields as version `version` (the caller checked the version it replaces). */
+export async function updateEntryById(
+  trx: Knex.Transaction,
+  { entryId, input, version, actorId }: { entryId: number; input: Entry; version: number; actorId: number },
+) {
+  await trx("misstatement_entries")
+    .where({ id: entryId })
+    .update({ ...entryColumns(input), version, updated_by: actorId, updated_at: trx.fn.now(3) });
+}
+
+/** Soft removal: the row stays for the audit trail. */
+export async function markEntryDeletedById(
+  trx: Knex.Transaction,
+  { entryId, actorId }: { entryId: number; actorId: number },
+) {
+  await trx("misstatement_entries")
+    .where({ id: entryId })
+    .update({ deleted_at: trx.fn.now(3), deleted_by: actorId });
+}
+
+/** The client's correction of one part of a sample's row, locked to the end of the transaction. */
+export async function lockCorrectionBySampleId(
+  trx: Knex.Transaction,
+  { sampleId, part }: { sampleId: number; part: MisstatementCorrectionsRow["part"] },
+): Promise<MisstatementCorrectionsRow | undefined> {
+  return trx("misstatement_corrections").where({ sample_id: sampleId, part }).forUpdate().first();
+}
+
+/** Replaces the correction of one part of a sample's row (`corrected: null` removes it). */
+export async function replaceCorrectionBySampleId(
+  trx: Knex.Transaction,
+  {
+    engagementId,
+    sampleId,
+    part,
+    corrected,
+    actorId,
+  }: {
+    engagementId: number;
+    sampleId: number;
+    part: MisstatementCorrectionsRow["part"];
+    corrected: { on: string; reference: string } | null;
+    actorId: number;
+  },
+) {
+  await trx("misstatement_corrections").where({ sample_id: sampleId, part }).delete();
+  if (!corrected) return;
+  await trx("misstatement_corrections").insert({
+    engagement_id: engagementId,
+    sample_id: sampleId,
+    part,
+    corrected_on: corrected.on,
+    reference: corrected.reference,
+    created_by: actorId,
+  });
 }

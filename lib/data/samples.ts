@@ -310,3 +310,19 @@ export async function markSampleDrawnById(trx: Knex.Transaction, { sampleId }: {
 export async function getSampleStatusById(db: Knex | Knex.Transaction, { sampleId }: { sampleId: number }) {
   return (await db("samples").where({ id: sampleId }).first("status"))?.status;
 }
+
+/** Whether the engagement has this sample. */
+export async function hasSampleById(
+  db: Knex | Knex.Transaction,
+  { engagementId, sampleId }: { engagementId: number; sampleId: number },
+) {
+  return Boolean(await db("samples").where({ id: sampleId, engagement_id: engagementId }).first("id"));
+}
+
+/** The names of the samples planned on a population. */
+export async function listSampleNamesByPopulationId(
+  db: Knex | Knex.Transaction,
+  { populationId }: { populationId: number },
+): Promise<string[]> {
+  return db("samples").where({ population_id: populationId }).pluck("name");
+}

@@ -1,26 +1,22 @@
 import "server-only";
 import type { Knex } from "knex";
 import { recordAudit } from "@/lib/data/audit-log";
-import { getEntryById } from "@/lib/data/misstatements";
+import {
+  getEntryById,
+  insertEntry,
+  lockCorrectionBySampleId,
+  lockLiveEntryById,
+  markEntryDeletedById,
+  replaceCorrectionBySampleId,
+  updateEntryById,
+} from "@/lib/data/misstatements";
+import { getSummarySettingsByEngagementId, updateSummaryByEngagementId } from "@/lib/data/misstatement-summaries";
+import { hasSampleById } from "@/lib/data/samples";
 import { AppError, fieldError, notFound } from "@/lib/errors";
 import type { Entry } from "@/lib/validation/misstatements";
 import type { z } from "zod";
 import type { SampleCorrectionSchema, SummarySettingsSchema } from "@/lib/validation/misstatements";
 import { beginSummaryWrite } from "./guard";
-import { mustExist } from "@/lib/data/must-exist";
-
-const columnsOf = (e: Entry) => ({
-  kind: e.kind,
-  account: e.account,
-  assertion: e.assertion,
-  description: e.description,
-  amount: e.amount,
-  income_effect: e.incomeEffect,
-  balance_effect: e.balanceEffect,
-  corrected: e.corrected !== null,
-  corrected_on: e.corrected?.on ?? null,
-  correction_reference: e.corrected?.reference ?? null,
-});
 
 export async function createEntry(
   db: Knex,
@@ -28,11 +24,7 @@ export async function createEntry(
 ) {
   return db.transaction(async (trx) => {
     const signOffsCleared = await beginSummaryWrite(trx, { engagementId, actorId, what: "a misstatement entered" });
-    const [id] = await trx("misstatement_entries").insert({
-      engagement_id: engagementId,
-      ...columnsOf(input),
-      created_by: actorId,
-    });
+    const id = await insertEntry(trx, { engagementId, input, actorId });
     await recordAudit(trx, {
       actorUserId: actorId,
       engagementId,
@@ -57,11 +49,7 @@ export async function updateEntry(
 ) {
   return db.transaction(async (trx) => {
     const signOffsCleared = await beginSummaryWrite(trx, { engagementId, actorId, what: `entry ${entryId} changed` });
-    const before = await trx("misstatement_entries")
-      .where({ id: entryId, engagement_id: engagementId })
-      .whereNull("deleted_at")
-      .forUpdate()
-      .first();
+    const before = await lockLiveEntryById(trx, { engagementId, entryId });
     if (!before) throw notFound("No such misstatement entry");
     if (before.version !== input.version)
       throw new AppError(
@@ -70,9 +58,7 @@ export async function updateEntry(
         "Someone changed this entry after you opened it; reload it and apply your change again.",
       );
     const { version: _v, ...fields } = input;
-    await trx("misstatement_entries")
-      .where({ id: entryId })
-      .update({ ...columnsOf(fields), version: before.version + 1, updated_by: actorId, updated_at: trx.fn.now(3) });
+    await updateEntryById(trx, { entryId, input: fields, version: before.version + 1, actorId });
     await recordAudit(trx, {
       actorUserId: actorId,
       engagementId,
@@ -104,15 +90,9 @@ export async function deleteEntry(
 ) {
   await db.transaction(async (trx) => {
     await beginSummaryWrite(trx, { engagementId, actorId, what: `entry ${entryId} removed` });
-    const before = await trx("misstatement_entries")
-      .where({ id: entryId, engagement_id: engagementId })
-      .whereNull("deleted_at")
-      .forUpdate()
-      .first();
+    const before = await lockLiveEntryById(trx, { engagementId, entryId });
     if (!before) throw notFound("No such misstatement entry");
-    await trx("misstatement_entries")
-      .where({ id: entryId })
-      .update({ deleted_at: trx.fn.now(3), deleted_by: actorId });
+    await markEntryDeletedById(trx, { entryId, actorId });
     await recordAudit(trx, {
       actorUserId: actorId,
       engagementId,
@@ -139,19 +119,15 @@ export async function saveSummarySettings(
       actorId,
       what: "the clearly trivial threshold or the approaching share",
     });
-    const before = mustExist(
-      await trx("misstatement_summaries")
-        .where({ engagement_id: engagementId })
-        .first("clearly_trivial", "approaching_share"),
-      `summary of engagement ${engagementId}`,
-    );
-    await trx("misstatement_summaries")
-      .where({ engagement_id: engagementId })
-      .update({
+    const before = await getSummarySettingsByEngagementId(trx, { engagementId });
+    await updateSummaryByEngagementId(trx, {
+      engagementId,
+      patch: {
         clearly_trivial: input.clearlyTrivial,
         approaching_share: input.approachingShare,
         updated_at: trx.fn.now(3),
-      });
+      },
+    });
     await recordAudit(trx, {
       actorUserId: actorId,
       engagementId,
@@ -174,24 +150,17 @@ export async function saveSampleCorrection(
   }: { engagementId: number; actorId: number; input: z.output<typeof SampleCorrectionSchema> },
 ) {
   await db.transaction(async (trx) => {
-    if (!(await trx("samples").where({ id: input.sampleId, engagement_id: engagementId }).first("id")))
+    if (!(await hasSampleById(trx, { engagementId, sampleId: input.sampleId })))
       throw fieldError("sampleId", "no such sample on this engagement");
     await beginSummaryWrite(trx, { engagementId, actorId, what: `correction of sample ${input.sampleId}` });
-    const before = await trx("misstatement_corrections")
-      .where({ sample_id: input.sampleId, part: input.part })
-      .forUpdate()
-      .first();
-    await trx("misstatement_corrections").where({ sample_id: input.sampleId, part: input.part }).delete();
-    if (input.corrected) {
-      await trx("misstatement_corrections").insert({
-        engagement_id: engagementId,
-        sample_id: input.sampleId,
-        part: input.part,
-        corrected_on: input.corrected.on,
-        reference: input.corrected.reference,
-        created_by: actorId,
-      });
-    }
+    const before = await lockCorrectionBySampleId(trx, { sampleId: input.sampleId, part: input.part });
+    await replaceCorrectionBySampleId(trx, {
+      engagementId,
+      sampleId: input.sampleId,
+      part: input.part,
+      corrected: input.corrected,
+      actorId,
+    });
     await recordAudit(trx, {
       actorUserId: actorId,
       engagementId,

@@ -8,46 +8,23 @@ import { AppError, notFound } from "@/lib/errors";
 import { sniffEvidence } from "@/lib/files/sniff-evidence";
 import { putObjectBytes } from "@/lib/storage/objects";
 import { beginSummaryWrite } from "./guard";
+import {
+  findEntryEvidenceById,
+  insertEntryEvidence,
+  listEntryEvidenceByEntryId,
+  lockLiveEntryEvidenceById,
+  markEntryEvidenceDeletedById,
+  type EntryEvidenceRecord,
+} from "@/lib/data/misstatement-evidence";
 
-export interface EntryEvidenceRecord {
-  id: number;
-  entryId: number;
-  fileName: string;
-  contentType: string;
-  sizeBytes: number;
-  sha256: string;
-  objectKey: string;
-  uploadedByName: string;
-  uploadedAt: string;
-  deletedAt: string | null;
-}
+export type { EntryEvidenceRecord } from "@/lib/data/misstatement-evidence";
 
-const iso = (v: unknown) => (v ? new Date(v as string).toISOString() : null);
-const toEvidence = (r: Record<string, unknown>): EntryEvidenceRecord => ({
-  id: Number(r.id),
-  entryId: Number(r.entry_id),
-  fileName: String(r.file_name),
-  contentType: String(r.content_type),
-  sizeBytes: Number(r.size_bytes),
-  sha256: String(r.sha256),
-  objectKey: String(r.object_key),
-  uploadedByName: String(r.uploaded_by_name ?? ""),
-  uploadedAt: iso(r.uploaded_at)!,
-  deletedAt: iso(r.deleted_at),
-});
-const query = (db: Knex) =>
-  db("misstatement_entry_evidence as v")
-    .join("users as u", "u.id", "v.uploaded_by")
-    .select("v.*", "u.name as uploaded_by_name");
-
-export async function listEntryEvidence(db: Knex, { entryId }: { entryId: number }) {
-  return (await query(db).where("v.entry_id", entryId).whereNull("v.deleted_at").orderBy("v.id")).map(toEvidence);
-}
+export const listEntryEvidence = listEntryEvidenceByEntryId;
 
 export async function getEntryEvidence(db: Knex, { entryId, evidenceId }: { entryId: number; evidenceId: number }) {
-  const row = await query(db).where({ "v.entry_id": entryId, "v.id": evidenceId }).whereNull("v.deleted_at").first();
-  if (!row) throw notFound("No such evidence file");
-  return toEvidence(row);
+  const evidence = await findEntryEvidenceById(db, { entryId, evidenceId });
+  if (!evidence) throw notFound("No such evidence file");
+  return evidence;
 }
 
 export async function addEntryEvidence(
@@ -66,20 +43,20 @@ export async function addEntryEvidence(
     });
     await getEntryById(trx, { engagementId: a.engagementId, entryId: a.entryId });
     await putObjectBytes({ key: objectKey, bytes: a.bytes, contentType: sniff.contentType });
-    const [id] = await trx("misstatement_entry_evidence").insert({
-      entry_id: a.entryId,
-      file_name: a.fileName,
-      content_type: sniff.contentType,
-      size_bytes: a.bytes.length,
+    const evidence = await insertEntryEvidence(trx, {
+      entryId: a.entryId,
+      fileName: a.fileName,
+      contentType: sniff.contentType,
+      sizeBytes: a.bytes.length,
       sha256,
-      object_key: objectKey,
-      uploaded_by: a.actorId,
+      objectKey,
+      uploadedBy: a.actorId,
     });
     await recordAudit(trx, {
       actorUserId: a.actorId,
       engagementId: a.engagementId,
       entity: "misstatement_evidence",
-      entityId: id,
+      entityId: evidence.id,
       action: "upload",
       after: {
         entryId: a.entryId,
@@ -89,7 +66,7 @@ export async function addEntryEvidence(
         sha256,
       },
     });
-    return toEvidence((await query(trx).where("v.id", id))[0]);
+    return evidence;
   });
 }
 
@@ -104,15 +81,9 @@ export async function deleteEntryEvidence(
       what: `evidence removed from entry ${a.entryId}`,
     });
     await getEntryById(trx, { engagementId: a.engagementId, entryId: a.entryId });
-    const row = await trx("misstatement_entry_evidence")
-      .where({ id: a.evidenceId, entry_id: a.entryId })
-      .whereNull("deleted_at")
-      .forUpdate()
-      .first();
+    const row = await lockLiveEntryEvidenceById(trx, { entryId: a.entryId, evidenceId: a.evidenceId });
     if (!row) throw notFound("No such evidence file");
-    await trx("misstatement_entry_evidence")
-      .where({ id: a.evidenceId })
-      .update({ deleted_at: trx.fn.now(3), deleted_by: a.actorId });
+    await markEntryEvidenceDeletedById(trx, { evidenceId: a.evidenceId, actorId: a.actorId });
     await recordAudit(trx, {
       actorUserId: a.actorId,
       engagementId: a.engagementId,

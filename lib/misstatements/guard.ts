@@ -2,18 +2,18 @@ import "server-only";
 import type { Knex } from "knex";
 import { recordAudit } from "@/lib/data/audit-log";
 import { AppError } from "@/lib/errors";
-import { mustExist } from "@/lib/data/must-exist";
+import {
+  lockSummaryByEngagementId,
+  SUMMARY_SIGN_OFFS_CLEARED,
+  updateSummaryByEngagementId,
+} from "@/lib/data/misstatement-summaries";
 
 export const SUMMARY_LOCKED_MESSAGE =
   "The summary of misstatements is locked: its workpaper is final. A partner can unlock it, with a reason, if a change is needed.";
 
 /** The summary's row, created on first use, held FOR UPDATE for the rest of the transaction. */
 export async function lockSummaryRow(trx: Knex.Transaction, engagementId: number) {
-  await trx.raw("INSERT IGNORE INTO misstatement_summaries (engagement_id) VALUES (?)", [engagementId]);
-  return mustExist(
-    await trx("misstatement_summaries").where({ engagement_id: engagementId }).forUpdate().first(),
-    `summary of engagement ${engagementId}`,
-  );
+  return lockSummaryByEngagementId(trx, { engagementId });
 }
 
 /**
@@ -28,15 +28,7 @@ export async function beginSummaryWrite(
   const row = await lockSummaryRow(trx, engagementId);
   if (row.locked_at) throw new AppError(409, "locked", SUMMARY_LOCKED_MESSAGE);
   if (!row.preparer_signed_at && !row.reviewer_signed_at) return false;
-  await trx("misstatement_summaries").where({ engagement_id: engagementId }).update({
-    preparer_signed_by: null,
-    preparer_signed_role: null,
-    preparer_signed_at: null,
-    reviewer_signed_by: null,
-    reviewer_signed_role: null,
-    reviewer_signed_at: null,
-    signed_rows_sha256: null,
-  });
+  await updateSummaryByEngagementId(trx, { engagementId, patch: SUMMARY_SIGN_OFFS_CLEARED });
   await recordAudit(trx, {
     actorUserId: actorId,
     engagementId,

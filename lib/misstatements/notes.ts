@@ -3,31 +3,15 @@ import type { Knex } from "knex";
 import { recordAudit } from "@/lib/data/audit-log";
 import { conflict, notFound } from "@/lib/errors";
 import { assertSummaryUnlocked } from "./guard";
-import type { SummaryNote } from "./types";
+import {
+  insertMisstatementNote,
+  listNotesByEngagementId,
+  lockNoteById,
+  updateNoteById,
+} from "@/lib/data/misstatement-notes";
 
-const iso = (v: unknown) => (v ? new Date(v as string).toISOString() : null);
-
-export async function listSummaryNotes(db: Knex, { engagementId }: { engagementId: number }): Promise<SummaryNote[]> {
-  const rows = await db("misstatement_notes as n")
-    .join("users as r", "r.id", "n.raised_by")
-    .leftJoin("users as a", "a.id", "n.answered_by")
-    .leftJoin("users as c", "c.id", "n.cleared_by")
-    .where("n.engagement_id", engagementId)
-    .orderBy("n.id")
-    .select("n.*", "r.name as raised_name", "a.name as answered_name", "c.name as cleared_name");
-  return rows.map((r) => ({
-    id: r.id,
-    text: r.text,
-    status: r.status,
-    raisedBy: r.raised_name,
-    raisedAt: iso(r.raised_at)!,
-    answer: r.answer ?? null,
-    answeredBy: r.answered_name ?? null,
-    answeredAt: iso(r.answered_at),
-    clearedBy: r.cleared_name ?? null,
-    clearedAt: iso(r.cleared_at),
-  }));
-}
+/** The summary's review notes, oldest first. */
+export const listSummaryNotes = listNotesByEngagementId;
 
 export async function raiseSummaryNote(
   db: Knex,
@@ -35,7 +19,7 @@ export async function raiseSummaryNote(
 ) {
   return db.transaction(async (trx) => {
     await assertSummaryUnlocked(trx, engagementId);
-    const [id] = await trx("misstatement_notes").insert({ engagement_id: engagementId, text, raised_by: actorId });
+    const id = await insertMisstatementNote(trx, { engagementId, text, raisedBy: actorId });
     await recordAudit(trx, {
       actorUserId: actorId,
       engagementId,
@@ -49,7 +33,7 @@ export async function raiseSummaryNote(
 }
 
 async function noteFor(trx: Knex.Transaction, engagementId: number, noteId: number) {
-  const note = await trx("misstatement_notes").where({ id: noteId, engagement_id: engagementId }).forUpdate().first();
+  const note = await lockNoteById(trx, { engagementId, noteId });
   if (!note) throw notFound("No such review note");
   return note;
 }
@@ -62,9 +46,10 @@ export async function answerSummaryNote(
     await assertSummaryUnlocked(trx, engagementId);
     const note = await noteFor(trx, engagementId, noteId);
     if (note.status === "cleared") throw conflict("This note is already cleared.");
-    await trx("misstatement_notes")
-      .where({ id: noteId })
-      .update({ status: "answered", answer, answered_by: actorId, answered_at: trx.fn.now(3) });
+    await updateNoteById(trx, {
+      noteId,
+      patch: { status: "answered", answer, answered_by: actorId, answered_at: trx.fn.now(3) },
+    });
     await recordAudit(trx, {
       actorUserId: actorId,
       engagementId,
@@ -88,9 +73,10 @@ export async function clearSummaryNote(
       throw conflict(
         note.status === "cleared" ? "This note is already cleared." : "The preparer has not answered this note yet.",
       );
-    await trx("misstatement_notes")
-      .where({ id: noteId })
-      .update({ status: "cleared", cleared_by: actorId, cleared_at: trx.fn.now(3) });
+    await updateNoteById(trx, {
+      noteId,
+      patch: { status: "cleared", cleared_by: actorId, cleared_at: trx.fn.now(3) },
+    });
     await recordAudit(trx, {
       actorUserId: actorId,
       engagementId,

@@ -2,6 +2,7 @@ import "server-only";
 import { createHash } from "node:crypto";
 import type { Knex } from "knex";
 import { recordAudit } from "@/lib/data/audit-log";
+import { updateSummaryByEngagementId } from "@/lib/data/misstatement-summaries";
 import type { EngagementRole } from "@/lib/auth/roles";
 import { AppError, conflict, forbidden } from "@/lib/errors";
 import { putObjectBytes } from "@/lib/storage/objects";
@@ -19,9 +20,9 @@ export async function signSummaryAsPreparer(
   const view = await buildLiveSummary(db, { engagementId });
   await db.transaction(async (trx) => {
     await assertSummaryUnlocked(trx, engagementId);
-    await trx("misstatement_summaries")
-      .where({ engagement_id: engagementId })
-      .update({
+    await updateSummaryByEngagementId(trx, {
+      engagementId,
+      patch: {
         preparer_signed_by: actorId,
         preparer_signed_role: role,
         preparer_signed_at: trx.fn.now(3),
@@ -29,7 +30,8 @@ export async function signSummaryAsPreparer(
         reviewer_signed_by: null,
         reviewer_signed_role: null,
         reviewer_signed_at: null,
-      });
+      },
+    });
     await recordAudit(trx, {
       actorUserId: actorId,
       engagementId,
@@ -60,9 +62,10 @@ export async function signSummaryAsReviewer(
         "open_notes",
         `${view.review.openNotes} review note${view.review.openNotes === 1 ? " is" : "s are"} not cleared; clear them before signing off.`,
       );
-    await trx("misstatement_summaries")
-      .where({ engagement_id: engagementId })
-      .update({ reviewer_signed_by: actorId, reviewer_signed_role: role, reviewer_signed_at: trx.fn.now(3) });
+    await updateSummaryByEngagementId(trx, {
+      engagementId,
+      patch: { reviewer_signed_by: actorId, reviewer_signed_role: role, reviewer_signed_at: trx.fn.now(3) },
+    });
     await recordAudit(trx, {
       actorUserId: actorId,
       engagementId,
@@ -113,9 +116,9 @@ export async function lockSummary(
     if (row.locked_at) throw new AppError(409, "locked", SUMMARY_LOCKED_MESSAGE);
     if (!row.reviewer_signed_at || row.signed_rows_sha256 !== live.rowsSha256)
       throw conflict("The summary changed while the workpaper was being rendered; sign off again.");
-    await trx("misstatement_summaries")
-      .where({ engagement_id: engagementId })
-      .update({
+    await updateSummaryByEngagementId(trx, {
+      engagementId,
+      patch: {
         locked_by: actor.id,
         locked_at: lockedAt,
         locked_view_json: JSON.stringify(draft),
@@ -123,7 +126,8 @@ export async function lockSummary(
         workpaper_sha256: sha256,
         workpaper_size_bytes: pdf.length,
         workpaper_reference: reference,
-      });
+      },
+    });
     await recordAudit(trx, {
       actorUserId: actor.id,
       engagementId,
@@ -150,16 +154,19 @@ export async function unlockSummary(
   await db.transaction(async (trx) => {
     const row = await lockSummaryRow(trx, engagementId);
     if (!row.locked_at) throw conflict("The summary is not locked.");
-    await trx("misstatement_summaries").where({ engagement_id: engagementId }).update({
-      locked_by: null,
-      locked_at: null,
-      locked_view_json: null,
-      workpaper_object_key: null,
-      workpaper_sha256: null,
-      workpaper_size_bytes: null,
-      reviewer_signed_by: null,
-      reviewer_signed_role: null,
-      reviewer_signed_at: null,
+    await updateSummaryByEngagementId(trx, {
+      engagementId,
+      patch: {
+        locked_by: null,
+        locked_at: null,
+        locked_view_json: null,
+        workpaper_object_key: null,
+        workpaper_sha256: null,
+        workpaper_size_bytes: null,
+        reviewer_signed_by: null,
+        reviewer_signed_role: null,
+        reviewer_signed_at: null,
+      },
     });
     await recordAudit(trx, {
       actorUserId: actorId,

@@ -9,6 +9,7 @@ import {
   listSampleLocksByEngagementId,
 } from "@/lib/data/misstatements";
 import { notFound } from "@/lib/errors";
+import { getFirmNameById } from "@/lib/data/firms";
 import { aggregate, type RowInput } from "./aggregate";
 import type { SampleContribution } from "./contribution";
 import { loadSampleContribution } from "./from-sample";
@@ -64,7 +65,7 @@ export async function buildLiveSummary(db: Knex, { engagementId }: { engagementI
   const engagement = await getEngagementById(db, { engagementId });
   if (!engagement) throw notFound("No such engagement");
   const [firm, settings, entries, corrections, notes, trail, feed] = await Promise.all([
-    db("firms").where({ id: engagement.firmId }).first("name"),
+    getFirmNameById(db, { firmId: engagement.firmId }),
     getSummaryByEngagementId(db, { engagementId }),
     listEntriesByEngagementId(db, { engagementId }),
     listCorrectionsByEngagementId(db, { engagementId }),
@@ -123,7 +124,7 @@ export async function buildLiveSummary(db: Knex, { engagementId }: { engagementI
       periodEnd: engagement.periodEnd,
       currency: engagement.currency,
     },
-    firmName: firm?.name ?? "",
+    firmName: firm ?? "",
     workpaperReference: summaryReferenceFor(engagementId),
     generatedAt: new Date().toISOString(),
     materiality,

@@ -1,5 +1,6 @@
 import "server-only";
 import type { Knex } from "knex";
+import { listAuditTextByEntities } from "@/lib/data/audit-log";
 import type { SummaryTrailEntry } from "./types";
 
 export const SUMMARY_ENTITIES = [
@@ -17,18 +18,12 @@ export async function listSummaryTrail(
   db: Knex,
   { engagementId }: { engagementId: number },
 ): Promise<SummaryTrailEntry[]> {
-  const rows = await db("audit_log as a")
-    .leftJoin("users as u", "u.id", "a.actor_user_id")
-    .where("a.engagement_id", engagementId)
-    .whereIn("a.entity", SUMMARY_ENTITIES)
-    .orderBy("a.id")
-    .limit(2000)
-    .select("a.at", "u.name", "a.entity", "a.entity_id", "a.action", "a.before_json", "a.after_json");
+  const rows = await listAuditTextByEntities(db, { engagementId, entities: SUMMARY_ENTITIES });
   return rows.map((r) => ({
     at: new Date(r.at).toISOString(),
     who: r.name ?? "system",
     action: r.action,
-    subject: `${String(r.entity).replace("misstatement_", "")} ${r.entity_id}`,
+    subject: `${r.entity.replace("misstatement_", "")} ${r.entity_id}`,
     before: text(r.before_json),
     after: text(r.after_json),
   }));
