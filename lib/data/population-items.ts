@@ -5,6 +5,9 @@ import { containsPattern } from "./like";
 import type { PopulationItemsRow } from "./tables";
 import { seekFromQuery, seekPage } from "./keyset";
 import type { KeysetPage } from "@/lib/validation/keyset";
+import type { Readable } from "node:stream";
+import { withLoadStream } from "@/db/knex-bulk-load";
+import { LOAD_DATA_COLUMNS, LOAD_DATA_FORMAT_CLAUSE } from "@/lib/imports/load-data-tsv";
 
 export interface PopulationItem {
   rowNumber: number;
@@ -169,4 +172,31 @@ export async function listDescriptionsByRowNumbers(
     .whereIn("row_number", rowNumbers)
     .select("row_number", "description");
   return new Map(rows.map((r) => [r.row_number, r.description]));
+}
+
+/**
+ * Streams a validated file into population_items with LOAD DATA LOCAL INFILE on the bulk-load
+ * connection (db/knex-bulk-load.ts): the fast path for a million rows. `openStream` gives the
+ * tab-separated lines (lib/imports/load-data-tsv.ts); the result counts the rows the server stored
+ * and its warnings.
+ */
+export async function loadItemsByPopulationId(
+  trx: Knex.Transaction,
+  { populationId, openStream }: { populationId: number; openStream: () => Readable },
+): Promise<{ affectedRows: number; warningStatus: number }> {
+  const sql = `LOAD DATA LOCAL INFILE 'upload' INTO TABLE population_items ${LOAD_DATA_FORMAT_CLAUSE} (${LOAD_DATA_COLUMNS.map((c) => `\`${c}\``).join(", ")}) SET population_id = ?`;
+  const [loaded] = await withLoadStream(openStream, () =>
+    trx.raw<[{ affectedRows: number; warningStatus: number }]>(sql, [populationId]),
+  );
+  return loaded;
+}
+
+/** The first few warnings of the last statement on this connection (for the log). */
+export async function listLoadWarnings(trx: Knex.Transaction): Promise<unknown> {
+  const [warnings] = await trx.raw<[unknown]>("SHOW WARNINGS LIMIT 5");
+  return warnings;
+}
+
+export async function deleteItemsByPopulationId(trx: Knex.Transaction, { populationId }: { populationId: number }) {
+  await trx("population_items").where({ population_id: populationId }).delete();
 }

@@ -167,3 +167,80 @@ export async function getSupersedingPopulation(
     .first();
   return row ? toPopulation(row) : null;
 }
+
+type PopulationPatch = Knex.ResolveTableType<Knex.TableType<"populations">, "update">;
+
+/** A population being loaded (status "loading" until its items are in and its totals written). */
+export async function insertPopulation(
+  trx: Knex.Transaction,
+  a: {
+    engagementId: number;
+    uploadId: number;
+    name: string;
+    sourceFileName: string;
+    sourceSizeBytes: number;
+    sourceSha256: string;
+    sourceObjectKey: string;
+    mapping: PopulationMapping;
+    createdBy: number;
+    supersedesId: number | null;
+  },
+): Promise<number> {
+  const [id] = await trx("populations").insert({
+    engagement_id: a.engagementId,
+    upload_id: a.uploadId,
+    name: a.name,
+    source_file_name: a.sourceFileName,
+    source_size_bytes: a.sourceSizeBytes,
+    source_sha256: a.sourceSha256,
+    source_object_key: a.sourceObjectKey,
+    mapping_json: JSON.stringify(a.mapping),
+    created_by: a.createdBy,
+    supersedes_id: a.supersedesId,
+  });
+  return id;
+}
+
+export async function updatePopulationById(
+  trx: Knex.Transaction,
+  { populationId, patch }: { populationId: number; patch: PopulationPatch },
+) {
+  await trx("populations").where({ id: populationId }).update(patch);
+}
+
+/** Marks a loaded population of the engagement superseded; false when there is none such still live. */
+export async function supersedePopulationById(
+  trx: Knex.Transaction,
+  { engagementId, populationId }: { engagementId: number; populationId: number },
+): Promise<boolean> {
+  const updated = await trx("populations")
+    .where({ id: populationId, engagement_id: engagementId })
+    .whereIn("status", ["unreconciled", "reconciled"])
+    .update({ status: "superseded" });
+  return updated > 0;
+}
+
+/** A loaded population of the engagement, locked to the end of the transaction; undefined when none such. */
+export async function lockLoadedPopulationById(
+  trx: Knex.Transaction,
+  { engagementId, populationId }: { engagementId: number; populationId: number },
+) {
+  return trx("populations")
+    .where({ id: populationId, engagement_id: engagementId })
+    .whereNot("status", "loading")
+    .forUpdate()
+    .first("name", "row_count", "total", "source_file_name", "source_sha256", "archived_at");
+}
+
+/** How many populations were loaded as corrected files of this one. */
+export async function countReplacementsByPopulationId(
+  trx: Knex.Transaction,
+  { populationId }: { populationId: number },
+): Promise<number> {
+  const row = await trx("populations").where({ supersedes_id: populationId }).count({ n: "*" }).first();
+  return Number(row?.n ?? 0);
+}
+
+export async function deletePopulationById(trx: Knex.Transaction, { populationId }: { populationId: number }) {
+  await trx("populations").where({ id: populationId }).delete();
+}

@@ -1,6 +1,8 @@
 import "server-only";
 import type { Knex } from "knex";
-import { getBulkLoadDb, withLoadStream } from "@/db/knex-bulk-load";
+import { getBulkLoadDb } from "@/db/knex-bulk-load";
+import { insertPopulation, supersedePopulationById, updatePopulationById } from "@/lib/data/populations";
+import { listLoadWarnings, loadItemsByPopulationId } from "@/lib/data/population-items";
 import { recordAudit } from "@/lib/data/audit-log";
 import {
   completeLeasedLoad,
@@ -9,14 +11,7 @@ import {
   renewLoadLease,
   type UploadRecord,
 } from "@/lib/data/population-uploads";
-import {
-  ImportError,
-  LOAD_DATA_COLUMNS,
-  LOAD_DATA_FORMAT_CLAUSE,
-  PopulationImport,
-  formatCents,
-  type PopulationSummary,
-} from "@/lib/imports";
+import { ImportError, PopulationImport, formatCents, type PopulationSummary } from "@/lib/imports";
 import { putObjectFromFile } from "@/lib/storage/objects";
 import { AppError, conflict } from "@/lib/errors";
 import type { LoadPopulation } from "@/lib/validation/population";
@@ -132,17 +127,17 @@ async function loadInTransaction(
 ) {
   const { upload, actorId, input, run } = a;
   const objectKey = `engagements/${upload.engagementId}/populations/${upload.sha256}-${upload.id}.${upload.inspection.kind}`;
-  const [populationId] = await trx("populations").insert({
-    engagement_id: upload.engagementId,
-    upload_id: upload.id,
+  const populationId = await insertPopulation(trx, {
+    engagementId: upload.engagementId,
+    uploadId: upload.id,
     name: input.name,
-    source_file_name: upload.fileName,
-    source_size_bytes: upload.sizeBytes,
-    source_sha256: upload.sha256,
-    source_object_key: objectKey,
-    mapping_json: JSON.stringify(input.mapping),
-    created_by: actorId,
-    supersedes_id: input.supersedesId ?? null,
+    sourceFileName: upload.fileName,
+    sourceSizeBytes: upload.sizeBytes,
+    sourceSha256: upload.sha256,
+    sourceObjectKey: objectKey,
+    mapping: input.mapping,
+    createdBy: actorId,
+    supersedesId: input.supersedesId ?? null,
   });
 
   const stream: { error?: Error } = {}; // the stream's own error says what was wrong with the file
@@ -151,10 +146,9 @@ async function loadInTransaction(
     s.on("error", (e) => (stream.error = e));
     return s;
   };
-  const sql = `LOAD DATA LOCAL INFILE 'upload' INTO TABLE population_items ${LOAD_DATA_FORMAT_CLAUSE} (${LOAD_DATA_COLUMNS.map((c) => `\`${c}\``).join(", ")}) SET population_id = ?`;
   let loaded: { affectedRows: number; warningStatus: number };
   try {
-    [loaded] = await withLoadStream(openStream, () => trx.raw(sql, [populationId]));
+    loaded = await loadItemsByPopulationId(trx, { populationId, openStream });
   } catch (err) {
     if (stream.error) throw stream.error;
     throw err;
@@ -163,8 +157,7 @@ async function loadInTransaction(
   const summary = run.summary();
   if (summary.problemCount > 0) throw new RejectedRows(summary);
   if (loaded.warningStatus > 0) {
-    const [warnings] = await trx.raw("SHOW WARNINGS LIMIT 5");
-    console.error("[sondage] LOAD DATA warnings", warnings);
+    console.error("[sondage] LOAD DATA warnings", await listLoadWarnings(trx));
     throw new AppError(
       422,
       "load_warnings",
@@ -179,9 +172,9 @@ async function loadInTransaction(
       `Loaded ${loaded.affectedRows} rows but validated ${t.rowCount}; nothing was stored.`,
     );
 
-  await trx("populations")
-    .where({ id: populationId })
-    .update({
+  await updatePopulationById(trx, {
+    populationId,
+    patch: {
       row_count: t.rowCount,
       total: formatCents(t.totalCents),
       positive_count: t.positive.count,
@@ -190,7 +183,8 @@ async function loadInTransaction(
       negative_count: t.negative.count,
       negative_total: formatCents(t.negative.totalCents),
       status: "unreconciled",
-    });
+    },
+  });
   if (input.supersedesId)
     await supersede(trx, {
       engagementId: upload.engagementId,
@@ -229,11 +223,8 @@ async function supersede(
   trx: Knex.Transaction,
   { engagementId, oldId, newId, actorId }: { engagementId: number; oldId: number; newId: number; actorId: number },
 ) {
-  const updated = await trx("populations")
-    .where({ id: oldId, engagement_id: engagementId })
-    .whereIn("status", ["unreconciled", "reconciled"])
-    .update({ status: "superseded" });
-  if (!updated) throw conflict("The population to replace does not exist on this engagement or is already superseded.");
+  if (!(await supersedePopulationById(trx, { engagementId, populationId: oldId })))
+    throw conflict("The population to replace does not exist on this engagement or is already superseded.");
   await recordAudit(trx, {
     actorUserId: actorId,
     engagementId,

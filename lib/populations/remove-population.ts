@@ -2,34 +2,25 @@ import "server-only";
 import type { Knex } from "knex";
 import { recordAudit } from "@/lib/data/audit-log";
 import { AppError, conflict, notFound } from "@/lib/errors";
+import {
+  countReplacementsByPopulationId,
+  deletePopulationById,
+  lockLoadedPopulationById,
+  updatePopulationById,
+} from "@/lib/data/populations";
+import { deleteItemsByPopulationId } from "@/lib/data/population-items";
+import { listSampleNamesByPopulationId } from "@/lib/data/samples";
 
 async function usesOf(trx: Knex.Transaction, populationId: number) {
   const [samples, replacements] = await Promise.all([
-    trx("samples").where({ population_id: populationId }).select<{ name: string }[]>("name"),
-    trx("populations").where({ supersedes_id: populationId }).count<{ n: number | string }[]>({ n: "*" }),
+    listSampleNamesByPopulationId(trx, { populationId }),
+    countReplacementsByPopulationId(trx, { populationId }),
   ]);
-  return { samples: samples.map((s) => s.name), replaced: Number(replacements[0]?.n ?? 0) > 0 };
+  return { samples, replaced: replacements > 0 };
 }
 
-interface PopulationRow {
-  name: string;
-  row_count: number | string;
-  total: string | number;
-  source_file_name: string;
-  source_sha256: string;
-  archived_at: Date | string | null;
-}
-
-async function lockPopulation(
-  trx: Knex.Transaction,
-  engagementId: number,
-  populationId: number,
-): Promise<PopulationRow> {
-  const row = await trx("populations")
-    .where({ id: populationId, engagement_id: engagementId })
-    .whereNot("status", "loading")
-    .forUpdate()
-    .first<PopulationRow | undefined>("name", "row_count", "total", "source_file_name", "source_sha256", "archived_at");
+async function lockPopulation(trx: Knex.Transaction, engagementId: number, populationId: number) {
+  const row = await lockLoadedPopulationById(trx, { engagementId, populationId });
   if (!row) throw notFound("No such population");
   return row;
 }
@@ -55,8 +46,8 @@ export async function deleteUnusedPopulation(
     }
     if (uses.replaced)
       throw conflict(`"${row.name}" was replaced by a corrected file and stays on record: archive it instead.`);
-    await trx("population_items").where({ population_id: populationId }).delete();
-    await trx("populations").where({ id: populationId }).delete();
+    await deleteItemsByPopulationId(trx, { populationId });
+    await deletePopulationById(trx, { populationId });
     await recordAudit(trx, {
       actorUserId: actorId,
       engagementId,
@@ -87,11 +78,10 @@ export async function setPopulationArchived(
   await db.transaction(async (trx) => {
     const row = await lockPopulation(trx, engagementId, populationId);
     if (Boolean(row.archived_at) === archived) return;
-    await trx("populations")
-      .where({ id: populationId })
-      .update(
-        archived ? { archived_at: trx.fn.now(3), archived_by: actorId } : { archived_at: null, archived_by: null },
-      );
+    await updatePopulationById(trx, {
+      populationId,
+      patch: archived ? { archived_at: trx.fn.now(3), archived_by: actorId } : { archived_at: null, archived_by: null },
+    });
     await recordAudit(trx, {
       actorUserId: actorId,
       engagementId,
