@@ -1,12 +1,18 @@
 import "server-only";
 import type { Knex } from "knex";
-import type { PlanSample, SampleParams } from "@/lib/validation/sample";
+import { SampleParamsSchema, type PlanSample, type SampleParams } from "@/lib/validation/sample";
 import type { SamplePlan } from "@/lib/samples/plan";
 import type { SelectionInputs } from "@/lib/samples/select";
 import { recordAudit } from "./audit-log";
 import { beginSampleWrite } from "@/lib/samples/guard";
 import { conflict, notFound } from "@/lib/errors";
-import { withMethodologyDefaults, type MethodologySettings } from "@/lib/validation/methodology";
+import {
+  MethodologySettingsSchema,
+  withMethodologyDefaults,
+  type MethodologySettings,
+} from "@/lib/validation/methodology";
+import { StoredSamplePlanSchema, StoredSelectionInputsSchema } from "@/lib/samples/stored-plan";
+import { parseJsonColumn } from "./json-column";
 import { getMethodologyByFirmId, type MethodologyVersion } from "./firm-methodology";
 import { mustExist } from "./must-exist";
 import { CLEARED_CONCLUSION, parseAuditorResponses } from "./auditor-conclusions";
@@ -55,7 +61,10 @@ export interface DrawRecord {
   reperformMatches: boolean | null;
 }
 
-const json = <T>(v: unknown): T => (typeof v === "string" ? JSON.parse(v) : v) as T;
+/** A stored settings object: all of today's fields optional (older plans lack the later ones; withMethodologyDefaults fills them). */
+const StoredMethodologySchema = MethodologySettingsSchema.partial().extend({
+  nonstatistical: MethodologySettingsSchema.shape.nonstatistical.partial().optional(),
+});
 const iso = (v: unknown) => (v ? new Date(v as string).toISOString() : null);
 
 function toSample(r: Record<string, unknown>): SampleRecord {
@@ -69,14 +78,18 @@ function toSample(r: Record<string, unknown>): SampleRecord {
     direction: r.direction as SampleRecord["direction"],
     method: r.method as SampleRecord["method"],
     estimator: (r.estimator as string | null) ?? null,
-    params: json<SampleParams>(r.params_json),
-    plan: json<SamplePlan>(r.plan_json),
+    params: parseJsonColumn(SampleParamsSchema, r.params_json, "samples.params_json", Number(r.id)),
+    plan: parseJsonColumn(StoredSamplePlanSchema, r.plan_json, "samples.plan_json", Number(r.id)),
     computedSize: Number(r.computed_size),
     chosenSize: Number(r.chosen_size),
     sizeReason: (r.size_reason as string | null) ?? null,
     status: r.status as SampleRecord["status"],
     planVersion: Number(r.plan_version),
-    methodology: withMethodologyDefaults(r.methodology_json ? json<unknown>(r.methodology_json) : null),
+    methodology: withMethodologyDefaults(
+      r.methodology_json
+        ? parseJsonColumn(StoredMethodologySchema, r.methodology_json, "samples.methodology_json", Number(r.id))
+        : null,
+    ),
     methodologyVersion:
       r.methodology_version === null || r.methodology_version === undefined ? null : Number(r.methodology_version),
     createdAt: iso(r.created_at)!,
@@ -93,7 +106,7 @@ function toDraw(r: Record<string, unknown>): DrawRecord {
     algorithm: String(r.algorithm),
     algorithmVersion: String(r.algorithm_version),
     populationSha256: String(r.population_sha256),
-    inputs: json<SelectionInputs>(r.inputs_json),
+    inputs: parseJsonColumn(StoredSelectionInputsSchema, r.inputs_json, "sample_draws.inputs_json", Number(r.id)),
     selectionSha256: String(r.selection_sha256),
     drawnAt: iso(r.drawn_at)!,
     drawnByName: String(r.drawn_by_name ?? ""),
@@ -150,7 +163,7 @@ export async function createSample(
       direction: input.direction,
       method: input.params.method,
       estimator: input.params.estimator ?? null,
-      params_json: JSON.stringify(input.params),
+      params_json: JSON.stringify(SampleParamsSchema.parse(input.params)),
       plan_json: JSON.stringify(plan),
       computed_size: plan.computedSize,
       chosen_size: plan.chosenSize,
@@ -204,7 +217,7 @@ export async function updateSamplePlan(
         direction: input.direction,
         method: input.params.method,
         estimator: input.params.estimator ?? null,
-        params_json: JSON.stringify(input.params),
+        params_json: JSON.stringify(SampleParamsSchema.parse(input.params)),
         plan_json: JSON.stringify(plan),
         computed_size: plan.computedSize,
         chosen_size: plan.chosenSize,
@@ -220,7 +233,10 @@ export async function updateSamplePlan(
       entity: "sample",
       entityId: sampleId,
       action: "replan",
-      before: { params: json(before.params_json), chosenSize: before.chosen_size },
+      before: {
+        params: parseJsonColumn(SampleParamsSchema, before.params_json, "samples.params_json", sampleId),
+        chosenSize: before.chosen_size,
+      },
       after: { params: input.params, chosenSize: plan.chosenSize },
     });
     return getSampleById(trx, { engagementId, sampleId });
