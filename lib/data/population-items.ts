@@ -3,6 +3,8 @@ import type { Knex } from "knex";
 import type { ItemsQuery } from "@/lib/validation/population";
 import { containsPattern } from "./like";
 import type { PopulationItemsRow } from "./tables";
+import { parseJsonColumn } from "./json-column";
+import { StoredExtraSchema } from "./upload-schemas";
 import { seekFromQuery, seekPage } from "./keyset";
 import type { KeysetPage } from "@/lib/validation/keyset";
 import type { Readable } from "node:stream";
@@ -24,8 +26,7 @@ const toItem = (r: Record<string, unknown> | PopulationItemsRow): PopulationItem
   description: (r.description as string | null) ?? null,
   bookValue: String(r.book_value),
   itemDate: (r.item_date as string | null) ?? null,
-  extra:
-    r.extra === null ? null : ((typeof r.extra === "string" ? JSON.parse(r.extra) : r.extra) as Record<string, string>),
+  extra: parseJsonColumn(StoredExtraSchema, r.extra ?? null, "population_items.extra", Number(r.row_number)),
 });
 
 const SORT_COLUMNS = { row: "row_number", ref: "item_ref", book: "book_value" } as const;

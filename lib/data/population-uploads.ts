@@ -4,6 +4,8 @@ import type { RowProblem, UploadInspection } from "@/lib/imports";
 import { recordAudit } from "./audit-log";
 import { conflict, isDatabaseUnavailable, notFound } from "@/lib/errors";
 import type { PopulationUploadsRow } from "./tables";
+import { parseJsonColumn } from "./json-column";
+import { StoredInspectionSchema, StoredProblemsSchema } from "./upload-schemas";
 
 export interface UploadRecord {
   id: number;
@@ -24,8 +26,6 @@ export interface UploadRecord {
   createdAt: string;
 }
 
-const parse = (v: unknown) => (typeof v === "string" ? JSON.parse(v) : v);
-
 function toUpload(r: PopulationUploadsRow): UploadRecord {
   return {
     id: Number(r.id),
@@ -35,12 +35,12 @@ function toUpload(r: PopulationUploadsRow): UploadRecord {
     sizeBytes: Number(r.size_bytes),
     sha256: String(r.sha256),
     tempPath: String(r.temp_path),
-    inspection: parse(r.inspection_json) as UploadInspection,
+    inspection: parseJsonColumn(StoredInspectionSchema, r.inspection_json, "population_uploads.inspection_json", r.id),
     objectKey: r.object_key ?? null,
     failureMessage: r.failure_message ?? null,
     status: r.status,
     problemCount: Number(r.problem_count),
-    problems: (parse(r.problems_json) as RowProblem[] | null) ?? [],
+    problems: parseJsonColumn(StoredProblemsSchema, r.problems_json, "population_uploads.problems_json", r.id) ?? [],
     createdAt: r.created_at.toISOString(),
   };
 }
