@@ -1,6 +1,8 @@
 import "server-only";
 import type { Knex } from "knex";
 import { recordAudit } from "./audit-log";
+import { parseJsonColumn } from "./json-column";
+import { StoredAdvisorRequestSchema, StoredAdvisorResultSchema } from "@/lib/advisor/stored-run";
 import { beginSampleWrite } from "@/lib/samples/guard";
 import { conflict, fieldError, notFound } from "@/lib/errors";
 import { ADVISED_ESTIMATOR_LABELS, type AdvisedEstimator } from "@/lib/sampling/advise";
@@ -38,8 +40,10 @@ export interface AdvisorRunRecord {
   finishedAt: string | null;
 }
 
-const json = <T>(v: unknown): T | null =>
-  v === null || v === undefined ? null : ((typeof v === "string" ? JSON.parse(v) : v) as T);
+const parseResult = (v: unknown, runId: number) =>
+  v === null || v === undefined
+    ? null
+    : parseJsonColumn(StoredAdvisorResultSchema, v, "advisor_runs.result_json", runId);
 const iso = (v: unknown) => (v ? new Date(v as string).toISOString() : null);
 
 function toRun(r: Record<string, unknown>): AdvisorRunRecord {
@@ -49,8 +53,8 @@ function toRun(r: Record<string, unknown>): AdvisorRunRecord {
     populationId: Number(r.population_id),
     planVersion: Number(r.plan_version),
     status: r.status as AdvisorRunRecord["status"],
-    request: json<AdvisorRequest>(r.request_json)!,
-    result: json<AdvisorResult>(r.result_json),
+    request: parseJsonColumn(StoredAdvisorRequestSchema, r.request_json, "advisor_runs.request_json", Number(r.id)),
+    result: parseResult(r.result_json, Number(r.id)),
     error: (r.error as string | null) ?? null,
     durationMs: r.duration_ms === null ? null : Number(r.duration_ms),
     createdAt: iso(r.created_at)!,
@@ -266,7 +270,7 @@ export async function adoptAdvisorRun(
     const run = await trx("advisor_runs").where({ id: runId, sample_id: sampleId }).first("status", "result_json");
     if (!run) throw notFound("No such advisor run");
     if (run.status !== "done") throw conflict("Only a finished advisor run can be the rationale for the method.");
-    const result = json<AdvisorResult>(run.result_json)!;
+    const result = parseJsonColumn(StoredAdvisorResultSchema, run.result_json, "advisor_runs.result_json", runId);
     const planned = planEstimatorOf({ method: String(sample.method), estimator: sample.estimator ?? null });
     const label = planned ? ADVISED_ESTIMATOR_LABELS[planned].toLowerCase() : "the plan's estimator";
     if (!planned || !result.cells.some((c) => c.estimator === planned)) {
