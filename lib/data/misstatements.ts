@@ -1,7 +1,8 @@
 import "server-only";
 import type { Knex } from "knex";
 import type { EntryInput, CorrectionInput } from "@/lib/misstatements/rows";
-import type { SampleContribution } from "@/lib/misstatements/contribution";
+import { StoredContributionSchema, type SampleContribution } from "@/lib/misstatements/contribution";
+import { parseJsonColumn } from "./json-column";
 import { notFound } from "@/lib/errors";
 import type { Entry } from "@/lib/validation/misstatements";
 import type { MisstatementCorrectionsRow, MisstatementEntriesRow } from "./tables";
@@ -152,7 +153,14 @@ export async function listSampleLocksByEngagementId(db: Knex, { engagementId }: 
   return rows.map((r) => ({
     sampleId: Number(r.id),
     lockedAt: iso(r.locked_at),
-    frozen: r.contribution_json ? (json(r.contribution_json) as SampleContribution) : null,
+    frozen: r.contribution_json
+      ? parseJsonColumn(
+          StoredContributionSchema,
+          r.contribution_json,
+          "misstatement_sample_snapshots.contribution_json",
+          Number(r.id),
+        )
+      : null,
   }));
 }
 

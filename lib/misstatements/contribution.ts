@@ -1,3 +1,5 @@
+import { z } from "zod";
+
 /** What one sample carries to the summary of misstatements: plain data, stored as it is when the sample is locked. */
 export interface SampleContribution {
   sampleId: number;
@@ -25,3 +27,25 @@ export interface SampleContribution {
   /** The auditor's response "conclude the amount is misstated" (issue 13), when recorded; absent on rows frozen before it existed. */
   concluded?: { amount: string; by: string; at: string } | null;
 }
+
+/** samples' frozen contributions as stored (misstatement_sample_snapshots.contribution_json), checked when read back. */
+export const StoredContributionSchema = z.looseObject({
+  sampleId: z.number(),
+  name: z.string(),
+  account: z.string(),
+  assertion: z.string(),
+  direction: z.string(),
+  method: z.string(),
+  state: z.enum(["contributes", "no-results", "not-monetary"]),
+  reason: z.string().nullable(),
+  factual: z.string(),
+  projectedTotal: z.string(),
+  allowance: z.string().nullable(),
+  allowanceNote: z.string().nullable(),
+  upperLimit: z.string().nullable(),
+  confidence: z.number().nullable(),
+  basis: z.string(),
+  complete: z.boolean(),
+  lockedAt: z.string().nullable(),
+  concluded: z.object({ amount: z.string(), by: z.string(), at: z.string() }).nullable().optional(),
+}) satisfies z.ZodType<SampleContribution>;
