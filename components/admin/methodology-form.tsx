@@ -17,6 +17,7 @@ import { Field, Input, Select } from "@/components/ui/field";
 import { Button } from "@/components/ui/button";
 import { Alert } from "@/components/ui/alert";
 import { Card } from "@/components/ui/card";
+import { Table, THead, Th, Td } from "@/components/ui/table";
 import { apiFetch, ApiError } from "@/components/ui/api";
 import { formatDateTime } from "@/lib/format/date";
 
@@ -95,34 +96,32 @@ export function MethodologyForm({ initial }: { initial: MethodologyVersion }) {
           <strong>The firm must confirm every value against its own methodology</strong> before relying on it.
         </div>
         <div className="overflow-x-auto">
-          <table className="text-sm" aria-label="Assurance-factor table">
+          <Table label="Assurance-factor table">
             <caption className="mb-2 text-left text-xs text-ink-soft">
               Rows: assessed risk of material misstatement. Columns: risk that other substantive procedures fail to
               detect a material misstatement. Each cell: assurance factor, and the confidence it stands for in
               statistical plans (a fraction, 0.9502 = 95.02 %).
             </caption>
-            <thead>
+            <THead>
               <tr>
-                <th scope="col" className="p-2 text-left font-medium text-ink-soft">
-                  RMM \ other procedures
-                </th>
+                <Th className="p-2 font-medium">RMM \ other procedures</Th>
                 {RISK_LEVELS.map((c) => (
-                  <th key={c} scope="col" className="p-2 text-left font-medium">
+                  <Th key={c} className="p-2 font-medium">
                     {RISK_LEVEL_LABELS[c]}
-                  </th>
+                  </Th>
                 ))}
               </tr>
-            </thead>
+            </THead>
             <tbody>
               {RISK_LEVELS.map((r, ri) => (
                 <tr key={r} className="border-t border-ink-line/60">
-                  <th scope="row" className="p-2 text-left font-medium">
+                  <Th scope="row" className="p-2 font-medium">
                     {RISK_LEVEL_LABELS[r]}
-                  </th>
+                  </Th>
                   {RISK_LEVELS.map((c, ci) => {
                     const cellErr = errors.assuranceFactors?.[ri]?.[ci];
                     return (
-                      <td key={c} className="p-2 align-top">
+                      <Td key={c} className="p-2 align-top">
                         <div className="flex flex-col gap-1">
                           <input
                             aria-label={`Factor, RMM ${RISK_LEVEL_LABELS[r]}, other procedures ${RISK_LEVEL_LABELS[c]}`}
@@ -148,13 +147,13 @@ export function MethodologyForm({ initial }: { initial: MethodologyVersion }) {
                             </span>
                           )}
                         </div>
-                      </td>
+                      </Td>
                     );
                   })}
                 </tr>
               ))}
             </tbody>
-          </table>
+          </Table>
         </div>
         <div className="mt-3 flex gap-3">
           <Button type="button" variant="secondary" onClick={deriveConfidences}>
@@ -199,21 +198,17 @@ export function MethodologyForm({ initial }: { initial: MethodologyVersion }) {
             <Input type="number" {...register("hypergeometricBelow", num)} />
           </Field>
         </div>
-        <table className="mt-2 text-sm" aria-label="Control frequency table">
-          <thead>
+        <Table label="Control frequency table" className="mt-2">
+          <THead>
             <tr>
-              <th scope="col" className="p-2 text-left font-medium text-ink-soft">
-                Control frequency
-              </th>
-              <th scope="col" className="p-2 text-left font-medium text-ink-soft">
-                Minimum sample size
-              </th>
+              <Th className="p-2 font-medium">Control frequency</Th>
+              <Th className="p-2 font-medium">Minimum sample size</Th>
             </tr>
-          </thead>
+          </THead>
           <tbody>
             {getValues("controlFrequencies").map((row, i) => (
               <tr key={`${row.frequency}-${i}`} className="border-t border-ink-line/60">
-                <td className="p-2">
+                <Td className="p-2">
                   <select
                     aria-label={`Frequency ${i + 1}`}
                     className={cellInput + " w-48"}
@@ -225,19 +220,19 @@ export function MethodologyForm({ initial }: { initial: MethodologyVersion }) {
                       </option>
                     ))}
                   </select>
-                </td>
-                <td className="p-2">
+                </Td>
+                <Td className="p-2">
                   <input
                     aria-label={`Minimum sample size, ${row.frequency}`}
                     type="number"
                     className={cellInput}
                     {...register(`controlFrequencies.${i}.minimumSampleSize`, num)}
                   />
-                </td>
+                </Td>
               </tr>
             ))}
           </tbody>
-        </table>
+        </Table>
       </Card>
       <Card title="Nonstatistical samples">
         <div className="grid gap-x-4 sm:grid-cols-2">

@@ -1,3 +1,4 @@
+import { Table, Th, Td } from "@/components/ui/table";
 const ROLE_TAGS: Record<string, string> = {
   ref: "Reference",
   book: "Book value",
@@ -20,23 +21,22 @@ export function PreviewTable({
 }) {
   return (
     <div className="max-h-[28rem] overflow-auto rounded-card border border-ink-line bg-paper-raised">
-      <table className="w-full text-xs" aria-label="File preview">
+      <Table label="File preview" className="text-xs">
         <thead className="sticky top-0 bg-paper-sunk text-left text-ink-soft">
           <tr>
-            <th scope="col" className="px-3 py-2 text-right font-semibold">
+            <Th numeric className="px-3 py-2">
               Row
-            </th>
+            </Th>
             {headers.map((h) => {
               const role = roles[h];
               return (
-                <th
+                <Th
                   key={h}
-                  scope="col"
-                  className={`whitespace-nowrap px-3 py-2 font-semibold ${role && role !== "extra" ? "bg-ledger-50 text-ledger-700" : role ? "bg-amber-50 text-amber-700" : ""}`}
+                  className={`whitespace-nowrap px-3 py-2 ${role && role !== "extra" ? "bg-ledger-50 text-ledger-700" : role ? "bg-amber-50 text-amber-700" : ""}`}
                 >
                   {role && <span className="block text-[10px] uppercase tracking-wider">{ROLE_TAGS[role]}</span>}
                   {h}
-                </th>
+                </Th>
               );
             })}
           </tr>
@@ -44,23 +44,26 @@ export function PreviewTable({
         <tbody>
           {rows.map((cells, i) => (
             <tr key={rowNumbers[i] ?? i} className="border-t border-ink-line/60">
-              <td className="figures px-3 py-1.5 text-right text-ink-faint">{rowNumbers[i]}</td>
+              <Td numeric className="px-3 py-1.5 text-ink-faint">
+                {rowNumbers[i]}
+              </Td>
               {cells.map((cell, j) => {
                 const role = roles[headers[j]];
                 return (
-                  <td
+                  <Td
                     key={j}
-                    className={`max-w-56 truncate whitespace-nowrap px-3 py-1.5 ${role === "book" ? "figures text-right" : ""} ${role && role !== "extra" ? "bg-ledger-50/50" : ""}`}
+                    numeric={role === "book"}
+                    className={`max-w-56 truncate whitespace-nowrap px-3 py-1.5 ${role && role !== "extra" ? "bg-ledger-50/50" : ""}`}
                     title={cell}
                   >
                     {cell}
-                  </td>
+                  </Td>
                 );
               })}
             </tr>
           ))}
         </tbody>
-      </table>
+      </Table>
     </div>
   );
 }

@@ -6,6 +6,7 @@ import { ItemsGrid, type GridPick } from "@/components/populations/items-grid";
 import { Alert } from "@/components/ui/alert";
 import { Amount } from "@/components/ui/amount";
 import { Button } from "@/components/ui/button";
+import { Table, THead, Th, Td } from "@/components/ui/table";
 import { apiFetch } from "@/components/ui/api";
 import { formatDateTime } from "@/lib/format/date";
 import { useApi } from "@/components/ui/use-api";
@@ -86,28 +87,36 @@ export function HaphazardPicker({
       </p>
       {failure && <Alert>{failure}</Alert>}
       {picks.length > 0 && (
-        <table className="w-full text-sm" aria-label="Haphazard picks">
-          <thead>
-            <tr className="text-left text-ink-soft">
-              <th className="py-1 font-medium">Item</th>
-              <th className="py-1 text-right font-medium">Row</th>
-              <th className="py-1 text-right font-medium">Book value</th>
-              <th className="py-1 pl-4 font-medium">Picked by</th>
-              <th className="py-1 font-medium">When</th>
-              <th />
+        <Table label="Haphazard picks">
+          <THead>
+            <tr>
+              <Th className="py-1">Item</Th>
+              <Th numeric className="py-1">
+                Row
+              </Th>
+              <Th numeric className="py-1">
+                Book value
+              </Th>
+              <Th className="py-1 pl-4">Picked by</Th>
+              <Th className="py-1">When</Th>
+              <Th className="py-1">
+                <span className="sr-only">Action</span>
+              </Th>
             </tr>
-          </thead>
+          </THead>
           <tbody>
             {picks.map((p) => (
               <tr key={p.id} className="border-t border-ink-line/60">
-                <td className="py-1.5 font-medium">{p.itemRef}</td>
-                <td className="figures py-1.5 text-right">{p.populationRowNumber}</td>
-                <td className="py-1.5 text-right">
+                <Td className="py-1.5 font-medium">{p.itemRef}</Td>
+                <Td numeric className="py-1.5">
+                  {p.populationRowNumber}
+                </Td>
+                <Td numeric className="py-1.5">
                   <Amount value={p.bookValue} />
-                </td>
-                <td className="py-1.5 pl-4">{p.pickedByName}</td>
-                <td className="figures py-1.5">{formatDateTime(p.pickedAt)}</td>
-                <td className="py-1.5 text-right">
+                </Td>
+                <Td className="py-1.5 pl-4">{p.pickedByName}</Td>
+                <Td className="figures py-1.5">{formatDateTime(p.pickedAt)}</Td>
+                <Td className="py-1.5 text-right">
                   {mayPick && p.status === "not-started" && (
                     <Button
                       type="button"
@@ -119,11 +128,11 @@ export function HaphazardPicker({
                       Remove
                     </Button>
                   )}
-                </td>
+                </Td>
               </tr>
             ))}
           </tbody>
-        </table>
+        </Table>
       )}
       <ItemsGrid
         url={`/api/engagements/${engagementId}/populations/${populationId}/items`}
