@@ -4,7 +4,7 @@ import { flexRender, getCoreRowModel, useReactTable, type ColumnDef, type Sortin
 import type { PopulationItem } from "@/lib/data/population-items";
 import { Amount } from "@/components/ui/amount";
 import { Button } from "@/components/ui/button";
-import { apiFetch } from "@/components/ui/api";
+import { useApi } from "@/components/ui/use-api";
 import { useKeysetPaging } from "@/components/ui/use-keyset-paging";
 import { SortableHead, alignOf } from "@/components/ui/data-table";
 import { formatCount } from "@/lib/format/number";
@@ -111,9 +111,6 @@ export function ItemsGrid({ url, extraColumns, hasDescription, hasDate, pick }: 
   const { reset: resetPaging, query: pagingQuery } = paging;
   const [search, setSearch] = useState("");
   const [query, setQuery] = useState("");
-  const [page, setPage] = useState<Page | null>(null);
-  const [error, setError] = useState<string | null>(null);
-  const [busy, setBusy] = useState(true);
 
   useEffect(() => {
     const t = setTimeout(() => {
@@ -123,8 +120,7 @@ export function ItemsGrid({ url, extraColumns, hasDescription, hasDate, pick }: 
     return () => clearTimeout(t);
   }, [search, resetPaging]);
 
-  useEffect(() => {
-    let live = true;
+  const pageUrl = useMemo(() => {
     const sort = sorting[0];
     const params = new URLSearchParams({
       ...pagingQuery,
@@ -132,26 +128,13 @@ export function ItemsGrid({ url, extraColumns, hasDescription, hasDate, pick }: 
       dir: sort?.desc ? "desc" : "asc",
     });
     if (query) params.set("q", query);
-    setBusy(true);
-    apiFetch<Page>(`${url}?${params}`).then(
-      (r) => {
-        if (live) {
-          setPage(r);
-          setError(null);
-          setBusy(false);
-        }
-      },
-      (e: Error) => {
-        if (live) {
-          setError(e.message);
-          setBusy(false);
-        }
-      },
-    );
-    return () => {
-      live = false;
-    };
+    return `${url}?${params}`;
   }, [url, sorting, pagingQuery, query]);
+  // The page in hand stays shown (dimmed) while the next one loads; a late answer for a page no longer asked for is never shown.
+  const read = useApi<Page>(pageUrl, { keepPreviousData: true });
+  const page = read.data ?? null;
+  const error = read.error?.message ?? null;
+  const busy = read.isValidating;
 
   const total = page?.total ?? 0;
   const table = useReactTable({

@@ -30,16 +30,21 @@ export interface ApiRead<T> {
  * older refetch — is never shown. With `initial` (the server page's data) nothing is fetched on
  * mount (unless an earlier visit left an answer in the cache, which may be older than the page:
  * then it is refetched at once); a new `revision` (a counter a parent bumps when something changed elsewhere) refetches,
- * keeping the data shown until the answer lands. No refetch on focus or reconnect: screens
- * refetch after their own writes.
+ * keeping the data shown until the answer lands. With `keepPreviousData` (a paged grid) the
+ * previous URL's answer stays shown while the next page loads. No refetch on focus or reconnect:
+ * screens refetch after their own writes.
  */
-export function useApi<T>(url: string | null, options: { initial?: T; revision?: number } = {}): ApiRead<T> {
-  const { initial, revision } = options;
+export function useApi<T>(
+  url: string | null,
+  options: { initial?: T; revision?: number; keepPreviousData?: boolean } = {},
+): ApiRead<T> {
+  const { initial, revision, keepPreviousData = false } = options;
   const { cache } = useSWRConfig();
   const [cachedAtMount] = useState(() => url !== null && cache.get(url)?.data !== undefined);
   const { data, error, isLoading, isValidating, mutate } = useSWR<T, Error>(url, apiFetcher<T>, {
     fallbackData: initial,
     revalidateOnMount: initial === undefined || cachedAtMount,
+    keepPreviousData,
     ...API_READ_OPTIONS,
   });
   const seenRevision = useRef(revision);
