@@ -52,14 +52,7 @@ export default tseslint.config(
     // for Knex (`knex/types/tables`) and JSON columns parsed with their schemas (issue 18 item 3).
     // The modules that read rows straight from Knex are listed here; take a folder off the list when its
     // queries are typed. Everything else in the project is checked with the unsafe-`any` rules on.
-    files: [
-      "lib/data/**",
-      "lib/review/**",
-      "lib/requests/**",
-      "lib/mail/**",
-      "app/api/**",
-      "db/**",
-    ],
+    files: ["lib/data/**", "lib/review/**", "lib/requests/**", "lib/mail/**", "app/api/**", "db/**"],
     rules: { ...unsafeAnyRules, "@typescript-eslint/no-base-to-string": "off" },
   },
   {
