@@ -1,7 +1,6 @@
 import "server-only";
 import type { z } from "zod";
-import { getUserById } from "@/lib/data/users";
-import { getMembershipRole } from "@/lib/data/members";
+import { getUserWithMembershipRole } from "@/lib/data/users";
 import { forbidden, unauthorised } from "@/lib/errors";
 import { decideEngagementAccess, parseIdParam } from "./access";
 import { getSessionUserId } from "./session-user";
@@ -24,10 +23,7 @@ export function engagementRole(leastRole: EngagementRole): AccessRule<Engagement
     const userId = await getSessionUserId();
     if (userId === null) throw unauthorised();
     const engagementId = parseIdParam(request.params.engagementId, "engagement");
-    const [user, membershipRole] = await Promise.all([
-      getUserById(request.db, { userId }),
-      getMembershipRole(request.db, { engagementId, userId }),
-    ]);
+    const { user, membershipRole } = await getUserWithMembershipRole(request.db, { userId, engagementId });
     const role = decideEngagementAccess({ userId, userActive: Boolean(user?.active), membershipRole }, leastRole);
     return { ...request, user: user!, engagementId, role };
   };

@@ -35,11 +35,11 @@ const SORT_COLUMNS = { row: "row_number", ref: "item_ref", book: "book_value" } 
  * One page of a population's items, sorted and optionally searched (reference or description),
  * paged by key: the sort column plus the row number, through the (population_id, column) index,
  * so a deep page costs what the first does. Unsearched, the total is the population's row count
- * stored at load (no COUNT over a million rows).
+ * stored at load (no COUNT over a million rows; given `rowCount` from the population already read, no query at all).
  */
 export async function listItemsByPopulationId(
   db: Knex,
-  { populationId, query }: { populationId: number; query: ItemsQuery },
+  { populationId, rowCount, query }: { populationId: number; rowCount?: number; query: ItemsQuery },
 ): Promise<KeysetPage<PopulationItem>> {
   const base = db("population_items").where({ population_id: populationId });
   if (query.q) {
@@ -50,7 +50,7 @@ export async function listItemsByPopulationId(
   }
   const total = query.q
     ? Number((await base.clone().count({ n: "*" }).first())?.n ?? 0)
-    : Number((await db("populations").where({ id: populationId }).first("row_count"))?.row_count ?? 0);
+    : (rowCount ?? Number((await db("populations").where({ id: populationId }).first("row_count"))?.row_count ?? 0));
   const column = SORT_COLUMNS[query.sort];
   const rows = base.clone().select("row_number", "item_ref", "description", "book_value", "item_date", "extra");
   const page = await seekPage<Record<string, unknown>>(

@@ -1,6 +1,6 @@
 import "server-only";
 import type { Knex } from "knex";
-import type { FirmRole, Grade } from "@/lib/auth/roles";
+import type { FirmRole, Grade, MembershipRole } from "@/lib/auth/roles";
 import type { CreateUser, UpdateUser } from "@/lib/validation/user";
 import { recordAudit } from "./audit-log";
 import { AppError, notFound } from "@/lib/errors";
@@ -39,6 +39,24 @@ export async function getUserById(db: Knex, { userId }: { userId: number }): Pro
     .where({ id: userId })
     .first(...columns);
   return row ? toUser(row) : null;
+}
+
+/**
+ * The user and their role on one engagement (null when not on its team), in one query: every
+ * engagement route reads both before anything else.
+ */
+export async function getUserWithMembershipRole(
+  db: Knex,
+  { userId, engagementId }: { userId: number; engagementId: number },
+): Promise<{ user: UserRecord | null; membershipRole: MembershipRole | null }> {
+  const row = await db("users as u")
+    .leftJoin("engagement_members as m", (j) => {
+      j.on("m.user_id", "=", "u.id").andOn("m.engagement_id", "=", db.raw("?", [engagementId]));
+    })
+    .where("u.id", userId)
+    .first(...columns.map((c) => `u.${c}`), "m.role as membership_role");
+  if (!row) return { user: null, membershipRole: null };
+  return { user: toUser(row), membershipRole: (row.membership_role as MembershipRole | null) ?? null };
 }
 
 /** The user and their hash, for sign-in only. */

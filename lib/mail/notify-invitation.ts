@@ -6,7 +6,7 @@ import { engagementUrl } from "./links";
 import { sendMail, type MailResult } from "./send";
 
 /**
- * Tells a person they were added to an engagement's team. Call it after `addMember` has committed;
+ * Tells a person they were added to an engagement's team. Call it inside `addMember`'s transaction;
  * like every notice it never throws, so a mail failure cannot fail the request.
  */
 export async function notifyEngagementInvitation(

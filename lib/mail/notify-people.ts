@@ -4,7 +4,7 @@ import { INVITATION_DAYS } from "@/lib/requests/invitations";
 import { invitationUrl } from "./links";
 import { sendMail, type MailResult } from "./send";
 
-/** A member of the firm gets the one-time link to choose a password; sent after the write has committed, never throws. */
+/** A member of the firm gets the one-time link to choose a password; give it the transaction that creates the link (never throws). */
 export async function notifyStaffInvitation(
   db: Knex,
   a: {

@@ -6,7 +6,7 @@ import type { RequestListRow } from "@/lib/requests/lists";
 import { appUrl, clientRequestUrl, invitationUrl } from "./links";
 import { sendMail, type MailResult } from "./send";
 
-// Every notice here is queued in the mail outbox after its write has committed and never throws (sendMail logs and reports).
+// Every notice here is queued in the mail outbox inside its write's transaction (the caller passes it) and never throws (sendMail logs and reports).
 
 async function engagementRef(db: Knex, engagementId: number) {
   const e = await getEngagementById(db, { engagementId });

@@ -4,7 +4,7 @@ import type { EmailTemplateData, EmailTemplateName, SampleEventData } from "@/te
 import { sampleUrl } from "./links";
 import { sendMail, type MailResult, type Recipient } from "./send";
 
-/** What the samples and review code hands over once its transaction has committed. */
+/** What the samples and review code hands over, with the transaction of its change. */
 export interface SampleNotice {
   recipients: Recipient[];
   /** Who acted; given an e-mail, they get no message about their own action. */

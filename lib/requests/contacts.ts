@@ -41,6 +41,14 @@ export async function listClientContactsByEngagementId(
   }));
 }
 
+/** The contact invited, and their one-time link's token when a new account was made. */
+export interface InvitedContact {
+  userId: number;
+  token: string | null;
+  name: string;
+  email: string;
+}
+
 /**
  * Invites a client contact to one engagement (a senior or above on it): a new person gets a user
  * of grade "client" with no usable password and a one-time link to choose one; a client user of
@@ -53,8 +61,16 @@ export async function inviteClientContact(
     firmId,
     actorId,
     input,
-  }: { engagementId: number; firmId: number; actorId: number; input: z.output<typeof InviteClientContactSchema> },
-) {
+    inTransaction,
+  }: {
+    engagementId: number;
+    firmId: number;
+    actorId: number;
+    input: z.output<typeof InviteClientContactSchema>;
+    /** Runs before the commit (the invitation is queued there, so it commits with the contact or not at all). */
+    inTransaction?: (trx: Knex.Transaction, invited: InvitedContact) => Promise<unknown>;
+  },
+): Promise<InvitedContact> {
   const unusable = await unusablePasswordHash();
   return db.transaction(async (trx) => {
     const existing = await trx("users")
@@ -112,6 +128,8 @@ export async function inviteClientContact(
       action: "add",
       after: { userId, role: "client" },
     });
-    return { userId, token, name: existing ? String(existing.name) : input.name, email: input.email };
+    const invited = { userId, token, name: existing ? String(existing.name) : input.name, email: input.email };
+    await inTransaction?.(trx, invited);
+    return invited;
   });
 }

@@ -77,53 +77,51 @@ async function findOverdue(db: Knex, today: string) {
     );
 }
 
-/** Marks each list reminded today (so a second run the same day sends nothing) and logs it, in one transaction. */
-async function claim(db: Knex, today: string): Promise<Claimed[]> {
-  return db.transaction(async (trx) => {
-    const byList = new Map<number, Claimed>();
-    for (const r of (await findOverdue(trx, today)) as OverdueRow[]) {
-      const list = byList.get(r.id) ?? {
-        id: r.id,
-        engagementId: r.engagement_id,
-        sampleId: r.sample_id,
-        title: r.title,
-        dueDate: r.due_date,
-        clientName: r.client_name,
-        engagementName: r.ename,
-        contact: { id: r.cid, name: r.cname, email: r.cemail },
-        senior: { id: r.sactive ? r.sid : 0, name: r.sname, email: r.semail },
-        itemRefs: [],
-      };
-      list.itemRefs.push(String(r.item_ref));
-      byList.set(r.id, list);
-    }
-    const claimed: Claimed[] = [];
-    for (const list of byList.values()) {
-      const won = await trx("request_lists")
-        .where({ id: list.id })
-        .where((w) => {
-          w.whereNull("last_reminded_on").orWhere("last_reminded_on", "<", today);
-        })
-        .update({ last_reminded_on: today });
-      if (!won) continue;
-      claimed.push(list);
-      await recordAudit(trx, {
-        actorUserId: null,
-        engagementId: list.engagementId,
-        sampleId: list.sampleId,
-        entity: "request_list",
-        entityId: list.id,
-        action: "overdue-reminder",
-        after: {
-          today,
-          dueDate: list.dueDate,
-          overdueItems: list.itemRefs,
-          to: [list.contact.email, ...(list.senior.id ? [list.senior.email] : [])],
-        },
-      });
-    }
-    return claimed;
-  });
+/** Marks each list reminded today (so a second run the same day sends nothing) and logs it, in the caller's transaction. */
+async function claim(trx: Knex.Transaction, today: string): Promise<Claimed[]> {
+  const byList = new Map<number, Claimed>();
+  for (const r of (await findOverdue(trx, today)) as OverdueRow[]) {
+    const list = byList.get(r.id) ?? {
+      id: r.id,
+      engagementId: r.engagement_id,
+      sampleId: r.sample_id,
+      title: r.title,
+      dueDate: r.due_date,
+      clientName: r.client_name,
+      engagementName: r.ename,
+      contact: { id: r.cid, name: r.cname, email: r.cemail },
+      senior: { id: r.sactive ? r.sid : 0, name: r.sname, email: r.semail },
+      itemRefs: [],
+    };
+    list.itemRefs.push(String(r.item_ref));
+    byList.set(r.id, list);
+  }
+  const claimed: Claimed[] = [];
+  for (const list of byList.values()) {
+    const won = await trx("request_lists")
+      .where({ id: list.id })
+      .where((w) => {
+        w.whereNull("last_reminded_on").orWhere("last_reminded_on", "<", today);
+      })
+      .update({ last_reminded_on: today });
+    if (!won) continue;
+    claimed.push(list);
+    await recordAudit(trx, {
+      actorUserId: null,
+      engagementId: list.engagementId,
+      sampleId: list.sampleId,
+      entity: "request_list",
+      entityId: list.id,
+      action: "overdue-reminder",
+      after: {
+        today,
+        dueDate: list.dueDate,
+        overdueItems: list.itemRefs,
+        to: [list.contact.email, ...(list.senior.id ? [list.senior.email] : [])],
+      },
+    });
+  }
+  return claimed;
 }
 
 function digestBy(lists: Claimed[], who: (l: Claimed) => Person, url: (l: Claimed) => string) {
@@ -152,27 +150,30 @@ export async function runRequestReminders(
   db: Knex,
   { today = utcDay() }: { today?: string } = {},
 ): Promise<{ lists: number; messages: MailResult[] }> {
-  const lists = await claim(db, today);
-  const sends = [
-    ...digestBy(
-      lists,
-      (l) => l.contact,
-      (l) => clientRequestUrl(l.id),
-    ).map((d) => ({ ...d, audience: "client" as const })),
-    ...digestBy(
-      lists,
-      (l) => l.senior,
-      (l) => teamRequestUrl(l.engagementId, l.sampleId, l.id),
-    ).map((d) => ({ ...d, audience: "team" as const })),
-  ];
-  const messages = await Promise.all(
-    sends.map((d) =>
-      sendMail(db, {
-        to: d.person,
-        template: "request-reminders",
-        data: { recipient: { name: d.person.name }, audience: d.audience, lists: d.lists, today },
-      }),
-    ),
-  );
-  return { lists: lists.length, messages };
+  // The digests are queued in the claim's own transaction: a list is marked reminded exactly when its messages are queued.
+  return db.transaction(async (trx) => {
+    const lists = await claim(trx, today);
+    const sends = [
+      ...digestBy(
+        lists,
+        (l) => l.contact,
+        (l) => clientRequestUrl(l.id),
+      ).map((d) => ({ ...d, audience: "client" as const })),
+      ...digestBy(
+        lists,
+        (l) => l.senior,
+        (l) => teamRequestUrl(l.engagementId, l.sampleId, l.id),
+      ).map((d) => ({ ...d, audience: "team" as const })),
+    ];
+    const messages: MailResult[] = [];
+    for (const d of sends)
+      messages.push(
+        await sendMail(trx, {
+          to: d.person,
+          template: "request-reminders",
+          data: { recipient: { name: d.person.name }, audience: d.audience, lists: d.lists, today },
+        }),
+      );
+    return { lists: lists.length, messages };
+  });
 }

@@ -34,7 +34,15 @@ export async function lockSample(
     actorId,
     role,
     render,
-  }: { sample: SampleRecord; actorId: number; role: EngagementRole; render: RenderFinalWorkpaper },
+    inTransaction,
+  }: {
+    sample: SampleRecord;
+    actorId: number;
+    role: EngagementRole;
+    render: RenderFinalWorkpaper;
+    /** Runs before the commit with the lists the lock closed (the notices are queued there, so they commit with the lock). */
+    inTransaction?: (trx: Knex.Transaction, closedListIds: number[]) => Promise<unknown>;
+  },
 ) {
   const row = mustExist(
     await db("samples").where({ id: sample.id }).first("locked_at", "reviewer_signed_at"),
@@ -81,12 +89,14 @@ export async function lockSample(
       after: { role, workpaperSha256: sha256, bytes: pdf.length, reference },
     }); // The workpaper is final, so the client is asked for nothing more on this sample.
     await freezeSampleContribution(trx, { engagementId: sample.engagementId, contribution });
-    return closeRequestListsOfSample(trx, {
+    const closed = await closeRequestListsOfSample(trx, {
       sampleId: sample.id,
       engagementId: sample.engagementId,
       actorId,
       reason: CLOSED_BY_LOCK,
     });
+    await inTransaction?.(trx, closed);
+    return closed;
   });
   return { sha256, bytes: pdf.length, reference, closedListIds };
 }

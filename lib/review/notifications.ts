@@ -5,7 +5,7 @@ import { getEngagementById } from "@/lib/data/engagements";
 import type { SampleRecord } from "@/lib/data/samples";
 import type { EngagementRole } from "@/lib/auth/roles";
 
-// Mail is queued in the outbox after the change has committed and sent by the outbox worker; a mail failure never undoes the change.
+// Mail is queued in the outbox inside the change's transaction (the route passes it) and sent by the outbox worker; a message that cannot be rendered never undoes the change.
 
 async function teamWithRoles(db: Knex, engagementId: number, roles: EngagementRole[]) {
   return db("engagement_members as m")

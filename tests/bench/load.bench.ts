@@ -15,7 +15,12 @@
  *  3. Faults: the database SIGKILLed during a population import and during a burst of saves (503
  *     with a message, reconnect, no partial population, acknowledged saves kept); the app SIGKILLed
  *     and restarted in the middle of an import (the import complete or absent).
+ *     Beside it, the same users and the same walk against a bare Node handler running only the
+ *     keyset query (load/bare-page-server.ts), measured in the same run: printed as ours / bare.
  * LOAD_SAVE_S / LOAD_PAGE_S shorten the runs; NEXT_DIST_DIR picks the build (default .next-load).
+ * LOAD_ONLY=paging runs only part 2; LOAD_KEEP_DB=1 keeps the bench database of the previous run
+ * (its users and its 1,000,000-row population; migrations still run), so a paging run takes about a minute;
+ * LOAD_APP_NODE_ARGS passes Node options to the app server alone (a CPU profile: "--cpu-prof --cpu-prof-dir=…").
  */
 import { existsSync, mkdirSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import { cpus, loadavg } from "node:os";
@@ -34,7 +39,7 @@ import { openLoop } from "./load/open-loop";
 import { encodeCursor } from "../../lib/validation/keyset";
 
 loadLocalEnv();
-const PORTS = { app: 3240, s3: 4840, smtp: 2840, inbox: 2841, db: 4849, bare: 3241 };
+const PORTS = { app: 3240, s3: 4840, smtp: 2840, inbox: 2841, db: 4849, bare: 3241, barePage: 3242 };
 const APP = `http://127.0.0.1:${PORTS.app}`;
 const DIST = process.env.NEXT_DIST_DIR ?? ".next-load";
 const DB_NAME = "sondage_load";
@@ -42,6 +47,10 @@ const SAVE_S = Number(process.env.LOAD_SAVE_S ?? 30);
 const PAGE_S = Number(process.env.LOAD_PAGE_S ?? 20);
 const OPEN_S = Number(process.env.LOAD_OPEN_S ?? 60);
 const USERS = 50;
+const ONLY_PAGING = process.env.LOAD_ONLY === "paging";
+const KEEP_DB = process.env.LOAD_KEEP_DB === "1";
+/** Node options for the app server only, e.g. LOAD_APP_NODE_ARGS="--cpu-prof --cpu-prof-dir=/tmp/prof" to see where its time goes. */
+const NODE_ARGS = (process.env.LOAD_APP_NODE_ARGS ?? "").split(" ").filter(Boolean);
 const SENIOR = "senior@marrow-quill.example";
 const LOG = path.join(ROOT, ".data/load-bench.log");
 const log = (line: string) => console.log(`[load bench] ${line}`);
@@ -73,7 +82,7 @@ async function startAppServer(): Promise<Service> {
   const server = startService(
     "next start",
     process.execPath,
-    ["node_modules/next/dist/bin/next", "start", "-H", "127.0.0.1", "-p", String(PORTS.app)],
+    [...NODE_ARGS, "node_modules/next/dist/bin/next", "start", "-H", "127.0.0.1", "-p", String(PORTS.app)],
     env(),
     LOG,
   );
@@ -93,6 +102,8 @@ async function hardKill(service: Service): Promise<void> {
 async function addUsers(engagementId: number): Promise<string[]> {
   const db = database();
   try {
+    const kept = await db("users").where("email", "like", "load%@marrow-quill.example").orderBy("id").pluck("email");
+    if (kept.length >= USERS) return kept.slice(0, USERS);
     return await addLoadUsers(db, engagementId, USERS);
   } finally {
     await db.destroy();
@@ -202,6 +213,108 @@ async function comparePageDepths(session: HttpSession, itemsUrl: string) {
   );
 }
 
+/** The 1,000,000-row population a previous run loaded into the bench database, or null. */
+async function keptMillionPopulation(): Promise<number | null> {
+  const db = database();
+  try {
+    const row = await db("populations")
+      .where({ row_count: 1_000_000 })
+      .whereNot({ status: "loading" })
+      .max({ id: "id" })
+      .first();
+    return row?.id ? Number(row.id) : null;
+  } catch {
+    return null;
+  } finally {
+    await db.destroy();
+  }
+}
+
+let nextUser = 0;
+
+/**
+ * The paging walk: each of the 50 connections reads a run of up to 10 pages from a random place (a
+ * jump, as a search or a sort lands somewhere deep), following nextCursor; then jumps again.
+ */
+function pagingWalk(
+  pathOf: (query: string, after: string) => string,
+  headersOf: (ctx: Record<string, unknown>) => Record<string, string>,
+) {
+  return {
+    setup: (ctx: Record<string, unknown>) => {
+      if (!ctx.next || (ctx.run as number) >= 10) {
+        const sort = (["row", "ref", "book"] as const)[Math.floor(Math.random() * 3)];
+        ctx.query = `sort=${sort}&dir=${Math.random() < 0.5 ? "asc" : "desc"}&pageSize=50`;
+        ctx.next = randomCursor(sort);
+        ctx.run = 0;
+      }
+      ctx.run = (ctx.run as number) + 1;
+      return { path: pathOf(ctx.query as string, ctx.next as string), headers: headersOf(ctx) };
+    },
+    onAnswer: (status: number, body: string, ctx: Record<string, unknown>) => {
+      ctx.next =
+        status === 200 ? ((JSON.parse(body) as { nextCursor: string | null }).nextCursor ?? undefined) : undefined;
+    },
+  };
+}
+
+async function measurePaging(senior: HttpSession, base: string, sessions: HttpSession[], services: Service[]) {
+  const bigPopulation =
+    (KEEP_DB ? await keptMillionPopulation() : null) ??
+    (await loadPopulation(senior, base, 1_000_000, "load-ledger-1m"));
+  const itemsUrl = `${base}/populations/${bigPopulation}/items`;
+  await comparePageDepths(senior, itemsUrl);
+  const bare = startService(
+    "bare page handler",
+    path.join(ROOT, "node_modules/.bin/tsx"),
+    ["--conditions=react-server", "tests/bench/load/bare-page-server.ts", String(PORTS.barePage)],
+    env(),
+    LOG,
+  );
+  services.push(bare);
+  await waitForHttp(`http://127.0.0.1:${PORTS.barePage}/health`, bare);
+  const barePaging = await hammer({
+    url: `http://127.0.0.1:${PORTS.barePage}`,
+    connections: USERS,
+    durationS: PAGE_S,
+    ok: (s) => s === 200,
+    ...pagingWalk(
+      (query, after) => `/populations/${bigPopulation}/items?${query}&after=${after}`,
+      () => ({}),
+    ),
+  });
+  await stopService(bare);
+  services.splice(services.indexOf(bare), 1);
+  const load1 = loadavg()[0];
+  const paging = await hammer({
+    url: APP,
+    connections: USERS,
+    durationS: PAGE_S,
+    ok: (s) => s === 200,
+    ...pagingWalk(
+      (query, after) => `${itemsUrl}?${query}&after=${after}`,
+      (ctx) => {
+        ctx.cookie ??= sessions[nextUser++ % sessions.length].cookieHeader();
+        return { cookie: ctx.cookie as string };
+      },
+    ),
+  });
+  report(
+    `paging by key, bare keyset handler (reference, same run), ${USERS} connections × ${PAGE_S} s, same walk: ${fmt(barePaging)}`,
+  );
+  report(
+    `paging by key, ${USERS} users × ${PAGE_S} s over 1,000,000 items (runs of 10 pages from random places, sort row/ref/book, asc/desc): ${fmt(paging)}; goal 0 × 503 and p95 ≤ 300 ms → ${(paging.statuses["503"] ?? 0) === 0 && paging.p95 <= 300 ? "met" : "NOT met"}`,
+  );
+  report(
+    `paging ours / bare: throughput ${(paging.rps / barePaging.rps).toFixed(2)}× (${paging.rps.toFixed(0)} vs ${barePaging.rps.toFixed(0)} req/s), p95 ${(paging.p95 / barePaging.p95).toFixed(2)}× (${paging.p95.toFixed(0)} vs ${barePaging.p95.toFixed(0)} ms), p50 ${(paging.p50 / barePaging.p50).toFixed(2)}×; load average ${load1.toFixed(2)} → ${loadavg()[0].toFixed(2)} (1 min) on ${cpus().length} cores`,
+  );
+  if (ONLY_PAGING) return;
+  // The queries autocannon left behind keep the pool busy for a while: wait until a write gets a connection again.
+  const drained = await until(senior, `${base}/populations`, 200, 120_000);
+  await new Promise((r) => setTimeout(r, 15_000));
+  log(`after paging, the app answered again within ${drained.ms.toFixed(0)} ms (+15 s settle)`);
+}
+
 async function main() {
   mkdirSync(path.dirname(LOG), { recursive: true });
   writeFileSync(LOG, "");
@@ -215,9 +328,11 @@ async function main() {
       await run("git", ["checkout", "tsconfig.json"]).catch(() => undefined);
     }
     await dbServer.start();
-    await dbServer.createDatabase(DB_NAME);
+    const kept = KEEP_DB && (await keptMillionPopulation()) !== null;
+    if (!kept) await dbServer.createDatabase(DB_NAME);
     await run("npx", ["tsx", "db/migrate.ts", "latest"], env());
-    await run("npx", ["tsx", "db/seed.ts"], env());
+    if (!kept) await run("npx", ["tsx", "db/seed.ts"], env());
+    else log("kept the bench database of the previous run (LOAD_KEEP_DB=1)");
     rmSync(path.join(ROOT, ".data/uploads-load"), { recursive: true, force: true });
     services.push(
       startService("fakes", path.join(ROOT, "node_modules/.bin/tsx"), ["lib/fakes/run-fakes.ts"], env(), LOG),
@@ -236,6 +351,11 @@ async function main() {
     const sessions = await signInAll(APP, emails);
     log(`${sessions.length} staff signed in`);
 
+    if (ONLY_PAGING) {
+      await measurePaging(senior, base, sessions, services);
+      return;
+    }
+
     // 0. Sign-in throttling, measured.
     await measureSignInThrottle(emails);
 
@@ -244,7 +364,6 @@ async function main() {
     const sampleId = await drawSample(senior, base, smallPopulation, 100);
     const items = await sampleItems(senior, base, sampleId);
     const tracker = new SaveTracker(items);
-    let nextUser = 0;
     const saves = await hammer({
       url: APP,
       connections: USERS,
@@ -369,43 +488,8 @@ async function main() {
       `open loop verified: ${openChecked.acked} acknowledged, lost ${openChecked.lost}, duplicate versions ${openChecked.duplicateVersions}, wrong final values ${openChecked.wrongFinal}; goal p95 ≤ 100 ms, 0 errors, 0 lost → ${open.p95 <= 100 && openErrors === 0 && openChecked.lost === 0 ? "met" : "NOT met"}`,
     );
 
-    // 2. Paging a 1,000,000-row population.
-    const bigPopulation = await loadPopulation(senior, base, 1_000_000, "load-ledger-1m");
-    const itemsUrl = `${base}/populations/${bigPopulation}/items`;
-    await comparePageDepths(senior, itemsUrl);
-    const paging = await hammer({
-      url: APP,
-      connections: USERS,
-      durationS: PAGE_S,
-      ok: (s) => s === 200,
-      setup: (ctx) => {
-        ctx.cookie ??= sessions[nextUser++ % sessions.length].cookieHeader();
-        // A user reads a run of up to 10 pages from a random place (a jump, as a search or a sort
-        // lands somewhere deep), following nextCursor; then jumps again.
-        if (!ctx.next || (ctx.run as number) >= 10) {
-          const sort = (["row", "ref", "book"] as const)[Math.floor(Math.random() * 3)];
-          ctx.query = `sort=${sort}&dir=${Math.random() < 0.5 ? "asc" : "desc"}&pageSize=50`;
-          ctx.next = randomCursor(sort);
-          ctx.run = 0;
-        }
-        ctx.run = (ctx.run as number) + 1;
-        return {
-          path: `${itemsUrl}?${ctx.query as string}&after=${ctx.next as string}`,
-          headers: { cookie: ctx.cookie as string },
-        };
-      },
-      onAnswer: (status, body, ctx) => {
-        ctx.next =
-          status === 200 ? ((JSON.parse(body) as { nextCursor: string | null }).nextCursor ?? undefined) : undefined;
-      },
-    });
-    report(
-      `paging by key, ${USERS} users × ${PAGE_S} s over 1,000,000 items (runs of 10 pages from random places, sort row/ref/book, asc/desc): ${fmt(paging)}; goal 0 × 503 and p95 ≤ 300 ms → ${(paging.statuses["503"] ?? 0) === 0 && paging.p95 <= 300 ? "met" : "NOT met"}`,
-    );
-    // The queries autocannon left behind keep the pool busy for a while: wait until a write gets a connection again.
-    const drained = await until(senior, `${base}/populations`, 200, 120_000);
-    await new Promise((r) => setTimeout(r, 15_000));
-    log(`after paging, the app answered again within ${drained.ms.toFixed(0)} ms (+15 s settle)`);
+    // 2. Paging a 1,000,000-row population, beside the bare keyset reference.
+    await measurePaging(senior, base, sessions, services);
 
     // 3a. Database killed during a population import.
     let db = database();

@@ -1,5 +1,5 @@
 /**
- * `npm run bench`: the engine, estimator-advisor and import benchmarks, each in its own process so one
+ * `npm run bench`: the engine, estimator-advisor, import and upload row-count benchmarks, each in its own process so one
  * cannot skew the other's memory or timings. Exits non-zero when either fails (an error, a
  * mismatch or a missed goal); both run regardless, so every figure is printed.
  */
@@ -7,11 +7,18 @@ import { spawn } from "node:child_process";
 import path from "node:path";
 
 const ROOT = path.resolve(import.meta.dirname, "../..");
-const BENCHES = ["tests/bench/engine.bench.ts", "tests/bench/advisor.bench.ts", "tests/bench/import.bench.ts"];
+// The row-count bench calls lib/imports directly: those modules are server-only, hence the react-server condition.
+const BENCHES = [
+  ["tests/bench/engine.bench.ts"],
+  ["tests/bench/advisor.bench.ts"],
+  ["tests/bench/import.bench.ts"],
+  ["--conditions=react-server", "tests/bench/row-count.bench.ts"],
+];
 
-function runBench(file: string): Promise<number> {
+function runBench(args: string[]): Promise<number> {
+  const file = args.at(-1)!;
   return new Promise((resolve) => {
-    const child = spawn(path.join(ROOT, "node_modules/.bin/tsx"), [file, ...process.argv.slice(2)], {
+    const child = spawn(path.join(ROOT, "node_modules/.bin/tsx"), [...args, ...process.argv.slice(2)], {
       cwd: ROOT,
       stdio: "inherit",
     });
@@ -25,9 +32,10 @@ function runBench(file: string): Promise<number> {
 
 async function main(): Promise<void> {
   const failed: string[] = [];
-  for (const file of BENCHES) {
+  for (const args of BENCHES) {
+    const file = args.at(-1)!;
     console.log(`\n=== ${file} ===`);
-    const code = await runBench(file);
+    const code = await runBench(args);
     if (code !== 0) failed.push(`${file} (exit ${code})`);
   }
   console.log(failed.length ? `\nbench: FAILED — ${failed.join(", ")}` : "\nbench: all benchmarks passed");

@@ -66,6 +66,8 @@ test("a senior loads a ledger, reconciles it and reviews its profile", async ({ 
   await expect(page.getByText(/ KB of 129 KB$/)).toBeVisible();
   await shot(page, "01b-uploading.png");
   await expect(page.getByRole("table", { name: "File preview" })).toBeVisible({ timeout: 20_000 });
+  // The whole file's data rows, counted at upload, beside its size and columns (compare with the ledger's own count).
+  await expect(page.getByText(`${facts.rows.length.toLocaleString("en-US")} data rows`)).toBeVisible();
   await cdp.send("Network.emulateNetworkConditions", {
     offline: false,
     latency: 0,

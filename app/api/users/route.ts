@@ -1,7 +1,6 @@
 import { z } from "zod";
 import { withAuditor, withFirmAdmin } from "@/lib/auth/with-role";
 import { listUsersByFirmId } from "@/lib/data/users";
-import { notifyStaffInvitation } from "@/lib/mail/notify-people";
 import { inviteFirmPerson } from "@/lib/people/invite-staff";
 import { CreateUserSchema } from "@/lib/validation/user";
 
@@ -11,15 +10,13 @@ export const GET = withAuditor(z.object({}), async (_input, { db, user }) => {
   return { users };
 });
 
-/** An administrator adds a person, who is e-mailed a one-time link to choose their own password. */
+/** An administrator adds a person, who is e-mailed a one-time link to choose their own password (queued with the addition). */
 export const POST = withFirmAdmin(CreateUserSchema, async (input, { db, user }) => {
-  const { user: created, token } = await inviteFirmPerson(db, { firmId: user.firmId, actorId: user.id, input });
-  const mail = await notifyStaffInvitation(db, {
-    person: created,
-    token,
-    invitedBy: { name: user.name },
+  const { user: created, mail } = await inviteFirmPerson(db, {
     firmId: user.firmId,
-    reason: "new",
+    actorId: user.id,
+    input,
+    invitedBy: { name: user.name },
   });
   return Response.json({ user: created, invitationSent: mail.sent }, { status: 201 });
 });

@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { withEngagementRole } from "@/lib/auth/with-role";
 import { notifyClientInvitation } from "@/lib/mail/notify-requests";
+import type { MailResult } from "@/lib/mail/send";
 import { inviteClientContact, listClientContactsByEngagementId } from "@/lib/requests/contacts";
 import { InviteClientContactSchema } from "@/lib/validation/requests";
 
@@ -13,17 +14,31 @@ export const POST = withEngagementRole(
   InviteClientContactSchema,
   "senior",
   async (input, { db, engagementId, user }) => {
-    const invited = await inviteClientContact(db, { engagementId, firmId: user.firmId, actorId: user.id, input });
-    const mail = await notifyClientInvitation(db, {
+    let mail: MailResult | null = null;
+    // The invitation is queued in the mail outbox inside the invitation's transaction: both commit, or neither.
+    const invited = await inviteClientContact(db, {
       engagementId,
-      contact: { name: invited.name, email: invited.email },
-      token: invited.token,
-      invitedBy: { name: user.name },
       firmId: user.firmId,
+      actorId: user.id,
+      input,
+      inTransaction: async (trx, contact) => {
+        mail = await notifyClientInvitation(trx, {
+          engagementId,
+          contact: { name: contact.name, email: contact.email },
+          token: contact.token,
+          invitedBy: { name: user.name },
+          firmId: user.firmId,
+        });
+      },
     });
     return Response.json(
       {
-        contact: { userId: invited.userId, name: invited.name, email: invited.email, invitationSent: mail.sent },
+        contact: {
+          userId: invited.userId,
+          name: invited.name,
+          email: invited.email,
+          invitationSent: (mail as MailResult | null)?.sent ?? false,
+        },
         contacts: await listClientContactsByEngagementId(db, { engagementId }),
       },
       { status: 201 },

@@ -9,5 +9,5 @@ export const GET = withEngagementRole(ItemsQuerySchema, "viewer", async (query, 
     engagementId,
     populationId: parseIdParam(params.populationId, "population"),
   });
-  return listItemsByPopulationId(db, { populationId: population.id, query });
+  return listItemsByPopulationId(db, { populationId: population.id, rowCount: population.rowCount, query });
 });

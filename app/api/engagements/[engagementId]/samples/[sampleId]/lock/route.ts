@@ -26,12 +26,14 @@ export const POST = withEngagementRole(z.object({}), "manager", async (_input, c
           lock: { lockedByName: ctx.user.name, role: lock.role, lockedAt: lock.lockedAt, reference: lock.reference },
         }),
       ),
+    // The team's notice and each closed list's notice to its contact are queued in the lock's own transaction.
+    inTransaction: async (trx, closedListIds) => {
+      await notifyLocked(trx, { sample, actor: ctx.user });
+      for (const listId of closedListIds) {
+        const list = await getRequestListRow(trx, { engagementId: ctx.engagementId, sampleId: sample.id, listId });
+        await notifyRequestListClosed(trx, { list, reason: CLOSED_BY_LOCK });
+      }
+    },
   });
-  await notifyLocked(ctx.db, { sample, actor: ctx.user });
-  // Each contact whose list the lock closed is told it takes no more files (after the commit; never throws).
-  for (const listId of locked.closedListIds) {
-    const list = await getRequestListRow(ctx.db, { engagementId: ctx.engagementId, sampleId: sample.id, listId });
-    await notifyRequestListClosed(ctx.db, { list, reason: CLOSED_BY_LOCK });
-  }
   return { locked, review: await getReviewState(ctx.db, { sampleId: sample.id }) };
 });

@@ -12,7 +12,10 @@ export const GET = withEngagementRole(z.object({}), "viewer", async (_input, ctx
 /** Reviewers (manager, partner) raise notes on the sample or one of its items. */
 export const POST = withEngagementRole(RaiseNoteSchema, "manager", async (input, ctx) => {
   const sample = await sampleOf(ctx);
-  const noteId = await raiseNote(ctx.db, { sample, actorId: ctx.user.id, ...input });
-  await notifyNote(ctx.db, { sample, noteId, kind: "raised", actor: ctx.user });
+  // The note and its notice commit together (the notice is queued in the mail outbox in the same transaction).
+  await ctx.db.transaction(async (trx) => {
+    const noteId = await raiseNote(trx, { sample, actorId: ctx.user.id, ...input });
+    await notifyNote(trx, { sample, noteId, kind: "raised", actor: ctx.user });
+  });
   return Response.json({ notes: await listNotesBySampleId(ctx.db, { sampleId: sample.id }) }, { status: 201 });
 });

@@ -13,11 +13,14 @@ export const GET = withEngagementRole(z.object({}), "viewer", async (_input, ctx
 /** A senior or above sends the client contact a request list from the drawn sample; the contact is e-mailed a link. */
 export const POST = withEngagementRole(CreateRequestListSchema, "senior", async (input, ctx) => {
   const sample = await sampleOf(ctx);
-  const listId = await createRequestList(ctx.db, { sample, actorId: ctx.user.id, input });
-  const list = await getRequestListRow(ctx.db, { engagementId: ctx.engagementId, sampleId: sample.id, listId });
-  const itemCount = Number(
-    (await ctx.db("request_items").where({ request_list_id: listId }).count({ n: "*" }).first())?.n ?? 0,
-  );
-  const mail = await notifyRequestListSent(ctx.db, { list, itemCount });
+  // The list and the message to its contact commit together (queued in the mail outbox in the same transaction).
+  const { list, itemCount, mail } = await ctx.db.transaction(async (trx) => {
+    const listId = await createRequestList(trx, { sample, actorId: ctx.user.id, input });
+    const list = await getRequestListRow(trx, { engagementId: ctx.engagementId, sampleId: sample.id, listId });
+    const itemCount = Number(
+      (await trx("request_items").where({ request_list_id: listId }).count({ n: "*" }).first())?.n ?? 0,
+    );
+    return { list, itemCount, mail: await notifyRequestListSent(trx, { list, itemCount }) };
+  });
   return Response.json({ requestList: { ...list, itemCount }, mailSent: mail.sent }, { status: 201 });
 });

@@ -12,8 +12,10 @@ const SignOffSchema = z.object({ as: z.enum(["preparer", "reviewer"], "Sign off 
 export const POST = withEngagementRole(SignOffSchema, "staff", async ({ as }, ctx) => {
   const sample = await sampleOf(ctx);
   if (as === "preparer") {
-    await signOffAsPreparer(ctx.db, { sample, actorId: ctx.user.id, role: ctx.role });
-    await notifyReadyForReview(ctx.db, { sample, preparer: ctx.user });
+    await ctx.db.transaction(async (trx) => {
+      await signOffAsPreparer(trx, { sample, actorId: ctx.user.id, role: ctx.role });
+      await notifyReadyForReview(trx, { sample, preparer: ctx.user });
+    });
   } else {
     if (!hasAtLeastRole(ctx.role, "manager")) throw forbidden("Reviewer sign-off needs the manager or partner role.");
     await signOffAsReviewer(ctx.db, { sample, actorId: ctx.user.id, role: ctx.role });

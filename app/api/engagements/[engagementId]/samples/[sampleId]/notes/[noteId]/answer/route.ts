@@ -9,7 +9,9 @@ import { AnswerNoteSchema } from "@/lib/validation/review";
 export const POST = withEngagementRole(AnswerNoteSchema, "staff", async ({ answer }, ctx) => {
   const sample = await sampleOf(ctx);
   const noteId = parseIdParam(ctx.params.noteId, "review note");
-  await answerNote(ctx.db, { sample, actorId: ctx.user.id, noteId, answer });
-  await notifyNote(ctx.db, { sample, noteId, kind: "answered", actor: ctx.user });
+  await ctx.db.transaction(async (trx) => {
+    await answerNote(trx, { sample, actorId: ctx.user.id, noteId, answer });
+    await notifyNote(trx, { sample, noteId, kind: "answered", actor: ctx.user });
+  });
   return { notes: await listNotesBySampleId(ctx.db, { sampleId: sample.id }) };
 });

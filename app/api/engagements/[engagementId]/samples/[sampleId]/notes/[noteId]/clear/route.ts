@@ -9,7 +9,9 @@ import { sampleOf } from "@/lib/samples/route-helpers";
 export const POST = withEngagementRole(z.object({}), "manager", async (_input, ctx) => {
   const sample = await sampleOf(ctx);
   const noteId = parseIdParam(ctx.params.noteId, "review note");
-  await clearNote(ctx.db, { sample, actorId: ctx.user.id, noteId });
-  await notifyNote(ctx.db, { sample, noteId, kind: "cleared", actor: ctx.user });
+  await ctx.db.transaction(async (trx) => {
+    await clearNote(trx, { sample, actorId: ctx.user.id, noteId });
+    await notifyNote(trx, { sample, noteId, kind: "cleared", actor: ctx.user });
+  });
   return { notes: await listNotesBySampleId(ctx.db, { sampleId: sample.id }) };
 });
