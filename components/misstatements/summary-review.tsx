@@ -6,6 +6,7 @@ import { Alert } from "@/components/ui/alert";
 import { Badge } from "@/components/ui/badge";
 import { Button } from "@/components/ui/button";
 import { Card } from "@/components/ui/card";
+import { ExplainedButton } from "@/components/ui/explained-button";
 import { useSummaryAction } from "./use-summary-action";
 import { formatDateTime } from "@/lib/format/date";
 
@@ -78,25 +79,44 @@ export function SummaryReview({ view, role }: { view: SummaryView; role: Engagem
           )}
         </div>
         {!locked && (
-          <div className="flex flex-wrap gap-2">
-            {(role === "staff" || role === "senior") && (
-              <Button
-                variant="secondary"
-                disabled={busy}
-                onClick={() => void act("/sign-off", { body: { as: "preparer" } }, "Signed off as preparer.")}
-              >
-                Sign off as preparer
-              </Button>
-            )}
-            {isReviewer && (
-              <Button
-                variant="secondary"
-                disabled={busy}
-                onClick={() => void act("/sign-off", { body: { as: "reviewer" } }, "Signed off as reviewer.")}
-              >
-                Sign off as reviewer
-              </Button>
-            )}
+          <div className="flex flex-wrap items-start gap-2">
+            {(role === "staff" || role === "senior") &&
+              (r.preparer ? (
+                <ExplainedButton
+                  variant="secondary"
+                  disabled
+                  why="You have signed off as preparer. A change to the rows clears it; then sign again."
+                >
+                  Signed off as preparer
+                </ExplainedButton>
+              ) : (
+                <ExplainedButton
+                  variant="secondary"
+                  disabled={busy}
+                  onClick={() => void act("/sign-off", { body: { as: "preparer" } }, "Signed off as preparer.")}
+                >
+                  Sign off as preparer
+                </ExplainedButton>
+              ))}
+            {isReviewer &&
+              (r.reviewer ? (
+                <ExplainedButton
+                  variant="secondary"
+                  disabled
+                  why="Signed off as reviewer. A change to the rows clears it."
+                >
+                  Signed off as reviewer
+                </ExplainedButton>
+              ) : (
+                <ExplainedButton
+                  variant="secondary"
+                  disabled={busy || r.reviewerBlocker !== null}
+                  why={r.reviewerBlocker ?? undefined}
+                  onClick={() => void act("/sign-off", { body: { as: "reviewer" } }, "Signed off as reviewer.")}
+                >
+                  Sign off as reviewer
+                </ExplainedButton>
+              ))}
             {isReviewer && (
               <Button
                 disabled={busy || !r.lockable.ok}
