@@ -1,4 +1,4 @@
-import { CAUSE_LABELS, METHOD_LABELS } from "@/lib/validation/sample";
+import { CAUSE_LABELS, DIRECTION_LABELS, METHOD_LABELS } from "@/lib/validation/sample";
 import { FIELD_LABELS, ITEM_STATUS_LABELS } from "@/lib/fieldwork/field-labels";
 import { formatDate, formatDateTime } from "@/lib/format/date";
 import { REQUEST_NEED_LABELS } from "@/lib/validation/requests";
@@ -140,6 +140,8 @@ export function showValue(key: string, v: unknown, ctx?: ChangeContext): string 
     return CAUSE_LABELS[v as keyof typeof CAUSE_LABELS];
   if (key === "method" && typeof v === "string" && v in METHOD_LABELS)
     return METHOD_LABELS[v as keyof typeof METHOD_LABELS];
+  if (key === "direction" && typeof v === "string" && v in DIRECTION_LABELS)
+    return DIRECTION_LABELS[v as keyof typeof DIRECTION_LABELS];
   if (key === "deviation" && typeof v === "boolean") return v ? "Deviation" : "No deviation";
   if (key === "itemId" && ctx) return ctx.itemRefs.get(String(v)) ?? `an item no longer in the draw`;
   if (MONEY_KEYS.has(key) && /^-?\d+(\.\d+)?$/.test(String(v))) return amount(String(v));

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { REQUEST_NEED_LABELS } from "@/lib/validation/requests";
 import { describeChange } from "@/lib/review/describe-change";
-import { METHOD_LABELS } from "@/lib/validation/sample";
+import { DIRECTION_LABELS, METHOD_LABELS } from "@/lib/validation/sample";
 
 // The audit trail as people read it (issue 19): the same words on the page and in the locked PDF.
 const ctx = { itemRefs: new Map([["41", "INV-100218"]]) };
@@ -35,7 +35,11 @@ describe("describeChange", () => {
         entityId: "7",
         action: "plan",
         before: null,
-        after: { name: "Receivables", params: { method: "mus", confidence: 0.95, tolerableMisstatement: "15000.00" } },
+        after: {
+          name: "Receivables",
+          direction: "understatement",
+          params: { method: "mus", confidence: 0.95, tolerableMisstatement: "15000.00" },
+        },
       },
       ctx,
     );
@@ -45,6 +49,7 @@ describe("describeChange", () => {
       before: "—",
       after: `Method ${METHOD_LABELS.mus}; Confidence 95%; Tolerable misstatement 15,000.00`,
     });
+    expect(r.changes).toContainEqual({ field: "Direction", before: "—", after: DIRECTION_LABELS.understatement });
     expect(r.changes.filter((c) => /[{}"]/.test(c.after))).toEqual([]);
   });
 

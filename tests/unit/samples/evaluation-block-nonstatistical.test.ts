@@ -5,6 +5,10 @@ import {
   type NonstatisticalItem,
 } from "@/lib/samples/evaluation-block-nonstatistical";
 import { computedResultOf } from "@/lib/samples/computed-result";
+import { createElement } from "react";
+import { renderToStaticMarkup } from "react-dom/server";
+import { NonstatisticalResult } from "@/components/samples/nonstatistical-result";
+import { DIRECTION_LABELS } from "@/lib/validation/sample";
 
 /**
  * PCAOB AS 2315.26's example: every twentieth item (50) of 1,000 items; TM $50,000 on a $1 million
@@ -131,5 +135,18 @@ describe("buildNonstatisticalEvaluation", () => {
     const b = evaluate(fifty([]), { haphazard: true });
     expect(b.warnings.join(" ")).toMatch(/no statistical bound/);
     expect(b.warnings.join(" ")).toMatch(/cannot be re-performed from a seed/);
+  });
+});
+
+describe("the nonstatistical result on screen (issue 19: labels, never codes)", () => {
+  it("names the direction compared with TM in the product's words", () => {
+    const under = Array.from({ length: 50 }, (_, i) => item(1000, i === 0 ? 4000 : 1000));
+    const html = renderToStaticMarkup(
+      createElement(NonstatisticalResult, { n: evaluate(under, { direction: "understatement" }) }),
+    );
+    expect(html).toContain(
+      `Compared with tolerable misstatement (${DIRECTION_LABELS.understatement.toLowerCase()} tested)`,
+    );
+    expect(html).not.toContain("(understatement)");
   });
 });
