@@ -7,6 +7,7 @@ import { insertSelectedItems, isHaphazard } from "./draw";
 import { beginSampleWrite } from "./guard";
 import { loadFrame } from "./population-frame";
 import { mustExist } from "@/lib/data/must-exist";
+import { formatCount } from "@/lib/format/number";
 
 async function haphazardDraw(db: Knex, sample: SampleRecord) {
   if (sample.method !== "nonstatistical")
@@ -52,7 +53,7 @@ export async function addHaphazardPick(
     );
     if (picked >= sample.plan.chosenSize)
       throw conflict(
-        `The plan's ${sample.plan.chosenSize} items are all picked. Change the plan before drawing to pick more, or remove a pick without a result.`,
+        `${sample.plan.chosenSize === 1 ? "The plan's 1 item is picked." : `The plan's ${formatCount(sample.plan.chosenSize)} items are all picked.`} Change the plan before drawing to pick more, or remove a pick without a result.`,
       );
     const maxOrder = Number(
       (await trx("sample_items").where({ draw_id: draw.id }).max({ m: "selection_order" }).first())?.m ?? 0,

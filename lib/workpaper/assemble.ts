@@ -20,6 +20,7 @@ import { CAUSE_LABELS } from "@/lib/validation/sample";
 import { describeChange } from "@/lib/review/describe-change";
 import { loadChangeContext } from "@/lib/review/audit-trail";
 import { randomStartOf } from "@/lib/samples/random-start";
+import { countOf } from "@/lib/format/number";
 
 /** Files attached to the draw's items and not removed, in item order (item_evidence). */
 async function listEvidenceIndex(db: Knex, { drawId }: { drawId: number }): Promise<EvidenceIndexRow[]> {
@@ -140,7 +141,9 @@ export async function assembleWorkpaper(
       reconciliation: {
         controlTotal: population.controlTotal,
         controlSource:
-          population.controlCount === null ? null : `ledger / trial balance: ${population.controlCount} items`,
+          population.controlCount === null
+            ? null
+            : `ledger / trial balance: ${countOf(population.controlCount, "item")}`,
         difference: population.difference?.total ?? null,
         status:
           population.controlTotal === null

@@ -111,7 +111,7 @@ describe("buildNonstatisticalEvaluation", () => {
     expect(b.anomalies).toEqual({ count: 1, misstatement: "500.00" });
     expect(b.keyItems).toEqual({ planned: 2, evaluated: 1, misstatement: "1000.00" });
     expect(b.totalProjected).toBe("1500.00");
-    expect(b.warnings).toContain("1 key items have no result yet; key items are examined in full.");
+    expect(b.warnings).toContain("1 key item has no result yet; key items are examined in full.");
     // Not an accepted anomaly: projected like any other misstatement (10,000 + 1,000).
     sample[0] = item(1000, 500, false);
     expect(evaluate(sample, { keyItems: [item(200000, 199000)] }).totalProjected).toBe("11000.00");
