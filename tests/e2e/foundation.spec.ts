@@ -101,3 +101,22 @@ test("the firm admin sees the people list", async ({ page }) => {
   await expect(page.getByRole("table", { name: "People" }).getByText(DEMO.staff.email)).toBeVisible();
   await page.screenshot({ path: test.info().outputPath("people.png"), fullPage: true });
 });
+
+test("the engagement's samples table keeps each status badge on one line at 1280, 1440 and 1920 px", async ({
+  page,
+}) => {
+  await new SignInPage(page).signInAndWait("manager");
+  await page.getByRole("link", { name: /Tessaly Outdoor Supply Inc\./ }).click();
+  const samples = page.getByRole("table", { name: "Samples" });
+  const planned = samples.getByText("Planned, not drawn", { exact: true });
+  const drawn = samples.getByText("Drawn", { exact: true }).first();
+  await expect(planned.first()).toBeVisible();
+  for (const width of [1280, 1440, 1920]) {
+    await page.setViewportSize({ width, height: 900 });
+    // A wrapped badge is two lines tall; a one-word badge is always one line.
+    const oneLine = (await drawn.boundingBox())!.height;
+    for (const badge of await planned.all())
+      expect((await badge.boundingBox())!.height).toBeLessThanOrEqual(oneLine + 1);
+    await samples.screenshot({ path: test.info().outputPath(`samples-table-${width}.png`) });
+  }
+});
