@@ -1,5 +1,6 @@
 import { expect, test } from "@playwright/test";
 import { DEMO, SignInPage, type DemoRole } from "./pages/sign-in-page";
+import { engagementIdByClient, loadReconciledLedger } from "./pages/samples-population";
 
 // Which demo engagements each demo person is on (the invented scenario in db/seeds/demo-scenario.ts).
 const VISIBLE: Record<Exclude<DemoRole, "client">, string[]> = {
@@ -105,16 +106,40 @@ test("the firm admin sees the people list", async ({ page }) => {
 test("the engagement's samples table keeps each status badge on one line at 1280, 1440 and 1920 px", async ({
   page,
 }) => {
-  await new SignInPage(page).signInAndWait("manager");
-  await page.getByRole("link", { name: /Tessaly Outdoor Supply Inc\./ }).click();
+  await new SignInPage(page).signInAndWait("senior");
+  const engagementId = await engagementIdByClient(page.request, "Tessaly Outdoor Supply Inc.");
+  const population = await loadReconciledLedger(page.request, {
+    engagementId,
+    path: test.info().outputPath("ledger.csv"),
+    rows: 60,
+    seed: 1280,
+    name: "Receivables for the badge check",
+  });
+  const plan = (name: string) =>
+    page.request.post(`/api/engagements/${engagementId}/samples`, {
+      data: {
+        populationId: population.id,
+        name,
+        objective: "Confirm recorded receivables exist at the period end.",
+        assertion: "Existence",
+        direction: "overstatement",
+        params: { method: "mus", confidence: 0.95, tolerableMisstatement: "50000.00", factorMode: "table" },
+      },
+    });
+  expect((await plan("Badge check — planned")).status()).toBe(201);
+  const drawn = (await (await plan("Badge check — drawn")).json()).sample.id as number;
+  expect(
+    (await page.request.post(`/api/engagements/${engagementId}/samples/${drawn}/draw`, { data: { seed: 1 } })).status(),
+  ).toBe(201);
+  await page.goto(`/engagements/${engagementId}`);
   const samples = page.getByRole("table", { name: "Samples" });
   const planned = samples.getByText("Planned, not drawn", { exact: true });
-  const drawn = samples.getByText("Drawn", { exact: true }).first();
+  const oneWord = samples.getByText("Drawn", { exact: true }).first();
   await expect(planned.first()).toBeVisible();
   for (const width of [1280, 1440, 1920]) {
     await page.setViewportSize({ width, height: 900 });
     // A wrapped badge is two lines tall; a one-word badge is always one line.
-    const oneLine = (await drawn.boundingBox())!.height;
+    const oneLine = (await oneWord.boundingBox())!.height;
     for (const badge of await planned.all())
       expect((await badge.boundingBox())!.height).toBeLessThanOrEqual(oneLine + 1);
     await samples.screenshot({ path: test.info().outputPath(`samples-table-${width}.png`) });
