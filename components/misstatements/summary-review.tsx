@@ -1,5 +1,4 @@
 "use client";
-import { useState } from "react";
 import { hasAtLeastRole, type EngagementRole } from "@/lib/auth/roles";
 import type { SummaryView } from "@/lib/misstatements/types";
 import { Alert } from "@/components/ui/alert";
@@ -8,16 +7,14 @@ import { Button } from "@/components/ui/button";
 import { Card } from "@/components/ui/card";
 import { ExplainedButton } from "@/components/ui/explained-button";
 import { useSummaryAction } from "./use-summary-action";
+import { SummaryNotes } from "./summary-notes";
 import { formatDateTime } from "@/lib/format/date";
 
 const when = formatDateTime;
-const NOTE_TONE = { open: "red", answered: "amber", cleared: "green" } as const;
 
 /** Sign-offs, review notes, lock and unlock of the summary. */
 export function SummaryReview({ view, role }: { view: SummaryView; role: EngagementRole }) {
-  const { act, busy, message } = useSummaryAction(view.engagement.id);
-  const [note, setNote] = useState("");
-  const [answers, setAnswers] = useState<Record<number, string>>({});
+  const { act, busy, message, setMessage } = useSummaryAction(view.engagement.id);
   const r = view.review;
   const locked = r.lock !== null;
   const isReviewer = hasAtLeastRole(role, "manager");
@@ -141,84 +138,14 @@ export function SummaryReview({ view, role }: { view: SummaryView; role: Engagem
             Unlock (partner)
           </Button>
         )}
-        <section aria-label="Review notes" className="space-y-3 border-t border-ink-line pt-4">
-          <h3 className="text-sm font-semibold">Review notes</h3>
-          {view.notes.length === 0 && <p className="text-sm text-ink-faint">No review notes.</p>}
-          <ol className="space-y-3">
-            {view.notes.map((n) => (
-              <li key={n.id} className="rounded-md border border-ink-line bg-paper px-3 py-2 text-sm">
-                <div className="flex items-start justify-between gap-2">
-                  <p>{n.text}</p>
-                  <Badge tone={NOTE_TONE[n.status]}>{n.status}</Badge>
-                </div>
-                <p className="text-xs text-ink-faint">
-                  Raised by {n.raisedBy}, {when(n.raisedAt)}
-                </p>
-                {n.answer && (
-                  <p className="mt-1 border-l-2 border-ink-line pl-2">
-                    {n.answer} <span className="text-xs text-ink-faint">— {n.answeredBy}</span>
-                  </p>
-                )}
-                {!locked && n.status !== "cleared" && hasAtLeastRole(role, "staff") && (
-                  <div className="mt-2 flex gap-2">
-                    <label className="sr-only" htmlFor={`answer-${n.id}`}>
-                      Answer
-                    </label>
-                    <input
-                      id={`answer-${n.id}`}
-                      className="flex-1 rounded-md border border-ink-line bg-paper-raised px-2 py-1 text-sm"
-                      value={answers[n.id] ?? ""}
-                      onChange={(e) => setAnswers({ ...answers, [n.id]: e.target.value })}
-                    />
-                    <Button
-                      variant="secondary"
-                      className="px-2 py-1 text-xs"
-                      disabled={busy}
-                      onClick={() =>
-                        void act(`/notes/${n.id}/answer`, { body: { answer: answers[n.id] ?? "" } }, "Answered.")
-                      }
-                    >
-                      Answer
-                    </Button>
-                    {isReviewer && n.status === "answered" && (
-                      <Button
-                        variant="secondary"
-                        className="px-2 py-1 text-xs"
-                        disabled={busy}
-                        onClick={() => void act(`/notes/${n.id}/clear`, { body: {} }, "Cleared.")}
-                      >
-                        Clear
-                      </Button>
-                    )}
-                  </div>
-                )}
-              </li>
-            ))}
-          </ol>
-          {!locked && isReviewer && (
-            <form
-              className="flex gap-2"
-              onSubmit={(e) => {
-                e.preventDefault();
-                void act("/notes", { body: { text: note } }, "Note raised.").then((ok) => ok && setNote(""));
-              }}
-            >
-              <label className="sr-only" htmlFor="summary-note">
-                New review note
-              </label>
-              <input
-                id="summary-note"
-                placeholder="Raise a review note"
-                className="flex-1 rounded-md border border-ink-line bg-paper-raised px-3 py-2 text-sm"
-                value={note}
-                onChange={(e) => setNote(e.target.value)}
-              />
-              <Button type="submit" variant="secondary" disabled={busy}>
-                Raise
-              </Button>
-            </form>
-          )}
-        </section>
+        <SummaryNotes
+          notes={view.notes}
+          role={role}
+          locked={locked}
+          busy={busy}
+          act={act}
+          refuse={(text) => setMessage({ tone: "error", text })}
+        />
       </div>
     </Card>
   );
