@@ -1,10 +1,12 @@
 "use client";
+import { useState } from "react";
 import { hasAtLeastRole, type EngagementRole } from "@/lib/auth/roles";
 import type { SummaryView } from "@/lib/misstatements/types";
 import { Alert } from "@/components/ui/alert";
 import { Badge } from "@/components/ui/badge";
 import { Button } from "@/components/ui/button";
 import { Card } from "@/components/ui/card";
+import { ConfirmDialog } from "@/components/ui/confirm-dialog";
 import { ExplainedButton } from "@/components/ui/explained-button";
 import { useSummaryAction } from "./use-summary-action";
 import { SummaryNotes } from "./summary-notes";
@@ -15,6 +17,7 @@ const when = formatDateTime;
 /** Sign-offs, review notes, lock and unlock of the summary. */
 export function SummaryReview({ view, role }: { view: SummaryView; role: EngagementRole }) {
   const { act, busy, message, setMessage } = useSummaryAction(view.engagement.id);
+  const [confirming, setConfirming] = useState(false);
   const r = view.review;
   const locked = r.lock !== null;
   const isReviewer = hasAtLeastRole(role, "manager");
@@ -115,13 +118,8 @@ export function SummaryReview({ view, role }: { view: SummaryView; role: Engagem
                 </ExplainedButton>
               ))}
             {isReviewer && (
-              <Button
-                disabled={busy || !r.lockable.ok}
-                onClick={() =>
-                  void act("/lock", { body: {} }, "Locked: the workpaper is final and stored with its SHA-256.")
-                }
-              >
-                Lock the summary
+              <Button disabled={busy || !r.lockable.ok} onClick={() => setConfirming(true)}>
+                Lock the summary…
               </Button>
             )}
           </div>
@@ -133,6 +131,28 @@ export function SummaryReview({ view, role }: { view: SummaryView; role: Engagem
             ))}
           </ul>
         )}
+        <ConfirmDialog
+          open={confirming}
+          title="Lock the summary of misstatements?"
+          confirmLabel="Lock the summary"
+          busyLabel="Locking…"
+          busy={busy}
+          onCancel={() => setConfirming(false)}
+          onConfirm={() =>
+            void act("/lock", { body: {} }, "Locked: the workpaper is final and stored with its SHA-256.").then(() =>
+              setConfirming(false),
+            )
+          }
+        >
+          <p>Locking makes the summary final. It will:</p>
+          <ul className="list-disc space-y-1 pl-5">
+            <li>render the summary&apos;s workpaper (PDF) once and keep it with its SHA-256 fingerprint;</li>
+            <li>
+              freeze the rows, totals and status as they stand, and make entries, corrections, thresholds and review
+              notes read-only — only a partner can unlock, giving a reason.
+            </li>
+          </ul>
+        </ConfirmDialog>
         {locked && role === "partner" && (
           <Button variant="danger" disabled={busy} onClick={unlock}>
             Unlock (partner)
