@@ -1,6 +1,7 @@
 import { CAUSE_LABELS, DIRECTION_LABELS, METHOD_LABELS } from "@/lib/validation/sample";
 import { FIELD_LABELS, ITEM_STATUS_LABELS } from "@/lib/fieldwork/field-labels";
 import { formatDate, formatDateTime } from "@/lib/format/date";
+import { formatMoney } from "@/lib/format/number";
 import { REQUEST_NEED_LABELS } from "@/lib/validation/requests";
 
 /**
@@ -118,10 +119,6 @@ const humanise = (key: string) =>
     .replace(/[-_]/g, " ")
     .replace(/^./, (c) => c.toUpperCase())
     .replace(/ ([A-Z])/g, (_m, c: string) => ` ${c.toLowerCase()}`);
-const amount = (v: string) => {
-  const [w, f = "00"] = v.replace(/^-/, "").split(".");
-  return `${v.startsWith("-") ? "−" : ""}${w.replace(/\B(?=(\d{3})+(?!\d))/g, ",")}.${f.padEnd(2, "0")}`;
-};
 const MONEY_KEYS = new Set([
   "auditedValue",
   "bookValue",
@@ -144,7 +141,7 @@ export function showValue(key: string, v: unknown, ctx?: ChangeContext): string 
     return DIRECTION_LABELS[v as keyof typeof DIRECTION_LABELS];
   if (key === "deviation" && typeof v === "boolean") return v ? "Deviation" : "No deviation";
   if (key === "itemId" && ctx) return ctx.itemRefs.get(String(v)) ?? `an item no longer in the draw`;
-  if (MONEY_KEYS.has(key) && /^-?\d+(\.\d+)?$/.test(String(v))) return amount(String(v));
+  if (MONEY_KEYS.has(key) && /^-?\d+(\.\d+)?$/.test(String(v))) return formatMoney(String(v));
   if (key === "confidence" && typeof v === "number") return `${Number((v * 100).toPrecision(6))}%`;
   if (typeof v === "boolean") return v ? "yes" : "no";
   if (key === "needs" && typeof v === "string" && v in REQUEST_NEED_LABELS)
