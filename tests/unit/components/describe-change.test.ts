@@ -38,7 +38,7 @@ describe("describeChange", () => {
         after: {
           name: "Receivables",
           direction: "understatement",
-          params: { method: "mus", confidence: 0.95, tolerableMisstatement: "15000.00" },
+          params: { method: "mus", confidence: 0.95, tolerableMisstatement: "15000.00", riskOfIncorrectRejection: 0.1 },
         },
       },
       ctx,
@@ -47,9 +47,14 @@ describe("describeChange", () => {
     expect(r.changes).toContainEqual({
       field: "Plan",
       before: "—",
-      after: `Method ${METHOD_LABELS.mus}; Confidence 95%; Tolerable misstatement 15,000.00`,
+      after: `Method ${METHOD_LABELS.mus}; Confidence 95%; Tolerable misstatement 15,000.00; Risk of incorrect rejection 10%`,
     });
     expect(r.changes).toContainEqual({ field: "Direction", before: "—", after: DIRECTION_LABELS.understatement });
+    // A seed is an identifier, not an amount: printed without grouping, as it was entered.
+    expect(
+      describeChange({ entity: "sample", entityId: "7", action: "draw", before: null, after: { seed: 4242 } }, ctx)
+        .changes,
+    ).toEqual([{ field: "Seed", before: "—", after: "4242" }]);
     expect(r.changes.filter((c) => /[{}"]/.test(c.after))).toEqual([]);
   });
 
