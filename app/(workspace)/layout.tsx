@@ -8,12 +8,12 @@ export default async function WorkspaceLayout({ children }: { children: React.Re
   const user = await requireWorkspaceUser();
   const inbox = await getInboxByUserId(getDb(), { userId: user.id });
   return (
-    <div className="flex min-h-screen flex-col">
+    <div className="group flex min-h-screen flex-col">
       <TopBar user={user} waiting={inbox.counts.total} />
-      {/* A page that marks itself data-wide (the sample workspace) gets the width its grid needs. */}
+      {/* A page that marks itself data-wide (the sample workspace) gets the width its grid needs; the top bar and footer follow it. */}
       <main className="mx-auto w-full max-w-6xl flex-1 px-6 py-8 has-[[data-wide]]:max-w-[120rem]">{children}</main>
       <footer className="border-t border-ink-line">
-        <div className="mx-auto max-w-6xl px-6 py-4">
+        <div className="mx-auto max-w-6xl px-6 py-4 group-has-[[data-wide]]:max-w-[120rem]">
           <JudgementNote />
         </div>
       </footer>

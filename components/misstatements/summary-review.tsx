@@ -6,17 +6,18 @@ import { Alert } from "@/components/ui/alert";
 import { Badge } from "@/components/ui/badge";
 import { Button } from "@/components/ui/button";
 import { Card } from "@/components/ui/card";
+import { ConfirmDialog } from "@/components/ui/confirm-dialog";
+import { ExplainedButton } from "@/components/ui/explained-button";
 import { useSummaryAction } from "./use-summary-action";
+import { SummaryNotes } from "./summary-notes";
 import { formatDateTime } from "@/lib/format/date";
 
 const when = formatDateTime;
-const NOTE_TONE = { open: "red", answered: "amber", cleared: "green" } as const;
 
 /** Sign-offs, review notes, lock and unlock of the summary. */
 export function SummaryReview({ view, role }: { view: SummaryView; role: EngagementRole }) {
-  const { act, busy, message } = useSummaryAction(view.engagement.id);
-  const [note, setNote] = useState("");
-  const [answers, setAnswers] = useState<Record<number, string>>({});
+  const { act, busy, message, setMessage } = useSummaryAction(view.engagement.id);
+  const [confirming, setConfirming] = useState(false);
   const r = view.review;
   const locked = r.lock !== null;
   const isReviewer = hasAtLeastRole(role, "manager");
@@ -78,33 +79,47 @@ export function SummaryReview({ view, role }: { view: SummaryView; role: Engagem
           )}
         </div>
         {!locked && (
-          <div className="flex flex-wrap gap-2">
-            {(role === "staff" || role === "senior") && (
-              <Button
-                variant="secondary"
-                disabled={busy}
-                onClick={() => void act("/sign-off", { body: { as: "preparer" } }, "Signed off as preparer.")}
-              >
-                Sign off as preparer
-              </Button>
-            )}
+          <div className="flex flex-wrap items-start gap-2">
+            {(role === "staff" || role === "senior") &&
+              (r.preparer ? (
+                <ExplainedButton
+                  variant="secondary"
+                  disabled
+                  why="You have signed off as preparer. A change to the rows clears it; then sign again."
+                >
+                  Signed off as preparer
+                </ExplainedButton>
+              ) : (
+                <ExplainedButton
+                  variant="secondary"
+                  disabled={busy}
+                  onClick={() => void act("/sign-off", { body: { as: "preparer" } }, "Signed off as preparer.")}
+                >
+                  Sign off as preparer
+                </ExplainedButton>
+              ))}
+            {isReviewer &&
+              (r.reviewer ? (
+                <ExplainedButton
+                  variant="secondary"
+                  disabled
+                  why="Signed off as reviewer. A change to the rows clears it."
+                >
+                  Signed off as reviewer
+                </ExplainedButton>
+              ) : (
+                <ExplainedButton
+                  variant="secondary"
+                  disabled={busy || r.reviewerBlocker !== null}
+                  why={r.reviewerBlocker ?? undefined}
+                  onClick={() => void act("/sign-off", { body: { as: "reviewer" } }, "Signed off as reviewer.")}
+                >
+                  Sign off as reviewer
+                </ExplainedButton>
+              ))}
             {isReviewer && (
-              <Button
-                variant="secondary"
-                disabled={busy}
-                onClick={() => void act("/sign-off", { body: { as: "reviewer" } }, "Signed off as reviewer.")}
-              >
-                Sign off as reviewer
-              </Button>
-            )}
-            {isReviewer && (
-              <Button
-                disabled={busy || !r.lockable.ok}
-                onClick={() =>
-                  void act("/lock", { body: {} }, "Locked: the workpaper is final and stored with its SHA-256.")
-                }
-              >
-                Lock the summary
+              <Button disabled={busy || !r.lockable.ok} onClick={() => setConfirming(true)}>
+                Lock the summary…
               </Button>
             )}
           </div>
@@ -116,89 +131,41 @@ export function SummaryReview({ view, role }: { view: SummaryView; role: Engagem
             ))}
           </ul>
         )}
+        <ConfirmDialog
+          open={confirming}
+          title="Lock the summary of misstatements?"
+          confirmLabel="Lock the summary"
+          busyLabel="Locking…"
+          busy={busy}
+          onCancel={() => setConfirming(false)}
+          onConfirm={() =>
+            void act("/lock", { body: {} }, "Locked: the workpaper is final and stored with its SHA-256.").then(() =>
+              setConfirming(false),
+            )
+          }
+        >
+          <p>Locking makes the summary final. It will:</p>
+          <ul className="list-disc space-y-1 pl-5">
+            <li>render the summary&apos;s workpaper (PDF) once and keep it with its SHA-256 fingerprint;</li>
+            <li>
+              freeze the rows, totals and status as they stand, and make entries, corrections, thresholds and review
+              notes read-only — only a partner can unlock, giving a reason.
+            </li>
+          </ul>
+        </ConfirmDialog>
         {locked && role === "partner" && (
           <Button variant="danger" disabled={busy} onClick={unlock}>
             Unlock (partner)
           </Button>
         )}
-        <section aria-label="Review notes" className="space-y-3 border-t border-ink-line pt-4">
-          <h3 className="text-sm font-semibold">Review notes</h3>
-          {view.notes.length === 0 && <p className="text-sm text-ink-faint">No review notes.</p>}
-          <ol className="space-y-3">
-            {view.notes.map((n) => (
-              <li key={n.id} className="rounded-md border border-ink-line bg-paper px-3 py-2 text-sm">
-                <div className="flex items-start justify-between gap-2">
-                  <p>{n.text}</p>
-                  <Badge tone={NOTE_TONE[n.status]}>{n.status}</Badge>
-                </div>
-                <p className="text-xs text-ink-faint">
-                  Raised by {n.raisedBy}, {when(n.raisedAt)}
-                </p>
-                {n.answer && (
-                  <p className="mt-1 border-l-2 border-ink-line pl-2">
-                    {n.answer} <span className="text-xs text-ink-faint">— {n.answeredBy}</span>
-                  </p>
-                )}
-                {!locked && n.status !== "cleared" && hasAtLeastRole(role, "staff") && (
-                  <div className="mt-2 flex gap-2">
-                    <label className="sr-only" htmlFor={`answer-${n.id}`}>
-                      Answer
-                    </label>
-                    <input
-                      id={`answer-${n.id}`}
-                      className="flex-1 rounded-md border border-ink-line bg-paper-raised px-2 py-1 text-sm"
-                      value={answers[n.id] ?? ""}
-                      onChange={(e) => setAnswers({ ...answers, [n.id]: e.target.value })}
-                    />
-                    <Button
-                      variant="secondary"
-                      className="px-2 py-1 text-xs"
-                      disabled={busy}
-                      onClick={() =>
-                        void act(`/notes/${n.id}/answer`, { body: { answer: answers[n.id] ?? "" } }, "Answered.")
-                      }
-                    >
-                      Answer
-                    </Button>
-                    {isReviewer && n.status === "answered" && (
-                      <Button
-                        variant="secondary"
-                        className="px-2 py-1 text-xs"
-                        disabled={busy}
-                        onClick={() => void act(`/notes/${n.id}/clear`, { body: {} }, "Cleared.")}
-                      >
-                        Clear
-                      </Button>
-                    )}
-                  </div>
-                )}
-              </li>
-            ))}
-          </ol>
-          {!locked && isReviewer && (
-            <form
-              className="flex gap-2"
-              onSubmit={(e) => {
-                e.preventDefault();
-                void act("/notes", { body: { text: note } }, "Note raised.").then((ok) => ok && setNote(""));
-              }}
-            >
-              <label className="sr-only" htmlFor="summary-note">
-                New review note
-              </label>
-              <input
-                id="summary-note"
-                placeholder="Raise a review note"
-                className="flex-1 rounded-md border border-ink-line bg-paper-raised px-3 py-2 text-sm"
-                value={note}
-                onChange={(e) => setNote(e.target.value)}
-              />
-              <Button type="submit" variant="secondary" disabled={busy}>
-                Raise
-              </Button>
-            </form>
-          )}
-        </section>
+        <SummaryNotes
+          notes={view.notes}
+          role={role}
+          locked={locked}
+          busy={busy}
+          act={act}
+          refuse={(text) => setMessage({ tone: "error", text })}
+        />
       </div>
     </Card>
   );

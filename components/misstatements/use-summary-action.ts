@@ -1,7 +1,7 @@
 "use client";
 import { useState } from "react";
 import { useRouter } from "next/navigation";
-import { apiFetch } from "@/components/ui/api";
+import { apiFetch, plainMessage } from "@/components/ui/api";
 
 /** Calls a summary route, then refreshes the server-rendered view; keeps the last message for an Alert. */
 export function useSummaryAction(engagementId: number) {
@@ -22,7 +22,7 @@ export function useSummaryAction(engagementId: number) {
       router.refresh();
       return true;
     } catch (err) {
-      setMessage({ tone: "error", text: (err as Error).message });
+      setMessage({ tone: "error", text: plainMessage(err) });
       onError?.(err);
       return false;
     } finally {

@@ -3,7 +3,7 @@ import { useState } from "react";
 import { hasAtLeastRole, type EngagementRole } from "@/lib/auth/roles";
 import type { ReviewNote } from "@/lib/data/review-notes";
 import { AnswerNoteSchema, RaiseNoteSchema } from "@/lib/validation/review";
-import { apiFetch, ApiError } from "@/components/ui/api";
+import { apiFetch, plainMessage } from "@/components/ui/api";
 import { Alert } from "@/components/ui/alert";
 import { Badge } from "@/components/ui/badge";
 import { Button } from "@/components/ui/button";
@@ -26,9 +26,7 @@ interface Props {
   onChanged: () => void;
 }
 
-/** The plain words of a refusal: a field's own message rather than "Invalid input — answer: …". */
-const plain = (err: unknown) =>
-  err instanceof ApiError && err.fields ? (Object.values(err.fields)[0]?.[0] ?? err.message) : (err as Error).message;
+const plain = plainMessage;
 
 export function ReviewNotes({ engagementId, sampleId, role, notes, locked, items, onChanged }: Props) {
   const [text, setText] = useState("");

@@ -1,5 +1,5 @@
 "use client";
-import { useId, useState } from "react";
+import { useState } from "react";
 import { useRouter } from "next/navigation";
 import { hasAtLeastRole, type EngagementRole } from "@/lib/auth/roles";
 import type { ReviewState } from "@/lib/review/review-state";
@@ -9,6 +9,7 @@ import { Alert } from "@/components/ui/alert";
 import { Badge } from "@/components/ui/badge";
 import { Button, buttonClass } from "@/components/ui/button";
 import { Card } from "@/components/ui/card";
+import { ExplainedButton as Action } from "@/components/ui/explained-button";
 import { ReviewNotes, type NoteItem } from "./review-notes";
 import { ConclusionForm } from "./conclusion-form";
 import type { ComputedResult } from "@/lib/samples/evaluation-types";
@@ -235,22 +236,5 @@ export function ReviewPanel({
         />
       </div>
     </Card>
-  );
-}
-
-/** A button that, when it cannot be used, looks disabled and says why beside it. */
-function Action({ why, children, ...props }: React.ComponentProps<typeof Button> & { why?: string }) {
-  const id = useId();
-  return (
-    <span className="inline-flex flex-col gap-1">
-      <Button {...props} aria-describedby={why ? id : undefined}>
-        {children}
-      </Button>
-      {why && (
-        <span id={id} className="max-w-48 text-xs text-ink-soft">
-          {why}
-        </span>
-      )}
-    </span>
   );
 }

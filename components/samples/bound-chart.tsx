@@ -21,6 +21,17 @@ const W = 640,
   ROW = 46,
   TOP = 30;
 
+/** Round steps for the axis (1, 2, 2.5 or 5 × 10^k) from 0 to at most `max`, about four of them (common practice). */
+export function axisTicks(max: number): number[] {
+  if (!(max > 0) || !Number.isFinite(max)) return [0];
+  const rough = max / 4;
+  const power = 10 ** Math.floor(Math.log10(rough));
+  const step = [1, 2, 2.5, 5, 10].map((m) => m * power).find((s) => s >= rough)!;
+  const ticks: number[] = [];
+  for (let i = 0; i * step <= max * (1 + 1e-12); i++) ticks.push(Number((i * step).toPrecision(12)));
+  return ticks;
+}
+
 /**
  * Each direction as a bar: solid to the projected (most likely) figure, lighter on to the upper
  * bound, against a marked line at the tolerable figure. Outside the line means not supported.
@@ -40,12 +51,12 @@ export function BoundChart({
   );
   const x = (v: number) => LEFT + (Math.max(0, v) / max) * (W - LEFT - RIGHT);
   const height = TOP + rows.length * ROW + 22;
-  const ticks = [0, 0.25, 0.5, 0.75, 1].map((f) => f * max);
+  const ticks = axisTicks(max);
   return (
     <figure className="space-y-1">
       <svg
         viewBox={`0 0 ${W} ${height}`}
-        className="w-full"
+        className="w-full max-w-3xl"
         role="img"
         aria-label={`${title}: ${rows.map((r) => `${r.label} projected ${format(r.projected)}, upper bound ${format(r.upper)}`).join("; ")}; ${tolerableLabel} ${format(tolerable)}`}
       >

@@ -1,10 +1,10 @@
 import type { SampleRecord } from "@/lib/data/samples";
 import type { SampleItemRecord } from "@/lib/data/sample-items";
-import { METHOD_LABELS, type SampleMethod } from "@/lib/validation/sample";
+import { DIRECTION_LABELS, METHOD_LABELS, type SampleMethod } from "@/lib/validation/sample";
 import { textOf } from "@/lib/format/text";
 import { ITEM_STATUS_LABELS as SHARED_ITEM_STATUS_LABELS } from "@/lib/fieldwork/field-labels";
 
-export { METHOD_LABELS };
+export { DIRECTION_LABELS, METHOD_LABELS };
 
 /** Short names for lists, where the full method label is too long. */
 export const METHOD_SHORT: Record<SampleMethod, string> = {
@@ -23,12 +23,6 @@ export const ESTIMATOR_LABELS: Record<string, string> = {
   regression: "Regression",
   "separate-ratio": "Separate ratio",
   "combined-ratio": "Combined ratio",
-};
-
-export const DIRECTION_LABELS: Record<SampleRecord["direction"], string> = {
-  overstatement: "Overstatement",
-  understatement: "Understatement",
-  both: "Both directions",
 };
 
 export const SAMPLE_STATUS_LABELS: Record<SampleRecord["status"], string> = {

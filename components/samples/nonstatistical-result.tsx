@@ -1,6 +1,7 @@
 import type { NonstatisticalEvaluationBlock } from "@/lib/samples/evaluation-types";
 import { Amount } from "@/components/ui/amount";
 import { Table, Th, Td } from "@/components/ui/table";
+import { DIRECTION_LABELS } from "@/lib/validation/sample";
 
 const amt = (v: string) => <Amount value={v} />;
 const METHOD = {
@@ -39,7 +40,12 @@ export function NonstatisticalResult({ n }: { n: NonstatisticalEvaluationBlock }
     ],
     ["Total projected misstatement", amt(n.totalProjected), "ns-total"],
     ...(n.comparedAmount !== n.totalProjected
-      ? [[`Compared with tolerable misstatement (${n.direction})`, amt(n.comparedAmount)] as [string, React.ReactNode]]
+      ? [
+          [
+            `Compared with tolerable misstatement (${DIRECTION_LABELS[n.direction].toLowerCase()} tested)`,
+            amt(n.comparedAmount),
+          ] as [string, React.ReactNode],
+        ]
       : []),
     ["Tolerable misstatement", amt(n.tolerableMisstatement)],
     ["Expected misstatement used in planning", amt(n.expectedMisstatement)],

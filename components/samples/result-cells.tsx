@@ -91,9 +91,13 @@ export function AuditedValueCell() {
 
 export function MisstatementCell() {
   const { item, form } = useRowEditor();
+  const treatment = useUnauditableTreatment();
   const status = form.watch("status");
   const audited = form.watch("auditedValue");
-  const m = item.status === "void" ? null : liveMisstatement(item.bookValue, { status, auditedValue: audited });
+  const m =
+    item.status === "void"
+      ? null
+      : liveMisstatement(item.bookValue, { status, auditedValue: audited }, treatment?.direction ?? "overstatement");
   if (m === null) return <span className="text-ink-faint">—</span>;
   const zero = m === "0.00";
   return (
@@ -132,7 +136,7 @@ export function StatusCell() {
       </select>
       {status === "not-auditable" && treatment && (
         <span id={treatmentId} className="mt-0.5 block text-xs text-amber-700" data-testid="row-unauditable-treatment">
-          {treatment}
+          {treatment.unauditableOnRow}
         </span>
       )}
       {item.updatedByName && <span className="mt-0.5 block text-xs text-ink-faint">saved by {item.updatedByName}</span>}

@@ -1,6 +1,7 @@
 import type { SampleItemRecord } from "@/lib/data/sample-items";
 import { SaveResultSchema } from "@/lib/validation/sample";
-import { centsToDecimal, decimalToCents } from "@/lib/money";
+import { itemMisstatement } from "@/lib/samples/item-misstatement";
+import type { TestDirection } from "@/lib/sampling";
 import type { z } from "zod";
 
 /** One row's result as the grid edits it: plain strings, a yes/no for deviations. */
@@ -45,12 +46,17 @@ export function saveBodyOf(v: RowValues, version: number, attribute: boolean): S
 }
 
 /**
- * Misstatement as the auditor types (book − audited; an item that could not be audited counts in
- * full), exact in cents; null while there is no usable audited value.
+ * Misstatement as the auditor types (book − audited), exact in cents, as the evaluation counts it: an
+ * item that could not be audited counts in full in the direction tested (lib/samples/item-misstatement.ts);
+ * null while there is no usable audited value.
  */
-export function liveMisstatement(book: string, v: Pick<RowValues, "status" | "auditedValue">): string | null {
-  if (v.status === "not-auditable") return book;
+export function liveMisstatement(
+  book: string,
+  v: Pick<RowValues, "status" | "auditedValue">,
+  direction: TestDirection,
+): string | null {
+  if (v.status === "not-auditable") return itemMisstatement(v.status, book, null, direction);
   const parsed = SaveResultSchema.shape.auditedValue.safeParse(v.auditedValue);
   if (v.auditedValue.trim() === "" || !parsed.success || parsed.data == null) return null;
-  return centsToDecimal(decimalToCents(book) - decimalToCents(parsed.data));
+  return itemMisstatement("done", book, parsed.data, direction);
 }

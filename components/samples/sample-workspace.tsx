@@ -188,7 +188,9 @@ export function SampleWorkspace({
               <ProgressStrip progress={evaluation.progress} attribute={attribute} />
             </Card>
             <Card title="Items and results">
-              <UnauditableTreatment.Provider value={evaluation.unauditableOnRow}>
+              <UnauditableTreatment.Provider
+                value={{ unauditableOnRow: evaluation.unauditableOnRow, direction: evaluation.direction }}
+              >
                 <FieldworkGrid
                   engagementId={engagementId}
                   sampleId={sample.id}

@@ -1,14 +1,8 @@
 import type { StratifiedEvaluationBlock, VariablesEvaluationBlock } from "@/lib/samples/evaluation-types";
 import { Amount } from "@/components/ui/amount";
-import { ESTIMATOR_LABELS } from "./labels";
+import { DIRECTION_LABELS, ESTIMATOR_LABELS } from "./labels";
 import { formatPercent } from "@/lib/format/number";
 import { Table, THead, Th, Td } from "@/components/ui/table";
-
-const DIRECTIONS = {
-  overstatement: "overstatement only",
-  understatement: "understatement only",
-  both: "both directions",
-} as const;
 
 /** Key items and accepted anomalies taken at actual outside the estimator, when there are any. */
 function atActualRows(v: VariablesEvaluationBlock | StratifiedEvaluationBlock): [string, React.ReactNode, string?][] {
@@ -49,7 +43,7 @@ export function VariablesResult({ v }: { v: VariablesEvaluationBlock | Stratifie
   const rows: [string, React.ReactNode, string?][] = [
     [
       "Estimator",
-      `${ESTIMATOR_LABELS[v.estimator] ?? v.estimator}${v.method === "stratified" ? " (stratified)" : ""}, ${DIRECTIONS[d.direction]}`,
+      `${ESTIMATOR_LABELS[v.estimator] ?? v.estimator}${v.method === "stratified" ? " (stratified)" : ""}, tested for ${DIRECTION_LABELS[d.direction].toLowerCase()}`,
     ],
     ["Recorded book value (X)", <Amount key="bv" value={v.populationBookValue} />],
     ...atActualRows(v),

@@ -30,7 +30,7 @@ export function ShellBar({
 }) {
   return (
     <header className="border-b border-ink-line bg-paper-raised/90 backdrop-blur">
-      <div className={`mx-auto flex h-14 ${width} items-center gap-6 px-6`}>
+      <div className={`mx-auto flex h-14 ${width} items-center gap-6 px-6 group-has-[[data-wide]]:max-w-[120rem]`}>
         <Link href={home.href} aria-label={home.label}>
           <Logo />
         </Link>

@@ -16,6 +16,10 @@ export class ApiError extends Error {
   }
 }
 
+/** A refusal in plain words: a field's own message rather than "Invalid input — answer: …". */
+export const plainMessage = (err: unknown): string =>
+  err instanceof ApiError && err.fields ? (Object.values(err.fields)[0]?.[0] ?? err.message) : (err as Error).message;
+
 /** The error answer every route handler sends: `{ error: { code, message, fields? } }`. */
 export interface ErrorAnswer {
   error?: { code?: string; message?: string; fields?: Record<string, string[]>; problems?: unknown };

@@ -30,6 +30,7 @@ import {
 } from "./runner";
 import { jobUnits, type AdvisorJob } from "./compute";
 import { ADVISED_METHODS } from "./methods";
+import { countOf, formatCount } from "@/lib/format/number";
 
 /** 409 unless the advisor applies: a plan not yet drawn, with a classical or monetary-unit method. */
 export function assertAdvisable(sample: SampleRecord) {
@@ -128,7 +129,10 @@ export async function startAdvisorRun(
   const frame = await loadFrame(db, { populationId: sample.populationId });
   for (const n of input.sampleSizes) {
     if (n > frame.bookValues.length)
-      throw fieldError("sampleSizes", `${n} is more than the population's ${frame.bookValues.length} items`);
+      throw fieldError(
+        "sampleSizes",
+        `${formatCount(n)} is more than the population's ${countOf(frame.bookValues.length, "item")}`,
+      );
   }
   const request: AdvisorRequest = {
     ...(await resolveScenario(db, ctx, input, sample)),

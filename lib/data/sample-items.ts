@@ -12,7 +12,8 @@ import type { Cursor, KeysetPage } from "@/lib/validation/keyset";
 import { beginResultWrite } from "@/lib/samples/guard";
 import { ANOMALY_CLEARED } from "@/lib/samples/anomalies";
 import { AppError, notFound } from "@/lib/errors";
-import { centsToDecimal, decimalToCents } from "@/lib/money";
+import { itemMisstatement } from "@/lib/samples/item-misstatement";
+import type { TestDirection } from "@/lib/sampling";
 import { formatDateTime } from "@/lib/format/date";
 
 export interface SampleItemRecord {
@@ -43,7 +44,7 @@ export interface SampleItemRecord {
   replacesItemId: number | null;
   status: "not-started" | "done" | "not-auditable" | "void";
   auditedValue: string | null;
-  /** Book minus audited (overstatement positive); an unauditable item counts as fully misstated. */
+  /** Book minus audited (overstatement positive); an unauditable item counts in full in the sample's tested direction (lib/samples/item-misstatement.ts). */
   misstatement: string | null;
   cause: string | null;
   causeNote: string | null;
@@ -57,12 +58,6 @@ export interface SampleItemRecord {
   version: number;
   updatedAt: string | null;
   updatedByName: string | null;
-}
-
-export function misstatementOf(status: string, book: string, audited: string | null): string | null {
-  if (status === "not-auditable") return book;
-  if (status !== "done" || audited === null) return null;
-  return centsToDecimal(decimalToCents(book) - decimalToCents(audited));
 }
 
 const HitPointsSchema = z.array(z.number()).nullable();
@@ -88,7 +83,12 @@ function toItem(r: Record<string, unknown>): SampleItemRecord {
     replacesItemId: r.replaces_item_id === null ? null : Number(r.replaces_item_id),
     status: r.status as SampleItemRecord["status"],
     auditedValue: audited,
-    misstatement: misstatementOf(String(r.status), String(r.book_value), audited),
+    misstatement: itemMisstatement(
+      String(r.status),
+      String(r.book_value),
+      audited,
+      (r.sample_direction as TestDirection | null) ?? "overstatement",
+    ),
     cause: (r.cause as string | null) ?? null,
     causeNote: (r.cause_note as string | null) ?? null,
     deviation: r.deviation === null ? null : Boolean(r.deviation),
@@ -122,6 +122,10 @@ const evidenceCount = (db: Knex) =>
     "(select count(*) from item_evidence e where e.sample_item_id = i.id and e.deleted_at is null) as evidence_count",
   );
 
+/** The direction the item's sample tests, which says how an item that could not be audited counts (samples). */
+const sampleDirection = (db: Knex) =>
+  db.raw("(select s.direction from samples s where s.id = i.sample_id) as sample_direction");
+
 /** Names of the people behind a pick and an anomaly mark (users). */
 const peopleNames = (db: Knex) => [
   db.raw("(select p.name from users p where p.id = i.picked_by) as picked_by_name"),
@@ -139,7 +143,14 @@ function itemQuery(db: Knex, drawId: number) {
   const q = db("sample_items as i")
     .leftJoin("users as u", "u.id", "i.updated_by")
     .where("i.draw_id", drawId)
-    .select("i.*", "u.name as updated_by_name", evidenceCount(db), requestStatus(db), ...peopleNames(db));
+    .select(
+      "i.*",
+      "u.name as updated_by_name",
+      evidenceCount(db),
+      requestStatus(db),
+      sampleDirection(db),
+      ...peopleNames(db),
+    );
   return q;
 }
 
@@ -168,7 +179,14 @@ export async function listItemsByDrawId(
   const rows = base
     .clone()
     .leftJoin("users as u", "u.id", "i.updated_by")
-    .select("i.*", "u.name as updated_by_name", evidenceCount(db), requestStatus(db), ...peopleNames(db));
+    .select(
+      "i.*",
+      "u.name as updated_by_name",
+      evidenceCount(db),
+      requestStatus(db),
+      sampleDirection(db),
+      ...peopleNames(db),
+    );
   const from = seekFromQuery({ after, before, last: last ?? false, page, pageSize }, total);
   const seek = await seekPage<Record<string, unknown>>(
     rows,

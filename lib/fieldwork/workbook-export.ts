@@ -5,6 +5,7 @@ import { listItemsByDrawId, type SampleItemRecord } from "@/lib/data/sample-item
 import { conflict } from "@/lib/errors";
 import { loadSampleView } from "@/lib/samples/context";
 import { JUDGEMENT_CAUTION } from "@/lib/samples/evaluate";
+import type { TestDirection } from "@/lib/sampling";
 import { CAUSE_LABELS, MISSTATEMENT_CAUSES } from "@/lib/validation/sample";
 import { safeCellText } from "./cell-text";
 import { writeCoverSheet } from "./workbook-cover";
@@ -42,17 +43,22 @@ export function selectedAsText(item: Pick<SampleItemRecord, "keyItem" | "keyReas
   return item.pickedAt ? "Haphazard pick" : "Sample";
 }
 
+/** The misstatement column's formula: book − audited; an item that could not be audited counts in full in the direction tested (lib/samples/item-misstatement.ts). */
+function misstatementFormula(letter: (k: ColumnKey) => string, row: number, direction: TestDirection) {
+  const book = `${letter("bookValue")}${row}`;
+  const audited = `${letter("auditedValue")}${row}`;
+  const unauditable = direction === "understatement" ? `-ABS(${book})` : book;
+  return `IF(${letter("status")}${row}="${STATUS_LABELS["not-auditable"]}",${unauditable},IF(${audited}="","",${book}-${audited}))`;
+}
+
 function cellValues(
   kind: WorkbookKind,
   item: SampleItemRecord,
   letter: (k: ColumnKey) => string,
   row: number,
+  direction: TestDirection,
 ): Partial<Record<ColumnKey, ExcelJS.CellValue>> {
   const r = resultOfItem(item);
-  const misstatementFormula =
-    kind === "deviations"
-      ? ""
-      : `IF(${letter("status")}${row}="${STATUS_LABELS["not-auditable"]}",${letter("bookValue")}${row},IF(${letter("auditedValue")}${row}="","",${letter("bookValue")}${row}-${letter("auditedValue")}${row}))`;
   return {
     order: item.selectionOrder,
     itemRef: safeCellText(item.itemRef),
@@ -69,7 +75,10 @@ function cellValues(
     misstatement:
       kind === "deviations"
         ? null
-        : { formula: misstatementFormula, result: item.misstatement === null ? "" : Number(item.misstatement) },
+        : {
+            formula: misstatementFormula(letter, row, direction),
+            result: item.misstatement === null ? "" : Number(item.misstatement),
+          },
     itemId: item.id,
     version: item.version,
     exported: resultFingerprint(kind, r),
@@ -103,7 +112,12 @@ const VALIDATIONS: Partial<Record<ColumnKey, ExcelJS.DataValidation>> = {
   },
 };
 
-function writeItemsSheet(wb: ExcelJS.Workbook, kind: WorkbookKind, items: SampleItemRecord[]) {
+function writeItemsSheet(
+  wb: ExcelJS.Workbook,
+  kind: WorkbookKind,
+  items: SampleItemRecord[],
+  direction: TestDirection,
+) {
   const ws = wb.addWorksheet(ITEMS_SHEET, { views: [{ state: "frozen", ySplit: 1 }] });
   const columns = columnsFor(kind);
   ws.columns = columns.map((c) => ({ key: c.key, header: c.header, width: c.width, hidden: c.hidden ?? false }));
@@ -111,7 +125,7 @@ function writeItemsSheet(wb: ExcelJS.Workbook, kind: WorkbookKind, items: Sample
   const letter = (k: ColumnKey) => ws.getColumn(k).letter;
   items.forEach((item, i) => {
     const rowNumber = i + 2;
-    const row = ws.addRow(cellValues(kind, item, letter, rowNumber));
+    const row = ws.addRow(cellValues(kind, item, letter, rowNumber, direction));
     for (const c of columns) {
       const cell = row.getCell(c.key);
       if (c.key === "bookValue" || c.key === "auditedValue" || c.key === "misstatement") cell.numFmt = MONEY_FORMAT;
@@ -151,7 +165,7 @@ export async function buildFieldworkWorkbook(
     exportedBy,
     caution: JUDGEMENT_CAUTION,
   });
-  writeItemsSheet(wb, kind, items);
+  writeItemsSheet(wb, kind, items, view.sample.direction);
   const bytes = Buffer.from(await wb.xlsx.writeBuffer());
   const slug =
     view.sample.name

@@ -7,6 +7,7 @@ import type { EngagementRole } from "@/lib/auth/roles";
 import { AppError, conflict, forbidden } from "@/lib/errors";
 import { putObjectBytes } from "@/lib/storage/objects";
 import { assertSummaryUnlocked, lockSummaryRow, SUMMARY_LOCKED_MESSAGE } from "./guard";
+import { summaryReviewerSignOffBlocker } from "./sign-off-blockers";
 import { buildLiveSummary } from "./summary-view";
 import type { SummaryView } from "./types";
 
@@ -51,17 +52,12 @@ export async function signSummaryAsReviewer(
   const view = await buildLiveSummary(db, { engagementId });
   await db.transaction(async (trx) => {
     const row = await assertSummaryUnlocked(trx, engagementId);
-    if (!row.preparer_signed_at) throw conflict("The preparer has not signed off yet.");
-    if (row.signed_rows_sha256 !== view.rowsSha256)
-      throw conflict(
-        "The rows changed after the preparer signed off (a sample's results moved); the preparer must sign off again.",
-      );
-    if (view.review.openNotes > 0)
-      throw new AppError(
-        409,
-        "open_notes",
-        `${view.review.openNotes} review note${view.review.openNotes === 1 ? " is" : "s are"} not cleared; clear them before signing off.`,
-      );
+    const blocker = summaryReviewerSignOffBlocker({
+      preparerSigned: Boolean(row.preparer_signed_at),
+      rowsChanged: row.signed_rows_sha256 !== view.rowsSha256,
+      openNotes: view.review.openNotes,
+    });
+    if (blocker) throw new AppError(409, blocker.code, blocker.message);
     await updateSummaryByEngagementId(trx, {
       engagementId,
       patch: { reviewer_signed_by: actorId, reviewer_signed_role: role, reviewer_signed_at: trx.fn.now(3) },

@@ -16,6 +16,7 @@ import { loadSampleContribution } from "./from-sample";
 import { listSummaryNotes } from "./notes";
 import { listSummaryTrail } from "./trail";
 import { entryReference, entryRow, sampleReference, sampleRows } from "./rows";
+import { summaryReviewerSignOffBlocker } from "./sign-off-blockers";
 import type { SummaryReview, SummarySampleLine, SummaryView } from "./types";
 
 export const SUMMARY_CAUTION =
@@ -114,6 +115,12 @@ export async function buildLiveSummary(db: Knex, { engagementId }: { engagementI
         }
       : null,
     openNotes,
+    reviewerBlocker:
+      summaryReviewerSignOffBlocker({
+        preparerSigned: settings.preparer !== null,
+        rowsChanged: staleSignOffs,
+        openNotes,
+      })?.message ?? null,
     lockable: lockability(samples, openNotes, sign(settings.reviewer) !== null),
   };
   return {
@@ -169,7 +176,12 @@ export async function loadSummaryView(db: Knex, { engagementId }: { engagementId
     const { objectKey: _k, ...lock } = settings.lock;
     return {
       ...frozen,
-      review: { ...frozen.review, lock, lockable: { ok: false, reasons: ["The summary is locked."] } },
+      review: {
+        ...frozen.review,
+        lock,
+        reviewerBlocker: "The summary is locked.",
+        lockable: { ok: false, reasons: ["The summary is locked."] },
+      },
     };
   }
   return buildLiveSummary(db, { engagementId });

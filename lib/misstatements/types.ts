@@ -131,6 +131,8 @@ export interface SummaryReview {
   staleSignOffs: boolean;
   lock: { name: string; at: string; workpaperSha256: string; workpaperBytes: number; reference: string } | null;
   openNotes: number;
+  /** Why a reviewer cannot sign off now (the server's 409 in the same words), or null when they can. */
+  reviewerBlocker: string | null;
   lockable: { ok: boolean; reasons: string[] };
 }
 

@@ -9,6 +9,7 @@ import { evaluationFor } from "@/lib/samples/context";
 import { beginSampleWrite } from "@/lib/samples/guard";
 import type { SampleEvaluation } from "@/lib/samples/evaluate";
 import type { AuditorConclusion } from "@/lib/validation/conclusion";
+import { countOf, formatCount } from "@/lib/format/number";
 
 const fieldError = (field: string, message: string) =>
   new AppError(400, "invalid_input", `${field}: ${message}`, { [field]: [message] });
@@ -45,7 +46,7 @@ export async function recordAuditorConclusion(
     throw new AppError(
       409,
       "incomplete",
-      `${evaluation.progress.notStarted} of ${evaluation.progress.total} items have no result yet; conclude once every item has one.`,
+      `${formatCount(evaluation.progress.notStarted)} of ${countOf(evaluation.progress.total, "item")} ${evaluation.progress.notStarted === 1 ? "has" : "have"} no result yet; conclude once every item has one.`,
     );
   if (evaluation.computed.status === "not-evaluable")
     throw conflict(`The sample cannot be evaluated yet: ${evaluation.computed.statement}`);

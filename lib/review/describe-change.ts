@@ -1,6 +1,7 @@
-import { CAUSE_LABELS, METHOD_LABELS } from "@/lib/validation/sample";
+import { CAUSE_LABELS, DIRECTION_LABELS, METHOD_LABELS } from "@/lib/validation/sample";
 import { FIELD_LABELS, ITEM_STATUS_LABELS } from "@/lib/fieldwork/field-labels";
 import { formatDate, formatDateTime } from "@/lib/format/date";
+import { formatBytes, formatMoney } from "@/lib/format/number";
 import { REQUEST_NEED_LABELS } from "@/lib/validation/requests";
 
 /**
@@ -75,6 +76,7 @@ const KEY_LABELS: Record<string, string> = {
   sha256: "SHA-256",
   fileName: "File",
   bytes: "Size (bytes)",
+  sizeBytes: "Size",
   reference: "Workpaper reference",
   role: "Role",
   title: "Title",
@@ -109,7 +111,15 @@ const KEY_LABELS: Record<string, string> = {
   workpaperObjectKey: "Stored workpaper",
 };
 
-const HIDDEN_KEYS = new Set(["contactUserId"]);
+const HIDDEN_KEYS = new Set(["contactUserId", "sampleItemId"]);
+/** Fractions people read as percentages. */
+const RATE_KEYS = new Set([
+  "confidence",
+  "riskOfIncorrectRejection",
+  "riskOfIncorrectAcceptance",
+  "expectedRate",
+  "tolerableRate",
+]);
 
 const humanise = (key: string) =>
   KEY_LABELS[key] ??
@@ -118,10 +128,6 @@ const humanise = (key: string) =>
     .replace(/[-_]/g, " ")
     .replace(/^./, (c) => c.toUpperCase())
     .replace(/ ([A-Z])/g, (_m, c: string) => ` ${c.toLowerCase()}`);
-const amount = (v: string) => {
-  const [w, f = "00"] = v.replace(/^-/, "").split(".");
-  return `${v.startsWith("-") ? "−" : ""}${w.replace(/\B(?=(\d{3})+(?!\d))/g, ",")}.${f.padEnd(2, "0")}`;
-};
 const MONEY_KEYS = new Set([
   "auditedValue",
   "bookValue",
@@ -140,10 +146,14 @@ export function showValue(key: string, v: unknown, ctx?: ChangeContext): string 
     return CAUSE_LABELS[v as keyof typeof CAUSE_LABELS];
   if (key === "method" && typeof v === "string" && v in METHOD_LABELS)
     return METHOD_LABELS[v as keyof typeof METHOD_LABELS];
+  if (key === "direction" && typeof v === "string" && v in DIRECTION_LABELS)
+    return DIRECTION_LABELS[v as keyof typeof DIRECTION_LABELS];
   if (key === "deviation" && typeof v === "boolean") return v ? "Deviation" : "No deviation";
   if (key === "itemId" && ctx) return ctx.itemRefs.get(String(v)) ?? `an item no longer in the draw`;
-  if (MONEY_KEYS.has(key) && /^-?\d+(\.\d+)?$/.test(String(v))) return amount(String(v));
-  if (key === "confidence" && typeof v === "number") return `${Number((v * 100).toPrecision(6))}%`;
+  if (MONEY_KEYS.has(key) && /^-?\d+(\.\d+)?$/.test(String(v))) return formatMoney(String(v));
+  if (RATE_KEYS.has(key) && typeof v === "number") return `${Number((v * 100).toPrecision(6))}%`;
+  if (key === "seed" && typeof v === "number") return String(v);
+  if (key === "sizeBytes" && typeof v === "number") return formatBytes(v);
   if (typeof v === "boolean") return v ? "yes" : "no";
   if (key === "needs" && typeof v === "string" && v in REQUEST_NEED_LABELS)
     return REQUEST_NEED_LABELS[v as keyof typeof REQUEST_NEED_LABELS];

@@ -5,6 +5,7 @@
 import { decimalToCents } from "@/lib/money";
 import type { ComputedResult, EvaluationBlock } from "./evaluation-types";
 import { moneyWords } from "./evaluation-words";
+import { formatPercent } from "@/lib/format/number";
 
 /** Sondage's threshold: a limit within 10% of tolerable calls for a recorded response even when supported. */
 export const CLOSE_TO_TOLERABLE_SHARE = 0.1;
@@ -14,7 +15,7 @@ const pct = (v: number) => `${(v * 100).toFixed(2)}%`;
 function ruleOf(block: EvaluationBlock): string {
   switch (block.method) {
     case "mus":
-      return `Stringer bound at ${pct(block.confidence)} confidence, ${block.factorMode} factors; ${block.statement}`;
+      return `Stringer bound at ${formatPercent(block.confidence)} confidence, ${block.factorMode} factors; ${block.statement}`;
     case "nonstatistical":
       return `Nonstatistical evaluation, no statistical bound: the total projected misstatement compared with tolerable misstatement and with the "well below" amount (${block.wellBelowBasis}); ${block.statement}`;
     case "attributes":
@@ -22,7 +23,7 @@ function ruleOf(block: EvaluationBlock): string {
         ? `Firm control-frequency table (${block.controlFrequency.frequency} → ${block.controlFrequency.minimumSampleSize}): no deviation expected; ${block.statement}`
         : block.twoStage
           ? `Two-stage plan rule (accept on 0 deviations in stage 1, reject on 2 or more, 1 opens stage 2 accepted only on 0 more); ${block.statement}`
-          : `One-sided Clopper–Pearson upper deviation limit at ${pct(block.confidence)} confidence compared with the tolerable deviation rate; ${block.statement}`;
+          : `One-sided Clopper–Pearson upper deviation limit at ${formatPercent(block.confidence)} confidence compared with the tolerable deviation rate; ${block.statement}`;
     default:
       return block.decision.rule;
   }
@@ -127,7 +128,7 @@ export function computedResultOf(o: {
   const statement =
     o.block.method === "nonstatistical"
       ? `Computed by Sondage: the sample ${supported ? "supports" : "does not support"} ${what} — a nonstatistical evaluation, which claims no confidence level${o.block.verdict === "approaches" ? ": the total projected misstatement is below tolerable misstatement but not well below it" : ""}.`
-      : `Computed by Sondage: the sample ${supported ? "supports" : "does not support"} ${what} at ${pct(o.block.confidence)} confidence${close ? ", with the limit close to tolerable" : ""}.`;
+      : `Computed by Sondage: the sample ${supported ? "supports" : "does not support"} ${what} at ${formatPercent(o.block.confidence)} confidence${close ? ", with the limit close to tolerable" : ""}.`;
   return {
     status: supported ? "supported" : "not-supported",
     supported,

@@ -13,6 +13,7 @@ import {
   type EvaluatedItem,
 } from "./evaluation-blocks";
 import { computedResultOf } from "./computed-result";
+import { unauditableAuditedValue } from "./item-misstatement";
 import { UNAUDITABLE_ON_ROW, UNAUDITABLE_TREATMENT } from "./evaluation-words";
 import { evaluationSettingsOf } from "./evaluation-settings";
 import { methodologyOfSample } from "./methodology";
@@ -68,9 +69,7 @@ export const sidesFor = (direction: SampleRecord["direction"]): Sides =>
 /** An item that could not be audited is fully misstated in the direction tested (audited 0 for over, 2 × book for under). */
 export function auditedForEvaluation(it: SampleItemRecord, direction: SampleRecord["direction"]): Money {
   if (it.status !== "not-auditable") return it.auditedValue ?? it.bookValue;
-  if (direction !== "understatement") return "0.00";
-  const book = decimalToCents(it.bookValue);
-  return centsToDecimal(book + (book < 0n ? -book : book));
+  return unauditableAuditedValue(it.bookValue, direction);
 }
 
 export function progressOf(items: SampleItemRecord[]): Progress {

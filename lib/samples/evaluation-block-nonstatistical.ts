@@ -6,6 +6,7 @@ import { centsToDecimal, decimalToCents } from "@/lib/money";
 import { projectMisstatement, type ProjectionMethod, type TestDirection } from "@/lib/sampling";
 import type { Money, NonstatisticalEvaluationBlock } from "./evaluation-types";
 import { moneyWords } from "./evaluation-words";
+import { countOf } from "@/lib/format/number";
 
 export interface NonstatisticalItem {
   bookValue: Money;
@@ -96,7 +97,7 @@ export function buildNonstatisticalEvaluation(o: {
   if (o.haphazard) warnings.push(HAPHAZARD_NOTE);
   if (o.keyItems.length < o.keyItemsPlanned)
     warnings.push(
-      `${o.keyItemsPlanned - o.keyItems.length} key items have no result yet; key items are examined in full.`,
+      `${countOf(o.keyItemsPlanned - o.keyItems.length, "key item")} ${o.keyItemsPlanned - o.keyItems.length === 1 ? "has" : "have"} no result yet; key items are examined in full.`,
     );
   return {
     method: "nonstatistical",

@@ -4,6 +4,8 @@
  * as they are. Pure (no I/O), so the workpaper fixtures and tests build them too.
  */
 import { centsToDecimal, decimalToCents } from "@/lib/money";
+import { formatPercent } from "@/lib/format/number";
+import { CONTROL_FREQUENCY_LABELS } from "@/lib/validation/sample";
 import {
   classicalDecision,
   evaluateAttributes,
@@ -432,7 +434,7 @@ function controlFrequencyBlock(
     twoStage: null,
     supported,
     statement: supported
-      ? `No deviation in ${o.sampleSize} occurrence${o.sampleSize === 1 ? "" : "s"} tested (the firm's control-frequency table: ${row.frequency} → ${row.minimumSampleSize}): the test supports reliance on the control, subject to the auditor's judgement. For information, the upper deviation limit at ${pct(o.confidence)} confidence is ${pct(r.upperLimit)}.`
+      ? `No deviation in ${o.sampleSize} occurrence${o.sampleSize === 1 ? "" : "s"} tested (the firm's control-frequency table: ${(CONTROL_FREQUENCY_LABELS as Record<string, string>)[row.frequency] ?? row.frequency} → ${row.minimumSampleSize}): the test supports reliance on the control, subject to the auditor's judgement. For information, the upper deviation limit at ${formatPercent(o.confidence)} confidence is ${pct(r.upperLimit)}.`
       : `${o.deviations} deviation${o.deviations === 1 ? "" : "s"} in ${o.sampleSize} occurrences tested from the firm's control-frequency table: a frequency-based test expects none, so it does not support the planned reliance without further work (understand the cause, extend the test or test a compensating control).`,
     warnings: [
       "Sized from the firm's control-frequency table: not a statistical sample; the upper deviation limit is shown for information only.",

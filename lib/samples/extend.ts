@@ -15,6 +15,7 @@ import { loadFrame } from "./population-frame";
 import { computeSelection, type SelectionInputs } from "./select";
 import { insertSelectedItems } from "./draw";
 import { beginSampleWrite } from "./guard";
+import { countOf, formatCount } from "@/lib/format/number";
 
 const NOT_EXTENDABLE =
   "Monetary-unit and systematic selections are not extended or replaced item by item in Sondage: plan a further sample, or record the item as could not be audited (treated as fully misstated).";
@@ -39,10 +40,12 @@ async function assertAttributeExtension(db: Knex, sample: SampleRecord, drawId: 
   const deviations = items.filter((i) => Boolean(i.deviation) || i.status === "not-auditable").length;
   if (deviations !== 1)
     throw conflict(
-      `Stage 1 found ${deviations} deviations: the plan ${deviations === 0 ? "accepts" : "rejects"} at stage 1, with no stage 2.`,
+      `Stage 1 found ${countOf(deviations, "deviation")}: the plan ${deviations === 0 ? "accepts" : "rejects"} at stage 1, with no stage 2.`,
     );
   if (additional !== twoStage.secondStageSize)
-    throw conflict(`Stage 2 of this plan is exactly ${twoStage.secondStageSize} items (asked: ${additional}).`);
+    throw conflict(
+      `Stage 2 of this plan is exactly ${countOf(twoStage.secondStageSize, "item")} (asked: ${formatCount(additional)}).`,
+    );
 }
 
 /** Adds items to a drawn random or attribute sample by continuing down the same random-number ranking. */
@@ -62,7 +65,7 @@ export async function extendSample(
   const frame = await loadFrame(db, { populationId: sample.populationId });
   const from = draw.inputs.ranks!;
   if (from + additional > frame.bookValues.length)
-    throw conflict(`Only ${frame.bookValues.length - from} items are left to add.`);
+    throw conflict(`Only ${countOf(frame.bookValues.length - from, "item is", "items are")} left to add.`);
   const inputs: SelectionInputs = { ...draw.inputs, ranks: from + additional };
   const added = computeSelection(frame, inputs, draw.seed)
     .filter((it) => !it.keyItem)

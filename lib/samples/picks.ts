@@ -16,6 +16,7 @@ import { insertSelectedItems, isHaphazard } from "./draw";
 import { beginSampleWrite } from "./guard";
 import { loadFrame } from "./population-frame";
 import { mustExist } from "@/lib/data/must-exist";
+import { formatCount } from "@/lib/format/number";
 
 async function haphazardDraw(db: Knex, sample: SampleRecord) {
   if (sample.method !== "nonstatistical")
@@ -51,7 +52,7 @@ export async function addHaphazardPick(
     const picked = await countPickedItemsByDrawId(trx, { drawId: draw.id });
     if (picked >= sample.plan.chosenSize)
       throw conflict(
-        `The plan's ${sample.plan.chosenSize} items are all picked. Change the plan before drawing to pick more, or remove a pick without a result.`,
+        `${sample.plan.chosenSize === 1 ? "The plan's 1 item is picked." : `The plan's ${formatCount(sample.plan.chosenSize)} items are all picked.`} Change the plan before drawing to pick more, or remove a pick without a result.`,
       );
     const maxOrder = await getMaxSelectionOrderByDrawId(trx, { drawId: draw.id });
     await insertSelectedItems(trx, {

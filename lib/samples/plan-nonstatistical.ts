@@ -6,6 +6,7 @@ import type { SampleParams } from "@/lib/validation/sample";
 import type { Frame } from "./population-frame";
 import type { KeyItemsPlan } from "./key-items";
 import type { RiskSizing } from "./risk-sizing";
+import { countOf, formatCount } from "@/lib/format/number";
 
 /** What a nonstatistical plan fixes for its selection and evaluation (printed in the workpaper). */
 export interface NonstatisticalPlanPart {
@@ -80,10 +81,10 @@ export function planNonstatistical(
   const tmLabel = a.settings.expectedMisstatementAdjustment === "subtract-from-tolerable" ? "(TM − EM)" : "TM";
   const warnings = [...r.warnings, SELECTION_NOTES[selection]];
   if (r.raisedToMinimum)
-    warnings.push(`The firm's minimum of ${a.settings.minimumSampleSize} items raised the computed size.`);
+    warnings.push(`The firm's minimum of ${countOf(a.settings.minimumSampleSize, "item")} raised the computed size.`);
   if (r.sampleSize > remainderCount)
     warnings.push(
-      `The formula asks for ${r.sampleSize} items but only ${remainderCount} remain outside the key items: examine them all.`,
+      `The formula asks for ${countOf(r.sampleSize, "item")} but only ${formatCount(remainderCount)} ${remainderCount === 1 ? "remains" : "remain"} outside the key items: examine them all.`,
     );
   return {
     computedSize,

@@ -21,6 +21,7 @@ import { resolveSpread, type PriorSpread, type SpreadChoice } from "./plan-sprea
 import { remainderFrame, resolveKeyItems, type KeyItemsPlan } from "./key-items";
 import { riskSizing, type RiskSizing } from "./risk-sizing";
 import { planNonstatistical, type NonstatisticalPlanPart } from "./plan-nonstatistical";
+import { countOf, formatCount, formatMoney } from "@/lib/format/number";
 
 export interface PlannedStratum {
   number: number;
@@ -151,13 +152,13 @@ export function computePlan(
   if (keyItems && params.method !== "nonstatistical")
     plan.warnings = [
       ...plan.warnings,
-      `The size is computed on the ${keyItems.remainder.count} items outside the ${keyItems.count} key items (book value ${keyItems.remainder.total}); key items are examined in full and evaluated at their actual misstatement.`,
+      `The size is computed on the ${countOf(keyItems.remainder.count, "item")} outside the ${countOf(keyItems.count, "key item")} (book value ${formatMoney(keyItems.remainder.total)}); key items are examined in full and evaluated at their actual misstatement.`,
     ];
   if (keyItems && plan.chosenSize > keyItems.remainder.count) {
     throw fieldError(
       "sampleSize",
-      `at most ${keyItems.remainder.count} items remain outside the key items`,
-      `At most ${keyItems.remainder.count}`,
+      `at most ${countOf(keyItems.remainder.count, "item remains", "items remain")} outside the key items`,
+      `At most ${formatCount(keyItems.remainder.count)}`,
     );
   }
   if (params.sampleSize !== undefined && params.sampleSize < plan.computedSize && !params.sizeReason) {
@@ -168,7 +169,11 @@ export function computePlan(
     );
   }
   if (params.sampleSize !== undefined && params.sampleSize > plan.frameSize) {
-    throw fieldError("sampleSize", `at most ${plan.frameSize} items can be selected`, `At most ${plan.frameSize}`);
+    throw fieldError(
+      "sampleSize",
+      `at most ${countOf(plan.frameSize, "item")} can be selected`,
+      `At most ${formatCount(plan.frameSize)}`,
+    );
   }
   return plan;
 }
@@ -361,7 +366,7 @@ function planTwoStage(frame: Frame, p: SampleParams): SamplePlan {
       "expected size": Number(plan.expectedSampleSize.toFixed(2)),
     },
     warnings: [
-      `Stage 1: ${plan.firstStageSize} items. No deviation: rely on the control. Two or more: do not. Exactly one: draw stage 2 of ${plan.secondStageSize} more items, continuing the same random ranking; rely only if none of them deviates.`,
+      `Stage 1: ${countOf(plan.firstStageSize, "item")}. No deviation: rely on the control. Two or more: do not. Exactly one: draw stage 2 of ${countOf(plan.secondStageSize, "more item", "more items")}, continuing the same random ranking; rely only if none of them deviates.`,
     ],
   };
 }

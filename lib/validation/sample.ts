@@ -10,6 +10,12 @@ export type SampleMethod = (typeof SAMPLE_METHODS)[number];
 export const VARIABLES_ESTIMATORS = ["mean-per-unit", "difference", "ratio", "regression"] as const;
 export const STRATIFIED_ESTIMATORS = ["mean-per-unit", "difference", "separate-ratio", "combined-ratio"] as const;
 export const DIRECTIONS = ["overstatement", "understatement", "both"] as const;
+/** One set of words for the direction tested: the plan form and summary, the evaluation, the PDF. */
+export const DIRECTION_LABELS: Record<(typeof DIRECTIONS)[number], string> = {
+  overstatement: "Overstatement",
+  understatement: "Understatement",
+  both: "Overstatement and understatement",
+};
 /** Where a classical plan's expected standard deviation comes from (Cochran 1977 ch. 6–7: the spread that matters is the estimator's). */
 export const SPREAD_BASES = ["book-values", "prior-sample", "entered"] as const;
 export type SpreadBasis = (typeof SPREAD_BASES)[number];

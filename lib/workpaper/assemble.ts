@@ -22,6 +22,7 @@ import { loadChangeContext } from "@/lib/review/audit-trail";
 import { randomStartOf } from "@/lib/samples/random-start";
 import { listEvidenceIndexByDrawId } from "@/lib/data/item-evidence";
 import { getFirmNameById } from "@/lib/data/firms";
+import { countOf } from "@/lib/format/number";
 
 const moneyOrNull = (v: number | null) => (v === null ? null : money(v));
 const causeLabel = (cause: string) => CAUSE_LABELS[cause as keyof typeof CAUSE_LABELS] ?? cause;
@@ -123,7 +124,9 @@ export async function assembleWorkpaper(
       reconciliation: {
         controlTotal: population.controlTotal,
         controlSource:
-          population.controlCount === null ? null : `ledger / trial balance: ${population.controlCount} items`,
+          population.controlCount === null
+            ? null
+            : `ledger / trial balance: ${countOf(population.controlCount, "item")}`,
         difference: population.difference?.total ?? null,
         status:
           population.controlTotal === null

@@ -4,6 +4,7 @@ import { Callout, SubHead, Table } from "./primitives";
 import { s } from "./styles";
 import type { NonstatisticalEvaluationBlock } from "./workpaper-data";
 import { formatMoney } from "@/lib/format/number";
+import { DIRECTION_LABELS } from "@/lib/validation/sample";
 
 const METHOD = {
   ratio: "Σ misstatement ÷ sampled BV × remainder BV",
@@ -50,7 +51,15 @@ export function NonstatisticalEvaluation({ e, currency }: { e: NonstatisticalEva
           },
           { total: true, cells: ["Total projected misstatement", "", m(e.totalProjected)] },
           ...(e.comparedAmount !== e.totalProjected
-            ? [{ cells: [`Compared with TM (${e.direction})`, "", m(e.comparedAmount)] }]
+            ? [
+                {
+                  cells: [
+                    `Compared with TM (${DIRECTION_LABELS[e.direction].toLowerCase()} tested)`,
+                    "",
+                    m(e.comparedAmount),
+                  ],
+                },
+              ]
             : []),
           { cells: ["Tolerable misstatement", "TM", m(e.tolerableMisstatement)] },
           { cells: ["Expected misstatement used in planning", "EM", m(e.expectedMisstatement)] },

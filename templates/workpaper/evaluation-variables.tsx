@@ -5,6 +5,7 @@ import { Callout, Facts, SubHead, Table, type TableRow } from "./primitives";
 import { s } from "./styles";
 import type { StratifiedEvaluationBlock, VariablesEvaluationBlock, VariablesResultFigures } from "./workpaper-data";
 import { formatCount, formatFactor, formatMoney, formatRate } from "@/lib/format/number";
+import { DIRECTION_LABELS } from "@/lib/validation/sample";
 
 const ESTIMATE_FORMULA: Record<string, string> = {
   "mean-per-unit": "Ŷ = N · ȳ",
@@ -23,12 +24,6 @@ const VARIANCE_FORMULA: Record<string, string> = {
   "separate-ratio": "v = Σ_h v_h (ratio, per stratum)",
   "combined-ratio": "v = Σ_h N_h²(1−f_h)/n_h · s²(y − R_c x)_h",
 };
-
-const DIRECTION_WORDS = {
-  overstatement: "overstatement only",
-  understatement: "understatement only",
-  both: "both directions",
-} as const;
 
 /** Key items and accepted anomalies taken at actual outside the estimator (AS 2315.26; ISA 530 ¶13). */
 function atActualRows(e: VariablesEvaluationBlock | StratifiedEvaluationBlock, estimator: string): TableRow[] {
@@ -130,7 +125,7 @@ export function VariablesEvaluation({ e, currency }: { e: VariablesEvaluationBlo
           { label: "Estimator", value: estimatorName(e.estimator) },
           {
             label: "Confidence",
-            value: `${formatRate(e.confidence, 0)} (risk of incorrect acceptance ${formatRate(e.decision.riskOfIncorrectAcceptance, 0)}), ${DIRECTION_WORDS[e.decision.direction]}`,
+            value: `${formatRate(e.confidence, 0)} (risk of incorrect acceptance ${formatRate(e.decision.riskOfIncorrectAcceptance, 0)}), tested for ${DIRECTION_LABELS[e.decision.direction].toLowerCase()}`,
           },
           {
             label: "Population",
@@ -158,7 +153,7 @@ export function StratifiedEvaluation({ e, currency }: { e: StratifiedEvaluationB
           { label: "Estimator", value: `${estimatorName(e.estimator)} (stratified)` },
           {
             label: "Confidence",
-            value: `${formatRate(e.confidence, 0)} (risk of incorrect acceptance ${formatRate(e.decision.riskOfIncorrectAcceptance, 0)}), ${DIRECTION_WORDS[e.decision.direction]}`,
+            value: `${formatRate(e.confidence, 0)} (risk of incorrect acceptance ${formatRate(e.decision.riskOfIncorrectAcceptance, 0)}), tested for ${DIRECTION_LABELS[e.decision.direction].toLowerCase()}`,
           },
           {
             label: "Population",

@@ -2,12 +2,7 @@
 import { Text } from "@react-pdf/renderer";
 import { Facts, Paragraph, Section } from "./primitives";
 import type { WorkpaperData } from "./workpaper-data";
-
-const DIRECTIONS = {
-  overstatement: "Overstatement",
-  understatement: "Understatement",
-  both: "Overstatement and understatement",
-} as const;
+import { DIRECTION_LABELS } from "@/lib/validation/sample";
 
 export function ObjectiveSection({ data }: { data: WorkpaperData }) {
   const o = data.objective;
@@ -17,7 +12,7 @@ export function ObjectiveSection({ data }: { data: WorkpaperData }) {
       <Facts
         facts={[
           { label: "Assertion", value: o.assertion },
-          { label: "Direction tested", value: DIRECTIONS[o.direction] },
+          { label: "Direction tested", value: DIRECTION_LABELS[o.direction] },
           ...(o.misstatementDefinition
             ? [
                 {

@@ -12,6 +12,7 @@
  * - Optional facts are `null`, never omitted, so a missing value is visible in review.
  */
 import type { MethodRationaleBlock } from "@/lib/advisor/describe";
+import type { RiskSizing } from "@/lib/samples/risk-sizing";
 import type {
   EvaluationBlock,
   Estimator,
@@ -169,18 +170,8 @@ export interface PlanBlock {
   warnings: string[];
 }
 
-export interface SizingBlock {
-  basis: "risk-assessment" | "confidence-override" | "typed-confidence";
-  assessedRisk: string | null;
-  otherProceduresRisk: string | null;
-  tableFactor: number | null;
-  tableConfidence: number | null;
-  factor: number;
-  confidence: number;
-  /** Firm methodology version the plan was stamped with (0 = shipped defaults, from memory). */
-  tableVersion: number;
-  overrideReason: string | null;
-}
+/** How the plan's confidence and assurance factor were set: the plan's own record (lib/samples/risk-sizing.ts); tableVersion 0 = shipped defaults, from memory. */
+export type SizingBlock = RiskSizing;
 
 export interface KeyItemsBlock {
   threshold: Money | null;

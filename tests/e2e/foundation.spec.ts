@@ -1,5 +1,6 @@
 import { expect, test } from "@playwright/test";
 import { DEMO, SignInPage, type DemoRole } from "./pages/sign-in-page";
+import { engagementIdByClient, loadReconciledLedger } from "./pages/samples-population";
 
 // Which demo engagements each demo person is on (the invented scenario in db/seeds/demo-scenario.ts).
 const VISIBLE: Record<Exclude<DemoRole, "client">, string[]> = {
@@ -100,4 +101,47 @@ test("the firm admin sees the people list", async ({ page }) => {
   await expect(page).toHaveURL(/\/admin\/users$/);
   await expect(page.getByRole("table", { name: "People" }).getByText(DEMO.staff.email)).toBeVisible();
   await page.screenshot({ path: test.info().outputPath("people.png"), fullPage: true });
+});
+
+test("the engagement's samples table keeps each status badge on one line at 1280, 1440 and 1920 px", async ({
+  page,
+}) => {
+  await new SignInPage(page).signInAndWait("senior");
+  const engagementId = await engagementIdByClient(page.request, "Tessaly Outdoor Supply Inc.");
+  const population = await loadReconciledLedger(page.request, {
+    engagementId,
+    path: test.info().outputPath("ledger.csv"),
+    rows: 60,
+    seed: 1280,
+    name: "Receivables for the badge check",
+  });
+  const plan = (name: string) =>
+    page.request.post(`/api/engagements/${engagementId}/samples`, {
+      data: {
+        populationId: population.id,
+        name,
+        objective: "Confirm recorded receivables exist at the period end.",
+        assertion: "Existence",
+        direction: "overstatement",
+        params: { method: "mus", confidence: 0.95, tolerableMisstatement: "50000.00", factorMode: "table" },
+      },
+    });
+  expect((await plan("Badge check — planned")).status()).toBe(201);
+  const drawn = (await (await plan("Badge check — drawn")).json()).sample.id as number;
+  expect(
+    (await page.request.post(`/api/engagements/${engagementId}/samples/${drawn}/draw`, { data: { seed: 1 } })).status(),
+  ).toBe(201);
+  await page.goto(`/engagements/${engagementId}`);
+  const samples = page.getByRole("table", { name: "Samples" });
+  const planned = samples.getByText("Planned, not drawn", { exact: true });
+  const oneWord = samples.getByText("Drawn", { exact: true }).first();
+  await expect(planned.first()).toBeVisible();
+  for (const width of [1280, 1440, 1920]) {
+    await page.setViewportSize({ width, height: 900 });
+    // A wrapped badge is two lines tall; a one-word badge is always one line.
+    const oneLine = (await oneWord.boundingBox())!.height;
+    for (const badge of await planned.all())
+      expect((await badge.boundingBox())!.height).toBeLessThanOrEqual(oneLine + 1);
+    await samples.screenshot({ path: test.info().outputPath(`samples-table-${width}.png`) });
+  }
 });

@@ -4,11 +4,12 @@
  * for reviewers, 409 too early); sign-off needs them; result changes clear them; the engagement's
  * responses can be listed for the summary of misstatements; unaudited items count in the direction tested.
  */
+import ExcelJS from "exceljs";
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { getDb } from "@/db/knex";
 import { listResponsesByEngagementId } from "@/lib/data/auditor-conclusions";
 import { buildLiveSummary } from "@/lib/misstatements/summary-view";
-import { call } from "./support/call";
+import { call, callRaw } from "./support/call";
 import { auditCount, makeEngagement, makeFirm, makeUser } from "./support/factory";
 import {
   concludeSample,
@@ -21,6 +22,7 @@ import {
 } from "./support/samples";
 import * as conclusion from "@/app/api/engagements/[engagementId]/samples/[sampleId]/conclusion/route";
 import * as signOff from "@/app/api/engagements/[engagementId]/samples/[sampleId]/sign-off/route";
+import * as workbook from "@/app/api/engagements/[engagementId]/samples/[sampleId]/workbook/route";
 
 vi.mock("@/lib/auth/session-user", async () => (await import("./support/session")).sessionModule);
 
@@ -202,6 +204,23 @@ describe("an item that could not be audited", () => {
       "Evaluated as audited at twice its book value: an understatement equal to its book value.",
     );
     expect(ev.block.understatementCaution).toMatch(/understated items are less likely to be selected/);
+    // Issue 19: the grid, the progress total and the workbook print the misstatement the evaluation counts
+    // (book − audited with audited = 2 × book: minus the book value), never +book.
+    const minusBook = (-Number(target.bookValue)).toFixed(2);
+    const row = (await listSampleItems(staff, engagement, id)).find((i) => i.id === target.id)!;
+    expect(row.misstatement).toBe(minusBook);
+    expect(ev.progress.misstatementTotal).toBe(minusBook);
+    const wb = new ExcelJS.Workbook();
+    await wb.xlsx.load(
+      await (await callRaw(workbook.GET, "GET", { as: staff, params: { ...p(), sampleId: String(id) } })).arrayBuffer(),
+    );
+    const ws = wb.getWorksheet("Items")!;
+    const header: Record<string, number> = {};
+    ws.getRow(1).eachCell((cell, col) => (header[cell.text] = col));
+    const xlsxRow = ws.getRows(2, ws.rowCount - 1)!.find((r) => r.getCell(header["Item id"]).value === target.id)!;
+    const cell = xlsxRow.getCell(header["Misstatement (book − audited)"]).value as { formula: string; result: number };
+    expect(cell.result).toBe(Number(minusBook));
+    expect(cell.formula).toMatch(/="Could not be audited",-ABS\(D\d+\)/);
     const plan = (await getDb()("samples").where({ id }).first("plan_json"))!.plan_json;
     expect(JSON.stringify(plan)).toMatch(/Understatement tested by monetary-unit sampling/);
   });

@@ -128,6 +128,18 @@ describe("rows fed live from the sample's results", () => {
 });
 
 describe("sign-offs and the live rows", () => {
+  it("refuses the reviewer before the preparer has signed (409 in the words the page shows beside the disabled button)", async () => {
+    const before = (await getSummary()).json.summary.review;
+    expect(before).toMatchObject({ preparer: null, reviewer: null });
+    expect(before.reviewerBlocker).toBe(
+      "The preparer (staff or senior) signs off the summary first; the reviewer signs after.",
+    );
+    const r = await call(summarySignOff.POST, "POST", { as: manager, params: e(), body: { as: "reviewer" } });
+    expect(r.status).toBe(409);
+    expect(r.json.error).toEqual({ code: "preparer_not_signed", message: before.reviewerBlocker });
+    expect((await getSummary()).json.summary.review.reviewer).toBeNull();
+  });
+
   it("shows a sign-off as no longer applying when a sample's results move the rows, and refuses the reviewer until the preparer signs again", async () => {
     expect(
       (await call(summarySignOff.POST, "POST", { as: senior, params: e(), body: { as: "preparer" } })).status,
@@ -135,6 +147,7 @@ describe("sign-offs and the live rows", () => {
     expect((await getSummary()).json.summary.review).toMatchObject({
       staleSignOffs: false,
       preparer: { role: "senior" },
+      reviewerBlocker: null,
     });
     const inv = (await listSampleItems(staff, engagement, sampleId)).find((i) => i.itemRef === "INV011")!;
     await saveResult(staff, engagement, sampleId, inv.id, {
@@ -155,7 +168,9 @@ describe("sign-offs and the live rows", () => {
     expect((await getSummary()).json.summary.review).toMatchObject({ staleSignOffs: true, preparer: null });
     const r = await call(summarySignOff.POST, "POST", { as: manager, params: e(), body: { as: "reviewer" } });
     expect(r.status).toBe(409);
+    expect(r.json.error.code).toBe("rows_changed");
     expect(r.json.error.message).toMatch(/changed after the preparer signed off/);
+    expect((await getSummary()).json.summary.review.reviewerBlocker).toBe(r.json.error.message);
     await saveResult(staff, engagement, sampleId, moved.id, {
       version: moved.version + 1,
       status: "done",

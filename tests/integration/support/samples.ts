@@ -71,6 +71,7 @@ export async function listSampleItems(as: number, engagementId: number, sampleId
     hitPoints: number[] | null;
     populationRowNumber: number;
     status: string;
+    misstatement: string | null;
   }[];
 }
 

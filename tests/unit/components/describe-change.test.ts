@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { REQUEST_NEED_LABELS } from "@/lib/validation/requests";
 import { describeChange } from "@/lib/review/describe-change";
-import { METHOD_LABELS } from "@/lib/validation/sample";
+import { DIRECTION_LABELS, METHOD_LABELS } from "@/lib/validation/sample";
 
 // The audit trail as people read it (issue 19): the same words on the page and in the locked PDF.
 const ctx = { itemRefs: new Map([["41", "INV-100218"]]) };
@@ -35,7 +35,11 @@ describe("describeChange", () => {
         entityId: "7",
         action: "plan",
         before: null,
-        after: { name: "Receivables", params: { method: "mus", confidence: 0.95, tolerableMisstatement: "15000.00" } },
+        after: {
+          name: "Receivables",
+          direction: "understatement",
+          params: { method: "mus", confidence: 0.95, tolerableMisstatement: "15000.00", riskOfIncorrectRejection: 0.1 },
+        },
       },
       ctx,
     );
@@ -43,8 +47,14 @@ describe("describeChange", () => {
     expect(r.changes).toContainEqual({
       field: "Plan",
       before: "—",
-      after: `Method ${METHOD_LABELS.mus}; Confidence 95%; Tolerable misstatement 15,000.00`,
+      after: `Method ${METHOD_LABELS.mus}; Confidence 95%; Tolerable misstatement 15,000.00; Risk of incorrect rejection 10%`,
     });
+    expect(r.changes).toContainEqual({ field: "Direction", before: "—", after: DIRECTION_LABELS.understatement });
+    // A seed is an identifier, not an amount: printed without grouping, as it was entered.
+    expect(
+      describeChange({ entity: "sample", entityId: "7", action: "draw", before: null, after: { seed: 4242 } }, ctx)
+        .changes,
+    ).toEqual([{ field: "Seed", before: "—", after: "4242" }]);
     expect(r.changes.filter((c) => /[{}"]/.test(c.after))).toEqual([]);
   });
 

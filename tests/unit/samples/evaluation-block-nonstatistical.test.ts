@@ -5,6 +5,10 @@ import {
   type NonstatisticalItem,
 } from "@/lib/samples/evaluation-block-nonstatistical";
 import { computedResultOf } from "@/lib/samples/computed-result";
+import { createElement } from "react";
+import { renderToStaticMarkup } from "react-dom/server";
+import { NonstatisticalResult } from "@/components/samples/nonstatistical-result";
+import { DIRECTION_LABELS } from "@/lib/validation/sample";
 
 /**
  * PCAOB AS 2315.26's example: every twentieth item (50) of 1,000 items; TM $50,000 on a $1 million
@@ -107,7 +111,7 @@ describe("buildNonstatisticalEvaluation", () => {
     expect(b.anomalies).toEqual({ count: 1, misstatement: "500.00" });
     expect(b.keyItems).toEqual({ planned: 2, evaluated: 1, misstatement: "1000.00" });
     expect(b.totalProjected).toBe("1500.00");
-    expect(b.warnings).toContain("1 key items have no result yet; key items are examined in full.");
+    expect(b.warnings).toContain("1 key item has no result yet; key items are examined in full.");
     // Not an accepted anomaly: projected like any other misstatement (10,000 + 1,000).
     sample[0] = item(1000, 500, false);
     expect(evaluate(sample, { keyItems: [item(200000, 199000)] }).totalProjected).toBe("11000.00");
@@ -131,5 +135,18 @@ describe("buildNonstatisticalEvaluation", () => {
     const b = evaluate(fifty([]), { haphazard: true });
     expect(b.warnings.join(" ")).toMatch(/no statistical bound/);
     expect(b.warnings.join(" ")).toMatch(/cannot be re-performed from a seed/);
+  });
+});
+
+describe("the nonstatistical result on screen (issue 19: labels, never codes)", () => {
+  it("names the direction compared with TM in the product's words", () => {
+    const under = Array.from({ length: 50 }, (_, i) => item(1000, i === 0 ? 4000 : 1000));
+    const html = renderToStaticMarkup(
+      createElement(NonstatisticalResult, { n: evaluate(under, { direction: "understatement" }) }),
+    );
+    expect(html).toContain(
+      `Compared with tolerable misstatement (${DIRECTION_LABELS.understatement.toLowerCase()} tested)`,
+    );
+    expect(html).not.toContain("(understatement)");
   });
 });

@@ -105,6 +105,7 @@ function view(): SummaryView {
       staleSignOffs: false,
       lock: null,
       openNotes: 0,
+      reviewerBlocker: "The preparer (staff or senior) signs off the summary first; the reviewer signs after.",
       lockable: { ok: false, reasons: [] },
     },
     notes: [],
