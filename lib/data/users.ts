@@ -49,6 +49,12 @@ export async function getUserCredentialsByEmail(db: Knex, { email }: { email: st
   return row ? { user: toUser(row), passwordHash: String(row.password_hash) } : null;
 }
 
+/** The firm of the account with this e-mail, or null when no one has an account under it (mail to outsiders). */
+export async function getFirmIdByUserEmail(db: Knex | Knex.Transaction, { email }: { email: string }) {
+  const row = await db("users").where({ email }).first("firm_id");
+  return row ? Number(row.firm_id) : null;
+}
+
 export async function listUsersByFirmId(
   db: Knex,
   { firmId, activeOnly = false }: { firmId: number; activeOnly?: boolean },
