@@ -41,6 +41,18 @@ export async function listMembersByEngagementId(
   }));
 }
 
+/** Name and e-mail of the active members holding one of the roles: whom a notice goes to. */
+export async function listActiveMemberContactsByEngagementId(
+  db: Knex | Knex.Transaction,
+  { engagementId, roles }: { engagementId: number; roles: MembershipRole[] },
+): Promise<{ name: string; email: string }[]> {
+  return db("engagement_members as m")
+    .join("users as u", "u.id", "m.user_id")
+    .where({ "m.engagement_id": engagementId, "u.active": true })
+    .whereIn("m.role", roles)
+    .select("u.name", "u.email");
+}
+
 interface MemberChange {
   engagementId: number;
   actorId: number;

@@ -4,6 +4,7 @@ import { recordAudit } from "./audit-log";
 import type { SampleRecord } from "./samples";
 import { conflict, notFound } from "@/lib/errors";
 import { assertSampleUnlocked } from "@/lib/samples/guard";
+import { mustExist } from "./must-exist";
 
 export interface ReviewNote {
   id: number;
@@ -47,6 +48,25 @@ export async function listNotesBySampleId(db: Knex, { sampleId }: { sampleId: nu
     clearedBy: r.cleared_name ?? null,
     clearedAt: iso(r.cleared_at),
   }));
+}
+
+/** Notes of the sample not yet cleared (open or answered): the reviewer cannot sign off while any remain. */
+export async function countOpenNotesBySampleId(db: Knex | Knex.Transaction, { sampleId }: { sampleId: number }) {
+  const row = await db("review_notes")
+    .where({ sample_id: sampleId })
+    .whereNot("status", "cleared")
+    .count({ n: "*" })
+    .first();
+  return Number(row?.n ?? 0);
+}
+
+/** A note's text and answer, with who raised it (the person told of an answer). */
+export async function getNoteWithRaiserById(db: Knex | Knex.Transaction, { noteId }: { noteId: number }) {
+  const row = await db("review_notes as n")
+    .join("users as r", "r.id", "n.raised_by")
+    .where("n.id", noteId)
+    .first("n.text", "n.answer", "r.name", "r.email");
+  return mustExist(row, `review note ${noteId}`);
 }
 
 export async function raiseNote(
