@@ -201,6 +201,17 @@ export async function listEvidenceNamesBySampleId(db: Knex | Knex.Transaction, {
     .select("e.id", "e.file_name", "i.item_ref");
 }
 
+/** The draw's items that are not void, in selection order. */
+export async function listLiveItemIdsByDrawId(db: Knex | Knex.Transaction, { drawId }: { drawId: number }) {
+  const rows = await db("sample_items")
+    .where({ draw_id: drawId })
+    .whereNot({ status: "void" })
+    .orderBy("selection_order")
+    .orderBy("id")
+    .select("id");
+  return rows.map((r) => Number(r.id));
+}
+
 /** How many items of a draw have this status. */
 export async function countItemsByDrawId(
   db: Knex | Knex.Transaction,

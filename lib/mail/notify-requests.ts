@@ -3,7 +3,7 @@ import type { Knex } from "knex";
 import { getEngagementById } from "@/lib/data/engagements";
 import { getFirmNameById } from "@/lib/data/firms";
 import { INVITATION_DAYS } from "@/lib/requests/invitations";
-import type { RequestListRow } from "@/lib/requests/lists";
+import type { RequestListRow } from "@/lib/data/request-lists";
 import { appUrl, clientRequestUrl, invitationUrl } from "./links";
 import { sendMail, type MailResult } from "./send";
 

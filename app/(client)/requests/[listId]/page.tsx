@@ -3,7 +3,7 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 import { getDb } from "@/db/knex";
 import { requireClientPageUser } from "@/lib/auth/page-guards";
-import { getRequestListRowForContact } from "@/lib/requests/lists";
+import { getContactRequestListById } from "@/lib/data/request-lists";
 import { clientListView } from "@/lib/requests/views";
 import { ClientRequestList } from "@/components/requests/client-request-list";
 
@@ -15,7 +15,7 @@ export default async function ClientRequestPage({ params }: { params: Promise<{ 
   const id = Number(listId);
   if (!Number.isSafeInteger(id) || id <= 0) notFound();
   const db = getDb();
-  const list = await getRequestListRowForContact(db, { listId: id, contactUserId: user.id });
+  const list = await getContactRequestListById(db, { listId: id, contactUserId: user.id });
   if (!list) notFound();
   const view = await clientListView(db, list);
   return (

@@ -19,7 +19,7 @@ import { loadAdvisorState } from "@/lib/advisor/state";
 import { ADVISED_METHODS } from "@/lib/advisor/methods";
 import { listAdvisorRunsBySampleId } from "@/lib/data/advisor-runs";
 import { RequestListsCard } from "@/components/requests/request-lists-card";
-import { listRequestListsBySampleId } from "@/lib/requests/lists";
+import { listRequestListsBySampleId } from "@/lib/data/request-lists";
 import { getSupersedingPopulation } from "@/lib/data/populations";
 import { SupersededBanner } from "@/components/samples/superseded-banner";
 

@@ -1,7 +1,9 @@
 import { z } from "zod";
 import { withEngagementRole } from "@/lib/auth/with-role";
+import { countRequestItemsByListId } from "@/lib/data/request-items";
+import { getRequestListById, listRequestListsBySampleId } from "@/lib/data/request-lists";
 import { notifyRequestListSent } from "@/lib/mail/notify-requests";
-import { createRequestList, getRequestListRow, listRequestListsBySampleId } from "@/lib/requests/lists";
+import { createRequestList } from "@/lib/requests/lists";
 import { sampleOf } from "@/lib/samples/route-helpers";
 import { CreateRequestListSchema } from "@/lib/validation/requests";
 
@@ -14,10 +16,8 @@ export const GET = withEngagementRole(z.object({}), "viewer", async (_input, ctx
 export const POST = withEngagementRole(CreateRequestListSchema, "senior", async (input, ctx) => {
   const sample = await sampleOf(ctx);
   const listId = await createRequestList(ctx.db, { sample, actorId: ctx.user.id, input });
-  const list = await getRequestListRow(ctx.db, { engagementId: ctx.engagementId, sampleId: sample.id, listId });
-  const itemCount = Number(
-    (await ctx.db("request_items").where({ request_list_id: listId }).count({ n: "*" }).first())?.n ?? 0,
-  );
+  const list = await getRequestListById(ctx.db, { engagementId: ctx.engagementId, sampleId: sample.id, listId });
+  const itemCount = await countRequestItemsByListId(ctx.db, { listId });
   const mail = await notifyRequestListSent(ctx.db, { list, itemCount });
   return Response.json({ requestList: { ...list, itemCount }, mailSent: mail.sent }, { status: 201 });
 });

@@ -5,7 +5,7 @@ import { getDb } from "@/db/knex";
 import { requireEngagementPage } from "@/lib/auth/page-guards";
 import { hasAtLeastRole } from "@/lib/auth/roles";
 import { AppError } from "@/lib/errors";
-import { getRequestListRow } from "@/lib/requests/lists";
+import { getRequestListById } from "@/lib/data/request-lists";
 import { teamListView } from "@/lib/requests/views";
 import { getReviewState } from "@/lib/review/review-state";
 import { getSampleById } from "@/lib/data/samples";
@@ -23,7 +23,7 @@ async function load(engagementId: number, sampleIdParam: string, listIdParam: st
   try {
     const sample = await getSampleById(db, { engagementId, sampleId });
     const [list, review] = await Promise.all([
-      getRequestListRow(db, { engagementId, sampleId, listId }),
+      getRequestListById(db, { engagementId, sampleId, listId }),
       getReviewState(db, { sampleId }),
     ]);
     return { sample, review, view: await teamListView(db, list) };
