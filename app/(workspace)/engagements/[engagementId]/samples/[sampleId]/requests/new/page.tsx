@@ -3,7 +3,7 @@ import Link from "next/link";
 import { getDb } from "@/db/knex";
 import { requireEngagementPage } from "@/lib/auth/page-guards";
 import { hasAtLeastRole } from "@/lib/auth/roles";
-import { listClientContactsByEngagementId } from "@/lib/requests/contacts";
+import { listClientContactsByEngagementId } from "@/lib/data/members";
 import { PageHeader } from "@/components/ui/page-header";
 import { Alert } from "@/components/ui/alert";
 import { RequestListForm } from "@/components/requests/request-list-form";
