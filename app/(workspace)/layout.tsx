@@ -1,12 +1,11 @@
 import { requireWorkspaceUser } from "@/lib/auth/page-guards";
 import { TopBar } from "@/components/shell/top-bar";
-import { getDb } from "@/db/knex";
-import { getInboxByUserId } from "@/lib/review/inbox";
+import { loadInboxPage } from "@/lib/views/workspace-pages";
 import { JudgementNote } from "@/components/shell/judgement-note";
 
 export default async function WorkspaceLayout({ children }: { children: React.ReactNode }) {
   const user = await requireWorkspaceUser();
-  const inbox = await getInboxByUserId(getDb(), { userId: user.id });
+  const inbox = await loadInboxPage(user.id);
   return (
     <div className="group flex min-h-screen flex-col">
       <TopBar user={user} waiting={inbox.counts.total} />

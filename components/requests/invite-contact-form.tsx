@@ -4,7 +4,7 @@ import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import type { z } from "zod";
 import { InviteClientContactSchema, type InviteClientContactInput } from "@/lib/validation/requests";
-import type { ClientContact } from "@/lib/requests/contacts";
+import type { ClientContact } from "@/lib/data/members";
 import { apiFetch, ApiError } from "@/components/ui/api";
 import { Button } from "@/components/ui/button";
 import { Field, Input } from "@/components/ui/field";

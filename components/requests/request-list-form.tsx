@@ -3,7 +3,7 @@ import { useState } from "react";
 import { useRouter } from "next/navigation";
 import { useForm, type Resolver } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
-import type { ClientContact } from "@/lib/requests/contacts";
+import type { ClientContact } from "@/lib/data/members";
 import {
   CreateRequestListSchema,
   REQUEST_NEED_LABELS,

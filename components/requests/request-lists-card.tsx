@@ -1,5 +1,5 @@
 import Link from "next/link";
-import type { RequestListSummary } from "@/lib/requests/lists";
+import type { RequestListSummary } from "@/lib/data/request-lists";
 import { Badge } from "@/components/ui/badge";
 import { buttonClass } from "@/components/ui/button";
 import { Card } from "@/components/ui/card";

@@ -2,7 +2,7 @@
 import { useState } from "react";
 import { useRouter } from "next/navigation";
 import type { TeamListView } from "@/lib/requests/views";
-import type { RequestFileView } from "@/lib/requests/items";
+import type { RequestFileView } from "@/lib/data/request-items";
 import { apiFetch } from "@/components/ui/api";
 import { useApi } from "@/components/ui/use-api";
 import { Alert } from "@/components/ui/alert";

@@ -1,7 +1,7 @@
 import "server-only";
 import type { z } from "zod";
 import { notFound } from "@/lib/errors";
-import { getRequestListRowForContact, type RequestListRow } from "@/lib/requests/lists";
+import { getContactRequestListById, type RequestListRow } from "@/lib/data/request-lists";
 import { parseIdParam } from "./access";
 import { signedInUser, withAccess, type AccessRule, type Handler, type UserContext } from "./with-access";
 
@@ -17,7 +17,7 @@ export interface ClientRequestContext extends ClientContext {
  */
 export const clientRequestList: AccessRule<ClientRequestContext> = async (request) => {
   const ctx = await signedInUser()(request);
-  const list = await getRequestListRowForContact(ctx.db, {
+  const list = await getContactRequestListById(ctx.db, {
     listId: parseIdParam(ctx.params.listId, "request list"),
     contactUserId: ctx.user.id,
   });

@@ -1,5 +1,7 @@
 import "server-only";
 import type { Knex } from "knex";
+import { z } from "zod";
+import { parseJsonColumn } from "./json-column";
 
 export interface AuditEntry {
   actorUserId: number | null;
@@ -58,9 +60,16 @@ export interface AuditRow {
   entity: string;
   entityId: string;
   action: string;
-  before: unknown;
-  after: unknown;
+  before: AuditValues;
+  after: AuditValues;
 }
+
+/** What recordAudit stores as before/after: an object of JSON values, or null (a side that did not exist). */
+const AuditValuesSchema = z.record(z.string(), z.json()).nullable();
+export type AuditValues = z.output<typeof AuditValuesSchema>;
+
+const auditValues = (value: string | null, column: "before_json" | "after_json") =>
+  value === null ? null : parseJsonColumn(AuditValuesSchema, value, `audit_log.${column}`);
 
 export async function listAuditByEngagementId(
   db: Knex,
@@ -88,12 +97,60 @@ export async function listAuditByEngagementId(
     entity: r.entity,
     entityId: r.entityId,
     action: r.action,
-    before: parseJson(r.before_json),
-    after: parseJson(r.after_json),
+    before: auditValues(r.before_json, "before_json"),
+    after: auditValues(r.after_json, "after_json"),
   }));
 }
 
-function parseJson(value: unknown): unknown {
-  if (value === null || value === undefined) return null;
-  return typeof value === "string" ? JSON.parse(value) : value;
+export interface SampleAuditRow extends AuditRow {
+  actorId: number | null;
+}
+
+/**
+ * Every recorded change to a sample, newest first (at most `limit`): by one person when
+ * `actorUserId` is given, and of the given entities or actions when either is given.
+ */
+export async function listAuditBySampleId(
+  db: Knex | Knex.Transaction,
+  {
+    sampleId,
+    actorUserId,
+    entities,
+    actions,
+    limit = 2000,
+  }: { sampleId: number; actorUserId?: number; entities?: string[]; actions?: string[]; limit?: number },
+): Promise<SampleAuditRow[]> {
+  const q = db("audit_log as a")
+    .leftJoin("users as u", "u.id", "a.actor_user_id")
+    .where("a.sample_id", sampleId)
+    .orderBy("a.id", "desc")
+    .limit(limit)
+    .select(
+      "a.id",
+      "a.at",
+      "a.actor_user_id",
+      "u.name",
+      "a.entity",
+      "a.entity_id",
+      "a.action",
+      "a.before_json",
+      "a.after_json",
+    );
+  if (actorUserId) q.andWhere("a.actor_user_id", actorUserId);
+  if (entities || actions)
+    q.andWhere((w) => {
+      if (entities) w.orWhereIn("a.entity", entities);
+      if (actions) w.orWhereIn("a.action", actions);
+    });
+  return (await q).map((r) => ({
+    id: Number(r.id),
+    at: new Date(r.at).toISOString(),
+    actorId: r.actor_user_id,
+    actorName: r.name ?? null,
+    entity: r.entity,
+    entityId: r.entity_id,
+    action: r.action,
+    before: auditValues(r.before_json, "before_json"),
+    after: auditValues(r.after_json, "after_json"),
+  }));
 }

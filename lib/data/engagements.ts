@@ -72,6 +72,16 @@ export async function getEngagementById(
   return row ? toEngagement(row) : null;
 }
 
+/** Client and engagement names of the given engagements (what a client contact's lists are labelled with). */
+export async function listEngagementNamesByIds(
+  db: Knex | Knex.Transaction,
+  { engagementIds }: { engagementIds: number[] },
+) {
+  if (engagementIds.length === 0) return [];
+  const rows = await db("engagements").whereIn("id", engagementIds).select("id", "client_name", "name");
+  return rows.map((r) => ({ id: Number(r.id), clientName: r.client_name, name: r.name }));
+}
+
 export async function createEngagement(
   db: Knex,
   { firmId, actorId, input }: { firmId: number; actorId: number; input: CreateEngagement },

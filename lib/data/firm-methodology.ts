@@ -1,7 +1,13 @@
 import "server-only";
 import type { Knex } from "knex";
-import { DEFAULT_METHODOLOGY, withMethodologyDefaults, type MethodologySettings } from "@/lib/validation/methodology";
+import {
+  DEFAULT_METHODOLOGY,
+  MethodologySettingsSchema,
+  withMethodologyDefaults,
+  type MethodologySettings,
+} from "@/lib/validation/methodology";
 import { recordAudit } from "./audit-log";
+import { parseJsonColumn } from "./json-column";
 
 export interface MethodologyVersion {
   /** 0 when the firm has never saved its own settings (the shipped defaults apply). */
@@ -10,6 +16,22 @@ export interface MethodologyVersion {
   updatedBy: string | null;
   updatedAt: string | null;
 }
+
+/** firm_methodology.settings_json as saved: today's fields, each optional (versions saved before a field existed lack it). */
+const StoredSettingsSchema = MethodologySettingsSchema.partial().extend({
+  nonstatistical: MethodologySettingsSchema.shape.nonstatistical.partial().optional(),
+});
+
+interface SavedVersionRow {
+  version: number;
+  settings_json: string;
+  created_at: Date;
+  created_by_name: string | null;
+}
+
+/** A saved version's settings, with fields added since it was saved filled from today's defaults. */
+const storedSettings = (value: string) =>
+  withMethodologyDefaults(parseJsonColumn(StoredSettingsSchema, value, "firm_methodology.settings_json"));
 
 /** The firm's current methodology settings: its latest saved version, or the defaults as version 0. */
 export async function getMethodologyByFirmId(
@@ -20,14 +42,13 @@ export async function getMethodologyByFirmId(
     .leftJoin("users as u", "u.id", "m.created_by")
     .where("m.firm_id", firmId)
     .orderBy("m.version", "desc")
-    .first("m.version", "m.settings_json", "m.created_at", "u.name as created_by_name");
+    .first<SavedVersionRow | undefined>("m.version", "m.settings_json", "m.created_at", "u.name as created_by_name");
   if (!row) return { version: 0, settings: DEFAULT_METHODOLOGY, updatedBy: null, updatedAt: null };
-  const stored: unknown = typeof row.settings_json === "string" ? JSON.parse(row.settings_json) : row.settings_json;
   return {
     version: Number(row.version),
-    settings: withMethodologyDefaults(stored),
-    updatedBy: (row.created_by_name as string | null) ?? null,
-    updatedAt: new Date(row.created_at as string).toISOString(),
+    settings: storedSettings(row.settings_json),
+    updatedBy: row.created_by_name ?? null,
+    updatedAt: new Date(row.created_at).toISOString(),
   };
 }
 
@@ -81,18 +102,15 @@ export async function listMethodologyChangesByFirmId(
   db: Knex,
   { firmId }: { firmId: number },
 ): Promise<MethodologyChange[]> {
-  const rows: { version: number; settings_json: unknown; created_at: string; created_by_name: string | null }[] =
-    await db("firm_methodology as m")
-      .leftJoin("users as u", "u.id", "m.created_by")
-      .where("m.firm_id", firmId)
-      .orderBy("m.version", "asc")
-      .select("m.version", "m.settings_json", "m.created_at", "u.name as created_by_name");
+  const rows = await db("firm_methodology as m")
+    .leftJoin("users as u", "u.id", "m.created_by")
+    .where("m.firm_id", firmId)
+    .orderBy("m.version", "asc")
+    .select<SavedVersionRow[]>("m.version", "m.settings_json", "m.created_at", "u.name as created_by_name");
   let previous = flatten(DEFAULT_METHODOLOGY);
   const changes: MethodologyChange[] = [];
   for (const r of rows) {
-    const current = flatten(
-      withMethodologyDefaults(typeof r.settings_json === "string" ? JSON.parse(r.settings_json) : r.settings_json),
-    );
+    const current = flatten(storedSettings(r.settings_json));
     const diff = [...current]
       .filter(([k, v]) => previous.get(k) !== v)
       .map(([field, to]) => ({ field, from: previous.get(field) ?? "—", to }));

@@ -41,6 +41,61 @@ export async function listMembersByEngagementId(
   }));
 }
 
+/** Name and e-mail of the active members holding one of the roles: whom a notice goes to. */
+export async function listActiveMemberContactsByEngagementId(
+  db: Knex | Knex.Transaction,
+  { engagementId, roles }: { engagementId: number; roles: MembershipRole[] },
+): Promise<{ name: string; email: string }[]> {
+  return db("engagement_members as m")
+    .join("users as u", "u.id", "m.user_id")
+    .where({ "m.engagement_id": engagementId, "u.active": true })
+    .whereIn("m.role", roles)
+    .select("u.name", "u.email");
+}
+
+export interface ClientContact {
+  userId: number;
+  name: string;
+  email: string;
+  active: boolean;
+  invitationPending: boolean;
+}
+
+/** The engagement's client contacts, with whether they have yet to choose a password. */
+export async function listClientContactsByEngagementId(
+  db: Knex | Knex.Transaction,
+  { engagementId }: { engagementId: number },
+): Promise<ClientContact[]> {
+  const rows = await db("engagement_members as m")
+    .join("users as u", "u.id", "m.user_id")
+    .where({ "m.engagement_id": engagementId, "m.role": CLIENT_ROLE })
+    .orderBy("u.name")
+    .select(
+      "u.id",
+      "u.name",
+      "u.email",
+      "u.active",
+      db.raw(
+        "exists(select 1 from user_invitations i where i.user_id = u.id and i.used_at is null and i.expires_at > now(3)) as pending",
+      ),
+    );
+  return rows.map((r) => ({
+    userId: Number(r.id),
+    name: String(r.name),
+    email: String(r.email),
+    active: Boolean(r.active),
+    invitationPending: Boolean(Number(r.pending)),
+  }));
+}
+
+/** Adds a client contact to the engagement (no audit row: the caller records it in its transaction). */
+export async function insertClientMember(
+  trx: Knex.Transaction,
+  { engagementId, userId }: { engagementId: number; userId: number },
+) {
+  await trx("engagement_members").insert({ engagement_id: engagementId, user_id: userId, role: CLIENT_ROLE });
+}
+
 interface MemberChange {
   engagementId: number;
   actorId: number;

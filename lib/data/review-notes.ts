@@ -2,8 +2,10 @@ import "server-only";
 import type { Knex } from "knex";
 import { recordAudit } from "./audit-log";
 import type { SampleRecord } from "./samples";
+import type { ReviewNotesRow } from "./tables";
 import { conflict, notFound } from "@/lib/errors";
 import { assertSampleUnlocked } from "@/lib/samples/guard";
+import { mustExist } from "./must-exist";
 
 export interface ReviewNote {
   id: number;
@@ -21,7 +23,14 @@ export interface ReviewNote {
   clearedAt: string | null;
 }
 
-const iso = (v: unknown) => (v ? new Date(v as string).toISOString() : null);
+const iso = (v: Date | null) => (v ? new Date(v).toISOString() : null);
+
+type NoteRow = ReviewNotesRow & {
+  item_ref: string | null;
+  raised_name: string;
+  answered_name: string | null;
+  cleared_name: string | null;
+};
 
 export async function listNotesBySampleId(db: Knex, { sampleId }: { sampleId: number }): Promise<ReviewNote[]> {
   const rows = await db("review_notes as n")
@@ -31,7 +40,13 @@ export async function listNotesBySampleId(db: Knex, { sampleId }: { sampleId: nu
     .leftJoin("users as c", "c.id", "n.cleared_by")
     .where("n.sample_id", sampleId)
     .orderBy("n.id")
-    .select("n.*", "i.item_ref", "r.name as raised_name", "a.name as answered_name", "c.name as cleared_name");
+    .select<NoteRow[]>(
+      "n.*",
+      "i.item_ref",
+      "r.name as raised_name",
+      "a.name as answered_name",
+      "c.name as cleared_name",
+    );
   return rows.map((r) => ({
     id: r.id,
     itemId: r.sample_item_id,
@@ -40,13 +55,32 @@ export async function listNotesBySampleId(db: Knex, { sampleId }: { sampleId: nu
     status: r.status,
     raisedBy: r.raised_name,
     raisedById: r.raised_by,
-    raisedAt: iso(r.raised_at)!,
+    raisedAt: new Date(r.raised_at).toISOString(),
     answer: r.answer,
     answeredBy: r.answered_name ?? null,
     answeredAt: iso(r.answered_at),
     clearedBy: r.cleared_name ?? null,
     clearedAt: iso(r.cleared_at),
   }));
+}
+
+/** Notes of the sample not yet cleared (open or answered): the reviewer cannot sign off while any remain. */
+export async function countOpenNotesBySampleId(db: Knex | Knex.Transaction, { sampleId }: { sampleId: number }) {
+  const row = await db("review_notes")
+    .where({ sample_id: sampleId })
+    .whereNot("status", "cleared")
+    .count({ n: "*" })
+    .first();
+  return Number(row?.n ?? 0);
+}
+
+/** A note's text and answer, with who raised it (the person told of an answer). */
+export async function getNoteWithRaiserById(db: Knex | Knex.Transaction, { noteId }: { noteId: number }) {
+  const row = await db("review_notes as n")
+    .join("users as r", "r.id", "n.raised_by")
+    .where("n.id", noteId)
+    .first("n.text", "n.answer", "r.name", "r.email");
+  return mustExist(row, `review note ${noteId}`);
 }
 
 export async function raiseNote(

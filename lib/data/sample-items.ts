@@ -212,6 +212,39 @@ export async function getItemById(db: Knex, { drawId, itemId }: { drawId: number
   return toItem(row);
 }
 
+/** Every item of the sample, in any draw, by id: what the audit trail names items with. */
+export async function listItemRefsBySampleId(db: Knex | Knex.Transaction, { sampleId }: { sampleId: number }) {
+  return db("sample_items").where({ sample_id: sampleId }).select("id", "item_ref");
+}
+
+/** The evidence files of the sample's items (any draw), with their item's reference. */
+export async function listEvidenceNamesBySampleId(db: Knex | Knex.Transaction, { sampleId }: { sampleId: number }) {
+  return db("item_evidence as e")
+    .join("sample_items as i", "i.id", "e.sample_item_id")
+    .where("i.sample_id", sampleId)
+    .select("e.id", "e.file_name", "i.item_ref");
+}
+
+/** The draw's items that are not void, in selection order. */
+export async function listLiveItemIdsByDrawId(db: Knex | Knex.Transaction, { drawId }: { drawId: number }) {
+  const rows = await db("sample_items")
+    .where({ draw_id: drawId })
+    .whereNot({ status: "void" })
+    .orderBy("selection_order")
+    .orderBy("id")
+    .select("id");
+  return rows.map((r) => Number(r.id));
+}
+
+/** How many items of a draw have this status. */
+export async function countItemsByDrawId(
+  db: Knex | Knex.Transaction,
+  { drawId, status }: { drawId: number; status: SampleItemRecord["status"] },
+): Promise<number> {
+  const row = await db("sample_items").where({ draw_id: drawId, status }).count({ n: "*" }).first();
+  return Number(row?.n ?? 0);
+}
+
 type ResultWrite = {
   engagementId: number;
   sampleId: number;

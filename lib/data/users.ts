@@ -67,6 +67,43 @@ export async function getUserCredentialsByEmail(db: Knex, { email }: { email: st
   return row ? { user: toUser(row), passwordHash: String(row.password_hash) } : null;
 }
 
+/** The firm of the account with this e-mail, or null when no one has an account under it (mail to outsiders). */
+export async function getFirmIdByUserEmail(db: Knex | Knex.Transaction, { email }: { email: string }) {
+  const row = await db("users").where({ email }).first("firm_id");
+  return row ? Number(row.firm_id) : null;
+}
+
+/** The person's new password (chosen with a one-time link). */
+export async function setPasswordHashByUserId(
+  trx: Knex.Transaction,
+  { userId, passwordHash }: { userId: number; passwordHash: string },
+) {
+  await trx("users")
+    .where({ id: userId })
+    .update({ password_hash: passwordHash, updated_at: trx.fn.now(3) });
+}
+
+/** The account under this e-mail, under a row lock to the end of the transaction; undefined when none. */
+export async function lockUserByEmail(trx: Knex.Transaction, { email }: { email: string }) {
+  return trx("users").where({ email }).forUpdate().first("id", "firm_id", "grade", "active", "name");
+}
+
+/** A new client contact's account: grade "client", no usable password until they choose one with their link. */
+export async function insertClientUser(
+  trx: Knex.Transaction,
+  { firmId, email, name, passwordHash }: { firmId: number; email: string; name: string; passwordHash: string },
+): Promise<number> {
+  const [id] = await trx("users").insert({
+    firm_id: firmId,
+    email,
+    name,
+    grade: "client",
+    firm_role: "member",
+    password_hash: passwordHash,
+  });
+  return Number(id);
+}
+
 export async function listUsersByFirmId(
   db: Knex,
   { firmId, activeOnly = false }: { firmId: number; activeOnly?: boolean },

@@ -1,5 +1,6 @@
 import "server-only";
 import type { Knex } from "knex";
+import { getFirmNameById } from "@/lib/data/firms";
 import { INVITATION_DAYS } from "@/lib/requests/invitations";
 import { invitationUrl } from "./links";
 import { sendMail, type MailResult } from "./send";
@@ -16,14 +17,14 @@ export async function notifyStaffInvitation(
   },
 ): Promise<MailResult> {
   try {
-    const firm = await db("firms").where({ id: a.firmId }).first("name");
+    const firmName = await getFirmNameById(db, { firmId: a.firmId });
     return await sendMail(db, {
       to: a.person,
       template: "staff-invitation",
       data: {
         recipient: { name: a.person.name },
         invitedBy: a.invitedBy,
-        firmName: String(firm?.name ?? "Your firm"),
+        firmName: firmName ?? "Your firm",
         reason: a.reason,
         actionUrl: invitationUrl(a.token),
         expiresInDays: INVITATION_DAYS,

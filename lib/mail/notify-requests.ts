@@ -1,8 +1,9 @@
 import "server-only";
 import type { Knex } from "knex";
 import { getEngagementById } from "@/lib/data/engagements";
+import { getFirmNameById } from "@/lib/data/firms";
 import { INVITATION_DAYS } from "@/lib/requests/invitations";
-import type { RequestListRow } from "@/lib/requests/lists";
+import type { RequestListRow } from "@/lib/data/request-lists";
 import { appUrl, clientRequestUrl, invitationUrl } from "./links";
 import { sendMail, type MailResult } from "./send";
 
@@ -36,9 +37,9 @@ export function notifyClientInvitation(
   },
 ) {
   return safely(`client-invitation to ${a.contact.email}`, async () => {
-    const [engagement, firm] = await Promise.all([
+    const [engagement, firmName] = await Promise.all([
       engagementRef(db, a.engagementId),
-      db("firms").where({ id: a.firmId }).first("name"),
+      getFirmNameById(db, { firmId: a.firmId }),
     ]);
     return sendMail(db, {
       to: a.contact,
@@ -46,7 +47,7 @@ export function notifyClientInvitation(
       data: {
         recipient: { name: a.contact.name },
         invitedBy: a.invitedBy,
-        firmName: String(firm?.name ?? "Your auditors"),
+        firmName: firmName ?? "Your auditors",
         engagement,
         actionUrl: a.token ? invitationUrl(a.token) : appUrl("/sign-in"),
         needsPassword: Boolean(a.token),

@@ -1,6 +1,7 @@
 import "server-only";
 import type { Knex } from "knex";
 import { enqueueMail } from "@/lib/data/mail-outbox";
+import { getFirmIdByUserEmail } from "@/lib/data/users";
 import { renderEmailTemplate, type EmailTemplateData, type EmailTemplateName } from "@/templates/email";
 
 export interface Recipient {
@@ -24,9 +25,8 @@ export async function sendMail<K extends EmailTemplateName>(
 ): Promise<MailResult> {
   try {
     const { subject, text, html } = renderEmailTemplate(template, data);
-    const account = await db("users").where({ email: to.email }).first("firm_id");
     const outboxId = await enqueueMail(db, {
-      firmId: account ? Number(account.firm_id) : null,
+      firmId: await getFirmIdByUserEmail(db, { email: to.email }),
       template,
       toName: to.name,
       toEmail: to.email,

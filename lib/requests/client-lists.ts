@@ -1,17 +1,16 @@
 import "server-only";
 import type { Knex } from "knex";
-import { listRequestListsByContactId } from "./lists";
+import { listEngagementNamesByIds } from "@/lib/data/engagements";
+import { listRequestListsByContactId } from "@/lib/data/request-lists";
 
 /** The contact's lists as they see them: title, audit, due date, status and counts — nothing of the team. */
 export async function listClientSummaries(db: Knex, { contactUserId }: { contactUserId: number }) {
   const lists = await listRequestListsByContactId(db, { contactUserId });
-  const engagements = lists.length
-    ? await db("engagements")
-        .whereIn("id", [...new Set(lists.map((l) => l.engagementId))])
-        .select("id", "client_name", "name")
-    : [];
+  const engagements = await listEngagementNamesByIds(db, {
+    engagementIds: [...new Set(lists.map((l) => l.engagementId))],
+  });
   return lists.map((l) => {
-    const e = engagements.find((x) => Number(x.id) === l.engagementId);
+    const e = engagements.find((x) => x.id === l.engagementId);
     return {
       id: l.id,
       title: l.title,
@@ -21,7 +20,7 @@ export async function listClientSummaries(db: Knex, { contactUserId }: { contact
       sentBy: l.createdByName,
       counts: l.counts,
       total: l.total,
-      engagement: { clientName: String(e?.client_name ?? ""), name: String(e?.name ?? "") },
+      engagement: { clientName: e?.clientName ?? "", name: e?.name ?? "" },
     };
   });
 }

@@ -1,45 +1,12 @@
 import "server-only";
 import type { Knex } from "knex";
 import { recordAudit } from "@/lib/data/audit-log";
+import { getMembershipRole, insertClientMember } from "@/lib/data/members";
+import { insertClientUser, lockUserByEmail } from "@/lib/data/users";
 import { AppError } from "@/lib/errors";
 import type { z } from "zod";
 import type { InviteClientContactSchema } from "@/lib/validation/requests";
 import { createInvitation, unusablePasswordHash } from "./invitations";
-
-export interface ClientContact {
-  userId: number;
-  name: string;
-  email: string;
-  active: boolean;
-  invitationPending: boolean;
-}
-
-/** The engagement's client contacts, with whether they have yet to choose a password. */
-export async function listClientContactsByEngagementId(
-  db: Knex,
-  { engagementId }: { engagementId: number },
-): Promise<ClientContact[]> {
-  const rows = await db("engagement_members as m")
-    .join("users as u", "u.id", "m.user_id")
-    .where({ "m.engagement_id": engagementId, "m.role": "client" })
-    .orderBy("u.name")
-    .select(
-      "u.id",
-      "u.name",
-      "u.email",
-      "u.active",
-      db.raw(
-        "exists(select 1 from user_invitations i where i.user_id = u.id and i.used_at is null and i.expires_at > now(3)) as pending",
-      ),
-    );
-  return rows.map((r) => ({
-    userId: Number(r.id),
-    name: String(r.name),
-    email: String(r.email),
-    active: Boolean(r.active),
-    invitationPending: Boolean(Number(r.pending)),
-  }));
-}
 
 /** The contact invited, and their one-time link's token when a new account was made. */
 export interface InvitedContact {
@@ -73,10 +40,7 @@ export async function inviteClientContact(
 ): Promise<InvitedContact> {
   const unusable = await unusablePasswordHash();
   return db.transaction(async (trx) => {
-    const existing = await trx("users")
-      .where({ email: input.email })
-      .forUpdate()
-      .first("id", "firm_id", "grade", "active", "name");
+    const existing = await lockUserByEmail(trx, { email: input.email });
     let userId: number;
     let token: string | null = null;
     if (existing) {
@@ -89,19 +53,14 @@ export async function inviteClientContact(
         );
       }
       userId = Number(existing.id);
-      const member = await trx("engagement_members")
-        .where({ engagement_id: engagementId, user_id: userId })
-        .first("role");
-      if (member)
+      if (await getMembershipRole(trx, { engagementId, userId }))
         throw new AppError(409, "already_member", `${existing.name} is already a client contact of this engagement`);
     } else {
-      [userId] = await trx("users").insert({
-        firm_id: firmId,
+      userId = await insertClientUser(trx, {
+        firmId,
         email: input.email,
         name: input.name,
-        grade: "client",
-        firm_role: "member",
-        password_hash: unusable,
+        passwordHash: unusable,
       });
       await recordAudit(trx, {
         actorUserId: actorId,
@@ -119,7 +78,7 @@ export async function inviteClientContact(
       });
       token = await createInvitation(trx, { userId, actorId });
     }
-    await trx("engagement_members").insert({ engagement_id: engagementId, user_id: userId, role: "client" });
+    await insertClientMember(trx, { engagementId, userId });
     await recordAudit(trx, {
       actorUserId: actorId,
       engagementId,

@@ -7,18 +7,24 @@ import { insertEvidenceRow } from "@/lib/fieldwork/evidence";
 import { sniffEvidence } from "@/lib/files/sniff-evidence";
 import { assertSampleUnlocked, beginSampleWrite } from "@/lib/samples/guard";
 import { putObjectBytes } from "@/lib/storage/objects";
-import { closedListError, type RequestListRow } from "./lists";
-import { countPendingFiles, lockRequestFile, lockRequestItem } from "./items";
+import { lockRequestListById, type RequestListRow } from "@/lib/data/request-lists";
+import {
+  countPendingFilesByItemId,
+  decideRequestFileById,
+  getItemRefByRequestItemId,
+  insertRequestFile,
+  lockRequestFileById,
+  lockRequestItemById,
+  setRequestItemClientNoteById,
+  setRequestItemStatusById,
+} from "@/lib/data/request-items";
+import { closedListError } from "./lists";
 import { itemStatusAfter } from "./status";
-import { mustExist } from "@/lib/data/must-exist";
 
 const audit = (list: RequestListRow) => ({ engagementId: list.engagementId, sampleId: list.sampleId });
 
 async function assertListOpen(trx: Knex.Transaction, list: RequestListRow) {
-  const row = mustExist(
-    await trx("request_lists").where({ id: list.id }).forUpdate().first("status", "closed_reason"),
-    `request list ${list.id}`,
-  );
+  const row = await lockRequestListById(trx, { listId: list.id });
   if (row.status !== "open") throw closedListError({ closedReason: row.closed_reason });
 }
 
@@ -39,7 +45,7 @@ export async function addClientFile(
     await assertSampleUnlocked(trx, a.list.sampleId).catch(() => {
       throw closedListError({ closedReason: "the sample was locked" });
     });
-    const item = await lockRequestItem(trx, { listId: a.list.id, requestItemId: a.requestItemId });
+    const item = await lockRequestItemById(trx, { listId: a.list.id, requestItemId: a.requestItemId });
     let status;
     try {
       status = itemStatusAfter(item.status, "client-upload", { pendingLeft: 0 });
@@ -47,18 +53,16 @@ export async function addClientFile(
       throw conflict("This item was already accepted by the audit team; nothing more is needed for it.");
     }
     await putObjectBytes({ key, bytes: a.bytes, contentType: sniff.contentType });
-    const [id] = await trx("request_files").insert({
-      request_item_id: item.id,
-      file_name: a.fileName,
-      content_type: sniff.contentType,
-      size_bytes: a.bytes.length,
+    const id = await insertRequestFile(trx, {
+      requestItemId: item.id,
+      fileName: a.fileName,
+      contentType: sniff.contentType,
+      sizeBytes: a.bytes.length,
       sha256,
-      object_key: key,
-      uploaded_by: a.actorId,
+      objectKey: key,
+      uploadedBy: a.actorId,
     });
-    await trx("request_items")
-      .where({ id: item.id })
-      .update({ status, updated_at: trx.fn.now(3) });
+    await setRequestItemStatusById(trx, { requestItemId: item.id, status });
     await recordAudit(trx, {
       actorUserId: a.actorId,
       ...audit(a.list),
@@ -94,21 +98,15 @@ export async function setClientNote(
 ) {
   await db.transaction(async (trx) => {
     await assertListOpen(trx, a.list);
-    const item = await lockRequestItem(trx, { listId: a.list.id, requestItemId: a.requestItemId });
-    const before = mustExist(
-      await trx("request_items").where({ id: item.id }).first("client_note"),
-      `request item ${item.id}`,
-    );
-    await trx("request_items")
-      .where({ id: item.id })
-      .update({ client_note: a.note || null, updated_at: trx.fn.now(3) });
+    const item = await lockRequestItemById(trx, { listId: a.list.id, requestItemId: a.requestItemId });
+    await setRequestItemClientNoteById(trx, { requestItemId: item.id, note: a.note || null });
     await recordAudit(trx, {
       actorUserId: a.actorId,
       ...audit(a.list),
       entity: "request_item",
       entityId: item.id,
       action: "client-note",
-      before: { note: before.client_note },
+      before: { note: item.clientNote },
       after: { note: a.note || null },
     });
   });
@@ -126,7 +124,7 @@ export async function acceptClientFile(db: Knex, a: { list: RequestListRow; file
       actorId: a.actorId,
       what: "a client file accepted as evidence",
     });
-    const file = await lockRequestFile(trx, { listId: a.list.id, fileId: a.fileId });
+    const file = await lockRequestFileById(trx, { listId: a.list.id, fileId: a.fileId });
     if (file.status !== "pending") throw conflict(`This file was already ${file.status}.`);
     const evidence = await insertEvidenceRow(trx, {
       ...audit(a.list),
@@ -141,12 +139,13 @@ export async function acceptClientFile(db: Knex, a: { list: RequestListRow; file
       audit: { action: "accept-client-file", requestFileId: a.fileId, requestListId: a.list.id },
     });
     const status = itemStatusAfter(file.item_status, "file-accepted", { pendingLeft: 0 });
-    await trx("request_files")
-      .where({ id: a.fileId })
-      .update({ status: "accepted", decided_by: a.actorId, decided_at: trx.fn.now(3), evidence_id: evidence.id });
-    await trx("request_items")
-      .where({ id: file.request_item_id })
-      .update({ status, return_reason: null, updated_at: trx.fn.now(3) });
+    await decideRequestFileById(trx, {
+      fileId: a.fileId,
+      actorId: a.actorId,
+      status: "accepted",
+      evidenceId: evidence.id,
+    });
+    await setRequestItemStatusById(trx, { requestItemId: file.request_item_id, status, returnReason: null });
     await recordAudit(trx, {
       actorUserId: a.actorId,
       ...audit(a.list),
@@ -168,16 +167,20 @@ export async function returnClientFile(
   return db.transaction(async (trx) => {
     await assertListOpen(trx, a.list);
     await assertSampleUnlocked(trx, a.list.sampleId);
-    const file = await lockRequestFile(trx, { listId: a.list.id, fileId: a.fileId });
+    const file = await lockRequestFileById(trx, { listId: a.list.id, fileId: a.fileId });
     if (file.status !== "pending") throw conflict(`This file was already ${file.status}.`);
-    const pendingLeft = await countPendingFiles(trx, { requestItemId: file.request_item_id, exceptFileId: a.fileId });
+    const pendingLeft = await countPendingFilesByItemId(trx, {
+      requestItemId: file.request_item_id,
+      exceptFileId: a.fileId,
+    });
     const status = itemStatusAfter(file.item_status, "file-returned", { pendingLeft });
-    await trx("request_files")
-      .where({ id: a.fileId })
-      .update({ status: "returned", decided_by: a.actorId, decided_at: trx.fn.now(3), return_reason: a.reason });
-    await trx("request_items")
-      .where({ id: file.request_item_id })
-      .update({ status, return_reason: a.reason, updated_at: trx.fn.now(3) });
+    await decideRequestFileById(trx, {
+      fileId: a.fileId,
+      actorId: a.actorId,
+      status: "returned",
+      returnReason: a.reason,
+    });
+    await setRequestItemStatusById(trx, { requestItemId: file.request_item_id, status, returnReason: a.reason });
     await recordAudit(trx, {
       actorUserId: a.actorId,
       ...audit(a.list),
@@ -187,10 +190,7 @@ export async function returnClientFile(
       before: { status: "pending" },
       after: { status: "returned", reason: a.reason, itemStatus: status },
     });
-    const item = await trx("request_items as r")
-      .join("sample_items as i", "i.id", "r.sample_item_id")
-      .where("r.id", file.request_item_id)
-      .first("i.item_ref");
-    return { itemStatus: status, itemRef: String(item.item_ref), fileName: String(file.file_name) };
+    const itemRef = await getItemRefByRequestItemId(trx, { requestItemId: file.request_item_id });
+    return { itemStatus: status, itemRef, fileName: file.file_name };
   });
 }

@@ -3,7 +3,13 @@ import { createHash, randomBytes } from "node:crypto";
 import bcrypt from "bcryptjs";
 import type { Knex } from "knex";
 import { recordAudit } from "@/lib/data/audit-log";
-import { BCRYPT_COST } from "@/lib/data/users";
+import { BCRYPT_COST, setPasswordHashByUserId } from "@/lib/data/users";
+import {
+  expireOpenInvitationsByUserId,
+  getOpenInvitationByTokenSha256,
+  insertInvitation,
+  spendInvitationById,
+} from "@/lib/data/user-invitations";
 import { AppError } from "@/lib/errors";
 
 /** How long an invitation link stays valid. */
@@ -16,11 +22,7 @@ export const unusablePasswordHash = () => bcrypt.hash(randomBytes(32).toString("
 
 /** Any earlier link of the person stops working (a new one is about to be sent). */
 export async function withdrawInvitations(trx: Knex.Transaction, { userId }: { userId: number }) {
-  await trx("user_invitations")
-    .where({ user_id: userId })
-    .whereNull("used_at")
-    .where("expires_at", ">", trx.fn.now(3))
-    .update({ expires_at: trx.fn.now(3) });
+  await expireOpenInvitationsByUserId(trx, { userId });
 }
 
 /** A one-time link token for the user; only its SHA-256 is stored, so the database never holds a usable link. */
@@ -30,12 +32,7 @@ export async function createInvitation(
 ): Promise<string> {
   const token = randomBytes(32).toString("base64url");
   const expiresAt = new Date(Date.now() + INVITATION_DAYS * 24 * 3600 * 1000);
-  const [id] = await trx("user_invitations").insert({
-    user_id: userId,
-    token_sha256: digest(token),
-    expires_at: expiresAt,
-    created_by: actorId,
-  });
+  const id = await insertInvitation(trx, { userId, tokenSha256: digest(token), expiresAt, createdBy: actorId });
   await recordAudit(trx, {
     actorUserId: actorId,
     entity: "user_invitation",
@@ -56,22 +53,7 @@ const invalid = () =>
 /** The person an unused, unexpired invitation is for; null otherwise. */
 export async function getInvitationByToken(db: Knex, { token }: { token: string }) {
   if (!/^[A-Za-z0-9_-]{20,100}$/.test(token)) return null;
-  const row = await db("user_invitations as i")
-    .join("users as u", "u.id", "i.user_id")
-    .where("i.token_sha256", digest(token))
-    .whereNull("i.used_at")
-    .where("i.expires_at", ">", db.fn.now(3))
-    .where("u.active", true)
-    .first("i.id", "u.id as user_id", "u.name", "u.email", "u.grade");
-  return row
-    ? {
-        id: Number(row.id),
-        userId: Number(row.user_id),
-        name: String(row.name),
-        email: String(row.email),
-        grade: String(row.grade),
-      }
-    : null;
+  return getOpenInvitationByTokenSha256(db, { tokenSha256: digest(token) });
 }
 
 /** Sets the invited person's password and spends the link (404 when it is not valid). */
@@ -80,14 +62,8 @@ export async function acceptInvitation(db: Knex, { token, password }: { token: s
   return db.transaction(async (trx) => {
     const invitation = await getInvitationByToken(trx, { token });
     if (!invitation) throw invalid();
-    const spent = await trx("user_invitations")
-      .where({ id: invitation.id })
-      .whereNull("used_at")
-      .update({ used_at: trx.fn.now(3) });
-    if (!spent) throw invalid();
-    await trx("users")
-      .where({ id: invitation.userId })
-      .update({ password_hash: hash, updated_at: trx.fn.now(3) });
+    if (!(await spendInvitationById(trx, { invitationId: invitation.id }))) throw invalid();
+    await setPasswordHashByUserId(trx, { userId: invitation.userId, passwordHash: hash });
     await recordAudit(trx, {
       actorUserId: invitation.userId,
       entity: "user_invitation",

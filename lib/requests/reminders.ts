@@ -1,6 +1,7 @@
 import "server-only";
 import type { Knex } from "knex";
 import { recordAudit } from "@/lib/data/audit-log";
+import { listOverdueRequestItems, markRequestListRemindedById } from "@/lib/data/request-lists";
 import { clientRequestUrl, teamRequestUrl } from "@/lib/mail/links";
 import { sendMail, type MailResult } from "@/lib/mail/send";
 import type { OverdueList } from "@/templates/email/client-requests";
@@ -23,64 +24,10 @@ interface Person {
   name: string;
   email: string;
 }
-interface OverdueRow {
-  id: number;
-  engagement_id: number;
-  sample_id: number;
-  title: string;
-  due_date: string;
-  item_ref: string;
-  cid: number;
-  cname: string;
-  cemail: string;
-  sid: number;
-  sname: string;
-  semail: string;
-  sactive: number;
-  client_name: string;
-  ename: string;
-}
-
-/** Open lists past due with items still awaiting the client, not yet reminded today. */
-async function findOverdue(db: Knex, today: string) {
-  return db("request_lists as l")
-    .join("request_items as r", "r.request_list_id", "l.id")
-    .join("sample_items as i", "i.id", "r.sample_item_id")
-    .join("users as c", "c.id", "l.contact_user_id")
-    .join("users as s", "s.id", "l.created_by")
-    .join("engagements as e", "e.id", "l.engagement_id")
-    .where("l.status", "open")
-    .where("l.due_date", "<", today)
-    .whereIn("r.status", ["requested", "needs-more"])
-    .where((w) => {
-      w.whereNull("l.last_reminded_on").orWhere("l.last_reminded_on", "<", today);
-    })
-    .where("c.active", true)
-    .orderBy("l.id")
-    .orderBy("r.position")
-    .select(
-      "l.id",
-      "l.engagement_id",
-      "l.sample_id",
-      "l.title",
-      "l.due_date",
-      "i.item_ref",
-      "c.id as cid",
-      "c.name as cname",
-      "c.email as cemail",
-      "s.id as sid",
-      "s.name as sname",
-      "s.email as semail",
-      "s.active as sactive",
-      "e.client_name",
-      "e.name as ename",
-    );
-}
-
 /** Marks each list reminded today (so a second run the same day sends nothing) and logs it, in the caller's transaction. */
 async function claim(trx: Knex.Transaction, today: string): Promise<Claimed[]> {
   const byList = new Map<number, Claimed>();
-  for (const r of (await findOverdue(trx, today)) as OverdueRow[]) {
+  for (const r of await listOverdueRequestItems(trx, { today })) {
     const list = byList.get(r.id) ?? {
       id: r.id,
       engagementId: r.engagement_id,
@@ -98,13 +45,7 @@ async function claim(trx: Knex.Transaction, today: string): Promise<Claimed[]> {
   }
   const claimed: Claimed[] = [];
   for (const list of byList.values()) {
-    const won = await trx("request_lists")
-      .where({ id: list.id })
-      .where((w) => {
-        w.whereNull("last_reminded_on").orWhere("last_reminded_on", "<", today);
-      })
-      .update({ last_reminded_on: today });
-    if (!won) continue;
+    if (!(await markRequestListRemindedById(trx, { listId: list.id, today }))) continue;
     claimed.push(list);
     await recordAudit(trx, {
       actorUserId: null,

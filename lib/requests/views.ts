@@ -2,12 +2,12 @@ import "server-only";
 import type { Knex } from "knex";
 import { getEngagementById } from "@/lib/data/engagements";
 import { notFound } from "@/lib/errors";
-import { listRequestItems } from "./items";
-import type { RequestListRow } from "./lists";
+import { listRequestItemsByListId } from "@/lib/data/request-items";
+import type { RequestListRow } from "@/lib/data/request-lists";
 
 /** What the audit team sees of a list: everything, book values included. */
 export async function teamListView(db: Knex, list: RequestListRow) {
-  return { list, items: await listRequestItems(db, { listId: list.id, withBookValues: true }) };
+  return { list, items: await listRequestItemsByListId(db, { listId: list.id, withBookValues: true }) };
 }
 
 /**
@@ -18,7 +18,7 @@ export async function teamListView(db: Knex, list: RequestListRow) {
 export async function clientListView(db: Knex, list: RequestListRow) {
   const [engagement, items] = await Promise.all([
     getEngagementById(db, { engagementId: list.engagementId }),
-    listRequestItems(db, { listId: list.id, withBookValues: list.showBookValues }),
+    listRequestItemsByListId(db, { listId: list.id, withBookValues: list.showBookValues }),
   ]);
   if (!engagement) throw notFound("No such request list");
   return {

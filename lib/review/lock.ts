@@ -10,7 +10,7 @@ import { CLOSED_BY_LOCK, closeRequestListsOfSample } from "@/lib/requests/lists"
 import type { EngagementRole } from "@/lib/auth/roles";
 import { freezeSampleContribution, thawSampleContribution } from "@/lib/data/misstatements";
 import { loadSampleContribution } from "@/lib/misstatements/from-sample";
-import { mustExist } from "@/lib/data/must-exist";
+import { clearSampleLockById, getSampleReviewColumnsById, setSampleLockById } from "@/lib/data/sample-review";
 
 export type RenderFinalWorkpaper = (lockInfo: {
   lockedById: number;
@@ -44,10 +44,7 @@ export async function lockSample(
     inTransaction?: (trx: Knex.Transaction, closedListIds: number[]) => Promise<unknown>;
   },
 ) {
-  const row = mustExist(
-    await db("samples").where({ id: sample.id }).first("locked_at", "reviewer_signed_at"),
-    `sample ${sample.id}`,
-  );
+  const row = await getSampleReviewColumnsById(db, { sampleId: sample.id });
   if (row.locked_at) throw lockedError();
   if (!row.reviewer_signed_at)
     throw conflict("A manager or partner must sign off as reviewer before the sample is locked.");
@@ -64,20 +61,18 @@ export async function lockSample(
     lockedAt: lockedAt.toISOString(),
   });
   const closedListIds = await db.transaction(async (trx) => {
-    const current = mustExist(
-      await trx("samples").where({ id: sample.id }).forUpdate().first("locked_at", "reviewer_signed_at"),
-      `sample ${sample.id}`,
-    );
+    const current = await getSampleReviewColumnsById(trx, { sampleId: sample.id, lock: true });
     if (current.locked_at) throw lockedError();
     if (!current.reviewer_signed_at)
       throw conflict("The reviewer sign-off was cleared while the workpaper was being rendered; sign off again.");
-    await trx("samples").where({ id: sample.id }).update({
-      locked_by: actorId,
-      locked_at: lockedAt,
-      workpaper_object_key: key,
-      workpaper_sha256: sha256,
-      workpaper_size_bytes: pdf.length,
-      workpaper_reference: reference,
+    await setSampleLockById(trx, {
+      sampleId: sample.id,
+      lockedBy: actorId,
+      lockedAt,
+      objectKey: key,
+      sha256,
+      sizeBytes: pdf.length,
+      reference,
     });
     await recordAudit(trx, {
       actorUserId: actorId,
@@ -108,24 +103,9 @@ export async function unlockSample(
 ) {
   if (role !== "partner") throw new AppError(403, "forbidden", "Only a partner can unlock a locked sample.");
   await db.transaction(async (trx) => {
-    const row = mustExist(
-      await trx("samples")
-        .where({ id: sample.id })
-        .forUpdate()
-        .first("locked_at", "workpaper_sha256", "workpaper_object_key"),
-      `sample ${sample.id}`,
-    );
+    const row = await getSampleReviewColumnsById(trx, { sampleId: sample.id, lock: true });
     if (!row.locked_at) throw conflict("The sample is not locked.");
-    await trx("samples").where({ id: sample.id }).update({
-      locked_by: null,
-      locked_at: null,
-      workpaper_object_key: null,
-      workpaper_sha256: null,
-      workpaper_size_bytes: null,
-      reviewer_signed_by: null,
-      reviewer_signed_role: null,
-      reviewer_signed_at: null,
-    });
+    await clearSampleLockById(trx, { sampleId: sample.id });
     await thawSampleContribution(trx, { sampleId: sample.id });
     await recordAudit(trx, {
       actorUserId: actorId,

@@ -2,18 +2,15 @@ import "server-only";
 import type { Knex } from "knex";
 import { notifyReviewNote, notifySampleLocked, notifySampleReadyForReview } from "@/lib/mail/notify";
 import { getEngagementById } from "@/lib/data/engagements";
+import { listActiveMemberContactsByEngagementId } from "@/lib/data/members";
+import { getNoteWithRaiserById } from "@/lib/data/review-notes";
 import type { SampleRecord } from "@/lib/data/samples";
 import type { EngagementRole } from "@/lib/auth/roles";
 
 // Mail is queued in the outbox inside the change's transaction (the route passes it) and sent by the outbox worker; a message that cannot be rendered never undoes the change.
 
-async function teamWithRoles(db: Knex, engagementId: number, roles: EngagementRole[]) {
-  return db("engagement_members as m")
-    .join("users as u", "u.id", "m.user_id")
-    .where({ "m.engagement_id": engagementId, "u.active": true })
-    .whereIn("m.role", roles)
-    .select("u.name", "u.email") as Promise<{ name: string; email: string }[]>;
-}
+const teamWithRoles = (db: Knex, engagementId: number, roles: EngagementRole[]) =>
+  listActiveMemberContactsByEngagementId(db, { engagementId, roles });
 
 async function base(db: Knex, sample: SampleRecord, actor: { name: string; email: string }) {
   const engagement = (await getEngagementById(db, { engagementId: sample.engagementId }))!;
@@ -48,10 +45,7 @@ export async function notifyNote(
     actor: { name: string; email: string };
   },
 ) {
-  const note = await db("review_notes as n")
-    .join("users as r", "r.id", "n.raised_by")
-    .where("n.id", noteId)
-    .first("n.text", "n.answer", "r.name", "r.email");
+  const note = await getNoteWithRaiserById(db, { noteId });
   const common = await base(db, sample, actor);
   if (kind === "answered") {
     await notifyReviewNote(db, "answered", {

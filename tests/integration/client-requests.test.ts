@@ -293,7 +293,7 @@ describe("request lists", () => {
       params: { listId: String(listId), fileId: String(a.json.file.id) },
     });
     expect(sha(new Uint8Array(await download.arrayBuffer()))).toBe(sha(PDF));
-    expect(await auditCount({ entity: "request_file", action: "client-upload" })).toBe(2);
+    expect(await auditCount({ entity: "request_file", action: "client-upload", engagement_id: engagement })).toBe(2); // this file's engagement: client-access-matrix.test.ts uploads too, and the suite shares one database
   });
 
   it("let the team send a file back with a reason (e-mailed to the client) and accept another, which becomes evidence", async () => {

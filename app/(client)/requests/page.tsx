@@ -1,8 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { getDb } from "@/db/knex";
 import { requireClientPageUser } from "@/lib/auth/page-guards";
-import { listClientSummaries } from "@/lib/requests/client-lists";
+import { loadClientRequestsPage } from "@/lib/views/request-pages";
 import { PageHeader } from "@/components/ui/page-header";
 import { Badge } from "@/components/ui/badge";
 import { EmptyState } from "@/components/ui/card";
@@ -12,7 +11,7 @@ export const metadata: Metadata = { title: "My requests" };
 
 export default async function MyRequestsPage() {
   const user = await requireClientPageUser();
-  const lists = await listClientSummaries(getDb(), { contactUserId: user.id });
+  const lists = await loadClientRequestsPage(user.id);
   const today = new Date().toISOString().slice(0, 10);
   return (
     <>

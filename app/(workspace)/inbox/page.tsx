@@ -1,7 +1,6 @@
 import type { Metadata } from "next";
-import { getDb } from "@/db/knex";
 import { requireWorkspaceUser } from "@/lib/auth/page-guards";
-import { getInboxByUserId } from "@/lib/review/inbox";
+import { loadInboxPage } from "@/lib/views/workspace-pages";
 import { PageHeader } from "@/components/ui/page-header";
 import { InboxList } from "@/components/review/inbox-list";
 
@@ -9,7 +8,7 @@ export const metadata: Metadata = { title: "Inbox" };
 
 export default async function InboxPage() {
   const user = await requireWorkspaceUser();
-  const inbox = await getInboxByUserId(getDb(), { userId: user.id });
+  const inbox = await loadInboxPage(user.id);
   return (
     <>
       <PageHeader eyebrow="Workspace" title="Inbox">

@@ -1,6 +1,5 @@
 import type { Metadata } from "next";
-import { getDb } from "@/db/knex";
-import { getInvitationByToken } from "@/lib/requests/invitations";
+import { loadInvitationPage } from "@/lib/views/request-pages";
 import { Logo } from "@/components/shell/logo";
 import { Alert } from "@/components/ui/alert";
 import { InvitationForm } from "@/components/requests/invitation-form";
@@ -10,7 +9,7 @@ export const metadata: Metadata = { title: "Choose your password" };
 /** Public: where an invited person (a client contact, or a member of the firm after an invitation or a reset) chooses a password with their one-time link. */
 export default async function InvitationPage({ params }: { params: Promise<{ token: string }> }) {
   const { token } = await params;
-  const invitation = await getInvitationByToken(getDb(), { token });
+  const invitation = await loadInvitationPage(token);
   return (
     <main className="flex min-h-screen items-center justify-center px-6 py-12">
       <div className="w-full max-w-sm">

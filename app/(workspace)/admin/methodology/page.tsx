@@ -1,7 +1,6 @@
 import type { Metadata } from "next";
-import { getDb } from "@/db/knex";
 import { requireAdminPage } from "@/lib/auth/admin-guard";
-import { getMethodologyByFirmId, listMethodologyChangesByFirmId } from "@/lib/data/firm-methodology";
+import { loadMethodologyPage } from "@/lib/views/workspace-pages";
 import { PageHeader } from "@/components/ui/page-header";
 import { MethodologyForm } from "@/components/admin/methodology-form";
 import { MethodologyHistory } from "@/components/admin/methodology-history";
@@ -10,10 +9,7 @@ export const metadata: Metadata = { title: "Methodology settings" };
 
 export default async function MethodologyPage() {
   const admin = await requireAdminPage();
-  const [current, changes] = await Promise.all([
-    getMethodologyByFirmId(getDb(), { firmId: admin.firmId }),
-    listMethodologyChangesByFirmId(getDb(), { firmId: admin.firmId }),
-  ]);
+  const { current, changes } = await loadMethodologyPage(admin.firmId);
   return (
     <>
       <PageHeader eyebrow="Firm administration" title="Methodology settings">

@@ -1,8 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { getDb } from "@/db/knex";
 import { requireAdminPage } from "@/lib/auth/admin-guard";
-import { listUsersByFirmId } from "@/lib/data/users";
+import { loadUsersPage } from "@/lib/views/workspace-pages";
 import { PageHeader } from "@/components/ui/page-header";
 import { buttonClass } from "@/components/ui/button";
 import { Card } from "@/components/ui/card";
@@ -18,7 +17,7 @@ export default async function UsersPage({
   searchParams: Promise<{ invited?: string; mail?: string }>;
 }) {
   const [admin, { invited, mail }] = await Promise.all([requireAdminPage(), searchParams]);
-  const users = await listUsersByFirmId(getDb(), { firmId: admin.firmId });
+  const users = await loadUsersPage(admin.firmId);
   const contacts = users.filter((u) => u.grade === "client");
   return (
     <>

@@ -1,14 +1,10 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { getDb } from "@/db/knex";
 import { requireEngagementPage } from "@/lib/auth/page-guards";
-import { listMembersByEngagementId } from "@/lib/data/members";
 import { hasAtLeastRole, ROLE_LABELS } from "@/lib/auth/roles";
-import { listPopulationsByEngagementId } from "@/lib/data/populations";
 import { PopulationList } from "@/components/populations/population-list";
-import { listSamplesByEngagementId } from "@/lib/data/samples";
 import { SampleList } from "@/components/samples/sample-list";
-import { listSampleOverviews } from "@/lib/samples/overview";
+import { loadEngagementOverview } from "@/lib/views/engagement-pages";
 import { PageHeader } from "@/components/ui/page-header";
 import { Card } from "@/components/ui/card";
 import { Badge } from "@/components/ui/badge";
@@ -22,12 +18,7 @@ export const metadata: Metadata = { title: "Engagement" };
 export default async function EngagementPage({ params }: { params: Promise<{ engagementId: string }> }) {
   const { engagementId } = await params;
   const { engagement, role } = await requireEngagementPage(engagementId);
-  const [members, populations, samples] = await Promise.all([
-    listMembersByEngagementId(getDb(), { engagementId: engagement.id }),
-    listPopulationsByEngagementId(getDb(), { engagementId: engagement.id }),
-    listSamplesByEngagementId(getDb(), { engagementId: engagement.id }),
-  ]);
-  const overviews = await listSampleOverviews(getDb(), { engagementId: engagement.id, samples });
+  const { members, populations, samples, overviews } = await loadEngagementOverview(engagement.id);
   const facts: [string, React.ReactNode][] = [
     ["Client", engagement.clientName],
     ["Period end", formatDate(engagement.periodEnd)],

@@ -1,9 +1,8 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { getDb } from "@/db/knex";
 import { requireEngagementPage } from "@/lib/auth/page-guards";
 import { hasAtLeastRole } from "@/lib/auth/roles";
-import { loadSummaryView } from "@/lib/misstatements/summary-view";
+import { loadMisstatementsPage } from "@/lib/views/engagement-pages";
 import { PageHeader } from "@/components/ui/page-header";
 import { Card } from "@/components/ui/card";
 import { buttonClass } from "@/components/ui/button";
@@ -22,7 +21,7 @@ export const metadata: Metadata = { title: "Summary of misstatements" };
 export default async function MisstatementsPage({ params }: { params: Promise<{ engagementId: string }> }) {
   const { engagementId } = await params;
   const { engagement, role } = await requireEngagementPage(engagementId);
-  const view = await loadSummaryView(getDb(), { engagementId: engagement.id });
+  const view = await loadMisstatementsPage(engagement.id);
   const locked = view.review.lock !== null;
   const mayEdit = hasAtLeastRole(role, "staff") && !locked;
   const api = `/api/engagements/${engagement.id}/misstatements`;

@@ -1,8 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { getDb } from "@/db/knex";
 import { requireEngagementPage } from "@/lib/auth/page-guards";
-import { listMembersByEngagementId } from "@/lib/data/members";
+import { loadTeamPage } from "@/lib/views/engagement-pages";
 import { PageHeader } from "@/components/ui/page-header";
 import { Card } from "@/components/ui/card";
 import { TeamManager } from "@/components/engagements/team-manager";
@@ -13,7 +12,7 @@ export const metadata: Metadata = { title: "Team" };
 export default async function TeamPage({ params }: { params: Promise<{ engagementId: string }> }) {
   const { engagementId } = await params;
   const { engagement, role, user } = await requireEngagementPage(engagementId);
-  const members = await listMembersByEngagementId(getDb(), { engagementId: engagement.id });
+  const members = await loadTeamPage(engagement.id);
   return (
     <>
       <PageHeader eyebrow={engagement.clientName} title="Team">

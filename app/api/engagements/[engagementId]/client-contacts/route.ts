@@ -2,7 +2,8 @@ import { z } from "zod";
 import { withEngagementRole } from "@/lib/auth/with-role";
 import { notifyClientInvitation } from "@/lib/mail/notify-requests";
 import type { MailResult } from "@/lib/mail/send";
-import { inviteClientContact, listClientContactsByEngagementId } from "@/lib/requests/contacts";
+import { listClientContactsByEngagementId } from "@/lib/data/members";
+import { inviteClientContact } from "@/lib/requests/contacts";
 import { InviteClientContactSchema } from "@/lib/validation/requests";
 
 export const GET = withEngagementRole(z.object({}), "viewer", async (_input, { db, engagementId }) => ({

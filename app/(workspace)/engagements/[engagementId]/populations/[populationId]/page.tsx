@@ -1,17 +1,12 @@
 import type { Metadata } from "next";
-import { notFound } from "next/navigation";
-import { getDb } from "@/db/knex";
 import { requireEngagementPage } from "@/lib/auth/page-guards";
 import { hasAtLeastRole } from "@/lib/auth/roles";
-import { AppError } from "@/lib/errors";
-import { getPopulationById, listPopulationsByEngagementId } from "@/lib/data/populations";
-import { getPopulationProfile } from "@/lib/data/population-items";
+import { loadPopulationPage } from "@/lib/views/engagement-pages";
 import { Card } from "@/components/ui/card";
 import { Amount } from "@/components/ui/amount";
 import { PopulationHeader } from "@/components/populations/population-header";
 import { Alert } from "@/components/ui/alert";
 import { PopulationActions } from "@/components/populations/population-actions";
-import { listSamplesByEngagementId } from "@/lib/data/samples";
 import { ReconciliationPanel } from "@/components/populations/reconciliation-panel";
 import { SummaryCards } from "@/components/populations/summary-cards";
 import { StrataChart } from "@/components/populations/strata-chart";
@@ -21,23 +16,6 @@ import { ItemsGrid } from "@/components/populations/items-grid";
 
 export const metadata: Metadata = { title: "Population" };
 
-async function loadPopulation(engagementId: number, populationIdParam: string) {
-  const populationId = Number(populationIdParam);
-  if (!Number.isSafeInteger(populationId) || populationId <= 0) notFound();
-  const db = getDb();
-  try {
-    const [population, profile, all] = await Promise.all([
-      getPopulationById(db, { engagementId, populationId }),
-      getPopulationProfile(db, { populationId }),
-      listPopulationsByEngagementId(db, { engagementId }),
-    ]);
-    return { population, profile, all };
-  } catch (err) {
-    if (err instanceof AppError && err.status === 404) notFound();
-    throw err;
-  }
-}
-
 export default async function PopulationPage({
   params,
 }: {
@@ -45,7 +23,7 @@ export default async function PopulationPage({
 }) {
   const { engagementId, populationId } = await params;
   const { engagement, role } = await requireEngagementPage(engagementId);
-  const { population, profile, all } = await loadPopulation(engagement.id, populationId);
+  const { population, profile, all, samples } = await loadPopulationPage(engagement.id, populationId);
   const replacedBy = all.find((p) => p.supersedesId === population.id) ?? null;
   const replaces =
     population.supersedesId === null ? null : (all.find((p) => p.id === population.supersedesId) ?? null);
@@ -69,9 +47,7 @@ export default async function PopulationPage({
             name={population.name}
             archived={Boolean(population.archivedAt)}
             replaced={Boolean(replacedBy)}
-            usedBy={(await listSamplesByEngagementId(getDb(), { engagementId: engagement.id }))
-              .filter((s) => s.populationId === population.id)
-              .map((s) => s.name)}
+            usedBy={samples.filter((s) => s.populationId === population.id).map((s) => s.name)}
           />
         </div>
       )}

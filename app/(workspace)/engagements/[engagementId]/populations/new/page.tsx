@@ -1,10 +1,8 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { getDb } from "@/db/knex";
 import { requireEngagementPage } from "@/lib/auth/page-guards";
 import { hasAtLeastRole, ROLE_LABELS } from "@/lib/auth/roles";
-import { listPopulationsByEngagementId } from "@/lib/data/populations";
-import { listSamplesByEngagementId } from "@/lib/data/samples";
+import { loadPlanChoices } from "@/lib/views/sample-page";
 import { PageHeader } from "@/components/ui/page-header";
 import { Card } from "@/components/ui/card";
 import { Alert } from "@/components/ui/alert";
@@ -16,12 +14,7 @@ export default async function NewPopulationPage({ params }: { params: Promise<{ 
   const { engagementId } = await params;
   const { engagement, role } = await requireEngagementPage(engagementId);
   const mayLoad = hasAtLeastRole(role, "senior");
-  const [populations, samples] = mayLoad
-    ? await Promise.all([
-        listPopulationsByEngagementId(getDb(), { engagementId: engagement.id }),
-        listSamplesByEngagementId(getDb(), { engagementId: engagement.id }),
-      ])
-    : [[], []];
+  const { populations, samples } = mayLoad ? await loadPlanChoices(engagement.id) : { populations: [], samples: [] };
   const replaceable = populations
     .filter((p) => p.status !== "superseded")
     .map((p) => ({

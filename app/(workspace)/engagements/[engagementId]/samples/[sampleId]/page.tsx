@@ -7,20 +7,13 @@ import { Badge } from "@/components/ui/badge";
 import { PlanSummary } from "@/components/samples/plan-summary";
 import { SampleWorkspace } from "@/components/samples/sample-workspace";
 import { METHOD_SHORT, SAMPLE_STATUS_LABELS } from "@/components/samples/labels";
-import { loadSamplePage } from "./load-sample";
-import { getDb } from "@/db/knex";
-import { listNotesBySampleId } from "@/lib/data/review-notes";
+import { loadSampleScreen } from "@/lib/views/sample-page";
 import { notesOnItems } from "@/components/review/note-labels";
 import { Alert } from "@/components/ui/alert";
 import { ReviewPanel } from "@/components/review/review-panel";
 import { FieldworkFiles } from "@/components/review/fieldwork-files";
 import { AdvisorPanel } from "@/components/advisor/advisor-panel";
-import { loadAdvisorState } from "@/lib/advisor/state";
-import { ADVISED_METHODS } from "@/lib/advisor/methods";
-import { listAdvisorRunsBySampleId } from "@/lib/data/advisor-runs";
 import { RequestListsCard } from "@/components/requests/request-lists-card";
-import { listRequestListsBySampleId } from "@/lib/requests/lists";
-import { getSupersedingPopulation } from "@/lib/data/populations";
 import { SupersededBanner } from "@/components/samples/superseded-banner";
 
 export const metadata: Metadata = { title: "Sample" };
@@ -28,23 +21,18 @@ export const metadata: Metadata = { title: "Sample" };
 export default async function SamplePage({ params }: { params: Promise<{ engagementId: string; sampleId: string }> }) {
   const { engagementId, sampleId } = await params;
   const { engagement, role } = await requireEngagementPage(engagementId);
-  const { view, evaluation, items: drawnItems } = await loadSamplePage(engagement.id, sampleId);
+  const {
+    view,
+    evaluation,
+    items: drawnItems,
+    notes,
+    advisor,
+    requestLists,
+    replacement,
+  } = await loadSampleScreen(engagement.id, sampleId);
   const { sample, population } = view;
   const locked = Boolean(view.review.lock);
   const senior = hasAtLeastRole(role, "senior") && !locked;
-  const advised = ADVISED_METHODS.includes(sample.method);
-  const [notes, advisor, requestLists, replacement] = await Promise.all([
-    listNotesBySampleId(getDb(), { sampleId: sample.id }),
-    advised
-      ? listAdvisorRunsBySampleId(getDb(), { sampleId: sample.id }).then((runs) =>
-          loadAdvisorState(getDb(), sample, runs),
-        )
-      : null,
-    listRequestListsBySampleId(getDb(), { sampleId: sample.id }),
-    population.status === "superseded"
-      ? getSupersedingPopulation(getDb(), { engagementId: engagement.id, populationId: population.id })
-      : null,
-  ]);
   const items = drawnItems.filter((i) => i.status !== "void").map((i) => ({ id: i.id, itemRef: i.itemRef }));
   const notesByItem = notesOnItems(notes);
   const editHref =

@@ -1,10 +1,8 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { getDb } from "@/db/knex";
 import { requireEngagementPage } from "@/lib/auth/page-guards";
 import { hasAtLeastRole, ROLE_LABELS } from "@/lib/auth/roles";
-import { listPopulationsByEngagementId } from "@/lib/data/populations";
-import { listSamplesByEngagementId } from "@/lib/data/samples";
+import { loadPlanChoices } from "@/lib/views/sample-page";
 import { PageHeader } from "@/components/ui/page-header";
 import { Alert } from "@/components/ui/alert";
 import { PlanForm } from "@/components/samples/plan-form";
@@ -21,12 +19,7 @@ export default async function NewSamplePage({
   const [{ engagementId }, query] = await Promise.all([params, searchParams]);
   const { engagement, role } = await requireEngagementPage(engagementId);
   const mayPlan = hasAtLeastRole(role, "senior");
-  const [populations, samples] = mayPlan
-    ? await Promise.all([
-        listPopulationsByEngagementId(getDb(), { engagementId: engagement.id }),
-        listSamplesByEngagementId(getDb(), { engagementId: engagement.id }),
-      ])
-    : [[], []];
+  const { populations, samples } = mayPlan ? await loadPlanChoices(engagement.id) : { populations: [], samples: [] };
   const earlierSamples = samples
     .filter((s) => s.status === "drawn" && s.method !== "attribute")
     .map(({ id, name }) => ({ id, name }));

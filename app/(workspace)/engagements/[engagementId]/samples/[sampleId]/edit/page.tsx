@@ -1,15 +1,12 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { getDb } from "@/db/knex";
 import { requireEngagementPage } from "@/lib/auth/page-guards";
 import { hasAtLeastRole } from "@/lib/auth/roles";
-import { listPopulationsByEngagementId } from "@/lib/data/populations";
-import { listSamplesByEngagementId } from "@/lib/data/samples";
 import { PageHeader } from "@/components/ui/page-header";
 import { Alert } from "@/components/ui/alert";
 import { PlanForm } from "@/components/samples/plan-form";
 import { fromStored } from "@/components/samples/plan-values";
-import { loadSamplePage } from "../load-sample";
+import { loadEditPlanPage } from "@/lib/views/sample-page";
 
 export const metadata: Metadata = { title: "Change a sample plan" };
 
@@ -20,11 +17,7 @@ export default async function EditSamplePage({
 }) {
   const { engagementId, sampleId } = await params;
   const { engagement, role } = await requireEngagementPage(engagementId);
-  const [{ view }, populations, samples] = await Promise.all([
-    loadSamplePage(engagement.id, sampleId),
-    listPopulationsByEngagementId(getDb(), { engagementId: engagement.id }),
-    listSamplesByEngagementId(getDb(), { engagementId: engagement.id }),
-  ]);
+  const { view, populations, samples } = await loadEditPlanPage(engagement.id, sampleId);
   const { sample } = view;
   const back = (
     <Link href={`/engagements/${engagement.id}/samples/${sample.id}`} className="link">

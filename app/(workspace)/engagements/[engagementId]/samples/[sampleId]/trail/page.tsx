@@ -1,10 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { getDb } from "@/db/knex";
 import { requireEngagementPage } from "@/lib/auth/page-guards";
-import { getSampleById } from "@/lib/data/samples";
-import { listMembersByEngagementId } from "@/lib/data/members";
-import { listSampleAuditTrail, loadChangeContext } from "@/lib/review/audit-trail";
+import { loadTrailPage } from "@/lib/views/sample-page";
 import { AuditQuerySchema } from "@/lib/validation/review";
 import { PageHeader } from "@/components/ui/page-header";
 import { Card, EmptyState } from "@/components/ui/card";
@@ -36,14 +33,8 @@ export default async function TrailPage({
   const [{ engagementId, sampleId }, sp] = await Promise.all([params, searchParams]);
   const { engagement, role } = await requireEngagementPage(engagementId);
   if (role === "viewer") return <Alert>The audit trail is open to the audit team (staff and above).</Alert>;
-  const db = getDb();
-  const sample = await getSampleById(db, { engagementId: engagement.id, sampleId: Number(sampleId) });
   const query = AuditQuerySchema.parse({ userId: sp.userId || undefined, kind: sp.kind || undefined });
-  const [entries, members, context] = await Promise.all([
-    listSampleAuditTrail(db, { sampleId: sample.id, query }),
-    listMembersByEngagementId(db, { engagementId: engagement.id }),
-    loadChangeContext(db, { sampleId: sample.id }),
-  ]);
+  const { sample, entries, members, context } = await loadTrailPage(engagement.id, sampleId, query);
   return (
     <>
       <PageHeader eyebrow={engagement.clientName} title={`Audit trail — ${sample.name}`}>

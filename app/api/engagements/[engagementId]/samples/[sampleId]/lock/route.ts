@@ -2,7 +2,8 @@ import { z } from "zod";
 import { withEngagementRole } from "@/lib/auth/with-role";
 import { lockSample } from "@/lib/review/lock";
 import { notifyRequestListClosed } from "@/lib/mail/notify-requests";
-import { CLOSED_BY_LOCK, getRequestListRow } from "@/lib/requests/lists";
+import { getRequestListById } from "@/lib/data/request-lists";
+import { CLOSED_BY_LOCK } from "@/lib/requests/lists";
 import { notifyLocked } from "@/lib/review/notifications";
 import { getReviewState } from "@/lib/review/review-state";
 import { sampleOf } from "@/lib/samples/route-helpers";
@@ -30,7 +31,7 @@ export const POST = withEngagementRole(z.object({}), "manager", async (_input, c
     inTransaction: async (trx, closedListIds) => {
       await notifyLocked(trx, { sample, actor: ctx.user });
       for (const listId of closedListIds) {
-        const list = await getRequestListRow(trx, { engagementId: ctx.engagementId, sampleId: sample.id, listId });
+        const list = await getRequestListById(trx, { engagementId: ctx.engagementId, sampleId: sample.id, listId });
         await notifyRequestListClosed(trx, { list, reason: CLOSED_BY_LOCK });
       }
     },

@@ -1,7 +1,9 @@
 import { z } from "zod";
 import { withEngagementRole } from "@/lib/auth/with-role";
+import { countRequestItemsByListId } from "@/lib/data/request-items";
+import { getRequestListById, listRequestListsBySampleId } from "@/lib/data/request-lists";
 import { notifyRequestListSent } from "@/lib/mail/notify-requests";
-import { createRequestList, getRequestListRow, listRequestListsBySampleId } from "@/lib/requests/lists";
+import { createRequestList } from "@/lib/requests/lists";
 import { sampleOf } from "@/lib/samples/route-helpers";
 import { CreateRequestListSchema } from "@/lib/validation/requests";
 
@@ -16,10 +18,8 @@ export const POST = withEngagementRole(CreateRequestListSchema, "senior", async 
   // The list and the message to its contact commit together (queued in the mail outbox in the same transaction).
   const { list, itemCount, mail } = await ctx.db.transaction(async (trx) => {
     const listId = await createRequestList(trx, { sample, actorId: ctx.user.id, input });
-    const list = await getRequestListRow(trx, { engagementId: ctx.engagementId, sampleId: sample.id, listId });
-    const itemCount = Number(
-      (await trx("request_items").where({ request_list_id: listId }).count({ n: "*" }).first())?.n ?? 0,
-    );
+    const list = await getRequestListById(trx, { engagementId: ctx.engagementId, sampleId: sample.id, listId });
+    const itemCount = await countRequestItemsByListId(trx, { listId });
     return { list, itemCount, mail: await notifyRequestListSent(trx, { list, itemCount }) };
   });
   return Response.json({ requestList: { ...list, itemCount }, mailSent: mail.sent }, { status: 201 });

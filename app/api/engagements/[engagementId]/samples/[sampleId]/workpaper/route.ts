@@ -6,7 +6,7 @@ import { sampleOf } from "@/lib/samples/route-helpers";
 import { getObjectStream } from "@/lib/storage/objects";
 import { assembleWorkpaper } from "@/lib/workpaper/assemble";
 import { renderWorkpaper } from "@/templates/workpaper/render-workpaper";
-import { mustExist } from "@/lib/data/must-exist";
+import { getSampleReviewColumnsById } from "@/lib/data/sample-review";
 
 export const maxDuration = 120;
 
@@ -14,10 +14,7 @@ export const maxDuration = 120;
 export const GET = withEngagementRole(z.object({}), "viewer", async (_input, ctx) => {
   const sample = await sampleOf(ctx);
   const review = await getReviewState(ctx.db, { sampleId: sample.id });
-  const row = mustExist(
-    await ctx.db("samples").where({ id: sample.id }).first("workpaper_object_key"),
-    `sample ${sample.id}`,
-  );
+  const row = await getSampleReviewColumnsById(ctx.db, { sampleId: sample.id });
   if (review.lock && row.workpaper_object_key) {
     const object = await getObjectStream({ key: row.workpaper_object_key });
     return new Response(Readable.toWeb(object.body) as ReadableStream, {

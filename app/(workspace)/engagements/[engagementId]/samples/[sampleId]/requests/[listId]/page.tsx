@@ -1,37 +1,14 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { notFound } from "next/navigation";
-import { getDb } from "@/db/knex";
 import { requireEngagementPage } from "@/lib/auth/page-guards";
 import { hasAtLeastRole } from "@/lib/auth/roles";
-import { AppError } from "@/lib/errors";
-import { getRequestListRow } from "@/lib/requests/lists";
-import { teamListView } from "@/lib/requests/views";
-import { getReviewState } from "@/lib/review/review-state";
-import { getSampleById } from "@/lib/data/samples";
+import { loadTeamRequestListPage } from "@/lib/views/request-pages";
 import { PageHeader } from "@/components/ui/page-header";
 import { Badge } from "@/components/ui/badge";
 import { TeamRequestList } from "@/components/requests/team-request-list";
 import { formatDate } from "@/lib/format/date";
 
 export const metadata: Metadata = { title: "Request list" };
-
-async function load(engagementId: number, sampleIdParam: string, listIdParam: string) {
-  const [sampleId, listId] = [Number(sampleIdParam), Number(listIdParam)];
-  if (![sampleId, listId].every((n) => Number.isSafeInteger(n) && n > 0)) notFound();
-  const db = getDb();
-  try {
-    const sample = await getSampleById(db, { engagementId, sampleId });
-    const [list, review] = await Promise.all([
-      getRequestListRow(db, { engagementId, sampleId, listId }),
-      getReviewState(db, { sampleId }),
-    ]);
-    return { sample, review, view: await teamListView(db, list) };
-  } catch (err) {
-    if (err instanceof AppError && err.status === 404) notFound();
-    throw err;
-  }
-}
 
 export default async function TeamRequestListPage({
   params,
@@ -40,7 +17,7 @@ export default async function TeamRequestListPage({
 }) {
   const { engagementId, sampleId, listId } = await params;
   const { engagement, role } = await requireEngagementPage(engagementId);
-  const { sample, review, view } = await load(engagement.id, sampleId, listId);
+  const { sample, review, view } = await loadTeamRequestListPage(engagement.id, sampleId, listId);
   const { list } = view;
   const mayDecide = hasAtLeastRole(role, "staff") && list.status === "open" && !review.lock;
   return (

@@ -1,13 +1,11 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { getDb } from "@/db/knex";
 import { requireEngagementPage } from "@/lib/auth/page-guards";
 import { hasAtLeastRole } from "@/lib/auth/roles";
-import { listClientContactsByEngagementId } from "@/lib/requests/contacts";
 import { PageHeader } from "@/components/ui/page-header";
 import { Alert } from "@/components/ui/alert";
 import { RequestListForm } from "@/components/requests/request-list-form";
-import { loadSamplePage } from "../../load-sample";
+import { loadNewRequestListPage } from "@/lib/views/sample-page";
 
 export const metadata: Metadata = { title: "Ask the client for evidence" };
 
@@ -18,10 +16,7 @@ export default async function NewRequestListPage({
 }) {
   const { engagementId, sampleId } = await params;
   const { engagement, role } = await requireEngagementPage(engagementId);
-  const [{ view, items }, contacts] = await Promise.all([
-    loadSamplePage(engagement.id, sampleId),
-    listClientContactsByEngagementId(getDb(), { engagementId: engagement.id }),
-  ]);
+  const { view, items, contacts } = await loadNewRequestListPage(engagement.id, sampleId);
   const back = `/engagements/${engagement.id}/samples/${view.sample.id}`;
   const blocked = !hasAtLeastRole(role, "senior")
     ? "A senior, manager or partner on the engagement sends request lists to the client."
