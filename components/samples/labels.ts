@@ -1,10 +1,10 @@
 import type { SampleRecord } from "@/lib/data/samples";
 import type { SampleItemRecord } from "@/lib/data/sample-items";
-import { DIRECTION_LABELS, METHOD_LABELS, type SampleMethod } from "@/lib/validation/sample";
+import { DIRECTION_LABELS, ESTIMATOR_LABELS, METHOD_LABELS, type SampleMethod } from "@/lib/validation/sample";
 import { textOf } from "@/lib/format/text";
 import { ITEM_STATUS_LABELS as SHARED_ITEM_STATUS_LABELS } from "@/lib/fieldwork/field-labels";
 
-export { DIRECTION_LABELS, METHOD_LABELS };
+export { DIRECTION_LABELS, ESTIMATOR_LABELS, METHOD_LABELS };
 
 /** Short names for lists, where the full method label is too long. */
 export const METHOD_SHORT: Record<SampleMethod, string> = {
@@ -14,15 +14,6 @@ export const METHOD_SHORT: Record<SampleMethod, string> = {
   stratified: "Stratified random",
   attribute: "Attribute",
   nonstatistical: "Nonstatistical",
-};
-
-export const ESTIMATOR_LABELS: Record<string, string> = {
-  "mean-per-unit": "Mean-per-unit",
-  difference: "Difference",
-  ratio: "Ratio",
-  regression: "Regression",
-  "separate-ratio": "Separate ratio",
-  "combined-ratio": "Combined ratio",
 };
 
 export const SAMPLE_STATUS_LABELS: Record<SampleRecord["status"], string> = {

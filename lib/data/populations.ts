@@ -89,6 +89,15 @@ export async function listPopulationsByEngagementId(db: Knex, { engagementId }: 
   );
 }
 
+/** The names of the populations of a sample's engagement (the audit trail names a population, not its id). */
+export async function listPopulationNamesBySampleId(db: Knex, { sampleId }: { sampleId: number }) {
+  const rows = await db("populations as p")
+    .join("samples as s", "s.engagement_id", "p.engagement_id")
+    .where("s.id", sampleId)
+    .select("p.id", "p.name");
+  return rows.map((r) => ({ id: Number(r.id), name: String(r.name) }));
+}
+
 export async function getPopulationById(
   db: Knex,
   { engagementId, populationId }: { engagementId: number; populationId: number },

@@ -8,6 +8,7 @@ import {
   listEntriesByEngagementId,
   listSampleLocksByEngagementId,
 } from "@/lib/data/misstatements";
+import { ROLE_LABELS, type EngagementRole } from "@/lib/auth/roles";
 import { notFound } from "@/lib/errors";
 import { getFirmNameById } from "@/lib/data/firms";
 import { aggregate, type RowInput } from "./aggregate";
@@ -100,7 +101,9 @@ export async function buildLiveSummary(db: Knex, { engagementId }: { engagementI
   const rowsSha256 = rowsFingerprint({ rows, totals, materiality });
   const staleSignOffs = settings.signedRowsSha256 !== null && settings.signedRowsSha256 !== rowsSha256;
   const openNotes = notes.filter((n) => n.status !== "cleared").length;
-  const sign = (s: typeof settings.preparer) => (s && !staleSignOffs ? { name: s.name, role: s.role, at: s.at } : null);
+  const roleLabel = (role: string) => ROLE_LABELS[role as EngagementRole] ?? role;
+  const sign = (s: typeof settings.preparer) =>
+    s && !staleSignOffs ? { name: s.name, role: roleLabel(s.role), at: s.at } : null;
   const review: SummaryReview = {
     preparer: sign(settings.preparer),
     reviewer: sign(settings.reviewer),

@@ -120,6 +120,7 @@ export interface SummaryNote {
 
 export interface SummarySignOff {
   name: string;
+  /** The role as people read it ("Senior"), from ROLE_LABELS. */
   role: string;
   at: string;
 }

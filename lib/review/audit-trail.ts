@@ -2,6 +2,7 @@ import "server-only";
 import type { Knex } from "knex";
 import type { AuditQuery } from "@/lib/validation/review";
 import { listAuditBySampleId, type SampleAuditRow } from "@/lib/data/audit-log";
+import { listPopulationNamesBySampleId } from "@/lib/data/populations";
 import { listEvidenceNamesBySampleId, listItemRefsBySampleId } from "@/lib/data/sample-items";
 import type { ChangeContext } from "./describe-change";
 
@@ -26,14 +27,16 @@ export async function listSampleAuditTrail(
   return listAuditBySampleId(db, { sampleId, actorUserId: query.userId, ...kind });
 }
 
-/** What the readable trail needs to name things: every item of the sample (any draw) and its evidence files. */
+/** What the readable trail needs to name things: every item of the sample (any draw), its evidence files and the engagement's populations. */
 export async function loadChangeContext(db: Knex, { sampleId }: { sampleId: number }): Promise<ChangeContext> {
-  const [items, files] = await Promise.all([
+  const [items, files, populations] = await Promise.all([
     listItemRefsBySampleId(db, { sampleId }),
     listEvidenceNamesBySampleId(db, { sampleId }),
+    listPopulationNamesBySampleId(db, { sampleId }),
   ]);
   return {
     itemRefs: new Map(items.map((r) => [String(r.id), String(r.item_ref)])),
     evidenceNames: new Map(files.map((r) => [String(r.id), `${r.file_name} (item ${r.item_ref})`])),
+    populationNames: new Map(populations.map((p) => [String(p.id), p.name])),
   };
 }

@@ -1,4 +1,4 @@
-import { CAUSE_LABELS, DIRECTION_LABELS, METHOD_LABELS } from "@/lib/validation/sample";
+import { CAUSE_LABELS, DIRECTION_LABELS, ESTIMATOR_LABELS, METHOD_LABELS } from "@/lib/validation/sample";
 import { FIELD_LABELS, ITEM_STATUS_LABELS } from "@/lib/fieldwork/field-labels";
 import { formatDate, formatDateTime } from "@/lib/format/date";
 import { formatBytes, formatMoney } from "@/lib/format/number";
@@ -28,6 +28,7 @@ export interface ChangeSource {
 export interface ChangeContext {
   itemRefs: Map<string, string>;
   evidenceNames?: Map<string, string>;
+  populationNames?: Map<string, string>;
 }
 
 const ACTIONS: Record<string, string> = {
@@ -149,6 +150,9 @@ export function showValue(key: string, v: unknown, ctx?: ChangeContext): string 
   if (key === "direction" && typeof v === "string" && v in DIRECTION_LABELS)
     return DIRECTION_LABELS[v as keyof typeof DIRECTION_LABELS];
   if (key === "deviation" && typeof v === "boolean") return v ? "Deviation" : "No deviation";
+  if (key === "estimator" && typeof v === "string" && v in ESTIMATOR_LABELS) return ESTIMATOR_LABELS[v];
+  if (key === "populationId" && ctx?.populationNames)
+    return ctx.populationNames.get(String(v)) ?? "a population since removed";
   if (key === "itemId" && ctx) return ctx.itemRefs.get(String(v)) ?? `an item no longer in the draw`;
   if (MONEY_KEYS.has(key) && /^-?\d+(\.\d+)?$/.test(String(v))) return formatMoney(String(v));
   if (RATE_KEYS.has(key) && typeof v === "number") return `${Number((v * 100).toPrecision(6))}%`;

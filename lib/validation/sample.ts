@@ -30,6 +30,16 @@ export const CONTROL_FREQUENCY_LABELS: Record<(typeof CONTROL_FREQUENCIES)[numbe
   "several-times-daily": "Several times a day",
 };
 
+/** The classical estimators as the screens, workbook, PDF and audit trail name them. */
+export const ESTIMATOR_LABELS: Record<string, string> = {
+  "mean-per-unit": "Mean-per-unit",
+  difference: "Difference",
+  ratio: "Ratio",
+  regression: "Regression",
+  "separate-ratio": "Separate ratio",
+  "combined-ratio": "Combined ratio",
+};
+
 export const METHOD_LABELS: Record<SampleMethod, string> = {
   mus: "Monetary-unit (PPS), Stringer bound",
   random: "Simple random, classical variables",

@@ -146,7 +146,7 @@ describe("sign-offs and the live rows", () => {
     ).toBe(200);
     expect((await getSummary()).json.summary.review).toMatchObject({
       staleSignOffs: false,
-      preparer: { role: "senior" },
+      preparer: { role: "Senior" }, // as people read it (ROLE_LABELS)
       reviewerBlocker: null,
     });
     const inv = (await listSampleItems(staff, engagement, sampleId)).find((i) => i.itemRef === "INV011")!;

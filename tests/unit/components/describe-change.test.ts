@@ -28,6 +28,23 @@ describe("describeChange", () => {
     ]);
   });
 
+  it("names the population and the estimator instead of an id and a code", () => {
+    const r = describeChange(
+      {
+        entity: "sample",
+        entityId: "7",
+        action: "replan",
+        before: { populationId: 3, estimator: "mean-per-unit" },
+        after: { populationId: 4, estimator: "difference" },
+      },
+      { ...ctx, populationNames: new Map([["4", "Trade receivables at 31 Dec"]]) },
+    );
+    expect(r.changes).toEqual([
+      { field: "Population", before: "a population since removed", after: "Trade receivables at 31 Dec" },
+      { field: "Estimator", before: "Mean-per-unit", after: "Difference" },
+    ]);
+  });
+
   it("prints nested plan figures as words, never JSON", () => {
     const r = describeChange(
       {
