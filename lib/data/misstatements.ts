@@ -2,6 +2,8 @@ import "server-only";
 import type { Knex } from "knex";
 import type { EntryInput, CorrectionInput } from "@/lib/misstatements/rows";
 import { StoredContributionSchema, type SampleContribution } from "@/lib/misstatements/contribution";
+import { LockedSummaryViewSchema, toSummaryView } from "@/lib/misstatements/stored-view";
+import type { SummaryView } from "@/lib/misstatements/types";
 import { parseJsonColumn } from "./json-column";
 import { notFound } from "@/lib/errors";
 import type { Entry } from "@/lib/validation/misstatements";
@@ -21,7 +23,7 @@ export interface SummarySettingsRecord {
     reference: string;
     objectKey: string;
   } | null;
-  lockedView: unknown;
+  lockedView: SummaryView | null;
 }
 
 export interface EntryRecord extends EntryInput {
@@ -36,7 +38,6 @@ const ymd = (v: unknown) =>
   v instanceof Date
     ? `${v.getFullYear()}-${String(v.getMonth() + 1).padStart(2, "0")}-${String(v.getDate()).padStart(2, "0")}`
     : String(v).slice(0, 10);
-const json = (v: unknown) => (typeof v === "string" ? JSON.parse(v) : v) as unknown;
 
 /** The summary's settings, sign-offs and lock; defaults (nothing signed, 0 clearly trivial, 75 %) before its first write. */
 export async function getSummaryByEngagementId(
@@ -79,7 +80,16 @@ export async function getSummaryByEngagementId(
           objectKey: r.workpaper_object_key,
         }
       : null,
-    lockedView: r.locked_view_json ? json(r.locked_view_json) : null,
+    lockedView: r.locked_view_json
+      ? toSummaryView(
+          parseJsonColumn(
+            LockedSummaryViewSchema,
+            r.locked_view_json,
+            "misstatement_summaries.locked_view_json",
+            r.engagement_id,
+          ),
+        )
+      : null,
   };
 }
 

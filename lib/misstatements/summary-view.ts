@@ -175,7 +175,7 @@ function lockability(samples: SummarySampleLine[], openNotes: number, reviewed: 
 export async function loadSummaryView(db: Knex, { engagementId }: { engagementId: number }): Promise<SummaryView> {
   const settings = await getSummaryByEngagementId(db, { engagementId });
   if (settings.lock && settings.lockedView) {
-    const frozen = settings.lockedView as SummaryView;
+    const frozen = settings.lockedView;
     const { objectKey: _k, ...lock } = settings.lock;
     return {
       ...frozen,
