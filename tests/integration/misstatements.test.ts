@@ -430,6 +430,10 @@ describe("locking", () => {
       workpaperSha256: locked.json.locked.sha256,
       reference: `WP-${engagement}-MIS`,
     });
+    // Read back from the view frozen at lock (through its stored schema): the same rows, the lock's own fields.
+    const reread = (await getSummary()).json.summary;
+    expect(reread.rows).toEqual(locked.json.summary.rows);
+    expect(reread.review).toMatchObject({ reviewerBlocker: "The summary is locked.", lockable: { ok: false } });
 
     const pdf = await callRaw(summaryWorkpaper.GET, "GET", { as: viewer, params: e() });
     const bytes = Buffer.from(await pdf.arrayBuffer());
