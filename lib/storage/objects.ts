@@ -35,15 +35,30 @@ export async function putObjectFromFile({
 }) {
   await ensureBucket();
   const { client, bucket } = getStorage();
-  await client.send(
-    new PutObjectCommand({
-      Bucket: bucket,
-      Key: key,
-      Body: fs.createReadStream(path),
-      ContentType: contentType,
-      ContentLength: size,
-    }),
-  );
+  const put = () =>
+    client.send(
+      new PutObjectCommand({
+        Bucket: bucket,
+        Key: key,
+        Body: fs.createReadStream(path),
+        ContentType: contentType,
+        ContentLength: size,
+      }),
+    );
+  try {
+    await put();
+  } catch (err) {
+    // The SDK cannot replay a stream body, so a connection the store dropped is retried here, once,
+    // from a fresh read of the file. Storing the same key twice is harmless.
+    if (!isDroppedConnection(err)) throw err;
+    await put();
+  }
+}
+
+function isDroppedConnection(err: unknown): boolean {
+  if (!(err instanceof Error)) return false;
+  const code = (err as Error & { code?: string }).code;
+  return code === "ECONNRESET" || code === "EPIPE" || /socket hang up/i.test(err.message);
 }
 
 export async function putObjectBytes({
