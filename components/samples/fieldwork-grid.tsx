@@ -5,7 +5,7 @@ import type { SampleItemRecord } from "@/lib/data/sample-items";
 import type { SampleMethod } from "@/lib/validation/sample";
 import { Amount } from "@/components/ui/amount";
 import { Button } from "@/components/ui/button";
-import { apiFetch } from "@/components/ui/api";
+import { useApi } from "@/components/ui/use-api";
 import { useKeysetPaging } from "@/components/ui/use-keyset-paging";
 import { Alert } from "@/components/ui/alert";
 import { ResultRow } from "./result-row";
@@ -141,8 +141,6 @@ export function FieldworkGrid({
   const [status, setStatus] = useState("all");
   const [search, setSearch] = useState("");
   const [query, setQuery] = useState("");
-  const [page, setPage] = useState<ItemsPage | null>(null);
-  const [error, setError] = useState<string | null>(null);
   const [reloads, setReloads] = useState(0);
   const [replacing, setReplacing] = useState<SampleItemRecord | null>(null);
   const [selected, setSelected] = useState<Set<number>>(new Set());
@@ -169,34 +167,25 @@ export function FieldworkGrid({
     return () => clearTimeout(t);
   }, [search, resetPaging]);
 
-  useEffect(() => {
-    let live = true;
-    const params = new URLSearchParams({ ...pagingQuery, status });
-    if (query) params.set("q", query);
-    apiFetch<ItemsPage>(`${url}?${params}`).then(
-      (r) => {
-        if (live) {
-          setPage(r);
-          setError(null);
-        }
-      },
-      (e: Error) => {
-        if (live) setError(e.message);
-      },
-    );
-    return () => {
-      live = false;
-    };
-  }, [url, pagingQuery, status, query, reloads, refreshKey, drawVersion]);
+  const params = new URLSearchParams({ ...pagingQuery, status });
+  if (query) params.set("q", query);
+  // Each counter only grows, so their sum changes whenever any of them does: a save elsewhere, an import, a new draw.
+  const read = useApi<ItemsPage>(`${url}?${params}`, {
+    revision: reloads + refreshKey + drawVersion,
+    keepPreviousData: true,
+  });
+  const page = read.data ?? null;
+  const error = read.error?.message ?? null;
+  const { mutate } = read;
 
   const reload = useCallback(() => setReloads((n) => n + 1), []);
   const apply = useCallback(
     (after: SampleItemRecord[]) => {
       const byId = new Map(after.map((a) => [a.id, a]));
-      setPage((p) => p && { ...p, items: p.items.map((it) => byId.get(it.id) ?? it) });
+      void mutate((p) => p && { ...p, items: p.items.map((it) => byId.get(it.id) ?? it) }, { revalidate: false });
       onSaved();
     },
-    [onSaved],
+    [mutate, onSaved],
   );
   const saves = useGridSaves({
     resultsUrl: `/api/engagements/${engagementId}/samples/${sampleId}/results`,
