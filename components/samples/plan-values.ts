@@ -2,6 +2,7 @@ import type { z } from "zod";
 import type { PlanSampleSchema } from "@/lib/validation/sample";
 import { fractionToPercent, percentToFraction } from "./labels";
 import { textOf } from "@/lib/format/text";
+import { planKeysFor } from "@/lib/validation/plan-keys";
 
 export type PlanFormIn = z.input<typeof PlanSampleSchema>;
 export type PlanFormOut = z.output<typeof PlanSampleSchema>;
@@ -66,7 +67,6 @@ export function defaultPlanValues(performanceMateriality: string, populationId?:
   };
 }
 
-const SPREAD_FIELDS = ["spreadBasis", "spreadSampleId", "expectedStdDev", "spreadReason"];
 const blank = (v: unknown) => textOf(v).trim() === "";
 
 /**
@@ -79,60 +79,7 @@ export function toRequest(values: PlanFormIn): PlanFormIn {
   for (const [k, v] of Object.entries(p)) if (blank(v)) delete p[k];
   if (Array.isArray(p.keyItems) && p.keyItems.length === 0) delete p.keyItems;
   const method = p.method;
-  const sizing = [
-    "sizingBasis",
-    "assessedRisk",
-    "otherProceduresRisk",
-    ...(p.sizingBasis === "confidence-override" ? ["confidenceReason"] : []),
-  ];
-  const keyItems = ["keyItemThreshold", "keyItems"];
-  const keep: Record<string, string[]> = {
-    nonstatistical: [
-      "confidence",
-      "tolerableMisstatement",
-      "expectedMisstatement",
-      "selection",
-      "projection",
-      ...keyItems,
-      ...sizing,
-    ],
-    mus: ["confidence", "tolerableMisstatement", "expectedMisstatement", "topStratumThreshold", ...sizing],
-    attribute:
-      p.attributeMode === "control-frequency"
-        ? ["attributeMode", "controlFrequency"]
-        : ["confidence", "tolerableRate", "expectedRate", "attributePlan", "attributeMode", ...sizing],
-    stratified: [
-      "estimator",
-      "confidence",
-      "tolerableMisstatement",
-      "expectedMisstatement",
-      "riskOfIncorrectRejection",
-      "strataBounds",
-      ...keyItems,
-      ...sizing,
-    ],
-    random: [
-      "estimator",
-      "confidence",
-      "tolerableMisstatement",
-      "expectedMisstatement",
-      "riskOfIncorrectRejection",
-      ...SPREAD_FIELDS,
-      ...keyItems,
-      ...sizing,
-    ],
-    systematic: [
-      "estimator",
-      "confidence",
-      "tolerableMisstatement",
-      "expectedMisstatement",
-      "riskOfIncorrectRejection",
-      ...SPREAD_FIELDS,
-      ...keyItems,
-      ...sizing,
-    ],
-  };
-  const allowed = new Set(["method", "sampleSize", "sizeReason", ...(keep[String(method)] ?? [])]);
+  const allowed = new Set(planKeysFor(p));
   for (const k of Object.keys(p)) if (!allowed.has(k)) delete p[k];
   const direction = method === "attribute" ? "both" : values.direction;
   return { ...values, direction, params: p as PlanFormIn["params"] };

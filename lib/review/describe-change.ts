@@ -1,8 +1,16 @@
-import { CAUSE_LABELS, DIRECTION_LABELS, ESTIMATOR_LABELS, METHOD_LABELS } from "@/lib/validation/sample";
+import {
+  CAUSE_LABELS,
+  CONTROL_FREQUENCY_LABELS,
+  DIRECTION_LABELS,
+  ESTIMATOR_LABELS,
+  METHOD_LABELS,
+} from "@/lib/validation/sample";
+import { RISK_LEVEL_LABELS } from "@/lib/validation/methodology";
 import { FIELD_LABELS, ITEM_STATUS_LABELS } from "@/lib/fieldwork/field-labels";
 import { formatDate, formatDateTime } from "@/lib/format/date";
 import { formatBytes, formatMoney } from "@/lib/format/number";
 import { REQUEST_NEED_LABELS } from "@/lib/validation/requests";
+import { planKeysFor } from "@/lib/validation/plan-keys";
 
 /**
  * One audit-log row as people read it, on the trail page and in the locked workpaper's appendix:
@@ -112,6 +120,19 @@ const KEY_LABELS: Record<string, string> = {
   workpaperObjectKey: "Stored workpaper",
 };
 
+/** Codes of plan choices as the plan form words them. */
+const CHOICE_LABELS: Record<string, Record<string, string>> = {
+  sizingBasis: { "risk-assessment": "From the risk assessment", "confidence-override": "Typed confidence" },
+  assessedRisk: RISK_LEVEL_LABELS,
+  otherProceduresRisk: RISK_LEVEL_LABELS,
+  controlFrequency: CONTROL_FREQUENCY_LABELS,
+  selection: { random: "Random", systematic: "Systematic", haphazard: "Haphazard", block: "Block" },
+  projection: { ratio: "Ratio", difference: "Difference" },
+  attributePlan: { fixed: "Fixed", "two-stage": "Two-stage" },
+  attributeMode: { statistical: "Statistical", "control-frequency": "By control frequency" },
+  spreadBasis: { "book-values": "Book values", "prior-sample": "An earlier sample", entered: "Entered figure" },
+};
+
 const HIDDEN_KEYS = new Set(["contactUserId", "sampleItemId"]);
 /** Fractions people read as percentages. */
 const RATE_KEYS = new Set([
@@ -149,6 +170,7 @@ export function showValue(key: string, v: unknown, ctx?: ChangeContext): string 
     return METHOD_LABELS[v as keyof typeof METHOD_LABELS];
   if (key === "direction" && typeof v === "string" && v in DIRECTION_LABELS)
     return DIRECTION_LABELS[v as keyof typeof DIRECTION_LABELS];
+  if (typeof v === "string" && CHOICE_LABELS[key]?.[v]) return CHOICE_LABELS[key][v];
   if (key === "deviation" && typeof v === "boolean") return v ? "Deviation" : "No deviation";
   if (key === "estimator" && typeof v === "string" && v in ESTIMATOR_LABELS) return ESTIMATOR_LABELS[v];
   if (key === "populationId" && ctx?.populationNames)
@@ -165,6 +187,14 @@ export function showValue(key: string, v: unknown, ctx?: ChangeContext): string 
   if (typeof v === "string" && /^\d{4}-\d{2}-\d{2}$/.test(v)) return formatDate(v);
   if (typeof v === "number") return v.toLocaleString("en-US", { maximumFractionDigits: 6 });
   if (Array.isArray(v)) return v.map((x) => showValue(key, x, ctx)).join(", ");
+  if (key === "params" && typeof v === "object") {
+    const params = v as Record<string, unknown>;
+    const used = new Set(planKeysFor(params));
+    return Object.entries(params)
+      .filter(([k, x]) => used.has(k) && x !== undefined)
+      .map(([k, x]) => `${humanise(k)} ${showValue(k, x, ctx)}`)
+      .join("; ");
+  }
   if (typeof v === "object")
     return Object.entries(v as Record<string, unknown>)
       .map(([k, x]) => `${humanise(k)} ${showValue(k, x, ctx)}`)

@@ -2,6 +2,7 @@ import { describe, expect, it } from "vitest";
 import { REQUEST_NEED_LABELS } from "@/lib/validation/requests";
 import { describeChange } from "@/lib/review/describe-change";
 import { DIRECTION_LABELS, METHOD_LABELS } from "@/lib/validation/sample";
+import { RISK_LEVEL_LABELS } from "@/lib/validation/methodology";
 
 // The audit trail as people read it (issue 19): the same words on the page and in the locked PDF.
 const ctx = { itemRefs: new Map([["41", "INV-100218"]]) };
@@ -55,7 +56,16 @@ describe("describeChange", () => {
         after: {
           name: "Receivables",
           direction: "understatement",
-          params: { method: "mus", confidence: 0.95, tolerableMisstatement: "15000.00", riskOfIncorrectRejection: 0.1 },
+          // As stored: the schema's defaults for other methods (risk of incorrect rejection, attribute plan) ride along.
+          params: {
+            method: "mus",
+            confidence: 0.95,
+            tolerableMisstatement: "15000.00",
+            riskOfIncorrectRejection: 0.1,
+            attributePlan: "fixed",
+            sizingBasis: "risk-assessment",
+            assessedRisk: "moderate",
+          },
         },
       },
       ctx,
@@ -64,8 +74,9 @@ describe("describeChange", () => {
     expect(r.changes).toContainEqual({
       field: "Plan",
       before: "—",
-      after: `Method ${METHOD_LABELS.mus}; Confidence 95%; Tolerable misstatement 15,000.00; Risk of incorrect rejection 10%`,
+      after: `Method ${METHOD_LABELS.mus}; Confidence 95%; Tolerable misstatement 15,000.00; Sizing basis From the risk assessment; Assessed risk ${RISK_LEVEL_LABELS.moderate}`,
     });
+    expect(r.changes.map((c) => c.after).join(" ")).not.toMatch(/incorrect rejection|Attribute plan/);
     expect(r.changes).toContainEqual({ field: "Direction", before: "—", after: DIRECTION_LABELS.understatement });
     // A seed is an identifier, not an amount: printed without grouping, as it was entered.
     expect(
