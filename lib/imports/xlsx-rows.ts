@@ -36,7 +36,10 @@ export async function* readXlsxRows(filePath: string, sheetName: string): AsyncG
   let found = false;
   try {
     for await (const worksheet of reader) {
-      if ((worksheet as unknown as { name: string }).name !== sheetName) continue;
+      if ((worksheet as unknown as { name: string }).name !== sheetName) {
+        ignoreUnreadSheet(worksheet);
+        continue;
+      }
       found = true;
       const date1904 = (reader as unknown as ReaderInternals).properties?.model?.date1904 === true;
       let rows: SourceBatch["rows"] = [];
@@ -65,6 +68,16 @@ export async function* readXlsxRows(filePath: string, sheetName: string): AsyncG
     input.destroy();
   }
   if (!found) throw new ImportError("sheet-not-found", `The workbook has no sheet named "${sheetName}".`);
+}
+
+/**
+ * A sheet stored before the workbook's part list is parked by exceljs in a temporary file; when the
+ * caller skips the sheet, exceljs deletes that file at once, while the read stream it just made for
+ * it may still be opening. The stream's ENOENT would then have no listener and end the process.
+ */
+function ignoreUnreadSheet(worksheet: unknown) {
+  const source = (worksheet as { iterator?: { on?: unknown } }).iterator;
+  if (source && typeof source.on === "function") (source as NodeJS.ReadableStream).on("error", () => {});
 }
 
 /**
