@@ -308,6 +308,29 @@ async function measurePaging(senior: HttpSession, base: string, sessions: HttpSe
   report(
     `paging ours / bare: throughput ${(paging.rps / barePaging.rps).toFixed(2)}× (${paging.rps.toFixed(0)} vs ${barePaging.rps.toFixed(0)} req/s), p95 ${(paging.p95 / barePaging.p95).toFixed(2)}× (${paging.p95.toFixed(0)} vs ${barePaging.p95.toFixed(0)} ms), p50 ${(paging.p50 / barePaging.p50).toFixed(2)}×; load average ${load1.toFixed(2)} → ${loadavg()[0].toFixed(2)} (1 min) on ${cpus().length} cores`,
   );
+  // As people page: each of the 50 users asks for the next page on average once a second (Poisson
+  // arrivals, open loop: whether or not the last page has come), following the same walk.
+  const walk = pagingWalk(
+    (query, after) => `${itemsUrl}?${query}&after=${after}`,
+    () => ({}),
+  );
+  const walks = Array.from({ length: USERS }, () => ({}));
+  const people = await openLoop({
+    users: USERS,
+    meanGapMs: 1_000,
+    durationMs: PAGE_S * 1000,
+    send: async (u) => {
+      const { path: pagePath } = walk.setup(walks[u]);
+      const res = await fetch(`${APP}${pagePath}`, {
+        headers: { cookie: sessions[u % sessions.length].cookieHeader() },
+      });
+      walk.onAnswer(res.status, await res.text(), walks[u]);
+      return res.status;
+    },
+  });
+  report(
+    `paging as people page (open loop: ${USERS} users × one page a second on average, Poisson, ${PAGE_S} s): ${people.sent} sent, ${people.answered} answered, p50 ${people.p50.toFixed(0)} ms · p95 ${people.p95.toFixed(0)} ms · p99 ${people.p99.toFixed(0)} ms, statuses ${JSON.stringify(people.statuses)}, transport errors ${people.transportErrors}; goal 0 × 503 and p95 ≤ 300 ms → ${(people.statuses["503"] ?? 0) === 0 && people.transportErrors === 0 && people.p95 <= 300 ? "met" : "NOT met"}`,
+  );
   if (ONLY_PAGING) return;
   // The queries autocannon left behind keep the pool busy for a while: wait until a write gets a connection again.
   const drained = await until(senior, `${base}/populations`, 200, 120_000);
