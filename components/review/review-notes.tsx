@@ -5,10 +5,8 @@ import type { ReviewNote } from "@/lib/data/review-notes";
 import { AnswerNoteSchema, RaiseNoteSchema } from "@/lib/validation/review";
 import { apiFetch, plainMessage } from "@/components/ui/api";
 import { Alert } from "@/components/ui/alert";
-import { Badge } from "@/components/ui/badge";
 import { Button } from "@/components/ui/button";
-import { NOTE_STATUS_LABELS, NOTE_STATUS_TONES } from "./note-labels";
-import { formatDateTime } from "@/lib/format/date";
+import { NoteCard } from "./note-card";
 import { Textarea } from "@/components/ui/field";
 
 export interface NoteItem {
@@ -76,63 +74,19 @@ export function ReviewNotes({ engagementId, sampleId, role, notes, locked, items
       {notes.length === 0 && <p className="text-sm text-ink-soft">No review notes.</p>}
       <ol className="space-y-3">
         {notes.map((n, i) => (
-          <li
+          <NoteCard
             key={n.id}
-            className="rounded-md border border-ink-line bg-paper px-3 py-2 text-sm"
-            data-testid={`review-note-${i + 1}`}
-          >
-            <div className="flex items-center justify-between gap-2">
-              <span className="font-medium">
-                Note {i + 1}
-                {n.itemRef ? ` · item ${n.itemRef}` : ""}
-              </span>
-              <Badge tone={NOTE_STATUS_TONES[n.status]}>{NOTE_STATUS_LABELS[n.status]}</Badge>
-            </div>
-            <p className="mt-1 whitespace-pre-wrap">{n.text}</p>
-            <p className="text-xs text-ink-soft">
-              Raised by {n.raisedBy} · {formatDateTime(n.raisedAt)}
-            </p>
-            {n.answer && (
-              <div className="mt-2 border-l-2 border-ledger-500 pl-2">
-                <p className="whitespace-pre-wrap">{n.answer}</p>
-                <p className="text-xs text-ink-soft">
-                  Answered by {n.answeredBy}
-                  {n.answeredAt ? ` · ${formatDateTime(n.answeredAt)}` : ""}
-                </p>
-              </div>
-            )}
-            {n.clearedBy && (
-              <p className="mt-1 text-xs text-ledger-700">
-                Cleared by {n.clearedBy}
-                {n.clearedAt ? ` · ${formatDateTime(n.clearedAt)}` : ""}
-              </p>
-            )}
-            {!locked && n.status !== "cleared" && canAnswer && (
-              <div className="mt-2 space-y-2">
-                <Textarea
-                  aria-label={`Answer to note ${i + 1}`}
-                  value={answers[n.id] ?? ""}
-                  rows={2}
-                  onChange={(e) => setAnswers({ ...answers, [n.id]: e.target.value })}
-                  placeholder={n.answer ? "Add to the answer…" : "Answer the note…"}
-                />
-                <div className="flex gap-2">
-                  <Button variant="secondary" className="px-2.5 py-1 text-xs" onClick={() => void sendAnswer(n, i)}>
-                    Send answer
-                  </Button>
-                  {isReviewer && n.status === "answered" && (
-                    <Button
-                      variant="secondary"
-                      className="px-2.5 py-1 text-xs"
-                      onClick={() => void run(() => apiFetch(`${base}/${n.id}/clear`, { body: {} }))}
-                    >
-                      Clear
-                    </Button>
-                  )}
-                </div>
-              </div>
-            )}
-          </li>
+            note={n}
+            number={i + 1}
+            about={n.itemRef ? `item ${n.itemRef}` : undefined}
+            testId={`review-note-${i + 1}`}
+            mayAnswer={!locked && n.status !== "cleared" && canAnswer}
+            mayClear={isReviewer}
+            draft={answers[n.id] ?? ""}
+            onDraft={(t) => setAnswers({ ...answers, [n.id]: t })}
+            onSend={() => void sendAnswer(n, i)}
+            onClear={() => void run(() => apiFetch(`${base}/${n.id}/clear`, { body: {} }))}
+          />
         ))}
       </ol>
       {!locked && isReviewer && (
