@@ -8,10 +8,10 @@ export const BENCH = {
   database: "sondage_bench",
   appPort: 3200,
   // Not a port of an e2e or integration slot (tests/e2e/slot.ts, tests/integration/test-env.ts).
-  s3Port: Number(process.env.BENCH_S3_PORT ?? 4694),
+  s3Port: Number(process.env.BENCH_S3_PORT ?? 4697),
   // Mail fakes of its own too: the demo (npm start) holds 2525/2580, and the integration and e2e slots take 2535–2538 + 10 per slot (tests/integration/test-env.ts, tests/e2e/slot.ts)
   smtpPort: Number(process.env.BENCH_SMTP_PORT ?? 2894),
-  inboxPort: Number(process.env.BENCH_INBOX_PORT ?? 2898),
+  inboxPort: Number(process.env.BENCH_INBOX_PORT ?? 2899),
   distDir: process.env.NEXT_DIST_DIR ?? ".next-bench",
   uploadDir: ".data/uploads-bench",
   fakesData: "fakes-bench",
