@@ -25,6 +25,8 @@ const flag = (name: string) => {
   const i = args.indexOf(name);
   return i >= 0 ? args[i + 1] : undefined;
 };
+// Under Playwright, which stops its web servers by SIGKILLing their process group, the app servers and
+// HAProxy stay in that group so they go with it instead of outliving the run and holding its ports.
 const underPlaywright = flag("--front") !== undefined;
 const FRONT = Number(flag("--front") ?? 3290);
 // Two ports per front door: slot n (front 3100+n) gets 3500+2n and 3501+2n, so slots never share one.
@@ -81,6 +83,7 @@ async function main() {
           ["node_modules/next/dist/bin/next", "start", "-H", "127.0.0.1", "-p", String(port)],
           env,
           LOG,
+          { ownGroup: !underPlaywright },
         ),
       );
     }
@@ -88,7 +91,7 @@ async function main() {
       await waitForHttp(`http://127.0.0.1:${port}/api/health`, services[services.length - SERVERS.length + i]);
     const cfg = path.join(DATA, "haproxy.cfg");
     writeConfig(cfg, appFrontDoorConfig({ frontPort: FRONT, servers: SERVERS }));
-    const haproxy = startService("haproxy", "haproxy", ["-f", cfg, "-db"], env, LOG);
+    const haproxy = startService("haproxy", "haproxy", ["-f", cfg, "-db"], env, LOG, { ownGroup: !underPlaywright });
     services.push(haproxy);
     await waitForHttp(`http://127.0.0.1:${FRONT}/api/health`, haproxy);
     const pids = new Set<number>();

@@ -10,35 +10,42 @@ export interface Service {
   name: string;
   child: ChildProcess;
   pid: number;
+  /** Whether the process leads a process group of its own (signals then go to the whole group). */
+  ownGroup: boolean;
   /** Resolves with the exit code once the process has ended. */
   exited: Promise<number | null>;
 }
 
-/** Starts a long-running process in its own process group, its output appended to `logPath`. */
+/**
+ * Starts a long-running process, its output appended to `logPath`: by default in its own process group
+ * (so a kill reaches its helpers too); `ownGroup: false` keeps it in the caller's group, so whoever
+ * SIGKILLs that group (Playwright stopping a web server) takes it down as well.
+ */
 export function startService(
   name: string,
   command: string,
   args: string[],
   env: NodeJS.ProcessEnv,
   logPath: string,
+  { ownGroup = true }: { ownGroup?: boolean } = {},
 ): Service {
   const log = createWriteStream(logPath, { flags: "a" });
-  const child = spawn(command, args, { cwd: ROOT, env, stdio: ["ignore", "pipe", "pipe"], detached: true });
+  const child = spawn(command, args, { cwd: ROOT, env, stdio: ["ignore", "pipe", "pipe"], detached: ownGroup });
   // end: false — a killed server's helpers (a Galera node's state-transfer scripts) may still write
   // to stderr after stdout has closed; ending the log then would crash the harness.
   child.stdout?.pipe(log, { end: false });
   child.stderr?.pipe(log, { end: false });
   if (child.pid === undefined) throw new Error(`${name}: could not start ${command}`);
   const exited = once(child, "exit").then(([code]) => code as number | null);
-  return { name, child, pid: child.pid, exited };
+  return { name, child, pid: child.pid, ownGroup, exited };
 }
 
-/** SIGTERM to the service's process group, SIGKILL after `graceMs`. */
+/** SIGTERM to the service (its whole process group when it has one), SIGKILL after `graceMs`. */
 export async function stopService(service: Service, graceMs = 5000): Promise<void> {
   if (service.child.exitCode !== null || service.child.signalCode !== null) return;
   const signal = (sig: NodeJS.Signals) => {
     try {
-      process.kill(-service.pid, sig);
+      process.kill(service.ownGroup ? -service.pid : service.pid, sig);
     } catch {
       /* already gone */
     }
