@@ -3,20 +3,11 @@ import { Badge } from "@/components/ui/badge";
 import { Button } from "@/components/ui/button";
 import { Textarea } from "@/components/ui/field";
 import { formatDateTime } from "@/lib/format/date";
+import type { ReviewNote } from "@/lib/data/review-notes";
 import { NOTE_STATUS_LABELS, NOTE_STATUS_TONES } from "./note-labels";
 
-export interface NoteCardNote {
-  id: number;
-  status: "open" | "answered" | "cleared";
-  text: string;
-  raisedBy: string;
-  raisedAt: string;
-  answer: string | null;
-  answeredBy: string | null;
-  answeredAt: string | null;
-  clearedBy: string | null;
-  clearedAt: string | null;
-}
+/** A review note as the card prints it: a sample's note (lib/data) or the summary's (the same fields). */
+export type NoteCardNote = Omit<ReviewNote, "itemId" | "itemRef" | "raisedById">;
 
 interface Props {
   note: NoteCardNote;
