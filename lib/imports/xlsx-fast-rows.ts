@@ -1,76 +1,18 @@
 import "server-only";
-import type { CellValue } from "exceljs";
-import type { RawCell, SourceBatch, SourceRow } from "./source-row";
-import { readWorkbookParts, type WorkbookParts } from "./xlsx-parts";
+import type { ZipEntry } from "@/lib/files/zip";
+import type { SourceBatch, SourceRow } from "./source-row";
+import { addCell, columnNumber, styleFormat, toSourceRow, type OpenCell, type PendingRow } from "./xlsx-cell-values";
+import { readWorkbookParts, xmlTokens, type WorkbookParts } from "./xlsx-parts";
+import { SheetScanner } from "./xlsx-sheet-scanner";
 import { readSharedStrings, type SharedString } from "./xlsx-shared-strings";
-import { normalizeValue } from "./xlsx-cells";
 import { UnsupportedXlsxError, XmlTokenizer, type XmlToken } from "./xml-tokens";
-import { xmlTokens } from "./xlsx-parts";
 import { streamZipEntryText } from "./zip-entry-stream";
-
-interface OpenCell {
-  column: number;
-  style: number;
-  type?: string;
-  formula?: string;
-  value?: string;
-  texts: number;
-}
-type Pending = CellValue | { sharedIndex: number };
-interface PendingRow {
-  rowNumber: number;
-  rowFormat?: string;
-  cells: { column: number; value: Pending; format?: string }[];
-}
-
-/** exceljs's date-format test and serial conversion (utils.isDateFmt / excelToDate), kept as is so both paths agree. */
-function exceljsIsDateFormat(format: string | undefined): boolean {
-  return !!format && /[ymdhMsb]+/.test(format.replace(/\[[^\]]*]/g, "").replace(/"[^"]*"/g, ""));
-}
-function exceljsDate(serial: number, date1904: boolean): Date {
-  return new Date(Math.round((serial - 25569 + (date1904 ? 1462 : 0)) * 86_400_000));
-}
-
-const EXCELJS_ENTITIES: Record<string, string> = {
-  "&lt;": "<",
-  "&gt;": ">",
-  "&amp;": "&",
-  "&apos;": "'",
-  "&quot;": '"',
-};
-/** exceljs decodes str/inlineStr text a second time (utils.xmlDecode). */
-function exceljsXmlDecode(text: string): string {
-  return text.replace(/&([a-z]*);/g, (entity) => EXCELJS_ENTITIES[entity] ?? entity);
-}
-
-function columnNumber(ref: string | undefined): number {
-  const letters = /^([A-Z]{1,3})\d+$/.exec(ref ?? "")?.[1];
-  if (!letters) throw new UnsupportedXlsxError(`cell reference ${ref}`);
-  return [...letters].reduce((n, ch) => n * 26 + ch.charCodeAt(0) - 64, 0);
-}
-
-/** A cell's value as exceljs's streaming worksheet reader sets it (worksheet-reader.js). */
-function cellValue(c: OpenCell, format: string | undefined, date1904: boolean): Pending | undefined {
-  if (c.formula !== undefined) {
-    const result =
-      c.value === undefined ? undefined : c.type === "str" ? exceljsXmlDecode(c.value) : parseFloat(c.value);
-    return { formula: c.formula, result };
-  }
-  if (c.value === undefined) return undefined;
-  if (c.type === "s") return { sharedIndex: parseInt(c.value, 10) };
-  if (c.type === "inlineStr" || c.type === "str") return exceljsXmlDecode(c.value);
-  if (c.type === "e") return { error: c.value } as CellValue;
-  if (c.type === "b") return parseInt(c.value, 10) !== 0;
-  const number = parseFloat(c.value);
-  if (!Number.isFinite(number)) throw new UnsupportedXlsxError(`number ${c.value}`);
-  return exceljsIsDateFormat(format) ? exceljsDate(number, date1904) : number;
-}
 
 /**
  * Turns a worksheet part's XML tokens into rows as exceljs's streaming reader would give them,
  * shared strings left as indexes. Throws UnsupportedXlsxError on anything it does not understand.
  */
-class SheetRowParser {
+export class SheetRowParser {
   /** Highest shared-string index seen so far. */
   lastShared = -1;
   /** True once </sheetData> has been seen. */
@@ -80,22 +22,20 @@ class SheetRowParser {
   private cell: OpenCell | null = null;
   private capture: "formula" | "value" | null = null;
 
-  constructor(private readonly parts: WorkbookParts) {}
+  private readonly tokenizer = new XmlTokenizer();
 
-  private styleFormat(id: number) {
-    return id < this.parts.styleFormats.length ? { format: this.parts.styleFormats[id] } : null;
-  }
+  constructor(private readonly parts: WorkbookParts) {}
 
   private closeCell() {
     const { row, cell } = this;
     if (!row || !cell) return;
-    const own = cell.style ? this.styleFormat(cell.style) : null;
-    const format = own ? own.format : row.rowFormat;
-    const value = cellValue(cell, format, this.parts.date1904);
-    if (value !== undefined) row.cells.push({ column: cell.column, value, format });
-    if (value && typeof value === "object" && "sharedIndex" in value)
-      this.lastShared = Math.max(this.lastShared, value.sharedIndex);
+    this.lastShared = Math.max(this.lastShared, addCell(this.parts, row, cell));
     [this.cell, this.capture] = [null, null];
+  }
+
+  /** The rows a chunk of the part's text completes (the same interface as SheetScanner). */
+  pushText(text: string, out: PendingRow[]): void {
+    this.push(this.tokenizer.push(text), out);
   }
 
   /** The rows the tokens complete; stops early (returning what it has) once `limit` rows are out. */
@@ -123,7 +63,7 @@ class SheetRowParser {
       else if (name === "row") {
         const rowNumber = parseInt(token.attrs.r, 10);
         if (!Number.isFinite(rowNumber)) throw new UnsupportedXlsxError("row without r");
-        const rowStyle = token.attrs.s ? this.styleFormat(parseInt(token.attrs.s, 10)) : null;
+        const rowStyle = token.attrs.s ? styleFormat(this.parts, parseInt(token.attrs.s, 10)) : null;
         const row: PendingRow = { rowNumber, rowFormat: rowStyle?.format, cells: [] };
         if (token.selfClosing) out.push(row);
         else this.row = row;
@@ -178,10 +118,11 @@ export async function readXlsxHeadRows(filePath: string, sheetName: string, maxR
 
 /**
  * Every row of one sheet, streamed in batches without exceljs: the shared strings are read once,
- * then the worksheet part is inflated and parsed as it streams. Gives the same cells as
- * readXlsxRows (exceljs), several times faster; throws UnsupportedXlsxError (possibly after some
- * batches) on anything it does not understand, so the caller can carry on with exceljs.
- * `bytesRead` is the share of the sheet part inflated so far, scaled to the file's size.
+ * then the worksheet part is inflated and read as it streams — by SheetScanner, and where it meets
+ * what it does not read, by the general tokenizer's parser from the row after the last one given.
+ * Gives the same cells as readXlsxRows (exceljs), several times faster; throws UnsupportedXlsxError
+ * (possibly after some batches) on anything neither understands, so the caller can carry on with
+ * exceljs. `bytesRead` is the share of the sheet part inflated so far, scaled to the file's size.
  */
 export async function* readXlsxRowsFast(
   filePath: string,
@@ -193,8 +134,36 @@ export async function* readXlsxRowsFast(
   const strings: SharedString[] = stringsEntry
     ? await readSharedStrings(filePath, stringsEntry, Number.MAX_SAFE_INTEGER)
     : [];
-  const parser = new SheetRowParser(parts);
-  const tokenizer = new XmlTokenizer();
+  const read = { filePath, sheet, parts, strings, fileSize, batchRows };
+  let lastRow = 0;
+  try {
+    for await (const batch of readSheetRows(read, new SheetScanner(parts))) {
+      if (batch.rows.length) lastRow = batch.rows[batch.rows.length - 1].rowNumber;
+      yield batch;
+    }
+    return;
+  } catch (error) {
+    if (!(error instanceof UnsupportedXlsxError)) throw error;
+  }
+  for await (const batch of readSheetRows(read, new SheetRowParser(parts))) {
+    const rows = batch.rows.filter((row) => row.rowNumber > lastRow);
+    if (rows.length) yield { ...batch, rows };
+  }
+}
+
+interface SheetRead {
+  filePath: string;
+  sheet: ZipEntry;
+  parts: WorkbookParts;
+  strings: SharedString[];
+  fileSize: number;
+  batchRows: number;
+}
+
+async function* readSheetRows(
+  { filePath, sheet, parts, strings, fileSize, batchRows }: SheetRead,
+  parser: { lastShared: number; finished: boolean; pushText(text: string, out: PendingRow[]): void },
+): AsyncGenerator<SourceBatch> {
   const sheetChars = Math.max(1, sheet.size);
   let chars = 0;
   let pending: PendingRow[] = [];
@@ -207,23 +176,10 @@ export async function* readXlsxRowsFast(
   };
   for await (const text of streamZipEntryText(filePath, sheet)) {
     chars += text.length;
-    parser.push(tokenizer.push(text), pending);
+    parser.pushText(text, pending);
     if (pending.length >= batchRows) yield batch();
     if (parser.finished) break;
   }
   if (!parser.finished) throw new UnsupportedXlsxError(`${sheet.name}: cut short`);
   yield batch();
-}
-
-function toSourceRow(pending: PendingRow, strings: SharedString[], date1904: boolean): SourceRow {
-  const cells: RawCell[] = [];
-  for (const { column, value, format } of pending.cells) {
-    const resolved =
-      value && typeof value === "object" && "sharedIndex" in value ? (strings[value.sharedIndex] ?? null) : value;
-    const normalized = normalizeValue(resolved, format, date1904);
-    if (normalized === null) continue;
-    while (cells.length < column - 1) cells.push(null);
-    cells[column - 1] = normalized;
-  }
-  return { rowNumber: pending.rowNumber, cells };
 }

@@ -5,6 +5,7 @@ import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { SourceRow } from "@/lib/imports/source-row";
 import { XLSX_BATCH_ROWS, readXlsxRows, readXlsxRowsForLoad } from "@/lib/imports/xlsx-rows";
+import { fillLedger } from "./ledger-workbook";
 
 // The reference is exceljs 4.4's own streaming WorkbookReader (readXlsxRows): the full load's
 // fast reader must give the very rows, cell for cell (dates, formulas' cached results, booleans,
@@ -12,25 +13,6 @@ import { XLSX_BATCH_ROWS, readXlsxRows, readXlsxRowsForLoad } from "@/lib/import
 const dir = mkdtempSync(path.join(tmpdir(), "sondage-full-"));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
 const file = (name: string) => path.join(dir, name);
-
-function fillLedger(sheet: ExcelJS.Worksheet, rows: number, richAt: (i: number) => boolean) {
-  sheet.addRow(["Invoice", "Customer", "Amount", "Currency", "Posted", "Paid", "Note"]);
-  for (let i = 1; i <= rows; i += 1) {
-    const row = sheet.addRow([
-      `INV-${i}`,
-      richAt(i)
-        ? { richText: [{ text: "Atelier " }, { text: `Brume ${i}`, font: { bold: true } }] }
-        : `Client & Co <${i % 7}>`,
-      i % 4 === 0 ? { formula: `${i}*2`, result: i * 2 + 0.25 } : i * 10.5,
-      i % 5 === 0 ? { formula: `"EUR"&""`, result: "EUR" } : "EUR",
-      i % 2 === 0 ? new Date(Date.UTC(2024, i % 12, (i % 27) + 1)) : 45292 + i,
-      i % 6 === 0,
-      i % 9 === 0 ? { error: "#N/A" } : null,
-    ]);
-    row.getCell(5).numFmt = i % 2 === 0 ? "yyyy-mm-dd" : "dd/mm/yyyy";
-    if ("commit" in row && typeof row.commit === "function") row.commit();
-  }
-}
 
 async function all(rows: AsyncGenerator<{ rows: SourceRow[] }>): Promise<SourceRow[]> {
   const out: SourceRow[] = [];
