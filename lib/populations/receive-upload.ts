@@ -14,6 +14,7 @@ import {
   fetchUploadToTempFile,
   receiveToTempFile,
   removeTempFile,
+  removeUploadObject,
   storeUploadObject,
   uploadObjectKey,
 } from "./upload-files";
@@ -48,8 +49,18 @@ export async function receiveUpload(
   let inspection: UploadInspection;
   const objectKey = uploadObjectKey(a.engagementId, `${randomUUID()}.${file.sha256.slice(0, 12)}`);
   try {
-    inspection = await withRowCount(file.tempPath, await inspectFirstUsableSheet(file.tempPath));
-    await storeUploadObject({ key: objectKey, tempPath: file.tempPath, size: file.size });
+    const inspected = await inspectFirstUsableSheet(file.tempPath);
+    // The bytes go to object storage while the rows are counted; a file the count refuses is removed again.
+    const [counted, stored] = await Promise.allSettled([
+      withRowCount(file.tempPath, inspected),
+      storeUploadObject({ key: objectKey, tempPath: file.tempPath, size: file.size }),
+    ]);
+    if (counted.status === "rejected") {
+      if (stored.status === "fulfilled") await removeUploadObject(objectKey).catch(() => undefined);
+      throw counted.reason;
+    }
+    if (stored.status === "rejected") throw stored.reason;
+    inspection = counted.value;
   } finally {
     await removeTempFile(file.tempPath);
   }

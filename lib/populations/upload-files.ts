@@ -6,7 +6,7 @@ import { Readable, Transform } from "node:stream";
 import { pipeline } from "node:stream/promises";
 import { AppError } from "@/lib/errors";
 import { MAX_UPLOAD_BYTES } from "@/lib/imports";
-import { getObjectStream, putObjectFromFile } from "@/lib/storage/objects";
+import { deleteObject, getObjectStream, putObjectFromFile } from "@/lib/storage/objects";
 
 export function uploadDirectory(): string {
   return process.env.UPLOAD_DIR ?? path.join(process.cwd(), ".data", "uploads");
@@ -69,6 +69,11 @@ export const uploadObjectKey = (engagementId: number, name: string) => `engageme
 /** Stores the received file in object storage (before the inspection answers). */
 export async function storeUploadObject({ key, tempPath, size }: { key: string; tempPath: string; size: number }) {
   await putObjectFromFile({ key, path: tempPath, contentType: "application/octet-stream", size });
+}
+
+/** Removes an upload's stored bytes (an upload refused after they were stored). */
+export async function removeUploadObject(key: string) {
+  await deleteObject({ key });
 }
 
 /**

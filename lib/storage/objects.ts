@@ -1,7 +1,13 @@
 import "server-only";
 import fs from "node:fs";
 import type { Readable } from "node:stream";
-import { CreateBucketCommand, GetObjectCommand, HeadBucketCommand, PutObjectCommand } from "@aws-sdk/client-s3";
+import {
+  CreateBucketCommand,
+  DeleteObjectCommand,
+  GetObjectCommand,
+  HeadBucketCommand,
+  PutObjectCommand,
+} from "@aws-sdk/client-s3";
 import { getStorage } from "./s3-client";
 
 let bucketReady: Promise<void> | null = null;
@@ -92,4 +98,10 @@ export async function getObjectStream({
   const { client, bucket } = getStorage();
   const out = await client.send(new GetObjectCommand({ Bucket: bucket, Key: key }));
   return { body: out.Body as Readable, length: out.ContentLength, contentType: out.ContentType };
+}
+
+/** Removes the object under `key` (S3 answers success for a key that is not there). */
+export async function deleteObject({ key }: { key: string }): Promise<void> {
+  const { client, bucket } = getStorage();
+  await client.send(new DeleteObjectCommand({ Bucket: bucket, Key: key }));
 }

@@ -8,6 +8,9 @@ import { auditCount, makeEngagement, makeFirm, makeUser } from "./support/factor
 import { populationState, RECEIVABLES_MAPPING, upload, uploadAndLoad } from "./support/populations";
 import { claimUploadForLoading } from "@/lib/data/population-uploads";
 import { timeoutScale } from "./test-env";
+import { ListObjectsV2Command } from "@aws-sdk/client-s3";
+import { getStorage } from "@/lib/storage/s3-client";
+import { uploadObjectKey } from "@/lib/populations/upload-files";
 import * as population from "@/app/api/engagements/[engagementId]/populations/[populationId]/route";
 import * as original from "@/app/api/engagements/[engagementId]/populations/[populationId]/original/route";
 import * as problemsCsv from "@/app/api/engagements/[engagementId]/populations/uploads/[uploadId]/problems/route";
@@ -170,6 +173,7 @@ describe("whole-file refusals leave the database as it was", () => {
       for (let i = 1; i <= 1_000_001; i++) rows.push(`R${i},1`);
       const before = await populationState();
       const uploadsBefore = await getDb()("population_uploads").count({ n: "*" }).first();
+      const storedBefore = await storedUploadKeys(engagement);
       const up = await upload(senior, engagement, "too-many.csv", rows.join("\n"));
       expect(up.status).toBe(413);
       // The header is row 1, so data row 1,000,001 is the file's row 1,000,002.
@@ -178,6 +182,8 @@ describe("whole-file refusals leave the database as it was", () => {
       );
       expect(await populationState()).toEqual(before);
       expect(await getDb()("population_uploads").count({ n: "*" }).first()).toEqual(uploadsBefore);
+      // The bytes were stored while the rows were counted: the refusal removes them again.
+      expect(await storedUploadKeys(engagement)).toEqual(storedBefore);
     },
     60_000 * timeoutScale,
   );
@@ -289,3 +295,11 @@ describe("who may upload", () => {
     expect(r.status).toBe(404);
   });
 });
+
+async function storedUploadKeys(engagementId: number): Promise<string[]> {
+  const { client, bucket } = getStorage();
+  const listed = await client.send(
+    new ListObjectsV2Command({ Bucket: bucket, Prefix: uploadObjectKey(engagementId, "") }),
+  );
+  return (listed.Contents ?? []).map((object) => object.Key ?? "").sort();
+}
