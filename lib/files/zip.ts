@@ -1,4 +1,5 @@
 import "server-only";
+import { createInflateRaw } from "node:zlib";
 import { fromBufferPromise, openPromise, type Entry, type Options, type ZipFile } from "yauzl";
 
 /** One entry of a zip archive as its central directory declares it (sizes can lie: count what inflates). */
@@ -15,6 +16,9 @@ export interface ZipEntry {
 const OPTIONS: Options = { lazyEntries: true, autoClose: false, validateEntrySizes: false };
 
 type Source = string | Uint8Array;
+
+const DEFLATED = 8;
+const INFLATE_CHUNK = 256 * 1024;
 
 const openZip = (source: Source): Promise<ZipFile> =>
   typeof source === "string"
@@ -72,11 +76,16 @@ export async function* zipEntryChunks(source: Source, entry: ZipEntry): AsyncGen
       }
     }
     if (!found) throw new Error(`zip entry ${entry.name} is not in the archive`);
-    const stream = await zip.openReadStreamPromise(found);
+    // Deflated entries are inflated here rather than by yauzl, in chunks larger than zlib's 16 KB
+    // default: the inflation (on libuv's thread pool) then runs ahead of the caller's parsing.
+    const deflated = found.compressionMethod === DEFLATED;
+    const raw = await zip.openReadStreamPromise(found, deflated ? { decompress: false } : {});
+    const stream = deflated ? raw.pipe(createInflateRaw({ chunkSize: INFLATE_CHUNK })) : raw;
     try {
       for await (const chunk of stream as AsyncIterable<Buffer>) yield chunk;
     } finally {
       stream.destroy();
+      raw.destroy();
     }
   } finally {
     zip.close();

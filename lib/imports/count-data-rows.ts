@@ -34,7 +34,9 @@ export async function countDataRowsWithinLimit(
 }
 
 function sourceOf(filePath: string, inspection: UploadInspection): AsyncGenerator<SourceBatch> {
-  if (inspection.kind === "xlsx") return readXlsxRowsForLoad(filePath, inspection.sheet ?? "");
+  // A row counts when it has one non-blank cell: the workbook reader reads each row only that far.
+  if (inspection.kind === "xlsx")
+    return readXlsxRowsForLoad(filePath, inspection.sheet ?? "", undefined, { untilFirstValue: true });
   if (!inspection.encoding || !inspection.delimiter || !inspection.newline) {
     throw new ImportError("invalid-mapping", "The inspection of this CSV is incomplete; inspect the file again.");
   }

@@ -30,8 +30,18 @@ export function dateToIsoDate(date: Date): string | null {
   return Number.isNaN(date.getTime()) ? null : isoFromUtc(date.getTime());
 }
 
+// A ledger's dates repeat (a few hundred days a year), so each day's text is made once.
+const isoByDay = new Map<number, string>();
+
 function isoFromUtc(ms: number): string {
-  return new Date(ms).toISOString().slice(0, 10);
+  const day = Math.floor(ms / MS_PER_DAY);
+  let iso = isoByDay.get(day);
+  if (iso === undefined) {
+    iso = new Date(day * MS_PER_DAY).toISOString().slice(0, 10);
+    if (isoByDay.size >= 100_000) isoByDay.clear();
+    isoByDay.set(day, iso);
+  }
+  return iso;
 }
 
 const PLAIN_ISO = /^\d{4}-\d{2}-\d{2}$/;

@@ -44,6 +44,10 @@ function voteFor(value: string): NumberFormat | null {
 export function numberToPlainDecimal(n: number): string | null {
   if (!Number.isFinite(n)) return null;
   if (n === 0) return "0";
+  // JavaScript's shortest round-trip text, when it has no exponent and at most 15 significant
+  // digits, is already the 15-digit rounding written plainly (the usual case: money).
+  const shortest = String(n);
+  if (!shortest.includes("e") && significantDigits(shortest) <= 15) return shortest;
   const [mantissa, exponentText] = Math.abs(n).toPrecision(15).split("e");
   const exponent = exponentText === undefined ? 0 : Number(exponentText);
   const point = (mantissa.includes(".") ? mantissa.indexOf(".") : mantissa.length) + exponent;
@@ -55,4 +59,17 @@ export function numberToPlainDecimal(n: number): string | null {
   if (text.includes(".")) text = text.replace(/0+$/, "").replace(/\.$/, "");
   text = text.replace(/^0+(?=\d)/, "");
   return n < 0 ? `-${text}` : text;
+}
+
+function significantDigits(plain: string): number {
+  let digits = 0;
+  let leading = true;
+  for (let i = 0; i < plain.length; i += 1) {
+    const code = plain.charCodeAt(i);
+    if (code < 48 || code > 57) continue; // sign, point
+    if (leading && code === 48) continue;
+    leading = false;
+    digits += 1;
+  }
+  return digits;
 }

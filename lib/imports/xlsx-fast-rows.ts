@@ -1,6 +1,6 @@
 import "server-only";
 import type { ZipEntry } from "@/lib/files/zip";
-import type { SourceBatch, SourceRow } from "./source-row";
+import { isBlankSourceRow, type SourceBatch, type SourceRow } from "./source-row";
 import { addCell, columnNumber, styleFormat, toSourceRow, type OpenCell, type PendingRow } from "./xlsx-cell-values";
 import { readWorkbookParts, xmlTokens, type WorkbookParts } from "./xlsx-parts";
 import { SheetScanner } from "./xlsx-sheet-scanner";
@@ -116,6 +116,14 @@ export async function readXlsxHeadRows(filePath: string, sheetName: string, maxR
   return rows.map((pending) => toSourceRow(pending, strings, parts.date1904));
 }
 
+export interface FastReadOptions {
+  /**
+   * Rows only as far as their first non-blank cell (the rest of a row is not read, where the
+   * scanner reads it): enough to tell blank rows from data rows, as a row counter needs.
+   */
+  untilFirstValue?: boolean;
+}
+
 /**
  * Every row of one sheet, streamed in batches without exceljs: the shared strings are read once,
  * then the worksheet part is inflated and read as it streams — by SheetScanner, and where it meets
@@ -129,15 +137,22 @@ export async function* readXlsxRowsFast(
   sheetName: string,
   fileSize: number,
   batchRows: number,
+  { untilFirstValue = false }: FastReadOptions = {},
 ): AsyncGenerator<SourceBatch> {
   const { parts, sheet, strings: stringsEntry } = await openSheet(filePath, sheetName);
   const strings: SharedString[] = stringsEntry
     ? await readSharedStrings(filePath, stringsEntry, Number.MAX_SAFE_INTEGER)
     : [];
   const read = { filePath, sheet, parts, strings, fileSize, batchRows };
+  const hasValue = (row: PendingRow) => {
+    const last = row.cells[row.cells.length - 1];
+    if (!last) return false;
+    const { cells } = toSourceRow({ rowNumber: row.rowNumber, cells: [last] }, strings, parts.date1904);
+    return !isBlankSourceRow(cells);
+  };
   let lastRow = 0;
   try {
-    for await (const batch of readSheetRows(read, new SheetScanner(parts))) {
+    for await (const batch of readSheetRows(read, new SheetScanner(parts, untilFirstValue ? hasValue : undefined))) {
       if (batch.rows.length) lastRow = batch.rows[batch.rows.length - 1].rowNumber;
       yield batch;
     }

@@ -5,7 +5,7 @@ import ExcelJS from "exceljs";
 import { ImportError } from "./import-error";
 import type { RawCell, SourceBatch } from "./source-row";
 import { normalizeCell } from "./xlsx-cells";
-import { readXlsxRowsFast } from "./xlsx-fast-rows";
+import { readXlsxRowsFast, type FastReadOptions } from "./xlsx-fast-rows";
 
 /** Rows in each batch; inspection samples the first batch. */
 export const XLSX_BATCH_ROWS = 2000;
@@ -84,17 +84,19 @@ function ignoreUnreadSheet(worksheet: unknown) {
  * Every row of one sheet for a full load: the fast reader (xlsx-fast-rows.ts, the one the preview
  * uses), and exceljs only for what it cannot read — when the fast reader meets a construct it does
  * not understand, exceljs carries on from the row after the last one already given. Refusals
- * (ImportError: a zip bomb, a missing sheet) are not retried.
+ * (ImportError: a zip bomb, a missing sheet) are not retried. `options` go to the fast reader
+ * (exceljs gives whole rows whatever they say).
  */
 export async function* readXlsxRowsForLoad(
   filePath: string,
   sheetName: string,
   onFallback?: (reason: string) => void,
+  options?: FastReadOptions,
 ): AsyncGenerator<SourceBatch> {
   let lastRow = 0;
   try {
     const { size } = await stat(filePath);
-    for await (const batch of readXlsxRowsFast(filePath, sheetName, size, XLSX_BATCH_ROWS)) {
+    for await (const batch of readXlsxRowsFast(filePath, sheetName, size, XLSX_BATCH_ROWS, options)) {
       if (batch.rows.length) lastRow = batch.rows[batch.rows.length - 1].rowNumber;
       yield batch;
     }

@@ -43,7 +43,17 @@ export class SheetScanner {
   /** The start tag last read (one object, reused). */
   private readonly tag: StartTag = { name: "", end: 0, selfClosing: false };
 
-  constructor(private readonly parts: WorkbookParts) {}
+  /** True from a row's deciding cell to its end tag (see `rowDecided`). */
+  private skipping = false;
+
+  /**
+   * `rowDecided`, when given, is asked after each cell whether the row so far says all the caller
+   * needs (a counter needs only a row's first value): the rest of that row is then skipped unread.
+   */
+  constructor(
+    private readonly parts: WorkbookParts,
+    private readonly rowDecided?: (row: PendingRow) => boolean,
+  ) {}
 
   /** Reads the next chunk of the part; rows completed are added to `out`. */
   pushText(chunk: string, out: PendingRow[]): void {
@@ -72,6 +82,11 @@ export class SheetScanner {
   /** Rows and cells from `at`; returns where the unread rest begins. */
   private readData(text: string, at: number, out: PendingRow[]): number {
     for (;;) {
+      if (this.skipping) {
+        const rowEnd = text.indexOf("</row>", at);
+        if (rowEnd < 0) return Math.max(at, text.length - "</row>".length);
+        [this.skipping, at] = [false, rowEnd];
+      }
       const lt = text.indexOf("<", at);
       if (lt < 0) return text.length; // text between rows is ignored, as the general parser ignores it
       if (lt + 1 >= text.length) return lt;
@@ -114,6 +129,7 @@ export class SheetScanner {
         }
         const shared = addCell(this.parts, this.row, cell);
         if (shared > this.lastShared) this.lastShared = shared;
+        if (this.rowDecided?.(this.row)) this.skipping = true;
         at = end;
       } else throw new UnsupportedXlsxError(`<${tag.name}> in sheetData`);
     }

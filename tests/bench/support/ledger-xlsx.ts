@@ -18,7 +18,7 @@ export async function csvToXlsx(csvPath: string, xlsxPath: string): Promise<numb
   let header: string[] | null = null;
   let rows = 0;
   await new Promise<void>((resolve, reject) => {
-    Papa.parse<string[]>(createReadStream(csvPath), {
+    Papa.parse<string[]>(createReadStream(csvPath, { encoding: "utf8" }), {
       skipEmptyLines: true,
       step: ({ data }) => {
         if (!header) {

@@ -1,3 +1,4 @@
+import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { formatCents, parseAmountToCents, type NumberFormat } from "@/lib/imports/amount";
 import { detectNumberFormat, numberToPlainDecimal } from "@/lib/imports/number-format";
@@ -117,5 +118,25 @@ describe("numberToPlainDecimal", () => {
     [0, "0"],
   ])("%s → %s", (value, text) => {
     expect(numberToPlainDecimal(value)).toBe(text);
+  });
+
+  // ECMA-262 Number.prototype.toPrecision(15) is the 15-significant-digit rounding; the plain text
+  // must carry that very value, without an exponent or trailing zeros, for any finite double.
+  it("writes the 15-digit rounding (toPrecision(15)) of any number plainly", () => {
+    fc.assert(
+      fc.property(
+        fc.oneof(
+          fc.double({ noNaN: true, noDefaultInfinity: true }),
+          fc.integer({ min: -1e9, max: 1e9 }).map((cents) => cents / 100),
+          fc.double({ min: -1e16, max: 1e16, noNaN: true }),
+        ),
+        (value) => {
+          const text = numberToPlainDecimal(value)!;
+          expect(text).toMatch(/^-?\d+(\.\d*[1-9])?$/);
+          expect(Number(text)).toBe(Number(value.toPrecision(15)) || 0);
+        },
+      ),
+      { numRuns: 5000 },
+    );
   });
 });

@@ -75,4 +75,23 @@ describe("countDataRowsWithinLimit", () => {
       /^Row 8 is data row 6: a population holds at most 5 data rows/,
     );
   });
+
+  it("reads a workbook's rows only up to their first value and still counts as the load does: blank text, empty formula results, a value only in the last column", async () => {
+    const workbook = new ExcelJS.Workbook();
+    const sheet = workbook.addWorksheet("Receivables");
+    sheet.addRow(["Invoice", "Amount", "Note"]);
+    sheet.addRow(["INV-1", 10, "first"]);
+    sheet.addRow(["  ", "", " "]); // blank text only: not a data row
+    sheet.addRow([{ formula: '""', result: "" }, null, null]); // an empty formula result: blank
+    sheet.addRow([null, null, "late"]); // a value in the last column only: a data row
+    sheet.addRow([" ", { formula: "1+1", result: 2 }, null]); // blank text, then a number
+    sheet.addRow([{ richText: [{ text: " " }, { text: "" }] }, null, null]); // blank rich text: blank
+    sheet.addRow([{ error: "#N/A" }, null, null]); // an error cell holds its code: a data row
+    sheet.addRow(["INV-8", 80, null]);
+    const file = write("blank-forms.xlsx", new Uint8Array(await workbook.xlsx.writeBuffer()));
+    const inspection = await inspectUpload(file);
+    const summary = await new PopulationImport(file, inspection, mapping).validateOnly();
+    expect(summary.rowsRead).toBe(5);
+    expect(await countDataRowsWithinLimit(file, inspection, 10)).toBe(summary.rowsRead);
+  });
 });

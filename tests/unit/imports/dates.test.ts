@@ -1,5 +1,12 @@
 import { describe, expect, it } from "vitest";
-import { detectDateOrder, excelSerialToIsoDate, isDateNumberFormat, parseDateText } from "@/lib/imports/dates";
+import fc from "fast-check";
+import {
+  dateToIsoDate,
+  detectDateOrder,
+  excelSerialToIsoDate,
+  isDateNumberFormat,
+  parseDateText,
+} from "@/lib/imports/dates";
 
 describe("excelSerialToIsoDate", () => {
   // Microsoft Learn, "Date systems in Excel": 1900 system, serial 1 = 1 January 1900; Excel treats
@@ -58,5 +65,20 @@ describe("detectDateOrder / isDateNumberFormat", () => {
     expect(isDateNumberFormat("#,##0.00")).toBe(false);
     expect(isDateNumberFormat('"Day" 0')).toBe(false);
     expect(isDateNumberFormat("General")).toBe(false);
+  });
+});
+
+describe("dateToIsoDate", () => {
+  // ECMA-262 Date.prototype.toISOString gives the UTC calendar date; the time of day is dropped.
+  it("gives the UTC calendar date of any instant, before 1970 and at the end of a day included", () => {
+    expect(dateToIsoDate(new Date(Date.UTC(1969, 11, 31, 23, 59, 59, 999)))).toBe("1969-12-31");
+    expect(dateToIsoDate(new Date(Date.UTC(2024, 1, 29, 0, 0, 0, 0)))).toBe("2024-02-29");
+    expect(dateToIsoDate(new Date(Number.NaN))).toBeNull();
+    fc.assert(
+      fc.property(fc.integer({ min: Date.UTC(1900, 0, 1), max: Date.UTC(9999, 11, 31, 23, 59) }), (ms) => {
+        expect(dateToIsoDate(new Date(ms))).toBe(new Date(ms).toISOString().slice(0, 10));
+      }),
+      { numRuns: 5000 },
+    );
   });
 });
