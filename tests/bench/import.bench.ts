@@ -165,7 +165,7 @@ async function importThroughRoutes(a: {
   const fingerprint = (
     await mariadb(
       a.db,
-      `SELECT BIT_XOR(CRC32(CONCAT_WS(0x09, row_number, item_ref, IFNULL(description, ''), book_value, IFNULL(item_date, ''), IFNULL(extra, '')))) FROM population_items WHERE population_id = ${outcome.populationId}`,
+      `SELECT BIT_XOR(CRC32(CONCAT_WS(0x09, \`row_number\`, item_ref, IFNULL(description, ''), book_value, IFNULL(item_date, ''), IFNULL(extra, '')))) FROM population_items WHERE population_id = ${outcome.populationId}`,
     )
   ).trim();
   return {
