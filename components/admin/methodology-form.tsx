@@ -3,6 +3,7 @@ import { useState } from "react";
 import { useRouter } from "next/navigation";
 import { useForm, type FieldPath } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
+import { CONTROL_FREQUENCY_LABELS } from "@/lib/validation/sample";
 import {
   CONTROL_FREQUENCIES,
   DEFAULT_METHODOLOGY,
@@ -22,8 +23,9 @@ import { apiFetch, ApiError } from "@/components/ui/api";
 import { formatDateTime } from "@/lib/format/date";
 
 const num = { valueAsNumber: true } as const;
-const cellInput =
-  "w-24 rounded-md border border-ink-line bg-paper-raised px-2 py-1 text-right text-sm figures focus:border-ledger-500 focus:outline-none aria-[invalid=true]:border-brick-500";
+const cellControl =
+  "rounded-md border border-ink-line bg-paper-raised px-2 py-1 text-sm focus:border-ledger-500 focus:outline-none aria-[invalid=true]:border-brick-500";
+const cellInput = `${cellControl} w-24 text-right figures`;
 
 /** The firm's methodology settings, validated by the same schema as PUT /api/firm/methodology. */
 export function MethodologyForm({ initial }: { initial: MethodologyVersion }) {
@@ -211,19 +213,19 @@ export function MethodologyForm({ initial }: { initial: MethodologyVersion }) {
                 <Td className="p-2">
                   <select
                     aria-label={`Frequency ${i + 1}`}
-                    className={cellInput + " w-48"}
+                    className={`${cellControl} w-48`}
                     {...register(`controlFrequencies.${i}.frequency`)}
                   >
                     {CONTROL_FREQUENCIES.map((f) => (
                       <option key={f} value={f}>
-                        {f}
+                        {CONTROL_FREQUENCY_LABELS[f]}
                       </option>
                     ))}
                   </select>
                 </Td>
                 <Td className="p-2">
                   <input
-                    aria-label={`Minimum sample size, ${row.frequency}`}
+                    aria-label={`Minimum sample size, ${CONTROL_FREQUENCY_LABELS[row.frequency]}`}
                     type="number"
                     className={cellInput}
                     {...register(`controlFrequencies.${i}.minimumSampleSize`, num)}
