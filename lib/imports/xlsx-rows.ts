@@ -36,7 +36,9 @@ export async function* readXlsxRows(filePath: string, sheetName: string): AsyncG
   let found = false;
   try {
     for await (const worksheet of reader) {
-      if ((worksheet as unknown as { name: string }).name !== sheetName) {
+      // Sheets after the wanted one are passed over rather than the loop left: exceljs deletes a
+      // sheet it parked in a temporary file only when its iteration moves past that sheet.
+      if (found || (worksheet as unknown as { name: string }).name !== sheetName) {
         ignoreUnreadSheet(worksheet);
         continue;
       }
@@ -56,7 +58,6 @@ export async function* readXlsxRows(filePath: string, sheetName: string): AsyncG
         }
       }
       yield { rows, quoteProblems: [], bytesRead };
-      break;
     }
   } catch (error) {
     if (error instanceof ImportError) throw error;

@@ -1,9 +1,9 @@
 import ExcelJS from "exceljs";
-import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
+import { mkdtempSync, readdirSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { listZipEntries } from "@/lib/files/zip";
+import { listZipEntries, type ZipEntry } from "@/lib/files/zip";
 import type { SourceRow } from "@/lib/imports/source-row";
 import type { PendingRow } from "@/lib/imports/xlsx-cell-values";
 import { SheetRowParser } from "@/lib/imports/xlsx-fast-rows";
@@ -111,9 +111,13 @@ describe("SheetScanner", () => {
 });
 
 describe("the full load's readers, one after the other", () => {
-  /** The exceljs ledger rewritten part by part , read by the load's readers and by exceljs. */
-  async function readRewritten(name: string, rewrite: (part: string, text: string) => string) {
-    const entries = (await listZipEntries(file("ledger.xlsx")))!;
+  /** The exceljs ledger rewritten part by part, read by the load's readers and by exceljs. */
+  async function readRewritten(
+    name: string,
+    rewrite: (part: string, text: string) => string,
+    order: (entries: ZipEntry[]) => ZipEntry[] = (entries) => entries,
+  ) {
+    const entries = order((await listZipEntries(file("ledger.xlsx")))!);
     const parts = await Promise.all(
       entries.map(async (entry) => {
         const data = await readZipEntry(file("ledger.xlsx"), entry);
@@ -144,6 +148,21 @@ describe("the full load's readers, one after the other", () => {
     expect(fallbacks).toEqual([]);
     expect(rows).toHaveLength(XLSX_BATCH_ROWS + 601);
     expect(rows).toEqual(reference);
+  }, 60_000);
+
+  it("leaves no temporary file behind when exceljs reads a sheet stored before the workbook's other parts", async () => {
+    // exceljs parks such a sheet in a file of its own (tmp-<pid>-…) until it has read the workbook part.
+    const parked = () => readdirSync(tmpdir()).filter((name) => name.startsWith(`tmp-${process.pid}-`));
+    const before = parked();
+    const sheetFirst = (entries: ZipEntry[]) => [
+      ...entries.filter((entry) => entry.name === ledger.parts.sheetPath),
+      ...entries.filter((entry) => entry.name !== ledger.parts.sheetPath),
+    ];
+    const { rows, reference } = await readRewritten("sheet-first.xlsx", (_, text) => text, sheetFirst);
+    expect(reference).toHaveLength(XLSX_BATCH_ROWS + 601);
+    expect(rows).toEqual(reference);
+    // exceljs removes its file with an asynchronous unlink: give it a moment.
+    await expect.poll(() => parked().filter((name) => !before.includes(name)), { timeout: 5_000 }).toEqual([]);
   }, 60_000);
 
   it("reads shared strings laid out other ways (line breaks between items, a comment) as exceljs does", async () => {
