@@ -34,6 +34,7 @@ export async function* readXlsxRows(filePath: string, sheetName: string): AsyncG
     entries: "ignore",
   });
   let found = false;
+  let given = false;
   try {
     for await (const worksheet of reader) {
       // Sheets after the wanted one are passed over rather than the loop left: exceljs deletes a
@@ -58,8 +59,10 @@ export async function* readXlsxRows(filePath: string, sheetName: string): AsyncG
         }
       }
       yield { rows, quoteProblems: [], bytesRead };
+      given = true;
     }
   } catch (error) {
+    if (given) return; // a fault in a part after the wanted sheet does not undo the rows already given
     if (error instanceof ImportError) throw error;
     throw new ImportError(
       "unreadable-file",

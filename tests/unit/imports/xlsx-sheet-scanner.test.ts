@@ -165,6 +165,28 @@ describe("the full load's readers, one after the other", () => {
     await expect.poll(() => parked().filter((name) => !before.includes(name)), { timeout: 5_000 }).toEqual([]);
   }, 60_000);
 
+  it("keeps the rows exceljs gave when a part stored after the wanted sheet cannot be inflated", async () => {
+    const entries = (await listZipEntries(file("ledger.xlsx")))!;
+    const parts = await Promise.all(
+      entries.map(async (entry) => ({ name: entry.name, data: await readZipEntry(file("ledger.xlsx"), entry) })),
+    );
+    const junk = "xl/worksheets/sheet9.xml";
+    // The workbook's other parts first, so exceljs streams the sheet at once; then the sheet; then the spoilt part.
+    const sheet = (part: { name: string }) => part.name === ledger.parts.sheetPath;
+    const zip = buildZip([
+      ...parts.filter((part) => !sheet(part)),
+      ...parts.filter(sheet),
+      { name: junk, data: Buffer.from(ledger.text) },
+    ]);
+    // Spoil the last entry's deflated bytes, just after the name in its local header.
+    const at = zip.indexOf(Buffer.from(junk)) + junk.length + 8;
+    zip.fill(0xff, at, at + 64);
+    writeFileSync(file("spoilt-tail.xlsx"), zip);
+    const rows: SourceRow[] = [];
+    for await (const batch of readXlsxRows(file("spoilt-tail.xlsx"), "Receivables")) rows.push(...batch.rows);
+    expect(rows).toHaveLength(XLSX_BATCH_ROWS + 601);
+  }, 60_000);
+
   it("reads shared strings laid out other ways (line breaks between items, a comment) as exceljs does", async () => {
     for (const [name, rewrite] of [
       ["strings-lines.xlsx", (text: string) => text.replaceAll("</si><si>", "</si>\n  <si>")],
